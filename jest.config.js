@@ -1,0 +1,57 @@
+// One jest configuration, four projects. scripts/test.mjs runs them in this order:
+// unit (pure shared code, server units, corpus), portal (Angular components),
+// api (supertest against a real PostgreSQL), browser (playwright-core + Debian chromium).
+const swc = ['@swc/jest', { jsc: { parser: { syntax: 'typescript' }, target: 'es2022' }, module: { type: 'commonjs' } }];
+const sharedAlias = { '^@cc/shared$': '<rootDir>/shared/src/index.ts' };
+
+const node = {
+  testEnvironment: 'node',
+  transform: { '^.+\\.(t|j)s$': swc },
+  moduleNameMapper: sharedAlias,
+  rootDir: __dirname,
+};
+
+module.exports = {
+  projects: [
+    {
+      ...node,
+      displayName: 'unit',
+      testMatch: [
+        '<rootDir>/shared/src/**/*.spec.ts',
+        '<rootDir>/server/src/**/*.spec.ts',
+        '<rootDir>/test/unit/**/*.spec.ts',
+      ],
+      testEnvironment: '<rootDir>/test/helpers/pdf-environment.js',
+    },
+    {
+      displayName: 'portal',
+      rootDir: __dirname,
+      preset: 'jest-preset-angular',
+      testEnvironment: 'jest-preset-angular/environments/jest-jsdom-env',
+      setupFilesAfterEnv: ['<rootDir>/apps/portal/src/test-setup.ts'],
+      testMatch: ['<rootDir>/apps/portal/src/**/*.spec.ts'],
+      moduleNameMapper: sharedAlias,
+      transform: {
+        '^.+\\.(ts|js|mjs|html|svg)$': [
+          'jest-preset-angular',
+          { tsconfig: '<rootDir>/apps/portal/tsconfig.spec.json', stringifyContentPathRegex: '\\.(html|svg)$' },
+        ],
+      },
+      transformIgnorePatterns: ['node_modules/(?!.*\\.mjs$)'],
+    },
+    {
+      ...node,
+      displayName: 'api',
+      testMatch: ['<rootDir>/test/api/**/*.api.spec.ts'],
+      testEnvironment: '<rootDir>/test/helpers/pdf-environment.js',
+      globalSetup: '<rootDir>/test/helpers/api-global-setup.ts',
+    },
+    {
+      ...node,
+      displayName: 'browser',
+      testMatch: ['<rootDir>/test/browser/**/*.browser.spec.ts'],
+      globalSetup: '<rootDir>/test/helpers/browser-global-setup.ts',
+      globalTeardown: '<rootDir>/test/helpers/browser-global-teardown.ts',
+    },
+  ],
+};

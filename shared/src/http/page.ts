@@ -1,0 +1,14 @@
+import { z } from 'zod';
+
+export const PageQuerySchema = z.object({
+  page: z.coerce.number().int().min(0).default(0),
+  pageSize: z.coerce.number().int().min(1).max(100).default(20),
+});
+
+/** One page of a server-side paged list. */
+export interface Page<T> {
+  items: T[];
+  total: number;
+  page: number;
+  pageSize: number;
+}

@@ -1,0 +1,13 @@
+// Public surface of the shared package: schemas, domain types and pure computation used by
+// both the portal and the server. Add a line here for each new module.
+export * from './auth/role';
+export * from './auth/auth.schema';
+export * from './http/api-error';
+export * from './http/page';
+export * from './organisations/organisation.schema';
+export * from './users/user.schema';
+export * from './requests/us-state';
+export * from './requests/nec-edition';
+export * from './requests/request-status';
+export * from './requests/days-to-closing';
+export * from './requests/repair-request.schema';

@@ -1,0 +1,43 @@
+import { z } from 'zod';
+
+/** States of a repair request, in the order a request normally moves through them. */
+export const REQUEST_STATUSES = [
+  'draft',
+  'intake',
+  'pricing',
+  'quoted',
+  'approved',
+  'scheduled',
+  'in-progress',
+  'corrected',
+  'letter-issued',
+  'accepted',
+  'reopened',
+  'declined',
+  'withdrawn',
+] as const;
+export const RequestStatusSchema = z.enum(REQUEST_STATUSES);
+export type RequestStatus = z.infer<typeof RequestStatusSchema>;
+
+export const REQUEST_STATUS_LABELS: Record<RequestStatus, string> = {
+  draft: 'Draft',
+  intake: 'Report in review',
+  pricing: 'Awaiting prices',
+  quoted: 'Quote with seller',
+  approved: 'Approved',
+  scheduled: 'Visit booked',
+  'in-progress': 'Work under way',
+  corrected: 'Work finished',
+  'letter-issued': 'Letter issued',
+  accepted: 'Proof accepted',
+  reopened: 'Reopened',
+  declined: 'Declined by seller',
+  withdrawn: 'Withdrawn',
+};
+
+/** States after which nothing more happens on the request. */
+export const FINAL_STATUSES: readonly RequestStatus[] = ['accepted', 'declined', 'withdrawn'];
+
+export function isFinalStatus(status: RequestStatus): boolean {
+  return FINAL_STATUSES.includes(status);
+}
