@@ -1,0 +1,53 @@
+import { MONEY_TOTAL_FIELDS, type MoneyTotals, type QuoteBreakdown, type VisitBreakdown } from './pricing-breakdown.schema';
+import { PricingError } from './pricing-error';
+import type { Quote } from './pricing-input.schema';
+import { priceVisit, type LineToPrice } from './price-visit';
+import type { RateBook } from './rate-book.schema';
+import { applyBasisPoints } from './rounding';
+
+/** A quote to price. Defaults of the schema may be left out. */
+export interface QuoteToPrice {
+  visits: readonly (Pick<Quote['visits'][number], 'key'> & Partial<Pick<Quote['visits'][number], 'adderIds' | 'hasPermit'>>)[];
+  lines: readonly (LineToPrice & { visitKey: string })[];
+}
+
+/**
+ * Prices a quote: each visit on its own (priceVisit), then the quote's money is the sum of its
+ * visits' money, except the deposit, which is taken from the quote total (R1), not summed.
+ */
+export function priceQuote(book: RateBook, quote: QuoteToPrice): QuoteBreakdown {
+  const linesByVisit = new Map<string, LineToPrice[]>();
+  for (const visit of quote.visits) {
+    if (linesByVisit.has(visit.key)) {
+      throw new PricingError('duplicate-key', ['visits'], `Visit "${visit.key}" is listed twice`);
+    }
+    linesByVisit.set(visit.key, []);
+  }
+  const lineKeys = new Set<string>();
+  quote.lines.forEach((line, i) => {
+    const bucket = linesByVisit.get(line.visitKey);
+    if (!bucket) throw new PricingError('unknown-visit', ['lines', i, 'visitKey'], `No visit "${line.visitKey}" in this quote`);
+    if (lineKeys.has(line.key)) throw new PricingError('duplicate-key', ['lines', i, 'key'], `Line "${line.key}" is listed twice`);
+    lineKeys.add(line.key);
+    bucket.push(line);
+  });
+
+  const visits: VisitBreakdown[] = quote.visits.map((visit, i) =>
+    priceVisit(book, { key: visit.key, adderIds: visit.adderIds, hasPermit: visit.hasPermit, lines: linesByVisit.get(visit.key) ?? [] }, ['visits', i]),
+  );
+
+  const totals = {} as MoneyTotals;
+  for (const field of MONEY_TOTAL_FIELDS) {
+    let sum = 0;
+    for (const visit of visits) sum += visit[field];
+    totals[field] = sum;
+  }
+  totals.depositCents = applyBasisPoints(totals.totalCents, book.terms.cardDepositBp);
+
+  return {
+    ...totals,
+    visits,
+    quoteValidityDays: book.terms.quoteValidityDays,
+    warrantyText: book.terms.warrantyText,
+  };
+}

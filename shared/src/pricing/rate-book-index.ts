@@ -1,0 +1,29 @@
+import type { RateBook, RateBookEntry, SiteAdder } from './rate-book.schema';
+
+/** Look-ups into one rate book, built once per rate-book object and reused by every price call. */
+export interface RateBookIndex {
+  readonly entries: ReadonlyMap<string, RateBookEntry>;
+  readonly adders: ReadonlyMap<string, IndexedAdder>;
+}
+
+export interface IndexedAdder {
+  readonly adder: SiteAdder;
+  /** Position in the rate book: labour multipliers compound in this order, whatever order they are ticked. */
+  readonly position: number;
+}
+
+const cache = new WeakMap<RateBook, RateBookIndex>();
+
+/** The index of `book`. Rate books are treated as immutable: build a new object to change one. */
+export function indexRateBook(book: RateBook): RateBookIndex {
+  let index = cache.get(book);
+  if (!index) {
+    const entries = new Map<string, RateBookEntry>();
+    for (const entry of book.entries) entries.set(entry.id, entry);
+    const adders = new Map<string, IndexedAdder>();
+    book.adders.forEach((adder, position) => adders.set(adder.id, { adder, position }));
+    index = { entries, adders };
+    cache.set(book, index);
+  }
+  return index;
+}
