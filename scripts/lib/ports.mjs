@@ -1,0 +1,14 @@
+import { createServer } from 'node:net';
+
+/** Asks the OS for a free TCP port on 127.0.0.1. */
+export function freePort() {
+  return new Promise((resolve, reject) => {
+    const server = createServer();
+    server.unref();
+    server.on('error', reject);
+    server.listen(0, '127.0.0.1', () => {
+      const { port } = server.address();
+      server.close(() => resolve(port));
+    });
+  });
+}

@@ -1,0 +1,106 @@
+#!/usr/bin/env node
+// `npm test`: every check of the project against a throwaway PostgreSQL cluster.
+// Order: type check of every TypeScript project → unit + component tests → API tests → portal build →
+// browser tests. Ends with one line `N passed, N failed` over all of them; exits non-zero on any failure.
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { ensureChromium } from './lib/chromium.mjs';
+import { ensureDependencies } from './lib/deps.mjs';
+import { buildPortalIfStale } from './lib/portal-build.mjs';
+import { freePort } from './lib/ports.mjs';
+import { startCluster } from './lib/postgres.mjs';
+import { run, runAsync } from './lib/run.mjs';
+
+const root = join(dirname(fileURLToPath(import.meta.url)), '..');
+const bin = (name) => join(root, 'node_modules/.bin', name);
+const TYPECHECK_PROJECTS = ['shared/tsconfig.json', 'server/tsconfig.json', 'test/tsconfig.json', 'apps/portal/tsconfig.app.json', 'apps/portal/tsconfig.spec.json'];
+
+ensureDependencies(root);
+const chromium = ensureChromium();
+
+const tally = { passed: 0, failed: 0, problems: [] };
+const record = (name, passed, failed) => {
+  tally.passed += passed;
+  tally.failed += failed;
+  if (failed) tally.problems.push(`${name}: ${failed} failed`);
+};
+
+async function jest(name, projects, env, extra = []) {
+  const out = join(tmpdir(), `cc-jest-${name}-${process.pid}.json`);
+  const code = await runAsync(bin('jest'), ['--selectProjects', ...projects, '--json', `--outputFile=${out}`, ...extra], { cwd: root, env });
+  let report;
+  try {
+    report = JSON.parse(readFileSync(out, 'utf8'));
+  } catch {
+    record(name, 0, 1);
+    return;
+  }
+  rmSync(out, { force: true });
+  const brokenSuites = report.numRuntimeErrorTestSuites ?? 0;
+  const failed = report.numFailedTests + brokenSuites + (code !== 0 && report.numFailedTests + brokenSuites === 0 ? 1 : 0);
+  record(name, report.numPassedTests, failed);
+}
+
+const workDir = mkdtempSync(join(tmpdir(), 'cc-test-'));
+const pgPort = await freePort();
+console.log(`• Throwaway PostgreSQL on 127.0.0.1:${pgPort}`);
+const cluster = startCluster({ dataDir: join(workDir, 'pg'), port: pgPort, throwaway: true });
+const cleanUp = () => {
+  cluster.stop();
+  rmSync(workDir, { recursive: true, force: true });
+};
+process.on('SIGINT', () => {
+  cleanUp();
+  process.exit(130);
+});
+
+try {
+  cluster.createDatabase('cc_api');
+  cluster.createDatabase('cc_browser');
+  const env = {
+    ...process.env,
+    NODE_ENV: 'test',
+    CHROMIUM_PATH: chromium,
+    SESSION_SECRET: 'test-secret-that-is-only-used-by-the-test-suite',
+    BCRYPT_ROUNDS: '4',
+  };
+  const apiEnv = { ...env, DATABASE_URL: cluster.url('cc_api') };
+  const browserEnv = { ...env, DATABASE_URL: cluster.url('cc_browser') };
+
+  console.log('\n## Type check');
+  for (const project of TYPECHECK_PROJECTS) {
+    const code = await runAsync(bin('tsc'), ['-p', project, '--noEmit'], { cwd: root });
+    console.log(`${code === 0 ? '✓' : '✗'} tsc -p ${project}`);
+    record(`tsc ${project}`, code === 0 ? 1 : 0, code === 0 ? 0 : 1);
+  }
+
+  console.log('\n## Unit and component tests');
+  await jest('unit+portal', ['unit', 'portal'], env);
+
+  console.log('\n## API tests (real PostgreSQL)');
+  run(bin('tsx'), ['scripts/db-setup.ts', '--seed=never'], { cwd: root, env: apiEnv });
+  await jest('api', ['api'], apiEnv, ['--runInBand']);
+
+  console.log('\n## Portal build');
+  try {
+    buildPortalIfStale(root);
+    record('portal build', 1, 0);
+  } catch {
+    record('portal build', 0, 1);
+  }
+
+  console.log('\n## Browser tests (Debian chromium)');
+  run(bin('tsx'), ['scripts/db-setup.ts', '--seed=always'], { cwd: root, env: browserEnv });
+  await jest('browser', ['browser'], browserEnv, ['--runInBand']);
+} catch (err) {
+  console.error(err);
+  record('test run', 0, 1);
+} finally {
+  cleanUp();
+}
+
+if (tally.problems.length) console.log(`\nFailures: ${tally.problems.join('; ')}`);
+console.log(`\n${tally.passed} passed, ${tally.failed} failed`);
+process.exit(tally.failed === 0 ? 0 : 1);

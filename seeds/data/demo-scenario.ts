@@ -1,0 +1,94 @@
+// The demo scenario: Marlow Springs, Colorado, a fictional mountain town, and the people who
+// buy, sell, inspect and repair its houses. Everything here is invented for the demo.
+
+export const DEMO_PASSWORD = 'marlow-springs-demo';
+
+export const ORGANISATIONS = [
+  { key: 'juniper', name: 'Juniper Key Realty', kind: 'brokerage', phone: '(719) 555-0141', address: '12 Aspen Row, Marlow Springs, CO 81290' },
+  { key: 'tallgrass', name: 'Tallgrass Home Partners', kind: 'brokerage', phone: '(719) 555-0178', address: '480 Mill Street, Marlow Springs, CO 81290' },
+  {
+    key: 'brightline', name: 'Brightline Electric Co.', kind: 'contractor', phone: '(719) 555-0123', address: '77 Foundry Lane, Marlow Springs, CO 81290',
+    licenceNumber: 'EC-0048215', licenceState: 'CO', licenceClass: 'Electrical contractor (master on staff)',
+  },
+  {
+    key: 'copperleaf', name: 'Copperleaf Electrical Services', kind: 'contractor', phone: '(719) 555-0190', address: '3 Quarry Bend Road, Quarry Bend, CO 81292',
+    licenceNumber: 'EC-0051907', licenceState: 'CO', licenceClass: 'Electrical contractor',
+  },
+  { key: 'keystone', name: 'Keystone Lens Home Inspections', kind: 'inspection-company', phone: '(719) 555-0166', address: '9 Ridgeview Court, Marlow Springs, CO 81290' },
+  { key: 'platform', name: 'Closing Circuit', kind: 'platform', phone: null, address: null },
+] as const;
+
+export type OrganisationKey = (typeof ORGANISATIONS)[number]['key'];
+
+export const PEOPLE = [
+  { key: 'admin', email: 'admin@closingcircuit.test', name: 'Dana Whitfield', role: 'admin', org: 'platform' },
+  { key: 'maya', email: 'maya.chen@juniperkey.test', name: 'Maya Chen', role: 'agent', org: 'juniper' },
+  { key: 'rob', email: 'rob.hale@tallgrass.test', name: 'Robert Hale', role: 'agent', org: 'tallgrass' },
+  { key: 'priya', email: 'priya.natarajan@tallgrass.test', name: 'Priya Natarajan', role: 'agent', org: 'tallgrass' },
+  { key: 'ellen', email: 'ellen.brooks@mail.test', name: 'Ellen Brooks', role: 'seller', org: null },
+  { key: 'tomas', email: 'tomas.garza@mail.test', name: 'Tomás Garza', role: 'seller', org: null },
+  { key: 'june', email: 'june.albright@mail.test', name: 'June Albright', role: 'seller', org: null },
+  { key: 'sam', email: 'sam.okafor@brightline.test', name: 'Sam Okafor', role: 'contractor', org: 'brightline' },
+  { key: 'lee', email: 'lee.park@brightline.test', name: 'Lee Park', role: 'contractor', org: 'brightline' },
+  { key: 'jo', email: 'jo.fenn@copperleaf.test', name: 'Jo Fenn', role: 'contractor', org: 'copperleaf' },
+  { key: 'nora', email: 'nora.vance@keystonelens.test', name: 'Nora Vance', role: 'inspector', org: 'keystone' },
+] as const;
+
+export type PersonKey = (typeof PEOPLE)[number]['key'];
+
+interface DemoItem {
+  code: string;
+  room: string;
+  location: string;
+  quantity: number | null;
+  severity: string;
+  necRefs: string[];
+}
+
+export interface DemoRequest {
+  street: string;
+  city: string;
+  zip: string;
+  yearBuilt: number;
+  /** Days from the seeding day to closing (negative: closed already). */
+  closingInDays: number;
+  necEdition: 2017 | 2020 | 2023;
+  /** The path the request took, from draft to where it is now. */
+  path: string[];
+  buyerAgent: PersonKey;
+  listingAgent: PersonKey | null;
+  seller: PersonKey | null;
+  /** A seller invited by e-mail who has not made an account yet. */
+  invitedSellerEmail?: string;
+  inspector: PersonKey | null;
+  contractor: OrganisationKey | null;
+  items: DemoItem[];
+}
+
+const gfciKitchen: DemoItem = { code: 'gfci-missing', room: 'kitchen', location: 'kitchen counter right of range', quantity: 2, severity: 'safety', necRefs: ['210.8(A)', '406.4(D)(3)'] };
+const gfciBath: DemoItem = { code: 'gfci-missing', room: 'bathroom', location: 'hall bathroom vanity', quantity: 1, severity: 'safety', necRefs: ['210.8(A)', '406.4(D)(3)'] };
+const polarity: DemoItem = { code: 'reversed-polarity', room: 'bedroom', location: 'northeast bedroom, east wall', quantity: 1, severity: 'safety', necRefs: ['200.11', '406.4'] };
+const openGround: DemoItem = { code: 'open-ground', room: 'living-area', location: 'living room, three-slot receptacles', quantity: 3, severity: 'safety', necRefs: ['406.4(D)(2)', '250.146'] };
+const doubleTap: DemoItem = { code: 'double-tap', room: 'panel', location: 'main panel, breaker 14', quantity: 1, severity: 'repair', necRefs: ['110.14', '408.41'] };
+const weatherCover: DemoItem = { code: 'weather-cover-missing', room: 'exterior', location: 'rear patio', quantity: 1, severity: 'repair', necRefs: ['406.9'] };
+const smoke: DemoItem = { code: 'smoke-co-alarm', room: 'hallway', location: 'upstairs hallway', quantity: 1, severity: 'safety', necRefs: ['local code', 'NFPA 72'] };
+const junction: DemoItem = { code: 'open-junction-box', room: 'attic', location: 'attic above garage', quantity: 2, severity: 'safety', necRefs: ['314.28(C)', '300.15'] };
+
+const THROUGH = ['draft', 'intake', 'pricing', 'quoted', 'approved', 'scheduled', 'in-progress', 'corrected', 'letter-issued', 'accepted'];
+const upTo = (status: string) => THROUGH.slice(0, THROUGH.indexOf(status) + 1);
+
+export const REQUESTS: DemoRequest[] = [
+  { street: '214 Larkspur Lane', city: 'Marlow Springs', zip: '81290', yearBuilt: 1987, closingInDays: 24, necEdition: 2023, path: upTo('draft'), buyerAgent: 'maya', listingAgent: null, seller: null, invitedSellerEmail: 'walt.simms@mail.test', inspector: null, contractor: null, items: [] },
+  { street: '9 Foundry Court', city: 'Marlow Springs', zip: '81290', yearBuilt: 1962, closingInDays: 19, necEdition: 2023, path: upTo('intake'), buyerAgent: 'maya', listingAgent: 'rob', seller: 'ellen', inspector: 'nora', contractor: 'brightline', items: [] },
+  { street: '1180 Ridgeview Drive', city: 'Marlow Springs', zip: '81290', yearBuilt: 2004, closingInDays: 16, necEdition: 2023, path: upTo('pricing'), buyerAgent: 'maya', listingAgent: 'rob', seller: 'tomas', inspector: 'nora', contractor: 'brightline', items: [gfciKitchen, gfciBath, weatherCover, doubleTap] },
+  { street: '56 Quarry Bend Road', city: 'Quarry Bend', zip: '81292', yearBuilt: 1948, closingInDays: 12, necEdition: 2020, path: upTo('pricing'), buyerAgent: 'priya', listingAgent: null, seller: 'june', inspector: 'nora', contractor: 'copperleaf', items: [openGround, polarity, junction] },
+  { street: '702 Aspen Row', city: 'Marlow Springs', zip: '81290', yearBuilt: 1975, closingInDays: 14, necEdition: 2023, path: upTo('quoted'), buyerAgent: 'maya', listingAgent: 'rob', seller: 'ellen', inspector: 'nora', contractor: 'brightline', items: [gfciBath, polarity, smoke] },
+  { street: '33 Mill Street', city: 'Marlow Springs', zip: '81290', yearBuilt: 1958, closingInDays: 9, necEdition: 2023, path: upTo('approved'), buyerAgent: 'priya', listingAgent: 'rob', seller: 'tomas', inspector: 'nora', contractor: 'brightline', items: [openGround, doubleTap] },
+  { street: '418 Wren Hollow', city: 'Marlow Springs', zip: '81290', yearBuilt: 1991, closingInDays: 6, necEdition: 2023, path: upTo('scheduled'), buyerAgent: 'maya', listingAgent: null, seller: 'june', inspector: 'nora', contractor: 'brightline', items: [gfciKitchen, weatherCover] },
+  { street: '87 Tinsmith Way', city: 'Marlow Springs', zip: '81290', yearBuilt: 1969, closingInDays: 4, necEdition: 2023, path: upTo('in-progress'), buyerAgent: 'maya', listingAgent: 'rob', seller: 'ellen', inspector: 'nora', contractor: 'brightline', items: [gfciBath, junction, smoke] },
+  { street: '1502 Sawmill Ridge', city: 'Quarry Bend', zip: '81292', yearBuilt: 2011, closingInDays: 3, necEdition: 2020, path: upTo('corrected'), buyerAgent: 'priya', listingAgent: 'rob', seller: 'tomas', inspector: 'nora', contractor: 'brightline', items: [weatherCover] },
+  { street: '25 Lantern Square', city: 'Marlow Springs', zip: '81290', yearBuilt: 1999, closingInDays: 2, necEdition: 2023, path: upTo('letter-issued'), buyerAgent: 'maya', listingAgent: 'rob', seller: 'june', inspector: 'nora', contractor: 'brightline', items: [doubleTap, gfciKitchen] },
+  { street: '640 Bellweather Road', city: 'Marlow Springs', zip: '81290', yearBuilt: 1983, closingInDays: -5, necEdition: 2023, path: upTo('accepted'), buyerAgent: 'maya', listingAgent: null, seller: 'ellen', inspector: 'nora', contractor: 'brightline', items: [polarity] },
+  { street: '12 Cobble Creek Lane', city: 'Marlow Springs', zip: '81290', yearBuilt: 1955, closingInDays: 30, necEdition: 2023, path: [...upTo('quoted'), 'declined'], buyerAgent: 'priya', listingAgent: 'rob', seller: 'june', inspector: 'nora', contractor: 'brightline', items: [openGround] },
+  { street: '301 Kestrel Point', city: 'Quarry Bend', zip: '81292', yearBuilt: 1979, closingInDays: 21, necEdition: 2020, path: [...upTo('intake'), 'withdrawn'], buyerAgent: 'maya', listingAgent: null, seller: 'tomas', inspector: 'nora', contractor: 'copperleaf', items: [] },
+];

@@ -1,0 +1,33 @@
+import { Router } from 'express';
+import type { csrfSync } from 'csrf-sync';
+import type { PassportInstance } from '../auth/passport';
+import type { Config } from '../config/config';
+import type { Db } from '../db/knex';
+import type { Services } from '../services';
+import { createAdminRouter } from './admin.router';
+import { createAuthRouter } from './auth.router';
+import { createContractorsRouter } from './contractors.router';
+import { createHealthRouter } from './health.router';
+import { createInvitationsRouter } from './invitations.router';
+import { createRequestsRouter } from './requests.router';
+
+export interface RouterDeps {
+  config: Config;
+  db: Db;
+  services: Services;
+  passport: PassportInstance;
+  csrf: ReturnType<typeof csrfSync>;
+}
+
+/** Mounts every API router under /api. CSRF protection covers every state-changing route. */
+export function createApiRouter(deps: RouterDeps): Router {
+  const api = Router();
+  api.use(createHealthRouter(deps));
+  api.use(deps.csrf.csrfSynchronisedProtection);
+  api.use('/auth', createAuthRouter(deps));
+  api.use('/invitations', createInvitationsRouter(deps));
+  api.use('/requests', createRequestsRouter(deps));
+  api.use('/admin', createAdminRouter(deps));
+  api.use('/contractors', createContractorsRouter(deps));
+  return api;
+}

@@ -1,0 +1,35 @@
+import type { Express } from 'express';
+import { createApp } from '../../server/src/app';
+import { loadConfig, type Config } from '../../server/src/config/config';
+import { createDb, type Db } from '../../server/src/db/knex';
+
+export interface TestApp {
+  app: Express;
+  db: Db;
+  config: Config;
+  close(): Promise<void>;
+}
+
+/** The real app on the test database (DATABASE_URL), with test settings overridable per file. */
+export function createTestApp(overrides: NodeJS.ProcessEnv = {}): TestApp {
+  const config = loadConfig({
+    NODE_ENV: 'test',
+    SESSION_SECRET: 'test-secret-that-is-only-used-by-the-test-suite',
+    BCRYPT_ROUNDS: '4',
+    PUBLIC_URL: 'http://portal.test',
+    PORTAL_DIST: '/nonexistent',
+    DATABASE_URL: process.env.DATABASE_URL,
+    ...overrides,
+  });
+  const db = createDb(config.databaseUrl, 4);
+  const { app, close } = createApp(config, db);
+  return {
+    app,
+    db,
+    config,
+    async close() {
+      await close();
+      await db.destroy();
+    },
+  };
+}
