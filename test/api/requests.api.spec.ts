@@ -1,0 +1,265 @@
+import request from 'supertest';
+import type { CurrentUser, RepairRequestDetail } from '@cc/shared';
+import { createTestApp, type TestApp } from '../helpers/test-app';
+import { createOrganisation, createUser, csrfTokenFor, resetDatabase, signIn, validRequestBody, type SignedIn } from '../helpers/fixtures';
+
+let t: TestApp;
+let contractorOrg: number;
+let otherContractorOrg: number;
+/** One request with every kind of party, and the people around it. */
+let cast: Record<'buyerAgent' | 'listingAgent' | 'seller' | 'inspector' | 'contractor' | 'otherContractor' | 'otherAgent' | 'otherSeller' | 'otherInspector' | 'admin', CurrentUser>;
+let sessions: Record<keyof typeof cast, SignedIn>;
+let ownRequest: RepairRequestDetail;
+
+beforeAll(async () => {
+  t = createTestApp();
+  await resetDatabase(t.db);
+  const brokerage = await createOrganisation(t.db, 'brokerage');
+  contractorOrg = await createOrganisation(t.db, 'contractor', 'Assigned Electric');
+  otherContractorOrg = await createOrganisation(t.db, 'contractor', 'Unassigned Electric');
+  cast = {
+    buyerAgent: await createUser(t.db, 'agent', brokerage),
+    listingAgent: await createUser(t.db, 'agent', brokerage),
+    seller: await createUser(t.db, 'seller'),
+    inspector: await createUser(t.db, 'inspector'),
+    contractor: await createUser(t.db, 'contractor', contractorOrg),
+    otherContractor: await createUser(t.db, 'contractor', otherContractorOrg),
+    otherAgent: await createUser(t.db, 'agent', brokerage),
+    otherSeller: await createUser(t.db, 'seller'),
+    otherInspector: await createUser(t.db, 'inspector'),
+    admin: await createUser(t.db, 'admin'),
+  };
+  sessions = Object.fromEntries(await Promise.all(Object.entries(cast).map(async ([k, u]) => [k, await signIn(t.app, u)]))) as typeof sessions;
+  const res = await sessions.buyerAgent.agent
+    .post('/api/requests')
+    .set('x-csrf-token', sessions.buyerAgent.csrfToken)
+    .send(
+      validRequestBody({
+        listingAgentEmail: cast.listingAgent.email,
+        sellerEmail: cast.seller.email,
+        inspectorEmail: cast.inspector.email,
+        contractorOrganisationId: contractorOrg,
+      }),
+    );
+  expect(res.status).toBe(201);
+  ownRequest = res.body;
+});
+afterAll(() => t.close());
+
+const PARTIES = ['buyerAgent', 'listingAgent', 'seller', 'inspector', 'contractor', 'admin'] as const;
+const OUTSIDERS = ['otherAgent', 'otherSeller', 'otherInspector', 'otherContractor'] as const;
+
+describe('POST /api/requests', () => {
+  it('creates a draft with the agent as buyer’s agent, parties linked, state default edition and history', () => {
+    expect(ownRequest).toMatchObject({
+      status: 'draft',
+      necEdition: 2023, // CO in the state defaults table
+      reference: expect.stringMatching(/^CC-\d{5}$/),
+      contractor: { id: contractorOrg, name: 'Assigned Electric', licenceState: 'CO' },
+      myParts: ['buyer-agent'],
+    });
+    expect(ownRequest.parties.map((p) => [p.role, p.userId, p.isPending])).toEqual([
+      ['buyer-agent', cast.buyerAgent.id, false],
+      ['listing-agent', cast.listingAgent.id, false],
+      ['seller', cast.seller.id, false],
+      ['inspector', cast.inspector.id, false],
+    ]);
+    expect(ownRequest.history).toEqual([expect.objectContaining({ from: null, to: 'draft', byName: cast.buyerAgent.name })]);
+  });
+
+  it('keeps an edition the agent chose', async () => {
+    const res = await sessions.buyerAgent.agent.post('/api/requests').set('x-csrf-token', sessions.buyerAgent.csrfToken).send(validRequestBody({ necEdition: 2017 }));
+    expect(res.status).toBe(201);
+    expect(res.body.necEdition).toBe(2017);
+  });
+
+  it('invites by link a seller who has no account yet', async () => {
+    const res = await sessions.buyerAgent.agent
+      .post('/api/requests')
+      .set('x-csrf-token', sessions.buyerAgent.csrfToken)
+      .send(validRequestBody({ sellerEmail: 'New.Seller@People.test' }));
+    expect(res.status).toBe(201);
+    const seller = res.body.parties.find((p: { role: string }) => p.role === 'seller');
+    expect(seller).toMatchObject({ email: 'new.seller@people.test', isPending: true, userId: null });
+    expect(seller.inviteUrl).toMatch(/^http:\/\/portal\.test\/invite\/[\w-]{20,}$/);
+  });
+
+  it('responds 400 with every bad field named, and writes nothing', async () => {
+    const before = await t.db('repair_requests').count<{ count: string }[]>({ count: '*' });
+    const res = await sessions.buyerAgent.agent
+      .post('/api/requests')
+      .set('x-csrf-token', sessions.buyerAgent.csrfToken)
+      .send({ street: '', city: 'X', state: 'ZZ', zip: '123', yearBuilt: 'old', closingDate: '15/01/2027', necEdition: 2014, sellerEmail: 'nope' });
+    expect(res.status).toBe(400);
+    expect(res.body.error).toEqual(expect.any(String));
+    expect(res.body.details.map((d: { path: string }) => d.path).sort()).toEqual(
+      ['city', 'closingDate', 'necEdition', 'sellerEmail', 'state', 'street', 'yearBuilt', 'zip'].sort(),
+    );
+    const after = await t.db('repair_requests').count<{ count: string }[]>({ count: '*' });
+    expect(after).toEqual(before);
+  });
+
+  it('responds 400 on the field when an e-mail belongs to an account of the wrong role, and rolls back', async () => {
+    const before = await t.db('repair_requests').count<{ count: string }[]>({ count: '*' });
+    const res = await sessions.buyerAgent.agent
+      .post('/api/requests')
+      .set('x-csrf-token', sessions.buyerAgent.csrfToken)
+      .send(validRequestBody({ sellerEmail: cast.inspector.email }));
+    expect(res.status).toBe(400);
+    expect(res.body.details).toEqual([{ path: 'sellerEmail', message: expect.stringMatching(/not a seller/) }]);
+    expect(await t.db('repair_requests').count<{ count: string }[]>({ count: '*' })).toEqual(before);
+  });
+
+  it('responds 400 when the contractor is not a contractor organisation', async () => {
+    const brokerage = await createOrganisation(t.db, 'brokerage');
+    const res = await sessions.buyerAgent.agent
+      .post('/api/requests')
+      .set('x-csrf-token', sessions.buyerAgent.csrfToken)
+      .send(validRequestBody({ contractorOrganisationId: brokerage }));
+    expect(res.status).toBe(400);
+    expect(res.body.details[0].path).toBe('contractorOrganisationId');
+  });
+
+  it.each(['seller', 'inspector', 'contractor'] as const)('responds 403 to a %s', async (who) => {
+    const s = sessions[who];
+    await s.agent.post('/api/requests').set('x-csrf-token', s.csrfToken).send(validRequestBody()).expect(403);
+  });
+
+  it('responds 401 without a session and 403 without a CSRF token', async () => {
+    const anon = request.agent(t.app);
+    const token = await csrfTokenFor(anon);
+    await anon.post('/api/requests').set('x-csrf-token', token).send(validRequestBody()).expect(401);
+    await sessions.buyerAgent.agent.post('/api/requests').send(validRequestBody()).expect(403);
+  });
+
+  it('lets an admin open one for a named buyer’s agent', async () => {
+    const missing = await sessions.admin.agent.post('/api/requests').set('x-csrf-token', sessions.admin.csrfToken).send(validRequestBody());
+    expect(missing.status).toBe(400);
+    expect(missing.body.details[0].path).toBe('buyerAgentEmail');
+    const res = await sessions.admin.agent
+      .post('/api/requests')
+      .set('x-csrf-token', sessions.admin.csrfToken)
+      .send(validRequestBody({ buyerAgentEmail: cast.otherAgent.email }));
+    expect(res.status).toBe(201);
+    expect(res.body.parties[0]).toMatchObject({ role: 'buyer-agent', userId: cast.otherAgent.id });
+  });
+});
+
+describe('GET /api/requests/:id', () => {
+  it.each(PARTIES)('shows the request to its %s', async (who) => {
+    const res = await sessions[who].agent.get(`/api/requests/${ownRequest.id}`);
+    expect(res.status).toBe(200);
+    expect(res.body.id).toBe(ownRequest.id);
+  });
+
+  it.each(OUTSIDERS)('responds 404 (not 403) to %s, who is not a party', async (who) => {
+    const res = await sessions[who].agent.get(`/api/requests/${ownRequest.id}`);
+    expect(res.status).toBe(404);
+    expect(res.body).toEqual({ error: expect.any(String), details: [] });
+  });
+
+  it('responds 404 for an id that does not exist or is not a number', async () => {
+    await sessions.admin.agent.get('/api/requests/999999').expect(404);
+    await sessions.admin.agent.get('/api/requests/abc').expect(404);
+  });
+
+  it('responds 401 without a session', async () => {
+    await request(t.app).get(`/api/requests/${ownRequest.id}`).expect(401);
+  });
+});
+
+describe('GET /api/requests', () => {
+  it.each([...PARTIES, ...OUTSIDERS])('lists for %s only the requests they are party to', async (who) => {
+    const res = await sessions[who].agent.get('/api/requests?pageSize=100');
+    expect(res.status).toBe(200);
+    const ids: number[] = res.body.items.map((r: { id: number }) => r.id);
+    const isParty = (PARTIES as readonly string[]).includes(who);
+    expect(ids.includes(ownRequest.id)).toBe(isParty);
+    // Every listed request must also open for this user: the list never shows more than detail allows.
+    for (const id of ids) await sessions[who].agent.get(`/api/requests/${id}`).expect(200);
+  });
+
+  it('pages, sorts, filters by status and text', async () => {
+    const s = sessions.otherAgent;
+    const cities = ['Alder Flat', 'Birch Gap', 'Cinder Vale'];
+    for (const [i, city] of cities.entries()) {
+      await s.agent.post('/api/requests').set('x-csrf-token', s.csrfToken).send(validRequestBody({ city, closingDate: `2027-0${i + 2}-01` })).expect(201);
+    }
+    const page0 = await s.agent.get('/api/requests?pageSize=2&page=0&sort=closingDate&direction=desc');
+    expect(page0.body.total).toBeGreaterThanOrEqual(3);
+    expect(page0.body.items).toHaveLength(2);
+    expect(page0.body.items[0].closingDate >= page0.body.items[1].closingDate).toBe(true);
+    const byText = await s.agent.get('/api/requests?q=birch');
+    expect(byText.body.items.map((r: { city: string }) => r.city)).toEqual(['Birch Gap']);
+    const byReference = await s.agent.get(`/api/requests?q=${byText.body.items[0].reference}`);
+    expect(byReference.body.items.map((r: { id: number }) => r.id)).toEqual([byText.body.items[0].id]);
+    const drafts = await s.agent.get('/api/requests?status=draft,intake');
+    expect(drafts.body.items.every((r: { status: string }) => r.status === 'draft')).toBe(true);
+    const none = await s.agent.get('/api/requests?status=accepted');
+    expect(none.body).toMatchObject({ items: [], total: 0 });
+  });
+
+  it('responds 400 for an unknown status or sort', async () => {
+    const res = await sessions.buyerAgent.agent.get('/api/requests?status=finished&sort=price&pageSize=1000');
+    expect(res.status).toBe(400);
+    expect(res.body.details.map((d: { path: string }) => d.path.split('.')[0]).sort()).toEqual(['pageSize', 'sort', 'status']);
+  });
+});
+
+describe('POST /api/requests/:id/parties', () => {
+  it.each(['buyerAgent', 'listingAgent', 'admin'] as const)('lets the %s invite a party', async (who) => {
+    const email = `invitee-${who.toLowerCase()}@people.test`;
+    const res = await sessions[who].agent.post(`/api/requests/${ownRequest.id}/parties`).set('x-csrf-token', sessions[who].csrfToken).send({ role: 'seller', email });
+    expect(res.status).toBe(201);
+    expect(res.body.parties.find((p: { email: string }) => p.email === email)).toMatchObject({ isPending: true, inviteUrl: expect.any(String) });
+  });
+
+  it.each(['seller', 'inspector', 'contractor'] as const)('responds 403 to the request’s %s', async (who) => {
+    await sessions[who].agent.post(`/api/requests/${ownRequest.id}/parties`).set('x-csrf-token', sessions[who].csrfToken).send({ role: 'seller', email: 'x@people.test' }).expect(403);
+  });
+
+  it.each(OUTSIDERS)('responds 404 to %s', async (who) => {
+    await sessions[who].agent.post(`/api/requests/${ownRequest.id}/parties`).set('x-csrf-token', sessions[who].csrfToken).send({ role: 'seller', email: 'x@people.test' }).expect(404);
+  });
+
+  it('hides invite links from parties who are not agents', async () => {
+    const res = await sessions.seller.agent.get(`/api/requests/${ownRequest.id}`);
+    const pending = res.body.parties.filter((p: { isPending: boolean }) => p.isPending);
+    expect(pending.length).toBeGreaterThan(0);
+    expect(pending.every((p: { inviteUrl: string | null }) => p.inviteUrl === null)).toBe(true);
+  });
+
+  it('responds 400 for a bad role or e-mail', async () => {
+    const res = await sessions.buyerAgent.agent.post(`/api/requests/${ownRequest.id}/parties`).set('x-csrf-token', sessions.buyerAgent.csrfToken).send({ role: 'buyer-agent', email: 'bad' });
+    expect(res.status).toBe(400);
+    expect(res.body.details.map((d: { path: string }) => d.path).sort()).toEqual(['email', 'role']);
+  });
+});
+
+describe('PUT /api/requests/:id/contractor', () => {
+  it('lets an agent of the request assign another contractor, who then sees it', async () => {
+    const res = await sessions.buyerAgent.agent.post('/api/requests').set('x-csrf-token', sessions.buyerAgent.csrfToken).send(validRequestBody());
+    const id = res.body.id;
+    await sessions.otherContractor.agent.get(`/api/requests/${id}`).expect(404);
+    const put = await sessions.buyerAgent.agent.put(`/api/requests/${id}/contractor`).set('x-csrf-token', sessions.buyerAgent.csrfToken).send({ contractorOrganisationId: otherContractorOrg });
+    expect(put.status).toBe(200);
+    expect(put.body.contractor.id).toBe(otherContractorOrg);
+    await sessions.otherContractor.agent.get(`/api/requests/${id}`).expect(200);
+  });
+
+  it('responds 403 to the assigned contractor and 404 to an outsider', async () => {
+    await sessions.contractor.agent.put(`/api/requests/${ownRequest.id}/contractor`).set('x-csrf-token', sessions.contractor.csrfToken).send({ contractorOrganisationId: contractorOrg }).expect(403);
+    await sessions.otherAgent.agent.put(`/api/requests/${ownRequest.id}/contractor`).set('x-csrf-token', sessions.otherAgent.csrfToken).send({ contractorOrganisationId: contractorOrg }).expect(404);
+  });
+});
+
+describe('GET /api/contractors', () => {
+  it('lists contractor organisations to agents', async () => {
+    const res = await sessions.buyerAgent.agent.get('/api/contractors').expect(200);
+    expect(res.body.map((o: { name: string }) => o.name)).toEqual(['Assigned Electric', 'Unassigned Electric']);
+  });
+
+  it.each(['seller', 'inspector', 'contractor'] as const)('responds 403 to a %s', async (who) => {
+    await sessions[who].agent.get('/api/contractors').expect(403);
+  });
+});
