@@ -1,38 +1,75 @@
-import type { FlatPricing, TimeAndMaterialsPricing } from './rate-book.schema';
+import type { LineBreakdown } from './pricing-breakdown.schema';
+import type { FlatPricing, RateBookEntry, TimeAndMaterialsPricing } from './rate-book.schema';
 import { applyBasisPoints, compoundMultipliers } from './rounding';
 
-/** Figures of one time-and-materials line on its own, before the visit pools its labour. */
-export interface TimeAndMaterialsFigures {
-  labourMinutes: number;
-  materialsCostCents: number;
-  materialsMarkupCents: number;
+/** The line as the caller named it. */
+export interface LineRef {
+  key: string;
+  quantity: number;
 }
 
+/** Labour adders that apply to one time-and-materials line, already folded. */
+export interface LineLabourAdders {
+  minutesPerUnit: number;
+  /** Multipliers in rate-book order (R2 compounds them in this order). */
+  multipliersBp: readonly number[];
+}
+
+export const NO_LABOUR_ADDERS: LineLabourAdders = { minutesPerUnit: 0, multipliersBp: [] };
+
 /**
- * Labour and materials of a time-and-materials line:
+ * A time-and-materials line on its own, before the visit pools its labour (`labourCents` is filled
+ * in by the visit):
  * minutes = (minutes per unit + adder minutes per unit) × quantity × combined multiplier (R2, then R1);
  * materials = cost per unit × quantity; markup = materials × markup (R1), entry override first.
  */
 export function priceTimeAndMaterialsLine(
-  pricing: TimeAndMaterialsPricing,
-  quantity: number,
-  adderMinutesPerUnit: number,
-  multipliersBp: readonly number[],
+  line: LineRef,
+  entry: RateBookEntry & { pricing: TimeAndMaterialsPricing },
+  adders: LineLabourAdders,
   defaultMarkupBp: number,
-): TimeAndMaterialsFigures {
-  const plainMinutes = (pricing.labourMinutesPerUnit + adderMinutesPerUnit) * quantity;
+): LineBreakdown {
+  const pricing = entry.pricing;
+  const plainMinutes = (pricing.labourMinutesPerUnit + adders.minutesPerUnit) * line.quantity;
   const labourMinutes =
-    multipliersBp.length === 0 ? plainMinutes : applyBasisPoints(plainMinutes, compoundMultipliers(multipliersBp));
-  const materialsCostCents = pricing.materialsCentsPerUnit * quantity;
+    adders.multipliersBp.length === 0 ? plainMinutes : applyBasisPoints(plainMinutes, compoundMultipliers(adders.multipliersBp));
+  const materialsCostCents = pricing.materialsCentsPerUnit * line.quantity;
   const materialsMarkupCents = applyBasisPoints(materialsCostCents, pricing.markupBp ?? defaultMarkupBp);
-  return { labourMinutes, materialsCostCents, materialsMarkupCents };
+  return {
+    key: line.key,
+    entryId: entry.id,
+    entryName: entry.name,
+    code: entry.code,
+    mode: 'time-and-materials',
+    quantity: line.quantity,
+    labourMinutes,
+    labourCents: 0,
+    materialsCostCents,
+    materialsMarkupCents,
+    materialsCents: materialsCostCents + materialsMarkupCents,
+    flatCents: 0,
+  };
 }
 
 /**
- * Flat-rate price of a line. `unitsEarlierInVisit` counts units of the same entry on earlier lines
- * of the visit: the first-unit price applies to the visit's first unit of the entry only.
+ * A flat-rate line. `unitsEarlierInVisit` counts units of the same entry on earlier lines of the
+ * visit: the first-unit price applies to the visit's first unit of the entry only.
  */
-export function priceFlatLine(pricing: FlatPricing, quantity: number, unitsEarlierInVisit: number): number {
+export function priceFlatLine(line: LineRef, entry: RateBookEntry & { pricing: FlatPricing }, unitsEarlierInVisit: number): LineBreakdown {
+  const pricing = entry.pricing;
   const firstUnits = unitsEarlierInVisit === 0 ? 1 : 0;
-  return pricing.firstUnitCents * firstUnits + pricing.additionalUnitCents * (quantity - firstUnits);
+  return {
+    key: line.key,
+    entryId: entry.id,
+    entryName: entry.name,
+    code: entry.code,
+    mode: 'flat',
+    quantity: line.quantity,
+    labourMinutes: 0,
+    labourCents: 0,
+    materialsCostCents: 0,
+    materialsMarkupCents: 0,
+    materialsCents: 0,
+    flatCents: pricing.firstUnitCents * firstUnits + pricing.additionalUnitCents * (line.quantity - firstUnits),
+  };
 }

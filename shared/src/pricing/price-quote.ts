@@ -17,24 +17,23 @@ export interface QuoteToPrice {
  */
 export function priceQuote(book: RateBook, quote: QuoteToPrice): QuoteBreakdown {
   const linesByVisit = new Map<string, LineToPrice[]>();
-  for (const visit of quote.visits) {
-    if (linesByVisit.has(visit.key)) {
-      throw new PricingError('duplicate-key', ['visits'], `Visit "${visit.key}" is listed twice`);
-    }
-    linesByVisit.set(visit.key, []);
+  for (let i = 0; i < quote.visits.length; i++) {
+    const key = quote.visits[i].key;
+    if (linesByVisit.has(key)) throw new PricingError('duplicate-visit', ['visits', i, 'key'], `Visit "${key}" is listed twice`);
+    linesByVisit.set(key, []);
   }
-  const lineKeys = new Set<string>();
-  quote.lines.forEach((line, i) => {
+  for (let i = 0; i < quote.lines.length; i++) {
+    const line = quote.lines[i];
     const bucket = linesByVisit.get(line.visitKey);
     if (!bucket) throw new PricingError('unknown-visit', ['lines', i, 'visitKey'], `No visit "${line.visitKey}" in this quote`);
-    if (lineKeys.has(line.key)) throw new PricingError('duplicate-key', ['lines', i, 'key'], `Line "${line.key}" is listed twice`);
-    lineKeys.add(line.key);
     bucket.push(line);
-  });
+  }
 
-  const visits: VisitBreakdown[] = quote.visits.map((visit, i) =>
-    priceVisit(book, { key: visit.key, adderIds: visit.adderIds, hasPermit: visit.hasPermit, lines: linesByVisit.get(visit.key) ?? [] }, ['visits', i]),
-  );
+  const visits: VisitBreakdown[] = new Array(quote.visits.length);
+  for (let i = 0; i < quote.visits.length; i++) {
+    const { key, adderIds, hasPermit } = quote.visits[i];
+    visits[i] = priceVisit(book, { key, adderIds, hasPermit, lines: linesByVisit.get(key) ?? [] }, ['visits', i]);
+  }
 
   const totals = {} as MoneyTotals;
   for (const field of MONEY_TOTAL_FIELDS) {

@@ -154,7 +154,6 @@ describe('priceVisit', () => {
       ['an unknown entry', visitOf({ key: 'a', entryId: 'no-such-entry', quantity: 1 }), 'unknown-entry', ['lines', 0, 'entryId']],
       ['an unknown adder on a line', visitOf(gfci('a', { adderIds: ['no-such-adder'] })), 'unknown-adder', ['lines', 0, 'adderIds', 0]],
       ['an unknown adder on the visit', { key: 'v', adderIds: ['nope'], lines: [gfci('a')] }, 'unknown-adder', ['adderIds', 0]],
-      ['a repeated line key', visitOf(gfci('a'), gfci('a')), 'duplicate-key', ['lines', 1, 'key']],
       ['no lines', visitOf(), 'empty-visit', ['lines']],
     ])('throws a PricingError for %s', (_name, visit, reason, path) => {
       let error: unknown;

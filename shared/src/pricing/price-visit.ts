@@ -1,23 +1,40 @@
 import type { LineBreakdown, VisitBreakdown } from './pricing-breakdown.schema';
 import { PricingError } from './pricing-error';
 import type { PricingLine, Visit } from './pricing-input.schema';
-import { priceFlatLine, priceTimeAndMaterialsLine } from './price-line';
-import type { RateBook } from './rate-book.schema';
+import { NO_LABOUR_ADDERS, priceFlatLine, priceTimeAndMaterialsLine, type LineLabourAdders } from './price-line';
+import type { FlatPricing, RateBook, RateBookEntry, TimeAndMaterialsPricing } from './rate-book.schema';
 import { indexRateBook, type IndexedAdder, type RateBookIndex } from './rate-book-index';
 import { allocateByWeight, applyBasisPoints, centsForMinutes, roundUpToIncrement } from './rounding';
 
 type Path = readonly (string | number)[];
+const NONE: readonly string[] = [];
 
 /** A visit to price. Defaults of the schema may be left out. */
 export type VisitToPrice = Pick<Visit, 'key'> &
   Partial<Pick<Visit, 'adderIds' | 'hasPermit'>> & { lines: readonly LineToPrice[] };
 export type LineToPrice = Pick<PricingLine, 'key' | 'entryId' | 'quantity'> & Partial<Pick<PricingLine, 'adderIds'>>;
 
-/** The adder `ids[at]`; `pathTo` builds the error path only when it is needed. */
-function resolveAdder(index: RateBookIndex, ids: readonly string[], at: number, pathTo: (at: number) => Path): IndexedAdder {
+/** The adder `ids[at]`, found at `[...path, ...pathTail, at]` of the input (built only for an error). */
+function resolveAdder(index: RateBookIndex, ids: readonly string[], at: number, path: Path, pathTail: Path): IndexedAdder {
   const found = index.adders.get(ids[at]);
-  if (!found) throw new PricingError('unknown-adder', pathTo(at), `The rate book has no site condition "${ids[at]}"`);
+  if (!found) throw new PricingError('unknown-adder', [...path, ...pathTail, at], `The rate book has no site condition "${ids[at]}"`);
   return found;
+}
+
+const byRateBookPosition = (x: IndexedAdder, y: IndexedAdder) => x.position - y.position;
+
+/** Folds labour adders (minutes per unit, multipliers) into what one line uses; per-visit ones are skipped. */
+function foldLabourAdders(applied: IndexedAdder[]): LineLabourAdders {
+  if (applied.length === 0) return NO_LABOUR_ADDERS;
+  applied.sort(byRateBookPosition);
+  let minutesPerUnit = 0;
+  const multipliersBp: number[] = [];
+  for (let i = 0; i < applied.length; i++) {
+    const effect = applied[i].adder.effect;
+    if (effect.kind === 'minutes-per-unit') minutesPerUnit += effect.minutes;
+    else if (effect.kind === 'labour-multiplier') multipliersBp.push(effect.multiplierBp);
+  }
+  return { minutesPerUnit, multipliersBp };
 }
 
 /**
@@ -31,26 +48,27 @@ function resolveAdder(index: RateBookIndex, ids: readonly string[], at: number, 
  * - visit-level adders of kind minutes-per-unit or labour-multiplier apply to every
  *   time-and-materials line of the visit; per-visit minutes count once however many lines flag them;
  * - tax is on materials (cost plus markup) only.
+ * Line keys are echoed, not checked: the input schemas refuse repeated keys.
  */
 export function priceVisit(book: RateBook, visit: VisitToPrice, path: Path = []): VisitBreakdown {
   const index = indexRateBook(book);
   const terms = book.terms;
-  if (visit.lines.length === 0) throw new PricingError('empty-visit', [...path, 'lines'], `Visit "${visit.key}" has no items`);
-
-  const perVisitAdders = new Set<IndexedAdder>();
-  const visitWideLineAdders: IndexedAdder[] = [];
-  const visitAdderIds = visit.adderIds ?? [];
-  for (let i = 0; i < visitAdderIds.length; i++) {
-    const found = resolveAdder(index, visitAdderIds, i, (at) => [...path, 'adderIds', at]);
-    if (found.adder.effect.kind === 'minutes-per-visit') perVisitAdders.add(found);
-    else if (!visitWideLineAdders.includes(found)) visitWideLineAdders.push(found);
-  }
-
   const lineCount = visit.lines.length;
+  if (lineCount === 0) throw new PricingError('empty-visit', [...path, 'lines'], `Visit "${visit.key}" has no items`);
+
+  const perVisitAdders: IndexedAdder[] = [];
+  const visitWideAdders: IndexedAdder[] = [];
+  const visitAdderIds = visit.adderIds ?? NONE;
+  for (let i = 0; i < visitAdderIds.length; i++) {
+    const found = resolveAdder(index, visitAdderIds, i, path, ['adderIds']);
+    const bucket = found.adder.effect.kind === 'minutes-per-visit' ? perVisitAdders : visitWideAdders;
+    if (!bucket.includes(found)) bucket.push(found);
+  }
+  const visitWideLabour = foldLabourAdders(visitWideAdders.slice());
+
   const lines: LineBreakdown[] = new Array(lineCount);
   const labourWeights: number[] = new Array(lineCount + 1);
-  const flatUnitsSoFar = new Map<string, number>();
-  const seenKeys = new Set<string>();
+  let flatUnitsSoFar: Map<string, number> | null = null;
   let lineMinutes = 0;
   let flatCents = 0;
   let materialsCostCents = 0;
@@ -58,75 +76,52 @@ export function priceVisit(book: RateBook, visit: VisitToPrice, path: Path = [])
 
   for (let i = 0; i < lineCount; i++) {
     const line = visit.lines[i];
-    if (seenKeys.has(line.key)) {
-      throw new PricingError('duplicate-key', [...path, 'lines', i, 'key'], `Line "${line.key}" appears twice`);
-    }
-    seenKeys.add(line.key);
     const entry = index.entries.get(line.entryId);
     if (!entry) {
       throw new PricingError('unknown-entry', [...path, 'lines', i, 'entryId'], `The rate book has no entry "${line.entryId}"`);
     }
-    const pricing = entry.pricing;
-    const isFlat = pricing.mode === 'flat';
+    const isFlat = entry.pricing.mode === 'flat';
 
-    // Adders of the line, then the visit-wide ones it does not already name.
-    let adderMinutesPerUnit = 0;
-    let applied: IndexedAdder[] | null = null;
-    const lineAdderIds = line.adderIds ?? [];
-    for (let a = 0; a < lineAdderIds.length; a++) {
-      const adderPath = (at: number): Path => [...path, 'lines', i, 'adderIds', at];
-      const found = resolveAdder(index, lineAdderIds, a, adderPath);
-      if (found.adder.effect.kind === 'minutes-per-visit') {
-        perVisitAdders.add(found);
-      } else if (isFlat) {
-        throw new PricingError('adder-not-for-flat', adderPath(a), `"${found.adder.name}" changes labour; a flat-rate line has a fixed price`);
-      } else {
-        applied ??= [];
-        if (!applied.includes(found)) applied.push(found);
+    // The line's own adders; labour ones are joined by the visit-wide ones it does not already name.
+    let labour = visitWideLabour;
+    const lineAdderIds = line.adderIds ?? NONE;
+    if (lineAdderIds.length > 0) {
+      const applied = visitWideAdders.slice();
+      for (let a = 0; a < lineAdderIds.length; a++) {
+        const found = resolveAdder(index, lineAdderIds, a, path, ['lines', i, 'adderIds']);
+        if (found.adder.effect.kind === 'minutes-per-visit') {
+          if (!perVisitAdders.includes(found)) perVisitAdders.push(found);
+        } else if (isFlat) {
+          throw new PricingError('adder-not-for-flat', [...path, 'lines', i, 'adderIds', a], `"${found.adder.name}" changes labour; a flat-rate line has a fixed price`);
+        } else if (!applied.includes(found)) {
+          applied.push(found);
+        }
       }
+      if (!isFlat) labour = foldLabourAdders(applied);
     }
 
-    if (pricing.mode === 'flat') {
+    let priced: LineBreakdown;
+    if (isFlat) {
+      flatUnitsSoFar ??= new Map();
       const earlier = flatUnitsSoFar.get(entry.id) ?? 0;
-      const lineFlat = priceFlatLine(pricing, line.quantity, earlier);
       flatUnitsSoFar.set(entry.id, earlier + line.quantity);
-      flatCents += lineFlat;
-      labourWeights[i] = 0;
-      lines[i] = {
-        key: line.key, entryId: entry.id, entryName: entry.name, code: entry.code, mode: 'flat',
-        quantity: line.quantity, labourMinutes: 0, labourCents: 0,
-        materialsCostCents: 0, materialsMarkupCents: 0, materialsCents: 0, flatCents: lineFlat,
-      };
-      continue;
+      priced = priceFlatLine(line, entry as RateBookEntry & { pricing: FlatPricing }, earlier);
+      flatCents += priced.flatCents;
+    } else {
+      priced = priceTimeAndMaterialsLine(line, entry as RateBookEntry & { pricing: TimeAndMaterialsPricing }, labour, terms.materialsMarkupBp);
+      lineMinutes += priced.labourMinutes;
+      materialsCostCents += priced.materialsCostCents;
+      materialsMarkupCents += priced.materialsMarkupCents;
     }
-
-    if (visitWideLineAdders.length > 0) {
-      applied ??= [];
-      for (const found of visitWideLineAdders) if (!applied.includes(found)) applied.push(found);
-    }
-    const multipliers: number[] = [];
-    if (applied) {
-      applied.sort((x, y) => x.position - y.position);
-      for (const { adder } of applied) {
-        if (adder.effect.kind === 'minutes-per-unit') adderMinutesPerUnit += adder.effect.minutes;
-        else if (adder.effect.kind === 'labour-multiplier') multipliers.push(adder.effect.multiplierBp);
-      }
-    }
-    const figures = priceTimeAndMaterialsLine(pricing, line.quantity, adderMinutesPerUnit, multipliers, terms.materialsMarkupBp);
-    lineMinutes += figures.labourMinutes;
-    materialsCostCents += figures.materialsCostCents;
-    materialsMarkupCents += figures.materialsMarkupCents;
-    labourWeights[i] = figures.labourMinutes;
-    lines[i] = {
-      key: line.key, entryId: entry.id, entryName: entry.name, code: entry.code, mode: 'time-and-materials',
-      quantity: line.quantity, labourMinutes: figures.labourMinutes, labourCents: 0,
-      materialsCostCents: figures.materialsCostCents, materialsMarkupCents: figures.materialsMarkupCents,
-      materialsCents: figures.materialsCostCents + figures.materialsMarkupCents, flatCents: 0,
-    };
+    lines[i] = priced;
+    labourWeights[i] = priced.labourMinutes;
   }
 
   let visitAdderMinutes = 0;
-  for (const { adder } of perVisitAdders) if (adder.effect.kind === 'minutes-per-visit') visitAdderMinutes += adder.effect.minutes;
+  for (let i = 0; i < perVisitAdders.length; i++) {
+    const effect = perVisitAdders[i].adder.effect;
+    if (effect.kind === 'minutes-per-visit') visitAdderMinutes += effect.minutes;
+  }
 
   const pooledMinutes = lineMinutes + visitAdderMinutes;
   const firstHourMinimumCents = pooledMinutes > 0 ? terms.firstHourMinimumCents : 0;

@@ -3,7 +3,7 @@ export type PricingErrorReason =
   | 'unknown-entry'
   | 'unknown-adder'
   | 'adder-not-for-flat'
-  | 'duplicate-key'
+  | 'duplicate-visit'
   | 'unknown-visit'
   | 'empty-visit';
 

@@ -15,14 +15,25 @@ export const PricingLineSchema = z.object({
 });
 export type PricingLine = z.infer<typeof PricingLineSchema>;
 
-export const VisitSchema = z.object({
-  key,
-  lines: z.array(PricingLineSchema).min(1).max(500),
-  /** Site conditions for the visit as a whole (e.g. a panel shutoff). */
-  adderIds: adderIds.default([]),
-  /** Whether a permit is pulled for work on this visit (one permit line, per the rate book). */
-  hasPermit: z.boolean().default(false),
-});
+/** Adds an issue for every key of `items` that an earlier item already used. */
+function refuseRepeatedKeys(items: readonly { key: string }[], what: string, path: string, ctx: z.RefinementCtx): void {
+  const seen = new Set<string>();
+  items.forEach((item, i) => {
+    if (seen.has(item.key)) ctx.addIssue({ code: 'custom', path: [path, i, 'key'], message: `${what} "${item.key}" is listed twice` });
+    seen.add(item.key);
+  });
+}
+
+export const VisitSchema = z
+  .object({
+    key,
+    lines: z.array(PricingLineSchema).min(1).max(500),
+    /** Site conditions for the visit as a whole (e.g. a panel shutoff). */
+    adderIds: adderIds.default([]),
+    /** Whether a permit is pulled for work on this visit (one permit line, per the rate book). */
+    hasPermit: z.boolean().default(false),
+  })
+  .superRefine((visit, ctx) => refuseRepeatedKeys(visit.lines, 'Line', 'lines', ctx));
 export type Visit = z.infer<typeof VisitSchema>;
 
 /** A quote: its items, each assigned to one of its visits. */
@@ -41,16 +52,11 @@ export const QuoteSchema = z
     lines: z.array(PricingLineSchema.extend({ visitKey: key })).min(1).max(2_000),
   })
   .superRefine((quote, ctx) => {
-    const visitKeys = new Set<string>();
-    quote.visits.forEach((v, i) => {
-      if (visitKeys.has(v.key)) ctx.addIssue({ code: 'custom', path: ['visits', i, 'key'], message: `Visit "${v.key}" is listed twice` });
-      visitKeys.add(v.key);
-    });
-    const lineKeys = new Set<string>();
+    refuseRepeatedKeys(quote.visits, 'Visit', 'visits', ctx);
+    refuseRepeatedKeys(quote.lines, 'Line', 'lines', ctx);
+    const visitKeys = new Set(quote.visits.map((v) => v.key));
     const used = new Set<string>();
     quote.lines.forEach((line, i) => {
-      if (lineKeys.has(line.key)) ctx.addIssue({ code: 'custom', path: ['lines', i, 'key'], message: `Line "${line.key}" is listed twice` });
-      lineKeys.add(line.key);
       if (!visitKeys.has(line.visitKey)) {
         ctx.addIssue({ code: 'custom', path: ['lines', i, 'visitKey'], message: `No visit "${line.visitKey}" in this quote` });
       }

@@ -86,19 +86,21 @@ export function allocateByWeight(total: number, weights: readonly number[]): num
     return shares;
   }
   const remainders = new Array<number>(weights.length);
-  let allocated = 0;
+  let left = total;
   for (let i = 0; i < weights.length; i++) {
     const product = total * weights[i];
     assertWhole(product, 'total × weight');
     const share = floorDivide(product, weightSum);
     shares[i] = share;
     remainders[i] = product - share * weightSum;
-    allocated += share;
+    left -= share;
   }
-  let left = total - allocated;
-  if (left > 0) {
-    const order = weights.map((_, i) => i).sort((a, b) => remainders[b] - remainders[a] || a - b);
-    for (let k = 0; left > 0; k++, left--) shares[order[k]] += 1;
+  // Fewer cents are left than there are weights: hand them out one by one to the largest remainder.
+  for (; left > 0; left--) {
+    let best = 0;
+    for (let i = 1; i < remainders.length; i++) if (remainders[i] > remainders[best]) best = i;
+    shares[best] += 1;
+    remainders[best] = -1;
   }
   return shares;
 }
