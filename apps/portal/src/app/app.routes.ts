@@ -1,0 +1,40 @@
+import { Routes } from '@angular/router';
+import { hasRole } from './core/auth/has-role-guard';
+import { signedIn } from './core/auth/signed-in-guard';
+
+export const routes: Routes = [
+  { path: '', pathMatch: 'full', redirectTo: 'requests' },
+  {
+    path: 'sign-in',
+    title: 'Sign in · Closing Circuit',
+    loadComponent: () => import('./auth/sign-in/sign-in').then((m) => m.SignIn),
+  },
+  {
+    path: 'invite/:token',
+    title: 'Invitation · Closing Circuit',
+    loadComponent: () => import('./auth/accept-invitation/accept-invitation').then((m) => m.AcceptInvitation),
+  },
+  {
+    path: 'requests',
+    canActivate: [signedIn],
+    loadChildren: () => import('./requests/requests.routes').then((m) => m.requestsRoutes),
+  },
+  {
+    path: 'account',
+    title: 'My account · Closing Circuit',
+    canActivate: [signedIn],
+    loadComponent: () => import('./account/my-account/my-account').then((m) => m.MyAccount),
+  },
+  {
+    path: 'admin',
+    title: 'People and organisations · Closing Circuit',
+    canActivate: [signedIn, hasRole('admin')],
+    loadComponent: () =>
+      import('./admin/people-and-organisations/people-and-organisations').then((m) => m.PeopleAndOrganisations),
+  },
+  {
+    path: '**',
+    title: 'Page not found · Closing Circuit',
+    loadComponent: () => import('./not-found/not-found').then((m) => m.NotFound),
+  },
+];

@@ -1,0 +1,77 @@
+import { HttpClient, HttpContext, HttpErrorResponse } from '@angular/common/http';
+import { computed, inject, Injectable, signal } from '@angular/core';
+import { ChangePassword, CurrentUser, Role, Session, SignIn } from '@cc/shared';
+import { firstValueFrom, map, Observable, tap } from 'rxjs';
+import { HANDLES_UNAUTHORISED } from './handles-unauthorised';
+
+/** Who is signed in, and the CSRF token bound to their session. */
+@Injectable({ providedIn: 'root' })
+export class Auth {
+  private readonly http = inject(HttpClient);
+  private readonly userState = signal<CurrentUser | null>(null);
+  private readonly csrfState = signal<string | null>(null);
+
+  /** The signed-in person, or null. */
+  readonly user = this.userState.asReadonly();
+  /** The token to send as `x-csrf-token` on every request that changes something. */
+  readonly csrfToken = this.csrfState.asReadonly();
+  readonly isSignedIn = computed(() => this.userState() !== null);
+  readonly role = computed<Role | null>(() => this.userState()?.role ?? null);
+
+  /** Reads the current session at start-up. A 401 simply means nobody is signed in. */
+  async loadMe(): Promise<void> {
+    try {
+      const session = await firstValueFrom(
+        this.http.get<Session>('/api/auth/me', { context: new HttpContext().set(HANDLES_UNAUTHORISED, true) }),
+      );
+      this.useSession(session);
+    } catch (err: unknown) {
+      if (err instanceof HttpErrorResponse && err.status === 401) {
+        this.clear();
+        return;
+      }
+      // The server is unreachable or failing: start signed out, pages will report their own errors.
+      console.error('Could not read the session', err);
+      this.clear();
+    }
+  }
+
+  signIn(credentials: SignIn): Observable<CurrentUser> {
+    return this.http
+      .post<Session>('/api/auth/sign-in', credentials, {
+        context: new HttpContext().set(HANDLES_UNAUTHORISED, true),
+      })
+      .pipe(
+        tap((session) => this.useSession(session)),
+        map((session) => session.user),
+      );
+  }
+
+  signOut(): Observable<void> {
+    return this.http.post<void>('/api/auth/sign-out', {}).pipe(tap(() => this.clear()));
+  }
+
+  changePassword(dto: ChangePassword): Observable<void> {
+    return this.http.post<void>('/api/auth/password', dto);
+  }
+
+  /** Fetches a CSRF token for a visitor who is not signed in yet (sign-in, accepting an invitation). */
+  fetchCsrfToken(): Observable<string> {
+    return this.http.get<{ csrfToken: string }>('/api/auth/csrf').pipe(
+      map((answer) => answer.csrfToken),
+      tap((token) => this.csrfState.set(token)),
+    );
+  }
+
+  /** Adopts a session answered by the server (sign-in, invitation acceptance, GET /me). */
+  useSession(session: Session): void {
+    this.userState.set(session.user);
+    this.csrfState.set(session.csrfToken);
+  }
+
+  /** Forgets the session locally, e.g. after the server answered 401. */
+  clear(): void {
+    this.userState.set(null);
+    this.csrfState.set(null);
+  }
+}

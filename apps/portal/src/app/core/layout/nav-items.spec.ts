@@ -1,0 +1,20 @@
+import { ROLES } from '@cc/shared';
+import { navItemsFor } from './nav-items';
+
+describe('navItemsFor', () => {
+  it('offers a new request only to agents and administrators', () => {
+    const withNew = ROLES.filter((role) => navItemsFor(role).some((item) => item.link === '/requests/new'));
+    expect(withNew).toEqual(['agent', 'admin']);
+  });
+
+  it('offers people and organisations only to administrators', () => {
+    const withAdmin = ROLES.filter((role) => navItemsFor(role).some((item) => item.link === '/admin'));
+    expect(withAdmin).toEqual(['admin']);
+  });
+
+  it('names the request list after what the role does with it', () => {
+    expect(navItemsFor('contractor')[0]).toMatchObject({ link: '/requests', label: 'Work queue' });
+    expect(navItemsFor('seller')[0].label).toBe('Repairs for my sale');
+    expect(navItemsFor('inspector')[0].label).toBe('Inspections');
+  });
+});

@@ -1,0 +1,34 @@
+import { Role } from '@cc/shared';
+
+export interface NavItem {
+  label: string;
+  icon: string;
+  link: string;
+  /** Stable name for browser tests (`data-testid="nav-<id>"`). */
+  id: string;
+}
+
+const REQUESTS_LABEL: Record<Role, string> = {
+  agent: 'Repair requests',
+  seller: 'Repairs for my sale',
+  contractor: 'Work queue',
+  inspector: 'Inspections',
+  admin: 'All repair requests',
+};
+
+/** The side-navigation entries a role sees, in order (account and sign-out are added by the shell). */
+export function navItemsFor(role: Role): NavItem[] {
+  const items: NavItem[] = [{ id: 'requests', label: REQUESTS_LABEL[role], icon: 'home_repair_service', link: '/requests' }];
+  if (role === 'agent' || role === 'admin') {
+    items.push({ id: 'new-request', label: 'Start a request', icon: 'add_home', link: '/requests/new' });
+  }
+  if (role === 'admin') {
+    items.push({ id: 'admin', label: 'People and organisations', icon: 'groups', link: '/admin' });
+  }
+  return items;
+}
+
+/** The heading of the request list for a role. */
+export function requestListTitle(role: Role | null): string {
+  return role ? REQUESTS_LABEL[role] : 'Repair requests';
+}

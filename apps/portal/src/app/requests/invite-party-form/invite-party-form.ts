@@ -1,0 +1,59 @@
+import { ChangeDetectionStrategy, Component, inject, input, output, signal } from '@angular/core';
+import { FormBuilder, FormGroupDirective, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
+import { InviteParty, InvitePartySchema, PARTY_ROLE_LABELS, RepairRequestDetail } from '@cc/shared';
+import { ErrorMessagePipe } from '../../core/forms/error-message';
+import { zodValidator } from '../../core/forms/zod-validator';
+import { applyServerErrors } from '../../core/http/apply-server-errors';
+import { RequestsApi } from '../requests-api';
+
+type InvitableRole = InviteParty['role'];
+
+/** Invites one more person (listing agent, seller or inspector) to a request. */
+@Component({
+  selector: 'cc-invite-party-form',
+  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, ErrorMessagePipe],
+  templateUrl: './invite-party-form.html',
+  styleUrl: './invite-party-form.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class InvitePartyForm {
+  private readonly api = inject(RequestsApi);
+  private readonly fb = inject(FormBuilder).nonNullable;
+
+  readonly requestId = input.required<number>();
+  /** The request as the server answered after the invitation. */
+  readonly invited = output<RepairRequestDetail>();
+
+  protected readonly roles = InvitePartySchema.shape.role.options.map((role) => ({ role, label: PARTY_ROLE_LABELS[role] }));
+  protected readonly form = this.fb.group({
+    role: this.fb.control<InvitableRole | null>(null, zodValidator(InvitePartySchema.shape.role)),
+    email: ['', zodValidator(InvitePartySchema.shape.email)],
+  });
+  protected readonly formError = signal<string | null>(null);
+  protected readonly isBusy = signal(false);
+
+  protected invite(formDirective: FormGroupDirective): void {
+    this.formError.set(null);
+    const parsed = InvitePartySchema.safeParse(this.form.getRawValue());
+    if (!parsed.success) {
+      this.form.markAllAsTouched();
+      return;
+    }
+    this.isBusy.set(true);
+    this.api.inviteParty(this.requestId(), parsed.data).subscribe({
+      next: (detail) => {
+        this.isBusy.set(false);
+        formDirective.resetForm();
+        this.invited.emit(detail);
+      },
+      error: (err: unknown) => {
+        this.isBusy.set(false);
+        this.formError.set(applyServerErrors(this.form, err));
+      },
+    });
+  }
+}

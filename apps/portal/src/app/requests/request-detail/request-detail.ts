@@ -1,0 +1,74 @@
+import { DatePipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal } from '@angular/core';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { MatCardModule } from '@angular/material/card';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { RouterLink } from '@angular/router';
+import { RepairRequestDetail } from '@cc/shared';
+import { catchError, map, of, switchMap } from 'rxjs';
+import { Auth } from '../../core/auth/auth';
+import { describeFailure } from '../../core/http/api-error-of';
+import { Notice } from '../../core/http/notice';
+import { DaysToClosing } from '../../ui/days-to-closing/days-to-closing';
+import { SafetyNotice } from '../../ui/safety-notice/safety-notice';
+import { StatusChip } from '../../ui/status-chip/status-chip';
+import { InvitePartyForm } from '../invite-party-form/invite-party-form';
+import { PartyList } from '../party-list/party-list';
+import { RequestsApi } from '../requests-api';
+import { StatusHistory } from '../status-history/status-history';
+
+type Loaded = { detail: RepairRequestDetail; error?: undefined } | { detail?: undefined; error: string };
+
+/** One repair request: the property, the sale, the people, the contractor and what happened so far. */
+@Component({
+  selector: 'cc-request-detail',
+  imports: [
+    DatePipe,
+    RouterLink,
+    MatCardModule,
+    MatIconModule,
+    MatProgressBarModule,
+    StatusChip,
+    DaysToClosing,
+    SafetyNotice,
+    StatusHistory,
+    PartyList,
+    InvitePartyForm,
+  ],
+  templateUrl: './request-detail.html',
+  styleUrl: './request-detail.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class RequestDetail {
+  private readonly api = inject(RequestsApi);
+  private readonly auth = inject(Auth);
+  private readonly notice = inject(Notice);
+
+  /** The request id (route parameter). */
+  readonly id = input.required<string>();
+
+  private readonly loaded = toSignal(
+    toObservable(this.id).pipe(
+      switchMap((id) =>
+        this.api.get(Number(id)).pipe(
+          map((detail): Loaded => ({ detail })),
+          catchError((err: unknown) => of<Loaded>({ error: describeFailure(err) })),
+        ),
+      ),
+    ),
+  );
+  /** The request as last answered by the server (replaced after an invitation). */
+  protected readonly detail = linkedSignal(() => this.loaded()?.detail ?? null);
+  protected readonly loadError = computed(() => this.loaded()?.error ?? null);
+  /** Whether the signed-in person acts as an agent on this request (or administers the platform). */
+  protected readonly isAgentHere = computed(() => {
+    const parts = this.detail()?.myParts ?? [];
+    return this.auth.role() === 'admin' || parts.includes('buyer-agent') || parts.includes('listing-agent');
+  });
+
+  protected showInvited(detail: RepairRequestDetail): void {
+    this.detail.set(detail);
+    this.notice.success('Invitation sent.');
+  }
+}

@@ -1,0 +1,135 @@
+import { DatePipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal, signal } from '@angular/core';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { FormControl, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { MatSortModule, Sort } from '@angular/material/sort';
+import { MatTableModule } from '@angular/material/table';
+import { Router, RouterLink } from '@angular/router';
+import {
+  REQUEST_SORTS,
+  REQUEST_STATUS_LABELS,
+  REQUEST_STATUSES,
+  RepairRequestListQuery,
+  RepairRequestSummary,
+  RequestStatus,
+} from '@cc/shared';
+import { catchError, debounceTime, distinctUntilChanged, map, of, switchMap, tap } from 'rxjs';
+import { Auth } from '../../core/auth/auth';
+import { Notice } from '../../core/http/notice';
+import { requestListTitle } from '../../core/layout/nav-items';
+import { DaysToClosing } from '../../ui/days-to-closing/days-to-closing';
+import { StatusChip } from '../../ui/status-chip/status-chip';
+import { RequestsApi } from '../requests-api';
+
+type RequestSort = (typeof REQUEST_SORTS)[number];
+const DEFAULT_SORT: Sort = { active: 'closingDate', direction: 'asc' };
+
+/** The requests the signed-in person takes part in, paged, sorted and filtered on the server. */
+@Component({
+  selector: 'cc-request-list',
+  imports: [
+    DatePipe,
+    ReactiveFormsModule,
+    RouterLink,
+    MatTableModule,
+    MatSortModule,
+    MatPaginatorModule,
+    MatSelectModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatIconModule,
+    MatButtonModule,
+    MatProgressBarModule,
+    StatusChip,
+    DaysToClosing,
+  ],
+  templateUrl: './request-list.html',
+  styleUrl: './request-list.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class RequestList {
+  private readonly api = inject(RequestsApi);
+  private readonly router = inject(Router);
+  private readonly notice = inject(Notice);
+  private readonly auth = inject(Auth);
+
+  protected readonly title = computed(() => requestListTitle(this.auth.role()));
+  protected readonly canCreate = computed(() => this.auth.role() === 'agent' || this.auth.role() === 'admin');
+  protected readonly statuses = REQUEST_STATUSES;
+  protected readonly statusLabels = REQUEST_STATUS_LABELS;
+  protected readonly columns = ['reference', 'street', 'closingDate', 'status', 'contractor', 'itemCount', 'createdAt'];
+  protected readonly pageSizes = [10, 20, 50];
+
+  protected readonly sort = signal<Sort>(DEFAULT_SORT);
+  protected readonly pageSize = signal(20);
+  protected readonly statusFilter = signal<RequestStatus[]>([]);
+  protected readonly searchControl = new FormControl('', { nonNullable: true });
+  private readonly search = toSignal(
+    this.searchControl.valueChanges.pipe(
+      debounceTime(300),
+      map((text) => text.trim()),
+      distinctUntilChanged(),
+    ),
+    { initialValue: '' },
+  );
+  /** Back to the first page whenever the sort, the filters or the page size change. */
+  protected readonly pageIndex = linkedSignal({
+    source: () => [this.sort(), this.statusFilter(), this.search(), this.pageSize()] as const,
+    computation: () => 0,
+  });
+  protected readonly isLoading = signal(true);
+
+  protected readonly query = computed<RepairRequestListQuery>(() => {
+    const sort = this.sort().direction ? this.sort() : DEFAULT_SORT;
+    return {
+      page: this.pageIndex(),
+      pageSize: this.pageSize(),
+      sort: sort.active as RequestSort,
+      direction: sort.direction || 'asc',
+      status: this.statusFilter().join(',') || undefined,
+      q: this.search() || undefined,
+    };
+  });
+
+  private readonly result = toSignal(
+    toObservable(this.query).pipe(
+      tap(() => this.isLoading.set(true)),
+      switchMap((query) =>
+        this.api.list(query).pipe(
+          catchError((err: unknown) => {
+            this.notice.failure(err);
+            return of(null);
+          }),
+        ),
+      ),
+      tap(() => this.isLoading.set(false)),
+    ),
+  );
+  protected readonly rows = computed<RepairRequestSummary[]>(() => this.result()?.items ?? []);
+  protected readonly total = computed(() => this.result()?.total ?? 0);
+  protected readonly isFiltered = computed(() => this.statusFilter().length > 0 || this.search() !== '');
+
+  protected changeSort(sort: Sort): void {
+    this.sort.set(sort);
+  }
+
+  protected changePage(event: PageEvent): void {
+    this.pageSize.set(event.pageSize);
+    this.pageIndex.set(event.pageIndex);
+  }
+
+  protected filterByStatus(statuses: RequestStatus[]): void {
+    this.statusFilter.set(statuses);
+  }
+
+  protected open(row: RepairRequestSummary): void {
+    void this.router.navigate(['/requests', row.id]);
+  }
+}
