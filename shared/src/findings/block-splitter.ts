@@ -1,0 +1,121 @@
+import type { SectionKind } from './finding.schema';
+import { MappedTextBuilder, type MappedText } from './mapped-text';
+import type { Room } from './room';
+import { classifyHeadingLine, inlineNonElectricalLabel } from './section-heading';
+
+/**
+ * Cuts the joined report text (pages joined with "\f") into sections and blocks. A block is one
+ * numbered item, one bullet, or one paragraph; it ends at a blank line, a heading or the next item
+ * marker, but not at a page break, so a sentence can run from one page to the next. Running page
+ * headers and footers ("Page 3 of 9", "-- 1 of 2 --") are left out of the text that is matched.
+ */
+export interface Section {
+  readonly kind: SectionKind;
+  /** The heading as written, or null before the first heading. */
+  readonly title: string | null;
+  readonly room: Room | null;
+}
+
+export interface Block {
+  readonly section: Section;
+  readonly text: MappedText;
+}
+
+interface Line {
+  readonly start: number;
+  readonly end: number;
+  readonly text: string;
+}
+
+const ITEM_MARKER = /^\s*(?:\d{1,3}(?:\.\d{1,3})+\.?|\d{1,3}[.)]|[a-h][.)]|item\s+\d{1,3}\s*[:.)-]|[-•*‣▪◦●·–—>]|\[\s?[x ]?\])\s+/i;
+const NOISE_LINE = /^(?:.{0,80}\bpage\s+\d+(?:\s*(?:of|\/)\s*\d+)?|-{1,2}\s*\d+\s+of\s+\d+\s*-{1,2}|\d+\s*\/\s*\d+)\s*$/i;
+const CONNECTOR_END = /(?:[,;&/-]|\b(?:and|or|the|a|an|at|of|to|with|in|on|for|by|from|is|are|was|were|not|no))$/i;
+/** A checklist line that ends in its answer ("GFCI at exterior: No"). */
+const CHECKLIST_ANSWER = /:\s*(?:yes|no|none|n\/a|ok|missing)$/i;
+const SHORT_LINE = 45;
+const NO_SECTION: Section = { kind: 'none', title: null, room: null };
+
+/** Lines of the joined text; "\n\f" and "\f\n" count as one break (a page ending in a newline is not a blank line). */
+function splitLines(joined: string): Line[] {
+  const lines: Line[] = [];
+  let start = 0;
+  for (const m of joined.matchAll(/\r?\n\f|\f\r?\n|\r?\n|\f/g)) {
+    lines.push({ start, end: m.index, text: joined.slice(start, m.index) });
+    start = m.index + m[0].length;
+  }
+  lines.push({ start, end: joined.length, text: joined.slice(start) });
+  return lines;
+}
+
+export function splitBlocks(joined: string): Block[] {
+  const blocks: Block[] = [];
+  let section = NO_SECTION;
+  let builder = null as MappedTextBuilder | null;
+  let blockSection = section;
+  let prevLine = null as Line | null;
+
+  const close = () => {
+    if (builder) {
+      const text = builder.build();
+      if (text.text.length > 0) blocks.push({ section: blockSection, text });
+    }
+    builder = null;
+    prevLine = null;
+  };
+  const open = (line: Line, from: number, owner: Section) => {
+    close();
+    builder = new MappedTextBuilder();
+    blockSection = owner;
+    builder.appendSource(joined, from, line.end);
+    prevLine = line;
+  };
+
+  for (const line of splitLines(joined)) {
+    const content = line.text.trim();
+    if (content.length === 0) {
+      close();
+      continue;
+    }
+    if (NOISE_LINE.test(content)) continue;
+    const headingLine = classifyHeadingLine(content);
+    if (headingLine) {
+      close();
+      if (headingLine.type === 'heading') section = headingLine.heading;
+      continue;
+    }
+    const label = inlineNonElectricalLabel(content);
+    if (label !== null) {
+      open(line, line.start, { kind: 'non-electrical', title: label, room: null });
+      close();
+      continue;
+    }
+    const marker = ITEM_MARKER.exec(line.text);
+    if (marker || !builder || !prevLine) {
+      open(line, line.start + (marker ? marker[0].length : 0), section);
+      continue;
+    }
+    joinLine(builder, prevLine, line);
+    builder.appendSource(joined, line.start, line.end);
+    prevLine = line;
+  }
+  close();
+  return blocks;
+}
+
+/** Decides whether a line break inside a block is a sentence boundary, a space or a word wrap. */
+function joinLine(builder: MappedTextBuilder, prev: Line, next: Line): void {
+  const before = prev.text.trim();
+  const after = next.text.trim();
+  if (/\p{L}-$/u.test(before) && /^\p{Ll}/u.test(after)) {
+    builder.dropTrailingHyphen();
+    return;
+  }
+  const breakAt = prev.end;
+  const isBoundary =
+    /:$/.test(before) ||
+    CHECKLIST_ANSWER.test(before) ||
+    prev.text.includes('\t') ||
+    next.text.includes('\t') ||
+    (before.length < SHORT_LINE && !/[.!?]$/.test(before) && !CONNECTOR_END.test(before) && /^[\p{Lu}\d(]/u.test(after));
+  builder.appendSeparator(isBoundary ? '\n' : ' ', breakAt);
+}

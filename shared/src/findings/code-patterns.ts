@@ -1,0 +1,306 @@
+import type { FindingCode } from './finding-code';
+import type { Room } from './room';
+import { anyGap, gap, PROTECTION_FILLER as PF, rx, T } from './term-lexicon';
+
+/**
+ * The phrase table: for every finding code, the phrasings that state the defect. This is the one
+ * place where a new code or a new phrasing is added (see docs/parser.md). Phrases are written in
+ * the positive ("no GFCI", "reversed polarity"); negations ("no reversed polarity observed") are
+ * handled by negation-detector.ts, rooms by room-lexicon.ts and counts by quantity-reader.ts.
+ */
+export interface CodePattern {
+  readonly re: RegExp;
+  /** Whether the phrase only recommends the correction ("recommend GFCI protection"). */
+  readonly isRecommendation?: boolean;
+  /** The sentence must also contain this for the phrase to count (e.g. a panel word). */
+  readonly context?: RegExp;
+  /** The phrase does not count when its sentence contains this. */
+  readonly unless?: RegExp;
+  /** Extra test on the match, e.g. the breaker really is larger than the wire allows. */
+  readonly check?: (match: RegExpExecArray) => boolean;
+}
+
+export interface CodeRule {
+  readonly code: FindingCode;
+  readonly patterns: readonly CodePattern[];
+  /** Recommendation-only matches of this code are dropped when the sentence has one of these codes. */
+  readonly yieldsTo?: readonly FindingCode[];
+  /** Room used whatever the text says (panel defects are at the panel). */
+  readonly fixedRoom?: Room;
+  /** Room used when neither the text nor the section names one. */
+  readonly defaultRoom?: Room;
+  /** Whether the code stands only in a block (item or paragraph) with no other finding. */
+  readonly isFallbackOnly?: boolean;
+}
+
+const RECOMMEND = String.raw`(?:recommend(?:ed|s|ing)?|suggest(?:ed)?|should (?:be|have)|install(?:ing|ed)?|upgrad(?:e|ed|ing) to|add(?:ing)?|need(?:s|ed)?|requires?|consider(?:ing)?|have the)`;
+/** Words that turn a recommendation into one about an existing device (replace, test, reset). */
+const NOT_ABOUT_ADDING = String.raw`(?:(?!replac|repair|reset|test|check)[\w-]+\s+){0,4}?`;
+const PANEL_CONTEXT = /panel|dead[- ]?front|load cent|breaker box|fuse box|enclosure/i;
+/** A bare "cover" next to a junction box is the box's cover, not a device cover plate. */
+const JBOX_WORD = /junction|j-?\s?box|\bbox(?:es)?\b/i;
+const SUBPANEL_CONTEXT = /sub-?\s?panel|secondary panel|remote panel|downstream|distribution panel|feeder/i;
+
+/** NEC 240.4(D) small-conductor limits (from memory of the 2017-2023 text; trade-reference 2.2). */
+const MAX_AMPS_BY_AWG: Readonly<Record<string, number>> = { '14': 15, '12': 20, '10': 30 };
+function isOversized(m: RegExpExecArray): boolean {
+  const amps = Number(m.groups?.amps);
+  const limit = MAX_AMPS_BY_AWG[m.groups?.awg ?? ''];
+  return limit !== undefined && amps > limit;
+}
+
+export const CODE_RULES: readonly CodeRule[] = [
+  {
+    code: 'gfci-missing',
+    yieldsTo: ['gfci-inoperative', 'open-ground', 'false-ground', 'knob-and-tube'],
+    patterns: [
+      { re: rx`(?:${T.NO}|not|non-?|neither\s+${gap(3)}(?:has|have|is|are))\s*${PF}${T.GFCI}` },
+      { re: rx`${T.GFCI}(?:\s+(?:protection|protected|${T.RCPT}|breakers?))?\s+${T.BE}${T.ABSENT}` },
+      { re: rx`${T.GFCI}(?:\s+protect(?:ion|ed))?(?:\s+(?:at|in|for)\s+${gap(3)}[\w-]+)?\s*[:=-]\s*(?:no|none|missing|absent)\b` },
+      { re: rx`${T.RCPT}\s+${gap(4)}(?:are|is|were|was)\s+not\s+(?:on|protected by)\s+(?:an?\s+)?${T.GFCI}` },
+      { re: rx`${RECOMMEND}\s+${NOT_ABOUT_ADDING}${T.GFCI}`, isRecommendation: true },
+    ],
+  },
+  {
+    code: 'gfci-inoperative',
+    patterns: [
+      { re: rx`${T.GFCI}\s+${anyGap(7)}${T.FAILED}\s+(?:properly\s+)?(?:trip|reset|respond|function|operate|work)` },
+      { re: rx`${T.GFCI}(?:\s+${T.RCPT})?\s+${gap(4)}${T.BE}(?:${T.INOPERATIVE}|worn(?: out)?|at end of life|end[- ]of[- ]life|not (?:tripping|resetting))` },
+      { re: rx`(?:${T.INOPERATIVE}|failed|worn|damaged)\s+${T.GFCI}(?:\s+${T.RCPT})?` },
+      { re: rx`${T.FAILED}\s+(?:trip|reset)\b(?!\s+(?:the|a)?\s*breaker)` },
+    ],
+  },
+  {
+    code: 'afci-missing',
+    patterns: [
+      { re: rx`(?:${T.NO}|not|non-?)\s*${PF}${T.AFCI}` },
+      { re: rx`${T.AFCI}(?:\s+(?:protection|protected|breakers?|${T.RCPT}))?\s+${T.BE}${T.ABSENT}` },
+      { re: rx`${RECOMMEND}\s+${NOT_ABOUT_ADDING}${T.AFCI}`, isRecommendation: true },
+    ],
+  },
+  {
+    code: 'reversed-polarity',
+    patterns: [
+      { re: rx`rev(?:erse[ds]?|\.)?\s*[- ]?polarity` },
+      { re: rx`polarity\s+${T.BE}(?:reversed|incorrect|wrong)` },
+      { re: rx`(?:hot|line)\s*(?:and|\/|-|&)\s*neutral(?:\s+(?:wires|conductors))?\s+${T.BE}(?:reversed|swapped|transposed)` },
+      { re: rx`\brp\b` },
+    ],
+  },
+  {
+    code: 'open-ground',
+    patterns: [
+      { re: rx`open(?:\s+equipment)?\s+grounds?(?:ed)?\b(?!\s*fault)` },
+      { re: rx`(?:ungrounded|ungrnd|ungr'?d)\s+(?:(?:three|3)[- ](?:prong|slot|hole)\s+)?${gap(2)}${T.RCPT}` },
+      { re: rx`(?:tested|tests?|read|reads|showed?|shows|indicated?|registers?|registered)\s+(?:as\s+)?(?:ungrounded|open ground)` },
+      { re: rx`(?:three|3)[- ](?:prong|slot|hole)\s+${T.RCPT}?\s*${gap(3)}(?:on|with|in|fed by)\s+(?:an?\s+)?(?:ungrounded|two[- ]wire|2[- ]wire|non-?grounded)` },
+      { re: rx`(?:no|lacks?|lacking|missing|without)\s+(?:an?\s+)?(?:equipment\s+)?ground(?:ing)?(?:\s+(?:conductor|wire|path))?\b(?!\s*(?:fault|electrode|rod|clamp))` },
+      { re: rx`${T.RCPT}\s+${gap(3)}${T.BE}(?:not grounded|ungrounded)` },
+    ],
+  },
+  {
+    code: 'false-ground',
+    yieldsTo: ['subpanel-bonding'],
+    patterns: [
+      { re: rx`(?:bootleg(?:ged)?|false|fake)\s+ground(?:s|ed|ing)?\b` },
+      { re: rx`neutral\s+${gap(4)}(?:jumpered|jumped|bonded|tied)\s+(?:over\s+)?to\s+(?:the\s+)?ground(?:ing)?(?:\s+(?:terminal|screw))?`, isRecommendation: true },
+    ],
+  },
+  {
+    code: 'receptacle-damaged',
+    patterns: [
+      { re: rx`(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?:[- ]over)?|worn|discolou?red|heat[- ]damaged|dead|${T.INOPERATIVE})\s+${gap(3)}${T.RCPT}` },
+      { re: rx`${T.RCPT}\s+${gap(5)}${T.BE}(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?: over)?|worn|discolou?red|dead|${T.INOPERATIVE}|not (?:energized|powered|secured|secure|fastened)|pulled (?:out|away)|recessed)` },
+      { re: rx`${T.RCPT}\s+${gap(5)}(?:(?:has|have|had)\s+no|(?:is|are)\s+without)\s+power` },
+      { re: rx`${T.RCPT}\s+${gap(5)}(?:shows?|showed|has|have|with)\s+(?:scorch|burn|arc(?:ing)?|char|heat)\w*(?:\s+marks?)?` },
+      { re: rx`(?:scorch|burn|arc(?:ing)?|char)\w*\s+marks?\s+(?:on|at)\s+${gap(3)}${T.RCPT}` },
+      { re: rx`no power (?:at|to)\s+(?:the\s+)?${gap(3)}${T.RCPT}` },
+      { re: rx`(?:plugs?|cords?)\s+(?:fall|falls|fell|slip|slips|pull|pulls)\s+out` },
+      { re: rx`(?:loose|poor|weak|worn)\s+(?:blade\s+)?(?:tension|grip|contacts)` },
+    ],
+  },
+  {
+    code: 'weather-cover-missing',
+    defaultRoom: 'exterior',
+    patterns: [
+      { re: rx`(?:${T.NO}|${T.BROKEN})\s+(?:(?:an?|the|its|proper|required)\s+)?(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant|[- ]tight)?|wp|wr|exterior|outdoor)[- ]?(?:rated\s+)?(?:covers?|cover plates?|enclosures?|hoods?|lids?|flaps?)` },
+      { re: rx`(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant)?|wp)\s+covers?\s+${T.BE}(?:${T.ABSENT}|broken|damaged|cracked|needed|recommended|required)` },
+      { re: rx`(?:exterior|outdoor|outside|patio|deck|porch)\s+${T.RCPT}\s+${gap(3)}(?:covers?|lids?|flaps?)\s+${T.BE}(?:missing|broken|damaged|absent)` },
+      { re: rx`(?:not|non)[- ](?:wr|weather[- ]resistant)\b` },
+    ],
+  },
+  {
+    code: 'cover-plate-missing',
+    patterns: [
+      { re: rx`(?:${T.NO}|broken|cracked|damaged)\s+(?:(?:the|a|an|any)\s+)?(?:(?:switch|${T.RCPT}|light|blank)\s+)?${T.PLATE}`, unless: JBOX_WORD },
+      { re: rx`${T.PLATE}\s+${gap(4)}${T.BE}(?:${T.ABSENT}|broken|cracked|damaged)`, unless: JBOX_WORD },
+      { re: rx`${T.PLATE}\s+(?:for|on|at|of)\s+(?:the\s+|a\s+)?(?:${T.SWITCH}|${T.RCPT})\s+${gap(5)}${T.BE}(?:broken|cracked|damaged|missing)` },
+    ],
+  },
+  {
+    code: 'open-junction-box',
+    patterns: [
+      { re: rx`(?:open|uncovered|unenclosed)\s+(?:${T.JBOX}|box(?:es)?\b)` },
+      { re: rx`${T.JBOX}\s+${gap(4)}(?:(?:has|have|had|with|is|are|was|were)\s+)?(?:no|missing|without|lacks?|lacking|open|uncovered|not covered)(?:\s+(?:a|its|the|blank))?(?:\s+(?:covers?|lids?|plates?))?` },
+      { re: rx`${T.JBOX}\s+(?:covers?|lids?)\s+${gap(3)}${T.BE}(?:${T.ABSENT}|off|removed)` },
+      { re: rx`${T.NO}\s+(?:blank\s+)?(?:covers?|lids?)\s+(?:on|for)\s+(?:the\s+|an?\s+)?${T.JBOX}` },
+      { re: rx`(?:splices?|spliced (?:wires|conductors)|wire nuts?)\s+${anyGap(6)}(?:outside|not in|not within|not enclosed|without)\s+(?:in\s+)?(?:an?\s+|the\s+)?(?:(?:approved|junction|electrical|enclosed)\s+)?(?:box|enclosure|junction box)` },
+      { re: rx`(?:open|exposed|unenclosed|loose|taped)\s+(?:wire\s+)?splices?` },
+    ],
+  },
+  {
+    code: 'exposed-wiring',
+    patterns: [
+      { re: rx`(?:exposed|unprotected|unsecured|loose|dangling|hanging|unsupported|unstapled|frayed)(?:,?\s+(?:dangling|hanging|unsecured|loose|exposed))?\s+(?:(?:nm|romex|electrical|branch(?: circuit)?|sheathed|non-?metallic(?:[- ]sheathed)?)\s+)?(?:wir(?:e|es|ing)|cables?|nm(?:-b)?|romex)\b` },
+      { re: rx`${T.WIRING}\s+${gap(4)}${T.BE}(?:exposed|unprotected|unsecured|loose|not (?:secured|supported|protected|stapled|strapped)|dangling|hanging|lying|draped|subject to (?:physical )?damage|within reach)` },
+      { re: rx`extension cords?\s+${gap(3)}(?:used|in use|serving|as|for|run|powering|supplying|providing|feeding)` },
+      { re: rx`(?:used|using|uses|plugged in(?:\s?to)?|powered by|connected to|on)\s+(?:an?\s+)?extension cords?` },
+      { re: rx`(?:permanent|fixed)\s+(?:use of\s+)?extension cords?` },
+    ],
+  },
+  {
+    code: 'double-tap',
+    fixedRoom: 'panel',
+    patterns: [
+      { re: rx`(?:doubled?|dbl\.?|dual|twin)[- ]?tap(?:s|ped|ping|ed)?\b` },
+      { re: rx`double[- ]lug(?:ged|s)?\b` },
+      { re: rx`(?:two|2|multiple)\s+(?:wires|conductors|circuits|neutrals)\s+${gap(3)}(?:under|on|to|landed on|terminated on|sharing)\s+(?:a\s+|one\s+|the same\s+|single\s+)+(?:terminal|lug|screw|breaker)` },
+    ],
+  },
+  {
+    code: 'overcurrent-mismatch',
+    fixedRoom: 'panel',
+    patterns: [
+      { re: rx`(?:oversized?|over-sized|over-?fused|mismatched|incorrectly sized|wrong(?:ly sized)?|improperly sized)\s+${gap(2)}${T.BREAKER}` },
+      { re: rx`${T.BREAKER}\s+${gap(3)}${T.BE}(?:oversized|over-sized|too large|too big|larger than|rated (?:higher|above|too high))` },
+      { re: rx`undersized\s+(?:wir(?:e|es|ing)|conductors?)` },
+      {
+        re: rx`(?<amps>\d{2})\s?-?(?:a|amps?|ampere)\s+${T.BREAKER}\s+${gap(3)}(?:on|protects?|protecting|feeds?|feeding|serves?|serving|connected to|supplies|supplying)\s+(?:an?\s+)?${gap(2)}#?\s?(?<awg>1[024])\s*(?:awg|gauge|ga)\b`,
+        check: isOversized,
+      },
+      {
+        re: rx`#?\s?(?<awg>1[024])\s*(?:awg|gauge|ga)\s+${gap(3)}(?:on|protected by|connected to|landed on|fed by|attached to)\s+(?:an?\s+)?(?<amps>\d{2})\s?-?(?:a|amps?|ampere)\b`,
+        check: isOversized,
+      },
+    ],
+  },
+  {
+    code: 'panel-deficiency',
+    fixedRoom: 'panel',
+    patterns: [
+      { re: rx`${T.NO}\s+${gap(2)}(?:dead[- ]?front|panel cover|inner cover|interior cover)(?:\s+screws?)?` },
+      { re: rx`(?:dead[- ]?front|panel cover|inner cover)(?:\s+cover)?\s+${gap(3)}${T.BE}(?:missing|absent|removed|not installed)(?:\s+(?:\w+\s+)?screws?)?` },
+      { re: rx`(?:pointed|sharp|sharp[- ]tipped|drywall|sheet metal|self-tapping|incorrect|wrong|improper)\s+${gap(2)}screws?`, context: PANEL_CONTEXT },
+      { re: rx`(?:missing|no)\s+${gap(2)}screws?`, context: PANEL_CONTEXT },
+      { re: rx`(?:open|unused|unsealed)\s+(?:knockouts?|k\.?o\.?s?\b|breaker (?:slots?|spaces?|openings?)|slots?|openings?)`, context: PANEL_CONTEXT },
+      { re: rx`(?:${T.NO})\s+(?:breaker\s+)?(?:fillers?|filler plates?|blanks?|blanking plates?|knockout (?:closures|seals|plugs|covers))` },
+      { re: rx`(?:knockouts?|fillers?|filler plates?)\s+${T.BE}(?:missing|open|absent)` },
+      { re: rx`(?:${T.NO}|incomplete|illegible|inaccurate)\s+(?:panel\s+|circuit\s+)*(?:directory|legend|labels?|labell?ing|identification)` },
+      { re: rx`(?:directory|legend|circuit labels?|labell?ing)\s+${gap(3)}${T.BE}(?:${T.ABSENT}|incomplete|illegible|inaccurate|not (?:filled|completed))` },
+      { re: rx`(?:circuits?|breakers?)\s+${gap(3)}${T.BE}(?:not|un)[- ]?(?:labell?ed|identified|marked)`, context: PANEL_CONTEXT },
+      { re: rx`(?:unlabell?ed|unidentified|unmarked)\s+(?:circuits?|breakers?)` },
+      { re: rx`(?:corrosion|rust|moisture|water stains?)\s+${gap(3)}(?:in|on|inside|at|within)\s+(?:the\s+)?(?:main\s+|electrical\s+|service\s+)?(?:${T.PANEL}|breakers?|bus)` },
+      { re: rx`(?:${T.PANEL}|bus bars?|breakers?|lugs?)\s+${gap(3)}${T.BE}(?:corroded|rusted|rusty|shows? (?:corrosion|rust))` },
+      { re: rx`(?:blocked|obstructed|inadequate|insufficient|restricted)\s+(?:working\s+)?(?:clearance|access|space)`, context: PANEL_CONTEXT },
+      { re: rx`${T.PANEL}\s+${gap(3)}${T.BE}(?:blocked|obstructed|not accessible|inaccessible)` },
+      { re: rx`(?:shelving|storage|stored items|items|cabinets?|shelves|furniture)\s+${gap(3)}(?:blocking|blocks|obstruct\w*|in front of)\s+(?:the\s+)?(?:access to the\s+)?${gap(2)}${T.PANEL}` },
+    ],
+  },
+  {
+    code: 'subpanel-bonding',
+    fixedRoom: 'panel',
+    patterns: [
+      { re: rx`(?:neutrals?|grounds?)(?:\s+(?:conductors?|wires?))?\s+(?:and|&)\s+(?:neutrals?|grounds?|grounding|equipment grounds?)(?:\s+(?:conductors?|wires?))?\s+${gap(3)}(?:share|sharing|are on|on the same|together|combined|commingled|mixed|${T.BE}not (?:separated|isolated))` },
+      { re: rx`(?:grounds?|ground wires|egcs?|equipment grounds?)\s+${gap(3)}(?:on|landed on|connected to|terminated on|share)\s+(?:the\s+)?neutral\s+(?:bar|bus)`, context: SUBPANEL_CONTEXT },
+      { re: rx`(?:bonding|bond|green)\s+(?:screw|strap|jumper)\s+${gap(3)}${T.BE}(?:present|installed|in place|not removed)`, context: SUBPANEL_CONTEXT },
+      { re: rx`neutral\s+(?:bar|bus)?\s*${gap(2)}${T.BE}bonded\s+to\s+(?:the\s+)?(?:enclosure|case|can|cabinet|panel|ground)`, context: SUBPANEL_CONTEXT },
+      { re: rx`no separate ground(?:ing)? (?:bar|bus)` },
+    ],
+  },
+  {
+    code: 'grounding-electrode',
+    patterns: [
+      { re: rx`(?:${T.NO}|loose|disconnected|damaged|broken|cut|corroded|inadequate|improper)\s+(?:(?:a|an|the)\s+)?${gap(2)}(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|water (?:pipe |line )?bond(?:ing)?(?: jumper)?|gas (?:pipe |line )?bond(?:ing)?|bonding (?:jumper|conductor|clamp|wire))` },
+      { re: rx`(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|bonding (?:jumper|clamp|conductor))\s+${gap(3)}${T.BE}(?:${T.ABSENT}|loose|disconnected|damaged|cut|broken|corroded|not (?:connected|attached|bonded|secured)|undersized|inadequate)` },
+      { re: rx`(?:water|gas|metal|csst)(?:\s+(?:service|supply|main))?(?:\s+(?:pipes?|piping|lines?))?\s+${gap(2)}${T.BE}(?:not|un)[- ]?bonded` },
+      { re: rx`(?:not|no)\s+bond(?:ed|ing)\s+(?:\w+\s+){0,3}?(?:water|gas|csst|metal piping)` },
+    ],
+  },
+  {
+    code: 'smoke-co-alarm',
+    defaultRoom: 'whole-house',
+    patterns: [
+      { re: rx`(?:${T.NO}|${T.INOPERATIVE}|expired|outdated|dated|disconnected|removed|chirping)\s+${gap(2)}${T.SMOKE}` },
+      { re: rx`${T.SMOKE}\s*[:-]?\s*${gap(3)}${T.BE}(?:${T.ABSENT}|none|${T.INOPERATIVE}|expired|past (?:their|its) (?:service life|expiration)|(?:over|older than|more than) (?:10|ten) years|disconnected|removed|chirping|${T.FAILED} (?:respond|sound|activate|operate|work)|failed)` },
+      { re: rx`${RECOMMEND}\s+${NOT_ABOUT_ADDING}${T.SMOKE}`, isRecommendation: true, unless: /\btest/i },
+      { re: rx`(?:unit|device)\s+${gap(4)}${T.FAILED}\s+(?:sound|alarm|respond|activate)`, context: /smoke|carbon monoxide|\bco\b|alarm|detector/i },
+    ],
+  },
+  {
+    code: 'light-fixture',
+    patterns: [
+      { re: rx`${T.LIGHT}\s+${gap(5)}${T.BE}(?:${T.INOPERATIVE}|loose|dangling|hanging|not (?:secured|secure|attached|mounted)|${T.FAILED} (?:operate|work|respond|turn on|come on)|in contact with (?:the\s+)?insulation|covered (?:by|with) insulation|not (?:rated|listed|suitable|approved) for (?:a |the )?(?:wet|damp))` },
+      { re: rx`(?:${T.INOPERATIVE}|loose|dangling|damaged|broken)\s+${gap(2)}${T.LIGHT}` },
+      { re: rx`(?:${T.NO}|broken)\s+(?:(?:the|a)\s+)?(?:globes?|lens(?:es)?|light covers?|shades?|diffusers?)` },
+      { re: rx`(?:bare|open|exposed|uncovered)\s+(?:incandescent\s+)?(?:bulbs?|lamps?)\b` },
+      { re: rx`insulation\s+${gap(3)}(?:in contact with|touching|covering|over|on top of|against)\s+(?:the\s+)?${gap(2)}(?:recessed|can)\s+(?:lights?|fixtures?|cans?|housings?)` },
+    ],
+  },
+  {
+    code: 'fan-support',
+    patterns: [
+      { re: rx`(?:ceiling\s+)?fans?\s+${gap(4)}(?:wobbl\w*|shak(?:es|ing|y)|sways?|swaying|unstable|${T.BE}(?:loose|not (?:secured|supported|properly (?:supported|secured|mounted))|improperly (?:mounted|supported|secured)))` },
+      { re: rx`(?:ceiling\s+)?fans?\s+${gap(2)}${T.BE}(?:mounted|installed|hung|supported)\s+(?:on|to|from|by)\s+(?:a|an|the)?\s*(?:standard|non-?fan[- ]rated|light(?:ing)?|plastic|pancake|junction|ordinary)\s+(?:fixture\s+|outlet\s+|light\s+)?box` },
+      { re: rx`(?:wobbl\w*|loose|unsecured|shaky)\s+(?:ceiling\s+)?fans?\b` },
+      { re: rx`(?:not|non)[- ](?:an?\s+)?fan[- ](?:rated|support(?:ing)?)\b` },
+    ],
+  },
+  {
+    code: 'switch-issue',
+    patterns: [
+      { re: rx`${T.SWITCH}\s+${gap(5)}${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|(?:warm|hot) to the touch|warm|hot|sparks?|sparking|arcing|${T.FAILED} (?:operate|work|respond|control))` },
+      { re: rx`${T.SWITCH}\s+${gap(7)}(?:(?:has|have|had|of|with|serves?)\s+)?(?:an?\s+)?unknown (?:function|purpose|use)` },
+      { re: rx`(?:function|purpose) of (?:the |a |an )?${gap(2)}${T.SWITCH}\s+${gap(5)}${T.BE}(?:unknown|unclear|undetermined|not determined|could not be determined)` },
+      { re: rx`(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|unknown(?:[- ]function)?)\s+${gap(2)}${T.SWITCH}(?!\s*(?:cover\s*)?plates?)` },
+    ],
+  },
+  {
+    code: 'aluminum-branch-wiring',
+    defaultRoom: 'whole-house',
+    patterns: [
+      {
+        re: rx`(?:(?:single|solid)[- ](?:strand(?:ed)?|conductor)\s+)?(?:aluminum|aluminium|alum\.?|al)\s+(?:single[- ]strand\s+|solid\s+)?(?:branch(?:[- ]circuit)?\s+)?(?:circuit\s+)?(?:wir(?:e|es|ing)|conductors?|circuits?)\b`,
+        unless: /\bstranded\b|service[- ]entrance|se cable|feeder|service conductors/i,
+      },
+    ],
+  },
+  {
+    code: 'knob-and-tube',
+    defaultRoom: 'whole-house',
+    patterns: [
+      { re: rx`knob[- ]?(?:and|&|n|'n'?)[- ]?tube` },
+      { re: rx`\bk\s?&\s?t\b|\bk-t\b|\bknt\b` },
+      { re: rx`(?:ungrounded|two[- ]wire|2[- ]wire|cloth[- ](?:insulated|covered|sheathed)|fabric[- ](?:insulated|covered)|rubber[- ]insulated)\s+(?:legacy\s+|old(?:er)?\s+|original\s+|vintage\s+)?(?:wir(?:e|es|ing)|cables?|circuits?)\b` },
+    ],
+  },
+  {
+    code: 'service-equipment',
+    defaultRoom: 'exterior',
+    patterns: [
+      { re: rx`${T.SERVICE}\s+${gap(4)}${T.BE}(?:damaged|leaning|bent|loose|pulling away|detached|unsecured|not (?:secured|sealed|properly (?:secured|sealed|supported))|${T.ABSENT}|deteriorated|worn|frayed|cracked|rusted|rusting|corroded|too low|sagging|in contact with|contacting|touching|rubbing|exposed|weathered|brittle|torn|split)` },
+      { re: rx`(?:${T.NO}|damaged|deteriorated|frayed|worn|cracked|weathered|brittle|loose|leaning|bent|rusted|corroded)\s+${gap(2)}${T.SERVICE}` },
+      { re: rx`(?:trees?|branches|limbs|vegetation|vines)\s+${gap(3)}(?:in contact with|contacting|touching|rubbing|against|interfering with)\s+(?:the\s+)?${gap(2)}${T.SERVICE}` },
+      { re: rx`(?:inadequate|insufficient|improper|low)\s+(?:service\s+)?(?:drop\s+)?clearance\b`, context: /service|drop|overhead|mast|utility|roof/i, unless: PANEL_CONTEXT },
+    ],
+  },
+  {
+    code: 'evaluate-general',
+    isFallbackOnly: true,
+    defaultRoom: 'whole-house',
+    patterns: [
+      { re: rx`(?:evaluat|review|inspect|assess|examin|diagnos|correct|repair)\w*\s+${anyGap(8)}(?:by|from)\s+(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)s?`, unless: /\bif\b|\bany\b|\bshould any\b/i },
+      { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check)`, unless: /\bif\b|\bany\b|\bshould any\b/i },
+      { re: rx`(?:consult|contact|hire|engage|retain|call)\s+(?:with\s+)?(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)`, unless: /\bif\b|\bany\b/i },
+    ],
+  },
+];

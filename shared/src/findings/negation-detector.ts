@@ -1,0 +1,48 @@
+import { clauseIndexAt, clauseRanges, type Range } from './clause-splitter';
+
+/**
+ * Decides which defect phrases in a sentence are denied rather than reported: "no reversed
+ * polarity observed", "Double taps: none", "no loose or damaged receptacles noted", "if a GFCI
+ * fails to trip...". A cue before a phrase denies it and the phrases listed after it ("no
+ * reversed polarity or open grounds"); a cue after a phrase denies it and the phrases listed
+ * before it ("reversed polarity or open grounds: none found"). Cues never cross a clause, and a
+ * cue inside a phrase ("no GFCI", "did not trip") is part of the defect, not a denial.
+ */
+const CUE_BEFORE = /\b(?:no|not|never|none of|free of|no evidence of|no signs? of|no indication of|did not (?:observe|find|note|see|detect)|didn't (?:observe|find|note|see)|absence of|if|unless|whether)\b/gi;
+const CUE_AFTER = /(?:\b(?:was|were|is|are)\s+)?\bnot\s+(?:observed|found|noted|detected|seen|evident|identified|present)\b|\bnone\b(?:\s+(?:observed|found|noted|detected|seen|evident))?|\bn\/a\b|\bnot an issue\b/gi;
+/** Text between two listed phrases: commas, "and", "or", "nor", "/", "&". */
+const LIST_JOIN = /^[\s,]*(?:(?:and|or|nor|&|\/|and\/or)[\s,]*)?$/i;
+/** Longest run of ordinary words allowed between a cue and the phrase it denies. */
+const MAX_CUE_DISTANCE = 60;
+
+function cuesOutside(text: string, re: RegExp, spans: readonly Range[]): Range[] {
+  return [...text.matchAll(re)]
+    .map((m) => ({ start: m.index, end: m.index + m[0].length }))
+    .filter((cue) => !spans.some((s) => cue.start < s.end && s.start < cue.end));
+}
+
+/** For each span (sorted by start, not overlapping), whether the sentence denies it. */
+export function negatedSpans(text: string, spans: readonly Range[]): boolean[] {
+  const clauses = clauseRanges(text);
+  const clauseOf = (pos: number) => clauseIndexAt(clauses, pos);
+  const negated = spans.map(() => false);
+  const isListed = (a: Range, b: Range) => LIST_JOIN.test(text.slice(a.end, b.start));
+
+  for (const cue of cuesOutside(text, CUE_BEFORE, spans)) {
+    const first = spans.findIndex((s) => s.start >= cue.end);
+    if (first === -1 || clauseOf(spans[first].start) !== clauseOf(cue.start)) continue;
+    if (spans[first].start - cue.end > MAX_CUE_DISTANCE) continue;
+    negated[first] = true;
+    for (let i = first + 1; i < spans.length && isListed(spans[i - 1], spans[i]); i++) negated[i] = true;
+  }
+  for (const cue of cuesOutside(text, CUE_AFTER, spans)) {
+    let last = -1;
+    spans.forEach((s, i) => {
+      if (s.end <= cue.start) last = i;
+    });
+    if (last === -1 || clauseOf(spans[last].start) !== clauseOf(cue.start)) continue;
+    negated[last] = true;
+    for (let i = last - 1; i >= 0 && isListed(spans[i], spans[i + 1]); i--) negated[i] = true;
+  }
+  return negated;
+}

@@ -1,0 +1,82 @@
+/**
+ * Reads how many items a finding covers: digits and number words before a countable noun
+ * ("three receptacles", "2 breakers"), "(3)", "2x"/"x2", "both"/"neither" (2), "a"/"an"/"one" + noun
+ * (1), a bare count after a colon ("Open grounds: 2"). Vague words ("several", "multiple",
+ * "various", "all" without a number) give null, as does text with no count.
+ */
+const NUMBER_WORDS: Readonly<Record<string, number>> = {
+  a: 1, an: 1, one: 1, single: 1, two: 2, three: 3, four: 4, five: 5, six: 6, seven: 7, eight: 8,
+  nine: 9, ten: 10, eleven: 11, twelve: 12, both: 2, neither: 2, pair: 2,
+};
+const VAGUE = new Set(['several', 'multiple', 'various', 'numerous', 'some', 'many', 'few', 'all', 'each', 'every', 'any']);
+/** Nouns a count can apply to (devices, defects and places). */
+const COUNTABLE = /^(?:rec[ei]pt?[aeiu]?c(?:le|al|el)s?|recepts?|recep|rcpts?|outlett?s?|devices?|gfc?is?|afcis?|breakers?|brkrs?|fuses?|circuits?|wires?|conductors?|cables?|cords?|lights?|fixtures?|lamps?|bulbs?|switch(?:es)?|box(?:es)?|j-?box(?:es)?|splices?|covers?|plates?|alarms?|detectors?|smokes?|fans?|knockouts?|fillers?|blanks?|openings?|slots?|screws?|taps?|grounds?|locations?|places?|spots?|areas?|rooms?|bathrooms?|baths?|bedrooms?|units?|terminals?|neutrals?)$/i;
+/** Words that make the number a measure, not a count ("20 amp", "6 feet", "3-prong"). */
+const UNIT = /^(?:a|amps?|amperes?|v|volts?|awg|gauge|ga|ft|feet|foot|inch(?:es)?|in|years?|yrs?|prong|slot|wire|pole|way|mm|%|percent|degrees?|minutes?|hours?|days?)$/i;
+/** Words before a number that make it a name or an index ("bedroom 2", "slot 14", "#3"). */
+const INDEX_BEFORE = /^(?:bed\s?rooms?|bath(?:room)?s?|br|bdrms?|rooms?|circuits?|breakers?|no|nos|item|items|page|section|unit|level|floor|space|position|slot|photo|fig|figure|step|zone|#|spaces|about|approximately|approx)$/i;
+const ALLOWED_BETWEEN = 3;
+
+interface Token {
+  readonly word: string;
+  readonly index: number;
+}
+
+function tokenize(text: string): Token[] {
+  return [...text.matchAll(/\(\s*x?\d{1,3}\s*\)|[#]?[\w'%-]+|[:;,.]/g)].map((m) => ({
+    word: m[0].toLowerCase(),
+    index: m.index,
+  }));
+}
+
+function countOf(word: string): number | null {
+  if (/^\d{1,3}$/.test(word)) return Number(word);
+  return NUMBER_WORDS[word] ?? null;
+}
+
+/**
+ * The count given in `text`, or null when there is none or it is vague. "a"/"an" count as one only
+ * before `articleLimit` (the start of the defect phrase): "an open junction box" is one box, but
+ * "mounted to a standard light box" says nothing about how many fans.
+ */
+export function readQuantity(text: string, articleLimit = Infinity): number | null {
+  const tokens = tokenize(text);
+  for (let i = 0; i < tokens.length; i++) {
+    const { word } = tokens[i];
+    const parenthesised = /^\(\s*x?(\d{1,3})\s*\)$/.exec(word);
+    if (parenthesised) return Number(parenthesised[1]);
+    const times = /^(?:(\d{1,2})x|x(\d{1,2}))$/.exec(word);
+    if (times) return Number(times[1] ?? times[2]);
+    if (VAGUE.has(word) && !isNumberAhead(tokens, i)) return null;
+    const count = countOf(word);
+    if (count === null || count === 0) continue;
+    if ((word === 'a' || word === 'an') && tokens[i].index >= articleLimit) continue;
+    if (i > 0 && INDEX_BEFORE.test(tokens[i - 1].word)) continue;
+    const next = tokens[i + 1]?.word;
+    if (next !== undefined && UNIT.test(next) && word !== 'a' && word !== 'an') continue;
+    if (/^\d/.test(word) && tokens[i - 1]?.word === ':') return count;
+    if (word === 'pair' && next !== 'of') continue;
+    if (isNounAhead(tokens, i)) return count;
+  }
+  return null;
+}
+
+function isNounAhead(tokens: Token[], i: number): boolean {
+  for (let j = i + 1; j <= i + 1 + ALLOWED_BETWEEN && j < tokens.length; j++) {
+    const word = tokens[j].word;
+    const isMeasure = /^\d/.test(word) && UNIT.test(tokens[j + 1]?.word ?? '');
+    if (isMeasure) {
+      j++;
+      continue;
+    }
+    if (/^[:;.]$/.test(word) || UNIT.test(word) || countOf(word) !== null) return false;
+    if (COUNTABLE.test(word)) return true;
+  }
+  return false;
+}
+
+/** "all three receptacles": a vague word directly followed by a number gives way to it. */
+function isNumberAhead(tokens: Token[], i: number): boolean {
+  const next = tokens[i + 1]?.word;
+  return next !== undefined && countOf(next) !== null && next !== 'a' && next !== 'an';
+}

@@ -1,0 +1,77 @@
+import { readBlock } from './block-findings';
+import { splitBlocks } from './block-splitter';
+import { findingCodeInfo } from './finding-code';
+import type { Finding, ParseResult, SkippedText } from './finding.schema';
+import { sourceRange } from './mapped-text';
+
+/** The character that joins pages into one text; offsets in a ParseResult refer to that text. */
+export const PAGE_SEPARATOR = '\f';
+
+/** Joins report pages the way all offsets of a ParseResult count them. */
+export function joinPages(pages: readonly string[]): string {
+  return pages.join(PAGE_SEPARATOR);
+}
+
+function pageLocator(joined: string): (offset: number) => number {
+  const breaks: number[] = [];
+  for (let i = 0; i < joined.length; i++) if (joined[i] === PAGE_SEPARATOR) breaks.push(i);
+  return (offset) => 1 + breaks.filter((b) => b < offset).length;
+}
+
+/**
+ * Reads the electrical findings of an inspection report given as page texts. Every finding's
+ * evidence is `joinPages(pages).slice(start, end)`: the sentence it was read from, exactly as
+ * written, even across a page break; `page` is the 1-based page where that sentence starts.
+ * Blocks that give no finding come back in `skipped` with their section and the reason.
+ */
+export function parseReport(pages: readonly string[]): ParseResult {
+  const joined = joinPages(pages);
+  const pageOf = pageLocator(joined);
+  const findings: Finding[] = [];
+  const skipped: SkippedText[] = [];
+
+  for (const block of splitBlocks(joined)) {
+    const { start, end } = sourceRange(block.text);
+    const skip = (reason: SkippedText['reason']) =>
+      skipped.push({
+        section: block.section.title,
+        sectionKind: block.section.kind,
+        reason,
+        text: joined.slice(start, end),
+        page: pageOf(start),
+        start,
+        end,
+      });
+    if (block.section.kind === 'non-electrical') {
+      skip('non-electrical-section');
+      continue;
+    }
+    const result = readBlock(block.text, block.section);
+    if (result.findings.length === 0) {
+      skip(result.hasNegated ? 'negated' : 'no-electrical-finding');
+      continue;
+    }
+    for (const f of result.findings) {
+      const range = sourceRange(f.sentence);
+      const info = findingCodeInfo(f.code);
+      findings.push({
+        code: f.code,
+        room: f.room,
+        location: f.location,
+        quantity: f.quantity,
+        evidence: joined.slice(range.start, range.end),
+        page: pageOf(range.start),
+        start: range.start,
+        end: range.end,
+        severity: info.severity,
+        necRefs: [...info.necRefs],
+      });
+    }
+  }
+  return { findings, skipped };
+}
+
+/** Convenience for plain text: pages are separated by form feeds. */
+export function parseText(text: string): ParseResult {
+  return parseReport(text.split(PAGE_SEPARATOR));
+}

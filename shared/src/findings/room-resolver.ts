@@ -1,0 +1,128 @@
+import { clauseIndexAt, clauseRanges, type Range } from './clause-splitter';
+import type { CodeMatch } from './code-matcher';
+import { readLocation } from './location-reader';
+import { findRooms, type RoomMention } from './room-lexicon';
+import type { Room } from './room';
+
+/** Where a finding is, and the stretch of text its count is read from. */
+export interface Placement {
+  readonly room: Room;
+  readonly location: string;
+  /** The text the quantity is read from (the finding's own part of the sentence). */
+  readonly countText: string;
+  /** Text after that part, read for a count only when the sentence has one finding. */
+  readonly laterText: string;
+  /** Position in countText after which "a"/"an" no longer count as one (see readQuantity). */
+  readonly articleLimit: number;
+}
+
+export interface CarriedPlace {
+  readonly room: Room;
+  readonly location: string;
+}
+
+/** What the block and section say about place, for sentences that name none. */
+export interface PlaceContext {
+  /** A place named earlier in the block that this sentence refers back to ("It is not..."). */
+  readonly carried: CarriedPlace | null;
+  readonly sectionRoom: Room | null;
+  readonly sectionTitle: string | null;
+}
+
+const SEPARATOR = /,\s*|\s+(?:and|also|while|plus|as well as)\s+/gi;
+/** Text between two places of one list: a conjunction, few words, no spatial preposition. */
+const LIST_BETWEEN = /^(?=.*(?:,|\band\b|&|\/|\bor\b))(?!.*\b(?:above|below|beneath|under|over|near|behind|beside|next|adjacent|off|of|from|inside|within|serving|feeding|for|which|that)\b)(?:[\s,&/]*[\w'-]+){0,6}[\s,&/]*$/i;
+
+/** Splits the sentence into one part per match: a match owns the text up to the next separator. */
+function segments(text: string, matches: readonly CodeMatch[], clauses: readonly Range[]): Range[] {
+  const bounds = [0];
+  for (let i = 0; i + 1 < matches.length; i++) {
+    const a = matches[i];
+    const b = matches[i + 1];
+    let cut = b.start;
+    const ca = clauseIndexAt(clauses, a.start);
+    if (ca !== clauseIndexAt(clauses, b.start)) {
+      cut = clauses[ca].end;
+    } else {
+      const between = text.slice(a.end, b.start);
+      const seps = [...between.matchAll(SEPARATOR)];
+      if (seps.length > 0) cut = a.end + seps[seps.length - 1].index;
+    }
+    bounds.push(cut);
+  }
+  bounds.push(text.length);
+  return matches.map((m, i) => {
+    const clause = clauses[clauseIndexAt(clauses, m.start)];
+    return { start: Math.max(bounds[i], clause.start), end: Math.min(bounds[i + 1], clause.end) };
+  });
+}
+
+function mentionsIn(rooms: readonly RoomMention[], range: Range): RoomMention[] {
+  return rooms.filter((r) => r.start >= range.start && r.end <= range.end && !r.isReferencePoint);
+}
+
+/** The first place of a part, extended by the places listed with it ("bedroom, dining room and den"). */
+function listedGroup(text: string, mentions: readonly RoomMention[]): RoomMention[] {
+  const usable = mentions.some((m) => m.room !== 'panel') ? mentions.filter((m) => m.room !== 'panel') : mentions;
+  const group = usable.slice(0, 1);
+  for (let i = 1; i < usable.length; i++) {
+    if (!LIST_BETWEEN.test(text.slice(usable[i - 1].end, usable[i].start))) break;
+    group.push(usable[i]);
+  }
+  return group;
+}
+
+function nearest(rooms: readonly RoomMention[], before: number, after: number, within: Range): RoomMention | null {
+  const inside = rooms.filter((r) => !r.isReferencePoint && r.room !== 'panel' && r.start >= within.start && r.end <= within.end);
+  const earlier = inside.filter((r) => r.end <= before);
+  if (earlier.length > 0) return earlier[earlier.length - 1];
+  return inside.find((r) => r.start >= after) ?? null;
+}
+
+/** For each match of the sentence, one placement per place it applies to. */
+export function placeMatches(text: string, matches: readonly CodeMatch[], context: PlaceContext): Placement[][] {
+  const clauses = clauseRanges(text);
+  const rooms = findRooms(text);
+  const parts = segments(text, matches, clauses);
+  return matches.map((match, i) => {
+    const part = parts[i];
+    const countText = text.slice(part.start, part.end);
+    const laterText = text.slice(part.end);
+    const firstWords = /^(?:\S+\s+){0,2}\S+/.exec(text.slice(match.start))?.[0].length ?? 0;
+    const articleLimit = match.start - part.start + firstWords;
+    const own = { countText, laterText, articleLimit };
+    const fixed = match.rule.fixedRoom;
+    if (fixed) return [{ room: fixed, location: fixedLocation(text, rooms, part, fixed), ...own }];
+    const group = listedGroup(text, mentionsIn(rooms, part));
+    if (group.length > 1) {
+      return group.map((m, j) => ({
+        room: m.room,
+        location: readLocation(text, m),
+        countText: text.slice(j === 0 ? part.start : group[j - 1].end, m.end),
+        laterText: '',
+        articleLimit: Infinity,
+      }));
+    }
+    const clause = clauses[clauseIndexAt(clauses, match.start)];
+    const chosen =
+      group[0] ??
+      nearest(rooms, part.start, part.end, clause) ??
+      nearest(rooms, part.start, text.length, { start: 0, end: part.start });
+    if (chosen) return [{ room: chosen.room, location: readLocation(text, chosen), ...own }];
+    if (context.carried) return [{ ...context.carried, ...own }];
+    if (context.sectionRoom) return [{ room: context.sectionRoom, location: context.sectionTitle ?? '', ...own }];
+    return [{ room: match.rule.defaultRoom ?? 'unknown', location: '', ...own }];
+  });
+}
+
+function fixedLocation(text: string, rooms: readonly RoomMention[], part: Range, room: Room): string {
+  const own = rooms.find((r) => r.room === room && r.start >= part.start && r.end <= part.end) ?? rooms.find((r) => r.room === room);
+  return own ? readLocation(text, own) : '';
+}
+
+/** The place a later sentence of the same block can refer back to: the last one named, panels excluded. */
+export function lastPlaceNamed(text: string): CarriedPlace | null {
+  const usable = findRooms(text).filter((r) => !r.isReferencePoint && r.room !== 'panel');
+  const last = usable[usable.length - 1];
+  return last ? { room: last.room, location: readLocation(text, last) } : null;
+}

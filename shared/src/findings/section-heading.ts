@@ -1,0 +1,93 @@
+import type { SectionKind } from './finding.schema';
+import { findRooms } from './room-lexicon';
+import type { Room } from './room';
+
+/**
+ * Recognises section headings ("5.0 ELECTRICAL", "Section 7 - Electrical", "PLUMBING SYSTEM",
+ * "Sub-Panel (Garage)", "HALL BATHROOM") and classifies them. A heading is a short line made only
+ * of heading words, numbering and filler, with at least one heading word. Electrical words win
+ * over room words, room words over non-electrical words ("Attic and Insulation" is parsed, since
+ * attic findings are often electrical), and a line of filler alone ("Observations:") is a label
+ * that leaves the current section unchanged.
+ */
+const ELECTRICAL = new Set([
+  'electrical', 'electric', 'elec', 'electricity', 'wiring', 'panel', 'panels', 'panelboard', 'subpanel',
+  'sub-panel', 'subpanels', 'receptacles', 'receptacle', 'outlets', 'switches', 'lighting', 'lights',
+  'gfci', 'gfcis', 'afci', 'afcis', 'grounding', 'bonding', 'smoke', 'alarms', 'alarm', 'detectors',
+  'monoxide', 'carbon', 'co', 'circuits', 'breakers', 'distribution', 'disconnect', 'fixtures',
+]);
+const NON_ELECTRICAL = new Set([
+  'roof', 'roofing', 'roofs', 'gutters', 'gutter', 'chimney', 'chimneys', 'flashing', 'plumbing',
+  'water', 'heater', 'heaters', 'heating', 'hvac', 'cooling', 'air', 'conditioning', 'conditioner',
+  'furnace', 'boiler', 'ductwork', 'ducts', 'ventilation', 'structure', 'structural', 'foundation',
+  'foundations', 'framing', 'insulation', 'appliances', 'appliance', 'windows', 'doors', 'siding',
+  'grading', 'drainage', 'grounds', 'landscaping', 'driveway', 'driveways', 'walkways', 'fireplace',
+  'fireplaces', 'finishes', 'walls', 'ceilings', 'floors', 'flooring', 'cabinets', 'countertops',
+  'septic', 'well', 'sewer', 'irrigation', 'sprinklers', 'pest', 'radon', 'mold', 'heat', 'pump',
+  'supply', 'drains', 'waste', 'vents', 'fuel', 'gas', 'site', 'lot', 'fences', 'pool', 'spa',
+]);
+const ROOM_WORDS = new Set([
+  'kitchen', 'kitchens', 'bathroom', 'bathrooms', 'bath', 'baths', 'garage', 'garages', 'carport',
+  'exterior', 'basement', 'basements', 'crawl', 'crawlspace', 'laundry', 'bedroom', 'bedrooms',
+  'living', 'hallway', 'hallways', 'hall', 'halls', 'attic', 'attics', 'dining', 'office', 'den',
+  'family', 'powder', 'primary', 'master', 'guest', 'porch', 'deck', 'patio', 'stairs', 'entry',
+]);
+const GENERAL = new Set(['summary', 'general', 'interior', 'interiors', 'introduction', 'overview']);
+const FILLER = new Set([
+  'system', 'systems', 'components', 'component', 'and', '&', 'the', 'of', 'section', 'area', 'areas',
+  'room', 'rooms', 'main', 'secondary', 'observations', 'observation', 'findings', 'comments', 'notes',
+  'recommendations', 'deficiencies', 'concerns', 'conditions', 'items', 'details', 'checklist',
+  'testing', 'test', 'tests', 'review', 'evaluation', 'inspection', 'other', 'upper', 'lower', 'level',
+  'first', 'second', 'floor', 'cont', 'continued', "cont'd", 'or', 'with', 'at', 'to', 'for', 'in',
+  'on', 'safety', 'major', 'minor', 'entrance', 'equipment', 'service', 'space', 'report', 'and/or',
+  'limitations', 'defects', 'repairs', 'issues', 'info', 'information', 'description', 'descriptions',
+]);
+
+export interface Heading {
+  readonly kind: Exclude<SectionKind, 'none'>;
+  /** The heading as written, without numbering and trailing colon. */
+  readonly title: string;
+  /** The room the heading names, if any ("HALL BATHROOM", "Sub-Panel (Garage)"). */
+  readonly room: Room | null;
+}
+
+/** What a line is when it is not report content. */
+export type HeadingLine = { readonly type: 'heading'; readonly heading: Heading } | { readonly type: 'label' };
+
+const NUMBERING = /^\s*(?:section\s+)?(?:\d{1,2}(?:\.\d{1,2})*\.?|[ivx]{1,4}\.|[a-z]\))?\s*[-–—:.]?\s*/i;
+
+export function classifyHeadingLine(line: string): HeadingLine | null {
+  const trimmed = line.trim();
+  if (trimmed.length === 0 || trimmed.length > 70 || /[.!?;]\s*\S/.test(trimmed) || /\.$/.test(trimmed)) {
+    return null;
+  }
+  const title = trimmed.replace(NUMBERING, '').replace(/\s*[:\-–—]+\s*$/, '').trim();
+  const words = title.toLowerCase().match(/[a-z&'/-]+|\d+/g) ?? [];
+  if (words.length === 0 || words.length > 8) return null;
+  const isKnown = (w: string) =>
+    ELECTRICAL.has(w) || NON_ELECTRICAL.has(w) || ROOM_WORDS.has(w) || GENERAL.has(w) || FILLER.has(w) || /^\d+$/.test(w);
+  if (!words.every(isKnown)) return null;
+  const kind = headingKind(words);
+  if (kind === null) return { type: 'label' };
+  const room = kind === 'non-electrical' || kind === 'general' ? null : (findRooms(title)[0]?.room ?? null);
+  return { type: 'heading', heading: { kind, title, room } };
+}
+
+function headingKind(words: readonly string[]): Heading['kind'] | null {
+  if (words.some((w) => ELECTRICAL.has(w))) return 'electrical';
+  if (words.some((w) => ROOM_WORDS.has(w))) return 'room';
+  if (words.some((w) => NON_ELECTRICAL.has(w))) return 'non-electrical';
+  if (words.some((w) => GENERAL.has(w))) return 'general';
+  return null;
+}
+
+/**
+ * A line that starts with a non-electrical label ("Siding: vinyl, serviceable", "Plumbing: leak at
+ * trap"): its text belongs to that non-electrical topic, whatever section it sits in.
+ */
+export function inlineNonElectricalLabel(line: string): string | null {
+  const m = /^\s*([A-Za-z][A-Za-z &/,'-]{1,40}?)\s*:\s+\S/.exec(line);
+  if (!m) return null;
+  const heading = classifyHeadingLine(m[1]);
+  return heading?.type === 'heading' && heading.heading.kind === 'non-electrical' ? heading.heading.title : null;
+}

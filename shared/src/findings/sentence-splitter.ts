@@ -1,0 +1,39 @@
+import { sliceMapped, type MappedText } from './mapped-text';
+
+/**
+ * Splits a block's text into sentences: at line breaks the block splitter kept as boundaries
+ * ("\n") and at ".", "!" or "?" followed by a space and a capital, digit or bracket, except after
+ * abbreviations inspectors use ("recep.", "approx.", "e.g.", "No.").
+ */
+const ABBREVIATIONS = new Set([
+  'recep', 'rcpt', 'rcpts', 'recept', 'approx', 'e.g', 'i.e', 'eg', 'ie', 'no', 'nos', 'rm', 'bdrm',
+  'br', 'ft', 'min', 'max', 'vs', 'mr', 'mrs', 'ms', 'dr', 'st', 'ave', 'elec', 'ext', 'kit', 'bsmt',
+  'sq', 'ea', 'qty', 'fig', 'misc', 'mfr', 'temp', 'incl', 'est', 'apt', 'bldg',
+]);
+
+function isAbbreviation(text: string, dot: number): boolean {
+  const word = /([\w.]+)$/.exec(text.slice(Math.max(0, dot - 12), dot))?.[1]?.toLowerCase() ?? '';
+  return ABBREVIATIONS.has(word) || /^[a-z]$/i.test(word);
+}
+
+export function splitSentences(block: MappedText): MappedText[] {
+  const { text } = block;
+  const sentences: MappedText[] = [];
+  let start = 0;
+  const cut = (end: number, next: number) => {
+    const s = sliceMapped(block, start, end);
+    if (/[\p{L}\p{N}]/u.test(s.text)) sentences.push(s);
+    start = next;
+  };
+  for (let i = 0; i < text.length; i++) {
+    const ch = text[i];
+    if (ch === '\n') {
+      cut(i, i + 1);
+    } else if (/[.!?]/.test(ch) && /^\s+["'(\p{Lu}\p{N}•\-]/u.test(text.slice(i + 1, i + 3))) {
+      if (ch === '.' && isAbbreviation(text, i)) continue;
+      cut(i + 1, i + 1);
+    }
+  }
+  cut(text.length, text.length);
+  return sentences;
+}
