@@ -28,7 +28,8 @@ export interface BlockResult {
 /** A sentence that points back to a place named before it ("It is not GFCI protected"). */
 const REFERS_BACK = /^(?:it|they|this|these|those|each|both|one|the same|also|and)\b/i;
 /** A short line naming a place with no verb ("Basement bar area", "Primary bath:"). */
-const MAX_LABEL_WORDS = 6;
+const MAX_LABEL_WORDS = 5;
+const VERB = /\b(?:is|are|was|were|has|have|had|be|been)\b/i;
 
 /**
  * Reads the findings of one block (item, bullet or paragraph): per sentence, the defect phrases,
@@ -73,7 +74,7 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
     });
     found.push(...inSentence);
     const place = lastPlaceNamed(sentence.text);
-    const isLabel = matches.length === 0 && sentence.text.split(/\s+/).length <= MAX_LABEL_WORDS;
+    const isLabel = matches.length === 0 && sentence.text.split(/\s+/).length <= MAX_LABEL_WORDS && !VERB.test(sentence.text);
     if (place) previous = { place, isLabel };
   }
   return { findings: keepDistinct(found), hasNegated };

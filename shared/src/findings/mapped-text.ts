@@ -17,7 +17,7 @@ export class MappedTextBuilder {
   appendSource(source: string, from: number, to: number): void {
     for (let i = from; i < to; i++) {
       const ch = source[i] === '\t' ? ';' : source[i];
-      if (ch === ' ' && (this.chars.length === 0 || /[\s;]$/.test(this.last()))) continue;
+      if (ch === ' ' && (this.chars.length === 0 || /\s$/.test(this.last()))) continue;
       this.push(ch, i);
     }
   }
