@@ -18,6 +18,8 @@ const EnvSchema = z.object({
   /** Sign-in attempts allowed per client address and window. */
   SIGN_IN_LIMIT: z.coerce.number().int().min(1).default(10),
   SIGN_IN_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
+  /** Folder where uploaded files are kept (the local storage adapter). */
+  STORAGE_DIR: z.string().default('.data/files'),
   /** Folder of the built portal served as static files. */
   PORTAL_DIST: z.string().default('dist/portal/browser'),
 });
@@ -34,6 +36,7 @@ export interface Config {
   signInLimit: number;
   signInWindowMs: number;
   portalDist: string;
+  storageDir: string;
 }
 
 /** Reads the environment; throws one readable message listing every bad or missing variable. */
@@ -56,5 +59,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     signInLimit: e.SIGN_IN_LIMIT,
     signInWindowMs: e.SIGN_IN_WINDOW_MINUTES * 60_000,
     portalDist: e.PORTAL_DIST,
+    storageDir: e.STORAGE_DIR,
   };
 }

@@ -64,3 +64,40 @@ export interface RequestStatusChangeRow {
   note: string | null;
   created_at: Date;
 }
+
+export interface LineItemRow {
+  id: number;
+  request_id: number;
+  code: string;
+  room: string;
+  location: string | null;
+  quantity: number | null;
+  evidence: string | null;
+  page: number | null;
+  severity: string;
+  nec_refs: string[];
+  status: string;
+  is_edited: boolean;
+  version: number;
+  report_file_id: number | null;
+  evidence_start: number | null;
+  evidence_end: number | null;
+  created_at: Date;
+  updated_at: Date;
+}
+
+export interface ReportFileRow {
+  id: number;
+  request_id: number;
+  sha256: string;
+  kind: 'pdf' | 'text' | 'pasted';
+  original_name: string;
+  size_bytes: number;
+  page_count: number;
+  storage_key: string;
+  pages: string[];
+  skipped_count: number;
+  skipped: unknown[];
+  uploaded_by: number | null;
+  created_at: Date;
+}

@@ -10,6 +10,7 @@ import {
   TooLargeError,
   UnauthenticatedError,
   UnprocessableError,
+  UnsupportedTypeError,
   ValidationError,
 } from '../services/errors';
 
@@ -20,6 +21,7 @@ const STATUS_BY_ERROR: [new (...args: never[]) => DomainError, number][] = [
   [NotFoundError, 404],
   [ConflictError, 409],
   [TooLargeError, 413],
+  [UnsupportedTypeError, 415],
   [UnprocessableError, 422],
 ];
 

@@ -9,6 +9,8 @@ import { createAuthRouter } from './auth.router';
 import { createContractorsRouter } from './contractors.router';
 import { createHealthRouter } from './health.router';
 import { createInvitationsRouter } from './invitations.router';
+import { createLineItemsRouter } from './line-items.router';
+import { createReportsRouter } from './reports.router';
 import { createRequestsRouter } from './requests.router';
 
 export interface RouterDeps {
@@ -26,6 +28,8 @@ export function createApiRouter(deps: RouterDeps): Router {
   api.use(deps.csrf.csrfSynchronisedProtection);
   api.use('/auth', createAuthRouter(deps));
   api.use('/invitations', createInvitationsRouter(deps));
+  api.use('/requests/:id/reports', createReportsRouter(deps));
+  api.use('/requests/:id/items', createLineItemsRouter(deps));
   api.use('/requests', createRequestsRouter(deps));
   api.use('/admin', createAdminRouter(deps));
   api.use('/contractors', createContractorsRouter(deps));

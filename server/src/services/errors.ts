@@ -25,3 +25,5 @@ export class UnprocessableError extends DomainError {}
 export class ValidationError extends DomainError {}
 /** Upload or body larger than allowed. */
 export class TooLargeError extends DomainError {}
+/** The upload is not of a kind the endpoint takes. */
+export class UnsupportedTypeError extends DomainError {}

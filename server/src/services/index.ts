@@ -1,12 +1,18 @@
 import type { Config } from '../config/config';
 import type { Db } from '../db/knex';
+import { LineItemRepository } from '../db/line-item.repository';
 import { OrganisationRepository } from '../db/organisation.repository';
+import { ReportFileRepository } from '../db/report-file.repository';
 import { RequestRepository } from '../db/request.repository';
 import { UserRepository } from '../db/user.repository';
 import { AdminService } from './admin.service';
 import { AuthService } from './auth.service';
+import { LocalFileStorage } from '../integrations/storage/local-file-storage';
 import { InvitationsService } from './invitations.service';
+import { LineItemsService } from './line-items.service';
 import { Passwords } from './passwords';
+import { readPdfPages } from './report-intake';
+import { ReportIntakeService } from './report-intake.service';
 import { RequestsService } from './requests.service';
 
 /** Builds every repository and service of the app from one database handle and the config. */
@@ -14,13 +20,20 @@ export function createServices(db: Db, config: Config) {
   const users = new UserRepository(db);
   const organisations = new OrganisationRepository(db);
   const requests = new RequestRepository(db);
+  const items = new LineItemRepository(db);
+  const reports = new ReportFileRepository(db);
   const passwords = new Passwords(config.bcryptRounds);
+  const storage = new LocalFileStorage(config.storageDir);
+  const requestsService = new RequestsService(db, requests, users, organisations, config.publicUrl);
   return {
-    repositories: { users, organisations, requests },
+    repositories: { users, organisations, requests, items, reports },
+    storage,
     auth: new AuthService(users, passwords),
     admin: new AdminService(users, organisations, passwords),
-    requests: new RequestsService(db, requests, users, organisations, config.publicUrl),
+    requests: requestsService,
     invitations: new InvitationsService(db, requests, users, passwords),
+    reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, readPdfPages),
+    lineItems: new LineItemsService(db, requestsService, requests, items, reports),
   };
 }
 

@@ -1,0 +1,156 @@
+import { createTestApp, type TestApp } from '../helpers/test-app';
+import { createUser, resetDatabase, signIn, validRequestBody, type SignedIn } from '../helpers/fixtures';
+
+// Written for this test: three defects in three rooms, in an inspector's plain style.
+const REPORT = [
+  'ELECTRICAL',
+  'The garage receptacles are not GFCI protected.',
+  'Open ground at three receptacles in the living room.',
+  'A double tapped breaker was observed in the main panel.',
+].join('\n');
+
+let t: TestApp;
+let agent: SignedIn;
+let inspector: SignedIn;
+let seller: SignedIn;
+let outsider: SignedIn;
+
+beforeAll(async () => {
+  t = createTestApp({ STORAGE_DIR: '/tmp/cc-items-api-files' });
+  await resetDatabase(t.db);
+  [agent, inspector, seller, outsider] = await Promise.all(
+    [await createUser(t.db, 'agent'), await createUser(t.db, 'inspector'), await createUser(t.db, 'seller'), await createUser(t.db, 'agent')].map((u) => signIn(t.app, u)),
+  );
+});
+afterAll(() => t.close());
+
+interface Item { id: number; code: string; room: string; quantity: number | null; version: number; status: string; location: string; evidence: string | null; page: number | null }
+
+async function requestWithItems(): Promise<{ id: number; items: Item[]; reportId: number }> {
+  const created = await agent.agent.post('/api/requests').set('x-csrf-token', agent.csrfToken).send(validRequestBody({ inspectorEmail: inspector.user.email, sellerEmail: seller.user.email }));
+  const id = created.body.id;
+  const up = await agent.agent.post(`/api/requests/${id}/reports/paste`).set('x-csrf-token', agent.csrfToken).send({ text: `${REPORT}\n(${id})` });
+  expect(up.status).toBe(201);
+  const items = (await agent.agent.get(`/api/requests/${id}/items`)).body;
+  return { id, items, reportId: up.body.report.id };
+}
+const find = (items: Item[], code: string) => items.find((i) => i.code === code)!;
+
+describe('GET /api/requests/:id/items', () => {
+  it('lists the proposals with labels for codes and edition notes where they apply', async () => {
+    const { id, items } = await requestWithItems();
+    expect(items.map((i) => i.code).sort()).toEqual(['double-tap', 'gfci-missing', 'open-ground']);
+    expect(find(items, 'open-ground')).toMatchObject({ room: 'living-area', quantity: 3 });
+    const gfci = (await agent.agent.get(`/api/requests/${id}/items`)).body.find((i: Item) => i.code === 'gfci-missing');
+    // NFPA 70 210.8(A): garages have required GFCI protection since well before 2017 (trade-reference §2.1).
+    expect(gfci.editionNote).toMatchObject({ requiredByAdoptedEdition: true });
+    expect(gfci.editionNote.requiredSince).toBeLessThanOrEqual(2017);
+    await seller.agent.get(`/api/requests/${id}/items`).expect(200);
+    await outsider.agent.get(`/api/requests/${id}/items`).expect(404);
+  });
+});
+
+describe('PATCH /api/requests/:id/items/:itemId', () => {
+  it('edits, marks the item edited, and bumps its version', async () => {
+    const { id, items } = await requestWithItems();
+    const item = find(items, 'gfci-missing');
+    const res = await agent.agent.patch(`/api/requests/${id}/items/${item.id}`).set('x-csrf-token', agent.csrfToken).send({ version: item.version, quantity: 2, location: 'garage, both walls' });
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ quantity: 2, location: 'garage, both walls', isEdited: true, version: item.version + 1 });
+  });
+
+  it('responds 409 to a stale version and keeps the first writer’s change', async () => {
+    const { id, items } = await requestWithItems();
+    const item = find(items, 'double-tap');
+    await agent.agent.patch(`/api/requests/${id}/items/${item.id}`).set('x-csrf-token', agent.csrfToken).send({ version: item.version, location: 'first writer' }).expect(200);
+    const second = await agent.agent.patch(`/api/requests/${id}/items/${item.id}`).set('x-csrf-token', agent.csrfToken).send({ version: item.version, location: 'second writer' });
+    expect(second.status).toBe(409);
+    expect(second.body.error).toMatch(/changed by someone else/);
+    const now = (await agent.agent.get(`/api/requests/${id}/items`)).body.find((i: Item) => i.id === item.id);
+    expect(now.location).toBe('first writer');
+  });
+
+  it('responds 400 for bad fields, 403 to the inspector and seller, 404 to an outsider or another request’s item', async () => {
+    const { id, items } = await requestWithItems();
+    const other = await requestWithItems();
+    const item = items[0];
+    const bad = await agent.agent.patch(`/api/requests/${id}/items/${item.id}`).set('x-csrf-token', agent.csrfToken).send({ version: item.version, code: 'loose-wire', quantity: 0 });
+    expect(bad.status).toBe(400);
+    expect(bad.body.details.map((d: { path: string }) => d.path).sort()).toEqual(['code', 'quantity']);
+    await inspector.agent.patch(`/api/requests/${id}/items/${item.id}`).set('x-csrf-token', inspector.csrfToken).send({ version: item.version, quantity: 1 }).expect(403);
+    await seller.agent.patch(`/api/requests/${id}/items/${item.id}`).set('x-csrf-token', seller.csrfToken).send({ version: item.version, quantity: 1 }).expect(403);
+    await outsider.agent.patch(`/api/requests/${id}/items/${item.id}`).set('x-csrf-token', outsider.csrfToken).send({ version: item.version, quantity: 1 }).expect(404);
+    await agent.agent.patch(`/api/requests/${id}/items/${other.items[0].id}`).set('x-csrf-token', agent.csrfToken).send({ version: 1, quantity: 1 }).expect(404);
+  });
+});
+
+describe('merge, split, add, remove', () => {
+  it('merges two items into the first, adding quantities', async () => {
+    const { id, items } = await requestWithItems();
+    const a = find(items, 'open-ground');
+    const added = (await agent.agent.post(`/api/requests/${id}/items`).set('x-csrf-token', agent.csrfToken).send({ code: 'open-ground', room: 'bedroom', location: 'front bedroom', quantity: 2 })).body;
+    const res = await agent.agent.post(`/api/requests/${id}/items/merge`).set('x-csrf-token', agent.csrfToken).send({ items: [{ id: a.id, version: a.version }, { id: added.id, version: added.version }] });
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ id: a.id, quantity: 5 });
+    const after = (await agent.agent.get(`/api/requests/${id}/items`)).body;
+    expect(after.some((i: Item) => i.id === added.id)).toBe(false);
+  });
+
+  it('splits an item whose parts add up, and refuses parts that do not', async () => {
+    const { id, items } = await requestWithItems();
+    const item = find(items, 'open-ground');
+    const wrong = await agent.agent.post(`/api/requests/${id}/items/${item.id}/split`).set('x-csrf-token', agent.csrfToken).send({ version: item.version, quantities: [1, 1] });
+    expect(wrong.status).toBe(400);
+    expect(wrong.body.details[0].path).toBe('quantities');
+    const res = await agent.agent.post(`/api/requests/${id}/items/${item.id}/split`).set('x-csrf-token', agent.csrfToken).send({ version: item.version, quantities: [2, 1] });
+    expect(res.status).toBe(200);
+    expect(res.body.map((i: Item) => i.quantity)).toEqual([2, 1]);
+    expect(res.body[1]).toMatchObject({ code: 'open-ground', evidence: item.evidence });
+  });
+
+  it('adds an item from selected report text, with its evidence and page', async () => {
+    const { id, reportId } = await requestWithItems();
+    const report = (await agent.agent.get(`/api/requests/${id}/reports`)).body[0];
+    const text: string = report.pages.join('\f');
+    const start = text.indexOf('double tapped');
+    const res = await agent.agent
+      .post(`/api/requests/${id}/items`)
+      .set('x-csrf-token', agent.csrfToken)
+      .send({ code: 'panel-deficiency', room: 'panel', reportFileId: reportId, evidenceStart: start, evidenceEnd: start + 13 });
+    expect(res.status).toBe(201);
+    expect(res.body).toMatchObject({ evidence: 'double tapped', page: 1, status: 'proposed', isEdited: true, severity: 'repair' });
+    const outside = await agent.agent.post(`/api/requests/${id}/items`).set('x-csrf-token', agent.csrfToken).send({ code: 'panel-deficiency', room: 'panel', reportFileId: reportId, evidenceStart: 0, evidenceEnd: 999_999 });
+    expect(outside.status).toBe(400);
+    expect(outside.body.details[0].path).toBe('evidenceEnd');
+  });
+});
+
+describe('POST /api/requests/:id/items/confirm', () => {
+  it('turns every proposal into an open line item and moves the request to pricing', async () => {
+    const { id, items } = await requestWithItems();
+    const res = await agent.agent.post(`/api/requests/${id}/items/confirm`).set('x-csrf-token', agent.csrfToken).send({ items: items.map((i) => ({ id: i.id, version: i.version })) });
+    expect(res.status).toBe(200);
+    expect(res.body.every((i: Item) => i.status === 'open')).toBe(true);
+    const detail = await agent.agent.get(`/api/requests/${id}`);
+    expect(detail.body.status).toBe('pricing');
+    expect(detail.body.itemCount).toBe(3);
+    expect(detail.body.history.at(-1)).toMatchObject({ from: 'intake', to: 'pricing' });
+    // After confirmation the review is closed.
+    const late = await agent.agent.patch(`/api/requests/${id}/items/${items[0].id}`).set('x-csrf-token', agent.csrfToken).send({ version: items[0].version + 1, quantity: 1 });
+    expect(late.status).toBe(409);
+  });
+
+  it('responds 409 when the list changed since it was loaded, and confirms nothing', async () => {
+    const { id, items } = await requestWithItems();
+    const res = await agent.agent.post(`/api/requests/${id}/items/confirm`).set('x-csrf-token', agent.csrfToken).send({ items: items.slice(1).map((i) => ({ id: i.id, version: i.version })) });
+    expect(res.status).toBe(409);
+    const after = (await agent.agent.get(`/api/requests/${id}/items`)).body;
+    expect(after.every((i: Item) => i.status === 'proposed')).toBe(true);
+    expect((await agent.agent.get(`/api/requests/${id}`)).body.status).toBe('intake');
+  });
+
+  it('responds 403 to the inspector', async () => {
+    const { id, items } = await requestWithItems();
+    await inspector.agent.post(`/api/requests/${id}/items/confirm`).set('x-csrf-token', inspector.csrfToken).send({ items: items.map((i) => ({ id: i.id, version: i.version })) }).expect(403);
+  });
+});
