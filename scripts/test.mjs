@@ -2,7 +2,7 @@
 // `npm test`: every check of the project against a throwaway PostgreSQL cluster.
 // Order: type check of every TypeScript project → unit + component tests → API tests → portal build →
 // browser tests. Ends with one line `N passed, N failed` over all of them; exits non-zero on any failure.
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { chmodSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -44,6 +44,7 @@ async function jest(name, projects, env, extra = []) {
 }
 
 const workDir = mkdtempSync(join(tmpdir(), 'cc-test-'));
+chmodSync(workDir, 0o755); // the postgres user must reach the cluster folder inside
 const pgPort = await freePort();
 console.log(`• Throwaway PostgreSQL on 127.0.0.1:${pgPort}`);
 const cluster = startCluster({ dataDir: join(workDir, 'pg'), port: pgPort, throwaway: true });
@@ -76,8 +77,11 @@ try {
     record(`tsc ${project}`, code === 0 ? 1 : 0, code === 0 ? 0 : 1);
   }
 
-  console.log('\n## Unit and component tests');
-  await jest('unit+portal', ['unit', 'portal'], env);
+  // Separate runs: pdf.js (unit project) installs globals in its worker that break jsdom's set-up.
+  console.log('\n## Unit tests');
+  await jest('unit', ['unit'], env);
+  console.log('\n## Component tests (portal)');
+  await jest('portal', ['portal'], env);
 
   console.log('\n## API tests (real PostgreSQL)');
   run(bin('tsx'), ['scripts/db-setup.ts', '--seed=never'], { cwd: root, env: apiEnv });
