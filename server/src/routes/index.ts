@@ -10,6 +10,7 @@ import { createContractorsRouter } from './contractors.router';
 import { createHealthRouter } from './health.router';
 import { createInvitationsRouter } from './invitations.router';
 import { createLineItemsRouter } from './line-items.router';
+import { createRateBookRouter } from './rate-book.router';
 import { createReportsRouter } from './reports.router';
 import { createRequestsRouter } from './requests.router';
 
@@ -33,5 +34,6 @@ export function createApiRouter(deps: RouterDeps): Router {
   api.use('/requests', createRequestsRouter(deps));
   api.use('/admin', createAdminRouter(deps));
   api.use('/contractors', createContractorsRouter(deps));
+  api.use('/rate-book', createRateBookRouter(deps));
   return api;
 }

@@ -2,6 +2,7 @@ import type { Config } from '../config/config';
 import type { Db } from '../db/knex';
 import { LineItemRepository } from '../db/line-item.repository';
 import { OrganisationRepository } from '../db/organisation.repository';
+import { RateBookRepository } from '../db/rate-book.repository';
 import { ReportFileRepository } from '../db/report-file.repository';
 import { RequestRepository } from '../db/request.repository';
 import { UserRepository } from '../db/user.repository';
@@ -11,6 +12,7 @@ import { LocalFileStorage } from '../integrations/storage/local-file-storage';
 import { InvitationsService } from './invitations.service';
 import { LineItemsService } from './line-items.service';
 import { Passwords } from './passwords';
+import { RateBookService } from './rate-book.service';
 import { readPdfPages } from './report-intake';
 import { ReportIntakeService } from './report-intake.service';
 import { RequestsService } from './requests.service';
@@ -25,6 +27,8 @@ export function createServices(db: Db, config: Config) {
   const passwords = new Passwords(config.bcryptRounds);
   const storage = new LocalFileStorage(config.storageDir);
   const requestsService = new RequestsService(db, requests, users, organisations, config.publicUrl);
+  const rateBooks = new RateBookRepository(db);
+  const rateBookService = new RateBookService(db, rateBooks, organisations);
   return {
     repositories: { users, organisations, requests, items, reports },
     storage,
@@ -34,6 +38,7 @@ export function createServices(db: Db, config: Config) {
     invitations: new InvitationsService(db, requests, users, passwords),
     reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, readPdfPages),
     lineItems: new LineItemsService(db, requestsService, requests, items, reports),
+    rateBook: rateBookService,
   };
 }
 
