@@ -66,6 +66,7 @@ try {
     CHROMIUM_PATH: chromium,
     SESSION_SECRET: 'test-secret-that-is-only-used-by-the-test-suite',
     BCRYPT_ROUNDS: '4',
+    STORAGE_DIR: join(workDir, 'files'),
   };
   const apiEnv = { ...env, DATABASE_URL: cluster.url('cc_api') };
   const browserEnv = { ...env, DATABASE_URL: cluster.url('cc_browser') };
