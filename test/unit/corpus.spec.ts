@@ -1,4 +1,7 @@
 import { FindingSchema, joinPages } from '@cc/shared';
+import { splitBlocks } from '../../shared/src/findings/block-splitter';
+import { matchCodes } from '../../shared/src/findings/code-matcher';
+import { splitSentences } from '../../shared/src/findings/sentence-splitter';
 import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 
 // The corpus: hand-written, hand-labelled report excerpts (test/corpus/excerpts, labels in
@@ -31,5 +34,15 @@ describe('report parser corpus', () => {
     console.log(formatScoreTable(run.score));
     expect(run.score.precision).toBeGreaterThanOrEqual(MIN_PRECISION);
     expect(run.score.recall).toBeGreaterThanOrEqual(MIN_RECALL);
+  });
+
+  // Each code's trigger words let the matcher skip sentences that cannot hold its phrases; on
+  // every corpus sentence, skipping must change no result.
+  it('finds the same phrases with and without the trigger-word shortcut', () => {
+    const sentences = run.results.flatMap(({ text }) => splitBlocks(text).flatMap((b) => splitSentences(b.text)));
+    expect(sentences.length).toBeGreaterThan(200);
+    const summary = (s: string, ignoreTriggers: boolean) =>
+      matchCodes(s, { ignoreTriggers }).map((m) => `${m.rule.code}@${m.start}-${m.end}`);
+    for (const { text } of sentences) expect([text, ...summary(text, false)]).toEqual([text, ...summary(text, true)]);
   });
 });

@@ -3,6 +3,7 @@ import type { FindingCode } from './finding-code';
 import type { MappedText } from './mapped-text';
 import { negatedSpans } from './negation-detector';
 import { readQuantity } from './quantity-reader';
+import { findRooms } from './room-lexicon';
 import type { Room } from './room';
 import { lastPlaceNamed, placeMatches, type CarriedPlace } from './room-resolver';
 import type { Section } from './block-splitter';
@@ -48,11 +49,8 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
     const live = matches.filter((_, i) => !negated[i]);
     hasNegated ||= live.length < matches.length;
     const carried = previous && (previous.isLabel || REFERS_BACK.test(sentence.text)) ? previous.place : null;
-    const placements = placeMatches(sentence.text, live, {
-      carried,
-      sectionRoom: section.room,
-      sectionTitle: section.title,
-    });
+    const rooms = findRooms(sentence.text);
+    const placements = placeMatches(sentence.text, live, { carried, sectionRoom: section.room, sectionTitle: section.title }, rooms);
     const inSentence: BlockFinding[] = [];
     live.forEach((match, i) => {
       for (const place of placements[i]) {
@@ -73,7 +71,7 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
       }
     });
     found.push(...inSentence);
-    const place = lastPlaceNamed(sentence.text);
+    const place = lastPlaceNamed(sentence.text, rooms);
     const isLabel = matches.length === 0 && sentence.text.split(/\s+/).length <= MAX_LABEL_WORDS && !VERB.test(sentence.text);
     if (place) previous = { place, isLabel };
   }

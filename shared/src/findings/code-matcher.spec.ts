@@ -67,3 +67,4 @@ describe('matchCodes', () => {
     expect(codesOf('All accessible GFCI devices tripped and reset as intended.')).toEqual([]);
   });
 });
+

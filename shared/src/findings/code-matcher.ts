@@ -11,9 +11,15 @@ export interface CodeMatch {
 
 const TABLE_ORDER = new Map(FINDING_CODES.map((code, i) => [code, i]));
 
-function allMatches(sentence: string): CodeMatch[] {
+export interface MatchOptions {
+  /** Whether to try every phrase even where the code's trigger words are absent (for checks). */
+  readonly ignoreTriggers?: boolean;
+}
+
+function allMatches(sentence: string, options: MatchOptions): CodeMatch[] {
   const found: CodeMatch[] = [];
   for (const rule of CODE_RULES) {
+    if (!options.ignoreTriggers && !rule.trigger.test(sentence)) continue;
     for (const pattern of rule.patterns) {
       if (pattern.context && !pattern.context.test(sentence)) continue;
       if (pattern.unless && pattern.unless.test(sentence)) continue;
@@ -35,8 +41,8 @@ function allMatches(sentence: string): CodeMatch[] {
  * its code yields to another code found in the same sentence (GFCI offered as the remedy for an
  * open ground is not a missing-GFCI finding).
  */
-export function matchCodes(sentence: string): CodeMatch[] {
-  const ranked = allMatches(sentence).sort(
+export function matchCodes(sentence: string, options: MatchOptions = {}): CodeMatch[] {
+  const ranked = allMatches(sentence, options).sort(
     (a, b) =>
       b.end - b.start - (a.end - a.start) ||
       (TABLE_ORDER.get(a.rule.code) ?? 0) - (TABLE_ORDER.get(b.rule.code) ?? 0) ||

@@ -22,6 +22,11 @@ export interface CodePattern {
 
 export interface CodeRule {
   readonly code: FindingCode;
+  /**
+   * Words every phrase of the code contains (at least one of them). Sentences without any are
+   * skipped for speed; code-matcher.spec.ts checks on the corpus that skipping changes nothing.
+   */
+  readonly trigger: RegExp;
   readonly patterns: readonly CodePattern[];
   /** Recommendation-only matches of this code are dropped when the sentence has one of these codes. */
   readonly yieldsTo?: readonly FindingCode[];
@@ -52,6 +57,7 @@ function isOversized(m: RegExpExecArray): boolean {
 export const CODE_RULES: readonly CodeRule[] = [
   {
     code: 'gfci-missing',
+    trigger: /gfc?i|gcfi|ground[- ]fault/i,
     yieldsTo: ['gfci-inoperative', 'open-ground', 'false-ground', 'knob-and-tube'],
     patterns: [
       { re: rx`(?:${T.NO}|not|non-?|neither\s+${gap(3)}(?:has|have|is|are))\s*${PF}${T.GFCI}` },
@@ -63,6 +69,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'gfci-inoperative',
+    trigger: /gfc?i|gcfi|ground[- ]fault|trip|reset/i,
     patterns: [
       { re: rx`${T.GFCI}\s+${anyGap(7)}${T.FAILED}\s+(?:properly\s+)?(?:trip|reset|respond|function|operate|work)` },
       { re: rx`${T.GFCI}(?:\s+${T.RCPT})?\s+${gap(4)}${T.BE}(?:${T.INOPERATIVE}|worn(?: out)?|at end of life|end[- ]of[- ]life|not (?:tripping|resetting))` },
@@ -72,6 +79,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'afci-missing',
+    trigger: /afc?i|arc[- ]fault/i,
     patterns: [
       { re: rx`(?:${T.NO}|not|non-?)\s*${PF}${T.AFCI}` },
       { re: rx`${T.AFCI}(?:\s+(?:protection|protected|breakers?|${T.RCPT}))?\s+${T.BE}${T.ABSENT}` },
@@ -80,6 +88,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'reversed-polarity',
+    trigger: /polarity|revers|swapped|transposed|\brp\b/i,
     patterns: [
       { re: rx`rev(?:erse[ds]?|\.)?\s*[- ]?polarity` },
       { re: rx`polarity\s+${T.BE}(?:reversed|incorrect|wrong)` },
@@ -89,6 +98,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'open-ground',
+    trigger: /ground|ungr/i,
     patterns: [
       { re: rx`open(?:\s+equipment)?\s+grounds?(?:ed)?\b(?!\s*fault)` },
       { re: rx`(?:ungrounded|ungrnd|ungr'?d)\s+(?:(?:three|3)[- ](?:prong|slot|hole)\s+)?${gap(2)}${T.RCPT}` },
@@ -100,6 +110,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'false-ground',
+    trigger: /ground/i,
     yieldsTo: ['subpanel-bonding'],
     patterns: [
       { re: rx`(?:bootleg(?:ged)?|false|fake)\s+ground(?:s|ed|ing)?\b` },
@@ -108,6 +119,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'receptacle-damaged',
+    trigger: /rec[ei]p|rcp|outlet|duplex|device|plug|cord|tension|grip|contacts/i,
     patterns: [
       { re: rx`(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?:[- ]over)?|worn|discolou?red|heat[- ]damaged|dead|${T.INOPERATIVE})\s+${gap(3)}${T.RCPT}` },
       { re: rx`${T.RCPT}\s+${gap(5)}${T.BE}(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?: over)?|worn|discolou?red|dead|${T.INOPERATIVE}|not (?:energized|powered|secured|secure|fastened)|pulled (?:out|away)|recessed)` },
@@ -121,6 +133,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'weather-cover-missing',
+    trigger: /cover|hood|lid|flap|enclosure|\bw[rp]\b|weather/i,
     defaultRoom: 'exterior',
     patterns: [
       { re: rx`(?:${T.NO}|${T.BROKEN})\s+(?:(?:an?|the|its|proper|required)\s+)?(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant|[- ]tight)?|wp|wr|exterior|outdoor)[- ]?(?:rated\s+)?(?:covers?|cover plates?|enclosures?|hoods?|lids?|flaps?)` },
@@ -131,6 +144,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'cover-plate-missing',
+    trigger: /plate|cover/i,
     patterns: [
       { re: rx`(?:${T.NO}|broken|cracked|damaged)\s+(?:(?:the|a|an|any)\s+)?(?:(?:switch|${T.RCPT}|light|blank)\s+)?${T.PLATE}`, unless: JBOX_WORD },
       { re: rx`${T.PLATE}\s+${gap(4)}${T.BE}(?:${T.ABSENT}|broken|cracked|damaged)`, unless: JBOX_WORD },
@@ -139,6 +153,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'open-junction-box',
+    trigger: /box|splice|wire nut/i,
     patterns: [
       { re: rx`(?:open|uncovered|unenclosed)\s+(?:${T.JBOX}|box(?:es)?\b)` },
       { re: rx`${T.JBOX}\s+${gap(4)}(?:(?:has|have|had|with|is|are|was|were)\s+)?(?:no|missing|without|lacks?|lacking|open|uncovered|not covered)(?:\s+(?:a|its|the|blank))?(?:\s+(?:covers?|lids?|plates?))?` },
@@ -150,6 +165,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'exposed-wiring',
+    trigger: /wir|cable|conductor|\bnm\b|romex|cord/i,
     patterns: [
       { re: rx`(?:exposed|unprotected|unsecured|loose|dangling|hanging|unsupported|unstapled|frayed)(?:,?\s+(?:dangling|hanging|unsecured|loose|exposed))?\s+(?:(?:nm|romex|electrical|branch(?: circuit)?|sheathed|non-?metallic(?:[- ]sheathed)?)\s+)?(?:wir(?:e|es|ing)|cables?|nm(?:-b)?|romex)\b` },
       { re: rx`${T.WIRING}\s+${gap(4)}${T.BE}(?:exposed|unprotected|unsecured|loose|not (?:secured|supported|protected|stapled|strapped)|dangling|hanging|lying|draped|subject to (?:physical )?damage|within reach)` },
@@ -160,6 +176,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'double-tap',
+    trigger: /tap|lug|terminal|screw|breaker/i,
     fixedRoom: 'panel',
     patterns: [
       { re: rx`(?:doubled?|dbl\.?|dual|twin)[- ]?tap(?:s|ped|ping|ed)?\b` },
@@ -169,6 +186,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'overcurrent-mismatch',
+    trigger: /breaker|brkr|bkr|ocpd|fuse|overcurrent|undersized/i,
     fixedRoom: 'panel',
     patterns: [
       { re: rx`(?:oversized?|over-sized|over-?fused|mismatched|incorrectly sized|wrong(?:ly sized)?|improperly sized)\s+${gap(2)}${T.BREAKER}` },
@@ -186,6 +204,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'panel-deficiency',
+    trigger: /dead[- ]?front|panel|cover|screw|knockout|k\.?o|slot|opening|filler|blank|directory|legend|label|identif|unmarked|corro|rust|moisture|stain|clearance|access|space|blocked|obstruct/i,
     fixedRoom: 'panel',
     patterns: [
       { re: rx`${T.NO}\s+${gap(2)}(?:dead[- ]?front|panel cover|inner cover|interior cover)(?:\s+screws?)?` },
@@ -208,6 +227,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'subpanel-bonding',
+    trigger: /neutral|ground|bond|green|egc/i,
     fixedRoom: 'panel',
     patterns: [
       { re: rx`(?:neutrals?|grounds?)(?:\s+(?:conductors?|wires?))?\s+(?:and|&)\s+(?:neutrals?|grounds?|grounding|equipment grounds?)(?:\s+(?:conductors?|wires?))?\s+${gap(3)}(?:share|sharing|are on|on the same|together|combined|commingled|mixed|${T.BE}not (?:separated|isolated))` },
@@ -219,6 +239,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'grounding-electrode',
+    trigger: /ground|gec|bond|electrode/i,
     patterns: [
       { re: rx`(?:${T.NO}|loose|disconnected|damaged|broken|cut|corroded|inadequate|improper)\s+(?:(?:a|an|the)\s+)?${gap(2)}(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|water (?:pipe |line )?bond(?:ing)?(?: jumper)?|gas (?:pipe |line )?bond(?:ing)?|bonding (?:jumper|conductor|clamp|wire))` },
       { re: rx`(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|bonding (?:jumper|clamp|conductor))\s+${gap(3)}${T.BE}(?:${T.ABSENT}|loose|disconnected|damaged|cut|broken|corroded|not (?:connected|attached|bonded|secured)|undersized|inadequate)` },
@@ -228,6 +249,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'smoke-co-alarm',
+    trigger: /smoke|alarm|detector|carbon monoxide|unit|device/i,
     defaultRoom: 'whole-house',
     patterns: [
       { re: rx`(?:${T.NO}|${T.INOPERATIVE}|expired|outdated|dated|disconnected|removed|chirping)\s+${gap(2)}${T.SMOKE}` },
@@ -238,6 +260,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'light-fixture',
+    trigger: /light|fixture|luminaire|chandelier|pendant|sconce|globe|lens|shade|diffuser|bulb|lamp|insulation/i,
     patterns: [
       { re: rx`${T.LIGHT}\s+${gap(5)}${T.BE}(?:${T.INOPERATIVE}|loose|dangling|hanging|not (?:secured|secure|attached|mounted)|${T.FAILED} (?:operate|work|respond|turn on|come on)|in contact with (?:the\s+)?insulation|covered (?:by|with) insulation|not (?:rated|listed|suitable|approved) for (?:a |the )?(?:wet|damp))` },
       { re: rx`(?:${T.INOPERATIVE}|loose|dangling|damaged|broken)\s+${gap(2)}${T.LIGHT}` },
@@ -248,6 +271,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'fan-support',
+    trigger: /fan/i,
     patterns: [
       { re: rx`(?:ceiling\s+)?fans?\s+${gap(4)}(?:wobbl\w*|shak(?:es|ing|y)|sways?|swaying|unstable|${T.BE}(?:loose|not (?:secured|supported|properly (?:supported|secured|mounted))|improperly (?:mounted|supported|secured)))` },
       { re: rx`(?:ceiling\s+)?fans?\s+${gap(2)}${T.BE}(?:mounted|installed|hung|supported)\s+(?:on|to|from|by)\s+(?:a|an|the)?\s*(?:standard|non-?fan[- ]rated|light(?:ing)?|plastic|pancake|junction|ordinary)\s+(?:fixture\s+|outlet\s+|light\s+)?box` },
@@ -257,6 +281,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'switch-issue',
+    trigger: /switch/i,
     patterns: [
       { re: rx`${T.SWITCH}\s+${gap(5)}${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|(?:warm|hot) to the touch|warm|hot|sparks?|sparking|arcing|${T.FAILED} (?:operate|work|respond|control))` },
       { re: rx`${T.SWITCH}\s+${gap(7)}(?:(?:has|have|had|of|with|serves?)\s+)?(?:an?\s+)?unknown (?:function|purpose|use)` },
@@ -266,6 +291,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'aluminum-branch-wiring',
+    trigger: /alum|\bal\b/i,
     defaultRoom: 'whole-house',
     patterns: [
       {
@@ -276,6 +302,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'knob-and-tube',
+    trigger: /knob|k\s?&\s?t|\bk-t\b|\bknt\b|ungrounded|two[- ]wire|2[- ]wire|cloth|fabric|rubber/i,
     defaultRoom: 'whole-house',
     patterns: [
       { re: rx`knob[- ]?(?:and|&|n|'n'?)[- ]?tube` },
@@ -285,6 +312,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'service-equipment',
+    trigger: /service|weather\s?head|drip|meter|\bse\b|seu|mast|overhead|utility|clearance/i,
     defaultRoom: 'exterior',
     patterns: [
       { re: rx`${T.SERVICE}\s+${gap(4)}${T.BE}(?:damaged|leaning|bent|loose|pulling away|detached|unsecured|not (?:secured|sealed|properly (?:secured|sealed|supported))|${T.ABSENT}|deteriorated|worn|frayed|cracked|rusted|rusting|corroded|too low|sagging|in contact with|contacting|touching|rubbing|exposed|weathered|brittle|torn|split)` },
@@ -295,6 +323,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'evaluate-general',
+    trigger: /electrician|electrical contractor/i,
     isFallbackOnly: true,
     defaultRoom: 'whole-house',
     patterns: [

@@ -1,9 +1,9 @@
 import type { Room } from './room';
 
 /**
- * The words reports use for places, and the normalised room each one means. Order matters only
- * inside one room's alternatives (longer phrases first); between rooms the earliest match in the
- * text wins and overlapping shorter matches are dropped, so "hall bath" is a bathroom, not a hallway.
+ * The words reports use for places, and the normalised room each one means. The earliest match in
+ * the text wins; at the same position the room listed first wins, so rooms whose words contain
+ * another room's word come first ("hall bath" is a bathroom, not a hallway).
  */
 const ROOM_WORDS: ReadonlyArray<readonly [Room, string]> = [
   ['bathroom', String.raw`(?:(?:hall|guest|primary|master|main|upstairs|downstairs|half|full|kids'?|jack and jill|second|upper|lower)\s+)?bath(?:room)?s?\b|powder rooms?|en-?suites?|lavatory|restrooms?|(?:tub|shower)(?:\s+(?:area|enclosure|stall))?\b|vanity`],
@@ -23,10 +23,11 @@ const ROOM_WORDS: ReadonlyArray<readonly [Room, string]> = [
   ['whole-house', String.raw`throughout(?: the (?:home|house|dwelling))?|whole[- ]house|entire (?:home|house|dwelling|electrical system|system)|all rooms|every room`],
 ];
 
-const ROOM_RES: ReadonlyArray<readonly [Room, RegExp]> = ROOM_WORDS.map(([room, src]) => [
-  room,
-  new RegExp(String.raw`(?<![\w-])(?:${src})`, 'gi'),
-]);
+/** One pass over the text: each room is a named group, tried in table order at each position. */
+const ROOM_RE = new RegExp(
+  ROOM_WORDS.map(([, src], i) => String.raw`(?<r${i}>(?<![\w-])(?:${src}))`).join('|'),
+  'gi',
+);
 
 /** A place named in the text. */
 export interface RoomMention {
@@ -43,22 +44,14 @@ const FIXTURE_AFTER = /^\s*(?:sink|counter|cabinet|vanity|island|floor|closet)/i
 
 /** Every place named in `text`, in reading order, without overlaps. */
 export function findRooms(text: string): RoomMention[] {
-  const all: RoomMention[] = [];
-  for (const [room, re] of ROOM_RES) {
-    for (const m of text.matchAll(re)) {
-      const start = m.index;
-      const end = start + m[0].length;
-      const before = text.slice(Math.max(0, start - 20), start);
-      const isReferencePoint = REFERENCE_BEFORE.test(before) && !FIXTURE_AFTER.test(text.slice(end));
-      all.push({ room, start, end, text: m[0], isReferencePoint });
-    }
+  const found: RoomMention[] = [];
+  for (const m of text.matchAll(ROOM_RE)) {
+    const i = Object.values(m.groups ?? {}).findIndex((g) => g !== undefined);
+    const start = m.index;
+    const end = start + m[0].length;
+    const before = text.slice(Math.max(0, start - 20), start);
+    const isReferencePoint = REFERENCE_BEFORE.test(before) && !FIXTURE_AFTER.test(text.slice(end));
+    found.push({ room: ROOM_WORDS[i][0], start, end, text: m[0], isReferencePoint });
   }
-  all.sort((a, b) => a.start - b.start || b.end - b.start - (a.end - a.start));
-  const kept: RoomMention[] = [];
-  for (const mention of all) {
-    const last = kept[kept.length - 1];
-    if (last && mention.start < last.end) continue;
-    kept.push(mention);
-  }
-  return kept;
+  return found;
 }

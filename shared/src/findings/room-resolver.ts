@@ -80,9 +80,14 @@ function nearest(rooms: readonly RoomMention[], before: number, after: number, w
 }
 
 /** For each match of the sentence, one placement per place it applies to. */
-export function placeMatches(text: string, matches: readonly CodeMatch[], context: PlaceContext): Placement[][] {
+export function placeMatches(
+  text: string,
+  matches: readonly CodeMatch[],
+  context: PlaceContext,
+  rooms: readonly RoomMention[] = findRooms(text),
+): Placement[][] {
+  if (matches.length === 0) return [];
   const clauses = clauseRanges(text);
-  const rooms = findRooms(text);
   const parts = segments(text, matches, clauses);
   return matches.map((match, i) => {
     const part = parts[i];
@@ -121,8 +126,8 @@ function fixedLocation(text: string, rooms: readonly RoomMention[], part: Range,
 }
 
 /** The place a later sentence of the same block can refer back to: the last one named, panels excluded. */
-export function lastPlaceNamed(text: string): CarriedPlace | null {
-  const usable = findRooms(text).filter((r) => !r.isReferencePoint && r.room !== 'panel');
+export function lastPlaceNamed(text: string, rooms: readonly RoomMention[] = findRooms(text)): CarriedPlace | null {
+  const usable = rooms.filter((r) => !r.isReferencePoint && r.room !== 'panel');
   const last = usable[usable.length - 1];
   return last ? { room: last.room, location: readLocation(text, last) } : null;
 }

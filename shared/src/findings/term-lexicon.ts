@@ -4,9 +4,12 @@
  * word is added here once and every pattern that uses the word accepts it.
  */
 
-/** Builds a case-insensitive global RegExp from a template; backslashes are kept as written. */
+/**
+ * Builds a case-insensitive global RegExp from a template; backslashes are kept as written. Every
+ * phrase starts at the start of a word, which also lets the engine skip mid-word positions fast.
+ */
 export function rx(strings: TemplateStringsArray, ...parts: string[]): RegExp {
-  return new RegExp(String.raw({ raw: strings.raw }, ...parts), 'gi');
+  return new RegExp(`(?<![\\w])(?:${String.raw({ raw: strings.raw }, ...parts)})`, 'gi');
 }
 
 /** Words that name a different device or part, so a gap between two pattern words may not cross them. */
