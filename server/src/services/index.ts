@@ -1,17 +1,21 @@
 import type { Config } from '../config/config';
 import type { Db } from '../db/knex';
+import { ItemPricingRepository } from '../db/item-pricing.repository';
 import { LineItemRepository } from '../db/line-item.repository';
 import { OrganisationRepository } from '../db/organisation.repository';
+import { QuoteRepository } from '../db/quote.repository';
 import { RateBookRepository } from '../db/rate-book.repository';
 import { ReportFileRepository } from '../db/report-file.repository';
 import { RequestRepository } from '../db/request.repository';
 import { UserRepository } from '../db/user.repository';
 import { AdminService } from './admin.service';
 import { AuthService } from './auth.service';
+import { BallparkService } from './ballpark.service';
 import { LocalFileStorage } from '../integrations/storage/local-file-storage';
 import { InvitationsService } from './invitations.service';
 import { LineItemsService } from './line-items.service';
 import { Passwords } from './passwords';
+import { PricingService } from './pricing.service';
 import { RateBookService } from './rate-book.service';
 import { readPdfPages } from './report-intake';
 import { ReportIntakeService } from './report-intake.service';
@@ -28,7 +32,10 @@ export function createServices(db: Db, config: Config) {
   const storage = new LocalFileStorage(config.storageDir);
   const requestsService = new RequestsService(db, requests, users, organisations, config.publicUrl);
   const rateBooks = new RateBookRepository(db);
+  const itemPricing = new ItemPricingRepository(db);
+  const quotes = new QuoteRepository(db);
   const rateBookService = new RateBookService(db, rateBooks, organisations);
+  const pricingService = new PricingService(db, requestsService, rateBookService, itemPricing, quotes);
   return {
     repositories: { users, organisations, requests, items, reports },
     storage,
@@ -39,6 +46,8 @@ export function createServices(db: Db, config: Config) {
     reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, readPdfPages),
     lineItems: new LineItemsService(db, requestsService, requests, items, reports),
     rateBook: rateBookService,
+    pricing: pricingService,
+    ballpark: new BallparkService(requestsService, rateBookService, itemPricing),
   };
 }
 
