@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 /** Every person who signs in has exactly one role. */
 export const ROLES = ['agent', 'seller', 'contractor', 'inspector', 'admin'] as const;

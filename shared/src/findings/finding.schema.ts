@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { FINDING_CODES, SEVERITIES, type FindingCode } from './finding-code';
 import { ROOMS } from './room';
 

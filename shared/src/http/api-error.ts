@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 /** Every error the API returns has this shape. `details` lists field problems for 400s. */
 export const ApiErrorDetailSchema = z.object({

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 export const PageQuerySchema = z.object({
   page: z.coerce.number().int().min(0).default(0),

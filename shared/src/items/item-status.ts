@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 /** States of one line item, from the parser's proposal to the inspector's acceptance. */
 export const ITEM_STATUSES = [

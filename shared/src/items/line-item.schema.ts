@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { FindingCodeSchema, RoomSchema, SeveritySchema } from '../findings/finding.schema';
 import { ItemStatusSchema } from './item-status';
 

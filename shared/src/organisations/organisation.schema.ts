@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { UsStateSchema } from '../requests/us-state';
 
 export const ORGANISATION_KINDS = ['brokerage', 'contractor', 'inspection-company', 'platform'] as const;

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 /** A ballpark asks for a range from finding codes before a contractor prices anything. */
 export const BallparkRequestSchema = z.object({

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 /** What the engine returns: every line's figures and the totals of each visit and of the quote. */
 

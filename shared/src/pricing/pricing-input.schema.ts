@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 /** What the engine prices: lines that name rate-book entries, grouped into visits. */
 

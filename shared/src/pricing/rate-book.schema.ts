@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 /**
  * A contractor organisation's rate book: its visit terms, its priced entries (one or more per

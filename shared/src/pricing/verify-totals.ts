@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { MONEY_TOTAL_FIELDS, MoneyTotalsSchema, type QuoteBreakdown } from './pricing-breakdown.schema';
 import { priceQuote, type QuoteToPrice } from './price-quote';
 import type { RateBook } from './rate-book.schema';

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { ClaimedTotalsSchema } from '../pricing/verify-totals';
 import { PricingVisitSchema, RequestPricingSchema, VisitKeySchema } from './request-pricing.schema';
 

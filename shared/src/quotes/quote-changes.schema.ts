@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 const line = z.object({
   lineItemId: z.number().int().nullable(),

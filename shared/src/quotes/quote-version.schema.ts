@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { QuoteBreakdownSchema } from '../pricing/pricing-breakdown.schema';
 import { ClaimedTotalsSchema } from '../pricing/verify-totals';
 import { QuoteChangesSchema } from './quote-changes.schema';

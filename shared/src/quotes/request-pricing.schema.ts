@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { ItemStatusSchema } from '../items/item-status';
 import { QuoteBreakdownSchema } from '../pricing/pricing-breakdown.schema';
 import { QuoteSchema } from '../pricing/pricing-input.schema';

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { BallparkSchema } from '../pricing/ballpark.schema';
 import { AdderEffectSchema } from '../pricing/rate-book.schema';
 

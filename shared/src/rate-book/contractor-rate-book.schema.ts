@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { RateBookEntryRecordSchema } from './rate-book-entry.schema';
 import { RateBookTermsRecordSchema } from './rate-book-terms.schema';
 import { SiteAdderRecordSchema } from './site-adder-record.schema';

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 export const RATE_BOOK_SUBJECTS = ['terms', 'entry', 'adder'] as const;
 export const RATE_BOOK_ACTIONS = ['create', 'update', 'delete', 'import'] as const;

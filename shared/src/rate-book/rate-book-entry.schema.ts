@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { EntryCodeSchema, EntryPricingSchema, RateBookEntrySchema } from '../pricing/rate-book.schema';
 
 /** The contractor's short name of an entry or adder: lower-case words joined by hyphens. */

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 /** What an import of entries from CSV did. Rows match entries by `key`; entries not in the file stay. */
 export const RateBookImportResultSchema = z.object({

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { VisitTermsSchema } from '../pricing/rate-book.schema';
 
 /** The visit terms of a rate book with their version. */

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { AdderEffectSchema, SiteAdderSchema } from '../pricing/rate-book.schema';
 import { RateBookKeySchema } from './rate-book-entry.schema';
 

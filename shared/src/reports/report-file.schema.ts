@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { SkippedTextSchema } from '../findings/finding.schema';
 
 /** Most pages a report excerpt may have; longer uploads are refused before anything is kept. */

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import type { UsState } from './us-state';
 
 /** NFPA 70 (National Electrical Code) editions a request can be assessed against. */

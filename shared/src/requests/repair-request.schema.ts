@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { PageQuerySchema } from '../http/page';
 import { NecEditionSchema } from './nec-edition';
 import { RequestStatusSchema } from './request-status';

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 /** States of a repair request, in the order a request normally moves through them. */
 export const REQUEST_STATUSES = [

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 /** USPS two-letter codes for the states and DC. */
 export const US_STATES = [

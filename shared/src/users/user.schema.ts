@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { NewPasswordSchema } from '../auth/auth.schema';
 import { RoleSchema } from '../auth/role';
 
