@@ -139,8 +139,8 @@ export class PricingService {
     for (const { item, set } of changes) {
       if (!(await this.items.update(item.id, item.version, set, trx))) throw new ConflictError(`Someone else changed item ${describeItem(item)} meanwhile. Reload to see the current prices.`);
     }
-    const [items, visits] = await Promise.all([this.items.listForRequest(requestId, trx), this.items.listVisits(requestId, trx)]);
-    const priced = priceRequest(loaded, items, visits);
+    const items = await this.items.listForRequest(requestId, trx);
+    const priced = priceRequest(loaded, items, await this.items.listVisits(requestId, trx));
     if (priced.problem) {
       const item = items.find((i) => i.id === priced.problem!.itemId);
       throw new ValidationError(item ? `Item ${describeItem(item)}: ${priced.problem.message}` : priced.problem.message, [{ path: 'set', message: priced.problem.message }]);

@@ -57,13 +57,12 @@ export class RateBookService {
 
   /** The rate book of `organisationId` as the pricing engine takes it; null without terms. */
   async load(organisationId: number, trx?: Trx): Promise<LoadedRateBook | null> {
-    const [org, terms, entries, adders] = await Promise.all([
-      this.organisations.findById(organisationId, trx),
-      this.rateBooks.findTerms(organisationId, trx),
-      this.rateBooks.listEntries(organisationId, trx),
-      this.rateBooks.listAdders(organisationId, trx),
-    ]);
+    // One query at a time: a transaction is one connection.
+    const org = await this.organisations.findById(organisationId, trx);
+    const terms = await this.rateBooks.findTerms(organisationId, trx);
     if (!org || !terms) return null;
+    const entries = await this.rateBooks.listEntries(organisationId, trx);
+    const adders = await this.rateBooks.listAdders(organisationId, trx);
     return { book: toEngineRateBook(org.name, terms.terms, entries, adders), entries, adders };
   }
 
