@@ -63,6 +63,10 @@ describe('RequestDetail', () => {
     await fixture.whenStable();
     httpTesting.expectOne('/api/requests/12').flush(detail(myParts));
     await fixture.whenStable();
+    // The line-items area loads the request's reports and items (none yet in these cases).
+    httpTesting.expectOne('/api/requests/12/reports').flush([]);
+    httpTesting.expectOne('/api/requests/12/items').flush([]);
+    await fixture.whenStable();
     return fixture.nativeElement;
   }
 

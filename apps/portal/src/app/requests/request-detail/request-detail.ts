@@ -10,6 +10,7 @@ import { catchError, map, of, switchMap } from 'rxjs';
 import { Auth } from '../../core/auth/auth';
 import { describeFailure } from '../../core/http/api-error-of';
 import { Notice } from '../../core/http/notice';
+import { IntakePanel } from '../../intake/intake-panel/intake-panel';
 import { DaysToClosing } from '../../ui/days-to-closing/days-to-closing';
 import { SafetyNotice } from '../../ui/safety-notice/safety-notice';
 import { StatusChip } from '../../ui/status-chip/status-chip';
@@ -35,6 +36,7 @@ type Loaded = { detail: RepairRequestDetail; error?: undefined } | { detail?: un
     StatusHistory,
     PartyList,
     InvitePartyForm,
+    IntakePanel,
   ],
   templateUrl: './request-detail.html',
   styleUrl: './request-detail.scss',
@@ -66,6 +68,11 @@ export class RequestDetail {
     const parts = this.detail()?.myParts ?? [];
     return this.auth.role() === 'admin' || parts.includes('buyer-agent') || parts.includes('listing-agent');
   });
+
+  /** Loads the request again after its state moved on (a report added, the items confirmed). */
+  protected refresh(id: number): void {
+    this.api.get(id).subscribe({ next: (detail) => this.detail.set(detail), error: (err: unknown) => this.notice.failure(err) });
+  }
 
   protected showInvited(detail: RepairRequestDetail): void {
     this.detail.set(detail);

@@ -1,0 +1,64 @@
+import { HttpClient, HttpEvent } from '@angular/common/http';
+import { inject, Injectable } from '@angular/core';
+import {
+  ConfirmItems,
+  CreateLineItem,
+  LineItem,
+  MergeLineItems,
+  PasteReport,
+  ReportFile,
+  SplitLineItem,
+  UpdateLineItem,
+  UploadResult,
+} from '@cc/shared';
+import { Observable } from 'rxjs';
+
+/** The report-intake and item-review routes of one repair request. */
+@Injectable({ providedIn: 'root' })
+export class IntakeApi {
+  private readonly http = inject(HttpClient);
+
+  reports(requestId: number): Observable<ReportFile[]> {
+    return this.http.get<ReportFile[]>(`/api/requests/${requestId}/reports`);
+  }
+
+  /** Uploads a PDF or text file; the events carry the upload progress and then the parse result. */
+  upload(requestId: number, file: File): Observable<HttpEvent<UploadResult>> {
+    const body = new FormData();
+    body.append('file', file, file.name);
+    return this.http.post<UploadResult>(`/api/requests/${requestId}/reports`, body, { reportProgress: true, observe: 'events' });
+  }
+
+  paste(requestId: number, dto: PasteReport): Observable<UploadResult> {
+    return this.http.post<UploadResult>(`/api/requests/${requestId}/reports/paste`, dto);
+  }
+
+  items(requestId: number): Observable<LineItem[]> {
+    return this.http.get<LineItem[]>(`/api/requests/${requestId}/items`);
+  }
+
+  add(requestId: number, dto: CreateLineItem): Observable<LineItem> {
+    return this.http.post<LineItem>(`/api/requests/${requestId}/items`, dto);
+  }
+
+  update(requestId: number, itemId: number, dto: UpdateLineItem): Observable<LineItem> {
+    return this.http.patch<LineItem>(`/api/requests/${requestId}/items/${itemId}`, dto);
+  }
+
+  remove(requestId: number, item: Pick<LineItem, 'id' | 'version'>): Observable<void> {
+    return this.http.delete<void>(`/api/requests/${requestId}/items/${item.id}`, { params: { version: item.version } });
+  }
+
+  merge(requestId: number, dto: MergeLineItems): Observable<LineItem> {
+    return this.http.post<LineItem>(`/api/requests/${requestId}/items/merge`, dto);
+  }
+
+  split(requestId: number, itemId: number, dto: SplitLineItem): Observable<LineItem[]> {
+    return this.http.post<LineItem[]>(`/api/requests/${requestId}/items/${itemId}/split`, dto);
+  }
+
+  /** Confirms the review: the proposals become the request's line items and pricing begins. */
+  confirm(requestId: number, dto: ConfirmItems): Observable<LineItem[]> {
+    return this.http.post<LineItem[]>(`/api/requests/${requestId}/items/confirm`, dto);
+  }
+}

@@ -1,0 +1,89 @@
+import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { LineItem, RepairRequestDetail, ReportFile, UploadResult } from '@cc/shared';
+import { catchError, forkJoin, map, of, switchMap } from 'rxjs';
+import { Auth } from '../../core/auth/auth';
+import { Notice } from '../../core/http/notice';
+import { IntakeApi } from '../intake-api';
+import { ItemReview } from '../item-review/item-review';
+import { LineItemList } from '../line-item-list/line-item-list';
+import { ParseSummary } from '../parse-summary/parse-summary';
+import { ReportUpload } from '../report-upload/report-upload';
+import { SkippedText } from '../skipped-text/skipped-text';
+
+interface Loaded {
+  reports: ReportFile[];
+  items: LineItem[];
+}
+
+const INTAKE_STATES: readonly string[] = ['draft', 'intake'];
+
+/**
+ * The line items of a request: while the report is being taken in, its upload and the agent's
+ * review; afterwards the confirmed items, read-only, for every party.
+ */
+@Component({
+  selector: 'cc-intake-panel',
+  imports: [MatProgressBarModule, ReportUpload, ParseSummary, ItemReview, LineItemList, SkippedText],
+  templateUrl: './intake-panel.html',
+  styleUrl: './intake-panel.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class IntakePanel {
+  private readonly api = inject(IntakeApi);
+  private readonly auth = inject(Auth);
+  private readonly notice = inject(Notice);
+
+  readonly request = input.required<RepairRequestDetail>();
+  /** The request itself changed on the server (its state moved on): load it again. */
+  readonly requestChanged = output<void>();
+
+  protected readonly isIntake = computed(() => INTAKE_STATES.includes(this.request().status));
+  private readonly isAdmin = computed(() => this.auth.role() === 'admin');
+  /** Whether the signed-in person may add the report (agents, inspector, admin) right now. */
+  protected readonly canUpload = computed(
+    () => this.isIntake() && (this.isAdmin() || this.request().myParts.some((p) => p === 'buyer-agent' || p === 'listing-agent' || p === 'inspector')),
+  );
+  /** Whether the signed-in person reviews the items (the agents, admin) right now. */
+  protected readonly canReview = computed(
+    () => this.isIntake() && (this.isAdmin() || this.request().myParts.some((p) => p === 'buyer-agent' || p === 'listing-agent')),
+  );
+
+  private readonly reloads = signal(0);
+  /** Loads again when asked, and when the request's state changes. */
+  private readonly source = computed(() => `${this.request().id}:${this.request().status}:${this.reloads()}`);
+  private readonly loaded = toSignal(
+    toObservable(this.source).pipe(
+      switchMap(() => {
+        const id = this.request().id;
+        return forkJoin({ reports: this.api.reports(id), items: this.api.items(id) }).pipe(
+          map((value): Loaded | null => value),
+          catchError((err: unknown) => {
+            this.notice.failure(err);
+            return of(null);
+          }),
+        );
+      }),
+    ),
+  );
+  protected readonly isLoading = computed(() => this.loaded() === undefined);
+  protected readonly reports = computed(() => this.loaded()?.reports ?? []);
+  protected readonly items = computed(() => this.loaded()?.items ?? []);
+  protected readonly lastResult = signal<UploadResult | null>(null);
+
+  protected reload(): void {
+    this.reloads.update((n) => n + 1);
+  }
+
+  protected showResult(result: UploadResult): void {
+    this.lastResult.set(result);
+    this.reload();
+    if (this.request().status === 'draft') this.requestChanged.emit();
+  }
+
+  protected finishReview(): void {
+    this.lastResult.set(null);
+    this.requestChanged.emit();
+  }
+}

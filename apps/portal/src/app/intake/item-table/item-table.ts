@@ -1,0 +1,46 @@
+import { ChangeDetectionStrategy, Component, input, output } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatIconModule } from '@angular/material/icon';
+import { MatTableModule } from '@angular/material/table';
+import { MatTooltipModule } from '@angular/material/tooltip';
+import { FINDING_CODE_TABLE, LineItem } from '@cc/shared';
+import { EditionNote } from '../edition-note/edition-note';
+import { ROOM_LABELS } from '../room-labels';
+import { SEVERITY_LABELS } from '../severity-labels';
+
+/** The proposed items under review, one row each, with their actions. */
+@Component({
+  selector: 'cc-item-table',
+  imports: [MatTableModule, MatCheckboxModule, MatButtonModule, MatIconModule, MatTooltipModule, EditionNote],
+  templateUrl: './item-table.html',
+  styleUrl: './item-table.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class ItemTable {
+  readonly items = input.required<LineItem[]>();
+  readonly activeItemId = input<number | null>(null);
+  readonly selectedIds = input<ReadonlySet<number>>(new Set());
+  /** Whether the row actions are offered (off while a change is on its way). */
+  readonly isEditable = input(true);
+
+  readonly activated = output<LineItem>();
+  readonly selectionToggled = output<number>();
+  readonly edit = output<LineItem>();
+  readonly split = output<LineItem>();
+  readonly remove = output<LineItem>();
+
+  protected readonly columns = ['select', 'code', 'room', 'location', 'quantity', 'severity', 'necRefs', 'evidence', 'actions'];
+
+  protected codeLabel(item: LineItem): string {
+    return FINDING_CODE_TABLE[item.code].label;
+  }
+
+  protected roomLabel(item: LineItem): string {
+    return ROOM_LABELS[item.room];
+  }
+
+  protected severityLabel(item: LineItem): string {
+    return SEVERITY_LABELS[item.severity];
+  }
+}
