@@ -11,6 +11,7 @@ import { createHealthRouter } from './health.router';
 import { createInvitationsRouter } from './invitations.router';
 import { createLineItemsRouter } from './line-items.router';
 import { createPricingRouter } from './pricing.router';
+import { createQuotesRouter } from './quotes.router';
 import { createRateBookRouter } from './rate-book.router';
 import { createReportsRouter } from './reports.router';
 import { createRequestsRouter } from './requests.router';
@@ -32,6 +33,7 @@ export function createApiRouter(deps: RouterDeps): Router {
   api.use('/invitations', createInvitationsRouter(deps));
   api.use('/requests/:id/reports', createReportsRouter(deps));
   api.use('/requests/:id/items', createLineItemsRouter(deps));
+  api.use('/requests/:id/quotes', createQuotesRouter(deps));
   api.use('/requests/:id', createPricingRouter(deps));
   api.use('/requests', createRequestsRouter(deps));
   api.use('/admin', createAdminRouter(deps));

@@ -16,6 +16,7 @@ import { InvitationsService } from './invitations.service';
 import { LineItemsService } from './line-items.service';
 import { Passwords } from './passwords';
 import { PricingService } from './pricing.service';
+import { QuotesService } from './quotes.service';
 import { RateBookService } from './rate-book.service';
 import { readPdfPages } from './report-intake';
 import { ReportIntakeService } from './report-intake.service';
@@ -48,6 +49,7 @@ export function createServices(db: Db, config: Config) {
     rateBook: rateBookService,
     pricing: pricingService,
     ballpark: new BallparkService(requestsService, rateBookService, itemPricing),
+    quotes: new QuotesService(db, requestsService, pricingService, rateBookService, rateBooks, requests, organisations, itemPricing, quotes),
   };
 }
 
