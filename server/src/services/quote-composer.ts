@@ -1,4 +1,4 @@
-import type { QuoteContractor, QuoteVersion } from '@cc/shared';
+import type { Organisation, QuoteContractor, QuoteVersion } from '@cc/shared';
 import type { StoredPricingItem } from '../db/item-pricing.repository';
 import type { NewQuote, NewQuoteLine } from '../db/quote.repository';
 import type { LoadedRateBook } from './rate-book.service';
@@ -10,6 +10,11 @@ export const QUOTE_SAFETY_NOTICE =
   'licensed for electrical work where the property is, under the electrical code and local amendments adopted there, ' +
   'and with the permits and inspections that apply. The contractor determines and obtains any permit. ' +
   'Code references are for information; the authority having jurisdiction decides.';
+
+/** The contractor as a quote shows it: name, licence and contact, copied in when sent. */
+export function quoteContractorOf(org: Organisation): QuoteContractor {
+  return { organisationId: org.id, name: org.name, licenceNumber: org.licenceNumber, licenceState: org.licenceState, licenceClass: org.licenceClass, phone: org.phone, address: org.address };
+}
 
 /** The last day a quote sent at `sentAt` holds: `days` calendar days later (UTC dates). */
 export function validUntil(sentAt: Date, days: number): string {

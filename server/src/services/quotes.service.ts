@@ -8,7 +8,7 @@ import type { RequestRepository } from '../db/request.repository';
 import { renderQuotePdf } from '../integrations/pdf/quote-pdf';
 import { ConflictError, NotFoundError } from './errors';
 import { assertClaimedTotals, describeItem, PRICING_STATES, type PricingService } from './pricing.service';
-import { composeQuote } from './quote-composer';
+import { composeQuote, quoteContractorOf } from './quote-composer';
 import { compareQuotes } from './quote-changes';
 import type { RateBookService } from './rate-book.service';
 import { priceRequest } from './request-pricing';
@@ -68,7 +68,7 @@ export class QuotesService {
           sentBy: user.id,
           sentAt: new Date(),
           note: input.note || null,
-          contractor: { organisationId, name: org.name, licenceNumber: org.licenceNumber, licenceState: org.licenceState, licenceClass: org.licenceClass, phone: org.phone, address: org.address },
+          contractor: quoteContractorOf(org),
           property: { street: request.street, city: request.city, state: request.state, zip: request.zip },
           loaded,
           items,

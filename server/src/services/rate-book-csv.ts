@@ -68,7 +68,7 @@ function toCells(entry: CsvEntry): Record<Column, string> {
     firstUnitCents: text(isTimed ? null : p.firstUnitCents),
     additionalUnitCents: text(isTimed ? null : p.additionalUnitCents),
     hardSiteMultiplierBp: text(isTimed ? null : p.hardSiteMultiplierBp),
-    materials: isTimed && p.materials.length ? JSON.stringify(p.materials) : '',
+    materials: isTimed && p.materials.length ? JSON.stringify(p.materials.map((m) => ({ name: m.name, quantityPerUnit: m.quantityPerUnit, unitCostCents: m.unitCostCents }))) : '',
   };
 }
 

@@ -1,0 +1,81 @@
+import type { Knex } from 'knex';
+import type { ItemStatus } from '@cc/shared';
+import type { StoredPricingItem } from '../server/src/db/item-pricing.repository';
+import { OrganisationRepository } from '../server/src/db/organisation.repository';
+import { QuoteRepository } from '../server/src/db/quote.repository';
+import { RateBookRepository } from '../server/src/db/rate-book.repository';
+import { composeQuote, quoteContractorOf } from '../server/src/services/quote-composer';
+import { RateBookService } from '../server/src/services/rate-book.service';
+import { priceRequest } from '../server/src/services/request-pricing';
+
+/** Requests that were quoted at some point of their path get a quote version 1. */
+const QUOTED_AND_LATER = ['quoted', 'approved', 'scheduled', 'in-progress', 'corrected', 'letter-issued', 'accepted', 'declined', 'reopened'];
+
+// Prices the items of every demo request that reached `quoted` with the suggested entry of its
+// contractor's rate book (1 assumed where the report gave no quantity) and stores the quote version
+// the contractor sent on the day the request became quoted. Requests still in pricing stay unpriced.
+export async function seed(knex: Knex): Promise<void> {
+  await knex('quotes').delete();
+  const organisations = new OrganisationRepository(knex);
+  const rateBooks = new RateBookService(knex, new RateBookRepository(knex), organisations);
+  const entryVersions = new RateBookRepository(knex);
+  const quotes = new QuoteRepository(knex);
+
+  const requests = await knex('repair_requests').whereIn('status', QUOTED_AND_LATER).whereNotNull('contractor_organisation_id').orderBy('id');
+  for (const request of requests) {
+    const loaded = await rateBooks.load(request.contractor_organisation_id);
+    const org = await organisations.findById(request.contractor_organisation_id);
+    if (!loaded || !org) continue;
+    const sent = await knex('request_status_changes').where({ request_id: request.id, to_status: 'quoted' }).first('created_at', 'changed_by');
+    const sender = await knex('users').where({ organisation_id: org.id, role: 'contractor' }).orderBy('id').first('id');
+    const rows = await knex('line_items').where({ request_id: request.id }).whereNotIn('status', ['proposed', 'removed']).orderBy('id');
+    const items: StoredPricingItem[] = [];
+    for (const row of rows) {
+      const entry = loaded.entries.find((e) => e.code === row.code);
+      if (!entry) continue;
+      const isQuantityAssumed = row.quantity === null;
+      const [updated] = await knex('line_items')
+        .where({ id: row.id })
+        .update({ entry_id: entry.id, pricing_quantity: isQuantityAssumed ? 1 : null, is_quantity_assumed: isQuantityAssumed, version: row.version + 1 })
+        .returning('version');
+      items.push({
+        id: row.id,
+        version: updated.version,
+        code: row.code,
+        room: row.room,
+        location: row.location ?? '',
+        quantity: row.quantity,
+        // Priced when the quote went out, whatever happened to the item since.
+        status: 'priced' as ItemStatus,
+        entryId: entry.id,
+        adderIds: [],
+        pricingQuantity: isQuantityAssumed ? 1 : null,
+        isQuantityAssumed,
+        visitKey: 'visit-1',
+        outOfScopeReason: null,
+      });
+    }
+    const priced = priceRequest(loaded, items, []);
+    const { input, breakdown } = priced;
+    if (!input || !breakdown) continue;
+    const entryIds = [...new Set(items.map((i) => i.entryId as number))];
+    await knex.transaction(async (trx) => {
+      await quotes.insert(
+        composeQuote({
+          requestId: request.id,
+          version: 1,
+          sentBy: sender?.id ?? null,
+          sentAt: sent?.created_at ?? new Date(),
+          note: null,
+          contractor: quoteContractorOf(org),
+          property: { street: request.street, city: request.city, state: request.state, zip: request.zip },
+          loaded,
+          items,
+          priced: { ...priced, input, breakdown },
+          entryVersionRowIds: await entryVersions.currentVersionRowIds(entryIds, trx),
+        }),
+        trx,
+      );
+    });
+  }
+}
