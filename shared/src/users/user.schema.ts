@@ -1,5 +1,5 @@
 import * as z from 'zod';
-import { NewPasswordSchema } from '../auth/auth.schema';
+import { CurrentUserSchema, NewPasswordSchema } from '../auth/auth.schema';
 import { RoleSchema } from '../auth/role';
 
 export const CreateUserSchema = z.object({
@@ -11,13 +11,8 @@ export const CreateUserSchema = z.object({
 });
 export type CreateUser = z.infer<typeof CreateUserSchema>;
 
-export const UserSchema = z.object({
-  id: z.number().int(),
-  email: z.string(),
-  name: z.string(),
-  role: RoleSchema,
-  organisationId: z.number().int().nullable(),
-  organisationName: z.string().nullable(),
+/** A user as an administrator lists them. */
+export const UserSchema = CurrentUserSchema.extend({
   createdAt: z.string(),
 });
 export type User = z.infer<typeof UserSchema>;
