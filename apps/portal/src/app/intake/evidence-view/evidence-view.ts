@@ -39,7 +39,7 @@ export class EvidenceView {
       if (this.activeItemId() === null) return;
       this.pages();
       const mark = this.text().nativeElement.querySelector<HTMLElement>('mark.is-active');
-      mark?.scrollIntoView?.({ block: 'center', behavior: 'smooth' });
+      mark?.scrollIntoView?.({ block: 'nearest', behavior: 'smooth' });
     });
   }
 

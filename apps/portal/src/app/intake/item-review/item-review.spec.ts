@@ -58,7 +58,7 @@ describe('ItemReview', () => {
     expect(rows['code'].text[0]).toContain('No ground-fault (GFCI) protection where it is expected');
     expect(rows['room'].text).toEqual(['Kitchen', 'Bedroom', 'Garage']);
     expect(rows['quantity'].text).toEqual(['2', '—', '—']);
-    expect(rows['necRefs'].text[0]).toBe('210.8(A), 406.4(D)(3)');
+    expect(rows['severity'].text[0]).toBe('Safety 210.8(A), 406.4(D)(3)');
     // The GFCI item carries its code-edition note, worded as information.
     expect(host().querySelector('[data-testid="edition-note"]')?.textContent).toContain('information');
   });
@@ -106,6 +106,37 @@ describe('ItemReview', () => {
     await fixture.whenStable();
     expect(changes).toBe(1);
     expect(host().querySelector('[data-testid="review-conflict"]')).toBeNull();
+  });
+
+  it('splits an item into parts that must add up to its quantity, sent with its version', async () => {
+    const buttons = await loader.getAllHarnesses(MatButtonHarness.with({ selector: '[data-testid="review-item-split"]' }));
+    await buttons[0].click();
+    const dialog = await documentLoader.getHarness(MatDialogHarness);
+    const parts = await dialog.getHarness(MatInputHarness.with({ selector: '[data-testid="split-quantities"]' }));
+    expect(await parts.getValue()).toBe('1, 1');
+    await parts.setValue('2, 1');
+    await (await dialog.getHarness(MatButtonHarness.with({ text: 'Split' }))).click();
+    expect(await dialog.getText()).toContain('The parts add up to 3, but the item has 2');
+    httpTesting.expectNone('/api/requests/12/items/31/split');
+
+    await parts.setValue('1, 1');
+    await (await dialog.getHarness(MatButtonHarness.with({ text: 'Split' }))).click();
+    const req = httpTesting.expectOne('/api/requests/12/items/31/split');
+    expect(req.request.body).toEqual({ version: 3, quantities: [1, 1] });
+    req.flush([proposedItems()[0]]);
+    await fixture.whenStable();
+    expect(changes).toBe(1);
+  });
+
+  it('removes an item with its version', async () => {
+    const buttons = await loader.getAllHarnesses(MatButtonHarness.with({ selector: '[data-testid="review-item-remove"]' }));
+    await buttons[2].click();
+    const req = httpTesting.expectOne((r) => r.url === '/api/requests/12/items/33');
+    expect(req.request.method).toBe('DELETE');
+    expect(req.request.params.get('version')).toBe('2');
+    req.flush(null, { status: 204, statusText: 'No Content' });
+    await fixture.whenStable();
+    expect(changes).toBe(1);
   });
 
   it('merges the two ticked items, the first keeping its id', async () => {

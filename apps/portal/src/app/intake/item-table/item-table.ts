@@ -30,7 +30,7 @@ export class ItemTable {
   readonly split = output<LineItem>();
   readonly remove = output<LineItem>();
 
-  protected readonly columns = ['select', 'code', 'room', 'location', 'quantity', 'severity', 'necRefs', 'evidence', 'actions'];
+  protected readonly columns = ['select', 'code', 'room', 'location', 'quantity', 'severity', 'evidence', 'actions'];
 
   protected codeLabel(item: LineItem): string {
     return FINDING_CODE_TABLE[item.code].label;
