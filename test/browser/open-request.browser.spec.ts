@@ -49,6 +49,33 @@ describe('a buyer’s agent opens a repair request', () => {
   });
 });
 
+describe('the portal shell', () => {
+  it('loads its own fonts and icons from the app, within the content security policy', async () => {
+    const violations: string[] = [];
+    const outside: string[] = [];
+    page.on('console', (m) => {
+      if (/Content Security Policy/i.test(m.text())) violations.push(m.text());
+    });
+    page.on('request', (r) => {
+      if (!r.url().startsWith(portalUrl(''))) outside.push(r.url());
+    });
+    await signInAs(page, 'maya.chen@juniperkey.test');
+    await page.getByTestId('request-row').first().waitFor();
+    const fonts = await page.evaluate(async () => {
+      await document.fonts.ready;
+      return {
+        icons: document.fonts.check('24px "Material Symbols Outlined"', 'home'),
+        text: document.fonts.check('16px "Source Sans 3"'),
+        loaded: [...document.fonts].filter((f) => f.status === 'loaded').map((f) => f.family),
+      };
+    });
+    expect(fonts.loaded).toEqual(expect.arrayContaining(['Material Symbols Outlined', 'Source Sans 3']));
+    expect(fonts.icons && fonts.text).toBe(true);
+    expect(violations).toEqual([]);
+    expect(outside).toEqual([]);
+  });
+});
+
 describe('what each role sees', () => {
   it('shows the contractor only requests assigned to its firm', async () => {
     await signInAs(page, 'jo.fenn@copperleaf.test');
