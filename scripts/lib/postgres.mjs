@@ -2,7 +2,7 @@
 // initdb and postgres refuse to run as root, so as root the cluster runs as the `postgres` user.
 import { spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
-import { chownSync, existsSync, mkdirSync, readdirSync, rmSync } from 'node:fs';
+import { chownSync, existsSync, mkdirSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { aptInstall, isRoot } from './run.mjs';
@@ -73,23 +73,33 @@ export function startCluster({ dataDir, port, throwaway = false }) {
   if (!existsSync(join(dataDir, 'PG_VERSION'))) {
     pg(bin, user, 'initdb', ['-D', dataDir, '-U', 'postgres', '-A', 'trust', '-E', 'UTF8', '--locale=C.UTF-8', '--no-sync'], { quiet: true });
   }
-  if (existsSync(join(dataDir, 'postmaster.pid'))) {
-    // Left behind by a killed run: stop it (or clear the stale pid file) before starting again.
-    spawnSync(join(bin, 'pg_ctl'), ['-D', dataDir, '-m', 'fast', '-w', 'stop'], { ...user, stdio: 'ignore' });
-    if (existsSync(join(dataDir, 'postmaster.pid'))) rmSync(join(dataDir, 'postmaster.pid'));
+  const pidFile = join(dataDir, 'postmaster.pid');
+  const isRunning = existsSync(pidFile) && spawnSync(join(bin, 'pg_ctl'), ['-D', dataDir, 'status'], { ...user, stdio: 'ignore' }).status === 0;
+  if (isRunning) {
+    // Another command of this project (e.g. a running `npm start`) owns this cluster: share it, leave it running.
+    const port = Number(readFileSync(pidFile, 'utf8').split('\n')[3]);
+    console.log(`• Using the PostgreSQL already running on 127.0.0.1:${port}`);
+    return clusterHandle({ bin, user, dataDir, port, isOwned: false });
   }
+  if (existsSync(pidFile)) rmSync(pidFile); // left behind by a killed run
   const options = [`-c listen_addresses=127.0.0.1`, `-p ${port}`, `-c unix_socket_directories=${socketDir}`];
   if (throwaway) options.push('-c fsync=off', '-c synchronous_commit=off', '-c full_page_writes=off');
   pg(bin, user, 'pg_ctl', ['-D', dataDir, '-l', join(dataDir, 'server.log'), '-w', '-t', '60', 'start', '-o', options.join(' ')]);
 
-  let isStopped = false;
+  return clusterHandle({ bin, user, dataDir, port, isOwned: true });
+}
+
+function clusterHandle({ bin, user, dataDir, port, isOwned }) {
+  const psql = (args) => pg(bin, user, 'psql', ['-h', '127.0.0.1', '-p', String(port), '-U', 'postgres', ...args], { quiet: true });
+  let isStopped = !isOwned;
   return {
     dataDir,
     url: (database) => `postgres://postgres@127.0.0.1:${port}/${database}`,
     createDatabase(name) {
-      const exists = pg(bin, user, 'psql', ['-h', '127.0.0.1', '-p', String(port), '-U', 'postgres', '-tAc', `SELECT 1 FROM pg_database WHERE datname = '${name}'`], { quiet: true });
-      if (exists.trim() !== '1') pg(bin, user, 'createdb', ['-h', '127.0.0.1', '-p', String(port), '-U', 'postgres', name], { quiet: true });
+      const exists = psql(['-tAc', `SELECT 1 FROM pg_database WHERE datname = '${name}'`]);
+      if (exists.trim() !== '1') psql(['-c', `CREATE DATABASE "${name}"`]);
     },
+    /** Stops the cluster if this handle started it. */
     stop() {
       if (isStopped) return;
       isStopped = true;
