@@ -3,6 +3,7 @@ import type { FindingCode } from './finding-code';
 import type { MappedText } from './mapped-text';
 import { negatedSpans } from './negation-detector';
 import { readQuantity } from './quantity-reader';
+import { scanAll } from './regex-scan';
 import { findRooms } from './room-lexicon';
 import type { Room } from './room';
 import { lastPlaceNamed, placeMatches, type CarriedPlace } from './room-resolver';
@@ -30,6 +31,8 @@ export interface BlockResult {
 const REFERS_BACK = /^(?:it|they|this|these|those|each|both|one|the same|also|and)\b/i;
 /** A short line naming a place with no verb ("Basement bar area", "Primary bath:"). */
 const MAX_LABEL_WORDS = 5;
+/** Counting whitespace runs gives the word count of `split(/\s+/)` without its copy of the expression. */
+const WHITESPACE_RUN = /\s+/g;
 const VERB = /\b(?:is|are|was|were|has|have|had|be|been)\b/i;
 
 /**
@@ -72,7 +75,7 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
     });
     found.push(...inSentence);
     const place = lastPlaceNamed(sentence.text, rooms);
-    const isLabel = matches.length === 0 && sentence.text.split(/\s+/).length <= MAX_LABEL_WORDS && !VERB.test(sentence.text);
+    const isLabel = matches.length === 0 && scanAll(WHITESPACE_RUN, sentence.text).length + 1 <= MAX_LABEL_WORDS && !VERB.test(sentence.text);
     if (place) previous = { place, isLabel };
   }
   return { findings: keepDistinct(found), hasNegated };

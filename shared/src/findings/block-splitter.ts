@@ -1,6 +1,7 @@
 import type { SectionKind } from './finding.schema';
 import { MappedTextBuilder, type MappedText } from './mapped-text';
 import type { Room } from './room';
+import { scanAll } from './regex-scan';
 import { classifyHeadingLine, inlineNonElectricalLabel } from './section-heading';
 
 /**
@@ -33,13 +34,14 @@ const CONNECTOR_END = /(?:[,;&/-]|\b(?:and|or|the|a|an|at|of|to|with|in|on|for|b
 /** A checklist line that ends in its answer ("GFCI at exterior: No"). */
 const CHECKLIST_ANSWER = /:\s*(?:yes|no|none|n\/a|ok|missing)$/i;
 const SHORT_LINE = 45;
+const LINE_BREAK = /\r?\n\f|\f\r?\n|\r?\n|\f/g;
 const NO_SECTION: Section = { kind: 'none', title: null, room: null };
 
 /** Lines of the joined text; "\n\f" and "\f\n" count as one break (a page ending in a newline is not a blank line). */
 function splitLines(joined: string): Line[] {
   const lines: Line[] = [];
   let start = 0;
-  for (const m of joined.matchAll(/\r?\n\f|\f\r?\n|\r?\n|\f/g)) {
+  for (const m of scanAll(LINE_BREAK, joined)) {
     lines.push({ start, end: m.index, text: joined.slice(start, m.index) });
     start = m.index + m[0].length;
   }

@@ -1,3 +1,5 @@
+import { scanAll } from './regex-scan';
+
 /** A [start, end) range of a sentence. */
 export interface Range {
   readonly start: number;
@@ -14,7 +16,7 @@ const CLAUSE_BREAK = /\s*;\s*|,?\s+(?:but|although|though|however|whereas|becaus
 export function clauseRanges(text: string): Range[] {
   const ranges: Range[] = [];
   let start = 0;
-  for (const m of text.matchAll(CLAUSE_BREAK)) {
+  for (const m of scanAll(CLAUSE_BREAK, text)) {
     if (m.index > start) ranges.push({ start, end: m.index });
     start = m.index + m[0].length;
   }

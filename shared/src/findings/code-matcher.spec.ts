@@ -66,5 +66,20 @@ describe('matchCodes', () => {
   it('does not read a GFCI that trips and resets as a finding', () => {
     expect(codesOf('All accessible GFCI devices tripped and reset as intended.')).toEqual([]);
   });
+
+  // Trigger words per code and required words per phrase only skip phrases; trying every phrase
+  // must give the same matches (the corpus check repeats this on every corpus sentence).
+  it.each([
+    'GFI missing @ bath 2; the garage GFCI would not reset.',
+    'Three-prong receptacles on a two-wire circuit; bootleg ground at the den outlet.',
+    'Double-tapped breaker, no directory, pointed screws and open knockouts at the panel.',
+    'Recessed lights in contact with insulation; ceiling fan wobbles; switch is loose.',
+    'No reversed polarity observed. Smoke alarms: none. Recommend evaluation by a licensed electrician.',
+  ])('finds the same phrases with and without the shortcuts in "%s"', (sentence) => {
+    const summary = (ignoreTriggers: boolean) =>
+      matchCodes(sentence, { ignoreTriggers }).map((m) => `${m.rule.code}@${m.start}-${m.end}`);
+    expect(summary(false)).toEqual(summary(true));
+    expect(summary(false).length).toBeGreaterThan(0);
+  });
 });
 

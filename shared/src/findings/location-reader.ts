@@ -1,4 +1,5 @@
 import type { RoomMention } from './room-lexicon';
+import { scanAll } from './regex-scan';
 
 /**
  * The place as the report wrote it, starting at the room word and running on over the words that
@@ -12,13 +13,14 @@ const STOP_WORDS = new Set([
   'will', 'wobbles', 'predates', 'also', 'there', 'it', 'at', 'to', 'for', 'from',
 ]);
 const MAX_WORDS = 6;
+const WORD_AFTER_SPACE = /\s+([\w'/-]+)/g;
 
 export function readLocation(sentence: string, mention: RoomMention): string {
   const rest = sentence.slice(mention.end);
   const words = rest.match(/^(?:\s+[\w'/-]+)*/)?.[0] ?? '';
   let taken = '';
   let count = 0;
-  for (const m of words.matchAll(/\s+([\w'/-]+)/g)) {
+  for (const m of scanAll(WORD_AFTER_SPACE, words)) {
     const word = m[1].toLowerCase();
     if (STOP_WORDS.has(word) || /\w{2}ed$/.test(word) || count >= MAX_WORDS) break;
     taken += m[0];

@@ -1,4 +1,5 @@
 import { clauseIndexAt, clauseRanges, type Range } from './clause-splitter';
+import { scanAll } from './regex-scan';
 
 /**
  * Decides which defect phrases in a sentence are denied rather than reported: "no reversed
@@ -16,7 +17,7 @@ const LIST_JOIN = /^[\s,]*(?:(?:and|or|nor|&|\/|and\/or)[\s,]*)?$/i;
 const MAX_CUE_DISTANCE = 60;
 
 function cuesOutside(text: string, re: RegExp, spans: readonly Range[]): Range[] {
-  return [...text.matchAll(re)]
+  return scanAll(re, text)
     .map((m) => ({ start: m.index, end: m.index + m[0].length }))
     .filter((cue) => !spans.some((s) => cue.start < s.end && s.start < cue.end));
 }

@@ -1,3 +1,5 @@
+import { scanAll } from './regex-scan';
+
 /**
  * Reads how many items a finding covers: digits and number words before a countable noun
  * ("three receptacles", "2 breakers"), "(3)", "2x"/"x2", "both"/"neither" (2), "a"/"an"/"one" + noun
@@ -16,6 +18,8 @@ const UNIT = /^(?:a|amps?|amperes?|v|volts?|awg|gauge|ga|ft|feet|foot|inch(?:es)
 /** Words before a number that make it a name or an index ("bedroom 2", "slot 14", "#3"). */
 const INDEX_BEFORE = /^(?:bed\s?rooms?|bath(?:room)?s?|br|bdrms?|rooms?|circuits?|breakers?|no|nos|item|items|page|section|unit|level|floor|space|position|slot|photo|fig|figure|step|zone|#|spaces|about|approximately|approx)$/i;
 const ALLOWED_BETWEEN = 3;
+/** A word, a bracketed count ("(3)", "(x2)") or a punctuation mark. */
+const TOKEN = /\(\s*x?\d{1,3}\s*\)|[#]?[\w'%-]+|[:;,.]/g;
 
 interface Token {
   readonly word: string;
@@ -23,7 +27,7 @@ interface Token {
 }
 
 function tokenize(text: string): Token[] {
-  return [...text.matchAll(/\(\s*x?\d{1,3}\s*\)|[#]?[\w'%-]+|[:;,.]/g)].map((m) => ({
+  return scanAll(TOKEN, text).map((m) => ({
     word: m[0].toLowerCase(),
     index: m.index,
   }));

@@ -1,6 +1,7 @@
 import { clauseIndexAt, clauseRanges, type Range } from './clause-splitter';
 import type { CodeMatch } from './code-matcher';
 import { readLocation } from './location-reader';
+import { scanAll } from './regex-scan';
 import { findRooms, type RoomMention } from './room-lexicon';
 import type { Room } from './room';
 
@@ -45,7 +46,7 @@ function segments(text: string, matches: readonly CodeMatch[], clauses: readonly
       cut = clauses[ca].end;
     } else {
       const between = text.slice(a.end, b.start);
-      const seps = [...between.matchAll(SEPARATOR)];
+      const seps = scanAll(SEPARATOR, between);
       if (seps.length > 0) cut = a.end + seps[seps.length - 1].index;
     }
     bounds.push(cut);

@@ -1,0 +1,93 @@
+/**
+ * Finds, in one pass over a text, which of many lower-case ASCII literals occur in it (an
+ * Aho-Corasick automaton). Each literal carries the ids it stands for (the matcher gives a phrase's
+ * id to each of its required literals); `scan` returns, for every id, whether one of its literals
+ * occurs. Overlapping and nested occurrences are all found ("ground" and "ungrounded").
+ */
+export class LiteralScanner {
+  /** Character code (below 128) to alphabet index; 0 is "a character no literal has". */
+  private readonly alphabet = new Uint8Array(128);
+  private readonly width: number;
+  /** next[state * width + letter]: the state after reading the letter (a complete automaton). */
+  private readonly next: Int32Array;
+  /** The ids found on reaching each state (its literals and those of its suffixes). */
+  private readonly found: ReadonlyArray<readonly number[]>;
+
+  constructor(
+    literals: ReadonlyArray<{ readonly text: string; readonly ids: readonly number[] }>,
+    private readonly idCount: number,
+  ) {
+    let letters = 1;
+    for (const { text } of literals) {
+      if (text.length === 0) throw new RangeError('Empty literal');
+      for (let i = 0; i < text.length; i++) {
+        const code = text.charCodeAt(i);
+        if (code >= 128 || text[i] !== text[i].toLowerCase()) throw new RangeError(`Not a lower-case ASCII literal: ${text}`);
+        if (this.alphabet[code] === 0) this.alphabet[code] = letters++;
+      }
+    }
+    this.width = letters;
+
+    // The trie of the literals.
+    const children: Array<Map<number, number>> = [new Map()];
+    const output: number[][] = [[]];
+    for (const { text, ids } of literals) {
+      let state = 0;
+      for (let i = 0; i < text.length; i++) {
+        const letter = this.alphabet[text.charCodeAt(i)];
+        let child = children[state].get(letter);
+        if (child === undefined) {
+          child = children.length;
+          children.push(new Map());
+          output.push([]);
+          children[state].set(letter, child);
+        }
+        state = child;
+      }
+      output[state].push(...ids);
+    }
+
+    // Breadth first: failure links, then every missing transition filled from the failure state.
+    const next = new Int32Array(children.length * this.width);
+    const fail = new Int32Array(children.length);
+    const queue: number[] = [];
+    for (let letter = 0; letter < this.width; letter++) {
+      const child = children[0].get(letter);
+      if (child !== undefined) {
+        next[letter] = child;
+        queue.push(child);
+      }
+    }
+    for (let head = 0; head < queue.length; head++) {
+      const state = queue[head];
+      output[state] = [...new Set([...output[state], ...output[fail[state]]])];
+      for (let letter = 0; letter < this.width; letter++) {
+        const child = children[state].get(letter);
+        const viaFail = next[fail[state] * this.width + letter];
+        if (child === undefined) {
+          next[state * this.width + letter] = viaFail;
+        } else {
+          fail[child] = viaFail;
+          next[state * this.width + letter] = child;
+          queue.push(child);
+        }
+      }
+    }
+    this.next = next;
+    this.found = output;
+  }
+
+  /** For every id, whether one of its literals occurs in `lowerText` (already in lower case). */
+  scan(lowerText: string): Uint8Array {
+    const hits = new Uint8Array(this.idCount);
+    const { alphabet, next, found, width } = this;
+    let state = 0;
+    for (let i = 0; i < lowerText.length; i++) {
+      const code = lowerText.charCodeAt(i);
+      state = next[state * width + (code < 128 ? alphabet[code] : 0)];
+      const ids = found[state];
+      for (let k = 0; k < ids.length; k++) hits[ids[k]] = 1;
+    }
+    return hits;
+  }
+}

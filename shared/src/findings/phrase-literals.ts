@@ -1,0 +1,238 @@
+/**
+ * The words a phrase cannot match without, read off its regular expression: a list of lower-case
+ * literals such that every match of the expression contains at least one of them ("gfc", "gfi",
+ * "ground fault"...). The matcher uses them as per-phrase trigger words, derived from the phrase
+ * table itself, so a phrase is tried only on sentences that contain one of its words.
+ *
+ * The reading is deliberately conservative: anything it does not fully understand (a class of
+ * many characters, `\w`, a back-reference, a non-ASCII letter, an optional part) counts as "could
+ * be anything", which only ever makes the list weaker (or empty: then the phrase is always tried),
+ * never wrong. It understands the subset the phrase table uses: alternation, (non-)capturing and
+ * named groups, lookarounds (zero width), quantifiers, small character classes, escapes.
+ */
+
+/** What one part of an expression can match. */
+interface Shape {
+  /** Every string the part can match (lower case), when that set is small; else null. */
+  readonly exact: readonly string[] | null;
+  /** Literals one of which every match contains; null when nothing is known. */
+  readonly required: readonly string[] | null;
+}
+
+const MAX_EXACT = 64;
+const MAX_CLASS = 8;
+/** Literals shorter than this are too common to be worth checking. */
+const MIN_LITERAL = 2;
+
+const EMPTY: Shape = { exact: [''], required: null };
+const UNKNOWN: Shape = { exact: null, required: null };
+
+/**
+ * The literals every match of `re` contains one of, or null when none can be derived (the phrase
+ * must then always be tried). Only case-insensitive expressions are read, since the sentence is
+ * checked in lower case.
+ */
+export function requiredLiterals(re: RegExp): readonly string[] | null {
+  if (!re.flags.includes('i') || re.flags.includes('u') || re.flags.includes('v')) return null;
+  let literals: readonly string[] | null;
+  try {
+    const reader = new SourceReader(re.source);
+    const shape = reader.alternation();
+    literals = reader.atEnd() ? mustContain(shape) : null;
+  } catch {
+    return null; // a construct the reader does not know: always try the phrase
+  }
+  return literals && Math.min(...literals.map((l) => l.length)) >= MIN_LITERAL ? literals : null;
+}
+
+class SourceReader {
+  private pos = 0;
+
+  constructor(private readonly src: string) {}
+
+  atEnd(): boolean {
+    return this.pos >= this.src.length;
+  }
+
+  alternation(): Shape {
+    const branches = [this.sequence()];
+    while (this.src[this.pos] === '|') {
+      this.pos++;
+      branches.push(this.sequence());
+    }
+    return branches.length === 1 ? branches[0] : either(branches);
+  }
+
+  private sequence(): Shape {
+    const items: Shape[] = [];
+    while (!this.atEnd() && this.src[this.pos] !== '|' && this.src[this.pos] !== ')') {
+      items.push(this.quantified(this.atom()));
+    }
+    return concatenation(items);
+  }
+
+  private atom(): Shape {
+    const ch = this.src[this.pos++];
+    if (ch === '(') return this.group();
+    if (ch === '[') return this.characterClass();
+    if (ch === '\\') return this.escape();
+    if (ch === '.') return UNKNOWN;
+    if (ch === '^' || ch === '$') return EMPTY;
+    return literal(ch);
+  }
+
+  private group(): Shape {
+    let zeroWidth = false;
+    if (this.src.startsWith('?:', this.pos)) this.pos += 2;
+    else if (this.src.startsWith('?=', this.pos) || this.src.startsWith('?!', this.pos)) {
+      this.pos += 2;
+      zeroWidth = true;
+    } else if (this.src.startsWith('?<=', this.pos) || this.src.startsWith('?<!', this.pos)) {
+      this.pos += 3;
+      zeroWidth = true;
+    } else if (this.src.startsWith('?<', this.pos)) {
+      const close = this.src.indexOf('>', this.pos);
+      if (close === -1) throw new SyntaxError(`Unclosed group name in ${this.src}`);
+      this.pos = close + 1;
+    } else if (this.src[this.pos] === '?') {
+      throw new SyntaxError(`Unknown group type in ${this.src}`);
+    }
+    const inner = this.alternation();
+    if (this.src[this.pos] !== ')') throw new SyntaxError(`Unclosed group in ${this.src}`);
+    this.pos++;
+    return zeroWidth ? EMPTY : inner;
+  }
+
+  private characterClass(): Shape {
+    const negated = this.src[this.pos] === '^';
+    if (negated) this.pos++;
+    const chars = new Set<string>();
+    let known = !negated;
+    while (!this.atEnd() && this.src[this.pos] !== ']') {
+      let ch = this.src[this.pos++];
+      if (ch === '\\') {
+        const esc = this.src[this.pos++];
+        if (/[\w]/.test(esc)) known = false; // \w, \s, \d, \b (backspace), \xHH ...: not read
+        ch = esc;
+      }
+      if (this.src[this.pos] === '-' && this.src[this.pos + 1] !== ']' && this.pos + 1 < this.src.length) {
+        known = false; // a range
+        this.pos += 2;
+        if (this.src[this.pos - 1] === '\\') this.pos++;
+        continue;
+      }
+      if (ch.charCodeAt(0) > 0x7f) known = false;
+      chars.add(ch.toLowerCase());
+    }
+    if (this.src[this.pos] !== ']') throw new SyntaxError(`Unclosed class in ${this.src}`);
+    this.pos++;
+    return known && chars.size > 0 && chars.size <= MAX_CLASS ? { exact: [...chars], required: null } : UNKNOWN;
+  }
+
+  private escape(): Shape {
+    const ch = this.src[this.pos++];
+    if (ch === 'b' || ch === 'B') return EMPTY;
+    if (ch === 'n') return literal('\n');
+    if (ch === 't') return literal('\t');
+    if (ch === 'k') {
+      const close = this.src.indexOf('>', this.pos);
+      this.pos = close === -1 ? this.pos : close + 1;
+      return UNKNOWN;
+    }
+    if (ch === 'x') this.pos += 2;
+    else if (ch === 'u') this.pos += 4;
+    else if (ch === 'c') this.pos += 1;
+    // Letters and digits stand for classes, back-references or code points: not read.
+    if (/[\w]/.test(ch)) return UNKNOWN;
+    return literal(ch);
+  }
+
+  private quantified(shape: Shape): Shape {
+    const ch = this.src[this.pos];
+    let min: number;
+    let max: number;
+    if (ch === '?' || ch === '*' || ch === '+') {
+      this.pos++;
+      min = ch === '+' ? 1 : 0;
+      max = ch === '?' ? 1 : Infinity;
+    } else {
+      const m = /^\{(\d+)(,(\d*))?\}/.exec(this.src.slice(this.pos));
+      if (!m) return shape;
+      this.pos += m[0].length;
+      min = Number(m[1]);
+      max = m[2] === undefined ? min : m[3] === '' ? Infinity : Number(m[3]);
+    }
+    if (this.src[this.pos] === '?') this.pos++; // lazy
+    if (min === 1 && max === 1) return shape;
+    if (min === 0) return max === 1 && shape.exact ? { exact: unique([...shape.exact, '']), required: null } : UNKNOWN;
+    return { exact: null, required: mustContain(shape) };
+  }
+}
+
+function literal(ch: string): Shape {
+  return ch.charCodeAt(0) > 0x7f ? UNKNOWN : { exact: [ch.toLowerCase()], required: null };
+}
+
+function unique(list: readonly string[]): string[] {
+  return [...new Set(list)];
+}
+
+/** The literals every match contains: from the exact set or the known ones, whichever is better. */
+function mustContain(shape: Shape): readonly string[] | null {
+  const fromExact = shape.exact && !shape.exact.includes('') ? reduce(shape.exact) : null;
+  return better(fromExact, shape.required);
+}
+
+/** Drops literals that contain another one of the list (a string containing "gfci" contains "gfc"). */
+function reduce(list: readonly string[]): string[] {
+  const sorted = unique(list).sort((a, b) => a.length - b.length);
+  return sorted.filter((l, i) => !sorted.slice(0, i).some((shorter) => l.includes(shorter)));
+}
+
+/** The more selective list: longer shortest literal first, then fewer literals. */
+function better(a: readonly string[] | null, b: readonly string[] | null): readonly string[] | null {
+  if (!a || a.length === 0) return b && b.length > 0 ? b : null;
+  if (!b || b.length === 0) return a;
+  const shortest = (l: readonly string[]) => Math.min(...l.map((s) => s.length));
+  const byLength = shortest(a) - shortest(b);
+  if (byLength !== 0) return byLength > 0 ? a : b;
+  return a.length <= b.length ? a : b;
+}
+
+function either(branches: readonly Shape[]): Shape {
+  const exacts = branches.map((b) => b.exact);
+  const allExact = exacts.every((e): e is readonly string[] => e !== null);
+  const exact = allExact ? unique(exacts.flat()) : null;
+  const parts = branches.map(mustContain);
+  const required = parts.every((p): p is readonly string[] => p !== null) ? reduce(parts.flat()) : null;
+  return { exact: exact && exact.length <= MAX_EXACT ? exact : null, required };
+}
+
+function concatenation(items: readonly Shape[]): Shape {
+  let run: string[] = [''];
+  let allExact = true;
+  let best: readonly string[] | null = null;
+  const flush = () => {
+    best = better(best, run.includes('') ? null : reduce(run));
+    run = [''];
+  };
+  for (const item of items) {
+    if (item.exact) {
+      const product = run.flatMap((a) => item.exact!.map((b) => a + b));
+      if (product.length <= MAX_EXACT) {
+        run = unique(product);
+        continue;
+      }
+      allExact = false;
+      flush();
+      run = [...item.exact];
+      continue;
+    }
+    allExact = false;
+    flush();
+    best = better(best, item.required);
+  }
+  const exact = allExact ? run : null;
+  flush();
+  return { exact, required: best };
+}
