@@ -1,6 +1,7 @@
 import { Routes } from '@angular/router';
 import { hasRole } from './core/auth/has-role-guard';
 import { signedIn } from './core/auth/signed-in-guard';
+import { requestPricingRoutes } from './pricing/pricing.routes';
 
 export const routes: Routes = [
   { path: '', pathMatch: 'full', redirectTo: 'requests' },
@@ -14,10 +15,21 @@ export const routes: Routes = [
     title: 'Invitation · Closing Circuit',
     loadComponent: () => import('./auth/accept-invitation/accept-invitation').then((m) => m.AcceptInvitation),
   },
+  ...requestPricingRoutes,
   {
     path: 'requests',
     canActivate: [signedIn],
     loadChildren: () => import('./requests/requests.routes').then((m) => m.requestsRoutes),
+  },
+  {
+    path: 'pricing',
+    canActivate: [signedIn],
+    loadChildren: () => import('./pricing/pricing.routes').then((m) => m.pricingRoutes),
+  },
+  {
+    path: 'rate-book',
+    canActivate: [signedIn],
+    loadChildren: () => import('./rate-book/rate-book.routes').then((m) => m.rateBookRoutes),
   },
   {
     path: 'account',

@@ -12,6 +12,16 @@ describe('navItemsFor', () => {
     expect(withAdmin).toEqual(['admin']);
   });
 
+  it('gives contractors their job queue of requests to price and their rate book, and no one else', () => {
+    expect(navItemsFor('contractor').map((item) => [item.id, item.label, item.link])).toEqual([
+      ['requests', 'Work queue', '/requests'],
+      ['job-queue', 'Job queue', '/pricing'],
+      ['rate-book', 'Rate book', '/rate-book'],
+    ]);
+    const withRateBook = ROLES.filter((role) => navItemsFor(role).some((item) => item.link === '/rate-book' || item.link === '/pricing'));
+    expect(withRateBook).toEqual(['contractor']);
+  });
+
   it('names the request list after what the role does with it', () => {
     expect(navItemsFor('contractor')[0]).toMatchObject({ link: '/requests', label: 'Work queue' });
     expect(navItemsFor('seller')[0].label).toBe('Repairs for my sale');

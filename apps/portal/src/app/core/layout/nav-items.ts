@@ -22,6 +22,12 @@ export function navItemsFor(role: Role): NavItem[] {
   if (role === 'agent' || role === 'admin') {
     items.push({ id: 'new-request', label: 'Start a request', icon: 'add_home', link: '/requests/new' });
   }
+  if (role === 'contractor') {
+    items.push(
+      { id: 'job-queue', label: 'Job queue', icon: 'request_quote', link: '/pricing' },
+      { id: 'rate-book', label: 'Rate book', icon: 'menu_book', link: '/rate-book' },
+    );
+  }
   if (role === 'admin') {
     items.push({ id: 'admin', label: 'People and organisations', icon: 'groups', link: '/admin' });
   }

@@ -11,6 +11,7 @@ import { Auth } from '../../core/auth/auth';
 import { describeFailure } from '../../core/http/api-error-of';
 import { Notice } from '../../core/http/notice';
 import { IntakePanel } from '../../intake/intake-panel/intake-panel';
+import { RequestPricingLinks } from '../../pricing/request-pricing-links/request-pricing-links';
 import { DaysToClosing } from '../../ui/days-to-closing/days-to-closing';
 import { SafetyNotice } from '../../ui/safety-notice/safety-notice';
 import { StatusChip } from '../../ui/status-chip/status-chip';
@@ -37,6 +38,7 @@ type Loaded = { detail: RepairRequestDetail; error?: undefined } | { detail?: un
     PartyList,
     InvitePartyForm,
     IntakePanel,
+    RequestPricingLinks,
   ],
   templateUrl: './request-detail.html',
   styleUrl: './request-detail.scss',

@@ -1,0 +1,62 @@
+import { DEMO_RATE_BOOK, PricingItem, RateBook, RequestPricing } from '@cc/shared';
+
+/*
+ * A small rate book taken from the demo rate book of docs/pricing.md (its worked examples use these
+ * entries and conditions), with the API's numeric ids as the engine's string ids.
+ */
+const demoEntry = (key: string) => DEMO_RATE_BOOK.entries.find((e) => e.id === key)!;
+const demoAdder = (key: string) => DEMO_RATE_BOOK.adders.find((a) => a.id === key)!;
+
+export const SMALL_BOOK: RateBook = {
+  contractorName: 'Brightline Electric',
+  terms: DEMO_RATE_BOOK.terms,
+  entries: [
+    { ...demoEntry('gfci-replace'), id: '11' },
+    { ...demoEntry('gfci-replace-flat'), id: '12' },
+    { ...demoEntry('double-tap-pigtail'), id: '13' },
+  ],
+  adders: [
+    { ...demoAdder('tight-box'), id: '21' },
+    { ...demoAdder('panel-shutoff'), id: '22' },
+  ],
+};
+
+export function pricingItem(id: number, overrides: Partial<PricingItem> = {}): PricingItem {
+  return {
+    id,
+    version: 1,
+    code: 'gfci-inoperative',
+    room: 'kitchen',
+    location: `counter ${id}`,
+    quantity: 1,
+    status: 'open',
+    entryId: null,
+    adderIds: [],
+    pricingQuantity: 1,
+    isQuantityAssumed: false,
+    visitKey: 'visit-1',
+    outOfScopeReason: null,
+    suggestedEntryId: 11,
+    isPriced: false,
+    lineCents: null,
+    ...overrides,
+  };
+}
+
+/** A request in pricing with the given items, priced (by the server) as `breakdown` says. */
+export function requestPricing(items: PricingItem[], overrides: Partial<RequestPricing> = {}): RequestPricing {
+  return {
+    requestId: 5,
+    status: 'pricing',
+    canEdit: true,
+    items,
+    visits: [{ key: 'visit-1', adderIds: [], hasPermit: false }],
+    rateBook: SMALL_BOOK,
+    pricingInput: null,
+    breakdown: null,
+    problem: null,
+    unpricedItemIds: items.filter((i) => i.entryId === null && i.status !== 'out-of-scope').map((i) => i.id),
+    currentQuoteVersion: null,
+    ...overrides,
+  };
+}

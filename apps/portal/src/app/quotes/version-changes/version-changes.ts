@@ -1,0 +1,23 @@
+import { ChangeDetectionStrategy, Component, input } from '@angular/core';
+import { QuoteChanges } from '@cc/shared';
+import { codeLabel } from '../../pricing/code-label';
+import { formatCentsDelta, MoneyPipe } from '../../pricing/money/money';
+
+/** What a quote version changed against the one before: lines added, taken off and re-priced, and the total. */
+@Component({
+  selector: 'cc-version-changes',
+  imports: [MoneyPipe],
+  templateUrl: './version-changes.html',
+  styleUrl: './version-changes.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class VersionChanges {
+  readonly changes = input.required<QuoteChanges>();
+
+  protected readonly label = codeLabel;
+  protected readonly delta = formatCentsDelta;
+
+  protected isEmpty(changes: QuoteChanges): boolean {
+    return changes.added.length + changes.removed.length + changes.changed.length === 0;
+  }
+}

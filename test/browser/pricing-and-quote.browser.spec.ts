@@ -1,0 +1,132 @@
+import { readFileSync } from 'node:fs';
+import type { Browser, Page } from 'playwright-core';
+import { launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
+
+jest.setTimeout(90_000);
+
+// The demo scenario (seeds/data/demo-scenario.ts): 1180 Ridgeview Drive waits for Brightline's prices
+// with four confirmed items, two of them "gfci-missing"; Tomás Garza is its seller. This file sends
+// its first quote, so no other browser test relies on that request staying in pricing.
+const STREET = '1180 Ridgeview Drive';
+const CONTRACTOR = 'sam.okafor@brightline.test';
+const SELLER = 'tomas.garza@mail.test';
+
+const dollars = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' });
+const asDollars = (cents: number) => dollars.format(cents / 100);
+
+let browser: Browser;
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(() => browser?.close());
+
+async function newPage(): Promise<Page> {
+  return browser.newPage({ viewport: { width: 1440, height: 1000 }, acceptDownloads: true });
+}
+
+/** The quote total the server computes itself, read through the same session as the page. */
+async function serverTotalCents(page: Page, requestId: string): Promise<number> {
+  const answer = await page.request.get(portalUrl(`/api/requests/${requestId}/pricing`));
+  expect(answer.ok()).toBe(true);
+  const body = (await answer.json()) as { breakdown: { totalCents: number } | null };
+  if (!body.breakdown) throw new Error('The server priced nothing');
+  return body.breakdown.totalCents;
+}
+
+async function quoteTotal(page: Page): Promise<string> {
+  return ((await page.getByTestId('totals-quote-total').textContent()) ?? '').trim();
+}
+
+describe('pricing a request and sending its quote', () => {
+  let requestId = '';
+  let sentTotal = '';
+
+  it('lets the contractor auto-price, change a group of items at once, watch the totals and send the quote', async () => {
+    const page = await newPage();
+    await signInAs(page, CONTRACTOR);
+    await page.getByTestId('nav-job-queue').click();
+    await page.getByTestId('pricing-queue-heading').waitFor();
+    const row = page.getByTestId('pricing-queue-row').filter({ hasText: STREET });
+    await row.waitFor();
+    expect(await row.getByTestId('pricing-queue-items').textContent()).toContain('4');
+    await row.getByTestId('pricing-queue-open').click();
+
+    await page.getByTestId('pricing-heading').filter({ hasText: STREET }).waitFor();
+    requestId = /\/requests\/(\d+)\/pricing/.exec(page.url())?.[1] ?? '';
+    expect(requestId).not.toBe('');
+    await page.getByTestId('totals-empty').waitFor();
+    await page.getByTestId('ballpark-label').filter({ hasText: 'Estimate, not a quote' }).waitFor();
+    expect(await page.getByTestId('pricing-send').isDisabled()).toBe(true);
+
+    // Auto-price: every item gets the first entry of the rate book for its finding.
+    await page.getByTestId('pricing-auto-price').click();
+    await page.getByTestId('pricing-unpriced').filter({ hasText: 'Every item is priced' }).waitFor();
+    await page.getByTestId('totals-quote-total').waitFor();
+    const autoTotal = await quoteTotal(page);
+    // The portal's live total (shared engine in the browser) is the server's own figure.
+    expect(autoTotal).toBe(asDollars(await serverTotalCents(page, requestId)));
+    await screenshot(page, 'pricing-auto-priced');
+
+    // Select both GFCI findings at once and give them a site condition.
+    await page.getByTestId('pricing-pick-code').filter({ hasText: 'gfci-missing' }).click();
+    expect(await page.getByTestId('bulk-selected-count').textContent()).toContain('2 items selected');
+    await page.getByRole('checkbox', { name: 'Set site conditions' }).check();
+    await page.getByTestId('bulk-adders').click();
+    await page.locator('mat-option').filter({ hasText: 'Shallow or crowded box' }).click();
+    await page.keyboard.press('Escape');
+    const preview = page.getByTestId('bulk-preview-total');
+    await preview.waitFor();
+    const previewTotal = ((await preview.textContent()) ?? '').trim();
+    expect(previewTotal).not.toBe(autoTotal);
+    await screenshot(page, 'pricing-bulk-preview');
+
+    await page.getByTestId('bulk-apply').click();
+    await page.getByTestId('totals-quote-total').filter({ hasText: previewTotal }).waitFor();
+    const gfciRows = page.locator('[data-testid="pricing-row"][data-code="gfci-missing"]');
+    expect(await gfciRows.count()).toBe(2);
+    for (const adders of await gfciRows.getByTestId('pricing-adders').allTextContents()) expect(adders).toContain('Shallow or crowded box');
+    const otherAdders = await page.locator('[data-testid="pricing-row"]:not([data-code="gfci-missing"])').getByTestId('pricing-adders').allTextContents();
+    expect(otherAdders.every((text) => text.trim() === '—')).toBe(true);
+    sentTotal = await quoteTotal(page);
+    expect(sentTotal).toBe(asDollars(await serverTotalCents(page, requestId)));
+    await screenshot(page, 'pricing-group-changed');
+
+    await page.getByTestId('pricing-note').fill('Both GFCI boxes are shallow; priced with the extra time.');
+    await page.getByTestId('pricing-send').click();
+    await page.getByTestId('quote-heading').filter({ hasText: 'version 1' }).waitFor();
+    expect(await page.getByTestId('quote-current-flag').textContent()).toContain('Current version');
+    expect(await page.getByTestId('totals-quote-total').textContent()).toContain(sentTotal);
+    await screenshot(page, 'quote-sent-contractor');
+    await page.close();
+  });
+
+  it('shows the seller the quote and lets them download it as a PDF', async () => {
+    expect(requestId).not.toBe('');
+    const page = await newPage();
+    await signInAs(page, SELLER);
+    const row = page.getByTestId('request-row').filter({ hasText: STREET });
+    await row.waitFor();
+    expect(await row.textContent()).toContain('Quote with seller');
+
+    await row.click();
+    await page.getByTestId('request-detail-heading').filter({ hasText: STREET }).waitFor();
+    await page.getByTestId('request-quote-link').click();
+    await page.getByTestId('quote-heading').filter({ hasText: 'version 1' }).waitFor();
+    expect(page.url()).toContain(`/requests/${requestId}/quotes`);
+    expect(await page.getByTestId('quote-current-flag').textContent()).toContain('Current version');
+    expect(await page.getByTestId('totals-quote-total').textContent()).toContain(sentTotal);
+    expect(await page.getByTestId('quote-line').count()).toBe(4);
+    expect(await page.getByTestId('quote-note').textContent()).toContain('shallow');
+    expect(await page.getByTestId('quote-safety-notice').textContent()).toMatch(/licensed/i);
+    expect(await page.getByTestId('quote-licence').textContent()).toMatch(/Licence \S+/);
+    await screenshot(page, 'quote-seller');
+
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('quote-pdf').click()]);
+    expect(download.suggestedFilename()).toMatch(/quote-v1\.pdf$/);
+    const pdf = readFileSync(await download.path());
+    // A PDF file starts with the "%PDF-" header (ISO 32000-1, 7.5.2).
+    expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    await page.close();
+  });
+});
