@@ -1,12 +1,14 @@
+import { clauseRanges } from './clause-splitter';
 import { matchCodes } from './code-matcher';
+import { readLocation } from './location-reader';
 import type { FindingCode } from './finding-code';
 import type { MappedText } from './mapped-text';
 import { negatedSpans } from './negation-detector';
 import { readQuantity } from './quantity-reader';
 import { scanAll } from './regex-scan';
-import { findRooms } from './room-lexicon';
+import { findRooms, type RoomMention } from './room-lexicon';
 import type { Room } from './room';
-import { lastPlaceNamed, placeMatches, type CarriedPlace } from './room-resolver';
+import { lastPlaceMention, placeMatches } from './room-resolver';
 import type { Section } from './block-splitter';
 import { splitSentences } from './sentence-splitter';
 
@@ -44,16 +46,22 @@ const VERB = /\b(?:is|are|was|were|has|have|had|be|been)\b/i;
 export function readBlock(text: MappedText, section: Section): BlockResult {
   const found: BlockFinding[] = [];
   let hasNegated = false;
-  let previous: { place: CarriedPlace; isLabel: boolean } | null = null;
+  // The last place named so far; its location is read only when a later sentence refers back to it.
+  let previous: { text: string; mention: RoomMention; isLabel: boolean } | null = null;
 
   for (const sentence of splitSentences(text)) {
     const matches = matchCodes(sentence.text);
-    const negated = negatedSpans(sentence.text, matches);
+    // Clauses are cut once per sentence with phrases, for negation and for places alike.
+    const clauses = matches.length > 0 ? clauseRanges(sentence.text) : [];
+    const negated = negatedSpans(sentence.text, matches, clauses);
     const live = matches.filter((_, i) => !negated[i]);
     hasNegated ||= live.length < matches.length;
-    const carried = previous && (previous.isLabel || REFERS_BACK.test(sentence.text)) ? previous.place : null;
+    const carried =
+      previous && (previous.isLabel || REFERS_BACK.test(sentence.text))
+        ? { room: previous.mention.room, location: readLocation(previous.text, previous.mention) }
+        : null;
     const rooms = findRooms(sentence.text);
-    const placements = placeMatches(sentence.text, live, { carried, sectionRoom: section.room, sectionTitle: section.title }, rooms);
+    const placements = placeMatches(sentence.text, live, { carried, sectionRoom: section.room, sectionTitle: section.title }, rooms, clauses);
     const inSentence: BlockFinding[] = [];
     live.forEach((match, i) => {
       for (const place of placements[i]) {
@@ -74,9 +82,9 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
       }
     });
     found.push(...inSentence);
-    const place = lastPlaceNamed(sentence.text, rooms);
+    const mention = lastPlaceMention(rooms);
     const isLabel = matches.length === 0 && scanAll(WHITESPACE_RUN, sentence.text).length + 1 <= MAX_LABEL_WORDS && !VERB.test(sentence.text);
-    if (place) previous = { place, isLabel };
+    if (mention) previous = { text: sentence.text, mention, isLabel };
   }
   return { findings: keepDistinct(found), hasNegated };
 }

@@ -22,46 +22,56 @@ export interface MatchOptions {
   readonly ignoreTriggers?: boolean;
 }
 
-/** Every phrase of the table with its id, and whether it has required words (else it is always tried). */
-interface IndexedPattern {
+/**
+ * A regular expression of the table with an id and the words it cannot match without (derived by
+ * phrase-literals.ts); with none derived it is always tried.
+ */
+interface Indexed<T> {
   readonly id: number;
-  readonly pattern: CodePattern;
-  readonly isAlwaysTried: boolean;
+  readonly item: T;
+  readonly literals: readonly string[] | null;
 }
 
-const INDEXED: ReadonlyArray<{ readonly rule: CodeRule; readonly patterns: readonly IndexedPattern[] }> = (() => {
+interface IndexedRule {
+  readonly rule: CodeRule;
+  /** The code's trigger words, as a regular expression of their own. */
+  readonly trigger: Indexed<RegExp>;
+  readonly patterns: ReadonlyArray<Indexed<CodePattern>>;
+}
+
+const INDEXED: readonly IndexedRule[] = (() => {
   let id = 0;
+  const index = <T>(item: T, re: RegExp): Indexed<T> => ({ id: id++, item, literals: requiredLiterals(re) });
   return CODE_RULES.map((rule) => ({
     rule,
-    patterns: rule.patterns.map((pattern) => ({ id: id++, pattern, isAlwaysTried: requiredLiterals(pattern.re) === null })),
+    trigger: index(rule.trigger, rule.trigger),
+    patterns: rule.patterns.map((pattern) => index(pattern, pattern.re)),
   }));
 })();
 
 /**
- * Per-phrase trigger words, derived from the phrase table (phrase-literals.ts): one scanner finds
- * in a single pass which phrases can match the sentence at all.
+ * Per-phrase and per-trigger required words, derived from the phrase table: one scanner finds in
+ * a single pass over the sentence which phrases and triggers can match it at all.
  */
-const PHRASE_WORDS: LiteralScanner = (() => {
+const REQUIRED_WORDS: LiteralScanner = (() => {
   const idsByLiteral = new Map<string, number[]>();
-  for (const { patterns } of INDEXED) {
-    for (const { id, pattern } of patterns) {
-      for (const literal of requiredLiterals(pattern.re) ?? []) idsByLiteral.set(literal, [...(idsByLiteral.get(literal) ?? []), id]);
-    }
+  const all = INDEXED.flatMap(({ trigger, patterns }) => [trigger, ...patterns]);
+  for (const { id, literals } of all) {
+    for (const literal of literals ?? []) idsByLiteral.set(literal, [...(idsByLiteral.get(literal) ?? []), id]);
   }
-  const count = INDEXED.reduce((n, { patterns }) => n + patterns.length, 0);
-  return new LiteralScanner([...idsByLiteral].map(([text, ids]) => ({ text, ids })), count);
+  return new LiteralScanner([...idsByLiteral].map(([text, ids]) => ({ text, ids })), all.length);
 })();
 
 function allMatches(sentence: string, options: MatchOptions): CodeMatch[] {
   const found: CodeMatch[] = [];
-  const possible = options.ignoreTriggers ? null : PHRASE_WORDS.scan(sentence.toLowerCase());
-  const isPossible = (p: IndexedPattern) => possible === null || p.isAlwaysTried || possible[p.id] === 1;
-  for (const { rule, patterns } of INDEXED) {
-    // The code's trigger words are tested only when one of its phrases has its own words here.
-    if (possible !== null && (!patterns.some(isPossible) || !rule.trigger.test(sentence))) continue;
+  const present = options.ignoreTriggers ? null : REQUIRED_WORDS.scan(sentence.toLowerCase());
+  const possible = (x: Indexed<unknown>) => present === null || x.literals === null || present[x.id] === 1;
+  for (const { rule, trigger, patterns } of INDEXED) {
+    // The code's trigger is tested only when one of its phrases and the trigger itself can match.
+    if (present !== null && (!patterns.some(possible) || !possible(trigger) || !rule.trigger.test(sentence))) continue;
     for (const indexed of patterns) {
-      if (!isPossible(indexed)) continue;
-      const { pattern } = indexed;
+      if (!possible(indexed)) continue;
+      const pattern = indexed.item;
       if (pattern.context && !pattern.context.test(sentence)) continue;
       if (pattern.unless && pattern.unless.test(sentence)) continue;
       for (const m of scanAll(pattern.re, sentence)) {

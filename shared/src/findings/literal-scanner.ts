@@ -12,10 +12,12 @@ export class LiteralScanner {
   private readonly next: Int32Array;
   /** The ids found on reaching each state (its literals and those of its suffixes). */
   private readonly found: ReadonlyArray<readonly number[]>;
+  /** The answer of the last scan (allocating a typed array per sentence costs more than the scan). */
+  private readonly hits: Uint8Array;
 
   constructor(
     literals: ReadonlyArray<{ readonly text: string; readonly ids: readonly number[] }>,
-    private readonly idCount: number,
+    idCount: number,
   ) {
     let letters = 1;
     for (const { text } of literals) {
@@ -75,12 +77,16 @@ export class LiteralScanner {
     }
     this.next = next;
     this.found = output;
+    this.hits = new Uint8Array(idCount);
   }
 
-  /** For every id, whether one of its literals occurs in `lowerText` (already in lower case). */
+  /**
+   * For every id, whether one of its literals occurs in `lowerText` (already in lower case). The
+   * array is the scanner's own and is overwritten by the next scan: read it before scanning again.
+   */
   scan(lowerText: string): Uint8Array {
-    const hits = new Uint8Array(this.idCount);
-    const { alphabet, next, found, width } = this;
+    const { alphabet, next, found, width, hits } = this;
+    hits.fill(0);
     let state = 0;
     for (let i = 0; i < lowerText.length; i++) {
       const code = lowerText.charCodeAt(i);

@@ -9,56 +9,67 @@ export interface MappedText {
   readonly offsets: readonly number[];
 }
 
+const WHITESPACE = /\s/;
+
 export class MappedTextBuilder {
-  private chars: string[] = [];
+  /** The text so far; source characters are appended in runs (slices), not one by one. */
+  private text = '';
   private offsets: number[] = [];
+  /** The last character of `text` ('' while empty). */
+  private last = '';
 
   /** Appends source[from, to) character by character, collapsing runs of spaces and tabs. */
   appendSource(source: string, from: number, to: number): void {
+    let run = from; // start of the source run not yet appended to `text`
     for (let i = from; i < to; i++) {
-      const ch = source[i] === '\t' ? ';' : source[i];
-      if (ch === ' ' && (this.chars.length === 0 || /\s$/.test(this.last()))) continue;
-      this.push(ch, i);
+      const ch = source[i];
+      if (ch === '\t') {
+        this.text += source.slice(run, i) + ';';
+        run = i + 1;
+      } else if (ch === ' ' && (this.offsets.length === 0 || WHITESPACE.test(this.last))) {
+        this.text += source.slice(run, i);
+        run = i + 1;
+        continue;
+      }
+      this.offsets.push(i);
+      this.last = ch === '\t' ? ';' : ch;
     }
+    this.text += source.slice(run, to);
   }
 
   /** Appends a separator standing for a source position (a line break becomes ' ' or '\n'). */
   appendSeparator(ch: ' ' | '\n', sourceIndex: number): void {
-    if (this.chars.length === 0) return;
-    const last = this.last();
-    if (last === '\n' || (ch === ' ' && /\s/.test(last))) return;
+    if (this.offsets.length === 0) return;
+    const last = this.last;
+    if (last === '\n' || (ch === ' ' && WHITESPACE.test(last))) return;
     if (ch === '\n' && last === ' ') {
-      this.chars[this.chars.length - 1] = '\n';
+      this.text = this.text.slice(0, -1) + '\n';
+      this.last = '\n';
       return;
     }
-    this.push(ch, sourceIndex);
+    this.text += ch;
+    this.offsets.push(sourceIndex);
+    this.last = ch;
   }
 
   /** Removes a trailing hyphen (a word wrapped across lines) so the halves join. */
   dropTrailingHyphen(): void {
-    if (this.last() === '-') {
-      this.chars.pop();
+    if (this.last === '-') {
+      this.text = this.text.slice(0, -1);
       this.offsets.pop();
+      this.last = this.text[this.text.length - 1] ?? '';
     }
   }
 
   lastChar(): string {
-    return this.last();
+    return this.last;
   }
 
   build(): MappedText {
-    let end = this.chars.length;
-    while (end > 0 && /\s/.test(this.chars[end - 1])) end--;
-    return { text: this.chars.slice(0, end).join(''), offsets: this.offsets.slice(0, end) };
-  }
-
-  private last(): string {
-    return this.chars[this.chars.length - 1] ?? '';
-  }
-
-  private push(ch: string, index: number): void {
-    this.chars.push(ch);
-    this.offsets.push(index);
+    const { text } = this;
+    let end = text.length;
+    while (end > 0 && WHITESPACE.test(text[end - 1])) end--;
+    return { text: text.slice(0, end), offsets: this.offsets.slice(0, end) };
   }
 }
 

@@ -23,8 +23,8 @@ function cuesOutside(text: string, re: RegExp, spans: readonly Range[]): Range[]
 }
 
 /** For each span (sorted by start, not overlapping), whether the sentence denies it. */
-export function negatedSpans(text: string, spans: readonly Range[]): boolean[] {
-  const clauses = clauseRanges(text);
+export function negatedSpans(text: string, spans: readonly Range[], clauses: readonly Range[] = clauseRanges(text)): boolean[] {
+  if (spans.length === 0) return [];
   const clauseOf = (pos: number) => clauseIndexAt(clauses, pos);
   const negated = spans.map(() => false);
   const isListed = (a: Range, b: Range) => LIST_JOIN.test(text.slice(a.end, b.start));

@@ -185,8 +185,11 @@ function mustContain(shape: Shape): readonly string[] | null {
 
 /** Drops literals that contain another one of the list (a string containing "gfci" contains "gfc"). */
 function reduce(list: readonly string[]): string[] {
-  const sorted = unique(list).sort((a, b) => a.length - b.length);
-  return sorted.filter((l, i) => !sorted.slice(0, i).some((shorter) => l.includes(shorter)));
+  const kept: string[] = [];
+  for (const l of unique(list).sort((a, b) => a.length - b.length)) {
+    if (!kept.some((shorter) => l.includes(shorter))) kept.push(l);
+  }
+  return kept;
 }
 
 /** The more selective list: longer shortest literal first, then fewer literals. */
@@ -210,17 +213,28 @@ function either(branches: readonly Shape[]): Shape {
 
 function concatenation(items: readonly Shape[]): Shape {
   let run: string[] = [''];
+  /** Single strings read since the last product, appended to every string of the run at once. */
+  let pending = '';
   let allExact = true;
   let best: readonly string[] | null = null;
+  const settle = () => {
+    if (pending !== '') run = run.map((a) => a + pending);
+    pending = '';
+  };
   const flush = () => {
+    settle();
     best = better(best, run.includes('') ? null : reduce(run));
     run = [''];
   };
   for (const item of items) {
+    if (item.exact && item.exact.length === 1) {
+      pending += item.exact[0];
+      continue;
+    }
     if (item.exact) {
-      const product = run.flatMap((a) => item.exact!.map((b) => a + b));
-      if (product.length <= MAX_EXACT) {
-        run = unique(product);
+      settle();
+      if (run.length * item.exact.length <= MAX_EXACT) {
+        run = unique(run.flatMap((a) => item.exact!.map((b) => a + b)));
         continue;
       }
       allExact = false;
@@ -232,6 +246,7 @@ function concatenation(items: readonly Shape[]): Shape {
     flush();
     best = better(best, item.required);
   }
+  settle();
   const exact = allExact ? run : null;
   flush();
   return { exact, required: best };

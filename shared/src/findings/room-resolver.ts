@@ -86,9 +86,9 @@ export function placeMatches(
   matches: readonly CodeMatch[],
   context: PlaceContext,
   rooms: readonly RoomMention[] = findRooms(text),
+  clauses: readonly Range[] = clauseRanges(text),
 ): Placement[][] {
   if (matches.length === 0) return [];
-  const clauses = clauseRanges(text);
   const parts = segments(text, matches, clauses);
   return matches.map((match, i) => {
     const part = parts[i];
@@ -126,9 +126,16 @@ function fixedLocation(text: string, rooms: readonly RoomMention[], part: Range,
   return own ? readLocation(text, own) : '';
 }
 
-/** The place a later sentence of the same block can refer back to: the last one named, panels excluded. */
+/** The mention a later sentence of the same block can refer back to: the last place named, panels excluded. */
+export function lastPlaceMention(rooms: readonly RoomMention[]): RoomMention | null {
+  for (let i = rooms.length - 1; i >= 0; i--) {
+    if (!rooms[i].isReferencePoint && rooms[i].room !== 'panel') return rooms[i];
+  }
+  return null;
+}
+
+/** The place a later sentence of the same block can refer back to, with its location as written. */
 export function lastPlaceNamed(text: string, rooms: readonly RoomMention[] = findRooms(text)): CarriedPlace | null {
-  const usable = rooms.filter((r) => !r.isReferencePoint && r.room !== 'panel');
-  const last = usable[usable.length - 1];
+  const last = lastPlaceMention(rooms);
   return last ? { room: last.room, location: readLocation(text, last) } : null;
 }

@@ -58,8 +58,9 @@ const NUMBERING = /^\s*(?:section\s+)?(?:\d{1,2}(?:\.\d{1,2})*\.?|[ivx]{1,4}\.|[
 
 export function classifyHeadingLine(line: string): HeadingLine | null {
   const trimmed = line.trim();
+  if (trimmed.length > 70) return null;
   const title = trimmed.replace(NUMBERING, '').replace(/\s*[:\-–—]+\s*$/, '').trim();
-  if (title.length === 0 || trimmed.length > 70 || /[.!?;]/.test(title)) return null;
+  if (title.length === 0 || /[.!?;]/.test(title)) return null;
   const words = title.toLowerCase().match(/[a-z&'/-]+|\d+/g) ?? [];
   if (words.length === 0 || words.length > 8) return null;
   const isKnown = (w: string) =>

@@ -29,7 +29,7 @@ export function splitSentences(block: MappedText): MappedText[] {
     const ch = text[i];
     if (ch === '\n') {
       cut(i, i + 1);
-    } else if (/[.!?]/.test(ch) && /^\s+["'(\p{Lu}\p{N}•\-]/u.test(text.slice(i + 1, i + 3))) {
+    } else if ((ch === '.' || ch === '!' || ch === '?') && /^\s+["'(\p{Lu}\p{N}•\-]/u.test(text.slice(i + 1, i + 3))) {
       if (ch === '.' && isAbbreviation(text, i)) continue;
       cut(i + 1, i + 1);
     }
