@@ -1,4 +1,4 @@
-import { DEMO_RATE_BOOK, PricingItem, RateBook, RequestPricing } from '@cc/shared';
+import { DEMO_RATE_BOOK, PricingItem, RateBook, RepairRequestDetail, RequestPricing } from '@cc/shared';
 
 /*
  * A small rate book taken from the demo rate book of docs/pricing.md (its worked examples use these
@@ -57,6 +57,31 @@ export function requestPricing(items: PricingItem[], overrides: Partial<RequestP
     problem: null,
     unpricedItemIds: items.filter((i) => i.entryId === null && i.status !== 'out-of-scope').map((i) => i.id),
     currentQuoteVersion: null,
+    ...overrides,
+  };
+}
+
+/** The request the pricing page names in its heading. */
+export function requestDetail(overrides: Partial<RepairRequestDetail> = {}): RepairRequestDetail {
+  return {
+    id: 5,
+    reference: 'CC-00005',
+    street: '48 Tamarack Loop',
+    city: 'Marlow Springs',
+    state: 'CO',
+    zip: '81290',
+    yearBuilt: 1978,
+    closingDate: '2026-05-01',
+    necEdition: 2023,
+    status: 'pricing',
+    contractorName: 'Brightline Electric',
+    itemCount: 2,
+    createdAt: '2026-04-01T10:00:00Z',
+    updatedAt: '2026-04-02T10:00:00Z',
+    contractor: { id: 7, name: 'Brightline Electric', licenceNumber: 'EC-0048215', licenceState: 'CO', licenceClass: 'Electrical contractor' },
+    parties: [],
+    history: [{ from: null, to: 'draft', at: '2026-04-01T10:00:00Z', byName: 'Ada Agent', note: null }],
+    myParts: [],
     ...overrides,
   };
 }

@@ -12,11 +12,10 @@ import { Observable } from 'rxjs';
 import { applyIssues } from '../../core/forms/apply-issues';
 import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { issuesOf } from '../../core/forms/issues-of';
-import { zodValidator } from '../../core/forms/zod-validator';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
 import { RateBookApi } from '../rate-book-api';
 import { bpToFactor, factorToBp, toWholeNumber } from '../units';
-import { TYPE_WHOLE, unitValidator } from '../unit-validator';
+import { textValidator, unitValidator, WHOLE } from '../field-validators';
 
 export interface AdderFormData {
   adder: SiteAdderRecord | null;
@@ -45,10 +44,10 @@ export class AdderFormDialog {
   private readonly adder = this.data.adder;
   private readonly effect = this.adder?.effect;
   protected readonly form = this.fb.group({
-    name: [this.adder?.name ?? '', zodValidator(SiteAdderSchema.shape.name)],
+    name: [this.adder?.name ?? '', textValidator(SiteAdderSchema.shape.name, 'Name the condition')],
     kind: this.fb.control<AdderKind>(this.effect?.kind ?? 'minutes-per-unit'),
     amount: [this.effect ? (this.effect.kind === 'labour-multiplier' ? bpToFactor(this.effect.multiplierBp) : String(this.effect.minutes)) : ''],
-    builtBefore: [this.adder?.appliesWhenBuiltBefore === null || !this.adder ? '' : String(this.adder.appliesWhenBuiltBefore), unitValidator(toWholeNumber, SiteAdderSchema.shape.appliesWhenBuiltBefore, TYPE_WHOLE, true)],
+    builtBefore: [this.adder?.appliesWhenBuiltBefore === null || !this.adder ? '' : String(this.adder.appliesWhenBuiltBefore), unitValidator(WHOLE, SiteAdderSchema.shape.appliesWhenBuiltBefore, true)],
   });
   protected readonly kind = toSignal(this.form.controls.kind.valueChanges, { initialValue: this.form.controls.kind.value });
   protected readonly formError = signal<string | null>(null);

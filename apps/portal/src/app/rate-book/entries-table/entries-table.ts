@@ -12,14 +12,13 @@ import { EntryPricing, FlatPricingSchema, RateBookEntryContentSchema, RateBookEn
 import { applyIssues } from '../../core/forms/apply-issues';
 import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { issuesOf } from '../../core/forms/issues-of';
-import { zodValidator } from '../../core/forms/zod-validator';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
 import { Notice } from '../../core/http/notice';
 import { pricingSummary } from '../entry-draft';
 import { EntryFormData, EntryFormDialog } from '../entry-form-dialog/entry-form-dialog';
 import { RateBookApi } from '../rate-book-api';
 import { centsToDollars, dollarsToCents, toWholeNumber } from '../units';
-import { TYPE_DOLLARS, TYPE_WHOLE, unitValidator } from '../unit-validator';
+import { DOLLARS, textValidator, unitValidator, WHOLE } from '../field-validators';
 
 /** The rate book's entries, with the name and main price of a row editable in place and the rest in a form. */
 @Component({
@@ -45,7 +44,7 @@ export class EntriesTable {
   protected readonly editingId = signal<number | null>(null);
   protected readonly rowError = signal<string | null>(null);
   protected readonly inline = this.fb.group({
-    name: ['', zodValidator(RateBookEntrySchema.shape.name)],
+    name: ['', textValidator(RateBookEntrySchema.shape.name, 'Name the entry')],
     /** Labour minutes (time and materials) or the first-unit price in dollars (flat). */
     main: [''],
     /** The each-additional price in dollars (flat only). */
@@ -63,10 +62,10 @@ export class EntriesTable {
     });
     const { main, additional } = this.inline.controls;
     if (p.mode === 'flat') {
-      main.setValidators(unitValidator(dollarsToCents, FlatPricingSchema.shape.firstUnitCents, TYPE_DOLLARS));
-      additional.setValidators(unitValidator(dollarsToCents, FlatPricingSchema.shape.additionalUnitCents, TYPE_DOLLARS));
+      main.setValidators(unitValidator(DOLLARS, FlatPricingSchema.shape.firstUnitCents));
+      additional.setValidators(unitValidator(DOLLARS, FlatPricingSchema.shape.additionalUnitCents));
     } else {
-      main.setValidators(unitValidator(toWholeNumber, TimeAndMaterialsPricingSchema.shape.labourMinutesPerUnit, TYPE_WHOLE));
+      main.setValidators(unitValidator(WHOLE, TimeAndMaterialsPricingSchema.shape.labourMinutesPerUnit));
       additional.clearValidators();
     }
     main.updateValueAndValidity();

@@ -31,8 +31,7 @@ import { applyServerErrors } from '../../core/http/apply-server-errors';
 import { formatCents } from '../../pricing/money/money';
 import { MaterialDraft, materialDraft, materialsTotalCents, pricingDraft, toEntryPricing } from '../entry-draft';
 import { RateBookApi } from '../rate-book-api';
-import { dollarsToCents, factorToBp, percentToBp, toWholeNumber } from '../units';
-import { TYPE_DOLLARS, TYPE_FACTOR, TYPE_PERCENT, TYPE_WHOLE, unitValidator } from '../unit-validator';
+import { DOLLARS, FACTOR, PERCENT, textValidator, unitValidator, WHOLE } from '../field-validators';
 
 export interface EntryFormData {
   /** The entry to change; null for a new one. */
@@ -65,19 +64,19 @@ export class EntryFormDialog {
   protected readonly form = this.fb.group({
     key: [this.entry?.key ?? '', zodValidator(RateBookKeySchema.optional(), (v) => (v === '' ? undefined : v))],
     code: this.fb.control<string | null>(this.entry?.code ?? null),
-    name: [this.entry?.name ?? '', zodValidator(RateBookEntrySchema.shape.name)],
-    unit: [this.entry?.unit ?? 'device', zodValidator(RateBookEntrySchema.shape.unit)],
+    name: [this.entry?.name ?? '', textValidator(RateBookEntrySchema.shape.name, 'Name the entry')],
+    unit: [this.entry?.unit ?? 'device', textValidator(RateBookEntrySchema.shape.unit, 'Say what the quantity counts')],
     pricing: this.fb.group({
       mode: this.fb.control<EntryPricing['mode']>(this.start.mode),
-      labourMinutesPerUnit: [this.start.labourMinutesPerUnit, unitValidator(toWholeNumber, tm.labourMinutesPerUnit, TYPE_WHOLE)],
-      materialsCentsPerUnit: [this.start.materialsCentsPerUnit, unitValidator(dollarsToCents, tm.materialsCentsPerUnit, TYPE_DOLLARS)],
-      markupBp: [this.start.markupBp, unitValidator(percentToBp, ShareBpSchema, TYPE_PERCENT, true)],
-      minutesLow: [this.start.minutesLow, unitValidator(toWholeNumber, tm.minutesLow, TYPE_WHOLE)],
-      minutesHigh: [this.start.minutesHigh, unitValidator(toWholeNumber, tm.minutesHigh, TYPE_WHOLE)],
+      labourMinutesPerUnit: [this.start.labourMinutesPerUnit, unitValidator(WHOLE, tm.labourMinutesPerUnit)],
+      materialsCentsPerUnit: [this.start.materialsCentsPerUnit, unitValidator(DOLLARS, tm.materialsCentsPerUnit)],
+      markupBp: [this.start.markupBp, unitValidator(PERCENT, ShareBpSchema, true)],
+      minutesLow: [this.start.minutesLow, unitValidator(WHOLE, tm.minutesLow)],
+      minutesHigh: [this.start.minutesHigh, unitValidator(WHOLE, tm.minutesHigh)],
       materials: this.fb.array(this.start.materials.map((m) => this.materialGroup(m))),
-      firstUnitCents: [this.start.firstUnitCents, unitValidator(dollarsToCents, flat.firstUnitCents, TYPE_DOLLARS)],
-      additionalUnitCents: [this.start.additionalUnitCents, unitValidator(dollarsToCents, flat.additionalUnitCents, TYPE_DOLLARS)],
-      hardSiteMultiplierBp: [this.start.hardSiteMultiplierBp, unitValidator(factorToBp, flat.hardSiteMultiplierBp, TYPE_FACTOR)],
+      firstUnitCents: [this.start.firstUnitCents, unitValidator(DOLLARS, flat.firstUnitCents)],
+      additionalUnitCents: [this.start.additionalUnitCents, unitValidator(DOLLARS, flat.additionalUnitCents)],
+      hardSiteMultiplierBp: [this.start.hardSiteMultiplierBp, unitValidator(FACTOR, flat.hardSiteMultiplierBp)],
     }),
   });
   protected readonly pricing = this.form.controls.pricing.controls;
@@ -138,9 +137,9 @@ export class EntryFormDialog {
 
   private materialGroup(m: MaterialDraft): FormGroup<{ name: FormControl<string>; quantityPerUnit: FormControl<string>; unitCostCents: FormControl<string> }> {
     return this.fb.group({
-      name: [m.name, zodValidator(MaterialSchema.shape.name)],
-      quantityPerUnit: [m.quantityPerUnit, unitValidator(toWholeNumber, MaterialSchema.shape.quantityPerUnit, TYPE_WHOLE)],
-      unitCostCents: [m.unitCostCents, unitValidator(dollarsToCents, MaterialSchema.shape.unitCostCents, TYPE_DOLLARS)],
+      name: [m.name, textValidator(MaterialSchema.shape.name, 'Name the material')],
+      quantityPerUnit: [m.quantityPerUnit, unitValidator(WHOLE, MaterialSchema.shape.quantityPerUnit)],
+      unitCostCents: [m.unitCostCents, unitValidator(DOLLARS, MaterialSchema.shape.unitCostCents)],
     });
   }
 

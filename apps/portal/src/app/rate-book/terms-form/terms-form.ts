@@ -8,12 +8,11 @@ import { PermitTermsSchema, RateBookTermsRecord, VisitTerms, VisitTermsSchema } 
 import { applyIssues } from '../../core/forms/apply-issues';
 import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { issuesOf } from '../../core/forms/issues-of';
-import { zodValidator } from '../../core/forms/zod-validator';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
 import { Notice } from '../../core/http/notice';
 import { RateBookApi } from '../rate-book-api';
 import { bpToPercent, centsToDollars, dollarsToCents, percentToBp, toWholeNumber } from '../units';
-import { TYPE_DOLLARS, TYPE_PERCENT, TYPE_WHOLE, unitValidator } from '../unit-validator';
+import { DOLLARS, PERCENT, textValidator, unitValidator, WHOLE } from '../field-validators';
 
 const field = VisitTermsSchema.shape;
 const permit = PermitTermsSchema.shape;
@@ -36,21 +35,21 @@ export class TermsForm {
   readonly saved = output<RateBookTermsRecord>();
 
   protected readonly form = this.fb.group({
-    serviceCallCents: ['', unitValidator(dollarsToCents, field.serviceCallCents, TYPE_DOLLARS)],
-    firstHourMinimumCents: ['', unitValidator(dollarsToCents, field.firstHourMinimumCents, TYPE_DOLLARS)],
-    firstHourCoversMinutes: ['60', unitValidator(toWholeNumber, field.firstHourCoversMinutes, TYPE_WHOLE)],
-    hourlyRateCents: ['', unitValidator(dollarsToCents, field.hourlyRateCents, TYPE_DOLLARS)],
-    billingIncrementMinutes: ['15', unitValidator(toWholeNumber, field.billingIncrementMinutes, TYPE_WHOLE)],
-    materialsMarkupBp: ['', unitValidator(percentToBp, field.materialsMarkupBp, TYPE_PERCENT)],
-    materialsTaxBp: ['0', unitValidator(percentToBp, field.materialsTaxBp, TYPE_PERCENT)],
+    serviceCallCents: ['', unitValidator(DOLLARS, field.serviceCallCents)],
+    firstHourMinimumCents: ['', unitValidator(DOLLARS, field.firstHourMinimumCents)],
+    firstHourCoversMinutes: ['60', unitValidator(WHOLE, field.firstHourCoversMinutes)],
+    hourlyRateCents: ['', unitValidator(DOLLARS, field.hourlyRateCents)],
+    billingIncrementMinutes: ['15', unitValidator(WHOLE, field.billingIncrementMinutes)],
+    materialsMarkupBp: ['', unitValidator(PERCENT, field.materialsMarkupBp)],
+    materialsTaxBp: ['0', unitValidator(PERCENT, field.materialsTaxBp)],
     permit: this.fb.group({
-      feeCents: ['', unitValidator(dollarsToCents, permit.feeCents, TYPE_DOLLARS)],
-      handlingCents: ['', unitValidator(dollarsToCents, permit.handlingCents, TYPE_DOLLARS)],
+      feeCents: ['', unitValidator(DOLLARS, permit.feeCents)],
+      handlingCents: ['', unitValidator(DOLLARS, permit.handlingCents)],
     }),
-    cardDepositBp: ['', unitValidator(percentToBp, field.cardDepositBp, TYPE_PERCENT)],
-    quoteValidityDays: ['30', unitValidator(toWholeNumber, field.quoteValidityDays, TYPE_WHOLE)],
-    visitCapacityMinutes: ['480', unitValidator(toWholeNumber, field.visitCapacityMinutes, TYPE_WHOLE)],
-    warrantyText: ['', zodValidator(field.warrantyText)],
+    cardDepositBp: ['', unitValidator(PERCENT, field.cardDepositBp)],
+    quoteValidityDays: ['30', unitValidator(WHOLE, field.quoteValidityDays)],
+    visitCapacityMinutes: ['480', unitValidator(WHOLE, field.visitCapacityMinutes)],
+    warrantyText: ['', textValidator(field.warrantyText, 'Write the warranty the seller reads')],
   });
   protected readonly formError = signal<string | null>(null);
   protected readonly isBusy = signal(false);

@@ -1,0 +1,125 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { HarnessLoader } from '@angular/cdk/testing';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatCheckboxHarness } from '@angular/material/checkbox/testing';
+import { MatSelectHarness } from '@angular/material/select/testing';
+import { provideRouter, Router } from '@angular/router';
+import { BulkPriceItems, priceQuote, RequestPricing, SendQuote } from '@cc/shared';
+import { Clock } from '../../core/time/clock';
+import { pricingItem, requestDetail, requestPricing, SMALL_BOOK } from '../testing/pricing-fixtures';
+import { BulkPricing } from './bulk-pricing';
+
+describe('BulkPricing', () => {
+  let fixture: ComponentFixture<BulkPricing>;
+  let loader: HarnessLoader;
+  let httpTesting: HttpTestingController;
+  let host: HTMLElement;
+
+  const twoOpenGfcis = () => requestPricing([pricingItem(40, { version: 3 }), pricingItem(41, { version: 7, location: 'hall bath' })]);
+
+  async function render(pricing: RequestPricing): Promise<void> {
+    TestBed.configureTestingModule({
+      providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting(), { provide: Clock, useValue: { today: () => '2026-04-20' } }],
+    });
+    httpTesting = TestBed.inject(HttpTestingController);
+    fixture = TestBed.createComponent(BulkPricing);
+    fixture.componentRef.setInput('id', '5');
+    loader = TestbedHarnessEnvironment.loader(fixture);
+    host = fixture.nativeElement;
+    await fixture.whenStable();
+    httpTesting.expectOne('/api/requests/5/pricing').flush(pricing);
+    httpTesting.expectOne('/api/requests/5').flush(requestDetail());
+    await fixture.whenStable();
+    // The ballpark card beside the items asks for its range and the conditions it may flag.
+    httpTesting.match('/api/requests/5/ballpark').forEach((req) => req.flush({ error: 'Not now', details: [] }, { status: 409, statusText: 'Conflict' }));
+    httpTesting.match('/api/requests/5/site-conditions').forEach((req) => req.flush({ adderIds: [], available: [] }));
+    await fixture.whenStable();
+  }
+
+  async function selectBothAndChange(): Promise<void> {
+    for (const box of await loader.getAllHarnesses(MatCheckboxHarness.with({ selector: '[data-testid="pricing-select"]' }))) await box.check();
+    await (await loader.getHarness(MatSelectHarness.with({ selector: '[data-testid="bulk-entry"]' }))).clickOptions({ text: /Replace inoperative GFCI receptacle$/ });
+    await (await loader.getHarness(MatCheckboxHarness.with({ label: 'Set site conditions' }))).check();
+    await (await loader.getHarness(MatSelectHarness.with({ selector: '[data-testid="bulk-adders"]' }))).clickOptions({ text: /Shallow or crowded box/ });
+  }
+
+  const text = (testId: string) => host.querySelector(`[data-testid="${testId}"]`)?.textContent?.trim() ?? '';
+
+  afterEach(() => httpTesting.verify());
+
+  it('shows live totals from the shared engine and previews a change before it is applied', async () => {
+    await render(requestPricing([pricingItem(40, { entryId: 11 }), pricingItem(41)]));
+    // docs/pricing.md, Example 1: one GFCI on its own visit, $314.34.
+    expect(text('totals-quote-total')).toBe('$314.34');
+    await selectBothAndChange();
+    // docs/pricing.md, Example 2: two GFCIs in shallow boxes on one visit, $449.94.
+    expect(text('bulk-preview-total')).toBe('$449.94');
+    expect(text('totals-quote-total')).toBe('$314.34');
+  });
+
+  it('applies one change to every selected item with the versions it saw and the totals it shows', async () => {
+    await render(twoOpenGfcis());
+    await selectBothAndChange();
+    await (await loader.getHarness(MatButtonHarness.with({ text: /Apply to 2 selected/ }))).click();
+
+    const req = httpTesting.expectOne({ method: 'PATCH', url: '/api/requests/5/pricing' });
+    const body = req.request.body as BulkPriceItems;
+    expect(body.items).toEqual([{ id: 40, version: 3 }, { id: 41, version: 7 }]);
+    expect(body.set).toEqual({ entryId: 11, adderIds: [21] });
+    const expected = priceQuote(SMALL_BOOK, {
+      visits: [{ key: 'visit-1' }],
+      lines: [40, 41].map((id) => ({ key: String(id), entryId: '11', quantity: 1, adderIds: ['21'], visitKey: 'visit-1' })),
+    });
+    expect(body.claimedTotals?.totalCents).toBe(expected.totalCents);
+    expect(body.claimedTotals?.visits).toEqual([{ key: 'visit-1', totalCents: expected.totalCents }]);
+
+    const saved = requestPricing([40, 41].map((id) => pricingItem(id, { version: 8, entryId: 11, adderIds: [21] })));
+    req.flush(saved);
+    await fixture.whenStable();
+    expect(text('totals-quote-total')).toBe('$449.94');
+    expect([...host.querySelectorAll('[data-testid="pricing-adders"]')].map((cell) => cell.textContent?.trim())).toEqual([
+      'Shallow or crowded box',
+      'Shallow or crowded box',
+    ]);
+  });
+
+  it('says clearly when someone else changed the items meanwhile, and reloads on request', async () => {
+    await render(twoOpenGfcis());
+    await selectBothAndChange();
+    await (await loader.getHarness(MatButtonHarness.with({ text: /Apply to 2 selected/ }))).click();
+    const message = 'Someone else changed item #41 (gfci-inoperative, hall bath) meanwhile. Reload to see the current prices.';
+    httpTesting
+      .expectOne({ method: 'PATCH', url: '/api/requests/5/pricing' })
+      .flush({ error: message, details: [{ path: 'items.1.version', message: 'Item #41 is at version 8, not 7' }] }, { status: 409, statusText: 'Conflict' });
+    await fixture.whenStable();
+    expect(text('pricing-conflict')).toContain(message);
+
+    await (await loader.getHarness(MatButtonHarness.with({ selector: '[data-testid="pricing-reload"]' }))).click();
+    httpTesting.expectOne('/api/requests/5/pricing').flush(twoOpenGfcis());
+    await fixture.whenStable();
+    httpTesting.match('/api/requests/5/ballpark').forEach((req) => req.flush({ error: 'Not now', details: [] }, { status: 409, statusText: 'Conflict' }));
+    expect(host.querySelector('[data-testid="pricing-conflict"]')).toBeNull();
+  });
+
+  it('sends the quote only when every item is priced, claiming the totals it shows', async () => {
+    await render(requestPricing([pricingItem(40, { entryId: 11 }), pricingItem(41)]));
+    expect(await (await loader.getHarness(MatButtonHarness.with({ selector: '[data-testid="pricing-send"]' }))).isDisabled()).toBe(true);
+
+    TestBed.resetTestingModule();
+    await render(requestPricing([pricingItem(40, { entryId: 11 })], { unpricedItemIds: [] }));
+    const navigate = jest.spyOn(TestBed.inject(Router), 'navigate').mockResolvedValue(true);
+    const send = await loader.getHarness(MatButtonHarness.with({ selector: '[data-testid="pricing-send"]' }));
+    expect(await send.getText()).toContain('$314.34');
+    await send.click();
+    const req = httpTesting.expectOne({ method: 'POST', url: '/api/requests/5/quotes' });
+    // docs/pricing.md, Example 1: 31,434 cents.
+    expect((req.request.body as SendQuote).claimedTotals?.totalCents).toBe(31_434);
+    req.flush({ error: 'Not priced', details: [] }, { status: 409, statusText: 'Conflict' });
+    await fixture.whenStable();
+    expect(text('pricing-conflict')).toContain('Not priced');
+    expect(navigate).not.toHaveBeenCalled();
+  });
+});
