@@ -1,7 +1,7 @@
 import { CODE_RULES, type CodePattern, type CodeRule } from './code-patterns';
 import { FINDING_CODES } from './finding-code';
 import { LiteralScanner } from './literal-scanner';
-import { requiredLiterals } from './phrase-literals';
+import { requiredLiteralLists } from './phrase-literals';
 import { scanAll } from './regex-scan';
 
 /** One defect phrase found in a sentence. */
@@ -23,13 +23,14 @@ export interface MatchOptions {
 }
 
 /**
- * A regular expression of the table with an id and the words it cannot match without (derived by
- * phrase-literals.ts); with none derived it is always tried.
+ * A regular expression of the table with the lists of words it cannot match without (derived by
+ * phrase-literals.ts): it can match a sentence only if each list has a word there. `ids` number
+ * the lists for the scanner; with no list derived the expression is always tried.
  */
 interface Indexed<T> {
-  readonly id: number;
   readonly item: T;
-  readonly literals: readonly string[] | null;
+  readonly ids: readonly number[];
+  readonly lists: ReadonlyArray<readonly string[]>;
 }
 
 interface IndexedRule {
@@ -41,7 +42,10 @@ interface IndexedRule {
 
 const INDEXED: readonly IndexedRule[] = (() => {
   let id = 0;
-  const index = <T>(item: T, re: RegExp): Indexed<T> => ({ id: id++, item, literals: requiredLiterals(re) });
+  const index = <T>(item: T, re: RegExp): Indexed<T> => {
+    const lists = requiredLiteralLists(re);
+    return { item, lists, ids: lists.map(() => id++) };
+  };
   return CODE_RULES.map((rule) => ({
     rule,
     trigger: index(rule.trigger, rule.trigger),
@@ -51,21 +55,26 @@ const INDEXED: readonly IndexedRule[] = (() => {
 
 /**
  * Per-phrase and per-trigger required words, derived from the phrase table: one scanner finds in
- * a single pass over the sentence which phrases and triggers can match it at all.
+ * a single pass over the sentence which lists have a word there.
  */
 const REQUIRED_WORDS: LiteralScanner = (() => {
   const idsByLiteral = new Map<string, number[]>();
-  const all = INDEXED.flatMap(({ trigger, patterns }) => [trigger, ...patterns]);
-  for (const { id, literals } of all) {
-    for (const literal of literals ?? []) idsByLiteral.set(literal, [...(idsByLiteral.get(literal) ?? []), id]);
+  let count = 0;
+  for (const { trigger, patterns } of INDEXED) {
+    for (const { lists, ids } of [trigger, ...patterns]) {
+      lists.forEach((list, k) => {
+        for (const literal of list) idsByLiteral.set(literal, [...(idsByLiteral.get(literal) ?? []), ids[k]]);
+      });
+      count += ids.length;
+    }
   }
-  return new LiteralScanner([...idsByLiteral].map(([text, ids]) => ({ text, ids })), all.length);
+  return new LiteralScanner([...idsByLiteral].map(([text, ids]) => ({ text, ids })), count);
 })();
 
 function allMatches(sentence: string, options: MatchOptions): CodeMatch[] {
   const found: CodeMatch[] = [];
   const present = options.ignoreTriggers ? null : REQUIRED_WORDS.scan(sentence.toLowerCase());
-  const possible = (x: Indexed<unknown>) => present === null || x.literals === null || present[x.id] === 1;
+  const possible = (x: Indexed<unknown>) => present === null || x.ids.every((id) => present[id] === 1);
   for (const { rule, trigger, patterns } of INDEXED) {
     // The code's trigger is tested only when one of its phrases and the trigger itself can match.
     if (present !== null && (!patterns.some(possible) || !possible(trigger) || !rule.trigger.test(sentence))) continue;

@@ -15,8 +15,8 @@
 interface Shape {
   /** Every string the part can match (lower case), when that set is small; else null. */
   readonly exact: readonly string[] | null;
-  /** Literals one of which every match contains; null when nothing is known. */
-  readonly required: readonly string[] | null;
+  /** Lists of literals: every match contains one literal of each list (empty: nothing known). */
+  readonly all: ReadonlyArray<readonly string[]>;
 }
 
 const MAX_EXACT = 64;
@@ -24,25 +24,39 @@ const MAX_CLASS = 8;
 /** Literals shorter than this are too common to be worth checking. */
 const MIN_LITERAL = 2;
 
-const EMPTY: Shape = { exact: [''], required: null };
-const UNKNOWN: Shape = { exact: null, required: null };
+const EMPTY: Shape = { exact: [''], all: [] };
+const UNKNOWN: Shape = { exact: null, all: [] };
 
 /**
- * The literals every match of `re` contains one of, or null when none can be derived (the phrase
- * must then always be tried). Only case-insensitive expressions are read, since the sentence is
- * checked in lower case.
+ * The literals every match of `re` contains one of (the most selective such list), or null when
+ * none can be derived (the phrase must then always be tried). Only case-insensitive expressions
+ * are read, since the sentence is checked in lower case.
  */
 export function requiredLiterals(re: RegExp): readonly string[] | null {
-  if (!re.flags.includes('i') || re.flags.includes('u') || re.flags.includes('v')) return null;
-  let literals: readonly string[] | null;
+  return bestOf(requiredLiteralLists(re));
+}
+
+/**
+ * Every list of literals that `re` needs one of: a match contains one literal of each list
+ * ("no"/"missing"/... and "gfci"/"gfi"/...). Empty when none can be derived.
+ */
+export function requiredLiteralLists(re: RegExp): ReadonlyArray<readonly string[]> {
+  if (!re.flags.includes('i') || re.flags.includes('u') || re.flags.includes('v')) return [];
+  let lists: ReadonlyArray<readonly string[]>;
   try {
     const reader = new SourceReader(re.source);
     const shape = reader.alternation();
-    literals = reader.atEnd() ? mustContain(shape) : null;
+    lists = reader.atEnd() ? allOf(shape) : [];
   } catch {
-    return null; // a construct the reader does not know: always try the phrase
+    return []; // a construct the reader does not know: always try the phrase
   }
-  return literals && Math.min(...literals.map((l) => l.length)) >= MIN_LITERAL ? literals : null;
+  const seen = new Set<string>();
+  return lists.filter((list) => {
+    const key = list.join('\n');
+    if (seen.has(key) || Math.min(...list.map((l) => l.length)) < MIN_LITERAL) return false;
+    seen.add(key);
+    return true;
+  });
 }
 
 class SourceReader {
@@ -126,7 +140,7 @@ class SourceReader {
     }
     if (this.src[this.pos] !== ']') throw new SyntaxError(`Unclosed class in ${this.src}`);
     this.pos++;
-    return known && chars.size > 0 && chars.size <= MAX_CLASS ? { exact: [...chars], required: null } : UNKNOWN;
+    return known && chars.size > 0 && chars.size <= MAX_CLASS ? { exact: [...chars], all: [] } : UNKNOWN;
   }
 
   private escape(): Shape {
@@ -164,23 +178,28 @@ class SourceReader {
     }
     if (this.src[this.pos] === '?') this.pos++; // lazy
     if (min === 1 && max === 1) return shape;
-    if (min === 0) return max === 1 && shape.exact ? { exact: unique([...shape.exact, '']), required: null } : UNKNOWN;
-    return { exact: null, required: mustContain(shape) };
+    if (min === 0) return max === 1 && shape.exact ? { exact: unique([...shape.exact, '']), all: [] } : UNKNOWN;
+    return { exact: null, all: allOf(shape) };
   }
 }
 
 function literal(ch: string): Shape {
-  return ch.charCodeAt(0) > 0x7f ? UNKNOWN : { exact: [ch.toLowerCase()], required: null };
+  return ch.charCodeAt(0) > 0x7f ? UNKNOWN : { exact: [ch.toLowerCase()], all: [] };
 }
 
 function unique(list: readonly string[]): string[] {
   return [...new Set(list)];
 }
 
-/** The literals every match contains: from the exact set or the known ones, whichever is better. */
-function mustContain(shape: Shape): readonly string[] | null {
-  const fromExact = shape.exact && !shape.exact.includes('') ? reduce(shape.exact) : null;
-  return better(fromExact, shape.required);
+/** The lists every match contains one literal of: the exact set itself, then the known lists. */
+function allOf(shape: Shape): ReadonlyArray<readonly string[]> {
+  const fromExact = shape.exact && shape.exact.length > 0 && !shape.exact.includes('') ? [reduce(shape.exact)] : [];
+  return [...fromExact, ...shape.all.filter((list) => list.length > 0)];
+}
+
+/** The most selective of the lists (see `better`), or null. */
+function bestOf(lists: ReadonlyArray<readonly string[]>): readonly string[] | null {
+  return lists.reduce<readonly string[] | null>((best, list) => better(best, list), null);
 }
 
 /** Drops literals that contain another one of the list (a string containing "gfci" contains "gfc"). */
@@ -206,9 +225,10 @@ function either(branches: readonly Shape[]): Shape {
   const exacts = branches.map((b) => b.exact);
   const allExact = exacts.every((e): e is readonly string[] => e !== null);
   const exact = allExact ? unique(exacts.flat()) : null;
-  const parts = branches.map(mustContain);
-  const required = parts.every((p): p is readonly string[] => p !== null) ? reduce(parts.flat()) : null;
-  return { exact: exact && exact.length <= MAX_EXACT ? exact : null, required };
+  // A match matches one branch: it contains a literal of that branch's best list.
+  const parts = branches.map((b) => bestOf(allOf(b)));
+  const all = parts.every((p): p is readonly string[] => p !== null) ? [reduce(parts.flat())] : [];
+  return { exact: exact && exact.length <= MAX_EXACT ? exact : null, all };
 }
 
 function concatenation(items: readonly Shape[]): Shape {
@@ -216,14 +236,14 @@ function concatenation(items: readonly Shape[]): Shape {
   /** Single strings read since the last product, appended to every string of the run at once. */
   let pending = '';
   let allExact = true;
-  let best: readonly string[] | null = null;
+  const all: Array<readonly string[]> = [];
   const settle = () => {
     if (pending !== '') run = run.map((a) => a + pending);
     pending = '';
   };
   const flush = () => {
     settle();
-    best = better(best, run.includes('') ? null : reduce(run));
+    if (!run.includes('')) all.push(reduce(run));
     run = [''];
   };
   for (const item of items) {
@@ -244,10 +264,10 @@ function concatenation(items: readonly Shape[]): Shape {
     }
     allExact = false;
     flush();
-    best = better(best, item.required);
+    all.push(...item.all);
   }
   settle();
   const exact = allExact ? run : null;
   flush();
-  return { exact, required: best };
+  return { exact, all };
 }

@@ -14,8 +14,18 @@ export function joinPages(pages: readonly string[]): string {
 
 function pageLocator(joined: string): (offset: number) => number {
   const breaks: number[] = [];
-  for (let i = 0; i < joined.length; i++) if (joined[i] === PAGE_SEPARATOR) breaks.push(i);
-  return (offset) => 1 + breaks.filter((b) => b < offset).length;
+  for (let i = joined.indexOf(PAGE_SEPARATOR); i !== -1; i = joined.indexOf(PAGE_SEPARATOR, i + 1)) breaks.push(i);
+  // 1 + the number of breaks before the offset, by binary search (breaks are in increasing order).
+  return (offset) => {
+    let lo = 0;
+    let hi = breaks.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >>> 1;
+      if (breaks[mid] < offset) lo = mid + 1;
+      else hi = mid;
+    }
+    return 1 + lo;
+  };
 }
 
 /**
