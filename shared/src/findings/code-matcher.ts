@@ -71,15 +71,23 @@ const REQUIRED_WORDS: LiteralScanner = (() => {
   return new LiteralScanner([...idsByLiteral].map(([text, ids]) => ({ text, ids })), count);
 })();
 
+/** Whether each list of the expression has a word in the sentence (`present` from the scanner). */
+function hasAllLists(indexed: Indexed<unknown>, present: Uint8Array): boolean {
+  for (const id of indexed.ids) if (present[id] === 0) return false;
+  return true;
+}
+
 function allMatches(sentence: string, options: MatchOptions): CodeMatch[] {
   const found: CodeMatch[] = [];
   const present = options.ignoreTriggers ? null : REQUIRED_WORDS.scan(sentence.toLowerCase());
-  const possible = (x: Indexed<unknown>) => present === null || x.ids.every((id) => present[id] === 1);
   for (const { rule, trigger, patterns } of INDEXED) {
     // The code's trigger is tested only when one of its phrases and the trigger itself can match.
-    if (present !== null && (!patterns.some(possible) || !possible(trigger) || !rule.trigger.test(sentence))) continue;
+    if (present !== null) {
+      if (!hasAllLists(trigger, present) || !patterns.some((p) => hasAllLists(p, present))) continue;
+      if (!rule.trigger.test(sentence)) continue;
+    }
     for (const indexed of patterns) {
-      if (!possible(indexed)) continue;
+      if (present !== null && !hasAllLists(indexed, present)) continue;
       const pattern = indexed.item;
       if (pattern.context && !pattern.context.test(sentence)) continue;
       if (pattern.unless && pattern.unless.test(sentence)) continue;

@@ -10,8 +10,12 @@ export class LiteralScanner {
   private readonly width: number;
   /** next[state * width + letter]: the state after reading the letter (a complete automaton). */
   private readonly next: Int32Array;
-  /** The ids found on reaching each state (its literals and those of its suffixes). */
-  private readonly found: ReadonlyArray<readonly number[]>;
+  /**
+   * The ids found on reaching each state (its literals and those of its suffixes):
+   * foundIds[foundStart[state]] up to foundIds[foundStart[state + 1]], in two flat arrays.
+   */
+  private readonly foundStart: Int32Array;
+  private readonly foundIds: Int32Array;
   /** The answer of the last scan (allocating a typed array per sentence costs more than the scan). */
   private readonly hits: Uint8Array;
 
@@ -76,7 +80,9 @@ export class LiteralScanner {
       }
     }
     this.next = next;
-    this.found = output;
+    this.foundStart = new Int32Array(output.length + 1);
+    output.forEach((ids, state) => (this.foundStart[state + 1] = this.foundStart[state] + ids.length));
+    this.foundIds = Int32Array.from(output.flat());
     this.hits = new Uint8Array(idCount);
   }
 
@@ -85,14 +91,13 @@ export class LiteralScanner {
    * array is the scanner's own and is overwritten by the next scan: read it before scanning again.
    */
   scan(lowerText: string): Uint8Array {
-    const { alphabet, next, found, width, hits } = this;
+    const { alphabet, next, foundStart, foundIds, width, hits } = this;
     hits.fill(0);
     let state = 0;
     for (let i = 0; i < lowerText.length; i++) {
       const code = lowerText.charCodeAt(i);
       state = next[state * width + (code < 128 ? alphabet[code] : 0)];
-      const ids = found[state];
-      for (let k = 0; k < ids.length; k++) hits[ids[k]] = 1;
+      for (let k = foundStart[state], end = foundStart[state + 1]; k < end; k++) hits[foundIds[k]] = 1;
     }
     return hits;
   }
