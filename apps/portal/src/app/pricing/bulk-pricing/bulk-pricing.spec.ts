@@ -80,7 +80,7 @@ describe('BulkPricing', () => {
     req.flush(saved);
     await fixture.whenStable();
     expect(text('totals-quote-total')).toBe('$449.94');
-    expect([...host.querySelectorAll('[data-testid="pricing-adders"]')].map((cell) => cell.textContent?.trim())).toEqual([
+    expect(Array.from(host.querySelectorAll('[data-testid="pricing-adders"]')).map((cell) => cell.textContent?.trim())).toEqual([
       'Shallow or crowded box',
       'Shallow or crowded box',
     ]);

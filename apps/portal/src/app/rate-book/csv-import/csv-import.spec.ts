@@ -42,7 +42,7 @@ describe('CsvImport', () => {
     );
     await fixture.whenStable();
     expect(host.querySelector('[data-testid="csv-import-errors"] p')?.textContent).toContain('nothing was imported');
-    expect([...host.querySelectorAll('[data-testid="csv-import-problem"]')].map((li) => li.textContent?.replace(/\s+/g, ' ').trim())).toEqual([
+    expect(Array.from(host.querySelectorAll('[data-testid="csv-import-problem"]')).map((li) => li.textContent?.replace(/\s+/g, ' ').trim())).toEqual([
       'Row 2, markupBp: Enter a whole number (cents, minutes or basis points)',
       'Row 4, key: The key "gfci-replace" is used in row 1 already',
     ]);
