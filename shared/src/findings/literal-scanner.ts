@@ -34,48 +34,43 @@ export class LiteralScanner {
     }
     this.width = letters;
 
-    // The trie of the literals.
-    const children: Array<Map<number, number>> = [new Map()];
+    // The trie of the literals, in the transition table itself (-1: no child yet).
+    const maxStates = 1 + literals.reduce((n, { text }) => n + text.length, 0);
+    const width = this.width;
+    const table = new Int32Array(maxStates * width).fill(-1);
     const output: number[][] = [[]];
     for (const { text, ids } of literals) {
       let state = 0;
       for (let i = 0; i < text.length; i++) {
-        const letter = this.alphabet[text.charCodeAt(i)];
-        let child = children[state].get(letter);
-        if (child === undefined) {
-          child = children.length;
-          children.push(new Map());
+        const at = state * width + this.alphabet[text.charCodeAt(i)];
+        if (table[at] === -1) {
+          table[at] = output.length;
           output.push([]);
-          children[state].set(letter, child);
         }
-        state = child;
+        state = table[at];
       }
       output[state].push(...ids);
     }
 
     // Breadth first: failure links, then every missing transition filled from the failure state.
-    const next = new Int32Array(children.length * this.width);
-    const fail = new Int32Array(children.length);
+    const next = table.slice(0, output.length * width);
+    const fail = new Int32Array(output.length);
     const queue: number[] = [];
-    for (let letter = 0; letter < this.width; letter++) {
-      const child = children[0].get(letter);
-      if (child !== undefined) {
-        next[letter] = child;
-        queue.push(child);
-      }
+    for (let letter = 0; letter < width; letter++) {
+      if (next[letter] === -1) next[letter] = 0;
+      else queue.push(next[letter]);
     }
     for (let head = 0; head < queue.length; head++) {
       const state = queue[head];
-      output[state] = [...new Set([...output[state], ...output[fail[state]]])];
-      for (let letter = 0; letter < this.width; letter++) {
-        const child = children[state].get(letter);
-        const viaFail = next[fail[state] * this.width + letter];
-        if (child === undefined) {
-          next[state * this.width + letter] = viaFail;
+      if (output[fail[state]].length > 0) output[state] = [...new Set([...output[state], ...output[fail[state]]])];
+      for (let letter = 0; letter < width; letter++) {
+        const at = state * width + letter;
+        const viaFail = next[fail[state] * width + letter];
+        if (next[at] === -1) {
+          next[at] = viaFail;
         } else {
-          fail[child] = viaFail;
-          next[state * this.width + letter] = child;
-          queue.push(child);
+          fail[next[at]] = viaFail;
+          queue.push(next[at]);
         }
       }
     }

@@ -19,7 +19,7 @@ interface Shape {
   readonly all: ReadonlyArray<readonly string[]>;
 }
 
-const MAX_EXACT = 64;
+const MAX_EXACT = 32;
 const MAX_CLASS = 8;
 /** Literals shorter than this are too common to be worth checking. */
 const MIN_LITERAL = 2;
