@@ -59,7 +59,7 @@ async function openNewRequest(street: string): Promise<void> {
 async function confirmAndExpectPricing(count: number): Promise<void> {
   await page.getByTestId('review-confirm').click();
   await page.getByTestId('request-detail-status').filter({ hasText: REQUEST_STATUS_LABELS.pricing }).waitFor();
-  await page.getByTestId('line-item-row').first().waitFor();
+  await page.getByTestId('line-item-status').filter({ hasText: 'Confirmed' }).nth(count - 1).waitFor();
   expect(await page.getByTestId('line-item-row').count()).toBe(count);
   expect(await page.getByTestId('line-item-status').allTextContents()).toEqual(Array(count).fill('Confirmed'));
   // The review is over: nothing can be uploaded or edited any more.

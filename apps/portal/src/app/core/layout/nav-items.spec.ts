@@ -14,7 +14,7 @@ describe('navItemsFor', () => {
 
   it('gives contractors their job queue of requests to price and their rate book, and no one else', () => {
     expect(navItemsFor('contractor').map((item) => [item.id, item.label, item.link])).toEqual([
-      ['requests', 'Work queue', '/requests'],
+      ['requests', 'Assigned requests', '/requests'],
       ['job-queue', 'Job queue', '/pricing'],
       ['rate-book', 'Rate book', '/rate-book'],
     ]);
@@ -23,7 +23,7 @@ describe('navItemsFor', () => {
   });
 
   it('names the request list after what the role does with it', () => {
-    expect(navItemsFor('contractor')[0]).toMatchObject({ link: '/requests', label: 'Work queue' });
+    expect(navItemsFor('contractor')[0]).toMatchObject({ link: '/requests', label: 'Assigned requests' });
     expect(navItemsFor('seller')[0].label).toBe('Repairs for my sale');
     expect(navItemsFor('inspector')[0].label).toBe('Inspections');
   });

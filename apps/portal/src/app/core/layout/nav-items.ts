@@ -11,7 +11,7 @@ export interface NavItem {
 const REQUESTS_LABEL: Record<Role, string> = {
   agent: 'Repair requests',
   seller: 'Repairs for my sale',
-  contractor: 'Work queue',
+  contractor: 'Assigned requests',
   inspector: 'Inspections',
   admin: 'All repair requests',
 };

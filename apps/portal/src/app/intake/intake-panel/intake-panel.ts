@@ -55,10 +55,10 @@ export class IntakePanel {
   private readonly source = computed(() => `${this.request().id}:${this.request().status}:${this.reloads()}`);
   private readonly loaded = toSignal(
     toObservable(this.source).pipe(
-      switchMap(() => {
+      switchMap((key) => {
         const id = this.request().id;
         return forkJoin({ reports: this.api.reports(id), items: this.api.items(id) }).pipe(
-          map((value): Loaded | null => value),
+          map((value): (Loaded & { key: string }) | null => ({ ...value, key })),
           catchError((err: unknown) => {
             this.notice.failure(err);
             return of(null);
@@ -67,9 +67,14 @@ export class IntakePanel {
       }),
     ),
   );
-  protected readonly isLoading = computed(() => this.loaded() === undefined);
-  protected readonly reports = computed(() => this.loaded()?.reports ?? []);
-  protected readonly items = computed(() => this.loaded()?.items ?? []);
+  /** What was loaded for the current request state; nothing while a newer load is on its way. */
+  private readonly current = computed(() => {
+    const loaded = this.loaded();
+    return loaded && loaded.key === this.source() ? loaded : null;
+  });
+  protected readonly isLoading = computed(() => this.loaded() === undefined || (this.loaded() !== null && this.current() === null));
+  protected readonly reports = computed(() => this.current()?.reports ?? []);
+  protected readonly items = computed(() => this.current()?.items ?? []);
   protected readonly lastResult = signal<UploadResult | null>(null);
 
   protected reload(): void {

@@ -172,7 +172,7 @@ describe('RequestList', () => {
     expectList().flush(page([], 0));
     await settle();
     const host: HTMLElement = fixture.nativeElement;
-    expect(host.querySelector('h1')?.textContent).toContain('Work queue');
+    expect(host.querySelector('h1')?.textContent).toContain('Assigned requests');
     expect(host.querySelector('[data-testid="request-list-new"]')).toBeNull();
     expect(host.querySelector('[data-testid="request-list-empty"]')?.textContent).toContain('Nothing here yet');
   });
