@@ -247,6 +247,24 @@ describe('PUT /api/requests/:id/contractor', () => {
     await sessions.otherContractor.agent.get(`/api/requests/${id}`).expect(200);
   });
 
+  it('clears what the previous contractor set while pricing, and refuses once a quote was sent', async () => {
+    const res = await sessions.buyerAgent.agent.post('/api/requests').set('x-csrf-token', sessions.buyerAgent.csrfToken).send(validRequestBody({ contractorOrganisationId: contractorOrg }));
+    const id = res.body.id;
+    await t.db('repair_requests').where({ id }).update({ status: 'pricing' });
+    const [item] = await t.db('line_items')
+      .insert({ request_id: id, code: 'double-tap', room: 'panel', severity: 'repair', status: 'out-of-scope', out_of_scope_reason: 'panel work we do not do', adder_ids: [1], visit_key: 'visit-2' })
+      .returning('*');
+    const put = await sessions.buyerAgent.agent.put(`/api/requests/${id}/contractor`).set('x-csrf-token', sessions.buyerAgent.csrfToken).send({ contractorOrganisationId: otherContractorOrg });
+    expect(put.status).toBe(200);
+    const after = await t.db('line_items').where({ id: item.id }).first();
+    expect(after).toMatchObject({ status: 'open', out_of_scope_reason: null, adder_ids: [], entry_id: null, visit_key: 'visit-1', version: item.version + 1 });
+
+    await t.db('repair_requests').where({ id }).update({ status: 'quoted' });
+    const late = await sessions.buyerAgent.agent.put(`/api/requests/${id}/contractor`).set('x-csrf-token', sessions.buyerAgent.csrfToken).send({ contractorOrganisationId: contractorOrg });
+    expect(late.status).toBe(409);
+    expect(late.body.error).toMatch(/quote was sent/);
+  });
+
   it('responds 403 to the assigned contractor and 404 to an outsider', async () => {
     await sessions.contractor.agent.put(`/api/requests/${ownRequest.id}/contractor`).set('x-csrf-token', sessions.contractor.csrfToken).send({ contractorOrganisationId: contractorOrg }).expect(403);
     await sessions.otherAgent.agent.put(`/api/requests/${ownRequest.id}/contractor`).set('x-csrf-token', sessions.otherAgent.csrfToken).send({ contractorOrganisationId: contractorOrg }).expect(404);

@@ -150,10 +150,29 @@ export class RequestRepository {
     return row.id;
   }
 
-  async setContractor(id: number, contractorOrganisationId: number, trx?: Trx): Promise<void> {
-    await (trx ?? this.db)('repair_requests')
-      .where({ id })
-      .update({ contractor_organisation_id: contractorOrganisationId, updated_at: new Date() });
+  /**
+   * Gives the request to another contractor. What the previous one set while pricing refers to its
+   * own rate book, so it is cleared: entries, site conditions, visits, "not our scope" marks.
+   */
+  async setContractor(id: number, contractorOrganisationId: number, trx: Trx): Promise<void> {
+    const { contractor_organisation_id: previous } = await trx('repair_requests').where({ id }).forUpdate().first('contractor_organisation_id');
+    if (previous === contractorOrganisationId) return;
+    await trx('repair_requests').where({ id }).update({ contractor_organisation_id: contractorOrganisationId, site_adder_ids: [], updated_at: new Date() });
+    await trx('request_pricing_visits').where({ request_id: id }).delete();
+    await trx('line_items')
+      .where({ request_id: id })
+      .whereIn('status', ['open', 'priced', 'out-of-scope'])
+      .update({
+        status: 'open',
+        entry_id: null,
+        adder_ids: [],
+        pricing_quantity: null,
+        is_quantity_assumed: false,
+        visit_key: 'visit-1',
+        out_of_scope_reason: null,
+        version: trx.raw('version + 1'),
+        updated_at: new Date(),
+      });
   }
 
   /** Moves the request to `to` and records the change; `from` guards against a concurrent move. */

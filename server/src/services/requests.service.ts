@@ -1,5 +1,6 @@
 import { randomBytes } from 'node:crypto';
 import {
+  CONTRACTOR_CHANGE_STATES,
   defaultNecEdition,
   type CreateRepairRequestParsed,
   type CurrentUser,
@@ -19,7 +20,7 @@ import type { Db, Trx } from '../db/knex';
 import type { OrganisationRepository } from '../db/organisation.repository';
 import type { RequestRepository } from '../db/request.repository';
 import type { UserRepository } from '../db/user.repository';
-import { ForbiddenError, NotFoundError, ValidationError } from './errors';
+import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from './errors';
 
 const INVITE_DAYS = 14;
 
@@ -137,9 +138,12 @@ export class RequestsService {
   }
 
   async assignContractor(user: CurrentUser, requestId: number, contractorOrganisationId: number): Promise<RepairRequestDetail> {
-    await this.assertAgentOf(user, requestId);
+    const request = await this.assertAgentOf(user, requestId);
+    if (!CONTRACTOR_CHANGE_STATES.includes(request.status)) {
+      throw new ConflictError('A quote was sent already; the contractor cannot be changed now');
+    }
     await this.assertContractor(contractorOrganisationId);
-    await this.requests.setContractor(requestId, contractorOrganisationId);
+    await this.db.transaction((trx) => this.requests.setContractor(requestId, contractorOrganisationId, trx));
     return this.get(user, requestId);
   }
 

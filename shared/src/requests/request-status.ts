@@ -41,3 +41,6 @@ export const FINAL_STATUSES: readonly RequestStatus[] = ['accepted', 'declined',
 export function isFinalStatus(status: RequestStatus): boolean {
   return FINAL_STATUSES.includes(status);
 }
+
+/** States in which the agents may still choose or change the contractor (until a quote is sent). */
+export const CONTRACTOR_CHANGE_STATES: readonly RequestStatus[] = ['draft', 'intake', 'pricing'];

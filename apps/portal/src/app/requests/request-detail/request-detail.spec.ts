@@ -66,6 +66,8 @@ describe('RequestDetail', () => {
     // The line-items area loads the request's reports and items (none yet in these cases).
     httpTesting.expectOne('/api/requests/12/reports').flush([]);
     httpTesting.expectOne('/api/requests/12/items').flush([]);
+    // Agents of a request in draft get the contractor picker, which lists the contractors.
+    httpTesting.match('/api/contractors').forEach((req) => req.flush([]));
     await fixture.whenStable();
     return fixture.nativeElement;
   }

@@ -5,7 +5,7 @@ import { MatCardModule } from '@angular/material/card';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
-import { RepairRequestDetail } from '@cc/shared';
+import { CONTRACTOR_CHANGE_STATES, RepairRequestDetail } from '@cc/shared';
 import { catchError, map, of, switchMap } from 'rxjs';
 import { Auth } from '../../core/auth/auth';
 import { describeFailure } from '../../core/http/api-error-of';
@@ -15,6 +15,7 @@ import { RequestPricingLinks } from '../../pricing/request-pricing-links/request
 import { DaysToClosing } from '../../ui/days-to-closing/days-to-closing';
 import { SafetyNotice } from '../../ui/safety-notice/safety-notice';
 import { StatusChip } from '../../ui/status-chip/status-chip';
+import { ContractorPicker } from '../contractor-picker/contractor-picker';
 import { InvitePartyForm } from '../invite-party-form/invite-party-form';
 import { PartyList } from '../party-list/party-list';
 import { RequestsApi } from '../requests-api';
@@ -37,6 +38,7 @@ type Loaded = { detail: RepairRequestDetail; error?: undefined } | { detail?: un
     StatusHistory,
     PartyList,
     InvitePartyForm,
+    ContractorPicker,
     IntakePanel,
     RequestPricingLinks,
   ],
@@ -71,9 +73,17 @@ export class RequestDetail {
     return this.auth.role() === 'admin' || parts.includes('buyer-agent') || parts.includes('listing-agent');
   });
 
+  /** Whether the contractor may still be chosen or changed (until a quote is sent). */
+  protected readonly canChangeContractor = computed(() => CONTRACTOR_CHANGE_STATES.includes(this.detail()?.status ?? 'draft'));
+
   /** Loads the request again after its state moved on (a report added, the items confirmed). */
   protected refresh(id: number): void {
     this.api.get(id).subscribe({ next: (detail) => this.detail.set(detail), error: (err: unknown) => this.notice.failure(err) });
+  }
+
+  protected showContractor(detail: RepairRequestDetail): void {
+    this.detail.set(detail);
+    this.notice.success(`${detail.contractor?.name ?? 'The contractor'} is now the request's contractor.`);
   }
 
   protected showInvited(detail: RepairRequestDetail): void {
