@@ -15,6 +15,7 @@ import { adderEffectLabel } from '../adder-effect-label';
 import { codeLabel } from '../code-label';
 import { PendingChange } from '../live-pricing';
 import { MoneyPipe } from '../money/money';
+import { VisitLabelPipe } from '../visit-label';
 
 type ChangeSet = PendingChange['set'];
 
@@ -25,7 +26,7 @@ const NO_ENTRY = 'none';
 /** One change (entry, site conditions, quantity, visit) for every selected item, with its live total. */
 @Component({
   selector: 'cc-bulk-toolbar',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatCheckboxModule, MatButtonModule, MatIconModule, MoneyPipe, ErrorMessagePipe],
+  imports: [ReactiveFormsModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatCheckboxModule, MatButtonModule, MatIconModule, MoneyPipe, ErrorMessagePipe, VisitLabelPipe],
   templateUrl: './bulk-toolbar.html',
   styleUrl: './bulk-toolbar.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -7,6 +7,7 @@ import { ITEM_STATUS_LABELS, PricingItem, QuoteBreakdown, RateBook } from '@cc/s
 import { MoneyPipe } from '../money/money';
 import { codeLabel } from '../code-label';
 import { lineCentsOf } from '../live-pricing';
+import { VisitLabelPipe } from '../visit-label';
 
 /** One row as shown: the item with the names of its entry and conditions and its live line price. */
 interface Row {
@@ -21,7 +22,7 @@ interface Row {
 /** The items of a request with their prices, and checkboxes to select many of them at once. */
 @Component({
   selector: 'cc-pricing-table',
-  imports: [MatTableModule, MatCheckboxModule, MatIconModule, MatTooltipModule, MoneyPipe],
+  imports: [MatTableModule, MatCheckboxModule, MatIconModule, MatTooltipModule, MoneyPipe, VisitLabelPipe],
   templateUrl: './pricing-table.html',
   styleUrl: './pricing-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,6 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MoneyTotals, QuoteBreakdown } from '@cc/shared';
 import { MoneyPipe } from '../money/money';
+import { VisitLabelPipe } from '../visit-label';
 
 interface TotalsRow {
   label: string;
@@ -24,7 +25,7 @@ const ALWAYS: (keyof MoneyTotals)[] = ['subtotalCents', 'materialsTaxCents'];
 /** The money of a priced request or quote: each visit and the whole, as the shared engine computed it. */
 @Component({
   selector: 'cc-pricing-totals',
-  imports: [MoneyPipe],
+  imports: [MoneyPipe, VisitLabelPipe],
   templateUrl: './pricing-totals.html',
   styleUrl: './pricing-totals.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

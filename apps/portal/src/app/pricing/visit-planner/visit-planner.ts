@@ -5,6 +5,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatSelectModule } from '@angular/material/select';
 import { PricingItem, PricingVisit, RateBook } from '@cc/shared';
+import { VisitLabelPipe } from '../visit-label';
 
 /** The next free visit key: `visit-2`, `visit-3`, … */
 export function nextVisitKey(visits: readonly PricingVisit[]): string {
@@ -16,7 +17,7 @@ export function nextVisitKey(visits: readonly PricingVisit[]): string {
 /** The visits of a request: a permit and site conditions for each, and more visits when the work needs them. */
 @Component({
   selector: 'cc-visit-planner',
-  imports: [MatCheckboxModule, MatSelectModule, MatFormFieldModule, MatButtonModule, MatIconModule],
+  imports: [MatCheckboxModule, MatSelectModule, MatFormFieldModule, MatButtonModule, MatIconModule, VisitLabelPipe],
   templateUrl: './visit-planner.html',
   styleUrl: './visit-planner.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
