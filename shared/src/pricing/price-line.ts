@@ -1,6 +1,6 @@
 import type { LineBreakdown } from './pricing-breakdown.schema';
 import type { FlatPricing, RateBookEntry, TimeAndMaterialsPricing } from './rate-book.schema';
-import { applyBasisPoints, compoundMultipliers } from './rounding';
+import { applyBasisPoints } from './rounding';
 
 /** The line as the caller named it. */
 export interface LineRef {
@@ -8,19 +8,17 @@ export interface LineRef {
   quantity: number;
 }
 
-/** Labour adders that apply to one time-and-materials line, already folded. */
+/** Labour adders that apply to one time-and-materials line, already folded (`foldLabourAdders`). */
 export interface LineLabourAdders {
-  minutesPerUnit: number;
-  /** Multipliers in rate-book order (R2 compounds them in this order). */
-  multipliersBp: readonly number[];
+  readonly minutesPerUnit: number;
+  /** The line's multipliers compounded in rate-book order (R2), or null when it has none. */
+  readonly multiplierBp: number | null;
 }
-
-export const NO_LABOUR_ADDERS: LineLabourAdders = { minutesPerUnit: 0, multipliersBp: [] };
 
 /**
  * A time-and-materials line on its own, before the visit pools its labour (`labourCents` is filled
  * in by the visit):
- * minutes = (minutes per unit + adder minutes per unit) × quantity × combined multiplier (R2, then R1);
+ * minutes = (minutes per unit + adder minutes per unit) × quantity × combined multiplier (R1);
  * materials = cost per unit × quantity; markup = materials × markup (R1), entry override first.
  */
 export function priceTimeAndMaterialsLine(
@@ -31,8 +29,7 @@ export function priceTimeAndMaterialsLine(
 ): LineBreakdown {
   const pricing = entry.pricing;
   const plainMinutes = (pricing.labourMinutesPerUnit + adders.minutesPerUnit) * line.quantity;
-  const labourMinutes =
-    adders.multipliersBp.length === 0 ? plainMinutes : applyBasisPoints(plainMinutes, compoundMultipliers(adders.multipliersBp));
+  const labourMinutes = adders.multiplierBp === null ? plainMinutes : applyBasisPoints(plainMinutes, adders.multiplierBp);
   const materialsCostCents = pricing.materialsCentsPerUnit * line.quantity;
   const materialsMarkupCents = applyBasisPoints(materialsCostCents, pricing.markupBp ?? defaultMarkupBp);
   return {

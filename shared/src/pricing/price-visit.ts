@@ -1,9 +1,10 @@
 import type { LineBreakdown, VisitBreakdown } from './pricing-breakdown.schema';
 import { PricingError } from './pricing-error';
 import type { PricingLine, Visit } from './pricing-input.schema';
-import { NO_LABOUR_ADDERS, priceFlatLine, priceTimeAndMaterialsLine, type LineLabourAdders } from './price-line';
+import { foldLabourAdders } from './labour-adders';
+import { priceFlatLine, priceTimeAndMaterialsLine, type LineLabourAdders } from './price-line';
 import type { FlatPricing, RateBook, RateBookEntry, TimeAndMaterialsPricing } from './rate-book.schema';
-import { indexRateBook, type IndexedAdder, type RateBookIndex } from './rate-book-index';
+import { indexRateBook, type IndexedAdder } from './rate-book-index';
 import { allocateByWeight, applyBasisPoints, centsForMinutes, roundUpToIncrement } from './rounding';
 
 type Path = readonly (string | number)[];
@@ -14,27 +15,13 @@ export type VisitToPrice = Pick<Visit, 'key'> &
   Partial<Pick<Visit, 'adderIds' | 'hasPermit'>> & { lines: readonly LineToPrice[] };
 export type LineToPrice = Pick<PricingLine, 'key' | 'entryId' | 'quantity'> & Partial<Pick<PricingLine, 'adderIds'>>;
 
-/** The adder `ids[at]`, found at `[...path, ...pathTail, at]` of the input (built only for an error). */
-function resolveAdder(index: RateBookIndex, ids: readonly string[], at: number, path: Path, pathTail: Path): IndexedAdder {
-  const found = index.adders.get(ids[at]);
-  if (!found) throw new PricingError('unknown-adder', [...path, ...pathTail, at], `The rate book has no site condition "${ids[at]}"`);
-  return found;
+function unknownAdder(id: string, path: Path): PricingError {
+  return new PricingError('unknown-adder', path, `The rate book has no site condition "${id}"`);
 }
 
-const byRateBookPosition = (x: IndexedAdder, y: IndexedAdder) => x.position - y.position;
-
-/** Folds labour adders (minutes per unit, multipliers) into what one line uses; per-visit ones are skipped. */
-function foldLabourAdders(applied: IndexedAdder[]): LineLabourAdders {
-  if (applied.length === 0) return NO_LABOUR_ADDERS;
-  applied.sort(byRateBookPosition);
-  let minutesPerUnit = 0;
-  const multipliersBp: number[] = [];
-  for (let i = 0; i < applied.length; i++) {
-    const effect = applied[i].adder.effect;
-    if (effect.kind === 'minutes-per-unit') minutesPerUnit += effect.minutes;
-    else if (effect.kind === 'labour-multiplier') multipliersBp.push(effect.multiplierBp);
-  }
-  return { minutesPerUnit, multipliersBp };
+/** The folded labour of `applied`; a single adder was folded when the rate book was indexed. */
+function labourOf(applied: readonly IndexedAdder[]): LineLabourAdders {
+  return applied.length === 1 ? applied[0].alone : foldLabourAdders(applied);
 }
 
 /**
@@ -60,11 +47,12 @@ export function priceVisit(book: RateBook, visit: VisitToPrice, path: Path = [])
   const visitWideAdders: IndexedAdder[] = [];
   const visitAdderIds = visit.adderIds ?? NONE;
   for (let i = 0; i < visitAdderIds.length; i++) {
-    const found = resolveAdder(index, visitAdderIds, i, path, ['adderIds']);
+    const found = index.adders.get(visitAdderIds[i]);
+    if (!found) throw unknownAdder(visitAdderIds[i], [...path, 'adderIds', i]);
     const bucket = found.adder.effect.kind === 'minutes-per-visit' ? perVisitAdders : visitWideAdders;
     if (!bucket.includes(found)) bucket.push(found);
   }
-  const visitWideLabour = foldLabourAdders(visitWideAdders.slice());
+  const visitWideLabour = labourOf(visitWideAdders);
 
   const lines: LineBreakdown[] = new Array(lineCount);
   const labourWeights: number[] = new Array(lineCount + 1);
@@ -82,22 +70,23 @@ export function priceVisit(book: RateBook, visit: VisitToPrice, path: Path = [])
     }
     const isFlat = entry.pricing.mode === 'flat';
 
-    // The line's own adders; labour ones are joined by the visit-wide ones it does not already name.
+    // The line's own adders: labour ones it names beyond the visit-wide ones are added to those.
     let labour = visitWideLabour;
     const lineAdderIds = line.adderIds ?? NONE;
     if (lineAdderIds.length > 0) {
-      const applied = visitWideAdders.slice();
+      const ownAdders: IndexedAdder[] = [];
       for (let a = 0; a < lineAdderIds.length; a++) {
-        const found = resolveAdder(index, lineAdderIds, a, path, ['lines', i, 'adderIds']);
+        const found = index.adders.get(lineAdderIds[a]);
+        if (!found) throw unknownAdder(lineAdderIds[a], [...path, 'lines', i, 'adderIds', a]);
         if (found.adder.effect.kind === 'minutes-per-visit') {
           if (!perVisitAdders.includes(found)) perVisitAdders.push(found);
         } else if (isFlat) {
           throw new PricingError('adder-not-for-flat', [...path, 'lines', i, 'adderIds', a], `"${found.adder.name}" changes labour; a flat-rate line has a fixed price`);
-        } else if (!applied.includes(found)) {
-          applied.push(found);
+        } else if (!visitWideAdders.includes(found) && !ownAdders.includes(found)) {
+          ownAdders.push(found);
         }
       }
-      if (!isFlat) labour = foldLabourAdders(applied);
+      if (ownAdders.length > 0) labour = labourOf(visitWideAdders.length === 0 ? ownAdders : visitWideAdders.concat(ownAdders));
     }
 
     let priced: LineBreakdown;

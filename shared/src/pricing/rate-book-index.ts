@@ -1,4 +1,6 @@
-import type { RateBook, RateBookEntry, SiteAdder } from './rate-book.schema';
+import { foldLabourAdders, type PositionedAdder } from './labour-adders';
+import type { LineLabourAdders } from './price-line';
+import type { RateBook, RateBookEntry } from './rate-book.schema';
 
 /** Look-ups into one rate book, built once per rate-book object and reused by every price call. */
 export interface RateBookIndex {
@@ -6,10 +8,9 @@ export interface RateBookIndex {
   readonly adders: ReadonlyMap<string, IndexedAdder>;
 }
 
-export interface IndexedAdder {
-  readonly adder: SiteAdder;
-  /** Position in the rate book: labour multipliers compound in this order, whatever order they are ticked. */
-  readonly position: number;
+export interface IndexedAdder extends PositionedAdder {
+  /** What this adder on its own does to a time-and-materials line, folded once per rate book. */
+  readonly alone: LineLabourAdders;
 }
 
 const cache = new WeakMap<RateBook, RateBookIndex>();
@@ -21,7 +22,7 @@ export function indexRateBook(book: RateBook): RateBookIndex {
     const entries = new Map<string, RateBookEntry>();
     for (const entry of book.entries) entries.set(entry.id, entry);
     const adders = new Map<string, IndexedAdder>();
-    book.adders.forEach((adder, position) => adders.set(adder.id, { adder, position }));
+    book.adders.forEach((adder, position) => adders.set(adder.id, { adder, position, alone: foldLabourAdders([{ adder, position }]) }));
     index = { entries, adders };
     cache.set(book, index);
   }
