@@ -1,7 +1,7 @@
 import type { RateBook, RateBookEntry, Material } from './rate-book.schema';
 
 /*
- * Demo rate book of a fictional contractor, "Copperleaf Electric Co.". Used by the seeds, the
+ * Demo rate book of a fictional contractor, "Brightline Electric Co.". Used by the seeds, the
  * worked examples in docs/pricing.md and the tests.
  *
  * Every figure is common practice (no source): visit terms sit inside the ranges of the trade
@@ -62,7 +62,7 @@ const TR_RECEPTACLE = part('Tamper-resistant duplex receptacle 15 A', 350);
 const SMALL_PARTS_MARKUP_BP = 6_000;
 
 export const DEMO_RATE_BOOK: RateBook = {
-  contractorName: 'Copperleaf Electric Co.',
+  contractorName: 'Brightline Electric Co.',
   terms: {
     serviceCallCents: 9_500, // $95 trip charge (range $75–200)
     firstHourMinimumCents: 18_500, // $185 travel + first hour (range $150–300)
