@@ -135,6 +135,13 @@ describe('a buyer’s agent takes in an inspection report', () => {
     expect(await rows.nth(2).getByTestId('review-item-quantity').textContent()).toBe('2');
     expect(await rows.nth(2).textContent()).toContain('edited');
 
+    // Reading the report again keeps the correction: only untouched proposals are replaced.
+    await page.getByTestId('report-read-again').click();
+    // Two untouched proposals read anew; the edited one is kept, not proposed again.
+    await page.getByTestId('parse-result-proposed').filter({ hasText: '2 items proposed' }).waitFor();
+    await rows.nth(2).getByTestId('review-item-location').filter({ hasText: 'garage subpanel, 20 A breaker' }).waitFor();
+    expect(await rows.count()).toBe(3);
+
     await confirmAndExpectPricing(3);
     expect(await page.getByTestId('line-item-row').nth(2).textContent()).toContain('garage subpanel, 20 A breaker');
     expect(existsSync(await screenshot(page, 'intake-pdf-confirmed'))).toBe(true);

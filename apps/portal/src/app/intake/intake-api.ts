@@ -33,6 +33,11 @@ export class IntakeApi {
     return this.http.post<UploadResult>(`/api/requests/${requestId}/reports/paste`, dto);
   }
 
+  /** Reads a stored report again; edited, confirmed and removed items stay as they are. */
+  reparse(requestId: number, reportId: number): Observable<UploadResult> {
+    return this.http.post<UploadResult>(`/api/requests/${requestId}/reports/${reportId}/reparse`, {});
+  }
+
   items(requestId: number): Observable<LineItem[]> {
     return this.http.get<LineItem[]>(`/api/requests/${requestId}/items`);
   }

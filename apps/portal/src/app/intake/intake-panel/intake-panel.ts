@@ -11,6 +11,7 @@ import { LineItemList } from '../line-item-list/line-item-list';
 import { ParseSummary } from '../parse-summary/parse-summary';
 import { ReportUpload } from '../report-upload/report-upload';
 import { SkippedText } from '../skipped-text/skipped-text';
+import { ReportFiles } from '../report-files/report-files';
 
 interface Loaded {
   reports: ReportFile[];
@@ -25,7 +26,7 @@ const INTAKE_STATES: readonly string[] = ['draft', 'intake'];
  */
 @Component({
   selector: 'cc-intake-panel',
-  imports: [MatProgressBarModule, ReportUpload, ParseSummary, ItemReview, LineItemList, SkippedText],
+  imports: [MatProgressBarModule, ReportUpload, ParseSummary, ItemReview, LineItemList, SkippedText, ReportFiles],
   templateUrl: './intake-panel.html',
   styleUrl: './intake-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
