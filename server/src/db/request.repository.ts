@@ -28,6 +28,8 @@ export interface RequestListFilter {
   text: string;
   /** An id typed as a reference (CC-00042) into the search box. */
   id: number | null;
+  /** Only houses built before this year (null: any year). */
+  builtBefore: number | null;
 }
 
 export interface NewRepairRequest {
@@ -111,6 +113,7 @@ export class RequestRepository {
   async list(viewer: Viewer, filter: RequestListFilter): Promise<{ items: RepairRequestSummary[]; total: number }> {
     const query = this.scope(this.summaries(), viewer).select(this.db.raw('count(*) over() AS total_count'));
     if (filter.statuses.length) query.whereIn('r.status', filter.statuses);
+    if (filter.builtBefore !== null) query.where('r.year_built', '<', filter.builtBefore);
     if (filter.text) {
       const like = `%${filter.text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
       query.where((w) => {

@@ -6,7 +6,7 @@ import {
   type CurrentUser,
   type LineItem,
   type MergeLineItems,
-  type NecEdition,
+  type HouseCode,
   type SplitLineItem,
   type UpdateLineItem,
 } from '@cc/shared';
@@ -32,13 +32,14 @@ export class LineItemsService {
     private readonly reports: ReportFileRepository,
   ) {}
 
-  withNote(item: StoredLineItem, edition: NecEdition): LineItem {
-    return { ...item, editionNote: editionNote(item.code, item.room, edition) };
+  /** The item with its note on the code in force when the house was built and the adopted edition. */
+  withNote(item: StoredLineItem, house: HouseCode): LineItem {
+    return { ...item, editionNote: editionNote(item.code, item.room, house) };
   }
 
   async list(user: CurrentUser, requestId: number): Promise<LineItem[]> {
     const request = await this.access.get(user, requestId);
-    return (await this.items.listForRequest(requestId)).map((i) => this.withNote(i, request.necEdition));
+    return (await this.items.listForRequest(requestId)).map((i) => this.withNote(i, request));
   }
 
   /** 404 unless visible, 403 unless one of its agents (or admin), 409 once intake is over. */
@@ -57,10 +58,10 @@ export class LineItemsService {
     return item;
   }
 
-  private async reload(requestId: number, id: number, edition: NecEdition): Promise<LineItem> {
+  private async reload(requestId: number, id: number, house: HouseCode): Promise<LineItem> {
     const item = await this.items.findInRequest(requestId, id);
     if (!item) throw new NotFoundError('No such item');
-    return this.withNote(item, edition);
+    return this.withNote(item, house);
   }
 
   async update(user: CurrentUser, requestId: number, id: number, input: UpdateLineItem): Promise<LineItem> {
@@ -70,7 +71,7 @@ export class LineItemsService {
       await this.reviewable(requestId, id, trx);
       if (!(await this.items.update(id, version, { ...changes, isEdited: true }, trx))) throw new ConflictError(STALE);
     });
-    return this.reload(requestId, id, request.necEdition);
+    return this.reload(requestId, id, request);
   }
 
   async remove(user: CurrentUser, requestId: number, id: number, version: number): Promise<void> {
@@ -94,7 +95,7 @@ export class LineItemsService {
       if (!(await this.items.update(keep.id, keepRef.version, { quantity, location, necRefs, isEdited: true }, trx))) throw new ConflictError(STALE);
       if (!(await this.items.update(drop.id, dropRef.version, { status: 'removed', isEdited: true }, trx))) throw new ConflictError(STALE);
     });
-    return this.reload(requestId, keepRef.id, request.necEdition);
+    return this.reload(requestId, keepRef.id, request);
   }
 
   /** One item becomes several with the given quantities (which must add up to a known quantity). */
@@ -114,7 +115,7 @@ export class LineItemsService {
       const added = await this.items.insert(rest.map((quantity) => ({ ...copy, quantity, isEdited: true })), trx);
       return [id, ...added];
     });
-    return Promise.all(ids.map((i) => this.reload(requestId, i, request.necEdition)));
+    return Promise.all(ids.map((i) => this.reload(requestId, i, request)));
   }
 
   /** A person adds an item the reader missed, optionally from text selected in a report. */
@@ -158,7 +159,7 @@ export class LineItemsService {
         trx,
       ),
     );
-    return this.reload(requestId, id, request.necEdition);
+    return this.reload(requestId, id, request);
   }
 
   /**

@@ -1,4 +1,5 @@
 import {
+  editionNote,
   verifyTotals,
   type ApiErrorDetail,
   type AutoPriceItems,
@@ -105,6 +106,7 @@ export class PricingService {
           suggestedEntryId: firstEntryOfCode.get(item.code) ?? null,
           isPriced: line !== undefined,
           lineCents: line ? lineCents(line) : null,
+          editionNote: editionNote(item.code, item.room, request),
         };
       }),
       visits: visitsOrDefault(visits),

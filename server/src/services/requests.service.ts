@@ -52,6 +52,7 @@ export class RequestsService {
       statuses: query.status,
       text: query.q,
       id: query.q ? parseRequestReference(query.q) : null,
+      builtBefore: query.builtBefore ?? null,
     });
     return { items, total, page: query.page, pageSize: query.pageSize };
   }
