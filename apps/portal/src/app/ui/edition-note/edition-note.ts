@@ -11,7 +11,7 @@ import { ItemEditionNote } from '@cc/shared';
   imports: [MatIconModule],
   template: `
     <details data-testid="edition-note">
-      <summary data-testid="edition-note-summary"><mat-icon aria-hidden="true">history_edu</mat-icon>{{ note().summary }}</summary>
+      <summary><mat-icon aria-hidden="true">history_edu</mat-icon><span data-testid="edition-note-summary">{{ note().summary }}</span></summary>
       <p data-testid="edition-note-text">{{ note().text }}</p>
       <p class="reference">NFPA 70 {{ note().reference }}</p>
     </details>
