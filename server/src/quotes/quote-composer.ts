@@ -1,8 +1,8 @@
-import { editionNote, type HouseCode, type Organisation, type QuoteContractor, type QuoteVersion } from '@cc/shared';
+import { editionNote, effectiveQuantity, itemStateAfter, lineCents, type HouseCode, type Organisation, type QuoteContractor, type QuoteVersion } from '@cc/shared';
 import type { StoredPricingItem } from '../pricing/item-pricing.repository';
 import type { NewQuote, NewQuoteLine } from './quote.repository';
 import type { LoadedRateBook } from '../rate-book/rate-book.service';
-import { effectiveQuantity, lineCents, type PricedRequest } from '../pricing/request-pricing';
+import type { PricedRequest } from '../pricing/request-pricing';
 
 /** Shown on every quote and its PDF (the product's own wording of the trade's safety caution). */
 export const QUOTE_SAFETY_NOTICE =
@@ -76,7 +76,7 @@ export function composeQuote(q: QuoteToCompose): NewQuote {
       editionNote: editionNote(item.code, item.room, q.house),
     });
   }
-  for (const item of q.items.filter((i) => i.status === 'out-of-scope')) {
+  for (const item of q.items.filter((i) => i.status === itemStateAfter('leave-out'))) {
     lines.push({
       lineItemId: item.id,
       kind: 'out-of-scope',
