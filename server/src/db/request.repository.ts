@@ -81,8 +81,25 @@ function toSummary(row: SummaryRow): RepairRequestSummary {
   };
 }
 
+/** A change of a request's status, as the listeners hear of it (inside its transaction). */
+export interface StatusChangeRecord {
+  requestId: number;
+  from: RequestStatus | null;
+  to: RequestStatus;
+  by: number | null;
+  note: string | null;
+}
+export type StatusChangeListener = (trx: Trx, change: StatusChangeRecord) => Promise<void>;
+
 export class RequestRepository {
+  private readonly listeners: StatusChangeListener[] = [];
+
   constructor(private readonly db: Db) {}
+
+  /** `listener` runs inside the transaction of every status change (timeline entries, outbox rows). */
+  onStatusChange(listener: StatusChangeListener): void {
+    this.listeners.push(listener);
+  }
 
   /** Narrows a query on `repair_requests as r` to the requests `viewer` is party to. */
   private scope(query: Knex.QueryBuilder, viewer: Viewer): Knex.QueryBuilder {
@@ -194,6 +211,7 @@ export class RequestRepository {
       changed_by: change.by,
       note: change.note ?? null,
     });
+    for (const listener of this.listeners) await listener(trx, { requestId: id, from: change.from, to: change.to, by: change.by, note: change.note ?? null });
     return true;
   }
 
@@ -232,8 +250,8 @@ export class RequestRepository {
   async addParty(
     party: { requestId: number; role: PartyRole; email: string; userId: number | null; inviteToken: string | null; inviteExpiresAt: Date | null; invitedBy: number | null },
     trx: Trx,
-  ): Promise<void> {
-    await trx<RequestPartyRow>('request_parties')
+  ): Promise<boolean> {
+    const rows = await trx<RequestPartyRow>('request_parties')
       .insert({
         request_id: party.requestId,
         role: party.role,
@@ -245,7 +263,9 @@ export class RequestRepository {
         joined_at: party.userId ? new Date() : null,
       })
       .onConflict(['request_id', 'role', 'email'])
-      .ignore();
+      .ignore()
+      .returning('id');
+    return rows.length > 0;
   }
 
   async findInvitation(token: string, trx?: Trx): Promise<(RequestPartyRow & { inviter_name: string | null }) | null> {

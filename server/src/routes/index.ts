@@ -15,6 +15,9 @@ import { createQuotesRouter } from './quotes.router';
 import { createRateBookRouter } from './rate-book.router';
 import { createReportsRouter } from './reports.router';
 import { createRequestsRouter } from './requests.router';
+import { createActivityRouter } from '../activity/activity.router';
+import { createDashboardsRouter } from '../dashboards/dashboards.router';
+import { createMailboxRouter, createNotificationsRouter } from '../notifications/notifications.router';
 
 export interface RouterDeps {
   config: Config;
@@ -34,10 +37,14 @@ export function createApiRouter(deps: RouterDeps): Router {
   api.use('/requests/:id/reports', createReportsRouter(deps));
   api.use('/requests/:id/items', createLineItemsRouter(deps));
   api.use('/requests/:id/quotes', createQuotesRouter(deps));
+  api.use('/requests/:id/activity', createActivityRouter(deps));
   api.use('/requests/:id', createPricingRouter(deps));
   api.use('/requests', createRequestsRouter(deps));
   api.use('/admin', createAdminRouter(deps));
   api.use('/contractors', createContractorsRouter(deps));
   api.use('/rate-book', createRateBookRouter(deps));
+  api.use('/notifications', createNotificationsRouter(deps));
+  api.use('/mailbox', createMailboxRouter(deps));
+  api.use('/dashboards', createDashboardsRouter(deps));
   return api;
 }

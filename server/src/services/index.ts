@@ -21,6 +21,16 @@ import { RateBookService } from './rate-book.service';
 import { readPdfPages } from './report-intake';
 import { ReportIntakeService } from './report-intake.service';
 import { RequestsService } from './requests.service';
+import { ActivityRepository } from '../activity/activity.repository';
+import { ActivityService } from '../activity/activity.service';
+import { DashboardsRepository } from '../dashboards/dashboards.repository';
+import { DashboardsService } from '../dashboards/dashboards.service';
+import { CapturedMailRepository } from '../integrations/mail/captured-mail.repository';
+import { DailyDigest } from '../notifications/daily-digest';
+import { createFlowListener } from '../notifications/flow-listener';
+import { NotificationsService } from '../notifications/notifications.service';
+import { OutboxRepository } from '../notifications/outbox.repository';
+import { PreferencesRepository } from '../notifications/preferences.repository';
 
 /** Builds every repository and service of the app from one database handle and the config. */
 export function createServices(db: Db, config: Config) {
@@ -31,25 +41,40 @@ export function createServices(db: Db, config: Config) {
   const reports = new ReportFileRepository(db);
   const passwords = new Passwords(config.bcryptRounds);
   const storage = new LocalFileStorage(config.storageDir);
-  const requestsService = new RequestsService(db, requests, users, organisations, config.publicUrl);
+  const activity = new ActivityRepository(db);
+  const outbox = new OutboxRepository(db);
+  const notifications = new NotificationsService(db, outbox, new PreferencesRepository(db), activity, {
+    publicUrl: config.publicUrl,
+    from: config.mail.from,
+    secret: config.sessionSecret,
+  });
+  requests.onStatusChange(createFlowListener(activity, notifications));
+  const requestsService = new RequestsService(db, requests, users, organisations, config.publicUrl, notifications, activity);
   const rateBooks = new RateBookRepository(db);
   const itemPricing = new ItemPricingRepository(db);
   const quotes = new QuoteRepository(db);
   const rateBookService = new RateBookService(db, rateBooks, organisations);
   const pricingService = new PricingService(db, requestsService, rateBookService, itemPricing, quotes);
   return {
-    repositories: { users, organisations, requests, items, reports },
+    repositories: { users, organisations, requests, items, reports, activity },
+    notifications,
+    outbox,
+    digest: new DailyDigest(db, notifications, outbox),
+    /** The development mailbox, while mail goes to the local sink. */
+    mailbox: config.mail.smtp ? null : new CapturedMailRepository(db),
+    activity: new ActivityService(requestsService, activity),
+    dashboards: new DashboardsService(new DashboardsRepository(db)),
     storage,
     auth: new AuthService(users, passwords),
     admin: new AdminService(users, organisations, passwords),
     requests: requestsService,
     invitations: new InvitationsService(db, requests, users, passwords),
-    reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, readPdfPages),
-    lineItems: new LineItemsService(db, requestsService, requests, items, reports),
+    reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, readPdfPages, notifications),
+    lineItems: new LineItemsService(db, requestsService, requests, items, reports, activity),
     rateBook: rateBookService,
     pricing: pricingService,
     ballpark: new BallparkService(requestsService, rateBookService, itemPricing),
-    quotes: new QuotesService(db, requestsService, pricingService, rateBookService, rateBooks, requests, organisations, itemPricing, quotes),
+    quotes: new QuotesService(db, requestsService, pricingService, rateBookService, rateBooks, requests, organisations, itemPricing, quotes, notifications),
   };
 }
 

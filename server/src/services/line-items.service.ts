@@ -17,6 +17,8 @@ import type { ReportFileRepository } from '../db/report-file.repository';
 import type { RequestRepository } from '../db/request.repository';
 import { ConflictError, NotFoundError, ValidationError } from './errors';
 import { INTAKE_STATES } from './report-intake.service';
+import type { ActivityRepository } from '../activity/activity.repository';
+import { recordItemChange } from '../activity/item-activity';
 import type { RequestsService } from './requests.service';
 
 const STALE = 'This item was changed by someone else meanwhile. Reload to see the current version.';
@@ -30,6 +32,7 @@ export class LineItemsService {
     private readonly requests: RequestRepository,
     private readonly items: LineItemRepository,
     private readonly reports: ReportFileRepository,
+    private readonly activity: ActivityRepository,
   ) {}
 
   withNote(item: StoredLineItem, edition: NecEdition): LineItem {
@@ -67,8 +70,9 @@ export class LineItemsService {
     const request = await this.assertReviewer(user, requestId);
     const { version, ...changes } = input;
     await this.db.transaction(async (trx) => {
-      await this.reviewable(requestId, id, trx);
+      const before = await this.reviewable(requestId, id, trx);
       if (!(await this.items.update(id, version, { ...changes, isEdited: true }, trx))) throw new ConflictError(STALE);
+      await recordItemChange(this.activity, trx, user.id, 'item-edited', before, { ...before, ...changes });
     });
     return this.reload(requestId, id, request.necEdition);
   }
@@ -76,8 +80,9 @@ export class LineItemsService {
   async remove(user: CurrentUser, requestId: number, id: number, version: number): Promise<void> {
     await this.assertReviewer(user, requestId);
     await this.db.transaction(async (trx) => {
-      await this.reviewable(requestId, id, trx);
+      const before = await this.reviewable(requestId, id, trx);
       if (!(await this.items.update(id, version, { status: 'removed', isEdited: true }, trx))) throw new ConflictError(STALE);
+      await recordItemChange(this.activity, trx, user.id, 'item-removed', before, { ...before, status: 'removed' });
     });
   }
 
@@ -93,6 +98,7 @@ export class LineItemsService {
       const necRefs = [...new Set([...keep.necRefs, ...drop.necRefs])];
       if (!(await this.items.update(keep.id, keepRef.version, { quantity, location, necRefs, isEdited: true }, trx))) throw new ConflictError(STALE);
       if (!(await this.items.update(drop.id, dropRef.version, { status: 'removed', isEdited: true }, trx))) throw new ConflictError(STALE);
+      await recordItemChange(this.activity, trx, user.id, 'items-merged', keep, { ...keep, quantity, location }, `Merged item #${drop.id} into this one`);
     });
     return this.reload(requestId, keepRef.id, request.necEdition);
   }
@@ -112,6 +118,7 @@ export class LineItemsService {
       if (!(await this.items.update(id, input.version, { quantity: first, isEdited: true }, trx))) throw new ConflictError(STALE);
       const { id: _id, version: _v, ...copy } = item;
       const added = await this.items.insert(rest.map((quantity) => ({ ...copy, quantity, isEdited: true })), trx);
+      await recordItemChange(this.activity, trx, user.id, 'item-split', item, { ...item, quantity: first }, `Split into ${input.quantities.length} items (${input.quantities.join(' + ')})`);
       return [id, ...added];
     });
     return Promise.all(ids.map((i) => this.reload(requestId, i, request.necEdition)));
@@ -135,8 +142,8 @@ export class LineItemsService {
       }
     }
     const info = findingCodeInfo(input.code);
-    const [id] = await this.db.transaction((trx) =>
-      this.items.insert(
+    const [id] = await this.db.transaction(async (trx) => {
+      const ids = await this.items.insert(
         [
           {
             requestId,
@@ -156,8 +163,10 @@ export class LineItemsService {
           },
         ],
         trx,
-      ),
-    );
+      );
+      await recordItemChange(this.activity, trx, user.id, 'item-added', null, { id: ids[0], requestId, code: input.code, room: input.room, location: input.location, quantity: input.quantity, status: 'proposed' });
+      return ids;
+    });
     return this.reload(requestId, id, request.necEdition);
   }
 

@@ -1,3 +1,4 @@
+import type { NotificationsService } from '../notifications/notifications.service';
 import { requestReference, type CurrentUser, type QuoteVersion, type QuoteVersionSummary, type SendQuote } from '@cc/shared';
 import type { Db } from '../db/knex';
 import type { ItemPricingRepository } from '../db/item-pricing.repository';
@@ -26,6 +27,7 @@ export class QuotesService {
     private readonly organisations: OrganisationRepository,
     private readonly items: ItemPricingRepository,
     private readonly quotes: QuoteRepository,
+    private readonly notifications: NotificationsService,
   ) {}
 
   /**
@@ -86,6 +88,7 @@ export class QuotesService {
         const moved = await this.requests.changeStatus(requestId, { from: 'pricing', to: 'quoted', by: user.id, note: `Quote version ${next} sent` }, trx);
         if (!moved) throw new ConflictError('The request changed meanwhile. Reload and try again.');
       }
+      await this.notifications.notify(trx, { kind: 'quote-sent', requestId, actorUserId: user.id, version: next, totalCents: priced.breakdown.totalCents });
       return next;
     });
     return this.get(user, requestId, version);

@@ -12,6 +12,7 @@ import type { LineItemRepository, NewLineItem } from '../db/line-item.repository
 import type { ReportFileRepository } from '../db/report-file.repository';
 import type { RequestRepository } from '../db/request.repository';
 import type { FileStorage } from '../integrations/storage/file-storage';
+import type { NotificationsService } from '../notifications/notifications.service';
 import { ConflictError, ForbiddenError, NotFoundError } from './errors';
 import { checkReport, type PdfPageReader, type UploadedFile } from './report-intake';
 import type { RequestsService } from './requests.service';
@@ -48,6 +49,7 @@ export class ReportIntakeService {
     private readonly items: LineItemRepository,
     private readonly storage: FileStorage,
     private readonly readPdfPages: PdfPageReader,
+    private readonly notifications: NotificationsService,
   ) {}
 
   /** 404 unless visible; 403 unless an agent or inspector of the request (or admin); 409 after intake. */
@@ -94,6 +96,7 @@ export class ReportIntakeService {
         );
         await this.items.insert(proposalsFrom(parsed.findings, requestId, id), trx);
         await this.moveToIntake(requestId, user, trx);
+        await this.notifications.notify(trx, { kind: 'report-parsed', requestId, actorUserId: user.id, reportFileId: id, itemCount: parsed.findings.length });
         storedNew = await this.storage.put(sha256, bytes);
         return id;
       });

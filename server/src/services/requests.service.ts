@@ -1,6 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import {
   CONTRACTOR_CHANGE_STATES,
+  PARTY_ROLE_LABELS,
   defaultNecEdition,
   type CreateRepairRequestParsed,
   type CurrentUser,
@@ -20,6 +21,8 @@ import type { Db, Trx } from '../db/knex';
 import type { OrganisationRepository } from '../db/organisation.repository';
 import type { RequestRepository } from '../db/request.repository';
 import type { UserRepository } from '../db/user.repository';
+import type { ActivityRepository } from '../activity/activity.repository';
+import type { NotificationsService } from '../notifications/notifications.service';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from './errors';
 
 const INVITE_DAYS = 14;
@@ -41,6 +44,8 @@ export class RequestsService {
     private readonly users: UserRepository,
     private readonly organisations: OrganisationRepository,
     private readonly publicUrl: string,
+    private readonly notifications: NotificationsService,
+    private readonly activity: ActivityRepository,
   ) {}
 
   async list(user: CurrentUser, query: z.output<typeof RepairRequestListQuerySchema>): Promise<Page<RepairRequestSummary>> {
@@ -143,7 +148,21 @@ export class RequestsService {
       throw new ConflictError('A quote was sent already; the contractor cannot be changed now');
     }
     await this.assertContractor(contractorOrganisationId);
-    await this.db.transaction((trx) => this.requests.setContractor(requestId, contractorOrganisationId, trx));
+    await this.db.transaction(async (trx) => {
+      await this.requests.setContractor(requestId, contractorOrganisationId, trx);
+      const chosen = await this.organisations.findById(contractorOrganisationId, trx);
+      if (request.contractor?.id !== contractorOrganisationId) {
+        await this.activity.record(trx, {
+          requestId,
+          actorUserId: user.id,
+          kind: 'parties',
+          action: 'contractor-changed',
+          summary: request.contractor ? `Contractor changed from ${request.contractor.name} to ${chosen!.name}` : `Contractor chosen: ${chosen!.name}`,
+          before: { contractor: request.contractor?.name ?? null },
+          after: { contractor: chosen!.name },
+        });
+      }
+    });
     return this.get(user, requestId);
   }
 
@@ -162,18 +181,33 @@ export class RequestsService {
         { path: field, message: `This e-mail belongs to an account that is not a${ROLE_FOR_PARTY[role] === 'agent' ? 'n' : ''} ${ROLE_FOR_PARTY[role]}` },
       ]);
     }
-    await this.requests.addParty(
+    const inviteToken = existing ? null : randomBytes(24).toString('base64url');
+    const added = await this.requests.addParty(
       {
         requestId,
         role,
         email,
         userId: existing?.id ?? null,
-        inviteToken: existing ? null : randomBytes(24).toString('base64url'),
+        inviteToken,
         inviteExpiresAt: existing ? null : new Date(Date.now() + INVITE_DAYS * 86_400_000),
         invitedBy: by.id,
       },
       trx,
     );
+    if (!added) return;
+    if (inviteToken) {
+      // The invitation goes out by e-mail (the link is also shown to the agents to pass on).
+      await this.notifications.notify(trx, { kind: 'invitation', requestId, actorUserId: by.id, email, role, inviteToken });
+    } else if (role !== 'buyer-agent' || existing!.id !== by.id) {
+      await this.activity.record(trx, {
+        requestId,
+        actorUserId: by.id,
+        kind: 'parties',
+        action: 'party-added',
+        summary: `${existing!.name} added as ${PARTY_ROLE_LABELS[role].toLowerCase()}`,
+        after: { role, email },
+      });
+    }
   }
 
   private async adminNamedBuyerAgent(email: string | null, trx: Trx): Promise<CurrentUser> {

@@ -1,11 +1,7 @@
 import { Pipe, PipeTransform } from '@angular/core';
+import { formatCents } from '@cc/shared';
 
-const DOLLARS = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' });
-
-/** Whole cents as US dollars for reading (`12345` → `$123.45`); computation stays in cents. */
-export function formatCents(cents: number): string {
-  return DOLLARS.format(cents / 100);
-}
+export { formatCents };
 
 /** A signed difference in cents (`+$12.00`, `−$3.50`, `$0.00`). */
 export function formatCentsDelta(cents: number): string {
