@@ -69,7 +69,9 @@ export function startSmtpSink(options: SmtpSinkOptions): Promise<SmtpSink> {
         parseMessage(raw)
           .then((message) => options.onMessage(message))
           .then(() => callback())
-          .catch((err: Error) => callback(Object.assign(new Error(`Could not keep the message: ${err.message}`), { responseCode: 451 })));
+          .catch((err: Error & { responseCode?: number }) =>
+            callback(Object.assign(new Error(`Could not keep the message: ${err.message}`), { responseCode: err.responseCode ?? 451 })),
+          );
       });
     },
   });
