@@ -40,6 +40,10 @@ const EnvSchema = z.object({
     .enum(['on', 'off'])
     .default('on')
     .transform((v) => v === 'on'),
+  /** Names this process in the outbox's attempt records (default: host and process id). */
+  OUTBOX_WORKER_NAME: z.string().min(1).max(100).optional(),
+  /** How long a worker's claim on a message holds (a stopped worker's message is taken over after it). */
+  OUTBOX_LEASE_MS: z.coerce.number().int().min(1_000).max(3_600_000).default(120_000),
   /** Hour of the day (UTC) after which the daily digest goes out. */
   DIGEST_HOUR_UTC: z.coerce.number().int().min(0).max(23).default(13),
 });
@@ -63,6 +67,8 @@ export interface Config {
     sinkPort: number;
     from: string;
     runWorker: boolean;
+    leaseMs: number;
+    workerName: string | null;
     digestHourUtc: number;
   };
 }
@@ -93,6 +99,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       sinkPort: e.MAIL_SINK_PORT,
       from: e.MAIL_FROM,
       runWorker: e.OUTBOX_WORKER,
+      leaseMs: e.OUTBOX_LEASE_MS,
+      workerName: e.OUTBOX_WORKER_NAME ?? null,
       digestHourUtc: e.DIGEST_HOUR_UTC,
     },
   };

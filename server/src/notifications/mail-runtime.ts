@@ -8,9 +8,6 @@ import type { Services } from '../services';
 import { digestDayDue } from './daily-digest';
 import { OutboxWorker } from './outbox-worker';
 
-/** A claim on a message holds this long; the transport gives up on a silent server well before. */
-export const LEASE_MS = 120_000;
-const TRANSPORT_TIMEOUT_MS = 30_000;
 
 export interface MailRuntime {
   sink: SmtpSink | null;
@@ -19,6 +16,8 @@ export interface MailRuntime {
 }
 
 export async function startMail(config: Config, services: Services): Promise<MailRuntime> {
+  // The worker renews its claim while a send is under way, so a slow server is waited for.
+  const TRANSPORT_TIMEOUT_MS = 30_000;
   let sink: SmtpSink | null = null;
   let smtp: SmtpSettings;
   if (config.mail.smtp) {
@@ -33,8 +32,9 @@ export async function startMail(config: Config, services: Services): Promise<Mai
   let lastDigestCheck = 0;
   const worker = config.mail.runWorker
     ? new OutboxWorker(services.outbox, transport, {
+        name: config.mail.workerName ?? undefined,
         from: config.mail.from,
-        leaseMs: LEASE_MS,
+        leaseMs: config.mail.leaseMs,
         maxAttempts: 8,
         backoffMs: 30_000,
         pollMs: 1_000,

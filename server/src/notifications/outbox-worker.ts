@@ -1,6 +1,6 @@
 // Sends what the outbox holds. Each message is claimed alone under a lease (FOR UPDATE SKIP LOCKED,
-// committed before the SMTP conversation starts), sent with its fixed Message-ID, then marked sent
-// under the same lease. A worker that stops mid-send leaves its claim to run out; the next worker
+// committed before the SMTP conversation starts), renewed while the send is under way, sent with its
+// fixed Message-ID, then marked sent under the same lease. A worker that stops mid-send leaves its claim to run out; the next worker
 // takes the message over and sends it, so a message the mail server never accepted is not lost, and
 // one recorded as sent is never sent again. Failures are retried with exponential backoff and every
 // attempt is recorded in outbox_attempts.
@@ -12,7 +12,7 @@ export interface OutboxWorkerOptions {
   /** Names the worker in the attempt records. */
   name?: string;
   from: string;
-  /** How long a claim holds; longer than the transport's longest wait. */
+  /** How long a claim holds without renewal; renewed every third of it while sending. */
   leaseMs: number;
   maxAttempts: number;
   /** First retry after this; each further retry waits twice as long (at most an hour). */
@@ -54,6 +54,9 @@ export class OutboxWorker {
 
   private async deliver(claim: ClaimedMessage): Promise<void> {
     const { row } = claim;
+    const renewal = setInterval(() => {
+      this.outbox.renewLease(claim, this.options.leaseMs).catch((err: Error) => console.error('Outbox worker: could not renew a claim:', err.message));
+    }, Math.max(100, Math.floor(this.options.leaseMs / 3)));
     try {
       await this.transport.send({
         from: this.options.from,
@@ -67,9 +70,11 @@ export class OutboxWorker {
     } catch (err) {
       const message = (err as Error).message.slice(0, 1000);
       const giveUp = isPermanentSmtpError(err) || claim.attempt >= this.options.maxAttempts;
+      clearInterval(renewal);
       await this.outbox.markFailed(claim, message, giveUp ? null : new Date(Date.now() + retryDelayMs(claim.attempt, this.options.backoffMs)));
       return;
     }
+    clearInterval(renewal);
     await this.outbox.markSent(claim);
   }
 

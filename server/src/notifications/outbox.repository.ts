@@ -84,6 +84,13 @@ export class OutboxRepository {
     return { row, leaseToken: row.lease_token!, attempt: row.attempt_no };
   }
 
+  /** Keeps the claim while the send is under way. */
+  async renewLease(claim: ClaimedMessage, leaseMs: number): Promise<void> {
+    await this.db('outbox_messages')
+      .where({ id: claim.row.id, lease_token: claim.leaseToken, status: 'sending' })
+      .update({ lease_until: this.db.raw('now() + make_interval(secs => ?::double precision / 1000)', [leaseMs]) });
+  }
+
   /** Records a send; false when the claim was lost meanwhile (nothing is changed then). */
   async markSent(claim: ClaimedMessage): Promise<boolean> {
     return this.db.transaction(async (trx) => {
