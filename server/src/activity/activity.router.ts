@@ -1,8 +1,8 @@
 import { Router } from 'express';
 import { ActivityQuerySchema } from '@cc/shared';
-import type { RouterDeps } from '../routes';
-import { requireUser, userOf } from '../middleware/require-user';
-import { idParam } from '../routes/params';
+import type { RouterDeps } from '../http/router-deps';
+import { requireUser, userOf } from '../http/require-user';
+import { idParam } from '../http/params';
 
 /** /api/requests/:id/activity: the request's timeline, newest first, filterable by kind. */
 export function createActivityRouter({ services }: RouterDeps): Router {

@@ -1,7 +1,7 @@
 import type { ActivityEntry, CurrentUser, Page } from '@cc/shared';
 import type { ActivityQuerySchema } from '@cc/shared';
 import type { z } from 'zod';
-import type { RequestsService } from '../services/requests.service';
+import type { RequestsService } from '../requests/requests.service';
 import type { ActivityRepository } from './activity.repository';
 
 export class ActivityService {

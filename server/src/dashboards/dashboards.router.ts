@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { DashboardQuerySchema } from '@cc/shared';
-import type { RouterDeps } from '../routes';
-import { requireRole, requireUser, userOf } from '../middleware/require-user';
+import type { RouterDeps } from '../http/router-deps';
+import { requireRole, requireUser, userOf } from '../http/require-user';
 
 /** /api/dashboards: the agent's and the contractor's figures. */
 export function createDashboardsRouter({ services }: RouterDeps): Router {

@@ -16,7 +16,7 @@ import {
   type CurrentUser,
   type PipelineStage,
 } from '@cc/shared';
-import { ForbiddenError } from '../services/errors';
+import { ForbiddenError } from '../errors';
 import type { DashboardsRepository, MonthAmount } from './dashboards.repository';
 
 const OPEN_STATUSES = REQUEST_STATUSES.filter((s) => !isEnded(s));

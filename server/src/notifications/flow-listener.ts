@@ -2,7 +2,7 @@
 // timeline entry (who, from, to, note) and the messages the move calls for.
 import { REQUEST_FLOW, REQUEST_STATUS_LABELS, type RequestEvent, type RequestStatus } from '@cc/shared';
 import type { ActivityRepository } from '../activity/activity.repository';
-import type { StatusChangeRecord } from '../db/request.repository';
+import type { StatusChangeRecord } from '../requests/request.repository';
 import type { Trx } from '../db/knex';
 import type { NotificationsService } from './notifications.service';
 

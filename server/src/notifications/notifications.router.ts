@@ -1,10 +1,10 @@
 import { Router } from 'express';
 import { PageQuerySchema, UpdatePreferencesSchema } from '@cc/shared';
 import * as z from 'zod';
-import type { RouterDeps } from '../routes';
-import { requireRole, requireUser, userOf } from '../middleware/require-user';
-import { NotFoundError } from '../services/errors';
-import { idParam } from '../routes/params';
+import type { RouterDeps } from '../http/router-deps';
+import { requireRole, requireUser, userOf } from '../http/require-user';
+import { NotFoundError } from '../errors';
+import { idParam } from '../http/params';
 
 const TokenSchema = z.string().min(1).max(100);
 const MailboxQuerySchema = PageQuerySchema.extend({ to: z.email().max(254).optional() });

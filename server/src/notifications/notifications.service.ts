@@ -17,7 +17,7 @@ import {
 } from '@cc/shared';
 import type { NewActivity, ActivityRepository } from '../activity/activity.repository';
 import type { Db, Trx } from '../db/knex';
-import { NotFoundError } from '../services/errors';
+import { NotFoundError } from '../errors';
 import { footerFor, layOut, wordsFor, type RequestFacts } from './message-templates';
 import { occurrenceOf, type NotifyInput } from './notify-input';
 import type { NewOutboxMessage, OutboxRepository } from './outbox.repository';
