@@ -21,6 +21,7 @@ import { RateBookService } from './rate-book/rate-book.service';
 import { readPdfPages } from './intake/report-intake';
 import { ReportIntakeService } from './intake/report-intake.service';
 import { RequestsService } from './requests/requests.service';
+import { FlowService } from './flow/flow.service';
 import { ActivityRepository } from './activity/activity.repository';
 import { ActivityService } from './activity/activity.service';
 import { DashboardsRepository } from './dashboards/dashboards.repository';
@@ -41,6 +42,12 @@ export function createServices(db: Db, config: Config) {
   const reports = new ReportFileRepository(db);
   const passwords = new Passwords(config.bcryptRounds);
   const storage = new LocalFileStorage(config.storageDir);
+  const rateBooks = new RateBookRepository(db);
+  const itemPricing = new ItemPricingRepository(db);
+  const quotes = new QuoteRepository(db);
+  // Every move of a request or an item goes through the flow service; its listener writes the timeline
+  // entries and the outbox rows of the move in the move's transaction.
+  const flow = new FlowService(requests, items);
   const activity = new ActivityRepository(db);
   const outbox = new OutboxRepository(db);
   const notifications = new NotificationsService(db, outbox, new PreferencesRepository(db), activity, {
@@ -48,15 +55,13 @@ export function createServices(db: Db, config: Config) {
     from: config.mail.from,
     secret: config.sessionSecret,
   });
-  requests.onStatusChange(createFlowListener(activity, notifications));
-  const requestsService = new RequestsService(db, requests, users, organisations, config.publicUrl, notifications, activity);
-  const rateBooks = new RateBookRepository(db);
-  const itemPricing = new ItemPricingRepository(db);
-  const quotes = new QuoteRepository(db);
+  flow.listen(createFlowListener(activity, notifications));
+  const requestsService = new RequestsService(db, requests, users, organisations, flow, items, itemPricing, config.publicUrl, notifications, activity);
   const rateBookService = new RateBookService(db, rateBooks, organisations);
-  const pricingService = new PricingService(db, requestsService, rateBookService, itemPricing, quotes);
+  const pricingService = new PricingService(db, requestsService, rateBookService, itemPricing, items, quotes, flow);
   return {
     repositories: { users, organisations, requests, items, reports, activity },
+    flow,
     notifications,
     outbox,
     digest: new DailyDigest(db, notifications, outbox),
@@ -69,12 +74,12 @@ export function createServices(db: Db, config: Config) {
     admin: new AdminService(users, organisations, passwords),
     requests: requestsService,
     invitations: new InvitationsService(db, requests, users, passwords),
-    reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, readPdfPages, notifications),
-    lineItems: new LineItemsService(db, requestsService, requests, items, reports, activity),
+    reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, readPdfPages, flow, notifications),
+    lineItems: new LineItemsService(db, requestsService, items, reports, flow, activity),
     rateBook: rateBookService,
     pricing: pricingService,
     ballpark: new BallparkService(requestsService, rateBookService, itemPricing),
-    quotes: new QuotesService(db, requestsService, pricingService, rateBookService, rateBooks, requests, organisations, itemPricing, quotes, notifications),
+    quotes: new QuotesService(db, requestsService, pricingService, rateBookService, rateBooks, requests, organisations, itemPricing, quotes, flow),
   };
 }
 

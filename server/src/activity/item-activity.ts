@@ -22,7 +22,6 @@ function valuesOf(item: Partial<ItemFacts>) {
 
 const ACTION_WORDS: Record<string, string> = {
   'item-edited': 'Item edited',
-  'item-removed': 'Item removed',
   'items-merged': 'Items merged',
   'item-split': 'Item split',
   'item-added': 'Item added by hand',

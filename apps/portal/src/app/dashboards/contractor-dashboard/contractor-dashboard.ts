@@ -6,7 +6,7 @@ import { ContractorDashboard, formatCents, PIPELINE_STAGE_LABELS } from '@cc/sha
 import type { ChartConfiguration } from 'chart.js';
 import { BaseChartDirective } from 'ng2-charts';
 import { Notice } from '../../core/http/notice';
-import { MoneyPipe } from '../../pricing/money/money';
+import { MoneyPipe } from '../../ui/money/money';
 import { DashboardsApi } from '../dashboards-api';
 
 const monthLabel = (month: string) => new Date(`${month}-01T12:00:00Z`).toLocaleDateString('en-US', { month: 'short', year: 'numeric', timeZone: 'UTC' });

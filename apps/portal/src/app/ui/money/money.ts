@@ -1,13 +1,8 @@
 import { Pipe, PipeTransform } from '@angular/core';
 import { formatCents } from '@cc/shared';
 
-export { formatCents };
-
-/** A signed difference in cents (`+$12.00`, `−$3.50`, `$0.00`). */
-export function formatCentsDelta(cents: number): string {
-  if (cents === 0) return formatCents(0);
-  return `${cents > 0 ? '+' : '−'}${formatCents(Math.abs(cents))}`;
-}
+// The one money formatter lives in shared (the quote PDF uses it too); the portal reads it from here.
+export { formatCents, formatCentsDelta } from '@cc/shared';
 
 /** `{{ line.lineCents | money }}`; an empty value shows as a dash. */
 @Pipe({ name: 'money' })
