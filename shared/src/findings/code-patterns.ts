@@ -46,14 +46,6 @@ const PANEL_CONTEXT = /panel|dead[- ]?front|load cent|breaker box|fuse box|enclo
 const JBOX_WORD = /junction|j-?\s?box|\bbox(?:es)?\b/i;
 const SUBPANEL_CONTEXT = /sub-?\s?panel|secondary panel|remote panel|downstream|distribution panel|feeder/i;
 
-/** NEC 240.4(D) small-conductor limits (from memory of the 2017-2023 text; trade-reference 2.2). */
-const MAX_AMPS_BY_AWG: Readonly<Record<string, number>> = { '14': 15, '12': 20, '10': 30 };
-function isOversized(m: RegExpExecArray): boolean {
-  const amps = Number(m.groups?.amps);
-  const limit = MAX_AMPS_BY_AWG[m.groups?.awg ?? ''];
-  return limit !== undefined && amps > limit;
-}
-
 export const CODE_RULES: readonly CodeRule[] = [
   {
     code: 'gfci-missing',
@@ -192,14 +184,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:oversized?|over-sized|over-?fused|mismatched|incorrectly sized|wrong(?:ly sized)?|improperly sized)\s+${gap(2)}${T.BREAKER}` },
       { re: rx`${T.BREAKER}\s+${gap(3)}${T.BE}(?:oversized|over-sized|too large|too big|larger than|rated (?:higher|above|too high))` },
       { re: rx`undersized\s+(?:wir(?:e|es|ing)|conductors?)` },
-      {
-        re: rx`(?<amps>\d{2})\s?-?(?:a|amps?|ampere)\s+${T.BREAKER}\s+${gap(3)}(?:on|protects?|protecting|feeds?|feeding|serves?|serving|connected to|supplies|supplying)\s+(?:an?\s+)?${gap(2)}#?\s?(?<awg>1[024])\s*(?:awg|gauge|ga)\b`,
-        check: isOversized,
-      },
-      {
-        re: rx`#?\s?(?<awg>1[024])\s*(?:awg|gauge|ga)\s+${gap(3)}(?:on|protected by|connected to|landed on|fed by|attached to)\s+(?:an?\s+)?(?<amps>\d{2})\s?-?(?:a|amps?|ampere)\b`,
-        check: isOversized,
-      },
+      // Ratings checked against the conductor or the nameplate are computed in overcurrent-check.ts.
     ],
   },
   {

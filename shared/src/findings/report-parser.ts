@@ -2,7 +2,7 @@ import { readBlock } from './block-findings';
 import { splitBlocks } from './block-splitter';
 import { findingCodeInfo } from './finding-code';
 import type { Finding, ParseResult, SkippedText } from './finding.schema';
-import { sourceRange } from './mapped-text';
+import { sourceRange, type MappedText } from './mapped-text';
 
 /** The character that joins pages into one text; offsets in a ParseResult refer to that text. */
 export const PAGE_SEPARATOR = '\f';
@@ -75,10 +75,19 @@ export function parseReport(pages: readonly string[]): ParseResult {
         end: range.end,
         severity: info.severity,
         necRefs: [...info.necRefs],
+        confidence: f.confidence,
+        recommendation: f.recommendations.length > 0 ? f.recommendations.map((r) => sourceText(joined, r)).join(' ') : null,
+        computation: f.computation,
       });
     }
   }
   return { findings, skipped };
+}
+
+/** The original text of a mapped stretch, exactly as the report wrote it. */
+function sourceText(joined: string, m: MappedText): string {
+  const { start, end } = sourceRange(m);
+  return joined.slice(start, end);
 }
 
 /** Convenience for plain text: pages are separated by form feeds. */

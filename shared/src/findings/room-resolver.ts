@@ -15,6 +15,8 @@ export interface Placement {
   readonly laterText: string;
   /** Position in countText after which "a"/"an" no longer count as one (see readQuantity). */
   readonly articleLimit: number;
+  /** Whether the room comes from context (an earlier sentence, the heading, the code's default). */
+  readonly isInferred?: boolean;
 }
 
 export interface CarriedPlace {
@@ -26,6 +28,12 @@ export interface CarriedPlace {
 export interface PlaceContext {
   /** A place named earlier in the block that this sentence refers back to ("It is not..."). */
   readonly carried: CarriedPlace | null;
+  /**
+   * The place named by the block's opening sentence: it carries to findings that name none, unless
+   * that sentence was itself a finding and this code has a room of its own by default (a house-wide
+   * alarm is not in the bedroom of the sentence before).
+   */
+  readonly opening?: (CarriedPlace & { readonly hadFindings: boolean }) | null;
   readonly sectionRoom: Room | null;
   readonly sectionTitle: string | null;
 }
@@ -115,9 +123,13 @@ export function placeMatches(
       nearest(rooms, part.start, part.end, clause) ??
       nearest(rooms, part.start, text.length, { start: 0, end: part.start });
     if (chosen) return [{ room: chosen.room, location: readLocation(text, chosen), ...own }];
-    if (context.carried) return [{ ...context.carried, ...own }];
-    if (context.sectionRoom) return [{ room: context.sectionRoom, location: context.sectionTitle ?? '', ...own }];
-    return [{ room: match.rule.defaultRoom ?? 'unknown', location: '', ...own }];
+    if (context.carried) return [{ ...context.carried, ...own, isInferred: true }];
+    const opening = context.opening;
+    if (opening && !(opening.hadFindings && match.rule.defaultRoom)) {
+      return [{ room: opening.room, location: opening.location, ...own, isInferred: true }];
+    }
+    if (context.sectionRoom) return [{ room: context.sectionRoom, location: context.sectionTitle ?? '', ...own, isInferred: true }];
+    return [{ room: match.rule.defaultRoom ?? 'unknown', location: '', ...own, isInferred: true }];
   });
 }
 
