@@ -1,4 +1,4 @@
-import type { FindingCode, ItemStatus, LineItem, Room, Severity } from '@cc/shared';
+import type { Confidence, FindingCode, ItemStatus, LineItem, Room, Severity } from '@cc/shared';
 import type { Db, Trx } from './knex';
 import type { LineItemRow } from './tables';
 
@@ -25,6 +25,9 @@ export function toLineItem(row: LineItemRow): StoredLineItem {
     status: row.status as ItemStatus,
     isEdited: row.is_edited,
     version: row.version,
+    confidence: (row.confidence as Confidence | null) ?? null,
+    recommendation: row.recommendation ?? null,
+    computation: row.computation ?? null,
   };
 }
 
@@ -43,6 +46,10 @@ export interface NewLineItem {
   reportFileId: number | null;
   evidenceStart: number | null;
   evidenceEnd: number | null;
+  /** How the reader found a proposed item; null for items a person adds. */
+  confidence?: Confidence | null;
+  recommendation?: string | null;
+  computation?: string | null;
 }
 
 type Changes = Partial<Pick<NewLineItem, 'code' | 'room' | 'location' | 'quantity' | 'severity' | 'necRefs' | 'status' | 'isEdited' | 'evidence'>>;
@@ -63,6 +70,9 @@ function toRow(item: Changes & Partial<NewLineItem>): Partial<LineItemRow> {
   if (item.reportFileId !== undefined) row.report_file_id = item.reportFileId;
   if (item.evidenceStart !== undefined) row.evidence_start = item.evidenceStart;
   if (item.evidenceEnd !== undefined) row.evidence_end = item.evidenceEnd;
+  if (item.confidence !== undefined) row.confidence = item.confidence;
+  if (item.recommendation !== undefined) row.recommendation = item.recommendation;
+  if (item.computation !== undefined) row.computation = item.computation;
   return row;
 }
 

@@ -82,6 +82,9 @@ export interface LineItemRow {
   report_file_id: number | null;
   evidence_start: number | null;
   evidence_end: number | null;
+  confidence: string | null;
+  recommendation: string | null;
+  computation: string | null;
   created_at: Date;
   updated_at: Date;
 }

@@ -4,7 +4,7 @@ import { readLocation } from './location-reader';
 import type { FindingCode } from './finding-code';
 import type { MappedText } from './mapped-text';
 import { negatedSpans } from './negation-detector';
-import { findingQuantity } from './quantity-reader';
+import { findingQuantity, isUncounted } from './quantity-reader';
 import { scanAll } from './regex-scan';
 import { findRooms, type RoomMention } from './room-lexicon';
 import type { Room } from './room';
@@ -108,7 +108,11 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
         });
       }
     });
-    const onlyFollowUp = inSentence.every((f) => f.isRecommendation || f.isFallbackOnly);
+    // A follow-up sentence only recommends, or speaks again of a defect the block already has
+    // ("Three-prong receptacles should be grounded or GFCI protected.").
+    const onlyFollowUp = inSentence.every(
+      (f) => f.isRecommendation || f.isFallbackOnly || (f.confidence === 'inferred' && found.some((g) => g.code === f.code)),
+    );
     if (lastFound.length > 0 && onlyFollowUp && FOLLOW_UP.test(sentence.text)) {
       // "This should be corrected by a licensed electrician.": part of the finding(s) before it.
       for (const f of lastFound) f.recommendations.push(written);
@@ -124,7 +128,12 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
   return { findings: keepDistinct(found), hasNegated };
 }
 
-function keepDistinct(found: readonly BlockFinding[]): BlockFinding[] {
+function keepDistinct(all: readonly BlockFinding[]): BlockFinding[] {
+  // A condition (a wiring method, bonding, the service) named again in the block without a place
+  // of its own is the same condition.
+  const found = all.filter(
+    (f, i) => !(isUncounted(f.code) && f.confidence === 'inferred' && all.some((g, j) => j < i && g.code === f.code)),
+  );
   const specific = found.filter((f) => !f.isFallbackOnly);
   const pool = specific.length > 0 ? specific : found.filter((f, i) => found.findIndex((g) => g.code === f.code) === i);
   return pool.filter((f, i) => {

@@ -29,7 +29,7 @@ interface Line {
 }
 
 const ITEM_MARKER = /^\s*(?:\d{1,3}(?:\.\d{1,3})+\.?|\d{1,3}[.)]|[a-h][.)]|item\s+\d{1,3}\s*[:.)-]|[-•*‣▪◦●·–—>]|\[\s?[x ]?\])\s+/i;
-const NOISE_LINE = /^(?:.{0,80}\bpage\s+\d+(?:\s*(?:of|\/)\s*\d+)?|-{1,2}\s*\d+\s+of\s+\d+\s*-{1,2}|\d+\s*\/\s*\d+)\s*$/i;
+const NOISE_LINE = /^(?:[|+:=\s-]{3,}|.{0,80}\bpage\s+\d+(?:\s*(?:of|\/)\s*\d+)?|-{1,2}\s*\d+\s+of\s+\d+\s*-{1,2}|\d+\s*\/\s*\d+)\s*$/i;
 const CONNECTOR_END = /(?:[,;&/-]|\b(?:and|or|the|a|an|at|of|to|with|in|on|for|by|from|is|are|was|were|not|no))$/i;
 /** A checklist line that ends in its answer ("GFCI at exterior: No"). */
 const CHECKLIST_ANSWER = /:\s*(?:yes|no|none|n\/a|ok|missing)$/i;
@@ -118,6 +118,13 @@ function joinLine(builder: MappedTextBuilder, prev: Line, next: Line): void {
     CHECKLIST_ANSWER.test(before) ||
     prev.text.includes('\t') ||
     next.text.includes('\t') ||
+    isTableRow(prev.text) ||
+    isTableRow(next.text) ||
     (before.length < SHORT_LINE && !/[.!?]$/.test(before) && !CONNECTOR_END.test(before) && /^[\p{Lu}\d(]/u.test(after));
   builder.appendSeparator(isBoundary ? '\n' : ' ', breakAt);
+}
+
+/** A row of a table export: pipe-separated, or fixed-width columns (runs of 3+ spaces between words). */
+function isTableRow(line: string): boolean {
+  return /\S\s*\|\s*\S/.test(line) || /\S {3,}\S/.test(line.trim());
 }

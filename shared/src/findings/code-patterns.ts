@@ -1,6 +1,6 @@
 import type { FindingCode } from './finding-code';
 import type { Room } from './room';
-import { anyGap, gap, PROTECTION_FILLER as PF, rx, T } from './term-lexicon';
+import { adjGap, anyGap, gap, PROTECTION_FILLER as PF, rx, T } from './term-lexicon';
 
 /**
  * The phrase table: for every finding code, the phrasings that state the defect. This is the one
@@ -38,6 +38,7 @@ export interface CodeRule {
   readonly isFallbackOnly?: boolean;
 }
 
+const ADJ_GAP = adjGap(3);
 const RECOMMEND = String.raw`(?:recommend(?:ed|s|ing)?|suggest(?:ed)?|should (?:be|have)|install(?:ing|ed)?|upgrad(?:e|ed|ing) to|add(?:ing)?|need(?:s|ed)?|requires?|consider(?:ing)?|have the)`;
 /** Words that turn a recommendation into one about an existing device (replace, test, reset). */
 const NOT_ABOUT_ADDING = String.raw`(?:(?!replac|repair|reset|test|check)[\w-]+\s+){0,4}?`;
@@ -52,7 +53,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /gfc?i|gcfi|ground[- ]fault/i,
     yieldsTo: ['gfci-inoperative', 'open-ground', 'false-ground', 'knob-and-tube'],
     patterns: [
-      { re: rx`(?:${T.NO}|not|non-?|neither\s+${gap(3)}(?:has|have|is|are))\s*${PF}${T.GFCI}` },
+      { re: rx`(?:${T.NO}|not|non-?|neither\s+${gap(5)}(?:has|have|had|is|are|was|were))\s*${PF}${T.GFCI}` },
       { re: rx`${T.GFCI}(?:\s+(?:protection|protected|${T.RCPT}|breakers?))?\s+${T.BE}${T.ABSENT}` },
       { re: rx`${T.GFCI}(?:\s+protect(?:ion|ed))?(?:\s+(?:at|in|for)\s+${gap(3)}[\w-]+)?\s*[:=-]\s*(?:no|none|missing|absent)\b` },
       { re: rx`${T.RCPT}\s+${gap(4)}(?:are|is|were|was)\s+not\s+(?:on|protected by)\s+(?:an?\s+)?${T.GFCI}` },
@@ -64,9 +65,11 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /gfc?i|gcfi|ground[- ]fault|trip|reset/i,
     patterns: [
       { re: rx`${T.GFCI}\s+${anyGap(7)}${T.FAILED}\s+(?:properly\s+)?(?:trip|reset|respond|function|operate|work)` },
-      { re: rx`${T.GFCI}(?:\s+${T.RCPT})?\s+${gap(4)}${T.BE}(?:${T.INOPERATIVE}|worn(?: out)?|at end of life|end[- ]of[- ]life|not (?:tripping|resetting))` },
+      { re: rx`${T.GFCI}(?:\s+${T.RCPT})?\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|worn(?: out)?|at end of life|end[- ]of[- ]life|not (?:tripping|resetting))` },
       { re: rx`(?:${T.INOPERATIVE}|failed|worn|damaged)\s+${T.GFCI}(?:\s+${T.RCPT})?` },
       { re: rx`${T.FAILED}\s+(?:trip|reset)\b(?!\s+(?:the|a)?\s*breaker)` },
+      { re: rx`${T.GFCI}(?:\s+${T.RCPT})?\s+${anyGap(6)}(?:-\s*)?(?:no|not|never)\s+(?:trip(?:ping|ped)?|reset(?:ting)?)\b` },
+      { re: rx`(?:no|not|never)\s+(?:trip(?:ping|ped)?|reset(?:ting)?)\s+(?:with|when|on|using|at)\s+(?:the\s+)?(?:test(?:er)?|button|btn)` },
     ],
   },
   {
@@ -97,7 +100,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:tested|tests?|read|reads|showed?|shows|indicated?|registers?|registered)\s+(?:as\s+)?(?:ungrounded|open ground)` },
       { re: rx`(?:three|3)[- ](?:prong|slot|hole)\s+${T.RCPT}?\s*${gap(3)}(?:on|with|in|fed by)\s+(?:an?\s+)?(?:ungrounded|two[- ]wire|2[- ]wire|non-?grounded)` },
       { re: rx`(?:no|lacks?|lacking|missing|without)\s+(?:an?\s+)?(?:equipment\s+)?ground(?:ing)?(?:\s+(?:conductor|wire|path))?\b(?!\s*(?:fault|electrode|rod|clamp))` },
-      { re: rx`${T.RCPT}\s+${gap(3)}${T.BE}(?:not grounded|ungrounded)` },
+      { re: rx`${T.RCPT}\s+${gap(8)}${T.BE}(?:not grounded|ungrounded)` },
     ],
   },
   {
@@ -105,7 +108,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /ground/i,
     yieldsTo: ['subpanel-bonding'],
     patterns: [
-      { re: rx`(?:bootleg(?:ged)?|false|fake)\s+ground(?:s|ed|ing)?\b` },
+      { re: rx`(?:bootleg(?:ged)?|false|fake)\s+(?:indication of (?:a\s+)?)?ground(?:s|ed|ing)?\b` },
+      { re: rx`(?:jumper|jumpered|jumped|tied|bonded)\s+${anyGap(4)}(?:from\s+)?(?:the\s+)?neutral\s+${anyGap(3)}to\s+(?:the\s+)?(?:green\s+)?ground(?:ing)?(?:\s+(?:terminal|screw))?` },
       { re: rx`neutral\s+${gap(4)}(?:jumpered|jumped|bonded|tied)\s+(?:over\s+)?to\s+(?:the\s+)?ground(?:ing)?(?:\s+(?:terminal|screw))?`, isRecommendation: true },
     ],
   },
@@ -113,8 +117,9 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'receptacle-damaged',
     trigger: /rec[ei]p|rcp|outlet|duplex|device|plug|cord|tension|grip|contacts/i,
     patterns: [
-      { re: rx`(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?:[- ]over)?|worn|discolou?red|heat[- ]damaged|dead|${T.INOPERATIVE})\s+${gap(3)}${T.RCPT}` },
-      { re: rx`${T.RCPT}\s+${gap(5)}${T.BE}(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?: over)?|worn|discolou?red|dead|${T.INOPERATIVE}|not (?:energized|powered|secured|secure|fastened)|pulled (?:out|away)|recessed)` },
+      { re: rx`(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?:[- ]over)?|worn|discolou?red|heat[- ]damaged|dead|${T.INOPERATIVE})\s+${ADJ_GAP}${T.RCPT}` },
+      { re: rx`(?:cracked|broken|damaged) (?:face|housing|body)|loose (?:plug )?fit|plugs? (?:fits?|fit) loose(?:ly)?|(?:will not|won't|does not|doesn't) (?:hold|retain) (?:a |the )?plugs?` },
+      { re: rx`${T.RCPT}\s+${gap(8)}${T.BE}(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?: over)?|worn|discolou?red|dead|${T.INOPERATIVE}|not (?:energized|powered|secured|secure|fastened)|pulled (?:out|away)|recessed)` },
       { re: rx`${T.RCPT}\s+${gap(5)}(?:(?:has|have|had)\s+no|(?:is|are)\s+without)\s+power` },
       { re: rx`${T.RCPT}\s+${gap(5)}(?:shows?|showed|has|have|with)\s+(?:scorch|burn|arc(?:ing)?|char|heat)\w*(?:\s+marks?)?` },
       { re: rx`(?:scorch|burn|arc(?:ing)?|char)\w*\s+marks?\s+(?:on|at)\s+${gap(3)}${T.RCPT}` },
@@ -139,7 +144,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /plate|cover/i,
     patterns: [
       { re: rx`(?:${T.NO}|broken|cracked|damaged)\s+(?:(?:the|a|an|any)\s+)?(?:(?:switch|${T.RCPT}|light|blank)\s+)?${T.PLATE}`, unless: JBOX_WORD },
-      { re: rx`${T.PLATE}\s+${gap(4)}${T.BE}(?:${T.ABSENT}|broken|cracked|damaged)`, unless: JBOX_WORD },
+      { re: rx`${T.PLATE}\s+${gap(8)}${T.BE}(?:${T.ABSENT}|broken|cracked|damaged)`, unless: JBOX_WORD },
       { re: rx`${T.PLATE}\s+(?:for|on|at|of)\s+(?:the\s+|a\s+)?(?:${T.SWITCH}|${T.RCPT})\s+${gap(5)}${T.BE}(?:broken|cracked|damaged|missing)` },
     ],
   },
@@ -153,6 +158,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${T.NO}\s+(?:blank\s+)?(?:covers?|lids?)\s+(?:on|for)\s+(?:the\s+|an?\s+)?${T.JBOX}` },
       { re: rx`(?:splices?|spliced (?:wires|conductors)|wire nuts?)\s+${anyGap(6)}(?:outside|not in|not within|not enclosed|without)\s+(?:in\s+)?(?:an?\s+|the\s+)?(?:(?:approved|junction|electrical|enclosed)\s+)?(?:box|enclosure|junction box)` },
       { re: rx`(?:open|exposed|unenclosed|loose|taped)\s+(?:wire\s+)?splices?` },
+      { re: rx`(?:spliced?|splices|connections?|connected)\b\s+${anyGap(20)}(?:with\s+no|without(?:\s+an?)?|not\s+in(?:\s+an?)?|outside(?:\s+of)?(?:\s+an?)?)\s+(?:junction\s+|electrical\s+)?(?:box|enclosure)` },
+      { re: rx`(?:wrapped|taped)\s+(?:only\s+)?(?:in|with)\s+(?:electrical\s+)?tape` },
     ],
   },
   {
@@ -160,7 +167,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /wir|cable|conductor|\bnm\b|romex|cord/i,
     patterns: [
       { re: rx`(?:exposed|unprotected|unsecured|loose|dangling|hanging|unsupported|unstapled|frayed)(?:,?\s+(?:dangling|hanging|unsecured|loose|exposed))?\s+(?:(?:nm|romex|electrical|branch(?: circuit)?|sheathed|non-?metallic(?:[- ]sheathed)?)\s+)?(?:wir(?:e|es|ing)|cables?|nm(?:-b)?|romex)\b` },
-      { re: rx`${T.WIRING}\s+${gap(4)}${T.BE}(?:exposed|unprotected|unsecured|loose|not (?:secured|supported|protected|stapled|strapped)|dangling|hanging|lying|draped|subject to (?:physical )?damage|within reach)` },
+      { re: rx`${T.WIRING}\s+${gap(8)}${T.BE}(?:exposed|unprotected|unsecured|loose|not (?:secured|supported|protected|stapled|strapped)|dangling|hanging|lying|draped|subject to (?:physical )?damage|within reach)` },
       { re: rx`extension cords?\s+${gap(3)}(?:used|in use|serving|as|for|run|powering|supplying|providing|feeding)` },
       { re: rx`(?:used|using|uses|plugged in(?:\s?to)?|powered by|connected to|on)\s+(?:an?\s+)?extension cords?` },
       { re: rx`(?:permanent|fixed)\s+(?:use of\s+)?extension cords?` },
@@ -173,7 +180,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`(?:doubled?|dbl\.?|dual|twin)[- ]?tap(?:s|ped|ping|ed)?\b` },
       { re: rx`double[- ]lug(?:ged|s)?\b` },
-      { re: rx`(?:two|2|multiple)\s+(?:wires|conductors|circuits|neutrals)\s+${gap(3)}(?:under|on|to|landed on|terminated on|sharing)\s+(?:a\s+|one\s+|the same\s+|single\s+)+(?:terminal|lug|screw|breaker)` },
+      { re: rx`(?:two|2|multiple)\s+(?:wires|conductors|circuits|neutrals)\s+${gap(3)}(?:under|on|to|landed on|terminated on|sharing)\s+(?:a\s+|one\s+|the same\s+|single\s+|its\s+|their\s+|the\s+)+(?:terminal|lug|screw|breaker)` },
     ],
   },
   {
@@ -200,7 +207,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:${T.NO})\s+(?:breaker\s+)?(?:fillers?|filler plates?|blanks?|blanking plates?|knockout (?:closures|seals|plugs|covers))` },
       { re: rx`(?:knockouts?|fillers?|filler plates?)\s+${T.BE}(?:missing|open|absent)` },
       { re: rx`(?:${T.NO}|incomplete|illegible|inaccurate)\s+(?:panel\s+|circuit\s+)*(?:directory|legend|labels?|labell?ing|identification)` },
-      { re: rx`(?:directory|legend|circuit labels?|labell?ing)\s+${gap(3)}${T.BE}(?:${T.ABSENT}|incomplete|illegible|inaccurate|not (?:filled|completed))` },
+      { re: rx`(?:directory|legend|circuit labels?|labell?ing)\s+${gap(3)}${T.BE}(?:${T.ABSENT}|incomplete|illegible|inaccurate|blank|empty|not (?:filled|completed))` },
       { re: rx`(?:circuits?|breakers?)\s+${gap(3)}${T.BE}(?:not|un)[- ]?(?:labell?ed|identified|marked)`, context: PANEL_CONTEXT },
       { re: rx`(?:unlabell?ed|unidentified|unmarked)\s+(?:circuits?|breakers?)` },
       { re: rx`(?:corrosion|rust|moisture|water stains?)\s+${gap(3)}(?:in|on|inside|at|within)\s+(?:the\s+)?(?:main\s+|electrical\s+|service\s+)?(?:${T.PANEL}|breakers?|bus)` },
@@ -227,7 +234,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /ground|gec|bond|electrode/i,
     patterns: [
       { re: rx`(?:${T.NO}|loose|disconnected|damaged|broken|cut|corroded|inadequate|improper)\s+(?:(?:a|an|the)\s+)?${gap(2)}(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|water (?:pipe |line )?bond(?:ing)?(?: jumper)?|gas (?:pipe |line )?bond(?:ing)?|bonding (?:jumper|conductor|clamp|wire))` },
-      { re: rx`(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|bonding (?:jumper|clamp|conductor))\s+${gap(3)}${T.BE}(?:${T.ABSENT}|loose|disconnected|damaged|cut|broken|corroded|not (?:connected|attached|bonded|secured)|undersized|inadequate)` },
+      { re: rx`(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|bonding (?:jumper|clamp|conductor))\s+${gap(8)}${T.BE}(?:${T.ABSENT}|loose|disconnected|damaged|cut|broken|corroded|not (?:connected|attached|bonded|secured)|undersized|inadequate)` },
       { re: rx`(?:water|gas|metal|csst)(?:\s+(?:service|supply|main))?(?:\s+(?:pipes?|piping|lines?))?\s+${gap(2)}${T.BE}(?:not|un)[- ]?bonded` },
       { re: rx`(?:not|no)\s+bond(?:ed|ing)\s+(?:\w+\s+){0,3}?(?:water|gas|csst|metal piping)` },
     ],
@@ -238,7 +245,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     defaultRoom: 'whole-house',
     patterns: [
       { re: rx`(?:${T.NO}|${T.INOPERATIVE}|expired|outdated|dated|disconnected|removed|chirping)\s+${gap(2)}${T.SMOKE}` },
-      { re: rx`${T.SMOKE}\s*[:-]?\s*${gap(3)}${T.BE}(?:${T.ABSENT}|none|${T.INOPERATIVE}|expired|past (?:their|its) (?:service life|expiration)|(?:over|older than|more than) (?:10|ten) years|disconnected|removed|chirping|${T.FAILED} (?:respond|sound|activate|operate|work)|failed)` },
+      { re: rx`${T.SMOKE}\s*[:-]?\s*${gap(8)}${T.BE}(?:${T.ABSENT}|none|${T.INOPERATIVE}|expired|past (?:their|its) (?:service life|expiration)|(?:over|older than|more than) (?:10|ten) years|disconnected|removed|chirping|${T.FAILED} (?:respond|sound|activate|operate|work)|failed)` },
       { re: rx`${RECOMMEND}\s+${NOT_ABOUT_ADDING}${T.SMOKE}`, isRecommendation: true, unless: /\btest/i },
       { re: rx`(?:unit|device)\s+${gap(4)}${T.FAILED}\s+(?:sound|alarm|respond|activate)`, context: /smoke|carbon monoxide|\bco\b|alarm|detector/i },
     ],
@@ -247,7 +254,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'light-fixture',
     trigger: /light|fixture|luminaire|chandelier|pendant|sconce|globe|lens|shade|diffuser|bulb|lamp|insulation/i,
     patterns: [
-      { re: rx`${T.LIGHT}\s+${gap(5)}${T.BE}(?:${T.INOPERATIVE}|loose|dangling|hanging|not (?:secured|secure|attached|mounted)|${T.FAILED} (?:operate|work|respond|turn on|come on)|in contact with (?:the\s+)?insulation|covered (?:by|with) insulation|not (?:rated|listed|suitable|approved) for (?:a |the )?(?:wet|damp))` },
+      { re: rx`${T.LIGHT}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|dangling|hanging|not (?:secured|secure|attached|mounted)|${T.FAILED} (?:operate|work|respond|turn on|come on)|in contact with (?:the\s+)?insulation|covered (?:by|with) insulation|not (?:rated|listed|suitable|approved) for (?:a |the )?(?:wet|damp))` },
       { re: rx`(?:${T.INOPERATIVE}|loose|dangling|damaged|broken)\s+${gap(2)}${T.LIGHT}` },
       { re: rx`(?:${T.NO}|broken)\s+(?:(?:the|a)\s+)?(?:globes?|lens(?:es)?|light covers?|shades?|diffusers?)` },
       { re: rx`(?:bare|open|exposed|uncovered)\s+(?:incandescent\s+)?(?:bulbs?|lamps?)\b` },
@@ -268,8 +275,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'switch-issue',
     trigger: /switch/i,
     patterns: [
-      { re: rx`${T.SWITCH}\s+${gap(5)}${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|(?:warm|hot) to the touch|warm|hot|sparks?|sparking|arcing|${T.FAILED} (?:operate|work|respond|control))` },
-      { re: rx`${T.SWITCH}\s+${gap(7)}(?:(?:has|have|had|of|with|serves?)\s+)?(?:an?\s+)?unknown (?:function|purpose|use)` },
+      { re: rx`${T.SWITCH}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|(?:warm|hot) to the touch|warm|hot|sparks?|sparking|arcing|${T.FAILED} (?:operate|work|respond|control))` },
+      { re: rx`${T.SWITCH}\s+${gap(7)}(?:(?:has|have|had|of|with|serves?)\s+)?(?:an?\s+)?(?:unknown|no known|undetermined|unclear) (?:function|purpose|use)` },
       { re: rx`(?:function|purpose) of (?:the |a |an )?${gap(2)}${T.SWITCH}\s+${gap(5)}${T.BE}(?:unknown|unclear|undetermined|not determined|could not be determined)` },
       { re: rx`(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|unknown(?:[- ]function)?)\s+${gap(2)}${T.SWITCH}(?!\s*(?:cover\s*)?plates?)` },
     ],
@@ -300,7 +307,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /service|weather\s?head|drip|meter|\bse\b|seu|mast|overhead|utility|clearance/i,
     defaultRoom: 'exterior',
     patterns: [
-      { re: rx`${T.SERVICE}\s+${gap(4)}${T.BE}(?:damaged|leaning|bent|loose|pulling away|detached|unsecured|not (?:secured|sealed|properly (?:secured|sealed|supported))|${T.ABSENT}|deteriorated|worn|frayed|cracked|rusted|rusting|corroded|too low|sagging|in contact with|contacting|touching|rubbing|exposed|weathered|brittle|torn|split)` },
+      { re: rx`${T.SERVICE}\s+${gap(8)}${T.BE}(?:damaged|leaning|bent|loose|pulling away|detached|unsecured|not (?:secured|sealed|properly (?:secured|sealed|supported))|${T.ABSENT}|deteriorated|worn|frayed|cracked|rusted|rusting|corroded|too low|sagging|in contact with|contacting|touching|rubbing|exposed|weathered|brittle|torn|split)` },
       { re: rx`(?:${T.NO}|damaged|deteriorated|frayed|worn|cracked|weathered|brittle|loose|leaning|bent|rusted|corroded)\s+${gap(2)}${T.SERVICE}` },
       { re: rx`(?:trees?|branches|limbs|vegetation|vines)\s+${gap(3)}(?:in contact with|contacting|touching|rubbing|against|interfering with)\s+(?:the\s+)?${gap(2)}${T.SERVICE}` },
       { re: rx`(?:inadequate|insufficient|improper|low)\s+(?:service\s+)?(?:drop\s+)?clearance\b`, context: /service|drop|overhead|mast|utility|roof/i, unless: PANEL_CONTEXT },

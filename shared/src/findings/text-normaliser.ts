@@ -45,6 +45,7 @@ const SHORTHAND: Readonly<Record<string, string>> = {
   wp: 'weatherproof', wr: 'weather-resistant',
   al: 'aluminum', alum: 'aluminum', aluminium: 'aluminum', cu: 'copper',
   ga: 'AWG', 'ga.': 'AWG', gauge: 'AWG', gage: 'AWG', awg: 'AWG',
+  obs: 'observed', 'obs.': 'observed', unk: 'unknown', 'unk.': 'unknown', clg: 'ceiling', btn: 'button', mfr: 'manufacture',
   bsmt: 'basement', bsmnt: 'basement', bdrm: 'bedroom', bdrms: 'bedrooms', bedrm: 'bedroom', kit: 'kitchen', ktchn: 'kitchen',
   gar: 'garage', ba: 'bathroom', bth: 'bathroom', bthrm: 'bathroom', lndry: 'laundry', hwy: 'hallway', ext: 'exterior', extr: 'exterior',
 };
@@ -133,7 +134,8 @@ export function correctSpelling(word: string): string | null {
   let bestDistance = limit + 1;
   for (const candidate of BY_FIRST.get(lower[0]) ?? []) {
     if (Math.abs(candidate.length - lower.length) > limit) continue;
-    const d = distance(lower, candidate);
+    // Two swapped neighbours ("wobbels", "junciton") count as one edit, as a typist makes them.
+    const d = isTransposition(lower, candidate) ? 1 : distance(lower, candidate);
     if (d < bestDistance && d <= (candidate.length >= 8 ? 2 : 1)) {
       best = candidate;
       bestDistance = d;
@@ -144,6 +146,14 @@ export function correctSpelling(word: string): string | null {
   if (MEMO.size > MEMO_LIMIT) MEMO.clear();
   MEMO.set(lower, best);
   return best;
+}
+
+/** Whether `a` is `b` with two neighbouring letters swapped. */
+function isTransposition(a: string, b: string): boolean {
+  if (a.length !== b.length) return false;
+  let i = 0;
+  while (i < a.length && a[i] === b[i]) i++;
+  return i + 1 < a.length && a[i] === b[i + 1] && a[i + 1] === b[i] && a.slice(i + 2) === b.slice(i + 2);
 }
 
 /** A word, with the characters shorthand uses ("k&t", "w/o", "j-box", "ungr'd", "inop."). */
@@ -213,7 +223,8 @@ function contextAllows(key: string, prev: string, next: string, gapBefore: strin
     case 'ser':
       return original === original.toUpperCase() && original.length === 3;
     case 'sw':
-      return /^(?:lt|light|wall|3-way|dimmer|the|a|sw)$/.test(prev) || /^(?:inop|loose|plate|cover|cvr|broken)/.test(next);
+      // "sw by slider", "lt sw inop" — not "SW" (south-west).
+      return original !== 'SW' || /^(?:lt|light|wall|3-way|dimmer)$/.test(prev);
     case 'lt':
     case 'lts':
       return /^(?:sw|fixt|fixture|inop|out|loose|missing|cover)/.test(next) || /^(?:closet|porch|ceiling|exterior|ext|can|vanity)$/.test(prev);
