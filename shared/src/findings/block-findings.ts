@@ -4,7 +4,7 @@ import { readLocation } from './location-reader';
 import type { FindingCode } from './finding-code';
 import type { MappedText } from './mapped-text';
 import { negatedSpans } from './negation-detector';
-import { findingQuantity, isUncounted } from './quantity-reader';
+import { findingQuantity } from './quantity-reader';
 import { scanAll } from './regex-scan';
 import { findRooms, type RoomMention } from './room-lexicon';
 import type { Room } from './room';
@@ -128,11 +128,12 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
   return { findings: keepDistinct(found), hasNegated };
 }
 
+const WIRING_METHODS: ReadonlySet<string> = new Set(['knob-and-tube', 'aluminum-branch-wiring']);
+
 function keepDistinct(all: readonly BlockFinding[]): BlockFinding[] {
-  // A condition (a wiring method, bonding, the service) named again in the block without a place
-  // of its own is the same condition.
+  // A wiring method named again in the block without a place of its own is the same wiring.
   const found = all.filter(
-    (f, i) => !(isUncounted(f.code) && f.confidence === 'inferred' && all.some((g, j) => j < i && g.code === f.code)),
+    (f, i) => !(WIRING_METHODS.has(f.code) && f.confidence === 'inferred' && all.some((g, j) => j < i && g.code === f.code)),
   );
   const specific = found.filter((f) => !f.isFallbackOnly);
   const pool = specific.length > 0 ? specific : found.filter((f, i) => found.findIndex((g) => g.code === f.code) === i);

@@ -42,6 +42,10 @@ const ADJ_GAP = adjGap(3);
 const RECOMMEND = String.raw`(?:recommend(?:ed|s|ing)?|suggest(?:ed)?|should (?:be|have)|install(?:ing|ed)?|upgrad(?:e|ed|ing) to|add(?:ing)?|need(?:s|ed)?|requires?|consider(?:ing)?|have the)`;
 /** Words that turn a recommendation into one about an existing device (replace, test, reset). */
 const NOT_ABOUT_ADDING = String.raw`(?:(?!replac|repair|reset|test|check)[\w-]+\s+){0,4}?`;
+/** A light that is part of an appliance (range hood, oven, refrigerator, opener) is not a light fixture. */
+const NOT_APPLIANCE = String.raw`(?<!\b(?:hood|range|oven|microwave|refrigerator|fridge|freezer|opener|appliance|exhaust fan)\s)`;
+/** A general evaluation that is conditional or points at items listed elsewhere ("all of the above") is not a finding of its own. */
+const REFERS_TO_OTHERS = /\bif\b|\bany\b|\bshould any\b|\babove\b|\bthese\b|\bthis section\b|\b(?:items?|conditions?|defects?|deficiencies) (?:in|of|listed|noted)\b|\blisted\b|\bmarked\b|\bitems? \d/i;
 const PANEL_CONTEXT = /panel|dead[- ]?front|load cent|breaker box|fuse box|enclosure/i;
 /** A bare "cover" next to a junction box is the box's cover, not a device cover plate. */
 const JBOX_WORD = /junction|j-?\s?box|\bbox(?:es)?\b/i;
@@ -134,9 +138,10 @@ export const CODE_RULES: readonly CodeRule[] = [
     defaultRoom: 'exterior',
     patterns: [
       { re: rx`(?:${T.NO}|${T.BROKEN})\s+(?:(?:an?|the|its|proper|required)\s+)?(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant|[- ]tight)?|wp|wr|exterior|outdoor)[- ]?(?:rated\s+)?(?:covers?|cover plates?|enclosures?|hoods?|lids?|flaps?)` },
-      { re: rx`(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant)?|wp)\s+covers?\s+${T.BE}(?:${T.ABSENT}|broken|damaged|cracked|needed|recommended|required)` },
+      { re: rx`(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant)?|wp)\s+covers?\s+${anyGap(8)}${T.BE}(?:${T.ABSENT}|broken|damaged|cracked|needed|recommended|required)` },
       { re: rx`(?:exterior|outdoor|outside|patio|deck|porch)\s+${T.RCPT}\s+${gap(3)}(?:covers?|lids?|flaps?)\s+${T.BE}(?:missing|broken|damaged|absent)` },
       { re: rx`(?:not|non)[- ](?:wr|weather[- ]resistant)\b` },
+      { re: rx`(?:covers?|lids?)\s+${anyGap(4)}(?:not|isn't|is not)\s+(?:an?\s+)?(?:in[- ]use|bubble|weather[- ]?proof|wp|while[- ]in[- ]use|extra[- ]duty)\b` },
     ],
   },
   {
@@ -222,7 +227,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /neutral|ground|bond|green|egc/i,
     fixedRoom: 'panel',
     patterns: [
-      { re: rx`(?:neutrals?|grounds?)(?:\s+(?:conductors?|wires?))?\s+(?:and|&)\s+(?:neutrals?|grounds?|grounding|equipment grounds?)(?:\s+(?:conductors?|wires?))?\s+${gap(3)}(?:share|sharing|are on|on the same|together|combined|commingled|mixed|${T.BE}not (?:separated|isolated))` },
+      { re: rx`(?:neutrals?|grounds?)(?:\s+(?:conductors?|wires?))?\s+(?:and|&)\s+(?:neutrals?|grounds?|grounding|equipment grounds?)(?:\s+(?:conductors?|wires?))?\s+${gap(3)}(?:share|sharing|are on|on (?:the )?same|(?:landed |terminated )?together|combined|commingled|mixed|${T.BE}not (?:separated|isolated))` },
       { re: rx`(?:grounds?|ground wires|egcs?|equipment grounds?)\s+${gap(3)}(?:on|landed on|connected to|terminated on|share)\s+(?:the\s+)?neutral\s+(?:bar|bus)`, context: SUBPANEL_CONTEXT },
       { re: rx`(?:bonding|bond|green)\s+(?:screw|strap|jumper)\s+${gap(3)}${T.BE}(?:present|installed|in place|not removed)`, context: SUBPANEL_CONTEXT },
       { re: rx`neutral\s+(?:bar|bus)?\s*${gap(2)}${T.BE}bonded\s+to\s+(?:the\s+)?(?:enclosure|case|can|cabinet|panel|ground)`, context: SUBPANEL_CONTEXT },
@@ -232,6 +237,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   {
     code: 'grounding-electrode',
     trigger: /ground|gec|bond|electrode/i,
+    defaultRoom: 'panel',
     patterns: [
       { re: rx`(?:${T.NO}|loose|disconnected|damaged|broken|cut|corroded|inadequate|improper)\s+(?:(?:a|an|the)\s+)?${gap(2)}(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|water (?:pipe |line )?bond(?:ing)?(?: jumper)?|gas (?:pipe |line )?bond(?:ing)?|bonding (?:jumper|conductor|clamp|wire))` },
       { re: rx`(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|bonding (?:jumper|clamp|conductor))\s+${gap(8)}${T.BE}(?:${T.ABSENT}|loose|disconnected|damaged|cut|broken|corroded|not (?:connected|attached|bonded|secured)|undersized|inadequate)` },
@@ -254,8 +260,9 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'light-fixture',
     trigger: /light|fixture|luminaire|chandelier|pendant|sconce|globe|lens|shade|diffuser|bulb|lamp|insulation/i,
     patterns: [
-      { re: rx`${T.LIGHT}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|dangling|hanging|not (?:secured|secure|attached|mounted)|${T.FAILED} (?:operate|work|respond|turn on|come on)|in contact with (?:the\s+)?insulation|covered (?:by|with) insulation|not (?:rated|listed|suitable|approved) for (?:a |the )?(?:wet|damp))` },
-      { re: rx`(?:${T.INOPERATIVE}|loose|dangling|damaged|broken)\s+${gap(2)}${T.LIGHT}` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|dangling|hanging|not (?:secured|secure|attached|mounted)|${T.FAILED} (?:operate|work|respond|turn on|come on)|in contact with (?:the\s+)?insulation|covered (?:by|with) insulation|not (?:rated|listed|suitable|approved) for (?:a |the )?(?:wet|damp))` },
+      { re: rx`(?:${T.INOPERATIVE}|loose|dangling|damaged|broken)\s+${gap(2)}${NOT_APPLIANCE}${T.LIGHT}` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:hangs?|hanging|suspended|dangles|dangling)\s+(?:from|by|on)\b` },
       { re: rx`(?:${T.NO}|broken)\s+(?:(?:the|a)\s+)?(?:globes?|lens(?:es)?|light covers?|shades?|diffusers?)` },
       { re: rx`(?:bare|open|exposed|uncovered)\s+(?:incandescent\s+)?(?:bulbs?|lamps?)\b` },
       { re: rx`insulation\s+${gap(3)}(?:in contact with|touching|covering|over|on top of|against)\s+(?:the\s+)?${gap(2)}(?:recessed|can)\s+(?:lights?|fixtures?|cans?|housings?)` },
@@ -305,7 +312,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   {
     code: 'service-equipment',
     trigger: /service|weather\s?head|drip|meter|\bse\b|seu|mast|overhead|utility|clearance/i,
-    defaultRoom: 'exterior',
+    fixedRoom: 'exterior',
     patterns: [
       { re: rx`${T.SERVICE}\s+${gap(8)}${T.BE}(?:damaged|leaning|bent|loose|pulling away|detached|unsecured|not (?:secured|sealed|properly (?:secured|sealed|supported))|${T.ABSENT}|deteriorated|worn|frayed|cracked|rusted|rusting|corroded|too low|sagging|in contact with|contacting|touching|rubbing|exposed|weathered|brittle|torn|split)` },
       { re: rx`(?:${T.NO}|damaged|deteriorated|frayed|worn|cracked|weathered|brittle|loose|leaning|bent|rusted|corroded)\s+${gap(2)}${T.SERVICE}` },
@@ -319,8 +326,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     isFallbackOnly: true,
     defaultRoom: 'whole-house',
     patterns: [
-      { re: rx`(?:evaluat|review|inspect|assess|examin|diagnos|correct|repair)\w*\s+${anyGap(8)}(?:by|from)\s+(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)s?`, unless: /\bif\b|\bany\b|\bshould any\b/i },
-      { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check)`, unless: /\bif\b|\bany\b|\bshould any\b/i },
+      { re: rx`(?:evaluat|review|inspect|assess|examin|diagnos|correct|repair)\w*\s+${anyGap(8)}(?:by|from)\s+(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)s?`, unless: REFERS_TO_OTHERS },
+      { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check)`, unless: REFERS_TO_OTHERS },
       { re: rx`(?:consult|contact|hire|engage|retain|call)\s+(?:with\s+)?(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)`, unless: /\bif\b|\bany\b/i },
     ],
   },

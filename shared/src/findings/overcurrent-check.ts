@@ -29,7 +29,7 @@ const DEVICE = /\b(?:breakers?|fuses?|fused|ocpds?|overcurrent|double-pole|2-pol
 /** The nameplate's limit: "nameplate max overcurrent device 30A", "MOCP 25 A", "max breaker 20A". */
 const NAMEPLATE = /\b(?:(?:nameplate|name plate|label|data plate|rating plate)\b[^.;]{0,30}?\bmax(?:imum|\.)?|max(?:imum|\.)?\s+(?:overcurrent|ocpd|breaker|fuse|circuit breaker)|mocp|max\.?\s+ocp)[^.;\d]{0,40}?(\d{2,3})\s?-?(?:a|amps?|amperes?)\b/gi;
 /** Text between a rating and a size that keeps them about the same circuit. */
-const MAX_PAIR_GAP = 90;
+const MAX_PAIR_GAP = 140;
 
 interface Mention extends Range {
   readonly value: number;

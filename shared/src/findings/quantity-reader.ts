@@ -112,15 +112,18 @@ function isNumberAhead(tokens: Token[], i: number): boolean {
  * service, a general evaluation): they carry no count even when the text gives one.
  */
 const UNCOUNTED = new Set(['service-equipment', 'knob-and-tube', 'grounding-electrode', 'subpanel-bonding', 'afci-missing', 'aluminum-branch-wiring', 'evaluate-general']);
-/** Whether the code is a condition rather than a number of devices (see UNCOUNTED). */
-export function isUncounted(code: string): boolean {
-  return UNCOUNTED.has(code);
-}
-
 /** Codes about one device each: with no noun in the finding's words, the report speaks of one. */
 const ONE_DEVICE = new Set(['receptacle-damaged', 'gfci-inoperative', 'fan-support', 'switch-issue', 'reversed-polarity', 'false-ground', 'light-fixture', 'double-tap', 'overcurrent-mismatch', 'weather-cover-missing', 'cover-plate-missing', 'open-junction-box']);
-/** Device nouns, singular or plural: the finding's first one decides one (singular) or no count (plural). */
-const DEVICE_NOUN = /\b(?:(receptacle|outlet|device|duplex|gfci|afci|breaker|fuse|fixture|light|luminaire|lamp|bulb|globe|fan|switch|box|junction box|splice|cover|plate|alarm|detector|cable|cord|conductor|knockout|screw|terminal|ground|tap|pendant|sconce|chandelier)(s|es)?)\b/gi;
+/**
+ * Device nouns, singular or plural: the finding's first one decides one (singular) or no count
+ * (plural). Compounds come first so that "cover plates" is plural. Cable and wire are left out: an
+ * inspector's "NM cable is exposed" speaks of wiring, not of one cable.
+ */
+const DEVICE_NOUN = /\b(?:((?:cover|face|wall|switch|outlet|receptacle|filler)[- ]?plate|(?:recessed |can )?light housing|light fixture|smoke (?:alarm|detector)|co (?:alarm|detector)|carbon monoxide (?:alarm|detector)|ceiling fan|junction box|j-box|gfci (?:receptacle|outlet|breaker|device)|receptacle|outlet|device|duplex|gfci|breaker|fuse|fixture|light|luminaire|lamp|bulb|globe|fan|switch|box|splice|cover|plate|alarm|detector|cord|knockout|screw|terminal|tap|pendant|sconce|chandelier|housing)(s|es)?)\b/gi;
+/** Nouns that name the protection itself when the defect is its absence ("no GFCI protection"). */
+const PROTECTION_NOUN = /^(?:gfci|afci)$/i;
+/** Codes counted only when the text gives a number (a panel condition, exposed wiring). */
+const EXPLICIT_ONLY = new Set(['panel-deficiency', 'exposed-wiring']);
 
 /**
  * The count of a finding: the number the text gives; null for a vague or plural count without a
@@ -136,7 +139,11 @@ export function findingQuantity(code: string, countText: string, articleLimit: n
     const later = readCount(laterText, 0);
     if (typeof later === 'number') return later;
   }
-  const nouns = scanAll(DEVICE_NOUN, countText);
-  if (nouns.length > 0) return nouns[0][2] ? null : 1;
+  const nouns = scanAll(DEVICE_NOUN, countText).filter((m) => !(code === 'gfci-missing' && PROTECTION_NOUN.test(m[1])));
+  if (nouns.length > 0) {
+    const first = nouns[0];
+    if (first[2]) return null;
+    return EXPLICIT_ONLY.has(code) && !/^cord$/i.test(first[1]) ? null : 1;
+  }
   return ONE_DEVICE.has(code) ? 1 : null;
 }

@@ -107,7 +107,8 @@ export function placeMatches(
     const own = { countText, laterText, articleLimit };
     const fixed = match.rule.fixedRoom;
     if (fixed) return [{ room: fixed, location: fixedLocation(text, rooms, part, fixed), ...own }];
-    const group = listedGroup(text, mentionsIn(rooms, part));
+    // A panel named beside another code's defect is a reference point ("cable run up to the panel").
+    const group = listedGroup(text, mentionsIn(rooms, part).filter((m) => m.room !== 'panel'));
     if (group.length > 1) {
       return group.map((m, j) => ({
         room: m.room,
