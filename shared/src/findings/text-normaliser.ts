@@ -100,7 +100,7 @@ const KEEP = new Set([
   'placed', 'plated', 'slates', 'source', 'services', 'serviced', 'servicing', 'switched', 'ground', 'rounds',
   'detects', 'defected', 'expose', 'exposes', 'damages', 'dammed', 'misting', 'kissing', 'mission', 'panes',
   'panels', 'paneled', 'pannel', 'coverage', 'covered', 'covering', 'coves', 'lovers', 'circuitry', 'receipt',
-  'receipts', 'receptor', 'reception', 'recepticles', 'outline', 'outlay', 'outlast', 'breaking', 'breaks',
+  'receipts', 'receptor', 'reception', 'outline', 'outlay', 'outlast', 'breaking', 'breaks',
   'bleaker', 'breakfast', 'doubled', 'doubles', 'trouble', 'treated', 'tripod', 'tripled', 'installer',
   'installs', 'evaluates', 'recommends', 'replaces', 'replica', 'present', 'presents', 'presence', 'prevent',
   'resent', 'carton', 'carbons', 'meters', 'metered', 'matter', 'letter', 'neutrally', 'natural', 'function',
@@ -163,7 +163,8 @@ const WIRE_CONTEXT = /^(?:\d{1,2}|#\d{1,2}|awg|wire|wires|wiring|conductors?|bra
 const SIZE = /^(?:#\s?)?(\d{1,2})$/;
 
 function capitalised(original: string, replacement: string): string {
-  return /^[A-Z][a-z]/.test(original) && /^[a-z]/.test(replacement) ? replacement[0].toUpperCase() + replacement.slice(1) : replacement;
+  // A capital on a short abbreviation ("Cu", "Kit") is the abbreviation's, not a sentence start's.
+  return original.length > 3 && /^[A-Z][a-z]/.test(original) && /^[a-z]/.test(replacement) ? replacement[0].toUpperCase() + replacement.slice(1) : replacement;
 }
 
 interface Token {
@@ -266,7 +267,9 @@ export function normaliseText(m: MappedText): NormalisedText {
     for (let k = copied; k < start; k++) offsets.push(m.offsets[k]);
     changed.push({ start: text.length, end: text.length + replacement.length });
     text += replacement;
-    for (let k = 0; k < replacement.length; k++) offsets.push(k === replacement.length - 1 ? m.offsets[wordEnd - 1] : m.offsets[start]);
+    // The first character stands for the word's start and the last for its end, so a sentence
+    // that starts or ends with a normalised word still maps to the whole word as written.
+    for (let k = 0; k < replacement.length; k++) offsets.push(k > 0 && k === replacement.length - 1 ? m.offsets[wordEnd - 1] : m.offsets[start]);
     copied = wordEnd;
   }
   if (changed.length === 0) return { text: m.text, offsets: m.offsets, changed };
