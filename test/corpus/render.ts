@@ -54,12 +54,33 @@ function pdfOf(text: string, twoColumns: boolean, totalPages: number | null): Pr
   });
 }
 
+/**
+ * A report generator lays out paragraphs, not the hard line breaks of a text file: lines of prose
+ * are joined into their paragraph before layout (list items, headings and table rows keep their lines).
+ */
+export function reflow(text: string): string {
+  const lines = text.split('\n');
+  const out: string[] = [];
+  const isProse = (line: string) => line.trim().length >= 55 && !/\t|\||\S {3,}\S/.test(line.trim());
+  const startsItem = (line: string) => /^\s*(?:[-•*]|\d+(?:\.\d+)*[.)]?\s|[a-z][.)]\s)/i.test(line) || line.trim() === line.trim().toUpperCase();
+  for (const line of lines) {
+    const prev = out.length > 0 ? out[out.length - 1] : null;
+    if (prev !== null && isProse(prev) && line.trim().length > 0 && !startsItem(line) && !line.includes('\f') && !prev.includes('\f')) {
+      out[out.length - 1] = `${prev.trimEnd()} ${line.trim()}`;
+    } else {
+      out.push(line);
+    }
+  }
+  return out.join('\n');
+}
+
 /** The pages the parser reads for an excerpt shown as `render`. */
 export async function renderPages(text: string, render: Render): Promise<string[]> {
   if (render === 'text') return text.split('\f');
   // Laid out twice: the first pass counts the pages for the "Page N of M" footer.
-  const { pageCount } = await pdfOf(text, render === 'pdf-two-column', null);
-  const { pdf } = await pdfOf(text, render === 'pdf-two-column', pageCount);
+  const laidOut = reflow(text);
+  const { pageCount } = await pdfOf(laidOut, render === 'pdf-two-column', null);
+  const { pdf } = await pdfOf(laidOut, render === 'pdf-two-column', pageCount);
   return (await extractPdfPages(pdf)).pages;
 }
 

@@ -79,6 +79,9 @@ export const CODE_RULES: readonly CodeRule[] = [
   {
     code: 'afci-missing',
     trigger: /afc?i|arc[- ]fault/i,
+    // AFCI protection was first required on bedroom circuits (NFPA 70 (NEC) 1999, 210.12, from
+    // memory); a report that names no room speaks of those.
+    defaultRoom: 'bedroom',
     patterns: [
       { re: rx`(?:${T.NO}|not|non-?)\s*${PF}${T.AFCI}` },
       { re: rx`${T.AFCI}(?:\s+(?:protection|protected|breakers?|${T.RCPT}))?\s+${T.BE}${T.ABSENT}` },
@@ -125,7 +128,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:cracked|broken|damaged) (?:face|housing|body)|loose (?:plug )?fit|plugs? (?:fits?|fit) loose(?:ly)?|(?:will not|won't|does not|doesn't) (?:hold|retain) (?:a |the )?plugs?` },
       { re: rx`${T.RCPT}\s+${gap(8)}${T.BE}(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?: over)?|worn|discolou?red|dead|${T.INOPERATIVE}|not (?:energized|powered|secured|secure|fastened)|pulled (?:out|away)|recessed)` },
       { re: rx`${T.RCPT}\s+${gap(5)}(?:(?:has|have|had)\s+no|(?:is|are)\s+without)\s+power` },
-      { re: rx`${T.RCPT}\s+${gap(5)}(?:shows?|showed|has|have|with)\s+(?:scorch|burn|arc(?:ing)?|char|heat)\w*(?:\s+marks?)?` },
+      { re: rx`${T.RCPT}\s+${gap(8)}(?:shows?|showed|has|have|had|with)\s+(?:(?:brown|black|dark|visible|some)\s+)?(?:scorch|burn|arc(?:ing)?|char|heat|melt)\w*(?:\s+marks?)?` },
       { re: rx`(?:scorch|burn|arc(?:ing)?|char)\w*\s+marks?\s+(?:on|at)\s+${gap(3)}${T.RCPT}` },
       { re: rx`no power (?:at|to)\s+(?:the\s+)?${gap(3)}${T.RCPT}` },
       { re: rx`(?:plugs?|cords?)\s+(?:fall|falls|fell|slip|slips|pull|pulls)\s+out` },
@@ -262,6 +265,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|dangling|hanging|not (?:secured|secure|attached|mounted)|${T.FAILED} (?:operate|work|respond|turn on|come on)|in contact with (?:the\s+)?insulation|covered (?:by|with) insulation|not (?:rated|listed|suitable|approved) for (?:a |the )?(?:wet|damp))` },
       { re: rx`(?:${T.INOPERATIVE}|loose|dangling|damaged|broken)\s+${gap(2)}${NOT_APPLIANCE}${T.LIGHT}` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:flickers?|flickering|buzz(?:es|ing)?|(?:is|are|was)\s+(?:scorched|discolou?red|melted|cracked))\b` },
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:hangs?|hanging|suspended|dangles|dangling)\s+(?:from|by|on)\b` },
       { re: rx`(?:${T.NO}|broken)\s+(?:(?:the|a)\s+)?(?:globes?|lens(?:es)?|light covers?|shades?|diffusers?)` },
       { re: rx`(?:bare|open|exposed|uncovered)\s+(?:incandescent\s+)?(?:bulbs?|lamps?)\b` },
@@ -296,6 +300,10 @@ export const CODE_RULES: readonly CodeRule[] = [
       {
         re: rx`(?:(?:single|solid)[- ](?:strand(?:ed)?|conductor)\s+)?(?:aluminum|aluminium|alum\.?|al)\s+(?:single[- ]strand\s+|solid\s+)?(?:branch(?:[- ]circuit)?\s+)?(?:circuit\s+)?(?:wir(?:e|es|ing)|conductors?|circuits?)\b`,
         unless: /\bstranded\b|service[- ]entrance|se cable|feeder|service conductors/i,
+      },
+      {
+        re: rx`(?:branch[- ]circuits?|branch wiring|wiring|circuits)\s+${gap(5)}${T.BE}(?:(?:single|solid)[- ](?:strand(?:ed)?|conductor)\s+)?(?:aluminum|aluminium)\b`,
+        unless: /\bstranded\b|service[- ]entrance|se cable|feeder/i,
       },
     ],
   },

@@ -92,7 +92,25 @@ export function parseReport(pages: readonly string[]): ParseResult {
       });
     }
   }
-  return { findings: mergeSummary(findings, inSummary), skipped };
+  return { findings: mergeWiringMentions(mergeSummary(findings, inSummary)), skipped };
+}
+
+/** Wiring methods: a house has its aluminum or knob-and-tube wiring once, however often it is mentioned. */
+const WIRING_METHODS: ReadonlySet<string> = new Set(['knob-and-tube', 'aluminum-branch-wiring']);
+
+/**
+ * A wiring method mentioned again later in the report is the same condition when the mention names
+ * no place of its own, names a place already given, or sits in a sentence about another defect
+ * ("AFCI protection is recommended, especially with aluminum wiring").
+ */
+function mergeWiringMentions(findings: Finding[]): Finding[] {
+  return findings.filter((f, i) => {
+    if (!WIRING_METHODS.has(f.code)) return true;
+    const earlier = findings.slice(0, i).filter((g) => g.code === f.code);
+    if (earlier.length === 0) return true;
+    const aboutOther = findings.some((g) => g !== f && g.start === f.start && g.code !== f.code);
+    return !(f.confidence === 'inferred' || aboutOther || earlier.some((g) => g.room === f.room));
+  });
 }
 
 /** A summary at the top of a report ("SUMMARY OF ELECTRICAL CONCERNS", "Overview"). */

@@ -129,7 +129,9 @@ export function placeMatches(
     if (opening && !(opening.hadFindings && match.rule.defaultRoom)) {
       return [{ room: opening.room, location: opening.location, ...own, isInferred: true }];
     }
-    if (context.sectionRoom) return [{ room: context.sectionRoom, location: context.sectionTitle ?? '', ...own, isInferred: true }];
+    // Under a panel heading, a code with a room of its own by default keeps it (aluminum wiring is house-wide).
+    const sectionRoom = context.sectionRoom === 'panel' && match.rule.defaultRoom ? match.rule.defaultRoom : context.sectionRoom;
+    if (sectionRoom) return [{ room: sectionRoom, location: context.sectionTitle ?? '', ...own, isInferred: true }];
     return [{ room: match.rule.defaultRoom ?? 'unknown', location: '', ...own, isInferred: true }];
   });
 }
