@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { DEMO_RATE_BOOK, priceQuote, type RequestPricing } from '@cc/shared';
+import { DEMO_RATE_BOOK, effectiveQuantity, priceQuote, type RequestPricing } from '@cc/shared';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 import { resetDatabase, type SignedIn } from '../helpers/fixtures';
 import { createPricedRequest, createPricingCast, storeRateBook, type PricingCast, type StoredBook } from '../helpers/pricing-fixtures';
@@ -57,6 +57,10 @@ describe('GET /api/requests/:id/pricing', () => {
     // The first entry of the rate book for the code (gfci-replace before gfci-replace-flat).
     expect(pricing.items.find((i) => i.id === items.gfci)).toMatchObject({ suggestedEntryId: book.entry['gfci-replace'], entryId: null, isPriced: false, version: 1 });
     expect(pricing.items.find((i) => i.id === items.unknown)?.suggestedEntryId).toBeNull();
+    // NFPA 70 (NEC) 2008, 406.11: tamper-resistant receptacles, after this 1978 house was built;
+    // a replacement today is tamper-resistant under the adopted 2023 edition (NEC 406.4(D)(5)).
+    expect(pricing.items.find((i) => i.id === items.receptacles)?.editionNote).toMatchObject({ firstRequired: 2008, builtUnder: 'added-later', requiredByAdoptedEdition: true });
+    expect(pricing.items.find((i) => i.id === items.doubleTap)?.editionNote).toBeNull();
     expect(pricing.unpricedItemIds).toEqual(Object.values(items));
     expect(pricing.rateBook?.entries.find((e) => e.id === String(book.entry['gfci-replace']))).toMatchObject({ code: 'gfci-inoperative', name: 'Replace inoperative GFCI receptacle' });
   });
@@ -109,9 +113,11 @@ describe('PATCH /api/requests/:id/pricing', () => {
     const pricing: RequestPricing = res.body;
     const receptacles = pricing.items.find((i) => i.id === items.receptacles)!;
     const plates = pricing.items.find((i) => i.id === items.plates)!;
-    expect(receptacles).toMatchObject({ entryId: book.entry['receptacle-replace'], pricingQuantity: 3, isQuantityAssumed: false, isPriced: true, version: 2 });
+    // The report's quantity (3) is priced; the contractor set none of their own.
+    expect(receptacles).toMatchObject({ entryId: book.entry['receptacle-replace'], quantity: 3, pricingQuantity: null, isQuantityAssumed: false, isPriced: true, version: 2 });
+    expect(effectiveQuantity(receptacles)).toBe(3);
     // The report said "several": 1 is assumed and flagged for the contractor to check.
-    expect(plates).toMatchObject({ pricingQuantity: 1, isQuantityAssumed: true, isPriced: true });
+    expect(plates).toMatchObject({ quantity: null, pricingQuantity: 1, isQuantityAssumed: true, isPriced: true });
     // The server's figures are the shared engine's for the input it reports.
     expect(pricing.breakdown).toEqual(priceQuote(pricing.rateBook!, pricing.pricingInput!));
     expect(pricing.pricingInput?.lines.map((l) => [l.key, l.quantity])).toEqual([

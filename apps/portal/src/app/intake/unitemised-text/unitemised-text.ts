@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject, input, output, si
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { LineItem, ReportFile, SkippedText } from '@cc/shared';
-import { codeLabel } from '../../pricing/code-label';
+import { codeLabel } from '../../ui/code-label';
 import { Notice } from '../../core/http/notice';
 import { IntakeApi } from '../intake-api';
 import { ROOM_LABELS } from '../room-labels';

@@ -3,9 +3,10 @@ import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatIconModule } from '@angular/material/icon';
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import { ITEM_STATUS_LABELS, PricingItem, QuoteBreakdown, RateBook } from '@cc/shared';
-import { MoneyPipe } from '../money/money';
-import { codeLabel } from '../code-label';
+import { effectiveQuantity, ITEM_STATUS_LABELS, PricingItem, QuoteBreakdown, RateBook } from '@cc/shared';
+import { EditionNote } from '../../ui/edition-note/edition-note';
+import { MoneyPipe } from '../../ui/money/money';
+import { codeLabel } from '../../ui/code-label';
 import { lineCentsOf } from '../live-pricing';
 import { VisitLabelPipe } from '../visit-label';
 
@@ -15,6 +16,8 @@ interface Row {
   codeLabel: string;
   entryName: string | null;
   adderNames: string[];
+  /** The quantity the item is priced at (null: the report said "several" and nobody set one). */
+  quantity: number | null;
   lineCents: number | null;
   statusLabel: string;
 }
@@ -22,7 +25,7 @@ interface Row {
 /** The items of a request with their prices, and checkboxes to select many of them at once. */
 @Component({
   selector: 'cc-pricing-table',
-  imports: [MatTableModule, MatCheckboxModule, MatIconModule, MatTooltipModule, MoneyPipe, VisitLabelPipe],
+  imports: [MatTableModule, MatCheckboxModule, MatIconModule, MatTooltipModule, MoneyPipe, VisitLabelPipe, EditionNote],
   templateUrl: './pricing-table.html',
   styleUrl: './pricing-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -51,6 +54,7 @@ export class PricingTable {
       codeLabel: codeLabel(item.code),
       entryName: item.entryId === null ? null : (entries.get(String(item.entryId)) ?? 'Entry no longer in the rate book'),
       adderNames: item.adderIds.map((id) => adders.get(String(id)) ?? 'Removed condition'),
+      quantity: effectiveQuantity(item),
       lineCents: lineCentsOf(this.breakdown(), item.id),
       statusLabel: ITEM_STATUS_LABELS[item.status],
     }));

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MoneyTotals, QuoteBreakdown } from '@cc/shared';
-import { MoneyPipe } from '../money/money';
+import { MoneyPipe } from '../../ui/money/money';
 import { VisitLabelPipe } from '../visit-label';
 
 interface TotalsRow {
@@ -13,7 +13,7 @@ const ROWS: TotalsRow[] = [
   { label: 'Service call', field: 'serviceCallCents' },
   { label: 'First-hour minimum', field: 'firstHourMinimumCents' },
   { label: 'Labour after the first hour', field: 'extraLabourCents' },
-  { label: 'Flat-price tasks', field: 'flatCents' },
+  { label: 'Flat-rate entries', field: 'flatCents' },
   { label: 'Materials', field: 'materialsCostCents' },
   { label: 'Materials markup', field: 'materialsMarkupCents' },
   { label: 'Permit', field: 'permitCents' },

@@ -32,13 +32,14 @@ export function pricingItem(id: number, overrides: Partial<PricingItem> = {}): P
     status: 'open',
     entryId: null,
     adderIds: [],
-    pricingQuantity: 1,
+    pricingQuantity: null,
     isQuantityAssumed: false,
     visitKey: 'visit-1',
     outOfScopeReason: null,
     suggestedEntryId: 11,
     isPriced: false,
     lineCents: null,
+    editionNote: null,
     ...overrides,
   };
 }

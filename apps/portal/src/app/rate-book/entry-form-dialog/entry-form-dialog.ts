@@ -28,7 +28,7 @@ import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { issuesOf } from '../../core/forms/issues-of';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
-import { formatCents } from '../../pricing/money/money';
+import { formatCents } from '../../ui/money/money';
 import { MaterialDraft, materialDraft, materialsTotalCents, pricingDraft, toEntryPricing } from '../entry-draft';
 import { RateBookApi } from '../rate-book-api';
 import { DOLLARS, FACTOR, PERCENT, textValidator, unitValidator, WHOLE } from '../field-validators';
@@ -43,7 +43,7 @@ const flat = FlatPricingSchema.shape;
 const TM_FIELDS = ['labourMinutesPerUnit', 'materialsCentsPerUnit', 'markupBp', 'minutesLow', 'minutesHigh', 'materials'] as const;
 const FLAT_FIELDS = ['firstUnitCents', 'additionalUnitCents', 'hardSiteMultiplierBp'] as const;
 
-/** Adds or changes one rate-book entry: time and materials (minutes, materials, markup) or a flat price. */
+/** Adds or changes one rate-book entry: time and materials (minutes, materials, markup) or a flat rate. */
 @Component({
   selector: 'cc-entry-form-dialog',
   imports: [ReactiveFormsModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatButtonToggleModule, MatIconModule, ErrorMessagePipe],

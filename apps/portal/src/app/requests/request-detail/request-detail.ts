@@ -5,11 +5,12 @@ import { MatCardModule } from '@angular/material/card';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
-import { CONTRACTOR_CHANGE_STATES, RepairRequestDetail } from '@cc/shared';
+import { mayAct, RepairRequestDetail, REQUEST_ACTIONS } from '@cc/shared';
 import { catchError, map, of, switchMap } from 'rxjs';
 import { Auth } from '../../core/auth/auth';
 import { describeFailure } from '../../core/http/api-error-of';
 import { Notice } from '../../core/http/notice';
+import { ActivityTimeline } from '../../activity/activity-timeline/activity-timeline';
 import { IntakePanel } from '../../intake/intake-panel/intake-panel';
 import { RequestPricingLinks } from '../../pricing/request-pricing-links/request-pricing-links';
 import { DaysToClosing } from '../../ui/days-to-closing/days-to-closing';
@@ -41,6 +42,7 @@ type Loaded = { detail: RepairRequestDetail; error?: undefined } | { detail?: un
     ContractorPicker,
     IntakePanel,
     RequestPricingLinks,
+    ActivityTimeline,
   ],
   templateUrl: './request-detail.html',
   styleUrl: './request-detail.scss',
@@ -67,14 +69,16 @@ export class RequestDetail {
   /** The request as last answered by the server (replaced after an invitation). */
   protected readonly detail = linkedSignal(() => this.loaded()?.detail ?? null);
   protected readonly loadError = computed(() => this.loaded()?.error ?? null);
-  /** Whether the signed-in person acts as an agent on this request (or administers the platform). */
-  protected readonly isAgentHere = computed(() => {
-    const parts = this.detail()?.myParts ?? [];
-    return this.auth.role() === 'admin' || parts.includes('buyer-agent') || parts.includes('listing-agent');
+  private readonly actors = computed(() => {
+    const detail = this.detail();
+    return detail ? this.auth.actorsOn(detail) : [];
   });
-
-  /** Whether the contractor may still be chosen or changed (until a quote is sent). */
-  protected readonly canChangeContractor = computed(() => CONTRACTOR_CHANGE_STATES.includes(this.detail()?.status ?? 'draft'));
+  /** Whether the signed-in person invites parties here now (the request's agents, an administrator). */
+  protected readonly canInvite = computed(() => mayAct(this.actors(), 'invite-party', this.detail()?.status ?? 'draft'));
+  /** Whether they see the invitation links: those who invite, whatever the state. */
+  protected readonly seesInviteLinks = computed(() => this.actors().some((a) => REQUEST_ACTIONS['invite-party'].by.includes(a)));
+  /** Whether the contractor may still be chosen or changed by them (until a quote is sent). */
+  protected readonly canChangeContractor = computed(() => mayAct(this.actors(), 'change-contractor', this.detail()?.status ?? 'draft'));
 
   /** Loads the request again after its state moved on (a report added, the items confirmed). */
   protected refresh(id: number): void {
@@ -88,6 +92,6 @@ export class RequestDetail {
 
   protected showInvited(detail: RepairRequestDetail): void {
     this.detail.set(detail);
-    this.notice.success('Invitation sent.');
+    this.notice.success('Invitation e-mailed. The link is also shown beside their name, to pass on if the e-mail does not arrive.');
   }
 }

@@ -1,12 +1,12 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, linkedSignal, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
+import { MatPaginatorIntl, MatPaginatorModule, PageEvent } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSortModule, Sort } from '@angular/material/sort';
@@ -24,11 +24,14 @@ import { catchError, debounceTime, distinctUntilChanged, map, of, switchMap, tap
 import { Auth } from '../../core/auth/auth';
 import { Notice } from '../../core/http/notice';
 import { requestListTitle } from '../../core/layout/nav-items';
+import { CappedPaginatorIntl } from '../../ui/capped-paginator-intl';
 import { DaysToClosing } from '../../ui/days-to-closing/days-to-closing';
 import { StatusChip } from '../../ui/status-chip/status-chip';
 import { RequestsApi } from '../requests-api';
 
 type RequestSort = (typeof REQUEST_SORTS)[number];
+/** Build-year filters: years around which the code's protections changed (GFCI 1975 and 1987, the 2005 edition). */
+const BUILT_BEFORE_CHOICES = [1960, 1975, 1987, 2005] as const;
 const DEFAULT_SORT: Sort = { active: 'closingDate', direction: 'asc' };
 
 /** The requests the signed-in person takes part in, paged, sorted and filtered on the server. */
@@ -50,6 +53,7 @@ const DEFAULT_SORT: Sort = { active: 'closingDate', direction: 'asc' };
     StatusChip,
     DaysToClosing,
   ],
+  providers: [CappedPaginatorIntl, { provide: MatPaginatorIntl, useExisting: CappedPaginatorIntl }],
   templateUrl: './request-list.html',
   styleUrl: './request-list.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -59,6 +63,7 @@ export class RequestList {
   private readonly router = inject(Router);
   private readonly notice = inject(Notice);
   private readonly auth = inject(Auth);
+  private readonly paginatorIntl = inject(CappedPaginatorIntl);
 
   protected readonly title = computed(() => requestListTitle(this.auth.role()));
   protected readonly canCreate = computed(() => this.auth.role() === 'agent' || this.auth.role() === 'admin');
@@ -70,6 +75,9 @@ export class RequestList {
   protected readonly sort = signal<Sort>(DEFAULT_SORT);
   protected readonly pageSize = signal(20);
   protected readonly statusFilter = signal<RequestStatus[]>([]);
+  protected readonly builtBeforeChoices = BUILT_BEFORE_CHOICES;
+  /** Only houses built before this year; null for any year. */
+  protected readonly builtBefore = signal<number | null>(null);
   protected readonly searchControl = new FormControl('', { nonNullable: true });
   private readonly search = toSignal(
     this.searchControl.valueChanges.pipe(
@@ -81,7 +89,7 @@ export class RequestList {
   );
   /** Back to the first page whenever the sort, the filters or the page size change. */
   protected readonly pageIndex = linkedSignal({
-    source: () => [this.sort(), this.statusFilter(), this.search(), this.pageSize()] as const,
+    source: () => [this.sort(), this.statusFilter(), this.builtBefore(), this.search(), this.pageSize()] as const,
     computation: () => 0,
   });
   protected readonly isLoading = signal(true);
@@ -95,6 +103,7 @@ export class RequestList {
       direction: sort.direction || 'asc',
       status: this.statusFilter().join(',') || undefined,
       q: this.search() || undefined,
+      builtBefore: this.builtBefore() ?? undefined,
     };
   });
 
@@ -114,7 +123,9 @@ export class RequestList {
   );
   protected readonly rows = computed<RepairRequestSummary[]>(() => this.result()?.items ?? []);
   protected readonly total = computed(() => this.result()?.total ?? 0);
-  protected readonly isFiltered = computed(() => this.statusFilter().length > 0 || this.search() !== '');
+  /** The server stops counting at a cap: the paginator then says "of 1,000+". */
+  private readonly showsCap = effect(() => this.paginatorIntl.setCapped(this.result()?.isTotalCapped ?? false));
+  protected readonly isFiltered = computed(() => this.statusFilter().length > 0 || this.builtBefore() !== null || this.search() !== '');
 
   protected changeSort(sort: Sort): void {
     this.sort.set(sort);
@@ -127,6 +138,10 @@ export class RequestList {
 
   protected filterByStatus(statuses: RequestStatus[]): void {
     this.statusFilter.set(statuses);
+  }
+
+  protected filterByBuildYear(year: number | null): void {
+    this.builtBefore.set(year);
   }
 
   protected open(row: RepairRequestSummary): void {

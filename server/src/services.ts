@@ -1,0 +1,86 @@
+import type { Config } from './config/config';
+import type { Db } from './db/knex';
+import { ItemPricingRepository } from './pricing/item-pricing.repository';
+import { LineItemRepository } from './intake/line-item.repository';
+import { OrganisationRepository } from './organisations/organisation.repository';
+import { QuoteRepository } from './quotes/quote.repository';
+import { RateBookRepository } from './rate-book/rate-book.repository';
+import { ReportFileRepository } from './intake/report-file.repository';
+import { RequestRepository } from './requests/request.repository';
+import { UserRepository } from './auth/user.repository';
+import { AdminService } from './admin/admin.service';
+import { AuthService } from './auth/auth.service';
+import { BallparkService } from './pricing/ballpark.service';
+import { LocalFileStorage } from './integrations/storage/local-file-storage';
+import { InvitationsService } from './invitations/invitations.service';
+import { LineItemsService } from './intake/line-items.service';
+import { Passwords } from './auth/passwords';
+import { PricingService } from './pricing/pricing.service';
+import { QuotesService } from './quotes/quotes.service';
+import { RateBookService } from './rate-book/rate-book.service';
+import { readPdfPages } from './intake/report-intake';
+import { ReportIntakeService } from './intake/report-intake.service';
+import { RequestsService } from './requests/requests.service';
+import { FlowService } from './flow/flow.service';
+import { ActivityRepository } from './activity/activity.repository';
+import { ActivityService } from './activity/activity.service';
+import { DashboardsRepository } from './dashboards/dashboards.repository';
+import { DashboardsService } from './dashboards/dashboards.service';
+import { CapturedMailRepository } from './integrations/mail/captured-mail.repository';
+import { DailyDigest } from './notifications/daily-digest';
+import { createFlowListener } from './notifications/flow-listener';
+import { NotificationsService } from './notifications/notifications.service';
+import { OutboxRepository } from './notifications/outbox.repository';
+import { PreferencesRepository } from './notifications/preferences.repository';
+
+/** Builds every repository and service of the app from one database handle and the config. */
+export function createServices(db: Db, config: Config) {
+  const users = new UserRepository(db);
+  const organisations = new OrganisationRepository(db);
+  const requests = new RequestRepository(db);
+  const items = new LineItemRepository(db);
+  const reports = new ReportFileRepository(db);
+  const passwords = new Passwords(config.bcryptRounds);
+  const storage = new LocalFileStorage(config.storageDir);
+  const rateBooks = new RateBookRepository(db);
+  const itemPricing = new ItemPricingRepository(db);
+  const quotes = new QuoteRepository(db);
+  // Every move of a request or an item goes through the flow service; its listener writes the timeline
+  // entries and the outbox rows of the move in the move's transaction.
+  const flow = new FlowService(requests, items);
+  const activity = new ActivityRepository(db);
+  const outbox = new OutboxRepository(db);
+  const notifications = new NotificationsService(db, outbox, new PreferencesRepository(db), activity, {
+    publicUrl: config.publicUrl,
+    from: config.mail.from,
+    secret: config.sessionSecret,
+  });
+  flow.listen(createFlowListener(activity, notifications));
+  const requestsService = new RequestsService(db, requests, users, organisations, flow, items, itemPricing, config.publicUrl, notifications, activity);
+  const rateBookService = new RateBookService(db, rateBooks, organisations);
+  const pricingService = new PricingService(db, requestsService, rateBookService, itemPricing, items, quotes, flow);
+  return {
+    repositories: { users, organisations, requests, items, reports, activity },
+    flow,
+    notifications,
+    outbox,
+    digest: new DailyDigest(db, notifications, outbox),
+    /** The development mailbox, while mail goes to the local sink. */
+    mailbox: config.mail.smtp ? null : new CapturedMailRepository(db),
+    activity: new ActivityService(requestsService, activity),
+    dashboards: new DashboardsService(new DashboardsRepository(db)),
+    storage,
+    auth: new AuthService(users, passwords),
+    admin: new AdminService(users, organisations, passwords),
+    requests: requestsService,
+    invitations: new InvitationsService(db, requests, users, passwords),
+    reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, readPdfPages, flow, notifications),
+    lineItems: new LineItemsService(db, requestsService, items, reports, flow, activity),
+    rateBook: rateBookService,
+    pricing: pricingService,
+    ballpark: new BallparkService(requestsService, rateBookService, itemPricing),
+    quotes: new QuotesService(db, requestsService, pricingService, rateBookService, rateBooks, requests, organisations, itemPricing, quotes, flow),
+  };
+}
+
+export type Services = ReturnType<typeof createServices>;
