@@ -1,6 +1,7 @@
 // Upload → parse → review → confirm in the portal, for a PDF, a text file and pasted text. Each test
 // opens its own repair request (through the API, with the signed-in page's cookies) so it owns its data.
 import { existsSync } from 'node:fs';
+import AxeBuilder from '@axe-core/playwright';
 import type { Browser, Page } from 'playwright-core';
 import { REQUEST_STATUS_LABELS } from '@cc/shared';
 import { launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
@@ -23,6 +24,13 @@ const TEXT_REPORT = [
   '',
   'Section 8 - Exterior',
   'Gutters are clogged with leaves. The low-voltage landscape light cable lies across the walkway.',
+].join('\n');
+
+// A report with one passage the reader names electrical things in but makes no item of.
+const UNITEMISED_REPORT = [
+  'Section 7 - Electrical',
+  '7.1 Two receptacles in the primary bathroom are not GFCI protected.',
+  '7.2 The receptacle behind the washer in the laundry room sparks when a plug is inserted.',
 ].join('\n');
 
 let browser: Browser;
@@ -186,5 +194,34 @@ describe('a buyer’s agent takes in an inspection report', () => {
     expect(existsSync(await screenshot(page, 'intake-paste-review'))).toBe(true);
 
     await confirmAndExpectPricing(3);
+  });
+
+  it('lists a passage read but not itemised and adds it as an item with one click', async () => {
+    await openNewRequest('Arc Spark Lane');
+    await page.getByTestId('paste-toggle').click();
+    await page.getByTestId('paste-text').fill(UNITEMISED_REPORT);
+    await page.getByTestId('paste-submit').click();
+    await page.getByTestId('parse-result-proposed').waitFor();
+    expect(await page.getByTestId('parse-result-proposed').textContent()).toBe('1 item proposed');
+    await page.getByTestId('review-item-row').first().waitFor();
+
+    // The washer receptacle passage is listed with the reader's guess, one click from an item.
+    const passage = page.getByTestId('unitemised-passage').filter({ hasText: 'sparks when a plug is inserted' });
+    await passage.waitFor();
+    const add = passage.getByTestId('unitemised-add');
+    expect(await add.textContent()).toContain('Laundry');
+    expect(existsSync(await screenshot(page, 'intake-unitemised-before'))).toBe(true);
+    const serious = (await new AxeBuilder({ page }).analyze()).violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
+    expect(serious.map((v) => v.id)).toEqual([]);
+
+    await add.click();
+    await page.getByTestId('review-item-row').nth(1).waitFor();
+    expect(await page.getByTestId('review-confirm').textContent()).toContain('Confirm 2 items');
+    expect(await page.getByTestId('review-item-room').allTextContents()).toContain('Laundry');
+    // The new item is anchored to the passage: its text is highlighted in the report.
+    expect(await page.getByTestId('evidence-mark').filter({ hasText: 'sparks when a plug is inserted' }).count()).toBe(1);
+    // …and no longer listed as not itemised.
+    await passage.waitFor({ state: 'detached' });
+    expect(existsSync(await screenshot(page, 'intake-unitemised-added'))).toBe(true);
   });
 });

@@ -1,34 +1,23 @@
-import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { parseText, type ParseResult } from '@cc/shared';
-import { scoreCorpus, scoreFile, type CorpusScore, type LabelledFinding } from './score';
+import { runBatch, type BatchLayout, type BatchRun } from './batch';
+import type { CorpusScore } from './score';
 
 export const CORPUS_DIR = join(__dirname, 'excerpts');
 
-export interface CorpusRun {
-  readonly score: CorpusScore;
-  /** Parser output and raw text per excerpt file. */
-  readonly results: ReadonlyArray<{ file: string; text: string; result: ParseResult }>;
-  /** Excerpt files with no entry in expected.json, and entries with no file. */
-  readonly unlabelled: string[];
-  readonly orphanLabels: string[];
-}
+/**
+ * The project's corpus: excerpts in test/corpus/excerpts, labels in expected.json, and in
+ * manifest.json how each is shown to the parser (text, or a real PDF read back through the
+ * project's extraction). Folders named sealed* are never read here.
+ */
+export const CORPUS_LAYOUT: BatchLayout = {
+  excerptDir: CORPUS_DIR,
+  expectedFile: join(__dirname, 'expected.json'),
+  manifestFile: join(__dirname, 'manifest.json'),
+};
 
-/** Parses every excerpt and scores it against expected.json. */
-export function runCorpus(): CorpusRun {
-  const expected = JSON.parse(readFileSync(join(__dirname, 'expected.json'), 'utf8')) as Record<string, LabelledFinding[]>;
-  const files = readdirSync(CORPUS_DIR).filter((f) => f.endsWith('.txt')).sort();
-  const results = files.map((file) => {
-    const text = readFileSync(join(CORPUS_DIR, file), 'utf8');
-    return { file, text, result: parseText(text) };
-  });
-  const scores = results.map(({ file, result }) => scoreFile(file, expected[file] ?? [], result.findings));
-  return {
-    score: scoreCorpus(scores),
-    results,
-    unlabelled: files.filter((f) => !(f in expected)),
-    orphanLabels: Object.keys(expected).filter((f) => !files.includes(f)),
-  };
+/** Parses every excerpt as its manifest says and scores it against expected.json. */
+export function runCorpus(): Promise<BatchRun> {
+  return runBatch(CORPUS_LAYOUT);
 }
 
 /** A small fixed-width table: one row per file with errors, then the totals. */

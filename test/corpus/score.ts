@@ -96,3 +96,20 @@ export function scoreCorpus(files: readonly FileScore[]): CorpusScore {
     files: [...files],
   };
 }
+
+export interface CodeScore {
+  readonly truePositives: number;
+  readonly falsePositives: number;
+  readonly falseNegatives: number;
+  readonly precision: number;
+  readonly recall: number;
+  readonly f1: number;
+}
+
+/** Scores on codes alone (rooms ignored), matched as a multiset per file. */
+export function scoreCodes(files: ReadonlyArray<{ expected: readonly LabelledFinding[]; predicted: readonly LabelledFinding[] }>): CodeScore {
+  const noRoom = (f: LabelledFinding): LabelledFinding => ({ code: f.code, room: '', quantity: f.quantity });
+  const total = scoreCorpus(files.map((f, i) => scoreFile(String(i), f.expected.map(noRoom), f.predicted.map(noRoom))));
+  const { truePositives, falsePositives, falseNegatives, precision, recall, f1 } = total;
+  return { truePositives, falsePositives, falseNegatives, precision, recall, f1 };
+}

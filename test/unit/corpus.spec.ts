@@ -2,16 +2,26 @@ import { FindingSchema, joinPages } from '@cc/shared';
 import { splitBlocks } from '../../shared/src/findings/block-splitter';
 import { matchCodes } from '../../shared/src/findings/code-matcher';
 import { splitSentences } from '../../shared/src/findings/sentence-splitter';
+import type { BatchRun } from '../corpus/batch';
 import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 
 // The corpus: hand-written, hand-labelled report excerpts (test/corpus/excerpts, labels in
 // test/corpus/expected.json). Excerpts 39-46 were written and labelled after the parser existed,
-// as a held-out check. Scores match findings by (code, room) as a multiset.
+// as a held-out check; 201 onwards were written and labelled by independent writers who never saw
+// the parser (scored untuned on arrival, see docs/parser.md). Each excerpt is shown to the parser
+// as test/corpus/manifest.json says: as text, or laid out in a real PDF (running header and footer,
+// or two columns) and read back through the project's PDF text extraction.
+// Scores match findings by (code, room) as a multiset.
 const MIN_PRECISION = 0.95;
 const MIN_RECALL = 0.95;
+const MIN_F1 = 0.95;
+const MIN_QUANTITY = 0.95;
 
 describe('report parser corpus', () => {
-  const run = runCorpus();
+  let run: BatchRun;
+  beforeAll(async () => {
+    run = await runCorpus();
+  }, 120_000);
 
   it('has a label entry for every excerpt and an excerpt for every label', () => {
     expect(run.results.length).toBeGreaterThanOrEqual(32);
@@ -20,26 +30,28 @@ describe('report parser corpus', () => {
   });
 
   it('gives evidence that is an exact substring of the excerpt, at its offsets', () => {
-    for (const { text, result } of run.results) {
-      const joined = joinPages(text.split('\f'));
+    for (const { text, render, pages, result } of run.results) {
+      const joined = joinPages(pages);
       for (const f of result.findings) {
         expect(FindingSchema.safeParse(f).success).toBe(true);
-        expect(text.includes(f.evidence)).toBe(true);
+        if (render === 'text') expect(text.includes(f.evidence)).toBe(true);
         expect(joined.slice(f.start, f.end)).toBe(f.evidence);
       }
     }
   });
 
-  it(`reaches precision >= ${MIN_PRECISION} and recall >= ${MIN_RECALL}`, () => {
+  it(`reaches precision and recall >= ${MIN_PRECISION}, F1 >= ${MIN_F1} and quantity accuracy >= ${MIN_QUANTITY}`, () => {
     console.log(formatScoreTable(run.score));
     expect(run.score.precision).toBeGreaterThanOrEqual(MIN_PRECISION);
     expect(run.score.recall).toBeGreaterThanOrEqual(MIN_RECALL);
+    expect(run.score.f1).toBeGreaterThanOrEqual(MIN_F1);
+    expect(run.score.quantityAccuracy).toBeGreaterThanOrEqual(MIN_QUANTITY);
   });
 
   // Each code's trigger words let the matcher skip sentences that cannot hold its phrases; on
   // every corpus sentence, skipping must change no result.
   it('finds the same phrases with and without the trigger-word shortcut', () => {
-    const sentences = run.results.flatMap(({ text }) => splitBlocks(text).flatMap((b) => splitSentences(b.text)));
+    const sentences = run.results.flatMap(({ pages }) => splitBlocks(joinPages(pages)).flatMap((b) => splitSentences(b.text)));
     expect(sentences.length).toBeGreaterThan(200);
     const summary = (s: string, ignoreTriggers: boolean) =>
       matchCodes(s, { ignoreTriggers }).map((m) => `${m.rule.code}@${m.start}-${m.end}`);

@@ -84,6 +84,9 @@ export interface LineItemRow {
   report_file_id: number | null;
   evidence_start: number | null;
   evidence_end: number | null;
+  confidence: string | null;
+  recommendation: string | null;
+  computation: string | null;
   /** What the contractor set while pricing. */
   entry_id: number | null;
   adder_ids: number[];

@@ -1,4 +1,4 @@
-import { DEFAULT_VISIT_KEY, itemStateAfter, PRICING_ITEM_STATES, type FindingCode, type ItemStatus, type LineItem, type PricingFields, type Room, type Severity } from '@cc/shared';
+import { DEFAULT_VISIT_KEY, itemStateAfter, PRICING_ITEM_STATES, type Confidence, type FindingCode, type ItemStatus, type LineItem, type PricingFields, type Room, type Severity } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
 import type { LineItemRow } from '../db/tables';
 
@@ -25,6 +25,9 @@ export function toLineItem(row: LineItemRow): StoredLineItem {
     status: row.status as ItemStatus,
     isEdited: row.is_edited,
     version: row.version,
+    confidence: (row.confidence as Confidence | null) ?? null,
+    recommendation: row.recommendation ?? null,
+    computation: row.computation ?? null,
   };
 }
 
@@ -43,6 +46,10 @@ export interface NewLineItem {
   reportFileId: number | null;
   evidenceStart: number | null;
   evidenceEnd: number | null;
+  /** How the reader found a proposed item; null for items a person adds. */
+  confidence?: Confidence | null;
+  recommendation?: string | null;
+  computation?: string | null;
 }
 
 /** What a change writes on an item: the review's fields and the pricing's. */
@@ -67,6 +74,9 @@ function toRow(item: LineItemChanges & Partial<NewLineItem>): Partial<LineItemRo
   if (item.reportFileId !== undefined) row.report_file_id = item.reportFileId;
   if (item.evidenceStart !== undefined) row.evidence_start = item.evidenceStart;
   if (item.evidenceEnd !== undefined) row.evidence_end = item.evidenceEnd;
+  if (item.confidence !== undefined) row.confidence = item.confidence;
+  if (item.recommendation !== undefined) row.recommendation = item.recommendation;
+  if (item.computation !== undefined) row.computation = item.computation;
   if (item.entryId !== undefined) row.entry_id = item.entryId;
   if (item.adderIds !== undefined) row.adder_ids = [...item.adderIds];
   if (item.pricingQuantity !== undefined) row.pricing_quantity = item.pricingQuantity;

@@ -39,6 +39,9 @@ function proposalsFrom(findings: Finding[], requestId: number, reportFileId: num
     reportFileId,
     evidenceStart: f.start,
     evidenceEnd: f.end,
+    confidence: f.confidence,
+    recommendation: f.recommendation,
+    computation: f.computation,
   }));
 }
 

@@ -16,7 +16,7 @@ describe('readBlock', () => {
   });
 
   it('drops a recommendation that repeats a finding of the block', () => {
-    expect(findingsOf('The island receptacle is not GFCI protected; recommend GFCI protection.')).toEqual([['gfci-missing', 'kitchen', null]]);
+    expect(findingsOf('The island receptacle is not GFCI protected; recommend GFCI protection.')).toEqual([['gfci-missing', 'kitchen', 1]]);
   });
 
   it('carries a place to a sentence that refers back to it', () => {
@@ -25,13 +25,13 @@ describe('readBlock', () => {
 
   it('does not carry a place to an unrelated sentence', () => {
     expect(findingsOf('The hallway smoke alarm is over ten years old. No CO alarm is installed.')).toEqual([
-      ['smoke-co-alarm', 'hallway', null],
-      ['smoke-co-alarm', 'whole-house', null],
+      ['smoke-co-alarm', 'hallway', 1],
+      ['smoke-co-alarm', 'whole-house', 1],
     ]);
   });
 
-  it('does not treat a short sentence with a verb as a place label', () => {
-    expect(findingsOf('The hall is narrow. No CO alarm is installed.')).toEqual([['smoke-co-alarm', 'whole-house', null]]);
+  it('carries the place of an opening sentence that is not a finding (it names the area)', () => {
+    expect(findingsOf('The hall is narrow. No CO alarm is installed.')).toEqual([['smoke-co-alarm', 'hallway', 1]]);
   });
 
   it('reports a denied phrase as negated rather than found', () => {

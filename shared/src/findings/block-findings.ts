@@ -4,13 +4,15 @@ import { readLocation } from './location-reader';
 import type { FindingCode } from './finding-code';
 import type { MappedText } from './mapped-text';
 import { negatedSpans } from './negation-detector';
-import { readQuantity } from './quantity-reader';
+import { findingQuantity } from './quantity-reader';
 import { scanAll } from './regex-scan';
 import { findRooms, type RoomMention } from './room-lexicon';
 import type { Room } from './room';
 import { lastPlaceMention, placeMatches } from './room-resolver';
 import type { Section } from './block-splitter';
 import { splitSentences } from './sentence-splitter';
+import { normaliseText } from './text-normaliser';
+import type { Confidence } from './finding.schema';
 
 /** A finding of one block before offsets are attached: which sentence it came from and what it says. */
 export interface BlockFinding {
@@ -21,6 +23,10 @@ export interface BlockFinding {
   readonly sentence: MappedText;
   readonly isRecommendation: boolean;
   readonly isFallbackOnly: boolean;
+  readonly confidence: Confidence;
+  /** Follow-up sentences of the block that recommend the correction of this finding. */
+  readonly recommendations: MappedText[];
+  readonly computation: string | null;
 }
 
 export interface BlockResult {
@@ -28,6 +34,14 @@ export interface BlockResult {
   /** Whether some defect phrase was found but denied ("no reversed polarity observed"). */
   readonly hasNegated: boolean;
 }
+
+/** What the section and the document around a block say about place. */
+export interface BlockContext {
+  readonly section: Section;
+}
+
+/** A sentence that only recommends or asks for follow-up ("This should be corrected by a licensed electrician."). */
+const FOLLOW_UP = /\b(?:recommend\w*|suggest\w*|advise\w*|should be|should have|needs? to be|must be|have (?:it|this|these|them|the\s+\w+) (?:\w+ed|repaired|corrected|checked|evaluated)|correct(?:ion|ed)?|repair(?:ed|s)?|replace(?:d|ment)?|evaluat\w*|further (?:evaluation|review)|by a (?:licensed|qualified)|licensed electrician|qualified electrician|electrical contractor|for safety|safety (?:hazard|concern|issue)|fire (?:hazard|risk)|shock (?:hazard|risk)|hazard)/i;
 
 /** A sentence that points back to a place named before it ("It is not GFCI protected"). */
 const REFERS_BACK = /^(?:it|they|this|these|those|each|both|one|the same|also|and)\b/i;
@@ -48,8 +62,13 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
   let hasNegated = false;
   // The last place named so far; its location is read only when a later sentence refers back to it.
   let previous: { text: string; mention: RoomMention; isLabel: boolean } | null = null;
+  // The place named by the block's opening sentence: it carries to the block's findings that name none.
+  let opening: { room: Room; location: string; hadFindings: boolean } | null = null;
+  // The findings of the last sentence that had any: a follow-up sentence belongs to them.
+  let lastFound: BlockFinding[] = [];
 
-  for (const sentence of splitSentences(text)) {
+  splitSentences(text).forEach((written, sentenceIndex) => {
+    const sentence = normaliseText(written);
     const matches = matchCodes(sentence.text);
     // Clauses are cut once per sentence with phrases, for negation and for places alike.
     const clauses = matches.length > 0 ? clauseRanges(sentence.text) : [];
@@ -61,13 +80,18 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
         ? { room: previous.mention.room, location: readLocation(previous.text, previous.mention) }
         : null;
     const rooms = findRooms(sentence.text);
-    const placements = placeMatches(sentence.text, live, { carried, sectionRoom: section.room, sectionTitle: section.title }, rooms, clauses);
+    const placements = placeMatches(
+      sentence.text,
+      live,
+      { carried, opening, sectionRoom: section.room, sectionTitle: section.title },
+      rooms,
+      clauses,
+    );
     const inSentence: BlockFinding[] = [];
     live.forEach((match, i) => {
+      const isNormalised = sentence.changed.some((c) => c.start < match.end && match.start < c.end);
       for (const place of placements[i]) {
-        const quantity =
-          readQuantity(place.countText, place.articleLimit) ??
-          (live.length === 1 && place.laterText ? readQuantity(place.laterText, 0) : null);
+        const quantity = findingQuantity(match.rule.code, place.countText, place.articleLimit, live.length === 1 && place.laterText ? place.laterText : null);
         const same = inSentence.find((f) => f.code === match.rule.code && f.room === place.room);
         if (same) continue;
         inSentence.push({
@@ -78,23 +102,46 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
           sentence,
           isRecommendation: match.isRecommendation,
           isFallbackOnly: match.rule.isFallbackOnly === true,
+          confidence: match.computation !== undefined || place.isInferred ? 'inferred' : isNormalised ? 'normalised' : 'exact',
+          recommendations: [],
+          computation: match.computation ?? null,
         });
       }
     });
-    found.push(...inSentence);
+    // A follow-up sentence only recommends, or speaks again of a defect the block already has
+    // ("Three-prong receptacles should be grounded or GFCI protected.").
+    const onlyFollowUp = inSentence.every(
+      (f) => f.isRecommendation || f.isFallbackOnly || (f.confidence === 'inferred' && found.some((g) => g.code === f.code)),
+    );
+    if (lastFound.length > 0 && onlyFollowUp && FOLLOW_UP.test(sentence.text)) {
+      // "This should be corrected by a licensed electrician.": part of the finding(s) before it.
+      for (const f of lastFound) f.recommendations.push(written);
+    } else {
+      found.push(...inSentence);
+      if (inSentence.some((f) => !f.isRecommendation && !f.isFallbackOnly)) lastFound = inSentence;
+    }
     const mention = lastPlaceMention(rooms);
     const isLabel = matches.length === 0 && scanAll(WHITESPACE_RUN, sentence.text).length + 1 <= MAX_LABEL_WORDS && !VERB.test(sentence.text);
     if (mention) previous = { text: sentence.text, mention, isLabel };
-  }
+    if (sentenceIndex === 0 && mention) opening = { room: mention.room, location: readLocation(sentence.text, mention), hadFindings: live.length > 0 };
+  });
   return { findings: keepDistinct(found), hasNegated };
 }
 
-function keepDistinct(found: readonly BlockFinding[]): BlockFinding[] {
+const WIRING_METHODS: ReadonlySet<string> = new Set(['knob-and-tube', 'aluminum-branch-wiring']);
+
+function keepDistinct(all: readonly BlockFinding[]): BlockFinding[] {
+  // A wiring method named again in the block without a place of its own is the same wiring.
+  const found = all.filter(
+    (f, i) => !(WIRING_METHODS.has(f.code) && f.confidence === 'inferred' && all.some((g, j) => j < i && g.code === f.code)),
+  );
   const specific = found.filter((f) => !f.isFallbackOnly);
   const pool = specific.length > 0 ? specific : found.filter((f, i) => found.findIndex((g) => g.code === f.code) === i);
-  return pool.filter(
-    (f, i) =>
-      !f.isRecommendation ||
-      !pool.some((g, j) => j !== i && g.code === f.code && g.room === f.room && (!g.isRecommendation || j < i)),
-  );
+  return pool.filter((f, i) => {
+    if (!f.isRecommendation) return true;
+    const kept = pool.find((g, j) => j !== i && g.code === f.code && g.room === f.room && (!g.isRecommendation || j < i));
+    // A recommendation that repeats a finding of the block is that finding's recommendation.
+    if (kept && kept.sentence !== f.sentence) kept.recommendations.push(f.sentence);
+    return kept === undefined;
+  });
 }

@@ -29,11 +29,21 @@ interface Line {
 }
 
 const ITEM_MARKER = /^\s*(?:\d{1,3}(?:\.\d{1,3})+\.?|\d{1,3}[.)]|[a-h][.)]|item\s+\d{1,3}\s*[:.)-]|[-•*‣▪◦●·–—>]|\[\s?[x ]?\])\s+/i;
-const NOISE_LINE = /^(?:.{0,80}\bpage\s+\d+(?:\s*(?:of|\/)\s*\d+)?|-{1,2}\s*\d+\s+of\s+\d+\s*-{1,2}|\d+\s*\/\s*\d+)\s*$/i;
+const NOISE_LINE = /^(?:[|+:=\s-]{3,}|.{0,80}\bpage\s+\d+(?:\s*(?:of|\/)\s*\d+)?|-{1,2}\s*\d+\s+of\s+\d+\s*-{1,2}|\d+\s*\/\s*\d+)\s*$/i;
 const CONNECTOR_END = /(?:[,;&/-]|\b(?:and|or|the|a|an|at|of|to|with|in|on|for|by|from|is|are|was|were|not|no))$/i;
 /** A checklist line that ends in its answer ("GFCI at exterior: No"). */
 const CHECKLIST_ANSWER = /:\s*(?:yes|no|none|n\/a|ok|missing)$/i;
 const SHORT_LINE = 45;
+/** A line counts as short against the report's own measure: narrow columns make every line shorter. */
+const SHORT_SHARE = 0.75;
+
+/** The length below which a line is short in this report: 45 characters, less for narrow columns. */
+function shortLineFor(lines: readonly Line[]): number {
+  const lengths = lines.map((l) => l.text.trim().length).filter((n) => n >= 20).sort((a, b) => a - b);
+  if (lengths.length < 8) return SHORT_LINE;
+  const typical = lengths[Math.floor(lengths.length * 0.75)];
+  return Math.min(SHORT_LINE, Math.round(typical * SHORT_SHARE));
+}
 const LINE_BREAK = /\r?\n\f|\f\r?\n|\r?\n|\f/g;
 const NO_SECTION: Section = { kind: 'none', title: null, room: null };
 
@@ -72,7 +82,9 @@ export function splitBlocks(joined: string): Block[] {
     prevLine = line;
   };
 
-  for (const line of splitLines(joined)) {
+  const lines = splitLines(joined);
+  const shortLine = shortLineFor(lines);
+  for (const line of lines) {
     const content = line.text.trim();
     if (content.length === 0) {
       close();
@@ -96,7 +108,7 @@ export function splitBlocks(joined: string): Block[] {
       open(line, line.start + (marker ? marker[0].length : 0), section);
       continue;
     }
-    joinLine(builder, prevLine, line);
+    joinLine(builder, prevLine, line, shortLine);
     builder.appendSource(joined, line.start, line.end);
     prevLine = line;
   }
@@ -105,7 +117,7 @@ export function splitBlocks(joined: string): Block[] {
 }
 
 /** Decides whether a line break inside a block is a sentence boundary, a space or a word wrap. */
-function joinLine(builder: MappedTextBuilder, prev: Line, next: Line): void {
+function joinLine(builder: MappedTextBuilder, prev: Line, next: Line, shortLine: number): void {
   const before = prev.text.trim();
   const after = next.text.trim();
   if (/\p{L}-$/u.test(before) && /^\p{Ll}/u.test(after)) {
@@ -118,6 +130,13 @@ function joinLine(builder: MappedTextBuilder, prev: Line, next: Line): void {
     CHECKLIST_ANSWER.test(before) ||
     prev.text.includes('\t') ||
     next.text.includes('\t') ||
-    (before.length < SHORT_LINE && !/[.!?]$/.test(before) && !CONNECTOR_END.test(before) && /^[\p{Lu}\d(]/u.test(after));
+    isTableRow(prev.text) ||
+    isTableRow(next.text) ||
+    (before.length < shortLine && !/[.!?]$/.test(before) && !CONNECTOR_END.test(before) && /^[\p{Lu}\d(]/u.test(after));
   builder.appendSeparator(isBoundary ? '\n' : ' ', breakAt);
+}
+
+/** A row of a table export: pipe-separated, or fixed-width columns (runs of 3+ spaces between words). */
+function isTableRow(line: string): boolean {
+  return /\S\s*\|\s*\S/.test(line) || /\S {3,}\S/.test(line.trim());
 }

@@ -2,6 +2,7 @@ import { CODE_RULES, type CodePattern, type CodeRule } from './code-patterns';
 import { FINDING_CODES } from './finding-code';
 import { LiteralScanner } from './literal-scanner';
 import { requiredLiteralLists } from './phrase-literals';
+import { checkOvercurrent } from './overcurrent-check';
 import { scanAll } from './regex-scan';
 
 /** One defect phrase found in a sentence. */
@@ -10,6 +11,8 @@ export interface CodeMatch {
   readonly start: number;
   readonly end: number;
   readonly isRecommendation: boolean;
+  /** For a computed finding (overcurrent device vs conductor or nameplate), how it was computed. */
+  readonly computation?: string;
 }
 
 const TABLE_ORDER = new Map(FINDING_CODES.map((code, i) => [code, i]));
@@ -99,8 +102,11 @@ function allMatches(sentence: string, options: MatchOptions): CodeMatch[] {
       }
     }
   }
+  for (const check of checkOvercurrent(sentence)) found.push({ rule: OVERCURRENT_RULE, start: check.start, end: check.end, isRecommendation: false, computation: check.computation });
   return found;
 }
+
+const OVERCURRENT_RULE = CODE_RULES.find((r) => r.code === 'overcurrent-mismatch')!;
 
 /**
  * The defect phrases of a sentence, in reading order and without overlaps: where two phrases
@@ -112,6 +118,7 @@ function allMatches(sentence: string, options: MatchOptions): CodeMatch[] {
 export function matchCodes(sentence: string, options: MatchOptions = {}): CodeMatch[] {
   const ranked = allMatches(sentence, options).sort(
     (a, b) =>
+      Number(b.computation !== undefined) - Number(a.computation !== undefined) ||
       b.end - b.start - (a.end - a.start) ||
       (TABLE_ORDER.get(a.rule.code) ?? 0) - (TABLE_ORDER.get(b.rule.code) ?? 0) ||
       a.start - b.start,

@@ -1,6 +1,6 @@
 import type { FindingCode } from './finding-code';
 import type { Room } from './room';
-import { anyGap, gap, PROTECTION_FILLER as PF, rx, T } from './term-lexicon';
+import { adjGap, anyGap, gap, PROTECTION_FILLER as PF, rx, T } from './term-lexicon';
 
 /**
  * The phrase table: for every finding code, the phrasings that state the defect. This is the one
@@ -38,21 +38,18 @@ export interface CodeRule {
   readonly isFallbackOnly?: boolean;
 }
 
+const ADJ_GAP = adjGap(3);
 const RECOMMEND = String.raw`(?:recommend(?:ed|s|ing)?|suggest(?:ed)?|should (?:be|have)|install(?:ing|ed)?|upgrad(?:e|ed|ing) to|add(?:ing)?|need(?:s|ed)?|requires?|consider(?:ing)?|have the)`;
 /** Words that turn a recommendation into one about an existing device (replace, test, reset). */
 const NOT_ABOUT_ADDING = String.raw`(?:(?!replac|repair|reset|test|check)[\w-]+\s+){0,4}?`;
+/** A light that is part of an appliance (range hood, oven, refrigerator, opener) is not a light fixture. */
+const NOT_APPLIANCE = String.raw`(?<!\b(?:hood|range|oven|microwave|refrigerator|fridge|freezer|opener|appliance|exhaust fan)\s)`;
+/** A general evaluation that is conditional or points at items listed elsewhere ("all of the above") is not a finding of its own. */
+const REFERS_TO_OTHERS = /\bif\b|\bany\b|\bshould any\b|\babove\b|\bthese\b|\bthis section\b|\b(?:items?|conditions?|defects?|deficiencies) (?:in|of|listed|noted)\b|\blisted\b|\bmarked\b|\bitems? \d/i;
 const PANEL_CONTEXT = /panel|dead[- ]?front|load cent|breaker box|fuse box|enclosure/i;
 /** A bare "cover" next to a junction box is the box's cover, not a device cover plate. */
 const JBOX_WORD = /junction|j-?\s?box|\bbox(?:es)?\b/i;
 const SUBPANEL_CONTEXT = /sub-?\s?panel|secondary panel|remote panel|downstream|distribution panel|feeder/i;
-
-/** NEC 240.4(D) small-conductor limits (from memory of the 2017-2023 text; trade-reference 2.2). */
-const MAX_AMPS_BY_AWG: Readonly<Record<string, number>> = { '14': 15, '12': 20, '10': 30 };
-function isOversized(m: RegExpExecArray): boolean {
-  const amps = Number(m.groups?.amps);
-  const limit = MAX_AMPS_BY_AWG[m.groups?.awg ?? ''];
-  return limit !== undefined && amps > limit;
-}
 
 export const CODE_RULES: readonly CodeRule[] = [
   {
@@ -60,7 +57,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /gfc?i|gcfi|ground[- ]fault/i,
     yieldsTo: ['gfci-inoperative', 'open-ground', 'false-ground', 'knob-and-tube'],
     patterns: [
-      { re: rx`(?:${T.NO}|not|non-?|neither\s+${gap(3)}(?:has|have|is|are))\s*${PF}${T.GFCI}` },
+      { re: rx`(?:${T.NO}|not|non-?|neither\s+${gap(5)}(?:has|have|had|is|are|was|were))\s*${PF}${T.GFCI}` },
       { re: rx`${T.GFCI}(?:\s+(?:protection|protected|${T.RCPT}|breakers?))?\s+${T.BE}${T.ABSENT}` },
       { re: rx`${T.GFCI}(?:\s+protect(?:ion|ed))?(?:\s+(?:at|in|for)\s+${gap(3)}[\w-]+)?\s*[:=-]\s*(?:no|none|missing|absent)\b` },
       { re: rx`${T.RCPT}\s+${gap(4)}(?:are|is|were|was)\s+not\s+(?:on|protected by)\s+(?:an?\s+)?${T.GFCI}` },
@@ -72,14 +69,19 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /gfc?i|gcfi|ground[- ]fault|trip|reset/i,
     patterns: [
       { re: rx`${T.GFCI}\s+${anyGap(7)}${T.FAILED}\s+(?:properly\s+)?(?:trip|reset|respond|function|operate|work)` },
-      { re: rx`${T.GFCI}(?:\s+${T.RCPT})?\s+${gap(4)}${T.BE}(?:${T.INOPERATIVE}|worn(?: out)?|at end of life|end[- ]of[- ]life|not (?:tripping|resetting))` },
+      { re: rx`${T.GFCI}(?:\s+${T.RCPT})?\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|worn(?: out)?|at end of life|end[- ]of[- ]life|not (?:tripping|resetting))` },
       { re: rx`(?:${T.INOPERATIVE}|failed|worn|damaged)\s+${T.GFCI}(?:\s+${T.RCPT})?` },
       { re: rx`${T.FAILED}\s+(?:trip|reset)\b(?!\s+(?:the|a)?\s*breaker)` },
+      { re: rx`${T.GFCI}(?:\s+${T.RCPT})?\s+${anyGap(6)}(?:-\s*)?(?:no|not|never)\s+(?:trip(?:ping|ped)?|reset(?:ting)?)\b` },
+      { re: rx`(?:no|not|never)\s+(?:trip(?:ping|ped)?|reset(?:ting)?)\s+(?:with|when|on|using|at)\s+(?:the\s+)?(?:test(?:er)?|button|btn)` },
     ],
   },
   {
     code: 'afci-missing',
     trigger: /afc?i|arc[- ]fault/i,
+    // AFCI protection was first required on bedroom circuits (NFPA 70 (NEC) 1999, 210.12, from
+    // memory); a report that names no room speaks of those.
+    defaultRoom: 'bedroom',
     patterns: [
       { re: rx`(?:${T.NO}|not|non-?)\s*${PF}${T.AFCI}` },
       { re: rx`${T.AFCI}(?:\s+(?:protection|protected|breakers?|${T.RCPT}))?\s+${T.BE}${T.ABSENT}` },
@@ -105,7 +107,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:tested|tests?|read|reads|showed?|shows|indicated?|registers?|registered)\s+(?:as\s+)?(?:ungrounded|open ground)` },
       { re: rx`(?:three|3)[- ](?:prong|slot|hole)\s+${T.RCPT}?\s*${gap(3)}(?:on|with|in|fed by)\s+(?:an?\s+)?(?:ungrounded|two[- ]wire|2[- ]wire|non-?grounded)` },
       { re: rx`(?:no|lacks?|lacking|missing|without)\s+(?:an?\s+)?(?:equipment\s+)?ground(?:ing)?(?:\s+(?:conductor|wire|path))?\b(?!\s*(?:fault|electrode|rod|clamp))` },
-      { re: rx`${T.RCPT}\s+${gap(3)}${T.BE}(?:not grounded|ungrounded)` },
+      { re: rx`${T.RCPT}\s+${gap(8)}${T.BE}(?:not grounded|ungrounded)` },
     ],
   },
   {
@@ -113,7 +115,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /ground/i,
     yieldsTo: ['subpanel-bonding'],
     patterns: [
-      { re: rx`(?:bootleg(?:ged)?|false|fake)\s+ground(?:s|ed|ing)?\b` },
+      { re: rx`(?:bootleg(?:ged)?|false|fake)\s+(?:indication of (?:a\s+)?)?ground(?:s|ed|ing)?\b` },
+      { re: rx`(?:jumper|jumpered|jumped|tied|bonded)\s+${anyGap(4)}(?:from\s+)?(?:the\s+)?neutral\s+${anyGap(3)}to\s+(?:the\s+)?(?:green\s+)?ground(?:ing)?(?:\s+(?:terminal|screw))?` },
       { re: rx`neutral\s+${gap(4)}(?:jumpered|jumped|bonded|tied)\s+(?:over\s+)?to\s+(?:the\s+)?ground(?:ing)?(?:\s+(?:terminal|screw))?`, isRecommendation: true },
     ],
   },
@@ -121,10 +124,11 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'receptacle-damaged',
     trigger: /rec[ei]p|rcp|outlet|duplex|device|plug|cord|tension|grip|contacts/i,
     patterns: [
-      { re: rx`(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?:[- ]over)?|worn|discolou?red|heat[- ]damaged|dead|${T.INOPERATIVE})\s+${gap(3)}${T.RCPT}` },
-      { re: rx`${T.RCPT}\s+${gap(5)}${T.BE}(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?: over)?|worn|discolou?red|dead|${T.INOPERATIVE}|not (?:energized|powered|secured|secure|fastened)|pulled (?:out|away)|recessed)` },
+      { re: rx`(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?:[- ]over)?|worn|discolou?red|heat[- ]damaged|dead|${T.INOPERATIVE})\s+${ADJ_GAP}${T.RCPT}` },
+      { re: rx`(?:cracked|broken|damaged) (?:face|housing|body)|loose (?:plug )?fit|plugs? (?:fits?|fit) loose(?:ly)?|(?:will not|won't|does not|doesn't) (?:hold|retain) (?:a |the )?plugs?` },
+      { re: rx`${T.RCPT}\s+${gap(8)}${T.BE}(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?: over)?|worn|discolou?red|dead|${T.INOPERATIVE}|not (?:energized|powered|secured|secure|fastened)|pulled (?:out|away)|recessed)` },
       { re: rx`${T.RCPT}\s+${gap(5)}(?:(?:has|have|had)\s+no|(?:is|are)\s+without)\s+power` },
-      { re: rx`${T.RCPT}\s+${gap(5)}(?:shows?|showed|has|have|with)\s+(?:scorch|burn|arc(?:ing)?|char|heat)\w*(?:\s+marks?)?` },
+      { re: rx`${T.RCPT}\s+${gap(8)}(?:shows?|showed|has|have|had|with)\s+(?:(?:brown|black|dark|visible|some)\s+)?(?:scorch|burn|arc(?:ing)?|char|heat|melt)\w*(?:\s+marks?)?` },
       { re: rx`(?:scorch|burn|arc(?:ing)?|char)\w*\s+marks?\s+(?:on|at)\s+${gap(3)}${T.RCPT}` },
       { re: rx`no power (?:at|to)\s+(?:the\s+)?${gap(3)}${T.RCPT}` },
       { re: rx`(?:plugs?|cords?)\s+(?:fall|falls|fell|slip|slips|pull|pulls)\s+out` },
@@ -137,9 +141,10 @@ export const CODE_RULES: readonly CodeRule[] = [
     defaultRoom: 'exterior',
     patterns: [
       { re: rx`(?:${T.NO}|${T.BROKEN})\s+(?:(?:an?|the|its|proper|required)\s+)?(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant|[- ]tight)?|wp|wr|exterior|outdoor)[- ]?(?:rated\s+)?(?:covers?|cover plates?|enclosures?|hoods?|lids?|flaps?)` },
-      { re: rx`(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant)?|wp)\s+covers?\s+${T.BE}(?:${T.ABSENT}|broken|damaged|cracked|needed|recommended|required)` },
+      { re: rx`(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant)?|wp)\s+covers?\s+${anyGap(8)}${T.BE}(?:${T.ABSENT}|broken|damaged|cracked|needed|recommended|required)` },
       { re: rx`(?:exterior|outdoor|outside|patio|deck|porch)\s+${T.RCPT}\s+${gap(3)}(?:covers?|lids?|flaps?)\s+${T.BE}(?:missing|broken|damaged|absent)` },
       { re: rx`(?:not|non)[- ](?:wr|weather[- ]resistant)\b` },
+      { re: rx`(?:covers?|lids?)\s+${anyGap(4)}(?:not|isn't|is not)\s+(?:an?\s+)?(?:in[- ]use|bubble|weather[- ]?proof|wp|while[- ]in[- ]use|extra[- ]duty)\b` },
     ],
   },
   {
@@ -147,7 +152,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /plate|cover/i,
     patterns: [
       { re: rx`(?:${T.NO}|broken|cracked|damaged)\s+(?:(?:the|a|an|any)\s+)?(?:(?:switch|${T.RCPT}|light|blank)\s+)?${T.PLATE}`, unless: JBOX_WORD },
-      { re: rx`${T.PLATE}\s+${gap(4)}${T.BE}(?:${T.ABSENT}|broken|cracked|damaged)`, unless: JBOX_WORD },
+      { re: rx`${T.PLATE}\s+${gap(8)}${T.BE}(?:${T.ABSENT}|broken|cracked|damaged)`, unless: JBOX_WORD },
       { re: rx`${T.PLATE}\s+(?:for|on|at|of)\s+(?:the\s+|a\s+)?(?:${T.SWITCH}|${T.RCPT})\s+${gap(5)}${T.BE}(?:broken|cracked|damaged|missing)` },
     ],
   },
@@ -161,6 +166,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${T.NO}\s+(?:blank\s+)?(?:covers?|lids?)\s+(?:on|for)\s+(?:the\s+|an?\s+)?${T.JBOX}` },
       { re: rx`(?:splices?|spliced (?:wires|conductors)|wire nuts?)\s+${anyGap(6)}(?:outside|not in|not within|not enclosed|without)\s+(?:in\s+)?(?:an?\s+|the\s+)?(?:(?:approved|junction|electrical|enclosed)\s+)?(?:box|enclosure|junction box)` },
       { re: rx`(?:open|exposed|unenclosed|loose|taped)\s+(?:wire\s+)?splices?` },
+      { re: rx`(?:spliced?|splices|connections?|connected)\b\s+${anyGap(20)}(?:with\s+no|without(?:\s+an?)?|not\s+in(?:\s+an?)?|outside(?:\s+of)?(?:\s+an?)?)\s+(?:junction\s+|electrical\s+)?(?:box|enclosure)` },
+      { re: rx`(?:wrapped|taped)\s+(?:only\s+)?(?:in|with)\s+(?:electrical\s+)?tape` },
     ],
   },
   {
@@ -168,7 +175,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /wir|cable|conductor|\bnm\b|romex|cord/i,
     patterns: [
       { re: rx`(?:exposed|unprotected|unsecured|loose|dangling|hanging|unsupported|unstapled|frayed)(?:,?\s+(?:dangling|hanging|unsecured|loose|exposed))?\s+(?:(?:nm|romex|electrical|branch(?: circuit)?|sheathed|non-?metallic(?:[- ]sheathed)?)\s+)?(?:wir(?:e|es|ing)|cables?|nm(?:-b)?|romex)\b` },
-      { re: rx`${T.WIRING}\s+${gap(4)}${T.BE}(?:exposed|unprotected|unsecured|loose|not (?:secured|supported|protected|stapled|strapped)|dangling|hanging|lying|draped|subject to (?:physical )?damage|within reach)` },
+      { re: rx`${T.WIRING}\s+${gap(8)}${T.BE}(?:exposed|unprotected|unsecured|loose|not (?:secured|supported|protected|stapled|strapped)|dangling|hanging|lying|draped|subject to (?:physical )?damage|within reach)` },
       { re: rx`extension cords?\s+${gap(3)}(?:used|in use|serving|as|for|run|powering|supplying|providing|feeding)` },
       { re: rx`(?:used|using|uses|plugged in(?:\s?to)?|powered by|connected to|on)\s+(?:an?\s+)?extension cords?` },
       { re: rx`(?:permanent|fixed)\s+(?:use of\s+)?extension cords?` },
@@ -181,7 +188,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`(?:doubled?|dbl\.?|dual|twin)[- ]?tap(?:s|ped|ping|ed)?\b` },
       { re: rx`double[- ]lug(?:ged|s)?\b` },
-      { re: rx`(?:two|2|multiple)\s+(?:wires|conductors|circuits|neutrals)\s+${gap(3)}(?:under|on|to|landed on|terminated on|sharing)\s+(?:a\s+|one\s+|the same\s+|single\s+)+(?:terminal|lug|screw|breaker)` },
+      { re: rx`(?:two|2|multiple)\s+(?:wires|conductors|circuits|neutrals)\s+${gap(3)}(?:under|on|to|landed on|terminated on|sharing)\s+(?:a\s+|one\s+|the same\s+|single\s+|its\s+|their\s+|the\s+)+(?:terminal|lug|screw|breaker)` },
     ],
   },
   {
@@ -192,14 +199,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:oversized?|over-sized|over-?fused|mismatched|incorrectly sized|wrong(?:ly sized)?|improperly sized)\s+${gap(2)}${T.BREAKER}` },
       { re: rx`${T.BREAKER}\s+${gap(3)}${T.BE}(?:oversized|over-sized|too large|too big|larger than|rated (?:higher|above|too high))` },
       { re: rx`undersized\s+(?:wir(?:e|es|ing)|conductors?)` },
-      {
-        re: rx`(?<amps>\d{2})\s?-?(?:a|amps?|ampere)\s+${T.BREAKER}\s+${gap(3)}(?:on|protects?|protecting|feeds?|feeding|serves?|serving|connected to|supplies|supplying)\s+(?:an?\s+)?${gap(2)}#?\s?(?<awg>1[024])\s*(?:awg|gauge|ga)\b`,
-        check: isOversized,
-      },
-      {
-        re: rx`#?\s?(?<awg>1[024])\s*(?:awg|gauge|ga)\s+${gap(3)}(?:on|protected by|connected to|landed on|fed by|attached to)\s+(?:an?\s+)?(?<amps>\d{2})\s?-?(?:a|amps?|ampere)\b`,
-        check: isOversized,
-      },
+      // Ratings checked against the conductor or the nameplate are computed in overcurrent-check.ts.
     ],
   },
   {
@@ -215,7 +215,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:${T.NO})\s+(?:breaker\s+)?(?:fillers?|filler plates?|blanks?|blanking plates?|knockout (?:closures|seals|plugs|covers))` },
       { re: rx`(?:knockouts?|fillers?|filler plates?)\s+${T.BE}(?:missing|open|absent)` },
       { re: rx`(?:${T.NO}|incomplete|illegible|inaccurate)\s+(?:panel\s+|circuit\s+)*(?:directory|legend|labels?|labell?ing|identification)` },
-      { re: rx`(?:directory|legend|circuit labels?|labell?ing)\s+${gap(3)}${T.BE}(?:${T.ABSENT}|incomplete|illegible|inaccurate|not (?:filled|completed))` },
+      { re: rx`(?:directory|legend|circuit labels?|labell?ing)\s+${gap(3)}${T.BE}(?:${T.ABSENT}|incomplete|illegible|inaccurate|blank|empty|not (?:filled|completed))` },
       { re: rx`(?:circuits?|breakers?)\s+${gap(3)}${T.BE}(?:not|un)[- ]?(?:labell?ed|identified|marked)`, context: PANEL_CONTEXT },
       { re: rx`(?:unlabell?ed|unidentified|unmarked)\s+(?:circuits?|breakers?)` },
       { re: rx`(?:corrosion|rust|moisture|water stains?)\s+${gap(3)}(?:in|on|inside|at|within)\s+(?:the\s+)?(?:main\s+|electrical\s+|service\s+)?(?:${T.PANEL}|breakers?|bus)` },
@@ -230,7 +230,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /neutral|ground|bond|green|egc/i,
     fixedRoom: 'panel',
     patterns: [
-      { re: rx`(?:neutrals?|grounds?)(?:\s+(?:conductors?|wires?))?\s+(?:and|&)\s+(?:neutrals?|grounds?|grounding|equipment grounds?)(?:\s+(?:conductors?|wires?))?\s+${gap(3)}(?:share|sharing|are on|on the same|together|combined|commingled|mixed|${T.BE}not (?:separated|isolated))` },
+      { re: rx`(?:neutrals?|grounds?)(?:\s+(?:conductors?|wires?))?\s+(?:and|&)\s+(?:neutrals?|grounds?|grounding|equipment grounds?)(?:\s+(?:conductors?|wires?))?\s+${gap(3)}(?:share|sharing|are on|on (?:the )?same|(?:landed |terminated )?together|combined|commingled|mixed|${T.BE}not (?:separated|isolated))` },
       { re: rx`(?:grounds?|ground wires|egcs?|equipment grounds?)\s+${gap(3)}(?:on|landed on|connected to|terminated on|share)\s+(?:the\s+)?neutral\s+(?:bar|bus)`, context: SUBPANEL_CONTEXT },
       { re: rx`(?:bonding|bond|green)\s+(?:screw|strap|jumper)\s+${gap(3)}${T.BE}(?:present|installed|in place|not removed)`, context: SUBPANEL_CONTEXT },
       { re: rx`neutral\s+(?:bar|bus)?\s*${gap(2)}${T.BE}bonded\s+to\s+(?:the\s+)?(?:enclosure|case|can|cabinet|panel|ground)`, context: SUBPANEL_CONTEXT },
@@ -240,9 +240,10 @@ export const CODE_RULES: readonly CodeRule[] = [
   {
     code: 'grounding-electrode',
     trigger: /ground|gec|bond|electrode/i,
+    defaultRoom: 'panel',
     patterns: [
       { re: rx`(?:${T.NO}|loose|disconnected|damaged|broken|cut|corroded|inadequate|improper)\s+(?:(?:a|an|the)\s+)?${gap(2)}(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|water (?:pipe |line )?bond(?:ing)?(?: jumper)?|gas (?:pipe |line )?bond(?:ing)?|bonding (?:jumper|conductor|clamp|wire))` },
-      { re: rx`(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|bonding (?:jumper|clamp|conductor))\s+${gap(3)}${T.BE}(?:${T.ABSENT}|loose|disconnected|damaged|cut|broken|corroded|not (?:connected|attached|bonded|secured)|undersized|inadequate)` },
+      { re: rx`(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|bonding (?:jumper|clamp|conductor))\s+${gap(8)}${T.BE}(?:${T.ABSENT}|loose|disconnected|damaged|cut|broken|corroded|not (?:connected|attached|bonded|secured)|undersized|inadequate)` },
       { re: rx`(?:water|gas|metal|csst)(?:\s+(?:service|supply|main))?(?:\s+(?:pipes?|piping|lines?))?\s+${gap(2)}${T.BE}(?:not|un)[- ]?bonded` },
       { re: rx`(?:not|no)\s+bond(?:ed|ing)\s+(?:\w+\s+){0,3}?(?:water|gas|csst|metal piping)` },
     ],
@@ -253,7 +254,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     defaultRoom: 'whole-house',
     patterns: [
       { re: rx`(?:${T.NO}|${T.INOPERATIVE}|expired|outdated|dated|disconnected|removed|chirping)\s+${gap(2)}${T.SMOKE}` },
-      { re: rx`${T.SMOKE}\s*[:-]?\s*${gap(3)}${T.BE}(?:${T.ABSENT}|none|${T.INOPERATIVE}|expired|past (?:their|its) (?:service life|expiration)|(?:over|older than|more than) (?:10|ten) years|disconnected|removed|chirping|${T.FAILED} (?:respond|sound|activate|operate|work)|failed)` },
+      { re: rx`${T.SMOKE}\s*[:-]?\s*${gap(8)}${T.BE}(?:${T.ABSENT}|none|${T.INOPERATIVE}|expired|past (?:their|its) (?:service life|expiration)|(?:over|older than|more than) (?:10|ten) years|disconnected|removed|chirping|${T.FAILED} (?:respond|sound|activate|operate|work)|failed)` },
       { re: rx`${RECOMMEND}\s+${NOT_ABOUT_ADDING}${T.SMOKE}`, isRecommendation: true, unless: /\btest/i },
       { re: rx`(?:unit|device)\s+${gap(4)}${T.FAILED}\s+(?:sound|alarm|respond|activate)`, context: /smoke|carbon monoxide|\bco\b|alarm|detector/i },
     ],
@@ -262,8 +263,10 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'light-fixture',
     trigger: /light|fixture|luminaire|chandelier|pendant|sconce|globe|lens|shade|diffuser|bulb|lamp|insulation/i,
     patterns: [
-      { re: rx`${T.LIGHT}\s+${gap(5)}${T.BE}(?:${T.INOPERATIVE}|loose|dangling|hanging|not (?:secured|secure|attached|mounted)|${T.FAILED} (?:operate|work|respond|turn on|come on)|in contact with (?:the\s+)?insulation|covered (?:by|with) insulation|not (?:rated|listed|suitable|approved) for (?:a |the )?(?:wet|damp))` },
-      { re: rx`(?:${T.INOPERATIVE}|loose|dangling|damaged|broken)\s+${gap(2)}${T.LIGHT}` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|dangling|hanging|not (?:secured|secure|attached|mounted)|${T.FAILED} (?:operate|work|respond|turn on|come on)|in contact with (?:the\s+)?insulation|covered (?:by|with) insulation|not (?:rated|listed|suitable|approved) for (?:a |the )?(?:wet|damp))` },
+      { re: rx`(?:${T.INOPERATIVE}|loose|dangling|damaged|broken)\s+${gap(2)}${NOT_APPLIANCE}${T.LIGHT}` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:flickers?|flickering|buzz(?:es|ing)?|(?:is|are|was)\s+(?:scorched|discolou?red|melted|cracked))\b` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:hangs?|hanging|suspended|dangles|dangling)\s+(?:from|by|on)\b` },
       { re: rx`(?:${T.NO}|broken)\s+(?:(?:the|a)\s+)?(?:globes?|lens(?:es)?|light covers?|shades?|diffusers?)` },
       { re: rx`(?:bare|open|exposed|uncovered)\s+(?:incandescent\s+)?(?:bulbs?|lamps?)\b` },
       { re: rx`insulation\s+${gap(3)}(?:in contact with|touching|covering|over|on top of|against)\s+(?:the\s+)?${gap(2)}(?:recessed|can)\s+(?:lights?|fixtures?|cans?|housings?)` },
@@ -283,8 +286,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'switch-issue',
     trigger: /switch/i,
     patterns: [
-      { re: rx`${T.SWITCH}\s+${gap(5)}${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|(?:warm|hot) to the touch|warm|hot|sparks?|sparking|arcing|${T.FAILED} (?:operate|work|respond|control))` },
-      { re: rx`${T.SWITCH}\s+${gap(7)}(?:(?:has|have|had|of|with|serves?)\s+)?(?:an?\s+)?unknown (?:function|purpose|use)` },
+      { re: rx`${T.SWITCH}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|(?:warm|hot) to the touch|warm|hot|sparks?|sparking|arcing|${T.FAILED} (?:operate|work|respond|control))` },
+      { re: rx`${T.SWITCH}\s+${gap(7)}(?:(?:has|have|had|of|with|serves?)\s+)?(?:an?\s+)?(?:unknown|no known|undetermined|unclear) (?:function|purpose|use)` },
       { re: rx`(?:function|purpose) of (?:the |a |an )?${gap(2)}${T.SWITCH}\s+${gap(5)}${T.BE}(?:unknown|unclear|undetermined|not determined|could not be determined)` },
       { re: rx`(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|unknown(?:[- ]function)?)\s+${gap(2)}${T.SWITCH}(?!\s*(?:cover\s*)?plates?)` },
     ],
@@ -297,6 +300,10 @@ export const CODE_RULES: readonly CodeRule[] = [
       {
         re: rx`(?:(?:single|solid)[- ](?:strand(?:ed)?|conductor)\s+)?(?:aluminum|aluminium|alum\.?|al)\s+(?:single[- ]strand\s+|solid\s+)?(?:branch(?:[- ]circuit)?\s+)?(?:circuit\s+)?(?:wir(?:e|es|ing)|conductors?|circuits?)\b`,
         unless: /\bstranded\b|service[- ]entrance|se cable|feeder|service conductors/i,
+      },
+      {
+        re: rx`(?:branch[- ]circuits?|branch wiring|wiring|circuits)\s+${gap(5)}${T.BE}(?:(?:single|solid)[- ](?:strand(?:ed)?|conductor)\s+)?(?:aluminum|aluminium)\b`,
+        unless: /\bstranded\b|service[- ]entrance|se cable|feeder/i,
       },
     ],
   },
@@ -313,9 +320,9 @@ export const CODE_RULES: readonly CodeRule[] = [
   {
     code: 'service-equipment',
     trigger: /service|weather\s?head|drip|meter|\bse\b|seu|mast|overhead|utility|clearance/i,
-    defaultRoom: 'exterior',
+    fixedRoom: 'exterior',
     patterns: [
-      { re: rx`${T.SERVICE}\s+${gap(4)}${T.BE}(?:damaged|leaning|bent|loose|pulling away|detached|unsecured|not (?:secured|sealed|properly (?:secured|sealed|supported))|${T.ABSENT}|deteriorated|worn|frayed|cracked|rusted|rusting|corroded|too low|sagging|in contact with|contacting|touching|rubbing|exposed|weathered|brittle|torn|split)` },
+      { re: rx`${T.SERVICE}\s+${gap(8)}${T.BE}(?:damaged|leaning|bent|loose|pulling away|detached|unsecured|not (?:secured|sealed|properly (?:secured|sealed|supported))|${T.ABSENT}|deteriorated|worn|frayed|cracked|rusted|rusting|corroded|too low|sagging|in contact with|contacting|touching|rubbing|exposed|weathered|brittle|torn|split)` },
       { re: rx`(?:${T.NO}|damaged|deteriorated|frayed|worn|cracked|weathered|brittle|loose|leaning|bent|rusted|corroded)\s+${gap(2)}${T.SERVICE}` },
       { re: rx`(?:trees?|branches|limbs|vegetation|vines)\s+${gap(3)}(?:in contact with|contacting|touching|rubbing|against|interfering with)\s+(?:the\s+)?${gap(2)}${T.SERVICE}` },
       { re: rx`(?:inadequate|insufficient|improper|low)\s+(?:service\s+)?(?:drop\s+)?clearance\b`, context: /service|drop|overhead|mast|utility|roof/i, unless: PANEL_CONTEXT },
@@ -327,8 +334,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     isFallbackOnly: true,
     defaultRoom: 'whole-house',
     patterns: [
-      { re: rx`(?:evaluat|review|inspect|assess|examin|diagnos|correct|repair)\w*\s+${anyGap(8)}(?:by|from)\s+(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)s?`, unless: /\bif\b|\bany\b|\bshould any\b/i },
-      { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check)`, unless: /\bif\b|\bany\b|\bshould any\b/i },
+      { re: rx`(?:evaluat|review|inspect|assess|examin|diagnos|correct|repair)\w*\s+${anyGap(8)}(?:by|from)\s+(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)s?`, unless: REFERS_TO_OTHERS },
+      { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check)`, unless: REFERS_TO_OTHERS },
       { re: rx`(?:consult|contact|hire|engage|retain|call)\s+(?:with\s+)?(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)`, unless: /\bif\b|\bany\b/i },
     ],
   },

@@ -11,6 +11,9 @@ const valid = {
   end: 37,
   severity: 'safety',
   necRefs: ['210.8(A)'],
+  confidence: 'exact',
+  recommendation: null,
+  computation: null,
 };
 
 describe('FindingSchema', () => {

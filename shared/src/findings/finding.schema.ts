@@ -12,6 +12,15 @@ export const SeveritySchema = z.enum(SEVERITIES);
  * exact substring even when the sentence runs across a page break. `page` is 1-based and is the
  * page on which the evidence starts.
  */
+/**
+ * How a finding was read: `exact` (a phrase of the table as written), `normalised` (the phrase
+ * matched only after shorthand, a misspelling or a number word was normalised) or `inferred` (its
+ * room or its code rests on context: a heading, an earlier sentence, a computation).
+ */
+export const CONFIDENCES = ['exact', 'normalised', 'inferred'] as const;
+export const ConfidenceSchema = z.enum(CONFIDENCES);
+export type Confidence = z.infer<typeof ConfidenceSchema>;
+
 export const FindingSchema = z
   .object({
     code: FindingCodeSchema,
@@ -26,6 +35,11 @@ export const FindingSchema = z
     end: z.number().int().min(1),
     severity: SeveritySchema,
     necRefs: z.array(z.string()),
+    confidence: ConfidenceSchema,
+    /** Follow-up or recommendation text of the report that belongs to this finding, or null. */
+    recommendation: z.string().nullable(),
+    /** For a computed finding, the computation ("40 A breaker on 10 AWG copper; 240.4(D) allows 30 A"). */
+    computation: z.string().nullable(),
   })
   .refine((f) => f.end > f.start && f.end - f.start === f.evidence.length, {
     error: 'end - start must equal the evidence length',
@@ -37,7 +51,11 @@ export const SECTION_KINDS = ['electrical', 'room', 'general', 'non-electrical',
 export const SectionKindSchema = z.enum(SECTION_KINDS);
 export type SectionKind = z.infer<typeof SectionKindSchema>;
 
-export const SKIP_REASONS = ['non-electrical-section', 'no-electrical-finding', 'negated'] as const;
+/**
+ * `not-itemised`: the passage names electrical things (a receptacle, a breaker...) but gave no
+ * finding; the review screen lists it as "read but not itemised", one click from adding it.
+ */
+export const SKIP_REASONS = ['non-electrical-section', 'no-electrical-finding', 'negated', 'not-itemised'] as const;
 export const SkipReasonSchema = z.enum(SKIP_REASONS);
 export type SkipReason = z.infer<typeof SkipReasonSchema>;
 
@@ -51,6 +69,8 @@ export const SkippedTextSchema = z.object({
   page: z.number().int().min(1),
   start: z.number().int().min(0),
   end: z.number().int().min(1),
+  /** For a `not-itemised` passage, the item the parser would suggest if a person adds it. */
+  suggestion: z.object({ code: FindingCodeSchema, room: RoomSchema }).optional(),
 });
 export type SkippedText = z.infer<typeof SkippedTextSchema>;
 

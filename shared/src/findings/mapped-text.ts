@@ -26,6 +26,15 @@ export class MappedTextBuilder {
       if (ch === '\t') {
         this.text += source.slice(run, i) + ';';
         run = i + 1;
+      } else if (ch === '|') {
+        // A column rule of a table row: the columns read on as one line ("CO alarm | Hallway | None present").
+        this.text += source.slice(run, i);
+        run = i + 1;
+        if (this.offsets.length === 0 || WHITESPACE.test(this.last)) continue;
+        this.text += ' ';
+        this.offsets.push(i);
+        this.last = ' ';
+        continue;
       } else if (ch === ' ' && (this.offsets.length === 0 || WHITESPACE.test(this.last))) {
         this.text += source.slice(run, i);
         run = i + 1;

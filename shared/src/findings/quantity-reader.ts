@@ -60,6 +60,12 @@ function countOf(word: string): number | null {
  * "mounted to a standard light box" says nothing about how many fans.
  */
 export function readQuantity(text: string, articleLimit = Infinity): number | null {
+  const count = readCount(text, articleLimit);
+  return typeof count === 'number' ? count : null;
+}
+
+/** Like readQuantity, but tells a vague count ("several", "all") apart from none given. */
+export function readCount(text: string, articleLimit = Infinity): number | 'vague' | null {
   const tokens = tokenize(text);
   for (let i = 0; i < tokens.length; i++) {
     const { word } = tokens[i];
@@ -67,7 +73,7 @@ export function readQuantity(text: string, articleLimit = Infinity): number | nu
     if (parenthesised) return Number(parenthesised[1]);
     const times = /^(?:(\d{1,2})x|x(\d{1,2}))$/.exec(word);
     if (times) return Number(times[1] ?? times[2]);
-    if (VAGUE.has(word) && !isNumberAhead(tokens, i)) return null;
+    if (VAGUE.has(word) && !isNumberAhead(tokens, i)) return 'vague';
     const count = countOf(word);
     if (count === null || count === 0) continue;
     if ((word === 'a' || word === 'an') && tokens[i].index >= articleLimit) continue;
@@ -99,4 +105,45 @@ function isNounAhead(tokens: Token[], i: number): boolean {
 function isNumberAhead(tokens: Token[], i: number): boolean {
   const next = tokens[i + 1]?.word;
   return next !== undefined && countOf(next) !== null && next !== 'a' && next !== 'an';
+}
+
+/**
+ * Codes whose defect is a condition rather than a number of devices (bonding, a wiring method, the
+ * service, a general evaluation): they carry no count even when the text gives one.
+ */
+const UNCOUNTED = new Set(['service-equipment', 'knob-and-tube', 'grounding-electrode', 'subpanel-bonding', 'afci-missing', 'aluminum-branch-wiring', 'evaluate-general']);
+/** Codes about one device each: with no noun in the finding's words, the report speaks of one. */
+const ONE_DEVICE = new Set(['receptacle-damaged', 'gfci-inoperative', 'fan-support', 'switch-issue', 'reversed-polarity', 'false-ground', 'light-fixture', 'double-tap', 'overcurrent-mismatch', 'weather-cover-missing', 'cover-plate-missing', 'open-junction-box']);
+/**
+ * Device nouns, singular or plural: the finding's first one decides one (singular) or no count
+ * (plural). Compounds come first so that "cover plates" is plural. Cable and wire are left out: an
+ * inspector's "NM cable is exposed" speaks of wiring, not of one cable.
+ */
+const DEVICE_NOUN = /\b(?:((?:cover|face|wall|switch|outlet|receptacle|filler)[- ]?plate|(?:recessed |can )?light housing|light fixture|smoke (?:alarm|detector)|co (?:alarm|detector)|carbon monoxide (?:alarm|detector)|ceiling fan|junction box|j-box|gfci (?:receptacle|outlet|breaker|device)|receptacle|outlet|device|duplex|gfci|breaker|fuse|fixture|light|luminaire|lamp|bulb|globe|fan|switch|box|splice|cover|plate|alarm|detector|cord|knockout|screw|terminal|tap|pendant|sconce|chandelier|housing)(s|es)?)\b/gi;
+/** Nouns that name the protection itself when the defect is its absence ("no GFCI protection"). */
+const PROTECTION_NOUN = /^(?:gfci|afci)$/i;
+/** Codes counted only when the text gives a number (a panel condition, exposed wiring). */
+const EXPLICIT_ONLY = new Set(['panel-deficiency', 'exposed-wiring']);
+
+/**
+ * The count of a finding: the number the text gives; null for a vague or plural count without a
+ * number ("several", "the receptacles"); 1 for a singular device ("a loose receptacle", "the cover
+ * plate by the back door"); null for codes that are conditions, not devices.
+ */
+export function findingQuantity(code: string, countText: string, articleLimit: number, laterText: string | null): number | null {
+  if (UNCOUNTED.has(code)) return null;
+  const count = readCount(countText, articleLimit);
+  if (typeof count === 'number') return count;
+  if (count === 'vague') return null;
+  if (laterText !== null) {
+    const later = readCount(laterText, 0);
+    if (typeof later === 'number') return later;
+  }
+  const nouns = scanAll(DEVICE_NOUN, countText).filter((m) => !(code === 'gfci-missing' && PROTECTION_NOUN.test(m[1])));
+  if (nouns.length > 0) {
+    const first = nouns[0];
+    if (first[2]) return null;
+    return EXPLICIT_ONLY.has(code) && !/^cord$/i.test(first[1]) ? null : 1;
+  }
+  return ONE_DEVICE.has(code) ? 1 : null;
 }

@@ -11,7 +11,7 @@ describe('parseReport', () => {
 
   it('reads the electrical findings with codes, rooms and counts', () => {
     expect(result.findings.map((f) => [f.code, f.room, f.quantity])).toEqual([
-      ['reversed-polarity', 'living-area', null],
+      ['reversed-polarity', 'living-area', 1],
       ['gfci-missing', 'garage', 3],
     ]);
   });

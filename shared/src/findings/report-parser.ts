@@ -1,8 +1,11 @@
 import { readBlock } from './block-findings';
 import { splitBlocks } from './block-splitter';
-import { findingCodeInfo } from './finding-code';
+import { CODE_RULES } from './code-patterns';
+import { findingCodeInfo, type FindingCode } from './finding-code';
+import { findRooms } from './room-lexicon';
+import type { Room } from './room';
 import type { Finding, ParseResult, SkippedText } from './finding.schema';
-import { sourceRange } from './mapped-text';
+import { sourceRange, type MappedText } from './mapped-text';
 
 /** The character that joins pages into one text; offsets in a ParseResult refer to that text. */
 export const PAGE_SEPARATOR = '\f';
@@ -38,6 +41,7 @@ export function parseReport(pages: readonly string[]): ParseResult {
   const joined = joinPages(pages);
   const pageOf = pageLocator(joined);
   const findings: Finding[] = [];
+  const inSummary: boolean[] = [];
   const skipped: SkippedText[] = [];
 
   for (const block of splitBlocks(joined)) {
@@ -58,12 +62,19 @@ export function parseReport(pages: readonly string[]): ParseResult {
     }
     const result = readBlock(block.text, block.section);
     if (result.findings.length === 0) {
-      skip(result.hasNegated ? 'negated' : 'no-electrical-finding');
+      const suggestion = result.hasNegated ? null : suggestItem(block.text.text, block.section.room);
+      if (suggestion) {
+        skip('not-itemised');
+        skipped[skipped.length - 1] = { ...skipped[skipped.length - 1], suggestion };
+      } else {
+        skip(result.hasNegated ? 'negated' : 'no-electrical-finding');
+      }
       continue;
     }
     for (const f of result.findings) {
       const range = sourceRange(f.sentence);
       const info = findingCodeInfo(f.code);
+      inSummary.push(block.section.title !== null && SUMMARY_HEADING.test(block.section.title));
       findings.push({
         code: f.code,
         room: f.room,
@@ -75,10 +86,87 @@ export function parseReport(pages: readonly string[]): ParseResult {
         end: range.end,
         severity: info.severity,
         necRefs: [...info.necRefs],
+        confidence: f.confidence,
+        recommendation: f.recommendations.length > 0 ? f.recommendations.map((r) => sourceText(joined, r)).join(' ') : null,
+        computation: f.computation,
       });
     }
   }
-  return { findings, skipped };
+  return { findings: mergeWiringMentions(mergeSummary(findings, inSummary)), skipped };
+}
+
+/** Wiring methods: a house has its aluminum or knob-and-tube wiring once, however often it is mentioned. */
+const WIRING_METHODS: ReadonlySet<string> = new Set(['knob-and-tube', 'aluminum-branch-wiring']);
+
+/**
+ * A wiring method mentioned again later in the report is the same condition when the mention names
+ * no place of its own, names a place already given, or sits in a sentence about another defect
+ * ("AFCI protection is recommended, especially with aluminum wiring").
+ */
+function mergeWiringMentions(findings: Finding[]): Finding[] {
+  return findings.filter((f, i) => {
+    if (!WIRING_METHODS.has(f.code)) return true;
+    const earlier = findings.slice(0, i).filter((g) => g.code === f.code);
+    if (earlier.length === 0) return true;
+    const aboutOther = findings.some((g) => g !== f && g.start === f.start && g.code !== f.code);
+    return !(f.confidence === 'inferred' || aboutOther || earlier.some((g) => g.room === f.room));
+  });
+}
+
+/** A summary at the top of a report ("SUMMARY OF ELECTRICAL CONCERNS", "Overview"). */
+const SUMMARY_HEADING = /summary|overview|at a glance|key (?:findings|items|concerns)|highlights|action items/i;
+
+/**
+ * One finding per defect: a summary item whose defect the body describes again (same code, and the
+ * same room or a summary room that rests on no place of its own) gives way to the body's finding.
+ */
+function mergeSummary(findings: Finding[], inSummary: readonly boolean[]): Finding[] {
+  if (!inSummary.some(Boolean)) return findings;
+  const body = findings.filter((_, i) => !inSummary[i]);
+  return findings.filter((f, i) => {
+    if (!inSummary[i]) return true;
+    return !body.some((b) => b.code === f.code && (b.room === f.room || f.confidence === 'inferred' || f.room === 'unknown' || f.room === 'whole-house'));
+  });
+}
+
+/**
+ * Electrical things a passage can name, with the code an item about each would most likely get:
+ * the first one named decides the suggestion for a passage that gave no finding.
+ */
+const SUGGESTIONS: ReadonlyArray<readonly [RegExp, FindingCode]> = [
+  [/\b(?:gfc?is?|gfi|ground[- ]fault)\b/i, 'gfci-missing'],
+  [/\b(?:afcis?|arc[- ]fault)\b/i, 'afci-missing'],
+  [/\b(?:smoke|carbon monoxide|co)\s+(?:alarms?|detectors?)\b/i, 'smoke-co-alarm'],
+  [/\b(?:ceiling\s+)?fans?\b/i, 'fan-support'],
+  [/\b(?:junction box(?:es)?|j-?box(?:es)?|splices?|wire nuts?)\b/i, 'open-junction-box'],
+  [/\b(?:receptacles?|outlets?|recep\w*|rcpts?)\b/i, 'receptacle-damaged'],
+  [/\b(?:switch(?:es)?)\b/i, 'switch-issue'],
+  [/\b(?:light(?:s|ing)?|fixtures?|luminaires?)\b/i, 'light-fixture'],
+  [/\b(?:breakers?|fuses?|ocpd)\b/i, 'overcurrent-mismatch'],
+  [/\b(?:sub-?panel|panel(?:board)?|load cent(?:er|re)|dead[- ]?front)\b/i, 'panel-deficiency'],
+  [/\b(?:service (?:drop|mast|entrance|conductors?)|meter|weather ?head|drip loop)\b/i, 'service-equipment'],
+  [/\b(?:grounding electrode|ground rod|bond(?:ing)?)\b/i, 'grounding-electrode'],
+  [/\b(?:wir(?:e|es|ing)|cables?|conductors?|extension cords?)\b/i, 'exposed-wiring'],
+  [/\b(?:electrical|electrician)\b/i, 'evaluate-general'],
+];
+
+/** What an item made from a passage that gave no finding would most likely be, or null if it names nothing electrical. */
+export function suggestItem(text: string, sectionRoom: Room | null): { code: FindingCode; room: Room } | null {
+  let best: { code: FindingCode; index: number } | null = null;
+  for (const [re, code] of SUGGESTIONS) {
+    const m = re.exec(text);
+    if (m && (best === null || m.index < best.index)) best = { code, index: m.index };
+  }
+  if (!best) return null;
+  const info = CODE_RULES.find((r) => r.code === best.code);
+  const named = findRooms(text).find((r) => !r.isReferencePoint && r.room !== 'panel');
+  return { code: best.code, room: info?.fixedRoom ?? named?.room ?? sectionRoom ?? info?.defaultRoom ?? 'unknown' };
+}
+
+/** The original text of a mapped stretch, exactly as the report wrote it. */
+function sourceText(joined: string, m: MappedText): string {
+  const { start, end } = sourceRange(m);
+  return joined.slice(start, end);
 }
 
 /** Convenience for plain text: pages are separated by form feeds. */

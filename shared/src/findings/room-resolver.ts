@@ -15,6 +15,8 @@ export interface Placement {
   readonly laterText: string;
   /** Position in countText after which "a"/"an" no longer count as one (see readQuantity). */
   readonly articleLimit: number;
+  /** Whether the room comes from context (an earlier sentence, the heading, the code's default). */
+  readonly isInferred?: boolean;
 }
 
 export interface CarriedPlace {
@@ -26,6 +28,12 @@ export interface CarriedPlace {
 export interface PlaceContext {
   /** A place named earlier in the block that this sentence refers back to ("It is not..."). */
   readonly carried: CarriedPlace | null;
+  /**
+   * The place named by the block's opening sentence: it carries to findings that name none, unless
+   * that sentence was itself a finding and this code has a room of its own by default (a house-wide
+   * alarm is not in the bedroom of the sentence before).
+   */
+  readonly opening?: (CarriedPlace & { readonly hadFindings: boolean }) | null;
   readonly sectionRoom: Room | null;
   readonly sectionTitle: string | null;
 }
@@ -99,7 +107,8 @@ export function placeMatches(
     const own = { countText, laterText, articleLimit };
     const fixed = match.rule.fixedRoom;
     if (fixed) return [{ room: fixed, location: fixedLocation(text, rooms, part, fixed), ...own }];
-    const group = listedGroup(text, mentionsIn(rooms, part));
+    // A panel named beside another code's defect is a reference point ("cable run up to the panel").
+    const group = listedGroup(text, mentionsIn(rooms, part).filter((m) => m.room !== 'panel'));
     if (group.length > 1) {
       return group.map((m, j) => ({
         room: m.room,
@@ -115,9 +124,15 @@ export function placeMatches(
       nearest(rooms, part.start, part.end, clause) ??
       nearest(rooms, part.start, text.length, { start: 0, end: part.start });
     if (chosen) return [{ room: chosen.room, location: readLocation(text, chosen), ...own }];
-    if (context.carried) return [{ ...context.carried, ...own }];
-    if (context.sectionRoom) return [{ room: context.sectionRoom, location: context.sectionTitle ?? '', ...own }];
-    return [{ room: match.rule.defaultRoom ?? 'unknown', location: '', ...own }];
+    if (context.carried) return [{ ...context.carried, ...own, isInferred: true }];
+    const opening = context.opening;
+    if (opening && !(opening.hadFindings && match.rule.defaultRoom)) {
+      return [{ room: opening.room, location: opening.location, ...own, isInferred: true }];
+    }
+    // Under a panel heading, a code with a room of its own by default keeps it (aluminum wiring is house-wide).
+    const sectionRoom = context.sectionRoom === 'panel' && match.rule.defaultRoom ? match.rule.defaultRoom : context.sectionRoom;
+    if (sectionRoom) return [{ room: sectionRoom, location: context.sectionTitle ?? '', ...own, isInferred: true }];
+    return [{ room: match.rule.defaultRoom ?? 'unknown', location: '', ...own, isInferred: true }];
   });
 }
 

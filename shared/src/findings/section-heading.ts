@@ -24,7 +24,7 @@ const NON_ELECTRICAL = new Set([
   'grading', 'drainage', 'grounds', 'landscaping', 'driveway', 'driveways', 'walkways', 'fireplace',
   'fireplaces', 'finishes', 'walls', 'ceilings', 'floors', 'flooring', 'cabinets', 'countertops',
   'septic', 'well', 'sewer', 'irrigation', 'sprinklers', 'pest', 'radon', 'mold', 'heat', 'pump',
-  'supply', 'drains', 'waste', 'vents', 'fuel', 'gas', 'site', 'lot', 'fences', 'pool', 'spa',
+  'supply', 'drains', 'waste', 'vents', 'fuel', 'gas', 'site', 'lot', 'fences', 'pool', 'spa', 'plumb',
 ]);
 const ROOM_WORDS = new Set([
   'kitchen', 'kitchens', 'bathroom', 'bathrooms', 'bath', 'baths', 'garage', 'garages', 'carport',
@@ -65,11 +65,26 @@ export function classifyHeadingLine(line: string): HeadingLine | null {
   if (words.length === 0 || words.length > 8) return null;
   const isKnown = (w: string) =>
     ELECTRICAL.has(w) || NON_ELECTRICAL.has(w) || ROOM_WORDS.has(w) || GENERAL.has(w) || FILLER.has(w) || /^\d+$/.test(w);
-  if (!words.every(isKnown)) return null;
+  if (!words.every(isKnown)) return roomLabel(trimmed, title, words);
   const kind = headingKind(words);
   if (kind === null) return { type: 'label' };
   const room = kind === 'non-electrical' || kind === 'general' ? null : (findRooms(title)[0]?.room ?? null);
   return { type: 'heading', heading: { kind, title, room } };
+}
+
+/**
+ * A short label that names a place, with words the heading lists do not know ("Prim BR:",
+ * "Knee-Wall Storage (Attic)", "Laundry closet:", "Bedroom 2"): a room heading when it ends in a
+ * colon or every word is capitalised, and it reads as a label (no verb, no defect).
+ */
+const LABEL_VERB = /\b(?:is|are|was|were|has|have|had|not|no|missing|loose|damaged|broken|open|inoperative|ok|tested|needs?)\b/i;
+function roomLabel(line: string, title: string, words: readonly string[]): HeadingLine | null {
+  if (words.length > 5 || LABEL_VERB.test(title)) return null;
+  const isCapitalised = title.split(/\s+/).every((w) => /^[\p{Lu}\d(]/u.test(w) || w.length <= 2);
+  if (!/:\s*$/.test(line) && !isCapitalised) return null;
+  const room = findRooms(title).find((r) => r.room !== 'panel')?.room ?? null;
+  if (room === null) return null;
+  return { type: 'heading', heading: { kind: 'room', title, room } };
 }
 
 function headingKind(words: readonly string[]): Heading['kind'] | null {

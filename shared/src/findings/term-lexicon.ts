@@ -20,6 +20,14 @@ export function gap(n: number): string {
   return String.raw`(?:(?!${DEVICE_NOUNS})[\w'/#().-]+\s+){0,${n}}?`;
 }
 
+/**
+ * Up to `n` words between an adjective and its noun: not device nouns and not prepositions or
+ * conjunctions ("cracked at the receptacle" speaks of something else being cracked).
+ */
+export function adjGap(n: number): string {
+  return String.raw`(?:(?!${DEVICE_NOUNS}|(?:at|on|in|near|by|behind|beside|under|of|to|for|from|with|and|or)\b)[\w'/#().-]+\s+){0,${n}}?`;
+}
+
 /** Up to `n` words of any kind (device nouns allowed), for phrases whose two ends are specific. */
 export function anyGap(n: number): string {
   return String.raw`(?:[\w'/#().-]+\s+){0,${n}}?`;
@@ -37,7 +45,7 @@ export const T = {
   PANEL: String.raw`(?:sub-?\s?panel|panel\s*board|panel|load cent(?:er|re)|breaker box|fuse box)`,
   JBOX: String.raw`(?:(?:junction|splice|electrical|outlet|switch|ceiling|wiring)\s+box(?:es)?\b|j-?\s?box(?:es)?\b|jbox(?:es)?\b)`,
   PLATE: String.raw`(?:(?:cover|face|wall|trim|switch|outlet|receptacle)[- ]?plates?\b|plates?\b|covers?\b)`,
-  WIRING: String.raw`(?:wir(?:e|es|ing)\b|cables?\b|conductors?\b|nm(?:-b)?\b|romex\b)`,
+  WIRING: String.raw`(?:wir(?:e|es|ing)\b(?!\s+nuts?\b)|cables?\b|conductors?\b|nm(?:-b)?\b|romex\b)`,
   SWITCH: String.raw`(?:(?:light|wall|dimmer|3-way|three[- ]way|toggle)\s+)?switch(?:es)?\b`,
   LIGHT: String.raw`(?:(?:recessed|can|ceiling|closet|exterior|flood|porch|vanity|wall)\s+)?(?:light(?:ing)?(?:\s+fixtures?)?\b|lights\b|fixtures?\b|luminaires?\b|chandeliers?\b|pendants?\b|sconces?\b|can lights?\b|flood ?lights?\b)`,
   SMOKE: String.raw`(?:(?:smoke(?:\s*(?:\/|and|&)\s*(?:co|carbon monoxide))?|co|carbon monoxide)\s*(?:alarms?|detectors?)\b|smokes\b)`,

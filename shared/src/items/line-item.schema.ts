@@ -1,5 +1,5 @@
 import * as z from 'zod';
-import { FindingCodeSchema, RoomSchema, SeveritySchema } from '../findings/finding.schema';
+import { ConfidenceSchema, FindingCodeSchema, RoomSchema, SeveritySchema } from '../findings/finding.schema';
 import { BUILT_UNDER } from '../code-editions/protection-history';
 import { ItemStatusSchema } from './item-status';
 
@@ -39,6 +39,12 @@ export const LineItemSchema = z.object({
   /** Optimistic-concurrency version: send it back with every change. */
   version: z.number().int(),
   editionNote: ItemEditionNoteSchema.nullable(),
+  /** How the report reader found a proposed item (null for items a person added). */
+  confidence: ConfidenceSchema.nullable(),
+  /** The report's follow-up or recommendation text for this defect, or null. */
+  recommendation: z.string().nullable(),
+  /** For a computed finding, the computation shown on the item, or null. */
+  computation: z.string().nullable(),
 });
 export type LineItem = z.infer<typeof LineItemSchema>;
 

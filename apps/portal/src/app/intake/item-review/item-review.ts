@@ -15,8 +15,17 @@ import { ItemEditData, ItemEditDialog } from '../item-edit-dialog/item-edit-dial
 import { ItemTable } from '../item-table/item-table';
 import { conflictMessage, ReviewOutcome } from '../review-outcome';
 import { SplitData, SplitDialog } from '../split-dialog/split-dialog';
+import { UnitemisedText } from '../unitemised-text/unitemised-text';
 
 const DIALOG_SIZE = { width: '640px', maxWidth: '95vw' };
+
+const CONFIDENCE_RANK: Record<string, number> = { inferred: 0, normalised: 1, exact: 2 };
+
+/** Stable order: inferred items first, then items read from shorthand, then the rest as listed. */
+export function orderByConfidence(items: readonly LineItem[]): LineItem[] {
+  const rank = (i: LineItem) => (i.confidence ? CONFIDENCE_RANK[i.confidence] : 3);
+  return items.map((item, index) => ({ item, index })).sort((a, b) => rank(a.item) - rank(b.item) || a.index - b.index).map((x) => x.item);
+}
 
 /**
  * The agent's review of the proposed items beside the report text: change, remove, merge, split,
@@ -24,7 +33,7 @@ const DIALOG_SIZE = { width: '640px', maxWidth: '95vw' };
  */
 @Component({
   selector: 'cc-item-review',
-  imports: [MatButtonModule, MatIconModule, MatFormFieldModule, MatSelectModule, ItemTable, EvidenceView, SafetyNotice],
+  imports: [MatButtonModule, MatIconModule, MatFormFieldModule, MatSelectModule, ItemTable, EvidenceView, SafetyNotice, UnitemisedText],
   templateUrl: './item-review.html',
   styleUrl: './item-review.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -43,6 +52,9 @@ export class ItemReview {
   readonly confirmed = output<LineItem[]>();
 
   protected readonly proposed = computed(() => this.items().filter((i) => i.status === 'proposed'));
+  /** Items the reader is less sure of come first (inferred, then read from shorthand), otherwise report order. */
+  protected readonly ordered = computed(() => orderByConfidence(this.items()));
+  protected readonly lowConfidenceCount = computed(() => this.proposed().filter((i) => i.confidence === 'inferred').length);
   protected readonly activeItemId = signal<number | null>(null);
   /** Ticked items (for a merge); only ids still in the list count. */
   protected readonly selectedIds = linkedSignal<LineItem[], ReadonlySet<number>>({

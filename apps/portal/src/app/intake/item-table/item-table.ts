@@ -4,10 +4,23 @@ import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatIconModule } from '@angular/material/icon';
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import { FINDING_CODE_TABLE, LineItem } from '@cc/shared';
+import { Confidence, FINDING_CODE_TABLE, LineItem } from '@cc/shared';
 import { EditionNote } from '../../ui/edition-note/edition-note';
 import { ROOM_LABELS } from '../room-labels';
 import { SEVERITY_LABELS } from '../severity-labels';
+
+const CONFIDENCE_MARKS: Partial<Record<Confidence, { label: string; explanation: string; isLow: boolean }>> = {
+  inferred: {
+    label: 'Check: inferred',
+    explanation: 'The room or the defect was inferred from context (a heading, an earlier sentence, a computation). Check it against the report.',
+    isLow: true,
+  },
+  normalised: {
+    label: 'Read from shorthand',
+    explanation: 'Found after reading an abbreviation, a misspelling or a number word. Check the wording.',
+    isLow: false,
+  },
+};
 
 /** The proposed items under review, one row each, with their actions. */
 @Component({
@@ -38,6 +51,11 @@ export class ItemTable {
 
   protected roomLabel(item: LineItem): string {
     return ROOM_LABELS[item.room];
+  }
+
+  /** A mark for items the reader is less sure of; nothing for an exact phrase or an item a person added. */
+  protected confidenceMark(item: LineItem): { label: string; explanation: string; isLow: boolean } | null {
+    return item.confidence ? (CONFIDENCE_MARKS[item.confidence] ?? null) : null;
   }
 
   protected severityLabel(item: LineItem): string {

@@ -5,4 +5,5 @@ export const SKIP_REASON_LABELS: Record<SkipReason, string> = {
   'non-electrical-section': 'Not electrical',
   'no-electrical-finding': 'No electrical defect found',
   negated: 'Says the defect is absent',
+  'not-itemised': 'Read but not itemised',
 };

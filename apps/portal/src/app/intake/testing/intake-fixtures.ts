@@ -45,6 +45,9 @@ export function item(id: number, evidence: string, overrides: Partial<LineItem> 
     isEdited: false,
     version: 1,
     editionNote: null,
+    confidence: 'exact',
+    recommendation: null,
+    computation: null,
     ...overrides,
   };
 }

@@ -1,0 +1,110 @@
+import type { Range } from './clause-splitter';
+import { scanAll } from './regex-scan';
+
+/**
+ * Computed overcurrent findings: a breaker or fuse larger than its conductor allows, or larger
+ * than an appliance nameplate's maximum overcurrent rating. The rating, the conductor's size and
+ * its material are read from the (normalised) sentence and checked against NFPA 70 (NEC) 240.4(D),
+ * the small-conductor rule; the check is shown on the item ("40 A breaker on 10 AWG copper; NEC
+ * 240.4(D) allows 30 A").
+ */
+
+/** NEC 240.4(D): largest overcurrent device for small conductors (amperes), by material and AWG size. */
+export const SMALL_CONDUCTOR_LIMITS: Readonly<Record<'copper' | 'aluminum', Readonly<Record<number, number>>>> = {
+  copper: { 14: 15, 12: 20, 10: 30 },
+  aluminum: { 12: 15, 10: 25 },
+};
+
+export interface OvercurrentCheck extends Range {
+  /** How the finding was computed, in the words shown on the item. */
+  readonly computation: string;
+}
+
+/** "30 A", "30A", "30-amp", "30 amps", "30 ampere" (a rating of 10 to 200 A). */
+const RATING = /(?<![\w.])(\d{2,3})\s?-?(?:a|amps?|amperes?)\b(?!\s*(?:x|\/)\s*\d)/gi;
+/** "12 AWG" (shorthand such as "#12", "12 ga", "12-gauge" is normalised to this before). */
+const SIZE = /(?<![\w.])(\d{1,2})[\s-]?awg\b/gi;
+const MATERIAL = /\b(?:(aluminum|aluminium)|(copper))\b/gi;
+const DEVICE = /\b(?:breakers?|fuses?|fused|ocpds?|overcurrent|double-pole|2-pole|single-pole|two-pole|circuit)\b/i;
+/** The nameplate's limit: "nameplate max overcurrent device 30A", "MOCP 25 A", "max breaker 20A". */
+const NAMEPLATE = /\b(?:(?:nameplate|name plate|label|data plate|rating plate)\b[^.;]{0,30}?\bmax(?:imum|\.)?|max(?:imum|\.)?\s+(?:overcurrent|ocpd|breaker|fuse|circuit breaker)|mocp|max\.?\s+ocp)[^.;\d]{0,40}?(\d{2,3})\s?-?(?:a|amps?|amperes?)\b/gi;
+/** Text between a rating and a size that keeps them about the same circuit. */
+const MAX_PAIR_GAP = 140;
+
+interface Mention extends Range {
+  readonly value: number;
+}
+
+function mentions(re: RegExp, text: string): Mention[] {
+  return scanAll(re, text).map((m) => ({ start: m.index, end: m.index + m[0].length, value: Number(m[1]) }));
+}
+
+/** The material said nearest to a conductor size (after it first: "12 AWG copper"), copper when none. */
+function materialOf(text: string, size: Mention, segment: Range): 'copper' | 'aluminum' {
+  let best: { d: number; metal: 'copper' | 'aluminum' } | null = null;
+  for (const m of scanAll(MATERIAL, text)) {
+    if (m.index < segment.start || m.index >= segment.end) continue;
+    const d = m.index >= size.end ? m.index - size.end : (size.start - (m.index + m[0].length)) * 1.5;
+    if (d > 40) continue;
+    if (!best || d < best.d) best = { d, metal: m[1] ? 'aluminum' : 'copper' };
+  }
+  return best?.metal ?? 'copper';
+}
+
+/** Comma- and semicolon-free stretches: a rating pairs with a size of its own stretch first. */
+function stretchOf(text: string, pos: number): Range {
+  let start = pos;
+  while (start > 0 && !/[;,(]/.test(text[start - 1])) start--;
+  let end = pos;
+  while (end < text.length && !/[;,)]/.test(text[end])) end++;
+  return { start, end };
+}
+
+function nearestSize(sizes: readonly Mention[], rating: Mention, text: string): Mention | null {
+  const own = stretchOf(text, rating.start);
+  const inStretch = sizes.filter((s) => s.start >= own.start && s.end <= own.end);
+  const pool = inStretch.length > 0 ? inStretch : sizes;
+  let best: Mention | null = null;
+  let bestGap = Infinity;
+  for (const s of pool) {
+    const gap = s.start >= rating.end ? s.start - rating.end : rating.start - s.end;
+    if (gap < bestGap && gap <= MAX_PAIR_GAP) {
+      best = s;
+      bestGap = gap;
+    }
+  }
+  return best;
+}
+
+/** The oversized overcurrent devices stated in one sentence, each with its computation. */
+export function checkOvercurrent(text: string): OvercurrentCheck[] {
+  if (!DEVICE.test(text) && !/\bfus|\bbreak|\bnameplate|\bmax/i.test(text)) return [];
+  const nameplates = mentions(NAMEPLATE, text);
+  const ratings = mentions(RATING, text).filter((r) => !nameplates.some((n) => r.start >= n.start && r.end <= n.end));
+  if (ratings.length === 0) return [];
+  const sizes = mentions(SIZE, text);
+  const found: OvercurrentCheck[] = [];
+  for (const rating of ratings) {
+    const nameplate = nameplates.find((n) => Math.abs(n.start - rating.end) <= 120 || Math.abs(rating.start - n.end) <= 120);
+    if (nameplate && rating.value > nameplate.value) {
+      found.push({
+        start: Math.min(rating.start, nameplate.start),
+        end: Math.max(rating.end, nameplate.end),
+        computation: `${rating.value} A overcurrent device; the nameplate allows at most ${nameplate.value} A (NEC 110.3(B))`,
+      });
+      continue;
+    }
+    if (nameplate) continue;
+    const size = nearestSize(sizes, rating, text);
+    if (!size) continue;
+    const metal = materialOf(text, size, { start: 0, end: text.length });
+    const limit = SMALL_CONDUCTOR_LIMITS[metal][size.value];
+    if (limit === undefined || rating.value <= limit) continue;
+    found.push({
+      start: Math.min(rating.start, size.start),
+      end: Math.max(rating.end, size.end),
+      computation: `${rating.value} A ${/fuse/i.test(text) ? 'fuse' : 'breaker'} on ${size.value} AWG ${metal}; NEC 240.4(D) allows ${limit} A`,
+    });
+  }
+  return found;
+}

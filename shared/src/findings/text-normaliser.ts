@@ -1,0 +1,279 @@
+import { distance } from 'fastest-levenshtein';
+import type { Range } from './clause-splitter';
+import type { MappedText } from './mapped-text';
+import { scanAll } from './regex-scan';
+
+/**
+ * Normalisation before matching: inspectors' shorthand and abbreviations become the trade's full
+ * words ("SE cable" → "service-entrance cable", "#12" → "12 AWG", "GFI" stays a GFCI word the
+ * table knows), misspellings of trade words of 5+ letters are corrected by edit distance
+ * ("recepticle", "junciton", "breker" → "breaker" is 1 edit), and number words become digits
+ * ("forty amp" → "40 amp"). The result is a MappedText again: every character still knows where it
+ * came from, so evidence and offsets stay exact substrings of the original report. `changed` lists
+ * the stretches of the normalised text that differ from the source (a finding read through one of
+ * them has `normalised` confidence).
+ */
+export interface NormalisedText extends MappedText {
+  readonly changed: readonly Range[];
+}
+
+/** Whole-word shorthand → trade words (keys lower-case; matched case-insensitively). */
+const SHORTHAND: Readonly<Record<string, string>> = {
+  recpt: 'receptacle', recpts: 'receptacles', rcpt: 'receptacle', rcpts: 'receptacles', rcp: 'receptacle',
+  recept: 'receptacle', recepts: 'receptacles', recep: 'receptacle', receps: 'receptacles',
+  outl: 'outlet', otlt: 'outlet', otlts: 'outlets',
+  gfi: 'GFCI', gfis: 'GFCIs', gfic: 'GFCI', gcfi: 'GFCI',
+  afi: 'AFCI',
+  ocpd: 'breaker', ocpds: 'breakers', brkr: 'breaker', brkrs: 'breakers', bkr: 'breaker', bkrs: 'breakers', cb: 'breaker',
+  jbox: 'junction box', jboxes: 'junction boxes', 'j-box': 'junction box', 'j-boxes': 'junction boxes',
+  'k&t': 'knob-and-tube', kt: 'knob-and-tube', knt: 'knob-and-tube',
+  seu: 'service-entrance cable', sec: 'service-entrance cable', ser: 'service-entrance cable',
+  pnl: 'panel', pnls: 'panels', subpnl: 'subpanel', 'sub-pnl': 'subpanel',
+  svc: 'service', serv: 'service', elec: 'electrical', elect: 'electrical',
+  ckt: 'circuit', ckts: 'circuits', cct: 'circuit', ccts: 'circuits',
+  sw: 'switch', sws: 'switches', swtch: 'switch',
+  lt: 'light', lts: 'lights', fixt: 'fixture', fixts: 'fixtures', fxtr: 'fixture', fxtrs: 'fixtures', lite: 'light', lites: 'lights',
+  gnd: 'ground', grnd: 'ground', gnds: 'grounds', grnds: 'grounds', gnded: 'grounded', grnded: 'grounded',
+  ungnd: 'ungrounded', ungrnd: 'ungrounded', ungrnded: 'ungrounded', "ungr'd": 'ungrounded', ungrd: 'ungrounded',
+  neut: 'neutral', neuts: 'neutrals', cond: 'conductor', conds: 'conductors',
+  det: 'detector', dets: 'detectors', smk: 'smoke', sd: 'smoke detector', sds: 'smoke detectors',
+  inop: 'inoperative', 'inop.': 'inoperative', inopr: 'inoperative', nw: 'not working', 'n/w': 'not working',
+  dmg: 'damaged', dmgd: 'damaged', dmged: 'damaged', brkn: 'broken', msng: 'missing', "miss'g": 'missing',
+  'w/o': 'without', 'w/out': 'without', 'w/': 'with',
+  reqd: 'required', "req'd": 'required', rcmd: 'recommend', recomm: 'recommend', recom: 'recommend',
+  cvr: 'cover', cvrs: 'covers', cov: 'cover', plt: 'plate', plts: 'plates',
+  wp: 'weatherproof', wr: 'weather-resistant',
+  al: 'aluminum', alum: 'aluminum', aluminium: 'aluminum', cu: 'copper',
+  ga: 'AWG', 'ga.': 'AWG', gauge: 'AWG', gage: 'AWG', awg: 'AWG',
+  obs: 'observed', 'obs.': 'observed', unk: 'unknown', 'unk.': 'unknown', clg: 'ceiling', btn: 'button', mfr: 'manufacture',
+  bsmt: 'basement', bsmnt: 'basement', bdrm: 'bedroom', bdrms: 'bedrooms', bedrm: 'bedroom', kit: 'kitchen', ktchn: 'kitchen',
+  gar: 'garage', ba: 'bathroom', bth: 'bathroom', bthrm: 'bathroom', lndry: 'laundry', hwy: 'hallway', ext: 'exterior', extr: 'exterior',
+};
+
+/** Shorthand that is only expanded where the context says it is the trade word. */
+const CONTEXTUAL = new Set(['al', 'cu', 'sd', 'sds', 'sec', 'ser', 'sw', 'lt', 'lts', 'cb', 'kt', 'ba', 'gar', 'kit', 'ext', 'wp', 'wr', 'det', 'dets', 'cond', 'conds', 'ga', 'ga.', 'gauge', 'gage', 'awg']);
+
+const NUMBER_WORDS: Readonly<Record<string, number>> = {
+  two: 2, three: 3, four: 4, five: 5, six: 6, seven: 7, eight: 8, nine: 9, ten: 10, eleven: 11, twelve: 12,
+  thirteen: 13, fourteen: 14, fifteen: 15, sixteen: 16, seventeen: 17, eighteen: 18, nineteen: 19, twenty: 20,
+  thirty: 30, forty: 40, fifty: 50, sixty: 60, seventy: 70, eighty: 80, ninety: 90, hundred: 100,
+};
+
+/**
+ * Trade words that misspellings are corrected to (inflections listed so that a correct inflected
+ * word is never "corrected" to another form). Only words of 5+ letters are corrected; short words
+ * and any word within the distance of none of these are left as written.
+ */
+const VOCABULARY: readonly string[] = [
+  'receptacle', 'receptacles', 'outlet', 'outlets', 'breaker', 'breakers', 'junction', 'electrical', 'electric',
+  'electrician', 'electricians', 'conductor', 'conductors', 'aluminum', 'copper', 'ungrounded', 'grounded',
+  'grounding', 'polarity', 'reversed', 'reverse', 'fixture', 'fixtures', 'inoperative', 'inoperable',
+  'detector', 'detectors', 'detected', 'splice', 'splices', 'spliced', 'exposed', 'missing', 'damaged',
+  'protection', 'protected', 'unprotected', 'interrupter', 'circuit', 'circuits', 'switch', 'switches',
+  'bonding', 'bonded', 'electrode', 'service', 'entrance', 'neutral', 'neutrals', 'double', 'oversized',
+  'undersized', 'extension', 'wiring', 'knockout', 'knockouts', 'directory', 'corrosion', 'corroded',
+  'cracked', 'scorched', 'installed', 'install', 'evaluate', 'evaluation', 'evaluated', 'recommend',
+  'recommended', 'replace', 'replaced', 'licensed', 'qualified', 'contractor', 'bathroom', 'bathrooms',
+  'kitchen', 'garage', 'basement', 'bedroom', 'bedrooms', 'exterior', 'laundry', 'hallway', 'crawlspace',
+  'countertop', 'countertops', 'weatherproof', 'ceiling', 'wobbles', 'wobbling', 'secured', 'unsecured',
+  'terminal', 'terminals', 'nameplate', 'maximum', 'tripped', 'tripping', 'inspection', 'inspector',
+  'observed', 'functional', 'defective', 'connected', 'disconnected', 'corrected', 'properly', 'improperly',
+  'grounds', 'present', 'alarms', 'carbon', 'monoxide', 'luminaire', 'insulation', 'recessed', 'dead-front',
+  'deadfront', 'subpanel', 'panelboard', 'jumpered', 'bootleg', 'knob-and-tube', 'tandem', 'ampacity',
+  'conduit', 'energized', 'discolored', 'melted', 'loose', 'unknown', 'function', 'inoperable', 'cover',
+  'plates', 'covers', 'panel', 'panels', 'labeled', 'labelled', 'unlabeled', 'identified', 'clearance',
+  'weathered', 'deteriorated', 'drip', 'meter', 'overhead', 'supported', 'unsupported', 'protect',
+];
+const VOCAB_SET = new Set(VOCABULARY);
+/** Candidates by first letter, so a word is compared with a dozen words rather than all of them. */
+const BY_FIRST = (() => {
+  const map = new Map<string, string[]>();
+  for (const w of VOCABULARY) {
+    if (w.length < 5) continue;
+    map.set(w[0], [...(map.get(w[0]) ?? []), w]);
+  }
+  return map;
+})();
+
+/** Ordinary English words near a trade word that must not be "corrected". */
+const KEEP = new Set([
+  'placed', 'plated', 'slates', 'source', 'services', 'serviced', 'servicing', 'switched', 'ground', 'rounds',
+  'detects', 'defected', 'expose', 'exposes', 'damages', 'dammed', 'misting', 'kissing', 'mission', 'panes',
+  'panels', 'paneled', 'pannel', 'coverage', 'covered', 'covering', 'coves', 'lovers', 'circuitry', 'receipt',
+  'receipts', 'receptor', 'reception', 'outline', 'outlay', 'outlast', 'breaking', 'breaks',
+  'bleaker', 'breakfast', 'doubled', 'doubles', 'trouble', 'treated', 'tripod', 'tripled', 'installer',
+  'installs', 'evaluates', 'recommends', 'replaces', 'replica', 'present', 'presents', 'presence', 'prevent',
+  'resent', 'carton', 'carbons', 'meters', 'metered', 'matter', 'letter', 'neutrally', 'natural', 'function',
+  'functions', 'junctions', 'alarmed', 'alarm', 'claims', 'coppers', 'chopper', 'copies', 'hopper', 'proper',
+  'wiping', 'wiring', 'hiring', 'firing', 'tiring', 'bonding', 'binding', 'bending', 'banding', 'founding',
+  'sounding', 'rounding', 'pounding', 'grinding', 'grounding', 'grunting', 'garages', 'gargle', 'kitchens',
+  'corrosive', 'corrodes', 'correct', 'corrects', 'connect', 'connects', 'collected', 'conducted', 'protests',
+  'protects', 'inspected', 'inspections', 'inspectors', 'observe', 'observes', 'absorbed', 'observer',
+  'exterior', 'interior', 'inferior', 'bathrooms', 'bedrooms', 'supports', 'supporter', 'loosen', 'loosely',
+  'lessee', 'unknowns', 'secure', 'secures', 'securely', 'second', 'tandem', 'terminals', 'terminate',
+  'terminated', 'germinal', 'identify', 'identifies', 'cleared', 'clearances', 'weather', 'deterred',
+  'meltdown', 'melting', 'belted', 'molted', 'energize', 'conduct', 'conducts', 'conduits', 'panelled',
+  'labels', 'labeled', 'labored', 'unlabelled', 'directly', 'direction', 'directors', 'directed', 'extensive',
+  'extended', 'extending', 'oversize', 'undersize', 'entrances', 'entranced', 'services', 'swatch', 'swatches',
+  'snitch', 'stitch', 'stitches', 'twitch', 'switchgear', 'dribble', 'dripping', 'dripped', 'drips', 'overhang',
+  'overheat', 'overheated', 'overhaul', 'maximal', 'maxima', 'minimum', 'namely', 'tapped', 'taped', 'topped',
+  'loosed', 'plates', 'plated', 'planes', 'places', 'platen', 'slated', 'recess', 'recesses', 'recessed',
+]);
+
+const MEMO = new Map<string, string | null>();
+const MEMO_LIMIT = 20_000;
+
+/** The trade word a misspelt word stands for, or null (5+ letters; 1 edit up to 7 letters, 2 from 8). */
+export function correctSpelling(word: string): string | null {
+  const lower = word.toLowerCase();
+  if (lower.length < 5 || VOCAB_SET.has(lower) || KEEP.has(lower)) return null;
+  const cached = MEMO.get(lower);
+  if (cached !== undefined) return cached;
+  const limit = lower.length >= 8 ? 2 : 1;
+  let best: string | null = null;
+  let bestDistance = limit + 1;
+  for (const candidate of BY_FIRST.get(lower[0]) ?? []) {
+    if (Math.abs(candidate.length - lower.length) > limit) continue;
+    // Two swapped neighbours ("wobbels", "junciton") count as one edit, as a typist makes them.
+    const d = isTransposition(lower, candidate) ? 1 : distance(lower, candidate);
+    if (d < bestDistance && d <= (candidate.length >= 8 ? 2 : 1)) {
+      best = candidate;
+      bestDistance = d;
+    }
+  }
+  // A plural or a past form of a vocabulary word is not a misspelling of it.
+  if (best !== null && (lower === `${best}s` || lower === `${best}es` || lower === `${best}ed` || lower === `${best}d` || `${lower}s` === best)) best = null;
+  if (MEMO.size > MEMO_LIMIT) MEMO.clear();
+  MEMO.set(lower, best);
+  return best;
+}
+
+/** Whether `a` is `b` with two neighbouring letters swapped. */
+function isTransposition(a: string, b: string): boolean {
+  if (a.length !== b.length) return false;
+  let i = 0;
+  while (i < a.length && a[i] === b[i]) i++;
+  return i + 1 < a.length && a[i] === b[i + 1] && a[i + 1] === b[i] && a.slice(i + 2) === b.slice(i + 2);
+}
+
+/** A word, with the characters shorthand uses ("k&t", "w/o", "j-box", "ungr'd", "inop."). */
+const WORD = /#\s?\d{1,2}\b|[A-Za-z][A-Za-z'&/-]*[A-Za-z/]\.?|[A-Za-z]\.?|\d+(?:\.\d+)?/g;
+/** Words after which "Al"/"Cu" are metals, and gauge words that follow a size. */
+const WIRE_CONTEXT = /^(?:\d{1,2}|#\d{1,2}|awg|wire|wires|wiring|conductors?|branch|circuits?|cable|solid|stranded|and|or|\/)$/i;
+const SIZE = /^(?:#\s?)?(\d{1,2})$/;
+
+function capitalised(original: string, replacement: string): string {
+  // A capital on a short abbreviation ("Cu", "Kit") is the abbreviation's, not a sentence start's.
+  return original.length > 3 && /^[A-Z][a-z]/.test(original) && /^[a-z]/.test(replacement) ? replacement[0].toUpperCase() + replacement.slice(1) : replacement;
+}
+
+interface Token {
+  readonly text: string;
+  readonly start: number;
+  readonly end: number;
+}
+
+/** The replacement for token i, or null to keep it as written. */
+function replacementFor(tokens: readonly Token[], i: number, source: string): string | null {
+  const { text } = tokens[i];
+  const lower = text.toLowerCase();
+  const prev = tokens[i - 1]?.text.toLowerCase() ?? '';
+  const next = tokens[i + 1]?.text.toLowerCase() ?? '';
+  const gapBefore = i > 0 ? source.slice(tokens[i - 1].end, tokens[i].start) : ' ';
+  // "#12" → "12 AWG"; "12 ga", "12-gauge", "12g" → "12 AWG".
+  const hash = /^#\s?(\d{1,2})$/.exec(text);
+  if (hash) return `${hash[1]} AWG`;
+  const glued = /^(\d{1,2})(?:ga|g|awg)$/i.exec(text);
+  if (glued) return `${glued[1]} AWG`;
+  const bare = lower.replace(/\.$/, '');
+  if (NUMBER_WORDS[bare] !== undefined && (bare !== 'hundred' || /^\d/.test(prev))) {
+    return bare === 'hundred' ? null : String(NUMBER_WORDS[bare]);
+  }
+  if (Object.prototype.hasOwnProperty.call(SHORTHAND, lower) || Object.prototype.hasOwnProperty.call(SHORTHAND, bare)) {
+    const key = Object.prototype.hasOwnProperty.call(SHORTHAND, lower) ? lower : bare;
+    const word = SHORTHAND[key];
+    if (CONTEXTUAL.has(key) && !contextAllows(key, prev, next, gapBefore, text)) return null;
+    return word.toLowerCase() === lower ? null : capitalised(text, word);
+  }
+  if (/^[a-z]{5,}$/i.test(text)) {
+    const fixed = correctSpelling(text);
+    return fixed === null ? null : capitalised(text, fixed);
+  }
+  return null;
+}
+
+function contextAllows(key: string, prev: string, next: string, gapBefore: string, original: string): boolean {
+  switch (key) {
+    case 'al':
+    case 'cu':
+      // "#10 Al", "Al branch wiring", "12 AWG Cu" — not "Al" as a name.
+      return WIRE_CONTEXT.test(prev) || WIRE_CONTEXT.test(next) || SIZE.test(prev);
+    case 'ga':
+    case 'ga.':
+    case 'gauge':
+    case 'gage':
+    case 'awg':
+      return SIZE.test(prev) && /^[\s-]*$/.test(gapBefore);
+    case 'sd':
+    case 'sds':
+      return original === original.toUpperCase();
+    case 'det':
+    case 'dets':
+      return /^(?:smoke|co|sd)$/.test(prev);
+    case 'sec':
+    case 'ser':
+      return original === original.toUpperCase() && original.length === 3;
+    case 'sw':
+      // "sw by slider", "lt sw inop" — not "SW" (south-west).
+      return original !== 'SW' || /^(?:lt|light|wall|3-way|dimmer)$/.test(prev);
+    case 'lt':
+    case 'lts':
+      return /^(?:sw|fixt|fixture|inop|out|loose|missing|cover)/.test(next) || /^(?:closet|porch|ceiling|exterior|ext|can|vanity)$/.test(prev);
+    case 'cb':
+      return original === 'CB' || original === 'cb';
+    case 'kt':
+      return original === 'KT';
+    case 'ba':
+    case 'gar':
+    case 'kit':
+    case 'ext':
+      return original.length <= 4 && /^[A-Z]/.test(original);
+    case 'wp':
+    case 'wr':
+      return /^(?:cover|covers|lid|lids|rcpt|receptacle|recep|outlet|device|in-use|bubble)/.test(next) || /^(?:not|non|no)$/.test(prev);
+    case 'cond':
+    case 'conds':
+      return /^(?:\d|#|awg|al|cu|aluminum|copper|ground|neutral)/.test(prev);
+    default:
+      return true;
+  }
+}
+
+/** Normalises one sentence (or any mapped text); unchanged text comes back with `changed` empty. */
+export function normaliseText(m: MappedText): NormalisedText {
+  const source = m.text;
+  const tokens: Token[] = scanAll(WORD, source).map((t) => ({ text: t[0], start: t.index, end: t.index + t[0].length }));
+  let text = '';
+  const offsets: number[] = [];
+  const changed: Range[] = [];
+  let copied = 0;
+  for (let i = 0; i < tokens.length; i++) {
+    const replacement = replacementFor(tokens, i, source);
+    if (replacement === null) continue;
+    const { start, end } = tokens[i];
+    // A trailing full stop of an abbreviation ("inop.", "recep.") stays in the text as written.
+    const wordEnd = source[end - 1] === '.' && !replacement.endsWith('.') ? end - 1 : end;
+    text += source.slice(copied, start);
+    for (let k = copied; k < start; k++) offsets.push(m.offsets[k]);
+    changed.push({ start: text.length, end: text.length + replacement.length });
+    text += replacement;
+    // The first character stands for the word's start and the last for its end, so a sentence
+    // that starts or ends with a normalised word still maps to the whole word as written.
+    for (let k = 0; k < replacement.length; k++) offsets.push(k > 0 && k === replacement.length - 1 ? m.offsets[wordEnd - 1] : m.offsets[start]);
+    copied = wordEnd;
+  }
+  if (changed.length === 0) return { text: m.text, offsets: m.offsets, changed };
+  text += source.slice(copied);
+  for (let k = copied; k < source.length; k++) offsets.push(m.offsets[k]);
+  return { text, offsets, changed };
+}
