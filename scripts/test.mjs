@@ -29,7 +29,9 @@ const record = (name, passed, failed) => {
 
 async function jest(name, projects, env, extra = []) {
   const out = join(tmpdir(), `cc-jest-${name}-${process.pid}.json`);
-  const code = await runAsync(bin('jest'), ['--selectProjects', ...projects, '--json', `--outputFile=${out}`, ...extra], { cwd: root, env });
+  // 20 s per test and hook instead of jest's 5 s: the first test of a component file compiles it, and
+  // uploads and bcrypt sign-ins take seconds on a busy 2-core machine (files may set their own).
+  const code = await runAsync(bin('jest'), ['--selectProjects', ...projects, '--testTimeout=20000', '--json', `--outputFile=${out}`, ...extra], { cwd: root, env });
   let report;
   try {
     report = JSON.parse(readFileSync(out, 'utf8'));

@@ -18,6 +18,8 @@ import type { LineItemRepository, StoredLineItem } from './line-item.repository'
 import type { ReportFileRepository } from './report-file.repository';
 import { ConflictError, NotFoundError, ValidationError } from '../errors';
 import { assertMayAct, moverOn, type FlowService, type Mover } from '../flow/flow.service';
+import type { ActivityRepository } from '../activity/activity.repository';
+import { recordItemChange } from '../activity/item-activity';
 import type { RequestsService } from '../requests/requests.service';
 
 const STALE = 'This item was changed by someone else meanwhile. Reload to see the current version.';
@@ -32,6 +34,7 @@ export class LineItemsService {
     private readonly items: LineItemRepository,
     private readonly reports: ReportFileRepository,
     private readonly flow: FlowService,
+    private readonly activity: ActivityRepository,
   ) {}
 
   /** The item with its note on the code in force when the house was built and the adopted edition. */
@@ -70,8 +73,9 @@ export class LineItemsService {
     const { request } = await this.assertReviewer(user, requestId);
     const { version, ...changes } = input;
     await this.db.transaction(async (trx) => {
-      await this.reviewable(requestId, id, trx);
+      const before = await this.reviewable(requestId, id, trx);
       if (!(await this.items.update(id, version, { ...changes, isEdited: true }, trx))) throw new ConflictError(STALE);
+      await recordItemChange(this.activity, trx, user.id, 'item-edited', before, { ...before, ...changes });
     });
     return this.reload(requestId, id, request);
   }
@@ -95,6 +99,7 @@ export class LineItemsService {
       const location = [keep.location, drop.location].filter((l, i, all) => l && all.indexOf(l) === i).join('; ');
       const necRefs = [...new Set([...keep.necRefs, ...drop.necRefs])];
       if (!(await this.items.update(keep.id, keepRef.version, { quantity, location, necRefs, isEdited: true }, trx))) throw new ConflictError(STALE);
+      await recordItemChange(this.activity, trx, user.id, 'items-merged', keep, { ...keep, quantity, location }, `Merged item #${drop.id} into this one`);
       await this.flow.moveItem(trx, { ...drop, version: dropRef.version }, 'remove', mover, ITEM_REFUSED, { isEdited: true });
     });
     return this.reload(requestId, keepRef.id, request);
@@ -115,6 +120,7 @@ export class LineItemsService {
       if (!(await this.items.update(id, input.version, { quantity: first, isEdited: true }, trx))) throw new ConflictError(STALE);
       const { id: _id, version: _v, ...copy } = item;
       const added = await this.items.insert(rest.map((quantity) => ({ ...copy, quantity, isEdited: true })), trx);
+      await recordItemChange(this.activity, trx, user.id, 'item-split', item, { ...item, quantity: first }, `Split into ${input.quantities.length} items (${input.quantities.join(' + ')})`);
       return [id, ...added];
     });
     return Promise.all(ids.map((i) => this.reload(requestId, i, request)));

@@ -280,8 +280,8 @@ export class RequestRepository {
   async addParty(
     party: { requestId: number; role: PartyRole; email: string; userId: number | null; inviteToken: string | null; inviteExpiresAt: Date | null; invitedBy: number | null },
     trx: Trx,
-  ): Promise<void> {
-    await trx<RequestPartyRow>('request_parties')
+  ): Promise<boolean> {
+    const rows = await trx<RequestPartyRow>('request_parties')
       .insert({
         request_id: party.requestId,
         role: party.role,
@@ -293,7 +293,9 @@ export class RequestRepository {
         joined_at: party.userId ? new Date() : null,
       })
       .onConflict(['request_id', 'role', 'email'])
-      .ignore();
+      .ignore()
+      .returning('id');
+    return rows.length > 0;
   }
 
   async findInvitation(token: string, trx?: Trx): Promise<(RequestPartyRow & { inviter_name: string | null }) | null> {
