@@ -12,6 +12,9 @@ const node = {
 };
 
 module.exports = {
+  // Jest reads the test timeout from the global configuration: the per-project values below are not
+  // applied, so the busy-machine allowance is set here for every project.
+  testTimeout: 20_000,
   projects: [
     {
       ...node,
