@@ -8,7 +8,7 @@ import {
   type CurrentUser,
   type LineItem,
   type MergeLineItems,
-  type NecEdition,
+  type HouseCode,
   type SplitLineItem,
   type UpdateLineItem,
 } from '@cc/shared';
@@ -37,13 +37,14 @@ export class LineItemsService {
     private readonly activity: ActivityRepository,
   ) {}
 
-  withNote(item: StoredLineItem, edition: NecEdition): LineItem {
-    return { ...item, editionNote: editionNote(item.code, item.room, edition) };
+  /** The item with its note on the code in force when the house was built and the adopted edition. */
+  withNote(item: StoredLineItem, house: HouseCode): LineItem {
+    return { ...item, editionNote: editionNote(item.code, item.room, house) };
   }
 
   async list(user: CurrentUser, requestId: number): Promise<LineItem[]> {
     const request = await this.access.get(user, requestId);
-    return (await this.items.listForRequest(requestId)).map((i) => this.withNote(i, request.necEdition));
+    return (await this.items.listForRequest(requestId)).map((i) => this.withNote(i, request));
   }
 
   /** 404 unless visible, 403 unless one of its agents (or admin), 409 once intake is over. */
@@ -62,10 +63,10 @@ export class LineItemsService {
     return item;
   }
 
-  private async reload(requestId: number, id: number, edition: NecEdition): Promise<LineItem> {
+  private async reload(requestId: number, id: number, house: HouseCode): Promise<LineItem> {
     const item = await this.items.findInRequest(requestId, id);
     if (!item) throw new NotFoundError('No such item');
-    return this.withNote(item, edition);
+    return this.withNote(item, house);
   }
 
   async update(user: CurrentUser, requestId: number, id: number, input: UpdateLineItem): Promise<LineItem> {
@@ -76,7 +77,7 @@ export class LineItemsService {
       if (!(await this.items.update(id, version, { ...changes, isEdited: true }, trx))) throw new ConflictError(STALE);
       await recordItemChange(this.activity, trx, user.id, 'item-edited', before, { ...before, ...changes });
     });
-    return this.reload(requestId, id, request.necEdition);
+    return this.reload(requestId, id, request);
   }
 
   async remove(user: CurrentUser, requestId: number, id: number, version: number): Promise<void> {
@@ -101,7 +102,7 @@ export class LineItemsService {
       await recordItemChange(this.activity, trx, user.id, 'items-merged', keep, { ...keep, quantity, location }, `Merged item #${drop.id} into this one`);
       await this.flow.moveItem(trx, { ...drop, version: dropRef.version }, 'remove', mover, ITEM_REFUSED, { isEdited: true });
     });
-    return this.reload(requestId, keepRef.id, request.necEdition);
+    return this.reload(requestId, keepRef.id, request);
   }
 
   /** One item becomes several with the given quantities (which must add up to a known quantity). */
@@ -122,7 +123,7 @@ export class LineItemsService {
       await recordItemChange(this.activity, trx, user.id, 'item-split', item, { ...item, quantity: first }, `Split into ${input.quantities.length} items (${input.quantities.join(' + ')})`);
       return [id, ...added];
     });
-    return Promise.all(ids.map((i) => this.reload(requestId, i, request.necEdition)));
+    return Promise.all(ids.map((i) => this.reload(requestId, i, request)));
   }
 
   /** A person adds an item the reader missed, optionally from text selected in a report. */
@@ -168,7 +169,7 @@ export class LineItemsService {
         REVIEW_REFUSED,
       ),
     );
-    return this.reload(requestId, id, request.necEdition);
+    return this.reload(requestId, id, request);
   }
 
   /**

@@ -29,6 +29,8 @@ export interface RequestListFilter {
   text: string;
   /** An id typed as a reference (CC-00042) into the search box. */
   id: number | null;
+  /** Only houses built before this year (null or left out: any year). */
+  builtBefore?: number | null;
 }
 
 export interface NewRepairRequest {
@@ -144,6 +146,7 @@ export class RequestRepository {
     const db = this.db;
     const visible = this.scope(db('repair_requests as r'), viewer);
     if (filter.statuses.length) visible.whereIn('r.status', filter.statuses);
+    if (filter.builtBefore) visible.where('r.year_built', '<', filter.builtBefore);
     if (filter.text) {
       const like = `%${filter.text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
       visible.where((w) => {

@@ -65,6 +65,7 @@ export class RequestsService {
       statuses: query.status,
       text: query.q,
       id: query.q ? parseRequestReference(query.q) : null,
+      builtBefore: query.builtBefore ?? null,
     });
     return { items, total, isTotalCapped, page: query.page, pageSize: query.pageSize };
   }
