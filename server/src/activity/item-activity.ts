@@ -41,7 +41,7 @@ export async function recordItemChange(
   if (requestId === undefined) throw new Error('recordItemChange needs the request of the item');
   const diff = before ? changedFields(valuesOf(before), valuesOf(after)) : { before: null, after: valuesOf(after) };
   if (!diff && !note) return;
-  const label = findingCodeInfo(after.code).label;
+  const label = findingCodeInfo(after.code)?.label ?? after.code;
   await activity.record(trx, {
     requestId,
     itemId: after.id,

@@ -22,7 +22,8 @@ export function createFlowListener(activity: ActivityRepository, notifications: 
         });
       }
       if (move.event === 'confirm-items') {
-        const [{ count }] = await trx('line_items').where({ request_id: requestId, status: 'open' }).count({ count: '*' });
+        // The items being confirmed (whether the flow moves them before or after the request).
+        const [{ count }] = await trx('line_items').where({ request_id: requestId }).whereIn('status', ['proposed', 'open']).count({ count: '*' });
         await notifications.notify(trx, { kind: 'ready-to-price', requestId, actorUserId: byUserId, itemCount: Number(count) });
       }
       if (move.event === 'send-quote') {
@@ -41,7 +42,7 @@ export function createFlowListener(activity: ActivityRepository, notifications: 
         actorUserId: made.byUserId,
         kind: 'items',
         action: `item-${made.move.event}`,
-        summary: `${made.move.label}: ${item ? findingCodeInfo(item.code as FindingCode).label : `item #${made.itemId}`}`,
+        summary: `${made.move.label}: ${(item && findingCodeInfo(item.code as FindingCode)?.label) ?? `item #${made.itemId}`}`,
         before: made.from ? { status: made.from } : null,
         after: { status: made.to },
       });
