@@ -2,6 +2,7 @@
 import { createApp } from './app';
 import { loadConfig } from './config/config';
 import { createDb } from './db/knex';
+import { fakeKeys, startFakePaymentService, type FakePaymentService } from './integrations/payments/fake-payment-service';
 
 async function main(): Promise<void> {
   let config;
@@ -13,12 +14,21 @@ async function main(): Promise<void> {
   }
   const db = createDb(config.databaseUrl);
   await db.raw('select 1');
+  // Without real payment keys (and outside production) card payments go to a local fake on loopback.
+  let fake: FakePaymentService | null = null;
+  if (!config.payments && config.env !== 'production') {
+    const keys = fakeKeys();
+    fake = await startFakePaymentService({ ...keys, host: '127.0.0.1', port: config.fakePaymentsPort, webhookUrl: `http://${config.host}:${config.port}/api/payments/webhook` });
+    config = { ...config, payments: { ...keys, apiBase: fake.url } };
+    console.log(`Fake payment service (test cards only) on ${fake.url}`);
+  }
   const { app, close } = createApp(config, db);
   const server = app.listen(config.port, config.host, () => {
     console.log(`Closing Circuit API and portal listening on http://${config.host}:${config.port}`);
   });
   const shutdown = () => {
     server.close(async () => {
+      await fake?.close();
       await close();
       await db.destroy();
       process.exit(0);

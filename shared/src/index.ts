@@ -45,3 +45,7 @@ export * from './quotes/quote-changes.schema';
 export * from './quotes/quote-version.schema';
 export * from './code-editions/protection-history';
 export * from './code-editions/edition-note';
+export * from './payments/scope-pricing';
+export * from './payments/payment-account';
+export * from './payments/consent-text';
+export * from './payments/payment.schema';

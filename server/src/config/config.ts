@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import type { PaymentsConfig } from '../integrations/payments/payment-gateway';
 
 /** Every setting the server reads, from environment variables, validated once at start-up. */
 const EnvSchema = z.object({
@@ -22,7 +23,15 @@ const EnvSchema = z.object({
   STORAGE_DIR: z.string().default('.data/files'),
   /** Folder of the built portal served as static files. */
   PORTAL_DIST: z.string().default('dist/portal/browser'),
-});
+  /** Card payments: a real secret key and webhook secret of the payment service. Without them the server
+   * starts a local fake payment service on loopback (outside production). */
+  STRIPE_SECRET_KEY: z.string().min(8).optional(),
+  STRIPE_WEBHOOK_SECRET: z.string().min(8).optional(),
+  /** Where the payment SDK sends its calls when not the real service (e.g. http://127.0.0.1:4310). */
+  STRIPE_API_BASE: z.url().optional(),
+  /** Port of the local fake payment service (0 = any free port). */
+  FAKE_PAYMENTS_PORT: z.coerce.number().int().min(0).max(65535).default(0),
+}).refine((e) => !e.STRIPE_SECRET_KEY === !e.STRIPE_WEBHOOK_SECRET, { path: ['STRIPE_WEBHOOK_SECRET'], message: 'set STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET together' });
 
 export interface Config {
   env: 'development' | 'test' | 'production';
@@ -37,6 +46,9 @@ export interface Config {
   signInWindowMs: number;
   portalDist: string;
   storageDir: string;
+  /** The payment service's keys and address; null until a fake is started (see main.ts) or keys are given. */
+  payments: PaymentsConfig | null;
+  fakePaymentsPort: number;
 }
 
 /** Reads the environment; throws one readable message listing every bad or missing variable. */
@@ -60,5 +72,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     signInWindowMs: e.SIGN_IN_WINDOW_MINUTES * 60_000,
     portalDist: e.PORTAL_DIST,
     storageDir: e.STORAGE_DIR,
+    payments: e.STRIPE_SECRET_KEY && e.STRIPE_WEBHOOK_SECRET ? { secretKey: e.STRIPE_SECRET_KEY, webhookSecret: e.STRIPE_WEBHOOK_SECRET, apiBase: e.STRIPE_API_BASE ?? null } : null,
+    fakePaymentsPort: e.FAKE_PAYMENTS_PORT,
   };
 }

@@ -15,6 +15,10 @@ import { createQuotesRouter } from './quotes.router';
 import { createRateBookRouter } from './rate-book.router';
 import { createReportsRouter } from './reports.router';
 import { createRequestsRouter } from './requests.router';
+import { createApprovalsRouter } from '../approvals/approvals.router';
+import { createChangeOrdersRouter } from '../change-orders/change-orders.router';
+import { createInvoicesRouter } from '../invoices/invoices.router';
+import { createPaymentsRouter } from '../payments/payments.router';
 
 export interface RouterDeps {
   config: Config;
@@ -34,6 +38,10 @@ export function createApiRouter(deps: RouterDeps): Router {
   api.use('/requests/:id/reports', createReportsRouter(deps));
   api.use('/requests/:id/items', createLineItemsRouter(deps));
   api.use('/requests/:id/quotes', createQuotesRouter(deps));
+  api.use('/requests/:id/approval', createApprovalsRouter(deps));
+  api.use('/requests/:id/payments', createPaymentsRouter(deps));
+  api.use('/requests/:id/change-orders', createChangeOrdersRouter(deps));
+  api.use('/requests/:id/invoices', createInvoicesRouter(deps));
   api.use('/requests/:id', createPricingRouter(deps));
   api.use('/requests', createRequestsRouter(deps));
   api.use('/admin', createAdminRouter(deps));

@@ -21,6 +21,7 @@ import { RateBookService } from './rate-book.service';
 import { readPdfPages } from './report-intake';
 import { ReportIntakeService } from './report-intake.service';
 import { RequestsService } from './requests.service';
+import { createSellerSideServices } from '../approvals/seller-side';
 
 /** Builds every repository and service of the app from one database handle and the config. */
 export function createServices(db: Db, config: Config) {
@@ -37,6 +38,7 @@ export function createServices(db: Db, config: Config) {
   const quotes = new QuoteRepository(db);
   const rateBookService = new RateBookService(db, rateBooks, organisations);
   const pricingService = new PricingService(db, requestsService, rateBookService, itemPricing, quotes);
+  const quotesService = new QuotesService(db, requestsService, pricingService, rateBookService, rateBooks, requests, organisations, itemPricing, quotes);
   return {
     repositories: { users, organisations, requests, items, reports },
     storage,
@@ -49,7 +51,8 @@ export function createServices(db: Db, config: Config) {
     rateBook: rateBookService,
     pricing: pricingService,
     ballpark: new BallparkService(requestsService, rateBookService, itemPricing),
-    quotes: new QuotesService(db, requestsService, pricingService, rateBookService, rateBooks, requests, organisations, itemPricing, quotes),
+    quotes: quotesService,
+    sellerSide: createSellerSideServices(db, config, { requests: requestsService, quotes: quotesService, requestRows: requests, quoteRows: quotes }),
   };
 }
 

@@ -1,0 +1,41 @@
+import type { Config } from '../config/config';
+import type { Db } from '../db/knex';
+import type { QuoteRepository } from '../db/quote.repository';
+import type { RequestRepository } from '../db/request.repository';
+import { ChangeOrderRepository } from '../change-orders/change-order.repository';
+import { ChangeOrdersService } from '../change-orders/change-orders.service';
+import { PaymentGateway } from '../integrations/payments/payment-gateway';
+import { InvoiceRepository } from '../invoices/invoice.repository';
+import { InvoicesService } from '../invoices/invoices.service';
+import { PaymentRepository } from '../payments/payment.repository';
+import { PaymentsService } from '../payments/payments.service';
+import type { QuotesService } from '../services/quotes.service';
+import type { RequestsService } from '../services/requests.service';
+import { ApprovalRepository } from './approval.repository';
+import { ApprovalsService } from './approvals.service';
+import { ApprovedScopeReader } from './approved-scope';
+import { NO_NOTICES_YET, type SellerNotices } from './seller-notices';
+
+/** The seller's side of a request (approval, change orders, payments, invoices), built from the app's own services. */
+export function createSellerSideServices(
+  db: Db,
+  config: Config,
+  base: { requests: RequestsService; quotes: QuotesService; requestRows: RequestRepository; quoteRows: QuoteRepository },
+  notices: SellerNotices = NO_NOTICES_YET,
+) {
+  const approvalRows = new ApprovalRepository(db);
+  const changeOrderRows = new ChangeOrderRepository(db);
+  const paymentRows = new PaymentRepository(db);
+  const invoiceRows = new InvoiceRepository(db);
+  const scopes = new ApprovedScopeReader(approvalRows, changeOrderRows);
+  const gateway = config.payments ? new PaymentGateway(config.payments) : null;
+  const invoices = new InvoicesService(db, base.requests, scopes, approvalRows, base.quoteRows, paymentRows, invoiceRows);
+  return {
+    approvals: new ApprovalsService(db, base.requests, base.quotes, base.quoteRows, base.requestRows, approvalRows, scopes, changeOrderRows, paymentRows, invoiceRows, notices),
+    changeOrders: new ChangeOrdersService(db, base.requests, base.requestRows, approvalRows, scopes, changeOrderRows, notices),
+    payments: new PaymentsService(db, base.requests, approvalRows, scopes, paymentRows, invoices, gateway, notices, config.publicUrl),
+    invoices,
+  };
+}
+
+export type SellerSideServices = ReturnType<typeof createSellerSideServices>;
