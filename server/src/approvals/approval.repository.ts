@@ -1,4 +1,4 @@
-import type { ItemStatus, Quote, RateBook } from '@cc/shared';
+import type { ItemStatus, Quote, QuoteContractor, RateBook } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
 
 export interface StoredApproval {
@@ -151,9 +151,9 @@ export class ApprovalRepository {
   }
 
   /** The rate book and priced input a quote version was priced with, and its id. */
-  async quotePricing(requestId: number, version: number, trx?: Trx): Promise<{ quoteId: number; book: RateBook; input: Quote } | null> {
-    const row = await (trx ?? this.db)('quotes').where({ request_id: requestId, version }).first('id', 'rate_book', 'pricing_input');
-    return row ? { quoteId: row.id, book: row.rate_book as RateBook, input: row.pricing_input as Quote } : null;
+  async quotePricing(requestId: number, version: number, trx?: Trx): Promise<{ quoteId: number; book: RateBook; input: Quote; contractor: QuoteContractor } | null> {
+    const row = await (trx ?? this.db)('quotes').where({ request_id: requestId, version }).first('id', 'rate_book', 'pricing_input', 'contractor');
+    return row ? { quoteId: row.id, book: row.rate_book as RateBook, input: row.pricing_input as Quote, contractor: row.contractor as QuoteContractor } : null;
   }
 
   /** Locks the request row for the rest of the transaction; its status, or null when it is gone. */

@@ -173,12 +173,13 @@ export class ApprovalsService {
     assertMayMove(actors, 'approve', request.status, 'approve or decline the quote');
     const isApproved = input.decisions.some((d) => d.decision === 'approved');
 
+    // Sent versions never change: the one decided on is read before the transaction.
+    const stored = await this.quoteRows.find(requestId, input.quoteVersion);
     const approvalId = await this.db.transaction(async (trx) => {
       const status = await this.approvals.lockRequest(requestId, trx);
       if (status !== request.status || (await this.approvals.find(requestId, trx))) throw new ConflictError('The quote was decided on meanwhile. Reload to see the decision.');
       const latest = await this.quoteRows.latestVersion(requestId, trx);
       if (latest !== input.quoteVersion) throw new ConflictError(`Quote version ${latest} is the current one now. Reload and decide on it.`);
-      const stored = await this.quoteRows.find(requestId, latest);
       const pricing = await this.approvals.quotePricing(requestId, latest, trx);
       if (!stored || !pricing) throw new NotFoundError('No quote has been sent for this request yet');
       if (stored.validUntil < todayUtc()) throw new ConflictError(`The prices of this quote held until ${stored.validUntil}. Ask the contractor for a new version.`);

@@ -29,7 +29,7 @@ export function createSellerSideServices(
   const invoiceRows = new InvoiceRepository(db);
   const scopes = new ApprovedScopeReader(approvalRows, changeOrderRows);
   const gateway = config.payments ? new PaymentGateway(config.payments) : null;
-  const invoices = new InvoicesService(db, base.requests, scopes, approvalRows, base.quoteRows, paymentRows, invoiceRows);
+  const invoices = new InvoicesService(db, base.requests, scopes, approvalRows, paymentRows, invoiceRows);
   return {
     approvals: new ApprovalsService(db, base.requests, base.quotes, base.quoteRows, base.requestRows, approvalRows, scopes, changeOrderRows, paymentRows, invoiceRows, notices),
     changeOrders: new ChangeOrdersService(db, base.requests, base.requestRows, approvalRows, scopes, changeOrderRows, notices),

@@ -1,6 +1,5 @@
 import { ITEM_STATUS_LABELS, paymentAccount, requestReference, type CurrentUser, type EscrowCompany, type InvoiceSummary, type QuoteContractor } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
-import type { QuoteRepository } from '../db/quote.repository';
 import { renderInvoicePdf } from '../integrations/pdf/invoice-pdf';
 import { formatUsd } from '../integrations/pdf/quote-pdf';
 import type { ApprovalRepository } from '../approvals/approval.repository';
@@ -45,7 +44,6 @@ export class InvoicesService {
     private readonly access: RequestsService,
     private readonly scopes: ApprovedScopeReader,
     private readonly approvals: ApprovalRepository,
-    private readonly quotes: QuoteRepository,
     private readonly payments: PaymentRepository,
     private readonly invoices: InvoiceRepository,
   ) {}
@@ -101,12 +99,10 @@ export class InvoicesService {
   ): Promise<StoredInvoice> {
     const scope = await this.scopes.load(requestId, trx);
     if (!scope) throw new ConflictError('Nothing is approved yet: there is nothing to invoice');
-    const quote = await this.quotes.find(requestId, scope.approval.quoteVersion);
-    if (!quote) throw new NotFoundError('The approved quote is missing');
-    const organisationId = quote.contractor.organisationId;
+    const organisationId = scope.contractor.organisationId;
     const number = await this.invoices.nextNumber(organisationId, w.series, trx);
     const payments = await this.payments.list(requestId, trx);
-    const content = await this.compose(requestId, scope, quote.contractor, payments, w, invoiceNumber(w.series, number), trx);
+    const content = await this.compose(requestId, scope, scope.contractor, payments, w, invoiceNumber(w.series, number), trx);
     return this.invoices.insert(
       { organisationId, series: w.series, number, requestId, kind: w.kind, paymentId: w.payment?.id ?? null, addressedTo: w.addressedTo, content, totalCents: w.kind === 'receipt' ? content.receiptFor!.amountCents : content.totalCents, balanceCents: content.balanceCents, issuedBy: w.issuedBy },
       trx,
