@@ -1,8 +1,8 @@
 import { Router } from 'express';
 import { SignApprovalSchema } from '@cc/shared';
-import type { RouterDeps } from '../routes';
-import { requireUser, userOf } from '../middleware/require-user';
-import { idParam } from '../routes/params';
+import type { RouterDeps } from '../http/router-deps';
+import { requireUser, userOf } from '../http/require-user';
+import { idParam } from '../http/params';
 import { signingContextOf } from './signing-context';
 
 /** The seller's decision on the quote: /api/requests/:id/approval */

@@ -22,18 +22,18 @@ import {
   type SignApprovalParsed,
 } from '@cc/shared';
 import type { Db } from '../db/knex';
-import type { QuoteRepository } from '../db/quote.repository';
-import type { RequestRepository } from '../db/request.repository';
+import type { QuoteRepository } from '../quotes/quote.repository';
+import type { RequestRepository } from '../requests/request.repository';
 import type { ChangeOrderRepository } from '../change-orders/change-order.repository';
 import { toChangeOrderDto } from '../change-orders/change-order-dto';
 import type { InvoiceRepository } from '../invoices/invoice.repository';
 import { toInvoiceSummary } from '../invoices/invoice-dto';
 import type { PaymentRepository } from '../payments/payment.repository';
 import { toPaymentDtos } from '../payments/payment-dto';
-import { ConflictError, NotFoundError, ValidationError } from '../services/errors';
-import { lineCents } from '../services/request-pricing';
-import type { QuotesService } from '../services/quotes.service';
-import type { RequestsService } from '../services/requests.service';
+import { ConflictError, NotFoundError, ValidationError } from '../errors';
+import { lineCents } from '../pricing/request-pricing';
+import type { QuotesService } from '../quotes/quotes.service';
+import type { RequestsService } from '../requests/requests.service';
 import type { ApprovalRepository } from './approval.repository';
 import { ApprovedScopeReader } from './approved-scope';
 import { actorsOn, assertMayMove } from './flow-guard';

@@ -12,8 +12,8 @@ import {
   type RequestEvent,
   type RequestStatus,
 } from '@cc/shared';
-import { ConflictError, ForbiddenError } from '../services/errors';
-import { isAssignedContractor } from '../services/pricing.service';
+import { ConflictError, ForbiddenError } from '../errors';
+import { isAssignedContractor } from '../pricing/pricing.service';
 
 // Questions about who may do what on a request, asked of the shared flow table and answered as
 // the errors the API gives: 403 when the person's part may never do it, 409 when the request is not

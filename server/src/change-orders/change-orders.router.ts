@@ -1,8 +1,8 @@
 import { Router } from 'express';
 import { CreateChangeOrderSchema, DecideChangeOrderSchema } from '@cc/shared';
-import type { RouterDeps } from '../routes';
-import { requireUser, userOf } from '../middleware/require-user';
-import { idParam } from '../routes/params';
+import type { RouterDeps } from '../http/router-deps';
+import { requireUser, userOf } from '../http/require-user';
+import { idParam } from '../http/params';
 import { signingContextOf } from '../approvals/signing-context';
 
 /** Change orders of one request: /api/requests/:id/change-orders (answers with the approval page). */

@@ -13,15 +13,15 @@ import {
   type ItemEvent,
 } from '@cc/shared';
 import type { Db } from '../db/knex';
-import type { RequestRepository } from '../db/request.repository';
+import type { RequestRepository } from '../requests/request.repository';
 import type { ApprovalRepository } from '../approvals/approval.repository';
 import type { ApprovedScopeReader } from '../approvals/approved-scope';
 import { changesOf } from '../approvals/approved-scope';
 import type { SigningContext } from '../approvals/approvals.service';
 import { actorsOn, assertMayAct } from '../approvals/flow-guard';
 import type { SellerNotices } from '../approvals/seller-notices';
-import { ConflictError, NotFoundError, ValidationError } from '../services/errors';
-import type { RequestsService } from '../services/requests.service';
+import { ConflictError, NotFoundError, ValidationError } from '../errors';
+import type { RequestsService } from '../requests/requests.service';
 import type { ChangeOrderRepository, StoredChangeOrderLine } from './change-order.repository';
 
 /**

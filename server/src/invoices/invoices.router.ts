@@ -1,8 +1,8 @@
 import { Router, type Request } from 'express';
-import type { RouterDeps } from '../routes';
-import { requireUser, userOf } from '../middleware/require-user';
-import { idParam } from '../routes/params';
-import { NotFoundError } from '../services/errors';
+import type { RouterDeps } from '../http/router-deps';
+import { requireUser, userOf } from '../http/require-user';
+import { idParam } from '../http/params';
+import { NotFoundError } from '../errors';
 
 function invoiceIdParam(req: Request): number {
   const raw = req.params.invoiceId;

@@ -6,9 +6,9 @@ import type { ApprovalRepository } from '../approvals/approval.repository';
 import type { ApprovedScope, ApprovedScopeReader } from '../approvals/approved-scope';
 import { actorsOn, assertMayAct } from '../approvals/flow-guard';
 import type { PaymentRepository, StoredPayment } from '../payments/payment.repository';
-import { ConflictError, ForbiddenError, NotFoundError } from '../services/errors';
-import { lineCents } from '../services/request-pricing';
-import type { RequestsService } from '../services/requests.service';
+import { ConflictError, ForbiddenError, NotFoundError } from '../errors';
+import { lineCents } from '../pricing/request-pricing';
+import type { RequestsService } from '../requests/requests.service';
 import { invoiceNumber, toInvoiceSummary } from './invoice-dto';
 import type { InvoiceKind, InvoiceRepository, InvoiceSeries, StoredInvoice } from './invoice.repository';
 

@@ -8,8 +8,8 @@ import type { SellerNotices } from '../approvals/seller-notices';
 import { PaymentServiceError, type PaymentGateway } from '../integrations/payments/payment-gateway';
 import { invoiceNumber } from '../invoices/invoice-dto';
 import type { InvoicesService } from '../invoices/invoices.service';
-import { ConflictError, NotFoundError, ValidationError } from '../services/errors';
-import type { RequestsService } from '../services/requests.service';
+import { ConflictError, NotFoundError, ValidationError } from '../errors';
+import type { RequestsService } from '../requests/requests.service';
 import { toPaymentDtos } from './payment-dto';
 import type { PaymentRepository, StoredPayment } from './payment.repository';
 
