@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject, input } from '@an
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
-import { RepairRequestDetail, RequestStatus } from '@cc/shared';
+import { actorsOf, mayMoveRequest, RepairRequestDetail, RequestStatus } from '@cc/shared';
 import { Auth } from '../../core/auth/auth';
 import { BallparkCard } from '../ballpark-card/ballpark-card';
 
@@ -35,6 +35,11 @@ export class RequestPricingLinks {
 
   protected readonly canPrice = computed(() => this.isContractor() && PRICING_STATES.includes(this.request().status));
   protected readonly hasQuote = computed(() => this.request().history.some((change) => change.to === 'quoted'));
+  /** The seller's side decides and pays on the approval page; everyone else follows the decision there. */
+  protected readonly decisionLinkLabel = computed(() => {
+    const decides = this.request().status === 'quoted' && mayMoveRequest(actorsOf({ role: this.auth.role() ?? 'agent', myParts: this.request().myParts, isAssignedContractor: false }), 'approve', 'quoted');
+    return decides ? 'Approve or decline the items' : 'Decision and payment';
+  });
   protected readonly showsBallpark = computed(
     () =>
       (this.isAgent() || this.isContractor()) &&
