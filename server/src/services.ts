@@ -21,6 +21,7 @@ import { RateBookService } from './rate-book/rate-book.service';
 import { readPdfPages } from './intake/report-intake';
 import { ReportIntakeService } from './intake/report-intake.service';
 import { RequestsService } from './requests/requests.service';
+import { FlowService } from './flow/flow.service';
 import { createSellerSideServices } from './approvals/seller-side';
 
 /** Builds every repository and service of the app from one database handle and the config. */
@@ -32,27 +33,30 @@ export function createServices(db: Db, config: Config) {
   const reports = new ReportFileRepository(db);
   const passwords = new Passwords(config.bcryptRounds);
   const storage = new LocalFileStorage(config.storageDir);
-  const requestsService = new RequestsService(db, requests, users, organisations, config.publicUrl);
   const rateBooks = new RateBookRepository(db);
   const itemPricing = new ItemPricingRepository(db);
   const quotes = new QuoteRepository(db);
+  // Every move of a request or an item goes through the flow service (listeners: later the notification outbox).
+  const flow = new FlowService(requests, items);
+  const requestsService = new RequestsService(db, requests, users, organisations, flow, items, itemPricing, config.publicUrl);
   const rateBookService = new RateBookService(db, rateBooks, organisations);
-  const pricingService = new PricingService(db, requestsService, rateBookService, itemPricing, quotes);
-  const quotesService = new QuotesService(db, requestsService, pricingService, rateBookService, rateBooks, requests, organisations, itemPricing, quotes);
+  const pricingService = new PricingService(db, requestsService, rateBookService, itemPricing, items, quotes, flow);
+  const quotesService = new QuotesService(db, requestsService, pricingService, rateBookService, rateBooks, requests, organisations, itemPricing, quotes, flow);
   return {
     repositories: { users, organisations, requests, items, reports },
+    flow,
     storage,
     auth: new AuthService(users, passwords),
     admin: new AdminService(users, organisations, passwords),
     requests: requestsService,
     invitations: new InvitationsService(db, requests, users, passwords),
-    reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, readPdfPages),
-    lineItems: new LineItemsService(db, requestsService, requests, items, reports),
+    reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, readPdfPages, flow),
+    lineItems: new LineItemsService(db, requestsService, items, reports, flow),
     rateBook: rateBookService,
     pricing: pricingService,
     ballpark: new BallparkService(requestsService, rateBookService, itemPricing),
     quotes: quotesService,
-    sellerSide: createSellerSideServices(db, config, { requests: requestsService, quotes: quotesService, requestRows: requests, quoteRows: quotes }),
+    sellerSide: createSellerSideServices(db, config, { requests: requestsService, quotes: quotesService, requestRows: requests, quoteRows: quotes, flow }),
   };
 }
 

@@ -138,16 +138,9 @@ export class ApprovalRepository {
     return rows.map((r) => ({ id: r.id, code: r.code, room: r.room, location: r.location ?? '', status: r.status, version: r.version, changeOrderId: r.change_order_id }));
   }
 
-  /** Moves an item to `to` if it is still at `version`; false when someone changed it meanwhile. */
-  async moveItem(id: number, version: number, to: ItemStatus, trx: Trx): Promise<boolean> {
-    return (await trx('line_items').where({ id, version }).update({ status: to, version: version + 1, updated_at: new Date() })) === 1;
-  }
-
-  async addItem(item: { requestId: number; code: string; room: string; location: string; quantity: number; status: ItemStatus; changeOrderId: number; severity: string }, trx: Trx): Promise<number> {
-    const [row] = await trx('line_items')
-      .insert({ request_id: item.requestId, code: item.code, room: item.room, location: item.location, quantity: item.quantity, severity: item.severity, status: item.status, change_order_id: item.changeOrderId, is_edited: true })
-      .returning('id');
-    return row.id;
+  /** Marks items as added by a change order. */
+  async linkToChangeOrder(itemIds: readonly number[], changeOrderId: number, trx: Trx): Promise<void> {
+    if (itemIds.length) await trx('line_items').whereIn('id', itemIds).update({ change_order_id: changeOrderId });
   }
 
   /** The rate book and priced input a quote version was priced with, and its id. */

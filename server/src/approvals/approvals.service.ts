@@ -2,9 +2,8 @@ import { createHash } from 'node:crypto';
 import {
   amountDue,
   approvalConsentText,
-  itemMove,
+  actorsOnRequest,
   mayAct,
-  mayMoveItem,
   mayMoveRequest,
   PAYMENT_PLANS,
   paymentAccount,
@@ -21,9 +20,9 @@ import {
   type ScopeItem,
   type SignApprovalParsed,
 } from '@cc/shared';
+import { lineCents } from '@cc/shared';
 import type { Db } from '../db/knex';
 import type { QuoteRepository } from '../quotes/quote.repository';
-import type { RequestRepository } from '../requests/request.repository';
 import type { ChangeOrderRepository } from '../change-orders/change-order.repository';
 import { toChangeOrderDto } from '../change-orders/change-order-dto';
 import type { InvoiceRepository } from '../invoices/invoice.repository';
@@ -31,12 +30,12 @@ import { toInvoiceSummary } from '../invoices/invoice-dto';
 import type { PaymentRepository } from '../payments/payment.repository';
 import { toPaymentDtos } from '../payments/payment-dto';
 import { ConflictError, NotFoundError, ValidationError } from '../errors';
-import { lineCents } from '../pricing/request-pricing';
 import type { QuotesService } from '../quotes/quotes.service';
 import type { RequestsService } from '../requests/requests.service';
 import type { ApprovalRepository } from './approval.repository';
 import { ApprovedScopeReader } from './approved-scope';
-import { actorsOn, assertMayMove } from './flow-guard';
+import { assertMayMoveRequest, type FlowService } from '../flow/flow.service';
+import { refusalMessages } from './approval-messages';
 import type { SellerNotices } from './seller-notices';
 
 /** Where a signature was given from (kept with it). */
@@ -55,7 +54,7 @@ export class ApprovalsService {
     private readonly access: RequestsService,
     private readonly quotes: QuotesService,
     private readonly quoteRows: QuoteRepository,
-    private readonly requests: RequestRepository,
+    private readonly flow: FlowService,
     private readonly approvals: ApprovalRepository,
     private readonly scopes: ApprovedScopeReader,
     private readonly changeOrders: ChangeOrderRepository,
@@ -66,7 +65,7 @@ export class ApprovalsService {
 
   async view(user: CurrentUser, requestId: number): Promise<ApprovalView> {
     const request = await this.access.get(user, requestId);
-    const actors = actorsOn(user, request);
+    const actors = actorsOnRequest(user, request);
     const approval = await this.approvals.find(requestId);
     const quote = approval ? await this.quotes.get(user, requestId, approval.quoteVersion) : await this.quotes.current(user, requestId);
     const pricing = await this.approvals.quotePricing(requestId, quote.version);
@@ -169,8 +168,8 @@ export class ApprovalsService {
    */
   async sign(user: CurrentUser, requestId: number, input: SignApprovalParsed, context: SigningContext): Promise<ApprovalView> {
     const request = await this.access.get(user, requestId);
-    const actors = actorsOn(user, request);
-    assertMayMove(actors, 'approve', request.status, 'approve or decline the quote');
+    const actors = actorsOnRequest(user, request);
+    assertMayMoveRequest(actors, 'approve', request.status, refusalMessages('approve or decline the quote', request.status));
     const isApproved = input.decisions.some((d) => d.decision === 'approved');
 
     // Sent versions never change: the one decided on is read before the transaction.
@@ -195,12 +194,14 @@ export class ApprovalsService {
       if (missing.length) throw new ValidationError('Approve or decline every item', missing.map((id) => ({ path: `decisions.${id}`, message: `Item #${id} has no decision` })));
 
       const items = new Map((await this.approvals.lineItems(requestId, trx)).map((i) => [i.id, i]));
+      const mover = { userId: user.id, actors };
       for (const d of decided.values()) {
         const item = items.get(d.lineItemId)!;
-        const event = d.decision === 'approved' ? 'approve' : 'decline';
-        const move = itemMove(event, item.status);
-        if (!move || !mayMoveItem(actors, event, item.status)) throw new ConflictError(`Item #${item.id} cannot be ${d.decision} now (it is ${item.status})`);
-        if (!(await this.approvals.moveItem(item.id, item.version, move.to, trx))) throw new ConflictError(`Item #${item.id} changed meanwhile. Reload and decide again.`);
+        await this.flow.moveItem(trx, { id: item.id, requestId, status: item.status, version: item.version }, d.decision === 'approved' ? 'approve' : 'decline', mover, {
+          notYours: 'Your part on this request does not decide on items',
+          notNow: `Item #${item.id} cannot be ${d.decision} now (it is ${item.status})`,
+          stale: `Item #${item.id} changed meanwhile. Reload and decide again.`,
+        });
       }
 
       const approvedKeys = [...decided.values()].filter((d) => d.decision === 'approved').map((d) => String(d.lineItemId));
@@ -228,9 +229,8 @@ export class ApprovalsService {
         [...decided.values()].map((d) => ({ requestId, lineItemId: d.lineItemId, approvalId: id, changeOrderId: null, decision: d.decision, note: d.note || null, decidedBy: user.id })),
         trx,
       );
-      const to = isApproved ? 'approved' : 'declined';
       const note = isApproved ? `Quote version ${latest} approved and signed by ${input.signerName}` : `Every item of quote version ${latest} declined by ${input.signerName}`;
-      if (!(await this.requests.changeStatus(requestId, { from: request.status, to, by: user.id, note }, trx))) throw new ConflictError('The request changed meanwhile. Reload and try again.');
+      await this.flow.moveRequest(trx, requestId, isApproved ? 'approve' : 'decline', mover, note, refusalMessages('approve or decline the quote', request.status));
       return id;
     });
     await this.notices.quoteDecided({ requestId, by: user.id, approvalId, isApproved });

@@ -2,6 +2,7 @@ import type { Config } from '../config/config';
 import type { Db } from '../db/knex';
 import type { QuoteRepository } from '../quotes/quote.repository';
 import type { RequestRepository } from '../requests/request.repository';
+import type { FlowService } from '../flow/flow.service';
 import { ChangeOrderRepository } from '../change-orders/change-order.repository';
 import { ChangeOrdersService } from '../change-orders/change-orders.service';
 import { PaymentGateway } from '../integrations/payments/payment-gateway';
@@ -20,7 +21,7 @@ import { NO_NOTICES_YET, type SellerNotices } from './seller-notices';
 export function createSellerSideServices(
   db: Db,
   config: Config,
-  base: { requests: RequestsService; quotes: QuotesService; requestRows: RequestRepository; quoteRows: QuoteRepository },
+  base: { requests: RequestsService; quotes: QuotesService; requestRows: RequestRepository; quoteRows: QuoteRepository; flow: FlowService },
   notices: SellerNotices = NO_NOTICES_YET,
 ) {
   const approvalRows = new ApprovalRepository(db);
@@ -31,8 +32,8 @@ export function createSellerSideServices(
   const gateway = config.payments ? new PaymentGateway(config.payments) : null;
   const invoices = new InvoicesService(db, base.requests, scopes, approvalRows, paymentRows, invoiceRows);
   return {
-    approvals: new ApprovalsService(db, base.requests, base.quotes, base.quoteRows, base.requestRows, approvalRows, scopes, changeOrderRows, paymentRows, invoiceRows, notices),
-    changeOrders: new ChangeOrdersService(db, base.requests, base.requestRows, approvalRows, scopes, changeOrderRows, notices),
+    approvals: new ApprovalsService(db, base.requests, base.quotes, base.quoteRows, base.flow, approvalRows, scopes, changeOrderRows, paymentRows, invoiceRows, notices),
+    changeOrders: new ChangeOrdersService(db, base.requests, base.flow, approvalRows, scopes, changeOrderRows, notices),
     payments: new PaymentsService(db, base.requests, approvalRows, scopes, paymentRows, invoices, gateway, notices, config.publicUrl),
     invoices,
   };

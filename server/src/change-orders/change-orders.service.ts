@@ -1,11 +1,10 @@
 import {
+  actorsOnRequest,
   changeOrderConsentText,
   findingCodeInfo,
-  itemMove,
   mayMoveItem,
   mayMoveRequest,
   priceScope,
-  requestMove,
   type ApiErrorDetail,
   type CreateChangeOrderParsed,
   type CurrentUser,
@@ -13,12 +12,12 @@ import {
   type ItemEvent,
 } from '@cc/shared';
 import type { Db } from '../db/knex';
-import type { RequestRepository } from '../requests/request.repository';
 import type { ApprovalRepository } from '../approvals/approval.repository';
 import type { ApprovedScopeReader } from '../approvals/approved-scope';
 import { changesOf } from '../approvals/approved-scope';
 import type { SigningContext } from '../approvals/approvals.service';
-import { actorsOn, assertMayAct } from '../approvals/flow-guard';
+import { assertMayAct, type FlowService } from '../flow/flow.service';
+import { refusalMessages } from '../approvals/approval-messages';
 import type { SellerNotices } from '../approvals/seller-notices';
 import { ConflictError, NotFoundError, ValidationError } from '../errors';
 import type { RequestsService } from '../requests/requests.service';
@@ -33,7 +32,7 @@ export class ChangeOrdersService {
   constructor(
     private readonly db: Db,
     private readonly access: RequestsService,
-    private readonly requests: RequestRepository,
+    private readonly flow: FlowService,
     private readonly approvals: ApprovalRepository,
     private readonly scopes: ApprovedScopeReader,
     private readonly changeOrders: ChangeOrderRepository,
@@ -42,8 +41,8 @@ export class ChangeOrdersService {
 
   async create(user: CurrentUser, requestId: number, input: CreateChangeOrderParsed): Promise<number> {
     const request = await this.access.get(user, requestId);
-    const actors = actorsOn(user, request);
-    assertMayAct(actors, 'send-change-order', request.status, 'send change orders');
+    const actors = actorsOnRequest(user, request);
+    assertMayAct(actors, 'send-change-order', request.status, refusalMessages('send change orders', request.status));
     const { id } = await this.db.transaction(async (trx) => {
       await this.approvals.lockRequest(requestId, trx);
       const scope = await this.scopes.load(requestId, trx);
@@ -58,7 +57,6 @@ export class ChangeOrdersService {
       input.lines.forEach((line, i) => {
         if (line.kind === 'add') {
           if (!entries.has(line.entryId)) problems.push({ path: `lines.${i}.entryId`, message: 'Choose work from the rate book the quote was priced with' });
-          if (!mayMoveItem(actors, 'add-by-change-order', null)) problems.push({ path: `lines.${i}`, message: 'Your part may not add items' });
         } else if (!inScope.has(line.lineItemId)) {
           problems.push({ path: `lines.${i}.lineItemId`, message: `Item #${line.lineItemId} is not in the approved work` });
         } else if (touched.has(line.lineItemId)) {
@@ -73,8 +71,14 @@ export class ChangeOrdersService {
       const lines: StoredChangeOrderLine[] = [];
       for (const line of input.lines) {
         if (line.kind === 'add') {
-          const move = itemMove('add-by-change-order', null)!;
-          const itemId = await this.approvals.addItem({ requestId, code: line.code, room: line.room, location: line.location, quantity: line.quantity, status: move.to, changeOrderId: id, severity: findingCodeInfo(line.code).severity }, trx);
+          const [itemId] = await this.flow.createItems(
+            trx,
+            'add-by-change-order',
+            { userId: user.id, actors },
+            [{ requestId, code: line.code, room: line.room, location: line.location, quantity: line.quantity, evidence: null, page: null, severity: findingCodeInfo(line.code).severity, necRefs: [], isEdited: true, reportFileId: null, evidenceStart: null, evidenceEnd: null }],
+            refusalMessages('add items', request.status),
+          );
+          await this.approvals.linkToChangeOrder([itemId], id, trx);
           const entry = entries.get(line.entryId)!;
           lines.push({ kind: 'add', lineItemId: itemId, code: line.code, location: line.location, workName: entry.name, entryId: line.entryId, quantityBefore: null, quantityAfter: line.quantity });
         } else {
@@ -93,8 +97,8 @@ export class ChangeOrdersService {
 
   async decide(user: CurrentUser, requestId: number, changeOrderId: number, input: DecideChangeOrderParsed, context: SigningContext): Promise<void> {
     const request = await this.access.get(user, requestId);
-    const actors = actorsOn(user, request);
-    assertMayAct(actors, 'decide-change-order', request.status, 'decide on change orders');
+    const actors = actorsOnRequest(user, request);
+    assertMayAct(actors, 'decide-change-order', request.status, refusalMessages('decide on change orders', request.status));
     const isApproved = input.decision === 'approve';
     await this.db.transaction(async (trx) => {
       const status = await this.approvals.lockRequest(requestId, trx);
@@ -108,9 +112,12 @@ export class ChangeOrdersService {
         const event: ItemEvent | null = line.kind === 'add' ? (isApproved ? 'approve' : 'decline') : line.kind === 'remove' && isApproved ? 'decline' : null;
         if (!event) continue;
         const item = items.get(line.lineItemId);
-        const move = item && itemMove(event, item.status);
-        if (!item || !move || !mayMoveItem(actors, event, item.status)) throw new ConflictError(`Item #${line.lineItemId} cannot be ${event}d now`);
-        if (!(await this.approvals.moveItem(item.id, item.version, move.to, trx))) throw new ConflictError(`Item #${item.id} changed meanwhile. Reload and decide again.`);
+        if (!item) throw new ConflictError(`Item #${line.lineItemId} is gone`);
+        await this.flow.moveItem(trx, { id: item.id, requestId, status: item.status, version: item.version }, event, { userId: user.id, actors }, {
+          notYours: 'Your part on this request does not decide on items',
+          notNow: `Item #${item.id} cannot be ${event}d now (it is ${item.status})`,
+          stale: `Item #${item.id} changed meanwhile. Reload and decide again.`,
+        });
         decisions.push({ lineItemId: item.id, decision: event === 'approve' ? 'approved' : 'declined' });
       }
       const signerName = input.signerName;
@@ -120,9 +127,8 @@ export class ChangeOrdersService {
       await this.approvals.insertDecisions(decisions.map((d) => ({ ...d, requestId, approvalId: null, changeOrderId: co.id, note: input.note || null, decidedBy: user.id })), trx);
       const consent = changeOrderConsentText({ contractorName: request.contractor?.name ?? 'the contractor', number: co.number, decision: input.decision });
       // Approved new work on a request whose work was finished puts it back under way (the flow's move).
-      const move = isApproved && status === request.status && mayMoveRequest(actors, 'approve-change-order', request.status) ? requestMove('approve-change-order', request.status) : undefined;
-      if (move && !(await this.requests.changeStatus(requestId, { from: request.status, to: move.to, by: user.id, note: `Change order ${co.number} approved by ${signerName}. ${consent}` }, trx))) {
-        throw new ConflictError('The request changed meanwhile. Reload and try again.');
+      if (isApproved && status === request.status && mayMoveRequest(actors, 'approve-change-order', request.status)) {
+        await this.flow.moveRequest(trx, requestId, 'approve-change-order', { userId: user.id, actors }, `Change order ${co.number} approved by ${signerName}. ${consent}`, refusalMessages('approve change orders', request.status));
       }
     });
     await this.notices.changeOrderDecided({ requestId, by: user.id, changeOrderId, isApproved });

@@ -1,13 +1,14 @@
-import { ITEM_STATUS_LABELS, paymentAccount, requestReference, type CurrentUser, type EscrowCompany, type InvoiceSummary, type QuoteContractor } from '@cc/shared';
+import { actorsOnRequest, ITEM_STATUS_LABELS, paymentAccount, requestReference, type CurrentUser, type EscrowCompany, type InvoiceSummary, type QuoteContractor } from '@cc/shared';
+import { lineCents } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
 import { renderInvoicePdf } from '../integrations/pdf/invoice-pdf';
-import { formatUsd } from '../integrations/pdf/quote-pdf';
+import { formatCents } from '@cc/shared';
 import type { ApprovalRepository } from '../approvals/approval.repository';
 import type { ApprovedScope, ApprovedScopeReader } from '../approvals/approved-scope';
-import { actorsOn, assertMayAct } from '../approvals/flow-guard';
+import { assertMayAct } from '../flow/flow.service';
+import { refusalMessages } from '../approvals/approval-messages';
 import type { PaymentRepository, StoredPayment } from '../payments/payment.repository';
 import { ConflictError, ForbiddenError, NotFoundError } from '../errors';
-import { lineCents } from '../pricing/request-pricing';
 import type { RequestsService } from '../requests/requests.service';
 import { invoiceNumber, toInvoiceSummary } from './invoice-dto';
 import type { InvoiceKind, InvoiceRepository, InvoiceSeries, StoredInvoice } from './invoice.repository';
@@ -51,7 +52,7 @@ export class InvoicesService {
   /** The contractor issues an invoice for the request as it stands: items and their state, payments, tax, balance. */
   async issue(user: CurrentUser, requestId: number): Promise<InvoiceSummary> {
     const request = await this.access.get(user, requestId);
-    assertMayAct(actorsOn(user, request), 'issue-invoice', request.status, 'issue invoices');
+    assertMayAct(actorsOnRequest(user, request), 'issue-invoice', request.status, refusalMessages('issue invoices', request.status));
     const invoice = await this.db.transaction(async (trx) => {
       await this.approvals.lockRequest(requestId, trx);
       const seller = request.parties.find((p) => p.role === 'seller');
@@ -88,7 +89,7 @@ export class InvoicesService {
   /** Money papers are for the seller's side, the contractor and administrators. */
   private async readable(user: CurrentUser, requestId: number): Promise<void> {
     const request = await this.access.get(user, requestId);
-    const actors = actorsOn(user, request);
+    const actors = actorsOnRequest(user, request);
     if (!actors.some((a) => a === 'seller' || a === 'listing-agent' || a === 'contractor' || a === 'admin')) throw new ForbiddenError('Invoices are shown to the seller’s side and the contractor');
   }
 
@@ -146,13 +147,13 @@ export class InvoicesService {
       subtotalCents: b?.subtotalCents ?? 0,
       taxCents: b?.materialsTaxCents ?? 0,
       totalCents: scope.totalCents,
-      payments: received.map((p) => ({ date: dateOf(p.paidAt), description: PURPOSE_LABELS[p.purpose] + (p.refundedCents ? ` (${formatUsd(p.refundedCents)} refunded)` : ''), amountCents: p.amountCents - p.refundedCents })),
+      payments: received.map((p) => ({ date: dateOf(p.paidAt), description: PURPOSE_LABELS[p.purpose] + (p.refundedCents ? ` (${formatCents(p.refundedCents)} refunded)` : ''), amountCents: p.amountCents - p.refundedCents })),
       paidCents: account.paidCents,
       balanceCents: account.balanceCents,
       receiptFor: w.kind === 'receipt' && w.payment ? { date: dateOf(w.payment.paidAt), description: PURPOSE_LABELS[w.payment.purpose], amountCents: w.payment.amountCents } : null,
       instructions:
         w.kind === 'closing-invoice'
-          ? `Payable at closing from the seller's proceeds: ${formatUsd(w.payment?.amountCents ?? account.balanceCents)} to ${contractor.name}${contractor.address ? `, ${contractor.address}` : ''}, by wire or cheque, quoting ${number} and request ${reference}. The contractor records the funds when received.`
+          ? `Payable at closing from the seller's proceeds: ${formatCents(w.payment?.amountCents ?? account.balanceCents)} to ${contractor.name}${contractor.address ? `, ${contractor.address}` : ''}, by wire or cheque, quoting ${number} and request ${reference}. The contractor records the funds when received.`
           : null,
     };
   }

@@ -1,9 +1,10 @@
-import { amountDue, paymentAccount, requestReference, type CreateRefund, type CurrentUser, type RecordFunds, type StartedPayment, type StartPaymentParsed } from '@cc/shared';
+import { actorsOnRequest, amountDue, paymentAccount, requestReference, type CreateRefund, type CurrentUser, type RecordFunds, type StartedPayment, type StartPaymentParsed } from '@cc/shared';
 import type Stripe from 'stripe';
 import type { Db, Trx } from '../db/knex';
 import type { ApprovalRepository } from '../approvals/approval.repository';
 import type { ApprovedScopeReader } from '../approvals/approved-scope';
-import { actorsOn, assertMayAct } from '../approvals/flow-guard';
+import { assertMayAct } from '../flow/flow.service';
+import { refusalMessages } from '../approvals/approval-messages';
 import type { SellerNotices } from '../approvals/seller-notices';
 import { PaymentServiceError, type PaymentGateway } from '../integrations/payments/payment-gateway';
 import { invoiceNumber } from '../invoices/invoice-dto';
@@ -42,7 +43,7 @@ export class PaymentsService {
 
   async start(user: CurrentUser, requestId: number, input: StartPaymentParsed): Promise<StartedPayment> {
     const request = await this.access.get(user, requestId);
-    assertMayAct(actorsOn(user, request), 'pay', request.status, 'pay for the work');
+    assertMayAct(actorsOnRequest(user, request), 'pay', request.status, refusalMessages('pay for the work', request.status));
     if (input.plan !== 'at-closing' && !this.gateway) throw new ConflictError('Card payments are not set up on this server. Choose payment at closing.');
     const result = await this.db.transaction(async (trx) => {
       await this.approvals.lockRequest(requestId, trx);
@@ -103,7 +104,7 @@ export class PaymentsService {
   /** The contractor records funds paid by the escrow company against an invoice payable at closing. */
   async recordFunds(user: CurrentUser, requestId: number, input: RecordFunds): Promise<void> {
     const request = await this.access.get(user, requestId);
-    assertMayAct(actorsOn(user, request), 'record-funds', request.status, 'record funds');
+    assertMayAct(actorsOnRequest(user, request), 'record-funds', request.status, refusalMessages('record funds', request.status));
     const payment = await this.db.transaction(async (trx) => {
       const p = await this.payments.lock(input.paymentId, trx);
       if (!p || p.requestId !== requestId) throw new NotFoundError('No such payment on this request');
@@ -119,7 +120,7 @@ export class PaymentsService {
   /** The contractor gives money back on a card payment (in full or in part); settled by the service's event. */
   async refund(user: CurrentUser, requestId: number, paymentId: number, input: CreateRefund): Promise<void> {
     const request = await this.access.get(user, requestId);
-    assertMayAct(actorsOn(user, request), 'refund', request.status, 'refund payments');
+    assertMayAct(actorsOnRequest(user, request), 'refund', request.status, refusalMessages('refund payments', request.status));
     if (!this.gateway) throw new ConflictError('Card payments are not set up on this server');
     const { refund, payment } = await this.db.transaction(async (trx) => {
       const p = await this.payments.lock(paymentId, trx);

@@ -1,11 +1,10 @@
+import { formatCents as usd } from '@cc/shared';
+
 // The fake payment service's own payment page: one small form, readable at phone width, that says
 // plainly it is a test page and which card numbers it takes.
 
 const escape = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
-function usd(cents: number): string {
-  return `$${Math.floor(cents / 100).toLocaleString('en-US')}.${String(cents % 100).padStart(2, '0')}`;
-}
 
 const STYLE = `
   *{box-sizing:border-box} body{margin:0;font-family:system-ui,sans-serif;background:#eef1f4;color:#1b1f24}

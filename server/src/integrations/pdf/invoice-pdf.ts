@@ -1,6 +1,6 @@
 import type { InvoiceContent } from '../../invoices/invoices.service';
 import { createPdfLayout, MARGIN, MUTED } from './pdf-layout';
-import { formatUsd } from './quote-pdf';
+import { formatCents } from '@cc/shared';
 
 /** An invoice, an invoice payable at closing, or a receipt, as a PDF to download. */
 export function renderInvoicePdf(c: InvoiceContent): Promise<Buffer> {
@@ -17,23 +17,23 @@ export function renderInvoicePdf(c: InvoiceContent): Promise<Buffer> {
 
   if (c.receiptFor) {
     heading('Payment received');
-    row(`${c.receiptFor.description}, ${c.receiptFor.date}`, '', formatUsd(c.receiptFor.amountCents), 'strong');
+    row(`${c.receiptFor.description}, ${c.receiptFor.date}`, '', formatCents(c.receiptFor.amountCents), 'strong');
   }
 
   heading('Work');
   row('Item', 'Qty', 'Amount', 'strong');
-  for (const line of c.lines) row(`${line.description}${line.state ? ` (${line.state})` : ''}`, line.quantity === null ? '' : String(line.quantity), formatUsd(line.amountCents));
-  if (c.serviceCallsCents) row('Service calls and first-hour minimums', '', formatUsd(c.serviceCallsCents));
-  if (c.permitCents) row('Permit fee and handling', '', formatUsd(c.permitCents));
-  row('Subtotal', '', formatUsd(c.subtotalCents), 'strong');
-  row('Sales tax on materials', '', formatUsd(c.taxCents));
-  row('Total', '', formatUsd(c.totalCents), 'strong');
+  for (const line of c.lines) row(`${line.description}${line.state ? ` (${line.state})` : ''}`, line.quantity === null ? '' : String(line.quantity), formatCents(line.amountCents));
+  if (c.serviceCallsCents) row('Service calls and first-hour minimums', '', formatCents(c.serviceCallsCents));
+  if (c.permitCents) row('Permit fee and handling', '', formatCents(c.permitCents));
+  row('Subtotal', '', formatCents(c.subtotalCents), 'strong');
+  row('Sales tax on materials', '', formatCents(c.taxCents));
+  row('Total', '', formatCents(c.totalCents), 'strong');
 
   heading('Payments');
   if (!c.payments.length) paragraph('No payment received yet.', 10, MUTED);
-  for (const p of c.payments) row(`${p.description}, ${p.date}`, '', formatUsd(p.amountCents));
-  row('Paid', '', formatUsd(c.paidCents));
-  row('Balance due', '', formatUsd(c.balanceCents), 'strong');
+  for (const p of c.payments) row(`${p.description}, ${p.date}`, '', formatCents(p.amountCents));
+  row('Paid', '', formatCents(c.paidCents));
+  row('Balance due', '', formatCents(c.balanceCents), 'strong');
 
   if (c.instructions) {
     heading('Payment instructions');

@@ -14,8 +14,8 @@ import { zodValidator } from '../../core/forms/zod-validator';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
 import { Notice } from '../../core/http/notice';
 import { ROOM_LABELS } from '../../intake/room-labels';
-import { codeLabel } from '../../pricing/code-label';
-import { formatCentsDelta, MoneyPipe } from '../../pricing/money/money';
+import { codeLabel } from '../../ui/code-label';
+import { formatCentsDelta, MoneyPipe } from '../../ui/money/money';
 import { ApprovalApi } from '../approval-api';
 
 type LineKind = ChangeOrderLineInput['kind'];

@@ -11,8 +11,8 @@ import { ApprovalView, priceScope, SignApprovalSchema } from '@cc/shared';
 import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
-import { codeLabel } from '../../pricing/code-label';
-import { MoneyPipe } from '../../pricing/money/money';
+import { codeLabel } from '../../ui/code-label';
+import { MoneyPipe } from '../../ui/money/money';
 import { PricingTotals } from '../../pricing/pricing-totals/pricing-totals';
 import { ApprovalApi } from '../approval-api';
 

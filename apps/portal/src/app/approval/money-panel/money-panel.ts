@@ -13,7 +13,7 @@ import { zodValidator } from '../../core/forms/zod-validator';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
 import { describeFailure } from '../../core/http/api-error-of';
 import { Notice } from '../../core/http/notice';
-import { formatCents, MoneyPipe } from '../../pricing/money/money';
+import { formatCents, MoneyPipe } from '../../ui/money/money';
 import { ApprovalApi, newIdempotencyKey } from '../approval-api';
 import { PaymentEntry } from './payment-entry';
 

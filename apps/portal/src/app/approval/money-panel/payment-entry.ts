@@ -11,7 +11,7 @@ import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
 import { Notice } from '../../core/http/notice';
-import { MoneyPipe } from '../../pricing/money/money';
+import { MoneyPipe } from '../../ui/money/money';
 import { ApprovalApi, newIdempotencyKey } from '../approval-api';
 
 const PURPOSE_LABELS: Record<Payment['purpose'], string> = { deposit: 'Deposit by card', full: 'Payment in full by card', balance: 'Balance by card', closing: 'Invoice payable at closing' };
