@@ -15,6 +15,9 @@ import { createApprovalsRouter } from './approvals/approvals.router';
 import { createChangeOrdersRouter } from './change-orders/change-orders.router';
 import { createInvoicesRouter } from './invoices/invoices.router';
 import { createPaymentsRouter } from './payments/payments.router';
+import { createActivityRouter } from './activity/activity.router';
+import { createDashboardsRouter } from './dashboards/dashboards.router';
+import { createMailboxRouter, createNotificationsRouter } from './notifications/notifications.router';
 
 /** Mounts every API router under /api. CSRF protection covers every state-changing route. */
 export function createApiRouter(deps: RouterDeps): Router {
@@ -30,10 +33,14 @@ export function createApiRouter(deps: RouterDeps): Router {
   api.use('/requests/:id/payments', createPaymentsRouter(deps));
   api.use('/requests/:id/change-orders', createChangeOrdersRouter(deps));
   api.use('/requests/:id/invoices', createInvoicesRouter(deps));
+  api.use('/requests/:id/activity', createActivityRouter(deps));
   api.use('/requests/:id', createPricingRouter(deps));
   api.use('/requests', createRequestsRouter(deps));
   api.use('/admin', createAdminRouter(deps));
   api.use('/contractors', createContractorsRouter(deps));
   api.use('/rate-book', createRateBookRouter(deps));
+  api.use('/notifications', createNotificationsRouter(deps));
+  api.use('/mailbox', createMailboxRouter(deps));
+  api.use('/dashboards', createDashboardsRouter(deps));
   return api;
 }

@@ -3,6 +3,7 @@ import { createApp } from './app';
 import { loadConfig } from './config/config';
 import { createDb } from './db/knex';
 import { fakeKeys, startFakePaymentService, type FakePaymentService } from './integrations/payments/fake-payment-service';
+import { startMail } from './notifications/mail-runtime';
 
 async function main(): Promise<void> {
   let config;
@@ -22,12 +23,14 @@ async function main(): Promise<void> {
     config = { ...config, payments: { ...keys, apiBase: fake.url } };
     console.log(`Fake payment service (test cards only) on ${fake.url}`);
   }
-  const { app, close } = createApp(config, db);
+  const { app, close, services } = createApp(config, db);
+  const mail = await startMail(config, services);
   const server = app.listen(config.port, config.host, () => {
     console.log(`Closing Circuit API and portal listening on http://${config.host}:${config.port}`);
   });
   const shutdown = () => {
     server.close(async () => {
+      await mail.stop();
       await fake?.close();
       await close();
       await db.destroy();

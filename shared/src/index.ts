@@ -51,3 +51,7 @@ export * from './payments/scope-pricing';
 export * from './payments/payment-account';
 export * from './payments/consent-text';
 export * from './payments/payment.schema';
+export * from './notifications/notification-kind';
+export * from './activity/activity.schema';
+export * from './dashboards/dashboard.schema';
+export * from './dashboards/dashboard-rules';

@@ -1,5 +1,5 @@
 import type { Browser, Page } from 'playwright-core';
-import { seriousAxeViolations } from '../helpers/axe';
+import { seriousViolations } from '../helpers/axe';
 import { launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
 
 jest.setTimeout(120_000);
@@ -24,7 +24,7 @@ const phone = () => browser.newPage({ viewport: { width: 390, height: 844 }, dev
 const desktop = () => browser.newPage({ viewport: { width: 1366, height: 900 } });
 
 async function expectAxeClean(page: Page): Promise<void> {
-  expect(await seriousAxeViolations(page)).toEqual([]);
+  expect(await seriousViolations(page)).toEqual([]);
 }
 
 /** Whether the page is wider than its viewport (a table or card that does not fit). */
