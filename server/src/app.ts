@@ -12,6 +12,7 @@ import type { Db } from './db/knex';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { createApiRouter } from './api.router';
 import { createServices, type Services } from './services';
+import { createPaymentWebhookRouter } from './payments/payment-webhook.router';
 
 export interface App {
   app: Express;
@@ -48,6 +49,8 @@ export function createApp(config: Config, db: Db): App {
       },
     }),
   );
+  // The payment service's events need the raw body for their signature: before the JSON parser and the session.
+  app.use('/api/payments/webhook', createPaymentWebhookRouter(services));
   app.use(express.json({ limit: '1mb' }));
   app.use(
     session({

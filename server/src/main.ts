@@ -2,6 +2,7 @@
 import { createApp } from './app';
 import { loadConfig } from './config/config';
 import { createDb } from './db/knex';
+import { fakeKeys, startFakePaymentService, type FakePaymentService } from './integrations/payments/fake-payment-service';
 import { startMail } from './notifications/mail-runtime';
 
 async function main(): Promise<void> {
@@ -14,6 +15,14 @@ async function main(): Promise<void> {
   }
   const db = createDb(config.databaseUrl);
   await db.raw('select 1');
+  // Without real payment keys (and outside production) card payments go to a local fake on loopback.
+  let fake: FakePaymentService | null = null;
+  if (!config.payments && config.env !== 'production') {
+    const keys = fakeKeys();
+    fake = await startFakePaymentService({ ...keys, host: '127.0.0.1', port: config.fakePaymentsPort, webhookUrl: `http://${config.host}:${config.port}/api/payments/webhook` });
+    config = { ...config, payments: { ...keys, apiBase: fake.url } };
+    console.log(`Fake payment service (test cards only) on ${fake.url}`);
+  }
   const { app, close, services } = createApp(config, db);
   const mail = await startMail(config, services);
   const server = app.listen(config.port, config.host, () => {
@@ -22,6 +31,7 @@ async function main(): Promise<void> {
   const shutdown = () => {
     server.close(async () => {
       await mail.stop();
+      await fake?.close();
       await close();
       await db.destroy();
       process.exit(0);

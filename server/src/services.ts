@@ -22,6 +22,7 @@ import { readPdfPages } from './intake/report-intake';
 import { ReportIntakeService } from './intake/report-intake.service';
 import { RequestsService } from './requests/requests.service';
 import { FlowService } from './flow/flow.service';
+import { createSellerSideServices } from './approvals/seller-side';
 import { ActivityRepository } from './activity/activity.repository';
 import { ActivityService } from './activity/activity.service';
 import { DashboardsRepository } from './dashboards/dashboards.repository';
@@ -59,6 +60,7 @@ export function createServices(db: Db, config: Config) {
   const requestsService = new RequestsService(db, requests, users, organisations, flow, items, itemPricing, config.publicUrl, notifications, activity);
   const rateBookService = new RateBookService(db, rateBooks, organisations);
   const pricingService = new PricingService(db, requestsService, rateBookService, itemPricing, items, quotes, flow);
+  const quotesService = new QuotesService(db, requestsService, pricingService, rateBookService, rateBooks, requests, organisations, itemPricing, quotes, flow);
   return {
     repositories: { users, organisations, requests, items, reports, activity },
     flow,
@@ -79,7 +81,8 @@ export function createServices(db: Db, config: Config) {
     rateBook: rateBookService,
     pricing: pricingService,
     ballpark: new BallparkService(requestsService, rateBookService, itemPricing),
-    quotes: new QuotesService(db, requestsService, pricingService, rateBookService, rateBooks, requests, organisations, itemPricing, quotes, flow),
+    quotes: quotesService,
+    sellerSide: createSellerSideServices(db, config, { requests: requestsService, quotes: quotesService, requestRows: requests, quoteRows: quotes, flow }),
   };
 }
 

@@ -42,5 +42,6 @@ export default async function globalSetup(): Promise<void> {
   });
   (globalThis as { __serverProcess?: typeof server }).__serverProcess = server;
   process.env.PORTAL_URL = baseUrl;
-  await waitForHealth(baseUrl, 30_000);
+  // Generous: on a loaded 2-core machine tsx may take long to compile the server before it listens.
+  await waitForHealth(baseUrl, 120_000);
 }

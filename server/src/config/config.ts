@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import type { PaymentsConfig } from '../integrations/payments/payment-gateway';
 
 /** Every setting the server reads, from environment variables, validated once at start-up. */
 const EnvSchema = z.object({
@@ -46,7 +47,15 @@ const EnvSchema = z.object({
   OUTBOX_LEASE_MS: z.coerce.number().int().min(1_000).max(3_600_000).default(120_000),
   /** Hour of the day (UTC) after which the daily digest goes out. */
   DIGEST_HOUR_UTC: z.coerce.number().int().min(0).max(23).default(13),
-});
+  /** Card payments: a real secret key and webhook secret of the payment service. Without them the server
+   * starts a local fake payment service on loopback (outside production). */
+  STRIPE_SECRET_KEY: z.string().min(8).optional(),
+  STRIPE_WEBHOOK_SECRET: z.string().min(8).optional(),
+  /** Where the payment SDK sends its calls when not the real service (e.g. http://127.0.0.1:4310). */
+  STRIPE_API_BASE: z.url().optional(),
+  /** Port of the local fake payment service (0 = any free port). */
+  FAKE_PAYMENTS_PORT: z.coerce.number().int().min(0).max(65535).default(0),
+}).refine((e) => !e.STRIPE_SECRET_KEY === !e.STRIPE_WEBHOOK_SECRET, { path: ['STRIPE_WEBHOOK_SECRET'], message: 'set STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET together' });
 
 export interface Config {
   env: 'development' | 'test' | 'production';
@@ -61,6 +70,9 @@ export interface Config {
   signInWindowMs: number;
   portalDist: string;
   storageDir: string;
+  /** The payment service's keys and address; null until a fake is started (see main.ts) or keys are given. */
+  payments: PaymentsConfig | null;
+  fakePaymentsPort: number;
   mail: {
     /** null: the local sink on loopback. */
     smtp: { host: string; port: number; secure: boolean; user: string | null; password: string | null } | null;
@@ -94,6 +106,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     signInWindowMs: e.SIGN_IN_WINDOW_MINUTES * 60_000,
     portalDist: e.PORTAL_DIST,
     storageDir: e.STORAGE_DIR,
+    payments: e.STRIPE_SECRET_KEY && e.STRIPE_WEBHOOK_SECRET ? { secretKey: e.STRIPE_SECRET_KEY, webhookSecret: e.STRIPE_WEBHOOK_SECRET, apiBase: e.STRIPE_API_BASE ?? null } : null,
+    fakePaymentsPort: e.FAKE_PAYMENTS_PORT,
     mail: {
       smtp: e.SMTP_HOST ? { host: e.SMTP_HOST, port: e.SMTP_PORT, secure: e.SMTP_SECURE, user: e.SMTP_USER ?? null, password: e.SMTP_PASSWORD ?? null } : null,
       sinkPort: e.MAIL_SINK_PORT,

@@ -78,6 +78,11 @@ describe('request flow', () => {
     expect(mayAct(['buyer-agent'], 'change-contractor', 'quoted')).toBe(false);
     expect(mayAct(['contractor'], 'price', 'quoted')).toBe(true);
     expect(mayAct(['buyer-agent'], 'see-access-notes', 'scheduled')).toBe(false);
+    expect(mayAct(['contractor'], 'refund', 'in-progress')).toBe(true);
+    expect(mayAct(['seller'], 'refund', 'in-progress')).toBe(false);
+    expect(mayAct(['contractor'], 'issue-invoice', 'quoted')).toBe(false);
+    expect(mayAct(['listing-agent'], 'pay', 'approved')).toBe(true);
+    expect(mayAct(['contractor'], 'pay', 'approved')).toBe(false);
     for (const rule of Object.values(REQUEST_ACTIONS)) {
       expect(rule.in.length).toBeGreaterThan(0);
       expect(rule.by.length).toBeGreaterThan(0);

@@ -67,6 +67,8 @@ export type RequestMove = FlowMove<RequestStatus, RequestEvent> & {
 };
 
 const BEFORE_LETTER: readonly RequestStatus[] = ['draft', 'intake', 'pricing', 'quoted', 'approved', 'scheduled', 'in-progress', 'corrected', 'reopened'];
+/** States in which the seller's scope is signed and money may move. */
+const AFTER_APPROVAL: readonly RequestStatus[] = ['approved', 'scheduled', 'in-progress', 'corrected', 'letter-issued', 'accepted', 'reopened'];
 
 export const REQUEST_FLOW: readonly RequestMove[] = [
   { event: 'open', from: [null], to: 'draft', by: [...AGENTS, 'admin'], label: 'Open the request' },
@@ -99,8 +101,11 @@ export const REQUEST_ACTIONS = {
   price: { in: ['pricing', 'quoted'], by: ['contractor'] },
   'send-change-order': { in: ['approved', 'scheduled', 'in-progress', 'corrected', 'reopened'], by: ['contractor'] },
   'decide-change-order': { in: ['approved', 'scheduled', 'in-progress', 'corrected', 'reopened'], by: SELLER_SIDE },
-  pay: { in: ['approved', 'scheduled', 'in-progress', 'corrected', 'letter-issued', 'accepted', 'reopened'], by: SELLER_SIDE },
-  'record-funds': { in: ['approved', 'scheduled', 'in-progress', 'corrected', 'letter-issued', 'accepted', 'reopened'], by: ['contractor'] },
+  pay: { in: AFTER_APPROVAL, by: SELLER_SIDE },
+  'record-funds': { in: AFTER_APPROVAL, by: ['contractor'] },
+  // Money goes back (an approved item taken out by a change order, an overpayment) and invoices are issued by the contractor.
+  refund: { in: AFTER_APPROVAL, by: ['contractor'] },
+  'issue-invoice': { in: AFTER_APPROVAL, by: ['contractor'] },
   'book-visit': { in: ['approved', 'scheduled', 'in-progress', 'reopened'], by: ['contractor'] },
   'record-correction': { in: ['scheduled', 'in-progress', 'reopened'], by: ['contractor'] },
   'see-access-notes': { in: BEFORE_LETTER, by: ['seller', 'listing-agent', 'contractor'] },

@@ -30,6 +30,12 @@ export const requestPricingRoutes: Routes = [
     loadComponent: () => import('../quotes/quote-view/quote-view').then((m) => m.QuoteView),
   },
   {
+    path: 'requests/:id/approval',
+    title: 'Approval and payment · Closing Circuit',
+    canActivate: [signedIn],
+    loadComponent: () => import('../approval/approval-page/approval-page').then((m) => m.ApprovalPage),
+  },
+  {
     path: 'requests/:id/quotes/:version',
     title: 'Quote · Closing Circuit',
     canActivate: [signedIn],

@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject, input } from '@an
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
-import { mayAct, RepairRequestDetail } from '@cc/shared';
+import { mayAct, mayMoveRequest, RepairRequestDetail } from '@cc/shared';
 import { Auth } from '../../core/auth/auth';
 import { BallparkCard } from '../ballpark-card/ballpark-card';
 
@@ -26,6 +26,8 @@ export class RequestPricingLinks {
 
   protected readonly canPrice = computed(() => mayAct(this.actors(), 'price', this.request().status));
   protected readonly hasQuote = computed(() => this.request().history.some((change) => change.to === 'quoted'));
+  /** The seller's side decides and pays on the approval page; everyone else follows the decision there. */
+  protected readonly decisionLinkLabel = computed(() => (mayMoveRequest(this.actors(), 'approve', this.request().status) ? 'Approve or decline the items' : 'Decision and payment'));
   /** The ballpark range, before any price, for the agents and the contractor (the flow table's `estimate`). */
   protected readonly showsBallpark = computed(
     () => mayAct(this.actors(), 'estimate', this.request().status) && this.request().contractor !== null && this.request().itemCount > 0,

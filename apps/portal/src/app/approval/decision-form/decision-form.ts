@@ -1,0 +1,95 @@
+import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
+import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatCardModule } from '@angular/material/card';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { ApprovalView, priceScope, SignApprovalSchema } from '@cc/shared';
+import { ErrorMessagePipe } from '../../core/forms/error-message';
+import { zodValidator } from '../../core/forms/zod-validator';
+import { applyServerErrors } from '../../core/http/apply-server-errors';
+import { codeLabel } from '../../ui/code-label';
+import { MoneyPipe } from '../../ui/money/money';
+import { PricingTotals } from '../../pricing/pricing-totals/pricing-totals';
+import { ApprovalApi } from '../approval-api';
+
+type Decision = 'approved' | 'declined';
+
+/**
+ * The seller's decision on the current quote, made for a phone: one card per item with Approve /
+ * Decline and an optional note, the totals of what is approved as the shared engine prices them,
+ * and the signature (typed full name and the terms ticked).
+ */
+@Component({
+  selector: 'cc-decision-form',
+  imports: [ReactiveFormsModule, MatButtonModule, MatButtonToggleModule, MatCardModule, MatCheckboxModule, MatFormFieldModule, MatIconModule, MatInputModule, MoneyPipe, PricingTotals, ErrorMessagePipe],
+  templateUrl: './decision-form.html',
+  styleUrl: './decision-form.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class DecisionForm {
+  private readonly api = inject(ApprovalApi);
+
+  readonly view = input.required<ApprovalView>();
+  readonly signed = output<ApprovalView>();
+
+  protected readonly label = codeLabel;
+  protected readonly decisions = signal<Partial<Record<number, Decision>>>({});
+  protected readonly notes = signal<Partial<Record<number, string>>>({});
+  protected readonly isSending = signal(false);
+  protected readonly problem = signal<string | null>(null);
+  protected readonly isMissingDecisions = signal(false);
+
+  protected readonly form = new FormGroup({
+    signerName: new FormControl('', { nonNullable: true, validators: zodValidator(SignApprovalSchema.shape.signerName) }),
+    hasConsented: new FormControl(false, { nonNullable: true, validators: zodValidator(SignApprovalSchema.shape.hasConsented) }),
+  });
+
+  /** The quote's priced lines: the items to decide on. */
+  protected readonly lines = computed(() => this.view().quote.lines.filter((l) => l.kind === 'priced' && l.lineItemId !== null));
+  protected readonly undecided = computed(() => this.lines().filter((l) => !this.decisions()[l.lineItemId!]).length);
+  /** What the approved items cost together, priced by the same engine as the server. */
+  protected readonly approvedTotals = computed(() => {
+    const approvedKeys = Object.entries(this.decisions()).filter(([, d]) => d === 'approved').map(([id]) => id);
+    const { book, input } = this.view().pricing;
+    return priceScope({ book, input, approvedKeys });
+  });
+
+  protected decide(lineItemId: number, decision: Decision): void {
+    this.decisions.update((all) => ({ ...all, [lineItemId]: decision }));
+    this.isMissingDecisions.set(false);
+  }
+
+  protected setNote(lineItemId: number, note: string): void {
+    this.notes.update((all) => ({ ...all, [lineItemId]: note }));
+  }
+
+  protected sign(): void {
+    this.form.markAllAsTouched();
+    const missing = this.undecided() > 0;
+    this.isMissingDecisions.set(missing);
+    if (missing || this.form.invalid || this.isSending()) return;
+    this.isSending.set(true);
+    this.problem.set(null);
+    const v = this.view();
+    const body = {
+      quoteVersion: v.quote.version,
+      decisions: this.lines().map((l) => ({ lineItemId: l.lineItemId!, decision: this.decisions()[l.lineItemId!]!, ...(this.notes()[l.lineItemId!]?.trim() ? { note: this.notes()[l.lineItemId!]!.trim() } : {}) })),
+      signerName: this.form.controls.signerName.value,
+      hasConsented: true as const,
+    };
+    this.api.sign(v.requestId, body).subscribe({
+      next: (answer) => {
+        this.isSending.set(false);
+        this.signed.emit(answer);
+      },
+      error: (err: unknown) => {
+        this.isSending.set(false);
+        this.problem.set(applyServerErrors(this.form, err));
+      },
+    });
+  }
+}

@@ -1,0 +1,255 @@
+import { createHash } from 'node:crypto';
+import {
+  amountDue,
+  approvalConsentText,
+  actorsOnRequest,
+  mayAct,
+  mayMoveRequest,
+  PAYMENT_PLANS,
+  paymentAccount,
+  priceScope,
+  requestReference,
+  whoActsNext,
+  FLOW_ACTOR_LABELS,
+  type ApprovalView,
+  type CurrentUser,
+  type FindingCode,
+  type FlowActor,
+  type RepairRequestDetail,
+  type Room,
+  type ScopeItem,
+  type SignApprovalParsed,
+} from '@cc/shared';
+import { lineCents } from '@cc/shared';
+import type { Db } from '../db/knex';
+import type { QuoteRepository } from '../quotes/quote.repository';
+import type { ChangeOrderRepository } from '../change-orders/change-order.repository';
+import { toChangeOrderDto } from '../change-orders/change-order-dto';
+import type { InvoiceRepository } from '../invoices/invoice.repository';
+import { toInvoiceSummary } from '../invoices/invoice-dto';
+import type { PaymentRepository } from '../payments/payment.repository';
+import { toPaymentDtos } from '../payments/payment-dto';
+import { ConflictError, NotFoundError, ValidationError } from '../errors';
+import type { QuotesService } from '../quotes/quotes.service';
+import type { RequestsService } from '../requests/requests.service';
+import type { ApprovalRepository } from './approval.repository';
+import { ApprovedScopeReader } from './approved-scope';
+import { assertMayMoveRequest, type FlowService } from '../flow/flow.service';
+import { refusalMessages } from './approval-messages';
+import type { SellerNotices } from './seller-notices';
+
+/** Where a signature was given from (kept with it). */
+export interface SigningContext {
+  ipAddress: string;
+  userAgent: string;
+}
+
+const SELLER_SIDE_PARTS: readonly FlowActor[] = ['seller', 'listing-agent', 'admin'];
+const todayUtc = () => new Date().toISOString().slice(0, 10);
+
+/** The seller's decision on the quote: the page that shows it, and signing it. */
+export class ApprovalsService {
+  constructor(
+    private readonly db: Db,
+    private readonly access: RequestsService,
+    private readonly quotes: QuotesService,
+    private readonly quoteRows: QuoteRepository,
+    private readonly flow: FlowService,
+    private readonly approvals: ApprovalRepository,
+    private readonly scopes: ApprovedScopeReader,
+    private readonly changeOrders: ChangeOrderRepository,
+    private readonly payments: PaymentRepository,
+    private readonly invoices: InvoiceRepository,
+    private readonly notices: SellerNotices,
+  ) {}
+
+  async view(user: CurrentUser, requestId: number): Promise<ApprovalView> {
+    const request = await this.access.get(user, requestId);
+    const actors = actorsOnRequest(user, request);
+    const approval = await this.approvals.find(requestId);
+    const quote = approval ? await this.quotes.get(user, requestId, approval.quoteVersion) : await this.quotes.current(user, requestId);
+    const pricing = await this.approvals.quotePricing(requestId, quote.version);
+    if (!pricing) throw new NotFoundError('No quote has been sent for this request yet');
+    const [scope, decisions, items, changeOrders, payments] = await Promise.all([
+      this.scopes.load(requestId),
+      this.approvals.decisions(requestId),
+      this.approvals.lineItems(requestId),
+      this.changeOrders.list(requestId),
+      this.payments.list(requestId),
+    ]);
+    const seesMoney = user.role === 'admin' || actors.some((a) => a === 'seller' || a === 'listing-agent' || a === 'contractor');
+    const account = paymentAccount(scope?.totalCents ?? 0, pricing.book.terms.cardDepositBp, payments);
+    const status = request.status;
+    const can = {
+      decide: !approval && mayMoveRequest(actors, 'approve', status),
+      pay: !!approval && mayAct(actors, 'pay', status),
+      recordFunds: !!approval && mayAct(actors, 'record-funds', status),
+      refund: !!approval && mayAct(actors, 'refund', status),
+      sendChangeOrder: !!approval && mayAct(actors, 'send-change-order', status),
+      decideChangeOrder: !!approval && mayAct(actors, 'decide-change-order', status),
+      issueInvoice: !!approval && mayAct(actors, 'issue-invoice', status),
+    };
+    const plans = can.pay ? PAYMENT_PLANS.flatMap((plan) => {
+      const amountCents = amountDue(plan, account);
+      return amountCents === null ? [] : [{ plan, amountCents }];
+    }) : [];
+    const showsSigningDetails = actors.some((a) => SELLER_SIDE_PARTS.includes(a));
+    const reference = requestReference(requestId);
+    const property = `${request.street}, ${request.city}, ${request.state} ${request.zip}`;
+
+    return {
+      requestId,
+      requestReference: reference,
+      requestStatus: status,
+      property,
+      quote,
+      pricing: { book: pricing.book, input: pricing.input },
+      consentText: approval?.consentText ?? approvalConsentText({ contractorName: quote.contractor.name, requestReference: reference, quoteVersion: quote.version, property }),
+      signature: approval && {
+        signerName: approval.signerName,
+        signedByName: approval.signedByName,
+        signedAt: approval.signedAt.toISOString(),
+        quoteVersion: approval.quoteVersion,
+        quoteHash: approval.quoteHash,
+        consentText: approval.consentText,
+        ipAddress: showsSigningDetails ? approval.ipAddress : null,
+        userAgent: showsSigningDetails ? approval.userAgent : null,
+      },
+      decisions: decisions.map((d) => ({ ...d, decidedAt: d.decidedAt.toISOString() })),
+      items: this.scopeItems(quote, items, changeOrders, scope ? priceScope(scope) : null),
+      scope: scope?.breakdown ?? null,
+      account,
+      plans,
+      payments: seesMoney ? toPaymentDtos(payments, await this.payments.refunds(payments.map((p) => p.id)), can.pay) : [],
+      changeOrders: changeOrders.map(toChangeOrderDto),
+      invoices: seesMoney ? (await this.invoices.list(requestId)).map(toInvoiceSummary) : [],
+      can,
+      nextStep: nextStep(request, !!approval, account, changeOrders.some((c) => c.status === 'sent')),
+    };
+  }
+
+  /** Items with their amounts: the scope's price for those in it, the quote's (or change order's) for the rest. */
+  private scopeItems(
+    quote: ApprovalView['quote'],
+    items: Awaited<ReturnType<ApprovalRepository['lineItems']>>,
+    changeOrders: Awaited<ReturnType<ChangeOrderRepository['list']>>,
+    scope: ReturnType<typeof priceScope>,
+  ): ScopeItem[] {
+    const scopeLines = new Map((scope?.visits ?? []).flatMap((v) => v.lines.map((l) => [Number(l.key), l] as const)));
+    const quoteLines = new Map(quote.lines.filter((l) => l.kind === 'priced').map((l) => [l.lineItemId, l]));
+    const coLines = new Map(changeOrders.flatMap((c) => c.lines.filter((l) => l.kind === 'add').map((l) => [l.lineItemId, { line: l, number: c.number }] as const)));
+    return items.flatMap((item): ScopeItem[] => {
+      const quoted = quoteLines.get(item.id);
+      const added = coLines.get(item.id);
+      if (!quoted && !added) return [];
+      const inScope = scopeLines.get(item.id);
+      return [
+        {
+          lineItemId: item.id,
+          code: item.code as FindingCode,
+          room: item.room as Room,
+          location: item.location,
+          status: item.status,
+          workName: quoted?.entry?.name ?? added?.line.workName ?? item.code,
+          quantity: inScope?.quantity ?? quoted?.quantity ?? added?.line.quantityAfter ?? null,
+          unit: quoted?.entry?.unit ?? '',
+          lineCents: inScope ? lineCents(inScope) : quoted?.lineCents ?? 0,
+          changeOrderNumber: added?.number ?? null,
+        },
+      ];
+    });
+  }
+
+  /**
+   * Signs the seller's decision on the current quote version: every priced item approved or
+   * declined (each move checked against the item flow), the approved scope priced by the shared
+   * engine and frozen with a hash of the quote version, the request moved to approved (or declined
+   * when nothing is approved), all in one transaction.
+   */
+  async sign(user: CurrentUser, requestId: number, input: SignApprovalParsed, context: SigningContext): Promise<ApprovalView> {
+    const request = await this.access.get(user, requestId);
+    const actors = actorsOnRequest(user, request);
+    assertMayMoveRequest(actors, 'approve', request.status, refusalMessages('approve or decline the quote', request.status));
+    const isApproved = input.decisions.some((d) => d.decision === 'approved');
+
+    // Sent versions never change: the one decided on is read before the transaction.
+    const stored = await this.quoteRows.find(requestId, input.quoteVersion);
+    const approvalId = await this.db.transaction(async (trx) => {
+      const status = await this.approvals.lockRequest(requestId, trx);
+      if (status !== request.status || (await this.approvals.find(requestId, trx))) throw new ConflictError('The quote was decided on meanwhile. Reload to see the decision.');
+      const latest = await this.quoteRows.latestVersion(requestId, trx);
+      if (latest !== input.quoteVersion) throw new ConflictError(`Quote version ${latest} is the current one now. Reload and decide on it.`);
+      const pricing = await this.approvals.quotePricing(requestId, latest, trx);
+      if (!stored || !pricing) throw new NotFoundError('No quote has been sent for this request yet');
+      if (stored.validUntil < todayUtc()) throw new ConflictError(`The prices of this quote held until ${stored.validUntil}. Ask the contractor for a new version.`);
+
+      const pricedIds = stored.lines.filter((l) => l.kind === 'priced' && l.lineItemId !== null).map((l) => l.lineItemId as number);
+      const decided = new Map<number, (typeof input.decisions)[number]>();
+      input.decisions.forEach((d, i) => {
+        if (!pricedIds.includes(d.lineItemId)) throw new ValidationError('Decide only on the items of the quote', [{ path: `decisions.${i}.lineItemId`, message: `Item #${d.lineItemId} is not in this quote` }]);
+        if (decided.has(d.lineItemId)) throw new ValidationError('Each item is decided once', [{ path: `decisions.${i}.lineItemId`, message: `Item #${d.lineItemId} is listed twice` }]);
+        decided.set(d.lineItemId, d);
+      });
+      const missing = pricedIds.filter((id) => !decided.has(id));
+      if (missing.length) throw new ValidationError('Approve or decline every item', missing.map((id) => ({ path: `decisions.${id}`, message: `Item #${id} has no decision` })));
+
+      const items = new Map((await this.approvals.lineItems(requestId, trx)).map((i) => [i.id, i]));
+      const mover = { userId: user.id, actors };
+      for (const d of decided.values()) {
+        const item = items.get(d.lineItemId)!;
+        await this.flow.moveItem(trx, { id: item.id, requestId, status: item.status, version: item.version }, d.decision === 'approved' ? 'approve' : 'decline', mover, {
+          notYours: 'Your part on this request does not decide on items',
+          notNow: `Item #${item.id} cannot be ${d.decision} now (it is ${item.status})`,
+          stale: `Item #${item.id} changed meanwhile. Reload and decide again.`,
+        });
+      }
+
+      const approvedKeys = [...decided.values()].filter((d) => d.decision === 'approved').map((d) => String(d.lineItemId));
+      const breakdown = priceScope({ book: pricing.book, input: pricing.input, approvedKeys });
+      const totalCents = breakdown?.totalCents ?? 0;
+      const property = `${request.street}, ${request.city}, ${request.state} ${request.zip}`;
+      const id = await this.approvals.insert(
+        {
+          requestId,
+          quoteId: pricing.quoteId,
+          quoteVersion: latest,
+          signedBy: user.id,
+          signerName: input.signerName,
+          consentText: approvalConsentText({ contractorName: stored.contractor.name, requestReference: requestReference(requestId), quoteVersion: latest, property }),
+          ipAddress: context.ipAddress.slice(0, 64),
+          userAgent: context.userAgent.slice(0, 500),
+          quoteHash: createHash('sha256').update(JSON.stringify(stored)).digest('hex'),
+          approvedTotalCents: totalCents,
+          approvedTaxCents: breakdown?.materialsTaxCents ?? 0,
+          depositCents: paymentAccount(totalCents, pricing.book.terms.cardDepositBp, []).depositCents,
+        },
+        trx,
+      );
+      await this.approvals.insertDecisions(
+        [...decided.values()].map((d) => ({ requestId, lineItemId: d.lineItemId, approvalId: id, changeOrderId: null, decision: d.decision, note: d.note || null, decidedBy: user.id })),
+        trx,
+      );
+      const note = isApproved ? `Quote version ${latest} approved and signed by ${input.signerName}` : `Every item of quote version ${latest} declined by ${input.signerName}`;
+      await this.flow.moveRequest(trx, requestId, isApproved ? 'approve' : 'decline', mover, note, refusalMessages('approve or decline the quote', request.status));
+      return id;
+    });
+    await this.notices.quoteDecided({ requestId, by: user.id, approvalId, isApproved });
+    return this.view(user, requestId);
+  }
+}
+
+/** What happens next on the seller's side of the request, and who acts, in one sentence. */
+function nextStep(request: RepairRequestDetail, isSigned: boolean, account: ReturnType<typeof paymentAccount>, hasOpenChangeOrder: boolean): string {
+  const who = (actors: FlowActor[]) => actors.map((a) => FLOW_ACTOR_LABELS[a]).join(' or ') || 'nobody';
+  if (!isSigned) {
+    if (request.status === 'quoted') return `Waiting for ${who(whoActsNext('quoted'))} to approve or decline each item and sign.`;
+    return 'No decision is due: the quote is not with the seller.';
+  }
+  if (request.status === 'declined') return 'The seller declined every item. Nothing more happens on this quote.';
+  if (hasOpenChangeOrder) return 'A change order waits for the seller or the listing agent to approve or decline it.';
+  if (account.payableAtClosingCents > 0) return 'The balance is on an invoice payable at closing; the contractor records the funds when the escrow company pays.';
+  if (account.overpaidCents > 0) return 'More was paid than the approved work costs: the contractor refunds the difference.';
+  if (account.balanceCents > 0 && account.paidCents === 0) return 'Next: the seller (or the listing agent) chooses how to pay: by card now, a deposit now, or at closing.';
+  if (account.balanceCents > 0) return `The balance is due on completion; the contractor books and does the work.`;
+  return `Paid in full. ${who(whoActsNext(request.status))} acts next on the work.`;
+}

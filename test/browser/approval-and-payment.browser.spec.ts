@@ -1,0 +1,117 @@
+import type { Browser, Page } from 'playwright-core';
+import { seriousViolations } from '../helpers/axe';
+import { launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
+
+jest.setTimeout(120_000);
+
+// The demo scenario (seeds/data/demo-scenario.ts): 702 Aspen Row has Brightline's quote version 1
+// with three items, waiting for its seller Ellen Brooks. This file signs and pays it, so no other
+// browser test relies on that request staying quoted.
+const STREET = '702 Aspen Row';
+const SELLER = 'ellen.brooks@mail.test';
+const CONTRACTOR = 'sam.okafor@brightline.test';
+// The payment service's published test card that succeeds ("Testing", docs.stripe.com/testing).
+const TEST_CARD = '4242 4242 4242 4242';
+
+let browser: Browser;
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(() => browser?.close());
+
+const phone = () => browser.newPage({ viewport: { width: 390, height: 844 }, deviceScaleFactor: 1, isMobile: true, hasTouch: true });
+const desktop = () => browser.newPage({ viewport: { width: 1366, height: 900 } });
+
+async function expectAxeClean(page: Page): Promise<void> {
+  expect(await seriousViolations(page)).toEqual([]);
+}
+
+/** Whether the page is wider than its viewport (a table or card that does not fit). */
+const overflowsSideways = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth > window.innerWidth + 1);
+
+describe('the seller approves, signs and pays the deposit on a phone; the contractor sees it', () => {
+  let requestId = '';
+  let depositLabel = '';
+
+  it('lets the seller approve two items, decline one, sign, and pay the deposit on the payment page', async () => {
+    const page = await phone();
+    await signInAs(page, SELLER);
+    await page.getByTestId('request-row').filter({ hasText: STREET }).first().click();
+    await page.getByTestId('request-detail-heading').filter({ hasText: STREET }).waitFor();
+    requestId = /\/requests\/(\d+)/.exec(page.url())?.[1] ?? '';
+    await page.getByTestId('request-approval-link').click();
+    await page.getByTestId('approval-heading').filter({ hasText: 'Approve the repairs' }).waitFor();
+    const items = page.getByTestId('decision-item');
+    expect(await items.count()).toBe(3);
+    await expectAxeClean(page);
+    expect(await overflowsSideways(page)).toBe(false);
+    await screenshot(page, 'approval-phone-undecided');
+
+    // Signing before deciding every item says what is missing.
+    await page.getByTestId('sign-submit').click();
+    await page.getByTestId('decision-missing').filter({ hasText: '3 left' }).waitFor();
+
+    await items.nth(0).getByTestId('decision-approve').locator('button').click();
+    await items.nth(1).getByTestId('decision-approve').locator('button').click();
+    await items.nth(2).getByTestId('decision-decline').locator('button').click();
+    await items.nth(2).getByTestId('decision-note').fill('We will offer the buyer a credit for this one');
+    await page.getByTestId('decision-totals').waitFor();
+    await page.getByTestId('sign-name').fill('Ellen Brooks');
+    await page.getByRole('checkbox', { name: /I am the seller of/ }).check();
+    await screenshot(page, 'approval-phone-decided');
+    await page.getByTestId('sign-submit').click();
+
+    await page.getByTestId('approval-heading').filter({ hasText: 'Approved work and payment' }).waitFor();
+    const statuses = await page.getByTestId('approval-item').evaluateAll((els) => els.map((e) => e.getAttribute('data-status')));
+    expect(statuses.sort()).toEqual(['approved', 'approved', 'declined']);
+    await page.getByTestId('approval-signature').filter({ hasText: 'Signed by Ellen Brooks' }).waitFor();
+    await expectAxeClean(page);
+
+    const deposit = page.getByTestId('plan-card-deposit');
+    depositLabel = /\$[\d,]+\.\d{2}/.exec((await deposit.textContent()) ?? '')?.[0] ?? '';
+    expect(depositLabel).not.toBe('');
+    await deposit.locator('input').check();
+    await page.getByTestId('pay-submit').click();
+
+    // The payment service's own page (the local fake on loopback in tests).
+    await page.getByTestId('fake-pay-card').waitFor();
+    expect(page.url().startsWith(portalUrl(''))).toBe(false);
+    expect(await page.getByTestId('fake-pay-amount').textContent()).toBe(depositLabel);
+    await expectAxeClean(page);
+    await page.getByTestId('fake-pay-card').fill(TEST_CARD);
+    await page.getByTestId('fake-pay-expiry').fill('12 / 39');
+    await page.getByTestId('fake-pay-cvc').fill('123');
+    await screenshot(page, 'payment-page-phone');
+    await page.getByTestId('fake-pay-submit').click();
+
+    await page.getByTestId('approval-payment-return').filter({ hasText: `Payment of ${depositLabel} received` }).waitFor();
+    expect(page.url()).toContain(`/requests/${requestId}/approval`);
+    expect(await page.getByTestId('money-paid').textContent()).toBe(depositLabel);
+    await page.getByTestId('payment-entry').filter({ hasText: 'Received' }).waitFor();
+    await page.getByTestId('invoice-entry').filter({ hasText: /Receipt RCT-\d{6}/ }).waitFor();
+    await expectAxeClean(page);
+    expect(await overflowsSideways(page)).toBe(false);
+    await screenshot(page, 'approval-phone-paid');
+    await page.close();
+  });
+
+  it('shows the contractor the decision per item and the deposit received', async () => {
+    expect(requestId).not.toBe('');
+    const page = await desktop();
+    await signInAs(page, CONTRACTOR);
+    await page.goto(portalUrl(`/requests/${requestId}/approval`));
+    await page.getByTestId('approval-heading').filter({ hasText: 'Approved work and payment' }).waitFor();
+    const declined = page.getByTestId('approval-item').filter({ has: page.locator('[data-status="declined"]') });
+    expect(await declined.count()).toBe(1);
+    expect(await declined.textContent()).toContain('We will offer the buyer a credit for this one');
+    const payment = page.getByTestId('payment-entry');
+    await payment.filter({ hasText: 'Deposit by card' }).filter({ hasText: depositLabel }).waitFor();
+    expect(await payment.getByTestId('payment-status').textContent()).toBe('Received');
+    await page.getByTestId('refund-open').waitFor();
+    await page.getByTestId('change-order-new').waitFor();
+    await expectAxeClean(page);
+    await screenshot(page, 'approval-contractor-desktop');
+    await page.close();
+  });
+});
