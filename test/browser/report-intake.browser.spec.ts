@@ -58,6 +58,9 @@ async function openNewRequest(street: string): Promise<void> {
 
 async function confirmAndExpectPricing(count: number): Promise<void> {
   await page.getByTestId('review-confirm').click();
+  // Confirming cannot be taken back, so the portal asks first.
+  expect(await page.getByTestId('confirm-message').textContent()).toContain('can no longer be changed');
+  await page.getByTestId('confirm-go').click();
   await page.getByTestId('request-detail-status').filter({ hasText: REQUEST_STATUS_LABELS.pricing }).waitFor();
   await page.getByTestId('line-item-status').filter({ hasText: 'Confirmed' }).nth(count - 1).waitFor();
   expect(await page.getByTestId('line-item-row').count()).toBe(count);
