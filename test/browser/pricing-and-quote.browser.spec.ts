@@ -1,5 +1,6 @@
 import { readFileSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
+import { FINDING_CODE_TABLE } from '@cc/shared';
 import { launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
 
 jest.setTimeout(90_000);
@@ -69,7 +70,10 @@ describe('pricing a request and sending its quote', () => {
     await screenshot(page, 'pricing-auto-priced');
 
     // Select both GFCI findings at once and give them a site condition.
-    await page.getByTestId('pricing-pick-code').filter({ hasText: 'gfci-missing' }).click();
+    // Plain words on every pick, never the finding code itself.
+    const picks = await page.getByTestId('pricing-pick-code').allTextContents();
+    for (const code of Object.keys(FINDING_CODE_TABLE)) expect(picks.join(' ')).not.toContain(code);
+    await page.getByTestId('pricing-pick-code').filter({ hasText: 'All 2: No ground-fault (GFCI) protection' }).click();
     expect(await page.getByTestId('bulk-selected-count').textContent()).toContain('2 items selected');
     await page.getByRole('checkbox', { name: 'Set site conditions' }).check();
     await page.getByTestId('bulk-adders').click();

@@ -142,6 +142,9 @@ describe('a buyer’s agent takes in an inspection report', () => {
     await page.getByTestId('report-read-again').click();
     // Two untouched proposals read anew; the edited one is kept, not proposed again.
     await page.getByTestId('parse-result-proposed').filter({ hasText: '2 items proposed' }).waitFor();
+    // The banner agrees with the list: the edited item kept from before is counted too.
+    await page.getByTestId('parse-result-kept').filter({ hasText: '1 item kept from before' }).waitFor();
+    expect(await page.getByTestId('parse-result-kept').textContent()).toContain('holds 3 to confirm');
     await rows.nth(2).getByTestId('review-item-location').filter({ hasText: 'garage subpanel, 20 A breaker' }).waitFor();
     expect(await rows.count()).toBe(3);
 

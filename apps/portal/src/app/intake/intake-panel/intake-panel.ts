@@ -77,6 +77,8 @@ export class IntakePanel {
   protected readonly reports = computed(() => this.current()?.reports ?? []);
   protected readonly items = computed(() => this.current()?.items ?? []);
   protected readonly lastResult = signal<UploadResult | null>(null);
+  /** The proposals in the review list, which the banner's count must agree with. */
+  protected readonly toConfirm = computed(() => this.items().filter((i) => i.status === 'proposed').length);
 
   protected reload(): void {
     this.reloads.update((n) => n + 1);
@@ -84,8 +86,10 @@ export class IntakePanel {
 
   protected showResult(result: UploadResult): void {
     this.lastResult.set(result);
-    this.reload();
+    // A first report moves the request out of draft: the reloaded request changes `source`, which loads
+    // the lists once. Reloading here as well would start a load the state change then cancels.
     if (this.request().status === 'draft') this.requestChanged.emit();
+    else this.reload();
   }
 
   protected finishReview(): void {

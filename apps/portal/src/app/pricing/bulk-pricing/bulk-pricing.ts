@@ -22,6 +22,7 @@ import { BallparkCard } from '../ballpark-card/ballpark-card';
 import { BulkToolbar } from '../bulk-toolbar/bulk-toolbar';
 import { claimedTotals, livePrice, PendingChange } from '../live-pricing';
 import { MoneyPipe } from '../money/money';
+import { codeLabel } from '../code-label';
 import { OutOfScopeData, OutOfScopeDialog } from '../out-of-scope-dialog/out-of-scope-dialog';
 import { PricingApi } from '../pricing-api';
 import { PricingTable } from '../pricing-table/pricing-table';
@@ -117,6 +118,10 @@ export class BulkPricing {
     return livePrice(pricing, { itemIds: [...this.selectedIds()], set });
   });
   protected readonly codes = computed(() => [...new Set(this.pricing()?.items.map((i) => i.code) ?? [])]);
+  /** One button per finding: how many items it has, in plain words (never the code itself). */
+  protected readonly codePicks = computed(() =>
+    this.codes().map((code) => ({ code, label: codeLabel(code), count: (this.pricing()?.items ?? []).filter((i) => i.code === code).length })),
+  );
   protected readonly selectedCodes = computed(() => {
     const ids = this.selectedIds();
     return [...new Set((this.pricing()?.items ?? []).filter((i) => ids.has(i.id)).map((i) => i.code))];

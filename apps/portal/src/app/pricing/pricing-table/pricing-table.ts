@@ -3,7 +3,7 @@ import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatIconModule } from '@angular/material/icon';
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import { ITEM_STATUS_LABELS, PricingItem, QuoteBreakdown, RateBook } from '@cc/shared';
+import { ITEM_STATUS_LABELS, placeLabel, PricingItem, QuoteBreakdown, RateBook } from '@cc/shared';
 import { MoneyPipe } from '../money/money';
 import { codeLabel } from '../code-label';
 import { lineCentsOf } from '../live-pricing';
@@ -13,6 +13,8 @@ import { VisitLabelPipe } from '../visit-label';
 interface Row {
   item: PricingItem;
   codeLabel: string;
+  /** Room and location, the room said once. */
+  place: string;
   entryName: string | null;
   adderNames: string[];
   lineCents: number | null;
@@ -49,6 +51,7 @@ export class PricingTable {
     return this.items().map((item) => ({
       item,
       codeLabel: codeLabel(item.code),
+      place: placeLabel(item.room, item.location),
       entryName: item.entryId === null ? null : (entries.get(String(item.entryId)) ?? 'Entry no longer in the rate book'),
       adderNames: item.adderIds.map((id) => adders.get(String(id)) ?? 'Removed condition'),
       lineCents: lineCentsOf(this.breakdown(), item.id),

@@ -98,13 +98,13 @@ describe('RequestDetail', () => {
     expect(host.querySelector('cc-invite-party-form')).toBeNull();
   });
 
-  it('invites a party and shows the request the server answers with', async () => {
+  it('invites a party, shows the link to pass on (no e-mail is sent yet) and the request the server answers with', async () => {
     await render('agent', ['buyer-agent']);
     await (await loader.getHarness(MatSelectHarness.with({ selector: '[data-testid="invite-role"]' }))).clickOptions({
       text: 'Home inspector',
     });
     await (await loader.getHarness(MatInputHarness.with({ selector: '[data-testid="invite-email"]' }))).setValue('Ivy@Inspect.example');
-    await (await loader.getHarness(MatButtonHarness.with({ text: 'Send invitation' }))).click();
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Make invitation link' }))).click();
 
     const req = httpTesting.expectOne('/api/requests/12/parties');
     expect(req.request.body).toEqual({ role: 'inspector', email: 'ivy@inspect.example' });
@@ -115,5 +115,9 @@ describe('RequestDetail', () => {
 
     const links = Array.from((fixture.nativeElement as HTMLElement).querySelectorAll('[data-testid="invite-url"]')).map((el) => el.textContent);
     expect(links).toEqual(['http://localhost/invite/abc', 'http://localhost/invite/def']);
+    const made = (fixture.nativeElement as HTMLElement).querySelector('[data-testid="invite-made"]')?.textContent ?? '';
+    expect(made).toContain('No e-mail is sent yet');
+    expect(made).not.toContain('Invitation sent');
+    expect((fixture.nativeElement as HTMLElement).querySelector('[data-testid="invite-made-url"]')?.textContent).toBe('http://localhost/invite/def');
   });
 });

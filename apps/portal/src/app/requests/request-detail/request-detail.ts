@@ -86,8 +86,8 @@ export class RequestDetail {
     this.notice.success(`${detail.contractor?.name ?? 'The contractor'} is now the request's contractor.`);
   }
 
+  /** The form itself says what happened (the link to pass on); e-mail is not sent yet. */
   protected showInvited(detail: RepairRequestDetail): void {
     this.detail.set(detail);
-    this.notice.success('Invitation sent.');
   }
 }

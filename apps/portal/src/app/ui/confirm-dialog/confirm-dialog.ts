@@ -11,7 +11,7 @@ export interface ConfirmData {
   confirmLabel: string;
 }
 
-/** Asks once before something that cannot be taken back; "Cancel" is the default focus. */
+/** Asks once before something that cannot be taken back; "Cancel" comes first, so it has the focus. */
 @Component({
   selector: 'cc-confirm-dialog',
   imports: [MatDialogModule, MatButtonModule],
@@ -21,7 +21,7 @@ export interface ConfirmData {
       <p data-testid="confirm-message">{{ data.message }}</p>
     </mat-dialog-content>
     <mat-dialog-actions align="end">
-      <button mat-button type="button" [mat-dialog-close]="false" cdkFocusInitial data-testid="confirm-cancel">Cancel</button>
+      <button mat-button type="button" [mat-dialog-close]="false" data-testid="confirm-cancel">Cancel</button>
       <button mat-flat-button type="button" [mat-dialog-close]="true" data-testid="confirm-go">{{ data.confirmLabel }}</button>
     </mat-dialog-actions>
   `,
