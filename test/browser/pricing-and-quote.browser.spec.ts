@@ -67,6 +67,11 @@ describe('pricing a request and sending its quote', () => {
     const autoTotal = await quoteTotal(page);
     // The portal's live total (shared engine in the browser) is the server's own figure.
     expect(autoTotal).toBe(asDollars(await serverTotalCents(page, requestId)));
+    // The ballpark range shown to the agent holds the quote priced from the same rate book.
+    const range = (await (await page.request.get(portalUrl(`/api/requests/${requestId}/ballpark`))).json()) as { lowCents: number; highCents: number };
+    const autoCents = await serverTotalCents(page, requestId);
+    expect(range.lowCents).toBeLessThanOrEqual(autoCents);
+    expect(autoCents).toBeLessThanOrEqual(range.highCents);
     await screenshot(page, 'pricing-auto-priced');
 
     // Select both GFCI findings at once and give them a site condition.

@@ -17,6 +17,7 @@ import { SafetyNotice } from '../../ui/safety-notice/safety-notice';
 import { StatusChip } from '../../ui/status-chip/status-chip';
 import { ContractorPicker } from '../contractor-picker/contractor-picker';
 import { InvitePartyForm } from '../invite-party-form/invite-party-form';
+import { NextStepPanel } from '../next-step/next-step';
 import { PartyList } from '../party-list/party-list';
 import { RequestsApi } from '../requests-api';
 import { StatusHistory } from '../status-history/status-history';
@@ -41,6 +42,7 @@ type Loaded = { detail: RepairRequestDetail; error?: undefined } | { detail?: un
     ContractorPicker,
     IntakePanel,
     RequestPricingLinks,
+    NextStepPanel,
   ],
   templateUrl: './request-detail.html',
   styleUrl: './request-detail.scss',
