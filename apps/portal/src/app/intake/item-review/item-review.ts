@@ -8,7 +8,6 @@ import { LineItem, ReportFile } from '@cc/shared';
 import { Observable } from 'rxjs';
 import { Notice } from '../../core/http/notice';
 import { askToConfirm } from '../../ui/confirm-dialog/confirm-dialog';
-import { SafetyNotice } from '../../ui/safety-notice/safety-notice';
 import { EvidenceView } from '../evidence-view/evidence-view';
 import { TextSelection } from '../evidence-view/selection-offsets';
 import { IntakeApi } from '../intake-api';
@@ -25,7 +24,7 @@ const DIALOG_SIZE = { width: '640px', maxWidth: '95vw' };
  */
 @Component({
   selector: 'cc-item-review',
-  imports: [MatButtonModule, MatIconModule, MatFormFieldModule, MatSelectModule, ItemTable, EvidenceView, SafetyNotice],
+  imports: [MatButtonModule, MatIconModule, MatFormFieldModule, MatSelectModule, ItemTable, EvidenceView],
   templateUrl: './item-review.html',
   styleUrl: './item-review.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -17,6 +17,7 @@ import { Notice } from '../../core/http/notice';
 import { QuotesApi } from '../../quotes/quotes-api';
 import { RequestsApi } from '../../requests/requests-api';
 import { DaysToClosing } from '../../ui/days-to-closing/days-to-closing';
+import { SafetyNotice } from '../../ui/safety-notice/safety-notice';
 import { StatusChip } from '../../ui/status-chip/status-chip';
 import { BallparkCard } from '../ballpark-card/ballpark-card';
 import { BulkToolbar } from '../bulk-toolbar/bulk-toolbar';
@@ -55,6 +56,7 @@ type Loaded = { pricing: RequestPricing; error?: undefined } | { pricing?: undef
     PricingTotals,
     VisitPlanner,
     BallparkCard,
+    SafetyNotice,
   ],
   templateUrl: './bulk-pricing.html',
   styleUrl: './bulk-pricing.scss',
