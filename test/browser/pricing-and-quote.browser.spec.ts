@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
 import { FINDING_CODE_TABLE } from '@cc/shared';
-import { launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
+import { expectAccessible, launchBrowser, openPage, portalUrl, screenshot, signInAs } from '../helpers/browser';
 
 jest.setTimeout(90_000);
 
@@ -23,7 +23,7 @@ beforeAll(async () => {
 afterAll(() => browser?.close());
 
 async function newPage(): Promise<Page> {
-  return browser.newPage({ viewport: { width: 1440, height: 1000 }, acceptDownloads: true });
+  return openPage(browser, { viewport: { width: 1440, height: 1000 }, acceptDownloads: true });
 }
 
 /** The quote total the server computes itself, read through the same session as the page. */
@@ -48,6 +48,8 @@ describe('pricing a request and sending its quote', () => {
     await signInAs(page, CONTRACTOR);
     await page.getByTestId('nav-job-queue').click();
     await page.getByTestId('pricing-queue-heading').waitFor();
+    await page.getByTestId('pricing-queue-row').first().waitFor();
+    await expectAccessible(page);
     const row = page.getByTestId('pricing-queue-row').filter({ hasText: STREET });
     await row.waitFor();
     expect(await row.getByTestId('pricing-queue-items').textContent()).toContain('4');
@@ -120,6 +122,10 @@ describe('pricing a request and sending its quote', () => {
 
     await row.click();
     await page.getByTestId('request-detail-heading').filter({ hasText: STREET }).waitFor();
+    // The seller sees that the quote waits for them, and that approving is not in the portal yet.
+    expect(await page.getByTestId('next-step-summary').textContent()).toContain('Waits for you (the seller');
+    expect(await page.getByTestId('next-step-outside').first().textContent()).toContain('Not in the portal yet');
+    await expectAccessible(page);
     await page.getByTestId('request-quote-link').click();
     await page.getByTestId('quote-heading').filter({ hasText: 'version 1' }).waitFor();
     expect(page.url()).toContain(`/requests/${requestId}/quotes`);

@@ -3,7 +3,7 @@
 import { existsSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
 import { REQUEST_STATUS_LABELS } from '@cc/shared';
-import { launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
+import { expectAccessible, launchBrowser, openPage, portalUrl, screenshot, signInAs, watchConsole } from '../helpers/browser';
 import { textPdf } from '../helpers/pdf-fixtures';
 
 jest.setTimeout(90_000);
@@ -33,7 +33,7 @@ beforeAll(async () => {
 });
 afterAll(() => browser?.close());
 beforeEach(async () => {
-  page = await browser.newPage({ viewport: { width: 1440, height: 1000 } });
+  page = await openPage(browser, { viewport: { width: 1440, height: 1000 } });
 });
 afterEach(() => page?.close());
 
@@ -54,6 +54,7 @@ async function openNewRequest(street: string): Promise<void> {
   await page.goto(portalUrl(`/requests/${id}`));
   await page.getByTestId('request-detail-heading').waitFor();
   await page.getByTestId('report-drop-zone').waitFor();
+  await expectAccessible(page);
 }
 
 async function confirmAndExpectPricing(count: number): Promise<void> {
@@ -95,9 +96,13 @@ async function selectReportText(needle: string): Promise<void> {
 describe('a buyer’s agent takes in an inspection report', () => {
   it('uploads a PDF, reviews the proposed items beside the highlighted text, edits one and confirms', async () => {
     await openNewRequest('Breaker Hollow');
+    const problems = watchConsole(page);
     await page.getByTestId('report-file-input').setInputFiles({ name: 'inspection-excerpt.pdf', mimeType: 'application/pdf', buffer: await textPdf(PDF_PAGES) });
 
     await page.getByTestId('parse-result-proposed').waitFor();
+    await page.getByTestId('review-item-row').nth(2).waitFor();
+    // The upload loads the lists once: no request started and then cancelled, nothing in the console.
+    expect(problems).toEqual([]);
     expect(await page.getByTestId('parse-result-proposed').textContent()).toBe('3 items proposed');
     // The first report moves the request from draft into review.
     await page.getByTestId('request-detail-status').filter({ hasText: REQUEST_STATUS_LABELS.intake }).waitFor();

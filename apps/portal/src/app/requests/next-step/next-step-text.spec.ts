@@ -1,4 +1,4 @@
-import { REQUEST_FLOW, REQUEST_STATUSES, RequestStatus, Role, PartyRole, whoActsNext } from '@cc/shared';
+import { REQUEST_FLOW, REQUEST_STATUSES, Role, PartyRole } from '@cc/shared';
 import { nextStepOf } from './next-step-text';
 
 const SELLER = { role: 'seller' as Role, myParts: ['seller'] as PartyRole[] };
@@ -48,9 +48,14 @@ describe('nextStepOf', () => {
   });
 
   it('names the contractor for a booked visit and a finished job, and the inspector or agent for an issued letter', () => {
-    const actorsIn = (status: RequestStatus) => whoActsNext(status);
     expect(nextStepOf('scheduled', SELLER).summary).toBe('Waits for the contractor.');
-    expect(actorsIn('letter-issued')).toEqual(['inspector', 'buyer-agent']);
+    // A finished job waits for the letter; a change order is a detour, listed after it.
+    const finished = nextStepOf('corrected', SELLER);
+    expect(finished.summary).toBe('Waits for the contractor.');
+    expect(finished.moves.map((m) => [m.label, m.isDetour])).toEqual([
+      ['Issue the completion letter', false],
+      ['Approve the change order', true],
+    ]);
     expect(nextStepOf('letter-issued', INSPECTOR).summary).toBe('Waits for you (the inspector or the buyer’s agent).');
     expect(nextStepOf('withdrawn', SELLER).isEnded).toBe(true);
   });

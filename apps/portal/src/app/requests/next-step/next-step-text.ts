@@ -9,7 +9,6 @@ import {
   RequestStatus,
   Role,
   PartyRole,
-  whoActsNext,
 } from '@cc/shared';
 
 /** Where in the portal a move is made today. Moves not listed here are not in the portal yet. */
@@ -38,6 +37,8 @@ export interface NextMove {
   place: PortalPlace | null;
   /** The move exists in the flow but not yet in the portal. */
   isOutsidePortal: boolean;
+  /** Off the usual course (the flow table's detours), shown after the usual step. */
+  isDetour: boolean;
 }
 
 export interface NextStep {
@@ -61,12 +62,18 @@ export function nextStepOf(status: RequestStatus, viewer: { role: Role; myParts:
     return { status, isEnded: true, summary: `${REQUEST_STATUS_LABELS[status]}: nothing more happens on this request.`, moves: [] };
   }
   const actors = actorsOf({ role: viewer.role, myParts: viewer.myParts, isAssignedContractor: viewer.role === 'contractor' });
-  const moves = movesOnFrom(status).map((move): NextMove => {
-    const isYours = move.by.some((a) => actors.includes(a));
-    const place = PORTAL_PLACES[move.event] ?? null;
-    return { label: move.label, by: who(move.by) || FLOW_ACTOR_LABELS.admin, isYours, place: isYours ? place : null, isOutsidePortal: place === null };
-  });
-  const waitsFor = whoActsNext(status);
+  const onward = movesOnFrom(status);
+  const moves = onward
+    .map((move): NextMove => {
+      const isYours = move.by.some((a) => actors.includes(a));
+      const place = PORTAL_PLACES[move.event] ?? null;
+      return { label: move.label, by: who(move.by) || FLOW_ACTOR_LABELS.admin, isYours, place: isYours ? place : null, isOutsidePortal: place === null, isDetour: !!move.isDetour };
+    })
+    .sort((a, b) => Number(a.isDetour) - Number(b.isDetour));
+  // The request waits for whoever makes the usual move; detours (a change order) do not make it wait.
+  const usual = onward.some((m) => !m.isDetour) ? onward.filter((m) => !m.isDetour) : onward;
+  const waitsFor: FlowActor[] = [];
+  for (const move of usual) for (const a of move.by) if (a !== 'admin' && !waitsFor.includes(a)) waitsFor.push(a);
   const isYourTurn = waitsFor.some((a) => actors.includes(a));
   const summary = isYourTurn ? `Waits for you (${who(waitsFor)}).` : `Waits for ${who(waitsFor)}.`;
   return { status, isEnded: false, summary, moves };
