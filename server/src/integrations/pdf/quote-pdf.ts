@@ -1,6 +1,6 @@
 import { dirname, join } from 'node:path';
 import PDFDocument from 'pdfkit';
-import { FINDING_CODE_TABLE, placeLabel, quantityLabel, type QuoteVersion } from '@cc/shared';
+import { FINDING_CODE_TABLE, formatCents, formatCentsDelta, placeLabel, quantityLabel, type QuoteVersion } from '@cc/shared';
 
 // The quote as a PDF to download: Letter pages, Source Sans 3 (the portal's typeface, from the
 // `source-sans` package: pdfkit embeds TrueType/OpenType, not woff2) embedded as a subset.
@@ -25,14 +25,6 @@ export function formatDay(iso: string): string {
 
 /** The plain-words label of a finding code (the code itself only for one the table does not know). */
 const findingLabel = (code: string) => (code in FINDING_CODE_TABLE ? FINDING_CODE_TABLE[code as keyof typeof FINDING_CODE_TABLE].label : code);
-
-/** US dollars from cents: 31434 → "$314.34". */
-export function formatUsd(cents: number): string {
-  const sign = cents < 0 ? '−' : '';
-  const abs = Math.abs(cents);
-  const dollars = Math.floor(abs / 100).toLocaleString('en-US');
-  return `${sign}$${dollars}.${String(abs % 100).padStart(2, '0')}`;
-}
 
 const basisPointsAsPercent = (bp: number) => `${(bp / 100).toLocaleString('en-US', { maximumFractionDigits: 2 })} %`;
 
@@ -113,7 +105,7 @@ export function renderQuotePdf(quote: QuoteVersion): Promise<Buffer> {
       const where = placeLabel(line.room, line.location);
       const extras = [line.adders.length ? `site: ${line.adders.map((a) => a.name).join(', ')}` : null, line.isQuantityAssumed ? 'quantity assumed, to be confirmed on site' : null].filter(Boolean).join('; ');
       const description = `${line.entry?.name ?? findingLabel(line.code)} — ${where}${extras ? ` (${extras})` : ''}`;
-      row(description, quantityLabel(line.quantity, line.entry?.unit), formatUsd(line.lineCents));
+      row(description, quantityLabel(line.quantity, line.entry?.unit), formatCents(line.lineCents));
     }
     doc.font('body').fontSize(9).fillColor(MUTED).text('Line amounts hold the labour share, materials with markup and flat-rate prices; the charges of each visit follow.', MARGIN, doc.y, { width: CONTENT_WIDTH });
 
@@ -129,12 +121,12 @@ export function renderQuotePdf(quote: QuoteVersion): Promise<Buffer> {
       ['Markup on materials', b.materialsMarkupCents],
       ['Permit fee and handling', b.permitCents],
     ];
-    for (const [label, cents] of totals) if (cents > 0) row(label, '', formatUsd(cents));
-    if (visitAdderLabour > 0) paragraph(`Labour includes ${formatUsd(visitAdderLabour)} for site conditions of the visit as a whole.`, 9, MUTED);
-    row('Subtotal', '', formatUsd(b.subtotalCents), 'strong');
-    row('Sales tax on materials', '', formatUsd(b.materialsTaxCents));
-    row('Total', '', formatUsd(b.totalCents), 'strong');
-    row(`Deposit when paying by card (${basisPointsAsPercent(quote.cardDepositBp)})`, '', formatUsd(b.depositCents));
+    for (const [label, cents] of totals) if (cents > 0) row(label, '', formatCents(cents));
+    if (visitAdderLabour > 0) paragraph(`Labour includes ${formatCents(visitAdderLabour)} for site conditions of the visit as a whole.`, 9, MUTED);
+    row('Subtotal', '', formatCents(b.subtotalCents), 'strong');
+    row('Sales tax on materials', '', formatCents(b.materialsTaxCents));
+    row('Total', '', formatCents(b.totalCents), 'strong');
+    row(`Deposit when paying by card (${basisPointsAsPercent(quote.cardDepositBp)})`, '', formatCents(b.depositCents));
 
     const declined = quote.lines.filter((l) => l.kind === 'out-of-scope');
     if (declined.length) {
@@ -146,10 +138,10 @@ export function renderQuotePdf(quote: QuoteVersion): Promise<Buffer> {
       const ch = quote.changes;
       heading(`Changes since version ${ch.previousVersion}`);
       const what = (l: { code: string; location: string }) => `${findingLabel(l.code)}${l.location ? ` — ${l.location}` : ''}`;
-      for (const l of ch.added) paragraph(`Added: ${what(l)}, ${formatUsd(l.lineCents)}`);
-      for (const l of ch.removed) paragraph(`Removed: ${what(l)}, was ${formatUsd(l.lineCents)}`);
-      for (const l of ch.changed) paragraph(`Changed: ${what(l)}, ${formatUsd(l.previousLineCents)} → ${formatUsd(l.lineCents)}`);
-      paragraph(`Total ${formatUsd(ch.previousTotalCents)} → ${formatUsd(b.totalCents)} (${ch.totalDeltaCents >= 0 ? '+' : ''}${formatUsd(ch.totalDeltaCents)})`);
+      for (const l of ch.added) paragraph(`Added: ${what(l)}, ${formatCents(l.lineCents)}`);
+      for (const l of ch.removed) paragraph(`Removed: ${what(l)}, was ${formatCents(l.lineCents)}`);
+      for (const l of ch.changed) paragraph(`Changed: ${what(l)}, ${formatCents(l.previousLineCents)} → ${formatCents(l.lineCents)}`);
+      paragraph(`Total ${formatCents(ch.previousTotalCents)} → ${formatCents(b.totalCents)} (${formatCentsDelta(ch.totalDeltaCents)})`);
     }
 
     section('Warranty', quote.warrantyText);
@@ -163,7 +155,7 @@ export function renderQuotePdf(quote: QuoteVersion): Promise<Buffer> {
 /** Where the seller accepts the quote in writing, kept whole on one page. */
 function acceptance(doc: PDFKit.PDFDocument, quote: QuoteVersion, ensureSpace: (height: number) => void, heading: (text: string) => void): void {
   const text =
-    `The seller accepts the work quoted above, version ${quote.version} of quote ${quote.requestReference}, for ${formatUsd(quote.breakdown.totalCents)}, ` +
+    `The seller accepts the work quoted above, version ${quote.version} of quote ${quote.requestReference}, for ${formatCents(quote.breakdown.totalCents)}, ` +
     `at the prices valid until ${formatDay(quote.validUntil)}, and authorises ${quote.contractor.name} to carry it out under the terms above.`;
   doc.font('body').fontSize(10);
   ensureSpace(40 + doc.heightOfString(text, { width: CONTENT_WIDTH }) + 110);

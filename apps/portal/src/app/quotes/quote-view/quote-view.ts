@@ -13,8 +13,8 @@ import { placeLabel, quantityLabel, QuoteVersion, QuoteVersionSummary } from '@c
 import { catchError, combineLatest, map, of, switchMap } from 'rxjs';
 import { Auth } from '../../core/auth/auth';
 import { describeFailure } from '../../core/http/api-error-of';
-import { codeLabel } from '../../pricing/code-label';
-import { formatCents, formatCentsDelta, MoneyPipe } from '../../pricing/money/money';
+import { codeLabel } from '../../ui/code-label';
+import { formatCents, formatCentsDelta, MoneyPipe } from '../../ui/money/money';
 import { PricingTotals } from '../../pricing/pricing-totals/pricing-totals';
 import { QuotesApi } from '../quotes-api';
 import { VersionChanges } from '../version-changes/version-changes';

@@ -1,0 +1,149 @@
+import { DEFAULT_VISIT_KEY, itemStateAfter, PRICING_ITEM_STATES, type FindingCode, type ItemStatus, type LineItem, type PricingFields, type Room, type Severity } from '@cc/shared';
+import type { Db, Trx } from '../db/knex';
+import type { LineItemRow } from '../db/tables';
+
+const TABLE = 'line_items';
+
+/** A line item as stored; the service adds what is computed (edition notes). */
+export type StoredLineItem = Omit<LineItem, 'editionNote'>;
+
+export function toLineItem(row: LineItemRow): StoredLineItem {
+  return {
+    id: row.id,
+    requestId: row.request_id,
+    code: row.code as FindingCode,
+    room: row.room as Room,
+    location: row.location ?? '',
+    quantity: row.quantity,
+    evidence: row.evidence,
+    page: row.page,
+    reportFileId: row.report_file_id,
+    evidenceStart: row.evidence_start,
+    evidenceEnd: row.evidence_end,
+    severity: row.severity as Severity,
+    necRefs: row.nec_refs,
+    status: row.status as ItemStatus,
+    isEdited: row.is_edited,
+    version: row.version,
+  };
+}
+
+export interface NewLineItem {
+  requestId: number;
+  code: FindingCode;
+  room: Room;
+  location: string;
+  quantity: number | null;
+  evidence: string | null;
+  page: number | null;
+  severity: Severity;
+  necRefs: string[];
+  status: ItemStatus;
+  isEdited: boolean;
+  reportFileId: number | null;
+  evidenceStart: number | null;
+  evidenceEnd: number | null;
+}
+
+/** What a change writes on an item: the review's fields and the pricing's. */
+export type LineItemChanges = Partial<Pick<NewLineItem, 'code' | 'room' | 'location' | 'quantity' | 'severity' | 'necRefs' | 'status' | 'isEdited' | 'evidence'>> & PricingFields;
+
+const REMOVED: ItemStatus = itemStateAfter('remove');
+const PROPOSED: ItemStatus = itemStateAfter('propose');
+
+function toRow(item: LineItemChanges & Partial<NewLineItem>): Partial<LineItemRow> {
+  const row: Partial<LineItemRow> = {};
+  if (item.requestId !== undefined) row.request_id = item.requestId;
+  if (item.code !== undefined) row.code = item.code;
+  if (item.room !== undefined) row.room = item.room;
+  if (item.location !== undefined) row.location = item.location;
+  if (item.quantity !== undefined) row.quantity = item.quantity;
+  if (item.evidence !== undefined) row.evidence = item.evidence;
+  if (item.page !== undefined) row.page = item.page;
+  if (item.severity !== undefined) row.severity = item.severity;
+  if (item.necRefs !== undefined) row.nec_refs = item.necRefs;
+  if (item.status !== undefined) row.status = item.status;
+  if (item.isEdited !== undefined) row.is_edited = item.isEdited;
+  if (item.reportFileId !== undefined) row.report_file_id = item.reportFileId;
+  if (item.evidenceStart !== undefined) row.evidence_start = item.evidenceStart;
+  if (item.evidenceEnd !== undefined) row.evidence_end = item.evidenceEnd;
+  if (item.entryId !== undefined) row.entry_id = item.entryId;
+  if (item.adderIds !== undefined) row.adder_ids = [...item.adderIds];
+  if (item.pricingQuantity !== undefined) row.pricing_quantity = item.pricingQuantity;
+  if (item.isQuantityAssumed !== undefined) row.is_quantity_assumed = item.isQuantityAssumed;
+  if (item.visitKey !== undefined) row.visit_key = item.visitKey;
+  if (item.outOfScopeReason !== undefined) row.out_of_scope_reason = item.outOfScopeReason;
+  return row;
+}
+
+/** The one writer of `line_items` (the pricing repository only reads them). */
+export class LineItemRepository {
+  constructor(private readonly db: Db) {}
+
+  /** Items of a request in reading order (report position, then creation), removed ones left out. */
+  async listForRequest(requestId: number, trx?: Trx): Promise<StoredLineItem[]> {
+    const rows = await (trx ?? this.db)<LineItemRow>(TABLE)
+      .where({ request_id: requestId })
+      .whereNot({ status: REMOVED })
+      .orderByRaw('report_file_id NULLS LAST, evidence_start NULLS LAST, id');
+    return rows.map(toLineItem);
+  }
+
+  async findInRequest(requestId: number, id: number, trx?: Trx): Promise<StoredLineItem | null> {
+    const row = await (trx ?? this.db)<LineItemRow>(TABLE).where({ request_id: requestId, id }).whereNot({ status: REMOVED }).first();
+    return row ? toLineItem(row) : null;
+  }
+
+  async insert(items: NewLineItem[], trx: Trx): Promise<number[]> {
+    if (items.length === 0) return [];
+    const rows = await trx<LineItemRow>(TABLE).insert(items.map((i) => toRow(i))).returning('id');
+    return rows.map((r) => r.id);
+  }
+
+  /** Applies `changes` only if the item is still at `version`; returns whether it was. */
+  async update(id: number, version: number, changes: LineItemChanges, trx: Trx): Promise<boolean> {
+    const updated = await trx<LineItemRow>(TABLE)
+      .where({ id, version })
+      .update({ ...toRow(changes), version: version + 1, updated_at: new Date() });
+    return updated === 1;
+  }
+
+  /** Unedited proposals read from `reportFileId`: the ones a re-read may replace. */
+  async uneditedProposals(reportFileId: number, trx: Trx): Promise<StoredLineItem[]> {
+    const rows = await trx<LineItemRow>(TABLE).where({ report_file_id: reportFileId, status: PROPOSED, is_edited: false });
+    return rows.map(toLineItem);
+  }
+
+  /** Where the items read from a report sit in its text: code, start of the evidence, whether a person edited the item. */
+  async placesInReport(reportFileId: number, trx: Trx): Promise<{ code: string; evidenceStart: number | null; isEdited: boolean }[]> {
+    const rows: { code: string; evidence_start: number | null; is_edited: boolean }[] = await trx(TABLE)
+      .where({ report_file_id: reportFileId })
+      .select('code', 'evidence_start', 'is_edited');
+    return rows.map((r) => ({ code: r.code, evidenceStart: r.evidence_start, isEdited: r.is_edited }));
+  }
+
+  /**
+   * Clears what a contractor set while pricing (entries, conditions, quantities, visits, "not our
+   * scope"): it refers to the rate book of a contractor who no longer has the request.
+   */
+  async clearPricing(requestId: number, trx: Trx): Promise<void> {
+    await trx(TABLE)
+      .where({ request_id: requestId })
+      .whereIn('status', [...PRICING_ITEM_STATES])
+      .update({
+        status: itemStateAfter('confirm'),
+        entry_id: null,
+        adder_ids: [],
+        pricing_quantity: null,
+        is_quantity_assumed: false,
+        visit_key: DEFAULT_VISIT_KEY,
+        out_of_scope_reason: null,
+        version: trx.raw('version + 1'),
+        updated_at: new Date(),
+      });
+  }
+
+  async deleteByIds(ids: number[], trx: Trx): Promise<void> {
+    if (ids.length) await trx<LineItemRow>(TABLE).whereIn('id', ids).delete();
+  }
+}
