@@ -47,6 +47,7 @@ module.exports = {
       // Uploads of several megabytes and bcrypt sign-ins on a busy 2-core machine outlast jest's 5 s default.
       testTimeout: 20_000,
       testMatch: ['<rootDir>/test/api/**/*.api.spec.ts'],
+      setupFilesAfterEnv: ['<rootDir>/test/helpers/slow-machine-timeout.ts'],
       testEnvironment: '<rootDir>/test/helpers/pdf-environment.js',
       globalSetup: '<rootDir>/test/helpers/api-global-setup.ts',
     },
