@@ -35,6 +35,7 @@ function quoteWith(lineCount: number): QuoteVersion {
       flatCents: priced.flatCents,
       lineCents: priced.labourCents + priced.materialsCents + priced.flatCents,
       outOfScopeReason: null,
+      editionNote: null,
     };
   });
   quoteLines.push({ ...quoteLines[0], lineItemId: 99, kind: 'out-of-scope', code: 'service-equipment', room: 'exterior', location: 'service mast', entry: null, quantity: null, lineCents: 0, outOfScopeReason: 'Utility-side work' });

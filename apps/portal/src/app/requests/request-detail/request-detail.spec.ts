@@ -68,11 +68,20 @@ describe('RequestDetail', () => {
     httpTesting.expectOne('/api/requests/12/items').flush([]);
     // Agents of a request in draft get the contractor picker, which lists the contractors.
     httpTesting.match('/api/contractors').forEach((req) => req.flush([]));
+    flushActivity();
     await fixture.whenStable();
     return fixture.nativeElement;
   }
 
-  afterEach(() => httpTesting.verify());
+  /** The activity timeline reads the request's entries (none in these cases). */
+  function flushActivity(): void {
+    httpTesting.match((r) => r.url === '/api/requests/12/activity').forEach((req) => req.flush({ items: [], total: 0, page: 0, pageSize: 20 }));
+  }
+
+  afterEach(() => {
+    flushActivity();
+    httpTesting.verify();
+  });
 
   it('shows the property, the countdown to closing, the contractor licence and the empty line items', async () => {
     const host = await render('agent', ['buyer-agent']);
@@ -98,13 +107,13 @@ describe('RequestDetail', () => {
     expect(host.querySelector('cc-invite-party-form')).toBeNull();
   });
 
-  it('invites a party, shows the link to pass on (no e-mail is sent yet) and the request the server answers with', async () => {
+  it('invites a party, shows the link to pass on if the e-mail does not arrive and the request the server answers with', async () => {
     await render('agent', ['buyer-agent']);
     await (await loader.getHarness(MatSelectHarness.with({ selector: '[data-testid="invite-role"]' }))).clickOptions({
       text: 'Home inspector',
     });
     await (await loader.getHarness(MatInputHarness.with({ selector: '[data-testid="invite-email"]' }))).setValue('Ivy@Inspect.example');
-    await (await loader.getHarness(MatButtonHarness.with({ text: 'Make invitation link' }))).click();
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Send invitation' }))).click();
 
     const req = httpTesting.expectOne('/api/requests/12/parties');
     expect(req.request.body).toEqual({ role: 'inspector', email: 'ivy@inspect.example' });
@@ -116,7 +125,7 @@ describe('RequestDetail', () => {
     const links = Array.from((fixture.nativeElement as HTMLElement).querySelectorAll('[data-testid="invite-url"]')).map((el) => el.textContent);
     expect(links).toEqual(['http://localhost/invite/abc', 'http://localhost/invite/def']);
     const made = (fixture.nativeElement as HTMLElement).querySelector('[data-testid="invite-made"]')?.textContent ?? '';
-    expect(made).toContain('No e-mail is sent yet');
+    expect(made).toContain('If it does not arrive');
     expect(made).not.toContain('Invitation sent');
     expect((fixture.nativeElement as HTMLElement).querySelector('[data-testid="invite-made-url"]')?.textContent).toBe('http://localhost/invite/def');
   });

@@ -10,6 +10,7 @@ import { catchError, map, of, switchMap } from 'rxjs';
 import { Auth } from '../../core/auth/auth';
 import { describeFailure } from '../../core/http/api-error-of';
 import { Notice } from '../../core/http/notice';
+import { ActivityTimeline } from '../../activity/activity-timeline/activity-timeline';
 import { IntakePanel } from '../../intake/intake-panel/intake-panel';
 import { RequestPricingLinks } from '../../pricing/request-pricing-links/request-pricing-links';
 import { DaysToClosing } from '../../ui/days-to-closing/days-to-closing';
@@ -43,6 +44,7 @@ type Loaded = { detail: RepairRequestDetail; error?: undefined } | { detail?: un
     IntakePanel,
     RequestPricingLinks,
     NextStepPanel,
+    ActivityTimeline,
   ],
   templateUrl: './request-detail.html',
   styleUrl: './request-detail.scss',
@@ -90,8 +92,9 @@ export class RequestDetail {
     this.notice.success(`${detail.contractor?.name ?? 'The contractor'} is now the request's contractor.`);
   }
 
-  /** The form itself says what happened (the link to pass on); e-mail is not sent yet. */
+  /** The form also shows the link, to pass on by hand if the e-mail does not arrive. */
   protected showInvited(detail: RepairRequestDetail): void {
     this.detail.set(detail);
+    this.notice.success('Invitation e-mailed. The link is also shown beside their name, to pass on if the e-mail does not arrive.');
   }
 }
