@@ -12,10 +12,10 @@ import { buildPortalIfStale } from './lib/portal-build.mjs';
 import { freePort } from './lib/ports.mjs';
 import { startCluster } from './lib/postgres.mjs';
 import { run, runAsync } from './lib/run.mjs';
+import { TYPECHECK_PROJECTS } from './lib/typecheck-projects.mjs';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 const bin = (name) => join(root, 'node_modules/.bin', name);
-const TYPECHECK_PROJECTS = ['shared/tsconfig.json', 'server/tsconfig.json', 'test/tsconfig.json', 'apps/portal/tsconfig.app.json', 'apps/portal/tsconfig.spec.json'];
 
 ensureDependencies(root);
 const chromium = ensureChromium();

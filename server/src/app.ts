@@ -71,7 +71,8 @@ export function createApp(config: Config, db: Db): App {
   const portal = resolve(config.portalDist);
   if (existsSync(join(portal, 'index.html'))) {
     app.use(express.static(portal, { index: false, maxAge: '1h' }));
-    app.get('/*splat', (_req, res) => res.sendFile(join(portal, 'index.html')));
+    // '/{*splat}' also matches the root itself ('/*splat' does not), so the printed address opens the portal.
+    app.get('/{*splat}', (_req, res) => res.sendFile(join(portal, 'index.html')));
   }
   app.use(errorHandler);
 

@@ -73,7 +73,7 @@ export function createServices(db: Db, config: Config) {
     dashboards: new DashboardsService(new DashboardsRepository(db)),
     storage,
     auth: new AuthService(users, passwords),
-    admin: new AdminService(users, organisations, passwords),
+    admin: new AdminService(users, organisations, passwords, db),
     requests: requestsService,
     invitations: new InvitationsService(db, requests, users, passwords),
     reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, readPdfPages, flow, notifications),

@@ -35,6 +35,7 @@ export * from './findings/room';
 export * from './findings/finding.schema';
 export * from './findings/report-parser';
 export * from './rate-book/rate-book-entry.schema';
+export * from './rate-book/unit-label';
 export * from './rate-book/site-adder-record.schema';
 export * from './rate-book/rate-book-terms.schema';
 export * from './rate-book/contractor-rate-book.schema';

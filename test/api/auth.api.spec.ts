@@ -17,6 +17,21 @@ describe('GET /api/health', () => {
   });
 });
 
+describe('GET /api/auth/session', () => {
+  it('answers 200 with no user for a visitor (a signed-out page load logs no failed request), and a usable CSRF token', async () => {
+    const user = await createUser(t.db, 'agent');
+    const agent = request.agent(t.app);
+    const visitor = await agent.get('/api/auth/session').expect(200);
+    expect(visitor.body.user).toBeNull();
+    expect(typeof visitor.body.csrfToken).toBe('string');
+    // The visitor's token is the one sign-in accepts.
+    await agent.post('/api/auth/sign-in').set('x-csrf-token', visitor.body.csrfToken).send({ email: user.email, password: PASSWORD }).expect(200);
+    const signedIn = await agent.get('/api/auth/session').expect(200);
+    expect(signedIn.body.user).toMatchObject({ id: user.id, role: 'agent' });
+    expect(signedIn.body.user.passwordHash).toBeUndefined();
+  });
+});
+
 describe('POST /api/auth/sign-in', () => {
   describe('without a CSRF token', () => {
     it('responds 403 and does not sign in', async () => {

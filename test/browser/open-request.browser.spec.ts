@@ -1,6 +1,6 @@
 import { existsSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
+import { expectAccessible, launchBrowser, openPage, portalUrl, screenshot, signInAs } from '../helpers/browser';
 
 jest.setTimeout(60_000);
 
@@ -12,7 +12,7 @@ beforeAll(async () => {
 });
 afterAll(() => browser?.close());
 beforeEach(async () => {
-  page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+  page = await openPage(browser, { viewport: { width: 1280, height: 900 } });
 });
 afterEach(() => page?.close());
 
@@ -22,6 +22,7 @@ describe('a buyer’s agent opens a repair request', () => {
     await page.getByTestId('request-list-heading').waitFor();
     await page.getByTestId('request-list-new').click();
     await page.getByTestId('request-form-heading').waitFor();
+    await expectAccessible(page);
 
     // Submitting an empty form shows field messages and stays on the form.
     await page.getByTestId('request-form-submit').click();
@@ -40,6 +41,7 @@ describe('a buyer’s agent opens a repair request', () => {
     await page.getByTestId('request-detail-heading').waitFor();
     expect(await page.getByTestId('request-detail-heading').textContent()).toContain('77 Juniper Switchback');
     await page.getByTestId('invite-url').first().waitFor();
+    await expectAccessible(page);
 
     await page.goto(portalUrl('/requests'));
     const row = page.getByTestId('request-row').filter({ hasText: '77 Juniper Switchback' });
@@ -90,5 +92,6 @@ describe('what each role sees', () => {
     await signInAs(page, 'jo.fenn@copperleaf.test');
     await page.goto(portalUrl('/requests/1'));
     await page.getByTestId('not-found-heading').or(page.getByText(/no such|not found/i)).first().waitFor();
+    await expectAccessible(page);
   });
 });

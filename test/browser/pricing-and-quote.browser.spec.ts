@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
+import { FINDING_CODE_TABLE } from '@cc/shared';
+import { expectAccessible, launchBrowser, openPage, portalUrl, screenshot, signInAs } from '../helpers/browser';
 
 jest.setTimeout(90_000);
 
@@ -22,7 +23,7 @@ beforeAll(async () => {
 afterAll(() => browser?.close());
 
 async function newPage(): Promise<Page> {
-  return browser.newPage({ viewport: { width: 1440, height: 1000 }, acceptDownloads: true });
+  return openPage(browser, { viewport: { width: 1440, height: 1000 }, acceptDownloads: true });
 }
 
 /** The quote total the server computes itself, read through the same session as the page. */
@@ -47,6 +48,8 @@ describe('pricing a request and sending its quote', () => {
     await signInAs(page, CONTRACTOR);
     await page.getByTestId('nav-job-queue').click();
     await page.getByTestId('pricing-queue-heading').waitFor();
+    await page.getByTestId('pricing-queue-row').first().waitFor();
+    await expectAccessible(page);
     const row = page.getByTestId('pricing-queue-row').filter({ hasText: STREET });
     await row.waitFor();
     expect(await row.getByTestId('pricing-queue-items').textContent()).toContain('4');
@@ -66,10 +69,18 @@ describe('pricing a request and sending its quote', () => {
     const autoTotal = await quoteTotal(page);
     // The portal's live total (shared engine in the browser) is the server's own figure.
     expect(autoTotal).toBe(asDollars(await serverTotalCents(page, requestId)));
+    // The ballpark range shown to the agent holds the quote priced from the same rate book.
+    const range = (await (await page.request.get(portalUrl(`/api/requests/${requestId}/ballpark`))).json()) as { lowCents: number; highCents: number };
+    const autoCents = await serverTotalCents(page, requestId);
+    expect(range.lowCents).toBeLessThanOrEqual(autoCents);
+    expect(autoCents).toBeLessThanOrEqual(range.highCents);
     await screenshot(page, 'pricing-auto-priced');
 
     // Select both GFCI findings at once and give them a site condition.
-    await page.getByTestId('pricing-pick-code').filter({ hasText: 'gfci-missing' }).click();
+    // Plain words on every pick, never the finding code itself.
+    const picks = await page.getByTestId('pricing-pick-code').allTextContents();
+    for (const code of Object.keys(FINDING_CODE_TABLE)) expect(picks.join(' ')).not.toContain(code);
+    await page.getByTestId('pricing-pick-code').filter({ hasText: 'All 2: No ground-fault (GFCI) protection' }).click();
     expect(await page.getByTestId('bulk-selected-count').textContent()).toContain('2 items selected');
     await page.getByRole('checkbox', { name: 'Set site conditions' }).check();
     await page.getByTestId('bulk-adders').click();
@@ -111,6 +122,10 @@ describe('pricing a request and sending its quote', () => {
 
     await row.click();
     await page.getByTestId('request-detail-heading').filter({ hasText: STREET }).waitFor();
+    // The seller sees that the quote waits for them, and that approving is not in the portal yet.
+    expect(await page.getByTestId('next-step-summary').textContent()).toContain('Waits for you (the seller');
+    expect(await page.getByTestId('next-step-outside').first().textContent()).toContain('Not in the portal yet');
+    await expectAccessible(page);
     await page.getByTestId('request-quote-link').click();
     await page.getByTestId('quote-heading').filter({ hasText: 'version 1' }).waitFor();
     expect(page.url()).toContain(`/requests/${requestId}/quotes`);

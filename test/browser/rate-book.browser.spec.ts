@@ -1,5 +1,5 @@
 import type { Browser } from 'playwright-core';
-import { launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
+import { launchBrowser, openPage, portalUrl, screenshot, signInAs } from '../helpers/browser';
 
 jest.setTimeout(60_000);
 
@@ -18,7 +18,7 @@ afterAll(() => browser?.close());
 
 describe('the rate book in the product’s own words', () => {
   it('shows flat-rate entries by their names, modes and finding labels, and exports a CSV in the same words', async () => {
-    const page = await browser.newPage({ viewport: { width: 1366, height: 900 } });
+    const page = await openPage(browser, { viewport: { width: 1366, height: 900 } });
     await signInAs(page, CONTRACTOR);
     await page.goto(portalUrl('/rate-book'));
     await page.getByTestId('rate-book-heading').waitFor();

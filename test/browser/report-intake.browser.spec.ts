@@ -4,7 +4,7 @@ import { existsSync } from 'node:fs';
 import AxeBuilder from '@axe-core/playwright';
 import type { Browser, Page } from 'playwright-core';
 import { REQUEST_STATUS_LABELS } from '@cc/shared';
-import { launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
+import { expectAccessible, launchBrowser, openPage, portalUrl, screenshot, signInAs, watchConsole } from '../helpers/browser';
 import { textPdf } from '../helpers/pdf-fixtures';
 
 jest.setTimeout(90_000);
@@ -41,7 +41,7 @@ beforeAll(async () => {
 });
 afterAll(() => browser?.close());
 beforeEach(async () => {
-  page = await browser.newPage({ viewport: { width: 1440, height: 1000 } });
+  page = await openPage(browser, { viewport: { width: 1440, height: 1000 } });
 });
 afterEach(() => page?.close());
 
@@ -62,10 +62,14 @@ async function openNewRequest(street: string): Promise<void> {
   await page.goto(portalUrl(`/requests/${id}`));
   await page.getByTestId('request-detail-heading').waitFor();
   await page.getByTestId('report-drop-zone').waitFor();
+  await expectAccessible(page);
 }
 
 async function confirmAndExpectPricing(count: number): Promise<void> {
   await page.getByTestId('review-confirm').click();
+  // Confirming cannot be taken back, so the portal asks first.
+  expect(await page.getByTestId('confirm-message').textContent()).toContain('can no longer be changed');
+  await page.getByTestId('confirm-go').click();
   await page.getByTestId('request-detail-status').filter({ hasText: REQUEST_STATUS_LABELS.pricing }).waitFor();
   await page.getByTestId('line-item-status').filter({ hasText: 'Confirmed' }).nth(count - 1).waitFor();
   expect(await page.getByTestId('line-item-row').count()).toBe(count);
@@ -100,9 +104,13 @@ async function selectReportText(needle: string): Promise<void> {
 describe('a buyer’s agent takes in an inspection report', () => {
   it('uploads a PDF, reviews the proposed items beside the highlighted text, edits one and confirms', async () => {
     await openNewRequest('Breaker Hollow');
+    const problems = watchConsole(page);
     await page.getByTestId('report-file-input').setInputFiles({ name: 'inspection-excerpt.pdf', mimeType: 'application/pdf', buffer: await textPdf(PDF_PAGES) });
 
     await page.getByTestId('parse-result-proposed').waitFor();
+    await page.getByTestId('review-item-row').nth(2).waitFor();
+    // The upload loads the lists once: no request started and then cancelled, nothing in the console.
+    expect(problems).toEqual([]);
     expect(await page.getByTestId('parse-result-proposed').textContent()).toBe('3 items proposed');
     // The first report moves the request from draft into review.
     await page.getByTestId('request-detail-status').filter({ hasText: REQUEST_STATUS_LABELS.intake }).waitFor();
@@ -147,6 +155,9 @@ describe('a buyer’s agent takes in an inspection report', () => {
     await page.getByTestId('report-read-again').click();
     // Two untouched proposals read anew; the edited one is kept, not proposed again.
     await page.getByTestId('parse-result-proposed').filter({ hasText: '2 items proposed' }).waitFor();
+    // The banner agrees with the list: the edited item kept from before is counted too.
+    await page.getByTestId('parse-result-kept').filter({ hasText: '1 item kept from before' }).waitFor();
+    expect(await page.getByTestId('parse-result-kept').textContent()).toContain('holds 3 to confirm');
     await rows.nth(2).getByTestId('review-item-location').filter({ hasText: 'garage subpanel, 20 A breaker' }).waitFor();
     expect(await rows.count()).toBe(3);
 

@@ -42,6 +42,6 @@ export default async function globalSetup(): Promise<void> {
   });
   (globalThis as { __serverProcess?: typeof server }).__serverProcess = server;
   process.env.PORTAL_URL = baseUrl;
-  // Generous: on a loaded 2-core machine tsx may take long to compile the server before it listens.
-  await waitForHealth(baseUrl, 120_000);
+  // tsx compiles the server on start; on a busy 2-core machine that takes well over 30 s.
+  await waitForHealth(baseUrl, 180_000);
 }

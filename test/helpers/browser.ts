@@ -1,7 +1,8 @@
 // playwright-core driving Debian's chromium (never a downloaded browser), for the browser tests.
 import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
-import { chromium, type Browser, type Page } from 'playwright-core';
+import AxeBuilder from '@axe-core/playwright';
+import { chromium, type Browser, type BrowserContextOptions, type Page } from 'playwright-core';
 
 export const SCREENSHOTS = join(__dirname, '..', '..', 'test-results', 'screenshots');
 
@@ -20,17 +21,64 @@ export function portalUrl(path = '/'): string {
 
 export const DEMO_PASSWORD = 'marlow-springs-demo';
 
+/**
+ * A page in a context of its own (axe needs one, and nothing leaks between tests); closing the page
+ * closes its context.
+ */
+export async function openPage(browser: Browser, options: BrowserContextOptions = {}): Promise<Page> {
+  const context = await browser.newContext({ viewport: { width: 1366, height: 900 }, ...options });
+  const page = await context.newPage();
+  page.once('close', () => void context.close());
+  return page;
+}
+
+/**
+ * Runs axe-core (@axe-core/playwright) on the page as it stands and fails on any serious or critical
+ * violation. Every browser test calls it on every page it visits.
+ */
+export async function expectAccessible(page: Page): Promise<void> {
+  const results = await new AxeBuilder({ page }).analyze();
+  const blocking = results.violations
+    .filter((v) => v.impact === 'serious' || v.impact === 'critical')
+    .map((v) => `${v.id} (${v.impact}) on ${page.url()}: ${v.help}: ${v.nodes.slice(0, 3).map((n) => n.target.join(' ')).join('; ')}`);
+  expect(blocking).toEqual([]);
+}
+
 export async function signInAs(page: Page, email: string, password = DEMO_PASSWORD): Promise<void> {
   await page.goto(portalUrl('/sign-in'));
+  await page.getByTestId('sign-in-email').waitFor();
+  await expectAccessible(page);
   await page.getByTestId('sign-in-email').fill(email);
   await page.getByTestId('sign-in-password').fill(password);
   await page.getByTestId('sign-in-submit').click();
   await page.getByTestId('signed-in-user').waitFor();
+  await expectAccessible(page);
 }
 
+/** Saves a full-page screenshot after checking the page with axe (a screenshot marks a page the test visits). */
 export async function screenshot(page: Page, name: string): Promise<string> {
+  await expectAccessible(page);
   mkdirSync(SCREENSHOTS, { recursive: true });
   const path = join(SCREENSHOTS, `${name}.png`);
   await page.screenshot({ path, fullPage: true });
   return path;
+}
+
+/** Errors the page writes to its console and requests that fail or are cancelled, to assert none. */
+export function watchConsole(page: Page): string[] {
+  const problems: string[] = [];
+  page.on('console', (m) => {
+    if (m.type() === 'error') problems.push(`console: ${m.text()}`);
+  });
+  page.on('requestfailed', (r) => problems.push(`request failed: ${r.method()} ${r.url()} ${r.failure()?.errorText ?? ''}`));
+  return problems;
+}
+
+/** Tables wider than the viewport (scrollWidth against the window's inner width). */
+export function tablesWiderThanViewport(page: Page): Promise<string[]> {
+  return page.evaluate(() =>
+    [...document.querySelectorAll('table')]
+      .filter((t) => t.scrollWidth > window.innerWidth || t.getBoundingClientRect().right > window.innerWidth + 1)
+      .map((t) => `${t.getAttribute('aria-label') ?? 'table'}: ${t.scrollWidth}px in ${window.innerWidth}px`),
+  );
 }

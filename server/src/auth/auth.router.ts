@@ -1,6 +1,6 @@
 import { Router, type Request } from 'express';
 import rateLimit from 'express-rate-limit';
-import { ChangePasswordSchema, SignInSchema, type ApiError, type CurrentUser, type Session } from '@cc/shared';
+import { ChangePasswordSchema, SignInSchema, type ApiError, type CurrentUser, type Session, type SessionState } from '@cc/shared';
 import type { RouterDeps } from '../http/router-deps';
 import { requireUser, userOf } from '../http/require-user';
 import { UnauthenticatedError } from '../errors';
@@ -47,6 +47,10 @@ export function createAuthRouter(deps: RouterDeps): Router {
     await new Promise<void>((resolve, reject) => req.session.destroy((err) => (err ? reject(err) : resolve())));
     res.clearCookie('cc.sid');
     res.status(204).end();
+  });
+
+  router.get('/session', (req, res) => {
+    res.json({ user: req.user ?? null, csrfToken: csrf.generateToken(req) } satisfies SessionState);
   });
 
   router.get('/me', requireUser, (req, res) => {

@@ -16,7 +16,8 @@ export function createPassport(auth: AuthService, users: UserRepository): Passpo
   );
   passport.serializeUser((user, done) => done(null, user.id));
   passport.deserializeUser((id: number, done) => {
-    users.findById(id).then((user) => done(null, user ?? false), done);
+    // A deactivated account's session no longer finds its user: the person is signed out.
+    users.findActiveById(id).then((user) => done(null, user ?? false), done);
   });
   return passport;
 }

@@ -18,7 +18,7 @@ function toCurrentUser(row: UserWithOrgRow): CurrentUser {
 }
 
 function toUser(row: UserWithOrgRow): User {
-  return { ...toCurrentUser(row), createdAt: row.created_at.toISOString() };
+  return { ...toCurrentUser(row), createdAt: row.created_at.toISOString(), isActive: row.is_active };
 }
 
 export interface NewUser {
@@ -43,14 +43,41 @@ export class UserRepository {
     return row ? toCurrentUser(row) : null;
   }
 
+  /** The user of a session: null once the account is deactivated, which ends every session it has. */
+  async findActiveById(id: number, trx?: Trx): Promise<CurrentUser | null> {
+    const row = await this.withOrg(trx).where(`${TABLE}.id`, id).where(`${TABLE}.is_active`, true).first();
+    return row ? toCurrentUser(row) : null;
+  }
+
+  /** The account as an administrator sees it. */
+  async findUserById(id: number, trx?: Trx): Promise<User | null> {
+    const row = await this.withOrg(trx).where(`${TABLE}.id`, id).first();
+    return row ? toUser(row) : null;
+  }
+
+  async update(id: number, fields: { email: string; name: string; organisationId: number | null }, trx?: Trx): Promise<void> {
+    await (trx ?? this.db)<UserRow>(TABLE)
+      .where({ id })
+      .update({ email: fields.email, name: fields.name, organisation_id: fields.organisationId, updated_at: new Date() });
+  }
+
+  async setActive(id: number, isActive: boolean, trx?: Trx): Promise<void> {
+    await (trx ?? this.db)<UserRow>(TABLE).where({ id }).update({ is_active: isActive, updated_at: new Date() });
+  }
+
+  /** Signs the person out everywhere: deletes every stored session that carries their id. */
+  async endSessions(id: number, trx?: Trx): Promise<void> {
+    await (trx ?? this.db).raw(`DELETE FROM sessions WHERE (sess::jsonb -> 'passport' ->> 'user') = ?`, [String(id)]);
+  }
+
   async findByEmail(email: string, trx?: Trx): Promise<CurrentUser | null> {
     const row = await this.withOrg(trx).whereRaw(`lower(${TABLE}.email) = lower(?)`, [email]).first();
     return row ? toCurrentUser(row) : null;
   }
 
-  /** The stored hash, for the password check only. */
+  /** The stored hash, for the password check only; none for a deactivated account (it cannot sign in). */
   async passwordHashOf(id: number, trx?: Trx): Promise<string | null> {
-    const row = await (trx ?? this.db)<UserRow>(TABLE).where({ id }).first('password_hash');
+    const row = await (trx ?? this.db)<UserRow>(TABLE).where({ id, is_active: true }).first('password_hash');
     return row?.password_hash ?? null;
   }
 

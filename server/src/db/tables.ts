@@ -22,6 +22,7 @@ export interface UserRow {
   password_hash: string;
   role: Role;
   organisation_id: number | null;
+  is_active: boolean;
   created_at: Date;
   updated_at: Date;
 }

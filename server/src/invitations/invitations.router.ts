@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { AcceptInvitationSchema } from '@cc/shared';
+import { AcceptInvitationSchema, type AcceptedInvitation } from '@cc/shared';
 import type { RouterDeps } from '../http/router-deps';
 import { signInAs } from '../auth/auth.router';
 
@@ -15,7 +15,7 @@ export function createInvitationsRouter(deps: RouterDeps): Router {
     const hasBody = req.body && Object.keys(req.body).length > 0;
     const input = hasBody ? AcceptInvitationSchema.parse(req.body) : null;
     const { user, requestId } = await invitations.accept(req.params.token, req.user, input);
-    res.json({ ...(await signInAs(req, user, deps)), requestId });
+    res.json({ ...(await signInAs(req, user, deps)), requestId } satisfies AcceptedInvitation);
   });
 
   return router;

@@ -40,6 +40,22 @@ export class OrganisationRepository {
     return toOrganisation(row);
   }
 
+  async update(id: number, org: CreateOrganisation, trx?: Trx): Promise<Organisation | null> {
+    const [row] = await (trx ?? this.db)<OrganisationRow>(TABLE)
+      .where({ id })
+      .update({
+        name: org.name,
+        phone: org.phone,
+        address: org.address,
+        licence_number: org.licenceNumber,
+        licence_state: org.licenceState,
+        licence_class: org.licenceClass,
+        updated_at: new Date(),
+      })
+      .returning('*');
+    return row ? toOrganisation(row) : null;
+  }
+
   async listByKind(kind: OrganisationKind): Promise<Organisation[]> {
     const rows = await this.db<OrganisationRow>(TABLE).where({ kind }).orderBy('name');
     return rows.map(toOrganisation);

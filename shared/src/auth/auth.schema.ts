@@ -35,3 +35,13 @@ export const SessionSchema = z.object({
   csrfToken: z.string(),
 });
 export type Session = z.infer<typeof SessionSchema>;
+
+/**
+ * Answer of GET /api/auth/session: who is signed in (null for a visitor) and the CSRF token of this
+ * session. Always 200, so a signed-out page load logs no failed request in the browser.
+ */
+export const SessionStateSchema = z.object({
+  user: CurrentUserSchema.nullable(),
+  csrfToken: z.string(),
+});
+export type SessionState = z.infer<typeof SessionStateSchema>;

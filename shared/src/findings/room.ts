@@ -19,3 +19,41 @@ export const ROOMS = [
 ] as const;
 
 export type Room = (typeof ROOMS)[number];
+
+/** Rooms as people say them (portal, quote PDF). */
+export const ROOM_LABELS: Record<Room, string> = {
+  bathroom: 'Bathroom',
+  kitchen: 'Kitchen',
+  garage: 'Garage',
+  exterior: 'Exterior',
+  basement: 'Basement',
+  'crawl-space': 'Crawl space',
+  laundry: 'Laundry',
+  bedroom: 'Bedroom',
+  'living-area': 'Living area',
+  hallway: 'Hallway',
+  attic: 'Attic',
+  panel: 'Electrical panel',
+  dining: 'Dining room',
+  office: 'Office or den',
+  'whole-house': 'Whole house',
+  unknown: 'Not stated',
+};
+
+const capitalised = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
+
+/**
+ * Where an item is, in words: the room and the reader's or agent's location, without saying the room
+ * twice ("Kitchen, countertop left of sink"; a location "kitchen" or "primary bedroom" stands alone).
+ */
+export function placeLabel(room: Room | string, location: string | null | undefined): string {
+  const known = (ROOMS as readonly string[]).includes(room);
+  const roomText = known ? ROOM_LABELS[room as Room] : room ? capitalised(room.replace(/-/g, ' ')) : ROOM_LABELS.unknown;
+  const place = (location ?? '').trim();
+  if (!place) return roomText;
+  if (room === 'unknown' || !room) return capitalised(place);
+  const said = place.toLowerCase();
+  const names = [roomText.toLowerCase(), room.replace(/-/g, ' ')];
+  if (names.some((name) => said.includes(name))) return capitalised(place);
+  return `${roomText}, ${place}`;
+}

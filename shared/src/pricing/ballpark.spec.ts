@@ -16,7 +16,7 @@ describe('ballpark', () => {
   describe('house age', () => {
     const items = [{ code: 'receptacle-damaged', quantity: 4 }];
     it.each([
-      [1948, ['built-before-1960'], ['built-before-1960']],
+      [1948, [], ['built-before-1960']],
       [1995, [], []],
       [null, [], ['built-before-1960']],
     ])('built %p assumes low %j and high %j', (yearBuilt, low, high) => {
@@ -25,23 +25,25 @@ describe('ballpark', () => {
       expect(range.highAdderIds).toEqual(high);
     });
 
-    it('prices an older house higher: 4 × 10 min = 40 min easy; × 1.4 = 56 min', () => {
+    it('prices an older house higher on the hard side only: 4 × 20 min = 80 min, × 1.4 = 112 min; easy side 4 × 10 = 40 min', () => {
       const old = ballpark(book, { yearBuilt: 1948, items });
       const newer = ballpark(book, { yearBuilt: 1995, items });
-      expect(newer.low.labourMinutes).toBe(40);
-      expect(old.low.labourMinutes).toBe(56);
+      expect(newer.high.labourMinutes).toBe(80);
+      expect(old.high.labourMinutes).toBe(112);
+      // A quote need not charge the age condition (no old wiring found), so the easy side leaves it out.
+      expect(old.low.labourMinutes).toBe(40);
     });
   });
 
-  it('applies flagged site conditions to both sides: (10 + 30) × 4 = 160 min easy, (20 + 30) × 4 = 200 hard', () => {
+  it('applies flagged site conditions to the hard side: (20 + 30) × 4 = 200 min; the easy side assumes none: 10 × 4 = 40 min', () => {
     const range = ballpark(book, { yearBuilt: 2001, siteAdderIds: ['tight-box'], items: [{ code: 'receptacle-damaged', quantity: 4 }] });
-    expect(range.low.labourMinutes).toBe(160);
+    expect(range.low.labourMinutes).toBe(40);
     expect(range.high.labourMinutes).toBe(200);
   });
 
-  it(`assumes ${UNKNOWN_QUANTITY.low} units low and ${UNKNOWN_QUANTITY.high} high for "several": switches 2 × 10 and 4 × 20 min`, () => {
+  it(`assumes ${UNKNOWN_QUANTITY.low} units low and ${UNKNOWN_QUANTITY.high} high for "several" (a quote assumes 1 too): switches 1 × 10 and 4 × 20 min`, () => {
     const range = ballpark(book, { yearBuilt: 2001, items: [{ code: 'switch-issue', quantity: null }] });
-    expect(range.low.labourMinutes).toBe(20);
+    expect(range.low.labourMinutes).toBe(10);
     expect(range.high.labourMinutes).toBe(80);
   });
 

@@ -113,7 +113,7 @@ describe('docs/pricing.md worked examples', () => {
     });
 
     it.each([
-      ['low', 46_178, 46_000],
+      ['low', 31_774, 31_000],
       ['high', 53_857, 54_000],
     ] as const)('gives the hand-computed %s figure, rounded to $10', (side, exact, rounded) => {
       expect(range[side].exactCents).toBe(exact);

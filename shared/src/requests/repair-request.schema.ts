@@ -1,4 +1,5 @@
 import * as z from 'zod';
+import { SessionSchema } from '../auth/auth.schema';
 import { PageQuerySchema } from '../http/page';
 import { NecEditionSchema } from './nec-edition';
 import { RequestStatusSchema } from './request-status';
@@ -156,3 +157,7 @@ export const AcceptInvitationSchema = z.object({
   password: z.string().min(10, 'Use at least 10 characters').max(200),
 });
 export type AcceptInvitation = z.infer<typeof AcceptInvitationSchema>;
+
+/** Answer of accepting an invitation: the new session and the request the invitation was for. */
+export const AcceptedInvitationSchema = SessionSchema.extend({ requestId: z.number().int() });
+export type AcceptedInvitation = z.infer<typeof AcceptedInvitationSchema>;

@@ -61,6 +61,11 @@ export const routes: Routes = [
       import('./admin/people-and-organisations/people-and-organisations').then((m) => m.PeopleAndOrganisations),
   },
   {
+    path: 'not-for-your-role',
+    title: 'Not part of your account · Closing Circuit',
+    loadComponent: () => import('./not-for-role/not-for-role').then((m) => m.NotForRole),
+  },
+  {
     path: '**',
     title: 'Page not found · Closing Circuit',
     loadComponent: () => import('./not-found/not-found').then((m) => m.NotFound),

@@ -1,6 +1,6 @@
 import { dirname, join } from 'node:path';
 import PDFDocument from 'pdfkit';
-import { formatCents, formatCentsDelta, type QuoteVersion } from '@cc/shared';
+import { FINDING_CODE_TABLE, formatCents, formatCentsDelta, placeLabel, quantityLabel, type QuoteVersion } from '@cc/shared';
 
 // The quote as a PDF to download: Letter pages, Source Sans 3 (the portal's typeface, from the
 // `source-sans` package: pdfkit embeds TrueType/OpenType, not woff2) embedded as a subset.
@@ -14,6 +14,17 @@ const CONTENT_WIDTH = PAGE_WIDTH - 2 * MARGIN;
 const AMOUNT_WIDTH = 90;
 const QTY_WIDTH = 50;
 const MUTED = '#555555';
+/** Room kept free at the foot of each page for the page number. */
+const FOOTER_HEIGHT = 24;
+
+/** "Dec 2, 2026", as the portal writes a date (Angular's mediumDate), from `YYYY-MM-DD` or a timestamp. */
+export function formatDay(iso: string): string {
+  const day = new Date(`${iso.slice(0, 10)}T12:00:00Z`);
+  return new Intl.DateTimeFormat('en-US', { month: 'short', day: 'numeric', year: 'numeric', timeZone: 'UTC' }).format(day);
+}
+
+/** The plain-words label of a finding code (the code itself only for one the table does not know). */
+const findingLabel = (code: string) => (code in FINDING_CODE_TABLE ? FINDING_CODE_TABLE[code as keyof typeof FINDING_CODE_TABLE].label : code);
 
 const basisPointsAsPercent = (bp: number) => `${(bp / 100).toLocaleString('en-US', { maximumFractionDigits: 2 })} %`;
 
@@ -38,6 +49,8 @@ export function renderQuotePdf(quote: QuoteVersion): Promise<Buffer> {
     const doc = new PDFDocument({
       size: 'LETTER',
       margin: MARGIN,
+      // Kept in memory so that "Page n of N" can be written on every page once the last one exists.
+      bufferPages: true,
       info: { Title: `Quote ${quote.requestReference} version ${quote.version}`, Author: quote.contractor.name, Subject: 'Electrical repair quote' },
     });
     const chunks: Buffer[] = [];
@@ -47,7 +60,7 @@ export function renderQuotePdf(quote: QuoteVersion): Promise<Buffer> {
     doc.registerFont('body', REGULAR);
     doc.registerFont('strong', SEMIBOLD);
 
-    const bottom = () => doc.page.height - MARGIN;
+    const bottom = () => doc.page.height - MARGIN - FOOTER_HEIGHT;
     const ensureSpace = (height: number) => {
       if (doc.y + height > bottom()) doc.addPage();
     };
@@ -58,6 +71,13 @@ export function renderQuotePdf(quote: QuoteVersion): Promise<Buffer> {
     };
     const paragraph = (text: string, size = 10, color = 'black') => {
       doc.font('body').fontSize(size).fillColor(color).text(text, MARGIN, doc.y, { width: CONTENT_WIDTH });
+    };
+    /** A heading kept on the same page as the start of its paragraph. */
+    const section = (title: string, text: string) => {
+      doc.font('body').fontSize(10);
+      ensureSpace(40 + Math.min(doc.heightOfString(text, { width: CONTENT_WIDTH }), 60));
+      heading(title);
+      paragraph(text);
     };
     /** A row of description, quantity and amount, kept together on one page. */
     const row = (description: string, qty: string, amount: string, font: 'body' | 'strong' = 'body') => {
@@ -82,7 +102,7 @@ export function renderQuotePdf(quote: QuoteVersion): Promise<Buffer> {
     doc.moveDown(1);
     doc.font('strong').fontSize(14).fillColor('black').text(`Quote ${quote.requestReference}, version ${quote.version}`, { width: CONTENT_WIDTH });
     paragraph(`${quote.property.street}, ${quote.property.city}, ${quote.property.state} ${quote.property.zip}`);
-    paragraph(`Sent ${quote.sentAt.slice(0, 10)}${quote.sentByName ? ` by ${quote.sentByName}` : ''} · Prices valid until ${quote.validUntil}`, 10, MUTED);
+    paragraph(`Sent ${formatDay(quote.sentAt)}${quote.sentByName ? ` by ${quote.sentByName}` : ''} · Prices valid until ${formatDay(quote.validUntil)}`, 10, MUTED);
     paragraph(quote.isCurrent ? 'This is the current version of the quote.' : 'A later version of this quote has been sent; this version is superseded.', 10, MUTED);
     if (quote.note) {
       doc.moveDown(0.5);
@@ -93,10 +113,10 @@ export function renderQuotePdf(quote: QuoteVersion): Promise<Buffer> {
     row('Item', 'Qty', 'Amount', 'strong');
     const priced = quote.lines.filter((l) => l.kind === 'priced');
     for (const line of priced) {
-      const where = [line.location, line.room !== 'unknown' ? line.room : null].filter(Boolean).join(', ');
+      const where = placeLabel(line.room, line.location);
       const extras = [line.adders.length ? `site: ${line.adders.map((a) => a.name).join(', ')}` : null, line.isQuantityAssumed ? 'quantity assumed, to be confirmed on site' : null].filter(Boolean).join('; ');
-      const description = `${line.entry?.name ?? line.code}${where ? ` — ${where}` : ''}${extras ? ` (${extras})` : ''}`;
-      row(description, String(line.quantity ?? ''), formatCents(line.lineCents));
+      const description = `${line.entry?.name ?? findingLabel(line.code)} — ${where}${extras ? ` (${extras})` : ''}`;
+      row(description, quantityLabel(line.quantity, line.entry?.unit), formatCents(line.lineCents));
       if (line.editionNote) paragraph(`Code when built: ${line.editionNote.summary}`, 8.5, MUTED);
     }
     doc.font('body').fontSize(9).fillColor(MUTED).text('Line amounts hold the labour share, materials with markup and flat-rate prices; the charges of each visit follow.', MARGIN, doc.y, { width: CONTENT_WIDTH });
@@ -123,15 +143,16 @@ export function renderQuotePdf(quote: QuoteVersion): Promise<Buffer> {
     const declined = quote.lines.filter((l) => l.kind === 'out-of-scope');
     if (declined.length) {
       heading('Not in our scope');
-      for (const line of declined) paragraph(`${line.code}${line.location ? ` — ${line.location}` : ''}: ${line.outOfScopeReason ?? ''}`);
+      for (const line of declined) paragraph(`${findingLabel(line.code)} — ${placeLabel(line.room, line.location)}: ${line.outOfScopeReason ?? ''}`);
     }
 
     if (quote.changes) {
       const ch = quote.changes;
       heading(`Changes since version ${ch.previousVersion}`);
-      for (const l of ch.added) paragraph(`Added: ${l.code}${l.location ? ` — ${l.location}` : ''}, ${formatCents(l.lineCents)}`);
-      for (const l of ch.removed) paragraph(`Removed: ${l.code}${l.location ? ` — ${l.location}` : ''}, was ${formatCents(l.lineCents)}`);
-      for (const l of ch.changed) paragraph(`Changed: ${l.code}${l.location ? ` — ${l.location}` : ''}, ${formatCents(l.previousLineCents)} → ${formatCents(l.lineCents)}`);
+      const what = (l: { code: string; location: string }) => `${findingLabel(l.code)}${l.location ? ` — ${l.location}` : ''}`;
+      for (const l of ch.added) paragraph(`Added: ${what(l)}, ${formatCents(l.lineCents)}`);
+      for (const l of ch.removed) paragraph(`Removed: ${what(l)}, was ${formatCents(l.lineCents)}`);
+      for (const l of ch.changed) paragraph(`Changed: ${what(l)}, ${formatCents(l.previousLineCents)} → ${formatCents(l.lineCents)}`);
       paragraph(`Total ${formatCents(ch.previousTotalCents)} → ${formatCents(b.totalCents)} (${formatCentsDelta(ch.totalDeltaCents)})`);
     }
 
@@ -146,12 +167,51 @@ export function renderQuotePdf(quote: QuoteVersion): Promise<Buffer> {
       }
     }
 
-    heading('Warranty');
-    paragraph(quote.warrantyText);
-    heading('Safety and permits');
-    paragraph(quote.safetyNotice);
-    doc.moveDown(1);
-    paragraph(`Prices in US dollars. ${quote.requestReference} · quote version ${quote.version}.`, 9, MUTED);
+    section('Warranty', quote.warrantyText);
+    section('Safety and permits', quote.safetyNotice);
+    acceptance(doc, quote, ensureSpace, heading);
+    pageNumbers(doc, `${quote.requestReference} · quote version ${quote.version} · prices in US dollars`);
     doc.end();
   });
+}
+
+/** Where the seller accepts the quote in writing, kept whole on one page. */
+function acceptance(doc: PDFKit.PDFDocument, quote: QuoteVersion, ensureSpace: (height: number) => void, heading: (text: string) => void): void {
+  const text =
+    `The seller accepts the work quoted above, version ${quote.version} of quote ${quote.requestReference}, for ${formatCents(quote.breakdown.totalCents)}, ` +
+    `at the prices valid until ${formatDay(quote.validUntil)}, and authorises ${quote.contractor.name} to carry it out under the terms above.`;
+  doc.font('body').fontSize(10);
+  ensureSpace(40 + doc.heightOfString(text, { width: CONTENT_WIDTH }) + 110);
+  heading('Acceptance');
+  doc.font('body').fontSize(10).fillColor('black').text(text, MARGIN, doc.y, { width: CONTENT_WIDTH });
+  const fields: [string, string][] = [
+    ['Seller’s name', 'Date'],
+    ['Seller’s signature', ''],
+  ];
+  const half = (CONTENT_WIDTH - 24) / 2;
+  for (const [left, right] of fields) {
+    doc.moveDown(2.2);
+    const y = doc.y;
+    doc.moveTo(MARGIN, y).lineTo(MARGIN + (right ? half : CONTENT_WIDTH), y).strokeColor('#888888').lineWidth(0.7).stroke();
+    if (right) doc.moveTo(MARGIN + half + 24, y).lineTo(MARGIN + CONTENT_WIDTH, y).stroke();
+    doc.font('body').fontSize(8).fillColor(MUTED).text(left, MARGIN, y + 3, { width: half });
+    if (right) doc.text(right, MARGIN + half + 24, y + 3, { width: half });
+    doc.x = MARGIN;
+  }
+}
+
+/** "Page n of N" and the quote's reference at the foot of every page. */
+function pageNumbers(doc: PDFKit.PDFDocument, reference: string): void {
+  const { start, count } = doc.bufferedPageRange();
+  for (let i = start; i < start + count; i++) {
+    doc.switchToPage(i);
+    // Writing inside the bottom margin would start a new page: lift the margin while the footer is written.
+    const margin = doc.page.margins.bottom;
+    doc.page.margins.bottom = 0;
+    const y = doc.page.height - MARGIN - 10;
+    doc.font('body').fontSize(8).fillColor(MUTED);
+    doc.text(reference, MARGIN, y, { width: CONTENT_WIDTH / 2, lineBreak: false });
+    doc.text(`Page ${i - start + 1} of ${count}`, MARGIN + CONTENT_WIDTH / 2, y, { width: CONTENT_WIDTH / 2, align: 'right', lineBreak: false });
+    doc.page.margins.bottom = margin;
+  }
 }

@@ -1,6 +1,6 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
-import { CreateOrganisation, CreateUser, Organisation, Page, User } from '@cc/shared';
+import { CreateOrganisation, CreateUser, Organisation, Page, PasswordReset, UpdateUser, User } from '@cc/shared';
 import { Observable } from 'rxjs';
 import { PageRequest } from '../core/http/paged-list';
 
@@ -15,6 +15,22 @@ export class AdminApi {
 
   createOrganisation(dto: CreateOrganisation): Observable<Organisation> {
     return this.http.post<Organisation>('/api/admin/organisations', dto);
+  }
+
+  updateOrganisation(id: number, dto: CreateOrganisation): Observable<Organisation> {
+    return this.http.put<Organisation>(`/api/admin/organisations/${id}`, dto);
+  }
+
+  updateUser(id: number, dto: UpdateUser): Observable<User> {
+    return this.http.patch<User>(`/api/admin/users/${id}`, dto);
+  }
+
+  setUserActive(id: number, isActive: boolean): Observable<User> {
+    return this.http.put<User>(`/api/admin/users/${id}/active`, { isActive });
+  }
+
+  resetPassword(id: number): Observable<PasswordReset> {
+    return this.http.post<PasswordReset>(`/api/admin/users/${id}/password-reset`, {});
   }
 
   users(request: PageRequest): Observable<Page<User>> {

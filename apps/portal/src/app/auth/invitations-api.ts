@@ -1,6 +1,6 @@
 import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
-import { AcceptInvitation, Invitation, Session } from '@cc/shared';
+import { AcceptedInvitation, AcceptInvitation, Invitation } from '@cc/shared';
 import { Observable } from 'rxjs';
 
 /** Invitation links sent to the parties of a sale. */
@@ -13,7 +13,7 @@ export class InvitationsApi {
   }
 
   /** New account: name and password. Already signed in as the invited e-mail: no body fields. */
-  accept(token: string, dto: AcceptInvitation | Record<string, never>): Observable<Session> {
-    return this.http.post<Session>(`/api/invitations/${encodeURIComponent(token)}/accept`, dto);
+  accept(token: string, dto: AcceptInvitation | Record<string, never>): Observable<AcceptedInvitation> {
+    return this.http.post<AcceptedInvitation>(`/api/invitations/${encodeURIComponent(token)}/accept`, dto);
   }
 }

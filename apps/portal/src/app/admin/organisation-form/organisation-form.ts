@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormBuilder, FormGroupDirective, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -35,6 +35,8 @@ export class OrganisationForm {
   private readonly fb = inject(FormBuilder).nonNullable;
 
   readonly created = output<Organisation>();
+  /** When given, the form edits this organisation (its kind stays) instead of adding one. */
+  readonly organisation = input<Organisation | null>(null);
 
   protected readonly kinds = ORGANISATION_KINDS.map((kind) => ({ kind, label: ORGANISATION_KIND_LABELS[kind] }));
   protected readonly states = US_STATES;
@@ -48,6 +50,12 @@ export class OrganisationForm {
     licenceClass: ['', zodValidator(field.licenceClass)],
   });
   private readonly kind = toSignal(this.form.controls.kind.valueChanges, { initialValue: null });
+  private readonly fillForEdit = effect(() => {
+    const org = this.organisation();
+    if (!org) return;
+    this.form.patchValue({ ...org, phone: org.phone ?? '', address: org.address ?? '', licenceNumber: org.licenceNumber ?? '', licenceState: org.licenceState as UsState | null, licenceClass: org.licenceClass ?? '' });
+    this.form.controls.kind.disable();
+  });
   /** Whether the licence fields apply (contractors only). */
   protected readonly isContractor = computed(() => this.kind() === 'contractor');
   protected readonly formError = signal<string | null>(null);
@@ -65,7 +73,8 @@ export class OrganisationForm {
       return;
     }
     this.isBusy.set(true);
-    this.api.createOrganisation(parsed.data).subscribe({
+    const editing = this.organisation();
+    (editing ? this.api.updateOrganisation(editing.id, parsed.data) : this.api.createOrganisation(parsed.data)).subscribe({
       next: (organisation) => {
         this.isBusy.set(false);
         formDirective.resetForm();

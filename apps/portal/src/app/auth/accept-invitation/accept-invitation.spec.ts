@@ -49,7 +49,7 @@ describe('AcceptInvitation', () => {
     expect(host.querySelector('[data-testid="invitation-address"]')?.textContent).toContain('103 Aspen Court');
   });
 
-  it('makes the account, signs in with the answered session and opens the request list', async () => {
+  it('makes the account, signs in with the answered session and opens the request it was invited to', async () => {
     await render(INVITATION);
     const navigate = jest.spyOn(TestBed.inject(Router), 'navigate').mockResolvedValue(true);
     await (await loader.getHarness(MatInputHarness.with({ selector: '[data-testid="invitation-name"]' }))).setValue('Sam Seller');
@@ -63,9 +63,10 @@ describe('AcceptInvitation', () => {
     req.flush({
       user: { id: 9, email: 'sam@seller.example', name: 'Sam Seller', role: 'seller', organisationId: null, organisationName: null },
       csrfToken: 'seller-session',
+      requestId: 41,
     });
     expect(TestBed.inject(Auth).user()?.email).toBe('sam@seller.example');
-    expect(navigate).toHaveBeenCalledWith(['/requests']);
+    expect(navigate).toHaveBeenCalledWith(['/requests', 41]);
   });
 
   it('says the link no longer works when the invitation is unknown', async () => {

@@ -7,7 +7,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
-import { AcceptInvitationSchema, Invitation, PARTY_ROLE_LABELS, Session } from '@cc/shared';
+import { AcceptedInvitation, AcceptInvitationSchema, Invitation, PARTY_ROLE_LABELS } from '@cc/shared';
 import { catchError, map, Observable, of, startWith, switchMap } from 'rxjs';
 import { Auth } from '../../core/auth/auth';
 import { ErrorMessagePipe } from '../../core/forms/error-message';
@@ -91,14 +91,15 @@ export class AcceptInvitation {
     this.send(this.api.accept(this.token(), {}));
   }
 
-  private send(request: Observable<Session>): void {
+  private send(request: Observable<AcceptedInvitation>): void {
     this.formError.set(null);
     this.isBusy.set(true);
     request.subscribe({
-      next: (session) => {
+      next: (accepted) => {
         this.isBusy.set(false);
-        this.auth.useSession(session);
-        void this.router.navigate(['/requests']);
+        this.auth.useSession(accepted);
+        // Straight to the request the invitation was for, not the list.
+        void this.router.navigate(['/requests', accepted.requestId]);
       },
       error: (err: unknown) => {
         this.isBusy.set(false);

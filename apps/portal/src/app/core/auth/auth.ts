@@ -1,6 +1,6 @@
-import { HttpClient, HttpContext, HttpErrorResponse } from '@angular/common/http';
+import { HttpClient, HttpContext } from '@angular/common/http';
 import { computed, inject, Injectable, signal } from '@angular/core';
-import { actorsOnRequest, ChangePassword, CurrentUser, FlowActor, PartyRole, Role, Session, SignIn } from '@cc/shared';
+import { actorsOnRequest, ChangePassword, CurrentUser, FlowActor, PartyRole, Role, Session, SessionState, SignIn } from '@cc/shared';
 import { firstValueFrom, map, Observable, tap } from 'rxjs';
 import { HANDLES_UNAUTHORISED } from './handles-unauthorised';
 
@@ -27,18 +27,16 @@ export class Auth {
     return user ? actorsOnRequest(user, request) : [];
   }
 
-  /** Reads the current session at start-up. A 401 simply means nobody is signed in. */
+  /**
+   * Reads the current session at start-up. The server answers 200 with `user: null` for a visitor,
+   * so a signed-out page load logs no failed request.
+   */
   async loadMe(): Promise<void> {
     try {
-      const session = await firstValueFrom(
-        this.http.get<Session>('/api/auth/me', { context: new HttpContext().set(HANDLES_UNAUTHORISED, true) }),
-      );
-      this.useSession(session);
+      const state = await firstValueFrom(this.http.get<SessionState>('/api/auth/session'));
+      this.userState.set(state.user);
+      this.csrfState.set(state.csrfToken);
     } catch (err: unknown) {
-      if (err instanceof HttpErrorResponse && err.status === 401) {
-        this.clear();
-        return;
-      }
       // The server is unreachable or failing: start signed out, pages will report their own errors.
       console.error('Could not read the session', err);
       this.clear();

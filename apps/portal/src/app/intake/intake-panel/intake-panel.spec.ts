@@ -97,4 +97,24 @@ describe('IntakePanel', () => {
     const host = await render('seller', 'draft', ['seller'], []);
     expect(host.querySelector('[data-testid="line-items-empty"]')?.textContent).toContain('No items yet');
   });
+
+  it('loads the lists once after the first report (no request started and then cancelled)', async () => {
+    await render('agent', 'draft', ['buyer-agent'], []);
+    let changes = 0;
+    fixture.componentInstance.requestChanged.subscribe(() => changes++);
+    const upload = fixture.debugElement.query((el) => el.name === 'cc-report-upload');
+    upload.triggerEventHandler('parsed', { report: report(), isDuplicate: false, proposedCount: 3, skippedCount: 1 });
+    await fixture.whenStable();
+    // The request moves to intake; only the reloaded request brings new lists.
+    expect(changes).toBe(1);
+    httpTesting.expectNone('/api/requests/12/reports');
+    fixture.componentRef.setInput('request', request('intake', ['buyer-agent']));
+    await fixture.whenStable();
+    const reports = httpTesting.match('/api/requests/12/reports');
+    const items = httpTesting.match('/api/requests/12/items');
+    expect([reports.length, items.length]).toEqual([1, 1]);
+    expect(reports[0].cancelled || items[0].cancelled).toBe(false);
+    reports[0].flush([report()]);
+    items[0].flush(proposedItems());
+  });
 });

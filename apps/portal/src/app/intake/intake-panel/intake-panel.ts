@@ -72,6 +72,8 @@ export class IntakePanel {
   protected readonly reports = computed(() => this.current()?.reports ?? []);
   protected readonly items = computed(() => this.current()?.items ?? []);
   protected readonly lastResult = signal<UploadResult | null>(null);
+  /** The proposals in the review list, which the banner's count must agree with. */
+  protected readonly toConfirm = computed(() => this.items().filter((i) => i.status === 'proposed').length);
 
   protected reload(): void {
     this.reloads.update((n) => n + 1);
@@ -79,9 +81,10 @@ export class IntakePanel {
 
   protected showResult(result: UploadResult): void {
     this.lastResult.set(result);
-    this.reload();
-    // The first report moves the request on (into intake): load the request again.
+    // A first report moves the request on (into intake): the reloaded request changes `source`, which
+    // loads the lists once. Reloading here as well would start a load the state change then cancels.
     if (requestMove('add-report', this.request().status)) this.requestChanged.emit();
+    else this.reload();
   }
 
   protected finishReview(): void {

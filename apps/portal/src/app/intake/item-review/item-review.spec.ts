@@ -46,6 +46,15 @@ describe('ItemReview', () => {
   const host = (): HTMLElement => fixture.nativeElement;
   const marks = () => Array.from(host().querySelectorAll<HTMLElement>('[data-testid="evidence-mark"]'));
 
+  /** Answers the confirmation that guards an action that cannot be taken back. */
+  async function answerConfirmation(goAhead: boolean): Promise<string> {
+    const dialog = await documentLoader.getHarness(MatDialogHarness);
+    const text = await dialog.getText();
+    await (await dialog.getHarness(MatButtonHarness.with({ selector: goAhead ? '[data-testid="confirm-go"]' : '[data-testid="confirm-cancel"]' }))).click();
+    await fixture.whenStable();
+    return text;
+  }
+
   async function openEditorOf(row: number): Promise<MatDialogHarness> {
     const buttons = await loader.getAllHarnesses(MatButtonHarness.with({ selector: '[data-testid="review-item-edit"]' }));
     await buttons[row].click();
@@ -129,9 +138,18 @@ describe('ItemReview', () => {
     expect(changes).toBe(1);
   });
 
-  it('removes an item with its version', async () => {
+  it('asks before removing an item and sends nothing when the agent cancels', async () => {
     const buttons = await loader.getAllHarnesses(MatButtonHarness.with({ selector: '[data-testid="review-item-remove"]' }));
     await buttons[2].click();
+    expect(await answerConfirmation(false)).toContain('Remove this item?');
+    httpTesting.expectNone((r) => r.url === '/api/requests/12/items/33');
+    expect(changes).toBe(0);
+  });
+
+  it('removes an item with its version once the agent confirms', async () => {
+    const buttons = await loader.getAllHarnesses(MatButtonHarness.with({ selector: '[data-testid="review-item-remove"]' }));
+    await buttons[2].click();
+    await answerConfirmation(true);
     const req = httpTesting.expectOne((r) => r.url === '/api/requests/12/items/33');
     expect(req.request.method).toBe('DELETE');
     expect(req.request.params.get('version')).toBe('2');
@@ -181,8 +199,18 @@ describe('ItemReview', () => {
     expect(changes).toBe(1);
   });
 
+  it('asks before confirming, saying it cannot be changed afterwards, and sends nothing on cancel', async () => {
+    await (await loader.getHarness(MatButtonHarness.with({ selector: '[data-testid="review-confirm"]' }))).click();
+    const text = await answerConfirmation(false);
+    expect(text).toContain('Confirm 3 items?');
+    expect(text).toContain('can no longer be changed');
+    httpTesting.expectNone('/api/requests/12/items/confirm');
+    expect(confirmed).toEqual([]);
+  });
+
   it('confirms by sending every proposed item with the version it was shown at', async () => {
     await (await loader.getHarness(MatButtonHarness.with({ selector: '[data-testid="review-confirm"]' }))).click();
+    await answerConfirmation(true);
     const req = httpTesting.expectOne('/api/requests/12/items/confirm');
     expect(req.request.body).toEqual({
       items: [
@@ -199,6 +227,7 @@ describe('ItemReview', () => {
 
   it('reloads and explains when the list changed before the confirmation (409)', async () => {
     await (await loader.getHarness(MatButtonHarness.with({ selector: '[data-testid="review-confirm"]' }))).click();
+    await answerConfirmation(true);
     httpTesting
       .expectOne('/api/requests/12/items/confirm')
       .flush({ error: 'The list of items changed since you loaded it. Reload and review again.', details: [] }, { status: 409, statusText: 'Conflict' });

@@ -7,7 +7,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { LineItem, ReportFile } from '@cc/shared';
 import { Observable } from 'rxjs';
 import { Notice } from '../../core/http/notice';
-import { SafetyNotice } from '../../ui/safety-notice/safety-notice';
+import { askToConfirm } from '../../ui/confirm-dialog/confirm-dialog';
 import { EvidenceView } from '../evidence-view/evidence-view';
 import { TextSelection } from '../evidence-view/selection-offsets';
 import { IntakeApi } from '../intake-api';
@@ -33,7 +33,7 @@ export function orderByConfidence(items: readonly LineItem[]): LineItem[] {
  */
 @Component({
   selector: 'cc-item-review',
-  imports: [MatButtonModule, MatIconModule, MatFormFieldModule, MatSelectModule, ItemTable, EvidenceView, SafetyNotice, UnitemisedText],
+  imports: [MatButtonModule, MatIconModule, MatFormFieldModule, MatSelectModule, ItemTable, EvidenceView, UnitemisedText],
   templateUrl: './item-review.html',
   styleUrl: './item-review.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -106,7 +106,10 @@ export class ItemReview {
   }
 
   protected remove(item: LineItem): void {
-    this.send(this.api.remove(this.requestId(), item), () => this.notice.success('Item removed.'));
+    const message = 'The item leaves the list and is not sent to the contractor. Reading the report again does not bring it back; add it again from the report text if you need it.';
+    askToConfirm(this.dialog, { title: 'Remove this item?', message, confirmLabel: 'Remove item' }).subscribe((isSure) => {
+      if (isSure) this.send(this.api.remove(this.requestId(), item), () => this.notice.success('Item removed.'));
+    });
   }
 
   /** The first ticked item (in table order) keeps its id and absorbs the second. */
@@ -118,6 +121,15 @@ export class ItemReview {
   }
 
   protected confirm(): void {
+    const count = this.proposed().length;
+    const what = `${count} ${count === 1 ? 'item' : 'items'}`;
+    const message = `The ${what} go to the contractor for prices and can no longer be changed here. Reports cannot be added afterwards.`;
+    askToConfirm(this.dialog, { title: `Confirm ${what}?`, message, confirmLabel: `Confirm ${what}` }).subscribe((isSure) => {
+      if (isSure) this.sendConfirmation();
+    });
+  }
+
+  private sendConfirmation(): void {
     const items = this.proposed().map((i) => ({ id: i.id, version: i.version }));
     this.conflict.set(null);
     this.isBusy.set(true);

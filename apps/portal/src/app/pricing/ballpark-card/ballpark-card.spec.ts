@@ -8,7 +8,7 @@ import { MatChipListboxHarness } from '@angular/material/chips/testing';
 import { ballpark, DEMO_RATE_BOOK, RequestBallpark } from '@cc/shared';
 import { BallparkCard } from './ballpark-card';
 
-/** docs/pricing.md, Example 5: a GFCI and "several" cover plates, built 1985, computed by hand as $460 – $540. */
+/** docs/pricing.md, Example 5: a GFCI and "several" cover plates, built 1985, computed by hand as $310 – $540. */
 function example5(): RequestBallpark {
   const range = ballpark(DEMO_RATE_BOOK, {
     items: [
@@ -46,7 +46,7 @@ describe('BallparkCard', () => {
     const card = await loader.getHarness(MatCardHarness);
     expect(await card.getTitleText()).toBe('Ballpark range');
     expect(await card.getSubtitleText()).toContain('Estimate, not a quote');
-    expect(host.querySelector('[data-testid="ballpark-range"]')?.textContent).toBe('$460.00 – $540.00');
+    expect(host.querySelector('[data-testid="ballpark-range"]')?.textContent).toBe('$310.00 – $540.00');
   });
 
   it('lets an agent or the contractor flag a site condition, then shows the new range', async () => {

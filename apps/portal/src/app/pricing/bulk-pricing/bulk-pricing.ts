@@ -17,11 +17,13 @@ import { Notice } from '../../core/http/notice';
 import { QuotesApi } from '../../quotes/quotes-api';
 import { RequestsApi } from '../../requests/requests-api';
 import { DaysToClosing } from '../../ui/days-to-closing/days-to-closing';
+import { SafetyNotice } from '../../ui/safety-notice/safety-notice';
 import { StatusChip } from '../../ui/status-chip/status-chip';
 import { BallparkCard } from '../ballpark-card/ballpark-card';
 import { BulkToolbar } from '../bulk-toolbar/bulk-toolbar';
 import { claimedTotals, livePrice, PendingChange } from '../live-pricing';
 import { MoneyPipe } from '../../ui/money/money';
+import { codeLabel } from '../../ui/code-label';
 import { OutOfScopeData, OutOfScopeDialog } from '../out-of-scope-dialog/out-of-scope-dialog';
 import { PricingApi } from '../pricing-api';
 import { PricingTable } from '../pricing-table/pricing-table';
@@ -54,6 +56,7 @@ type Loaded = { pricing: RequestPricing; error?: undefined } | { pricing?: undef
     PricingTotals,
     VisitPlanner,
     BallparkCard,
+    SafetyNotice,
   ],
   templateUrl: './bulk-pricing.html',
   styleUrl: './bulk-pricing.scss',
@@ -117,6 +120,10 @@ export class BulkPricing {
     return livePrice(pricing, { itemIds: [...this.selectedIds()], set });
   });
   protected readonly codes = computed(() => [...new Set(this.pricing()?.items.map((i) => i.code) ?? [])]);
+  /** One button per finding: how many items it has, in plain words (never the code itself). */
+  protected readonly codePicks = computed(() =>
+    this.codes().map((code) => ({ code, label: codeLabel(code), count: (this.pricing()?.items ?? []).filter((i) => i.code === code).length })),
+  );
   protected readonly selectedCodes = computed(() => {
     const ids = this.selectedIds();
     return [...new Set((this.pricing()?.items ?? []).filter((i) => ids.has(i.id)).map((i) => i.code))];

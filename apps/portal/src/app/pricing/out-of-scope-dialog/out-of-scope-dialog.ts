@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
-import { FormControl, ReactiveFormsModule } from '@angular/forms';
+import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -18,7 +18,7 @@ export interface OutOfScopeData {
   imports: [ReactiveFormsModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatButtonModule, ErrorMessagePipe],
   template: `
     <h2 mat-dialog-title>Not our scope</h2>
-    <form (ngSubmit)="confirm()" novalidate>
+    <form [formGroup]="form" (ngSubmit)="confirm()" novalidate aria-label="Leave items out of the quote">
       <mat-dialog-content>
         <p>
           {{ data.count === 1 ? 'The selected item is' : 'The ' + data.count + ' selected items are' }} left out of the quote and
@@ -43,6 +43,8 @@ export class OutOfScopeDialog {
   private readonly dialogRef = inject<MatDialogRef<OutOfScopeDialog, string>>(MatDialogRef);
   protected readonly data = inject<OutOfScopeData>(MAT_DIALOG_DATA);
   protected readonly reason = new FormControl('', { nonNullable: true, validators: zodValidator(MarkOutOfScopeSchema.shape.reason) });
+  /** The form directive handles the submit; without it the browser would submit the page itself. */
+  protected readonly form = new FormGroup({ reason: this.reason });
 
   protected confirm(): void {
     if (this.reason.invalid) {

@@ -3,7 +3,7 @@ import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatIconModule } from '@angular/material/icon';
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import { effectiveQuantity, ITEM_STATUS_LABELS, PricingItem, QuoteBreakdown, RateBook } from '@cc/shared';
+import { effectiveQuantity, ITEM_STATUS_LABELS, placeLabel, PricingItem, QuoteBreakdown, RateBook } from '@cc/shared';
 import { EditionNote } from '../../ui/edition-note/edition-note';
 import { MoneyPipe } from '../../ui/money/money';
 import { codeLabel } from '../../ui/code-label';
@@ -14,6 +14,8 @@ import { VisitLabelPipe } from '../visit-label';
 interface Row {
   item: PricingItem;
   codeLabel: string;
+  /** Room and location, the room said once. */
+  place: string;
   entryName: string | null;
   adderNames: string[];
   /** The quantity the item is priced at (null: the report said "several" and nobody set one). */
@@ -52,6 +54,7 @@ export class PricingTable {
     return this.items().map((item) => ({
       item,
       codeLabel: codeLabel(item.code),
+      place: placeLabel(item.room, item.location),
       entryName: item.entryId === null ? null : (entries.get(String(item.entryId)) ?? 'Entry no longer in the rate book'),
       adderNames: item.adderIds.map((id) => adders.get(String(id)) ?? 'Removed condition'),
       quantity: effectiveQuantity(item),

@@ -9,7 +9,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { Router, RouterLink } from '@angular/router';
-import { QuoteVersion, QuoteVersionSummary } from '@cc/shared';
+import { placeLabel, quantityLabel, QuoteVersion, QuoteVersionSummary } from '@cc/shared';
 import { catchError, combineLatest, map, of, switchMap } from 'rxjs';
 import { Auth } from '../../core/auth/auth';
 import { describeFailure } from '../../core/http/api-error-of';
@@ -89,6 +89,14 @@ export class QuoteView {
   protected versionLabel(summary: QuoteVersionSummary): string {
     const delta = summary.totalDeltaCents === null ? '' : ` (${formatCentsDelta(summary.totalDeltaCents)})`;
     return `Version ${summary.version} · ${formatCents(summary.totalCents)}${delta}${summary.isCurrent ? ' · current' : ''}`;
+  }
+
+  protected place(line: QuoteVersion['lines'][number]): string {
+    return placeLabel(line.room, line.location);
+  }
+
+  protected quantity(line: QuoteVersion['lines'][number]): string {
+    return quantityLabel(line.quantity, line.entry?.unit);
   }
 
   protected adderNames(line: QuoteVersion['lines'][number]): string {

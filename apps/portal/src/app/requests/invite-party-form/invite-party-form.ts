@@ -1,7 +1,9 @@
+import { ClipboardModule } from '@angular/cdk/clipboard';
 import { ChangeDetectionStrategy, Component, inject, input, output, signal } from '@angular/core';
 import { FormBuilder, FormGroupDirective, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { InviteParty, InvitePartySchema, PARTY_ROLE_LABELS, RepairRequestDetail } from '@cc/shared';
@@ -15,7 +17,7 @@ type InvitableRole = InviteParty['role'];
 /** Invites one more person (listing agent, seller or inspector) to a request. */
 @Component({
   selector: 'cc-invite-party-form',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, ErrorMessagePipe],
+  imports: [ReactiveFormsModule, ClipboardModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule, ErrorMessagePipe],
   templateUrl: './invite-party-form.html',
   styleUrl: './invite-party-form.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -35,6 +37,9 @@ export class InvitePartyForm {
   });
   protected readonly formError = signal<string | null>(null);
   protected readonly isBusy = signal(false);
+  /** The invitation just made: no e-mail goes out yet, so its link is shown to pass on by hand. */
+  protected readonly made = signal<{ email: string; role: string; url: string | null } | null>(null);
+  protected readonly isCopied = signal(false);
 
   protected invite(formDirective: FormGroupDirective): void {
     this.formError.set(null);
@@ -44,10 +49,14 @@ export class InvitePartyForm {
       return;
     }
     this.isBusy.set(true);
+    this.made.set(null);
+    this.isCopied.set(false);
     this.api.inviteParty(this.requestId(), parsed.data).subscribe({
       next: (detail) => {
         this.isBusy.set(false);
         formDirective.resetForm();
+        const party = detail.parties.find((p) => p.email === parsed.data.email && p.role === parsed.data.role);
+        this.made.set({ email: parsed.data.email, role: PARTY_ROLE_LABELS[parsed.data.role], url: party?.inviteUrl ?? null });
         this.invited.emit(detail);
       },
       error: (err: unknown) => {

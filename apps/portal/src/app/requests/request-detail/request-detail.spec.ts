@@ -107,7 +107,7 @@ describe('RequestDetail', () => {
     expect(host.querySelector('cc-invite-party-form')).toBeNull();
   });
 
-  it('invites a party and shows the request the server answers with', async () => {
+  it('invites a party, shows the link to pass on if the e-mail does not arrive and the request the server answers with', async () => {
     await render('agent', ['buyer-agent']);
     await (await loader.getHarness(MatSelectHarness.with({ selector: '[data-testid="invite-role"]' }))).clickOptions({
       text: 'Home inspector',
@@ -124,5 +124,9 @@ describe('RequestDetail', () => {
 
     const links = Array.from((fixture.nativeElement as HTMLElement).querySelectorAll('[data-testid="invite-url"]')).map((el) => el.textContent);
     expect(links).toEqual(['http://localhost/invite/abc', 'http://localhost/invite/def']);
+    const made = (fixture.nativeElement as HTMLElement).querySelector('[data-testid="invite-made"]')?.textContent ?? '';
+    expect(made).toContain('If it does not arrive');
+    expect(made).not.toContain('Invitation sent');
+    expect((fixture.nativeElement as HTMLElement).querySelector('[data-testid="invite-made-url"]')?.textContent).toBe('http://localhost/invite/def');
   });
 });

@@ -18,6 +18,7 @@ import { SafetyNotice } from '../../ui/safety-notice/safety-notice';
 import { StatusChip } from '../../ui/status-chip/status-chip';
 import { ContractorPicker } from '../contractor-picker/contractor-picker';
 import { InvitePartyForm } from '../invite-party-form/invite-party-form';
+import { NextStepPanel } from '../next-step/next-step';
 import { PartyList } from '../party-list/party-list';
 import { RequestsApi } from '../requests-api';
 import { StatusHistory } from '../status-history/status-history';
@@ -42,6 +43,7 @@ type Loaded = { detail: RepairRequestDetail; error?: undefined } | { detail?: un
     ContractorPicker,
     IntakePanel,
     RequestPricingLinks,
+    NextStepPanel,
     ActivityTimeline,
   ],
   templateUrl: './request-detail.html',
@@ -90,6 +92,7 @@ export class RequestDetail {
     this.notice.success(`${detail.contractor?.name ?? 'The contractor'} is now the request's contractor.`);
   }
 
+  /** The form also shows the link, to pass on by hand if the e-mail does not arrive. */
   protected showInvited(detail: RepairRequestDetail): void {
     this.detail.set(detail);
     this.notice.success('Invitation e-mailed. The link is also shown beside their name, to pass on if the e-mail does not arrive.');

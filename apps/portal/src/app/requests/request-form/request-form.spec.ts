@@ -77,6 +77,19 @@ describe('RequestForm', () => {
     httpTesting.expectNone('/api/requests');
   });
 
+  it('asks for the closing date in the form its hint shows (MM/DD/YYYY), empty or unreadable', async () => {
+    const date = await field('Closing date');
+    expect(await date.getTextHints()).toEqual(['MM/DD/YYYY']);
+    await submit();
+    expect(await date.getTextErrors()).toEqual(['Enter the date as MM/DD/YYYY, or pick it from the calendar']);
+    await (await loader.getHarness(MatDatepickerInputHarness)).setValue('2026-13-45');
+    await submit();
+    const [message] = await date.getTextErrors();
+    expect(message).toContain('MM/DD/YYYY');
+    expect(message).not.toContain('YYYY-MM-DD');
+    httpTesting.expectNone('/api/requests');
+  });
+
   it("fills the state's usual NEC edition when the state is chosen", async () => {
     await (await select('request-form-state')).clickOptions({ text: 'CO' });
     // Colorado's default in shared DEFAULT_NEC_EDITION_BY_STATE is 2023 (a setting, from memory).

@@ -23,6 +23,7 @@ import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
 import { Notice } from '../../core/http/notice';
+import { dateFieldValidator } from '../../core/forms/date-validator';
 import { toIsoDateOrEmpty } from '../../core/time/iso-date';
 import { SafetyNotice } from '../../ui/safety-notice/safety-notice';
 import { RequestsApi } from '../requests-api';
@@ -75,7 +76,7 @@ export class RequestForm {
     state: this.fb.control<UsState | null>(null, zodValidator(field.state)),
     zip: ['', zodValidator(field.zip)],
     yearBuilt: this.fb.control<number | null>(null, zodValidator(field.yearBuilt)),
-    closingDate: this.fb.control<Date | null>(null, zodValidator(field.closingDate, toIsoDateOrEmpty)),
+    closingDate: this.fb.control<Date | null>(null, dateFieldValidator(field.closingDate)),
     necEdition: this.fb.control<NecEdition | null>(null, zodValidator(field.necEdition)),
     buyerAgentEmail: ['', zodValidator(field.buyerAgentEmail)],
     listingAgentEmail: ['', zodValidator(field.listingAgentEmail)],

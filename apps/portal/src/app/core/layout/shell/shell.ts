@@ -9,7 +9,6 @@ import { MatToolbarModule } from '@angular/material/toolbar';
 import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { map } from 'rxjs';
 import { Logo } from '../../../ui/logo/logo';
-import { SafetyNotice } from '../../../ui/safety-notice/safety-notice';
 import { Auth } from '../../auth/auth';
 import { Notice } from '../../http/notice';
 import { navItemsFor } from '../nav-items';
@@ -27,7 +26,6 @@ import { navItemsFor } from '../nav-items';
     RouterLink,
     RouterLinkActive,
     Logo,
-    SafetyNotice,
   ],
   templateUrl: './shell.html',
   styleUrl: './shell.scss',

@@ -1,0 +1,62 @@
+import { REQUEST_FLOW, REQUEST_STATUSES, Role, PartyRole } from '@cc/shared';
+import { nextStepOf } from './next-step-text';
+
+const SELLER = { role: 'seller' as Role, myParts: ['seller'] as PartyRole[] };
+const AGENT = { role: 'agent' as Role, myParts: ['buyer-agent'] as PartyRole[] };
+const CONTRACTOR = { role: 'contractor' as Role, myParts: [] as PartyRole[] };
+const INSPECTOR = { role: 'inspector' as Role, myParts: ['inspector'] as PartyRole[] };
+const VIEWERS = [SELLER, AGENT, CONTRACTOR, INSPECTOR, { role: 'admin' as Role, myParts: [] as PartyRole[] }];
+
+describe('nextStepOf', () => {
+  it('never leaves a reachable state silent: every role sees what it waits for and who acts, or that it has ended', () => {
+    for (const status of REQUEST_STATUSES) {
+      for (const viewer of VIEWERS) {
+        const step = nextStepOf(status, viewer);
+        expect(step.summary.length).toBeGreaterThan(10);
+        if (step.isEnded) {
+          expect(step.summary).toContain('nothing more happens');
+          expect(step.moves).toEqual([]);
+        } else {
+          // Every move named comes from the shared table, with who makes it.
+          expect(step.moves.length).toBeGreaterThan(0);
+          for (const move of step.moves) {
+            expect(REQUEST_FLOW.some((m) => m.label === move.label && m.from.includes(status))).toBe(true);
+            expect(move.by).toMatch(/^the /);
+          }
+        }
+      }
+    }
+  });
+
+  it('tells the seller that a quote waits for them, and that approving is not in the portal yet', () => {
+    const step = nextStepOf('quoted', SELLER);
+    expect(step.summary).toBe('Waits for you (the seller or the listing agent).');
+    const approve = step.moves.find((m) => m.label === 'Approve and sign')!;
+    expect(approve).toMatchObject({ isYours: true, isOutsidePortal: true, place: null });
+  });
+
+  it('tells the agent the quote waits for the seller side, not for them', () => {
+    expect(nextStepOf('quoted', AGENT).summary).toBe('Waits for the seller or the listing agent.');
+  });
+
+  it('gives the contractor the link to price a request that awaits prices', () => {
+    const step = nextStepOf('pricing', CONTRACTOR);
+    expect(step.summary).toContain('Waits for you (the contractor)');
+    expect(step.moves[0].place?.link(7)).toEqual(['/requests', 7, 'pricing']);
+    // The agent sees who acts, without a link to a page that is not theirs.
+    expect(nextStepOf('pricing', AGENT).moves[0]).toMatchObject({ isYours: false, place: null, by: 'the contractor' });
+  });
+
+  it('names the contractor for a booked visit and a finished job, and the inspector or agent for an issued letter', () => {
+    expect(nextStepOf('scheduled', SELLER).summary).toBe('Waits for the contractor.');
+    // A finished job waits for the letter; a change order is a detour, listed after it.
+    const finished = nextStepOf('corrected', SELLER);
+    expect(finished.summary).toBe('Waits for the contractor.');
+    expect(finished.moves.map((m) => [m.label, m.isDetour])).toEqual([
+      ['Issue the completion letter', false],
+      ['Approve the change order', true],
+    ]);
+    expect(nextStepOf('letter-issued', INSPECTOR).summary).toBe('Waits for you (the inspector or the buyer’s agent).');
+    expect(nextStepOf('withdrawn', SELLER).isEnded).toBe(true);
+  });
+});

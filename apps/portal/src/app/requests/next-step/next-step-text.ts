@@ -1,0 +1,80 @@
+import {
+  actorsOf,
+  FLOW_ACTOR_LABELS,
+  FlowActor,
+  isEnded,
+  movesOnFrom,
+  REQUEST_STATUS_LABELS,
+  RequestEvent,
+  RequestStatus,
+  Role,
+  PartyRole,
+} from '@cc/shared';
+
+/** Where in the portal a move is made today. Moves not listed here are not in the portal yet. */
+export interface PortalPlace {
+  /** Router commands, built from the request id. */
+  link: (requestId: number) => unknown[];
+  /** What the link says. */
+  text: string;
+  /** Whether it is done on the request page itself (the panel there says "below" instead of linking). */
+  isOnRequestPage: boolean;
+}
+
+export const PORTAL_PLACES: Partial<Record<RequestEvent, PortalPlace>> = {
+  'add-report': { link: (id) => ['/requests', id], text: 'Add the inspection report', isOnRequestPage: true },
+  'confirm-items': { link: (id) => ['/requests', id], text: 'Review and confirm the items', isOnRequestPage: true },
+  'send-quote': { link: (id) => ['/requests', id, 'pricing'], text: 'Price the items and send the quote', isOnRequestPage: false },
+};
+
+export interface NextMove {
+  label: string;
+  /** Who makes it, in words ("the seller or the listing agent"). */
+  by: string;
+  /** Whether the person looking at the request is one of them. */
+  isYours: boolean;
+  /** Where to do it in the portal, when the portal has it and it is the viewer's move. */
+  place: PortalPlace | null;
+  /** The move exists in the flow but not yet in the portal. */
+  isOutsidePortal: boolean;
+  /** Off the usual course (the flow table's detours), shown after the usual step. */
+  isDetour: boolean;
+}
+
+export interface NextStep {
+  status: RequestStatus;
+  isEnded: boolean;
+  /** One sentence: what the request waits for and from whom. */
+  summary: string;
+  moves: NextMove[];
+}
+
+const or = (words: string[]) => (words.length > 1 ? `${words.slice(0, -1).join(', ')} or ${words.at(-1)}` : (words[0] ?? ''));
+
+const who = (actors: readonly FlowActor[]) => or(actors.filter((a) => a !== 'admin').map((a) => FLOW_ACTOR_LABELS[a]));
+
+/**
+ * What a request in `status` waits for and who acts next, for one viewer: computed from the shared
+ * flow table (its moves out of the state and who may make them), never from a list of our own.
+ */
+export function nextStepOf(status: RequestStatus, viewer: { role: Role; myParts: readonly PartyRole[] }): NextStep {
+  if (isEnded(status)) {
+    return { status, isEnded: true, summary: `${REQUEST_STATUS_LABELS[status]}: nothing more happens on this request.`, moves: [] };
+  }
+  const actors = actorsOf({ role: viewer.role, myParts: viewer.myParts, isAssignedContractor: viewer.role === 'contractor' });
+  const onward = movesOnFrom(status);
+  const moves = onward
+    .map((move): NextMove => {
+      const isYours = move.by.some((a) => actors.includes(a));
+      const place = PORTAL_PLACES[move.event] ?? null;
+      return { label: move.label, by: who(move.by) || FLOW_ACTOR_LABELS.admin, isYours, place: isYours ? place : null, isOutsidePortal: place === null, isDetour: !!move.isDetour };
+    })
+    .sort((a, b) => Number(a.isDetour) - Number(b.isDetour));
+  // The request waits for whoever makes the usual move; detours (a change order) do not make it wait.
+  const usual = onward.some((m) => !m.isDetour) ? onward.filter((m) => !m.isDetour) : onward;
+  const waitsFor: FlowActor[] = [];
+  for (const move of usual) for (const a of move.by) if (a !== 'admin' && !waitsFor.includes(a)) waitsFor.push(a);
+  const isYourTurn = waitsFor.some((a) => actors.includes(a));
+  const summary = isYourTurn ? `Waits for you (${who(waitsFor)}).` : `Waits for ${who(waitsFor)}.`;
+  return { status, isEnded: false, summary, moves };
+}
