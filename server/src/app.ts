@@ -9,6 +9,7 @@ import pg from 'pg';
 import { createPassport } from './auth/passport';
 import type { Config } from './config/config';
 import type { Db } from './db/knex';
+import { inputGuard } from './http/input-guard';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { createApiRouter } from './routes';
 import { createServices } from './services';
@@ -30,7 +31,8 @@ export function createApp(config: Config, db: Db): App {
 
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  // The client address comes from X-Forwarded-For only behind a proxy the configuration names.
+  app.set('trust proxy', config.trustProxy);
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -49,6 +51,7 @@ export function createApp(config: Config, db: Db): App {
     }),
   );
   app.use(express.json({ limit: '1mb' }));
+  app.use('/api', inputGuard);
   app.use(
     session({
       name: 'cc.sid',
@@ -76,7 +79,7 @@ export function createApp(config: Config, db: Db): App {
     app,
     async close() {
       store.close();
-      await sessionPool.end();
+      await Promise.all([sessionPool.end(), services.reportReader.close()]);
     },
   };
 }

@@ -2,6 +2,7 @@
 import { createApp } from './app';
 import { loadConfig } from './config/config';
 import { createDb } from './db/knex';
+import { sweepStorageAtStart } from './integrations/storage/sweep-at-start';
 
 async function main(): Promise<void> {
   let config;
@@ -13,6 +14,8 @@ async function main(): Promise<void> {
   }
   const db = createDb(config.databaseUrl);
   await db.raw('select 1');
+  const swept = await sweepStorageAtStart(config.storageDir, db);
+  if (swept.committed + swept.removed > 0) console.log(`Storage: ${swept.removed} unfinished upload(s) removed, ${swept.committed} kept`);
   const { app, close } = createApp(config, db);
   const server = app.listen(config.port, config.host, () => {
     console.log(`Closing Circuit API and portal listening on http://${config.host}:${config.port}`);

@@ -1,3 +1,4 @@
+import { pageTotal } from './page-total';
 import type { Knex } from 'knex';
 import {
   requestReference,
@@ -123,7 +124,7 @@ export class RequestRepository {
       .orderBy('r.id', filter.direction)
       .limit(filter.pageSize)
       .offset(filter.page * filter.pageSize);
-    return { items: rows.map(toSummary), total: rows.length ? Number(rows[0].total_count) : 0 };
+    return { items: rows.map(toSummary), total: await pageTotal(rows, query) };
   }
 
   /** The request if `viewer` may see it, else null (callers answer 404 either way). */

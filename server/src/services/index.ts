@@ -8,17 +8,18 @@ import { RateBookRepository } from '../db/rate-book.repository';
 import { ReportFileRepository } from '../db/report-file.repository';
 import { RequestRepository } from '../db/request.repository';
 import { UserRepository } from '../db/user.repository';
+import { SessionRepository } from '../auth/session.repository';
 import { AdminService } from './admin.service';
 import { AuthService } from './auth.service';
 import { BallparkService } from './ballpark.service';
 import { LocalFileStorage } from '../integrations/storage/local-file-storage';
+import { ReportReader } from '../integrations/report-reader/report-reader';
 import { InvitationsService } from './invitations.service';
 import { LineItemsService } from './line-items.service';
 import { Passwords } from './passwords';
 import { PricingService } from './pricing.service';
 import { QuotesService } from './quotes.service';
 import { RateBookService } from './rate-book.service';
-import { readPdfPages } from './report-intake';
 import { ReportIntakeService } from './report-intake.service';
 import { RequestsService } from './requests.service';
 
@@ -31,6 +32,7 @@ export function createServices(db: Db, config: Config) {
   const reports = new ReportFileRepository(db);
   const passwords = new Passwords(config.bcryptRounds);
   const storage = new LocalFileStorage(config.storageDir);
+  const reportReader = new ReportReader({ ...config.reportReader, maxQueue: 8 * config.reportReader.maxThreads });
   const requestsService = new RequestsService(db, requests, users, organisations, config.publicUrl);
   const rateBooks = new RateBookRepository(db);
   const itemPricing = new ItemPricingRepository(db);
@@ -40,11 +42,12 @@ export function createServices(db: Db, config: Config) {
   return {
     repositories: { users, organisations, requests, items, reports },
     storage,
-    auth: new AuthService(users, passwords),
+    reportReader,
+    auth: new AuthService(users, passwords, new SessionRepository(db)),
     admin: new AdminService(users, organisations, passwords),
     requests: requestsService,
     invitations: new InvitationsService(db, requests, users, passwords),
-    reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, readPdfPages),
+    reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, reportReader),
     lineItems: new LineItemsService(db, requestsService, requests, items, reports),
     rateBook: rateBookService,
     pricing: pricingService,

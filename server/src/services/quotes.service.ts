@@ -1,12 +1,12 @@
-import { requestReference, type CurrentUser, type QuoteVersion, type QuoteVersionSummary, type SendQuote } from '@cc/shared';
+import { MAX_QUOTE_TOTAL_CENTS, requestReference, type CurrentUser, type QuoteVersion, type QuoteVersionSummary, type SendQuote } from '@cc/shared';
 import type { Db } from '../db/knex';
 import type { ItemPricingRepository } from '../db/item-pricing.repository';
 import type { OrganisationRepository } from '../db/organisation.repository';
 import type { QuoteRepository, StoredQuote } from '../db/quote.repository';
 import type { RateBookRepository } from '../db/rate-book.repository';
 import type { RequestRepository } from '../db/request.repository';
-import { renderQuotePdf } from '../integrations/pdf/quote-pdf';
-import { ConflictError, NotFoundError } from './errors';
+import { formatUsd, renderQuotePdf } from '../integrations/pdf/quote-pdf';
+import { ConflictError, NotFoundError, UnprocessableError } from './errors';
 import { assertClaimedTotals, describeItem, PRICING_STATES, type PricingService } from './pricing.service';
 import { composeQuote, quoteContractorOf } from './quote-composer';
 import { compareQuotes } from './quote-changes';
@@ -58,6 +58,7 @@ export class QuotesService {
       }
       if (!priced.input || !priced.breakdown) throw new ConflictError('Price at least one item before sending a quote');
       assertClaimedTotals(loaded, priced, input.claimedTotals);
+      assertStorableTotal(priced.breakdown.totalCents);
 
       const next = ((await this.quotes.latestVersion(requestId, trx)) ?? 0) + 1;
       const entryIds = [...new Set(items.flatMap((i) => (priced.lineByItem.has(i.id) && i.entryId !== null ? [i.entryId] : [])))];
@@ -132,3 +133,12 @@ export class QuotesService {
   }
 }
 
+/** A quote whose total is beyond any real repair cannot be sent (and would not fit its columns). */
+function assertStorableTotal(totalCents: number): void {
+  if (totalCents > MAX_QUOTE_TOTAL_CENTS) {
+    throw new UnprocessableError(
+      `The quote total ${formatUsd(totalCents)} is more than ${formatUsd(MAX_QUOTE_TOTAL_CENTS)}: check the rate-book prices and the quantities`,
+      [{ path: 'claimedTotals.totalCents', message: `A quote can total at most ${formatUsd(MAX_QUOTE_TOTAL_CENTS)}` }],
+    );
+  }
+}

@@ -1,19 +1,23 @@
 import { createHash } from 'node:crypto';
 import {
   findingCodeInfo,
-  parseReport,
   type CurrentUser,
   type Finding,
+  type ParseResult,
   type ReportFile,
+  type ReportText,
   type UploadResult,
 } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
 import type { LineItemRepository, NewLineItem } from '../db/line-item.repository';
 import type { ReportFileRepository } from '../db/report-file.repository';
 import type { RequestRepository } from '../db/request.repository';
-import type { FileStorage } from '../integrations/storage/file-storage';
+import { inTransaction } from '../db/transaction';
+import type { ReadJob } from '../integrations/report-reader/read-report';
+import type { ReportReader } from '../integrations/report-reader/report-reader';
+import type { FileStorage, StagedFile } from '../integrations/storage/file-storage';
 import { ConflictError, ForbiddenError, NotFoundError } from './errors';
-import { checkReport, type PdfPageReader, type UploadedFile } from './report-intake';
+import { checkUpload, refusalError, type UploadedFile } from './report-intake';
 import type { RequestsService } from './requests.service';
 
 /** Request states in which a report can be added and its items reviewed. */
@@ -38,6 +42,10 @@ function proposalsFrom(findings: Finding[], requestId: number, reportFileId: num
   }));
 }
 
+const sha256Of = (bytes: Buffer) => createHash('sha256').update(bytes).digest('hex');
+
+const duplicate = (existing: ReportFile): UploadResult => ({ report: existing, isDuplicate: true, proposedCount: 0, skippedCount: existing.skipped.length });
+
 /** Upload, text extraction and parsing of report excerpts into proposed line items. */
 export class ReportIntakeService {
   constructor(
@@ -47,8 +55,15 @@ export class ReportIntakeService {
     private readonly reports: ReportFileRepository,
     private readonly items: LineItemRepository,
     private readonly storage: FileStorage,
-    private readonly readPdfPages: PdfPageReader,
+    private readonly reader: Pick<ReportReader, 'read'>,
   ) {}
+
+  /** Pages and findings of a report, read in the worker pool; a refusal becomes its domain error. */
+  private async read(job: ReadJob, field: string): Promise<{ pages: string[]; parsed: ParseResult }> {
+    const outcome = await this.reader.read(job);
+    if (!outcome.ok) throw refusalError(outcome.refusal, field);
+    return outcome;
+  }
 
   /** 404 unless visible; 403 unless an agent or inspector of the request (or admin); 409 after intake. */
   private async assertCanUpload(user: CurrentUser, requestId: number) {
@@ -66,46 +81,77 @@ export class ReportIntakeService {
     return this.reports.listForRequest(requestId);
   }
 
+  /** The pages of one report (lists and upload answers carry summaries only). */
+  async text(user: CurrentUser, requestId: number, reportId: number): Promise<ReportText> {
+    await this.access.get(user, requestId);
+    const text = await this.reports.text(requestId, reportId);
+    if (!text) throw new NotFoundError('No such report');
+    return text;
+  }
+
   async uploadFile(user: CurrentUser, requestId: number, file: UploadedFile): Promise<UploadResult> {
     await this.assertCanUpload(user, requestId);
-    const checked = await checkReport(file, this.readPdfPages);
-    return this.keep(user, requestId, file.buffer, checked.kind, file.originalName, checked.pages);
+    const kind = checkUpload(file);
+    const sha256 = sha256Of(file.buffer);
+    const existing = await this.reports.findBySha(requestId, sha256);
+    if (existing) return duplicate(existing);
+    const { pages, parsed } = await this.read({ kind, bytes: file.buffer }, 'file');
+    return this.keep(user, requestId, file.buffer, sha256, kind, file.originalName, pages, parsed);
   }
 
   async paste(user: CurrentUser, requestId: number, text: string, name?: string): Promise<UploadResult> {
     await this.assertCanUpload(user, requestId);
-    const pages = text.replace(/\r\n?/g, '\n').split('\f');
-    return this.keep(user, requestId, Buffer.from(text, 'utf8'), 'pasted', name || 'Pasted text', pages);
+    const bytes = Buffer.from(text, 'utf8');
+    const sha256 = sha256Of(bytes);
+    const existing = await this.reports.findBySha(requestId, sha256);
+    if (existing) return duplicate(existing);
+    const { pages, parsed } = await this.read({ kind: 'pasted', text }, 'text');
+    return this.keep(user, requestId, bytes, sha256, 'pasted', name || 'Pasted text', pages, parsed);
   }
 
-  /** Parses, then stores the file row, its proposals, the state change and the bytes in one transaction. */
-  private async keep(user: CurrentUser, requestId: number, bytes: Buffer, kind: ReportFile['kind'], originalName: string, pages: string[]): Promise<UploadResult> {
-    const sha256 = createHash('sha256').update(bytes).digest('hex');
-    const existing = await this.reports.findBySha(requestId, sha256);
-    if (existing) return { report: existing, isDuplicate: true, proposedCount: 0, skippedCount: existing.skipped.length };
-
-    const parsed = parseReport(pages);
-    let storedNew = false;
+  /**
+   * Stores the file row, its proposals and the state change in one transaction that locks the
+   * request first (so uploads to one request queue instead of deadlocking); the bytes are written
+   * under a temporary name and moved under their key only once the transaction committed.
+   */
+  private async keep(
+    user: CurrentUser,
+    requestId: number,
+    bytes: Buffer,
+    sha256: string,
+    kind: ReportFile['kind'],
+    originalName: string,
+    pages: string[],
+    parsed: ParseResult,
+  ): Promise<UploadResult> {
+    const staged: StagedFile = await this.storage.stage(sha256, bytes);
+    let reportId: number | null;
     try {
-      const reportId = await this.db.transaction(async (trx) => {
+      reportId = await inTransaction(this.db, async (trx) => {
+        await this.moveToIntake(requestId, user, trx);
+        // Another upload of the same bytes may have committed while this one waited for the lock.
+        if (await this.reports.findBySha(requestId, sha256, trx)) return null;
         const id = await this.reports.insert(
           { requestId, sha256, kind, originalName: originalName.slice(0, 255), sizeBytes: bytes.length, pages, skipped: parsed.skipped, storageKey: sha256, uploadedBy: user.id },
           trx,
         );
         await this.items.insert(proposalsFrom(parsed.findings, requestId, id), trx);
-        await this.moveToIntake(requestId, user, trx);
-        storedNew = await this.storage.put(sha256, bytes);
         return id;
       });
-      const report = await this.reports.findInRequest(requestId, reportId);
-      if (!report) throw new Error('report vanished after insert');
-      return { report, isDuplicate: false, proposedCount: parsed.findings.length, skippedCount: parsed.skipped.length };
     } catch (err) {
-      // The transaction rolled back: drop bytes this attempt stored so nothing is left behind.
-      if (storedNew) await this.storage.delete(sha256);
-      if ((err as { code?: string }).code === '23505') return this.keep(user, requestId, bytes, kind, originalName, pages);
+      await staged.discard();
       throw err;
     }
+    if (reportId === null) {
+      await staged.discard();
+      const existing = await this.reports.findBySha(requestId, sha256);
+      if (!existing) throw new Error('report vanished after a concurrent insert');
+      return duplicate(existing);
+    }
+    await staged.commit();
+    const report = await this.reports.findInRequest(requestId, reportId);
+    if (!report) throw new Error('report vanished after insert');
+    return { report, isDuplicate: false, proposedCount: parsed.findings.length, skippedCount: parsed.skipped.length };
   }
 
   /**
@@ -115,10 +161,11 @@ export class ReportIntakeService {
    */
   async reparse(user: CurrentUser, requestId: number, reportId: number): Promise<UploadResult> {
     await this.assertCanUpload(user, requestId);
-    const report = await this.reports.findInRequest(requestId, reportId);
+    const report = await this.reports.text(requestId, reportId);
     if (!report) throw new NotFoundError('No such report');
-    const parsed = parseReport(report.pages);
-    const proposedCount = await this.db.transaction(async (trx) => {
+    const { parsed } = await this.read({ kind: 'pages', pages: report.pages }, 'reportId');
+    const proposedCount = await inTransaction(this.db, async (trx) => {
+      await this.lockRequest(requestId, trx);
       const replaceable = await this.items.uneditedProposals(reportId, trx);
       await this.items.deleteByIds(replaceable.map((i) => i.id), trx);
       const kept = await this.keptPlaces(reportId, trx);
@@ -145,8 +192,14 @@ export class ReportIntakeService {
     return places;
   }
 
-  private async moveToIntake(requestId: number, user: CurrentUser, trx: Trx): Promise<void> {
+  /** Locks the request's row: every write to its reports and items takes this lock first. */
+  private async lockRequest(requestId: number, trx: Trx): Promise<string> {
     const { status } = await trx('repair_requests').where({ id: requestId }).forUpdate().first('status');
+    return status;
+  }
+
+  private async moveToIntake(requestId: number, user: CurrentUser, trx: Trx): Promise<void> {
+    const status = await this.lockRequest(requestId, trx);
     if (status === 'draft') {
       await this.requests.changeStatus(requestId, { from: 'draft', to: 'intake', by: user.id, note: 'Inspection report added' }, trx);
     } else if (status !== 'intake') {
