@@ -42,6 +42,7 @@ module.exports = {
     {
       ...node,
       displayName: 'api',
+      setupFilesAfterEnv: ['<rootDir>/test/helpers/api-setup.ts'],
       testMatch: ['<rootDir>/test/api/**/*.api.spec.ts'],
       testEnvironment: '<rootDir>/test/helpers/pdf-environment.js',
       globalSetup: '<rootDir>/test/helpers/api-global-setup.ts',

@@ -32,7 +32,8 @@ export const MAX_DATE = '2099-12-31';
 /** A calendar date as YYYY-MM-DD between MIN_DATE and MAX_DATE (ISO strings of that form sort as dates). */
 export const BoundedDateSchema = z.iso
   .date({ error: 'Enter a date as YYYY-MM-DD' })
-  .refine((d) => d >= MIN_DATE && d <= MAX_DATE, { error: `Enter a date between ${MIN_DATE} and ${MAX_DATE}` });
+  // Only a well-formed date is compared, so a malformed one gets one message, not two.
+  .refine((d) => !/^\d{4}-\d{2}-\d{2}$/.test(d) || (d >= MIN_DATE && d <= MAX_DATE), { error: `Enter a date between ${MIN_DATE} and ${MAX_DATE}` });
 
 /** Deepest nesting a request body may have. */
 export const MAX_BODY_DEPTH = 32;

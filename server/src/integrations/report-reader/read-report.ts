@@ -94,7 +94,10 @@ export function checkInflatedSize(pdf: Buffer, maxBytes: number): void {
 
 async function pdfPages(bytes: Uint8Array, limits: ReadLimits): Promise<string[]> {
   checkInflatedSize(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength), limits.maxInflatedBytes);
-  const pdfText = await import('../pdf-text');
+  // Loaded on the first PDF only (pdf.js takes seconds to load); require, because the worker's
+  // TypeScript loader (tsx, CommonJS) handles require but not import().
+  // eslint-disable-next-line @typescript-eslint/no-require-imports
+  const pdfText = require('../pdf-text') as typeof import('../pdf-text');
   try {
     return (await pdfText.extractPdfPages(bytes, { maxPages: limits.maxPages, maxChars: limits.maxChars })).pages;
   } catch (err) {
