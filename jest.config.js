@@ -26,6 +26,8 @@ module.exports = {
     {
       displayName: 'portal',
       rootDir: __dirname,
+      // The first test of a file compiles its components; on a busy 2-core machine that alone can take seconds.
+      testTimeout: 20_000,
       preset: 'jest-preset-angular',
       testEnvironment: 'jest-preset-angular/environments/jest-jsdom-env',
       setupFilesAfterEnv: ['<rootDir>/apps/portal/src/test-setup.ts'],

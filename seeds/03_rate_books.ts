@@ -1,13 +1,13 @@
 import type { Knex } from 'knex';
 import { DEMO_RATE_BOOK, RateBookSchema, type RateBook, type RateBookInput } from '@cc/shared';
-import { RateBookRepository } from '../server/src/db/rate-book.repository';
+import { RateBookRepository } from '../server/src/rate-book/rate-book.repository';
 import { ORGANISATIONS } from './data/demo-scenario';
 
 /**
  * Copperleaf's own rate book: the demo book's entries and conditions with its own terms (common
  * practice, inside the trade reference's ranges: trip $75–200, first hour $150–300, $90–175/h,
  * markup 20–50 %, permit $50–250 + $25–75). It shows no sales tax (it pays tax on its purchases),
- * bills in 30-minute steps and keeps no flat-rate tasks except its own GFCI price.
+ * bills in 30-minute steps and keeps no flat-rate entries except its own GFCI price.
  */
 function copperleafBook(name: string): RateBookInput {
   const timedOnly = DEMO_RATE_BOOK.entries.filter((e) => e.pricing.mode === 'time-and-materials');
@@ -30,7 +30,7 @@ function copperleafBook(name: string): RateBookInput {
     entries: [
       ...timedOnly,
       // first GFCI $125–275, each additional in the same visit $60–150
-      { id: 'gfci-swap-flat', code: 'gfci-inoperative', name: 'Swap GFCI receptacle (flat price)', unit: 'device', pricing: { mode: 'flat', firstUnitCents: 15_500, additionalUnitCents: 7_500, hardSiteMultiplierBp: 13_000 } },
+      { id: 'gfci-swap-flat', code: 'gfci-inoperative', name: 'Swap GFCI receptacle, flat rate', unit: 'device', pricing: { mode: 'flat', firstUnitCents: 15_500, additionalUnitCents: 7_500, hardSiteMultiplierBp: 13_000 } },
     ],
     adders: DEMO_RATE_BOOK.adders.map((a) => (a.id === 'plaster-walls' ? { ...a, effect: { kind: 'labour-multiplier' as const, multiplierBp: 12_500 } } : a)),
   };

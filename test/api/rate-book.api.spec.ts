@@ -11,7 +11,7 @@ const write = (who: SignedIn, method: 'post' | 'put' | 'patch' | 'delete', path:
 
 const flatEntry = {
   code: 'gfci-inoperative',
-  name: 'Replace GFCI receptacle, price-book task',
+  name: 'Replace GFCI receptacle, flat rate',
   unit: 'device',
   pricing: { mode: 'flat', firstUnitCents: 17_500, additionalUnitCents: 8_500, hardSiteMultiplierBp: 14_000 },
 };
@@ -98,7 +98,7 @@ describe('/api/rate-book/entries', () => {
     const a = await write(s.contractor, 'post', '/api/rate-book/entries').send(flatEntry);
     expect(a.status).toBe(201);
     flat = a.body;
-    expect(flat).toMatchObject({ key: 'replace-gfci-receptacle-price-book-task', version: 1, code: 'gfci-inoperative', isOnSentQuote: false, pricing: flatEntry.pricing });
+    expect(flat).toMatchObject({ key: 'replace-gfci-receptacle-flat-rate', version: 1, code: 'gfci-inoperative', isOnSentQuote: false, pricing: flatEntry.pricing });
     const b = await write(s.colleague, 'post', '/api/rate-book/entries').send(timedEntry);
     expect(b.status).toBe(201);
     timed = b.body;

@@ -1,4 +1,4 @@
-import { ConflictError, DomainError, ValidationError } from '../services/errors';
+import { ConflictError, DomainError, ValidationError } from '../errors';
 
 /**
  * PostgreSQL errors that a client's input or a lost race causes, as the domain errors the API

@@ -1,6 +1,6 @@
 import type { RequestHandler } from 'express';
 import { findInputProblem } from '@cc/shared';
-import { ValidationError } from '../services/errors';
+import { ValidationError } from '../errors';
 
 /**
  * Refuses, before any route runs, a path, query or JSON body holding a NUL character (PostgreSQL

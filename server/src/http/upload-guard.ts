@@ -1,7 +1,7 @@
 import type { RequestHandler } from 'express';
 import { MulterError } from 'multer';
 import { hasNoNul } from '@cc/shared';
-import { ValidationError } from '../services/errors';
+import { ValidationError } from '../errors';
 
 /**
  * Wraps a multer middleware so that a broken multipart body (no boundary, cut short, malformed

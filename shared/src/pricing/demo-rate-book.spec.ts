@@ -1,6 +1,6 @@
 // Sources:
 // - the finding codes: the project's finding-code list (spec "Finding codes", every code in its table);
-// - labour and material ranges per task: trade reference section 5 "Labour and materials per finding
+// - labour and material ranges per entry: trade reference section 5 "Labour and materials per finding
 //   code" (common practice, no source; 2025 US, one unit, easy site), transcribed below in cents;
 // - visit terms and flat prices: trade reference section 6 "How small contractors price service
 //   work" (common practice, no source).
@@ -16,7 +16,7 @@ const FINDING_CODES = [
 ];
 
 /** entry id → [min minutes, max minutes, min materials cents, max materials cents] (section 5). */
-const TASK_RANGES: Record<string, [number, number, number, number]> = {
+const ENTRY_RANGES: Record<string, [number, number, number, number]> = {
   'gfci-receptacle-first-device': [25, 40, 1_800, 3_000], // GFCI receptacle at first device; GFCI 15 A 18–30
   'gfci-breaker': [20, 35, 4_000, 7_000],
   'gfci-replace': [15, 25, 1_800, 3_000],
@@ -75,7 +75,7 @@ describe('DEMO_RATE_BOOK', () => {
     const pricing = entry.pricing;
     if (pricing.mode === 'time-and-materials') {
       it('has labour minutes and materials inside the trade reference ranges (common practice)', () => {
-        const [minMinutes, maxMinutes, minMaterials, maxMaterials] = TASK_RANGES[id];
+        const [minMinutes, maxMinutes, minMaterials, maxMaterials] = ENTRY_RANGES[id];
         for (const m of [pricing.minutesLow, pricing.labourMinutesPerUnit, pricing.minutesHigh]) {
           expect(m).toBeGreaterThanOrEqual(minMinutes);
           expect(m).toBeLessThanOrEqual(maxMinutes);

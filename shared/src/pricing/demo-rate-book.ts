@@ -7,7 +7,7 @@ import type { RateBook, RateBookEntry, Material } from './rate-book.schema';
  * Every figure is common practice (no source): visit terms sit inside the ranges of the trade
  * reference's "How small contractors price service work" table, and each entry's labour minutes
  * and material costs inside its "Labour and materials per finding code" table (2025 US, one unit,
- * easy site). The minutesLow/minutesHigh pair of an entry is that table's range for the task.
+ * easy site). The minutesLow/minutesHigh pair of an entry is that table's range for the job.
  */
 
 /** Shorthand for a time-and-materials entry; materials cost per unit is the sum of its list. */
@@ -37,7 +37,7 @@ function timed(
   };
 }
 
-/** Shorthand for a flat-rate (price-book) entry. */
+/** Shorthand for a flat-rate entry. */
 function flat(
   id: string,
   code: string | null,
@@ -83,10 +83,10 @@ export const DEMO_RATE_BOOK: RateBook = {
     timed('gfci-breaker', 'gfci-missing', 'Install GFCI breaker', 'circuit', { priced: 25, low: 20, high: 35 }, [part('GFCI breaker, single pole', 5_500)]),
     timed('gfci-replace', 'gfci-inoperative', 'Replace inoperative GFCI receptacle', 'device', { priced: 20, low: 15, high: 25 }, [GFCI_15A]),
     // first GFCI $125–275, each additional in the same visit $60–150
-    flat('gfci-replace-flat', 'gfci-inoperative', 'Replace GFCI receptacle (price-book task)', 'device', { first: 17_500, additional: 8_500, hardSiteBp: 14_000 }),
+    flat('gfci-replace-flat', 'gfci-inoperative', 'Replace GFCI receptacle, flat rate', 'device', { first: 17_500, additional: 8_500, hardSiteBp: 14_000 }),
     timed('afci-breaker', 'afci-missing', 'Install AFCI breaker', 'circuit', { priced: 30, low: 20, high: 40 }, [part('AFCI breaker, single pole', 5_500)]),
     // AFCI breaker flat $150–300
-    flat('afci-breaker-flat', 'afci-missing', 'AFCI breaker upgrade (price-book task)', 'circuit', { first: 22_500, additional: 17_500, hardSiteBp: 13_000 }),
+    flat('afci-breaker-flat', 'afci-missing', 'AFCI breaker upgrade, flat rate', 'circuit', { first: 22_500, additional: 17_500, hardSiteBp: 13_000 }),
     timed('afci-receptacle', 'afci-missing', 'Install outlet-branch-circuit AFCI receptacle', 'device', { priced: 25, low: 20, high: 30 }, [part('OBC AFCI receptacle', 3_800)]),
     timed('polarity-correct', 'reversed-polarity', 'Re-terminate reversed receptacle with new TR device', 'device', { priced: 12, low: 10, high: 15 }, [TR_RECEPTACLE], SMALL_PARTS_MARKUP_BP),
     timed('ground-reconnect', 'open-ground', 'Connect existing equipment ground', 'device', { priced: 12, low: 10, high: 15 }, [part('Ground pigtail and screw', 75)], SMALL_PARTS_MARKUP_BP),

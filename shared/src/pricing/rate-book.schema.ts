@@ -84,7 +84,7 @@ export type TimeAndMaterialsPricing = z.infer<typeof TimeAndMaterialsPricingSche
 
 export const FlatPricingSchema = z.object({
   mode: z.literal('flat'),
-  /** Task price (labour and small parts) for the first unit of this entry in a visit. */
+  /** Flat-rate price (labour and small parts) for the first unit of this entry in a visit. */
   firstUnitCents: cents,
   /** Price of each further unit of this entry in the same visit. */
   additionalUnitCents: cents,

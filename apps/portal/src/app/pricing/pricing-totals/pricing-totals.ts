@@ -13,7 +13,7 @@ const ROWS: TotalsRow[] = [
   { label: 'Service call', field: 'serviceCallCents' },
   { label: 'First-hour minimum', field: 'firstHourMinimumCents' },
   { label: 'Labour after the first hour', field: 'extraLabourCents' },
-  { label: 'Flat-price tasks', field: 'flatCents' },
+  { label: 'Flat-rate entries', field: 'flatCents' },
   { label: 'Materials', field: 'materialsCostCents' },
   { label: 'Materials markup', field: 'materialsMarkupCents' },
   { label: 'Permit', field: 'permitCents' },

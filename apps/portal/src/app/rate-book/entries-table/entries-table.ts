@@ -14,6 +14,7 @@ import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { issuesOf } from '../../core/forms/issues-of';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
 import { Notice } from '../../core/http/notice';
+import { codeLabel } from '../../pricing/code-label';
 import { pricingSummary } from '../entry-draft';
 import { EntryFormData, EntryFormDialog } from '../entry-form-dialog/entry-form-dialog';
 import { RateBookApi } from '../rate-book-api';
@@ -29,6 +30,7 @@ import { DOLLARS, textValidator, unitValidator, WHOLE } from '../field-validator
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class EntriesTable {
+  protected readonly codeLabel = codeLabel;
   private readonly api = inject(RateBookApi);
   private readonly dialog = inject(MatDialog);
   private readonly notice = inject(Notice);

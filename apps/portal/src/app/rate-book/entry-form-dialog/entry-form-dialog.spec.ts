@@ -72,7 +72,7 @@ describe('EntryFormDialog', () => {
     await save();
     expect(await errorsOf('Easy-site minutes (ballpark)')).toEqual(['Easy-site minutes exceed hard-site minutes']);
 
-    await (await loader.getHarness(MatButtonToggleHarness.with({ text: 'Flat price' }))).check();
+    await (await loader.getHarness(MatButtonToggleHarness.with({ text: 'Flat rate' }))).check();
     await (await input('entry-form-first-unit')).setValue('85');
     await (await input('entry-form-additional-unit')).setValue('175');
     await save();

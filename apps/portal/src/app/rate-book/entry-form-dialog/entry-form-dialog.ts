@@ -43,7 +43,7 @@ const flat = FlatPricingSchema.shape;
 const TM_FIELDS = ['labourMinutesPerUnit', 'materialsCentsPerUnit', 'markupBp', 'minutesLow', 'minutesHigh', 'materials'] as const;
 const FLAT_FIELDS = ['firstUnitCents', 'additionalUnitCents', 'hardSiteMultiplierBp'] as const;
 
-/** Adds or changes one rate-book entry: time and materials (minutes, materials, markup) or a flat price. */
+/** Adds or changes one rate-book entry: time and materials (minutes, materials, markup) or a flat rate. */
 @Component({
   selector: 'cc-entry-form-dialog',
   imports: [ReactiveFormsModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatButtonToggleModule, MatIconModule, ErrorMessagePipe],

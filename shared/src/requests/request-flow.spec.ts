@@ -1,0 +1,116 @@
+import { ITEM_STATUSES } from '../items/item-status';
+import {
+  actorsOf,
+  ITEM_FLOW,
+  itemPathTo,
+  mayAct,
+  mayMoveItem,
+  mayMoveRequest,
+  movesOnFrom,
+  REQUEST_ACTIONS,
+  REQUEST_FLOW,
+  requestMove,
+  requestPathTo,
+  whoActsNext,
+  type FlowActor,
+} from './request-flow';
+import { FINAL_STATUSES, REQUEST_STATUSES } from './request-status';
+
+const ACTORS: FlowActor[] = ['buyer-agent', 'listing-agent', 'seller', 'inspector', 'contractor', 'admin'];
+
+describe('request flow', () => {
+  describe('every move × every actor', () => {
+    for (const move of REQUEST_FLOW) {
+      for (const from of move.from) {
+        for (const actor of ACTORS) {
+          const allowed = move.by.includes(actor);
+          it(`${move.event} from ${from ?? 'nothing'} by ${actor}: ${allowed ? 'allowed' : 'refused'}`, () => {
+            expect(mayMoveRequest([actor], move.event, from)).toBe(allowed);
+          });
+        }
+      }
+    }
+  });
+
+  it('refuses a move from a state the table does not start it from', () => {
+    expect(requestMove('approve', 'pricing')).toBeUndefined();
+    expect(mayMoveRequest(['seller'], 'approve', 'pricing')).toBe(false);
+    expect(mayMoveRequest(['contractor'], 'issue-letter', 'in-progress')).toBe(false);
+  });
+
+  it('leaves no state a request can reach without a way on, except the final ones', () => {
+    for (const status of REQUEST_STATUSES) {
+      if (FINAL_STATUSES.includes(status)) expect(movesOnFrom(status)).toEqual([]);
+      else expect(movesOnFrom(status).length).toBeGreaterThan(0);
+    }
+  });
+
+  it('reaches every state from nothing', () => {
+    for (const status of REQUEST_STATUSES) expect(requestPathTo(status).at(-1)?.to).toBe(status);
+  });
+
+  it('follows the usual course to the accepted proof', () => {
+    expect(requestPathTo('accepted').map((m) => m.event)).toEqual([
+      'open', 'add-report', 'confirm-items', 'send-quote', 'approve', 'schedule', 'start-work', 'finish-work', 'issue-letter', 'accept-proof',
+    ]);
+  });
+
+  // The permissions below are those of the product's flow (who may do what).
+  it('lets only the seller side approve, never the contractor who sent the quote', () => {
+    expect(mayMoveRequest(['seller'], 'approve', 'quoted')).toBe(true);
+    expect(mayMoveRequest(['listing-agent'], 'approve', 'quoted')).toBe(true);
+    expect(mayMoveRequest(['contractor'], 'approve', 'quoted')).toBe(false);
+    expect(mayMoveRequest(['buyer-agent'], 'approve', 'quoted')).toBe(false);
+  });
+
+  it('names who acts next in each state', () => {
+    expect(whoActsNext('intake')).toEqual(['buyer-agent', 'listing-agent']);
+    expect(whoActsNext('pricing')).toEqual(['contractor']);
+    expect(whoActsNext('quoted')).toEqual(['seller', 'listing-agent']);
+    expect(whoActsNext('letter-issued')).toEqual(['inspector', 'buyer-agent']);
+    expect(whoActsNext('accepted')).toEqual([]);
+  });
+
+  it('answers the actions that do not move the request', () => {
+    expect(mayAct(['inspector'], 'upload-report', 'intake')).toBe(true);
+    expect(mayAct(['seller'], 'upload-report', 'intake')).toBe(false);
+    expect(mayAct(['inspector'], 'review-items', 'intake')).toBe(false);
+    expect(mayAct(['buyer-agent'], 'change-contractor', 'quoted')).toBe(false);
+    expect(mayAct(['contractor'], 'price', 'quoted')).toBe(true);
+    expect(mayAct(['buyer-agent'], 'see-access-notes', 'scheduled')).toBe(false);
+    for (const rule of Object.values(REQUEST_ACTIONS)) {
+      expect(rule.in.length).toBeGreaterThan(0);
+      expect(rule.by.length).toBeGreaterThan(0);
+    }
+  });
+});
+
+describe('item flow', () => {
+  for (const move of ITEM_FLOW) {
+    for (const from of move.from) {
+      for (const actor of ACTORS) {
+        const allowed = move.by.includes(actor);
+        it(`${move.event} from ${from ?? 'nothing'} by ${actor}: ${allowed ? 'allowed' : 'refused'}`, () => {
+          expect(mayMoveItem([actor], move.event, from)).toBe(allowed);
+        });
+      }
+    }
+  }
+
+  it('reaches every item state', () => {
+    for (const status of ITEM_STATUSES) expect(itemPathTo(status).at(-1)?.to).toBe(status);
+  });
+
+  it('takes the parser’s proposal through to a corrected item on the usual course', () => {
+    expect(itemPathTo('done').map((m) => m.event)).toEqual(['propose', 'confirm', 'price', 'approve', 'correct']);
+  });
+});
+
+describe('actorsOf', () => {
+  it('gives a person every part they play, the contractor only when assigned, and admin', () => {
+    expect(actorsOf({ role: 'agent', myParts: ['buyer-agent', 'listing-agent'], isAssignedContractor: false })).toEqual(['buyer-agent', 'listing-agent']);
+    expect(actorsOf({ role: 'contractor', myParts: [], isAssignedContractor: true })).toEqual(['contractor']);
+    expect(actorsOf({ role: 'contractor', myParts: [], isAssignedContractor: false })).toEqual([]);
+    expect(actorsOf({ role: 'admin', myParts: [], isAssignedContractor: false })).toEqual(['admin']);
+  });
+});

@@ -1,0 +1,268 @@
+// The flow of a repair request and of its line items, in one table each: every move as
+// (event, from, to, who may make it). The server moves a request or an item only through these
+// tables; the portal asks them which actions to show and who acts next; the seeds build their demo
+// history from them. Nothing else lists states or who may move them.
+import type { Role } from '../auth/role';
+import type { PartyRole } from './repair-request.schema';
+import type { ItemStatus } from '../items/item-status';
+import { FINAL_STATUSES, type RequestStatus } from './request-status';
+
+/**
+ * Who acts on a request: the parts a person plays on it (named parties), the assigned contractor's
+ * organisation, or an administrator.
+ */
+export type FlowActor = PartyRole | 'contractor' | 'admin';
+
+export const FLOW_ACTOR_LABELS: Record<FlowActor, string> = {
+  'buyer-agent': 'the buyer’s agent',
+  'listing-agent': 'the listing agent',
+  seller: 'the seller',
+  inspector: 'the inspector',
+  contractor: 'the contractor',
+  admin: 'an administrator',
+};
+
+const AGENTS: readonly FlowActor[] = ['buyer-agent', 'listing-agent'];
+const SELLER_SIDE: readonly FlowActor[] = ['seller', 'listing-agent'];
+const PROOF_READERS: readonly FlowActor[] = ['inspector', 'buyer-agent'];
+
+export interface FlowMove<S extends string, E extends string> {
+  readonly event: E;
+  /** States the move starts from (`null` only for the move that creates the record). */
+  readonly from: readonly (S | null)[];
+  /** The state after the move; equal to a `from` for moves that keep the state (a new quote version). */
+  readonly to: S;
+  /** Who may make the move. The first is who makes it in the usual course (demo history names them). */
+  readonly by: readonly FlowActor[];
+  /** What the move is called on a button or in the history, in the product's words. */
+  readonly label: string;
+  /** Whether the move is off the usual course (demo histories avoid it unless nothing else leads there). */
+  readonly isDetour?: boolean;
+}
+
+// ---------------------------------------------------------------------------------------------
+// The request
+
+export const REQUEST_EVENTS = [
+  'open',
+  'add-report',
+  'confirm-items',
+  'send-quote',
+  'approve',
+  'decline',
+  'schedule',
+  'start-work',
+  'approve-change-order',
+  'finish-work',
+  'issue-letter',
+  'accept-proof',
+  'reject-proof',
+  'resume-work',
+  'withdraw',
+] as const;
+export type RequestEvent = (typeof REQUEST_EVENTS)[number];
+export type RequestMove = FlowMove<RequestStatus, RequestEvent>;
+
+const BEFORE_LETTER: readonly RequestStatus[] = ['draft', 'intake', 'pricing', 'quoted', 'approved', 'scheduled', 'in-progress', 'corrected', 'reopened'];
+
+export const REQUEST_FLOW: readonly RequestMove[] = [
+  { event: 'open', from: [null], to: 'draft', by: [...AGENTS, 'admin'], label: 'Open the request' },
+  { event: 'add-report', from: ['draft'], to: 'intake', by: [...AGENTS, 'inspector', 'admin'], label: 'Add the inspection report' },
+  { event: 'confirm-items', from: ['intake'], to: 'pricing', by: [...AGENTS, 'admin'], label: 'Confirm the items' },
+  { event: 'send-quote', from: ['pricing', 'quoted'], to: 'quoted', by: ['contractor'], label: 'Send the quote' },
+  { event: 'approve', from: ['quoted'], to: 'approved', by: SELLER_SIDE, label: 'Approve and sign' },
+  { event: 'decline', from: ['quoted'], to: 'declined', by: SELLER_SIDE, label: 'Decline every item' },
+  { event: 'schedule', from: ['approved'], to: 'scheduled', by: ['contractor'], label: 'Book a visit' },
+  { event: 'start-work', from: ['scheduled'], to: 'in-progress', by: ['contractor'], label: 'Start the visit' },
+  // An approved change order brings new work: a request whose work was finished is under way again.
+  { event: 'approve-change-order', from: ['corrected'], to: 'in-progress', by: SELLER_SIDE, label: 'Approve the change order', isDetour: true },
+  { event: 'finish-work', from: ['in-progress'], to: 'corrected', by: ['contractor'], label: 'Record the last outcome' },
+  { event: 'issue-letter', from: ['corrected'], to: 'letter-issued', by: ['contractor'], label: 'Issue the completion letter' },
+  { event: 'accept-proof', from: ['letter-issued'], to: 'accepted', by: PROOF_READERS, label: 'Accept the corrections' },
+  { event: 'reject-proof', from: ['letter-issued'], to: 'reopened', by: PROOF_READERS, label: 'List items not accepted' },
+  { event: 'resume-work', from: ['reopened'], to: 'in-progress', by: ['contractor'], label: 'Take the items back in hand' },
+  { event: 'withdraw', from: BEFORE_LETTER, to: 'withdrawn', by: [...AGENTS, 'admin'], label: 'Withdraw (the sale fell through)', isDetour: true },
+];
+
+/**
+ * Things a party does on a request that do not move it, and the states in which they may.
+ * (Moves are in REQUEST_FLOW; these are the permissions the screens and routes also ask about.)
+ */
+export const REQUEST_ACTIONS = {
+  'invite-party': { in: BEFORE_LETTER, by: [...AGENTS, 'admin'] },
+  'change-contractor': { in: ['draft', 'intake', 'pricing'], by: [...AGENTS, 'admin'] },
+  'upload-report': { in: ['draft', 'intake'], by: [...AGENTS, 'inspector', 'admin'] },
+  'review-items': { in: ['draft', 'intake'], by: [...AGENTS, 'admin'] },
+  price: { in: ['pricing', 'quoted'], by: ['contractor'] },
+  'send-change-order': { in: ['approved', 'scheduled', 'in-progress', 'corrected', 'reopened'], by: ['contractor'] },
+  'decide-change-order': { in: ['approved', 'scheduled', 'in-progress', 'corrected', 'reopened'], by: SELLER_SIDE },
+  pay: { in: ['approved', 'scheduled', 'in-progress', 'corrected', 'letter-issued', 'accepted', 'reopened'], by: SELLER_SIDE },
+  'record-funds': { in: ['approved', 'scheduled', 'in-progress', 'corrected', 'letter-issued', 'accepted', 'reopened'], by: ['contractor'] },
+  'book-visit': { in: ['approved', 'scheduled', 'in-progress', 'reopened'], by: ['contractor'] },
+  'record-correction': { in: ['scheduled', 'in-progress', 'reopened'], by: ['contractor'] },
+  'see-access-notes': { in: BEFORE_LETTER, by: ['seller', 'listing-agent', 'contractor'] },
+} as const satisfies Record<string, { in: readonly RequestStatus[]; by: readonly FlowActor[] }>;
+export type RequestAction = keyof typeof REQUEST_ACTIONS;
+
+// ---------------------------------------------------------------------------------------------
+// A line item
+
+export const ITEM_EVENTS = [
+  'propose',
+  'add',
+  'confirm',
+  'remove',
+  'price',
+  'clear-price',
+  'leave-out',
+  'take-back-in',
+  'approve',
+  'decline',
+  'add-by-change-order',
+  'correct',
+  'not-correct',
+  'accept',
+  'not-accept',
+  'rework',
+] as const;
+export type ItemEvent = (typeof ITEM_EVENTS)[number];
+export type ItemMove = FlowMove<ItemStatus, ItemEvent>;
+
+export const ITEM_FLOW: readonly ItemMove[] = [
+  { event: 'propose', from: [null], to: 'proposed', by: [...AGENTS, 'inspector', 'admin'], label: 'Read from the report' },
+  { event: 'add', from: [null], to: 'open', by: [...AGENTS, 'admin'], label: 'Add an item by hand', isDetour: true },
+  { event: 'confirm', from: ['proposed'], to: 'open', by: [...AGENTS, 'admin'], label: 'Confirm' },
+  { event: 'remove', from: ['proposed', 'open'], to: 'removed', by: [...AGENTS, 'admin'], label: 'Remove' },
+  { event: 'price', from: ['open', 'priced'], to: 'priced', by: ['contractor'], label: 'Price' },
+  { event: 'clear-price', from: ['priced'], to: 'open', by: ['contractor'], label: 'Clear the price', isDetour: true },
+  { event: 'leave-out', from: ['open', 'priced'], to: 'out-of-scope', by: ['contractor'], label: 'Leave out (not our scope)' },
+  { event: 'take-back-in', from: ['out-of-scope'], to: 'open', by: ['contractor'], label: 'Take back into the quote', isDetour: true },
+  { event: 'approve', from: ['priced'], to: 'approved', by: SELLER_SIDE, label: 'Approve' },
+  { event: 'decline', from: ['priced', 'approved'], to: 'declined', by: SELLER_SIDE, label: 'Decline' },
+  { event: 'add-by-change-order', from: [null], to: 'priced', by: ['contractor'], label: 'Add by change order', isDetour: true },
+  { event: 'correct', from: ['approved'], to: 'done', by: ['contractor'], label: 'Record as corrected' },
+  { event: 'not-correct', from: ['approved'], to: 'not-done', by: ['contractor'], label: 'Record as not corrected' },
+  { event: 'accept', from: ['done'], to: 'accepted', by: PROOF_READERS, label: 'Accept the correction' },
+  { event: 'not-accept', from: ['done'], to: 'not-accepted', by: PROOF_READERS, label: 'Do not accept' },
+  // The seller approved and paid for this scope once: an item whose correction was not accepted goes
+  // back to the contractor as approved work, not back to pricing.
+  { event: 'rework', from: ['not-accepted'], to: 'approved', by: ['contractor'], label: 'Take back for rework', isDetour: true },
+];
+
+// ---------------------------------------------------------------------------------------------
+// Who a person is on one request
+
+export interface ActorFacts {
+  readonly role: Role;
+  /** The parts the person plays on the request (named parties). */
+  readonly myParts: readonly PartyRole[];
+  /** Whether the person belongs to the contractor organisation assigned to the request. */
+  readonly isAssignedContractor: boolean;
+}
+
+/** The actors a person is on one request (several when one person plays several parts). */
+export function actorsOf(facts: ActorFacts): FlowActor[] {
+  const actors: FlowActor[] = [...facts.myParts];
+  if (facts.role === 'contractor' && facts.isAssignedContractor) actors.push('contractor');
+  if (facts.role === 'admin') actors.push('admin');
+  return actors;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Questions asked of the tables
+
+function findMove<S extends string, E extends string>(flow: readonly FlowMove<S, E>[], event: E, from: S | null): FlowMove<S, E> | undefined {
+  return flow.find((m) => m.event === event && m.from.includes(from));
+}
+
+/** The move `event` makes from `from`, or undefined when the flow has no such move. */
+export function requestMove(event: RequestEvent, from: RequestStatus | null): RequestMove | undefined {
+  return findMove(REQUEST_FLOW, event, from);
+}
+
+export function itemMove(event: ItemEvent, from: ItemStatus | null): ItemMove | undefined {
+  return findMove(ITEM_FLOW, event, from);
+}
+
+const shares = (a: readonly FlowActor[], b: readonly FlowActor[]) => a.some((x) => b.includes(x));
+
+/** Whether any of `actors` may make `event` on a request in state `from`. */
+export function mayMoveRequest(actors: readonly FlowActor[], event: RequestEvent, from: RequestStatus | null): boolean {
+  const move = requestMove(event, from);
+  return !!move && shares(actors, move.by);
+}
+
+/** Whether any of `actors` may make `event` on an item in state `from`. */
+export function mayMoveItem(actors: readonly FlowActor[], event: ItemEvent, from: ItemStatus | null): boolean {
+  const move = itemMove(event, from);
+  return !!move && shares(actors, move.by);
+}
+
+/** Whether any of `actors` may do `action` on a request in state `status`. */
+export function mayAct(actors: readonly FlowActor[], action: RequestAction, status: RequestStatus): boolean {
+  const rule = REQUEST_ACTIONS[action];
+  return (rule.in as readonly RequestStatus[]).includes(status) && shares(actors, rule.by);
+}
+
+/** The states in which `action` is allowed (for the screens that show a feature only then). */
+export function statesAllowing(action: RequestAction): readonly RequestStatus[] {
+  return REQUEST_ACTIONS[action].in;
+}
+
+/** The moves that carry a request on from `status` (withdrawal left out: it ends the request). */
+export function movesOnFrom(status: RequestStatus): RequestMove[] {
+  return REQUEST_FLOW.filter((m) => m.from.includes(status) && m.event !== 'withdraw' && m.to !== status);
+}
+
+/** Who acts next on a request in `status`, in the order the table names them (empty when final). */
+export function whoActsNext(status: RequestStatus): FlowActor[] {
+  const actors: FlowActor[] = [];
+  for (const move of movesOnFrom(status)) for (const a of move.by) if (a !== 'admin' && !actors.includes(a)) actors.push(a);
+  return actors;
+}
+
+/** The moves `actors` may make on a request in `status` right now. */
+export function movesFor(actors: readonly FlowActor[], status: RequestStatus): RequestMove[] {
+  return REQUEST_FLOW.filter((m) => m.from.includes(status) && shares(actors, m.by));
+}
+
+/** Whether nothing more happens on a request in `status`. */
+export function isEnded(status: RequestStatus): boolean {
+  return FINAL_STATUSES.includes(status);
+}
+
+/**
+ * The usual path of moves from nothing to `target` (shortest by number of moves, preferring the
+ * table's order), each with the actor who would make it. Seeds build demo histories from it.
+ */
+export function pathTo<S extends string, E extends string>(flow: readonly FlowMove<S, E>[], target: S): FlowMove<S, E>[] {
+  return shortestPath(flow.filter((m) => !m.isDetour), target) ?? shortestPath(flow, target) ?? fail(target);
+}
+
+function fail(target: string): never {
+  throw new Error(`No path in the flow reaches ${target}`);
+}
+
+function shortestPath<S extends string, E extends string>(flow: readonly FlowMove<S, E>[], target: S): FlowMove<S, E>[] | null {
+  type Node = { state: S | null; path: FlowMove<S, E>[] };
+  const seen = new Set<S | null>([null]);
+  const queue: Node[] = [{ state: null, path: [] }];
+  while (queue.length) {
+    const { state, path } = queue.shift()!;
+    if (state === target) return path;
+    for (const move of flow) {
+      if (!move.from.includes(state) || seen.has(move.to)) continue;
+      seen.add(move.to);
+      queue.push({ state: move.to, path: [...path, move] });
+    }
+  }
+  return null;
+}
+
+export function requestPathTo(target: RequestStatus): RequestMove[] {
+  return pathTo(REQUEST_FLOW, target);
+}
+
+export function itemPathTo(target: ItemStatus): ItemMove[] {
+  return pathTo(ITEM_FLOW, target);
+}
