@@ -1,4 +1,5 @@
 import { join } from 'node:path';
+import { MessageChannel } from 'node:worker_threads';
 import { Piscina } from 'piscina';
 import { MAX_FINDINGS_PER_REPORT, MAX_REPORT_PAGES, MAX_REPORT_TEXT_CHARS } from '@cc/shared';
 import type { ReadJob, ReadLimits, ReadOutcome } from './read-report';
@@ -54,12 +55,21 @@ export class ReportReader {
 
   /** Pages and findings of a report, or why it was refused. Other failures are thrown. */
   async read(job: ReadJob): Promise<ReadOutcome | { ok: false; refusal: PoolRefusal }> {
-    const signal = AbortSignal.timeout(this.options.timeoutMs);
+    // The time limit runs from the moment a worker starts on the task (it says so through the
+    // port), so neither waiting in the queue nor a worker's start-up counts against the report;
+    // a longer overall bound covers those.
+    const controller = new AbortController();
+    const { port1, port2 } = new MessageChannel();
+    let timer: NodeJS.Timeout | undefined;
+    port1.once('message', () => {
+      timer = setTimeout(() => controller.abort(), this.options.timeoutMs);
+    });
+    const overall = setTimeout(() => controller.abort(), this.options.timeoutMs + 120_000);
     try {
-      return await this.pool.run({ job, limits: this.limits }, { signal });
+      return await this.pool.run({ job, limits: this.limits, started: port2 }, { signal: controller.signal, transferList: [port2] });
     } catch (err) {
       const { name, message, code } = err as { name?: string; message?: string; code?: string };
-      if (name === 'AbortError' || signal.aborted) {
+      if (name === 'AbortError' || controller.signal.aborted) {
         return { ok: false, refusal: { status: 422, message: 'Reading this report took too long', hint: 'Upload only the electrical pages, or paste their text' } };
       }
       if (code === 'ERR_WORKER_OUT_OF_MEMORY') {
@@ -69,6 +79,10 @@ export class ReportReader {
         return { ok: false, refusal: { status: 503, message: 'Many reports are being read right now', hint: 'Try again in a minute' } };
       }
       throw err;
+    } finally {
+      clearTimeout(timer);
+      clearTimeout(overall);
+      port1.close();
     }
   }
 
