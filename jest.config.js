@@ -44,6 +44,8 @@ module.exports = {
     {
       ...node,
       displayName: 'api',
+      // Uploads of several megabytes and bcrypt sign-ins on a busy 2-core machine outlast jest's 5 s default.
+      testTimeout: 20_000,
       setupFilesAfterEnv: ['<rootDir>/test/helpers/api-setup.ts'],
       testMatch: ['<rootDir>/test/api/**/*.api.spec.ts'],
       testEnvironment: '<rootDir>/test/helpers/pdf-environment.js',

@@ -22,6 +22,7 @@ import { QuotesService } from './quotes/quotes.service';
 import { RateBookService } from './rate-book/rate-book.service';
 import { ReportIntakeService } from './intake/report-intake.service';
 import { RequestsService } from './requests/requests.service';
+import { FlowService } from './flow/flow.service';
 
 /** Builds every repository and service of the app from one database handle and the config. */
 export function createServices(db: Db, config: Config) {
@@ -33,26 +34,29 @@ export function createServices(db: Db, config: Config) {
   const passwords = new Passwords(config.bcryptRounds);
   const storage = new LocalFileStorage(config.storageDir);
   const reportReader = new ReportReader({ ...config.reportReader, maxQueue: 8 * config.reportReader.maxThreads });
-  const requestsService = new RequestsService(db, requests, users, organisations, config.publicUrl);
   const rateBooks = new RateBookRepository(db);
   const itemPricing = new ItemPricingRepository(db);
   const quotes = new QuoteRepository(db);
+  // Every move of a request or an item goes through the flow service (listeners: later the notification outbox).
+  const flow = new FlowService(requests, items);
+  const requestsService = new RequestsService(db, requests, users, organisations, flow, items, itemPricing, config.publicUrl);
   const rateBookService = new RateBookService(db, rateBooks, organisations);
-  const pricingService = new PricingService(db, requestsService, rateBookService, itemPricing, quotes);
+  const pricingService = new PricingService(db, requestsService, rateBookService, itemPricing, items, quotes, flow);
   return {
     repositories: { users, organisations, requests, items, reports },
+    flow,
     storage,
     reportReader,
     auth: new AuthService(users, passwords, new SessionRepository(db)),
     admin: new AdminService(users, organisations, passwords),
     requests: requestsService,
     invitations: new InvitationsService(db, requests, users, passwords),
-    reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, reportReader),
-    lineItems: new LineItemsService(db, requestsService, requests, items, reports),
+    reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, reportReader, flow),
+    lineItems: new LineItemsService(db, requestsService, items, reports, flow),
     rateBook: rateBookService,
     pricing: pricingService,
     ballpark: new BallparkService(requestsService, rateBookService, itemPricing),
-    quotes: new QuotesService(db, requestsService, pricingService, rateBookService, rateBooks, requests, organisations, itemPricing, quotes),
+    quotes: new QuotesService(db, requestsService, pricingService, rateBookService, rateBooks, requests, organisations, itemPricing, quotes, flow),
   };
 }
 

@@ -1,6 +1,7 @@
 import { createHash } from 'node:crypto';
 import {
   findingCodeInfo,
+  requestMove,
   type CurrentUser,
   type Finding,
   type ParseResult,
@@ -16,14 +17,17 @@ import { inTransaction } from '../db/transaction';
 import type { ReadJob } from '../integrations/report-reader/read-report';
 import type { ReportReader } from '../integrations/report-reader/report-reader';
 import type { FileStorage, StagedFile } from '../integrations/storage/file-storage';
-import { ConflictError, ForbiddenError, NotFoundError } from '../errors';
+import { NotFoundError } from '../errors';
+import { assertMayAct, moverOn, type FlowService, type Mover } from '../flow/flow.service';
 import { checkUpload, refusalError, type UploadedFile } from './report-intake';
 import type { RequestsService } from '../requests/requests.service';
 
-/** Request states in which a report can be added and its items reviewed. */
-export const INTAKE_STATES = ['draft', 'intake'] as const;
+const UPLOAD_REFUSED = {
+  notYours: "Only the request's agents and inspector add the report",
+  notNow: 'The items of this request are confirmed already; the report cannot be changed now',
+};
 
-function proposalsFrom(findings: Finding[], requestId: number, reportFileId: number): NewLineItem[] {
+function proposalsFrom(findings: Finding[], requestId: number, reportFileId: number): Omit<NewLineItem, 'status'>[] {
   return findings.map((f) => ({
     requestId,
     code: f.code,
@@ -34,7 +38,6 @@ function proposalsFrom(findings: Finding[], requestId: number, reportFileId: num
     page: f.page,
     severity: f.severity ?? findingCodeInfo(f.code).severity,
     necRefs: f.necRefs,
-    status: 'proposed',
     isEdited: false,
     reportFileId,
     evidenceStart: f.start,
@@ -56,6 +59,7 @@ export class ReportIntakeService {
     private readonly items: LineItemRepository,
     private readonly storage: FileStorage,
     private readonly reader: Pick<ReportReader, 'read'>,
+    private readonly flow: FlowService,
   ) {}
 
   /** Pages and findings of a report, read in the worker pool; a refusal becomes its domain error. */
@@ -66,14 +70,11 @@ export class ReportIntakeService {
   }
 
   /** 404 unless visible; 403 unless an agent or inspector of the request (or admin); 409 after intake. */
-  private async assertCanUpload(user: CurrentUser, requestId: number) {
+  private async assertCanUpload(user: CurrentUser, requestId: number): Promise<Mover> {
     const request = await this.access.get(user, requestId);
-    const canUpload = user.role === 'admin' || request.myParts.some((p) => p !== 'seller');
-    if (!canUpload) throw new ForbiddenError("Only the request's agents and inspector add the report");
-    if (!(INTAKE_STATES as readonly string[]).includes(request.status)) {
-      throw new ConflictError('The items of this request are confirmed already; the report cannot be changed now');
-    }
-    return request;
+    const mover = moverOn(user, request);
+    assertMayAct(mover.actors, 'upload-report', request.status, UPLOAD_REFUSED);
+    return mover;
   }
 
   async list(user: CurrentUser, requestId: number): Promise<ReportFile[]> {
@@ -90,23 +91,23 @@ export class ReportIntakeService {
   }
 
   async uploadFile(user: CurrentUser, requestId: number, file: UploadedFile): Promise<UploadResult> {
-    await this.assertCanUpload(user, requestId);
+    const mover = await this.assertCanUpload(user, requestId);
     const kind = checkUpload(file);
     const sha256 = sha256Of(file.buffer);
     const existing = await this.reports.findBySha(requestId, sha256);
     if (existing) return duplicate(existing);
     const { pages, parsed } = await this.read({ kind, bytes: file.buffer }, 'file');
-    return this.keep(user, requestId, file.buffer, sha256, kind, file.originalName, pages, parsed);
+    return this.keep(mover, requestId, file.buffer, sha256, kind, file.originalName, pages, parsed);
   }
 
   async paste(user: CurrentUser, requestId: number, text: string, name?: string): Promise<UploadResult> {
-    await this.assertCanUpload(user, requestId);
+    const mover = await this.assertCanUpload(user, requestId);
     const bytes = Buffer.from(text, 'utf8');
     const sha256 = sha256Of(bytes);
     const existing = await this.reports.findBySha(requestId, sha256);
     if (existing) return duplicate(existing);
     const { pages, parsed } = await this.read({ kind: 'pasted', text }, 'text');
-    return this.keep(user, requestId, bytes, sha256, 'pasted', name || 'Pasted text', pages, parsed);
+    return this.keep(mover, requestId, bytes, sha256, 'pasted', name || 'Pasted text', pages, parsed);
   }
 
   /**
@@ -115,7 +116,7 @@ export class ReportIntakeService {
    * under a temporary name and moved under their key only once the transaction committed.
    */
   private async keep(
-    user: CurrentUser,
+    mover: Mover,
     requestId: number,
     bytes: Buffer,
     sha256: string,
@@ -128,14 +129,14 @@ export class ReportIntakeService {
     let reportId: number | null;
     try {
       reportId = await inTransaction(this.db, async (trx) => {
-        await this.moveToIntake(requestId, user, trx);
+        await this.moveToIntake(requestId, mover, trx);
         // Another upload of the same bytes may have committed while this one waited for the lock.
         if (await this.reports.findBySha(requestId, sha256, trx)) return null;
         const id = await this.reports.insert(
-          { requestId, sha256, kind, originalName: originalName.slice(0, 255), sizeBytes: bytes.length, pages, skipped: parsed.skipped, storageKey: sha256, uploadedBy: user.id },
+          { requestId, sha256, kind, originalName: originalName.slice(0, 255), sizeBytes: bytes.length, pages, skipped: parsed.skipped, storageKey: sha256, uploadedBy: mover.userId },
           trx,
         );
-        await this.items.insert(proposalsFrom(parsed.findings, requestId, id), trx);
+        await this.flow.createItems(trx, 'propose', mover, proposalsFrom(parsed.findings, requestId, id), UPLOAD_REFUSED);
         return id;
       });
     } catch (err) {
@@ -160,17 +161,18 @@ export class ReportIntakeService {
    * same place as one of them is not proposed again.
    */
   async reparse(user: CurrentUser, requestId: number, reportId: number): Promise<UploadResult> {
-    await this.assertCanUpload(user, requestId);
+    const mover = await this.assertCanUpload(user, requestId);
     const report = await this.reports.text(requestId, reportId);
     if (!report) throw new NotFoundError('No such report');
     const { parsed } = await this.read({ kind: 'pages', pages: report.pages }, 'reportId');
     const proposedCount = await inTransaction(this.db, async (trx) => {
-      await this.lockRequest(requestId, trx);
+      // The request's row first, as every write to its reports and items takes it.
+      await this.requests.lockStatus(requestId, trx);
       const replaceable = await this.items.uneditedProposals(reportId, trx);
       await this.items.deleteByIds(replaceable.map((i) => i.id), trx);
       const kept = await this.keptPlaces(reportId, trx);
       const fresh = parsed.findings.filter((f) => !kept.has(`${f.code}@${f.start}`) && !kept.has(`*@${f.start}`));
-      await this.items.insert(proposalsFrom(fresh, requestId, reportId), trx);
+      await this.flow.createItems(trx, 'propose', mover, proposalsFrom(fresh, requestId, reportId), UPLOAD_REFUSED);
       await this.reports.setSkipped(reportId, parsed.skipped, trx);
       return fresh.length;
     });
@@ -180,30 +182,20 @@ export class ReportIntakeService {
 
   /** Places in the report already spoken for: `code@start`, and `*@start` for items a person edited. */
   private async keptPlaces(reportId: number, trx: Trx): Promise<Set<string>> {
-    const rows: { code: string; evidence_start: number | null; is_edited: boolean }[] = await trx('line_items')
-      .where({ report_file_id: reportId })
-      .select('code', 'evidence_start', 'is_edited');
     const places = new Set<string>();
-    for (const r of rows) {
-      if (r.evidence_start === null) continue;
-      places.add(`${r.code}@${r.evidence_start}`);
-      if (r.is_edited) places.add(`*@${r.evidence_start}`);
+    for (const r of await this.items.placesInReport(reportId, trx)) {
+      if (r.evidenceStart === null) continue;
+      places.add(`${r.code}@${r.evidenceStart}`);
+      if (r.isEdited) places.add(`*@${r.evidenceStart}`);
     }
     return places;
   }
 
-  /** Locks the request's row: every write to its reports and items takes this lock first. */
-  private async lockRequest(requestId: number, trx: Trx): Promise<string> {
-    const { status } = await trx('repair_requests').where({ id: requestId }).forUpdate().first('status');
-    return status;
-  }
-
-  private async moveToIntake(requestId: number, user: CurrentUser, trx: Trx): Promise<void> {
-    const status = await this.lockRequest(requestId, trx);
-    if (status === 'draft') {
-      await this.requests.changeStatus(requestId, { from: 'draft', to: 'intake', by: user.id, note: 'Inspection report added' }, trx);
-    } else if (status !== 'intake') {
-      throw new ConflictError('The items of this request are confirmed already; the report cannot be changed now');
-    }
+  /** The first report moves the request into intake; later ones find it there (409 once intake is over). */
+  private async moveToIntake(requestId: number, mover: Mover, trx: Trx): Promise<void> {
+    const status = await this.requests.lockStatus(requestId, trx);
+    if (status === null) throw new NotFoundError('No such repair request');
+    assertMayAct(mover.actors, 'upload-report', status, UPLOAD_REFUSED);
+    if (requestMove('add-report', status)) await this.flow.moveRequest(trx, requestId, 'add-report', mover, 'Inspection report added', UPLOAD_REFUSED);
   }
 }

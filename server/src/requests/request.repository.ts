@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import {
+  itemStateAfter,
   requestReference,
   type NecEdition,
   type PartyRole,
@@ -41,6 +42,8 @@ export interface NewRepairRequest {
   status: RequestStatus;
   contractorOrganisationId: number | null;
   createdBy: number;
+  /** When it was opened (now, unless demo data backdates it). */
+  createdAt?: Date;
 }
 
 export interface PartyRecord {
@@ -63,7 +66,13 @@ const SORT_COLUMNS: Record<RequestListFilter['sort'], string> = {
 /** Lists count their rows no further than this; beyond it they say "1,000+". */
 export const LIST_COUNT_CAP = 1000;
 
-const ITEM_COUNT_SQL = "(SELECT count(*) FROM line_items li WHERE li.request_id = r.id AND li.status NOT IN ('proposed', 'removed'))::int AS item_count";
+/** Items a request does not count yet or any more: proposals nobody confirmed, and removed ones. */
+const UNCOUNTED_ITEM_STATES = [itemStateAfter('propose'), itemStateAfter('remove')];
+
+/** The `item_count` column of a request summary (a query on `repair_requests as r`). */
+function itemCount(db: Db | Trx): Knex.Raw {
+  return db.raw('(SELECT count(*) FROM line_items li WHERE li.request_id = r.id AND li.status <> ALL(?))::int AS item_count', [UNCOUNTED_ITEM_STATES]);
+}
 
 type SummaryRow = RepairRequestRow & { contractor_name: string | null; item_count: number; total_count?: string };
 
@@ -111,7 +120,7 @@ export class RequestRepository {
       .select(
         'r.*',
         'o.name as contractor_name',
-        db.raw(ITEM_COUNT_SQL),
+        itemCount(db),
       );
   }
 
@@ -158,7 +167,7 @@ export class RequestRepository {
       .joinRaw('LEFT JOIN page_ids ON true')
       .leftJoin('repair_requests as r', 'r.id', 'page_ids.id')
       .leftJoin('organisations as o', 'o.id', 'r.contractor_organisation_id')
-      .select('counted.n', 'page_ids.ord', 'r.*', 'o.name as contractor_name', db.raw(ITEM_COUNT_SQL))
+      .select('counted.n', 'page_ids.ord', 'r.*', 'o.name as contractor_name', itemCount(db))
       .orderBy('page_ids.ord');
   }
 
@@ -181,46 +190,43 @@ export class RequestRepository {
         status: request.status,
         contractor_organisation_id: request.contractorOrganisationId,
         created_by: request.createdBy,
+        ...(request.createdAt ? { created_at: request.createdAt, updated_at: request.createdAt } : {}),
       })
       .returning('id');
     return row.id;
   }
 
   /**
-   * Gives the request to another contractor. What the previous one set while pricing refers to its
-   * own rate book, so it is cleared: entries, site conditions, visits, "not our scope" marks.
+   * Gives the request to another contractor and clears the site conditions flagged against the
+   * previous one's rate book; returns whether the contractor changed (the caller clears the pricing).
    */
-  async setContractor(id: number, contractorOrganisationId: number, trx: Trx): Promise<void> {
+  async setContractor(id: number, contractorOrganisationId: number, trx: Trx): Promise<boolean> {
     const { contractor_organisation_id: previous } = await trx('repair_requests').where({ id }).forUpdate().first('contractor_organisation_id');
-    if (previous === contractorOrganisationId) return;
+    if (previous === contractorOrganisationId) return false;
     await trx('repair_requests').where({ id }).update({ contractor_organisation_id: contractorOrganisationId, site_adder_ids: [], updated_at: new Date() });
-    await trx('request_pricing_visits').where({ request_id: id }).delete();
-    await trx('line_items')
-      .where({ request_id: id })
-      .whereIn('status', ['open', 'priced', 'out-of-scope'])
-      .update({
-        status: 'open',
-        entry_id: null,
-        adder_ids: [],
-        pricing_quantity: null,
-        is_quantity_assumed: false,
-        visit_key: 'visit-1',
-        out_of_scope_reason: null,
-        version: trx.raw('version + 1'),
-        updated_at: new Date(),
-      });
+    return true;
   }
 
-  /** Moves the request to `to` and records the change; `from` guards against a concurrent move. */
+  /** The request's status, its row locked until the transaction ends (moves take turns); null if there is none. */
+  async lockStatus(id: number, trx: Trx): Promise<RequestStatus | null> {
+    const row = await trx('repair_requests').where({ id }).forUpdate().first<{ status: RequestStatus } | undefined>('status');
+    return row?.status ?? null;
+  }
+
+  /**
+   * Moves the request to `to` and records the change with who made it, in which part, and why;
+   * `from` guards against a concurrent move. Only the flow service calls this.
+   */
   async changeStatus(
     id: number,
-    change: { from: RequestStatus | null; to: RequestStatus; by: number | null; note?: string | null },
+    change: { from: RequestStatus | null; to: RequestStatus; by: number | null; actor: string | null; note?: string | null; at?: Date },
     trx: Trx,
   ): Promise<boolean> {
+    const at = change.at ?? new Date();
     if (change.from !== null) {
       const updated = await trx('repair_requests')
         .where({ id, status: change.from })
-        .update({ status: change.to, updated_at: new Date() });
+        .update({ status: change.to, updated_at: at });
       if (updated === 0) return false;
     }
     await trx<RequestStatusChangeRow>('request_status_changes').insert({
@@ -228,7 +234,9 @@ export class RequestRepository {
       from_status: change.from,
       to_status: change.to,
       changed_by: change.by,
+      actor: change.actor,
       note: change.note ?? null,
+      created_at: at,
     });
     return true;
   }
@@ -244,6 +252,7 @@ export class RequestRepository {
       to: r.to_status,
       at: r.created_at.toISOString(),
       byName: r.by_name,
+      actor: r.actor,
       note: r.note,
     }));
   }
