@@ -12,10 +12,11 @@ import type { Db } from './db/knex';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { inputGuard } from './http/input-guard';
 import { createApiRouter } from './api.router';
-import { createServices } from './services';
+import { createServices, type Services } from './services';
 
 export interface App {
   app: Express;
+  services: Services;
   /** Closes what the app opened (session store pool). The caller owns `db`. */
   close(): Promise<void>;
 }
@@ -76,6 +77,7 @@ export function createApp(config: Config, db: Db): App {
 
   return {
     app,
+    services,
     async close() {
       store.close();
       await Promise.all([sessionPool.end(), services.reportReader.close()]);

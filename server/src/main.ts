@@ -3,6 +3,7 @@ import { createApp } from './app';
 import { loadConfig } from './config/config';
 import { createDb } from './db/knex';
 import { sweepStorageAtStart } from './integrations/storage/sweep-at-start';
+import { startMail } from './notifications/mail-runtime';
 
 async function main(): Promise<void> {
   let config;
@@ -16,12 +17,14 @@ async function main(): Promise<void> {
   await db.raw('select 1');
   const swept = await sweepStorageAtStart(config.storageDir, db);
   if (swept.committed + swept.removed > 0) console.log(`Storage: ${swept.removed} unfinished upload(s) removed, ${swept.committed} kept`);
-  const { app, close } = createApp(config, db);
+  const { app, close, services } = createApp(config, db);
+  const mail = await startMail(config, services);
   const server = app.listen(config.port, config.host, () => {
     console.log(`Closing Circuit API and portal listening on http://${config.host}:${config.port}`);
   });
   const shutdown = () => {
     server.close(async () => {
+      await mail.stop();
       await close();
       await db.destroy();
       process.exit(0);

@@ -19,6 +19,7 @@ import type { ReportReader } from '../integrations/report-reader/report-reader';
 import type { FileStorage, StagedFile } from '../integrations/storage/file-storage';
 import { NotFoundError } from '../errors';
 import { assertMayAct, moverOn, type FlowService, type Mover } from '../flow/flow.service';
+import type { NotificationsService } from '../notifications/notifications.service';
 import { checkUpload, refusalError, type UploadedFile } from './report-intake';
 import type { RequestsService } from '../requests/requests.service';
 
@@ -60,6 +61,7 @@ export class ReportIntakeService {
     private readonly storage: FileStorage,
     private readonly reader: Pick<ReportReader, 'read'>,
     private readonly flow: FlowService,
+    private readonly notifications: NotificationsService,
   ) {}
 
   /** Pages and findings of a report, read in the worker pool; a refusal becomes its domain error. */
@@ -137,6 +139,7 @@ export class ReportIntakeService {
           trx,
         );
         await this.flow.createItems(trx, 'propose', mover, proposalsFrom(parsed.findings, requestId, id), UPLOAD_REFUSED);
+        await this.notifications.notify(trx, { kind: 'report-parsed', requestId, actorUserId: mover.userId, reportFileId: id, itemCount: parsed.findings.length });
         return id;
       });
     } catch (err) {
