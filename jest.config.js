@@ -46,7 +46,7 @@ module.exports = {
       ...node,
       displayName: 'api',
       testMatch: ['<rootDir>/test/api/**/*.api.spec.ts'],
-      setupFilesAfterEnv: ['<rootDir>/test/helpers/api-timeout.ts'],
+      setupFilesAfterEnv: ['<rootDir>/test/helpers/api-setup.ts'],
       testEnvironment: '<rootDir>/test/helpers/pdf-environment.js',
       globalSetup: '<rootDir>/test/helpers/api-global-setup.ts',
     },

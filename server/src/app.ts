@@ -10,6 +10,7 @@ import { createSessionStore } from './auth/session-store';
 import type { Config } from './config/config';
 import type { Db } from './db/knex';
 import { apiNotFound, errorHandler } from './http/error-handler';
+import { inputGuard } from './http/input-guard';
 import { createApiRouter } from './api.router';
 import { createServices, type Services } from './services';
 import { createPaymentWebhookRouter } from './payments/payment-webhook.router';
@@ -31,7 +32,8 @@ export function createApp(config: Config, db: Db): App {
 
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  // The client address comes from X-Forwarded-For only behind a proxy the configuration names.
+  app.set('trust proxy', config.trustProxy);
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -52,6 +54,7 @@ export function createApp(config: Config, db: Db): App {
   // The payment service's events need the raw body for their signature: before the JSON parser and the session.
   app.use('/api/payments/webhook', createPaymentWebhookRouter(services));
   app.use(express.json({ limit: '1mb' }));
+  app.use('/api', inputGuard);
   app.use(
     session({
       name: 'cc.sid',
@@ -81,7 +84,7 @@ export function createApp(config: Config, db: Db): App {
     services,
     async close() {
       store.close();
-      await sessionPool.end();
+      await Promise.all([sessionPool.end(), services.reportReader.close()]);
     },
   };
 }

@@ -27,3 +27,5 @@ export class ValidationError extends DomainError {}
 export class TooLargeError extends DomainError {}
 /** The upload is not of a kind the endpoint takes. */
 export class UnsupportedTypeError extends DomainError {}
+/** The server is too busy to do this now; the client may try again shortly. */
+export class UnavailableError extends DomainError {}

@@ -3,6 +3,7 @@ import { createApp } from './app';
 import { loadConfig } from './config/config';
 import { createDb } from './db/knex';
 import { fakeKeys, startFakePaymentService, type FakePaymentService } from './integrations/payments/fake-payment-service';
+import { sweepStorageAtStart } from './integrations/storage/sweep-at-start';
 import { startMail } from './notifications/mail-runtime';
 
 async function main(): Promise<void> {
@@ -23,6 +24,8 @@ async function main(): Promise<void> {
     config = { ...config, payments: { ...keys, apiBase: fake.url } };
     console.log(`Fake payment service (test cards only) on ${fake.url}`);
   }
+  const swept = await sweepStorageAtStart(config.storageDir, db);
+  if (swept.committed + swept.removed > 0) console.log(`Storage: ${swept.removed} unfinished upload(s) removed, ${swept.committed} kept`);
   const { app, close, services } = createApp(config, db);
   const mail = await startMail(config, services);
   const server = app.listen(config.port, config.host, () => {

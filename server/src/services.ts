@@ -8,17 +8,18 @@ import { RateBookRepository } from './rate-book/rate-book.repository';
 import { ReportFileRepository } from './intake/report-file.repository';
 import { RequestRepository } from './requests/request.repository';
 import { UserRepository } from './auth/user.repository';
+import { SessionRepository } from './auth/session.repository';
 import { AdminService } from './admin/admin.service';
 import { AuthService } from './auth/auth.service';
 import { BallparkService } from './pricing/ballpark.service';
 import { LocalFileStorage } from './integrations/storage/local-file-storage';
+import { ReportReader } from './integrations/report-reader/report-reader';
 import { InvitationsService } from './invitations/invitations.service';
 import { LineItemsService } from './intake/line-items.service';
 import { Passwords } from './auth/passwords';
 import { PricingService } from './pricing/pricing.service';
 import { QuotesService } from './quotes/quotes.service';
 import { RateBookService } from './rate-book/rate-book.service';
-import { readPdfPages } from './intake/report-intake';
 import { ReportIntakeService } from './intake/report-intake.service';
 import { RequestsService } from './requests/requests.service';
 import { FlowService } from './flow/flow.service';
@@ -43,6 +44,7 @@ export function createServices(db: Db, config: Config) {
   const reports = new ReportFileRepository(db);
   const passwords = new Passwords(config.bcryptRounds);
   const storage = new LocalFileStorage(config.storageDir);
+  const reportReader = new ReportReader({ ...config.reportReader, maxQueue: 8 * config.reportReader.maxThreads });
   const rateBooks = new RateBookRepository(db);
   const itemPricing = new ItemPricingRepository(db);
   const quotes = new QuoteRepository(db);
@@ -72,11 +74,12 @@ export function createServices(db: Db, config: Config) {
     activity: new ActivityService(requestsService, activity),
     dashboards: new DashboardsService(new DashboardsRepository(db)),
     storage,
-    auth: new AuthService(users, passwords),
+    reportReader,
+    auth: new AuthService(users, passwords, new SessionRepository(db)),
     admin: new AdminService(users, organisations, passwords, db),
     requests: requestsService,
     invitations: new InvitationsService(db, requests, users, passwords),
-    reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, readPdfPages, flow, notifications),
+    reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, reportReader, flow, notifications),
     lineItems: new LineItemsService(db, requestsService, items, reports, flow, activity),
     rateBook: rateBookService,
     pricing: pricingService,

@@ -4,6 +4,7 @@ export * from './auth/role';
 export * from './auth/auth.schema';
 export * from './http/api-error';
 export * from './http/page';
+export * from './http/bounds';
 export * from './organisations/organisation.schema';
 export * from './users/user.schema';
 export * from './requests/us-state';

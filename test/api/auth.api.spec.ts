@@ -99,6 +99,8 @@ describe('POST /api/auth/sign-in', () => {
   describe('after too many failed attempts', () => {
     it('responds 429 even to the right password', async () => {
       const limited = createTestApp({ SIGN_IN_LIMIT: '3' });
+      // Counters live in PostgreSQL and outlast an app instance: start from none, leave none.
+      await limited.db('rate_limit_counters').delete();
       try {
         const user = await createUser(limited.db, 'agent');
         const agent = request.agent(limited.app);
@@ -111,6 +113,7 @@ describe('POST /api/auth/sign-in', () => {
         expect(res.body.error).toMatch(/too many/i);
         expect(res.body.details).toEqual([]);
       } finally {
+        await limited.db('rate_limit_counters').delete();
         await limited.close();
       }
     });

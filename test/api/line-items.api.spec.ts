@@ -113,7 +113,7 @@ describe('merge, split, add, remove', () => {
   it('adds an item from selected report text, with its evidence and page', async () => {
     const { id, reportId } = await requestWithItems();
     const report = (await agent.agent.get(`/api/requests/${id}/reports`)).body[0];
-    const text: string = report.pages.join('\f');
+    const text: string = (await agent.agent.get(`/api/requests/${id}/reports/${report.id}/text`).expect(200)).body.pages.join('\f');
     const start = text.indexOf('double tapped');
     const res = await agent.agent
       .post(`/api/requests/${id}/items`)

@@ -73,7 +73,10 @@ describe('POST /api/requests/:id/reports', () => {
     const byCode = Object.fromEntries(items.body.map((i: { code: string }) => [i.code, i]));
     expect(byCode['gfci-missing']).toMatchObject({ room: 'bathroom', page: 1, status: 'proposed' });
     expect(byCode['reversed-polarity']).toMatchObject({ room: 'bedroom', page: 2, status: 'proposed' });
-    const joined = res.body.report.pages.join('\f');
+    expect(res.body.report.pages).toBeUndefined();
+    const text = await agent.agent.get(`/api/requests/${id}/reports/${res.body.report.id}/text`).expect(200);
+    expect(text.body).toEqual({ id: res.body.report.id, pages: [expect.stringContaining('ROOFING'), expect.stringContaining('Reversed polarity')] });
+    const joined = text.body.pages.join('\f');
     for (const item of items.body) expect(joined.slice(item.evidenceStart, item.evidenceEnd)).toBe(item.evidence);
     expect((await counts(id)).status).toBe('intake');
   });

@@ -100,15 +100,24 @@ describe('POST /api/requests', () => {
     expect(after).toEqual(before);
   });
 
-  it('responds 400 on the field when an e-mail belongs to an account of the wrong role, and rolls back', async () => {
-    const before = await t.db('repair_requests').count<{ count: string }[]>({ count: '*' });
-    const res = await sessions.buyerAgent.agent
+  it('invites by link an e-mail whose account has another role, answering as for an unknown e-mail (no account is revealed)', async () => {
+    const unknownEmail = `nobody-${Date.now()}@people.test`;
+    const asKnown = await sessions.buyerAgent.agent
       .post('/api/requests')
       .set('x-csrf-token', sessions.buyerAgent.csrfToken)
       .send(validRequestBody({ sellerEmail: cast.inspector.email }));
-    expect(res.status).toBe(400);
-    expect(res.body.details).toEqual([{ path: 'sellerEmail', message: expect.stringMatching(/not a seller/) }]);
-    expect(await t.db('repair_requests').count<{ count: string }[]>({ count: '*' })).toEqual(before);
+    const asUnknown = await sessions.buyerAgent.agent
+      .post('/api/requests')
+      .set('x-csrf-token', sessions.buyerAgent.csrfToken)
+      .send(validRequestBody({ sellerEmail: unknownEmail }));
+    expect(asKnown.status).toBe(201);
+    expect(asUnknown.status).toBe(201);
+    const sellerOf = (body: { parties: { role: string; isPending: boolean; name: string | null; inviteUrl: string | null }[] }) => {
+      const { isPending, name, inviteUrl } = body.parties.find((p) => p.role === 'seller')!;
+      return { isPending, name, hasLink: inviteUrl !== null };
+    };
+    expect(sellerOf(asKnown.body)).toEqual({ isPending: true, name: null, hasLink: true });
+    expect(sellerOf(asKnown.body)).toEqual(sellerOf(asUnknown.body));
   });
 
   it('responds 400 when the contractor is not a contractor organisation', async () => {

@@ -87,3 +87,22 @@ describe('rate-book CSV', () => {
     });
   });
 });
+
+// OWASP, "CSV Injection": cells starting with = + - @ (or tab / carriage return) are run as formulas
+// by spreadsheet programs; they are written with a leading apostrophe.
+describe('rate-book CSV and spreadsheet formulas', () => {
+  const entry = (name: string, unit: string): CsvEntry => ({ ...demoEntries[0], key: 'formula-entry', name, unit });
+
+  it.each(['=HYPERLINK("http://evil.test","Click")', '+1+1', '-2+3', '@SUM(A1:A2)'])('writes %s as text, not a formula', (name) => {
+    const csv = entriesToCsv([entry(name, 'plate')]);
+    const [row] = Papa.parse<Record<string, string>>(csv, { header: true }).data;
+    expect(row.name).toBe(`'${name}`);
+  });
+
+  it('reads an exported formula-like name back as it was', () => {
+    const written = entry('=1+2 receptacle', '@unit');
+    const [read] = parsedOrFail(entriesToCsv([written]));
+    expect(read.name).toBe('=1+2 receptacle');
+    expect(read.unit).toBe('@unit');
+  });
+});

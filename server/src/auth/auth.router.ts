@@ -1,7 +1,7 @@
 import { Router, type Request } from 'express';
-import rateLimit from 'express-rate-limit';
-import { ChangePasswordSchema, SignInSchema, type ApiError, type CurrentUser, type Session, type SessionState } from '@cc/shared';
+import { ChangePasswordSchema, SignInSchema, type CurrentUser, type Session, type SessionState } from '@cc/shared';
 import type { RouterDeps } from '../http/router-deps';
+import { passwordChangeLimit, signInLimits } from '../http/rate-limits';
 import { requireUser, userOf } from '../http/require-user';
 import { UnauthenticatedError } from '../errors';
 
@@ -12,26 +12,14 @@ export async function signInAs(req: Request, user: CurrentUser, deps: RouterDeps
 }
 
 export function createAuthRouter(deps: RouterDeps): Router {
-  const { passport, services, config, csrf } = deps;
+  const { passport, services, config, csrf, db } = deps;
   const router = Router();
-
-  const signInLimiter = rateLimit({
-    windowMs: config.signInWindowMs,
-    limit: config.signInLimit,
-    skipSuccessfulRequests: true,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (_req, res) => {
-      const minutes = Math.ceil(config.signInWindowMs / 60_000);
-      res.status(429).json({ error: `Too many sign-in attempts. Try again in ${minutes} minutes.`, details: [] } satisfies ApiError);
-    },
-  });
 
   router.get('/csrf', (req, res) => {
     res.json({ csrfToken: csrf.generateToken(req) });
   });
 
-  router.post('/sign-in', signInLimiter, async (req, res, next) => {
+  router.post('/sign-in', ...signInLimits(config, db), async (req, res, next) => {
     req.body = SignInSchema.parse(req.body);
     const user = await new Promise<Express.User | false>((resolve, reject) =>
       passport.authenticate('local', { session: false }, (err: unknown, found: Express.User | false) =>
@@ -57,8 +45,8 @@ export function createAuthRouter(deps: RouterDeps): Router {
     res.json({ user: userOf(req), csrfToken: csrf.generateToken(req) } satisfies Session);
   });
 
-  router.post('/password', requireUser, async (req, res) => {
-    await services.auth.changePassword(userOf(req), ChangePasswordSchema.parse(req.body));
+  router.post('/password', requireUser, passwordChangeLimit(config, db), async (req, res) => {
+    await services.auth.changePassword(userOf(req), ChangePasswordSchema.parse(req.body), req.sessionID);
     res.status(204).end();
   });
 

@@ -1,4 +1,5 @@
 import type { ChangePassword, CurrentUser, SignIn } from '@cc/shared';
+import type { SessionRepository } from './session.repository';
 import type { UserRepository } from './user.repository';
 import { ValidationError } from '../errors';
 import type { Passwords } from './passwords';
@@ -10,18 +11,26 @@ export class AuthService {
   constructor(
     private readonly users: UserRepository,
     private readonly passwords: Passwords,
+    private readonly sessions: SessionRepository,
   ) {}
 
-  /** The user for these credentials, or null. */
+  /**
+   * The user for these credentials, or null. Unknown e-mail and wrong password cost the same: one
+   * bcrypt comparison at the server's cost, and a hash made at another cost (older seeds, a changed
+   * BCRYPT_ROUNDS) is made again at the server's cost on the next right password.
+   */
   async verifyCredentials({ email, password }: SignIn): Promise<CurrentUser | null> {
     const user = await this.users.findByEmail(email);
     const hash = user ? await this.users.passwordHashOf(user.id) : null;
     this.unknownUserHash ??= this.passwords.hash('no account has this password');
     const isValid = await this.passwords.verify(password, hash ?? (await this.unknownUserHash));
-    return user && hash && isValid ? user : null;
+    if (!user || !hash || !isValid) return null;
+    if (this.passwords.needsRehash(hash)) await this.users.setPasswordHash(user.id, await this.passwords.hash(password));
+    return user;
   }
 
-  async changePassword(user: CurrentUser, input: ChangePassword): Promise<void> {
+  /** Changes the password and ends the user's other sessions (the one that asked, `sessionId`, stays). */
+  async changePassword(user: CurrentUser, input: ChangePassword, sessionId: string): Promise<void> {
     const hash = await this.users.passwordHashOf(user.id);
     if (!hash || !(await this.passwords.verify(input.currentPassword, hash))) {
       throw new ValidationError('Your current password is not right', [
@@ -29,5 +38,6 @@ export class AuthService {
       ]);
     }
     await this.users.setPasswordHash(user.id, await this.passwords.hash(input.newPassword));
+    await this.sessions.endOthers(user.id, sessionId);
   }
 }

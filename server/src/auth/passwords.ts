@@ -11,4 +11,13 @@ export class Passwords {
   verify(password: string, hash: string): Promise<boolean> {
     return bcrypt.compare(password, hash);
   }
+
+  /** Whether `hash` was made at another cost than the configured one. */
+  needsRehash(hash: string): boolean {
+    try {
+      return bcrypt.getRounds(hash) !== this.rounds;
+    } catch {
+      return true;
+    }
+  }
 }

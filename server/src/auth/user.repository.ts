@@ -1,3 +1,4 @@
+import { pageTotal } from '../db/page-total';
 import type { CurrentUser, Page, Role, User } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
 import type { UserRow } from '../db/tables';
@@ -101,12 +102,13 @@ export class UserRepository {
   }
 
   async list(page: number, pageSize: number): Promise<Page<User>> {
-    const rows = await this.withOrg()
+    const query = this.withOrg()
       .select(this.db.raw('count(*) over() as total_count'))
       .orderBy(`${TABLE}.name`)
       .limit(pageSize)
       .offset(page * pageSize);
-    const total = rows.length ? Number((rows[0] as unknown as { total_count: string }).total_count) : 0;
+    const rows = await query;
+    const total = await pageTotal(rows, query);
     return { items: rows.map(toUser), total, page, pageSize };
   }
 }

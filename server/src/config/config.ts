@@ -19,6 +19,23 @@ const EnvSchema = z.object({
   /** Sign-in attempts allowed per client address and window. */
   SIGN_IN_LIMIT: z.coerce.number().int().min(1).default(10),
   SIGN_IN_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
+  /** Sign-in attempts allowed per account (e-mail) and window, from any address. */
+  SIGN_IN_ACCOUNT_LIMIT: z.coerce.number().int().min(1).default(10),
+  /** Password-change attempts allowed per account and window. */
+  PASSWORD_CHANGE_LIMIT: z.coerce.number().int().min(1).default(5),
+  /**
+   * Which proxies in front of the server to trust for the client address (X-Forwarded-For): unset
+   * trusts none; a number of hops, or addresses/subnets as Express's "trust proxy" takes them.
+   */
+  TRUST_PROXY: z
+    .string()
+    .trim()
+    .regex(/^(\d{1,2}|[0-9a-fA-F.:/, ]+|loopback|linklocal|uniquelocal)$/, 'a hop count, addresses/subnets, or loopback')
+    .optional(),
+  /** Worker threads that read uploaded reports, and the time and memory each read may take. */
+  REPORT_READ_THREADS: z.coerce.number().int().min(1).max(8).default(1),
+  REPORT_READ_TIMEOUT_SECONDS: z.coerce.number().int().min(1).max(600).default(30),
+  REPORT_READ_HEAP_MB: z.coerce.number().int().min(64).max(4096).default(256),
   /** Folder where uploaded files are kept (the local storage adapter). */
   STORAGE_DIR: z.string().default('.data/files'),
   /** Folder of the built portal served as static files. */
@@ -68,6 +85,11 @@ export interface Config {
   bcryptRounds: number;
   signInLimit: number;
   signInWindowMs: number;
+  signInAccountLimit: number;
+  passwordChangeLimit: number;
+  /** Express "trust proxy" setting; false trusts no proxy header. */
+  trustProxy: false | number | string;
+  reportReader: { maxThreads: number; timeoutMs: number; maxHeapMb: number };
   portalDist: string;
   storageDir: string;
   /** The payment service's keys and address; null until a fake is started (see main.ts) or keys are given. */
@@ -104,6 +126,10 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     bcryptRounds: e.BCRYPT_ROUNDS,
     signInLimit: e.SIGN_IN_LIMIT,
     signInWindowMs: e.SIGN_IN_WINDOW_MINUTES * 60_000,
+    signInAccountLimit: e.SIGN_IN_ACCOUNT_LIMIT,
+    passwordChangeLimit: e.PASSWORD_CHANGE_LIMIT,
+    trustProxy: e.TRUST_PROXY === undefined || e.TRUST_PROXY === '' ? false : /^\d+$/.test(e.TRUST_PROXY) ? Number(e.TRUST_PROXY) : e.TRUST_PROXY,
+    reportReader: { maxThreads: e.REPORT_READ_THREADS, timeoutMs: e.REPORT_READ_TIMEOUT_SECONDS * 1000, maxHeapMb: e.REPORT_READ_HEAP_MB },
     portalDist: e.PORTAL_DIST,
     storageDir: e.STORAGE_DIR,
     payments: e.STRIPE_SECRET_KEY && e.STRIPE_WEBHOOK_SECRET ? { secretKey: e.STRIPE_SECRET_KEY, webhookSecret: e.STRIPE_WEBHOOK_SECRET, apiBase: e.STRIPE_API_BASE ?? null } : null,

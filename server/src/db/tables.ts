@@ -110,6 +110,7 @@ export interface ReportFileRow {
   page_count: number;
   storage_key: string;
   pages: string[];
+  text_length: number;
   skipped_count: number;
   skipped: unknown[];
   uploaded_by: number | null;

@@ -2,6 +2,7 @@ import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { MulterError } from 'multer';
 import { ZodError } from 'zod';
 import type { ApiError } from '@cc/shared';
+import { fromDatabaseError } from '../http/database-errors';
 import {
   ConflictError,
   DomainError,
@@ -9,6 +10,7 @@ import {
   NotFoundError,
   TooLargeError,
   UnauthenticatedError,
+  UnavailableError,
   UnprocessableError,
   UnsupportedTypeError,
   ValidationError,
@@ -23,9 +25,11 @@ const STATUS_BY_ERROR: [new (...args: never[]) => DomainError, number][] = [
   [TooLargeError, 413],
   [UnsupportedTypeError, 415],
   [UnprocessableError, 422],
+  [UnavailableError, 503],
 ];
 
-function toApiError(err: unknown): { status: number; body: ApiError } {
+function toApiError(thrown: unknown): { status: number; body: ApiError } {
+  const err = fromDatabaseError(thrown) ?? thrown;
   if (err instanceof ZodError) {
     return {
       status: 400,

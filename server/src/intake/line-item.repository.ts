@@ -105,9 +105,13 @@ export class LineItemRepository {
   }
 
   async insert(items: NewLineItem[], trx: Trx): Promise<number[]> {
-    if (items.length === 0) return [];
-    const rows = await trx<LineItemRow>(TABLE).insert(items.map((i) => toRow(i))).returning('id');
-    return rows.map((r) => r.id);
+    // In chunks, so that no statement nears the driver's limit of 65,535 parameters.
+    const ids: number[] = [];
+    for (let at = 0; at < items.length; at += 200) {
+      const rows = await trx<LineItemRow>(TABLE).insert(items.slice(at, at + 200).map((i) => toRow(i))).returning('id');
+      ids.push(...rows.map((r) => r.id));
+    }
+    return ids;
   }
 
   /** Applies `changes` only if the item is still at `version`; returns whether it was. */

@@ -1,11 +1,9 @@
 import { Router } from 'express';
-import { z } from 'zod';
-import { ConfirmItemsSchema, CreateLineItemSchema, MergeLineItemsSchema, SplitLineItemSchema, UpdateLineItemSchema } from '@cc/shared';
+import { ConfirmItemsSchema, CreateLineItemSchema, MergeLineItemsSchema, SplitLineItemSchema, UpdateLineItemSchema, VersionQuerySchema } from '@cc/shared';
 import type { RouterDeps } from '../http/router-deps';
 import { requireUser, userOf } from '../http/require-user';
 import { idParam } from '../http/params';
 
-const VersionQuerySchema = z.object({ version: z.coerce.number().int().min(1) });
 
 /** Line items of one request: /api/requests/:id/items */
 export function createLineItemsRouter({ services }: RouterDeps): Router {

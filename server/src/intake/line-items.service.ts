@@ -132,7 +132,7 @@ export class LineItemsService {
     let evidence: string | null = null;
     let page: number | null = null;
     if (input.reportFileId !== null) {
-      const report = await this.reports.findInRequest(requestId, input.reportFileId);
+      const report = await this.reports.text(requestId, input.reportFileId);
       if (!report) throw new ValidationError('No such report on this request', [{ path: 'reportFileId', message: 'Choose a report of this request' }]);
       if (input.evidenceStart !== null && input.evidenceEnd !== null) {
         const joined = report.pages.join('\f');

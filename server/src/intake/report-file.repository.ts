@@ -1,10 +1,13 @@
-import type { ReportFile, SkippedText } from '@cc/shared';
+import type { ReportFile, ReportText, SkippedText } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
 import type { ReportFileRow } from '../db/tables';
 
 const TABLE = 'report_files';
 
-type RowWithUploader = ReportFileRow & { uploader_name: string | null };
+type RowWithUploader = Omit<ReportFileRow, 'pages'> & { uploader_name: string | null };
+
+/** Every column but the pages: lists and answers carry summaries, the text is read on request. */
+const SUMMARY_COLUMNS = ['id', 'request_id', 'sha256', 'kind', 'original_name', 'size_bytes', 'page_count', 'storage_key', 'text_length', 'skipped_count', 'skipped', 'uploaded_by', 'created_at'].map((c) => `f.${c}`);
 
 function toReportFile(row: RowWithUploader): ReportFile {
   return {
@@ -14,7 +17,7 @@ function toReportFile(row: RowWithUploader): ReportFile {
     sizeBytes: row.size_bytes,
     pageCount: row.page_count,
     sha256: row.sha256,
-    pages: row.pages,
+    textLength: row.text_length,
     skipped: row.skipped as SkippedText[],
     uploadedByName: row.uploader_name,
     createdAt: row.created_at.toISOString(),
@@ -37,7 +40,7 @@ export class ReportFileRepository {
   constructor(private readonly db: Db) {}
 
   private query(trx?: Trx) {
-    return (trx ?? this.db)<RowWithUploader>(`${TABLE} as f`).leftJoin('users as u', 'u.id', 'f.uploaded_by').select('f.*', 'u.name as uploader_name');
+    return (trx ?? this.db)<RowWithUploader>(`${TABLE} as f`).leftJoin('users as u', 'u.id', 'f.uploaded_by').select(...SUMMARY_COLUMNS, 'u.name as uploader_name');
   }
 
   async listForRequest(requestId: number): Promise<ReportFile[]> {
@@ -47,6 +50,12 @@ export class ReportFileRepository {
   async findInRequest(requestId: number, id: number, trx?: Trx): Promise<ReportFile | null> {
     const row = await this.query(trx).where({ 'f.request_id': requestId, 'f.id': id }).first();
     return row ? toReportFile(row) : null;
+  }
+
+  /** The pages of one report of the request, or null. */
+  async text(requestId: number, id: number, trx?: Trx): Promise<ReportText | null> {
+    const row = await (trx ?? this.db)<ReportFileRow>(TABLE).where({ request_id: requestId, id }).first('id', 'pages');
+    return row ? { id: row.id, pages: row.pages } : null;
   }
 
   async findBySha(requestId: number, sha256: string, trx?: Trx): Promise<ReportFile | null> {
@@ -63,6 +72,7 @@ export class ReportFileRepository {
         original_name: file.originalName,
         size_bytes: file.sizeBytes,
         page_count: file.pages.length,
+        text_length: file.pages.reduce((sum, page) => sum + page.length, 0),
         storage_key: file.storageKey,
         pages: JSON.stringify(file.pages) as unknown as string[],
         skipped: JSON.stringify(file.skipped) as unknown as unknown[],

@@ -1,22 +1,26 @@
 import { createHash } from 'node:crypto';
 import {
   findingCodeInfo,
-  parseReport,
   requestMove,
   type CurrentUser,
   type Finding,
+  type ParseResult,
   type ReportFile,
+  type ReportText,
   type UploadResult,
 } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
 import type { LineItemRepository, NewLineItem } from './line-item.repository';
 import type { ReportFileRepository } from './report-file.repository';
 import type { RequestRepository } from '../requests/request.repository';
-import type { FileStorage } from '../integrations/storage/file-storage';
+import { inTransaction } from '../db/transaction';
+import type { ReadJob } from '../integrations/report-reader/read-report';
+import type { ReportReader } from '../integrations/report-reader/report-reader';
+import type { FileStorage, StagedFile } from '../integrations/storage/file-storage';
 import { NotFoundError } from '../errors';
 import { assertMayAct, moverOn, type FlowService, type Mover } from '../flow/flow.service';
 import type { NotificationsService } from '../notifications/notifications.service';
-import { checkReport, type PdfPageReader, type UploadedFile } from './report-intake';
+import { checkUpload, refusalError, type UploadedFile } from './report-intake';
 import type { RequestsService } from '../requests/requests.service';
 
 const UPLOAD_REFUSED = {
@@ -45,6 +49,10 @@ function proposalsFrom(findings: Finding[], requestId: number, reportFileId: num
   }));
 }
 
+const sha256Of = (bytes: Buffer) => createHash('sha256').update(bytes).digest('hex');
+
+const duplicate = (existing: ReportFile): UploadResult => ({ report: existing, isDuplicate: true, proposedCount: 0, skippedCount: existing.skipped.length });
+
 /** Upload, text extraction and parsing of report excerpts into proposed line items. */
 export class ReportIntakeService {
   constructor(
@@ -54,10 +62,17 @@ export class ReportIntakeService {
     private readonly reports: ReportFileRepository,
     private readonly items: LineItemRepository,
     private readonly storage: FileStorage,
-    private readonly readPdfPages: PdfPageReader,
+    private readonly reader: Pick<ReportReader, 'read'>,
     private readonly flow: FlowService,
     private readonly notifications: NotificationsService,
   ) {}
+
+  /** Pages and findings of a report, read in the worker pool; a refusal becomes its domain error. */
+  private async read(job: ReadJob, field: string): Promise<{ pages: string[]; parsed: ParseResult }> {
+    const outcome = await this.reader.read(job);
+    if (!outcome.ok) throw refusalError(outcome.refusal, field);
+    return outcome;
+  }
 
   /** 404 unless visible; 403 unless an agent or inspector of the request (or admin); 409 after intake. */
   private async assertCanUpload(user: CurrentUser, requestId: number): Promise<Mover> {
@@ -72,47 +87,78 @@ export class ReportIntakeService {
     return this.reports.listForRequest(requestId);
   }
 
+  /** The pages of one report (lists and upload answers carry summaries only). */
+  async text(user: CurrentUser, requestId: number, reportId: number): Promise<ReportText> {
+    await this.access.get(user, requestId);
+    const text = await this.reports.text(requestId, reportId);
+    if (!text) throw new NotFoundError('No such report');
+    return text;
+  }
+
   async uploadFile(user: CurrentUser, requestId: number, file: UploadedFile): Promise<UploadResult> {
     const mover = await this.assertCanUpload(user, requestId);
-    const checked = await checkReport(file, this.readPdfPages);
-    return this.keep(mover, requestId, file.buffer, checked.kind, file.originalName, checked.pages);
+    const kind = checkUpload(file);
+    const sha256 = sha256Of(file.buffer);
+    const existing = await this.reports.findBySha(requestId, sha256);
+    if (existing) return duplicate(existing);
+    const { pages, parsed } = await this.read({ kind, bytes: file.buffer }, 'file');
+    return this.keep(mover, requestId, file.buffer, sha256, kind, file.originalName, pages, parsed);
   }
 
   async paste(user: CurrentUser, requestId: number, text: string, name?: string): Promise<UploadResult> {
     const mover = await this.assertCanUpload(user, requestId);
-    const pages = text.replace(/\r\n?/g, '\n').split('\f');
-    return this.keep(mover, requestId, Buffer.from(text, 'utf8'), 'pasted', name || 'Pasted text', pages);
+    const bytes = Buffer.from(text, 'utf8');
+    const sha256 = sha256Of(bytes);
+    const existing = await this.reports.findBySha(requestId, sha256);
+    if (existing) return duplicate(existing);
+    const { pages, parsed } = await this.read({ kind: 'pasted', text }, 'text');
+    return this.keep(mover, requestId, bytes, sha256, 'pasted', name || 'Pasted text', pages, parsed);
   }
 
-  /** Parses, then stores the file row, its proposals, the state change and the bytes in one transaction. */
-  private async keep(mover: Mover, requestId: number, bytes: Buffer, kind: ReportFile['kind'], originalName: string, pages: string[]): Promise<UploadResult> {
-    const sha256 = createHash('sha256').update(bytes).digest('hex');
-    const existing = await this.reports.findBySha(requestId, sha256);
-    if (existing) return { report: existing, isDuplicate: true, proposedCount: 0, skippedCount: existing.skipped.length };
-
-    const parsed = parseReport(pages);
-    let storedNew = false;
+  /**
+   * Stores the file row, its proposals and the state change in one transaction that locks the
+   * request first (so uploads to one request queue instead of deadlocking); the bytes are written
+   * under a temporary name and moved under their key only once the transaction committed.
+   */
+  private async keep(
+    mover: Mover,
+    requestId: number,
+    bytes: Buffer,
+    sha256: string,
+    kind: ReportFile['kind'],
+    originalName: string,
+    pages: string[],
+    parsed: ParseResult,
+  ): Promise<UploadResult> {
+    const staged: StagedFile = await this.storage.stage(sha256, bytes);
+    let reportId: number | null;
     try {
-      const reportId = await this.db.transaction(async (trx) => {
+      reportId = await inTransaction(this.db, async (trx) => {
+        await this.moveToIntake(requestId, mover, trx);
+        // Another upload of the same bytes may have committed while this one waited for the lock.
+        if (await this.reports.findBySha(requestId, sha256, trx)) return null;
         const id = await this.reports.insert(
           { requestId, sha256, kind, originalName: originalName.slice(0, 255), sizeBytes: bytes.length, pages, skipped: parsed.skipped, storageKey: sha256, uploadedBy: mover.userId },
           trx,
         );
-        await this.moveToIntake(requestId, mover, trx);
         await this.flow.createItems(trx, 'propose', mover, proposalsFrom(parsed.findings, requestId, id), UPLOAD_REFUSED);
         await this.notifications.notify(trx, { kind: 'report-parsed', requestId, actorUserId: mover.userId, reportFileId: id, itemCount: parsed.findings.length });
-        storedNew = await this.storage.put(sha256, bytes);
         return id;
       });
-      const report = await this.reports.findInRequest(requestId, reportId);
-      if (!report) throw new Error('report vanished after insert');
-      return { report, isDuplicate: false, proposedCount: parsed.findings.length, skippedCount: parsed.skipped.length };
     } catch (err) {
-      // The transaction rolled back: drop bytes this attempt stored so nothing is left behind.
-      if (storedNew) await this.storage.delete(sha256);
-      if ((err as { code?: string }).code === '23505') return this.keep(mover, requestId, bytes, kind, originalName, pages);
+      await staged.discard();
       throw err;
     }
+    if (reportId === null) {
+      await staged.discard();
+      const existing = await this.reports.findBySha(requestId, sha256);
+      if (!existing) throw new Error('report vanished after a concurrent insert');
+      return duplicate(existing);
+    }
+    await staged.commit();
+    const report = await this.reports.findInRequest(requestId, reportId);
+    if (!report) throw new Error('report vanished after insert');
+    return { report, isDuplicate: false, proposedCount: parsed.findings.length, skippedCount: parsed.skipped.length };
   }
 
   /**
@@ -122,10 +168,12 @@ export class ReportIntakeService {
    */
   async reparse(user: CurrentUser, requestId: number, reportId: number): Promise<UploadResult> {
     const mover = await this.assertCanUpload(user, requestId);
-    const report = await this.reports.findInRequest(requestId, reportId);
+    const report = await this.reports.text(requestId, reportId);
     if (!report) throw new NotFoundError('No such report');
-    const parsed = parseReport(report.pages);
-    const proposedCount = await this.db.transaction(async (trx) => {
+    const { parsed } = await this.read({ kind: 'pages', pages: report.pages }, 'reportId');
+    const proposedCount = await inTransaction(this.db, async (trx) => {
+      // The request's row first, as every write to its reports and items takes it.
+      await this.requests.lockStatus(requestId, trx);
       const replaceable = await this.items.uneditedProposals(reportId, trx);
       await this.items.deleteByIds(replaceable.map((i) => i.id), trx);
       const kept = await this.keptPlaces(reportId, trx);

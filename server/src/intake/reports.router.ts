@@ -2,6 +2,7 @@ import { Router } from 'express';
 import multer from 'multer';
 import { MAX_REPORT_BYTES, PasteReportSchema } from '@cc/shared';
 import type { RouterDeps } from '../http/router-deps';
+import { guardedUpload } from '../http/upload-guard';
 import { requireUser, userOf } from '../http/require-user';
 import { ValidationError } from '../errors';
 import { idParam } from '../http/params';
@@ -18,7 +19,11 @@ export function createReportsRouter({ services }: RouterDeps): Router {
     res.json(await reportIntake.list(userOf(req), idParam(req)));
   });
 
-  router.post('/', upload.single('file'), async (req, res) => {
+  router.get('/:reportId/text', async (req, res) => {
+    res.json(await reportIntake.text(userOf(req), idParam(req), idParam(req, 'reportId')));
+  });
+
+  router.post('/', guardedUpload(upload.single('file')), async (req, res) => {
     const requestId = idParam(req);
     if (!req.file) throw new ValidationError('Choose a file to upload', [{ path: 'file', message: 'Choose a PDF or text file' }]);
     const result = await reportIntake.uploadFile(userOf(req), requestId, {

@@ -8,7 +8,14 @@ export interface PdfPages {
   readonly isEncrypted: boolean;
 }
 
-export type PdfTextFailure = 'invalid' | 'encrypted' | 'unreadable';
+export type PdfTextFailure = 'invalid' | 'encrypted' | 'unreadable' | 'too-many-pages' | 'too-much-text';
+
+/** Bounds on what one extraction may read; the page count is checked before any page is read. */
+export interface PdfTextLimits {
+  maxPages?: number;
+  /** Stops reading once the pages hold more characters than this. */
+  maxChars?: number;
+}
 
 /** Why a PDF's text could not be read; `reason` is stable for callers to map to a response. */
 export class PdfTextError extends Error {
@@ -40,7 +47,24 @@ export class EncryptedPdfError extends PdfTextError {
 
 const PDF_HEADER = '%PDF-';
 
+/** The PDF has more pages than allowed (read from its page tree, before any page text). */
+export class TooManyPagesError extends PdfTextError {
+  constructor(readonly pageCount: number) {
+    super('too-many-pages', `The PDF has ${pageCount} pages`);
+    this.name = 'TooManyPagesError';
+  }
+}
+
+/** The pages hold more text than allowed; reading stopped at the limit. */
+export class TooMuchTextError extends PdfTextError {
+  constructor(readonly maxChars: number) {
+    super('too-much-text', `The PDF holds more than ${maxChars} characters of text`);
+    this.name = 'TooMuchTextError';
+  }
+}
+
 function toError(err: unknown): PdfTextError {
+  if (err instanceof PdfTextError) return err;
   const name = err instanceof Error ? err.name : '';
   if (name === 'PasswordException') return new EncryptedPdfError(err);
   if (name === 'InvalidPDFException' || name === 'FormatError') return new InvalidPdfError(err);
@@ -51,14 +75,24 @@ function toError(err: unknown): PdfTextError {
  * Reads the text of every page with pdf-parse (pdf.js). Throws InvalidPdfError for bytes that
  * are not a PDF, EncryptedPdfError for a password-protected file, PdfTextError otherwise.
  */
-export async function extractPdfPages(buffer: Uint8Array): Promise<PdfPages> {
+export async function extractPdfPages(buffer: Uint8Array, limits: PdfTextLimits = {}): Promise<PdfPages> {
   if (Buffer.from(buffer.subarray(0, 1024)).indexOf(PDF_HEADER) === -1) throw new InvalidPdfError();
   const isEncrypted = Buffer.from(buffer).includes('/Encrypt');
   const parser = new PDFParse({ data: new Uint8Array(buffer) });
   try {
-    const result = await parser.getText();
-    const pages = [...result.pages].sort((a, b) => a.num - b.num).map((p) => p.text);
-    return { pages, pageCount: result.total, isEncrypted };
+    // The page count comes from the page tree; no page is read before it is known to be allowed.
+    const { total } = await parser.getInfo();
+    if (limits.maxPages !== undefined && total > limits.maxPages) throw new TooManyPagesError(total);
+    const pages: string[] = [];
+    let chars = 0;
+    for (let num = 1; num <= total; num++) {
+      const [page] = (await parser.getText({ partial: [num] })).pages;
+      const text = page?.text ?? '';
+      chars += text.length;
+      if (limits.maxChars !== undefined && chars > limits.maxChars) throw new TooMuchTextError(limits.maxChars);
+      pages.push(text);
+    }
+    return { pages, pageCount: total, isEncrypted };
   } catch (err) {
     throw toError(err);
   } finally {

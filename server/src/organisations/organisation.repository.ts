@@ -1,3 +1,4 @@
+import { pageTotal } from '../db/page-total';
 import type { CreateOrganisation, Organisation, OrganisationKind, Page } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
 import type { OrganisationRow } from '../db/tables';
@@ -62,11 +63,12 @@ export class OrganisationRepository {
   }
 
   async list(page: number, pageSize: number): Promise<Page<Organisation>> {
-    const rows = await this.db<OrganisationRow & { total_count: string }>(TABLE)
+    const query = this.db<OrganisationRow & { total_count: string }>(TABLE)
       .select('*', this.db.raw('count(*) over() as total_count'))
       .orderBy([{ column: 'kind' }, { column: 'name' }])
       .limit(pageSize)
       .offset(page * pageSize);
-    return { items: rows.map(toOrganisation), total: rows.length ? Number(rows[0].total_count) : 0, page, pageSize };
+    const rows = await query;
+    return { items: rows.map(toOrganisation), total: await pageTotal(rows, query), page, pageSize };
   }
 }

@@ -1,4 +1,4 @@
-import { itemStateAfter, requestReference, type CurrentUser, type QuoteVersion, type QuoteVersionSummary, type SendQuote } from '@cc/shared';
+import { formatCents, itemStateAfter, MAX_QUOTE_TOTAL_CENTS, requestReference, type CurrentUser, type QuoteVersion, type QuoteVersionSummary, type SendQuote } from '@cc/shared';
 import type { Db } from '../db/knex';
 import type { ItemPricingRepository } from '../pricing/item-pricing.repository';
 import type { OrganisationRepository } from '../organisations/organisation.repository';
@@ -6,7 +6,7 @@ import type { QuoteRepository, StoredQuote } from './quote.repository';
 import type { RateBookRepository } from '../rate-book/rate-book.repository';
 import type { RequestRepository } from '../requests/request.repository';
 import { renderQuotePdf } from '../integrations/pdf/quote-pdf';
-import { ConflictError, NotFoundError } from '../errors';
+import { ConflictError, NotFoundError, UnprocessableError } from '../errors';
 import { assertMayAct, type FlowService } from '../flow/flow.service';
 import { assertClaimedTotals, describeItem, staleItem, type PricingService } from '../pricing/pricing.service';
 import { composeQuote, quoteContractorOf } from './quote-composer';
@@ -62,6 +62,7 @@ export class QuotesService {
       }
       if (!priced.input || !priced.breakdown) throw new ConflictError('Price at least one item before sending a quote');
       assertClaimedTotals(priced, input.claimedTotals);
+      assertStorableTotal(priced.breakdown.totalCents);
 
       const next = ((await this.quotes.latestVersion(requestId, trx)) ?? 0) + 1;
       const entryIds = [...new Set(items.flatMap((i) => (priced.lineByItem.has(i.id) && i.entryId !== null ? [i.entryId] : [])))];
@@ -133,3 +134,12 @@ export class QuotesService {
   }
 }
 
+/** A quote whose total is beyond any real repair cannot be sent (and would not fit its columns). */
+function assertStorableTotal(totalCents: number): void {
+  if (totalCents > MAX_QUOTE_TOTAL_CENTS) {
+    throw new UnprocessableError(
+      `The quote total ${formatCents(totalCents)} is more than ${formatCents(MAX_QUOTE_TOTAL_CENTS)}: check the rate-book prices and the quantities`,
+      [{ path: 'claimedTotals.totalCents', message: `A quote can total at most ${formatCents(MAX_QUOTE_TOTAL_CENTS)}` }],
+    );
+  }
+}

@@ -50,6 +50,15 @@ export function canonicalContent(entry: RateBookEntryContent): string {
   return JSON.stringify([entry.code, entry.name, entry.unit, pricing]);
 }
 
+/**
+ * Spreadsheet programs run a cell that starts with = + - @ (or a tab or carriage return) as a
+ * formula. Such text cells are written with a leading apostrophe, as the OWASP guidance on CSV
+ * injection advises, and the apostrophe is taken off again on import.
+ */
+const FORMULA_START = /^[=+\-@\t\r]/;
+export const neutraliseCell = (text: string): string => (FORMULA_START.test(text) ? `'${text}` : text);
+export const restoreCell = (text: string): string => (text.startsWith("'") && FORMULA_START.test(text.slice(1)) ? text.slice(1) : text);
+
 function toCells(entry: CsvEntry): Record<Column, string> {
   const p = entry.pricing;
   const isTimed = p.mode === 'time-and-materials';
@@ -57,8 +66,8 @@ function toCells(entry: CsvEntry): Record<Column, string> {
   return {
     key: entry.key,
     code: entry.code ?? '',
-    name: entry.name,
-    unit: entry.unit,
+    name: neutraliseCell(entry.name),
+    unit: neutraliseCell(entry.unit),
     mode: p.mode,
     labourMinutesPerUnit: text(isTimed ? p.labourMinutesPerUnit : null),
     materialsCentsPerUnit: text(isTimed ? p.materialsCentsPerUnit : null),
@@ -144,7 +153,7 @@ export function parseEntriesCsv(text: string): CsvParseResult {
             minutesLow: required('minutesLow'),
             minutesHigh: required('minutesHigh'),
           };
-    const checked = CreateRateBookEntrySchema.safeParse({ code: cell('code') || null, name: cell('name'), unit: cell('unit'), pricing });
+    const checked = CreateRateBookEntrySchema.safeParse({ code: cell('code') || null, name: restoreCell(cell('name')), unit: restoreCell(cell('unit')), pricing });
     if (!checked.success) {
       for (const issue of checked.error.issues) {
         const column = columnOf(issue.path);

@@ -1,3 +1,4 @@
+import { pageTotal } from '../db/page-total';
 import type {
   AdderEffect,
   CreateSiteAdder,
@@ -320,13 +321,14 @@ export class RateBookRepository {
   }
 
   async listChanges(organisationId: number, page: number, pageSize: number): Promise<Page<RateBookChange>> {
-    const rows: (RateBookChangeRow & { by_name: string | null; total_count: string })[] = await this.db('rate_book_changes as c')
+    const query = this.db('rate_book_changes as c')
       .leftJoin('users as u', 'u.id', 'c.changed_by')
       .where('c.organisation_id', organisationId)
       .select('c.*', 'u.name as by_name', this.db.raw('count(*) over() AS total_count'))
       .orderBy([{ column: 'c.created_at', order: 'desc' }, { column: 'c.id', order: 'desc' }])
       .limit(pageSize)
       .offset(page * pageSize);
+    const rows: (RateBookChangeRow & { by_name: string | null; total_count: string })[] = await query;
     return {
       items: rows.map((r) => ({
         id: r.id,
@@ -338,7 +340,7 @@ export class RateBookRepository {
         before: r.before ?? null,
         after: r.after ?? null,
       })),
-      total: rows.length ? Number(rows[0].total_count) : 0,
+      total: await pageTotal(rows, query),
       page,
       pageSize,
     };

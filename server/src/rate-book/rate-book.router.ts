@@ -9,13 +9,14 @@ import {
   UpdateRateBookEntrySchema,
   UpdateRateBookTermsSchema,
   UpdateSiteAdderSchema,
+  VersionQuerySchema,
 } from '@cc/shared';
 import type { RouterDeps } from '../http/router-deps';
+import { guardedUpload } from '../http/upload-guard';
 import { requireRole, requireUser, userOf } from '../http/require-user';
 import { ValidationError } from '../errors';
 import { idParam } from '../http/params';
 
-const VersionQuerySchema = z.object({ version: z.coerce.number().int().min(1) });
 const CsvJsonBodySchema = z.object({ csv: z.string().min(1, 'Paste the CSV text') });
 
 /** The signed-in contractor organisation's rate book: /api/rate-book */
@@ -49,7 +50,7 @@ export function createRateBookRouter({ services }: RouterDeps): Router {
     res.type('text/csv').attachment('rate-book-entries.csv').send(csv);
   });
 
-  router.post('/entries/import', csvText, upload.single('file'), async (req, res) => {
+  router.post('/entries/import', csvText, guardedUpload(upload.single('file')), async (req, res) => {
     let text: string | null = null;
     if (req.file) text = req.file.buffer.toString('utf8');
     else if (typeof req.body === 'string') text = req.body;

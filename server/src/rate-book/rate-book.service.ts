@@ -130,6 +130,7 @@ export class RateBookService {
     const organisationId = this.organisationOf(user);
     const { key: wanted, ...content } = input;
     const id = await this.db.transaction(async (trx) => {
+      await lockRateBook(organisationId, trx);
       const key = await this.assertFreeKey('rate_book_entries', organisationId, wanted, content.name, trx);
       const entryId = await this.rateBooks.createEntry(organisationId, key, content, user.id, trx);
       const after = await this.entryOrThrow(organisationId, entryId, trx);
@@ -186,6 +187,7 @@ export class RateBookService {
     const organisationId = this.organisationOf(user);
     const { key: wanted, ...adder } = input;
     const id = await this.db.transaction(async (trx) => {
+      await lockRateBook(organisationId, trx);
       const key = await this.assertFreeKey('rate_book_adders', organisationId, wanted, adder.name, trx);
       const adderId = await this.rateBooks.createAdder(organisationId, key, adder, trx);
       const after = await this.adderOrThrow(organisationId, adderId, trx);
@@ -261,4 +263,12 @@ export class RateBookService {
       return result;
     });
   }
+}
+
+/**
+ * Takes the organisation's rate-book write lock (its organisation row, FOR NO KEY UPDATE): creating
+ * entries and conditions picks a free key from those that exist, so two at once must queue.
+ */
+async function lockRateBook(organisationId: number, trx: Trx): Promise<void> {
+  await trx('organisations').where({ id: organisationId }).forNoKeyUpdate().first('id');
 }

@@ -185,13 +185,11 @@ export class RequestsService {
     return this.get(user, requestId);
   }
 
-  private async addOrInvite(requestId: number, role: PartyRole, email: string, by: CurrentUser, field: string, trx: Trx): Promise<void> {
-    const existing = await this.users.findByEmail(email, trx);
-    if (existing && existing.role !== ROLE_FOR_PARTY[role]) {
-      throw new ValidationError('That person cannot take this part', [
-        { path: field, message: `This e-mail belongs to an account that is not a${ROLE_FOR_PARTY[role] === 'agent' ? 'n' : ''} ${ROLE_FOR_PARTY[role]}` },
-      ]);
-    }
+  private async addOrInvite(requestId: number, role: PartyRole, email: string, by: CurrentUser, _field: string, trx: Trx): Promise<void> {
+    // An account of another role is invited by link like an unknown e-mail, so the answer does not
+    // tell the inviter which accounts exist; accepting then refuses the role mismatch.
+    const found = await this.users.findByEmail(email, trx);
+    const existing = found && found.role === ROLE_FOR_PARTY[role] ? found : null;
     const inviteToken = existing ? null : randomBytes(24).toString('base64url');
     const added = await this.requests.addParty(
       {

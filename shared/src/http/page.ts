@@ -1,7 +1,7 @@
 import * as z from 'zod';
 
 export const PageQuerySchema = z.object({
-  page: z.coerce.number().int().min(0).default(0),
+  page: z.coerce.number().int().min(0).max(100_000).default(0),
   pageSize: z.coerce.number().int().min(1).max(100).default(20),
 });
 

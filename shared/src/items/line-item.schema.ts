@@ -1,4 +1,6 @@
 import * as z from 'zod';
+import { INT4_MAX, plainText, RecordIdSchema, VersionSchema } from '../http/bounds';
+import { MAX_FINDINGS_PER_REPORT } from '../reports/report-file.schema';
 import { ConfidenceSchema, FindingCodeSchema, RoomSchema, SeveritySchema } from '../findings/finding.schema';
 import { BUILT_UNDER } from '../code-editions/protection-history';
 import { ItemStatusSchema } from './item-status';
@@ -51,13 +53,13 @@ export type LineItem = z.infer<typeof LineItemSchema>;
 const quantity = z.number().int().min(1, 'Use a whole number of 1 or more').max(999).nullable();
 
 export const UpdateLineItemSchema = z.object({
-  version: z.number().int().min(1),
+  version: VersionSchema,
   code: FindingCodeSchema.optional(),
   room: RoomSchema.optional(),
-  location: z.string().trim().max(300).optional(),
+  location: plainText(300).trim().optional(),
   quantity: quantity.optional(),
   severity: SeveritySchema.optional(),
-  necRefs: z.array(z.string().trim().min(1).max(40)).max(12).optional(),
+  necRefs: z.array(plainText(40).trim().min(1)).max(12).optional(),
 });
 export type UpdateLineItem = z.infer<typeof UpdateLineItemSchema>;
 
@@ -66,12 +68,12 @@ export const CreateLineItemSchema = z
   .object({
     code: FindingCodeSchema,
     room: RoomSchema,
-    location: z.string().trim().max(300).default(''),
+    location: plainText(300).trim().default(''),
     quantity: quantity.default(null),
     severity: SeveritySchema.optional(),
-    reportFileId: z.number().int().positive().nullable().default(null),
-    evidenceStart: z.number().int().min(0).nullable().default(null),
-    evidenceEnd: z.number().int().min(1).nullable().default(null),
+    reportFileId: RecordIdSchema.nullable().default(null),
+    evidenceStart: z.number().int().min(0).max(INT4_MAX).nullable().default(null),
+    evidenceEnd: z.number().int().min(1).max(INT4_MAX).nullable().default(null),
   })
   .refine((v) => (v.evidenceStart === null) === (v.evidenceEnd === null) && (v.evidenceStart === null || v.reportFileId !== null), {
     error: 'A text selection needs its report and both ends',
@@ -83,7 +85,7 @@ export const CreateLineItemSchema = z
   });
 export type CreateLineItem = z.input<typeof CreateLineItemSchema>;
 
-const itemRef = z.object({ id: z.number().int().positive(), version: z.number().int().min(1) });
+const itemRef = z.object({ id: RecordIdSchema, version: VersionSchema });
 
 /** Two items that describe the same defect become one (the first keeps its id). */
 export const MergeLineItemsSchema = z.object({
@@ -93,13 +95,13 @@ export type MergeLineItems = z.infer<typeof MergeLineItemsSchema>;
 
 /** One item with a quantity becomes several, e.g. 3 receptacles in two rooms → [2, 1]. */
 export const SplitLineItemSchema = z.object({
-  version: z.number().int().min(1),
-  quantities: z.array(z.number().int().min(1)).min(2, 'Split into at least two parts').max(20),
+  version: VersionSchema,
+  quantities: z.array(z.number().int().min(1).max(999)).min(2, 'Split into at least two parts').max(20),
 });
 export type SplitLineItem = z.infer<typeof SplitLineItemSchema>;
 
 export const ConfirmItemsSchema = z.object({
   /** The proposed items the agent reviewed; each must still be at this version. */
-  items: z.array(itemRef).min(1, 'There are no items to confirm'),
+  items: z.array(itemRef).min(1, 'There are no items to confirm').max(MAX_FINDINGS_PER_REPORT * 4),
 });
 export type ConfirmItems = z.infer<typeof ConfirmItemsSchema>;

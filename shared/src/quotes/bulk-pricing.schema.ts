@@ -1,9 +1,10 @@
 import * as z from 'zod';
+import { plainText, RecordIdSchema, VersionSchema } from '../http/bounds';
 import { ClaimedTotalsSchema } from '../pricing/verify-totals';
 import { PricingVisitSchema, RequestPricingSchema, VisitKeySchema } from './request-pricing.schema';
 
 /** An item as the client saw it: the change applies only if it is still at this version. */
-export const ItemRefSchema = z.object({ id: z.number().int().positive(), version: z.number().int().min(1) });
+export const ItemRefSchema = z.object({ id: RecordIdSchema, version: VersionSchema });
 export type ItemRef = z.infer<typeof ItemRefSchema>;
 
 const itemRefs = z
@@ -18,9 +19,9 @@ export const BulkPriceItemsSchema = z.object({
   set: z
     .object({
       /** A rate-book entry id, or null to take the entry off. */
-      entryId: z.number().int().positive().nullable().optional(),
+      entryId: RecordIdSchema.nullable().optional(),
       /** Site conditions of the items (replaces theirs). */
-      adderIds: z.array(z.number().int().positive()).max(20).optional(),
+      adderIds: z.array(RecordIdSchema).max(20).optional(),
       quantity: z.number().int().min(1, 'Use a whole number of 1 or more').max(999).optional(),
       visitKey: VisitKeySchema.optional(),
     })
@@ -49,7 +50,7 @@ export type AutoPriceResult = z.infer<typeof AutoPriceResultSchema>;
 /** The contractor declines items as not in their scope. */
 export const MarkOutOfScopeSchema = z.object({
   items: itemRefs,
-  reason: z.string().trim().min(3, 'Say why these items are not in your scope').max(500),
+  reason: plainText(500).trim().min(3, 'Say why these items are not in your scope').max(500),
 });
 export type MarkOutOfScope = z.infer<typeof MarkOutOfScopeSchema>;
 

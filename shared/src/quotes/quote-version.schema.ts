@@ -1,4 +1,5 @@
 import * as z from 'zod';
+import { plainText } from '../http/bounds';
 import { ItemEditionNoteSchema } from '../items/line-item.schema';
 import { QuoteBreakdownSchema } from '../pricing/pricing-breakdown.schema';
 import { ClaimedTotalsSchema } from '../pricing/verify-totals';
@@ -96,6 +97,6 @@ export type QuoteVersionSummary = z.infer<typeof QuoteVersionSummarySchema>;
 export const SendQuoteSchema = z.object({
   claimedTotals: ClaimedTotalsSchema.optional(),
   /** A note to the seller shown on the quote. */
-  note: z.string().trim().max(1_000).optional(),
+  note: plainText(1_000).trim().optional(),
 });
 export type SendQuote = z.infer<typeof SendQuoteSchema>;

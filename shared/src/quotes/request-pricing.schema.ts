@@ -1,4 +1,5 @@
 import * as z from 'zod';
+import { RecordIdSchema } from '../http/bounds';
 import { ItemStatusSchema } from '../items/item-status';
 import { ItemEditionNoteSchema } from '../items/line-item.schema';
 import { QuoteBreakdownSchema } from '../pricing/pricing-breakdown.schema';
@@ -15,7 +16,7 @@ export const VisitKeySchema = z
 export const PricingVisitSchema = z.object({
   key: VisitKeySchema,
   /** Site conditions for the whole visit (rate-book adder ids). */
-  adderIds: z.array(z.number().int().positive()).max(20).default([]),
+  adderIds: z.array(RecordIdSchema).max(20).default([]),
   /** Whether a permit is pulled for the work of this visit. */
   hasPermit: z.boolean().default(false),
 });

@@ -1,4 +1,5 @@
 import * as z from 'zod';
+import { RecordIdSchema } from '../http/bounds';
 import { BallparkSchema } from '../pricing/ballpark.schema';
 import { AdderEffectSchema } from '../pricing/rate-book.schema';
 
@@ -18,7 +19,7 @@ export type SiteConditions = z.infer<typeof SiteConditionsSchema>;
 
 export const UpdateSiteConditionsSchema = z.object({
   adderIds: z
-    .array(z.number().int().positive())
+    .array(RecordIdSchema)
     .max(20)
     .refine((ids) => new Set(ids).size === ids.length, { error: 'A condition is listed twice' }),
 });

@@ -1,4 +1,5 @@
 import * as z from 'zod';
+import { VersionSchema } from '../http/bounds';
 import { EntryCodeSchema, EntryPricingSchema, RateBookEntrySchema } from '../pricing/rate-book.schema';
 
 /** The contractor's short name of an entry or adder: lower-case words joined by hyphens. */
@@ -50,7 +51,7 @@ export type CreateRateBookEntry = z.infer<typeof CreateRateBookEntrySchema>;
 /** A change to an entry: the fields given replace the current ones (`pricing` as a whole). */
 export const UpdateRateBookEntrySchema = z
   .object({
-    version: z.number().int().min(1),
+    version: VersionSchema,
     code: EntryCodeSchema.optional(),
     name: entryFields.name.optional(),
     unit: entryFields.unit.optional(),

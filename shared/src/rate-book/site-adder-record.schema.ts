@@ -1,4 +1,5 @@
 import * as z from 'zod';
+import { VersionSchema } from '../http/bounds';
 import { AdderEffectSchema, SiteAdderSchema } from '../pricing/rate-book.schema';
 import { RateBookKeySchema } from './rate-book-entry.schema';
 
@@ -27,7 +28,7 @@ export type CreateSiteAdder = z.infer<typeof CreateSiteAdderSchema>;
 
 export const UpdateSiteAdderSchema = z
   .object({
-    version: z.number().int().min(1),
+    version: VersionSchema,
     name: SiteAdderSchema.shape.name.optional(),
     effect: AdderEffectSchema.optional(),
     appliesWhenBuiltBefore: SiteAdderSchema.shape.appliesWhenBuiltBefore.optional(),

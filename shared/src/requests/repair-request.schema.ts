@@ -1,5 +1,6 @@
 import * as z from 'zod';
 import { SessionSchema } from '../auth/auth.schema';
+import { BoundedDateSchema, plainText, RecordIdSchema } from '../http/bounds';
 import { PageQuerySchema } from '../http/page';
 import { NecEditionSchema } from './nec-edition';
 import { RequestStatusSchema } from './request-status';
@@ -17,7 +18,6 @@ export const PARTY_ROLE_LABELS: Record<PartyRole, string> = {
   inspector: 'Home inspector',
 };
 
-const isoDate = z.iso.date({ error: 'Enter a date as YYYY-MM-DD' });
 
 const optionalEmail = z
   .union([z.literal(''), z.email('Enter a valid e-mail address')])
@@ -26,8 +26,8 @@ const optionalEmail = z
   .transform((v) => (v ? v.trim().toLowerCase() : null));
 
 export const CreateRepairRequestSchema = z.object({
-  street: z.string().trim().min(3, 'Enter the street address').max(200),
-  city: z.string().trim().min(2, 'Enter the city').max(100),
+  street: plainText(200).trim().min(3, 'Enter the street address'),
+  city: plainText(100).trim().min(2, 'Enter the city'),
   state: UsStateSchema,
   zip: z
     .string()
@@ -38,7 +38,7 @@ export const CreateRepairRequestSchema = z.object({
     .int('Enter a whole year')
     .min(1700, 'Enter a year after 1700')
     .max(2100, 'Enter a year before 2100'),
-  closingDate: isoDate,
+  closingDate: BoundedDateSchema,
   /** Omitted: the state's default edition is used. */
   necEdition: NecEditionSchema.optional().nullable(),
   listingAgentEmail: optionalEmail,
@@ -46,7 +46,7 @@ export const CreateRepairRequestSchema = z.object({
   inspectorEmail: optionalEmail,
   /** Only an administrator names the buyer's agent; an agent who creates a request is its buyer's agent. */
   buyerAgentEmail: optionalEmail,
-  contractorOrganisationId: z.number().int().positive().nullable().optional().transform((v) => v ?? null),
+  contractorOrganisationId: RecordIdSchema.nullable().optional().transform((v) => v ?? null),
 });
 export type CreateRepairRequest = z.input<typeof CreateRepairRequestSchema>;
 export type CreateRepairRequestParsed = z.output<typeof CreateRepairRequestSchema>;
@@ -62,7 +62,7 @@ export const RepairRequestListQuerySchema = PageQuerySchema.extend({
     .optional()
     .transform((v) => (v ? v.split(',').filter(Boolean) : []))
     .pipe(z.array(RequestStatusSchema)),
-  q: z.string().trim().max(100).optional().default(''),
+  q: plainText(100).trim().optional().default(''),
   /** Only houses built before this year ("built before 1975"). */
   builtBefore: z.coerce
     .number({ error: 'Enter a year' })
@@ -138,7 +138,7 @@ export const InvitePartySchema = z.object({
 export type InviteParty = z.infer<typeof InvitePartySchema>;
 
 export const AssignContractorSchema = z.object({
-  contractorOrganisationId: z.number().int().positive(),
+  contractorOrganisationId: RecordIdSchema,
 });
 
 export const InvitationSchema = z.object({
@@ -153,7 +153,7 @@ export const InvitationSchema = z.object({
 export type Invitation = z.infer<typeof InvitationSchema>;
 
 export const AcceptInvitationSchema = z.object({
-  name: z.string().trim().min(2, 'Enter your full name').max(120),
+  name: plainText(120).trim().min(2, 'Enter your full name'),
   password: z.string().min(10, 'Use at least 10 characters').max(200),
 });
 export type AcceptInvitation = z.infer<typeof AcceptInvitationSchema>;

@@ -1,12 +1,13 @@
 import * as z from 'zod';
+import { plainText, RecordIdSchema } from '../http/bounds';
 import { CurrentUserSchema, NewPasswordSchema } from '../auth/auth.schema';
 import { RoleSchema } from '../auth/role';
 
 export const CreateUserSchema = z.object({
   email: z.email('Enter a valid e-mail address').trim().toLowerCase(),
-  name: z.string().trim().min(2, 'Enter the full name').max(120),
+  name: plainText(120).trim().min(2, 'Enter the full name'),
   role: RoleSchema,
-  organisationId: z.number().int().positive().nullable(),
+  organisationId: RecordIdSchema.nullable(),
   password: NewPasswordSchema,
 });
 export type CreateUser = z.infer<typeof CreateUserSchema>;

@@ -7,6 +7,7 @@ import {
   MergeLineItems,
   PasteReport,
   ReportFile,
+  ReportText,
   SplitLineItem,
   UpdateLineItem,
   UploadResult,
@@ -20,6 +21,11 @@ export class IntakeApi {
 
   reports(requestId: number): Observable<ReportFile[]> {
     return this.http.get<ReportFile[]>(`/api/requests/${requestId}/reports`);
+  }
+
+  /** The text of one report, page by page (lists carry summaries only). */
+  reportText(requestId: number, reportId: number): Observable<ReportText> {
+    return this.http.get<ReportText>(`/api/requests/${requestId}/reports/${reportId}/text`);
   }
 
   /** Uploads a PDF or text file; the events carry the upload progress and then the parse result. */

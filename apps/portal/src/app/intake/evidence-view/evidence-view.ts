@@ -1,5 +1,5 @@
 import { afterRenderEffect, ChangeDetectionStrategy, Component, computed, ElementRef, input, output, viewChild } from '@angular/core';
-import { LineItem, ReportFile } from '@cc/shared';
+import { LineItem, ReportText } from '@cc/shared';
 import { reportSegments } from './report-segments';
 import { selectionOffsets, TextSelection } from './selection-offsets';
 
@@ -14,7 +14,8 @@ import { selectionOffsets, TextSelection } from './selection-offsets';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class EvidenceView {
-  readonly report = input.required<ReportFile>();
+  /** The report's pages (its id ties items' evidence to it). */
+  readonly report = input.required<ReportText>();
   readonly items = input.required<LineItem[]>();
   readonly activeItemId = input<number | null>(null);
   /** The item whose highlight was clicked. */

@@ -7,7 +7,7 @@ import { MatExpansionPanelHarness } from '@angular/material/expansion/testing';
 import { MatTableHarness } from '@angular/material/table/testing';
 import { PartyRole, RepairRequestDetail, RequestStatus, Role } from '@cc/shared';
 import { Auth } from '../../core/auth/auth';
-import { proposedItems, report } from '../testing/intake-fixtures';
+import { proposedItems, report, reportText } from '../testing/intake-fixtures';
 import { IntakePanel } from './intake-panel';
 
 function request(status: RequestStatus, myParts: PartyRole[]): RepairRequestDetail {
@@ -51,6 +51,9 @@ describe('IntakePanel', () => {
     await fixture.whenStable();
     httpTesting.expectOne('/api/requests/12/reports').flush([report()]);
     httpTesting.expectOne('/api/requests/12/items').flush(items);
+    // The review (where shown) loads the text of the report beside it.
+    fixture.detectChanges();
+    for (const text of httpTesting.match('/api/requests/12/reports/5/text')) text.flush(reportText());
     await fixture.whenStable();
     return fixture.nativeElement;
   }

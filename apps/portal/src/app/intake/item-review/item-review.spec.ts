@@ -11,7 +11,7 @@ import { MatInputHarness } from '@angular/material/input/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { MatTableHarness } from '@angular/material/table/testing';
 import { LineItem } from '@cc/shared';
-import { proposedItems, report, REPORT_PAGES } from '../testing/intake-fixtures';
+import { proposedItems, report, REPORT_PAGES, reportText } from '../testing/intake-fixtures';
 import { ItemReview } from './item-review';
 
 describe('ItemReview', () => {
@@ -38,6 +38,9 @@ describe('ItemReview', () => {
     fixture.componentInstance.confirmed.subscribe((items) => confirmed.push(items));
     loader = TestbedHarnessEnvironment.loader(fixture);
     documentLoader = TestbedHarnessEnvironment.documentRootLoader(fixture);
+    // The report's text is loaded when it is shown (the page is stable once it has come).
+    fixture.detectChanges();
+    httpTesting.expectOne('/api/requests/12/reports/5/text').flush(reportText());
     await fixture.whenStable();
   });
 

@@ -1,4 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, output, signal } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -64,6 +65,11 @@ export class ItemReview {
   /** The report shown beside the table: the newest unless the person picks another. */
   protected readonly shownReportId = linkedSignal(() => this.reports().at(-1)?.id ?? null);
   protected readonly shownReport = computed(() => this.reports().find((r) => r.id === this.shownReportId()) ?? null);
+  /** The shown report's pages, loaded when it is shown (report lists carry no text). */
+  protected readonly shownText = rxResource({
+    params: () => this.shownReportId() ?? undefined,
+    stream: ({ params: reportId }) => this.api.reportText(this.requestId(), reportId),
+  });
   protected readonly selection = signal<TextSelection | null>(null);
   protected readonly conflict = signal<string | null>(null);
   protected readonly isBusy = signal(false);

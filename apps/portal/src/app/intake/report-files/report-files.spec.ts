@@ -13,7 +13,7 @@ const REPORT: ReportFile = {
   sizeBytes: 2048,
   pageCount: 2,
   sha256: 'a'.repeat(64),
-  pages: ['ELECTRICAL', 'more'],
+  textLength: 14,
   skipped: [],
   uploadedByName: 'Ada Agent',
   createdAt: '2026-04-18T10:00:00.000Z',

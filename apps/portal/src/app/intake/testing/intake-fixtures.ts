@@ -1,5 +1,5 @@
 // Invented report text and items for the intake component specs (not part of the app bundle).
-import { editionNote, LineItem, ReportFile, UploadResult } from '@cc/shared';
+import { editionNote, LineItem, ReportFile, ReportText, UploadResult } from '@cc/shared';
 
 export const REPORT_PAGES = [
   'ELECTRICAL\n1. Kitchen countertop receptacles are not GFCI protected (2 locations).\n2. Reversed polarity at the hall bedroom receptacle.',
@@ -15,12 +15,17 @@ export function report(overrides: Partial<ReportFile> = {}): ReportFile {
     sizeBytes: 4096,
     pageCount: REPORT_PAGES.length,
     sha256: 'ab'.repeat(32),
-    pages: REPORT_PAGES,
+    textLength: JOINED.length - (REPORT_PAGES.length - 1),
     skipped: [{ section: 'ROOFING', sectionKind: 'non-electrical', reason: 'non-electrical-section', text: 'Shingles are worn at the ridge.', page: 2, start: JOINED.indexOf('Shingles'), end: JOINED.indexOf('ridge.') + 6 }],
     uploadedByName: 'Ada Agent',
     createdAt: '2026-04-02T09:00:00Z',
     ...overrides,
   };
+}
+
+/** The text of report() as GET …/reports/5/text answers it. */
+export function reportText(overrides: Partial<ReportText> = {}): ReportText {
+  return { id: 5, pages: REPORT_PAGES, ...overrides };
 }
 
 /** An item whose evidence is the given sentence of the report. */
