@@ -4,8 +4,13 @@
 const swc = ['@swc/jest', { jsc: { parser: { syntax: 'typescript' }, target: 'es2022' }, module: { type: 'commonjs' } }];
 const sharedAlias = { '^@cc/shared$': '<rootDir>/shared/src/index.ts' };
 
+// Generous time limits: the suite shares a 2-core machine with other work, and a hook that waits
+// for a database or an Angular compile must not fail for being slow (speed is measured in bench/).
+const LOADED_MACHINE_TIMEOUT_MS = 60_000;
+
 const node = {
   testEnvironment: 'node',
+  testTimeout: LOADED_MACHINE_TIMEOUT_MS,
   transform: { '^.+\\.(t|j)s$': swc },
   moduleNameMapper: sharedAlias,
   rootDir: __dirname,
@@ -26,6 +31,7 @@ module.exports = {
     {
       displayName: 'portal',
       rootDir: __dirname,
+      testTimeout: LOADED_MACHINE_TIMEOUT_MS,
       preset: 'jest-preset-angular',
       testEnvironment: 'jest-preset-angular/environments/jest-jsdom-env',
       setupFilesAfterEnv: ['<rootDir>/apps/portal/src/test-setup.ts'],

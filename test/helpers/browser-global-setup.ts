@@ -42,5 +42,6 @@ export default async function globalSetup(): Promise<void> {
   });
   (globalThis as { __serverProcess?: typeof server }).__serverProcess = server;
   process.env.PORTAL_URL = baseUrl;
-  await waitForHealth(baseUrl, 30_000);
+  // tsx compiles the server on start; on a busy 2-core machine that alone can take half a minute.
+  await waitForHealth(baseUrl, 120_000);
 }
