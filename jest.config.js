@@ -31,6 +31,7 @@ module.exports = {
     {
       displayName: 'portal',
       rootDir: __dirname,
+      // The first test of a file compiles its components; on a busy 2-core machine that alone can take seconds.
       testTimeout: LOADED_MACHINE_TIMEOUT_MS,
       preset: 'jest-preset-angular',
       testEnvironment: 'jest-preset-angular/environments/jest-jsdom-env',
@@ -48,6 +49,8 @@ module.exports = {
     {
       ...node,
       displayName: 'api',
+      // Uploads of several megabytes and bcrypt sign-ins on a busy 2-core machine outlast jest's 5 s default.
+      testTimeout: LOADED_MACHINE_TIMEOUT_MS,
       testMatch: ['<rootDir>/test/api/**/*.api.spec.ts'],
       testEnvironment: '<rootDir>/test/helpers/pdf-environment.js',
       globalSetup: '<rootDir>/test/helpers/api-global-setup.ts',

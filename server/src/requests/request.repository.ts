@@ -63,8 +63,16 @@ const SORT_COLUMNS: Record<RequestListFilter['sort'], string> = {
   street: 'r.street',
 };
 
+/** Lists count their rows no further than this; beyond it they say "1,000+". */
+export const LIST_COUNT_CAP = 1000;
+
 /** Items a request does not count yet or any more: proposals nobody confirmed, and removed ones. */
 const UNCOUNTED_ITEM_STATES = [itemStateAfter('propose'), itemStateAfter('remove')];
+
+/** The `item_count` column of a request summary (a query on `repair_requests as r`). */
+function itemCount(db: Db | Trx): Knex.Raw {
+  return db.raw('(SELECT count(*) FROM line_items li WHERE li.request_id = r.id AND li.status <> ALL(?))::int AS item_count', [UNCOUNTED_ITEM_STATES]);
+}
 
 type SummaryRow = RepairRequestRow & { contractor_name: string | null; item_count: number; total_count?: string };
 
@@ -88,7 +96,11 @@ function toSummary(row: SummaryRow): RepairRequestSummary {
 }
 
 export class RequestRepository {
-  constructor(private readonly db: Db) {}
+  constructor(
+    private readonly db: Db,
+    /** Lists count no further than this (a smaller cap only in tests). */
+    private readonly countCap = LIST_COUNT_CAP,
+  ) {}
 
   /** Narrows a query on `repair_requests as r` to the requests `viewer` is party to. */
   private scope(query: Knex.QueryBuilder, viewer: Viewer): Knex.QueryBuilder {
@@ -108,26 +120,55 @@ export class RequestRepository {
       .select(
         'r.*',
         'o.name as contractor_name',
-        db.raw('(SELECT count(*) FROM line_items li WHERE li.request_id = r.id AND li.status <> ALL(?))::int AS item_count', [UNCOUNTED_ITEM_STATES]),
+        itemCount(db),
       );
   }
 
-  async list(viewer: Viewer, filter: RequestListFilter): Promise<{ items: RepairRequestSummary[]; total: number }> {
-    const query = this.scope(this.summaries(), viewer).select(this.db.raw('count(*) over() AS total_count'));
-    if (filter.statuses.length) query.whereIn('r.status', filter.statuses);
+  /**
+   * One page of the requests `viewer` sees, in one statement: the page's ids are picked first (by
+   * the sort's index within the viewer's scope), the summary columns are read for those rows only,
+   * and the total is counted no further than LIST_COUNT_CAP + 1 rows (then `isTotalCapped`).
+   */
+  async list(viewer: Viewer, filter: RequestListFilter): Promise<{ items: RepairRequestSummary[]; total: number; isTotalCapped: boolean }> {
+    const rows: (SummaryRow & { n: string; ord: string | null })[] = await this.listStatement(viewer, filter);
+    const counted = Number(rows[0]?.n ?? 0);
+    return {
+      items: rows.filter((r) => r.ord !== null).map(toSummary),
+      total: Math.min(counted, this.countCap),
+      isTotalCapped: counted > this.countCap,
+    };
+  }
+
+  /** The one statement behind `list` (its plan is checked in the API tests). */
+  listStatement(viewer: Viewer, filter: RequestListFilter): Knex.QueryBuilder {
+    const db = this.db;
+    const visible = this.scope(db('repair_requests as r'), viewer);
+    if (filter.statuses.length) visible.whereIn('r.status', filter.statuses);
     if (filter.text) {
       const like = `%${filter.text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-      query.where((w) => {
+      visible.where((w) => {
         w.whereRaw("(r.street || ' ' || r.city || ' ' || r.zip) ILIKE ?", [like]);
         if (filter.id !== null) w.orWhere('r.id', filter.id);
       });
     }
-    const rows: SummaryRow[] = await query
-      .orderBy(SORT_COLUMNS[filter.sort], filter.direction)
+    const sort = SORT_COLUMNS[filter.sort];
+    const pageIds = visible
+      .clone()
+      .select('r.id', db.raw(`row_number() OVER (ORDER BY ${sort} ${filter.direction}, r.id ${filter.direction}) AS ord`))
+      .orderBy(sort, filter.direction)
       .orderBy('r.id', filter.direction)
       .limit(filter.pageSize)
       .offset(filter.page * filter.pageSize);
-    return { items: rows.map(toSummary), total: rows.length ? Number(rows[0].total_count) : 0 };
+    const counted = db.from(visible.clone().select(db.raw('1')).limit(this.countCap + 1).as('v')).count({ n: '*' });
+    return db
+      .with('page_ids', pageIds)
+      .with('counted', counted)
+      .from('counted')
+      .joinRaw('LEFT JOIN page_ids ON true')
+      .leftJoin('repair_requests as r', 'r.id', 'page_ids.id')
+      .leftJoin('organisations as o', 'o.id', 'r.contractor_organisation_id')
+      .select('counted.n', 'page_ids.ord', 'r.*', 'o.name as contractor_name', itemCount(db))
+      .orderBy('page_ids.ord');
   }
 
   /** The request if `viewer` may see it, else null (callers answer 404 either way). */

@@ -52,7 +52,7 @@ export class RequestsService {
   ) {}
 
   async list(user: CurrentUser, query: z.output<typeof RepairRequestListQuerySchema>): Promise<Page<RepairRequestSummary>> {
-    const { items, total } = await this.requests.list(viewerOf(user), {
+    const { items, total, isTotalCapped } = await this.requests.list(viewerOf(user), {
       page: query.page,
       pageSize: query.pageSize,
       sort: query.sort,
@@ -61,7 +61,7 @@ export class RequestsService {
       text: query.q,
       id: query.q ? parseRequestReference(query.q) : null,
     });
-    return { items, total, page: query.page, pageSize: query.pageSize };
+    return { items, total, isTotalCapped, page: query.page, pageSize: query.pageSize };
   }
 
   /** The request as `user` may see it; 404 when they are not a party to it. */
