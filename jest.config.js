@@ -4,19 +4,21 @@
 const swc = ['@swc/jest', { jsc: { parser: { syntax: 'typescript' }, target: 'es2022' }, module: { type: 'commonjs' } }];
 const sharedAlias = { '^@cc/shared$': '<rootDir>/shared/src/index.ts' };
 
-// Generous time limits: the suite shares a 2-core machine with other work, and a hook that waits
-// for a database or an Angular compile must not fail for being slow (speed is measured in bench/).
+// Generous time limits: the suite shares a 2-core machine with other work (uploads of several
+// megabytes, bcrypt sign-ins, the first compile of a component file), and a test or hook must not fail
+// for being slow (speed is measured in bench/).
 const LOADED_MACHINE_TIMEOUT_MS = 60_000;
 
 const node = {
   testEnvironment: 'node',
-  testTimeout: LOADED_MACHINE_TIMEOUT_MS,
   transform: { '^.+\\.(t|j)s$': swc },
   moduleNameMapper: sharedAlias,
   rootDir: __dirname,
 };
 
 module.exports = {
+  // A global option: jest does not read testTimeout from a project's own settings.
+  testTimeout: LOADED_MACHINE_TIMEOUT_MS,
   projects: [
     {
       ...node,
@@ -31,8 +33,6 @@ module.exports = {
     {
       displayName: 'portal',
       rootDir: __dirname,
-      // The first test of a file compiles its components; on a busy 2-core machine that alone can take seconds.
-      testTimeout: LOADED_MACHINE_TIMEOUT_MS,
       preset: 'jest-preset-angular',
       testEnvironment: 'jest-preset-angular/environments/jest-jsdom-env',
       setupFilesAfterEnv: ['<rootDir>/apps/portal/src/test-setup.ts'],
@@ -49,8 +49,6 @@ module.exports = {
     {
       ...node,
       displayName: 'api',
-      // Uploads of several megabytes and bcrypt sign-ins on a busy 2-core machine outlast jest's 5 s default.
-      testTimeout: LOADED_MACHINE_TIMEOUT_MS,
       testMatch: ['<rootDir>/test/api/**/*.api.spec.ts'],
       testEnvironment: '<rootDir>/test/helpers/pdf-environment.js',
       globalSetup: '<rootDir>/test/helpers/api-global-setup.ts',

@@ -2,7 +2,8 @@ import { editionNote, editionNoteForLocation } from './edition-note';
 
 describe('editionNote', () => {
   describe('for a missing GFCI in a laundry area', () => {
-    // Source: trade reference section 2.1: laundry areas added in the 2014 edition.
+    // Source: NFPA 70 (NEC) 2014, 210.8(A)(10): laundry areas, new in that edition (as quoted in 2014
+    // code-change summaries; docs/trade-facts.md).
     it('is required under a 2017 adoption, and says so as information', () => {
       const note = editionNote('gfci-missing', 'laundry', 2017);
       expect(note?.requiredSince).toBe(2014);
@@ -15,8 +16,8 @@ describe('editionNote', () => {
   });
 
   describe('for a missing GFCI in a kitchen', () => {
-    // Source: trade reference section 2.1: countertop receptacles in every column from 2005; all
-    // kitchen receptacles only from 2023.
+    // Source: NFPA 70 (NEC) 2005–2020, 210.8(A)(6): kitchen counter-top receptacles; NFPA 70 (NEC) 2023,
+    // 210.8(A)(6): all kitchen receptacles (2023 change summaries; docs/trade-facts.md).
     it('keeps the countertop rule and says the all-receptacle rule is not in a 2020 adoption', () => {
       const note = editionNote('gfci-missing', 'kitchen', 2020);
       expect(note?.requiredSince).toBe(2005);
@@ -27,7 +28,7 @@ describe('editionNote', () => {
   });
 
   describe('for a finished basement rule', () => {
-    // Source: trade reference section 2.1: "all" basements from 2020.
+    // Source: NFPA 70 (NEC) 2020, 210.8(A)(5): all basements, finished or not (2020 change summaries).
     it('is not in a 2017 adoption and is in a 2020 adoption', () => {
       expect(editionNoteForLocation('gfci-missing', 'basements-all', 2017)?.requiredByAdoptedEdition).toBe(false);
       expect(editionNoteForLocation('gfci-missing', 'basements-all', 2020)?.requiredByAdoptedEdition).toBe(true);
@@ -35,7 +36,8 @@ describe('editionNote', () => {
   });
 
   describe('for a missing AFCI', () => {
-    // Source: trade reference section 2.6: kitchens added in 2014; bathrooms are not in the list.
+    // Source: NFPA 70 (NEC) 2014, 210.12(A): kitchens and laundry areas added to the AFCI list; bathrooms
+    // are not in it (2014 change summaries; docs/trade-facts.md).
     it('points at 406.4(D)(4) for replacements in a kitchen', () => {
       const note = editionNote('afci-missing', 'kitchen', 2017);
       expect(note?.requiredSince).toBe(2014);
