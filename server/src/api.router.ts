@@ -11,6 +11,9 @@ import { createQuotesRouter } from './quotes/quotes.router';
 import { createRateBookRouter } from './rate-book/rate-book.router';
 import { createReportsRouter } from './intake/reports.router';
 import { createRequestsRouter } from './requests/requests.router';
+import { createActivityRouter } from './activity/activity.router';
+import { createDashboardsRouter } from './dashboards/dashboards.router';
+import { createMailboxRouter, createNotificationsRouter } from './notifications/notifications.router';
 
 /** Mounts every API router under /api. CSRF protection covers every state-changing route. */
 export function createApiRouter(deps: RouterDeps): Router {
@@ -22,10 +25,14 @@ export function createApiRouter(deps: RouterDeps): Router {
   api.use('/requests/:id/reports', createReportsRouter(deps));
   api.use('/requests/:id/items', createLineItemsRouter(deps));
   api.use('/requests/:id/quotes', createQuotesRouter(deps));
+  api.use('/requests/:id/activity', createActivityRouter(deps));
   api.use('/requests/:id', createPricingRouter(deps));
   api.use('/requests', createRequestsRouter(deps));
   api.use('/admin', createAdminRouter(deps));
   api.use('/contractors', createContractorsRouter(deps));
   api.use('/rate-book', createRateBookRouter(deps));
+  api.use('/notifications', createNotificationsRouter(deps));
+  api.use('/mailbox', createMailboxRouter(deps));
+  api.use('/dashboards', createDashboardsRouter(deps));
   return api;
 }

@@ -47,3 +47,7 @@ export * from './quotes/quote-changes.schema';
 export * from './quotes/quote-version.schema';
 export * from './code-editions/protection-history';
 export * from './code-editions/edition-note';
+export * from './notifications/notification-kind';
+export * from './activity/activity.schema';
+export * from './dashboards/dashboard.schema';
+export * from './dashboards/dashboard-rules';
