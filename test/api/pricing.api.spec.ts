@@ -345,3 +345,47 @@ describe('site conditions and the ballpark range', () => {
     expect((await cast.s.buyerAgent.agent.get(`/api/requests/${noBook}/ballpark`)).status).toBe(409);
   });
 });
+
+describe('a bulk change priced as docs/pricing.md Example 2 (figures fixed by hand, not the server against itself)', () => {
+  /** A new request with two inoperative GFCIs, both given `gfci-replace` in a shallow box, claiming `claimed`. */
+  async function priceTwoGfcisInShallowBoxes(claimed: Record<string, number>) {
+    const { requestId: id, itemIds } = await createPricedRequest(cast, t.db, {
+      items: [
+        { code: 'gfci-inoperative', quantity: 1 },
+        { code: 'gfci-inoperative', quantity: 1 },
+      ],
+    });
+    const before = await pricingOf(cast.s.contractor, id);
+    const res = await write(cast.s.contractor, 'patch', `/api/requests/${id}/pricing`).send({
+      items: refs(before, ...itemIds),
+      set: { entryId: book.entry['gfci-replace'], adderIds: [book.adder['tight-box']] },
+      claimedTotals: claimed,
+    });
+    return { id, res };
+  }
+
+  it('prices two GFCIs in shallow boxes on one visit at $449.94, the figures the contractor claimed', async () => {
+    const { res } = await priceTwoGfcisInShallowBoxes({ totalCents: 44_994, extraLabourCents: 10_125, materialsTaxCents: 389 });
+    expect(res.status).toBe(200);
+    // Example 2, step by step: service call 9,500; first-hour minimum 18,500; 100 min pooled → 40 extra,
+    // billed 45 min at $135/h = 10,125; materials 4,800 + markup 1,680; tax 6 % = 389 (rounded half up).
+    expect(res.body.breakdown).toMatchObject({
+      serviceCallCents: 9_500,
+      firstHourMinimumCents: 18_500,
+      extraLabourCents: 10_125,
+      subtotalCents: 44_605,
+      materialsTaxCents: 389,
+      totalCents: 44_994,
+      depositCents: 22_497,
+    });
+    // Line labour shares 14,313 and 14,312 (the spare cent to the earlier line), each with 3,240 of materials.
+    expect(res.body.items.map((i: { lineCents: number }) => i.lineCents)).toEqual([17_553, 17_552]);
+  });
+
+  it('refuses a change whose claimed total is not Example 2’s, and keeps the items unpriced', async () => {
+    const { id, res } = await priceTwoGfcisInShallowBoxes({ totalCents: 31_434 });
+    expect(res.status).toBe(409);
+    expect(res.body.details).toEqual([{ path: 'claimedTotals.totalCents', message: 'You see 31434 cents; the price is 44994' }]);
+    expect((await pricingOf(cast.s.contractor, id)).items.every((i) => i.entryId === null)).toBe(true);
+  });
+});

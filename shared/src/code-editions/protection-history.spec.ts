@@ -5,8 +5,8 @@ function since(rules: readonly EditionRule[], key: string): number | undefined {
 }
 
 describe('GFCI_RULES (NEC 210.8(A))', () => {
-  // Source: NFPA 70 210.8(A) edition history as summarised in the trade reference, section 2.1
-  // (whole 2014 and 2023 columns checked against a local adoption ordinance and 2023 change summaries).
+  // Source: NFPA 70 (NEC) 2005–2023, 210.8(A), edition by edition (the 2014 list as quoted in a local
+  // adoption ordinance, the 2023 list in 2023 change summaries; docs/trade-facts.md).
   it.each([
     // 2014 added laundry areas and tubs/showers, and deleted "other than kitchens" (all sinks) [checked summary].
     ['laundry-areas', 2014],
@@ -47,7 +47,7 @@ describe('GFCI_RULES (NEC 210.8(A))', () => {
 });
 
 describe('AFCI_RULES (NEC 210.12)', () => {
-  // Source: NFPA 70 210.12 edition history as summarised in the trade reference, section 2.6:
+  // Source: NFPA 70 (NEC) 1999–2014, 210.12 (AFCI devices to UL 1699), as quoted in change summaries:
   // 1999 bedroom receptacle outlets; 2008 family, dining, living rooms, dens, sunrooms, closets,
   // hallways and similar rooms; 2014 kitchens and laundry areas [all checked summaries].
   it.each([
@@ -64,16 +64,16 @@ describe('AFCI_RULES (NEC 210.12)', () => {
 });
 
 describe('WEATHER_RULES (NEC 406.9)', () => {
-  // Source: trade reference section 2.5: weather-resistant receptacles first required in 2008 —
-  // marked there as from memory, so the table flags it from memory too.
+  // Source: NFPA 70 (NEC) 2008, 406.8 (now 406.9): weather-resistant receptacles — from memory, so the
+  // table flags it from memory too.
   it('flags the 2008 weather-resistant date as from memory', () => {
     const wr = findRule(WEATHER_RULES, 'weather-resistant-receptacles');
     expect(wr?.sinceEdition).toBe(2008);
     expect(wr?.isFromMemory).toBe(true);
   });
 
-  // Source: trade reference section 2.5: the in-use (weatherproof with a plug inserted) rule is
-  // quoted from the 2014/2017 text; the earliest edition is not given, hence "2014 or earlier".
+  // Source: NFPA 70 (NEC) 2014 and 2017, 406.9(B)(1): weatherproof with a plug inserted, hoods listed
+  // "extra-duty" to UL 514D (as quoted); the earliest edition is not known, hence "2014 or earlier".
   it('stores the in-use cover rule as 2014 or earlier', () => {
     const inUse = findRule(WEATHER_RULES, 'wet-location-in-use-cover');
     expect(inUse?.sinceEdition).toBe(2014);

@@ -1,8 +1,8 @@
 // Sources:
 // - the finding codes: the project's finding-code list (spec "Finding codes", every code in its table);
-// - labour and material ranges per entry: trade reference section 5 "Labour and materials per finding
+// - labour and material ranges per entry: common practice, no published source (docs/trade-facts.md, "Labour and materials per finding
 //   code" (common practice, no source; 2025 US, one unit, easy site), transcribed below in cents;
-// - visit terms and flat prices: trade reference section 6 "How small contractors price service
+// - visit terms and flat prices: common practice, no published source (docs/trade-facts.md, "How small contractors price service
 //   work" (common practice, no source).
 import { DEMO_RATE_BOOK } from './demo-rate-book';
 import { RateBookSchema } from './rate-book.schema';
@@ -74,7 +74,7 @@ describe('DEMO_RATE_BOOK', () => {
   describe.each(DEMO_RATE_BOOK.entries.filter((e) => e.code !== null).map((e) => [e.id, e] as const))('entry %s', (id, entry) => {
     const pricing = entry.pricing;
     if (pricing.mode === 'time-and-materials') {
-      it('has labour minutes and materials inside the trade reference ranges (common practice)', () => {
+      it('has labour minutes and materials inside the common-practice ranges', () => {
         const [minMinutes, maxMinutes, minMaterials, maxMaterials] = ENTRY_RANGES[id];
         for (const m of [pricing.minutesLow, pricing.labourMinutesPerUnit, pricing.minutesHigh]) {
           expect(m).toBeGreaterThanOrEqual(minMinutes);
@@ -86,7 +86,7 @@ describe('DEMO_RATE_BOOK', () => {
         expect(pricing.materialsCentsPerUnit).toBeLessThanOrEqual(maxMaterials);
       });
     } else {
-      it('has first-unit and each-additional prices inside the trade reference ranges (common practice)', () => {
+      it('has first-unit and each-additional prices inside the common-practice ranges', () => {
         const [firstMin, firstMax, addMin, addMax] = FLAT_RANGES[id];
         expect(pricing.firstUnitCents).toBeGreaterThanOrEqual(firstMin);
         expect(pricing.firstUnitCents).toBeLessThanOrEqual(firstMax);
@@ -101,7 +101,7 @@ describe('DEMO_RATE_BOOK', () => {
     ['firstHourMinimumCents', 15_000, 30_000], // minimum first hour $150–300
     ['hourlyRateCents', 9_000, 17_500], //        labour after the first hour $90–175/h
     ['materialsMarkupBp', 2_000, 5_000], //       materials +20–50 %
-  ] as const)('sets %s inside the trade reference range (common practice)', (field, min, max) => {
+  ] as const)('sets %s inside the common-practice range', (field, min, max) => {
     expect(DEMO_RATE_BOOK.terms[field]).toBeGreaterThanOrEqual(min);
     expect(DEMO_RATE_BOOK.terms[field]).toBeLessThanOrEqual(max);
   });
@@ -120,7 +120,7 @@ describe('DEMO_RATE_BOOK', () => {
     ['built-before-1960', 13_000, 15_000], // pre-~1960 house ×1.3–1.5
     ['tile-or-stone', 12_000, 12_000], //     tile/stone at device ×1.2
     ['metal-box-no-ground', 12_000, 12_000], // metal box without ground ×1.2
-  ])('sets the %s multiplier inside the trade reference range (common practice)', (id, min, max) => {
+  ])('sets the %s multiplier inside the common-practice range', (id, min, max) => {
     const effect = DEMO_RATE_BOOK.adders.find((a) => a.id === id)?.effect;
     expect(effect?.kind).toBe('labour-multiplier');
     const bp = effect?.kind === 'labour-multiplier' ? effect.multiplierBp : 0;

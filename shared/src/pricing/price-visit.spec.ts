@@ -1,4 +1,4 @@
-// Trade check values are common practice (trade reference section 6, "How small contractors price
+// Trade check values are common practice, no published source (docs/trade-facts.md, "How small contractors price
 // service work", no source): a trip charge per visit, one minimum for the first hour shared by every
 // item of the visit, labour after it in 15- or 30-minute increments, tax on the materials line only
 // (or none, where the contractor pays it on purchases). Expected figures are worked out in the

@@ -1,5 +1,5 @@
 // Source of every expected figure: the worked examples of docs/pricing.md, section 3, computed by
-// hand step by step from the demo rate book (values common practice, trade reference sections 5–6).
+// hand step by step from the demo rate book (values common practice, no published source: docs/trade-facts.md).
 import { ballpark } from './ballpark';
 import { DEMO_RATE_BOOK } from './demo-rate-book';
 import { priceQuote } from './price-quote';

@@ -1,21 +1,29 @@
 import { TestBed } from '@angular/core/testing';
-import { REQUEST_STATUS_LABELS, REQUEST_STATUSES } from '@cc/shared';
+import { FINAL_STATUSES, REQUEST_STATUSES } from '@cc/shared';
 import { StatusChip } from './status-chip';
 import { statusTone } from './status-tone';
 
 describe('StatusChip', () => {
-  it('shows the plain-words label of the state from shared', async () => {
+  it('shows the plain-words label of the state and its tone', async () => {
     const fixture = TestBed.createComponent(StatusChip);
     fixture.componentRef.setInput('status', 'pricing');
     await fixture.whenStable();
-    expect((fixture.nativeElement as HTMLElement).textContent?.trim()).toBe(REQUEST_STATUS_LABELS.pricing);
+    const host = fixture.nativeElement as HTMLElement;
+    // The product's wording for a request waiting on the contractor's prices.
+    expect(host.textContent?.trim()).toBe('Awaiting prices');
+    expect(host.getAttribute('data-tone')).toBe('waiting');
+    expect(host.getAttribute('data-status')).toBe('pricing');
   });
 });
 
 describe('statusTone', () => {
-  it('gives every state a tone, and ends only withdrawn and declined requests as stopped', () => {
+  it('ends only withdrawn and declined requests as stopped', () => {
     const stopped = REQUEST_STATUSES.filter((status) => statusTone(status) === 'stopped');
     expect(stopped.sort()).toEqual(['declined', 'withdrawn']);
-    expect(REQUEST_STATUSES.every((status) => statusTone(status) !== undefined)).toBe(true);
+  });
+
+  it('uses each of the five tones, and tones every final state as finished or stopped', () => {
+    expect(new Set(REQUEST_STATUSES.map(statusTone))).toEqual(new Set(['setup', 'waiting', 'work', 'finished', 'stopped']));
+    for (const status of FINAL_STATUSES) expect(['finished', 'stopped']).toContain(statusTone(status));
   });
 });
