@@ -5,7 +5,8 @@
 import type { Browser, Page } from 'playwright-core';
 import { expectAccessible, launchBrowser, openPage, portalUrl, screenshot, signInAs, tablesWiderThanViewport, watchConsole } from '../helpers/browser';
 
-jest.setTimeout(120_000);
+// Each test walks every demo request a role can see, with axe on each page: minutes, not seconds.
+jest.setTimeout(600_000);
 
 const AGENT = 'maya.chen@juniperkey.test';
 const SELLER = 'tomas.garza@mail.test';
