@@ -1,6 +1,6 @@
 import type { Browser, Page } from 'playwright-core';
 import { seriousViolations } from '../helpers/axe';
-import { launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
+import { openPage, launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
 
 jest.setTimeout(120_000);
 
@@ -20,8 +20,8 @@ beforeAll(async () => {
 });
 afterAll(() => browser?.close());
 
-const phone = () => browser.newPage({ viewport: { width: 390, height: 844 }, deviceScaleFactor: 1, isMobile: true, hasTouch: true });
-const desktop = () => browser.newPage({ viewport: { width: 1366, height: 900 } });
+const phone = () => openPage(browser, { viewport: { width: 390, height: 844 }, deviceScaleFactor: 1, isMobile: true, hasTouch: true });
+const desktop = () => openPage(browser, { viewport: { width: 1366, height: 900 } });
 
 async function expectAxeClean(page: Page): Promise<void> {
   expect(await seriousViolations(page)).toEqual([]);

@@ -1,7 +1,7 @@
 // E-mail, the activity timeline and the dashboards, as people use them in the portal.
 import type { Browser, Page } from 'playwright-core';
 import { seriousViolations } from '../helpers/axe';
-import { launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
+import { openPage, launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
 
 jest.setTimeout(120_000);
 
@@ -18,7 +18,7 @@ afterAll(() => browser?.close());
 afterEach(() => page?.close());
 
 async function open(viewport = DESKTOP): Promise<Page> {
-  page = await browser.newPage({ viewport });
+  page = await openPage(browser, { viewport });
   return page;
 }
 
