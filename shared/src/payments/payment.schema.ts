@@ -1,4 +1,5 @@
 import * as z from 'zod';
+import { BoundedDateSchema, RecordIdSchema, trimmedText } from '../http/bounds';
 import { FindingCodeSchema, RoomSchema } from '../findings/finding.schema';
 import { ItemStatusSchema } from '../items/item-status';
 import { QuoteSchema } from '../pricing/pricing-input.schema';
@@ -8,13 +9,6 @@ import { RequestStatusSchema } from '../requests/request-status';
 import { QuoteVersionSchema } from '../quotes/quote-version.schema';
 import { PAYMENT_PLANS } from './payment-account';
 
-/** Text a person types: trimmed, bounded, and never a NUL byte (no database takes one). */
-export const typedText = (max: number) =>
-  z
-    .string()
-    .trim()
-    .max(max, `Use at most ${max} characters`)
-    .refine((s) => !s.includes('\u0000'), 'Remove the NUL character');
 
 const cents = z.number().int().min(1, 'Enter an amount of at least 1 cent').max(100_000_000, 'That amount is too large');
 /** A key the client makes once per attempt, so a double submit finds the first one. */
@@ -27,9 +21,9 @@ export const ITEM_DECISIONS = ['approved', 'declined'] as const;
 export const ItemDecisionValueSchema = z.enum(ITEM_DECISIONS);
 
 export const ItemDecisionInputSchema = z.object({
-  lineItemId: z.number().int().positive(),
+  lineItemId: RecordIdSchema,
   decision: ItemDecisionValueSchema,
-  note: typedText(500).optional(),
+  note: trimmedText(500).optional(),
 });
 
 export const SignApprovalSchema = z.object({
@@ -37,7 +31,7 @@ export const SignApprovalSchema = z.object({
   quoteVersion: z.number().int().min(1).max(1_000),
   decisions: z.array(ItemDecisionInputSchema).min(1, 'Decide on every item').max(500),
   /** The signer's full name, typed. */
-  signerName: typedText(200).pipe(z.string().min(3, 'Type your full name to sign')),
+  signerName: trimmedText(200).pipe(z.string().min(3, 'Type your full name to sign')),
   /** Whether the signer ticked the box beside the terms. */
   hasConsented: z.literal(true, 'Tick the box to agree to the terms'),
 });
@@ -91,10 +85,10 @@ export type ScopeItem = z.infer<typeof ScopeItemSchema>;
 export const PaymentPlanSchema = z.enum(PAYMENT_PLANS);
 
 export const EscrowCompanySchema = z.object({
-  company: typedText(200).pipe(z.string().min(2, 'Name the escrow or title company')),
-  officer: typedText(200).default(''),
+  company: trimmedText(200).pipe(z.string().min(2, 'Name the escrow or title company')),
+  officer: trimmedText(200).default(''),
   email: z.union([z.literal(''), z.email('Enter an e-mail address like name@example.com')]).default(''),
-  fileNumber: typedText(80).default(''),
+  fileNumber: trimmedText(80).default(''),
 });
 export type EscrowCompany = z.infer<typeof EscrowCompanySchema>;
 
@@ -139,16 +133,16 @@ export const StartedPaymentSchema = z.object({
 export type StartedPayment = z.infer<typeof StartedPaymentSchema>;
 
 export const RecordFundsSchema = z.object({
-  paymentId: z.number().int().positive(),
+  paymentId: RecordIdSchema,
   amountCents: cents,
-  receivedOn: z.iso.date('Use a date like 2027-01-15'),
-  reference: typedText(200).pipe(z.string().min(1, 'Enter the wire or cheque reference')),
+  receivedOn: BoundedDateSchema,
+  reference: trimmedText(200).pipe(z.string().min(1, 'Enter the wire or cheque reference')),
 });
 export type RecordFunds = z.infer<typeof RecordFundsSchema>;
 
 export const CreateRefundSchema = z.object({
   amountCents: cents,
-  reason: typedText(500).pipe(z.string().min(3, 'Say why the money goes back')),
+  reason: trimmedText(500).pipe(z.string().min(3, 'Say why the money goes back')),
   idempotencyKey: IdempotencyKeySchema,
 });
 export type CreateRefund = z.infer<typeof CreateRefundSchema>;
@@ -161,18 +155,18 @@ export const ChangeOrderLineInputSchema = z.discriminatedUnion('kind', [
     kind: z.literal('add'),
     code: FindingCodeSchema,
     room: RoomSchema,
-    location: typedText(300).pipe(z.string().min(1, 'Say where the item is')),
+    location: trimmedText(300).pipe(z.string().min(1, 'Say where the item is')),
     /** The rate-book entry (engine id of the quote's rate book). */
     entryId: z.string().min(1).max(60),
     quantity: z.number().int().min(1, 'Use a whole number of 1 or more').max(999),
   }),
-  z.object({ kind: z.literal('quantity'), lineItemId: z.number().int().positive(), quantity: z.number().int().min(1, 'Use a whole number of 1 or more').max(999) }),
-  z.object({ kind: z.literal('remove'), lineItemId: z.number().int().positive() }),
+  z.object({ kind: z.literal('quantity'), lineItemId: RecordIdSchema, quantity: z.number().int().min(1, 'Use a whole number of 1 or more').max(999) }),
+  z.object({ kind: z.literal('remove'), lineItemId: RecordIdSchema }),
 ]);
 export type ChangeOrderLineInput = z.infer<typeof ChangeOrderLineInputSchema>;
 
 export const CreateChangeOrderSchema = z.object({
-  reason: typedText(1_000).pipe(z.string().min(3, 'Say what was found or why the work changes')),
+  reason: trimmedText(1_000).pipe(z.string().min(3, 'Say what was found or why the work changes')),
   lines: z.array(ChangeOrderLineInputSchema).min(1, 'Add at least one change').max(50),
 });
 export type CreateChangeOrder = z.input<typeof CreateChangeOrderSchema>;
@@ -180,9 +174,9 @@ export type CreateChangeOrderParsed = z.output<typeof CreateChangeOrderSchema>;
 
 export const DecideChangeOrderSchema = z.object({
   decision: z.enum(['approve', 'decline']),
-  signerName: typedText(200).pipe(z.string().min(3, 'Type your full name to sign')),
+  signerName: trimmedText(200).pipe(z.string().min(3, 'Type your full name to sign')),
   hasConsented: z.literal(true, 'Tick the box to agree to the terms'),
-  note: typedText(500).optional(),
+  note: trimmedText(500).optional(),
 });
 export type DecideChangeOrder = z.input<typeof DecideChangeOrderSchema>;
 export type DecideChangeOrderParsed = z.output<typeof DecideChangeOrderSchema>;
