@@ -4,7 +4,7 @@ import { formatCents } from '@cc/shared';
 
 /** An invoice, an invoice payable at closing, or a receipt, as a PDF to download. */
 export function renderInvoicePdf(c: InvoiceContent): Promise<Buffer> {
-  const { doc, heading, paragraph, row, finish } = createPdfLayout({ Title: `${c.title} ${c.number}`, Author: c.contractor.name, Subject: `${c.title} for ${c.requestReference}` });
+  const { doc, heading, paragraph, row, finish } = createPdfLayout({ info: { Title: `${c.title} ${c.number}`, Author: c.contractor.name, Subject: `${c.title} for ${c.requestReference}` } });
   doc.font('strong').fontSize(18).text(c.contractor.name, MARGIN, MARGIN);
   const licence = c.contractor.licenceNumber ? `Licence ${c.contractor.licenceNumber}${c.contractor.licenceState ? ` (${c.contractor.licenceState})` : ''}` : 'Licence number not on file';
   paragraph([licence, c.contractor.address, c.contractor.phone].filter(Boolean).join(' · '), 10, MUTED);

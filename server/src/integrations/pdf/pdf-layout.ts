@@ -11,18 +11,31 @@ const AMOUNT_WIDTH = 90;
 const QTY_WIDTH = 50;
 export const MUTED = '#555555';
 
+export interface PdfLayoutOptions {
+  info: PDFKit.DocumentInfo;
+  /** Room kept free at the foot of each page (for page numbers written at the end). */
+  footerHeight?: number;
+}
+
 export interface PdfLayout {
   doc: PDFKit.PDFDocument;
+  /** Starts a new page unless `height` points still fit above the footer. */
+  ensureSpace(height: number): void;
   heading(text: string): void;
+  /** A heading kept on the same page as the start of its paragraph. */
+  section(title: string, text: string): void;
   paragraph(text: string, size?: number, color?: string): void;
   /** A row of description, quantity and amount, kept together on one page. */
   row(description: string, qty: string, amount: string, font?: 'body' | 'strong'): void;
+  /** "Page n of N" and `reference` at the foot of every page (needs `footerHeight`). */
+  pageNumbers(reference: string): void;
   /** Ends the document; resolves with its bytes. */
   finish(): Promise<Buffer>;
 }
 
-export function createPdfLayout(info: PDFKit.DocumentInfo): PdfLayout {
-  const doc = new PDFDocument({ size: 'LETTER', margin: MARGIN, info });
+export function createPdfLayout({ info, footerHeight = 0 }: PdfLayoutOptions): PdfLayout {
+  // Pages stay in memory so that page numbers can be written once the last page exists.
+  const doc = new PDFDocument({ size: 'LETTER', margin: MARGIN, info, bufferPages: footerHeight > 0 });
   const chunks: Buffer[] = [];
   const done = new Promise<Buffer>((resolve, reject) => {
     doc.on('data', (c: Buffer) => chunks.push(c));
@@ -32,18 +45,27 @@ export function createPdfLayout(info: PDFKit.DocumentInfo): PdfLayout {
   doc.registerFont('body', join(FONT_DIR, 'SourceSans3-Regular.ttf'));
   doc.registerFont('strong', join(FONT_DIR, 'SourceSans3-Semibold.ttf'));
   const ensureSpace = (height: number) => {
-    if (doc.y + height > doc.page.height - MARGIN) doc.addPage();
+    if (doc.y + height > doc.page.height - MARGIN - footerHeight) doc.addPage();
+  };
+  const heading = (text: string) => {
+    ensureSpace(40);
+    doc.moveDown(0.8).font('strong').fontSize(13).fillColor('black').text(text, MARGIN, doc.y, { width: CONTENT_WIDTH });
+    doc.moveDown(0.3);
+  };
+  const paragraph = (text: string, size = 10, color = 'black') => {
+    doc.font('body').fontSize(size).fillColor(color).text(text, MARGIN, doc.y, { width: CONTENT_WIDTH });
   };
   return {
     doc,
-    heading(text) {
-      ensureSpace(40);
-      doc.moveDown(0.8).font('strong').fontSize(13).fillColor('black').text(text, MARGIN, doc.y, { width: CONTENT_WIDTH });
-      doc.moveDown(0.3);
+    ensureSpace,
+    heading,
+    section(title, text) {
+      doc.font('body').fontSize(10);
+      ensureSpace(40 + Math.min(doc.heightOfString(text, { width: CONTENT_WIDTH }), 60));
+      heading(title);
+      paragraph(text);
     },
-    paragraph(text, size = 10, color = 'black') {
-      doc.font('body').fontSize(size).fillColor(color).text(text, MARGIN, doc.y, { width: CONTENT_WIDTH });
-    },
+    paragraph,
     row(description, qty, amount, font = 'body') {
       const descWidth = CONTENT_WIDTH - QTY_WIDTH - AMOUNT_WIDTH - 12;
       doc.font(font).fontSize(10).fillColor('black');
@@ -55,6 +77,20 @@ export function createPdfLayout(info: PDFKit.DocumentInfo): PdfLayout {
       doc.text(amount, PAGE_WIDTH - MARGIN - AMOUNT_WIDTH, y, { width: AMOUNT_WIDTH, align: 'right' });
       doc.x = MARGIN;
       doc.y = y + height + 4;
+    },
+    pageNumbers(reference) {
+      const { start, count } = doc.bufferedPageRange();
+      for (let i = start; i < start + count; i++) {
+        doc.switchToPage(i);
+        // Writing inside the bottom margin would start a new page: lift the margin while the footer is written.
+        const margin = doc.page.margins.bottom;
+        doc.page.margins.bottom = 0;
+        const y = doc.page.height - MARGIN - 10;
+        doc.font('body').fontSize(8).fillColor(MUTED);
+        doc.text(reference, MARGIN, y, { width: CONTENT_WIDTH / 2, lineBreak: false });
+        doc.text(`Page ${i - start + 1} of ${count}`, MARGIN + CONTENT_WIDTH / 2, y, { width: CONTENT_WIDTH / 2, align: 'right', lineBreak: false });
+        doc.page.margins.bottom = margin;
+      }
     },
     finish() {
       doc.end();

@@ -1,19 +1,8 @@
-import { dirname, join } from 'node:path';
-import PDFDocument from 'pdfkit';
 import { FINDING_CODE_TABLE, formatCents, formatCentsDelta, placeLabel, quantityLabel, type QuoteVersion } from '@cc/shared';
+import { CONTENT_WIDTH, createPdfLayout, MARGIN, MUTED } from './pdf-layout';
 
-// The quote as a PDF to download: Letter pages, Source Sans 3 (the portal's typeface, from the
-// `source-sans` package: pdfkit embeds TrueType/OpenType, not woff2) embedded as a subset.
-const FONT_DIR = join(dirname(require.resolve('source-sans/package.json')), 'TTF');
-const REGULAR = join(FONT_DIR, 'SourceSans3-Regular.ttf');
-const SEMIBOLD = join(FONT_DIR, 'SourceSans3-Semibold.ttf');
+// The quote as a PDF to download: Letter pages in Source Sans 3 (pdf-layout.ts), page numbers at the foot.
 
-const MARGIN = 54;
-const PAGE_WIDTH = 612;
-const CONTENT_WIDTH = PAGE_WIDTH - 2 * MARGIN;
-const AMOUNT_WIDTH = 90;
-const QTY_WIDTH = 50;
-const MUTED = '#555555';
 /** Room kept free at the foot of each page for the page number. */
 const FOOTER_HEIGHT = 24;
 
@@ -45,134 +34,91 @@ export function houseAndCodeNotes(lines: readonly QuoteVersion['lines'][number][
 }
 
 export function renderQuotePdf(quote: QuoteVersion): Promise<Buffer> {
-  return new Promise((resolve, reject) => {
-    const doc = new PDFDocument({
-      size: 'LETTER',
-      margin: MARGIN,
-      // Kept in memory so that "Page n of N" can be written on every page once the last one exists.
-      bufferPages: true,
-      info: { Title: `Quote ${quote.requestReference} version ${quote.version}`, Author: quote.contractor.name, Subject: 'Electrical repair quote' },
-    });
-    const chunks: Buffer[] = [];
-    doc.on('data', (c: Buffer) => chunks.push(c));
-    doc.on('end', () => resolve(Buffer.concat(chunks)));
-    doc.on('error', reject);
-    doc.registerFont('body', REGULAR);
-    doc.registerFont('strong', SEMIBOLD);
-
-    const bottom = () => doc.page.height - MARGIN - FOOTER_HEIGHT;
-    const ensureSpace = (height: number) => {
-      if (doc.y + height > bottom()) doc.addPage();
-    };
-    const heading = (text: string) => {
-      ensureSpace(40);
-      doc.moveDown(0.8).font('strong').fontSize(13).fillColor('black').text(text, MARGIN, doc.y, { width: CONTENT_WIDTH });
-      doc.moveDown(0.3);
-    };
-    const paragraph = (text: string, size = 10, color = 'black') => {
-      doc.font('body').fontSize(size).fillColor(color).text(text, MARGIN, doc.y, { width: CONTENT_WIDTH });
-    };
-    /** A heading kept on the same page as the start of its paragraph. */
-    const section = (title: string, text: string) => {
-      doc.font('body').fontSize(10);
-      ensureSpace(40 + Math.min(doc.heightOfString(text, { width: CONTENT_WIDTH }), 60));
-      heading(title);
-      paragraph(text);
-    };
-    /** A row of description, quantity and amount, kept together on one page. */
-    const row = (description: string, qty: string, amount: string, font: 'body' | 'strong' = 'body') => {
-      const descWidth = CONTENT_WIDTH - QTY_WIDTH - AMOUNT_WIDTH - 12;
-      doc.font(font).fontSize(10).fillColor('black');
-      const height = Math.max(doc.heightOfString(description, { width: descWidth }), doc.heightOfString(amount, { width: AMOUNT_WIDTH }));
-      ensureSpace(height + 4);
-      const y = doc.y;
-      doc.text(description, MARGIN, y, { width: descWidth });
-      doc.text(qty, MARGIN + descWidth + 6, y, { width: QTY_WIDTH, align: 'right' });
-      doc.text(amount, PAGE_WIDTH - MARGIN - AMOUNT_WIDTH, y, { width: AMOUNT_WIDTH, align: 'right' });
-      doc.x = MARGIN;
-      doc.y = y + height + 4;
-    };
-
-    const c = quote.contractor;
-    doc.font('strong').fontSize(18).text(c.name, MARGIN, MARGIN, { width: CONTENT_WIDTH });
-    paragraph(licenceLine(c), 10, MUTED);
-    const contact = [c.address, c.phone].filter(Boolean).join(' · ');
-    if (contact) paragraph(contact, 10, MUTED);
-
-    doc.moveDown(1);
-    doc.font('strong').fontSize(14).fillColor('black').text(`Quote ${quote.requestReference}, version ${quote.version}`, { width: CONTENT_WIDTH });
-    paragraph(`${quote.property.street}, ${quote.property.city}, ${quote.property.state} ${quote.property.zip}`);
-    paragraph(`Sent ${formatDay(quote.sentAt)}${quote.sentByName ? ` by ${quote.sentByName}` : ''} · Prices valid until ${formatDay(quote.validUntil)}`, 10, MUTED);
-    paragraph(quote.isCurrent ? 'This is the current version of the quote.' : 'A later version of this quote has been sent; this version is superseded.', 10, MUTED);
-    if (quote.note) {
-      doc.moveDown(0.5);
-      paragraph(quote.note);
-    }
-
-    heading('Work quoted');
-    row('Item', 'Qty', 'Amount', 'strong');
-    const priced = quote.lines.filter((l) => l.kind === 'priced');
-    for (const line of priced) {
-      const where = placeLabel(line.room, line.location);
-      const extras = [line.adders.length ? `site: ${line.adders.map((a) => a.name).join(', ')}` : null, line.isQuantityAssumed ? 'quantity assumed, to be confirmed on site' : null].filter(Boolean).join('; ');
-      const description = `${line.entry?.name ?? findingLabel(line.code)} — ${where}${extras ? ` (${extras})` : ''}`;
-      row(description, quantityLabel(line.quantity, line.entry?.unit), formatCents(line.lineCents));
-      if (line.editionNote) paragraph(`Code when built: ${line.editionNote.summary}`, 8.5, MUTED);
-    }
-    doc.font('body').fontSize(9).fillColor(MUTED).text('Line amounts hold the labour share, materials with markup and flat-rate prices; the charges of each visit follow.', MARGIN, doc.y, { width: CONTENT_WIDTH });
-
-    const b = quote.breakdown;
-    heading('Totals');
-    const visitAdderLabour = b.visits.reduce((sum, v) => sum + v.visitAdderLabourCents, 0);
-    const totals: [string, number][] = [
-      [`Service call${b.visits.length > 1 ? `s (${b.visits.length} visits)` : ''}`, b.serviceCallCents],
-      ['First-hour minimum (travel and first hour of labour)', b.firstHourMinimumCents],
-      ['Labour after the first hour', b.extraLabourCents],
-      ['Flat-rate work', b.flatCents],
-      ['Materials', b.materialsCostCents],
-      ['Markup on materials', b.materialsMarkupCents],
-      ['Permit fee and handling', b.permitCents],
-    ];
-    for (const [label, cents] of totals) if (cents > 0) row(label, '', formatCents(cents));
-    if (visitAdderLabour > 0) paragraph(`Labour includes ${formatCents(visitAdderLabour)} for site conditions of the visit as a whole.`, 9, MUTED);
-    row('Subtotal', '', formatCents(b.subtotalCents), 'strong');
-    row('Sales tax on materials', '', formatCents(b.materialsTaxCents));
-    row('Total', '', formatCents(b.totalCents), 'strong');
-    row(`Deposit when paying by card (${basisPointsAsPercent(quote.cardDepositBp)})`, '', formatCents(b.depositCents));
-
-    const declined = quote.lines.filter((l) => l.kind === 'out-of-scope');
-    if (declined.length) {
-      heading('Not in our scope');
-      for (const line of declined) paragraph(`${findingLabel(line.code)} — ${placeLabel(line.room, line.location)}: ${line.outOfScopeReason ?? ''}`);
-    }
-
-    if (quote.changes) {
-      const ch = quote.changes;
-      heading(`Changes since version ${ch.previousVersion}`);
-      const what = (l: { code: string; location: string }) => `${findingLabel(l.code)}${l.location ? ` — ${l.location}` : ''}`;
-      for (const l of ch.added) paragraph(`Added: ${what(l)}, ${formatCents(l.lineCents)}`);
-      for (const l of ch.removed) paragraph(`Removed: ${what(l)}, was ${formatCents(l.lineCents)}`);
-      for (const l of ch.changed) paragraph(`Changed: ${what(l)}, ${formatCents(l.previousLineCents)} → ${formatCents(l.lineCents)}`);
-      paragraph(`Total ${formatCents(ch.previousTotalCents)} → ${formatCents(b.totalCents)} (${formatCentsDelta(ch.totalDeltaCents)})`);
-    }
-
-    const notes = houseAndCodeNotes(priced);
-    if (notes.length) {
-      heading('The house and the code in force when it was built');
-      for (const n of notes) {
-        ensureSpace(30);
-        doc.font('strong').fontSize(10).fillColor('black').text(n.items, MARGIN, doc.y, { width: CONTENT_WIDTH });
-        paragraph(n.text, 9.5);
-        doc.moveDown(0.3);
-      }
-    }
-
-    section('Warranty', quote.warrantyText);
-    section('Safety and permits', quote.safetyNotice);
-    acceptance(doc, quote, ensureSpace, heading);
-    pageNumbers(doc, `${quote.requestReference} · quote version ${quote.version} · prices in US dollars`);
-    doc.end();
+  const layout = createPdfLayout({
+    info: { Title: `Quote ${quote.requestReference} version ${quote.version}`, Author: quote.contractor.name, Subject: 'Electrical repair quote' },
+    footerHeight: FOOTER_HEIGHT,
   });
+  const { doc, ensureSpace, heading, paragraph, section, row } = layout;
+
+  const c = quote.contractor;
+  doc.font('strong').fontSize(18).text(c.name, MARGIN, MARGIN, { width: CONTENT_WIDTH });
+  paragraph(licenceLine(c), 10, MUTED);
+  const contact = [c.address, c.phone].filter(Boolean).join(' · ');
+  if (contact) paragraph(contact, 10, MUTED);
+
+  doc.moveDown(1);
+  doc.font('strong').fontSize(14).fillColor('black').text(`Quote ${quote.requestReference}, version ${quote.version}`, { width: CONTENT_WIDTH });
+  paragraph(`${quote.property.street}, ${quote.property.city}, ${quote.property.state} ${quote.property.zip}`);
+  paragraph(`Sent ${formatDay(quote.sentAt)}${quote.sentByName ? ` by ${quote.sentByName}` : ''} · Prices valid until ${formatDay(quote.validUntil)}`, 10, MUTED);
+  paragraph(quote.isCurrent ? 'This is the current version of the quote.' : 'A later version of this quote has been sent; this version is superseded.', 10, MUTED);
+  if (quote.note) {
+    doc.moveDown(0.5);
+    paragraph(quote.note);
+  }
+
+  heading('Work quoted');
+  row('Item', 'Qty', 'Amount', 'strong');
+  const priced = quote.lines.filter((l) => l.kind === 'priced');
+  for (const line of priced) {
+    const where = placeLabel(line.room, line.location);
+    const extras = [line.adders.length ? `site: ${line.adders.map((a) => a.name).join(', ')}` : null, line.isQuantityAssumed ? 'quantity assumed, to be confirmed on site' : null].filter(Boolean).join('; ');
+    const description = `${line.entry?.name ?? findingLabel(line.code)} — ${where}${extras ? ` (${extras})` : ''}`;
+    row(description, quantityLabel(line.quantity, line.entry?.unit), formatCents(line.lineCents));
+    if (line.editionNote) paragraph(`Code when built: ${line.editionNote.summary}`, 8.5, MUTED);
+  }
+  doc.font('body').fontSize(9).fillColor(MUTED).text('Line amounts hold the labour share, materials with markup and flat-rate prices; the charges of each visit follow.', MARGIN, doc.y, { width: CONTENT_WIDTH });
+
+  const b = quote.breakdown;
+  heading('Totals');
+  const visitAdderLabour = b.visits.reduce((sum, v) => sum + v.visitAdderLabourCents, 0);
+  const totals: [string, number][] = [
+    [`Service call${b.visits.length > 1 ? `s (${b.visits.length} visits)` : ''}`, b.serviceCallCents],
+    ['First-hour minimum (travel and first hour of labour)', b.firstHourMinimumCents],
+    ['Labour after the first hour', b.extraLabourCents],
+    ['Flat-rate work', b.flatCents],
+    ['Materials', b.materialsCostCents],
+    ['Markup on materials', b.materialsMarkupCents],
+    ['Permit fee and handling', b.permitCents],
+  ];
+  for (const [label, cents] of totals) if (cents > 0) row(label, '', formatCents(cents));
+  if (visitAdderLabour > 0) paragraph(`Labour includes ${formatCents(visitAdderLabour)} for site conditions of the visit as a whole.`, 9, MUTED);
+  row('Subtotal', '', formatCents(b.subtotalCents), 'strong');
+  row('Sales tax on materials', '', formatCents(b.materialsTaxCents));
+  row('Total', '', formatCents(b.totalCents), 'strong');
+  row(`Deposit when paying by card (${basisPointsAsPercent(quote.cardDepositBp)})`, '', formatCents(b.depositCents));
+
+  const declined = quote.lines.filter((l) => l.kind === 'out-of-scope');
+  if (declined.length) {
+    heading('Not in our scope');
+    for (const line of declined) paragraph(`${findingLabel(line.code)} — ${placeLabel(line.room, line.location)}: ${line.outOfScopeReason ?? ''}`);
+  }
+
+  if (quote.changes) {
+    const ch = quote.changes;
+    heading(`Changes since version ${ch.previousVersion}`);
+    const what = (l: { code: string; location: string }) => `${findingLabel(l.code)}${l.location ? ` — ${l.location}` : ''}`;
+    for (const l of ch.added) paragraph(`Added: ${what(l)}, ${formatCents(l.lineCents)}`);
+    for (const l of ch.removed) paragraph(`Removed: ${what(l)}, was ${formatCents(l.lineCents)}`);
+    for (const l of ch.changed) paragraph(`Changed: ${what(l)}, ${formatCents(l.previousLineCents)} → ${formatCents(l.lineCents)}`);
+    paragraph(`Total ${formatCents(ch.previousTotalCents)} → ${formatCents(b.totalCents)} (${formatCentsDelta(ch.totalDeltaCents)})`);
+  }
+
+  const notes = houseAndCodeNotes(priced);
+  if (notes.length) {
+    heading('The house and the code in force when it was built');
+    for (const n of notes) {
+      ensureSpace(30);
+      doc.font('strong').fontSize(10).fillColor('black').text(n.items, MARGIN, doc.y, { width: CONTENT_WIDTH });
+      paragraph(n.text, 9.5);
+      doc.moveDown(0.3);
+    }
+  }
+
+  section('Warranty', quote.warrantyText);
+  section('Safety and permits', quote.safetyNotice);
+  acceptance(doc, quote, ensureSpace, heading);
+  layout.pageNumbers(`${quote.requestReference} · quote version ${quote.version} · prices in US dollars`);
+  return layout.finish();
 }
 
 /** Where the seller accepts the quote in writing, kept whole on one page. */
@@ -197,21 +143,5 @@ function acceptance(doc: PDFKit.PDFDocument, quote: QuoteVersion, ensureSpace: (
     doc.font('body').fontSize(8).fillColor(MUTED).text(left, MARGIN, y + 3, { width: half });
     if (right) doc.text(right, MARGIN + half + 24, y + 3, { width: half });
     doc.x = MARGIN;
-  }
-}
-
-/** "Page n of N" and the quote's reference at the foot of every page. */
-function pageNumbers(doc: PDFKit.PDFDocument, reference: string): void {
-  const { start, count } = doc.bufferedPageRange();
-  for (let i = start; i < start + count; i++) {
-    doc.switchToPage(i);
-    // Writing inside the bottom margin would start a new page: lift the margin while the footer is written.
-    const margin = doc.page.margins.bottom;
-    doc.page.margins.bottom = 0;
-    const y = doc.page.height - MARGIN - 10;
-    doc.font('body').fontSize(8).fillColor(MUTED);
-    doc.text(reference, MARGIN, y, { width: CONTENT_WIDTH / 2, lineBreak: false });
-    doc.text(`Page ${i - start + 1} of ${count}`, MARGIN + CONTENT_WIDTH / 2, y, { width: CONTENT_WIDTH / 2, align: 'right', lineBreak: false });
-    doc.page.margins.bottom = margin;
   }
 }
