@@ -52,8 +52,9 @@ describe('POST /api/invitations/:token/accept', () => {
     expect(res.body.requestId).toBe(id);
     const detail = await visitor.get(`/api/requests/${id}`).expect(200);
     expect(detail.body.myParts).toEqual(['seller']);
-    // The link is spent.
-    await request(t.app).get(`/api/invitations/${token}`).expect(404);
+    // The link is spent: opening it again says so (and names nobody).
+    const again = await request(t.app).get(`/api/invitations/${token}`).expect(409);
+    expect(again.body).toEqual({ error: 'This invitation was accepted already. Sign in to open the request.', details: [] });
   });
 
   it('responds 400 with field details for a short password, and makes no account', async () => {

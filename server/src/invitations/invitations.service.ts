@@ -7,6 +7,8 @@ import { ConflictError, ForbiddenError, NotFoundError } from '../errors';
 import type { Passwords } from '../auth/passwords';
 import { ROLE_FOR_PARTY } from '../requests/requests.service';
 
+const ACCEPTED_ALREADY = 'This invitation was accepted already. Sign in to open the request.';
+
 export class InvitationsService {
   constructor(
     private readonly db: Db,
@@ -20,6 +22,7 @@ export class InvitationsService {
     if (!party || !party.invite_expires_at || party.invite_expires_at.getTime() < Date.now()) {
       throw new NotFoundError('This invitation link is not valid any more. Ask the agent for a new one.');
     }
+    if (party.user_id !== null) throw new ConflictError(ACCEPTED_ALREADY);
     return party;
   }
 
@@ -49,7 +52,7 @@ export class InvitationsService {
     return inTransaction(this.db, async (trx) => {
       const party = await trx('request_parties').where({ id: open.id }).forUpdate().first('id', 'user_id', 'invite_token', 'email', 'role', 'request_id');
       if (!party || party.user_id !== null || party.invite_token !== token) {
-        throw new ConflictError('This invitation was accepted already. Sign in to open the request.');
+        throw new ConflictError(ACCEPTED_ALREADY);
       }
       const neededRole = ROLE_FOR_PARTY[party.role as keyof typeof ROLE_FOR_PARTY];
       let user = await this.users.findByEmail(party.email, trx);

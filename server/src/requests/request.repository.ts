@@ -310,6 +310,7 @@ export class RequestRepository {
   async acceptInvitation(partyId: number, userId: number, trx: Trx): Promise<void> {
     await trx('request_parties')
       .where({ id: partyId })
-      .update({ user_id: userId, invite_token: null, invite_expires_at: null, joined_at: new Date() });
+      // The token stays on the row: a second use of the link then hears "accepted already", not "no such link".
+      .update({ user_id: userId, joined_at: new Date() });
   }
 }
