@@ -22,6 +22,8 @@ const EnvSchema = z.object({
   STORAGE_DIR: z.string().default('.data/files'),
   /** Folder of the built portal served as static files. */
   PORTAL_DIST: z.string().default('dist/portal/browser'),
+  /** Approved items still open this many business days before closing flag the request as at risk. */
+  AT_RISK_BUSINESS_DAYS: z.coerce.number().int().min(0).max(30).default(3),
 });
 
 export interface Config {
@@ -37,6 +39,7 @@ export interface Config {
   signInWindowMs: number;
   portalDist: string;
   storageDir: string;
+  atRiskBusinessDays: number;
 }
 
 /** Reads the environment; throws one readable message listing every bad or missing variable. */
@@ -60,5 +63,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     signInWindowMs: e.SIGN_IN_WINDOW_MINUTES * 60_000,
     portalDist: e.PORTAL_DIST,
     storageDir: e.STORAGE_DIR,
+    atRiskBusinessDays: e.AT_RISK_BUSINESS_DAYS,
   };
 }

@@ -15,6 +15,10 @@ import { createQuotesRouter } from './quotes.router';
 import { createRateBookRouter } from './rate-book.router';
 import { createReportsRouter } from './reports.router';
 import { createRequestsRouter } from './requests.router';
+import { createCorrectionsRouter } from '../corrections/corrections.router';
+import { createLettersRouter, createVerificationRouter } from '../letters/letters.router';
+import { createVisitsRouter } from '../visits/visits.router';
+import { createWorkRouter } from '../work/work.router';
 
 export interface RouterDeps {
   config: Config;
@@ -34,6 +38,11 @@ export function createApiRouter(deps: RouterDeps): Router {
   api.use('/requests/:id/reports', createReportsRouter(deps));
   api.use('/requests/:id/items', createLineItemsRouter(deps));
   api.use('/requests/:id/quotes', createQuotesRouter(deps));
+  api.use('/requests/:id/visits', createVisitsRouter(deps));
+  api.use('/requests/:id/work', createWorkRouter(deps));
+  api.use('/requests/:id', createCorrectionsRouter(deps));
+  api.use('/requests/:id', createLettersRouter(deps));
+  api.use('/verify', createVerificationRouter(deps));
   api.use('/requests/:id', createPricingRouter(deps));
   api.use('/requests', createRequestsRouter(deps));
   api.use('/admin', createAdminRouter(deps));

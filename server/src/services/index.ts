@@ -21,9 +21,18 @@ import { RateBookService } from './rate-book.service';
 import { readPdfPages } from './report-intake';
 import { ReportIntakeService } from './report-intake.service';
 import { RequestsService } from './requests.service';
+import { CorrectionRepository } from '../corrections/correction.repository';
+import { CorrectionsService } from '../corrections/corrections.service';
+import { LetterRepository } from '../letters/letter.repository';
+import { LettersService } from '../letters/letters.service';
+import { SiteVisitRepository } from '../visits/site-visit.repository';
+import { VisitsService } from '../visits/visits.service';
+import { noProofMessages, type ProofMessages } from '../work/proof-messages';
+import { WorkItemRepository } from '../work/work-item.repository';
+import { WorkService } from '../work/work.service';
 
 /** Builds every repository and service of the app from one database handle and the config. */
-export function createServices(db: Db, config: Config) {
+export function createServices(db: Db, config: Config, proofMessages: ProofMessages = noProofMessages) {
   const users = new UserRepository(db);
   const organisations = new OrganisationRepository(db);
   const requests = new RequestRepository(db);
@@ -37,6 +46,11 @@ export function createServices(db: Db, config: Config) {
   const quotes = new QuoteRepository(db);
   const rateBookService = new RateBookService(db, rateBooks, organisations);
   const pricingService = new PricingService(db, requestsService, rateBookService, itemPricing, quotes);
+  const workItems = new WorkItemRepository(db);
+  const siteVisits = new SiteVisitRepository(db);
+  const corrections = new CorrectionRepository(db);
+  const letterRecords = new LetterRepository(db);
+  const letters = new LettersService(db, requestsService, requests, organisations, workItems, corrections, letterRecords, storage, proofMessages, config.publicUrl);
   return {
     repositories: { users, organisations, requests, items, reports },
     storage,
@@ -50,6 +64,10 @@ export function createServices(db: Db, config: Config) {
     pricing: pricingService,
     ballpark: new BallparkService(requestsService, rateBookService, itemPricing),
     quotes: new QuotesService(db, requestsService, pricingService, rateBookService, rateBooks, requests, organisations, itemPricing, quotes),
+    visits: new VisitsService(db, requestsService, requests, siteVisits, workItems, proofMessages),
+    corrections: new CorrectionsService(db, requestsService, requests, workItems, siteVisits, corrections, storage, proofMessages),
+    letters,
+    work: new WorkService(requestsService, workItems, siteVisits, corrections, letterRecords, letters, config.atRiskBusinessDays),
   };
 }
 
