@@ -3,11 +3,15 @@
 // api (supertest against a real PostgreSQL), browser (playwright-core + Debian chromium).
 const swc = ['@swc/jest', { jsc: { parser: { syntax: 'typescript' }, target: 'es2022' }, module: { type: 'commonjs' } }];
 const sharedAlias = { '^@cc/shared$': '<rootDir>/shared/src/index.ts' };
+// file-type (photo sniffing) and its helpers ship only ES modules, and file-type exports no `require`
+// entry: jest loads its ESM entry and compiles these packages to CommonJS like the project's own code.
+const esmOnly = ['file-type', 'strtok3', 'token-types', '@tokenizer', '@borewit', 'uint8array-extras'];
 
 const node = {
   testEnvironment: 'node',
   transform: { '^.+\\.(t|j)s$': swc },
-  moduleNameMapper: sharedAlias,
+  transformIgnorePatterns: [`/node_modules/(?!(${esmOnly.join('|')})/)`],
+  moduleNameMapper: { ...sharedAlias, '^file-type$': '<rootDir>/node_modules/file-type/index.js' },
   rootDir: __dirname,
 };
 

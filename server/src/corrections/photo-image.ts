@@ -1,12 +1,9 @@
-import { createRequire } from 'node:module';
 import sharp from 'sharp';
 import { MAX_PHOTO_BYTES } from '@cc/shared';
 import { TooLargeError, UnsupportedTypeError } from '../services/errors';
 
-// file-type is an ES module only. Node 20.19+ loads it through require (its "module-sync" export),
-// which works the same in the server and under the test runner (whose own require cannot).
-type FileTypeModule = typeof import('file-type');
-const loadFileType = (): FileTypeModule => createRequire(__filename)('file-type') as FileTypeModule;
+// file-type is an ES module only: loaded with import() on first use.
+const loadFileType = () => import('file-type');
 
 /** Image types a photo may be, judged by the bytes themselves (never the name or the declared type). */
 const IMAGE_TYPES = ['image/jpeg', 'image/png', 'image/webp', 'image/heic', 'image/heif', 'image/avif'];
@@ -26,7 +23,7 @@ export interface CleanPhoto {
  */
 export async function cleanPhoto(bytes: Buffer, field: string): Promise<CleanPhoto> {
   if (bytes.length > MAX_PHOTO_BYTES) throw new TooLargeError('The photo is larger than allowed', [{ path: field, message: `Use a photo of at most ${MAX_PHOTO_BYTES / 1024 / 1024} MB` }]);
-  const type = await loadFileType().fileTypeFromBuffer(bytes);
+  const type = await (await loadFileType()).fileTypeFromBuffer(bytes);
   if (!type || !IMAGE_TYPES.includes(type.mime)) {
     throw new UnsupportedTypeError('Only photos can be attached', [{ path: field, message: 'Choose a JPEG, PNG, WebP or HEIC photo' }]);
   }

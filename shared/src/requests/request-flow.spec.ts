@@ -78,6 +78,9 @@ describe('request flow', () => {
     expect(mayAct(['buyer-agent'], 'change-contractor', 'quoted')).toBe(false);
     expect(mayAct(['contractor'], 'price', 'quoted')).toBe(true);
     expect(mayAct(['buyer-agent'], 'see-access-notes', 'scheduled')).toBe(false);
+    expect(mayAct(['seller'], 'see-access-notes', 'scheduled')).toBe(false);
+    expect(mayAct(['listing-agent'], 'see-access-notes', 'scheduled')).toBe(true);
+    expect(mayAct(['contractor'], 'see-access-notes', 'in-progress')).toBe(true);
     for (const rule of Object.values(REQUEST_ACTIONS)) {
       expect(rule.in.length).toBeGreaterThan(0);
       expect(rule.by.length).toBeGreaterThan(0);

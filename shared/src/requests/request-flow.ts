@@ -100,7 +100,8 @@ export const REQUEST_ACTIONS = {
   'record-funds': { in: ['approved', 'scheduled', 'in-progress', 'corrected', 'letter-issued', 'accepted', 'reopened'], by: ['contractor'] },
   'book-visit': { in: ['approved', 'scheduled', 'in-progress', 'reopened'], by: ['contractor'] },
   'record-correction': { in: ['scheduled', 'in-progress', 'reopened'], by: ['contractor'] },
-  'see-access-notes': { in: BEFORE_LETTER, by: ['seller', 'listing-agent', 'contractor'] },
+  // Lockbox codes and occupant contacts: only the assigned contractor and the listing agent (who gave them).
+  'see-access-notes': { in: BEFORE_LETTER, by: ['listing-agent', 'contractor'] },
 } as const satisfies Record<string, { in: readonly RequestStatus[]; by: readonly FlowActor[] }>;
 export type RequestAction = keyof typeof REQUEST_ACTIONS;
 
