@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { DEMO_RATE_BOOK, RateBookSchema, type RateBook, type RateBookInput } from '@cc/shared';
-import { RateBookRepository } from '../server/src/db/rate-book.repository';
+import { RateBookRepository } from '../server/src/rate-book/rate-book.repository';
 import { ORGANISATIONS } from './data/demo-scenario';
 
 /**

@@ -1,12 +1,12 @@
 import type { Knex } from 'knex';
 import type { ItemStatus } from '@cc/shared';
-import type { StoredPricingItem } from '../server/src/db/item-pricing.repository';
-import { OrganisationRepository } from '../server/src/db/organisation.repository';
-import { QuoteRepository } from '../server/src/db/quote.repository';
-import { RateBookRepository } from '../server/src/db/rate-book.repository';
-import { composeQuote, quoteContractorOf } from '../server/src/services/quote-composer';
-import { RateBookService } from '../server/src/services/rate-book.service';
-import { priceRequest } from '../server/src/services/request-pricing';
+import type { StoredPricingItem } from '../server/src/pricing/item-pricing.repository';
+import { OrganisationRepository } from '../server/src/organisations/organisation.repository';
+import { QuoteRepository } from '../server/src/quotes/quote.repository';
+import { RateBookRepository } from '../server/src/rate-book/rate-book.repository';
+import { composeQuote, quoteContractorOf } from '../server/src/quotes/quote-composer';
+import { RateBookService } from '../server/src/rate-book/rate-book.service';
+import { priceRequest } from '../server/src/pricing/request-pricing';
 
 /** Requests that were quoted at some point of their path get a quote version 1. */
 const QUOTED_AND_LATER = ['quoted', 'approved', 'scheduled', 'in-progress', 'corrected', 'letter-issued', 'accepted', 'declined', 'reopened'];

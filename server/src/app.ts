@@ -9,8 +9,8 @@ import pg from 'pg';
 import { createPassport } from './auth/passport';
 import type { Config } from './config/config';
 import type { Db } from './db/knex';
-import { apiNotFound, errorHandler } from './middleware/error-handler';
-import { createApiRouter } from './routes';
+import { apiNotFound, errorHandler } from './http/error-handler';
+import { createApiRouter } from './api.router';
 import { createServices } from './services';
 
 export interface App {

@@ -3,7 +3,7 @@ import type { Express } from 'express';
 import type { CurrentUser, RateBookInput, RequestStatus } from '@cc/shared';
 import { RateBookSchema } from '@cc/shared';
 import type { Db } from '../../server/src/db/knex';
-import { RateBookRepository } from '../../server/src/db/rate-book.repository';
+import { RateBookRepository } from '../../server/src/rate-book/rate-book.repository';
 import { createOrganisation, createUser, signIn, validRequestBody, type SignedIn } from './fixtures';
 
 /** Ids of a stored rate book's entries and adders by their keys. */

@@ -1,5 +1,5 @@
 import type { QuoteVersionLine } from '@cc/shared';
-import { compareQuotes, type ComparableQuote } from '../../server/src/services/quote-changes';
+import { compareQuotes, type ComparableQuote } from '../../server/src/quotes/quote-changes';
 
 type Line = ComparableQuote['lines'][number];
 

@@ -1,6 +1,6 @@
 import Papa from 'papaparse';
 import { DEMO_RATE_BOOK } from '@cc/shared';
-import { canonicalContent, entriesToCsv, parseEntriesCsv, RATE_BOOK_CSV_COLUMNS, type CsvEntry } from '../../server/src/services/rate-book-csv';
+import { canonicalContent, entriesToCsv, parseEntriesCsv, RATE_BOOK_CSV_COLUMNS, type CsvEntry } from '../../server/src/rate-book/rate-book-csv';
 
 const demoEntries: CsvEntry[] = DEMO_RATE_BOOK.entries.map(({ id, ...content }) => ({ key: id, ...content }));
 

@@ -1,7 +1,7 @@
 import { Passport } from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
-import type { UserRepository } from '../db/user.repository';
-import type { AuthService } from '../services/auth.service';
+import type { UserRepository } from './user.repository';
+import type { AuthService } from './auth.service';
 import './session-user';
 
 export type PassportInstance = InstanceType<typeof Passport>;

@@ -1,10 +1,10 @@
 import { Router, type Request } from 'express';
 import multer from 'multer';
 import { MAX_PHOTO_BYTES, MAX_PHOTOS_PER_KIND, PHOTO_KINDS, RecordCorrectionSchema } from '@cc/shared';
-import type { RouterDeps } from '../routes';
-import { requireUser, userOf } from '../middleware/require-user';
-import { idParam } from '../routes/params';
-import { ValidationError } from '../services/errors';
+import type { RouterDeps } from '../http/router-deps';
+import { requireUser, userOf } from '../http/require-user';
+import { idParam } from '../http/params';
+import { ValidationError } from '../errors';
 import type { UploadedPhoto } from './corrections.service';
 
 const MAX_RECORD_CHARS = 20_000;

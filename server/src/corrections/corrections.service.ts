@@ -12,11 +12,11 @@ import {
   type RequestStatus,
 } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
-import type { RequestRepository } from '../db/request.repository';
+import type { RequestRepository } from '../requests/request.repository';
 import type { FileStorage } from '../integrations/storage/file-storage';
 import { StagedFiles } from '../integrations/storage/staged-files';
-import { ConflictError, NotFoundError, ValidationError } from '../services/errors';
-import type { RequestsService } from '../services/requests.service';
+import { ConflictError, NotFoundError, ValidationError } from '../errors';
+import type { RequestsService } from '../requests/requests.service';
 import type { SiteVisitRepository } from '../visits/site-visit.repository';
 import type { ProofMessages } from '../work/proof-messages';
 import { assertMayAct, requestWithActors } from '../work/request-actors';

@@ -1,6 +1,6 @@
 import sharp from 'sharp';
 import { MAX_PHOTO_BYTES } from '@cc/shared';
-import { TooLargeError, UnsupportedTypeError } from '../services/errors';
+import { TooLargeError, UnsupportedTypeError } from '../errors';
 
 // file-type is an ES module only: loaded with import() on first use.
 const loadFileType = () => import('file-type');

@@ -1,10 +1,10 @@
 import { Router, type Request } from 'express';
 import multer from 'multer';
 import { IssueLetterSchema, ProofReviewSchema } from '@cc/shared';
-import type { RouterDeps } from '../routes';
-import { requireUser, userOf } from '../middleware/require-user';
-import { idParam } from '../routes/params';
-import { NotFoundError, ValidationError } from '../services/errors';
+import type { RouterDeps } from '../http/router-deps';
+import { requireUser, userOf } from '../http/require-user';
+import { idParam } from '../http/params';
+import { NotFoundError, ValidationError } from '../errors';
 
 /** Largest PDF the verification page takes (letters with photo thumbnails stay well under it). */
 const MAX_CHECKED_PDF_BYTES = 20 * 1024 * 1024;

@@ -14,12 +14,12 @@ import {
 } from '@cc/shared';
 import type { z } from 'zod';
 import type { Db } from '../db/knex';
-import type { OrganisationRepository } from '../db/organisation.repository';
-import type { RequestRepository } from '../db/request.repository';
+import type { OrganisationRepository } from '../organisations/organisation.repository';
+import type { RequestRepository } from '../requests/request.repository';
 import type { FileStorage } from '../integrations/storage/file-storage';
 import { StagedFiles } from '../integrations/storage/staged-files';
-import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../services/errors';
-import type { RequestsService } from '../services/requests.service';
+import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../errors';
+import type { RequestsService } from '../requests/requests.service';
 import type { CorrectionRepository } from '../corrections/correction.repository';
 import { toCorrectionDto } from '../corrections/corrections.service';
 import { paymentStatusOf } from '../work/payment-status';

@@ -1,8 +1,8 @@
 import { Router } from 'express';
 import { BookSiteVisitSchema } from '@cc/shared';
-import type { RouterDeps } from '../routes';
-import { requireUser, userOf } from '../middleware/require-user';
-import { idParam } from '../routes/params';
+import type { RouterDeps } from '../http/router-deps';
+import { requireUser, userOf } from '../http/require-user';
+import { idParam } from '../http/params';
 
 /** Site visits of one request: /api/requests/:id/visits */
 export function createVisitsRouter({ services }: RouterDeps): Router {

@@ -1,9 +1,9 @@
 import { mayAct, type CurrentUser, type Electrician, type FlowActor, type RequestStatus, type SiteVisit, BookSiteVisitSchema } from '@cc/shared';
 import type { z } from 'zod';
 import type { Db } from '../db/knex';
-import type { RequestRepository } from '../db/request.repository';
-import { ConflictError, NotFoundError, ValidationError } from '../services/errors';
-import type { RequestsService } from '../services/requests.service';
+import type { RequestRepository } from '../requests/request.repository';
+import { ConflictError, NotFoundError, ValidationError } from '../errors';
+import type { RequestsService } from '../requests/requests.service';
 import type { ProofMessages } from '../work/proof-messages';
 import { assertMayAct, requestWithActors } from '../work/request-actors';
 import { moveRequest } from '../work/request-moves';

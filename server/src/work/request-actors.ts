@@ -10,8 +10,8 @@ import {
   type RequestAction,
   type RequestStatus,
 } from '@cc/shared';
-import { ConflictError, ForbiddenError } from '../services/errors';
-import type { RequestsService } from '../services/requests.service';
+import { ConflictError, ForbiddenError } from '../errors';
+import type { RequestsService } from '../requests/requests.service';
 
 export interface RequestWithActors {
   request: RepairRequestDetail;

@@ -1,7 +1,7 @@
 import { mayMoveRequest, requestMove, type FlowActor, type RequestEvent, type RequestStatus } from '@cc/shared';
 import type { Trx } from '../db/knex';
-import type { RequestRepository } from '../db/request.repository';
-import { ConflictError, ForbiddenError } from '../services/errors';
+import type { RequestRepository } from '../requests/request.repository';
+import { ConflictError, ForbiddenError } from '../errors';
 
 /**
  * Moves a request by `event` of the flow table from `from`, as one of `actors`, and records the

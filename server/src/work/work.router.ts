@@ -1,7 +1,7 @@
 import { Router } from 'express';
-import type { RouterDeps } from '../routes';
-import { requireUser, userOf } from '../middleware/require-user';
-import { idParam } from '../routes/params';
+import type { RouterDeps } from '../http/router-deps';
+import { requireUser, userOf } from '../http/require-user';
+import { idParam } from '../http/params';
 
 /** The proof side of one request at a glance: /api/requests/:id/work */
 export function createWorkRouter({ services }: RouterDeps): Router {

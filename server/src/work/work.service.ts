@@ -3,7 +3,7 @@ import type { CorrectionRepository } from '../corrections/correction.repository'
 import { toCorrectionDto } from '../corrections/corrections.service';
 import type { LetterRepository } from '../letters/letter.repository';
 import type { LettersService } from '../letters/letters.service';
-import type { RequestsService } from '../services/requests.service';
+import type { RequestsService } from '../requests/requests.service';
 import type { SiteVisitRepository } from '../visits/site-visit.repository';
 import { toSiteVisitDto } from '../visits/visits.service';
 import { requestWithActors } from './request-actors';

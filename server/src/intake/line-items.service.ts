@@ -1,0 +1,185 @@
+import {
+  editionNote,
+  findingCodeInfo,
+  type ConfirmItems,
+  type CreateLineItemSchema,
+  type CurrentUser,
+  type LineItem,
+  type MergeLineItems,
+  type NecEdition,
+  type SplitLineItem,
+  type UpdateLineItem,
+} from '@cc/shared';
+import type { z } from 'zod';
+import type { Db, Trx } from '../db/knex';
+import type { LineItemRepository, StoredLineItem } from './line-item.repository';
+import type { ReportFileRepository } from './report-file.repository';
+import type { RequestRepository } from '../requests/request.repository';
+import { ConflictError, NotFoundError, ValidationError } from '../errors';
+import { INTAKE_STATES } from './report-intake.service';
+import type { RequestsService } from '../requests/requests.service';
+
+const STALE = 'This item was changed by someone else meanwhile. Reload to see the current version.';
+const REVIEWABLE = ['proposed', 'open'] as const;
+
+/** The agent's review of parsed items: edit, remove, merge, split, add, confirm. */
+export class LineItemsService {
+  constructor(
+    private readonly db: Db,
+    private readonly access: RequestsService,
+    private readonly requests: RequestRepository,
+    private readonly items: LineItemRepository,
+    private readonly reports: ReportFileRepository,
+  ) {}
+
+  withNote(item: StoredLineItem, edition: NecEdition): LineItem {
+    return { ...item, editionNote: editionNote(item.code, item.room, edition) };
+  }
+
+  async list(user: CurrentUser, requestId: number): Promise<LineItem[]> {
+    const request = await this.access.get(user, requestId);
+    return (await this.items.listForRequest(requestId)).map((i) => this.withNote(i, request.necEdition));
+  }
+
+  /** 404 unless visible, 403 unless one of its agents (or admin), 409 once intake is over. */
+  private async assertReviewer(user: CurrentUser, requestId: number) {
+    const request = await this.access.assertAgentOf(user, requestId);
+    if (!(INTAKE_STATES as readonly string[]).includes(request.status)) {
+      throw new ConflictError('The items of this request are confirmed already');
+    }
+    return request;
+  }
+
+  private async reviewable(requestId: number, id: number, trx?: Trx): Promise<StoredLineItem> {
+    const item = await this.items.findInRequest(requestId, id, trx);
+    if (!item) throw new NotFoundError('No such item');
+    if (!(REVIEWABLE as readonly string[]).includes(item.status)) throw new ConflictError('This item is past review');
+    return item;
+  }
+
+  private async reload(requestId: number, id: number, edition: NecEdition): Promise<LineItem> {
+    const item = await this.items.findInRequest(requestId, id);
+    if (!item) throw new NotFoundError('No such item');
+    return this.withNote(item, edition);
+  }
+
+  async update(user: CurrentUser, requestId: number, id: number, input: UpdateLineItem): Promise<LineItem> {
+    const request = await this.assertReviewer(user, requestId);
+    const { version, ...changes } = input;
+    await this.db.transaction(async (trx) => {
+      await this.reviewable(requestId, id, trx);
+      if (!(await this.items.update(id, version, { ...changes, isEdited: true }, trx))) throw new ConflictError(STALE);
+    });
+    return this.reload(requestId, id, request.necEdition);
+  }
+
+  async remove(user: CurrentUser, requestId: number, id: number, version: number): Promise<void> {
+    await this.assertReviewer(user, requestId);
+    await this.db.transaction(async (trx) => {
+      await this.reviewable(requestId, id, trx);
+      if (!(await this.items.update(id, version, { status: 'removed', isEdited: true }, trx))) throw new ConflictError(STALE);
+    });
+  }
+
+  /** The first item absorbs the second: quantities add up (unknown if either is), places are joined. */
+  async merge(user: CurrentUser, requestId: number, input: MergeLineItems): Promise<LineItem> {
+    const request = await this.assertReviewer(user, requestId);
+    const [keepRef, dropRef] = input.items;
+    await this.db.transaction(async (trx) => {
+      const keep = await this.reviewable(requestId, keepRef.id, trx);
+      const drop = await this.reviewable(requestId, dropRef.id, trx);
+      const quantity = keep.quantity !== null && drop.quantity !== null ? keep.quantity + drop.quantity : null;
+      const location = [keep.location, drop.location].filter((l, i, all) => l && all.indexOf(l) === i).join('; ');
+      const necRefs = [...new Set([...keep.necRefs, ...drop.necRefs])];
+      if (!(await this.items.update(keep.id, keepRef.version, { quantity, location, necRefs, isEdited: true }, trx))) throw new ConflictError(STALE);
+      if (!(await this.items.update(drop.id, dropRef.version, { status: 'removed', isEdited: true }, trx))) throw new ConflictError(STALE);
+    });
+    return this.reload(requestId, keepRef.id, request.necEdition);
+  }
+
+  /** One item becomes several with the given quantities (which must add up to a known quantity). */
+  async split(user: CurrentUser, requestId: number, id: number, input: SplitLineItem): Promise<LineItem[]> {
+    const request = await this.assertReviewer(user, requestId);
+    const ids = await this.db.transaction(async (trx) => {
+      const item = await this.reviewable(requestId, id, trx);
+      const sum = input.quantities.reduce((a, b) => a + b, 0);
+      if (item.quantity !== null && sum !== item.quantity) {
+        throw new ValidationError('The parts must add up to the quantity', [
+          { path: 'quantities', message: `The parts add up to ${sum}, but the item has ${item.quantity}` },
+        ]);
+      }
+      const [first, ...rest] = input.quantities;
+      if (!(await this.items.update(id, input.version, { quantity: first, isEdited: true }, trx))) throw new ConflictError(STALE);
+      const { id: _id, version: _v, ...copy } = item;
+      const added = await this.items.insert(rest.map((quantity) => ({ ...copy, quantity, isEdited: true })), trx);
+      return [id, ...added];
+    });
+    return Promise.all(ids.map((i) => this.reload(requestId, i, request.necEdition)));
+  }
+
+  /** A person adds an item the reader missed, optionally from text selected in a report. */
+  async add(user: CurrentUser, requestId: number, input: z.output<typeof CreateLineItemSchema>): Promise<LineItem> {
+    const request = await this.assertReviewer(user, requestId);
+    let evidence: string | null = null;
+    let page: number | null = null;
+    if (input.reportFileId !== null) {
+      const report = await this.reports.findInRequest(requestId, input.reportFileId);
+      if (!report) throw new ValidationError('No such report on this request', [{ path: 'reportFileId', message: 'Choose a report of this request' }]);
+      if (input.evidenceStart !== null && input.evidenceEnd !== null) {
+        const joined = report.pages.join('\f');
+        if (input.evidenceEnd > joined.length) {
+          throw new ValidationError('The selection is outside the report', [{ path: 'evidenceEnd', message: 'Select text inside the report' }]);
+        }
+        evidence = joined.slice(input.evidenceStart, input.evidenceEnd);
+        page = joined.slice(0, input.evidenceStart).split('\f').length;
+      }
+    }
+    const info = findingCodeInfo(input.code);
+    const [id] = await this.db.transaction((trx) =>
+      this.items.insert(
+        [
+          {
+            requestId,
+            code: input.code,
+            room: input.room,
+            location: input.location,
+            quantity: input.quantity,
+            evidence,
+            page,
+            severity: input.severity ?? info.severity,
+            necRefs: [...info.necRefs],
+            status: 'proposed',
+            isEdited: true,
+            reportFileId: input.reportFileId,
+            evidenceStart: input.evidenceStart,
+            evidenceEnd: input.evidenceEnd,
+          },
+        ],
+        trx,
+      ),
+    );
+    return this.reload(requestId, id, request.necEdition);
+  }
+
+  /**
+   * Confirms the review: every proposed item (each at the version the agent saw) becomes a line item
+   * of the request, and the request moves on to pricing.
+   */
+  async confirm(user: CurrentUser, requestId: number, input: ConfirmItems): Promise<LineItem[]> {
+    const request = await this.assertReviewer(user, requestId);
+    await this.db.transaction(async (trx) => {
+      const current = (await this.items.listForRequest(requestId, trx)).filter((i) => i.status === 'proposed');
+      const seen = new Map(input.items.map((i) => [i.id, i.version]));
+      const unseen = current.filter((i) => seen.get(i.id) !== i.version);
+      if (unseen.length || current.length !== seen.size) {
+        throw new ConflictError('The list of items changed since you loaded it. Reload and review again.');
+      }
+      for (const item of current) {
+        if (!(await this.items.update(item.id, item.version, { status: 'open' }, trx))) throw new ConflictError(STALE);
+      }
+      const moved = await this.requests.changeStatus(requestId, { from: request.status, to: 'pricing', by: user.id, note: `${current.length} items confirmed` }, trx);
+      if (!moved) throw new ConflictError('The request changed meanwhile. Reload and try again.');
+    });
+    return this.list(user, requestId);
+  }
+}

@@ -1,0 +1,61 @@
+import { requestReference, type AcceptInvitation, type CurrentUser, type Invitation } from '@cc/shared';
+import type { Db } from '../db/knex';
+import type { RequestRepository } from '../requests/request.repository';
+import type { UserRepository } from '../auth/user.repository';
+import { ConflictError, NotFoundError } from '../errors';
+import type { Passwords } from '../auth/passwords';
+import { ROLE_FOR_PARTY } from '../requests/requests.service';
+
+export class InvitationsService {
+  constructor(
+    private readonly db: Db,
+    private readonly requests: RequestRepository,
+    private readonly users: UserRepository,
+    private readonly passwords: Passwords,
+  ) {}
+
+  private async openInvitation(token: string) {
+    const party = await this.requests.findInvitation(token);
+    if (!party || !party.invite_expires_at || party.invite_expires_at.getTime() < Date.now()) {
+      throw new NotFoundError('This invitation link is not valid any more. Ask the agent for a new one.');
+    }
+    return party;
+  }
+
+  async lookup(token: string): Promise<Invitation> {
+    const party = await this.openInvitation(token);
+    const request = await this.db('repair_requests').where({ id: party.request_id }).first('street', 'city', 'state', 'zip');
+    return {
+      email: party.email,
+      role: party.role,
+      requestReference: requestReference(party.request_id),
+      propertyAddress: `${request.street}, ${request.city}, ${request.state} ${request.zip}`,
+      invitedByName: party.inviter_name ?? 'An agent',
+      hasAccount: (await this.users.findByEmail(party.email)) !== null,
+    };
+  }
+
+  /**
+   * Accepts the invitation: the signed-in user whose e-mail it names joins the request, or a new
+   * account is made for that e-mail. Returns the user to sign in, and the request id.
+   */
+  async accept(token: string, signedIn: CurrentUser | undefined, input: AcceptInvitation | null): Promise<{ user: CurrentUser; requestId: number }> {
+    const party = await this.openInvitation(token);
+    return this.db.transaction(async (trx) => {
+      let user = await this.users.findByEmail(party.email, trx);
+      if (user) {
+        if (!signedIn || signedIn.id !== user.id) {
+          throw new ConflictError('An account with this e-mail exists: sign in with it, then open the link again.');
+        }
+      } else {
+        if (!input) throw new ConflictError('Choose your name and a password to make your account.');
+        user = await this.users.create(
+          { email: party.email, name: input.name, role: ROLE_FOR_PARTY[party.role], organisationId: null, passwordHash: await this.passwords.hash(input.password) },
+          trx,
+        );
+      }
+      await this.requests.acceptInvitation(party.id, user.id, trx);
+      return { user, requestId: party.request_id };
+    });
+  }
+}

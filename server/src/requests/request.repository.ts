@@ -1,0 +1,265 @@
+import type { Knex } from 'knex';
+import {
+  requestReference,
+  type NecEdition,
+  type PartyRole,
+  type RepairRequestSummary,
+  type RequestStatus,
+  type Role,
+  type StatusChange,
+  REQUEST_SORTS,
+} from '@cc/shared';
+import type { Db, Trx } from '../db/knex';
+import type { RepairRequestRow, RequestPartyRow, RequestStatusChangeRow } from '../db/tables';
+
+/** Who is looking: decides which requests exist for them. */
+export interface Viewer {
+  id: number;
+  role: Role;
+  organisationId: number | null;
+}
+
+export interface RequestListFilter {
+  page: number;
+  pageSize: number;
+  sort: (typeof REQUEST_SORTS)[number];
+  direction: 'asc' | 'desc';
+  statuses: RequestStatus[];
+  text: string;
+  /** An id typed as a reference (CC-00042) into the search box. */
+  id: number | null;
+}
+
+export interface NewRepairRequest {
+  street: string;
+  city: string;
+  state: string;
+  zip: string;
+  yearBuilt: number;
+  closingDate: string;
+  necEdition: NecEdition;
+  status: RequestStatus;
+  contractorOrganisationId: number | null;
+  createdBy: number;
+}
+
+export interface PartyRecord {
+  id: number;
+  role: PartyRole;
+  email: string;
+  userId: number | null;
+  name: string | null;
+  inviteToken: string | null;
+  inviteExpiresAt: Date | null;
+}
+
+const SORT_COLUMNS: Record<RequestListFilter['sort'], string> = {
+  closingDate: 'r.closing_date',
+  createdAt: 'r.created_at',
+  status: 'r.status',
+  street: 'r.street',
+};
+
+type SummaryRow = RepairRequestRow & { contractor_name: string | null; item_count: number; total_count?: string };
+
+function toSummary(row: SummaryRow): RepairRequestSummary {
+  return {
+    id: row.id,
+    reference: requestReference(row.id),
+    street: row.street,
+    city: row.city,
+    state: row.state,
+    zip: row.zip,
+    yearBuilt: row.year_built,
+    closingDate: row.closing_date,
+    necEdition: row.nec_edition as NecEdition,
+    status: row.status,
+    contractorName: row.contractor_name,
+    itemCount: Number(row.item_count),
+    createdAt: row.created_at.toISOString(),
+    updatedAt: row.updated_at.toISOString(),
+  };
+}
+
+export class RequestRepository {
+  constructor(private readonly db: Db) {}
+
+  /** Narrows a query on `repair_requests as r` to the requests `viewer` is party to. */
+  private scope(query: Knex.QueryBuilder, viewer: Viewer): Knex.QueryBuilder {
+    if (viewer.role === 'admin') return query;
+    if (viewer.role === 'contractor') {
+      return query.where('r.contractor_organisation_id', viewer.organisationId ?? -1);
+    }
+    return query.whereExists(
+      this.db('request_parties as p').select(this.db.raw('1')).whereRaw('p.request_id = r.id').andWhere('p.user_id', viewer.id),
+    );
+  }
+
+  private summaries(trx?: Trx): Knex.QueryBuilder {
+    const db = trx ?? this.db;
+    return db('repair_requests as r')
+      .leftJoin('organisations as o', 'o.id', 'r.contractor_organisation_id')
+      .select(
+        'r.*',
+        'o.name as contractor_name',
+        db.raw(
+          "(SELECT count(*) FROM line_items li WHERE li.request_id = r.id AND li.status NOT IN ('proposed', 'removed'))::int AS item_count",
+        ),
+      );
+  }
+
+  async list(viewer: Viewer, filter: RequestListFilter): Promise<{ items: RepairRequestSummary[]; total: number }> {
+    const query = this.scope(this.summaries(), viewer).select(this.db.raw('count(*) over() AS total_count'));
+    if (filter.statuses.length) query.whereIn('r.status', filter.statuses);
+    if (filter.text) {
+      const like = `%${filter.text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+      query.where((w) => {
+        w.whereRaw("(r.street || ' ' || r.city || ' ' || r.zip) ILIKE ?", [like]);
+        if (filter.id !== null) w.orWhere('r.id', filter.id);
+      });
+    }
+    const rows: SummaryRow[] = await query
+      .orderBy(SORT_COLUMNS[filter.sort], filter.direction)
+      .orderBy('r.id', filter.direction)
+      .limit(filter.pageSize)
+      .offset(filter.page * filter.pageSize);
+    return { items: rows.map(toSummary), total: rows.length ? Number(rows[0].total_count) : 0 };
+  }
+
+  /** The request if `viewer` may see it, else null (callers answer 404 either way). */
+  async findVisible(viewer: Viewer, id: number, trx?: Trx): Promise<(RepairRequestSummary & { contractorOrganisationId: number | null }) | null> {
+    const row: SummaryRow | undefined = await this.scope(this.summaries(trx), viewer).where('r.id', id).first();
+    return row ? { ...toSummary(row), contractorOrganisationId: row.contractor_organisation_id } : null;
+  }
+
+  async create(request: NewRepairRequest, trx: Trx): Promise<number> {
+    const [row] = await trx<RepairRequestRow>('repair_requests')
+      .insert({
+        street: request.street,
+        city: request.city,
+        state: request.state,
+        zip: request.zip,
+        year_built: request.yearBuilt,
+        closing_date: request.closingDate,
+        nec_edition: request.necEdition,
+        status: request.status,
+        contractor_organisation_id: request.contractorOrganisationId,
+        created_by: request.createdBy,
+      })
+      .returning('id');
+    return row.id;
+  }
+
+  /**
+   * Gives the request to another contractor. What the previous one set while pricing refers to its
+   * own rate book, so it is cleared: entries, site conditions, visits, "not our scope" marks.
+   */
+  async setContractor(id: number, contractorOrganisationId: number, trx: Trx): Promise<void> {
+    const { contractor_organisation_id: previous } = await trx('repair_requests').where({ id }).forUpdate().first('contractor_organisation_id');
+    if (previous === contractorOrganisationId) return;
+    await trx('repair_requests').where({ id }).update({ contractor_organisation_id: contractorOrganisationId, site_adder_ids: [], updated_at: new Date() });
+    await trx('request_pricing_visits').where({ request_id: id }).delete();
+    await trx('line_items')
+      .where({ request_id: id })
+      .whereIn('status', ['open', 'priced', 'out-of-scope'])
+      .update({
+        status: 'open',
+        entry_id: null,
+        adder_ids: [],
+        pricing_quantity: null,
+        is_quantity_assumed: false,
+        visit_key: 'visit-1',
+        out_of_scope_reason: null,
+        version: trx.raw('version + 1'),
+        updated_at: new Date(),
+      });
+  }
+
+  /** Moves the request to `to` and records the change; `from` guards against a concurrent move. */
+  async changeStatus(
+    id: number,
+    change: { from: RequestStatus | null; to: RequestStatus; by: number | null; note?: string | null },
+    trx: Trx,
+  ): Promise<boolean> {
+    if (change.from !== null) {
+      const updated = await trx('repair_requests')
+        .where({ id, status: change.from })
+        .update({ status: change.to, updated_at: new Date() });
+      if (updated === 0) return false;
+    }
+    await trx<RequestStatusChangeRow>('request_status_changes').insert({
+      request_id: id,
+      from_status: change.from,
+      to_status: change.to,
+      changed_by: change.by,
+      note: change.note ?? null,
+    });
+    return true;
+  }
+
+  async history(id: number): Promise<StatusChange[]> {
+    const rows: (RequestStatusChangeRow & { by_name: string | null })[] = await this.db('request_status_changes as c')
+      .leftJoin('users as u', 'u.id', 'c.changed_by')
+      .where('c.request_id', id)
+      .select('c.*', 'u.name as by_name')
+      .orderBy([{ column: 'c.created_at' }, { column: 'c.id' }]);
+    return rows.map((r) => ({
+      from: r.from_status,
+      to: r.to_status,
+      at: r.created_at.toISOString(),
+      byName: r.by_name,
+      note: r.note,
+    }));
+  }
+
+  async parties(requestId: number, trx?: Trx): Promise<PartyRecord[]> {
+    const rows: (RequestPartyRow & { user_name: string | null })[] = await (trx ?? this.db)('request_parties as p')
+      .leftJoin('users as u', 'u.id', 'p.user_id')
+      .where('p.request_id', requestId)
+      .select('p.*', 'u.name as user_name')
+      .orderBy('p.id');
+    return rows.map((r) => ({
+      id: r.id,
+      role: r.role,
+      email: r.email,
+      userId: r.user_id,
+      name: r.user_name,
+      inviteToken: r.invite_token,
+      inviteExpiresAt: r.invite_expires_at,
+    }));
+  }
+
+  async addParty(
+    party: { requestId: number; role: PartyRole; email: string; userId: number | null; inviteToken: string | null; inviteExpiresAt: Date | null; invitedBy: number | null },
+    trx: Trx,
+  ): Promise<void> {
+    await trx<RequestPartyRow>('request_parties')
+      .insert({
+        request_id: party.requestId,
+        role: party.role,
+        email: party.email,
+        user_id: party.userId,
+        invite_token: party.inviteToken,
+        invite_expires_at: party.inviteExpiresAt,
+        invited_by: party.invitedBy,
+        joined_at: party.userId ? new Date() : null,
+      })
+      .onConflict(['request_id', 'role', 'email'])
+      .ignore();
+  }
+
+  async findInvitation(token: string, trx?: Trx): Promise<(RequestPartyRow & { inviter_name: string | null }) | null> {
+    const row = await (trx ?? this.db)('request_parties as p')
+      .leftJoin('users as u', 'u.id', 'p.invited_by')
+      .where('p.invite_token', token)
+      .select('p.*', 'u.name as inviter_name')
+      .first();
+    return row ?? null;
+  }
+
+  async acceptInvitation(partyId: number, userId: number, trx: Trx): Promise<void> {
+    await trx('request_parties')
+      .where({ id: partyId })
+      .update({ user_id: userId, invite_token: null, invite_expires_at: null, joined_at: new Date() });
+  }
+}

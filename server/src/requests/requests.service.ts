@@ -1,0 +1,205 @@
+import { randomBytes } from 'node:crypto';
+import {
+  CONTRACTOR_CHANGE_STATES,
+  defaultNecEdition,
+  type CreateRepairRequestParsed,
+  type CurrentUser,
+  type InviteParty,
+  type Page,
+  type Party,
+  type PartyRole,
+  type RepairRequestDetail,
+  type RepairRequestSummary,
+  type Role,
+  type UsState,
+  parseRequestReference,
+  RepairRequestListQuerySchema,
+} from '@cc/shared';
+import type { z } from 'zod';
+import type { Db, Trx } from '../db/knex';
+import type { OrganisationRepository } from '../organisations/organisation.repository';
+import type { RequestRepository } from './request.repository';
+import type { UserRepository } from '../auth/user.repository';
+import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../errors';
+
+const INVITE_DAYS = 14;
+
+/** The account role a person needs to take a part on a request. */
+export const ROLE_FOR_PARTY: Record<PartyRole, Role> = {
+  'buyer-agent': 'agent',
+  'listing-agent': 'agent',
+  seller: 'seller',
+  inspector: 'inspector',
+};
+
+const AGENT_PARTS: readonly PartyRole[] = ['buyer-agent', 'listing-agent'];
+
+export class RequestsService {
+  constructor(
+    private readonly db: Db,
+    private readonly requests: RequestRepository,
+    private readonly users: UserRepository,
+    private readonly organisations: OrganisationRepository,
+    private readonly publicUrl: string,
+  ) {}
+
+  async list(user: CurrentUser, query: z.output<typeof RepairRequestListQuerySchema>): Promise<Page<RepairRequestSummary>> {
+    const { items, total } = await this.requests.list(viewerOf(user), {
+      page: query.page,
+      pageSize: query.pageSize,
+      sort: query.sort,
+      direction: query.direction,
+      statuses: query.status,
+      text: query.q,
+      id: query.q ? parseRequestReference(query.q) : null,
+    });
+    return { items, total, page: query.page, pageSize: query.pageSize };
+  }
+
+  /** The request as `user` may see it; 404 when they are not a party to it. */
+  async get(user: CurrentUser, id: number): Promise<RepairRequestDetail> {
+    const request = await this.requests.findVisible(viewerOf(user), id);
+    if (!request) throw new NotFoundError('No such repair request');
+    const [parties, history, contractor] = await Promise.all([
+      this.requests.parties(id),
+      this.requests.history(id),
+      request.contractorOrganisationId ? this.organisations.findById(request.contractorOrganisationId) : null,
+    ]);
+    const myParts = parties.filter((p) => p.userId === user.id).map((p) => p.role);
+    const isAgentOfRequest = user.role === 'admin' || myParts.some((p) => AGENT_PARTS.includes(p));
+    const { contractorOrganisationId: _omit, ...summary } = request;
+    return {
+      ...summary,
+      contractor: contractor && {
+        id: contractor.id,
+        name: contractor.name,
+        licenceNumber: contractor.licenceNumber,
+        licenceState: contractor.licenceState,
+        licenceClass: contractor.licenceClass,
+      },
+      parties: parties.map(
+        (p): Party => ({
+          role: p.role,
+          email: p.email,
+          name: p.name,
+          userId: p.userId,
+          isPending: p.userId === null,
+          inviteUrl: p.userId === null && isAgentOfRequest && p.inviteToken ? this.inviteUrl(p.inviteToken) : null,
+        }),
+      ),
+      history,
+      myParts,
+    };
+  }
+
+  async create(user: CurrentUser, input: CreateRepairRequestParsed): Promise<RepairRequestDetail> {
+    if (user.role !== 'agent' && user.role !== 'admin') throw new ForbiddenError('Only an agent opens a repair request');
+    const id = await this.db.transaction(async (trx) => {
+      const buyerAgent = user.role === 'admin' ? await this.adminNamedBuyerAgent(input.buyerAgentEmail, trx) : user;
+      if (input.contractorOrganisationId !== null) await this.assertContractor(input.contractorOrganisationId, trx);
+      const requestId = await this.requests.create(
+        {
+          street: input.street,
+          city: input.city,
+          state: input.state,
+          zip: input.zip,
+          yearBuilt: input.yearBuilt,
+          closingDate: input.closingDate,
+          necEdition: input.necEdition ?? defaultNecEdition(input.state as UsState),
+          status: 'draft',
+          contractorOrganisationId: input.contractorOrganisationId,
+          createdBy: user.id,
+        },
+        trx,
+      );
+      await this.requests.changeStatus(requestId, { from: null, to: 'draft', by: user.id, note: 'Request opened' }, trx);
+      await this.requests.addParty(
+        { requestId, role: 'buyer-agent', email: buyerAgent.email, userId: buyerAgent.id, inviteToken: null, inviteExpiresAt: null, invitedBy: user.id },
+        trx,
+      );
+      const invitations: [PartyRole, string | null, string][] = [
+        ['listing-agent', input.listingAgentEmail, 'listingAgentEmail'],
+        ['seller', input.sellerEmail, 'sellerEmail'],
+        ['inspector', input.inspectorEmail, 'inspectorEmail'],
+      ];
+      for (const [role, email, field] of invitations) {
+        if (email) await this.addOrInvite(requestId, role, email, user, field, trx);
+      }
+      return requestId;
+    });
+    return this.get(user, id);
+  }
+
+  /** Adds a party: linked at once when an account with that e-mail exists, else invited by link. */
+  async inviteParty(user: CurrentUser, requestId: number, input: InviteParty): Promise<RepairRequestDetail> {
+    await this.assertAgentOf(user, requestId);
+    await this.db.transaction((trx) => this.addOrInvite(requestId, input.role, input.email, user, 'email', trx));
+    return this.get(user, requestId);
+  }
+
+  async assignContractor(user: CurrentUser, requestId: number, contractorOrganisationId: number): Promise<RepairRequestDetail> {
+    const request = await this.assertAgentOf(user, requestId);
+    if (!CONTRACTOR_CHANGE_STATES.includes(request.status)) {
+      throw new ConflictError('A quote was sent already; the contractor cannot be changed now');
+    }
+    await this.assertContractor(contractorOrganisationId);
+    await this.db.transaction((trx) => this.requests.setContractor(requestId, contractorOrganisationId, trx));
+    return this.get(user, requestId);
+  }
+
+  /** 404 unless `user` can see the request; 403 when they see it but are not one of its agents. */
+  async assertAgentOf(user: CurrentUser, requestId: number): Promise<RepairRequestDetail> {
+    const request = await this.get(user, requestId);
+    const isAgent = user.role === 'admin' || request.myParts.some((p) => AGENT_PARTS.includes(p));
+    if (!isAgent) throw new ForbiddenError("Only the request's agents can do this");
+    return request;
+  }
+
+  private async addOrInvite(requestId: number, role: PartyRole, email: string, by: CurrentUser, field: string, trx: Trx): Promise<void> {
+    const existing = await this.users.findByEmail(email, trx);
+    if (existing && existing.role !== ROLE_FOR_PARTY[role]) {
+      throw new ValidationError('That person cannot take this part', [
+        { path: field, message: `This e-mail belongs to an account that is not a${ROLE_FOR_PARTY[role] === 'agent' ? 'n' : ''} ${ROLE_FOR_PARTY[role]}` },
+      ]);
+    }
+    await this.requests.addParty(
+      {
+        requestId,
+        role,
+        email,
+        userId: existing?.id ?? null,
+        inviteToken: existing ? null : randomBytes(24).toString('base64url'),
+        inviteExpiresAt: existing ? null : new Date(Date.now() + INVITE_DAYS * 86_400_000),
+        invitedBy: by.id,
+      },
+      trx,
+    );
+  }
+
+  private async adminNamedBuyerAgent(email: string | null, trx: Trx): Promise<CurrentUser> {
+    const agent = email ? await this.users.findByEmail(email, trx) : null;
+    if (!agent || agent.role !== 'agent') {
+      throw new ValidationError("Name the buyer's agent", [
+        { path: 'buyerAgentEmail', message: "Enter the e-mail of an existing agent's account" },
+      ]);
+    }
+    return agent;
+  }
+
+  private async assertContractor(organisationId: number, trx?: Trx): Promise<void> {
+    const org = await this.organisations.findById(organisationId, trx);
+    if (!org || org.kind !== 'contractor') {
+      throw new ValidationError('No such contractor', [
+        { path: 'contractorOrganisationId', message: 'Choose one of the listed electrical contractors' },
+      ]);
+    }
+  }
+
+  inviteUrl(token: string): string {
+    return `${this.publicUrl}/invite/${token}`;
+  }
+}
+
+export function viewerOf(user: CurrentUser) {
+  return { id: user.id, role: user.role, organisationId: user.organisationId };
+}
