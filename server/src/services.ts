@@ -40,7 +40,7 @@ export function createServices(db: Db, config: Config, proofMessages: ProofMessa
   const reports = new ReportFileRepository(db);
   const passwords = new Passwords(config.bcryptRounds);
   const storage = new LocalFileStorage(config.storageDir);
-  const requestsService = new RequestsService(db, requests, users, organisations, config.publicUrl);
+  const requestsService = new RequestsService(db, requests, users, organisations, config.publicUrl, config.atRiskBusinessDays);
   const rateBooks = new RateBookRepository(db);
   const itemPricing = new ItemPricingRepository(db);
   const quotes = new QuoteRepository(db);

@@ -190,7 +190,8 @@ export class LettersService {
     await this.db.transaction(async (trx) => {
       const locked = await this.items.lockRequest(requestId, trx);
       if (!locked || locked.status !== request.status) throw new ConflictError('The request changed meanwhile. Reload and try again.');
-      const letter = (await this.letters.listForRequest(requestId, trx)).at(-1)!;
+      const letter = (await this.letters.listForRequest(requestId, trx)).at(-1);
+      if (!letter) throw new ConflictError('No completion letter was issued through Closing Circuit for this request');
       const items = await this.items.listForRequest(requestId, trx, true);
       const notAccepted = input.decision === 'not-accept' ? input.items : [];
       for (const [index, entry] of notAccepted.entries()) {

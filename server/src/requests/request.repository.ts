@@ -60,7 +60,7 @@ const SORT_COLUMNS: Record<RequestListFilter['sort'], string> = {
   street: 'r.street',
 };
 
-type SummaryRow = RepairRequestRow & { contractor_name: string | null; item_count: number; total_count?: string };
+type SummaryRow = RepairRequestRow & { contractor_name: string | null; item_count: number; open_work_count: number; total_count?: string };
 
 function toSummary(row: SummaryRow): RepairRequestSummary {
   return {
@@ -76,6 +76,9 @@ function toSummary(row: SummaryRow): RepairRequestSummary {
     status: row.status,
     contractorName: row.contractor_name,
     itemCount: Number(row.item_count),
+    openWorkCount: Number(row.open_work_count),
+    // Decided by the service, which knows today and the setting.
+    isAtRisk: false,
     createdAt: row.created_at.toISOString(),
     updatedAt: row.updated_at.toISOString(),
   };
@@ -105,6 +108,7 @@ export class RequestRepository {
         db.raw(
           "(SELECT count(*) FROM line_items li WHERE li.request_id = r.id AND li.status NOT IN ('proposed', 'removed'))::int AS item_count",
         ),
+        db.raw("(SELECT count(*) FROM line_items li WHERE li.request_id = r.id AND li.status IN ('approved', 'not-accepted'))::int AS open_work_count"),
       );
   }
 

@@ -1,5 +1,6 @@
 import { randomBytes } from 'node:crypto';
 import {
+  closingProgress,
   CONTRACTOR_CHANGE_STATES,
   defaultNecEdition,
   type CreateRepairRequestParsed,
@@ -41,7 +42,16 @@ export class RequestsService {
     private readonly users: UserRepository,
     private readonly organisations: OrganisationRepository,
     private readonly publicUrl: string,
+    /** Open approved work this many business days before closing flags a request as at risk. */
+    private readonly atRiskBusinessDays = 3,
   ) {}
+
+  /** The summary with its at-risk flag for today. */
+  private withRisk<T extends RepairRequestSummary>(summary: T): T {
+    const today = new Date().toISOString().slice(0, 10);
+    const { isAtRisk } = closingProgress({ closingDate: summary.closingDate, today, approvedCount: summary.openWorkCount, resolvedCount: 0, atRiskBusinessDays: this.atRiskBusinessDays });
+    return { ...summary, isAtRisk };
+  }
 
   async list(user: CurrentUser, query: z.output<typeof RepairRequestListQuerySchema>): Promise<Page<RepairRequestSummary>> {
     const { items, total } = await this.requests.list(viewerOf(user), {
@@ -53,7 +63,7 @@ export class RequestsService {
       text: query.q,
       id: query.q ? parseRequestReference(query.q) : null,
     });
-    return { items, total, page: query.page, pageSize: query.pageSize };
+    return { items: items.map((i) => this.withRisk(i)), total, page: query.page, pageSize: query.pageSize };
   }
 
   /** The request as `user` may see it; 404 when they are not a party to it. */
@@ -67,7 +77,7 @@ export class RequestsService {
     ]);
     const myParts = parties.filter((p) => p.userId === user.id).map((p) => p.role);
     const isAgentOfRequest = user.role === 'admin' || myParts.some((p) => AGENT_PARTS.includes(p));
-    const { contractorOrganisationId: _omit, ...summary } = request;
+    const { contractorOrganisationId: _omit, ...summary } = this.withRisk(request);
     return {
       ...summary,
       contractor: contractor && {

@@ -2,6 +2,7 @@ import { Routes } from '@angular/router';
 import { hasRole } from './core/auth/has-role-guard';
 import { signedIn } from './core/auth/signed-in-guard';
 import { requestPricingRoutes } from './pricing/pricing.routes';
+import { workRoutes } from './work/work.routes';
 
 export const routes: Routes = [
   { path: '', pathMatch: 'full', redirectTo: 'requests' },
@@ -16,6 +17,7 @@ export const routes: Routes = [
     loadComponent: () => import('./auth/accept-invitation/accept-invitation').then((m) => m.AcceptInvitation),
   },
   ...requestPricingRoutes,
+  ...workRoutes,
   {
     path: 'requests',
     canActivate: [signedIn],

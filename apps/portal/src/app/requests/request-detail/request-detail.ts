@@ -12,6 +12,7 @@ import { describeFailure } from '../../core/http/api-error-of';
 import { Notice } from '../../core/http/notice';
 import { IntakePanel } from '../../intake/intake-panel/intake-panel';
 import { RequestPricingLinks } from '../../pricing/request-pricing-links/request-pricing-links';
+import { RequestWorkLink } from '../../work/request-work-link/request-work-link';
 import { DaysToClosing } from '../../ui/days-to-closing/days-to-closing';
 import { SafetyNotice } from '../../ui/safety-notice/safety-notice';
 import { StatusChip } from '../../ui/status-chip/status-chip';
@@ -41,6 +42,7 @@ type Loaded = { detail: RepairRequestDetail; error?: undefined } | { detail?: un
     ContractorPicker,
     IntakePanel,
     RequestPricingLinks,
+    RequestWorkLink,
   ],
   templateUrl: './request-detail.html',
   styleUrl: './request-detail.scss',
