@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
-import { FormBuilder, ReactiveFormsModule } from '@angular/forms';
+import { FormBuilder, FormGroupDirective, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
@@ -46,7 +46,11 @@ export class VisitBooking {
   });
   protected readonly unplannedCount = computed(() => this.overview().items.filter((i) => i.status === 'approved' && i.siteVisitId === null).length);
 
-  protected book(): void {
+  /** Whether the form is open: by default only while approved items wait for a visit. */
+  protected readonly isOpen = signal(false);
+  protected readonly showsForm = computed(() => this.isOpen() || this.unplannedCount() > 0);
+
+  protected book(formDirective: FormGroupDirective): void {
     this.formError.set(null);
     const parsed = BookSiteVisitSchema.safeParse(this.form.getRawValue());
     if (!parsed.success) {
@@ -58,7 +62,8 @@ export class VisitBooking {
     this.api.bookVisit(this.overview().requestId, parsed.data).subscribe({
       next: (visit) => {
         this.isBusy.set(false);
-        this.form.reset();
+        formDirective.resetForm({ arrivalFrom: '08:00', arrivalTo: '10:00', date: '', electricianId: null, quotedVisitKey: null, accessNotes: '' });
+        this.isOpen.set(false);
         this.booked.emit(visit);
       },
       error: (err: unknown) => {
