@@ -30,6 +30,8 @@ module.exports = {
     {
       displayName: 'portal',
       rootDir: __dirname,
+      // The first test of a file compiles its components; on a busy 2-core machine that alone can take seconds.
+      testTimeout: 20_000,
       preset: 'jest-preset-angular',
       testEnvironment: 'jest-preset-angular/environments/jest-jsdom-env',
       setupFilesAfterEnv: ['<rootDir>/apps/portal/src/test-setup.ts'],
@@ -46,6 +48,8 @@ module.exports = {
     {
       ...node,
       displayName: 'api',
+      // Uploads of several megabytes and bcrypt sign-ins on a busy 2-core machine outlast jest's 5 s default.
+      testTimeout: 20_000,
       testMatch: ['<rootDir>/test/api/**/*.api.spec.ts'],
       testEnvironment: '<rootDir>/test/helpers/pdf-environment.js',
       globalSetup: '<rootDir>/test/helpers/api-global-setup.ts',

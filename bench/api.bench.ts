@@ -46,7 +46,7 @@ function freePort(): Promise<number> {
  * contractor is the first organisation one time in three (3,339 requests). Every request has ~20
  * line items in mixed states.
  */
-async function fill(db: Knex): Promise<void> {
+export async function fill(db: Knex): Promise<void> {
   const hash = await bcrypt.hash(PASSWORD, 4);
   await db.raw(`INSERT INTO organisations (name, kind) VALUES ('Bench Realty', 'brokerage')`);
   await db.raw(`INSERT INTO organisations (name, kind) SELECT 'Bench Electric ' || g, 'contractor' FROM generate_series(1, 20) g`);

@@ -1,19 +1,13 @@
 import { randomBytes } from 'node:crypto';
 import type { Knex } from 'knex';
+import { itemMove, requestMove, type FlowActor, type FlowMove } from '@cc/shared';
+import { FlowService, type Mover } from '../server/src/flow/flow.service';
+import { LineItemRepository } from '../server/src/intake/line-item.repository';
+import { RequestRepository } from '../server/src/requests/request.repository';
 import { ORGANISATIONS, PEOPLE, REQUESTS, type DemoRequest } from './data/demo-scenario';
 
-/** The status a line item has once its request reached `status` (demo data only). */
-const ITEM_STATUS_FOR_REQUEST: Record<string, string> = {
-  pricing: 'open',
-  quoted: 'priced',
-  approved: 'approved',
-  scheduled: 'approved',
-  'in-progress': 'approved',
-  corrected: 'done',
-  'letter-issued': 'done',
-  accepted: 'accepted',
-  declined: 'declined',
-};
+const DAY = 86_400_000;
+const REFUSED = { notYours: 'The demo scenario names someone the flow does not let make this move', notNow: 'The demo path leaves the flow', stale: 'Item changed meanwhile' };
 
 function isoDateIn(days: number): string {
   const d = new Date();
@@ -21,100 +15,150 @@ function isoDateIn(days: number): string {
   return d.toISOString().slice(0, 10);
 }
 
+/** What the server writes beside a move, for the moves that carry a note. */
+function noteFor(event: string, itemCount: number): string | null {
+  if (event === 'open') return 'Request opened';
+  if (event === 'add-report') return 'Inspection report added';
+  if (event === 'confirm-items') return `${itemCount} ${itemCount === 1 ? 'item' : 'items'} confirmed`;
+  if (event === 'send-quote') return 'Quote version 1 sent';
+  return null;
+}
+
+interface Seeding {
+  users: Map<string, { id: number; email: string }>;
+  orgs: Map<string, number>;
+  /** The first contractor user of each contractor organisation (who sends its quotes and books its visits). */
+  contractorUser: Map<number, number>;
+  adminId: number;
+  flow: FlowService;
+  requests: RequestRepository;
+  items: LineItemRepository;
+}
+
 // Resets the requests and creates the dozen demo requests with their parties, history and items.
+// Every request and item moves through the flow service, made by the party who would make the move
+// (the first the flow table names who is on the request), so the history credits the right person.
 export async function seed(knex: Knex): Promise<void> {
   await knex.raw('TRUNCATE request_status_changes, request_parties, line_items, repair_requests RESTART IDENTITY CASCADE');
   const users = new Map<string, { id: number; email: string }>();
-  for (const p of PEOPLE) {
-    const row = await knex('users').where({ email: p.email }).first('id', 'email');
-    users.set(p.key, row);
-  }
+  for (const p of PEOPLE) users.set(p.key, await knex('users').where({ email: p.email }).first('id', 'email'));
   const orgs = new Map<string, number>();
-  for (const o of ORGANISATIONS) {
-    const row = await knex('organisations').where({ name: o.name }).first('id');
-    orgs.set(o.key, row.id);
+  for (const o of ORGANISATIONS) orgs.set(o.key, (await knex('organisations').where({ name: o.name }).first('id')).id);
+  const contractorUser = new Map<number, number>();
+  for (const row of await knex('users').where({ role: 'contractor' }).orderBy('id').select('id', 'organisation_id')) {
+    if (!contractorUser.has(row.organisation_id)) contractorUser.set(row.organisation_id, row.id);
   }
-
+  const requests = new RequestRepository(knex);
+  const items = new LineItemRepository(knex);
+  const seeding: Seeding = { users, orgs, contractorUser, adminId: users.get('admin')!.id, flow: new FlowService(requests, items), requests, items };
   for (const [index, r] of REQUESTS.entries()) {
-    await seedRequest(knex, r, index, users, orgs);
+    await knex.transaction((trx) => seedRequest(trx, r, index, seeding));
   }
 }
 
-async function seedRequest(
-  knex: Knex,
-  r: DemoRequest,
-  index: number,
-  users: Map<string, { id: number; email: string }>,
-  orgs: Map<string, number>,
-): Promise<void> {
-  const agent = users.get(r.buyerAgent)!;
-  const status = r.path[r.path.length - 1];
-  // Requests were opened some days before closing; each later step came a day after the one before.
-  const openedAt = new Date(Date.now() - (r.path.length + 2 + index) * 86_400_000);
-  const [row] = await knex('repair_requests')
-    .insert({
-      street: r.street,
-      city: r.city,
-      state: 'CO',
-      zip: r.zip,
-      year_built: r.yearBuilt,
-      closing_date: isoDateIn(r.closingInDays),
-      nec_edition: r.necEdition,
-      status,
-      contractor_organisation_id: r.contractor ? orgs.get(r.contractor) : null,
-      created_by: agent.id,
-      created_at: openedAt,
-      updated_at: new Date(openedAt.getTime() + (r.path.length - 1) * 86_400_000),
-    })
-    .returning('id');
-  const requestId: number = row.id;
+async function seedRequest(trx: Knex.Transaction, r: DemoRequest, index: number, s: Seeding): Promise<void> {
+  const person = (key: string | null) => (key ? s.users.get(key)!.id : null);
+  const contractorOrg = r.contractor ? s.orgs.get(r.contractor)! : null;
+  // Who plays each part on this request.
+  const playedBy: Record<FlowActor, number | null> = {
+    'buyer-agent': person(r.buyerAgent),
+    'listing-agent': person(r.listingAgent),
+    seller: person(r.seller),
+    inspector: person(r.inspector),
+    contractor: contractorOrg === null ? null : (s.contractorUser.get(contractorOrg) ?? null),
+    admin: s.adminId,
+  };
+  // Requests were opened some days before closing; each later move came a day after the one before.
+  const openedAt = new Date(Date.now() - (r.path.length + 2 + index) * DAY);
+  const moverFor = (move: FlowMove<string, string>, step: number): Mover => {
+    const actor = move.by.find((a) => playedBy[a] !== null);
+    if (!actor) throw new Error(`${r.street}: nobody on the request may ${move.event}`);
+    return { userId: playedBy[actor]!, actors: [actor], at: new Date(openedAt.getTime() + step * DAY) };
+  };
 
-  await knex('request_status_changes').insert(
-    r.path.map((to, step) => ({
-      request_id: requestId,
-      from_status: step === 0 ? null : r.path[step - 1],
-      to_status: to,
-      changed_by: agent.id,
-      note: step === 0 ? 'Request opened' : null,
-      created_at: new Date(openedAt.getTime() + step * 86_400_000),
-    })),
+  const [first, ...rest] = r.path;
+  if (first !== 'open') throw new Error(`${r.street}: a demo path starts by opening the request`);
+  const requestId = await s.flow.openRequest(trx, moverFor(requestMove('open', null)!, 0), noteFor('open', 0)!, REFUSED, (status) =>
+    s.requests.create(
+      {
+        street: r.street,
+        city: r.city,
+        state: 'CO',
+        zip: r.zip,
+        yearBuilt: r.yearBuilt,
+        closingDate: isoDateIn(r.closingInDays),
+        necEdition: r.necEdition,
+        status,
+        contractorOrganisationId: contractorOrg,
+        createdBy: playedBy['buyer-agent']!,
+        createdAt: openedAt,
+      },
+      trx,
+    ),
   );
 
-  const parties: { role: string; key: string | null }[] = [
-    { role: 'buyer-agent', key: r.buyerAgent },
-    { role: 'listing-agent', key: r.listingAgent },
-    { role: 'seller', key: r.seller },
-    { role: 'inspector', key: r.inspector },
-  ];
-  for (const party of parties) {
-    if (!party.key) continue;
-    const user = users.get(party.key)!;
-    await knex('request_parties').insert({ request_id: requestId, role: party.role, email: user.email, user_id: user.id, invited_by: agent.id, joined_at: openedAt });
+  const parties = [
+    ['buyer-agent', r.buyerAgent],
+    ['listing-agent', r.listingAgent],
+    ['seller', r.seller],
+    ['inspector', r.inspector],
+  ] as const;
+  for (const [role, key] of parties) {
+    if (!key) continue;
+    const user = s.users.get(key)!;
+    await s.requests.addParty({ requestId, role, email: user.email, userId: user.id, inviteToken: null, inviteExpiresAt: null, invitedBy: playedBy['buyer-agent'] }, trx);
   }
   if (r.invitedSellerEmail) {
-    await knex('request_parties').insert({
-      request_id: requestId,
-      role: 'seller',
-      email: r.invitedSellerEmail,
-      invite_token: randomBytes(24).toString('base64url'),
-      invite_expires_at: new Date(Date.now() + 14 * 86_400_000),
-      invited_by: agent.id,
-    });
+    await s.requests.addParty(
+      {
+        requestId,
+        role: 'seller',
+        email: r.invitedSellerEmail,
+        userId: null,
+        inviteToken: randomBytes(24).toString('base64url'),
+        inviteExpiresAt: new Date(Date.now() + 14 * DAY),
+        invitedBy: playedBy['buyer-agent'],
+      },
+      trx,
+    );
   }
 
-  const itemStatus = ITEM_STATUS_FOR_REQUEST[status];
-  if (itemStatus && r.items.length) {
-    await knex('line_items').insert(
-      r.items.map((item) => ({
-        request_id: requestId,
-        code: item.code,
-        room: item.room,
-        location: item.location,
-        quantity: item.quantity,
-        severity: item.severity,
-        nec_refs: item.necRefs,
-        status: itemStatus,
-      })),
-    );
+  for (const [i, event] of rest.entries()) {
+    const step = i + 1;
+    const from = await s.requests.lockStatus(requestId, trx);
+    const move = requestMove(event, from);
+    if (!move) throw new Error(`${r.street}: the flow has no move ${event} from ${from}`);
+    const mover = moverFor(move, step);
+    await s.flow.moveRequest(trx, requestId, event, mover, noteFor(event, r.items.length), REFUSED);
+    // The report brings the items (read from it); later moves carry each item along (confirmed, priced, approved…).
+    if (event === 'add-report' && r.items.length) {
+      await s.flow.createItems(
+        trx,
+        'propose',
+        mover,
+        r.items.map((item) => ({
+          requestId,
+          code: item.code,
+          room: item.room,
+          location: item.location,
+          quantity: item.quantity,
+          evidence: null,
+          page: null,
+          severity: item.severity,
+          necRefs: item.necRefs,
+          isEdited: false,
+          reportFileId: null,
+          evidenceStart: null,
+          evidenceEnd: null,
+        })),
+        REFUSED,
+      );
+    }
+    const itemEvent = move.itemEvent;
+    if (!itemEvent) continue;
+    for (const item of await s.items.listForRequest(requestId, trx)) {
+      const itemStep = itemMove(itemEvent, item.status);
+      if (itemStep) await s.flow.moveItem(trx, item, itemEvent, moverFor(itemStep, step), REFUSED);
+    }
   }
 }

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
-import type { ItemStatus } from '@cc/shared';
+import { itemStateAfter, REQUEST_FLOW } from '@cc/shared';
+import { LineItemRepository } from '../server/src/intake/line-item.repository';
 import type { StoredPricingItem } from '../server/src/pricing/item-pricing.repository';
 import { OrganisationRepository } from '../server/src/organisations/organisation.repository';
 import { QuoteRepository } from '../server/src/quotes/quote.repository';
@@ -8,8 +9,8 @@ import { composeQuote, quoteContractorOf } from '../server/src/quotes/quote-comp
 import { RateBookService } from '../server/src/rate-book/rate-book.service';
 import { priceRequest } from '../server/src/pricing/request-pricing';
 
-/** Requests that were quoted at some point of their path get a quote version 1. */
-const QUOTED_AND_LATER = ['quoted', 'approved', 'scheduled', 'in-progress', 'corrected', 'letter-issued', 'accepted', 'declined', 'reopened'];
+/** The state a sent quote puts a request in (the flow table's `send-quote`). */
+const QUOTED = REQUEST_FLOW.find((m) => m.event === 'send-quote')!.to;
 
 // Prices the items of every demo request that reached `quoted` with the suggested entry of its
 // contractor's rate book (1 assumed where the report gave no quantity) and stores the quote version
@@ -20,33 +21,35 @@ export async function seed(knex: Knex): Promise<void> {
   const rateBooks = new RateBookService(knex, new RateBookRepository(knex), organisations);
   const entryVersions = new RateBookRepository(knex);
   const quotes = new QuoteRepository(knex);
+  const lineItems = new LineItemRepository(knex);
 
-  const requests = await knex('repair_requests').whereIn('status', QUOTED_AND_LATER).whereNotNull('contractor_organisation_id').orderBy('id');
+  // Requests whose history shows a quote sent.
+  const requests = await knex('repair_requests')
+    .whereIn('id', knex('request_status_changes').where({ to_status: QUOTED }).select('request_id'))
+    .whereNotNull('contractor_organisation_id')
+    .orderBy('id');
   for (const request of requests) {
     const loaded = await rateBooks.load(request.contractor_organisation_id);
     const org = await organisations.findById(request.contractor_organisation_id);
     if (!loaded || !org) continue;
-    const sent = await knex('request_status_changes').where({ request_id: request.id, to_status: 'quoted' }).first('created_at', 'changed_by');
+    const sent = await knex('request_status_changes').where({ request_id: request.id, to_status: QUOTED }).first('created_at', 'changed_by');
     const sender = await knex('users').where({ organisation_id: org.id, role: 'contractor' }).orderBy('id').first('id');
-    const rows = await knex('line_items').where({ request_id: request.id }).whereNotIn('status', ['proposed', 'removed']).orderBy('id');
+    const rows = await lineItems.listForRequest(request.id);
     const items: StoredPricingItem[] = [];
     for (const row of rows) {
       const entry = loaded.entries.find((e) => e.code === row.code);
       if (!entry) continue;
       const isQuantityAssumed = row.quantity === null;
-      const [updated] = await knex('line_items')
-        .where({ id: row.id })
-        .update({ entry_id: entry.id, pricing_quantity: isQuantityAssumed ? 1 : null, is_quantity_assumed: isQuantityAssumed, version: row.version + 1 })
-        .returning('version');
+      await knex.transaction((trx) => lineItems.update(row.id, row.version, { entryId: entry.id, pricingQuantity: isQuantityAssumed ? 1 : null, isQuantityAssumed }, trx));
       items.push({
         id: row.id,
-        version: updated.version,
+        version: row.version + 1,
         code: row.code,
         room: row.room,
-        location: row.location ?? '',
+        location: row.location,
         quantity: row.quantity,
         // Priced when the quote went out, whatever happened to the item since.
-        status: 'priced' as ItemStatus,
+        status: itemStateAfter('price'),
         entryId: entry.id,
         adderIds: [],
         pricingQuantity: isQuantityAssumed ? 1 : null,

@@ -1,5 +1,6 @@
 // The demo scenario: Marlow Springs, Colorado, a fictional mountain town, and the people who
 // buy, sell, inspect and repair its houses. Everything here is invented for the demo.
+import { requestPathTo, type FindingCode, type RequestEvent, type RequestStatus, type Room, type Severity } from '@cc/shared';
 
 export const DEMO_PASSWORD = 'marlow-springs-demo';
 
@@ -37,11 +38,11 @@ export const PEOPLE = [
 export type PersonKey = (typeof PEOPLE)[number]['key'];
 
 interface DemoItem {
-  code: string;
-  room: string;
+  code: FindingCode;
+  room: Room;
   location: string;
   quantity: number | null;
-  severity: string;
+  severity: Severity;
   necRefs: string[];
 }
 
@@ -53,8 +54,8 @@ export interface DemoRequest {
   /** Days from the seeding day to closing (negative: closed already). */
   closingInDays: number;
   necEdition: 2017 | 2020 | 2023;
-  /** The path the request took, from draft to where it is now. */
-  path: string[];
+  /** The moves the request made (events of the flow table), from its opening to where it is now. */
+  path: RequestEvent[];
   buyerAgent: PersonKey;
   listingAgent: PersonKey | null;
   seller: PersonKey | null;
@@ -74,8 +75,8 @@ const weatherCover: DemoItem = { code: 'weather-cover-missing', room: 'exterior'
 const smoke: DemoItem = { code: 'smoke-co-alarm', room: 'hallway', location: 'upstairs hallway', quantity: 1, severity: 'safety', necRefs: ['local code', 'NFPA 72'] };
 const junction: DemoItem = { code: 'open-junction-box', room: 'attic', location: 'attic above garage', quantity: 2, severity: 'safety', necRefs: ['314.28(C)', '300.15'] };
 
-const THROUGH = ['draft', 'intake', 'pricing', 'quoted', 'approved', 'scheduled', 'in-progress', 'corrected', 'letter-issued', 'accepted'];
-const upTo = (status: string) => THROUGH.slice(0, THROUGH.indexOf(status) + 1);
+/** The usual course of moves that brings a request to `status` (the flow table's path). */
+const upTo = (status: RequestStatus): RequestEvent[] => requestPathTo(status).map((m) => m.event);
 
 export const REQUESTS: DemoRequest[] = [
   { street: '214 Larkspur Lane', city: 'Marlow Springs', zip: '81290', yearBuilt: 1987, closingInDays: 24, necEdition: 2023, path: upTo('draft'), buyerAgent: 'maya', listingAgent: null, seller: null, invitedSellerEmail: 'walt.simms@mail.test', inspector: null, contractor: null, items: [] },
@@ -89,6 +90,6 @@ export const REQUESTS: DemoRequest[] = [
   { street: '1502 Sawmill Ridge', city: 'Quarry Bend', zip: '81292', yearBuilt: 2011, closingInDays: 3, necEdition: 2020, path: upTo('corrected'), buyerAgent: 'priya', listingAgent: 'rob', seller: 'tomas', inspector: 'nora', contractor: 'brightline', items: [weatherCover] },
   { street: '25 Lantern Square', city: 'Marlow Springs', zip: '81290', yearBuilt: 1999, closingInDays: 2, necEdition: 2023, path: upTo('letter-issued'), buyerAgent: 'maya', listingAgent: 'rob', seller: 'june', inspector: 'nora', contractor: 'brightline', items: [doubleTap, gfciKitchen] },
   { street: '640 Bellweather Road', city: 'Marlow Springs', zip: '81290', yearBuilt: 1983, closingInDays: -5, necEdition: 2023, path: upTo('accepted'), buyerAgent: 'maya', listingAgent: null, seller: 'ellen', inspector: 'nora', contractor: 'brightline', items: [polarity] },
-  { street: '12 Cobble Creek Lane', city: 'Marlow Springs', zip: '81290', yearBuilt: 1955, closingInDays: 30, necEdition: 2023, path: [...upTo('quoted'), 'declined'], buyerAgent: 'priya', listingAgent: 'rob', seller: 'june', inspector: 'nora', contractor: 'brightline', items: [openGround] },
-  { street: '301 Kestrel Point', city: 'Quarry Bend', zip: '81292', yearBuilt: 1979, closingInDays: 21, necEdition: 2020, path: [...upTo('intake'), 'withdrawn'], buyerAgent: 'maya', listingAgent: null, seller: 'tomas', inspector: 'nora', contractor: 'copperleaf', items: [] },
+  { street: '12 Cobble Creek Lane', city: 'Marlow Springs', zip: '81290', yearBuilt: 1955, closingInDays: 30, necEdition: 2023, path: upTo('declined'), buyerAgent: 'priya', listingAgent: 'rob', seller: 'june', inspector: 'nora', contractor: 'brightline', items: [openGround] },
+  { street: '301 Kestrel Point', city: 'Quarry Bend', zip: '81292', yearBuilt: 1979, closingInDays: 21, necEdition: 2020, path: [...upTo('intake'), 'withdraw'], buyerAgent: 'maya', listingAgent: null, seller: 'tomas', inspector: 'nora', contractor: 'copperleaf', items: [] },
 ];

@@ -1,12 +1,12 @@
 import { existsSync } from 'node:fs';
 import { join, resolve } from 'node:path';
-import connectPgSimple from 'connect-pg-simple';
 import { csrfSync } from 'csrf-sync';
 import express, { type Express } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
 import pg from 'pg';
 import { createPassport } from './auth/passport';
+import { createSessionStore } from './auth/session-store';
 import type { Config } from './config/config';
 import type { Db } from './db/knex';
 import { apiNotFound, errorHandler } from './http/error-handler';
@@ -23,9 +23,8 @@ export interface App {
 export function createApp(config: Config, db: Db): App {
   const services = createServices(db, config);
   const passport = createPassport(services.auth, services.repositories.users);
-  const sessionPool = new pg.Pool({ connectionString: config.databaseUrl, max: 4 });
-  const PgStore = connectPgSimple(session);
-  const store = new PgStore({ pool: sessionPool, tableName: 'sessions', pruneSessionInterval: config.env === 'test' ? false : 15 * 60 });
+  const sessionPool = new pg.Pool({ connectionString: config.databaseUrl, max: 10 });
+  const store = createSessionStore(sessionPool, { prune: config.env !== 'test' });
   const csrf = csrfSync({ getTokenFromRequest: (req) => req.headers['x-csrf-token'] as string | undefined });
 
   const app = express();

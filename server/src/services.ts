@@ -21,6 +21,7 @@ import { RateBookService } from './rate-book/rate-book.service';
 import { readPdfPages } from './intake/report-intake';
 import { ReportIntakeService } from './intake/report-intake.service';
 import { RequestsService } from './requests/requests.service';
+import { FlowService } from './flow/flow.service';
 import { CorrectionRepository } from './corrections/correction.repository';
 import { CorrectionsService } from './corrections/corrections.service';
 import { LetterRepository } from './letters/letter.repository';
@@ -40,32 +41,35 @@ export function createServices(db: Db, config: Config, proofMessages: ProofMessa
   const reports = new ReportFileRepository(db);
   const passwords = new Passwords(config.bcryptRounds);
   const storage = new LocalFileStorage(config.storageDir);
-  const requestsService = new RequestsService(db, requests, users, organisations, config.publicUrl, config.atRiskBusinessDays);
   const rateBooks = new RateBookRepository(db);
   const itemPricing = new ItemPricingRepository(db);
   const quotes = new QuoteRepository(db);
+  // Every move of a request or an item goes through the flow service (listeners: later the notification outbox).
+  const flow = new FlowService(requests, items);
+  const requestsService = new RequestsService(db, requests, users, organisations, flow, items, itemPricing, config.publicUrl, config.atRiskBusinessDays);
   const rateBookService = new RateBookService(db, rateBooks, organisations);
-  const pricingService = new PricingService(db, requestsService, rateBookService, itemPricing, quotes);
+  const pricingService = new PricingService(db, requestsService, rateBookService, itemPricing, items, quotes, flow);
   const workItems = new WorkItemRepository(db);
   const siteVisits = new SiteVisitRepository(db);
   const corrections = new CorrectionRepository(db);
   const letterRecords = new LetterRepository(db);
-  const letters = new LettersService(db, requestsService, requests, organisations, workItems, corrections, letterRecords, storage, proofMessages, config.publicUrl);
+  const letters = new LettersService(db, requestsService, flow, organisations, workItems, corrections, letterRecords, storage, proofMessages, config.publicUrl);
   return {
     repositories: { users, organisations, requests, items, reports },
+    flow,
     storage,
     auth: new AuthService(users, passwords),
     admin: new AdminService(users, organisations, passwords),
     requests: requestsService,
     invitations: new InvitationsService(db, requests, users, passwords),
-    reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, readPdfPages),
-    lineItems: new LineItemsService(db, requestsService, requests, items, reports),
+    reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, readPdfPages, flow),
+    lineItems: new LineItemsService(db, requestsService, items, reports, flow),
     rateBook: rateBookService,
     pricing: pricingService,
     ballpark: new BallparkService(requestsService, rateBookService, itemPricing),
-    quotes: new QuotesService(db, requestsService, pricingService, rateBookService, rateBooks, requests, organisations, itemPricing, quotes),
-    visits: new VisitsService(db, requestsService, requests, siteVisits, workItems, proofMessages),
-    corrections: new CorrectionsService(db, requestsService, requests, workItems, siteVisits, corrections, storage, proofMessages),
+    quotes: new QuotesService(db, requestsService, pricingService, rateBookService, rateBooks, requests, organisations, itemPricing, quotes, flow),
+    visits: new VisitsService(db, requestsService, flow, siteVisits, workItems, proofMessages),
+    corrections: new CorrectionsService(db, requestsService, flow, workItems, siteVisits, corrections, storage, proofMessages),
     letters,
     work: new WorkService(requestsService, workItems, siteVisits, corrections, letterRecords, letters, config.atRiskBusinessDays),
   };

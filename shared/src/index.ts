@@ -22,6 +22,8 @@ export * from './pricing/price-line';
 export * from './pricing/price-visit';
 export * from './pricing/price-quote';
 export * from './pricing/verify-totals';
+export * from './pricing/pricing-change';
+export * from './money/format-cents';
 export * from './pricing/ballpark.schema';
 export * from './pricing/ballpark';
 export * from './pricing/demo-rate-book';

@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { DEMO_RATE_BOOK, priceQuote, type RequestPricing } from '@cc/shared';
+import { DEMO_RATE_BOOK, effectiveQuantity, priceQuote, type RequestPricing } from '@cc/shared';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 import { resetDatabase, type SignedIn } from '../helpers/fixtures';
 import { createPricedRequest, createPricingCast, storeRateBook, type PricingCast, type StoredBook } from '../helpers/pricing-fixtures';
@@ -109,9 +109,11 @@ describe('PATCH /api/requests/:id/pricing', () => {
     const pricing: RequestPricing = res.body;
     const receptacles = pricing.items.find((i) => i.id === items.receptacles)!;
     const plates = pricing.items.find((i) => i.id === items.plates)!;
-    expect(receptacles).toMatchObject({ entryId: book.entry['receptacle-replace'], pricingQuantity: 3, isQuantityAssumed: false, isPriced: true, version: 2 });
+    // The report's quantity (3) is priced; the contractor set none of their own.
+    expect(receptacles).toMatchObject({ entryId: book.entry['receptacle-replace'], quantity: 3, pricingQuantity: null, isQuantityAssumed: false, isPriced: true, version: 2 });
+    expect(effectiveQuantity(receptacles)).toBe(3);
     // The report said "several": 1 is assumed and flagged for the contractor to check.
-    expect(plates).toMatchObject({ pricingQuantity: 1, isQuantityAssumed: true, isPriced: true });
+    expect(plates).toMatchObject({ quantity: null, pricingQuantity: 1, isQuantityAssumed: true, isPriced: true });
     // The server's figures are the shared engine's for the input it reports.
     expect(pricing.breakdown).toEqual(priceQuote(pricing.rateBook!, pricing.pricingInput!));
     expect(pricing.pricingInput?.lines.map((l) => [l.key, l.quantity])).toEqual([

@@ -1,5 +1,6 @@
 import request from 'supertest';
 import type { CurrentUser, RepairRequestDetail } from '@cc/shared';
+import { RequestRepository } from '../../server/src/requests/request.repository';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 import { createOrganisation, createUser, csrfTokenFor, resetDatabase, signIn, validRequestBody, type SignedIn } from '../helpers/fixtures';
 
@@ -197,6 +198,46 @@ describe('GET /api/requests', () => {
     expect(drafts.body.items.every((r: { status: string }) => r.status === 'draft')).toBe(true);
     const none = await s.agent.get('/api/requests?status=accepted');
     expect(none.body).toMatchObject({ items: [], total: 0 });
+  });
+
+  it('tells the whole total on a page past the end', async () => {
+    const s = sessions.buyerAgent;
+    const first = await s.agent.get('/api/requests?pageSize=5&page=0').expect(200);
+    const past = await s.agent.get('/api/requests?pageSize=5&page=500').expect(200);
+    expect(past.body.items).toEqual([]);
+    expect(past.body.total).toBe(first.body.total);
+    expect(first.body.total).toBeGreaterThan(0);
+    expect(first.body.isTotalCapped).toBe(false);
+  });
+
+  it('stops counting at the cap and says the total is at least that', async () => {
+    const viewer = { id: cast.admin.id, role: 'admin' as const, organisationId: null };
+    const filter = { page: 0, pageSize: 1, sort: 'closingDate' as const, direction: 'asc' as const, statuses: [], text: '', id: null };
+    const all = await new RequestRepository(t.db).list(viewer, filter);
+    expect(all.total).toBeGreaterThan(2);
+    const capped = await new RequestRepository(t.db, 2).list(viewer, filter);
+    expect(capped).toMatchObject({ total: 2, isTotalCapped: true });
+    expect(capped.items).toHaveLength(1);
+  });
+
+  // The first page of a contractor's list is read through the index of its sort within the
+  // organisation's rows, not by sorting every visible row (PostgreSQL documentation, "Using
+  // EXPLAIN"; sequential scans are switched off so that the small test table shows the plan the
+  // planner takes at scale).
+  it.each([
+    ['closingDate', 'repair_requests_contractor_closing_index'],
+    ['createdAt', 'repair_requests_contractor_created_index'],
+  ] as const)('reads a contractor’s page sorted by %s through %s', async (sort, index) => {
+    const viewer = { id: cast.contractor.id, role: 'contractor' as const, organisationId: contractorOrg };
+    const filter = { page: 0, pageSize: 25, sort, direction: 'asc' as const, statuses: [], text: '', id: null };
+    const { sql, bindings } = new RequestRepository(t.db).listStatement(viewer, filter).toSQL();
+    const plan = await t.db.transaction(async (trx) => {
+      await trx.raw('SET LOCAL enable_seqscan = off');
+      const res = await trx.raw(`EXPLAIN ${sql}`, bindings);
+      return (res.rows as { 'QUERY PLAN': string }[]).map((r) => r['QUERY PLAN']).join('\n');
+    });
+    expect(plan).toContain(index);
+    expect(plan).not.toMatch(/Seq Scan on repair_requests/);
   });
 
   it('responds 400 for an unknown status or sort', async () => {

@@ -1,7 +1,6 @@
 import { createHash } from 'node:crypto';
 import {
   evaluateReadings,
-  itemMove,
   mayMoveItem,
   type Correction,
   type CurrentUser,
@@ -12,7 +11,7 @@ import {
   type RequestStatus,
 } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
-import type { RequestRepository } from '../requests/request.repository';
+import type { FlowService } from '../flow/flow.service';
 import type { FileStorage } from '../integrations/storage/file-storage';
 import { StagedFiles } from '../integrations/storage/staged-files';
 import { ConflictError, NotFoundError, ValidationError } from '../errors';
@@ -20,7 +19,7 @@ import type { RequestsService } from '../requests/requests.service';
 import type { SiteVisitRepository } from '../visits/site-visit.repository';
 import type { ProofMessages } from '../work/proof-messages';
 import { assertMayAct, requestWithActors } from '../work/request-actors';
-import { moveRequest } from '../work/request-moves';
+import { moveItem, moveRequest } from '../work/request-moves';
 import type { WorkItemRepository } from '../work/work-item.repository';
 import type { CorrectionRecord, CorrectionRepository, NewPhoto } from './correction.repository';
 import { cleanPhoto } from './photo-image';
@@ -35,7 +34,7 @@ export class CorrectionsService {
   constructor(
     private readonly db: Db,
     private readonly access: RequestsService,
-    private readonly requests: RequestRepository,
+    private readonly flow: FlowService,
     private readonly items: WorkItemRepository,
     private readonly visits: SiteVisitRepository,
     private readonly corrections: CorrectionRepository,
@@ -76,10 +75,9 @@ export class CorrectionsService {
         const correctionId = await this.corrections.save(requestId, itemId, { ...input, siteVisitId }, user.id, trx);
         for (const photo of photos) await files.stage(photo.storageKey, photo.data);
         await this.corrections.addPhotos(requestId, correctionId, photos, trx);
-        const to = itemMove(event, item.status)!.to;
-        if (!(await this.items.setStatus(item.id, item.version, to, trx))) throw new ConflictError('Someone else changed this item meanwhile. Reload and try again.');
+        await moveItem(this.flow, { ...item, requestId }, event, { actors, by: user.id }, trx);
         const stillOpen = items.filter((i) => i.id !== itemId && i.status === 'approved');
-        if (!stillOpen.length) await moveRequest(this.requests, { requestId, event: 'finish-work', from: status, actors, by: user.id, note: 'Every approved item has an outcome' }, trx);
+        if (!stillOpen.length) await moveRequest(this.flow, { requestId, event: 'finish-work', actors, by: user.id, note: 'Every approved item has an outcome' }, trx);
       }),
     );
     await this.messages.itemCorrected({ requestId, itemId, outcome: input.outcome });
@@ -89,8 +87,8 @@ export class CorrectionsService {
 
   /** A request whose visit was booked, or that was reopened, is under way once work is recorded. */
   private async bringUnderWay(requestId: number, status: RequestStatus, actors: readonly FlowActor[], by: number, trx: Trx): Promise<RequestStatus> {
-    if (status === 'scheduled') return moveRequest(this.requests, { requestId, event: 'start-work', from: status, actors, by }, trx);
-    if (status === 'reopened') return moveRequest(this.requests, { requestId, event: 'resume-work', from: status, actors, by }, trx);
+    if (status === 'scheduled') return moveRequest(this.flow, { requestId, event: 'start-work', actors, by }, trx);
+    if (status === 'reopened') return moveRequest(this.flow, { requestId, event: 'resume-work', actors, by }, trx);
     return status;
   }
 

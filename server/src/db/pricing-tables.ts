@@ -85,14 +85,10 @@ export interface RateBookChangeRow {
 }
 
 /** The pricing columns of `line_items` (with the columns pricing reads). */
-export type ItemPricingRow = Pick<LineItemRow, 'id' | 'request_id' | 'code' | 'room' | 'location' | 'quantity' | 'status' | 'version'> & {
-  entry_id: number | null;
-  adder_ids: number[];
-  pricing_quantity: number | null;
-  is_quantity_assumed: boolean;
-  visit_key: string;
-  out_of_scope_reason: string | null;
-};
+export type ItemPricingRow = Pick<
+  LineItemRow,
+  'id' | 'request_id' | 'code' | 'room' | 'location' | 'quantity' | 'status' | 'version' | 'entry_id' | 'adder_ids' | 'pricing_quantity' | 'is_quantity_assumed' | 'visit_key' | 'out_of_scope_reason'
+>;
 
 export interface PricingVisitRow {
   id: number;

@@ -61,6 +61,8 @@ export interface RequestStatusChangeRow {
   from_status: RequestStatus | null;
   to_status: RequestStatus;
   changed_by: number | null;
+  /** The part the person played (a flow actor); null for changes recorded before parts were. */
+  actor: string | null;
   note: string | null;
   created_at: Date;
 }
@@ -82,6 +84,14 @@ export interface LineItemRow {
   report_file_id: number | null;
   evidence_start: number | null;
   evidence_end: number | null;
+  /** What the contractor set while pricing. */
+  entry_id: number | null;
+  adder_ids: number[];
+  /** The contractor's own quantity; null: the item's. */
+  pricing_quantity: number | null;
+  is_quantity_assumed: boolean;
+  visit_key: string;
+  out_of_scope_reason: string | null;
   created_at: Date;
   updated_at: Date;
 }

@@ -1,4 +1,4 @@
-import type { FindingCode, ItemStatus, LineItem, Room, Severity } from '@cc/shared';
+import { DEFAULT_VISIT_KEY, itemStateAfter, PRICING_ITEM_STATES, type FindingCode, type ItemStatus, type LineItem, type PricingFields, type Room, type Severity } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
 import type { LineItemRow } from '../db/tables';
 
@@ -45,9 +45,13 @@ export interface NewLineItem {
   evidenceEnd: number | null;
 }
 
-type Changes = Partial<Pick<NewLineItem, 'code' | 'room' | 'location' | 'quantity' | 'severity' | 'necRefs' | 'status' | 'isEdited' | 'evidence'>>;
+/** What a change writes on an item: the review's fields and the pricing's. */
+export type LineItemChanges = Partial<Pick<NewLineItem, 'code' | 'room' | 'location' | 'quantity' | 'severity' | 'necRefs' | 'status' | 'isEdited' | 'evidence'>> & PricingFields;
 
-function toRow(item: Changes & Partial<NewLineItem>): Partial<LineItemRow> {
+const REMOVED: ItemStatus = itemStateAfter('remove');
+const PROPOSED: ItemStatus = itemStateAfter('propose');
+
+function toRow(item: LineItemChanges & Partial<NewLineItem>): Partial<LineItemRow> {
   const row: Partial<LineItemRow> = {};
   if (item.requestId !== undefined) row.request_id = item.requestId;
   if (item.code !== undefined) row.code = item.code;
@@ -63,9 +67,16 @@ function toRow(item: Changes & Partial<NewLineItem>): Partial<LineItemRow> {
   if (item.reportFileId !== undefined) row.report_file_id = item.reportFileId;
   if (item.evidenceStart !== undefined) row.evidence_start = item.evidenceStart;
   if (item.evidenceEnd !== undefined) row.evidence_end = item.evidenceEnd;
+  if (item.entryId !== undefined) row.entry_id = item.entryId;
+  if (item.adderIds !== undefined) row.adder_ids = [...item.adderIds];
+  if (item.pricingQuantity !== undefined) row.pricing_quantity = item.pricingQuantity;
+  if (item.isQuantityAssumed !== undefined) row.is_quantity_assumed = item.isQuantityAssumed;
+  if (item.visitKey !== undefined) row.visit_key = item.visitKey;
+  if (item.outOfScopeReason !== undefined) row.out_of_scope_reason = item.outOfScopeReason;
   return row;
 }
 
+/** The one writer of `line_items` (the pricing repository only reads them). */
 export class LineItemRepository {
   constructor(private readonly db: Db) {}
 
@@ -73,13 +84,13 @@ export class LineItemRepository {
   async listForRequest(requestId: number, trx?: Trx): Promise<StoredLineItem[]> {
     const rows = await (trx ?? this.db)<LineItemRow>(TABLE)
       .where({ request_id: requestId })
-      .whereNot({ status: 'removed' })
+      .whereNot({ status: REMOVED })
       .orderByRaw('report_file_id NULLS LAST, evidence_start NULLS LAST, id');
     return rows.map(toLineItem);
   }
 
   async findInRequest(requestId: number, id: number, trx?: Trx): Promise<StoredLineItem | null> {
-    const row = await (trx ?? this.db)<LineItemRow>(TABLE).where({ request_id: requestId, id }).whereNot({ status: 'removed' }).first();
+    const row = await (trx ?? this.db)<LineItemRow>(TABLE).where({ request_id: requestId, id }).whereNot({ status: REMOVED }).first();
     return row ? toLineItem(row) : null;
   }
 
@@ -90,7 +101,7 @@ export class LineItemRepository {
   }
 
   /** Applies `changes` only if the item is still at `version`; returns whether it was. */
-  async update(id: number, version: number, changes: Changes, trx: Trx): Promise<boolean> {
+  async update(id: number, version: number, changes: LineItemChanges, trx: Trx): Promise<boolean> {
     const updated = await trx<LineItemRow>(TABLE)
       .where({ id, version })
       .update({ ...toRow(changes), version: version + 1, updated_at: new Date() });
@@ -99,8 +110,37 @@ export class LineItemRepository {
 
   /** Unedited proposals read from `reportFileId`: the ones a re-read may replace. */
   async uneditedProposals(reportFileId: number, trx: Trx): Promise<StoredLineItem[]> {
-    const rows = await trx<LineItemRow>(TABLE).where({ report_file_id: reportFileId, status: 'proposed', is_edited: false });
+    const rows = await trx<LineItemRow>(TABLE).where({ report_file_id: reportFileId, status: PROPOSED, is_edited: false });
     return rows.map(toLineItem);
+  }
+
+  /** Where the items read from a report sit in its text: code, start of the evidence, whether a person edited the item. */
+  async placesInReport(reportFileId: number, trx: Trx): Promise<{ code: string; evidenceStart: number | null; isEdited: boolean }[]> {
+    const rows: { code: string; evidence_start: number | null; is_edited: boolean }[] = await trx(TABLE)
+      .where({ report_file_id: reportFileId })
+      .select('code', 'evidence_start', 'is_edited');
+    return rows.map((r) => ({ code: r.code, evidenceStart: r.evidence_start, isEdited: r.is_edited }));
+  }
+
+  /**
+   * Clears what a contractor set while pricing (entries, conditions, quantities, visits, "not our
+   * scope"): it refers to the rate book of a contractor who no longer has the request.
+   */
+  async clearPricing(requestId: number, trx: Trx): Promise<void> {
+    await trx(TABLE)
+      .where({ request_id: requestId })
+      .whereIn('status', [...PRICING_ITEM_STATES])
+      .update({
+        status: itemStateAfter('confirm'),
+        entry_id: null,
+        adder_ids: [],
+        pricing_quantity: null,
+        is_quantity_assumed: false,
+        visit_key: DEFAULT_VISIT_KEY,
+        out_of_scope_reason: null,
+        version: trx.raw('version + 1'),
+        updated_at: new Date(),
+      });
   }
 
   async deleteByIds(ids: number[], trx: Trx): Promise<void> {

@@ -1,6 +1,8 @@
 import {
   editionNote,
   findingCodeInfo,
+  itemMove,
+  type RepairRequestDetail,
   type ConfirmItems,
   type CreateLineItemSchema,
   type CurrentUser,
@@ -14,22 +16,22 @@ import type { z } from 'zod';
 import type { Db, Trx } from '../db/knex';
 import type { LineItemRepository, StoredLineItem } from './line-item.repository';
 import type { ReportFileRepository } from './report-file.repository';
-import type { RequestRepository } from '../requests/request.repository';
 import { ConflictError, NotFoundError, ValidationError } from '../errors';
-import { INTAKE_STATES } from './report-intake.service';
+import { assertMayAct, moverOn, type FlowService, type Mover } from '../flow/flow.service';
 import type { RequestsService } from '../requests/requests.service';
 
 const STALE = 'This item was changed by someone else meanwhile. Reload to see the current version.';
-const REVIEWABLE = ['proposed', 'open'] as const;
+const REVIEW_REFUSED = { notYours: "Only the request's agents can do this", notNow: 'The items of this request are confirmed already' };
+const ITEM_REFUSED = { notYours: "Only the request's agents can do this", notNow: 'This item is past review', stale: STALE };
 
 /** The agent's review of parsed items: edit, remove, merge, split, add, confirm. */
 export class LineItemsService {
   constructor(
     private readonly db: Db,
     private readonly access: RequestsService,
-    private readonly requests: RequestRepository,
     private readonly items: LineItemRepository,
     private readonly reports: ReportFileRepository,
+    private readonly flow: FlowService,
   ) {}
 
   withNote(item: StoredLineItem, edition: NecEdition): LineItem {
@@ -42,18 +44,18 @@ export class LineItemsService {
   }
 
   /** 404 unless visible, 403 unless one of its agents (or admin), 409 once intake is over. */
-  private async assertReviewer(user: CurrentUser, requestId: number) {
-    const request = await this.access.assertAgentOf(user, requestId);
-    if (!(INTAKE_STATES as readonly string[]).includes(request.status)) {
-      throw new ConflictError('The items of this request are confirmed already');
-    }
-    return request;
+  private async assertReviewer(user: CurrentUser, requestId: number): Promise<{ request: RepairRequestDetail; mover: Mover }> {
+    const request = await this.access.get(user, requestId);
+    const mover = moverOn(user, request);
+    assertMayAct(mover.actors, 'review-items', request.status, REVIEW_REFUSED);
+    return { request, mover };
   }
 
+  /** The item, if the review may still change it: as long as it may still be removed. */
   private async reviewable(requestId: number, id: number, trx?: Trx): Promise<StoredLineItem> {
     const item = await this.items.findInRequest(requestId, id, trx);
     if (!item) throw new NotFoundError('No such item');
-    if (!(REVIEWABLE as readonly string[]).includes(item.status)) throw new ConflictError('This item is past review');
+    if (!itemMove('remove', item.status)) throw new ConflictError(ITEM_REFUSED.notNow);
     return item;
   }
 
@@ -64,7 +66,7 @@ export class LineItemsService {
   }
 
   async update(user: CurrentUser, requestId: number, id: number, input: UpdateLineItem): Promise<LineItem> {
-    const request = await this.assertReviewer(user, requestId);
+    const { request } = await this.assertReviewer(user, requestId);
     const { version, ...changes } = input;
     await this.db.transaction(async (trx) => {
       await this.reviewable(requestId, id, trx);
@@ -74,16 +76,16 @@ export class LineItemsService {
   }
 
   async remove(user: CurrentUser, requestId: number, id: number, version: number): Promise<void> {
-    await this.assertReviewer(user, requestId);
+    const { mover } = await this.assertReviewer(user, requestId);
     await this.db.transaction(async (trx) => {
-      await this.reviewable(requestId, id, trx);
-      if (!(await this.items.update(id, version, { status: 'removed', isEdited: true }, trx))) throw new ConflictError(STALE);
+      const item = await this.reviewable(requestId, id, trx);
+      await this.flow.moveItem(trx, { ...item, version }, 'remove', mover, ITEM_REFUSED, { isEdited: true });
     });
   }
 
   /** The first item absorbs the second: quantities add up (unknown if either is), places are joined. */
   async merge(user: CurrentUser, requestId: number, input: MergeLineItems): Promise<LineItem> {
-    const request = await this.assertReviewer(user, requestId);
+    const { request, mover } = await this.assertReviewer(user, requestId);
     const [keepRef, dropRef] = input.items;
     await this.db.transaction(async (trx) => {
       const keep = await this.reviewable(requestId, keepRef.id, trx);
@@ -92,14 +94,14 @@ export class LineItemsService {
       const location = [keep.location, drop.location].filter((l, i, all) => l && all.indexOf(l) === i).join('; ');
       const necRefs = [...new Set([...keep.necRefs, ...drop.necRefs])];
       if (!(await this.items.update(keep.id, keepRef.version, { quantity, location, necRefs, isEdited: true }, trx))) throw new ConflictError(STALE);
-      if (!(await this.items.update(drop.id, dropRef.version, { status: 'removed', isEdited: true }, trx))) throw new ConflictError(STALE);
+      await this.flow.moveItem(trx, { ...drop, version: dropRef.version }, 'remove', mover, ITEM_REFUSED, { isEdited: true });
     });
     return this.reload(requestId, keepRef.id, request.necEdition);
   }
 
   /** One item becomes several with the given quantities (which must add up to a known quantity). */
   async split(user: CurrentUser, requestId: number, id: number, input: SplitLineItem): Promise<LineItem[]> {
-    const request = await this.assertReviewer(user, requestId);
+    const { request } = await this.assertReviewer(user, requestId);
     const ids = await this.db.transaction(async (trx) => {
       const item = await this.reviewable(requestId, id, trx);
       const sum = input.quantities.reduce((a, b) => a + b, 0);
@@ -119,7 +121,7 @@ export class LineItemsService {
 
   /** A person adds an item the reader missed, optionally from text selected in a report. */
   async add(user: CurrentUser, requestId: number, input: z.output<typeof CreateLineItemSchema>): Promise<LineItem> {
-    const request = await this.assertReviewer(user, requestId);
+    const { request, mover } = await this.assertReviewer(user, requestId);
     let evidence: string | null = null;
     let page: number | null = null;
     if (input.reportFileId !== null) {
@@ -136,7 +138,10 @@ export class LineItemsService {
     }
     const info = findingCodeInfo(input.code);
     const [id] = await this.db.transaction((trx) =>
-      this.items.insert(
+      this.flow.createItems(
+        trx,
+        'propose',
+        mover,
         [
           {
             requestId,
@@ -148,14 +153,13 @@ export class LineItemsService {
             page,
             severity: input.severity ?? info.severity,
             necRefs: [...info.necRefs],
-            status: 'proposed',
             isEdited: true,
             reportFileId: input.reportFileId,
             evidenceStart: input.evidenceStart,
             evidenceEnd: input.evidenceEnd,
           },
         ],
-        trx,
+        REVIEW_REFUSED,
       ),
     );
     return this.reload(requestId, id, request.necEdition);
@@ -166,19 +170,16 @@ export class LineItemsService {
    * of the request, and the request moves on to pricing.
    */
   async confirm(user: CurrentUser, requestId: number, input: ConfirmItems): Promise<LineItem[]> {
-    const request = await this.assertReviewer(user, requestId);
+    const { mover } = await this.assertReviewer(user, requestId);
     await this.db.transaction(async (trx) => {
-      const current = (await this.items.listForRequest(requestId, trx)).filter((i) => i.status === 'proposed');
+      const current = (await this.items.listForRequest(requestId, trx)).filter((i) => itemMove('confirm', i.status));
       const seen = new Map(input.items.map((i) => [i.id, i.version]));
       const unseen = current.filter((i) => seen.get(i.id) !== i.version);
       if (unseen.length || current.length !== seen.size) {
         throw new ConflictError('The list of items changed since you loaded it. Reload and review again.');
       }
-      for (const item of current) {
-        if (!(await this.items.update(item.id, item.version, { status: 'open' }, trx))) throw new ConflictError(STALE);
-      }
-      const moved = await this.requests.changeStatus(requestId, { from: request.status, to: 'pricing', by: user.id, note: `${current.length} items confirmed` }, trx);
-      if (!moved) throw new ConflictError('The request changed meanwhile. Reload and try again.');
+      await this.flow.moveRequest(trx, requestId, 'confirm-items', mover, `${current.length} ${current.length === 1 ? 'item' : 'items'} confirmed`, REVIEW_REFUSED);
+      for (const item of current) await this.flow.moveItem(trx, item, 'confirm', mover, ITEM_REFUSED);
     });
     return this.list(user, requestId);
   }

@@ -2,6 +2,7 @@ import { createHash } from 'node:crypto';
 import {
   findingCodeInfo,
   parseReport,
+  requestMove,
   type CurrentUser,
   type Finding,
   type ReportFile,
@@ -12,14 +13,17 @@ import type { LineItemRepository, NewLineItem } from './line-item.repository';
 import type { ReportFileRepository } from './report-file.repository';
 import type { RequestRepository } from '../requests/request.repository';
 import type { FileStorage } from '../integrations/storage/file-storage';
-import { ConflictError, ForbiddenError, NotFoundError } from '../errors';
+import { NotFoundError } from '../errors';
+import { assertMayAct, moverOn, type FlowService, type Mover } from '../flow/flow.service';
 import { checkReport, type PdfPageReader, type UploadedFile } from './report-intake';
 import type { RequestsService } from '../requests/requests.service';
 
-/** Request states in which a report can be added and its items reviewed. */
-export const INTAKE_STATES = ['draft', 'intake'] as const;
+const UPLOAD_REFUSED = {
+  notYours: "Only the request's agents and inspector add the report",
+  notNow: 'The items of this request are confirmed already; the report cannot be changed now',
+};
 
-function proposalsFrom(findings: Finding[], requestId: number, reportFileId: number): NewLineItem[] {
+function proposalsFrom(findings: Finding[], requestId: number, reportFileId: number): Omit<NewLineItem, 'status'>[] {
   return findings.map((f) => ({
     requestId,
     code: f.code,
@@ -30,7 +34,6 @@ function proposalsFrom(findings: Finding[], requestId: number, reportFileId: num
     page: f.page,
     severity: f.severity ?? findingCodeInfo(f.code).severity,
     necRefs: f.necRefs,
-    status: 'proposed',
     isEdited: false,
     reportFileId,
     evidenceStart: f.start,
@@ -48,17 +51,15 @@ export class ReportIntakeService {
     private readonly items: LineItemRepository,
     private readonly storage: FileStorage,
     private readonly readPdfPages: PdfPageReader,
+    private readonly flow: FlowService,
   ) {}
 
   /** 404 unless visible; 403 unless an agent or inspector of the request (or admin); 409 after intake. */
-  private async assertCanUpload(user: CurrentUser, requestId: number) {
+  private async assertCanUpload(user: CurrentUser, requestId: number): Promise<Mover> {
     const request = await this.access.get(user, requestId);
-    const canUpload = user.role === 'admin' || request.myParts.some((p) => p !== 'seller');
-    if (!canUpload) throw new ForbiddenError("Only the request's agents and inspector add the report");
-    if (!(INTAKE_STATES as readonly string[]).includes(request.status)) {
-      throw new ConflictError('The items of this request are confirmed already; the report cannot be changed now');
-    }
-    return request;
+    const mover = moverOn(user, request);
+    assertMayAct(mover.actors, 'upload-report', request.status, UPLOAD_REFUSED);
+    return mover;
   }
 
   async list(user: CurrentUser, requestId: number): Promise<ReportFile[]> {
@@ -67,19 +68,19 @@ export class ReportIntakeService {
   }
 
   async uploadFile(user: CurrentUser, requestId: number, file: UploadedFile): Promise<UploadResult> {
-    await this.assertCanUpload(user, requestId);
+    const mover = await this.assertCanUpload(user, requestId);
     const checked = await checkReport(file, this.readPdfPages);
-    return this.keep(user, requestId, file.buffer, checked.kind, file.originalName, checked.pages);
+    return this.keep(mover, requestId, file.buffer, checked.kind, file.originalName, checked.pages);
   }
 
   async paste(user: CurrentUser, requestId: number, text: string, name?: string): Promise<UploadResult> {
-    await this.assertCanUpload(user, requestId);
+    const mover = await this.assertCanUpload(user, requestId);
     const pages = text.replace(/\r\n?/g, '\n').split('\f');
-    return this.keep(user, requestId, Buffer.from(text, 'utf8'), 'pasted', name || 'Pasted text', pages);
+    return this.keep(mover, requestId, Buffer.from(text, 'utf8'), 'pasted', name || 'Pasted text', pages);
   }
 
   /** Parses, then stores the file row, its proposals, the state change and the bytes in one transaction. */
-  private async keep(user: CurrentUser, requestId: number, bytes: Buffer, kind: ReportFile['kind'], originalName: string, pages: string[]): Promise<UploadResult> {
+  private async keep(mover: Mover, requestId: number, bytes: Buffer, kind: ReportFile['kind'], originalName: string, pages: string[]): Promise<UploadResult> {
     const sha256 = createHash('sha256').update(bytes).digest('hex');
     const existing = await this.reports.findBySha(requestId, sha256);
     if (existing) return { report: existing, isDuplicate: true, proposedCount: 0, skippedCount: existing.skipped.length };
@@ -89,11 +90,11 @@ export class ReportIntakeService {
     try {
       const reportId = await this.db.transaction(async (trx) => {
         const id = await this.reports.insert(
-          { requestId, sha256, kind, originalName: originalName.slice(0, 255), sizeBytes: bytes.length, pages, skipped: parsed.skipped, storageKey: sha256, uploadedBy: user.id },
+          { requestId, sha256, kind, originalName: originalName.slice(0, 255), sizeBytes: bytes.length, pages, skipped: parsed.skipped, storageKey: sha256, uploadedBy: mover.userId },
           trx,
         );
-        await this.items.insert(proposalsFrom(parsed.findings, requestId, id), trx);
-        await this.moveToIntake(requestId, user, trx);
+        await this.moveToIntake(requestId, mover, trx);
+        await this.flow.createItems(trx, 'propose', mover, proposalsFrom(parsed.findings, requestId, id), UPLOAD_REFUSED);
         storedNew = await this.storage.put(sha256, bytes);
         return id;
       });
@@ -103,7 +104,7 @@ export class ReportIntakeService {
     } catch (err) {
       // The transaction rolled back: drop bytes this attempt stored so nothing is left behind.
       if (storedNew) await this.storage.delete(sha256);
-      if ((err as { code?: string }).code === '23505') return this.keep(user, requestId, bytes, kind, originalName, pages);
+      if ((err as { code?: string }).code === '23505') return this.keep(mover, requestId, bytes, kind, originalName, pages);
       throw err;
     }
   }
@@ -114,7 +115,7 @@ export class ReportIntakeService {
    * same place as one of them is not proposed again.
    */
   async reparse(user: CurrentUser, requestId: number, reportId: number): Promise<UploadResult> {
-    await this.assertCanUpload(user, requestId);
+    const mover = await this.assertCanUpload(user, requestId);
     const report = await this.reports.findInRequest(requestId, reportId);
     if (!report) throw new NotFoundError('No such report');
     const parsed = parseReport(report.pages);
@@ -123,7 +124,7 @@ export class ReportIntakeService {
       await this.items.deleteByIds(replaceable.map((i) => i.id), trx);
       const kept = await this.keptPlaces(reportId, trx);
       const fresh = parsed.findings.filter((f) => !kept.has(`${f.code}@${f.start}`) && !kept.has(`*@${f.start}`));
-      await this.items.insert(proposalsFrom(fresh, requestId, reportId), trx);
+      await this.flow.createItems(trx, 'propose', mover, proposalsFrom(fresh, requestId, reportId), UPLOAD_REFUSED);
       await this.reports.setSkipped(reportId, parsed.skipped, trx);
       return fresh.length;
     });
@@ -133,24 +134,20 @@ export class ReportIntakeService {
 
   /** Places in the report already spoken for: `code@start`, and `*@start` for items a person edited. */
   private async keptPlaces(reportId: number, trx: Trx): Promise<Set<string>> {
-    const rows: { code: string; evidence_start: number | null; is_edited: boolean }[] = await trx('line_items')
-      .where({ report_file_id: reportId })
-      .select('code', 'evidence_start', 'is_edited');
     const places = new Set<string>();
-    for (const r of rows) {
-      if (r.evidence_start === null) continue;
-      places.add(`${r.code}@${r.evidence_start}`);
-      if (r.is_edited) places.add(`*@${r.evidence_start}`);
+    for (const r of await this.items.placesInReport(reportId, trx)) {
+      if (r.evidenceStart === null) continue;
+      places.add(`${r.code}@${r.evidenceStart}`);
+      if (r.isEdited) places.add(`*@${r.evidenceStart}`);
     }
     return places;
   }
 
-  private async moveToIntake(requestId: number, user: CurrentUser, trx: Trx): Promise<void> {
-    const { status } = await trx('repair_requests').where({ id: requestId }).forUpdate().first('status');
-    if (status === 'draft') {
-      await this.requests.changeStatus(requestId, { from: 'draft', to: 'intake', by: user.id, note: 'Inspection report added' }, trx);
-    } else if (status !== 'intake') {
-      throw new ConflictError('The items of this request are confirmed already; the report cannot be changed now');
-    }
+  /** The first report moves the request into intake; later ones find it there (409 once intake is over). */
+  private async moveToIntake(requestId: number, mover: Mover, trx: Trx): Promise<void> {
+    const status = await this.requests.lockStatus(requestId, trx);
+    if (status === null) throw new NotFoundError('No such repair request');
+    assertMayAct(mover.actors, 'upload-report', status, UPLOAD_REFUSED);
+    if (requestMove('add-report', status)) await this.flow.moveRequest(trx, requestId, 'add-report', mover, 'Inspection report added', UPLOAD_REFUSED);
   }
 }

@@ -1,6 +1,5 @@
 import { createHash, randomInt } from 'node:crypto';
 import {
-  itemMove,
   mayMoveItem,
   mayMoveRequest,
   PARTY_ROLE_LABELS,
@@ -15,7 +14,7 @@ import {
 import type { z } from 'zod';
 import type { Db } from '../db/knex';
 import type { OrganisationRepository } from '../organisations/organisation.repository';
-import type { RequestRepository } from '../requests/request.repository';
+import type { FlowService } from '../flow/flow.service';
 import type { FileStorage } from '../integrations/storage/file-storage';
 import { StagedFiles } from '../integrations/storage/staged-files';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../errors';
@@ -25,7 +24,7 @@ import { toCorrectionDto } from '../corrections/corrections.service';
 import { paymentStatusOf } from '../work/payment-status';
 import type { ProofMessages } from '../work/proof-messages';
 import { requestWithActors } from '../work/request-actors';
-import { moveRequest } from '../work/request-moves';
+import { moveItem, moveRequest } from '../work/request-moves';
 import type { WorkItemRepository } from '../work/work-item.repository';
 import { renderLetterPdf, type LetterContent } from './letter-pdf';
 import type { LetterRecord, LetterRepository } from './letter.repository';
@@ -46,7 +45,7 @@ export class LettersService {
   constructor(
     private readonly db: Db,
     private readonly access: RequestsService,
-    private readonly requests: RequestRepository,
+    private readonly flow: FlowService,
     private readonly organisations: OrganisationRepository,
     private readonly items: WorkItemRepository,
     private readonly corrections: CorrectionRepository,
@@ -115,7 +114,7 @@ export class LettersService {
           { requestId, number, revision, verificationCode: code, sha256, storageKey, itemCount: items.length, permitNumber: input.permitNumber || null, issuedBy: user.id, issuedAt },
           trx,
         );
-        await moveRequest(this.requests, { requestId, event: 'issue-letter', from: request.status, actors, by: user.id, note: `Completion letter ${number} revision ${revision} issued` }, trx);
+        await moveRequest(this.flow, { requestId, event: 'issue-letter', actors, by: user.id, note: `Completion letter ${number} revision ${revision} issued` }, trx);
         return revision;
       }),
     );
@@ -199,14 +198,14 @@ export class LettersService {
         if (!item || !mayMoveItem(actors, 'not-accept', item.status)) {
           throw new ValidationError('Only corrected items can be listed as not accepted', [{ path: `items.${index}.itemId`, message: 'Choose an item recorded as corrected' }]);
         }
-        await this.items.setStatus(item.id, item.version, itemMove('not-accept', item.status)!.to, trx);
+        await moveItem(this.flow, { ...item, requestId }, 'not-accept', { actors, by: user.id }, trx);
       }
       if (input.decision === 'accept') {
-        for (const item of items) if (mayMoveItem(actors, 'accept', item.status)) await this.items.setStatus(item.id, item.version, itemMove('accept', item.status)!.to, trx);
+        for (const item of items) if (mayMoveItem(actors, 'accept', item.status)) await moveItem(this.flow, { ...item, requestId }, 'accept', { actors, by: user.id }, trx);
       }
       await this.letters.addReview({ requestId, letterId: letter.id, decision: input.decision, note: input.note, items: notAccepted, decidedBy: user.id }, trx);
       const note = input.decision === 'accept' ? 'Re-inspection accepted' : `${notAccepted.length} item(s) not accepted`;
-      await moveRequest(this.requests, { requestId, event, from: request.status, actors, by: user.id, note: input.note ? `${note}: ${input.note}` : note }, trx);
+      await moveRequest(this.flow, { requestId, event, actors, by: user.id, note: input.note ? `${note}: ${input.note}` : note }, trx);
     });
   }
 
@@ -222,10 +221,10 @@ export class LettersService {
       if (!locked || locked.status !== request.status) throw new ConflictError('The request changed meanwhile. Reload and try again.');
       for (const item of await this.items.listForRequest(requestId, trx, true)) {
         if (!mayMoveItem(actors, 'rework', item.status)) continue;
-        await this.items.setStatus(item.id, item.version, itemMove('rework', item.status)!.to, trx);
+        await moveItem(this.flow, { ...item, requestId }, 'rework', { actors, by: user.id }, trx);
         await this.items.planOnVisit([item.id], null, trx);
       }
-      await moveRequest(this.requests, { requestId, event: 'resume-work', from: request.status, actors, by: user.id }, trx);
+      await moveRequest(this.flow, { requestId, event: 'resume-work', actors, by: user.id }, trx);
     });
   }
 

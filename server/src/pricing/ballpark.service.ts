@@ -1,14 +1,10 @@
 import { ballpark, type CurrentUser, type RepairRequestDetail, type RequestBallpark, type SiteConditions } from '@cc/shared';
 import type { ItemPricingRepository } from './item-pricing.repository';
 import { engineId } from '../rate-book/engine-rate-book';
-import { ConflictError, ForbiddenError, ValidationError } from '../errors';
-import { isAssignedContractor } from './pricing.service';
+import { ConflictError, ValidationError } from '../errors';
+import { assertMayAct, moverOn } from '../flow/flow.service';
 import type { LoadedRateBook, RateBookService } from '../rate-book/rate-book.service';
 import type { RequestsService } from '../requests/requests.service';
-
-const AGENT_PARTS = ['buyer-agent', 'listing-agent'] as const;
-
-const isAgentOf = (request: RepairRequestDetail) => request.myParts.some((p) => (AGENT_PARTS as readonly string[]).includes(p));
 
 /** The site conditions flagged on a request and its ballpark range from the assigned contractor's rate book. */
 export class BallparkService {
@@ -21,8 +17,8 @@ export class BallparkService {
   /** The request (404 unless visible) if `user` may see its range: its agents, seller, assigned contractor, admin. */
   private async viewer(user: CurrentUser, requestId: number, canEdit = false): Promise<{ request: RepairRequestDetail; loaded: LoadedRateBook }> {
     const request = await this.access.get(user, requestId);
-    const may = user.role === 'admin' || isAssignedContractor(user, request) || isAgentOf(request) || (!canEdit && request.myParts.includes('seller'));
-    if (!may) throw new ForbiddenError(canEdit ? 'Only the agents and the assigned contractor flag site conditions' : 'Only the agents, the seller and the contractor see the ballpark range');
+    const refused = canEdit ? 'Only the agents and the assigned contractor flag site conditions' : 'Only the agents, the seller and the contractor see the ballpark range';
+    assertMayAct(moverOn(user, request).actors, canEdit ? 'flag-site-conditions' : 'read-ballpark', request.status, { notYours: refused, notNow: refused });
     if (!request.contractor) throw new ConflictError('No contractor is assigned to this request yet');
     const loaded = await this.rateBooks.load(request.contractor.id);
     if (!loaded) throw new ConflictError(`${request.contractor.name} has no rate book yet`);

@@ -1,12 +1,12 @@
-import type { ItemStatus, PricingVisit, RequestStatus } from '@cc/shared';
+import { itemStatesFrom, PRICING_ITEM_STATES, type ItemStatus, type PricedItemState, type PricingVisit } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
 import type { ItemPricingRow, PricingVisitRow } from '../db/pricing-tables';
 
-/** Item states a contractor works with while pricing. */
-export const PRICING_ITEM_STATUSES: readonly ItemStatus[] = ['open', 'priced', 'out-of-scope'];
+/** Item states a ballpark counts: those still to be confirmed or priced, and priced ones. */
+const BALLPARK_ITEM_STATES = itemStatesFrom(['confirm', 'price']);
 
 /** A line item with what the contractor set on it while pricing. */
-export interface StoredPricingItem {
+export interface StoredPricingItem extends PricedItemState {
   id: number;
   version: number;
   code: string;
@@ -22,8 +22,6 @@ export interface StoredPricingItem {
   visitKey: string;
   outOfScopeReason: string | null;
 }
-
-export type ItemPricingChanges = Partial<Pick<StoredPricingItem, 'entryId' | 'adderIds' | 'pricingQuantity' | 'isQuantityAssumed' | 'visitKey' | 'outOfScopeReason' | 'status'>>;
 
 const COLUMNS = ['id', 'request_id', 'code', 'room', 'location', 'quantity', 'status', 'version', 'entry_id', 'adder_ids', 'pricing_quantity', 'is_quantity_assumed', 'visit_key', 'out_of_scope_reason'];
 
@@ -45,19 +43,10 @@ function toPricingItem(row: ItemPricingRow): StoredPricingItem {
   };
 }
 
-function toRow(changes: ItemPricingChanges): Partial<ItemPricingRow> {
-  const row: Partial<ItemPricingRow> = {};
-  if (changes.entryId !== undefined) row.entry_id = changes.entryId;
-  if (changes.adderIds !== undefined) row.adder_ids = changes.adderIds;
-  if (changes.pricingQuantity !== undefined) row.pricing_quantity = changes.pricingQuantity;
-  if (changes.isQuantityAssumed !== undefined) row.is_quantity_assumed = changes.isQuantityAssumed;
-  if (changes.visitKey !== undefined) row.visit_key = changes.visitKey;
-  if (changes.outOfScopeReason !== undefined) row.out_of_scope_reason = changes.outOfScopeReason;
-  if (changes.status !== undefined) row.status = changes.status;
-  return row;
-}
-
-/** The pricing side of line items, the visits of a request and its flagged site conditions. */
+/**
+ * The pricing side of line items (read only: `LineItemRepository` writes them), the visits of a
+ * request and its flagged site conditions.
+ */
 export class ItemPricingRepository {
   constructor(private readonly db: Db) {}
 
@@ -65,7 +54,7 @@ export class ItemPricingRepository {
   async listForRequest(requestId: number, trx?: Trx, forUpdate = false): Promise<StoredPricingItem[]> {
     const query = (trx ?? this.db)('line_items')
       .where({ request_id: requestId })
-      .whereIn('status', PRICING_ITEM_STATUSES as ItemStatus[])
+      .whereIn('status', [...PRICING_ITEM_STATES])
       .select(COLUMNS)
       .orderBy('id');
     if (forUpdate && trx) query.forUpdate();
@@ -73,27 +62,24 @@ export class ItemPricingRepository {
     return rows.map(toPricingItem);
   }
 
-  /** Codes and quantities of the items a ballpark counts: proposed, open and priced ones. */
+  /** Codes and quantities of the items a ballpark counts: proposed, open and priced ones (at their effective quantity). */
   async ballparkItems(requestId: number): Promise<{ code: string; quantity: number | null }[]> {
     const rows: { code: string; quantity: number | null }[] = await this.db('line_items')
       .where({ request_id: requestId })
-      .whereIn('status', ['proposed', 'open', 'priced'])
+      .whereIn('status', [...BALLPARK_ITEM_STATES])
       .select('code', this.db.raw('COALESCE(pricing_quantity, quantity) AS quantity'))
       .orderBy('id');
     return rows;
   }
 
-  /** Applies `changes` only if the item is still at `version`; returns whether it was. */
-  async update(id: number, version: number, changes: ItemPricingChanges, trx: Trx): Promise<boolean> {
-    const updated = await trx<ItemPricingRow>('line_items')
-      .where({ id, version })
-      .update({ ...toRow(changes), version: version + 1, updated_at: new Date() } as Partial<ItemPricingRow>);
-    return updated === 1;
-  }
-
   async listVisits(requestId: number, trx?: Trx): Promise<PricingVisit[]> {
     const rows = await (trx ?? this.db)<PricingVisitRow>('request_pricing_visits').where({ request_id: requestId }).orderBy('position');
     return rows.map((r) => ({ key: r.key, adderIds: r.adder_ids, hasPermit: r.has_permit }));
+  }
+
+  /** Drops the planned visits (a new contractor plans their own). */
+  async clearVisits(requestId: number, trx: Trx): Promise<void> {
+    await trx('request_pricing_visits').where({ request_id: requestId }).delete();
   }
 
   async replaceVisits(requestId: number, visits: readonly PricingVisit[], trx: Trx): Promise<void> {
@@ -110,11 +96,5 @@ export class ItemPricingRepository {
 
   async setSiteAdderIds(requestId: number, adderIds: number[], trx?: Trx): Promise<void> {
     await (trx ?? this.db)('repair_requests').where({ id: requestId }).update({ site_adder_ids: adderIds, updated_at: new Date() });
-  }
-
-  /** Locks the request row until the transaction ends (two senders of a quote take turns); its status. */
-  async lockRequest(requestId: number, trx: Trx): Promise<RequestStatus | null> {
-    const row = await trx('repair_requests').where({ id: requestId }).forUpdate().first<{ status: RequestStatus } | undefined>('status');
-    return row?.status ?? null;
   }
 }

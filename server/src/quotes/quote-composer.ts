@@ -1,8 +1,8 @@
-import type { Organisation, QuoteContractor, QuoteVersion } from '@cc/shared';
+import { effectiveQuantity, itemStateAfter, lineCents, type Organisation, type QuoteContractor, type QuoteVersion } from '@cc/shared';
 import type { StoredPricingItem } from '../pricing/item-pricing.repository';
 import type { NewQuote, NewQuoteLine } from './quote.repository';
 import type { LoadedRateBook } from '../rate-book/rate-book.service';
-import { effectiveQuantity, lineCents, type PricedRequest } from '../pricing/request-pricing';
+import type { PricedRequest } from '../pricing/request-pricing';
 
 /** Shown on every quote and its PDF (the product's own wording of the trade's safety caution). */
 export const QUOTE_SAFETY_NOTICE =
@@ -73,7 +73,7 @@ export function composeQuote(q: QuoteToCompose): NewQuote {
       outOfScopeReason: null,
     });
   }
-  for (const item of q.items.filter((i) => i.status === 'out-of-scope')) {
+  for (const item of q.items.filter((i) => i.status === itemStateAfter('leave-out'))) {
     lines.push({
       lineItemId: item.id,
       kind: 'out-of-scope',

@@ -1,4 +1,4 @@
-import { requestReference, type CurrentUser, type QuoteVersion, type QuoteVersionSummary, type SendQuote } from '@cc/shared';
+import { itemStateAfter, requestReference, type CurrentUser, type QuoteVersion, type QuoteVersionSummary, type SendQuote } from '@cc/shared';
 import type { Db } from '../db/knex';
 import type { ItemPricingRepository } from '../pricing/item-pricing.repository';
 import type { OrganisationRepository } from '../organisations/organisation.repository';
@@ -7,7 +7,8 @@ import type { RateBookRepository } from '../rate-book/rate-book.repository';
 import type { RequestRepository } from '../requests/request.repository';
 import { renderQuotePdf } from '../integrations/pdf/quote-pdf';
 import { ConflictError, NotFoundError } from '../errors';
-import { assertClaimedTotals, describeItem, PRICING_STATES, type PricingService } from '../pricing/pricing.service';
+import { assertMayAct, type FlowService } from '../flow/flow.service';
+import { assertClaimedTotals, describeItem, staleItem, type PricingService } from '../pricing/pricing.service';
 import { composeQuote, quoteContractorOf } from './quote-composer';
 import { compareQuotes } from './quote-changes';
 import type { RateBookService } from '../rate-book/rate-book.service';
@@ -26,21 +27,24 @@ export class QuotesService {
     private readonly organisations: OrganisationRepository,
     private readonly items: ItemPricingRepository,
     private readonly quotes: QuoteRepository,
+    private readonly flow: FlowService,
   ) {}
 
   /**
    * Sends the next quote version: the server prices the request itself (and refuses a client claim
-   * that differs), stores the version with everything it was priced with, marks the priced items
-   * `priced` and moves the request from pricing to quoted, all in one transaction.
+   * that differs), stores the version with everything it was priced with, prices the items on the
+   * quote and sends the request to the seller (flow moves), all in one transaction.
    */
   async send(user: CurrentUser, requestId: number, input: SendQuote): Promise<QuoteVersion> {
-    const { request } = await this.pricing.assertPricer(user, requestId);
+    const { request, mover } = await this.pricing.assertPricer(user, requestId);
+    const refused = { notYours: 'Only the assigned contractor prices this request', notNow: 'This request is not awaiting prices any more. Reload to see where it is.' };
     const organisationId = request.contractor!.id;
     const org = await this.organisations.findById(organisationId);
     if (!org) throw new NotFoundError('No such contractor');
     const version = await this.db.transaction(async (trx) => {
-      const status = await this.items.lockRequest(requestId, trx);
-      if (!status || !PRICING_STATES.includes(status)) throw new ConflictError('This request is not awaiting prices any more. Reload to see where it is.');
+      const status = await this.requests.lockStatus(requestId, trx);
+      if (!status) throw new ConflictError(refused.notNow);
+      assertMayAct(mover.actors, 'price', status, refused);
       const loaded = await this.rateBookService.load(organisationId, trx);
       if (!loaded) throw new ConflictError('Your organisation has no rate book yet: save its terms first');
       const items = await this.items.listForRequest(requestId, trx, true);
@@ -57,7 +61,7 @@ export class QuotesService {
         );
       }
       if (!priced.input || !priced.breakdown) throw new ConflictError('Price at least one item before sending a quote');
-      assertClaimedTotals(loaded, priced, input.claimedTotals);
+      assertClaimedTotals(priced, input.claimedTotals);
 
       const next = ((await this.quotes.latestVersion(requestId, trx)) ?? 0) + 1;
       const entryIds = [...new Set(items.flatMap((i) => (priced.lineByItem.has(i.id) && i.entryId !== null ? [i.entryId] : [])))];
@@ -77,14 +81,10 @@ export class QuotesService {
         }),
         trx,
       );
+      await this.flow.moveRequest(trx, requestId, 'send-quote', mover, `Quote version ${next} sent`, refused);
       for (const item of items) {
-        if (item.status === 'open' && priced.lineByItem.has(item.id) && !(await this.items.update(item.id, item.version, { status: 'priced' }, trx))) {
-          throw new ConflictError(`Someone else changed item ${describeItem(item)} meanwhile. Reload and send again.`);
-        }
-      }
-      if (status === 'pricing') {
-        const moved = await this.requests.changeStatus(requestId, { from: 'pricing', to: 'quoted', by: user.id, note: `Quote version ${next} sent` }, trx);
-        if (!moved) throw new ConflictError('The request changed meanwhile. Reload and try again.');
+        if (!priced.lineByItem.has(item.id) || item.status === itemStateAfter('price')) continue;
+        await this.flow.moveItem(trx, { ...item, requestId }, 'price', mover, { ...refused, stale: staleItem(item, 'Reload and send again.') });
       }
       return next;
     });

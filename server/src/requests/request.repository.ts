@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import {
+  itemStateAfter,
   requestReference,
   type NecEdition,
   type PartyRole,
@@ -41,6 +42,8 @@ export interface NewRepairRequest {
   status: RequestStatus;
   contractorOrganisationId: number | null;
   createdBy: number;
+  /** When it was opened (now, unless demo data backdates it). */
+  createdAt?: Date;
 }
 
 export interface PartyRecord {
@@ -59,6 +62,25 @@ const SORT_COLUMNS: Record<RequestListFilter['sort'], string> = {
   status: 'r.status',
   street: 'r.street',
 };
+
+/** Lists count their rows no further than this; beyond it they say "1,000+". */
+export const LIST_COUNT_CAP = 1000;
+
+/** Items a request does not count yet or any more: proposals nobody confirmed, and removed ones. */
+const UNCOUNTED_ITEM_STATES = [itemStateAfter('propose'), itemStateAfter('remove')];
+
+/** The `item_count` column of a request summary (a query on `repair_requests as r`). */
+function itemCount(db: Db | Trx): Knex.Raw {
+  return db.raw('(SELECT count(*) FROM line_items li WHERE li.request_id = r.id AND li.status <> ALL(?))::int AS item_count', [UNCOUNTED_ITEM_STATES]);
+}
+
+/** Item states that are approved work without an outcome yet (approved, and not accepted to rework). */
+const OPEN_WORK_ITEM_STATES = [itemStateAfter('approve'), itemStateAfter('not-accept')];
+
+/** The `open_work_count` column of a request summary (closing-date tracking). */
+function openWorkCount(db: Db | Trx): Knex.Raw {
+  return db.raw('(SELECT count(*) FROM line_items li WHERE li.request_id = r.id AND li.status = ANY(?))::int AS open_work_count', [OPEN_WORK_ITEM_STATES]);
+}
 
 type SummaryRow = RepairRequestRow & { contractor_name: string | null; item_count: number; open_work_count: number; total_count?: string };
 
@@ -85,7 +107,11 @@ function toSummary(row: SummaryRow): RepairRequestSummary {
 }
 
 export class RequestRepository {
-  constructor(private readonly db: Db) {}
+  constructor(
+    private readonly db: Db,
+    /** Lists count no further than this (a smaller cap only in tests). */
+    private readonly countCap = LIST_COUNT_CAP,
+  ) {}
 
   /** Narrows a query on `repair_requests as r` to the requests `viewer` is party to. */
   private scope(query: Knex.QueryBuilder, viewer: Viewer): Knex.QueryBuilder {
@@ -105,29 +131,56 @@ export class RequestRepository {
       .select(
         'r.*',
         'o.name as contractor_name',
-        db.raw(
-          "(SELECT count(*) FROM line_items li WHERE li.request_id = r.id AND li.status NOT IN ('proposed', 'removed'))::int AS item_count",
-        ),
-        db.raw("(SELECT count(*) FROM line_items li WHERE li.request_id = r.id AND li.status IN ('approved', 'not-accepted'))::int AS open_work_count"),
+        itemCount(db),
+        openWorkCount(db),
       );
   }
 
-  async list(viewer: Viewer, filter: RequestListFilter): Promise<{ items: RepairRequestSummary[]; total: number }> {
-    const query = this.scope(this.summaries(), viewer).select(this.db.raw('count(*) over() AS total_count'));
-    if (filter.statuses.length) query.whereIn('r.status', filter.statuses);
+  /**
+   * One page of the requests `viewer` sees, in one statement: the page's ids are picked first (by
+   * the sort's index within the viewer's scope), the summary columns are read for those rows only,
+   * and the total is counted no further than LIST_COUNT_CAP + 1 rows (then `isTotalCapped`).
+   */
+  async list(viewer: Viewer, filter: RequestListFilter): Promise<{ items: RepairRequestSummary[]; total: number; isTotalCapped: boolean }> {
+    const rows: (SummaryRow & { n: string; ord: string | null })[] = await this.listStatement(viewer, filter);
+    const counted = Number(rows[0]?.n ?? 0);
+    return {
+      items: rows.filter((r) => r.ord !== null).map(toSummary),
+      total: Math.min(counted, this.countCap),
+      isTotalCapped: counted > this.countCap,
+    };
+  }
+
+  /** The one statement behind `list` (its plan is checked in the API tests). */
+  listStatement(viewer: Viewer, filter: RequestListFilter): Knex.QueryBuilder {
+    const db = this.db;
+    const visible = this.scope(db('repair_requests as r'), viewer);
+    if (filter.statuses.length) visible.whereIn('r.status', filter.statuses);
     if (filter.text) {
       const like = `%${filter.text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-      query.where((w) => {
+      visible.where((w) => {
         w.whereRaw("(r.street || ' ' || r.city || ' ' || r.zip) ILIKE ?", [like]);
         if (filter.id !== null) w.orWhere('r.id', filter.id);
       });
     }
-    const rows: SummaryRow[] = await query
-      .orderBy(SORT_COLUMNS[filter.sort], filter.direction)
+    const sort = SORT_COLUMNS[filter.sort];
+    const pageIds = visible
+      .clone()
+      .select('r.id', db.raw(`row_number() OVER (ORDER BY ${sort} ${filter.direction}, r.id ${filter.direction}) AS ord`))
+      .orderBy(sort, filter.direction)
       .orderBy('r.id', filter.direction)
       .limit(filter.pageSize)
       .offset(filter.page * filter.pageSize);
-    return { items: rows.map(toSummary), total: rows.length ? Number(rows[0].total_count) : 0 };
+    const counted = db.from(visible.clone().select(db.raw('1')).limit(this.countCap + 1).as('v')).count({ n: '*' });
+    return db
+      .with('page_ids', pageIds)
+      .with('counted', counted)
+      .from('counted')
+      .joinRaw('LEFT JOIN page_ids ON true')
+      .leftJoin('repair_requests as r', 'r.id', 'page_ids.id')
+      .leftJoin('organisations as o', 'o.id', 'r.contractor_organisation_id')
+      .select('counted.n', 'page_ids.ord', 'r.*', 'o.name as contractor_name', itemCount(db), openWorkCount(db))
+      .orderBy('page_ids.ord');
   }
 
   /** The request if `viewer` may see it, else null (callers answer 404 either way). */
@@ -149,46 +202,43 @@ export class RequestRepository {
         status: request.status,
         contractor_organisation_id: request.contractorOrganisationId,
         created_by: request.createdBy,
+        ...(request.createdAt ? { created_at: request.createdAt, updated_at: request.createdAt } : {}),
       })
       .returning('id');
     return row.id;
   }
 
   /**
-   * Gives the request to another contractor. What the previous one set while pricing refers to its
-   * own rate book, so it is cleared: entries, site conditions, visits, "not our scope" marks.
+   * Gives the request to another contractor and clears the site conditions flagged against the
+   * previous one's rate book; returns whether the contractor changed (the caller clears the pricing).
    */
-  async setContractor(id: number, contractorOrganisationId: number, trx: Trx): Promise<void> {
+  async setContractor(id: number, contractorOrganisationId: number, trx: Trx): Promise<boolean> {
     const { contractor_organisation_id: previous } = await trx('repair_requests').where({ id }).forUpdate().first('contractor_organisation_id');
-    if (previous === contractorOrganisationId) return;
+    if (previous === contractorOrganisationId) return false;
     await trx('repair_requests').where({ id }).update({ contractor_organisation_id: contractorOrganisationId, site_adder_ids: [], updated_at: new Date() });
-    await trx('request_pricing_visits').where({ request_id: id }).delete();
-    await trx('line_items')
-      .where({ request_id: id })
-      .whereIn('status', ['open', 'priced', 'out-of-scope'])
-      .update({
-        status: 'open',
-        entry_id: null,
-        adder_ids: [],
-        pricing_quantity: null,
-        is_quantity_assumed: false,
-        visit_key: 'visit-1',
-        out_of_scope_reason: null,
-        version: trx.raw('version + 1'),
-        updated_at: new Date(),
-      });
+    return true;
   }
 
-  /** Moves the request to `to` and records the change; `from` guards against a concurrent move. */
+  /** The request's status, its row locked until the transaction ends (moves take turns); null if there is none. */
+  async lockStatus(id: number, trx: Trx): Promise<RequestStatus | null> {
+    const row = await trx('repair_requests').where({ id }).forUpdate().first<{ status: RequestStatus } | undefined>('status');
+    return row?.status ?? null;
+  }
+
+  /**
+   * Moves the request to `to` and records the change with who made it, in which part, and why;
+   * `from` guards against a concurrent move. Only the flow service calls this.
+   */
   async changeStatus(
     id: number,
-    change: { from: RequestStatus | null; to: RequestStatus; by: number | null; note?: string | null },
+    change: { from: RequestStatus | null; to: RequestStatus; by: number | null; actor: string | null; note?: string | null; at?: Date },
     trx: Trx,
   ): Promise<boolean> {
+    const at = change.at ?? new Date();
     if (change.from !== null) {
       const updated = await trx('repair_requests')
         .where({ id, status: change.from })
-        .update({ status: change.to, updated_at: new Date() });
+        .update({ status: change.to, updated_at: at });
       if (updated === 0) return false;
     }
     await trx<RequestStatusChangeRow>('request_status_changes').insert({
@@ -196,7 +246,9 @@ export class RequestRepository {
       from_status: change.from,
       to_status: change.to,
       changed_by: change.by,
+      actor: change.actor,
       note: change.note ?? null,
+      created_at: at,
     });
     return true;
   }
@@ -212,6 +264,7 @@ export class RequestRepository {
       to: r.to_status,
       at: r.created_at.toISOString(),
       byName: r.by_name,
+      actor: r.actor,
       note: r.note,
     }));
   }

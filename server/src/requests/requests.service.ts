@@ -1,8 +1,10 @@
 import { randomBytes } from 'node:crypto';
 import {
+  actorsOf,
   closingProgress,
-  CONTRACTOR_CHANGE_STATES,
   defaultNecEdition,
+  REQUEST_ACTIONS,
+  type FlowActor,
   type CreateRepairRequestParsed,
   type CurrentUser,
   type InviteParty,
@@ -21,9 +23,14 @@ import type { Db, Trx } from '../db/knex';
 import type { OrganisationRepository } from '../organisations/organisation.repository';
 import type { RequestRepository } from './request.repository';
 import type { UserRepository } from '../auth/user.repository';
-import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../errors';
+import { NotFoundError, ValidationError } from '../errors';
+import { assertMayAct, assertMayMoveRequest, moverOn, type FlowService } from '../flow/flow.service';
+import type { LineItemRepository } from '../intake/line-item.repository';
+import type { ItemPricingRepository } from '../pricing/item-pricing.repository';
 
 const INVITE_DAYS = 14;
+/** Who invites parties (and so sees the invitation links of those not yet joined). */
+const INVITERS: readonly FlowActor[] = REQUEST_ACTIONS['invite-party'].by;
 
 /** The account role a person needs to take a part on a request. */
 export const ROLE_FOR_PARTY: Record<PartyRole, Role> = {
@@ -33,14 +40,15 @@ export const ROLE_FOR_PARTY: Record<PartyRole, Role> = {
   inspector: 'inspector',
 };
 
-const AGENT_PARTS: readonly PartyRole[] = ['buyer-agent', 'listing-agent'];
-
 export class RequestsService {
   constructor(
     private readonly db: Db,
     private readonly requests: RequestRepository,
     private readonly users: UserRepository,
     private readonly organisations: OrganisationRepository,
+    private readonly flow: FlowService,
+    private readonly items: LineItemRepository,
+    private readonly itemPricing: ItemPricingRepository,
     private readonly publicUrl: string,
     /** Open approved work this many business days before closing flags a request as at risk. */
     private readonly atRiskBusinessDays = 3,
@@ -54,7 +62,7 @@ export class RequestsService {
   }
 
   async list(user: CurrentUser, query: z.output<typeof RepairRequestListQuerySchema>): Promise<Page<RepairRequestSummary>> {
-    const { items, total } = await this.requests.list(viewerOf(user), {
+    const { items, total, isTotalCapped } = await this.requests.list(viewerOf(user), {
       page: query.page,
       pageSize: query.pageSize,
       sort: query.sort,
@@ -63,7 +71,7 @@ export class RequestsService {
       text: query.q,
       id: query.q ? parseRequestReference(query.q) : null,
     });
-    return { items: items.map((i) => this.withRisk(i)), total, page: query.page, pageSize: query.pageSize };
+    return { items: items.map((i) => this.withRisk(i)), total, isTotalCapped, page: query.page, pageSize: query.pageSize };
   }
 
   /** The request as `user` may see it; 404 when they are not a party to it. */
@@ -76,7 +84,8 @@ export class RequestsService {
       request.contractorOrganisationId ? this.organisations.findById(request.contractorOrganisationId) : null,
     ]);
     const myParts = parties.filter((p) => p.userId === user.id).map((p) => p.role);
-    const isAgentOfRequest = user.role === 'admin' || myParts.some((p) => AGENT_PARTS.includes(p));
+    // Those who invite see the invitation links.
+    const seesInviteLinks = actorsOf({ role: user.role, myParts, isAssignedContractor: false }).some((a) => INVITERS.includes(a));
     const { contractorOrganisationId: _omit, ...summary } = this.withRisk(request);
     return {
       ...summary,
@@ -94,7 +103,7 @@ export class RequestsService {
           name: p.name,
           userId: p.userId,
           isPending: p.userId === null,
-          inviteUrl: p.userId === null && isAgentOfRequest && p.inviteToken ? this.inviteUrl(p.inviteToken) : null,
+          inviteUrl: p.userId === null && seesInviteLinks && p.inviteToken ? this.inviteUrl(p.inviteToken) : null,
         }),
       ),
       history,
@@ -103,11 +112,14 @@ export class RequestsService {
   }
 
   async create(user: CurrentUser, input: CreateRepairRequestParsed): Promise<RepairRequestDetail> {
-    if (user.role !== 'agent' && user.role !== 'admin') throw new ForbiddenError('Only an agent opens a repair request');
+    // An agent who opens a request is its buyer's agent; an administrator opens it for one.
+    const mover = { userId: user.id, actors: actorsOf({ role: user.role, myParts: user.role === 'agent' ? ['buyer-agent'] : [], isAssignedContractor: false }) };
+    const opened = { notYours: 'Only an agent opens a repair request', notNow: 'This request cannot be opened' };
+    assertMayMoveRequest(mover.actors, 'open', null, opened);
     const id = await this.db.transaction(async (trx) => {
       const buyerAgent = user.role === 'admin' ? await this.adminNamedBuyerAgent(input.buyerAgentEmail, trx) : user;
       if (input.contractorOrganisationId !== null) await this.assertContractor(input.contractorOrganisationId, trx);
-      const requestId = await this.requests.create(
+      const requestId = await this.flow.openRequest(trx, mover, 'Request opened', opened, (status) => this.requests.create(
         {
           street: input.street,
           city: input.city,
@@ -116,13 +128,12 @@ export class RequestsService {
           yearBuilt: input.yearBuilt,
           closingDate: input.closingDate,
           necEdition: input.necEdition ?? defaultNecEdition(input.state as UsState),
-          status: 'draft',
+          status,
           contractorOrganisationId: input.contractorOrganisationId,
           createdBy: user.id,
         },
         trx,
-      );
-      await this.requests.changeStatus(requestId, { from: null, to: 'draft', by: user.id, note: 'Request opened' }, trx);
+      ));
       await this.requests.addParty(
         { requestId, role: 'buyer-agent', email: buyerAgent.email, userId: buyerAgent.id, inviteToken: null, inviteExpiresAt: null, invitedBy: user.id },
         trx,
@@ -142,27 +153,30 @@ export class RequestsService {
 
   /** Adds a party: linked at once when an account with that e-mail exists, else invited by link. */
   async inviteParty(user: CurrentUser, requestId: number, input: InviteParty): Promise<RepairRequestDetail> {
-    await this.assertAgentOf(user, requestId);
+    const request = await this.get(user, requestId);
+    assertMayAct(moverOn(user, request).actors, 'invite-party', request.status, {
+      notYours: "Only the request's agents can do this",
+      notNow: 'This request is finished; nobody more can be invited',
+    });
     await this.db.transaction((trx) => this.addOrInvite(requestId, input.role, input.email, user, 'email', trx));
     return this.get(user, requestId);
   }
 
   async assignContractor(user: CurrentUser, requestId: number, contractorOrganisationId: number): Promise<RepairRequestDetail> {
-    const request = await this.assertAgentOf(user, requestId);
-    if (!CONTRACTOR_CHANGE_STATES.includes(request.status)) {
-      throw new ConflictError('A quote was sent already; the contractor cannot be changed now');
-    }
-    await this.assertContractor(contractorOrganisationId);
-    await this.db.transaction((trx) => this.requests.setContractor(requestId, contractorOrganisationId, trx));
-    return this.get(user, requestId);
-  }
-
-  /** 404 unless `user` can see the request; 403 when they see it but are not one of its agents. */
-  async assertAgentOf(user: CurrentUser, requestId: number): Promise<RepairRequestDetail> {
     const request = await this.get(user, requestId);
-    const isAgent = user.role === 'admin' || request.myParts.some((p) => AGENT_PARTS.includes(p));
-    if (!isAgent) throw new ForbiddenError("Only the request's agents can do this");
-    return request;
+    assertMayAct(moverOn(user, request).actors, 'change-contractor', request.status, {
+      notYours: "Only the request's agents can do this",
+      notNow: 'A quote was sent already; the contractor cannot be changed now',
+    });
+    await this.assertContractor(contractorOrganisationId);
+    await this.db.transaction(async (trx) => {
+      // What the previous contractor set while pricing refers to its own rate book: it is cleared.
+      if (await this.requests.setContractor(requestId, contractorOrganisationId, trx)) {
+        await this.itemPricing.clearVisits(requestId, trx);
+        await this.items.clearPricing(requestId, trx);
+      }
+    });
+    return this.get(user, requestId);
   }
 
   private async addOrInvite(requestId: number, role: PartyRole, email: string, by: CurrentUser, field: string, trx: Trx): Promise<void> {

@@ -1,7 +1,7 @@
 import { mayAct, type CurrentUser, type Electrician, type FlowActor, type RequestStatus, type SiteVisit, BookSiteVisitSchema } from '@cc/shared';
 import type { z } from 'zod';
 import type { Db } from '../db/knex';
-import type { RequestRepository } from '../requests/request.repository';
+import type { FlowService } from '../flow/flow.service';
 import { ConflictError, NotFoundError, ValidationError } from '../errors';
 import type { RequestsService } from '../requests/requests.service';
 import type { ProofMessages } from '../work/proof-messages';
@@ -17,7 +17,7 @@ export class VisitsService {
   constructor(
     private readonly db: Db,
     private readonly access: RequestsService,
-    private readonly requests: RequestRepository,
+    private readonly flow: FlowService,
     private readonly visits: SiteVisitRepository,
     private readonly items: WorkItemRepository,
     private readonly messages: ProofMessages,
@@ -51,7 +51,7 @@ export class VisitsService {
       await this.items.planOnVisit(planned.map((i) => i.id), visitId, trx);
       const visit = await this.visits.find(requestId, visitId, trx);
       if (status === 'approved') {
-        await moveRequest(this.requests, { requestId, event: 'schedule', from: status, actors, by: user.id, note: `Site visit ${visit!.number} booked for ${input.date}` }, trx);
+        await moveRequest(this.flow, { requestId, event: 'schedule', actors, by: user.id, note: `Site visit ${visit!.number} booked for ${input.date}` }, trx);
       }
       return { visitId, number: visit!.number };
     });
@@ -79,7 +79,7 @@ export class VisitsService {
         throw new ConflictError(to === 'started' ? 'This visit was started already' : 'Only a visit that was started can be finished');
       }
       if (to === 'started' && request.status === 'scheduled') {
-        await moveRequest(this.requests, { requestId, event: 'start-work', from: 'scheduled', actors, by: user.id }, trx);
+        await moveRequest(this.flow, { requestId, event: 'start-work', actors, by: user.id }, trx);
       }
     });
     return this.get(user, requestId, visitId);

@@ -1,16 +1,5 @@
-import {
-  actorsOf,
-  FLOW_ACTOR_LABELS,
-  mayAct,
-  REQUEST_ACTIONS,
-  REQUEST_STATUS_LABELS,
-  type CurrentUser,
-  type FlowActor,
-  type RepairRequestDetail,
-  type RequestAction,
-  type RequestStatus,
-} from '@cc/shared';
-import { ConflictError, ForbiddenError } from '../errors';
+import { actorsOnRequest, REQUEST_STATUS_LABELS, type CurrentUser, type FlowActor, type RepairRequestDetail, type RequestAction, type RequestStatus } from '@cc/shared';
+import { assertMayAct as assertFlowAllows } from '../flow/flow.service';
 import type { RequestsService } from '../requests/requests.service';
 
 export interface RequestWithActors {
@@ -18,23 +7,16 @@ export interface RequestWithActors {
   actors: FlowActor[];
 }
 
-/**
- * The request as `user` may see it (404 otherwise) and the actors they are on it, for the flow
- * table's questions. A contractor sees a request only when their organisation is assigned to it.
- */
+/** The request as `user` may see it (404 otherwise) and the actors they are on it, for the flow table's questions. */
 export async function requestWithActors(access: RequestsService, user: CurrentUser, requestId: number): Promise<RequestWithActors> {
   const request = await access.get(user, requestId);
-  return { request, actors: actorsOf({ role: user.role, myParts: request.myParts, isAssignedContractor: user.role === 'contractor' }) };
+  return { request, actors: actorsOnRequest(user, request) };
 }
 
-/**
- * Refuses `action` unless the flow table allows it: 403 when none of the actors may ever do it,
- * 409 when they may but not while the request is in its present state.
- */
+/** Refuses `action` unless the flow table allows it: 403 for a part that never does it, 409 for the wrong state. */
 export function assertMayAct(actors: readonly FlowActor[], action: RequestAction, status: RequestStatus, whatNow: string): void {
-  if (mayAct(actors, action, status)) return;
-  const rule = REQUEST_ACTIONS[action];
-  const isActor = (rule.by as readonly FlowActor[]).some((a) => actors.includes(a));
-  if (!isActor) throw new ForbiddenError(`Only ${(rule.by as readonly FlowActor[]).map((a) => FLOW_ACTOR_LABELS[a]).join(' or ')} can do this`);
-  throw new ConflictError(`${whatNow} is not possible while the request is “${REQUEST_STATUS_LABELS[status]}”`);
+  assertFlowAllows(actors, action, status, {
+    notYours: `${whatNow} is not for your part on this request`,
+    notNow: `${whatNow} is not possible while the request is “${REQUEST_STATUS_LABELS[status]}”`,
+  });
 }

@@ -1,21 +1,32 @@
-import { mayMoveRequest, requestMove, type FlowActor, type RequestEvent, type RequestStatus } from '@cc/shared';
+import type { FlowActor, ItemEvent, ItemStatus, RequestEvent, RequestStatus } from '@cc/shared';
 import type { Trx } from '../db/knex';
-import type { RequestRepository } from '../requests/request.repository';
-import { ConflictError, ForbiddenError } from '../errors';
+import type { FlowService } from '../flow/flow.service';
 
-/**
- * Moves a request by `event` of the flow table from `from`, as one of `actors`, and records the
- * change in the same transaction. Refuses a move the table does not allow for these actors.
- */
+/** Moves a request by `event` of the flow table through the flow service, as one of `actors`. */
 export async function moveRequest(
-  requests: RequestRepository,
-  move: { requestId: number; event: RequestEvent; from: RequestStatus; actors: readonly FlowActor[]; by: number; note?: string },
+  flow: FlowService,
+  move: { requestId: number; event: RequestEvent; actors: readonly FlowActor[]; by: number; note?: string },
   trx: Trx,
 ): Promise<RequestStatus> {
-  const found = requestMove(move.event, move.from);
-  if (!found) throw new ConflictError(`The request cannot be moved this way while it is ${move.from}`);
-  if (!mayMoveRequest(move.actors, move.event, move.from)) throw new ForbiddenError(`You may not ${found.label.toLowerCase()} on this request`);
-  const moved = await requests.changeStatus(move.requestId, { from: move.from, to: found.to, by: move.by, note: move.note ?? found.label }, trx);
-  if (!moved) throw new ConflictError('The request changed meanwhile. Reload and try again.');
-  return found.to;
+  const made = await flow.moveRequest(trx, move.requestId, move.event, { userId: move.by, actors: move.actors }, move.note ?? null, {
+    notYours: 'Your part on this request does not make this move',
+    notNow: 'The request is not where this move starts. Reload to see where it is.',
+  });
+  return made.to;
+}
+
+/** Moves one item by `event` through the flow service (409 when it changed meanwhile). */
+export async function moveItem(
+  flow: FlowService,
+  item: { id: number; requestId: number; status: ItemStatus; version: number },
+  event: ItemEvent,
+  mover: { actors: readonly FlowActor[]; by: number },
+  trx: Trx,
+): Promise<ItemStatus> {
+  const made = await flow.moveItem(trx, item, event, { userId: mover.by, actors: mover.actors }, {
+    notYours: 'Your part on this request does not make this move',
+    notNow: 'This item has an outcome already',
+    stale: 'Someone else changed this item meanwhile. Reload and try again.',
+  });
+  return made.to;
 }

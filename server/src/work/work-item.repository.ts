@@ -57,14 +57,6 @@ export class WorkItemRepository {
     return ((await query) as Row[]).map(toWorkItem);
   }
 
-  /** Moves one item to `status` if it is still at `version`; false when it changed meanwhile. */
-  async setStatus(id: number, version: number, status: ItemStatus, trx: Trx): Promise<boolean> {
-    const updated = await trx('line_items')
-      .where({ id, version })
-      .update({ status, version: trx.raw('version + 1'), updated_at: new Date() });
-    return updated === 1;
-  }
-
   async planOnVisit(itemIds: readonly number[], siteVisitId: number | null, trx: Trx): Promise<void> {
     if (itemIds.length) await trx('line_items').whereIn('id', itemIds).update({ site_visit_id: siteVisitId, updated_at: new Date() });
   }

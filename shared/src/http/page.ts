@@ -9,6 +9,8 @@ export const PageQuerySchema = z.object({
 export interface Page<T> {
   items: T[];
   total: number;
+  /** Whether `total` stops at a cap (the list has more rows than it counted: show "1,000+"). */
+  isTotalCapped?: boolean;
   page: number;
   pageSize: number;
 }

@@ -31,6 +31,12 @@ export interface TotalsCheck {
  */
 export function verifyTotals(input: { rateBook: RateBook; quote: QuoteToPrice }, claimed: ClaimedTotals): TotalsCheck {
   const breakdown = priceQuote(input.rateBook, input.quote);
+  const mismatches = compareTotals(breakdown, claimed);
+  return { isMatch: mismatches.length === 0, mismatches, breakdown };
+}
+
+/** Every claimed figure that differs from `breakdown` (the engine's result, priced once by the caller). */
+export function compareTotals(breakdown: QuoteBreakdown, claimed: ClaimedTotals): TotalsMismatch[] {
   const mismatches: TotalsMismatch[] = [];
   for (const field of MONEY_TOTAL_FIELDS) {
     const value = claimed[field];
@@ -47,5 +53,5 @@ export function verifyTotals(input: { rateBook: RateBook; quote: QuoteToPrice },
       }
     }
   }
-  return { isMatch: mismatches.length === 0, mismatches, breakdown };
+  return mismatches;
 }

@@ -33,7 +33,7 @@ export const PricingItemSchema = z.object({
   status: ItemStatusSchema,
   entryId: z.number().int().nullable(),
   adderIds: z.array(z.number().int()),
-  /** The quantity priced: the contractor's, else the report's; null until known. */
+  /** The contractor's own quantity (null: the report's). The quantity priced is `effectiveQuantity(item)`. */
   pricingQuantity: z.number().int().nullable(),
   /** Whether the report gave no quantity and 1 was assumed when the entry was set: check it. */
   isQuantityAssumed: z.boolean(),

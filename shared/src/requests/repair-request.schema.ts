@@ -104,6 +104,8 @@ export const StatusChangeSchema = z.object({
   to: RequestStatusSchema,
   at: z.string(),
   byName: z.string().nullable(),
+  /** The part the person played (a flow actor: `seller`, `contractor`…); absent for older changes. */
+  actor: z.string().nullable().optional(),
   note: z.string().nullable(),
 });
 export type StatusChange = z.infer<typeof StatusChangeSchema>;

@@ -5,7 +5,7 @@
 import type { Role } from '../auth/role';
 import type { PartyRole } from './repair-request.schema';
 import type { ItemStatus } from '../items/item-status';
-import { FINAL_STATUSES, type RequestStatus } from './request-status';
+import { FINAL_STATUSES, REQUEST_STATUSES, type RequestStatus } from './request-status';
 
 /**
  * Who acts on a request: the parts a person plays on it (named parties), the assigned contractor's
@@ -61,24 +61,27 @@ export const REQUEST_EVENTS = [
   'withdraw',
 ] as const;
 export type RequestEvent = (typeof REQUEST_EVENTS)[number];
-export type RequestMove = FlowMove<RequestStatus, RequestEvent>;
+export type RequestMove = FlowMove<RequestStatus, RequestEvent> & {
+  /** The move each item the request carries makes with it in the usual course (e.g. confirming the items). */
+  readonly itemEvent?: ItemEvent;
+};
 
 const BEFORE_LETTER: readonly RequestStatus[] = ['draft', 'intake', 'pricing', 'quoted', 'approved', 'scheduled', 'in-progress', 'corrected', 'reopened'];
 
 export const REQUEST_FLOW: readonly RequestMove[] = [
   { event: 'open', from: [null], to: 'draft', by: [...AGENTS, 'admin'], label: 'Open the request' },
   { event: 'add-report', from: ['draft'], to: 'intake', by: [...AGENTS, 'inspector', 'admin'], label: 'Add the inspection report' },
-  { event: 'confirm-items', from: ['intake'], to: 'pricing', by: [...AGENTS, 'admin'], label: 'Confirm the items' },
-  { event: 'send-quote', from: ['pricing', 'quoted'], to: 'quoted', by: ['contractor'], label: 'Send the quote' },
-  { event: 'approve', from: ['quoted'], to: 'approved', by: SELLER_SIDE, label: 'Approve and sign' },
-  { event: 'decline', from: ['quoted'], to: 'declined', by: SELLER_SIDE, label: 'Decline every item' },
+  { event: 'confirm-items', from: ['intake'], to: 'pricing', by: [...AGENTS, 'admin'], label: 'Confirm the items', itemEvent: 'confirm' },
+  { event: 'send-quote', from: ['pricing', 'quoted'], to: 'quoted', by: ['contractor'], label: 'Send the quote', itemEvent: 'price' },
+  { event: 'approve', from: ['quoted'], to: 'approved', by: SELLER_SIDE, label: 'Approve and sign', itemEvent: 'approve' },
+  { event: 'decline', from: ['quoted'], to: 'declined', by: SELLER_SIDE, label: 'Decline every item', itemEvent: 'decline' },
   { event: 'schedule', from: ['approved'], to: 'scheduled', by: ['contractor'], label: 'Book a visit' },
   { event: 'start-work', from: ['scheduled'], to: 'in-progress', by: ['contractor'], label: 'Start the visit' },
   // An approved change order brings new work: a request whose work was finished is under way again.
   { event: 'approve-change-order', from: ['corrected'], to: 'in-progress', by: SELLER_SIDE, label: 'Approve the change order', isDetour: true },
-  { event: 'finish-work', from: ['in-progress'], to: 'corrected', by: ['contractor'], label: 'Record the last outcome' },
+  { event: 'finish-work', from: ['in-progress'], to: 'corrected', by: ['contractor'], label: 'Record the last outcome', itemEvent: 'correct' },
   { event: 'issue-letter', from: ['corrected'], to: 'letter-issued', by: ['contractor'], label: 'Issue the completion letter' },
-  { event: 'accept-proof', from: ['letter-issued'], to: 'accepted', by: PROOF_READERS, label: 'Accept the corrections' },
+  { event: 'accept-proof', from: ['letter-issued'], to: 'accepted', by: PROOF_READERS, label: 'Accept the corrections', itemEvent: 'accept' },
   { event: 'reject-proof', from: ['letter-issued'], to: 'reopened', by: PROOF_READERS, label: 'List items not accepted' },
   { event: 'resume-work', from: ['reopened'], to: 'in-progress', by: ['contractor'], label: 'Take the items back in hand' },
   { event: 'withdraw', from: BEFORE_LETTER, to: 'withdrawn', by: [...AGENTS, 'admin'], label: 'Withdraw (the sale fell through)', isDetour: true },
@@ -102,6 +105,13 @@ export const REQUEST_ACTIONS = {
   'record-correction': { in: ['scheduled', 'in-progress', 'reopened'], by: ['contractor'] },
   // Lockbox codes and occupant contacts: only the assigned contractor and the listing agent (who gave them).
   'see-access-notes': { in: BEFORE_LETTER, by: ['listing-agent', 'contractor'] },
+  /** The contractor's pricing page (read only unless `price` is allowed too). */
+  'read-pricing': { in: REQUEST_STATUSES, by: ['contractor', 'admin'] },
+  /** The ballpark range from the assigned contractor's rate book, and the site conditions flagged for it. */
+  'read-ballpark': { in: REQUEST_STATUSES, by: [...AGENTS, 'seller', 'contractor', 'admin'] },
+  'flag-site-conditions': { in: REQUEST_STATUSES, by: [...AGENTS, 'contractor', 'admin'] },
+  /** When the request page offers the ballpark range: once there are items, until the first quote. */
+  estimate: { in: ['intake', 'pricing'], by: [...AGENTS, 'contractor', 'admin'] },
 } as const satisfies Record<string, { in: readonly RequestStatus[]; by: readonly FlowActor[] }>;
 export type RequestAction = keyof typeof REQUEST_ACTIONS;
 
@@ -167,6 +177,14 @@ export function actorsOf(facts: ActorFacts): FlowActor[] {
   if (facts.role === 'contractor' && facts.isAssignedContractor) actors.push('contractor');
   if (facts.role === 'admin') actors.push('admin');
   return actors;
+}
+
+/** The actors a signed-in person is on a request as the API shows it (its detail: parts and contractor). */
+export function actorsOnRequest(
+  user: { readonly role: Role; readonly organisationId: number | null },
+  request: { readonly myParts: readonly PartyRole[]; readonly contractor: { readonly id: number } | null },
+): FlowActor[] {
+  return actorsOf({ role: user.role, myParts: request.myParts, isAssignedContractor: request.contractor !== null && request.contractor.id === user.organisationId });
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -266,4 +284,48 @@ export function requestPathTo(target: RequestStatus): RequestMove[] {
 
 export function itemPathTo(target: ItemStatus): ItemMove[] {
   return pathTo(ITEM_FLOW, target);
+}
+
+// ---------------------------------------------------------------------------------------------
+// Why a move or an action is refused (the server answers 403 for the one, 409 for the other)
+
+/**
+ * `not-yours`: none of `actors` ever makes this move or does this action (403);
+ * `not-now`: they do, but not from the state the record is in (409); null: allowed.
+ */
+export type FlowRefusal = 'not-yours' | 'not-now';
+
+function refusal<S extends string, E extends string>(flow: readonly FlowMove<S, E>[], actors: readonly FlowActor[], event: E, from: S | null): FlowRefusal | null {
+  const moves = flow.filter((m) => m.event === event && shares(actors, m.by));
+  if (moves.length === 0) return 'not-yours';
+  return moves.some((m) => m.from.includes(from)) ? null : 'not-now';
+}
+
+export function requestMoveRefusal(actors: readonly FlowActor[], event: RequestEvent, from: RequestStatus | null): FlowRefusal | null {
+  return refusal(REQUEST_FLOW, actors, event, from);
+}
+
+export function itemMoveRefusal(actors: readonly FlowActor[], event: ItemEvent, from: ItemStatus | null): FlowRefusal | null {
+  return refusal(ITEM_FLOW, actors, event, from);
+}
+
+export function actionRefusal(actors: readonly FlowActor[], action: RequestAction, status: RequestStatus): FlowRefusal | null {
+  const rule = REQUEST_ACTIONS[action];
+  if (!shares(actors, rule.by)) return 'not-yours';
+  return (rule.in as readonly RequestStatus[]).includes(status) ? null : 'not-now';
+}
+
+/** The item states from which any of `events` starts (e.g. the items a contractor works on while pricing). */
+export function itemStatesFrom(events: readonly ItemEvent[]): ItemStatus[] {
+  const states: ItemStatus[] = [];
+  for (const move of ITEM_FLOW) {
+    if (!events.includes(move.event)) continue;
+    for (const from of move.from) if (from !== null && !states.includes(from)) states.push(from);
+  }
+  return states;
+}
+
+/** The state an item event leads to (for events that lead to one state whatever the start). */
+export function itemStateAfter(event: ItemEvent): ItemStatus {
+  return ITEM_FLOW.find((m) => m.event === event)!.to;
 }

@@ -1,5 +1,5 @@
 import PDFDocument from 'pdfkit';
-import type { QuoteVersion } from '@cc/shared';
+import { formatCents, formatCentsDelta, type QuoteVersion } from '@cc/shared';
 import { PDF_FONT_REGULAR as REGULAR, PDF_FONT_SEMIBOLD as SEMIBOLD } from './pdf-fonts';
 
 // The quote as a PDF to download: Letter pages, Source Sans 3 embedded as a subset.
@@ -10,14 +10,6 @@ const CONTENT_WIDTH = PAGE_WIDTH - 2 * MARGIN;
 const AMOUNT_WIDTH = 90;
 const QTY_WIDTH = 50;
 const MUTED = '#555555';
-
-/** US dollars from cents: 31434 → "$314.34". */
-export function formatUsd(cents: number): string {
-  const sign = cents < 0 ? '−' : '';
-  const abs = Math.abs(cents);
-  const dollars = Math.floor(abs / 100).toLocaleString('en-US');
-  return `${sign}$${dollars}.${String(abs % 100).padStart(2, '0')}`;
-}
 
 const basisPointsAsPercent = (bp: number) => `${(bp / 100).toLocaleString('en-US', { maximumFractionDigits: 2 })} %`;
 
@@ -89,7 +81,7 @@ export function renderQuotePdf(quote: QuoteVersion): Promise<Buffer> {
       const where = [line.location, line.room !== 'unknown' ? line.room : null].filter(Boolean).join(', ');
       const extras = [line.adders.length ? `site: ${line.adders.map((a) => a.name).join(', ')}` : null, line.isQuantityAssumed ? 'quantity assumed, to be confirmed on site' : null].filter(Boolean).join('; ');
       const description = `${line.entry?.name ?? line.code}${where ? ` — ${where}` : ''}${extras ? ` (${extras})` : ''}`;
-      row(description, String(line.quantity ?? ''), formatUsd(line.lineCents));
+      row(description, String(line.quantity ?? ''), formatCents(line.lineCents));
     }
     doc.font('body').fontSize(9).fillColor(MUTED).text('Line amounts hold the labour share, materials with markup and flat-rate prices; the charges of each visit follow.', MARGIN, doc.y, { width: CONTENT_WIDTH });
 
@@ -105,12 +97,12 @@ export function renderQuotePdf(quote: QuoteVersion): Promise<Buffer> {
       ['Markup on materials', b.materialsMarkupCents],
       ['Permit fee and handling', b.permitCents],
     ];
-    for (const [label, cents] of totals) if (cents > 0) row(label, '', formatUsd(cents));
-    if (visitAdderLabour > 0) paragraph(`Labour includes ${formatUsd(visitAdderLabour)} for site conditions of the visit as a whole.`, 9, MUTED);
-    row('Subtotal', '', formatUsd(b.subtotalCents), 'strong');
-    row('Sales tax on materials', '', formatUsd(b.materialsTaxCents));
-    row('Total', '', formatUsd(b.totalCents), 'strong');
-    row(`Deposit when paying by card (${basisPointsAsPercent(quote.cardDepositBp)})`, '', formatUsd(b.depositCents));
+    for (const [label, cents] of totals) if (cents > 0) row(label, '', formatCents(cents));
+    if (visitAdderLabour > 0) paragraph(`Labour includes ${formatCents(visitAdderLabour)} for site conditions of the visit as a whole.`, 9, MUTED);
+    row('Subtotal', '', formatCents(b.subtotalCents), 'strong');
+    row('Sales tax on materials', '', formatCents(b.materialsTaxCents));
+    row('Total', '', formatCents(b.totalCents), 'strong');
+    row(`Deposit when paying by card (${basisPointsAsPercent(quote.cardDepositBp)})`, '', formatCents(b.depositCents));
 
     const declined = quote.lines.filter((l) => l.kind === 'out-of-scope');
     if (declined.length) {
@@ -121,10 +113,10 @@ export function renderQuotePdf(quote: QuoteVersion): Promise<Buffer> {
     if (quote.changes) {
       const ch = quote.changes;
       heading(`Changes since version ${ch.previousVersion}`);
-      for (const l of ch.added) paragraph(`Added: ${l.code}${l.location ? ` — ${l.location}` : ''}, ${formatUsd(l.lineCents)}`);
-      for (const l of ch.removed) paragraph(`Removed: ${l.code}${l.location ? ` — ${l.location}` : ''}, was ${formatUsd(l.lineCents)}`);
-      for (const l of ch.changed) paragraph(`Changed: ${l.code}${l.location ? ` — ${l.location}` : ''}, ${formatUsd(l.previousLineCents)} → ${formatUsd(l.lineCents)}`);
-      paragraph(`Total ${formatUsd(ch.previousTotalCents)} → ${formatUsd(b.totalCents)} (${ch.totalDeltaCents >= 0 ? '+' : ''}${formatUsd(ch.totalDeltaCents)})`);
+      for (const l of ch.added) paragraph(`Added: ${l.code}${l.location ? ` — ${l.location}` : ''}, ${formatCents(l.lineCents)}`);
+      for (const l of ch.removed) paragraph(`Removed: ${l.code}${l.location ? ` — ${l.location}` : ''}, was ${formatCents(l.lineCents)}`);
+      for (const l of ch.changed) paragraph(`Changed: ${l.code}${l.location ? ` — ${l.location}` : ''}, ${formatCents(l.previousLineCents)} → ${formatCents(l.lineCents)}`);
+      paragraph(`Total ${formatCents(ch.previousTotalCents)} → ${formatCents(b.totalCents)} (${formatCentsDelta(ch.totalDeltaCents)})`);
     }
 
     heading('Warranty');

@@ -1,6 +1,6 @@
 import { HttpClient, HttpContext, HttpErrorResponse } from '@angular/common/http';
 import { computed, inject, Injectable, signal } from '@angular/core';
-import { ChangePassword, CurrentUser, Role, Session, SignIn } from '@cc/shared';
+import { actorsOnRequest, ChangePassword, CurrentUser, FlowActor, PartyRole, Role, Session, SignIn } from '@cc/shared';
 import { firstValueFrom, map, Observable, tap } from 'rxjs';
 import { HANDLES_UNAUTHORISED } from './handles-unauthorised';
 
@@ -17,6 +17,15 @@ export class Auth {
   readonly csrfToken = this.csrfState.asReadonly();
   readonly isSignedIn = computed(() => this.userState() !== null);
   readonly role = computed<Role | null>(() => this.userState()?.role ?? null);
+
+  /**
+   * The parts the signed-in person plays on a request (flow actors: buyer's agent, contractor…), by
+   * the shared flow table's rule; screens ask the table what these actors may do.
+   */
+  actorsOn(request: { myParts: readonly PartyRole[]; contractor: { id: number } | null }): FlowActor[] {
+    const user = this.userState();
+    return user ? actorsOnRequest(user, request) : [];
+  }
 
   /** Reads the current session at start-up. A 401 simply means nobody is signed in. */
   async loadMe(): Promise<void> {

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { LineItem, RepairRequestDetail, ReportFile, UploadResult } from '@cc/shared';
+import { LineItem, mayAct, RepairRequestDetail, ReportFile, requestMove, statesAllowing, UploadResult } from '@cc/shared';
 import { catchError, forkJoin, map, of, switchMap } from 'rxjs';
 import { Auth } from '../../core/auth/auth';
 import { Notice } from '../../core/http/notice';
@@ -17,8 +17,6 @@ interface Loaded {
   reports: ReportFile[];
   items: LineItem[];
 }
-
-const INTAKE_STATES: readonly string[] = ['draft', 'intake'];
 
 /**
  * The line items of a request: while the report is being taken in, its upload and the agent's
@@ -40,16 +38,13 @@ export class IntakePanel {
   /** The request itself changed on the server (its state moved on): load it again. */
   readonly requestChanged = output<void>();
 
-  protected readonly isIntake = computed(() => INTAKE_STATES.includes(this.request().status));
-  private readonly isAdmin = computed(() => this.auth.role() === 'admin');
+  /** Whether the report is still being taken in (the flow table's states for adding it). */
+  protected readonly isIntake = computed(() => statesAllowing('upload-report').includes(this.request().status));
+  private readonly actors = computed(() => this.auth.actorsOn(this.request()));
   /** Whether the signed-in person may add the report (agents, inspector, admin) right now. */
-  protected readonly canUpload = computed(
-    () => this.isIntake() && (this.isAdmin() || this.request().myParts.some((p) => p === 'buyer-agent' || p === 'listing-agent' || p === 'inspector')),
-  );
+  protected readonly canUpload = computed(() => mayAct(this.actors(), 'upload-report', this.request().status));
   /** Whether the signed-in person reviews the items (the agents, admin) right now. */
-  protected readonly canReview = computed(
-    () => this.isIntake() && (this.isAdmin() || this.request().myParts.some((p) => p === 'buyer-agent' || p === 'listing-agent')),
-  );
+  protected readonly canReview = computed(() => mayAct(this.actors(), 'review-items', this.request().status));
 
   private readonly reloads = signal(0);
   /** Loads again when asked, and when the request's state changes. */
@@ -85,7 +80,8 @@ export class IntakePanel {
   protected showResult(result: UploadResult): void {
     this.lastResult.set(result);
     this.reload();
-    if (this.request().status === 'draft') this.requestChanged.emit();
+    // The first report moves the request on (into intake): load the request again.
+    if (requestMove('add-report', this.request().status)) this.requestChanged.emit();
   }
 
   protected finishReview(): void {

@@ -8,7 +8,7 @@ import { catchError, combineLatest, map, of, switchMap } from 'rxjs';
 import { describeFailure } from '../../core/http/api-error-of';
 import { Notice } from '../../core/http/notice';
 import { adderEffectLabel } from '../adder-effect-label';
-import { MoneyPipe } from '../money/money';
+import { MoneyPipe } from '../../ui/money/money';
 import { PricingApi } from '../pricing-api';
 
 type Loaded = { range: RequestBallpark; error?: undefined } | { range?: undefined; error: string };

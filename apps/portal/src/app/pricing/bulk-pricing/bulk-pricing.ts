@@ -21,7 +21,7 @@ import { StatusChip } from '../../ui/status-chip/status-chip';
 import { BallparkCard } from '../ballpark-card/ballpark-card';
 import { BulkToolbar } from '../bulk-toolbar/bulk-toolbar';
 import { claimedTotals, livePrice, PendingChange } from '../live-pricing';
-import { MoneyPipe } from '../money/money';
+import { MoneyPipe } from '../../ui/money/money';
 import { OutOfScopeData, OutOfScopeDialog } from '../out-of-scope-dialog/out-of-scope-dialog';
 import { PricingApi } from '../pricing-api';
 import { PricingTable } from '../pricing-table/pricing-table';

@@ -12,9 +12,9 @@ import { map } from 'rxjs';
 import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { adderEffectLabel } from '../adder-effect-label';
-import { codeLabel } from '../code-label';
+import { codeLabel } from '../../ui/code-label';
 import { PendingChange } from '../live-pricing';
-import { MoneyPipe } from '../money/money';
+import { MoneyPipe } from '../../ui/money/money';
 import { VisitLabelPipe } from '../visit-label';
 
 type ChangeSet = PendingChange['set'];

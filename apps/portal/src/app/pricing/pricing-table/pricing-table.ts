@@ -3,9 +3,9 @@ import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatIconModule } from '@angular/material/icon';
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import { ITEM_STATUS_LABELS, PricingItem, QuoteBreakdown, RateBook } from '@cc/shared';
-import { MoneyPipe } from '../money/money';
-import { codeLabel } from '../code-label';
+import { effectiveQuantity, ITEM_STATUS_LABELS, PricingItem, QuoteBreakdown, RateBook } from '@cc/shared';
+import { MoneyPipe } from '../../ui/money/money';
+import { codeLabel } from '../../ui/code-label';
 import { lineCentsOf } from '../live-pricing';
 import { VisitLabelPipe } from '../visit-label';
 
@@ -15,6 +15,8 @@ interface Row {
   codeLabel: string;
   entryName: string | null;
   adderNames: string[];
+  /** The quantity the item is priced at (null: the report said "several" and nobody set one). */
+  quantity: number | null;
   lineCents: number | null;
   statusLabel: string;
 }
@@ -51,6 +53,7 @@ export class PricingTable {
       codeLabel: codeLabel(item.code),
       entryName: item.entryId === null ? null : (entries.get(String(item.entryId)) ?? 'Entry no longer in the rate book'),
       adderNames: item.adderIds.map((id) => adders.get(String(id)) ?? 'Removed condition'),
+      quantity: effectiveQuantity(item),
       lineCents: lineCentsOf(this.breakdown(), item.id),
       statusLabel: ITEM_STATUS_LABELS[item.status],
     }));

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MoneyTotals, QuoteBreakdown } from '@cc/shared';
-import { MoneyPipe } from '../money/money';
+import { MoneyPipe } from '../../ui/money/money';
 import { VisitLabelPipe } from '../visit-label';
 
 interface TotalsRow {

@@ -2,14 +2,9 @@ import { ChangeDetectionStrategy, Component, computed, inject, input } from '@an
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
-import { RepairRequestDetail, RequestStatus } from '@cc/shared';
+import { mayAct, RepairRequestDetail } from '@cc/shared';
 import { Auth } from '../../core/auth/auth';
 import { BallparkCard } from '../ballpark-card/ballpark-card';
-
-/** States in which the assigned contractor prices the request. */
-const PRICING_STATES: readonly RequestStatus[] = ['pricing', 'quoted'];
-/** States before any price, when the ballpark range helps the agents and the contractor. */
-const BALLPARK_STATES: readonly RequestStatus[] = ['intake', 'pricing'];
 
 /**
  * The pricing side of a request on its detail page: a link to price it (assigned contractor), a link
@@ -27,19 +22,12 @@ export class RequestPricingLinks {
 
   readonly request = input.required<RepairRequestDetail>();
 
-  private readonly isAgent = computed(() => {
-    const parts = this.request().myParts;
-    return this.auth.role() === 'admin' || parts.includes('buyer-agent') || parts.includes('listing-agent');
-  });
-  private readonly isContractor = computed(() => this.auth.role() === 'contractor');
+  private readonly actors = computed(() => this.auth.actorsOn(this.request()));
 
-  protected readonly canPrice = computed(() => this.isContractor() && PRICING_STATES.includes(this.request().status));
+  protected readonly canPrice = computed(() => mayAct(this.actors(), 'price', this.request().status));
   protected readonly hasQuote = computed(() => this.request().history.some((change) => change.to === 'quoted'));
+  /** The ballpark range, before any price, for the agents and the contractor (the flow table's `estimate`). */
   protected readonly showsBallpark = computed(
-    () =>
-      (this.isAgent() || this.isContractor()) &&
-      this.request().contractor !== null &&
-      this.request().itemCount > 0 &&
-      BALLPARK_STATES.includes(this.request().status),
+    () => mayAct(this.actors(), 'estimate', this.request().status) && this.request().contractor !== null && this.request().itemCount > 0,
   );
 }

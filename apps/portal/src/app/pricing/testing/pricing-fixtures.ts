@@ -32,7 +32,7 @@ export function pricingItem(id: number, overrides: Partial<PricingItem> = {}): P
     status: 'open',
     entryId: null,
     adderIds: [],
-    pricingQuantity: 1,
+    pricingQuantity: null,
     isQuantityAssumed: false,
     visitKey: 'visit-1',
     outOfScopeReason: null,

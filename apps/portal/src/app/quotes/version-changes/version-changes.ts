@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { QuoteChanges } from '@cc/shared';
-import { codeLabel } from '../../pricing/code-label';
-import { formatCentsDelta, MoneyPipe } from '../../pricing/money/money';
+import { codeLabel } from '../../ui/code-label';
+import { formatCentsDelta, MoneyPipe } from '../../ui/money/money';
 
 /** What a quote version changed against the one before: lines added, taken off and re-priced, and the total. */
 @Component({

@@ -14,7 +14,7 @@ import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { issuesOf } from '../../core/forms/issues-of';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
 import { Notice } from '../../core/http/notice';
-import { codeLabel } from '../../pricing/code-label';
+import { codeLabel } from '../../ui/code-label';
 import { pricingSummary } from '../entry-draft';
 import { EntryFormData, EntryFormDialog } from '../entry-form-dialog/entry-form-dialog';
 import { RateBookApi } from '../rate-book-api';

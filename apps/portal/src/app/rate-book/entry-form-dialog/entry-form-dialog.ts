@@ -28,7 +28,7 @@ import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { issuesOf } from '../../core/forms/issues-of';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
-import { formatCents } from '../../pricing/money/money';
+import { formatCents } from '../../ui/money/money';
 import { MaterialDraft, materialDraft, materialsTotalCents, pricingDraft, toEntryPricing } from '../entry-draft';
 import { RateBookApi } from '../rate-book-api';
 import { DOLLARS, FACTOR, PERCENT, textValidator, unitValidator, WHOLE } from '../field-validators';

@@ -5,7 +5,7 @@ import { MatCardModule } from '@angular/material/card';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
-import { CONTRACTOR_CHANGE_STATES, RepairRequestDetail } from '@cc/shared';
+import { mayAct, RepairRequestDetail, REQUEST_ACTIONS } from '@cc/shared';
 import { catchError, map, of, switchMap } from 'rxjs';
 import { Auth } from '../../core/auth/auth';
 import { describeFailure } from '../../core/http/api-error-of';
@@ -69,14 +69,16 @@ export class RequestDetail {
   /** The request as last answered by the server (replaced after an invitation). */
   protected readonly detail = linkedSignal(() => this.loaded()?.detail ?? null);
   protected readonly loadError = computed(() => this.loaded()?.error ?? null);
-  /** Whether the signed-in person acts as an agent on this request (or administers the platform). */
-  protected readonly isAgentHere = computed(() => {
-    const parts = this.detail()?.myParts ?? [];
-    return this.auth.role() === 'admin' || parts.includes('buyer-agent') || parts.includes('listing-agent');
+  private readonly actors = computed(() => {
+    const detail = this.detail();
+    return detail ? this.auth.actorsOn(detail) : [];
   });
-
-  /** Whether the contractor may still be chosen or changed (until a quote is sent). */
-  protected readonly canChangeContractor = computed(() => CONTRACTOR_CHANGE_STATES.includes(this.detail()?.status ?? 'draft'));
+  /** Whether the signed-in person invites parties here now (the request's agents, an administrator). */
+  protected readonly canInvite = computed(() => mayAct(this.actors(), 'invite-party', this.detail()?.status ?? 'draft'));
+  /** Whether they see the invitation links: those who invite, whatever the state. */
+  protected readonly seesInviteLinks = computed(() => this.actors().some((a) => REQUEST_ACTIONS['invite-party'].by.includes(a)));
+  /** Whether the contractor may still be chosen or changed by them (until a quote is sent). */
+  protected readonly canChangeContractor = computed(() => mayAct(this.actors(), 'change-contractor', this.detail()?.status ?? 'draft'));
 
   /** Loads the request again after its state moved on (a report added, the items confirmed). */
   protected refresh(id: number): void {

@@ -1,12 +1,12 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, linkedSignal, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
+import { MatPaginatorIntl, MatPaginatorModule, PageEvent } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSortModule, Sort } from '@angular/material/sort';
@@ -24,6 +24,7 @@ import { catchError, debounceTime, distinctUntilChanged, map, of, switchMap, tap
 import { Auth } from '../../core/auth/auth';
 import { Notice } from '../../core/http/notice';
 import { requestListTitle } from '../../core/layout/nav-items';
+import { CappedPaginatorIntl } from '../../ui/capped-paginator-intl';
 import { DaysToClosing } from '../../ui/days-to-closing/days-to-closing';
 import { StatusChip } from '../../ui/status-chip/status-chip';
 import { RequestsApi } from '../requests-api';
@@ -50,6 +51,7 @@ const DEFAULT_SORT: Sort = { active: 'closingDate', direction: 'asc' };
     StatusChip,
     DaysToClosing,
   ],
+  providers: [CappedPaginatorIntl, { provide: MatPaginatorIntl, useExisting: CappedPaginatorIntl }],
   templateUrl: './request-list.html',
   styleUrl: './request-list.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -59,6 +61,7 @@ export class RequestList {
   private readonly router = inject(Router);
   private readonly notice = inject(Notice);
   private readonly auth = inject(Auth);
+  private readonly paginatorIntl = inject(CappedPaginatorIntl);
 
   protected readonly title = computed(() => requestListTitle(this.auth.role()));
   protected readonly canCreate = computed(() => this.auth.role() === 'agent' || this.auth.role() === 'admin');
@@ -114,6 +117,8 @@ export class RequestList {
   );
   protected readonly rows = computed<RepairRequestSummary[]>(() => this.result()?.items ?? []);
   protected readonly total = computed(() => this.result()?.total ?? 0);
+  /** The server stops counting at a cap: the paginator then says "of 1,000+". */
+  private readonly showsCap = effect(() => this.paginatorIntl.setCapped(this.result()?.isTotalCapped ?? false));
   protected readonly isFiltered = computed(() => this.statusFilter().length > 0 || this.search() !== '');
 
   protected changeSort(sort: Sort): void {
