@@ -30,7 +30,7 @@ import { issuesOf } from '../../core/forms/issues-of';
 import { describeFailure } from '../../core/http/api-error-of';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
 import { Notice } from '../../core/http/notice';
-import { codeLabel } from '../../pricing/code-label';
+import { codeLabel } from '../../ui/code-label';
 import { ReadingList } from '../reading-list/reading-list';
 import { ChosenPhoto, WorkApi } from '../work-api';
 import { WorkCaution } from '../work-caution/work-caution';

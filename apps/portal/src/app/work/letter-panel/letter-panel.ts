@@ -13,7 +13,7 @@ import { applyIssues } from '../../core/forms/apply-issues';
 import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { issuesOf } from '../../core/forms/issues-of';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
-import { codeLabel } from '../../pricing/code-label';
+import { codeLabel } from '../../ui/code-label';
 import { WorkApi } from '../work-api';
 
 /**

@@ -18,7 +18,7 @@ import {
 } from '@cc/shared';
 import { describeFailure } from '../../core/http/api-error-of';
 import { Notice } from '../../core/http/notice';
-import { codeLabel } from '../../pricing/code-label';
+import { codeLabel } from '../../ui/code-label';
 import { StatusChip } from '../../ui/status-chip/status-chip';
 import { LetterPanel } from '../letter-panel/letter-panel';
 import { ReadingList } from '../reading-list/reading-list';
