@@ -72,6 +72,7 @@ export async function seed(knex: Knex): Promise<void> {
           note: null,
           contractor: quoteContractorOf(org),
           property: { street: request.street, city: request.city, state: request.state, zip: request.zip },
+          house: { yearBuilt: request.year_built, necEdition: request.nec_edition },
           loaded,
           items,
           priced: { ...priced, input, breakdown },

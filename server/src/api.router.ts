@@ -15,6 +15,9 @@ import { createCorrectionsRouter } from './corrections/corrections.router';
 import { createLettersRouter, createVerificationRouter } from './letters/letters.router';
 import { createVisitsRouter } from './visits/visits.router';
 import { createWorkRouter } from './work/work.router';
+import { createActivityRouter } from './activity/activity.router';
+import { createDashboardsRouter } from './dashboards/dashboards.router';
+import { createMailboxRouter, createNotificationsRouter } from './notifications/notifications.router';
 
 /** Mounts every API router under /api. CSRF protection covers every state-changing route. */
 export function createApiRouter(deps: RouterDeps): Router {
@@ -31,10 +34,14 @@ export function createApiRouter(deps: RouterDeps): Router {
   api.use('/requests/:id', createCorrectionsRouter(deps));
   api.use('/requests/:id', createLettersRouter(deps));
   api.use('/verify', createVerificationRouter(deps));
+  api.use('/requests/:id/activity', createActivityRouter(deps));
   api.use('/requests/:id', createPricingRouter(deps));
   api.use('/requests', createRequestsRouter(deps));
   api.use('/admin', createAdminRouter(deps));
   api.use('/contractors', createContractorsRouter(deps));
   api.use('/rate-book', createRateBookRouter(deps));
+  api.use('/notifications', createNotificationsRouter(deps));
+  api.use('/mailbox', createMailboxRouter(deps));
+  api.use('/dashboards', createDashboardsRouter(deps));
   return api;
 }

@@ -11,10 +11,11 @@ import type { Config } from './config/config';
 import type { Db } from './db/knex';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { createApiRouter } from './api.router';
-import { createServices } from './services';
+import { createServices, type Services } from './services';
 
 export interface App {
   app: Express;
+  services: Services;
   /** Closes what the app opened (session store pool). The caller owns `db`. */
   close(): Promise<void>;
 }
@@ -73,6 +74,7 @@ export function createApp(config: Config, db: Db): App {
 
   return {
     app,
+    services,
     async close() {
       store.close();
       await sessionPool.end();

@@ -2,6 +2,7 @@
 import { createApp } from './app';
 import { loadConfig } from './config/config';
 import { createDb } from './db/knex';
+import { startMail } from './notifications/mail-runtime';
 
 async function main(): Promise<void> {
   let config;
@@ -13,12 +14,14 @@ async function main(): Promise<void> {
   }
   const db = createDb(config.databaseUrl);
   await db.raw('select 1');
-  const { app, close } = createApp(config, db);
+  const { app, close, services } = createApp(config, db);
+  const mail = await startMail(config, services);
   const server = app.listen(config.port, config.host, () => {
     console.log(`Closing Circuit API and portal listening on http://${config.host}:${config.port}`);
   });
   const shutdown = () => {
     server.close(async () => {
+      await mail.stop();
       await close();
       await db.destroy();
       process.exit(0);

@@ -31,6 +31,16 @@ import { VisitsService } from './visits/visits.service';
 import { noProofMessages, type ProofMessages } from './work/proof-messages';
 import { WorkItemRepository } from './work/work-item.repository';
 import { WorkService } from './work/work.service';
+import { ActivityRepository } from './activity/activity.repository';
+import { ActivityService } from './activity/activity.service';
+import { DashboardsRepository } from './dashboards/dashboards.repository';
+import { DashboardsService } from './dashboards/dashboards.service';
+import { CapturedMailRepository } from './integrations/mail/captured-mail.repository';
+import { DailyDigest } from './notifications/daily-digest';
+import { createFlowListener } from './notifications/flow-listener';
+import { NotificationsService } from './notifications/notifications.service';
+import { OutboxRepository } from './notifications/outbox.repository';
+import { PreferencesRepository } from './notifications/preferences.repository';
 
 /** Builds every repository and service of the app from one database handle and the config. */
 export function createServices(db: Db, config: Config, proofMessages: ProofMessages = noProofMessages) {
@@ -44,9 +54,18 @@ export function createServices(db: Db, config: Config, proofMessages: ProofMessa
   const rateBooks = new RateBookRepository(db);
   const itemPricing = new ItemPricingRepository(db);
   const quotes = new QuoteRepository(db);
-  // Every move of a request or an item goes through the flow service (listeners: later the notification outbox).
+  // Every move of a request or an item goes through the flow service; its listener writes the timeline
+  // entries and the outbox rows of the move in the move's transaction.
   const flow = new FlowService(requests, items);
-  const requestsService = new RequestsService(db, requests, users, organisations, flow, items, itemPricing, config.publicUrl, config.atRiskBusinessDays);
+  const activity = new ActivityRepository(db);
+  const outbox = new OutboxRepository(db);
+  const notifications = new NotificationsService(db, outbox, new PreferencesRepository(db), activity, {
+    publicUrl: config.publicUrl,
+    from: config.mail.from,
+    secret: config.sessionSecret,
+  });
+  flow.listen(createFlowListener(activity, notifications));
+  const requestsService = new RequestsService(db, requests, users, organisations, flow, items, itemPricing, config.publicUrl, notifications, activity, config.atRiskBusinessDays);
   const rateBookService = new RateBookService(db, rateBooks, organisations);
   const pricingService = new PricingService(db, requestsService, rateBookService, itemPricing, items, quotes, flow);
   const workItems = new WorkItemRepository(db);
@@ -55,15 +74,22 @@ export function createServices(db: Db, config: Config, proofMessages: ProofMessa
   const letterRecords = new LetterRepository(db);
   const letters = new LettersService(db, requestsService, flow, organisations, workItems, corrections, letterRecords, storage, proofMessages, config.publicUrl);
   return {
-    repositories: { users, organisations, requests, items, reports },
+    repositories: { users, organisations, requests, items, reports, activity },
     flow,
+    notifications,
+    outbox,
+    digest: new DailyDigest(db, notifications, outbox),
+    /** The development mailbox, while mail goes to the local sink. */
+    mailbox: config.mail.smtp ? null : new CapturedMailRepository(db),
+    activity: new ActivityService(requestsService, activity),
+    dashboards: new DashboardsService(new DashboardsRepository(db)),
     storage,
     auth: new AuthService(users, passwords),
     admin: new AdminService(users, organisations, passwords),
     requests: requestsService,
     invitations: new InvitationsService(db, requests, users, passwords),
-    reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, readPdfPages, flow),
-    lineItems: new LineItemsService(db, requestsService, items, reports, flow),
+    reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, readPdfPages, flow, notifications),
+    lineItems: new LineItemsService(db, requestsService, items, reports, flow, activity),
     rateBook: rateBookService,
     pricing: pricingService,
     ballpark: new BallparkService(requestsService, rateBookService, itemPricing),

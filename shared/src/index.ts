@@ -60,3 +60,7 @@ export * from './corrections/correction.schema';
 export * from './corrections/work-caution';
 export * from './letters/completion-letter.schema';
 export * from './work/work-overview.schema';
+export * from './notifications/notification-kind';
+export * from './activity/activity.schema';
+export * from './dashboards/dashboard.schema';
+export * from './dashboards/dashboard-rules';

@@ -57,6 +57,10 @@ describe('GET /api/requests/:id/pricing', () => {
     // The first entry of the rate book for the code (gfci-replace before gfci-replace-flat).
     expect(pricing.items.find((i) => i.id === items.gfci)).toMatchObject({ suggestedEntryId: book.entry['gfci-replace'], entryId: null, isPriced: false, version: 1 });
     expect(pricing.items.find((i) => i.id === items.unknown)?.suggestedEntryId).toBeNull();
+    // NFPA 70 (NEC) 2008, 406.11: tamper-resistant receptacles, after this 1978 house was built;
+    // a replacement today is tamper-resistant under the adopted 2023 edition (NEC 406.4(D)(5)).
+    expect(pricing.items.find((i) => i.id === items.receptacles)?.editionNote).toMatchObject({ firstRequired: 2008, builtUnder: 'added-later', requiredByAdoptedEdition: true });
+    expect(pricing.items.find((i) => i.id === items.doubleTap)?.editionNote).toBeNull();
     expect(pricing.unpricedItemIds).toEqual(Object.values(items));
     expect(pricing.rateBook?.entries.find((e) => e.id === String(book.entry['gfci-replace']))).toMatchObject({ code: 'gfci-inoperative', name: 'Replace inoperative GFCI receptacle' });
   });

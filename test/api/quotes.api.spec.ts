@@ -249,6 +249,42 @@ describe('a quote priced as docs/pricing.md Example 3', () => {
   });
 });
 
+describe('a quote for a 1978 house under the adopted 2023 edition', () => {
+  // From memory: GFCI at kitchen counter-tops near the sink first required in 1987. NFPA 70 (NEC)
+  // 2008, 406.11: tamper-resistant receptacles. Replacements: NEC 406.4(D)(3) and 406.4(D)(5).
+  it('keeps each priced line’s note on the code in force when the house was built, and prints it in the PDF', async () => {
+    const { requestId, itemIds } = await createPricedRequest(cast, t.db, {
+      yearBuilt: 1978,
+      items: [
+        { code: 'receptacle-damaged', quantity: 1, location: 'kitchen island' },
+        { code: 'double-tap', quantity: 1, location: 'main panel' },
+      ],
+    });
+    await price(requestId, [itemIds[0]], { entryId: book.entry['receptacle-replace'] });
+    await price(requestId, [itemIds[1]], { entryId: book.entry['double-tap-pigtail'] });
+    const quote: QuoteVersion = (await send(requestId).expect(201)).body;
+    const [receptacle, doubleTap] = quote.lines;
+    expect(receptacle.editionNote).toMatchObject({ firstRequired: 2008, builtUnder: 'added-later', requiredByAdoptedEdition: true });
+    expect(receptacle.editionNote?.summary).toBe('Tamper-resistant: came in 2008 (after this 1978 house was built): a recommended upgrade; required for any replacement today');
+    expect(doubleTap.editionNote).toBeNull();
+    // The note is kept as sent.
+    const again: QuoteVersion = (await cast.s.seller.agent.get(`/api/requests/${requestId}/quotes/current`).expect(200)).body;
+    expect(again.lines[0].editionNote).toEqual(receptacle.editionNote);
+
+    const res = await cast.s.seller.agent.get(`/api/requests/${requestId}/quotes/1.pdf`).buffer(true).parse((r, done) => {
+      const chunks: Buffer[] = [];
+      r.on('data', (c: Buffer) => chunks.push(c));
+      r.on('end', () => done(null, Buffer.concat(chunks)));
+    });
+    const text = (await extractPdfPages(res.body as Buffer)).pages.join('\n').replace(/\s+/g, ' ');
+    expect(text).toContain('Code when built: Tamper-resistant: came in 2008');
+    expect(text).toContain('The house and the code in force when it was built');
+    expect(text).toContain('This house was built in 1978.');
+    expect(text).toContain('(NEC 406.4(D)(5))');
+    expect(text).toContain('authority having jurisdiction decides');
+  });
+});
+
 describe('two contractors sending at the same moment', () => {
   it('gives them consecutive versions, never the same number', async () => {
     const { requestId, itemIds } = await createPricedRequest(cast, t.db, { items: [{ code: 'switch-issue', quantity: 1 }] });

@@ -200,6 +200,32 @@ describe('GET /api/requests', () => {
     expect(none.body).toMatchObject({ items: [], total: 0 });
   });
 
+  it('filters by the year the house was built ("built before 1975"), on an index, within what the user may see', async () => {
+    const agent = await signIn(t.app, await createUser(t.db, 'agent', await createOrganisation(t.db, 'brokerage')));
+    const years = [1960, 1974, 1975, 1976, 1988];
+    for (const yearBuilt of years) {
+      await agent.agent.post('/api/requests').set('x-csrf-token', agent.csrfToken).send(validRequestBody({ yearBuilt, city: `Built ${yearBuilt}` })).expect(201);
+    }
+    const before1975 = await agent.agent.get('/api/requests?builtBefore=1975&sort=street').expect(200);
+    expect(before1975.body.items.map((r: { yearBuilt: number }) => r.yearBuilt).sort()).toEqual([1960, 1974]);
+    expect(before1975.body.total).toBe(2);
+    const withStatus = await agent.agent.get('/api/requests?builtBefore=1990&status=draft').expect(200);
+    expect(withStatus.body.total).toBe(5);
+    // Another agent's houses stay out of the list whatever the filter.
+    const outsider = await sessions.otherAgent.agent.get('/api/requests?builtBefore=1975&pageSize=100').expect(200);
+    expect(outsider.body.items.some((r: { city: string }) => r.city.startsWith('Built 19'))).toBe(false);
+    const indexes: { indexdef: string }[] = (await t.db.raw("SELECT indexdef FROM pg_indexes WHERE tablename = 'repair_requests'")).rows;
+    expect(indexes.some((i) => /\(year_built\)/.test(i.indexdef))).toBe(true);
+  });
+
+  it('responds 400 for a build year that is not a year', async () => {
+    for (const bad of ['soon', '1500', '1975.5', '99999']) {
+      const res = await sessions.buyerAgent.agent.get(`/api/requests?builtBefore=${bad}`);
+      expect(res.status).toBe(400);
+      expect(res.body.details.map((d: { path: string }) => d.path)).toEqual(['builtBefore']);
+    }
+  });
+
   it('tells the whole total on a page past the end', async () => {
     const s = sessions.buyerAgent;
     const first = await s.agent.get('/api/requests?pageSize=5&page=0').expect(200);

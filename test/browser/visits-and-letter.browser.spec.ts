@@ -1,6 +1,6 @@
 import sharp from 'sharp';
 import type { Browser, Page } from 'playwright-core';
-import { seriousAxeViolations } from '../helpers/axe';
+import { seriousViolations } from '../helpers/axe';
 import { launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
 
 jest.setTimeout(180_000);
@@ -32,7 +32,7 @@ async function openPage(options: Parameters<Browser['newContext']>[0]): Promise<
 }
 
 async function expectAccessible(page: Page): Promise<void> {
-  expect(await seriousAxeViolations(page)).toEqual([]);
+  expect(await seriousViolations(page)).toEqual([]);
 }
 
 describe('visits, corrections and the completion letter', () => {

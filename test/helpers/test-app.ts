@@ -2,11 +2,13 @@ import type { Express } from 'express';
 import { createApp } from '../../server/src/app';
 import { loadConfig, type Config } from '../../server/src/config/config';
 import { createDb, type Db } from '../../server/src/db/knex';
+import type { Services } from '../../server/src/services';
 
 export interface TestApp {
   app: Express;
   db: Db;
   config: Config;
+  services: Services;
   close(): Promise<void>;
 }
 
@@ -22,9 +24,10 @@ export function createTestApp(overrides: NodeJS.ProcessEnv = {}): TestApp {
     ...overrides,
   });
   const db = createDb(config.databaseUrl, 4);
-  const { app, close } = createApp(config, db);
+  const { app, close, services } = createApp(config, db);
   return {
     app,
+    services,
     db,
     config,
     async close() {

@@ -24,6 +24,30 @@ const EnvSchema = z.object({
   PORTAL_DIST: z.string().default('dist/portal/browser'),
   /** Approved items still open this many business days before closing flag the request as at risk. */
   AT_RISK_BUSINESS_DAYS: z.coerce.number().int().min(0).max(30).default(3),
+  /** Real SMTP server for e-mail. Unset: mail goes to the local sink on loopback (development mailbox). */
+  SMTP_HOST: z.string().min(1).optional(),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(587),
+  /** TLS from the first byte (usually port 465); otherwise STARTTLS when offered. */
+  SMTP_SECURE: z
+    .enum(['true', 'false'])
+    .default('false')
+    .transform((v) => v === 'true'),
+  SMTP_USER: z.string().min(1).optional(),
+  SMTP_PASSWORD: z.string().min(1).optional(),
+  /** Port of the local mail sink (0: any free port). */
+  MAIL_SINK_PORT: z.coerce.number().int().min(0).max(65535).default(0),
+  MAIL_FROM: z.string().min(3).max(300).default('Closing Circuit <no-reply@closing-circuit.local>'),
+  /** Whether this process sends the outbox (several processes may; they share the work). */
+  OUTBOX_WORKER: z
+    .enum(['on', 'off'])
+    .default('on')
+    .transform((v) => v === 'on'),
+  /** Names this process in the outbox's attempt records (default: host and process id). */
+  OUTBOX_WORKER_NAME: z.string().min(1).max(100).optional(),
+  /** How long a worker's claim on a message holds (a stopped worker's message is taken over after it). */
+  OUTBOX_LEASE_MS: z.coerce.number().int().min(1_000).max(3_600_000).default(120_000),
+  /** Hour of the day (UTC) after which the daily digest goes out. */
+  DIGEST_HOUR_UTC: z.coerce.number().int().min(0).max(23).default(13),
 });
 
 export interface Config {
@@ -40,6 +64,16 @@ export interface Config {
   portalDist: string;
   storageDir: string;
   atRiskBusinessDays: number;
+  mail: {
+    /** null: the local sink on loopback. */
+    smtp: { host: string; port: number; secure: boolean; user: string | null; password: string | null } | null;
+    sinkPort: number;
+    from: string;
+    runWorker: boolean;
+    leaseMs: number;
+    workerName: string | null;
+    digestHourUtc: number;
+  };
 }
 
 /** Reads the environment; throws one readable message listing every bad or missing variable. */
@@ -64,5 +98,14 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     portalDist: e.PORTAL_DIST,
     storageDir: e.STORAGE_DIR,
     atRiskBusinessDays: e.AT_RISK_BUSINESS_DAYS,
+    mail: {
+      smtp: e.SMTP_HOST ? { host: e.SMTP_HOST, port: e.SMTP_PORT, secure: e.SMTP_SECURE, user: e.SMTP_USER ?? null, password: e.SMTP_PASSWORD ?? null } : null,
+      sinkPort: e.MAIL_SINK_PORT,
+      from: e.MAIL_FROM,
+      runWorker: e.OUTBOX_WORKER,
+      leaseMs: e.OUTBOX_LEASE_MS,
+      workerName: e.OUTBOX_WORKER_NAME ?? null,
+      digestHourUtc: e.DIGEST_HOUR_UTC,
+    },
   };
 }

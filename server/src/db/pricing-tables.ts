@@ -142,4 +142,5 @@ export interface QuoteLineRow {
   flat_cents: number;
   line_cents: number;
   out_of_scope_reason: string | null;
+  edition_note: unknown;
 }

@@ -8,7 +8,7 @@ import {
   type CurrentUser,
   type LineItem,
   type MergeLineItems,
-  type NecEdition,
+  type HouseCode,
   type SplitLineItem,
   type UpdateLineItem,
 } from '@cc/shared';
@@ -18,6 +18,8 @@ import type { LineItemRepository, StoredLineItem } from './line-item.repository'
 import type { ReportFileRepository } from './report-file.repository';
 import { ConflictError, NotFoundError, ValidationError } from '../errors';
 import { assertMayAct, moverOn, type FlowService, type Mover } from '../flow/flow.service';
+import type { ActivityRepository } from '../activity/activity.repository';
+import { recordItemChange } from '../activity/item-activity';
 import type { RequestsService } from '../requests/requests.service';
 
 const STALE = 'This item was changed by someone else meanwhile. Reload to see the current version.';
@@ -32,15 +34,17 @@ export class LineItemsService {
     private readonly items: LineItemRepository,
     private readonly reports: ReportFileRepository,
     private readonly flow: FlowService,
+    private readonly activity: ActivityRepository,
   ) {}
 
-  withNote(item: StoredLineItem, edition: NecEdition): LineItem {
-    return { ...item, editionNote: editionNote(item.code, item.room, edition) };
+  /** The item with its note on the code in force when the house was built and the adopted edition. */
+  withNote(item: StoredLineItem, house: HouseCode): LineItem {
+    return { ...item, editionNote: editionNote(item.code, item.room, house) };
   }
 
   async list(user: CurrentUser, requestId: number): Promise<LineItem[]> {
     const request = await this.access.get(user, requestId);
-    return (await this.items.listForRequest(requestId)).map((i) => this.withNote(i, request.necEdition));
+    return (await this.items.listForRequest(requestId)).map((i) => this.withNote(i, request));
   }
 
   /** 404 unless visible, 403 unless one of its agents (or admin), 409 once intake is over. */
@@ -59,20 +63,21 @@ export class LineItemsService {
     return item;
   }
 
-  private async reload(requestId: number, id: number, edition: NecEdition): Promise<LineItem> {
+  private async reload(requestId: number, id: number, house: HouseCode): Promise<LineItem> {
     const item = await this.items.findInRequest(requestId, id);
     if (!item) throw new NotFoundError('No such item');
-    return this.withNote(item, edition);
+    return this.withNote(item, house);
   }
 
   async update(user: CurrentUser, requestId: number, id: number, input: UpdateLineItem): Promise<LineItem> {
     const { request } = await this.assertReviewer(user, requestId);
     const { version, ...changes } = input;
     await this.db.transaction(async (trx) => {
-      await this.reviewable(requestId, id, trx);
+      const before = await this.reviewable(requestId, id, trx);
       if (!(await this.items.update(id, version, { ...changes, isEdited: true }, trx))) throw new ConflictError(STALE);
+      await recordItemChange(this.activity, trx, user.id, 'item-edited', before, { ...before, ...changes });
     });
-    return this.reload(requestId, id, request.necEdition);
+    return this.reload(requestId, id, request);
   }
 
   async remove(user: CurrentUser, requestId: number, id: number, version: number): Promise<void> {
@@ -94,9 +99,10 @@ export class LineItemsService {
       const location = [keep.location, drop.location].filter((l, i, all) => l && all.indexOf(l) === i).join('; ');
       const necRefs = [...new Set([...keep.necRefs, ...drop.necRefs])];
       if (!(await this.items.update(keep.id, keepRef.version, { quantity, location, necRefs, isEdited: true }, trx))) throw new ConflictError(STALE);
+      await recordItemChange(this.activity, trx, user.id, 'items-merged', keep, { ...keep, quantity, location }, `Merged item #${drop.id} into this one`);
       await this.flow.moveItem(trx, { ...drop, version: dropRef.version }, 'remove', mover, ITEM_REFUSED, { isEdited: true });
     });
-    return this.reload(requestId, keepRef.id, request.necEdition);
+    return this.reload(requestId, keepRef.id, request);
   }
 
   /** One item becomes several with the given quantities (which must add up to a known quantity). */
@@ -114,9 +120,10 @@ export class LineItemsService {
       if (!(await this.items.update(id, input.version, { quantity: first, isEdited: true }, trx))) throw new ConflictError(STALE);
       const { id: _id, version: _v, ...copy } = item;
       const added = await this.items.insert(rest.map((quantity) => ({ ...copy, quantity, isEdited: true })), trx);
+      await recordItemChange(this.activity, trx, user.id, 'item-split', item, { ...item, quantity: first }, `Split into ${input.quantities.length} items (${input.quantities.join(' + ')})`);
       return [id, ...added];
     });
-    return Promise.all(ids.map((i) => this.reload(requestId, i, request.necEdition)));
+    return Promise.all(ids.map((i) => this.reload(requestId, i, request)));
   }
 
   /** A person adds an item the reader missed, optionally from text selected in a report. */
@@ -162,7 +169,7 @@ export class LineItemsService {
         REVIEW_REFUSED,
       ),
     );
-    return this.reload(requestId, id, request.necEdition);
+    return this.reload(requestId, id, request);
   }
 
   /**

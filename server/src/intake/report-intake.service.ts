@@ -15,6 +15,7 @@ import type { RequestRepository } from '../requests/request.repository';
 import type { FileStorage } from '../integrations/storage/file-storage';
 import { NotFoundError } from '../errors';
 import { assertMayAct, moverOn, type FlowService, type Mover } from '../flow/flow.service';
+import type { NotificationsService } from '../notifications/notifications.service';
 import { checkReport, type PdfPageReader, type UploadedFile } from './report-intake';
 import type { RequestsService } from '../requests/requests.service';
 
@@ -52,6 +53,7 @@ export class ReportIntakeService {
     private readonly storage: FileStorage,
     private readonly readPdfPages: PdfPageReader,
     private readonly flow: FlowService,
+    private readonly notifications: NotificationsService,
   ) {}
 
   /** 404 unless visible; 403 unless an agent or inspector of the request (or admin); 409 after intake. */
@@ -95,6 +97,7 @@ export class ReportIntakeService {
         );
         await this.moveToIntake(requestId, mover, trx);
         await this.flow.createItems(trx, 'propose', mover, proposalsFrom(parsed.findings, requestId, id), UPLOAD_REFUSED);
+        await this.notifications.notify(trx, { kind: 'report-parsed', requestId, actorUserId: mover.userId, reportFileId: id, itemCount: parsed.findings.length });
         storedNew = await this.storage.put(sha256, bytes);
         return id;
       });

@@ -1,6 +1,7 @@
 import {
   CONFIRMED_ITEM_STATE,
   compareTotals,
+  editionNote,
   effectiveQuantity,
   itemMove,
   lineCents,
@@ -136,6 +137,7 @@ export class PricingService {
           suggestedEntryId: firstEntryOfCode.get(item.code) ?? null,
           isPriced: line !== undefined,
           lineCents: line ? lineCents(line) : null,
+          editionNote: editionNote(item.code, item.room, request),
         };
       }),
       visits: visitsOrDefault(visits),

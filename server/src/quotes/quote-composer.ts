@@ -1,4 +1,4 @@
-import { effectiveQuantity, itemStateAfter, lineCents, type Organisation, type QuoteContractor, type QuoteVersion } from '@cc/shared';
+import { editionNote, effectiveQuantity, itemStateAfter, lineCents, type HouseCode, type Organisation, type QuoteContractor, type QuoteVersion } from '@cc/shared';
 import type { StoredPricingItem } from '../pricing/item-pricing.repository';
 import type { NewQuote, NewQuoteLine } from './quote.repository';
 import type { LoadedRateBook } from '../rate-book/rate-book.service';
@@ -30,6 +30,8 @@ export interface QuoteToCompose {
   note: string | null;
   contractor: QuoteContractor;
   property: QuoteVersion['property'];
+  /** When the house was built and the edition adopted there: each priced line keeps its edition note. */
+  house: HouseCode;
   loaded: LoadedRateBook;
   items: readonly StoredPricingItem[];
   /** The request priced by the shared engine, with a breakdown. */
@@ -71,6 +73,7 @@ export function composeQuote(q: QuoteToCompose): NewQuote {
       flatCents: line.flatCents,
       lineCents: lineCents(line),
       outOfScopeReason: null,
+      editionNote: editionNote(item.code, item.room, q.house),
     });
   }
   for (const item of q.items.filter((i) => i.status === itemStateAfter('leave-out'))) {
@@ -92,6 +95,7 @@ export function composeQuote(q: QuoteToCompose): NewQuote {
       flatCents: 0,
       lineCents: 0,
       outOfScopeReason: item.outOfScopeReason,
+      editionNote: null,
     });
   }
   const terms = q.loaded.book.terms;

@@ -53,6 +53,7 @@ function toLine(row: QuoteLineRow): QuoteVersionLine {
     flatCents: row.flat_cents,
     lineCents: row.line_cents,
     outOfScopeReason: row.out_of_scope_reason,
+    editionNote: (row.edition_note as QuoteVersionLine['editionNote']) ?? null,
   };
 }
 
@@ -107,6 +108,7 @@ export class QuoteRepository {
         flat_cents: line.flatCents,
         line_cents: line.lineCents,
         out_of_scope_reason: line.outOfScopeReason,
+        edition_note: line.editionNote === null ? null : json(line.editionNote),
       })),
     );
     return row.id;

@@ -74,6 +74,7 @@ export class QuotesService {
           note: input.note || null,
           contractor: quoteContractorOf(org),
           property: { street: request.street, city: request.city, state: request.state, zip: request.zip },
+          house: request,
           loaded,
           items,
           priced: { ...priced, input: priced.input, breakdown: priced.breakdown },

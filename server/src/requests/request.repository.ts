@@ -29,6 +29,8 @@ export interface RequestListFilter {
   text: string;
   /** An id typed as a reference (CC-00042) into the search box. */
   id: number | null;
+  /** Only houses built before this year (null or left out: any year). */
+  builtBefore?: number | null;
 }
 
 export interface NewRepairRequest {
@@ -156,6 +158,7 @@ export class RequestRepository {
     const db = this.db;
     const visible = this.scope(db('repair_requests as r'), viewer);
     if (filter.statuses.length) visible.whereIn('r.status', filter.statuses);
+    if (filter.builtBefore) visible.where('r.year_built', '<', filter.builtBefore);
     if (filter.text) {
       const like = `%${filter.text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
       visible.where((w) => {
@@ -289,8 +292,8 @@ export class RequestRepository {
   async addParty(
     party: { requestId: number; role: PartyRole; email: string; userId: number | null; inviteToken: string | null; inviteExpiresAt: Date | null; invitedBy: number | null },
     trx: Trx,
-  ): Promise<void> {
-    await trx<RequestPartyRow>('request_parties')
+  ): Promise<boolean> {
+    const rows = await trx<RequestPartyRow>('request_parties')
       .insert({
         request_id: party.requestId,
         role: party.role,
@@ -302,7 +305,9 @@ export class RequestRepository {
         joined_at: party.userId ? new Date() : null,
       })
       .onConflict(['request_id', 'role', 'email'])
-      .ignore();
+      .ignore()
+      .returning('id');
+    return rows.length > 0;
   }
 
   async findInvitation(token: string, trx?: Trx): Promise<(RequestPartyRow & { inviter_name: string | null }) | null> {

@@ -2,6 +2,7 @@ import { randomBytes } from 'node:crypto';
 import {
   actorsOf,
   closingProgress,
+  PARTY_ROLE_LABELS,
   defaultNecEdition,
   REQUEST_ACTIONS,
   type FlowActor,
@@ -25,6 +26,8 @@ import type { RequestRepository } from './request.repository';
 import type { UserRepository } from '../auth/user.repository';
 import { NotFoundError, ValidationError } from '../errors';
 import { assertMayAct, assertMayMoveRequest, moverOn, type FlowService } from '../flow/flow.service';
+import type { ActivityRepository } from '../activity/activity.repository';
+import type { NotificationsService } from '../notifications/notifications.service';
 import type { LineItemRepository } from '../intake/line-item.repository';
 import type { ItemPricingRepository } from '../pricing/item-pricing.repository';
 
@@ -50,6 +53,8 @@ export class RequestsService {
     private readonly items: LineItemRepository,
     private readonly itemPricing: ItemPricingRepository,
     private readonly publicUrl: string,
+    private readonly notifications: NotificationsService,
+    private readonly activity: ActivityRepository,
     /** Open approved work this many business days before closing flags a request as at risk. */
     private readonly atRiskBusinessDays = 3,
   ) {}
@@ -70,6 +75,7 @@ export class RequestsService {
       statuses: query.status,
       text: query.q,
       id: query.q ? parseRequestReference(query.q) : null,
+      builtBefore: query.builtBefore ?? null,
     });
     return { items: items.map((i) => this.withRisk(i)), total, isTotalCapped, page: query.page, pageSize: query.pageSize };
   }
@@ -174,6 +180,16 @@ export class RequestsService {
       if (await this.requests.setContractor(requestId, contractorOrganisationId, trx)) {
         await this.itemPricing.clearVisits(requestId, trx);
         await this.items.clearPricing(requestId, trx);
+        const chosen = await this.organisations.findById(contractorOrganisationId, trx);
+        await this.activity.record(trx, {
+          requestId,
+          actorUserId: user.id,
+          kind: 'parties',
+          action: 'contractor-changed',
+          summary: request.contractor ? `Contractor changed from ${request.contractor.name} to ${chosen!.name}` : `Contractor chosen: ${chosen!.name}`,
+          before: { contractor: request.contractor?.name ?? null },
+          after: { contractor: chosen!.name },
+        });
       }
     });
     return this.get(user, requestId);
@@ -186,18 +202,33 @@ export class RequestsService {
         { path: field, message: `This e-mail belongs to an account that is not a${ROLE_FOR_PARTY[role] === 'agent' ? 'n' : ''} ${ROLE_FOR_PARTY[role]}` },
       ]);
     }
-    await this.requests.addParty(
+    const inviteToken = existing ? null : randomBytes(24).toString('base64url');
+    const added = await this.requests.addParty(
       {
         requestId,
         role,
         email,
         userId: existing?.id ?? null,
-        inviteToken: existing ? null : randomBytes(24).toString('base64url'),
+        inviteToken,
         inviteExpiresAt: existing ? null : new Date(Date.now() + INVITE_DAYS * 86_400_000),
         invitedBy: by.id,
       },
       trx,
     );
+    if (!added) return;
+    if (inviteToken) {
+      // The invitation goes out by e-mail (the link is also shown to the agents to pass on).
+      await this.notifications.notify(trx, { kind: 'invitation', requestId, actorUserId: by.id, email, role, inviteToken });
+    } else if (role !== 'buyer-agent' || existing!.id !== by.id) {
+      await this.activity.record(trx, {
+        requestId,
+        actorUserId: by.id,
+        kind: 'parties',
+        action: 'party-added',
+        summary: `${existing!.name} added as ${PARTY_ROLE_LABELS[role].toLowerCase()}`,
+        after: { role, email },
+      });
+    }
   }
 
   private async adminNamedBuyerAgent(email: string | null, trx: Trx): Promise<CurrentUser> {

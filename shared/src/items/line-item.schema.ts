@@ -1,14 +1,22 @@
 import * as z from 'zod';
 import { FindingCodeSchema, RoomSchema, SeveritySchema } from '../findings/finding.schema';
+import { BUILT_UNDER } from '../code-editions/protection-history';
 import { ItemStatusSchema } from './item-status';
 
-/** Information about when the NEC began to require a protection at this place (never a ruling). */
+/**
+ * Information about when the NEC began to require a protection at this place, against the year the
+ * house was built and the adopted edition (never a ruling). Built by `editionNote`.
+ */
 export const ItemEditionNoteSchema = z.object({
   requiredSince: z.number().int().nullable(),
   requiredByAdoptedEdition: z.boolean(),
+  firstRequired: z.number().int().nullable(),
+  builtUnder: z.enum(BUILT_UNDER).nullable(),
   reference: z.string(),
+  summary: z.string(),
   text: z.string(),
 });
+export type ItemEditionNote = z.infer<typeof ItemEditionNoteSchema>;
 
 export const LineItemSchema = z.object({
   id: z.number().int(),

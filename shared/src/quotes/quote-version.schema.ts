@@ -1,4 +1,5 @@
 import * as z from 'zod';
+import { ItemEditionNoteSchema } from '../items/line-item.schema';
 import { QuoteBreakdownSchema } from '../pricing/pricing-breakdown.schema';
 import { ClaimedTotalsSchema } from '../pricing/verify-totals';
 import { QuoteChangesSchema } from './quote-changes.schema';
@@ -34,6 +35,8 @@ export const QuoteVersionLineSchema = z.object({
   /** labour share + materials + flat; the service call, permit and tax are visit figures. */
   lineCents: z.number().int(),
   outOfScopeReason: z.string().nullable(),
+  /** The code in force when the house was built and the adopted edition, as it read when sent (information). */
+  editionNote: ItemEditionNoteSchema.nullable(),
 });
 export type QuoteVersionLine = z.infer<typeof QuoteVersionLineSchema>;
 

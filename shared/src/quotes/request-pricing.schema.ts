@@ -1,5 +1,6 @@
 import * as z from 'zod';
 import { ItemStatusSchema } from '../items/item-status';
+import { ItemEditionNoteSchema } from '../items/line-item.schema';
 import { QuoteBreakdownSchema } from '../pricing/pricing-breakdown.schema';
 import { QuoteSchema } from '../pricing/pricing-input.schema';
 import { RateBookSchema } from '../pricing/rate-book.schema';
@@ -45,6 +46,8 @@ export const PricingItemSchema = z.object({
   isPriced: z.boolean(),
   /** The line's labour share, materials and flat price (no service call, permit or tax). */
   lineCents: z.number().int().nullable(),
+  /** The code in force when the house was built and the adopted edition, for this item (information). */
+  editionNote: ItemEditionNoteSchema.nullable(),
 });
 export type PricingItem = z.infer<typeof PricingItemSchema>;
 

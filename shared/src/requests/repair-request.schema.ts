@@ -62,6 +62,13 @@ export const RepairRequestListQuerySchema = PageQuerySchema.extend({
     .transform((v) => (v ? v.split(',').filter(Boolean) : []))
     .pipe(z.array(RequestStatusSchema)),
   q: z.string().trim().max(100).optional().default(''),
+  /** Only houses built before this year ("built before 1975"). */
+  builtBefore: z.coerce
+    .number({ error: 'Enter a year' })
+    .int('Enter a whole year')
+    .min(1700, 'Enter a year after 1700')
+    .max(2100, 'Enter a year before 2100')
+    .optional(),
 });
 export type RepairRequestListQuery = z.input<typeof RepairRequestListQuerySchema>;
 

@@ -16,8 +16,24 @@ export const routes: Routes = [
     title: 'Invitation · Closing Circuit',
     loadComponent: () => import('./auth/accept-invitation/accept-invitation').then((m) => m.AcceptInvitation),
   },
+  {
+    path: 'unsubscribe/:token',
+    title: 'Stop the daily digest · Closing Circuit',
+    loadComponent: () => import('./notifications/unsubscribe/unsubscribe').then((m) => m.Unsubscribe),
+  },
   ...requestPricingRoutes,
   ...workRoutes,
+  {
+    path: 'dashboard',
+    canActivate: [signedIn],
+    loadChildren: () => import('./dashboards/dashboards.routes').then((m) => m.dashboardRoutes),
+  },
+  {
+    path: 'mailbox',
+    title: 'Development mailbox · Closing Circuit',
+    canActivate: [signedIn, hasRole('admin')],
+    loadComponent: () => import('./notifications/mailbox/mailbox').then((m) => m.Mailbox),
+  },
   {
     path: 'requests',
     canActivate: [signedIn],

@@ -18,6 +18,17 @@ function licenceLine(c: QuoteVersion['contractor']): string {
   return [`Licence ${c.licenceNumber}`, c.licenceState && `(${c.licenceState})`, c.licenceClass && `· ${c.licenceClass}`].filter(Boolean).join(' ');
 }
 
+/** Each distinct edition note of the priced lines once, with the items it is about. */
+export function houseAndCodeNotes(lines: readonly QuoteVersion['lines'][number][]): { items: string; text: string }[] {
+  const byText = new Map<string, string[]>();
+  for (const line of lines) {
+    if (!line.editionNote) continue;
+    const name = `${line.entry?.name ?? line.code}${line.location ? ` (${line.location})` : ''}`;
+    byText.set(line.editionNote.text, [...(byText.get(line.editionNote.text) ?? []), name]);
+  }
+  return [...byText].map(([text, names]) => ({ items: names.join('; '), text }));
+}
+
 export function renderQuotePdf(quote: QuoteVersion): Promise<Buffer> {
   return new Promise((resolve, reject) => {
     const doc = new PDFDocument({
@@ -82,6 +93,7 @@ export function renderQuotePdf(quote: QuoteVersion): Promise<Buffer> {
       const extras = [line.adders.length ? `site: ${line.adders.map((a) => a.name).join(', ')}` : null, line.isQuantityAssumed ? 'quantity assumed, to be confirmed on site' : null].filter(Boolean).join('; ');
       const description = `${line.entry?.name ?? line.code}${where ? ` — ${where}` : ''}${extras ? ` (${extras})` : ''}`;
       row(description, String(line.quantity ?? ''), formatCents(line.lineCents));
+      if (line.editionNote) paragraph(`Code when built: ${line.editionNote.summary}`, 8.5, MUTED);
     }
     doc.font('body').fontSize(9).fillColor(MUTED).text('Line amounts hold the labour share, materials with markup and flat-rate prices; the charges of each visit follow.', MARGIN, doc.y, { width: CONTENT_WIDTH });
 
@@ -117,6 +129,17 @@ export function renderQuotePdf(quote: QuoteVersion): Promise<Buffer> {
       for (const l of ch.removed) paragraph(`Removed: ${l.code}${l.location ? ` — ${l.location}` : ''}, was ${formatCents(l.lineCents)}`);
       for (const l of ch.changed) paragraph(`Changed: ${l.code}${l.location ? ` — ${l.location}` : ''}, ${formatCents(l.previousLineCents)} → ${formatCents(l.lineCents)}`);
       paragraph(`Total ${formatCents(ch.previousTotalCents)} → ${formatCents(b.totalCents)} (${formatCentsDelta(ch.totalDeltaCents)})`);
+    }
+
+    const notes = houseAndCodeNotes(priced);
+    if (notes.length) {
+      heading('The house and the code in force when it was built');
+      for (const n of notes) {
+        ensureSpace(30);
+        doc.font('strong').fontSize(10).fillColor('black').text(n.items, MARGIN, doc.y, { width: CONTENT_WIDTH });
+        paragraph(n.text, 9.5);
+        doc.moveDown(0.3);
+      }
     }
 
     heading('Warranty');

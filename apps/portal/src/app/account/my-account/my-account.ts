@@ -10,10 +10,11 @@ import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
 import { Notice } from '../../core/http/notice';
+import { MessagePreferences } from '../../notifications/message-preferences/message-preferences';
 
 @Component({
   selector: 'cc-my-account',
-  imports: [ReactiveFormsModule, MatCardModule, MatFormFieldModule, MatInputModule, MatButtonModule, ErrorMessagePipe],
+  imports: [ReactiveFormsModule, MatCardModule, MatFormFieldModule, MatInputModule, MatButtonModule, ErrorMessagePipe, MessagePreferences],
   templateUrl: './my-account.html',
   styleUrl: './my-account.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

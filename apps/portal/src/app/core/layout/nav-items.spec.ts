@@ -15,6 +15,7 @@ describe('navItemsFor', () => {
   it('gives contractors their job queue of requests to price and their rate book, and no one else', () => {
     expect(navItemsFor('contractor').map((item) => [item.id, item.label, item.link])).toEqual([
       ['requests', 'Assigned requests', '/requests'],
+      ['dashboard', 'Dashboard', '/dashboard'],
       ['job-queue', 'Job queue', '/pricing'],
       ['rate-book', 'Rate book', '/rate-book'],
     ]);
@@ -26,5 +27,10 @@ describe('navItemsFor', () => {
     expect(navItemsFor('contractor')[0]).toMatchObject({ link: '/requests', label: 'Assigned requests' });
     expect(navItemsFor('seller')[0].label).toBe('Repairs for my sale');
     expect(navItemsFor('inspector')[0].label).toBe('Inspections');
+  });
+
+  it('gives a dashboard to agents, contractors and administrators, and the development mailbox to administrators', () => {
+    expect(ROLES.filter((role) => navItemsFor(role).some((item) => item.link === '/dashboard'))).toEqual(['agent', 'contractor', 'admin']);
+    expect(ROLES.filter((role) => navItemsFor(role).some((item) => item.link === '/mailbox'))).toEqual(['admin']);
   });
 });

@@ -19,6 +19,7 @@ const REQUESTS_LABEL: Record<Role, string> = {
 /** The side-navigation entries a role sees, in order (account and sign-out are added by the shell). */
 export function navItemsFor(role: Role): NavItem[] {
   const items: NavItem[] = [{ id: 'requests', label: REQUESTS_LABEL[role], icon: 'home_repair_service', link: '/requests' }];
+  if (role === 'agent' || role === 'admin' || role === 'contractor') items.push({ id: 'dashboard', label: 'Dashboard', icon: 'dashboard', link: '/dashboard' });
   if (role === 'agent' || role === 'admin') {
     items.push({ id: 'new-request', label: 'Start a request', icon: 'add_home', link: '/requests/new' });
   }
@@ -29,7 +30,10 @@ export function navItemsFor(role: Role): NavItem[] {
     );
   }
   if (role === 'admin') {
-    items.push({ id: 'admin', label: 'People and organisations', icon: 'groups', link: '/admin' });
+    items.push(
+      { id: 'admin', label: 'People and organisations', icon: 'groups', link: '/admin' },
+      { id: 'mailbox', label: 'Development mailbox', icon: 'mail', link: '/mailbox' },
+    );
   }
   return items;
 }

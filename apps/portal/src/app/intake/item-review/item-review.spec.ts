@@ -59,8 +59,9 @@ describe('ItemReview', () => {
     expect(rows['room'].text).toEqual(['Kitchen', 'Bedroom', 'Garage']);
     expect(rows['quantity'].text).toEqual(['2', '—', '—']);
     expect(rows['severity'].text[0]).toBe('Safety 210.8(A), 406.4(D)(3)');
-    // The GFCI item carries its code-edition note, worded as information.
+    // The GFCI item carries its note on the code in force when the house was built, worded as information.
     expect(host().querySelector('[data-testid="edition-note"]')?.textContent).toContain('information');
+    expect(host().querySelector('[data-testid="edition-note-summary"]')?.textContent).toContain('GFCI: came in 1987 (after this 1978 house was built)');
   });
 
   it('highlights each item’s evidence in the report text, page by page, and marks the clicked item’s', async () => {

@@ -5,7 +5,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { FINDING_CODE_TABLE, LineItem } from '@cc/shared';
-import { EditionNote } from '../edition-note/edition-note';
+import { EditionNote } from '../../ui/edition-note/edition-note';
 import { ROOM_LABELS } from '../room-labels';
 import { SEVERITY_LABELS } from '../severity-labels';
 

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { MatTableModule } from '@angular/material/table';
 import { FINDING_CODE_TABLE, ITEM_STATUS_LABELS, LineItem } from '@cc/shared';
-import { EditionNote } from '../edition-note/edition-note';
+import { EditionNote } from '../../ui/edition-note/edition-note';
 import { ROOM_LABELS } from '../room-labels';
 
 /** The request's line items, read-only, as every party sees them once the review is done. */

@@ -1,5 +1,5 @@
 // Invented report text and items for the intake component specs (not part of the app bundle).
-import { LineItem, ReportFile, UploadResult } from '@cc/shared';
+import { editionNote, LineItem, ReportFile, UploadResult } from '@cc/shared';
 
 export const REPORT_PAGES = [
   'ELECTRICAL\n1. Kitchen countertop receptacles are not GFCI protected (2 locations).\n2. Reversed polarity at the hall bedroom receptacle.',
@@ -59,7 +59,7 @@ export function proposedItems(): LineItem[] {
       severity: 'safety',
       necRefs: ['210.8(A)', '406.4(D)(3)'],
       version: 3,
-      editionNote: { requiredSince: 1987, requiredByAdoptedEdition: true, reference: '210.8(A)(6), 406.4(D)(3)', text: 'Information only (GFCI protection). NFPA 70 asks for it at kitchen countertops.' },
+      editionNote: editionNote('gfci-missing', 'kitchen', { yearBuilt: 1978, necEdition: 2023 }),
     }),
     item(32, 'Reversed polarity at the hall bedroom receptacle.', { code: 'reversed-polarity', room: 'bedroom', location: 'hall bedroom receptacle', severity: 'safety', version: 1 }),
     item(33, 'Open junction box in the garage ceiling.', { code: 'open-junction-box', room: 'garage', location: 'garage ceiling', severity: 'safety', version: 2 }),

@@ -7,7 +7,7 @@ import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatCheckboxHarness } from '@angular/material/checkbox/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { provideRouter, Router } from '@angular/router';
-import { BulkPriceItems, priceQuote, RequestPricing, SendQuote } from '@cc/shared';
+import { BulkPriceItems, editionNote, priceQuote, RequestPricing, SendQuote } from '@cc/shared';
 import { Clock } from '../../core/time/clock';
 import { pricingItem, requestDetail, requestPricing, SMALL_BOOK } from '../testing/pricing-fixtures';
 import { BulkPricing } from './bulk-pricing';
@@ -58,6 +58,16 @@ describe('BulkPricing', () => {
     // docs/pricing.md, Example 2: two GFCIs in shallow boxes on one visit, $449.94.
     expect(text('bulk-preview-total')).toBe('$449.94');
     expect(text('totals-quote-total')).toBe('$314.34');
+  });
+
+  it('shows beside an item the code in force when the house was built, in plain words', async () => {
+    // From memory: bathroom GFCI first required in 1975; replacement rule NEC 406.4(D)(3).
+    const note = editionNote('gfci-missing', 'bathroom', { yearBuilt: 1978, necEdition: 2023 });
+    await render(requestPricing([pricingItem(40, { code: 'gfci-missing', room: 'bathroom', editionNote: note }), pricingItem(41)]));
+    const notes = host.querySelectorAll('[data-testid="pricing-row"] [data-testid="edition-note"]');
+    expect(notes).toHaveLength(1);
+    expect(notes[0].querySelector('summary')?.textContent).toContain('GFCI: required when this 1978 house was built; required for any replacement today');
+    expect(notes[0].textContent).toContain('authority having jurisdiction');
   });
 
   it('applies one change to every selected item with the versions it saw and the totals it shows', async () => {

@@ -4,6 +4,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { effectiveQuantity, ITEM_STATUS_LABELS, PricingItem, QuoteBreakdown, RateBook } from '@cc/shared';
+import { EditionNote } from '../../ui/edition-note/edition-note';
 import { MoneyPipe } from '../../ui/money/money';
 import { codeLabel } from '../../ui/code-label';
 import { lineCentsOf } from '../live-pricing';
@@ -24,7 +25,7 @@ interface Row {
 /** The items of a request with their prices, and checkboxes to select many of them at once. */
 @Component({
   selector: 'cc-pricing-table',
-  imports: [MatTableModule, MatCheckboxModule, MatIconModule, MatTooltipModule, MoneyPipe, VisitLabelPipe],
+  imports: [MatTableModule, MatCheckboxModule, MatIconModule, MatTooltipModule, MoneyPipe, VisitLabelPipe, EditionNote],
   templateUrl: './pricing-table.html',
   styleUrl: './pricing-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -39,6 +39,7 @@ export function pricingItem(id: number, overrides: Partial<PricingItem> = {}): P
     suggestedEntryId: 11,
     isPriced: false,
     lineCents: null,
+    editionNote: null,
     ...overrides,
   };
 }

@@ -28,6 +28,7 @@ const line = (lineItemId: number, location: string, lineCents: number): QuoteVer
   flatCents: 0,
   lineCents,
   outOfScopeReason: null,
+  editionNote: null,
 });
 
 function version(n: number, isCurrent: boolean): QuoteVersion {

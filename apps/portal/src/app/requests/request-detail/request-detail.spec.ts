@@ -70,11 +70,20 @@ describe('RequestDetail', () => {
     httpTesting.expectOne('/api/requests/12/items').flush([]);
     // Agents of a request in draft get the contractor picker, which lists the contractors.
     httpTesting.match('/api/contractors').forEach((req) => req.flush([]));
+    flushActivity();
     await fixture.whenStable();
     return fixture.nativeElement;
   }
 
-  afterEach(() => httpTesting.verify());
+  /** The activity timeline reads the request's entries (none in these cases). */
+  function flushActivity(): void {
+    httpTesting.match((r) => r.url === '/api/requests/12/activity').forEach((req) => req.flush({ items: [], total: 0, page: 0, pageSize: 20 }));
+  }
+
+  afterEach(() => {
+    flushActivity();
+    httpTesting.verify();
+  });
 
   it('shows the property, the countdown to closing, the contractor licence and the empty line items', async () => {
     const host = await render('agent', ['buyer-agent']);

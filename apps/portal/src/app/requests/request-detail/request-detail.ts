@@ -10,6 +10,7 @@ import { catchError, map, of, switchMap } from 'rxjs';
 import { Auth } from '../../core/auth/auth';
 import { describeFailure } from '../../core/http/api-error-of';
 import { Notice } from '../../core/http/notice';
+import { ActivityTimeline } from '../../activity/activity-timeline/activity-timeline';
 import { IntakePanel } from '../../intake/intake-panel/intake-panel';
 import { RequestPricingLinks } from '../../pricing/request-pricing-links/request-pricing-links';
 import { RequestWorkLink } from '../../work/request-work-link/request-work-link';
@@ -43,6 +44,7 @@ type Loaded = { detail: RepairRequestDetail; error?: undefined } | { detail?: un
     IntakePanel,
     RequestPricingLinks,
     RequestWorkLink,
+    ActivityTimeline,
   ],
   templateUrl: './request-detail.html',
   styleUrl: './request-detail.scss',
@@ -92,6 +94,6 @@ export class RequestDetail {
 
   protected showInvited(detail: RepairRequestDetail): void {
     this.detail.set(detail);
-    this.notice.success('Invitation sent.');
+    this.notice.success('Invitation e-mailed. The link is also shown beside their name, to pass on if the e-mail does not arrive.');
   }
 }

@@ -145,6 +145,27 @@ describe('RequestList', () => {
     expect(empty?.textContent).toContain('No requests match these filters');
   });
 
+  it('filters by the year the house was built, on the server, and shows the year on each row', async () => {
+    await render('contractor');
+    expectList().flush(page([summary(1)], 1));
+    await settle();
+    expect((fixture.nativeElement as HTMLElement).querySelector('.place')?.textContent).toContain('built 1978');
+
+    const built = await loader.getHarness(MatSelectHarness.with({ selector: '[data-testid="request-list-built"]' }));
+    await built.clickOptions({ text: 'Built before 1975' });
+    const req = expectList();
+    expect(req.request.params.get('builtBefore')).toBe('1975');
+    expect(req.request.params.get('page')).toBe('0');
+    req.flush(page([], 0));
+    await settle();
+    expect((fixture.nativeElement as HTMLElement).querySelector('[data-testid="request-list-empty"]')?.textContent).toContain('No requests match these filters');
+
+    await built.clickOptions({ text: 'Any year' });
+    const all = expectList();
+    expect(all.request.params.has('builtBefore')).toBe(false);
+    all.flush(page([summary(1)], 1));
+  });
+
   it('searches after typing pauses, with the text trimmed', async () => {
     await render('agent');
     expectList().flush(page([summary(1)], 1));

@@ -30,6 +30,8 @@ import { StatusChip } from '../../ui/status-chip/status-chip';
 import { RequestsApi } from '../requests-api';
 
 type RequestSort = (typeof REQUEST_SORTS)[number];
+/** Build-year filters: years around which the code's protections changed (GFCI 1975 and 1987, the 2005 edition). */
+const BUILT_BEFORE_CHOICES = [1960, 1975, 1987, 2005] as const;
 const DEFAULT_SORT: Sort = { active: 'closingDate', direction: 'asc' };
 
 /** The requests the signed-in person takes part in, paged, sorted and filtered on the server. */
@@ -73,6 +75,9 @@ export class RequestList {
   protected readonly sort = signal<Sort>(DEFAULT_SORT);
   protected readonly pageSize = signal(20);
   protected readonly statusFilter = signal<RequestStatus[]>([]);
+  protected readonly builtBeforeChoices = BUILT_BEFORE_CHOICES;
+  /** Only houses built before this year; null for any year. */
+  protected readonly builtBefore = signal<number | null>(null);
   protected readonly searchControl = new FormControl('', { nonNullable: true });
   private readonly search = toSignal(
     this.searchControl.valueChanges.pipe(
@@ -84,7 +89,7 @@ export class RequestList {
   );
   /** Back to the first page whenever the sort, the filters or the page size change. */
   protected readonly pageIndex = linkedSignal({
-    source: () => [this.sort(), this.statusFilter(), this.search(), this.pageSize()] as const,
+    source: () => [this.sort(), this.statusFilter(), this.builtBefore(), this.search(), this.pageSize()] as const,
     computation: () => 0,
   });
   protected readonly isLoading = signal(true);
@@ -98,6 +103,7 @@ export class RequestList {
       direction: sort.direction || 'asc',
       status: this.statusFilter().join(',') || undefined,
       q: this.search() || undefined,
+      builtBefore: this.builtBefore() ?? undefined,
     };
   });
 
@@ -119,7 +125,7 @@ export class RequestList {
   protected readonly total = computed(() => this.result()?.total ?? 0);
   /** The server stops counting at a cap: the paginator then says "of 1,000+". */
   private readonly showsCap = effect(() => this.paginatorIntl.setCapped(this.result()?.isTotalCapped ?? false));
-  protected readonly isFiltered = computed(() => this.statusFilter().length > 0 || this.search() !== '');
+  protected readonly isFiltered = computed(() => this.statusFilter().length > 0 || this.builtBefore() !== null || this.search() !== '');
 
   protected changeSort(sort: Sort): void {
     this.sort.set(sort);
@@ -132,6 +138,10 @@ export class RequestList {
 
   protected filterByStatus(statuses: RequestStatus[]): void {
     this.statusFilter.set(statuses);
+  }
+
+  protected filterByBuildYear(year: number | null): void {
+    this.builtBefore.set(year);
   }
 
   protected open(row: RepairRequestSummary): void {

@@ -1,0 +1,55 @@
+// The development mailbox: messages the local SMTP sink received, kept in the database so every
+// server process (and the admin page) sees the same list.
+import type { CapturedMail, Page } from '@cc/shared';
+import type { Db } from '../../db/knex';
+import type { CapturedMessage } from './smtp-sink';
+
+interface CapturedRow {
+  id: string;
+  message_id: string | null;
+  from_address: string;
+  to_addresses: string[];
+  subject: string;
+  text_body: string;
+  html_body: string;
+  received_at: Date;
+}
+
+const toMail = (r: CapturedRow): CapturedMail => ({
+  id: Number(r.id),
+  messageId: r.message_id,
+  from: r.from_address,
+  to: r.to_addresses,
+  subject: r.subject,
+  text: r.text_body,
+  html: r.html_body,
+  receivedAt: r.received_at.toISOString(),
+});
+
+export class CapturedMailRepository {
+  constructor(private readonly db: Db) {}
+
+  async keep(message: CapturedMessage): Promise<void> {
+    await this.db('captured_mail').insert({
+      message_id: message.messageId?.slice(0, 300) ?? null,
+      from_address: message.from.slice(0, 300),
+      to_addresses: message.to,
+      subject: message.subject.slice(0, 500),
+      text_body: message.text,
+      html_body: message.html,
+    });
+  }
+
+  /** Newest first; `to` narrows to messages sent to that address. */
+  async list(page: number, pageSize: number, to: string | null): Promise<Page<CapturedMail>> {
+    const query = this.db<CapturedRow>('captured_mail').select('*', this.db.raw('count(*) over() AS total_count'));
+    if (to) query.whereRaw('? = ANY(to_addresses)', [to]);
+    const rows = (await query.orderBy('id', 'desc').limit(pageSize).offset(page * pageSize)) as (CapturedRow & { total_count: string })[];
+    return { items: rows.map(toMail), total: rows.length ? Number(rows[0].total_count) : 0, page, pageSize };
+  }
+
+  async find(id: number): Promise<CapturedMail | null> {
+    const row: CapturedRow | undefined = await this.db('captured_mail').where('id', id).first();
+    return row ? toMail(row) : null;
+  }
+}

@@ -1,0 +1,50 @@
+// What every move of the flow writes besides the move itself, in its transaction (hung on the flow
+// service's listener hook): a timeline entry (who, from, to, note) and the messages the move calls for.
+import { REQUEST_STATUS_LABELS, findingCodeInfo, type FindingCode } from '@cc/shared';
+import type { ActivityRepository } from '../activity/activity.repository';
+import type { Trx } from '../db/knex';
+import type { FlowListener, ItemMoveMade, RequestMoveMade } from '../flow/flow.service';
+import type { NotificationsService } from './notifications.service';
+
+export function createFlowListener(activity: ActivityRepository, notifications: NotificationsService): FlowListener {
+  return {
+    async requestMoved(trx: Trx, made: RequestMoveMade): Promise<void> {
+      const { requestId, move, from, to, byUserId, note } = made;
+      if (from !== to) {
+        await activity.record(trx, {
+          requestId,
+          actorUserId: byUserId,
+          kind: 'status',
+          action: move.event,
+          summary: `${move.label}: ${from ? `${REQUEST_STATUS_LABELS[from]} → ` : ''}${REQUEST_STATUS_LABELS[to]}${note ? ` (${note})` : ''}`,
+          before: from ? { status: from } : null,
+          after: { status: to },
+        });
+      }
+      if (move.event === 'confirm-items') {
+        const [{ count }] = await trx('line_items').where({ request_id: requestId, status: 'open' }).count({ count: '*' });
+        await notifications.notify(trx, { kind: 'ready-to-price', requestId, actorUserId: byUserId, itemCount: Number(count) });
+      }
+      if (move.event === 'send-quote') {
+        const quote = await trx('quotes').where({ request_id: requestId }).orderBy('version', 'desc').first('version', 'total_cents');
+        if (quote) await notifications.notify(trx, { kind: 'quote-sent', requestId, actorUserId: byUserId, version: quote.version, totalCents: quote.total_cents });
+      }
+    },
+
+    async itemMoved(trx: Trx, made: ItemMoveMade): Promise<void> {
+      // Items read from a report are summed up by the report's own entry.
+      if (made.move.event === 'propose') return;
+      const item = await trx('line_items').where({ id: made.itemId }).first('code');
+      await activity.record(trx, {
+        requestId: made.requestId,
+        itemId: made.itemId,
+        actorUserId: made.byUserId,
+        kind: 'items',
+        action: `item-${made.move.event}`,
+        summary: `${made.move.label}: ${item ? findingCodeInfo(item.code as FindingCode).label : `item #${made.itemId}`}`,
+        before: made.from ? { status: made.from } : null,
+        after: { status: made.to },
+      });
+    },
+  };
+}

@@ -1,0 +1,222 @@
+// notify(): the one call that turns something that happened on a request into e-mails. It runs inside
+// the caller's transaction: it finds the people the message is for, honours each one's preferences,
+// writes the outbox rows (sent later by the worker) and the timeline entry, and commits or rolls back
+// with the change itself.
+import { createHash } from 'node:crypto';
+import {
+  ADJUSTABLE_KINDS,
+  NOTIFICATION_RULES,
+  requestReference,
+  type ActivityKind,
+  type CurrentUser,
+  type FlowActor,
+  type NotificationKind,
+  type NotificationPreference,
+  type PartyRole,
+  type UpdatePreferences,
+} from '@cc/shared';
+import type { NewActivity, ActivityRepository } from '../activity/activity.repository';
+import type { Db, Trx } from '../db/knex';
+import { NotFoundError } from '../errors';
+import { footerFor, layOut, wordsFor, type RequestFacts } from './message-templates';
+import { occurrenceOf, type NotifyInput } from './notify-input';
+import type { NewOutboxMessage, OutboxRepository } from './outbox.repository';
+import type { PreferencesRepository } from './preferences.repository';
+import { readUnsubscribeToken } from './unsubscribe-token';
+
+export interface MailSettings {
+  publicUrl: string;
+  /** The From address of every message. */
+  from: string;
+  /** Signs unsubscribe links. */
+  secret: string;
+}
+
+interface Recipient {
+  userId: number | null;
+  email: string;
+  name: string | null;
+}
+
+/** The timeline group of each kind's entry (none for the daily risk notice, which changes nothing). */
+const ACTIVITY_OF: Record<NotificationKind, ActivityKind | null> = {
+  invitation: 'parties',
+  'report-parsed': 'reports',
+  'ready-to-price': 'items',
+  'quote-sent': 'quotes',
+  'items-decided': 'approvals',
+  'payment-received': 'payments',
+  'visit-scheduled': 'visits',
+  'item-corrected': 'items',
+  'letter-issued': 'letters',
+  'closing-at-risk': null,
+};
+
+/** Money an entry carries, for the dashboards. */
+function amountOf(input: NotifyInput): number | null {
+  if (input.kind === 'quote-sent') return input.totalCents;
+  if (input.kind === 'items-decided') return input.approvedCents;
+  if (input.kind === 'payment-received') return input.amountCents;
+  return null;
+}
+
+export class NotificationsService {
+  constructor(
+    private readonly db: Db,
+    private readonly outbox: OutboxRepository,
+    private readonly preferences: PreferencesRepository,
+    private readonly activity: ActivityRepository,
+    readonly settings: MailSettings,
+  ) {}
+
+  /**
+   * Writes the messages `input` calls for, in `trx`. Returns how many messages were written (0 when
+   * nobody is to be told, everyone turned it off, or the same occurrence was written before).
+   */
+  async notify(trx: Trx, input: NotifyInput): Promise<number> {
+    const facts = await this.requestFacts(input.requestId, trx);
+    const rule = NOTIFICATION_RULES[input.kind];
+    const people = input.kind === 'invitation' ? [{ userId: null, email: input.email, name: null }] : await this.recipients(input.requestId, rule.to, input.actorUserId, trx);
+    const deliveries = await this.preferences.deliveries(
+      people.flatMap((p) => (p.userId === null ? [] : [p.userId])),
+      input.kind,
+      trx,
+    );
+    const words = wordsFor(input, facts);
+    const messages: NewOutboxMessage[] = [];
+    const told: string[] = [];
+    for (const person of people) {
+      const delivery = person.userId === null ? 'immediate' : deliveries.get(person.userId)!;
+      if (delivery === 'off') continue;
+      const key = hash(`${input.kind}|${input.requestId}|${occurrenceOf(input)}|${person.userId ?? person.email}`);
+      const message = layOut(
+        { ...words, action: { label: words.action.label, url: `${this.settings.publicUrl}${words.action.path}` } },
+        {
+          publicUrl: this.settings.publicUrl,
+          recipientName: person.name,
+          footer: footerFor(input.kind),
+          footerLink: input.kind === 'invitation' ? null : { label: 'Choose which messages you get', url: `${this.settings.publicUrl}/account` },
+        },
+      );
+      messages.push({
+        dedupe_key: key,
+        kind: input.kind,
+        request_id: input.requestId,
+        recipient_user_id: person.userId,
+        recipient_email: person.email,
+        subject: message.subject,
+        text_body: message.text,
+        html_body: message.html,
+        link: message.link,
+        message_id: this.messageId(key),
+        status: delivery === 'digest' ? 'held' : 'pending',
+      });
+      told.push(person.name ?? person.email);
+    }
+    const written = await this.outbox.enqueue(messages, trx);
+    const group = ACTIVITY_OF[input.kind];
+    if (group && (written > 0 || messages.length === 0)) {
+      const entry: NewActivity = {
+        requestId: input.requestId,
+        itemId: input.kind === 'item-corrected' ? input.itemId : null,
+        actorUserId: input.actorUserId,
+        kind: group,
+        action: input.kind,
+        summary: `${words.subject.replace(`${facts.reference}: `, '')}${told.length ? ` — e-mailed to ${told.join(', ')}` : ''}`,
+        after: { emailedTo: told },
+        amountCents: amountOf(input),
+      };
+      await this.activity.record(trx, entry);
+    }
+    return written;
+  }
+
+  messageId(key: string): string {
+    return `<cc-${key.slice(0, 40)}@${new URL(this.settings.publicUrl).hostname || 'closing-circuit.local'}>`;
+  }
+
+  async requestFacts(requestId: number, trx?: Trx): Promise<RequestFacts> {
+    const row = await (trx ?? this.db)('repair_requests').where({ id: requestId }).first('id', 'street', 'city', 'state', 'zip', 'closing_date');
+    if (!row) throw new NotFoundError('No such repair request');
+    return { id: row.id, reference: requestReference(row.id), address: `${row.street}, ${row.city}, ${row.state} ${row.zip}`, closingDate: row.closing_date };
+  }
+
+  /** The people playing `parts` on the request (and the assigned contractor's people), but not `actor`. */
+  private async recipients(requestId: number, parts: readonly FlowActor[], actorUserId: number | null, trx: Trx): Promise<Recipient[]> {
+    const roles = parts.filter((p): p is PartyRole => p !== 'contractor' && p !== 'admin');
+    const rows: { id: number; email: string; name: string }[] = await trx('users as u')
+      .select('u.id', 'u.email', 'u.name')
+      .where((w) => {
+        if (roles.length) {
+          w.whereIn('u.id', trx('request_parties').select('user_id').where({ request_id: requestId }).whereIn('role', roles).whereNotNull('user_id'));
+        }
+        if (parts.includes('contractor')) {
+          w.orWhere((c) =>
+            c.where('u.role', 'contractor').whereIn('u.organisation_id', trx('repair_requests').select('contractor_organisation_id').where({ id: requestId }).whereNotNull('contractor_organisation_id')),
+          );
+        }
+        if (!roles.length && !parts.includes('contractor')) w.whereRaw('false');
+      })
+      .orderBy('u.id');
+    return rows.filter((r) => r.id !== actorUserId).map((r) => ({ userId: r.id, email: r.email, name: r.name }));
+  }
+
+  // ---- preferences ---------------------------------------------------------------------------
+
+  async preferencesOf(user: CurrentUser): Promise<NotificationPreference[]> {
+    const chosen = await this.preferences.forUser(user.id);
+    return ADJUSTABLE_KINDS.map((kind) => ({
+      kind,
+      label: NOTIFICATION_RULES[kind].label,
+      delivery: chosen.get(kind) ?? NOTIFICATION_RULES[kind].defaultDelivery,
+      isDigestOnly: NOTIFICATION_RULES[kind].isDigestOnly ?? false,
+    }));
+  }
+
+  async updatePreferences(user: CurrentUser, input: UpdatePreferences): Promise<NotificationPreference[]> {
+    await this.db.transaction(async (trx) => {
+      await this.preferences.set(user.id, input.preferences, trx);
+      // Messages already waiting for the digest of a kind now turned off are not sent.
+      const off = input.preferences.filter((p) => p.delivery === 'off').map((p) => p.kind);
+      if (off.length) await trx('outbox_messages').where({ recipient_user_id: user.id, status: 'held' }).whereIn('kind', off).update({ status: 'skipped' });
+    });
+    return this.preferencesOf(user);
+  }
+
+  // ---- unsubscribe from digests ----------------------------------------------------------------
+
+  private async userOfToken(token: string): Promise<{ id: number; email: string }> {
+    const userId = readUnsubscribeToken(this.settings.secret, token);
+    const user = userId === null ? null : await this.db('users').where({ id: userId }).first('id', 'email');
+    if (!user) throw new NotFoundError('This unsubscribe link is not valid.');
+    return user;
+  }
+
+  /** Who the link is for (the address only, half hidden). */
+  async unsubscribeLookup(token: string): Promise<{ email: string }> {
+    const user = await this.userOfToken(token);
+    return { email: maskEmail(user.email) };
+  }
+
+  /** Turns every message that came in the digest off, and drops what was waiting for it. */
+  async unsubscribe(token: string): Promise<{ email: string; turnedOff: NotificationKind[] }> {
+    const user = await this.userOfToken(token);
+    const turnedOff = await this.db.transaction(async (trx) => {
+      const chosen = await this.preferences.forUser(user.id, trx);
+      const kinds = ADJUSTABLE_KINDS.filter((k) => (chosen.get(k) ?? NOTIFICATION_RULES[k].defaultDelivery) === 'digest');
+      await this.preferences.set(user.id, kinds.map((kind) => ({ kind, delivery: 'off' as const })), trx);
+      await this.outbox.skipHeldFor(user.id, trx);
+      return kinds;
+    });
+    return { email: maskEmail(user.email), turnedOff };
+  }
+}
+
+export function hash(value: string): string {
+  return createHash('sha256').update(value).digest('hex');
+}
+
+function maskEmail(email: string): string {
+  const [name, domain] = email.split('@');
+  return `${name.slice(0, 2)}${'•'.repeat(Math.max(1, name.length - 2))}@${domain}`;
+}

@@ -1,0 +1,97 @@
+import * as z from 'zod';
+import type { FlowActor } from '../requests/request-flow';
+
+/** Every message the product sends by e-mail. */
+export const NOTIFICATION_KINDS = [
+  'invitation',
+  'report-parsed',
+  'ready-to-price',
+  'quote-sent',
+  'items-decided',
+  'payment-received',
+  'visit-scheduled',
+  'item-corrected',
+  'letter-issued',
+  'closing-at-risk',
+] as const;
+export const NotificationKindSchema = z.enum(NOTIFICATION_KINDS);
+export type NotificationKind = z.infer<typeof NotificationKindSchema>;
+
+export const DELIVERIES = ['immediate', 'digest', 'off'] as const;
+export const DeliverySchema = z.enum(DELIVERIES);
+export type Delivery = z.infer<typeof DeliverySchema>;
+
+export interface NotificationKindRule {
+  /** What the message is called on the preferences screen. */
+  readonly label: string;
+  /** Who receives it on a request (parties by their part, `contractor` = the assigned contractor's people). */
+  readonly to: readonly FlowActor[];
+  /** How it is delivered when the person chose nothing. */
+  readonly defaultDelivery: Exclude<Delivery, 'off'>;
+  /** Whether a person may turn it off or into the digest (invitations always go out at once). */
+  readonly isAdjustable: boolean;
+  /** Whether it can only come in the daily digest. */
+  readonly isDigestOnly?: boolean;
+}
+
+export const NOTIFICATION_RULES: Record<NotificationKind, NotificationKindRule> = {
+  invitation: { label: 'Invitation to a request', to: [], defaultDelivery: 'immediate', isAdjustable: false },
+  'report-parsed': { label: 'Inspection report read', to: ['buyer-agent'], defaultDelivery: 'immediate', isAdjustable: true },
+  'ready-to-price': { label: 'Request ready to price', to: ['contractor'], defaultDelivery: 'immediate', isAdjustable: true },
+  'quote-sent': { label: 'Quote sent', to: ['seller', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
+  'items-decided': { label: 'Items approved or declined', to: ['contractor', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
+  'payment-received': { label: 'Payment received', to: ['contractor', 'seller', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
+  'visit-scheduled': { label: 'Visit scheduled', to: ['seller', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
+  'item-corrected': { label: 'Item corrected', to: ['buyer-agent', 'listing-agent', 'seller'], defaultDelivery: 'immediate', isAdjustable: true },
+  'letter-issued': { label: 'Completion letter issued', to: ['inspector', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
+  'closing-at-risk': {
+    label: 'Closing at risk (daily digest)',
+    to: ['buyer-agent', 'listing-agent', 'contractor'],
+    defaultDelivery: 'digest',
+    isAdjustable: true,
+    isDigestOnly: true,
+  },
+};
+
+/** The kinds a person sets on the preferences screen. */
+export const ADJUSTABLE_KINDS: readonly NotificationKind[] = NOTIFICATION_KINDS.filter((k) => NOTIFICATION_RULES[k].isAdjustable);
+
+export const NotificationPreferenceSchema = z.object({
+  kind: NotificationKindSchema,
+  label: z.string(),
+  delivery: DeliverySchema,
+  isDigestOnly: z.boolean(),
+});
+export type NotificationPreference = z.infer<typeof NotificationPreferenceSchema>;
+
+export const UpdatePreferencesSchema = z
+  .object({
+    preferences: z
+      .array(z.object({ kind: NotificationKindSchema, delivery: DeliverySchema }))
+      .max(NOTIFICATION_KINDS.length),
+  })
+  .superRefine((value, ctx) => {
+    value.preferences.forEach((p, i) => {
+      const rule = NOTIFICATION_RULES[p.kind];
+      if (!rule.isAdjustable) ctx.addIssue({ code: 'custom', path: ['preferences', i, 'kind'], message: 'Invitations are always sent' });
+      else if (rule.isDigestOnly && p.delivery === 'immediate')
+        ctx.addIssue({ code: 'custom', path: ['preferences', i, 'delivery'], message: 'This message comes only in the daily digest' });
+    });
+  });
+export type UpdatePreferences = z.infer<typeof UpdatePreferencesSchema>;
+
+/** A message the development mailbox captured. */
+export const CapturedMailSchema = z.object({
+  id: z.number().int(),
+  messageId: z.string().nullable(),
+  from: z.string(),
+  to: z.array(z.string()),
+  subject: z.string(),
+  text: z.string(),
+  html: z.string(),
+  receivedAt: z.string(),
+});
+export type CapturedMail = z.infer<typeof CapturedMailSchema>;
+
+/** How the outbox stands, for the development mailbox page. */
+export const OutboxCountsSchema = z.record(z.string(), z.number().int());

@@ -1,0 +1,130 @@
+// E-mail, the activity timeline and the dashboards, as people use them in the portal.
+import type { Browser, Page } from 'playwright-core';
+import { seriousViolations } from '../helpers/axe';
+import { launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
+
+jest.setTimeout(120_000);
+
+let browser: Browser;
+let page: Page;
+const DESKTOP = { width: 1366, height: 900 };
+const PHONE = { width: 390, height: 844 };
+const SELLER = `new.seller.${Date.now().toString(36)}@mail.test`;
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(() => browser?.close());
+afterEach(() => page?.close());
+
+async function open(viewport = DESKTOP): Promise<Page> {
+  page = await browser.newPage({ viewport });
+  return page;
+}
+
+describe('an invitation goes out by e-mail and is in the timeline', () => {
+  let requestPath = '';
+
+  it('the agent invites a seller without an account; the page says it was e-mailed; the timeline lists it', async () => {
+    await open();
+    await signInAs(page, 'maya.chen@juniperkey.test');
+    await page.goto(portalUrl('/requests/new'));
+    await page.getByTestId('request-form-street').fill('12 Quarry Bend Court');
+    await page.getByTestId('request-form-city').fill('Marlow Springs');
+    await page.getByTestId('request-form-state').click();
+    await page.getByRole('option', { name: 'CO', exact: true }).click();
+    await page.getByTestId('request-form-zip').fill('81290');
+    await page.getByTestId('request-form-year-built').fill('1971');
+    await page.getByTestId('request-form-closing-date').fill('2/12/2027');
+    await page.getByTestId('request-form-seller-email').fill(SELLER);
+    await page.getByTestId('request-form-submit').click();
+    await page.getByTestId('request-detail-heading').waitFor();
+    requestPath = new URL(page.url()).pathname;
+
+    expect(await page.getByTestId('invite-pending').first().textContent()).toContain(`e-mailed to ${SELLER}`);
+    const entries = page.getByTestId('activity-entry');
+    await entries.first().waitFor();
+    await page.getByTestId('activity-filter-parties').click();
+    await page.getByTestId('activity-entry').filter({ hasText: 'You are invited' }).waitFor();
+    const kinds = await page.getByTestId('activity-entry').evaluateAll((els) => els.map((e) => e.getAttribute('data-kind')));
+    expect(new Set(kinds)).toEqual(new Set(['parties']));
+    expect(await seriousViolations(page)).toEqual([]);
+    await screenshot(page, 'request-activity-desktop');
+    await page.setViewportSize(PHONE);
+    await screenshot(page, 'request-activity-phone');
+  });
+
+  it('the administrator reads the invitation in the development mailbox, text and HTML', async () => {
+    await open();
+    await signInAs(page, 'admin@closingcircuit.test');
+    const item = page.getByTestId('mailbox-item').filter({ hasText: SELLER });
+    for (let tries = 0; tries < 30 && !(await item.count()); tries++) {
+      await page.goto(portalUrl('/mailbox'));
+      await page.getByTestId('mailbox-heading').waitFor();
+      await page.waitForLoadState('networkidle');
+    }
+    await item.first().click();
+    const text = await page.getByTestId('mailbox-text').textContent();
+    expect(text).toContain('You have been named seller on repair request');
+    expect(text).toMatch(new RegExp(`Open the invitation: ${portalUrl('/invite/')}\\S+`));
+    expect(requestPath).toMatch(/^\/requests\/\d+$/);
+    await page.getByRole('tab', { name: 'HTML' }).click();
+    expect(await page.getByTestId('mailbox-html').getByRole('link', { name: 'Open the invitation' }).getAttribute('href')).toContain('/invite/');
+    expect(await seriousViolations(page)).toEqual([]);
+    await screenshot(page, 'mailbox-desktop');
+    await page.setViewportSize(PHONE);
+    await screenshot(page, 'mailbox-phone');
+  });
+});
+
+describe('dashboards', () => {
+  it('the agent sees the open requests by closing date with risk and the items by status', async () => {
+    await open();
+    await signInAs(page, 'maya.chen@juniperkey.test');
+    await page.getByTestId('nav-dashboard').click();
+    await page.getByTestId('dashboard-heading').waitFor();
+    await page.getByTestId('dashboard-request').first().waitFor();
+    expect(await page.getByTestId('dashboard-request').count()).toBeGreaterThan(0);
+    expect(await page.getByTestId('dashboard-request').first().textContent()).toMatch(/Closing .* (left|ago)/);
+    expect(await seriousViolations(page)).toEqual([]);
+    await screenshot(page, 'agent-dashboard-desktop');
+    await page.setViewportSize(PHONE);
+    await screenshot(page, 'agent-dashboard-phone');
+  });
+
+  it('the contractor sees the pipeline, revenue by month with its chart, and the agents who send work', async () => {
+    await open();
+    await signInAs(page, 'sam.okafor@brightline.test');
+    await page.goto(portalUrl('/dashboard'));
+    await page.getByTestId('pipeline-to-price').waitFor();
+    expect(await page.getByTestId('pipeline-to-price').textContent()).toContain('To price');
+    await page.locator('canvas[aria-label^="Revenue"]').waitFor();
+    expect(await page.getByTestId('revenue-table').locator('tbody tr').count()).toBe(6);
+    await page.getByRole('button', { name: '12 months' }).click();
+    await page.getByTestId('revenue-table').locator('tbody tr').nth(11).waitFor();
+    expect(await seriousViolations(page)).toEqual([]);
+    await screenshot(page, 'contractor-dashboard-desktop');
+    await page.setViewportSize(PHONE);
+    const width = await page.evaluate(() => document.documentElement.scrollWidth);
+    expect(width).toBeLessThanOrEqual(PHONE.width);
+    await screenshot(page, 'contractor-dashboard-phone');
+  });
+});
+
+describe('message preferences', () => {
+  it('a seller turns “Quote sent” into the daily digest and saves', async () => {
+    await open(PHONE);
+    await signInAs(page, 'ellen.brooks@mail.test');
+    await page.goto(portalUrl('/account'));
+    const row = page.getByTestId('pref-quote-sent');
+    await row.waitFor();
+    await row.getByRole('button', { name: 'Daily digest' }).click();
+    await page.getByTestId('save-preferences').click();
+    await page.getByText('Your e-mail choices are saved.').waitFor();
+    await page.reload();
+    await page.getByTestId('pref-quote-sent').waitFor();
+    expect(await page.getByTestId('pref-quote-sent').getByRole('button', { name: 'Daily digest' }).getAttribute('aria-pressed')).toBe('true');
+    expect(await seriousViolations(page)).toEqual([]);
+    await screenshot(page, 'preferences-phone');
+  });
+});
