@@ -16,6 +16,11 @@ export function plainText(max: number, maxMessage?: string) {
   return z.string().max(max, maxMessage).refine(hasNoNul, { error: NO_NUL_MESSAGE });
 }
 
+/** The same, trimmed first (free text typed into a form). */
+export function trimmedText(max: number, maxMessage = `Use at most ${max} characters`) {
+  return z.string().trim().max(max, maxMessage).refine(hasNoNul, { error: NO_NUL_MESSAGE });
+}
+
 /** The id of a stored record, as a client sends it in a body. */
 export const RecordIdSchema = z.number().int().positive().max(INT4_MAX, 'No record has this id');
 

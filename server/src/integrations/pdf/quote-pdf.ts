@@ -1,12 +1,8 @@
-import { dirname, join } from 'node:path';
 import PDFDocument from 'pdfkit';
 import { FINDING_CODE_TABLE, formatCents, formatCentsDelta, placeLabel, quantityLabel, type QuoteVersion } from '@cc/shared';
+import { PDF_FONT_REGULAR as REGULAR, PDF_FONT_SEMIBOLD as SEMIBOLD } from './pdf-fonts';
 
-// The quote as a PDF to download: Letter pages, Source Sans 3 (the portal's typeface, from the
-// `source-sans` package: pdfkit embeds TrueType/OpenType, not woff2) embedded as a subset.
-const FONT_DIR = join(dirname(require.resolve('source-sans/package.json')), 'TTF');
-const REGULAR = join(FONT_DIR, 'SourceSans3-Regular.ttf');
-const SEMIBOLD = join(FONT_DIR, 'SourceSans3-Semibold.ttf');
+// The quote as a PDF to download: Letter pages, Source Sans 3 embedded as a subset.
 
 const MARGIN = 54;
 const PAGE_WIDTH = 612;
