@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs';
 import sharp from 'sharp';
 import type { Browser, Page } from 'playwright-core';
 import { seriousViolations } from '../helpers/axe';
@@ -138,7 +139,8 @@ describe('visits, corrections and the completion letter', () => {
     await page.getByTestId('letter-1').waitFor();
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('letter-download').click()]);
     expect(download.suggestedFilename()).toMatch(/^CL-\d{5}-rev1\.pdf$/);
-    const pdf = await download.path();
+    // Read the bytes now: the download's file goes with its browser context.
+    const pdf = readFileSync(await download.path());
     await page.getByTestId('review-accept').waitFor();
     await expectAccessible(page);
     await page.context().close();
@@ -150,7 +152,7 @@ describe('visits, corrections and the completion letter', () => {
     await visitor.getByTestId('verify-result').waitFor();
     expect(await visitor.getByTestId('verify-current').textContent()).toContain('current revision');
     expect(await visitor.locator('body').textContent()).not.toContain(STREET);
-    await visitor.getByTestId('verify-file').setInputFiles(pdf);
+    await visitor.getByTestId('verify-file').setInputFiles({ name: 'letter.pdf', mimeType: 'application/pdf', buffer: pdf });
     await visitor.getByTestId('verify-check').filter({ hasText: 'Genuine' }).waitFor();
     await screenshot(visitor, 'verify-letter-phone');
     await expectAccessible(visitor);
