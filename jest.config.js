@@ -3,6 +3,9 @@
 // api (supertest against a real PostgreSQL), browser (playwright-core + Debian chromium).
 const swc = ['@swc/jest', { jsc: { parser: { syntax: 'typescript' }, target: 'es2022' }, module: { type: 'commonjs' } }];
 const sharedAlias = { '^@cc/shared$': '<rootDir>/shared/src/index.ts' };
+// file-type (photo sniffing) and its helpers ship only ES modules, and file-type exports no `require`
+// entry: jest loads its ESM entry and compiles these packages to CommonJS like the project's own code.
+const esmOnly = ['file-type', 'strtok3', 'token-types', '@tokenizer', '@borewit', 'uint8array-extras'];
 
 // Generous time limits: the suite shares a 2-core machine with other work (uploads of several
 // megabytes, bcrypt sign-ins, the first compile of a component file), and a test or hook must not fail
@@ -12,7 +15,8 @@ const LOADED_MACHINE_TIMEOUT_MS = 60_000;
 const node = {
   testEnvironment: 'node',
   transform: { '^.+\\.(t|j)s$': swc },
-  moduleNameMapper: sharedAlias,
+  transformIgnorePatterns: [`/node_modules/(?!(${esmOnly.join('|')})/)`],
+  moduleNameMapper: { ...sharedAlias, '^file-type$': '<rootDir>/node_modules/file-type/index.js' },
   rootDir: __dirname,
 };
 

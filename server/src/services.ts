@@ -24,6 +24,15 @@ import { ReportIntakeService } from './intake/report-intake.service';
 import { RequestsService } from './requests/requests.service';
 import { FlowService } from './flow/flow.service';
 import { createSellerSideServices } from './approvals/seller-side';
+import { CorrectionRepository } from './corrections/correction.repository';
+import { CorrectionsService } from './corrections/corrections.service';
+import { LetterRepository } from './letters/letter.repository';
+import { LettersService } from './letters/letters.service';
+import { SiteVisitRepository } from './visits/site-visit.repository';
+import { VisitsService } from './visits/visits.service';
+import { noProofMessages, type ProofMessages } from './work/proof-messages';
+import { WorkItemRepository } from './work/work-item.repository';
+import { WorkService } from './work/work.service';
 import { ActivityRepository } from './activity/activity.repository';
 import { ActivityService } from './activity/activity.service';
 import { DashboardsRepository } from './dashboards/dashboards.repository';
@@ -36,7 +45,7 @@ import { OutboxRepository } from './notifications/outbox.repository';
 import { PreferencesRepository } from './notifications/preferences.repository';
 
 /** Builds every repository and service of the app from one database handle and the config. */
-export function createServices(db: Db, config: Config) {
+export function createServices(db: Db, config: Config, proofMessages: ProofMessages = noProofMessages) {
   const users = new UserRepository(db);
   const organisations = new OrganisationRepository(db);
   const requests = new RequestRepository(db);
@@ -59,10 +68,15 @@ export function createServices(db: Db, config: Config) {
     secret: config.sessionSecret,
   });
   flow.listen(createFlowListener(activity, notifications));
-  const requestsService = new RequestsService(db, requests, users, organisations, flow, items, itemPricing, config.publicUrl, notifications, activity);
+  const requestsService = new RequestsService(db, requests, users, organisations, flow, items, itemPricing, config.publicUrl, notifications, activity, config.atRiskBusinessDays);
   const rateBookService = new RateBookService(db, rateBooks, organisations);
   const pricingService = new PricingService(db, requestsService, rateBookService, itemPricing, items, quotes, flow);
   const quotesService = new QuotesService(db, requestsService, pricingService, rateBookService, rateBooks, requests, organisations, itemPricing, quotes, flow);
+  const workItems = new WorkItemRepository(db);
+  const siteVisits = new SiteVisitRepository(db);
+  const corrections = new CorrectionRepository(db);
+  const letterRecords = new LetterRepository(db);
+  const letters = new LettersService(db, requestsService, flow, organisations, workItems, corrections, letterRecords, storage, proofMessages, config.publicUrl);
   return {
     repositories: { users, organisations, requests, items, reports, activity },
     flow,
@@ -86,6 +100,10 @@ export function createServices(db: Db, config: Config) {
     ballpark: new BallparkService(requestsService, rateBookService, itemPricing),
     quotes: quotesService,
     sellerSide: createSellerSideServices(db, config, { requests: requestsService, quotes: quotesService, requestRows: requests, quoteRows: quotes, flow }),
+    visits: new VisitsService(db, requestsService, flow, siteVisits, workItems, proofMessages),
+    corrections: new CorrectionsService(db, requestsService, flow, workItems, siteVisits, corrections, storage, proofMessages),
+    letters,
+    work: new WorkService(requestsService, workItems, siteVisits, corrections, letterRecords, letters, config.atRiskBusinessDays),
   };
 }
 

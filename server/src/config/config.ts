@@ -40,6 +40,8 @@ const EnvSchema = z.object({
   STORAGE_DIR: z.string().default('.data/files'),
   /** Folder of the built portal served as static files. */
   PORTAL_DIST: z.string().default('dist/portal/browser'),
+  /** Approved items still open this many business days before closing flag the request as at risk. */
+  AT_RISK_BUSINESS_DAYS: z.coerce.number().int().min(0).max(30).default(3),
   /** Real SMTP server for e-mail. Unset: mail goes to the local sink on loopback (development mailbox). */
   SMTP_HOST: z.string().min(1).optional(),
   SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(587),
@@ -95,6 +97,7 @@ export interface Config {
   /** The payment service's keys and address; null until a fake is started (see main.ts) or keys are given. */
   payments: PaymentsConfig | null;
   fakePaymentsPort: number;
+  atRiskBusinessDays: number;
   mail: {
     /** null: the local sink on loopback. */
     smtp: { host: string; port: number; secure: boolean; user: string | null; password: string | null } | null;
@@ -134,6 +137,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     storageDir: e.STORAGE_DIR,
     payments: e.STRIPE_SECRET_KEY && e.STRIPE_WEBHOOK_SECRET ? { secretKey: e.STRIPE_SECRET_KEY, webhookSecret: e.STRIPE_WEBHOOK_SECRET, apiBase: e.STRIPE_API_BASE ?? null } : null,
     fakePaymentsPort: e.FAKE_PAYMENTS_PORT,
+    atRiskBusinessDays: e.AT_RISK_BUSINESS_DAYS,
     mail: {
       smtp: e.SMTP_HOST ? { host: e.SMTP_HOST, port: e.SMTP_PORT, secure: e.SMTP_SECURE, user: e.SMTP_USER ?? null, password: e.SMTP_PASSWORD ?? null } : null,
       sinkPort: e.MAIL_SINK_PORT,

@@ -76,7 +76,15 @@ function itemCount(db: Db | Trx): Knex.Raw {
   return db.raw('(SELECT count(*) FROM line_items li WHERE li.request_id = r.id AND li.status <> ALL(?))::int AS item_count', [UNCOUNTED_ITEM_STATES]);
 }
 
-type SummaryRow = RepairRequestRow & { contractor_name: string | null; item_count: number; total_count?: string };
+/** Item states that are approved work without an outcome yet (approved, and not accepted to rework). */
+const OPEN_WORK_ITEM_STATES = [itemStateAfter('approve'), itemStateAfter('not-accept')];
+
+/** The `open_work_count` column of a request summary (closing-date tracking). */
+function openWorkCount(db: Db | Trx): Knex.Raw {
+  return db.raw('(SELECT count(*) FROM line_items li WHERE li.request_id = r.id AND li.status = ANY(?))::int AS open_work_count', [OPEN_WORK_ITEM_STATES]);
+}
+
+type SummaryRow = RepairRequestRow & { contractor_name: string | null; item_count: number; open_work_count: number; total_count?: string };
 
 function toSummary(row: SummaryRow): RepairRequestSummary {
   return {
@@ -92,6 +100,9 @@ function toSummary(row: SummaryRow): RepairRequestSummary {
     status: row.status,
     contractorName: row.contractor_name,
     itemCount: Number(row.item_count),
+    openWorkCount: Number(row.open_work_count),
+    // Decided by the service, which knows today and the setting.
+    isAtRisk: false,
     createdAt: row.created_at.toISOString(),
     updatedAt: row.updated_at.toISOString(),
   };
@@ -123,6 +134,7 @@ export class RequestRepository {
         'r.*',
         'o.name as contractor_name',
         itemCount(db),
+        openWorkCount(db),
       );
   }
 
@@ -170,7 +182,7 @@ export class RequestRepository {
       .joinRaw('LEFT JOIN page_ids ON true')
       .leftJoin('repair_requests as r', 'r.id', 'page_ids.id')
       .leftJoin('organisations as o', 'o.id', 'r.contractor_organisation_id')
-      .select('counted.n', 'page_ids.ord', 'r.*', 'o.name as contractor_name', itemCount(db))
+      .select('counted.n', 'page_ids.ord', 'r.*', 'o.name as contractor_name', itemCount(db), openWorkCount(db))
       .orderBy('page_ids.ord');
   }
 

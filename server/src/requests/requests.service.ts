@@ -1,6 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import {
   actorsOf,
+  closingProgress,
   PARTY_ROLE_LABELS,
   defaultNecEdition,
   REQUEST_ACTIONS,
@@ -54,7 +55,16 @@ export class RequestsService {
     private readonly publicUrl: string,
     private readonly notifications: NotificationsService,
     private readonly activity: ActivityRepository,
+    /** Open approved work this many business days before closing flags a request as at risk. */
+    private readonly atRiskBusinessDays = 3,
   ) {}
+
+  /** The summary with its at-risk flag for today. */
+  private withRisk<T extends RepairRequestSummary>(summary: T): T {
+    const today = new Date().toISOString().slice(0, 10);
+    const { isAtRisk } = closingProgress({ closingDate: summary.closingDate, today, approvedCount: summary.openWorkCount, resolvedCount: 0, atRiskBusinessDays: this.atRiskBusinessDays });
+    return { ...summary, isAtRisk };
+  }
 
   async list(user: CurrentUser, query: z.output<typeof RepairRequestListQuerySchema>): Promise<Page<RepairRequestSummary>> {
     const { items, total, isTotalCapped } = await this.requests.list(viewerOf(user), {
@@ -67,7 +77,7 @@ export class RequestsService {
       id: query.q ? parseRequestReference(query.q) : null,
       builtBefore: query.builtBefore ?? null,
     });
-    return { items, total, isTotalCapped, page: query.page, pageSize: query.pageSize };
+    return { items: items.map((i) => this.withRisk(i)), total, isTotalCapped, page: query.page, pageSize: query.pageSize };
   }
 
   /** The request as `user` may see it; 404 when they are not a party to it. */
@@ -82,7 +92,7 @@ export class RequestsService {
     const myParts = parties.filter((p) => p.userId === user.id).map((p) => p.role);
     // Those who invite see the invitation links.
     const seesInviteLinks = actorsOf({ role: user.role, myParts, isAssignedContractor: false }).some((a) => INVITERS.includes(a));
-    const { contractorOrganisationId: _omit, ...summary } = request;
+    const { contractorOrganisationId: _omit, ...summary } = this.withRisk(request);
     return {
       ...summary,
       contractor: contractor && {

@@ -86,6 +86,10 @@ export const RepairRequestSummarySchema = z.object({
   status: RequestStatusSchema,
   contractorName: z.string().nullable(),
   itemCount: z.number().int(),
+  /** Approved items without an outcome yet (and items not accepted, back to be reworked). */
+  openWorkCount: z.number().int(),
+  /** Whether open approved work is this close to closing (a setting in business days). */
+  isAtRisk: z.boolean(),
   createdAt: z.string(),
   updatedAt: z.string(),
 });

@@ -83,6 +83,9 @@ describe('request flow', () => {
     expect(mayAct(['contractor'], 'issue-invoice', 'quoted')).toBe(false);
     expect(mayAct(['listing-agent'], 'pay', 'approved')).toBe(true);
     expect(mayAct(['contractor'], 'pay', 'approved')).toBe(false);
+    expect(mayAct(['seller'], 'see-access-notes', 'scheduled')).toBe(false);
+    expect(mayAct(['listing-agent'], 'see-access-notes', 'scheduled')).toBe(true);
+    expect(mayAct(['contractor'], 'see-access-notes', 'in-progress')).toBe(true);
     for (const rule of Object.values(REQUEST_ACTIONS)) {
       expect(rule.in.length).toBeGreaterThan(0);
       expect(rule.by.length).toBeGreaterThan(0);

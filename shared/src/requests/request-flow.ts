@@ -108,7 +108,8 @@ export const REQUEST_ACTIONS = {
   'issue-invoice': { in: AFTER_APPROVAL, by: ['contractor'] },
   'book-visit': { in: ['approved', 'scheduled', 'in-progress', 'reopened'], by: ['contractor'] },
   'record-correction': { in: ['scheduled', 'in-progress', 'reopened'], by: ['contractor'] },
-  'see-access-notes': { in: BEFORE_LETTER, by: ['seller', 'listing-agent', 'contractor'] },
+  // Lockbox codes and occupant contacts: only the assigned contractor and the listing agent (who gave them).
+  'see-access-notes': { in: BEFORE_LETTER, by: ['listing-agent', 'contractor'] },
   /** The contractor's pricing page (read only unless `price` is allowed too). */
   'read-pricing': { in: REQUEST_STATUSES, by: ['contractor', 'admin'] },
   /** The ballpark range from the assigned contractor's rate book, and the site conditions flagged for it. */

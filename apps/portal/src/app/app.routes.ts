@@ -2,6 +2,7 @@ import { Routes } from '@angular/router';
 import { hasRole } from './core/auth/has-role-guard';
 import { signedIn } from './core/auth/signed-in-guard';
 import { requestPricingRoutes } from './pricing/pricing.routes';
+import { workRoutes } from './work/work.routes';
 
 export const routes: Routes = [
   { path: '', pathMatch: 'full', redirectTo: 'requests' },
@@ -21,6 +22,7 @@ export const routes: Routes = [
     loadComponent: () => import('./notifications/unsubscribe/unsubscribe').then((m) => m.Unsubscribe),
   },
   ...requestPricingRoutes,
+  ...workRoutes,
   {
     path: 'dashboard',
     canActivate: [signedIn],

@@ -16,6 +16,8 @@ export interface FileStorage {
   get(key: string): Promise<Buffer>;
   exists(key: string): Promise<boolean>;
   delete(key: string): Promise<void>;
+  /** Renames `from` to `to` (replacing nothing: when `to` exists already, `from` is dropped). */
+  move(from: string, to: string): Promise<void>;
 }
 
 export interface StagedFile {

@@ -87,4 +87,11 @@ export class LocalFileStorage implements FileStorage {
   async delete(key: string): Promise<void> {
     await rm(this.pathOf(key), { force: true });
   }
+
+  async move(from: string, to: string): Promise<void> {
+    if (await this.exists(to)) return this.delete(from);
+    const target = this.pathOf(to);
+    await mkdir(join(target, '..'), { recursive: true });
+    await rename(this.pathOf(from), target);
+  }
 }

@@ -24,6 +24,8 @@ function request(status: RequestStatus, myParts: PartyRole[]): RepairRequestDeta
     status,
     contractorName: null,
     itemCount: 3,
+    openWorkCount: 0,
+    isAtRisk: false,
     createdAt: '2026-04-01T10:00:00Z',
     updatedAt: '2026-04-01T10:00:00Z',
     contractor: null,

@@ -77,6 +77,8 @@ export function requestDetail(overrides: Partial<RepairRequestDetail> = {}): Rep
     status: 'pricing',
     contractorName: 'Brightline Electric',
     itemCount: 2,
+    openWorkCount: 0,
+    isAtRisk: false,
     createdAt: '2026-04-01T10:00:00Z',
     updatedAt: '2026-04-02T10:00:00Z',
     contractor: { id: 7, name: 'Brightline Electric', licenceNumber: 'EC-0048215', licenceState: 'CO', licenceClass: 'Electrical contractor' },

@@ -26,6 +26,8 @@ function detail(myParts: PartyRole[]): RepairRequestDetail {
     status: 'draft',
     contractorName: 'Foothill Wiring Co.',
     itemCount: 0,
+    openWorkCount: 0,
+    isAtRisk: false,
     createdAt: '2026-04-01T10:00:00Z',
     updatedAt: '2026-04-01T10:00:00Z',
     contractor: { id: 7, name: 'Foothill Wiring Co.', licenceNumber: 'EC-2231', licenceState: 'CO', licenceClass: 'Electrical contractor' },

@@ -13,6 +13,7 @@ import { Notice } from '../../core/http/notice';
 import { ActivityTimeline } from '../../activity/activity-timeline/activity-timeline';
 import { IntakePanel } from '../../intake/intake-panel/intake-panel';
 import { RequestPricingLinks } from '../../pricing/request-pricing-links/request-pricing-links';
+import { RequestWorkLink } from '../../work/request-work-link/request-work-link';
 import { DaysToClosing } from '../../ui/days-to-closing/days-to-closing';
 import { SafetyNotice } from '../../ui/safety-notice/safety-notice';
 import { StatusChip } from '../../ui/status-chip/status-chip';
@@ -44,6 +45,7 @@ type Loaded = { detail: RepairRequestDetail; error?: undefined } | { detail?: un
     IntakePanel,
     RequestPricingLinks,
     NextStepPanel,
+    RequestWorkLink,
     ActivityTimeline,
   ],
   templateUrl: './request-detail.html',

@@ -28,6 +28,8 @@ function summary(id: number, overrides: Partial<RepairRequestSummary> = {}): Rep
     status: 'pricing',
     contractorName: 'Foothill Wiring Co.',
     itemCount: 4,
+    openWorkCount: 0,
+    isAtRisk: false,
     createdAt: '2026-03-01T15:00:00Z',
     updatedAt: '2026-03-02T15:00:00Z',
     ...overrides,

@@ -1,0 +1,182 @@
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
+import { rxResource, toSignal } from '@angular/core/rxjs-interop';
+import { FormBuilder, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatRadioModule } from '@angular/material/radio';
+import { MatSelectModule } from '@angular/material/select';
+import { Router, RouterLink } from '@angular/router';
+import {
+  CONDUCTOR_SIZES,
+  CORRECTION_LABELS,
+  CORRECTION_OUTCOME_LABELS,
+  CORRECTION_OUTCOMES,
+  evaluateReadings,
+  MAX_PHOTO_BYTES,
+  MAX_PHOTOS_PER_KIND,
+  PHOTO_KINDS,
+  PhotoKind,
+  READING_KIND_LABELS,
+  ReadingsSchema,
+  RecordCorrectionSchema,
+} from '@cc/shared';
+import { applyIssues } from '../../core/forms/apply-issues';
+import { ErrorMessagePipe } from '../../core/forms/error-message';
+import { issuesOf } from '../../core/forms/issues-of';
+import { describeFailure } from '../../core/http/api-error-of';
+import { applyServerErrors } from '../../core/http/apply-server-errors';
+import { Notice } from '../../core/http/notice';
+import { codeLabel } from '../../ui/code-label';
+import { ReadingList } from '../reading-list/reading-list';
+import { ChosenPhoto, WorkApi } from '../work-api';
+import { WorkCaution } from '../work-caution/work-caution';
+import { readingsOf, readingsForm } from './readings-form';
+
+/**
+ * The outcome of one approved item, recorded on site from a phone: what was done, the device
+ * installed, labels, test readings judged as they are typed, and before/after photos.
+ */
+@Component({
+  selector: 'cc-correction-form',
+  imports: [
+    RouterLink,
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatRadioModule,
+    MatSelectModule,
+    ErrorMessagePipe,
+    ReadingList,
+    WorkCaution,
+  ],
+  templateUrl: './correction-form.html',
+  styleUrl: './correction-form.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class CorrectionForm {
+  private readonly api = inject(WorkApi);
+  private readonly router = inject(Router);
+  private readonly notice = inject(Notice);
+  private readonly fb = inject(FormBuilder).nonNullable;
+
+  /** Route parameters. */
+  readonly id = input.required<string>();
+  readonly itemId = input.required<string>();
+
+  protected readonly work = rxResource({ params: () => Number(this.id()), stream: ({ params }) => this.api.overview(params) });
+  protected readonly loadError = computed(() => (this.work.error() ? describeFailure(this.work.error()) : null));
+  protected readonly item = computed(() => (this.work.hasValue() ? (this.work.value().items.find((i) => i.id === Number(this.itemId())) ?? null) : null));
+  protected readonly visits = computed(() => (this.work.hasValue() ? this.work.value().visits : []));
+
+  protected readonly outcomes = CORRECTION_OUTCOMES.map((value) => ({ value, label: CORRECTION_OUTCOME_LABELS[value] }));
+  protected readonly labelOptions = CORRECTION_LABELS;
+  protected readonly sizes = CONDUCTOR_SIZES;
+  protected readonly kindLabels = READING_KIND_LABELS;
+  protected readonly codeLabel = codeLabel;
+  protected readonly maxPhotoMb = MAX_PHOTO_BYTES / 1024 / 1024;
+  protected readonly photoKinds = PHOTO_KINDS;
+
+  protected readonly form = this.fb.group({
+    outcome: this.fb.control<(typeof CORRECTION_OUTCOMES)[number]>('corrected'),
+    workPerformed: [''],
+    reason: [''],
+    materials: [''],
+    deviceMake: [''],
+    deviceModel: [''],
+    deviceLot: [''],
+    labels: this.fb.group(Object.fromEntries(CORRECTION_LABELS.map((l) => [l, false])) as Record<(typeof CORRECTION_LABELS)[number], boolean>),
+    siteVisitId: this.fb.control<number | null>(null),
+    readings: readingsForm(this.fb),
+  });
+  private readonly value = toSignal(this.form.valueChanges, { initialValue: this.form.getRawValue() });
+  protected readonly outcome = computed(() => this.value().outcome);
+  protected readonly chosenLabels = computed(() => CORRECTION_LABELS.filter((l) => this.value().labels?.[l]));
+  /** The readings as typed, judged as they are typed (null while a number is incomplete). */
+  protected readonly evaluations = computed(() => {
+    this.value();
+    const item = this.item();
+    if (!item) return [];
+    const parsed = ReadingsSchema.safeParse(readingsOf(this.form.controls.readings.getRawValue(), item.readingKinds));
+    return parsed.success ? evaluateReadings(parsed.data, { labels: this.chosenLabels() }) : [];
+  });
+
+  protected readonly photos = signal<ChosenPhoto[]>([]);
+  protected readonly photoError = signal<string | null>(null);
+  protected readonly formError = signal<string | null>(null);
+  protected readonly isBusy = signal(false);
+
+  constructor() {
+    effect(() => {
+      const item = this.item();
+      if (item && this.form.controls.siteVisitId.value === null) this.form.controls.siteVisitId.setValue(item.siteVisitId);
+    });
+  }
+
+  protected photosOf(kind: PhotoKind): ChosenPhoto[] {
+    return this.photos().filter((p) => p.kind === kind);
+  }
+
+  protected choose(kind: PhotoKind, input: HTMLInputElement): void {
+    this.photoError.set(null);
+    const files = Array.from(input.files ?? []);
+    input.value = '';
+    const tooBig = files.find((f) => f.size > MAX_PHOTO_BYTES);
+    if (tooBig) {
+      this.photoError.set(`${tooBig.name} is larger than ${this.maxPhotoMb} MB.`);
+      return;
+    }
+    const kept = [...this.photosOf(kind), ...files.map((file) => ({ kind, file, name: file.name }))].slice(0, MAX_PHOTOS_PER_KIND);
+    if (kept.length < this.photosOf(kind).length + files.length) this.photoError.set(`At most ${MAX_PHOTOS_PER_KIND} ${kind} photos.`);
+    this.photos.update((all) => [...all.filter((p) => p.kind !== kind), ...kept]);
+  }
+
+  protected removePhoto(photo: ChosenPhoto): void {
+    this.photos.update((all) => all.filter((p) => p !== photo));
+  }
+
+  protected save(): void {
+    const item = this.item();
+    if (!item) return;
+    this.formError.set(null);
+    const raw = this.form.getRawValue();
+    const isCorrected = raw.outcome === 'corrected';
+    const record = {
+      outcome: raw.outcome,
+      workPerformed: isCorrected ? raw.workPerformed : '',
+      reason: isCorrected ? '' : raw.reason,
+      materials: isCorrected ? raw.materials : '',
+      deviceMake: isCorrected ? raw.deviceMake : '',
+      deviceModel: isCorrected ? raw.deviceModel : '',
+      deviceLot: isCorrected ? raw.deviceLot : '',
+      labels: isCorrected ? this.chosenLabels() : [],
+      siteVisitId: raw.siteVisitId,
+      readings: isCorrected ? readingsOf(raw.readings, item.readingKinds) : {},
+    };
+    const parsed = RecordCorrectionSchema.safeParse(record);
+    if (!parsed.success) {
+      const unmatched = applyIssues(this.form, issuesOf(parsed.error));
+      this.formError.set(unmatched.length ? unmatched.map((i) => `${i.path}: ${i.message}`).join(' ') : 'Some fields need attention.');
+      return;
+    }
+    this.isBusy.set(true);
+    this.api.recordCorrection(Number(this.id()), item.id, record, isCorrected ? this.photos() : this.photos().filter((p) => p.kind === 'before')).subscribe({
+      next: () => {
+        this.isBusy.set(false);
+        this.notice.success('Outcome recorded.');
+        void this.router.navigate(['/requests', this.id(), 'work']);
+      },
+      error: (err: unknown) => {
+        this.isBusy.set(false);
+        this.formError.set(applyServerErrors(this.form, err));
+      },
+    });
+  }
+}

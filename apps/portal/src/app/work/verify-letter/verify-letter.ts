@@ -1,0 +1,75 @@
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
+import { FormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCardModule } from '@angular/material/card';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { Router } from '@angular/router';
+import { PdfCheck } from '@cc/shared';
+import { of } from 'rxjs';
+import { describeFailure } from '../../core/http/api-error-of';
+import { WorkApi } from '../work-api';
+
+const MAX_PDF_BYTES = 20 * 1024 * 1024;
+
+/**
+ * The public page a completion letter's QR code opens: no sign-in, no personal data. It confirms the
+ * letter's number, revision, issue date, item count and hash, and tells whether an uploaded PDF is the
+ * genuine, current letter.
+ */
+@Component({
+  selector: 'cc-verify-letter',
+  imports: [FormsModule, MatButtonModule, MatCardModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule],
+  templateUrl: './verify-letter.html',
+  styleUrl: './verify-letter.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class VerifyLetter {
+  private readonly api = inject(WorkApi);
+  private readonly router = inject(Router);
+
+  /** The verification code (route parameter), if the page was opened from a letter. */
+  readonly code = input<string | undefined>(undefined);
+
+  protected readonly letter = rxResource({
+    params: () => this.code()?.trim().toUpperCase() || null,
+    stream: ({ params }) => (params ? this.api.verify(params) : of(null)),
+  });
+  protected readonly lookupError = computed(() => (this.letter.error() ? describeFailure(this.letter.error()) : null));
+  protected typedCode = '';
+
+  protected readonly check = signal<PdfCheck | null>(null);
+  protected readonly checkError = signal<string | null>(null);
+  protected readonly isChecking = signal(false);
+
+  protected lookUp(): void {
+    const code = this.typedCode.trim().toUpperCase();
+    if (code) void this.router.navigate(['/verify', code]);
+  }
+
+  protected checkFile(picker: HTMLInputElement): void {
+    const file = picker.files?.[0];
+    picker.value = '';
+    this.check.set(null);
+    this.checkError.set(null);
+    if (!file) return;
+    if (file.size > MAX_PDF_BYTES) {
+      this.checkError.set('That file is larger than any letter we issue (20 MB).');
+      return;
+    }
+    this.isChecking.set(true);
+    this.api.checkPdf(file, this.code()?.trim().toUpperCase() || null).subscribe({
+      next: (result) => {
+        this.isChecking.set(false);
+        this.check.set(result);
+      },
+      error: (err: unknown) => {
+        this.isChecking.set(false);
+        this.checkError.set(describeFailure(err));
+      },
+    });
+  }
+}

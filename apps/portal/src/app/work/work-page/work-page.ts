@@ -1,0 +1,99 @@
+import { DatePipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCardModule } from '@angular/material/card';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { RouterLink } from '@angular/router';
+import {
+  CORRECTION_OUTCOME_LABELS,
+  FLOW_ACTOR_LABELS,
+  ITEM_STATUS_LABELS,
+  movesOnFrom,
+  SITE_VISIT_STATUS_LABELS,
+  SiteVisit,
+  WorkItem,
+  WorkOverview,
+} from '@cc/shared';
+import { describeFailure } from '../../core/http/api-error-of';
+import { Notice } from '../../core/http/notice';
+import { codeLabel } from '../../ui/code-label';
+import { StatusChip } from '../../ui/status-chip/status-chip';
+import { LetterPanel } from '../letter-panel/letter-panel';
+import { ReadingList } from '../reading-list/reading-list';
+import { VisitBooking } from '../visit-booking/visit-booking';
+import { WorkApi } from '../work-api';
+import { WorkCaution } from '../work-caution/work-caution';
+
+/**
+ * The proof side of one request: progress against closing, the site visits, each approved item's
+ * outcome with its readings and photos, and the completion letter with its review.
+ */
+@Component({
+  selector: 'cc-work-page',
+  imports: [DatePipe, RouterLink, MatButtonModule, MatCardModule, MatIconModule, MatProgressBarModule, StatusChip, WorkCaution, ReadingList, VisitBooking, LetterPanel],
+  templateUrl: './work-page.html',
+  styleUrl: './work-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class WorkPage {
+  private readonly api = inject(WorkApi);
+  private readonly notice = inject(Notice);
+
+  /** The request id (route parameter). */
+  readonly id = input.required<string>();
+
+  protected readonly work = rxResource({ params: () => Number(this.id()), stream: ({ params }) => this.api.overview(params) });
+  protected readonly overview = computed(() => (this.work.hasValue() ? this.work.value() : null));
+  protected readonly loadError = computed(() => (this.work.error() ? describeFailure(this.work.error()) : null));
+
+  protected readonly codeLabel = codeLabel;
+  protected readonly itemStatusLabels = ITEM_STATUS_LABELS;
+  protected readonly outcomeLabels = CORRECTION_OUTCOME_LABELS;
+  protected readonly visitStatusLabels = SITE_VISIT_STATUS_LABELS;
+
+  /** What happens next and who acts, from the flow table. */
+  protected readonly nextSteps = computed(() => {
+    const o = this.overview();
+    if (!o) return [];
+    return movesOnFrom(o.status).map((m) => `${m.label}: ${m.by.filter((a) => a !== 'admin').map((a) => FLOW_ACTOR_LABELS[a]).join(' or ')}`);
+  });
+  protected readonly progressPercent = computed(() => {
+    const c = this.overview()?.closing;
+    return c && c.approvedCount ? Math.round((100 * c.resolvedCount) / c.approvedCount) : 0;
+  });
+
+  protected itemsOf(o: WorkOverview, visit: SiteVisit): WorkItem[] {
+    return o.items.filter((i) => visit.itemIds.includes(i.id));
+  }
+
+  protected visitNumberOf(o: WorkOverview, item: WorkItem): number | null {
+    return o.visits.find((v) => v.id === item.siteVisitId)?.number ?? null;
+  }
+
+  protected markVisit(o: WorkOverview, visit: SiteVisit, step: 'start' | 'finish'): void {
+    this.api.markVisit(o.requestId, visit.id, step).subscribe({
+      next: () => {
+        this.notice.success(step === 'start' ? `Visit ${visit.number} started.` : `Visit ${visit.number} finished.`);
+        this.work.reload();
+      },
+      error: (err: unknown) => this.notice.failure(err),
+    });
+  }
+
+  protected resume(o: WorkOverview): void {
+    this.api.resume(o.requestId).subscribe({
+      next: (next) => {
+        this.work.set(next);
+        this.notice.success('The items not accepted are back in hand: book a visit for them.');
+      },
+      error: (err: unknown) => this.notice.failure(err),
+    });
+  }
+
+  protected reload(message: string): void {
+    this.notice.success(message);
+    this.work.reload();
+  }
+}

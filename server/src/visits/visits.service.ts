@@ -1,0 +1,130 @@
+import { mayAct, type CurrentUser, type Electrician, type FlowActor, type RequestStatus, type SiteVisit, BookSiteVisitSchema } from '@cc/shared';
+import type { z } from 'zod';
+import type { Db } from '../db/knex';
+import type { FlowService } from '../flow/flow.service';
+import { ConflictError, NotFoundError, ValidationError } from '../errors';
+import type { RequestsService } from '../requests/requests.service';
+import type { ProofMessages } from '../work/proof-messages';
+import { assertMayAct, requestWithActors } from '../work/request-actors';
+import { moveRequest } from '../work/request-moves';
+import type { WorkItemRecord, WorkItemRepository } from '../work/work-item.repository';
+import type { SiteVisitRecord, SiteVisitRepository } from './site-visit.repository';
+
+const MAX_DAYS_AHEAD = 366;
+
+/** Booking site visits for approved items, and marking them started and finished. */
+export class VisitsService {
+  constructor(
+    private readonly db: Db,
+    private readonly access: RequestsService,
+    private readonly flow: FlowService,
+    private readonly visits: SiteVisitRepository,
+    private readonly items: WorkItemRepository,
+    private readonly messages: ProofMessages,
+  ) {}
+
+  /** The electricians of the assigned contractor (who can be sent on a visit). */
+  async electricians(user: CurrentUser, requestId: number): Promise<Electrician[]> {
+    const { request, actors } = await requestWithActors(this.access, user, requestId);
+    assertMayAct(actors, 'book-visit', request.status, 'Booking a visit');
+    return this.visits.electricians(request.contractor!.id);
+  }
+
+  async book(user: CurrentUser, requestId: number, input: z.output<typeof BookSiteVisitSchema>): Promise<SiteVisit> {
+    const { request, actors } = await requestWithActors(this.access, user, requestId);
+    assertMayAct(actors, 'book-visit', request.status, 'Booking a visit');
+    assertDateInRange(input.date);
+    const electricians = await this.visits.electricians(request.contractor!.id);
+    if (!electricians.some((e) => e.id === input.electricianId)) {
+      throw new ValidationError('Choose one of your electricians', [{ path: 'electricianId', message: 'Choose a person of your organisation' }]);
+    }
+    const { visitId, number } = await this.db.transaction(async (trx) => {
+      const locked = await this.items.lockRequest(requestId, trx);
+      const status = locked?.status as RequestStatus;
+      if (!locked || status !== request.status) throw new ConflictError('The request changed meanwhile. Reload and try again.');
+      const items = await this.items.listForRequest(requestId, trx, true);
+      const planned = itemsToPlan(items, input.quotedVisitKey);
+      const visitId = await this.visits.insert(
+        { requestId, date: input.date, arrivalFrom: input.arrivalFrom, arrivalTo: input.arrivalTo, electricianId: input.electricianId, accessNotes: input.accessNotes || null, quotedVisitKey: input.quotedVisitKey, bookedBy: user.id },
+        trx,
+      );
+      await this.items.planOnVisit(planned.map((i) => i.id), visitId, trx);
+      const visit = await this.visits.find(requestId, visitId, trx);
+      if (status === 'approved') {
+        await moveRequest(this.flow, { requestId, event: 'schedule', actors, by: user.id, note: `Site visit ${visit!.number} booked for ${input.date}` }, trx);
+      }
+      return { visitId, number: visit!.number };
+    });
+    await this.messages.visitScheduled({ requestId, visitNumber: number, date: input.date, arrivalFrom: input.arrivalFrom, arrivalTo: input.arrivalTo });
+    return this.get(user, requestId, visitId);
+  }
+
+  /** The electrician arrives: the visit is on site, and a request whose visit was booked is under way. */
+  async start(user: CurrentUser, requestId: number, visitId: number): Promise<SiteVisit> {
+    return this.mark(user, requestId, visitId, 'booked', 'started');
+  }
+
+  async finish(user: CurrentUser, requestId: number, visitId: number): Promise<SiteVisit> {
+    return this.mark(user, requestId, visitId, 'started', 'finished');
+  }
+
+  private async mark(user: CurrentUser, requestId: number, visitId: number, from: 'booked' | 'started', to: 'started' | 'finished'): Promise<SiteVisit> {
+    const { request, actors } = await requestWithActors(this.access, user, requestId);
+    if (!(await this.visits.find(requestId, visitId))) throw new NotFoundError('No such site visit');
+    assertMayAct(actors, 'record-correction', request.status, to === 'started' ? 'Starting a visit' : 'Finishing a visit');
+    await this.db.transaction(async (trx) => {
+      const locked = await this.items.lockRequest(requestId, trx);
+      if (!locked || locked.status !== request.status) throw new ConflictError('The request changed meanwhile. Reload and try again.');
+      if (!(await this.visits.setStatus(visitId, [from], to, trx))) {
+        throw new ConflictError(to === 'started' ? 'This visit was started already' : 'Only a visit that was started can be finished');
+      }
+      if (to === 'started' && request.status === 'scheduled') {
+        await moveRequest(this.flow, { requestId, event: 'start-work', actors, by: user.id }, trx);
+      }
+    });
+    return this.get(user, requestId, visitId);
+  }
+
+  async get(user: CurrentUser, requestId: number, visitId: number): Promise<SiteVisit> {
+    const { request, actors } = await requestWithActors(this.access, user, requestId);
+    const visit = await this.visits.find(requestId, visitId);
+    if (!visit) throw new NotFoundError('No such site visit');
+    const items = await this.items.listForRequest(requestId);
+    return toSiteVisitDto(visit, items, actors, request.status);
+  }
+}
+
+/** Approved items not yet on a visit; those of one quoted visit when a key is given. */
+function itemsToPlan(items: readonly WorkItemRecord[], quotedVisitKey: string | null): WorkItemRecord[] {
+  const open = items.filter((i) => i.status === 'approved' && i.siteVisitId === null);
+  if (quotedVisitKey === null) return open;
+  if (!items.some((i) => i.quotedVisitKey === quotedVisitKey)) {
+    throw new ValidationError('No such visit in the quote', [{ path: 'quotedVisitKey', message: 'Choose one of the quote’s visits' }]);
+  }
+  return open.filter((i) => i.quotedVisitKey === quotedVisitKey);
+}
+
+function assertDateInRange(date: string): void {
+  const today = new Date().toISOString().slice(0, 10);
+  const latest = new Date(Date.now() + MAX_DAYS_AHEAD * 86_400_000).toISOString().slice(0, 10);
+  if (date < today || date > latest) {
+    throw new ValidationError('Choose a date from today to a year ahead', [{ path: 'date', message: 'Choose a date from today to a year ahead' }]);
+  }
+}
+
+export function toSiteVisitDto(visit: SiteVisitRecord, items: readonly WorkItemRecord[], actors: readonly FlowActor[], status: RequestStatus): SiteVisit {
+  return {
+    id: visit.id,
+    number: visit.number,
+    date: visit.date,
+    arrivalFrom: visit.arrivalFrom,
+    arrivalTo: visit.arrivalTo,
+    electrician: { id: visit.electricianId, name: visit.electricianName },
+    status: visit.status,
+    startedAt: visit.startedAt?.toISOString() ?? null,
+    finishedAt: visit.finishedAt?.toISOString() ?? null,
+    quotedVisitKey: visit.quotedVisitKey,
+    itemIds: items.filter((i) => i.siteVisitId === visit.id).map((i) => i.id),
+    accessNotes: mayAct(actors, 'see-access-notes', status) ? visit.accessNotes : null,
+  };
+}

@@ -1,0 +1,70 @@
+import * as z from 'zod';
+import { trimmedText } from '../http/bounds';
+import { ReadingEvaluationSchema, ReadingsSchema } from '../readings/readings.schema';
+import { CORRECTION_LABELS } from '../readings/reading-kinds';
+
+export const CORRECTION_OUTCOMES = ['corrected', 'not-corrected', 'declined-on-site'] as const;
+export const CorrectionOutcomeSchema = z.enum(CORRECTION_OUTCOMES);
+export type CorrectionOutcome = z.infer<typeof CorrectionOutcomeSchema>;
+
+export const CORRECTION_OUTCOME_LABELS: Record<CorrectionOutcome, string> = {
+  corrected: 'Corrected',
+  'not-corrected': 'Could not correct',
+  'declined-on-site': 'Declined on site',
+};
+
+/** Photos per correction: before and after, each at most this many, each at most MAX_PHOTO_BYTES. */
+export const MAX_PHOTOS_PER_KIND = 4;
+export const MAX_PHOTO_BYTES = 8 * 1024 * 1024;
+export const PHOTO_KINDS = ['before', 'after'] as const;
+export type PhotoKind = (typeof PHOTO_KINDS)[number];
+
+/** The correction record of one item, sent as the `record` field (JSON) of a multipart form with photos. */
+export const RecordCorrectionSchema = z
+  .object({
+    outcome: CorrectionOutcomeSchema,
+    reason: trimmedText(1000).default(''),
+    workPerformed: trimmedText(2000).default(''),
+    materials: trimmedText(1000).default(''),
+    deviceMake: trimmedText(80).default(''),
+    deviceModel: trimmedText(80).default(''),
+    /** Lot or date code where known. */
+    deviceLot: trimmedText(80).default(''),
+    labels: z.array(z.enum(CORRECTION_LABELS)).max(CORRECTION_LABELS.length).default([]),
+    readings: ReadingsSchema.default({ gfci: null, receptacle: null, groundPath: null, voltageDrop: null }),
+    /** The site visit on which the work was done. */
+    siteVisitId: z.number().int().positive().nullable().default(null),
+  })
+  .refine((c) => c.outcome !== 'corrected' || c.workPerformed.length > 0, { error: 'Describe the work performed', path: ['workPerformed'] })
+  .refine((c) => c.outcome === 'corrected' || c.reason.length > 0, { error: 'Give the reason', path: ['reason'] });
+export type RecordCorrection = z.input<typeof RecordCorrectionSchema>;
+export type RecordCorrectionParsed = z.output<typeof RecordCorrectionSchema>;
+
+export const CorrectionPhotoSchema = z.object({
+  id: z.number().int(),
+  kind: z.enum(PHOTO_KINDS),
+  width: z.number().int(),
+  height: z.number().int(),
+  url: z.string(),
+});
+export type CorrectionPhoto = z.infer<typeof CorrectionPhotoSchema>;
+
+export const CorrectionSchema = z.object({
+  itemId: z.number().int(),
+  outcome: CorrectionOutcomeSchema,
+  reason: z.string(),
+  workPerformed: z.string(),
+  materials: z.string(),
+  deviceMake: z.string(),
+  deviceModel: z.string(),
+  deviceLot: z.string(),
+  labels: z.array(z.string()),
+  readings: ReadingsSchema,
+  evaluations: z.array(ReadingEvaluationSchema),
+  siteVisitId: z.number().int().nullable(),
+  siteVisitNumber: z.number().int().nullable(),
+  recordedByName: z.string().nullable(),
+  recordedAt: z.string(),
+  photos: z.array(CorrectionPhotoSchema),
+});
+export type Correction = z.infer<typeof CorrectionSchema>;

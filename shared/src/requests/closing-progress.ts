@@ -1,0 +1,42 @@
+/**
+ * Progress of a request's approved work against its closing date. Pure: the caller supplies today
+ * and the number of business days before closing at which open work counts as at risk (a setting).
+ */
+export interface ClosingProgress {
+  /** Weekdays (Monday to Friday) from today, exclusive, up to and including the closing date; negative once past. */
+  businessDaysLeft: number;
+  /** Approved items in total, and those with an outcome (corrected, not corrected, accepted…). */
+  approvedCount: number;
+  resolvedCount: number;
+  /** Whether approved items are still open this close to closing. */
+  isAtRisk: boolean;
+}
+
+const MS_PER_DAY = 86_400_000;
+
+function isWeekday(ms: number): boolean {
+  const day = new Date(ms).getUTCDay();
+  return day !== 0 && day !== 6;
+}
+
+/** Weekdays after `from` up to and including `to` (ISO dates); negative when `to` is before `from`. */
+export function businessDaysBetween(from: string, to: string): number {
+  const start = Date.parse(`${from}T00:00:00Z`);
+  const end = Date.parse(`${to}T00:00:00Z`);
+  const sign = end >= start ? 1 : -1;
+  const [low, high] = sign > 0 ? [start, end] : [end, start];
+  let count = 0;
+  for (let t = low + MS_PER_DAY; t <= high; t += MS_PER_DAY) if (isWeekday(t)) count++;
+  return sign * count;
+}
+
+export function closingProgress(input: { closingDate: string; today: string; approvedCount: number; resolvedCount: number; atRiskBusinessDays: number }): ClosingProgress {
+  const businessDaysLeft = businessDaysBetween(input.today, input.closingDate);
+  const hasOpenWork = input.resolvedCount < input.approvedCount;
+  return {
+    businessDaysLeft,
+    approvedCount: input.approvedCount,
+    resolvedCount: input.resolvedCount,
+    isAtRisk: hasOpenWork && businessDaysLeft <= input.atRiskBusinessDays,
+  };
+}
