@@ -15,6 +15,13 @@ import { run, runAsync } from './lib/run.mjs';
 import { TYPECHECK_PROJECTS } from './lib/typecheck-projects.mjs';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
+// `npm test -- --only=api,browser [file patterns]` runs some stages (typecheck, unit, portal, api, build,
+// browser) on the same throwaway cluster, for a quick look; CI runs them all.
+const args = process.argv.slice(2);
+const onlyArg = args.find((a) => a.startsWith('--only='));
+const only = onlyArg ? new Set(onlyArg.slice('--only='.length).split(',')) : null;
+const patterns = args.filter((a) => !a.startsWith('--'));
+const stage = (name) => !only || only.has(name);
 const bin = (name) => join(root, 'node_modules/.bin', name);
 
 ensureDependencies(root);
@@ -73,34 +80,44 @@ try {
   const apiEnv = { ...env, DATABASE_URL: cluster.url('cc_api') };
   const browserEnv = { ...env, DATABASE_URL: cluster.url('cc_browser') };
 
-  console.log('\n## Type check');
-  for (const project of TYPECHECK_PROJECTS) {
+  if (stage('typecheck')) console.log('\n## Type check');
+  for (const project of stage('typecheck') ? TYPECHECK_PROJECTS : []) {
     const code = await runAsync(bin('tsc'), ['-p', project, '--noEmit'], { cwd: root });
     console.log(`${code === 0 ? '✓' : '✗'} tsc -p ${project}`);
     record(`tsc ${project}`, code === 0 ? 1 : 0, code === 0 ? 0 : 1);
   }
 
   // Separate runs: pdf.js (unit project) installs globals in its worker that break jsdom's set-up.
-  console.log('\n## Unit tests');
-  await jest('unit', ['unit'], env);
-  console.log('\n## Component tests (portal)');
-  await jest('portal', ['portal'], env);
-
-  console.log('\n## API tests (real PostgreSQL)');
-  run(bin('tsx'), ['scripts/db-setup.ts', '--seed=never'], { cwd: root, env: apiEnv });
-  await jest('api', ['api'], apiEnv, ['--runInBand']);
-
-  console.log('\n## Portal build');
-  try {
-    buildPortalIfStale(root);
-    record('portal build', 1, 0);
-  } catch {
-    record('portal build', 0, 1);
+  if (stage('unit')) {
+    console.log('\n## Unit tests');
+    await jest('unit', ['unit'], env, patterns);
+  }
+  if (stage('portal')) {
+    console.log('\n## Component tests (portal)');
+    await jest('portal', ['portal'], env, patterns);
   }
 
-  console.log('\n## Browser tests (Debian chromium)');
-  run(bin('tsx'), ['scripts/db-setup.ts', '--seed=always'], { cwd: root, env: browserEnv });
-  await jest('browser', ['browser'], browserEnv, ['--runInBand']);
+  if (stage('api')) {
+    console.log('\n## API tests (real PostgreSQL)');
+    run(bin('tsx'), ['scripts/db-setup.ts', '--seed=never'], { cwd: root, env: apiEnv });
+    await jest('api', ['api'], apiEnv, ['--runInBand', ...patterns]);
+  }
+
+  if (stage('build') || stage('browser')) {
+    console.log('\n## Portal build');
+    try {
+      buildPortalIfStale(root);
+      record('portal build', 1, 0);
+    } catch {
+      record('portal build', 0, 1);
+    }
+  }
+
+  if (stage('browser')) {
+    console.log('\n## Browser tests (Debian chromium)');
+    run(bin('tsx'), ['scripts/db-setup.ts', '--seed=always'], { cwd: root, env: browserEnv });
+    await jest('browser', ['browser'], browserEnv, ['--runInBand', ...patterns]);
+  }
 } catch (err) {
   console.error(err);
   record('test run', 0, 1);
