@@ -30,7 +30,6 @@ import { LetterRepository } from './letters/letter.repository';
 import { LettersService } from './letters/letters.service';
 import { SiteVisitRepository } from './visits/site-visit.repository';
 import { VisitsService } from './visits/visits.service';
-import { noProofMessages, type ProofMessages } from './work/proof-messages';
 import { WorkItemRepository } from './work/work-item.repository';
 import { WorkService } from './work/work.service';
 import { ActivityRepository } from './activity/activity.repository';
@@ -42,10 +41,12 @@ import { DailyDigest } from './notifications/daily-digest';
 import { createFlowListener } from './notifications/flow-listener';
 import { NotificationsService } from './notifications/notifications.service';
 import { OutboxRepository } from './notifications/outbox.repository';
+import { proofMessagesByMail } from './notifications/proof-message-mail';
+import { sellerNoticesByMail } from './notifications/seller-notice-mail';
 import { PreferencesRepository } from './notifications/preferences.repository';
 
 /** Builds every repository and service of the app from one database handle and the config. */
-export function createServices(db: Db, config: Config, proofMessages: ProofMessages = noProofMessages) {
+export function createServices(db: Db, config: Config) {
   const users = new UserRepository(db);
   const organisations = new OrganisationRepository(db);
   const requests = new RequestRepository(db);
@@ -68,6 +69,8 @@ export function createServices(db: Db, config: Config, proofMessages: ProofMessa
     secret: config.sessionSecret,
   });
   flow.listen(createFlowListener(activity, notifications));
+  // The seller's side and the proof side tell people through the same notify(), in their transactions.
+  const proofMessages = proofMessagesByMail(notifications);
   const requestsService = new RequestsService(db, requests, users, organisations, flow, items, itemPricing, config.publicUrl, notifications, activity, config.atRiskBusinessDays);
   const rateBookService = new RateBookService(db, rateBooks, organisations);
   const pricingService = new PricingService(db, requestsService, rateBookService, itemPricing, items, quotes, flow);
@@ -99,7 +102,7 @@ export function createServices(db: Db, config: Config, proofMessages: ProofMessa
     pricing: pricingService,
     ballpark: new BallparkService(requestsService, rateBookService, itemPricing),
     quotes: quotesService,
-    sellerSide: createSellerSideServices(db, config, { requests: requestsService, quotes: quotesService, requestRows: requests, quoteRows: quotes, flow }),
+    sellerSide: createSellerSideServices(db, config, { requests: requestsService, quotes: quotesService, requestRows: requests, quoteRows: quotes, flow }, sellerNoticesByMail(notifications)),
     visits: new VisitsService(db, requestsService, flow, siteVisits, workItems, proofMessages),
     corrections: new CorrectionsService(db, requestsService, flow, workItems, siteVisits, corrections, storage, proofMessages),
     letters,

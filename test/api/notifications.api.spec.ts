@@ -114,14 +114,15 @@ describe('each step of the flow e-mails the right people, with a link to the pag
     expect(message.html).toContain(`href="${PORTAL}/requests/${id}/quotes/1"`);
   });
 
-  // The next steps are made by features that call notify() at their own call points.
-  it.each<[string, (id: number, itemId: number) => NotifyInput, CastKey[], string]>([
-    ['items approved or declined', (id) => ({ kind: 'items-decided', requestId: id, actorUserId: cast.users.seller.id, approvedCount: 2, declinedCount: 1, approvedCents: 48_000, decisionRef: 'approval-1' }), ['buyerAgent', 'colleague', 'contractor', 'listingAgent'], '2 approved, 1 declined'],
-    ['payment received', (id) => ({ kind: 'payment-received', requestId: id, actorUserId: null, paymentId: 7, amountCents: 12_345 }), ['colleague', 'contractor', 'listingAgent', 'seller'], 'payment of $123.45 received'],
-    ['visit scheduled', (id) => ({ kind: 'visit-scheduled', requestId: id, actorUserId: cast.users.contractor.id, visitId: 3, startsAt: '2027-02-10T15:00:00Z', endsAt: null }), ['listingAgent', 'seller'], 'visit on Wednesday, February 10 at 8:00 AM'],
-    ['item corrected', (id, itemId) => ({ kind: 'item-corrected', requestId: id, actorUserId: cast.users.contractor.id, itemId, outcome: 'done', itemLabel: 'Hall bath GFCI' }), ['buyerAgent', 'listingAgent', 'seller'], 'Hall bath GFCI — corrected'],
-    ['completion letter issued', (id) => ({ kind: 'letter-issued', requestId: id, actorUserId: cast.users.contractor.id, letterId: 5 }), ['buyerAgent', 'inspector', 'listingAgent'], 'completion letter issued'],
-  ])('%s: e-mails the right people with the request link', async (_name, input, expected, subjectPart) => {
+  // The later steps call notify() at their own call points (test/api/seller-and-proof-messages.api.spec.ts
+  // drives them through the API); here each kind's recipients and page, called directly.
+  it.each<[string, (id: number, itemId: number) => NotifyInput, CastKey[], string, string]>([
+    ['items approved or declined', (id) => ({ kind: 'items-decided', requestId: id, actorUserId: cast.users.seller.id, approvedCount: 2, declinedCount: 1, approvedCents: 48_000, decisionRef: 'approval-1' }), ['buyerAgent', 'colleague', 'contractor', 'listingAgent'], '2 approved, 1 declined', 'approval'],
+    ['payment received', (id) => ({ kind: 'payment-received', requestId: id, actorUserId: null, paymentId: 7, amountCents: 12_345, receiptNumber: 'RCT-000007' }), ['colleague', 'contractor', 'listingAgent', 'seller'], 'payment of $123.45 received', 'approval'],
+    ['visit scheduled', (id) => ({ kind: 'visit-scheduled', requestId: id, actorUserId: cast.users.contractor.id, visitNumber: 3, date: '2027-02-10', arrivalFrom: '08:00', arrivalTo: '10:00', previous: null }), ['listingAgent', 'seller'], 'visit on Wednesday, February 10, 2027', 'work'],
+    ['item corrected', (id, itemId) => ({ kind: 'item-corrected', requestId: id, actorUserId: cast.users.contractor.id, itemId, correctionId: 1, outcome: 'corrected', itemLabel: 'Hall bath GFCI' }), ['buyerAgent', 'listingAgent', 'seller'], 'Hall bath GFCI — corrected', 'work'],
+    ['completion letter issued', (id) => ({ kind: 'letter-issued', requestId: id, actorUserId: cast.users.contractor.id, letterNumber: 'CL-00001', revision: 1 }), ['buyerAgent', 'inspector', 'listingAgent'], 'completion letter CL-00001 issued', 'work'],
+  ])('%s: e-mails the right people with the link to its page', async (_name, input, expected, subjectPart, page) => {
     const { requestId: id, itemIds } = await createPricedRequest(cast, t.db, { items: [{ code: 'gfci-inoperative', quantity: 1 }] });
     await worker.drain();
     mail.clear();
@@ -131,8 +132,8 @@ describe('each step of the flow e-mails the right people, with a link to the pag
     for (const who of expected) {
       const [message] = mail.to(emailOf(who));
       expect(message.subject).toContain(subjectPart);
-      expect(message.text).toContain(`${PORTAL}/requests/${id}`);
-      expect(message.html).toContain(`href="${PORTAL}/requests/${id}"`);
+      expect(message.text).toContain(`${PORTAL}/requests/${id}/${page}`);
+      expect(message.html).toContain(`href="${PORTAL}/requests/${id}/${page}"`);
       expect(message.text).toContain(`Hello ${cast.users[who].name},`);
     }
   });
@@ -142,13 +143,13 @@ describe('each step of the flow e-mails the right people, with a link to the pag
     const before = Number((await t.db('outbox_messages').count({ n: '*' }))[0].n);
     await expect(
       t.db.transaction(async (trx) => {
-        await t.services.notifications.notify(trx, { kind: 'letter-issued', requestId: id, actorUserId: null, letterId: 1 });
+        await t.services.notifications.notify(trx, { kind: 'letter-issued', requestId: id, actorUserId: null, letterNumber: 'CL-1', revision: 1 });
         throw new Error('the change failed');
       }),
     ).rejects.toThrow('the change failed');
     expect(Number((await t.db('outbox_messages').count({ n: '*' }))[0].n)).toBe(before);
-    expect(await notify({ kind: 'letter-issued', requestId: id, actorUserId: null, letterId: 2 })).toBe(3);
-    expect(await notify({ kind: 'letter-issued', requestId: id, actorUserId: null, letterId: 2 })).toBe(0);
+    expect(await notify({ kind: 'letter-issued', requestId: id, actorUserId: null, letterNumber: 'CL-1', revision: 2 })).toBe(3);
+    expect(await notify({ kind: 'letter-issued', requestId: id, actorUserId: null, letterNumber: 'CL-1', revision: 2 })).toBe(0);
   });
 });
 
@@ -159,7 +160,7 @@ describe('the outbox worker', () => {
     const busy = await startMailCapture({ reject: () => Object.assign(new Error('mailbox busy'), { responseCode: 451 }) });
     const refusing = await startMailCapture({ reject: () => Object.assign(new Error('no such mailbox'), { responseCode: 550 }) });
     try {
-      await notify({ kind: 'visit-scheduled', requestId: id, actorUserId: null, visitId: 1, startsAt: '2027-02-11T16:00:00Z', endsAt: null });
+      await notify({ kind: 'visit-scheduled', requestId: id, actorUserId: null, visitNumber: 1, date: '2027-02-11', arrivalFrom: '09:00', arrivalTo: '11:00', previous: null });
       const rows = () => t.db('outbox_messages').where({ request_id: id, kind: 'visit-scheduled' }).orderBy('id');
       const [seller] = await rows();
       const startedAt = Date.now();
@@ -217,7 +218,7 @@ describe('preferences', () => {
     const { requestId: id } = await createPricedRequest(cast, t.db, { items: [{ code: 'gfci-inoperative', quantity: 1 }] });
     await worker.drain();
     mail.clear();
-    await notify({ kind: 'payment-received', requestId: id, actorUserId: null, paymentId: 99, amountCents: 5_000 });
+    await notify({ kind: 'payment-received', requestId: id, actorUserId: null, paymentId: 99, amountCents: 5_000, receiptNumber: null });
     await worker.drain();
     expect(receivers()).toEqual(['colleague', 'contractor']);
 

@@ -73,7 +73,7 @@ async function queueMessages(letters: number): Promise<string[]> {
   const { requestId } = await createPricedRequest(cast, t.db, { items: [{ code: 'gfci-inoperative', quantity: 1 }] });
   await t.db('outbox_messages').where({ status: 'pending' }).update({ status: 'skipped' });
   await t.db.transaction(async (trx) => {
-    for (let letterId = 1; letterId <= letters; letterId++) await t.services.notifications.notify(trx, { kind: 'letter-issued', requestId, actorUserId: null, letterId });
+    for (let revision = 1; revision <= letters; revision++) await t.services.notifications.notify(trx, { kind: 'letter-issued', requestId, actorUserId: null, letterNumber: `CL-${requestId}`, revision });
   });
   return (await t.db('outbox_messages').where({ request_id: requestId, kind: 'letter-issued' }).orderBy('id').select('id')).map((r) => String(r.id));
 }

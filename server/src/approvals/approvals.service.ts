@@ -174,7 +174,7 @@ export class ApprovalsService {
 
     // Sent versions never change: the one decided on is read before the transaction.
     const stored = await this.quoteRows.find(requestId, input.quoteVersion);
-    const approvalId = await this.db.transaction(async (trx) => {
+    await this.db.transaction(async (trx) => {
       const status = await this.approvals.lockRequest(requestId, trx);
       if (status !== request.status || (await this.approvals.find(requestId, trx))) throw new ConflictError('The quote was decided on meanwhile. Reload to see the decision.');
       const latest = await this.quoteRows.latestVersion(requestId, trx);
@@ -231,9 +231,9 @@ export class ApprovalsService {
       );
       const note = isApproved ? `Quote version ${latest} approved and signed by ${input.signerName}` : `Every item of quote version ${latest} declined by ${input.signerName}`;
       await this.flow.moveRequest(trx, requestId, isApproved ? 'approve' : 'decline', mover, note, refusalMessages('approve or decline the quote', request.status));
+      await this.notices.quoteDecided(trx, { requestId, by: user.id, approvalId: id, isApproved });
       return id;
     });
-    await this.notices.quoteDecided({ requestId, by: user.id, approvalId, isApproved });
     return this.view(user, requestId);
   }
 }

@@ -1,6 +1,7 @@
-// Where the product tells people that something happened on the seller's side. E-mail is connected
-// here later (one implementation of this interface); until then every call point is in place and
-// the default does nothing. Calls happen after the change is committed.
+// Where the product tells people that something happened on the seller's side. Each call is made
+// inside the transaction of the change, so that its messages commit or roll back with it; the one
+// implementation writes them through `notify()` (notifications/seller-notice-mail.ts).
+import type { Trx } from '../db/knex';
 
 export interface SellerNoticeEvent {
   requestId: number;
@@ -10,22 +11,13 @@ export interface SellerNoticeEvent {
 
 export interface SellerNotices {
   /** The seller's side signed: the contractor and the agents hear that the quote was approved (or declined). */
-  quoteDecided(e: SellerNoticeEvent & { approvalId: number; isApproved: boolean }): Promise<void>;
+  quoteDecided(trx: Trx, e: SellerNoticeEvent & { approvalId: number; isApproved: boolean }): Promise<void>;
   /** A card payment was credited or funds at closing recorded: the seller gets the receipt, the contractor the news. */
-  paymentReceived(e: SellerNoticeEvent & { paymentId: number; receiptInvoiceId: number | null }): Promise<void>;
+  paymentReceived(trx: Trx, e: SellerNoticeEvent & { paymentId: number; receiptInvoiceId: number | null }): Promise<void>;
   /** The contractor sent a change order: the seller's side is asked to decide. */
-  changeOrderSent(e: SellerNoticeEvent & { changeOrderId: number }): Promise<void>;
+  changeOrderSent(trx: Trx, e: SellerNoticeEvent & { changeOrderId: number }): Promise<void>;
   /** The seller's side decided on a change order: the contractor hears it. */
-  changeOrderDecided(e: SellerNoticeEvent & { changeOrderId: number; isApproved: boolean }): Promise<void>;
+  changeOrderDecided(trx: Trx, e: SellerNoticeEvent & { changeOrderId: number; isApproved: boolean }): Promise<void>;
   /** Money went back to the payer. */
-  refundSettled(e: SellerNoticeEvent & { refundId: number }): Promise<void>;
+  refundSettled(trx: Trx, e: SellerNoticeEvent & { refundId: number }): Promise<void>;
 }
-
-/** The default until e-mail is connected: every notice is accepted and nothing is sent. */
-export const NO_NOTICES_YET: SellerNotices = {
-  quoteDecided: async () => undefined,
-  paymentReceived: async () => undefined,
-  changeOrderSent: async () => undefined,
-  changeOrderDecided: async () => undefined,
-  refundSettled: async () => undefined,
-};

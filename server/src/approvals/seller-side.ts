@@ -15,14 +15,14 @@ import type { RequestsService } from '../requests/requests.service';
 import { ApprovalRepository } from './approval.repository';
 import { ApprovalsService } from './approvals.service';
 import { ApprovedScopeReader } from './approved-scope';
-import { NO_NOTICES_YET, type SellerNotices } from './seller-notices';
+import type { SellerNotices } from './seller-notices';
 
 /** The seller's side of a request (approval, change orders, payments, invoices), built from the app's own services. */
 export function createSellerSideServices(
   db: Db,
   config: Config,
   base: { requests: RequestsService; quotes: QuotesService; requestRows: RequestRepository; quoteRows: QuoteRepository; flow: FlowService },
-  notices: SellerNotices = NO_NOTICES_YET,
+  notices: SellerNotices,
 ) {
   const approvalRows = new ApprovalRepository(db);
   const changeOrderRows = new ChangeOrderRepository(db);

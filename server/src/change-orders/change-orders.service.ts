@@ -89,9 +89,9 @@ export class ChangeOrdersService {
       }
       const after = priceScope({ ...scope, changes: [...scope.changes, ...changesOf({ lines })] })?.totalCents ?? 0;
       await this.changeOrders.setPricing(id, { lines, priceCents: after - scope.totalCents, scopeBeforeCents: scope.totalCents, scopeAfterCents: after }, trx);
+      await this.notices.changeOrderSent(trx, { requestId, by: user.id, changeOrderId: id });
       return { id, number };
     });
-    await this.notices.changeOrderSent({ requestId, by: user.id, changeOrderId: id });
     return id;
   }
 
@@ -130,8 +130,8 @@ export class ChangeOrdersService {
       if (isApproved && status === request.status && mayMoveRequest(actors, 'approve-change-order', request.status)) {
         await this.flow.moveRequest(trx, requestId, 'approve-change-order', { userId: user.id, actors }, `Change order ${co.number} approved by ${signerName}. ${consent}`, refusalMessages('approve change orders', request.status));
       }
+      await this.notices.changeOrderDecided(trx, { requestId, by: user.id, changeOrderId, isApproved });
     });
-    await this.notices.changeOrderDecided({ requestId, by: user.id, changeOrderId, isApproved });
   }
 }
 

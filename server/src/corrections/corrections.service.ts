@@ -78,9 +78,9 @@ export class CorrectionsService {
         await moveItem(this.flow, { ...item, requestId }, event, { actors, by: user.id }, trx);
         const stillOpen = items.filter((i) => i.id !== itemId && i.status === 'approved');
         if (!stillOpen.length) await moveRequest(this.flow, { requestId, event: 'finish-work', actors, by: user.id, note: 'Every approved item has an outcome' }, trx);
+        await this.messages.itemCorrected(trx, { requestId, itemId, correctionId, outcome: input.outcome, by: user.id });
       }),
     );
-    await this.messages.itemCorrected({ requestId, itemId, outcome: input.outcome });
     const saved = (await this.corrections.listForRequest(requestId)).find((c) => c.itemId === itemId)!;
     return toCorrectionDto(requestId, saved);
   }

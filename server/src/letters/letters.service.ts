@@ -115,12 +115,12 @@ export class LettersService {
           trx,
         );
         await moveRequest(this.flow, { requestId, event: 'issue-letter', actors, by: user.id, note: `Completion letter ${number} revision ${revision} issued` }, trx);
+        await this.messages.letterIssued(trx, { requestId, letterNumber: number, revision, by: user.id });
         return revision;
       }),
     );
     const letters = await this.letters.listForRequest(requestId);
     const letter = letters.find((l) => l.revision === revision)!;
-    await this.messages.letterIssued({ requestId, letterNumber: letter.number, revision });
     return this.toDto(letter, letters);
   }
 

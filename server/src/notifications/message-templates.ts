@@ -1,7 +1,7 @@
 // The words of every e-mail, in one place: a subject, a few paragraphs and one link to the page in
 // the portal where the person acts. `renderMessage` lays them out as HTML and as plain text.
-import { formatCents, PARTY_ROLE_LABELS, type NotificationKind } from '@cc/shared';
-import type { NotifyInput } from './notify-input';
+import { CORRECTION_OUTCOME_LABELS, formatCents, formatCentsDelta, PARTY_ROLE_LABELS, type NotificationKind } from '@cc/shared';
+import type { NotifyInput, VisitWindow } from './notify-input';
 
 export interface RequestFacts {
   id: number;
@@ -17,12 +17,22 @@ export interface MessageWords {
   action: { label: string; path: string };
 }
 
-const visitTime = (iso: string) =>
-  new Date(iso).toLocaleString('en-US', { weekday: 'long', month: 'long', day: 'numeric', hour: 'numeric', minute: '2-digit', timeZone: 'America/Denver' });
+/** `2027-02-10` → `Wednesday, February 10, 2027` (the day as written, whatever the server's zone). */
+const dayOf = (date: string) => new Date(`${date}T12:00:00Z`).toLocaleDateString('en-US', { weekday: 'long', month: 'long', day: 'numeric', year: 'numeric', timeZone: 'UTC' });
+/** `13:30` → `1:30 PM`. */
+const clockOf = (time: string) => {
+  const [h, m] = time.split(':').map(Number);
+  return `${((h + 11) % 12) + 1}:${String(m).padStart(2, '0')} ${h < 12 ? 'AM' : 'PM'}`;
+};
+/** `Wednesday, February 10, 2027, arriving between 8:00 AM and 10:00 AM`. */
+export const visitWindowText = (w: VisitWindow) => `${dayOf(w.date)}, arriving between ${clockOf(w.arrivalFrom)} and ${clockOf(w.arrivalTo)}`;
 
 /** The words of one message about request `r`. */
 export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
   const page = `/requests/${r.id}`;
+  // The seller's side (decision, change orders, payments, receipts) and the proof side (visits, outcomes, letters).
+  const approvalPage = `${page}/approval`;
+  const workPage = `${page}/work`;
   switch (input.kind) {
     case 'invitation':
       return {
@@ -60,48 +70,90 @@ export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
         ],
         action: { label: 'Read the quote', path: `${page}/quotes/${input.version}` },
       };
-    case 'items-decided':
+    case 'items-decided': {
+      const declinedAll = input.approvedCount === 0;
       return {
-        subject: `${r.reference}: the seller decided — ${input.approvedCount} approved, ${input.declinedCount} declined`,
-        paragraphs: [
-          `The seller approved ${input.approvedCount} ${input.approvedCount === 1 ? 'item' : 'items'} (${formatCents(input.approvedCents)}) and declined ${input.declinedCount} for ${r.address}.`,
-          'The contractor books the visit next.',
-        ],
-        action: { label: 'See the decision', path: page },
+        subject: declinedAll
+          ? `${r.reference}: the seller declined the quote — ${input.declinedCount} ${input.declinedCount === 1 ? 'item' : 'items'} declined`
+          : `${r.reference}: the seller approved the quote — ${input.approvedCount} approved, ${input.declinedCount} declined`,
+        paragraphs: declinedAll
+          ? [`The seller declined every item of the quote for ${r.address}. No work is booked on this request.`]
+          : [
+              `The seller approved and signed ${input.approvedCount} ${input.approvedCount === 1 ? 'item' : 'items'} for ${r.address}, ${formatCents(input.approvedCents)} in total${input.declinedCount ? `, and declined ${input.declinedCount}` : ''}.`,
+              `Next the seller chooses how to pay, and the contractor books the visit. Closing is on ${r.closingDate}.`,
+            ],
+        action: { label: 'See the decision', path: approvalPage },
       };
+    }
     case 'payment-received':
       return {
         subject: `${r.reference}: payment of ${formatCents(input.amountCents)} received`,
-        paragraphs: [`A payment of ${formatCents(input.amountCents)} for the repairs at ${r.address} was received.`, 'The receipt is on the request page.'],
-        action: { label: 'See the payment', path: page },
+        paragraphs: [
+          `A payment of ${formatCents(input.amountCents)} for the electrical repairs at ${r.address} was received.`,
+          input.receiptNumber ? `Receipt ${input.receiptNumber} is on the approval and payment page, with the balance still due.` : 'It is recorded on the approval and payment page, with the balance still due.',
+        ],
+        action: { label: input.receiptNumber ? 'See the receipt' : 'See the payment', path: approvalPage },
+      };
+    case 'change-order-sent':
+      return {
+        subject: `${r.reference}: change order ${input.number} to decide — ${formatCentsDelta(input.priceCents)}`,
+        paragraphs: [
+          `The contractor sent change order ${input.number} for ${r.address}: ${input.reason}`,
+          `It changes the approved work by ${formatCentsDelta(input.priceCents)}. The seller or the listing agent approves or declines it; nothing in it is done until then.`,
+        ],
+        action: { label: 'Decide on the change order', path: approvalPage },
+      };
+    case 'change-order-decided':
+      return {
+        subject: `${r.reference}: change order ${input.number} ${input.isApproved ? 'approved' : 'declined'}`,
+        paragraphs: [
+          input.isApproved
+            ? `The seller's side approved and signed change order ${input.number} for ${r.address} (${formatCentsDelta(input.priceCents)}). It is part of the approved work now.`
+            : `The seller's side declined change order ${input.number} for ${r.address}. The approved work stays as it was.`,
+        ],
+        action: { label: 'See the change order', path: approvalPage },
+      };
+    case 'refund-settled':
+      return {
+        subject: `${r.reference}: refund of ${formatCents(input.amountCents)} paid back`,
+        paragraphs: [
+          `The payment service paid ${formatCents(input.amountCents)} back to the card it came from, for the repairs at ${r.address}.`,
+          'Banks usually show it within 5 to 10 business days. The payments and the balance are on the approval and payment page.',
+        ],
+        action: { label: 'See the payments', path: approvalPage },
       };
     case 'visit-scheduled':
       return {
-        subject: `${r.reference}: electrician's visit on ${visitTime(input.startsAt)}`,
+        subject: `${r.reference}: electrician's visit ${input.previous ? 'moved to' : 'on'} ${dayOf(input.date)}`,
         paragraphs: [
-          `The contractor booked a visit to ${r.address} on ${visitTime(input.startsAt)}${input.endsAt ? ` until ${visitTime(input.endsAt)}` : ''} (Mountain time).`,
-          'Please make sure the electrician can reach the panel and the rooms listed. Power may be off for part of the visit.',
+          input.previous
+            ? `The contractor moved visit ${input.visitNumber} to ${r.address} from ${visitWindowText(input.previous)} to ${visitWindowText(input)}.`
+            : `The contractor booked visit ${input.visitNumber} to ${r.address} on ${visitWindowText(input)}.`,
+          'Please make sure the electrician can get in and reach the panel and the rooms on the list. Power may be off for part of the visit.',
         ],
-        action: { label: 'See the visit', path: page },
+        action: { label: 'See the visit', path: workPage },
       };
-    case 'item-corrected':
+    case 'item-corrected': {
+      const outcome = CORRECTION_OUTCOME_LABELS[input.outcome].toLowerCase();
       return {
-        subject: `${r.reference}: ${input.itemLabel} — ${input.outcome === 'done' ? 'corrected' : 'not corrected'}`,
+        subject: `${r.reference}: ${input.itemLabel} — ${outcome}`,
         paragraphs: [
-          input.outcome === 'done'
+          input.outcome === 'corrected'
             ? `The contractor recorded “${input.itemLabel}” at ${r.address} as corrected, with photos and test readings.`
-            : `The contractor recorded “${input.itemLabel}” at ${r.address} as not corrected; the reason is on the request page.`,
+            : `The contractor recorded “${input.itemLabel}” at ${r.address} as ${outcome}; the reason is on the visits and proof page.`,
+          'The completion letter follows once every approved item has an outcome.',
         ],
-        action: { label: 'See the item', path: page },
+        action: { label: 'See the item', path: workPage },
       };
+    }
     case 'letter-issued':
       return {
-        subject: `${r.reference}: completion letter issued for ${r.address}`,
+        subject: `${r.reference}: completion letter ${input.letterNumber}${input.revision > 1 ? ` revision ${input.revision}` : ''} issued for ${r.address}`,
         paragraphs: [
-          `The contractor issued the completion letter for the electrical repairs at ${r.address}.`,
+          `The contractor issued completion letter ${input.letterNumber}${input.revision > 1 ? `, revision ${input.revision},` : ''} for the electrical repairs at ${r.address}.`,
           'The inspector (or the buyer’s agent) checks the corrections and accepts them or lists the items not accepted.',
         ],
-        action: { label: 'Read the letter', path: page },
+        action: { label: 'Read the letter', path: workPage },
       };
     case 'closing-at-risk':
       return {

@@ -46,6 +46,9 @@ const ACTIVITY_OF: Record<NotificationKind, ActivityKind | null> = {
   'quote-sent': 'quotes',
   'items-decided': 'approvals',
   'payment-received': 'payments',
+  'change-order-sent': 'approvals',
+  'change-order-decided': 'approvals',
+  'refund-settled': 'payments',
   'visit-scheduled': 'visits',
   'item-corrected': 'items',
   'letter-issued': 'letters',
@@ -56,7 +59,8 @@ const ACTIVITY_OF: Record<NotificationKind, ActivityKind | null> = {
 function amountOf(input: NotifyInput): number | null {
   if (input.kind === 'quote-sent') return input.totalCents;
   if (input.kind === 'items-decided') return input.approvedCents;
-  if (input.kind === 'payment-received') return input.amountCents;
+  if (input.kind === 'payment-received' || input.kind === 'refund-settled') return input.amountCents;
+  if (input.kind === 'change-order-sent' || input.kind === 'change-order-decided') return input.priceCents;
   return null;
 }
 

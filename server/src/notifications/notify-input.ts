@@ -1,6 +1,6 @@
 // The typed call every feature makes when something happens that people are told about by e-mail:
 // `notifications.notify(trx, {kind, requestId, ...})`, inside the transaction of the change.
-import type { ItemStatus, NotificationKind, PartyRole } from '@cc/shared';
+import type { CorrectionOutcome, NotificationKind, PartyRole } from '@cc/shared';
 
 interface Base {
   requestId: number;
@@ -14,11 +14,21 @@ export type NotifyInput =
   | (Base & { kind: 'ready-to-price'; itemCount: number })
   | (Base & { kind: 'quote-sent'; version: number; totalCents: number })
   | (Base & { kind: 'items-decided'; approvedCount: number; declinedCount: number; approvedCents: number; decisionRef: string })
-  | (Base & { kind: 'payment-received'; paymentId: number; amountCents: number })
-  | (Base & { kind: 'visit-scheduled'; visitId: number; startsAt: string; endsAt: string | null })
-  | (Base & { kind: 'item-corrected'; itemId: number; outcome: Extract<ItemStatus, 'done' | 'not-done'>; itemLabel: string })
-  | (Base & { kind: 'letter-issued'; letterId: number })
+  | (Base & { kind: 'payment-received'; paymentId: number; amountCents: number; /** The receipt issued for it (card payments), e.g. RCT-000012. */ receiptNumber: string | null })
+  | (Base & { kind: 'change-order-sent'; changeOrderId: number; number: number; priceCents: number; reason: string })
+  | (Base & { kind: 'change-order-decided'; changeOrderId: number; number: number; priceCents: number; isApproved: boolean })
+  | (Base & { kind: 'refund-settled'; refundId: number; amountCents: number })
+  | (Base & { kind: 'visit-scheduled' } & VisitWindow & { visitNumber: number; /** The window before, when the visit was moved. */ previous: VisitWindow | null })
+  | (Base & { kind: 'item-corrected'; itemId: number; correctionId: number; outcome: CorrectionOutcome; itemLabel: string })
+  | (Base & { kind: 'letter-issued'; letterNumber: string; revision: number })
   | (Base & { kind: 'closing-at-risk'; day: string; daysLeft: number });
+
+/** A visit's day and arrival window, in the property's local time (`YYYY-MM-DD`, `HH:MM`). */
+export interface VisitWindow {
+  date: string;
+  arrivalFrom: string;
+  arrivalTo: string;
+}
 
 export type NotifyInputOf<K extends NotificationKind> = Extract<NotifyInput, { kind: K }>;
 
@@ -37,12 +47,19 @@ export function occurrenceOf(input: NotifyInput): string {
       return input.decisionRef;
     case 'payment-received':
       return `payment-${input.paymentId}`;
+    case 'change-order-sent':
+      return `change-order-${input.changeOrderId}`;
+    case 'change-order-decided':
+      return `change-order-${input.changeOrderId}-${input.isApproved ? 'approved' : 'declined'}`;
+    case 'refund-settled':
+      return `refund-${input.refundId}`;
     case 'visit-scheduled':
-      return `visit-${input.visitId}-${input.startsAt}`;
+      // A visit moved to another day or window is a new message.
+      return `visit-${input.visitNumber}-${input.date}-${input.arrivalFrom}-${input.arrivalTo}`;
     case 'item-corrected':
-      return `item-${input.itemId}-${input.outcome}`;
+      return `item-${input.itemId}-correction-${input.correctionId}`;
     case 'letter-issued':
-      return `letter-${input.letterId}`;
+      return `letter-${input.revision}`;
     case 'closing-at-risk':
       return input.day;
   }

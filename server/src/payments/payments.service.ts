@@ -105,16 +105,15 @@ export class PaymentsService {
   async recordFunds(user: CurrentUser, requestId: number, input: RecordFunds): Promise<void> {
     const request = await this.access.get(user, requestId);
     assertMayAct(actorsOnRequest(user, request), 'record-funds', request.status, refusalMessages('record funds', request.status));
-    const payment = await this.db.transaction(async (trx) => {
+    await this.db.transaction(async (trx) => {
       const p = await this.payments.lock(input.paymentId, trx);
       if (!p || p.requestId !== requestId) throw new NotFoundError('No such payment on this request');
       if (p.method !== 'closing') throw new ConflictError('Card payments are recorded by the payment service, not by hand');
       if (p.status !== 'pending') throw new ConflictError('These funds are recorded already');
       if (p.amountCents !== input.amountCents) throw new ValidationError('The amount differs from the invoice', [{ path: 'amountCents', message: `The invoice payable at closing is for ${p.amountCents} cents` }]);
       await this.payments.markSucceeded(p.id, { paymentIntentId: null, reference: input.reference, receivedOn: input.receivedOn }, trx);
-      return p;
+      await this.notices.paymentReceived(trx, { requestId, by: user.id, paymentId: p.id, receiptInvoiceId: null });
     });
-    await this.notices.paymentReceived({ requestId, by: user.id, paymentId: payment.id, receiptInvoiceId: null });
   }
 
   /** The contractor gives money back on a card payment (in full or in part); settled by the service's event. */
@@ -157,27 +156,24 @@ export class PaymentsService {
     } catch (err) {
       throw new WebhookSignatureError((err as Error).message);
     }
-    const after: (() => Promise<void>)[] = [];
-    const outcome = await this.db.transaction(async (trx): Promise<EventOutcome> => {
+    return this.db.transaction(async (trx): Promise<EventOutcome> => {
       if (!(await this.payments.recordEvent(event.id, event.type, trx))) return 'duplicate';
-      const result = await this.apply(event, trx, after);
+      const result = await this.apply(event, trx);
       await this.payments.setEventOutcome(event.id, result, trx);
       return result;
     });
-    for (const notice of after) await notice();
-    return outcome;
   }
 
-  private async apply(event: Stripe.Event, trx: Trx, after: (() => Promise<void>)[]): Promise<EventOutcome> {
+  private async apply(event: Stripe.Event, trx: Trx): Promise<EventOutcome> {
     switch (event.type) {
       case 'checkout.session.completed': {
         const session = event.data.object;
         if (session.payment_status !== 'paid') return 'ignored';
-        return this.credit(session.metadata?.payment_id, session.amount_total, typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null), trx, after);
+        return this.credit(session.metadata?.payment_id, session.amount_total, typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null), trx);
       }
       case 'payment_intent.succeeded': {
         const intent = event.data.object;
-        return this.credit(intent.metadata?.payment_id, intent.amount_received, intent.id, trx, after);
+        return this.credit(intent.metadata?.payment_id, intent.amount_received, intent.id, trx);
       }
       case 'payment_intent.payment_failed': {
         const intent = event.data.object;
@@ -201,7 +197,7 @@ export class PaymentsService {
         if (refund.status === 'succeeded') {
           if (!(await this.payments.settleRefund(stored.id, refund.id, trx))) return 'ignored';
           const payment = await this.payments.find(stored.paymentId, trx);
-          after.push(() => this.notices.refundSettled({ requestId: payment!.requestId, by: null, refundId: stored.id }));
+          await this.notices.refundSettled(trx, { requestId: payment!.requestId, by: null, refundId: stored.id });
           return 'refunded';
         }
         if (refund.status === 'failed' || refund.status === 'canceled') return (await this.payments.markRefundFailed(stored.id, trx)) ? 'refund-failed' : 'ignored';
@@ -217,14 +213,14 @@ export class PaymentsService {
     return Number.isSafeInteger(n) && n > 0 ? this.payments.lock(n, trx) : null;
   }
 
-  private async credit(id: string | undefined, amount: number | null, paymentIntentId: string | null, trx: Trx, after: (() => Promise<void>)[]): Promise<EventOutcome> {
+  private async credit(id: string | undefined, amount: number | null, paymentIntentId: string | null, trx: Trx): Promise<EventOutcome> {
     const payment = await this.paymentOf(id, trx);
     if (!payment) return 'unknown-payment';
     if (payment.status === 'succeeded') return 'already-credited';
     if (amount !== payment.amountCents) return 'amount-mismatch';
     if (!(await this.payments.markSucceeded(payment.id, { paymentIntentId }, trx))) return 'already-credited';
     const receipt = await this.invoices.issueReceipt(payment.requestId, { ...payment, status: 'succeeded', paidAt: new Date(), paymentIntentId }, trx);
-    after.push(() => this.notices.paymentReceived({ requestId: payment.requestId, by: null, paymentId: payment.id, receiptInvoiceId: receipt.id }));
+    await this.notices.paymentReceived(trx, { requestId: payment.requestId, by: null, paymentId: payment.id, receiptInvoiceId: receipt.id });
     return 'credited';
   }
 }

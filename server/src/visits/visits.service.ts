@@ -38,7 +38,7 @@ export class VisitsService {
     if (!electricians.some((e) => e.id === input.electricianId)) {
       throw new ValidationError('Choose one of your electricians', [{ path: 'electricianId', message: 'Choose a person of your organisation' }]);
     }
-    const { visitId, number } = await this.db.transaction(async (trx) => {
+    const visitId = await this.db.transaction(async (trx) => {
       const locked = await this.items.lockRequest(requestId, trx);
       const status = locked?.status as RequestStatus;
       if (!locked || status !== request.status) throw new ConflictError('The request changed meanwhile. Reload and try again.');
@@ -53,9 +53,9 @@ export class VisitsService {
       if (status === 'approved') {
         await moveRequest(this.flow, { requestId, event: 'schedule', actors, by: user.id, note: `Site visit ${visit!.number} booked for ${input.date}` }, trx);
       }
-      return { visitId, number: visit!.number };
+      await this.messages.visitScheduled(trx, { requestId, visitNumber: visit!.number, date: input.date, arrivalFrom: input.arrivalFrom, arrivalTo: input.arrivalTo, by: user.id });
+      return visitId;
     });
-    await this.messages.visitScheduled({ requestId, visitNumber: number, date: input.date, arrivalFrom: input.arrivalFrom, arrivalTo: input.arrivalTo });
     return this.get(user, requestId, visitId);
   }
 

@@ -1,5 +1,5 @@
 import * as z from 'zod';
-import type { FlowActor } from '../requests/request-flow';
+import { REQUEST_ACTIONS, type FlowActor } from '../requests/request-flow';
 
 /** Every message the product sends by e-mail. */
 export const NOTIFICATION_KINDS = [
@@ -9,6 +9,9 @@ export const NOTIFICATION_KINDS = [
   'quote-sent',
   'items-decided',
   'payment-received',
+  'change-order-sent',
+  'change-order-decided',
+  'refund-settled',
   'visit-scheduled',
   'item-corrected',
   'letter-issued',
@@ -41,6 +44,10 @@ export const NOTIFICATION_RULES: Record<NotificationKind, NotificationKindRule> 
   'quote-sent': { label: 'Quote sent', to: ['seller', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
   'items-decided': { label: 'Items approved or declined', to: ['contractor', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
   'payment-received': { label: 'Payment received', to: ['contractor', 'seller', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
+  // Who decides a change order, who sends it, who pays and who refunds: as the flow table says.
+  'change-order-sent': { label: 'Change order to decide', to: REQUEST_ACTIONS['decide-change-order'].by, defaultDelivery: 'immediate', isAdjustable: true },
+  'change-order-decided': { label: 'Change order approved or declined', to: REQUEST_ACTIONS['send-change-order'].by, defaultDelivery: 'immediate', isAdjustable: true },
+  'refund-settled': { label: 'Refund paid back', to: [...REQUEST_ACTIONS.pay.by, ...REQUEST_ACTIONS.refund.by], defaultDelivery: 'immediate', isAdjustable: true },
   'visit-scheduled': { label: 'Visit scheduled', to: ['seller', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
   'item-corrected': { label: 'Item corrected', to: ['buyer-agent', 'listing-agent', 'seller'], defaultDelivery: 'immediate', isAdjustable: true },
   'letter-issued': { label: 'Completion letter issued', to: ['inspector', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },

@@ -1,0 +1,56 @@
+// The seller's side told by e-mail: each notice reads the facts of what happened in the caller's
+// transaction and writes its messages with notify(), so they commit or roll back with the change.
+import type { SellerNotices } from '../approvals/seller-notices';
+import type { Trx } from '../db/knex';
+import { invoiceNumber } from '../invoices/invoice-dto';
+import type { InvoiceSeries } from '../invoices/invoice.repository';
+import type { NotificationsService } from './notifications.service';
+
+export function sellerNoticesByMail(notifications: NotificationsService): SellerNotices {
+  const changeOrder = async (trx: Trx, id: number) =>
+    (await trx('change_orders').where({ id }).first('number', 'price_cents', 'reason')) as { number: number; price_cents: number; reason: string };
+  return {
+    async quoteDecided(trx, { requestId, by, approvalId }) {
+      const approval = await trx('quote_approvals').where({ id: approvalId }).first('approved_total_cents');
+      const counts: { decision: string; n: string }[] = await trx('item_decisions').where({ approval_id: approvalId }).groupBy('decision').select('decision', trx.raw('count(*) AS n'));
+      const count = (decision: string) => Number(counts.find((c) => c.decision === decision)?.n ?? 0);
+      await notifications.notify(trx, {
+        kind: 'items-decided',
+        requestId,
+        actorUserId: by,
+        approvedCount: count('approved'),
+        declinedCount: count('declined'),
+        approvedCents: approval.approved_total_cents,
+        decisionRef: `approval-${approvalId}`,
+      });
+    },
+
+    async paymentReceived(trx, { requestId, by, paymentId, receiptInvoiceId }) {
+      const payment = await trx('payments').where({ id: paymentId }).first('amount_cents');
+      const receipt: { series: InvoiceSeries; number: number } | undefined = receiptInvoiceId === null ? undefined : await trx('invoices').where({ id: receiptInvoiceId }).first('series', 'number');
+      await notifications.notify(trx, {
+        kind: 'payment-received',
+        requestId,
+        actorUserId: by,
+        paymentId,
+        amountCents: payment.amount_cents,
+        receiptNumber: receipt ? invoiceNumber(receipt.series, receipt.number) : null,
+      });
+    },
+
+    async changeOrderSent(trx, { requestId, by, changeOrderId }) {
+      const co = await changeOrder(trx, changeOrderId);
+      await notifications.notify(trx, { kind: 'change-order-sent', requestId, actorUserId: by, changeOrderId, number: co.number, priceCents: co.price_cents, reason: co.reason });
+    },
+
+    async changeOrderDecided(trx, { requestId, by, changeOrderId, isApproved }) {
+      const co = await changeOrder(trx, changeOrderId);
+      await notifications.notify(trx, { kind: 'change-order-decided', requestId, actorUserId: by, changeOrderId, number: co.number, priceCents: co.price_cents, isApproved });
+    },
+
+    async refundSettled(trx, { requestId, by, refundId }) {
+      const refund = await trx('refunds').where({ id: refundId }).first('amount_cents');
+      await notifications.notify(trx, { kind: 'refund-settled', requestId, actorUserId: by, refundId, amountCents: refund.amount_cents });
+    },
+  };
+}
