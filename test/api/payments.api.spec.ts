@@ -4,7 +4,7 @@ import { extractPdfPages } from '../../server/src/integrations/pdf-text';
 import { TEST_CARDS } from '../../server/src/integrations/payments/fake-payment-service';
 import { InvoiceRepository } from '../../server/src/invoices/invoice.repository';
 import { resetDatabase, type SignedIn } from '../helpers/fixtures';
-import { createPaymentsTestApp, newKey, payOnFakePage, quotedRequest, sign, signBody, write, type PaymentsTestApp } from '../helpers/payment-fixtures';
+import { createPaymentsTestApp, gfciFoundOnSite, newKey, payOnFakePage, quotedRequest, sign, signBody, write, type PaymentsTestApp } from '../helpers/payment-fixtures';
 import { createPricingCast, storeRateBook, type PricingCast, type StoredBook } from '../helpers/pricing-fixtures';
 
 // Test card numbers are the payment service's published ones ("Testing", docs.stripe.com/testing):
@@ -283,10 +283,7 @@ describe('POST /api/requests/:id/payments/:paymentId/refunds', () => {
 describe('change orders', () => {
   it('prices an item found on site by the shared engine; approved by the seller it joins the scope and the balance', async () => {
     const { requestId } = await signedRequest();
-    const sent = await write(cast.s.contractor, 'post', `/api/requests/${requestId}/change-orders`).send({
-      reason: 'Metal box without a ground path found behind the vanity',
-      lines: [{ kind: 'add', code: 'gfci-inoperative', room: 'bathroom', location: 'primary bath', entryId: String(book.entry['gfci-replace']), quantity: 1 }],
-    });
+    const sent = await write(cast.s.contractor, 'post', `/api/requests/${requestId}/change-orders`).send(gfciFoundOnSite(book));
     expect(sent.status).toBe(201);
     const co = (sent.body as ApprovalView).changeOrders[0];
     // Computed by hand from docs/pricing.md's rules: a second gfci-replace on Example 1's visit adds

@@ -8,6 +8,7 @@ import { extractPdfPages } from '../../server/src/integrations/pdf-text';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 import { resetDatabase, type SignedIn } from '../helpers/fixtures';
 import { createPricedRequest, createPricingCast, type CastKey, type PricingCast } from '../helpers/pricing-fixtures';
+import { gfciRecord } from '../helpers/proof-fixtures';
 
 // Letters render PDFs with photos and read them back: slower than the other API calls on a busy machine.
 jest.setTimeout(30_000);
@@ -45,22 +46,6 @@ async function phonePhoto(colour = '#c0392b'): Promise<Buffer> {
     .withExif({ IFD0: { Make: 'PhoneMaker', Model: 'Model 9', Copyright: 'Site camera' }, IFD3: { GPSLatitudeRef: 'N', GPSLatitude: '38/1 50/1 0/1', GPSLongitudeRef: 'W', GPSLongitude: '104/1 49/1 0/1' } })
     .toBuffer();
 }
-
-const gfciRecord = (overrides: object = {}) => ({
-  outcome: 'corrected',
-  workPerformed: 'Replaced the worn GFCI receptacle at the first device of the run',
-  materials: '20 A tamper- and weather-resistant GFCI receptacle',
-  deviceMake: 'Acme Devices',
-  deviceModel: 'GF20-TR',
-  deviceLot: '2026-41',
-  labels: ['GFCI Protected'],
-  readings: {
-    gfci: { tripsOnTest: true, resets: true, downstreamProven: 2, tripTimeMs: 27, testCurrentMa: 7.4 },
-    receptacle: { polarityCorrect: true, groundPresent: true },
-    groundPath: { impedanceOhms: 0.12, conductorSize: '12', runLengthFt: 50, temperatureC: 20 },
-  },
-  ...overrides,
-});
 
 function recordCorrection(id: number, itemId: number, record: object, photos: { kind: 'before' | 'after'; data: Buffer; name?: string; type?: string }[] = [], who: SignedIn = cast.s.contractor) {
   const req = post(who, `/api/requests/${id}/items/${itemId}/correction`).field('record', JSON.stringify(record));

@@ -4,7 +4,8 @@
 import { DEMO_RATE_BOOK, type ApprovalView, type StartedPayment } from '@cc/shared';
 import { resetDatabase, type SignedIn } from '../helpers/fixtures';
 import { startMailCapture, testWorker, type MailCapture } from '../helpers/mail-capture';
-import { createPaymentsTestApp, newKey, payOnFakePage, quotedRequest, sign, signBody, write, type PaymentsTestApp } from '../helpers/payment-fixtures';
+import { createPaymentsTestApp, gfciFoundOnSite, newKey, payOnFakePage, quotedRequest, sign, signBody, write, type PaymentsTestApp } from '../helpers/payment-fixtures';
+import { gfciRecord } from '../helpers/proof-fixtures';
 import { createPricedRequest, createPricingCast, storeRateBook, type CastKey, type PricingCast, type StoredBook } from '../helpers/pricing-fixtures';
 import type { OutboxWorker } from '../../server/src/notifications/outbox-worker';
 
@@ -89,20 +90,6 @@ async function approvedWork(): Promise<{ requestId: number; gfci: number; panel:
   return { requestId, gfci: itemIds[0], panel: itemIds[1] };
 }
 
-const gfciCorrected = {
-  outcome: 'corrected',
-  workPerformed: 'Replaced the worn GFCI receptacle at the first device of the run',
-  materials: '20 A tamper- and weather-resistant GFCI receptacle',
-  deviceMake: 'Acme Devices',
-  deviceModel: 'GF20-TR',
-  deviceLot: '2026-41',
-  labels: ['GFCI Protected'],
-  readings: {
-    gfci: { tripsOnTest: true, resets: true, downstreamProven: 2, tripTimeMs: 27, testCurrentMa: 7.4 },
-    receptacle: { polarityCorrect: true, groundPresent: true },
-    groundPath: { impedanceOhms: 0.12, conductorSize: '12', runLengthFt: 50, temperatureC: 20 },
-  },
-};
 const panelNotCorrected = { outcome: 'not-corrected', reason: 'The breaker is not listed for two conductors and the panel maker no longer supplies one; a panel change is quoted separately.' };
 const recordOutcome = (requestId: number, itemId: number, record: object, who: SignedIn = cast.s.contractor) =>
   write(who, 'post', `/api/requests/${requestId}/items/${itemId}/correction`).field('record', JSON.stringify(record));
@@ -181,10 +168,7 @@ describe('the seller’s side', () => {
 
   it('change order sent to the seller’s side to decide; its decision to the contractor’s people', async () => {
     const { requestId } = await signedRequest();
-    const sent = await write(cast.s.contractor, 'post', `/api/requests/${requestId}/change-orders`).send({
-      reason: 'Metal box without a ground path found behind the vanity',
-      lines: [{ kind: 'add', code: 'gfci-inoperative', room: 'bathroom', location: 'primary bath', entryId: String(book.entry['gfci-replace']), quantity: 1 }],
-    });
+    const sent = await write(cast.s.contractor, 'post', `/api/requests/${requestId}/change-orders`).send(gfciFoundOnSite(book));
     expect(sent.status).toBe(201);
     const co = (sent.body as ApprovalView).changeOrders[0];
     await deliver();
@@ -227,7 +211,7 @@ describe('the proof side', () => {
     await deliver();
     mail.clear();
 
-    await recordOutcome(requestId, gfci, gfciCorrected).expect(201);
+    await recordOutcome(requestId, gfci, gfciRecord()).expect(201);
     await deliver();
     expectOneMessageEach(['buyerAgent', 'listingAgent', 'seller'], 'GFCI does not trip, will not reset, or is worn (hall bath vanity) — corrected', `/requests/${requestId}/work`);
     expect(mail.to(emailOf('seller'))[0].text).toContain('as corrected, with photos and test readings');

@@ -63,6 +63,12 @@ export async function sign(who: SignedIn, requestId: number, body: SignApproval)
   return res.body;
 }
 
+/** A change order adding a second GFCI found on site, priced with `gfci-replace` of `book`. */
+export const gfciFoundOnSite = (book: StoredBook) => ({
+  reason: 'Metal box without a ground path found behind the vanity',
+  lines: [{ kind: 'add' as const, code: 'gfci-inoperative', room: 'bathroom', location: 'primary bath', entryId: String(book.entry['gfci-replace']), quantity: 1 }],
+});
+
 let keyCounter = 0;
 /** A fresh idempotency key, as the portal makes one per attempt. */
 export const newKey = () => `test-key-${Date.now().toString(36)}-${(keyCounter++).toString().padStart(6, '0')}`;
