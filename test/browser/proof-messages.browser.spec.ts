@@ -37,7 +37,7 @@ describe('an item’s outcome is e-mailed to the seller with the link to the pro
 
     await page.locator('mat-card').filter({ hasText: ITEM }).getByTestId('record-outcome').click();
     await page.getByTestId('correction-heading').waitFor();
-    await page.getByTestId('outcome-not-corrected').click();
+    await page.getByRole('radio', { name: 'Could not correct' }).check();
     await page.getByTestId('correction-reason').fill('The attic is closed off by the seller’s stored furniture; the boxes are reachable once it is moved.');
     await page.getByTestId('correction-save').click();
     await page.waitForURL((url) => url.pathname === workPath);
@@ -58,7 +58,7 @@ describe('an item’s outcome is e-mailed to the seller with the link to the pro
     await item.first().click();
     const text = await page.getByTestId('mailbox-text').textContent();
     expect(text).toContain('Hello Ellen Brooks,');
-    expect(text).toContain(`“${ITEM} (attic above garage)” at ${STREET}`);
+    expect(text).toContain(`The contractor could not correct “${ITEM} (attic above garage)” at ${STREET}`);
     expect(text).toContain(`See the item: ${portalUrl(workPath)}`);
     await page.getByRole('tab', { name: 'HTML' }).click();
     expect(await page.getByTestId('mailbox-html').getByRole('link', { name: 'See the item' }).getAttribute('href')).toBe(portalUrl(workPath));

@@ -138,9 +138,11 @@ export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
       return {
         subject: `${r.reference}: ${input.itemLabel} — ${outcome}`,
         paragraphs: [
-          input.outcome === 'corrected'
-            ? `The contractor recorded “${input.itemLabel}” at ${r.address} as corrected, with photos and test readings.`
-            : `The contractor recorded “${input.itemLabel}” at ${r.address} as ${outcome}; the reason is on the visits and proof page.`,
+          {
+            corrected: `The contractor recorded “${input.itemLabel}” at ${r.address} as corrected, with photos and test readings.`,
+            'not-corrected': `The contractor could not correct “${input.itemLabel}” at ${r.address}; the reason is on the visits and proof page.`,
+            'declined-on-site': `“${input.itemLabel}” at ${r.address} was declined on site; the reason is on the visits and proof page.`,
+          }[input.outcome],
           'The completion letter follows once every approved item has an outcome.',
         ],
         action: { label: 'See the item', path: workPage },
