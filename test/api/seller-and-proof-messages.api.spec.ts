@@ -8,6 +8,7 @@ import { createPaymentsTestApp, gfciFoundOnSite, newKey, payOnFakePage, quotedRe
 import { gfciRecord } from '../helpers/proof-fixtures';
 import { createPricedRequest, createPricingCast, storeRateBook, type CastKey, type PricingCast, type StoredBook } from '../helpers/pricing-fixtures';
 import type { OutboxWorker } from '../../server/src/notifications/outbox-worker';
+import { proofMessagesByMail } from '../../server/src/notifications/proof-message-mail';
 
 // Each test carries a request through several steps over HTTP, some with the fake payment service.
 jest.setTimeout(60_000);
@@ -203,6 +204,25 @@ describe('the proof side', () => {
     expect(m.html).toContain('arriving between 8:00 AM and 10:30 AM');
     // The access notes (lockbox) are not e-mailed.
     expect(m.text).not.toContain('lockbox');
+  });
+
+  it('visit moved (as the day plan calls it, in its transaction): a new message says so; the same move again writes nothing', async () => {
+    const { requestId } = await approvedWork();
+    const date = inDays(3);
+    await write(cast.s.contractor, 'post', `/api/requests/${requestId}/visits`).send(visitBody({ date })).expect(201);
+    await deliver();
+    mail.clear();
+    const messages = proofMessagesByMail(t.services.notifications);
+    const later = inDays(5);
+    const move = () =>
+      t.db.transaction((trx) =>
+        messages.visitScheduled(trx, { requestId, visitNumber: 1, date: later, arrivalFrom: '13:00', arrivalTo: '15:00', by: cast.users.contractor.id, previous: { date, arrivalFrom: '08:00', arrivalTo: '10:30' } }),
+      );
+    await move();
+    await move();
+    await deliver();
+    expectOneMessageEach(['listingAgent', 'seller'], `electrician's visit moved to ${dayWords(later)}`, `/requests/${requestId}/work`);
+    expect(mail.to(emailOf('seller'))[0].text).toContain(`is now on ${dayWords(later)}, arriving between 1:00 PM and 3:00 PM. It was on ${dayWords(date)}, arriving between 8:00 AM and 10:30 AM.`);
   });
 
   it('item outcomes go to both agents and the seller; the completion letter to the inspector and both agents', async () => {

@@ -90,7 +90,7 @@ export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
         subject: `${r.reference}: payment of ${formatCents(input.amountCents)} received`,
         paragraphs: [
           `A payment of ${formatCents(input.amountCents)} for the electrical repairs at ${r.address} was received.`,
-          input.receiptNumber ? `Receipt ${input.receiptNumber} is on the approval and payment page, with the balance still due.` : 'It is recorded on the approval and payment page, with the balance still due.',
+          input.receiptNumber ? `Receipt ${input.receiptNumber} is on the approval and payment page, beside what is left to pay, if anything.` : 'It is recorded on the approval and payment page, beside what is left to pay, if anything.',
         ],
         action: { label: input.receiptNumber ? 'See the receipt' : 'See the payment', path: approvalPage },
       };
@@ -98,7 +98,7 @@ export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
       return {
         subject: `${r.reference}: change order ${input.number} to decide — ${formatCentsDelta(input.priceCents)}`,
         paragraphs: [
-          `The contractor sent change order ${input.number} for ${r.address}: ${input.reason}`,
+          `The contractor sent change order ${input.number} for ${r.address}, with this reason: “${input.reason}”`,
           `It changes the approved work by ${formatCentsDelta(input.priceCents)}. The seller or the listing agent approves or declines it; nothing in it is done until then.`,
         ],
         action: { label: 'Decide on the change order', path: approvalPage },
@@ -118,7 +118,7 @@ export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
         subject: `${r.reference}: refund of ${formatCents(input.amountCents)} paid back`,
         paragraphs: [
           `The payment service paid ${formatCents(input.amountCents)} back to the card it came from, for the repairs at ${r.address}.`,
-          'Banks usually show it within 5 to 10 business days. The payments and the balance are on the approval and payment page.',
+          'The payments and what is left to pay are on the approval and payment page.',
         ],
         action: { label: 'See the payments', path: approvalPage },
       };
@@ -127,7 +127,7 @@ export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
         subject: `${r.reference}: electrician's visit ${input.previous ? 'moved to' : 'on'} ${dayOf(input.date)}`,
         paragraphs: [
           input.previous
-            ? `The contractor moved visit ${input.visitNumber} to ${r.address} from ${visitWindowText(input.previous)} to ${visitWindowText(input)}.`
+            ? `Visit ${input.visitNumber} to ${r.address} is now on ${visitWindowText(input)}. It was on ${visitWindowText(input.previous)}.`
             : `The contractor booked visit ${input.visitNumber} to ${r.address} on ${visitWindowText(input)}.`,
           'Please make sure the electrician can get in and reach the panel and the rooms on the list. Power may be off for part of the visit.',
         ],

@@ -1,0 +1,31 @@
+import { visitWindowText, wordsFor } from './message-templates';
+
+const request = { id: 8, reference: 'CC-00008', address: '87 Tinsmith Way, Marlow Springs, CO 81290', closingDate: '2027-02-20' };
+
+describe('visitWindowText', () => {
+  // 12-hour clock as US readers write it: 00:xx is 12:xx AM, 12:xx is 12:xx PM.
+  it.each([
+    [{ date: '2027-02-10', arrivalFrom: '08:00', arrivalTo: '10:30' }, 'Wednesday, February 10, 2027, arriving between 8:00 AM and 10:30 AM'],
+    [{ date: '2027-02-28', arrivalFrom: '12:00', arrivalTo: '13:05' }, 'Sunday, February 28, 2027, arriving between 12:00 PM and 1:05 PM'],
+    [{ date: '2028-02-29', arrivalFrom: '00:30', arrivalTo: '23:59' }, 'Tuesday, February 29, 2028, arriving between 12:30 AM and 11:59 PM'],
+  ])('%j → %s', (window, text) => {
+    expect(visitWindowText(window)).toBe(text);
+  });
+});
+
+describe('wordsFor a visit', () => {
+  const base = { kind: 'visit-scheduled', requestId: 8, actorUserId: null, visitNumber: 2, date: '2027-02-10', arrivalFrom: '13:00', arrivalTo: '15:30' } as const;
+
+  it('says when a booked visit is and links to the visits and proof page', () => {
+    const words = wordsFor({ ...base, previous: null }, request);
+    expect(words.subject).toBe("CC-00008: electrician's visit on Wednesday, February 10, 2027");
+    expect(words.paragraphs[0]).toBe('The contractor booked visit 2 to 87 Tinsmith Way, Marlow Springs, CO 81290 on Wednesday, February 10, 2027, arriving between 1:00 PM and 3:30 PM.');
+    expect(words.action.path).toBe('/requests/8/work');
+  });
+
+  it('says that a moved visit moved, and from when', () => {
+    const words = wordsFor({ ...base, previous: { date: '2027-02-09', arrivalFrom: '08:00', arrivalTo: '10:00' } }, request);
+    expect(words.subject).toBe("CC-00008: electrician's visit moved to Wednesday, February 10, 2027");
+    expect(words.paragraphs[0]).toContain('It was on Tuesday, February 9, 2027, arriving between 8:00 AM and 10:00 AM.');
+  });
+});
