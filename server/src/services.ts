@@ -43,6 +43,8 @@ import { createFlowListener } from './notifications/flow-listener';
 import { NotificationsService } from './notifications/notifications.service';
 import { OutboxRepository } from './notifications/outbox.repository';
 import { PreferencesRepository } from './notifications/preferences.repository';
+import { DayPlanRepository } from './day-plan/day-plan.repository';
+import { DayPlanService } from './day-plan/day-plan.service';
 
 /** Builds every repository and service of the app from one database handle and the config. */
 export function createServices(db: Db, config: Config, proofMessages: ProofMessages = noProofMessages) {
@@ -76,6 +78,7 @@ export function createServices(db: Db, config: Config, proofMessages: ProofMessa
   const siteVisits = new SiteVisitRepository(db);
   const corrections = new CorrectionRepository(db);
   const letterRecords = new LetterRepository(db);
+  const visits = new VisitsService(db, requestsService, flow, siteVisits, workItems, proofMessages);
   const letters = new LettersService(db, requestsService, flow, organisations, workItems, corrections, letterRecords, storage, proofMessages, config.publicUrl);
   return {
     repositories: { users, organisations, requests, items, reports, activity },
@@ -100,7 +103,8 @@ export function createServices(db: Db, config: Config, proofMessages: ProofMessa
     ballpark: new BallparkService(requestsService, rateBookService, itemPricing),
     quotes: quotesService,
     sellerSide: createSellerSideServices(db, config, { requests: requestsService, quotes: quotesService, requestRows: requests, quoteRows: quotes, flow }),
-    visits: new VisitsService(db, requestsService, flow, siteVisits, workItems, proofMessages),
+    visits,
+    dayPlan: new DayPlanService(db, new DayPlanRepository(db), siteVisits, requestsService, visits, proofMessages, config.publicUrl),
     corrections: new CorrectionsService(db, requestsService, flow, workItems, siteVisits, corrections, storage, proofMessages),
     letters,
     work: new WorkService(requestsService, workItems, siteVisits, corrections, letterRecords, letters, config.atRiskBusinessDays),

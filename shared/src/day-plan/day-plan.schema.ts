@@ -1,5 +1,5 @@
 import * as z from 'zod';
-import { BoundedDateSchema, RecordIdSchema, trimmedText, VersionSchema } from '../http/bounds';
+import { BoundedDateSchema, INT4_MAX, RecordIdSchema, trimmedText } from '../http/bounds';
 import { US_STATES } from '../requests/us-state';
 
 // The day plan of an electrician: the site visits of one date, ordered to keep driving short, with
@@ -42,7 +42,8 @@ const dayOrder = (s: { dayStart: string; dayEnd: string; lunchStart: string }, c
   if (s.lunchStart < s.dayStart || s.lunchStart >= s.dayEnd) ctx.addIssue({ code: 'custom', message: 'Lunch starts within the working day', path: ['lunchStart'] });
 };
 
-export const UpdateDayPlanSettingsSchema = z.object({ ...settingsShape, version: VersionSchema }).superRefine(dayOrder);
+/** `version` is the one read (0 while the organisation still has the defaults). */
+export const UpdateDayPlanSettingsSchema = z.object({ ...settingsShape, version: z.number().int().min(0).max(INT4_MAX, 'No record has this version') }).superRefine(dayOrder);
 export type UpdateDayPlanSettings = z.input<typeof UpdateDayPlanSettingsSchema>;
 
 export const DayPlanSettingsSchema = z.object({
