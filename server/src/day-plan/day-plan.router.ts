@@ -15,6 +15,10 @@ export function createDayPlanRouter({ services }: RouterDeps): Router {
     res.json(await dayPlan.day(userOf(req), date, electricianId));
   });
 
+  router.get('/electricians', async (req, res) => {
+    res.json(await dayPlan.electricians(userOf(req)));
+  });
+
   router.get('/week', async (req, res) => {
     res.json(await dayPlan.week(userOf(req), WeekQuerySchema.parse(req.query).start));
   });

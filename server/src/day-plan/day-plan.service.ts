@@ -61,6 +61,11 @@ export class DayPlanService {
     return electrician;
   }
 
+  /** The people of the organisation who can be sent on a visit. */
+  async electricians(user: CurrentUser): Promise<{ id: number; name: string }[]> {
+    return this.plans.electricians(this.organisationOf(user));
+  }
+
   async settings(user: CurrentUser): Promise<DayPlanSettings> {
     const settings = await this.plans.settings(this.organisationOf(user));
     return { ...settings, isShopLocated: shopPlace(settings) !== null };
