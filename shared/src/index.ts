@@ -73,3 +73,4 @@ export * from './geo/great-circle';
 export * from './geo/route-order';
 export * from './day-plan/day-plan.schema';
 export * from './day-plan/day-schedule';
+export * from './day-plan/window-order';

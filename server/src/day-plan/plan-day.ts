@@ -3,6 +3,9 @@ import {
   distanceMatrix,
   driveMinutes,
   greatCircleMiles,
+  KM_PER_MILE,
+  minutesOfDay,
+  orderWithinWindows,
   orderStops,
   scheduleDay,
   type DayPlan,
@@ -34,6 +37,19 @@ export const addressOf = (p: Pick<PropertyRecord, 'street' | 'city'>) => `${p.st
 const roundMiles = (miles: number) => Math.round(miles * 10) / 10;
 
 /**
+ * The shortest drive through the stops (exact up to 10 stops, nearest neighbour + 2-opt above), then,
+ * up to 8 stops, the order that keeps the arrival windows given to the sellers best (late least, back
+ * earliest, driving least): with windows open all day that is the shortest drive.
+ */
+function orderForDay(settings: StoredDayPlanSettings, points: LatLng[], visits: readonly PlannedVisitRecord[]): number[] {
+  const km = distanceMatrix(points);
+  const byDrive = orderStops(km);
+  const minutesPerKm = (settings.roadFactorPercent / 100 / KM_PER_MILE / settings.averageSpeedMph) * 60;
+  const stops = visits.map((v) => ({ onSiteMinutes: onSiteMinutes(settings, v), windowFrom: minutesOfDay(v.arrivalFrom), windowTo: minutesOfDay(v.arrivalTo) }));
+  return orderWithinWindows(km.map((d) => d * minutesPerKm), stops, minutesOfDay(settings.dayStart), byDrive);
+}
+
+/**
  * Orders one electrician's visits of a day from and back to the shop and times them. Visits without a
  * place keep their booked order after the located ones (their drives are unknown and not counted).
  * Pure apart from the ZIP table: the caller loads the settings and visits.
@@ -43,7 +59,7 @@ export function buildDayPlan(settings: StoredDayPlanSettings, electrician: { id:
   const withPlace = visits.map((visit) => ({ visit, place: placeOf(visit) }));
   const located = shop ? withPlace.filter((v) => v.place) : [];
   const unlocated = withPlace.filter((v) => !located.includes(v));
-  const order = shop ? orderStops(distanceMatrix([shop, ...located.map((v) => v.place!)])) : [];
+  const order = shop ? orderForDay(settings, [shop, ...located.map((v) => v.place!)], located.map((v) => v.visit)) : [];
   const ordered = [...order.map((i) => located[i - 1]), ...unlocated];
 
   const assumptions = { roadFactorPercent: settings.roadFactorPercent, averageSpeedMph: settings.averageSpeedMph };
