@@ -45,6 +45,8 @@ describe('day plan', () => {
     await chooseElectrician(page, 'Lee Park');
     await page.getByTestId('day-plan-empty').waitFor();
     expect(await page.locator('[aria-label="Safety notice"]').count()).toBe(1);
+    await page.getByTestId('day-plan-suggestion-0').scrollIntoViewIfNeeded();
+    await screenshot(page, 'day-plan-suggestions-desktop');
 
     for (let booked = 1; booked <= 3; booked++) {
       const suggestion = page.getByTestId('day-plan-suggestion-0');
@@ -82,6 +84,14 @@ describe('day plan', () => {
     expect(await stopTimes(page)).toHaveLength(2);
     await chooseElectrician(page, 'Sam Okafor');
     await page.getByTestId('day-plan-stops').locator('mat-card-title').filter({ hasText: stops[0].address }).waitFor();
+
+    // The week shows the move: the visit under Sam on that day, two left under Lee.
+    await page.getByTestId('day-plan-week-link').click();
+    await page.getByTestId('week-heading').waitFor();
+    const day = page.getByTestId(`week-day-${date}`);
+    await day.waitFor();
+    expect(await day.textContent()).toContain(stops[0].address.split(',')[0]);
+    await screenshot(page, 'week-desktop');
     expect(problems).toEqual([]);
     await page.close();
   });
