@@ -100,12 +100,10 @@ export class DayPlanService {
     const found: DayPlanSuggestion[] = [];
     for (const job of await this.plans.unscheduledJobs(organisationId)) {
       const place = placeOf(job);
-      if (!place) continue;
+      if (!place || Math.min(...route.map((p) => driveMinutes(p, place, settings))) > USUAL_MAX_DRIVE_MINUTES) continue;
       const trial = this.trialPlan(settings, plan, visits, job);
       if (trial.overflowMinutes > 0 || trial.stops.some((s) => s.isLate)) continue;
       const stop = trial.stops.find((s) => s.visitId === 0)!;
-      const nearest = Math.min(...route.map((p) => driveMinutes(p, place, settings)));
-      if (nearest > USUAL_MAX_DRIVE_MINUTES) continue;
       found.push({
         requestId: job.requestId,
         address: addressOf(job),
@@ -211,8 +209,9 @@ export class DayPlanService {
     const organisationId = this.organisationOf(user);
     const visit = await this.plans.findVisit(organisationId, visitId);
     if (!visit) throw new NotFoundError('No such site visit');
-    const record = (await this.plans.visits(organisationId, visit.date, visit.date, visit.electricianId)).find((v) => v.visitId === visitId)!;
     const electrician = await this.electricianOf(organisationId, visit.electricianId);
+    const record = (await this.plans.visits(organisationId, visit.date, visit.date, visit.electricianId)).find((v) => v.visitId === visitId);
+    if (!record) throw new NotFoundError('No such site visit');
     return visitsCalendar([record], () => electrician.name);
   }
 
