@@ -92,4 +92,33 @@ export const REQUESTS: DemoRequest[] = [
   { street: '640 Bellweather Road', city: 'Marlow Springs', zip: '81290', yearBuilt: 1983, closingInDays: -5, necEdition: 2023, path: upTo('accepted'), buyerAgent: 'maya', listingAgent: null, seller: 'ellen', inspector: 'nora', contractor: 'brightline', items: [polarity] },
   { street: '12 Cobble Creek Lane', city: 'Marlow Springs', zip: '81290', yearBuilt: 1955, closingInDays: 30, necEdition: 2023, path: upTo('declined'), buyerAgent: 'priya', listingAgent: 'rob', seller: 'june', inspector: 'nora', contractor: 'brightline', items: [openGround] },
   { street: '301 Kestrel Point', city: 'Quarry Bend', zip: '81292', yearBuilt: 1979, closingInDays: 21, necEdition: 2020, path: [...upTo('intake'), 'withdraw'], buyerAgent: 'maya', listingAgent: null, seller: 'tomas', inspector: 'nora', contractor: 'copperleaf', items: [] },
+  // Brightline's planned day (seeds/05_day_plan.ts books their visits for Sam Okafor on the next
+  // weekday) and approved jobs nearby still waiting for a visit. Real ZIP codes of the ZIP-code list,
+  // so the day plan can place them; the town, streets and people stay invented.
+  ...plannedDayRequests(),
 ];
+
+/** The shop every Brightline day starts and ends at (its ZIP code is in the ZIP-code list). */
+export const BRIGHTLINE_SHOP = { street: '77 Foundry Lane', city: 'Marlow Springs', state: 'CO', zip: '80903' } as const;
+
+/** Streets of the seeded planned day, with the arrival window each visit was booked with. */
+export const PLANNED_DAY_VISITS = [
+  { street: '16 Chapel Row', arrivalFrom: '08:00', arrivalTo: '10:00' },
+  { street: '405 Orchard Bend', arrivalFrom: '09:30', arrivalTo: '11:30' },
+  { street: '92 Millrace Court', arrivalFrom: '12:30', arrivalTo: '14:30' },
+  { street: '2210 Kiln Street', arrivalFrom: '13:30', arrivalTo: '15:30' },
+] as const;
+
+function plannedDayRequests(): DemoRequest[] {
+  const base = { city: 'Marlow Springs', necEdition: 2023, buyerAgent: 'maya', listingAgent: 'rob', inspector: 'nora', contractor: 'brightline' } as const;
+  return [
+    { ...base, street: '16 Chapel Row', zip: '80903', yearBuilt: 1972, closingInDays: 8, path: upTo('scheduled'), seller: 'ellen', items: [gfciKitchen] },
+    { ...base, street: '405 Orchard Bend', zip: '80905', yearBuilt: 1964, closingInDays: 10, path: upTo('scheduled'), seller: 'tomas', items: [doubleTap, weatherCover] },
+    { ...base, street: '92 Millrace Court', zip: '80909', yearBuilt: 1988, closingInDays: 9, path: upTo('scheduled'), seller: 'june', items: [polarity] },
+    { ...base, street: '2210 Kiln Street', zip: '80907', yearBuilt: 1957, closingInDays: 11, path: upTo('scheduled'), seller: 'ellen', items: [smoke, gfciBath] },
+    { ...base, street: '58 Weaver Lane', zip: '80904', yearBuilt: 1981, closingInDays: 12, path: upTo('approved'), seller: 'tomas', items: [gfciBath] },
+    { ...base, street: '7 Tannery Close', zip: '80910', yearBuilt: 1969, closingInDays: 13, path: upTo('approved'), seller: 'june', items: [weatherCover] },
+    { ...base, street: '311 Spindle Way', zip: '80906', yearBuilt: 1993, closingInDays: 15, path: upTo('approved'), seller: 'ellen', items: [doubleTap] },
+    { ...base, street: '140 Cooper Hill', zip: '80916', yearBuilt: 1976, closingInDays: 16, path: upTo('approved'), seller: 'tomas', items: [polarity] },
+  ];
+}

@@ -22,6 +22,7 @@ import { createWorkRouter } from './work/work.router';
 import { createActivityRouter } from './activity/activity.router';
 import { createDashboardsRouter } from './dashboards/dashboards.router';
 import { createMailboxRouter, createNotificationsRouter } from './notifications/notifications.router';
+import { createCalendarFeedRouter, createDayPlanRouter } from './day-plan/day-plan.router';
 
 /** Mounts every API router under /api. CSRF protection covers every state-changing route. */
 export function createApiRouter(deps: RouterDeps): Router {
@@ -51,5 +52,7 @@ export function createApiRouter(deps: RouterDeps): Router {
   api.use('/notifications', createNotificationsRouter(deps));
   api.use('/mailbox', createMailboxRouter(deps));
   api.use('/dashboards', createDashboardsRouter(deps));
+  api.use('/day-plan', createDayPlanRouter(deps));
+  api.use('/calendar', createCalendarFeedRouter(deps));
   return api;
 }

@@ -44,6 +44,8 @@ import { OutboxRepository } from './notifications/outbox.repository';
 import { proofMessagesByMail } from './notifications/proof-message-mail';
 import { sellerNoticesByMail } from './notifications/seller-notice-mail';
 import { PreferencesRepository } from './notifications/preferences.repository';
+import { DayPlanRepository } from './day-plan/day-plan.repository';
+import { DayPlanService } from './day-plan/day-plan.service';
 
 /** Builds every repository and service of the app from one database handle and the config. */
 export function createServices(db: Db, config: Config) {
@@ -79,6 +81,7 @@ export function createServices(db: Db, config: Config) {
   const siteVisits = new SiteVisitRepository(db);
   const corrections = new CorrectionRepository(db);
   const letterRecords = new LetterRepository(db);
+  const visits = new VisitsService(db, requestsService, flow, siteVisits, workItems, proofMessages);
   const letters = new LettersService(db, requestsService, flow, organisations, workItems, corrections, letterRecords, storage, proofMessages, config.publicUrl);
   return {
     repositories: { users, organisations, requests, items, reports, activity },
@@ -103,7 +106,8 @@ export function createServices(db: Db, config: Config) {
     ballpark: new BallparkService(requestsService, rateBookService, itemPricing),
     quotes: quotesService,
     sellerSide: createSellerSideServices(db, config, { requests: requestsService, quotes: quotesService, requestRows: requests, quoteRows: quotes, flow }, sellerNoticesByMail(notifications)),
-    visits: new VisitsService(db, requestsService, flow, siteVisits, workItems, proofMessages),
+    visits,
+    dayPlan: new DayPlanService(db, new DayPlanRepository(db), siteVisits, requestsService, visits, proofMessages, config.publicUrl),
     corrections: new CorrectionsService(db, requestsService, flow, workItems, siteVisits, corrections, storage, proofMessages),
     letters,
     work: new WorkService(requestsService, workItems, siteVisits, corrections, letterRecords, letters, config.atRiskBusinessDays),

@@ -70,3 +70,8 @@ export * from './notifications/notification-kind';
 export * from './activity/activity.schema';
 export * from './dashboards/dashboard.schema';
 export * from './dashboards/dashboard-rules';
+export * from './geo/great-circle';
+export * from './geo/route-order';
+export * from './day-plan/day-plan.schema';
+export * from './day-plan/day-schedule';
+export * from './day-plan/window-order';

@@ -103,6 +103,11 @@ export class SiteVisitRepository {
     return row.id;
   }
 
+  /** Gives a visit another date, electrician and arrival window (the day plan moves booked visits). */
+  async reschedule(id: number, to: { date: string; electricianId: number; arrivalFrom: string; arrivalTo: string }, trx: Trx): Promise<void> {
+    await trx('site_visits').where({ id }).update({ visit_date: to.date, electrician_id: to.electricianId, arrival_from: to.arrivalFrom, arrival_to: to.arrivalTo, updated_at: new Date() });
+  }
+
   /** Moves a visit from one of `from` to `to`; false when it was not in one of those states. */
   async setStatus(id: number, from: readonly SiteVisitStatus[], to: SiteVisitStatus, trx: Trx): Promise<boolean> {
     const now = new Date();

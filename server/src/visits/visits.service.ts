@@ -104,7 +104,8 @@ function itemsToPlan(items: readonly WorkItemRecord[], quotedVisitKey: string | 
   return open.filter((i) => i.quotedVisitKey === quotedVisitKey);
 }
 
-function assertDateInRange(date: string): void {
+/** A visit's date is from today to a year ahead (booking and moving alike). */
+export function assertDateInRange(date: string): void {
   const today = new Date().toISOString().slice(0, 10);
   const latest = new Date(Date.now() + MAX_DAYS_AHEAD * 86_400_000).toISOString().slice(0, 10);
   if (date < today || date > latest) {

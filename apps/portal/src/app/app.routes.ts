@@ -45,6 +45,11 @@ export const routes: Routes = [
     loadChildren: () => import('./pricing/pricing.routes').then((m) => m.pricingRoutes),
   },
   {
+    path: 'day-plan',
+    canActivate: [signedIn],
+    loadChildren: () => import('./day-plan/day-plan.routes').then((m) => m.dayPlanRoutes),
+  },
+  {
     path: 'rate-book',
     canActivate: [signedIn],
     loadChildren: () => import('./rate-book/rate-book.routes').then((m) => m.rateBookRoutes),

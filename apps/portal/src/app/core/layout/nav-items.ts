@@ -26,6 +26,7 @@ export function navItemsFor(role: Role): NavItem[] {
   if (role === 'contractor') {
     items.push(
       { id: 'job-queue', label: 'Job queue', icon: 'request_quote', link: '/pricing' },
+      { id: 'day-plan', label: 'Day plan', icon: 'route', link: '/day-plan' },
       { id: 'rate-book', label: 'Rate book', icon: 'menu_book', link: '/rate-book' },
     );
   }
