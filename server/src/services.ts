@@ -43,8 +43,16 @@ import { createFlowListener } from './notifications/flow-listener';
 import { NotificationsService } from './notifications/notifications.service';
 import { OutboxRepository } from './notifications/outbox.repository';
 import { PreferencesRepository } from './notifications/preferences.repository';
+import { ApprovalRepository } from './approvals/approval.repository';
+import { ApprovedScopeReader } from './approvals/approved-scope';
+import { ChangeOrderRepository } from './change-orders/change-order.repository';
+import { noDayPlan } from './economics/drive-time';
+import { EconomicsRepository } from './economics/economics.repository';
+import { EconomicsService } from './economics/economics.service';
+import { IntakePhotosService } from './economics/intake-photos';
 
 /** Builds every repository and service of the app from one database handle and the config. */
+
 export function createServices(db: Db, config: Config, proofMessages: ProofMessages = noProofMessages) {
   const users = new UserRepository(db);
   const organisations = new OrganisationRepository(db);
@@ -104,6 +112,8 @@ export function createServices(db: Db, config: Config, proofMessages: ProofMessa
     corrections: new CorrectionsService(db, requestsService, flow, workItems, siteVisits, corrections, storage, proofMessages),
     letters,
     work: new WorkService(requestsService, workItems, siteVisits, corrections, letterRecords, letters, config.atRiskBusinessDays),
+    economics: new EconomicsService(db, new EconomicsRepository(db), new ApprovedScopeReader(new ApprovalRepository(db), new ChangeOrderRepository(db)), rateBookService, noDayPlan),
+    intakePhotos: new IntakePhotosService(db, requestsService, storage),
   };
 }
 
