@@ -75,6 +75,14 @@ export class EconomicsService {
     return [...days.values()];
   }
 
+  /** Rate-book keys of the organisation's entries and site conditions by their engine ids (deleted ones keep their id). */
+  private async keysOf(organisationId: number): Promise<{ entry: (id: string) => string; adder: (id: string) => string }> {
+    const loaded = await this.rateBooks.load(organisationId);
+    const entries = new Map((loaded?.entries ?? []).map((e) => [String(e.id), e.key]));
+    const adders = new Map((loaded?.adders ?? []).map((a) => [String(a.id), a.key]));
+    return { entry: (id) => entries.get(id) ?? id, adder: (id) => adders.get(id) ?? id };
+  }
+
   private async scopesOf(requestIds: Iterable<number>): Promise<Map<number, ApprovedScope | null>> {
     const scopes = new Map<number, ApprovedScope | null>();
     for (const id of new Set(requestIds)) scopes.set(id, await this.scopes.load(id));
@@ -92,12 +100,15 @@ export class EconomicsService {
     const items = await this.repo.bookedItems(visits.map((v) => v.id));
     const scopes = await this.scopesOf(visits.map((v) => v.requestId));
     const label = (v: EconomicsVisit) => `Site visit ${v.number} · ${v.street}`;
+    const keys = await this.keysOf(organisationId);
     const pickItems: PickItem[] = items.map((item) => {
       const visit = visits.find((v) => v.id === item.siteVisitId)!;
       const scope = scopes.get(item.requestId) ?? null;
       const line = scopeLine(scope, item.id);
-      const entry = line ? (scope!.book.entries.find((e) => e.id === line.entryId) ?? null) : null;
-      return { itemId: item.id, code: item.code, room: item.room, visitLabel: label(visit), entry, quantity: line?.quantity ?? item.quantity, adderIds: line?.adderIds ?? [] };
+      const found = line ? scope!.book.entries.find((e) => e.id === line.entryId) : undefined;
+      // The pick list knows entries and site conditions by their rate-book keys (spares and extras are kept by key).
+      const entry = found ? { ...found, id: keys.entry(found.id) } : null;
+      return { itemId: item.id, code: item.code, room: item.room, visitLabel: label(visit), entry, quantity: line?.quantity ?? item.quantity, adderIds: (line?.adderIds ?? []).map(keys.adder) };
     });
     const built = buildPickList(pickItems, await this.repo.spares(organisationId));
     const ticks = await this.repo.ticks(electrician.id, query.date);
@@ -128,11 +139,11 @@ export class EconomicsService {
     const loaded = await this.rateBooks.load(organisationId);
     const spares = await this.repo.spares(organisationId);
     return {
-      entries: (loaded?.book.entries ?? []).map((e) => ({
-        entryKey: e.id,
+      entries: (loaded?.entries ?? []).map((e) => ({
+        entryKey: e.key,
         name: e.name,
         hasMaterials: e.pricing.mode === 'time-and-materials' && e.pricing.materials.length > 0,
-        spareUnits: spares[e.id] ?? 0,
+        spareUnits: spares[e.key] ?? 0,
       })),
     };
   }
@@ -140,7 +151,7 @@ export class EconomicsService {
   async saveSpares(user: CurrentUser, input: SpareSettings): Promise<SpareSettingsView> {
     const organisationId = this.organisationOf(user);
     const loaded = await this.rateBooks.load(organisationId);
-    const keys = new Set((loaded?.book.entries ?? []).map((e) => e.id));
+    const keys = new Set((loaded?.entries ?? []).map((e) => e.key));
     const details = input.spares.flatMap((s, i) => (keys.has(s.entryKey) ? [] : [{ path: `spares.${i}.entryKey`, message: 'No such entry in your rate book' }]));
     if (details.length) throw new ValidationError('Name entries of your rate book', details);
     await this.db.transaction((trx) => this.repo.saveSpares(organisationId, input.spares, trx));
@@ -183,6 +194,7 @@ export class EconomicsService {
 
   private async compute(organisationId: number, from: string, to: string, electricianId?: number) {
     const visits = await this.repo.visits(organisationId, from, to, electricianId);
+    const keys = await this.keysOf(organisationId);
     const corrections = await this.repo.corrections(visits.map((v) => v.id));
     const scopes = await this.scopesOf(visits.map((v) => v.requestId));
     const drive = new Map<number, number>();
@@ -218,7 +230,7 @@ export class EconomicsService {
           if (!line) return [];
           const entry = scope!.book.entries.find((e) => e.id === line.entryId);
           const bookMinutes = entry?.pricing.mode === 'time-and-materials' ? entry.pricing.labourMinutesPerUnit : null;
-          return [{ key: String(c.itemId), code: c.code, entryKey: line.entryId, entryName: line.entryName, quantity: line.quantity, pricedMinutes: line.labourMinutes, bookMinutesPerUnit: bookMinutes }];
+          return [{ key: String(c.itemId), code: c.code, entryKey: keys.entry(line.entryId), entryName: line.entryName, quantity: line.quantity, pricedMinutes: line.labourMinutes, bookMinutesPerUnit: bookMinutes }];
         });
         const perUnit = minutesPerUnitOnVisit(onSiteMinutes, items);
         for (const item of items) timed.push({ item, minutesPerUnit: perUnit.get(item.key)! });

@@ -42,8 +42,8 @@ export const RecordCorrectionSchema = z
   })
   .refine((c) => c.outcome !== 'corrected' || c.workPerformed.length > 0, { error: 'Describe the work performed', path: ['workPerformed'] })
   .refine((c) => c.outcome === 'corrected' || c.reason.length > 0, { error: 'Give the reason', path: ['reason'] })
-  .refine((c) => c.returnCause !== null || (c.outcome !== 'not-corrected' && (c.outcome !== 'corrected' || c.finishedOnFirstVisit)), {
-    error: 'Say why another visit is needed',
+  .refine((c) => c.returnCause !== null || c.outcome !== 'corrected' || c.finishedOnFirstVisit, {
+    error: 'Say why it took another visit',
     path: ['returnCause'],
   });
 export type RecordCorrection = z.input<typeof RecordCorrectionSchema>;
