@@ -27,6 +27,7 @@ export function navItemsFor(role: Role): NavItem[] {
     items.push(
       { id: 'job-queue', label: 'Job queue', icon: 'request_quote', link: '/pricing' },
       { id: 'rate-book', label: 'Rate book', icon: 'menu_book', link: '/rate-book' },
+      { id: 'economics', label: 'Day economics', icon: 'local_shipping', link: '/economics' },
     );
   }
   if (role === 'admin') {
