@@ -93,3 +93,13 @@ export const REQUESTS: DemoRequest[] = [
   { street: '12 Cobble Creek Lane', city: 'Marlow Springs', zip: '81290', yearBuilt: 1955, closingInDays: 30, necEdition: 2023, path: upTo('declined'), buyerAgent: 'priya', listingAgent: 'rob', seller: 'june', inspector: 'nora', contractor: 'brightline', items: [openGround] },
   { street: '301 Kestrel Point', city: 'Quarry Bend', zip: '81292', yearBuilt: 1979, closingInDays: 21, necEdition: 2020, path: [...upTo('intake'), 'withdraw'], buyerAgent: 'maya', listingAgent: null, seller: 'tomas', inspector: 'nora', contractor: 'copperleaf', items: [] },
 ];
+
+/** The demo's planned day of site visits (booked by seeds/05_site_visits.ts), days from the seeding day. */
+export const DEMO_PLANNED_DAY = {
+  inDays: 1,
+  electricianEmail: 'sam.okafor@brightline.test',
+  stops: [
+    { street: '418 Wren Hollow', arrivalFrom: '08:00', arrivalTo: '09:00', accessNotes: 'Seller home until 9; side gate unlocked' },
+    { street: '87 Tinsmith Way', arrivalFrom: '10:00', arrivalTo: '11:30', accessNotes: 'Lockbox on the garage door, code 5180' },
+  ],
+};

@@ -112,7 +112,7 @@ export function createServices(db: Db, config: Config, proofMessages: ProofMessa
     corrections: new CorrectionsService(db, requestsService, flow, workItems, siteVisits, corrections, storage, proofMessages),
     letters,
     work: new WorkService(requestsService, workItems, siteVisits, corrections, letterRecords, letters, config.atRiskBusinessDays),
-    economics: new EconomicsService(db, new EconomicsRepository(db), new ApprovedScopeReader(new ApprovalRepository(db), new ChangeOrderRepository(db)), rateBookService, noDayPlan),
+    economics: new EconomicsService(db, new EconomicsRepository(db), new ApprovedScopeReader(new ApprovalRepository(db), new ChangeOrderRepository(db)), new ApprovalRepository(db), rateBookService, noDayPlan),
     intakePhotos: new IntakePhotosService(db, requestsService, storage),
   };
 }

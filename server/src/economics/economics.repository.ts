@@ -1,5 +1,6 @@
 import { requestReference, type CorrectionOutcome, type ReturnCause, type SiteVisitStatus } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
+import { WORK_ITEM_STATUSES } from '../work/work-item.repository';
 
 /** A site visit of the organisation's requests, with what the economics need of its request. */
 export interface EconomicsVisit {
@@ -105,6 +106,17 @@ export class EconomicsRepository {
       .select('c.line_item_id', 'c.request_id', 'c.site_visit_id', 'i.code', 'c.outcome', 'c.first_visit', 'c.return_cause')
       .orderBy('c.line_item_id');
     return rows.map((r) => ({ itemId: r.line_item_id, requestId: r.request_id, siteVisitId: r.site_visit_id, code: r.code, outcome: r.outcome, isFirstVisit: r.first_visit, returnCause: r.return_cause }));
+  }
+
+  async latestQuoteVersion(requestId: number): Promise<number | null> {
+    const row = (await this.db('quotes').where({ request_id: requestId }).max('version as version').first()) as { version: number | null } | undefined;
+    return row?.version ?? null;
+  }
+
+  /** Items of the request that reached approved work (approved, or with an outcome since). */
+  async approvedWorkItemIds(requestId: number): Promise<number[]> {
+    const rows: { id: number }[] = await this.db('line_items').where({ request_id: requestId }).whereIn('status', WORK_ITEM_STATUSES).select('id').orderBy('id');
+    return rows.map((r) => r.id);
   }
 
   async ticks(electricianId: number, date: string): Promise<Set<string>> {

@@ -1,6 +1,7 @@
 import {
   buildPickList,
   divideRoundHalfUp,
+  priceScope,
   lineSharesOfVisit,
   minutesPerUnitOnVisit,
   minutesVsBook,
@@ -25,6 +26,7 @@ import {
 import type { Db } from '../db/knex';
 import { ForbiddenError, NotFoundError, ValidationError } from '../errors';
 import type { ApprovedScope, ApprovedScopeReader } from '../approvals/approved-scope';
+import type { ApprovalRepository } from '../approvals/approval.repository';
 import type { RateBookService } from '../rate-book/rate-book.service';
 import type { DriveTimeSource } from './drive-time';
 import type { EconomicsRepository, EconomicsVisit, VisitCorrection } from './economics.repository';
@@ -35,6 +37,7 @@ export class EconomicsService {
     private readonly db: Db,
     private readonly repo: EconomicsRepository,
     private readonly scopes: ApprovedScopeReader,
+    private readonly approvals: ApprovalRepository,
     private readonly rateBooks: RateBookService,
     /** Where drive minutes come from: the day plan, once it is plugged in. */
     public driveTime: DriveTimeSource,
@@ -83,10 +86,24 @@ export class EconomicsService {
     return { entry: (id) => entries.get(id) ?? id, adder: (id) => adders.get(id) ?? id };
   }
 
-  private async scopesOf(requestIds: Iterable<number>): Promise<Map<number, ApprovedScope | null>> {
-    const scopes = new Map<number, ApprovedScope | null>();
-    for (const id of new Set(requestIds)) scopes.set(id, await this.scopes.load(id));
+  private async scopesOf(requestIds: Iterable<number>): Promise<Map<number, PricedScope | null>> {
+    const scopes = new Map<number, PricedScope | null>();
+    for (const id of new Set(requestIds)) scopes.set(id, await this.scopeOf(id));
     return scopes;
+  }
+
+  /**
+   * The signed scope (with its approved change orders); for a request approved without a signing
+   * record (the demo history), its latest quote for the items that reached approved work.
+   */
+  private async scopeOf(requestId: number): Promise<PricedScope | null> {
+    const signed = await this.scopes.load(requestId);
+    if (signed) return signed;
+    const version = await this.repo.latestQuoteVersion(requestId);
+    const pricing = version === null ? null : await this.approvals.quotePricing(requestId, version);
+    if (!pricing) return null;
+    const approvedKeys = (await this.repo.approvedWorkItemIds(requestId)).map(String);
+    return { book: pricing.book, input: pricing.input, changes: [], breakdown: priceScope({ book: pricing.book, input: pricing.input, approvedKeys }) };
   }
 
   async pickList(user: CurrentUser, query: DayQuery): Promise<PickList> {
@@ -254,8 +271,11 @@ export class EconomicsService {
   }
 }
 
+/** What the economics read of a request's scope: the book and input it was priced with, the changes since, the priced breakdown. */
+type PricedScope = Pick<ApprovedScope, 'book' | 'input' | 'changes' | 'breakdown'>;
+
 /** The priced input line of an item in the approved scope (with change orders applied). */
-function scopeLine(scope: ApprovedScope | null, itemId: number) {
+function scopeLine(scope: PricedScope | null, itemId: number) {
   const line = breakdownLine(scope, itemId);
   if (!scope || !line) return null;
   const key = String(itemId);
@@ -264,7 +284,7 @@ function scopeLine(scope: ApprovedScope | null, itemId: number) {
   return { entryId: line.entryId, quantity: line.quantity, adderIds: input?.adderIds ?? (added?.kind === 'add' ? (added.adderIds ?? []) : []) };
 }
 
-function breakdownLine(scope: ApprovedScope | null, itemId: number): LineBreakdown | null {
+function breakdownLine(scope: PricedScope | null, itemId: number): LineBreakdown | null {
   const key = String(itemId);
   for (const visit of scope?.breakdown?.visits ?? []) {
     const line = visit.lines.find((l) => l.key === key);
@@ -277,7 +297,7 @@ function breakdownLine(scope: ApprovedScope | null, itemId: number): LineBreakdo
  * The item's first-visit outcome: finished on the first visit only when corrected, recorded so, and
  * untouched by a change order. Declined on site is the seller's choice, not a return: left out.
  */
-function outcomeOf(c: VisitCorrection, scope: ApprovedScope | null, v: EconomicsVisit): OutcomeRecord | null {
+function outcomeOf(c: VisitCorrection, scope: PricedScope | null, v: EconomicsVisit): OutcomeRecord | null {
   if (c.outcome === 'declined-on-site') return null;
   const changed = scope?.changes.some((ch) => ch.key === String(c.itemId)) ?? false;
   const isFirstVisit = c.outcome === 'corrected' && c.isFirstVisit && !changed;
