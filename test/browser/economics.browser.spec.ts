@@ -97,6 +97,7 @@ describe('day economics', () => {
     await recordFinished(page, 'rear patio', 'Extra-duty in-use cover and WR GFCI receptacle installed');
     await page.getByTestId('visit-finish').click();
     await page.getByTestId('visit-1').filter({ hasText: 'Finished' }).waitFor();
+    await page.getByTestId('visit-prep').scrollIntoViewIfNeeded();
     await screenshot(page, 'economics-work-page-phone');
 
     await page.goto(portalUrl(dayPath));
@@ -109,6 +110,7 @@ describe('day economics', () => {
     expect((await page.getByTestId('day-earned').textContent())?.trim()).toMatch(/^\$[1-9][\d,]*\.\d{2}$/);
     expect(await tablesWiderThanViewport(page)).toEqual([]);
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    await day.scrollIntoViewIfNeeded();
     await screenshot(page, 'economics-day-earned-phone');
     await page.close();
   });
