@@ -122,3 +122,13 @@ function plannedDayRequests(): DemoRequest[] {
     { ...base, street: '140 Cooper Hill', zip: '80916', yearBuilt: 1976, closingInDays: 16, path: upTo('approved'), seller: 'tomas', items: [polarity] },
   ];
 }
+
+/** The demo's planned day of site visits (booked by seeds/05_site_visits.ts), days from the seeding day. */
+export const DEMO_PLANNED_DAY = {
+  inDays: 1,
+  electricianEmail: 'sam.okafor@brightline.test',
+  stops: [
+    { street: '418 Wren Hollow', arrivalFrom: '08:00', arrivalTo: '09:00', accessNotes: 'Seller home until 9; side gate unlocked' },
+    { street: '87 Tinsmith Way', arrivalFrom: '10:00', arrivalTo: '11:30', accessNotes: 'Lockbox on the garage door, code 5180' },
+  ],
+};

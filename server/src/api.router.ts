@@ -21,6 +21,8 @@ import { createVisitsRouter } from './visits/visits.router';
 import { createWorkRouter } from './work/work.router';
 import { createActivityRouter } from './activity/activity.router';
 import { createDashboardsRouter } from './dashboards/dashboards.router';
+import { createEconomicsRouter } from './economics/economics.router';
+import { createIntakePhotosRouter } from './economics/intake-photos.router';
 import { createMailboxRouter, createNotificationsRouter } from './notifications/notifications.router';
 import { createCalendarFeedRouter, createDayPlanRouter } from './day-plan/day-plan.router';
 
@@ -41,6 +43,7 @@ export function createApiRouter(deps: RouterDeps): Router {
   api.use('/requests/:id/visits', createVisitsRouter(deps));
   api.use('/requests/:id/work', createWorkRouter(deps));
   api.use('/requests/:id', createCorrectionsRouter(deps));
+  api.use('/requests/:id', createIntakePhotosRouter(deps));
   api.use('/requests/:id', createLettersRouter(deps));
   api.use('/verify', createVerificationRouter(deps));
   api.use('/requests/:id/activity', createActivityRouter(deps));
@@ -49,6 +52,7 @@ export function createApiRouter(deps: RouterDeps): Router {
   api.use('/admin', createAdminRouter(deps));
   api.use('/contractors', createContractorsRouter(deps));
   api.use('/rate-book', createRateBookRouter(deps));
+  api.use('/economics', createEconomicsRouter(deps));
   api.use('/notifications', createNotificationsRouter(deps));
   api.use('/mailbox', createMailboxRouter(deps));
   api.use('/dashboards', createDashboardsRouter(deps));

@@ -46,6 +46,13 @@ import { sellerNoticesByMail } from './notifications/seller-notice-mail';
 import { PreferencesRepository } from './notifications/preferences.repository';
 import { DayPlanRepository } from './day-plan/day-plan.repository';
 import { DayPlanService } from './day-plan/day-plan.service';
+import { ApprovalRepository } from './approvals/approval.repository';
+import { ApprovedScopeReader } from './approvals/approved-scope';
+import { ChangeOrderRepository } from './change-orders/change-order.repository';
+import { EconomicsRepository } from './economics/economics.repository';
+import { EconomicsService } from './economics/economics.service';
+import { IntakePhotosService } from './economics/intake-photos';
+import { dayPlanDriveTime } from './economics/drive-time';
 
 /** Builds every repository and service of the app from one database handle and the config. */
 export function createServices(db: Db, config: Config) {
@@ -111,6 +118,8 @@ export function createServices(db: Db, config: Config) {
     corrections: new CorrectionsService(db, requestsService, flow, workItems, siteVisits, corrections, storage, proofMessages),
     letters,
     work: new WorkService(requestsService, workItems, siteVisits, corrections, letterRecords, letters, config.atRiskBusinessDays),
+    economics: new EconomicsService(db, new EconomicsRepository(db), new ApprovedScopeReader(new ApprovalRepository(db), new ChangeOrderRepository(db)), new ApprovalRepository(db), rateBookService, dayPlanDriveTime(db)),
+    intakePhotos: new IntakePhotosService(db, requestsService, storage),
   };
 }
 

@@ -1,4 +1,4 @@
-import type { CorrectionOutcome, PhotoKind, Readings, RecordCorrectionParsed } from '@cc/shared';
+import type { CorrectionOutcome, PhotoKind, Readings, RecordCorrectionParsed, ReturnCause } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
 
 /** A correction record as stored, with its photos and the names it is shown with. */
@@ -16,6 +16,8 @@ export interface CorrectionRecord {
   readings: Readings;
   siteVisitId: number | null;
   siteVisitNumber: number | null;
+  isFirstVisit: boolean;
+  returnCause: ReturnCause | null;
   recordedByName: string | null;
   recordedAt: Date;
   photos: PhotoRecord[];
@@ -45,6 +47,8 @@ interface CorrectionRow {
   readings: Readings;
   site_visit_id: number | null;
   site_visit_number: number | null;
+  first_visit: boolean;
+  return_cause: ReturnCause | null;
   recorded_by_name: string | null;
   recorded_at: Date;
 }
@@ -76,6 +80,8 @@ function toCorrection(row: CorrectionRow, photos: PhotoRecord[]): CorrectionReco
     readings: row.readings,
     siteVisitId: row.site_visit_id,
     siteVisitNumber: row.site_visit_number,
+    isFirstVisit: row.first_visit,
+    returnCause: row.return_cause,
     recordedByName: row.recorded_by_name,
     recordedAt: row.recorded_at,
     photos: photos.filter((p) => p.correctionId === row.id),
@@ -110,9 +116,12 @@ export class CorrectionRepository {
 
   /**
    * Stores the item's correction record, replacing an earlier one (an item taken back for rework is
-   * recorded afresh); returns its id.
+   * recorded afresh, and that counts as not finished on the first visit); returns its id.
    */
   async save(requestId: number, itemId: number, record: RecordCorrectionParsed, recordedBy: number, trx: Trx): Promise<number> {
+    const earlier: { return_cause: ReturnCause | null } | undefined = await trx('item_corrections').where({ line_item_id: itemId }).first('return_cause');
+    const isFirstVisit = !earlier && record.outcome === 'corrected' && record.finishedOnFirstVisit;
+    const returnCause = isFirstVisit ? null : (record.returnCause ?? earlier?.return_cause ?? 'rework-after-review');
     await trx('item_corrections').where({ line_item_id: itemId }).delete();
     const [row] = await trx('item_corrections')
       .insert({
@@ -128,6 +137,8 @@ export class CorrectionRepository {
         device_lot: record.deviceLot,
         labels: record.labels,
         readings: JSON.stringify(record.readings),
+        first_visit: isFirstVisit,
+        return_cause: record.outcome === 'declined-on-site' && !earlier ? record.returnCause : returnCause,
         recorded_by: recordedBy,
       })
       .returning('id');

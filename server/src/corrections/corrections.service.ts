@@ -116,6 +116,8 @@ export function toCorrectionDto(requestId: number, c: CorrectionRecord): Correct
     evaluations: evaluateReadings(c.readings, { labels: c.labels }),
     siteVisitId: c.siteVisitId,
     siteVisitNumber: c.siteVisitNumber,
+    isFirstVisit: c.isFirstVisit,
+    returnCause: c.returnCause,
     recordedByName: c.recordedByName,
     recordedAt: c.recordedAt.toISOString(),
     photos: c.photos.map((p) => ({ id: p.id, kind: p.kind, width: p.width, height: p.height, url: `/api/requests/${requestId}/photos/${p.id}` })),

@@ -186,10 +186,11 @@ export class DayPlanService {
       const locked = await this.plans.findVisit(organisationId, visitId, trx);
       if (!locked || locked.status !== 'booked') throw new ConflictError('Only a visit not yet started can be moved');
       await this.siteVisits.reschedule(visitId, { date: input.date, electricianId: input.electricianId, ...window }, trx);
+      // The seller's side hears the new day or window, written to the outbox with the move itself.
+      if (input.date !== visit.date || window.arrivalFrom !== visit.arrivalFrom || window.arrivalTo !== visit.arrivalTo) {
+        await this.messages.visitScheduled(trx, { requestId: visit.requestId, visitNumber: visit.number, date: input.date, ...window, by: user.id });
+      }
     });
-    if (input.date !== visit.date || window.arrivalFrom !== visit.arrivalFrom || window.arrivalTo !== visit.arrivalTo) {
-      await this.messages.visitScheduled({ requestId: visit.requestId, visitNumber: visit.number, date: input.date, ...window });
-    }
     return {
       from: await this.day(user, visit.date, visit.electricianId),
       to: await this.day(user, input.date, input.electricianId),

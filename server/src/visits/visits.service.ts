@@ -71,7 +71,7 @@ export class VisitsService {
   private async mark(user: CurrentUser, requestId: number, visitId: number, from: 'booked' | 'started', to: 'started' | 'finished'): Promise<SiteVisit> {
     const { request, actors } = await requestWithActors(this.access, user, requestId);
     if (!(await this.visits.find(requestId, visitId))) throw new NotFoundError('No such site visit');
-    assertMayAct(actors, 'record-correction', request.status, to === 'started' ? 'Starting a visit' : 'Finishing a visit');
+    assertMayAct(actors, to === 'started' ? 'record-correction' : 'finish-visit', request.status, to === 'started' ? 'Starting a visit' : 'Finishing a visit');
     await this.db.transaction(async (trx) => {
       const locked = await this.items.lockRequest(requestId, trx);
       if (!locked || locked.status !== request.status) throw new ConflictError('The request changed meanwhile. Reload and try again.');

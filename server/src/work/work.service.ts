@@ -55,6 +55,7 @@ export class WorkService {
       can: {
         bookVisit: canBook,
         recordCorrections: mayAct(actors, 'record-correction', status),
+        finishVisit: mayAct(actors, 'finish-visit', status),
         issueLetter: mayMoveRequest(actors, 'issue-letter', status),
         review: mayMoveRequest(actors, 'accept-proof', status),
         resume: mayMoveRequest(actors, 'resume-work', status),

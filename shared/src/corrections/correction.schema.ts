@@ -2,6 +2,7 @@ import * as z from 'zod';
 import { trimmedText } from '../http/bounds';
 import { ReadingEvaluationSchema, ReadingsSchema } from '../readings/readings.schema';
 import { CORRECTION_LABELS } from '../readings/reading-kinds';
+import { ReturnCauseSchema } from '../economics/economics.schema';
 
 export const CORRECTION_OUTCOMES = ['corrected', 'not-corrected', 'declined-on-site'] as const;
 export const CorrectionOutcomeSchema = z.enum(CORRECTION_OUTCOMES);
@@ -34,9 +35,17 @@ export const RecordCorrectionSchema = z
     readings: ReadingsSchema.default({ gfci: null, receptacle: null, groundPath: null, voltageDrop: null }),
     /** The site visit on which the work was done. */
     siteVisitId: z.number().int().positive().nullable().default(null),
+    /** Finished on the first visit (the usual case); false when it took a return visit. */
+    finishedOnFirstVisit: z.boolean().default(true),
+    /** Why a return visit was (or will be) needed: required when not finished on the first visit or not corrected. */
+    returnCause: ReturnCauseSchema.nullable().default(null),
   })
   .refine((c) => c.outcome !== 'corrected' || c.workPerformed.length > 0, { error: 'Describe the work performed', path: ['workPerformed'] })
-  .refine((c) => c.outcome === 'corrected' || c.reason.length > 0, { error: 'Give the reason', path: ['reason'] });
+  .refine((c) => c.outcome === 'corrected' || c.reason.length > 0, { error: 'Give the reason', path: ['reason'] })
+  .refine((c) => c.returnCause !== null || c.outcome !== 'corrected' || c.finishedOnFirstVisit, {
+    error: 'Say why it took another visit',
+    path: ['returnCause'],
+  });
 export type RecordCorrection = z.input<typeof RecordCorrectionSchema>;
 export type RecordCorrectionParsed = z.output<typeof RecordCorrectionSchema>;
 
@@ -63,6 +72,9 @@ export const CorrectionSchema = z.object({
   evaluations: z.array(ReadingEvaluationSchema),
   siteVisitId: z.number().int().nullable(),
   siteVisitNumber: z.number().int().nullable(),
+  /** Finished on the first visit (false for a return visit or rework). */
+  isFirstVisit: z.boolean(),
+  returnCause: ReturnCauseSchema.nullable(),
   recordedByName: z.string().nullable(),
   recordedAt: z.string(),
   photos: z.array(CorrectionPhotoSchema),

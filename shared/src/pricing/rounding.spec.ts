@@ -4,6 +4,7 @@ import {
   allocateByWeight,
   applyBasisPoints,
   centsForMinutes,
+  centsPerHour,
   compoundMultipliers,
   divideRoundHalfUp,
   roundDownToStep,
@@ -101,5 +102,22 @@ describe('rounding', () => {
   ])('ballpark step of %d: down %d, up %d (R6)', (cents, down, up) => {
     expect(roundDownToStep(cents, 1_000)).toBe(down);
     expect(roundUpToStep(cents, 1_000)).toBe(up);
+  });
+});
+
+describe('centsPerHour (R7)', () => {
+  // Worked by hand from the definition in docs/pricing.md: cents × 60 / minutes, half up.
+  it.each([
+    [18_500, 60, 18_500], //   $185 in an hour
+    [28_100, 45, 37_467], //   28,100 × 60 / 45 = 37,466.67 → 37,467
+    [100, 120, 50], //         exact
+    [1, 120, 1], //            0.5 → 1 (half up)
+    [0, 30, 0],
+  ])('%d cents over %d minutes = %d cents per hour', (cents, minutes, rate) => {
+    expect(centsPerHour(cents, minutes)).toBe(rate);
+  });
+
+  it('has no rate for no minutes', () => {
+    expect(centsPerHour(5_000, 0)).toBeNull();
   });
 });

@@ -115,3 +115,13 @@ export function roundUpToStep(cents: number, stepCents: number): number {
   assertWhole(cents, 'cents');
   return Math.ceil(cents / stepCents) * stepCents;
 }
+
+/**
+ * R7: an amount per hour of work, `cents × 60 / minutes`, half up; null for no minutes (nothing
+ * was worked, so no rate). The inverse of R4, used for what a visit or a day earned per hour.
+ */
+export function centsPerHour(cents: number, minutes: number): number | null {
+  assertWhole(minutes, 'minutes');
+  if (minutes === 0) return null;
+  return divideRoundHalfUp(cents * 60, minutes);
+}

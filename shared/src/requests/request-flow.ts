@@ -108,6 +108,8 @@ export const REQUEST_ACTIONS = {
   'issue-invoice': { in: AFTER_APPROVAL, by: ['contractor'] },
   'book-visit': { in: ['approved', 'scheduled', 'in-progress', 'reopened'], by: ['contractor'] },
   'record-correction': { in: ['scheduled', 'in-progress', 'reopened'], by: ['contractor'] },
+  // A started visit is finished when the electrician leaves, also after its last item's outcome moved the request on.
+  'finish-visit': { in: ['scheduled', 'in-progress', 'corrected', 'letter-issued', 'accepted', 'reopened'], by: ['contractor'] },
   // Lockbox codes and occupant contacts: only the assigned contractor and the listing agent (who gave them).
   'see-access-notes': { in: BEFORE_LETTER, by: ['listing-agent', 'contractor'] },
   /** The contractor's pricing page (read only unless `price` is allowed too). */

@@ -51,6 +51,8 @@ export const WorkOverviewSchema = z.object({
   can: z.object({
     bookVisit: z.boolean(),
     recordCorrections: z.boolean(),
+    /** Marking a started visit finished (also once the request moved on to corrected). */
+    finishVisit: z.boolean(),
     issueLetter: z.boolean(),
     review: z.boolean(),
     resume: z.boolean(),

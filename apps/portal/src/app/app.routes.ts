@@ -55,6 +55,11 @@ export const routes: Routes = [
     loadChildren: () => import('./rate-book/rate-book.routes').then((m) => m.rateBookRoutes),
   },
   {
+    path: 'economics',
+    canActivate: [signedIn],
+    loadChildren: () => import('./economics/economics.routes').then((m) => m.economicsRoutes),
+  },
+  {
     path: 'account',
     title: 'My account · Closing Circuit',
     canActivate: [signedIn],

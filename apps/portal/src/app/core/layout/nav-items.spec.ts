@@ -12,15 +12,16 @@ describe('navItemsFor', () => {
     expect(withAdmin).toEqual(['admin']);
   });
 
-  it('gives contractors their job queue of requests to price, their day plan and their rate book, and no one else', () => {
+  it('gives contractors their job queue of requests to price, their day plan, their rate book and their day economics, and no one else', () => {
     expect(navItemsFor('contractor').map((item) => [item.id, item.label, item.link])).toEqual([
       ['requests', 'Assigned requests', '/requests'],
       ['dashboard', 'Dashboard', '/dashboard'],
       ['job-queue', 'Job queue', '/pricing'],
       ['day-plan', 'Day plan', '/day-plan'],
       ['rate-book', 'Rate book', '/rate-book'],
+      ['economics', 'Day economics', '/economics'],
     ]);
-    const withRateBook = ROLES.filter((role) => navItemsFor(role).some((item) => item.link === '/rate-book' || item.link === '/pricing' || item.link === '/day-plan'));
+    const withRateBook = ROLES.filter((role) => navItemsFor(role).some((item) => ['/rate-book', '/pricing', '/day-plan', '/economics'].includes(item.link)));
     expect(withRateBook).toEqual(['contractor']);
   });
 

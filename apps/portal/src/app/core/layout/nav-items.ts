@@ -28,6 +28,7 @@ export function navItemsFor(role: Role): NavItem[] {
       { id: 'job-queue', label: 'Job queue', icon: 'request_quote', link: '/pricing' },
       { id: 'day-plan', label: 'Day plan', icon: 'route', link: '/day-plan' },
       { id: 'rate-book', label: 'Rate book', icon: 'menu_book', link: '/rate-book' },
+      { id: 'economics', label: 'Day economics', icon: 'local_shipping', link: '/economics' },
     );
   }
   if (role === 'admin') {

@@ -23,6 +23,7 @@ import { NextStepPanel } from '../next-step/next-step';
 import { PartyList } from '../party-list/party-list';
 import { RequestsApi } from '../requests-api';
 import { StatusHistory } from '../status-history/status-history';
+import { VisitPrep } from '../../economics/visit-prep/visit-prep';
 
 type Loaded = { detail: RepairRequestDetail; error?: undefined } | { detail?: undefined; error: string };
 
@@ -47,6 +48,7 @@ type Loaded = { detail: RepairRequestDetail; error?: undefined } | { detail?: un
     NextStepPanel,
     RequestWorkLink,
     ActivityTimeline,
+    VisitPrep,
   ],
   templateUrl: './request-detail.html',
   styleUrl: './request-detail.scss',

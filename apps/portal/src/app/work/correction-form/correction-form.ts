@@ -23,6 +23,9 @@ import {
   READING_KIND_LABELS,
   ReadingsSchema,
   RecordCorrectionSchema,
+  RETURN_CAUSE_LABELS,
+  RETURN_CAUSES,
+  ReturnCause,
 } from '@cc/shared';
 import { applyIssues } from '../../core/forms/apply-issues';
 import { ErrorMessagePipe } from '../../core/forms/error-message';
@@ -94,10 +97,18 @@ export class CorrectionForm {
     deviceLot: [''],
     labels: this.fb.group(Object.fromEntries(CORRECTION_LABELS.map((l) => [l, false])) as Record<(typeof CORRECTION_LABELS)[number], boolean>),
     siteVisitId: this.fb.control<number | null>(null),
+    finishedOnFirstVisit: [true],
+    returnCause: this.fb.control<ReturnCause | null>(null),
     readings: readingsForm(this.fb),
   });
   private readonly value = toSignal(this.form.valueChanges, { initialValue: this.form.getRawValue() });
   protected readonly outcome = computed(() => this.value().outcome);
+  /** Whether to ask why the item needs (or needed) another visit. */
+  protected readonly asksReturnCause = computed(() => {
+    const v = this.value();
+    return v.outcome === 'not-corrected' || (v.outcome === 'corrected' && v.finishedOnFirstVisit === false);
+  });
+  protected readonly returnCauses = RETURN_CAUSES.map((value) => ({ value, label: RETURN_CAUSE_LABELS[value] }));
   protected readonly chosenLabels = computed(() => CORRECTION_LABELS.filter((l) => this.value().labels?.[l]));
   /** The readings as typed, judged as they are typed (null while a number is incomplete). */
   protected readonly evaluations = computed(() => {
@@ -158,6 +169,8 @@ export class CorrectionForm {
       deviceLot: isCorrected ? raw.deviceLot : '',
       labels: isCorrected ? this.chosenLabels() : [],
       siteVisitId: raw.siteVisitId,
+      finishedOnFirstVisit: isCorrected ? raw.finishedOnFirstVisit : false,
+      returnCause: this.asksReturnCause() ? raw.returnCause : null,
       readings: isCorrected ? readingsOf(raw.readings, item.readingKinds) : {},
     };
     const parsed = RecordCorrectionSchema.safeParse(record);

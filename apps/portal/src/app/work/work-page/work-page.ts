@@ -15,7 +15,9 @@ import {
   SiteVisit,
   WorkItem,
   WorkOverview,
+  RETURN_CAUSE_LABELS,
 } from '@cc/shared';
+import { VisitPrep } from '../../economics/visit-prep/visit-prep';
 import { describeFailure } from '../../core/http/api-error-of';
 import { Notice } from '../../core/http/notice';
 import { codeLabel } from '../../ui/code-label';
@@ -32,7 +34,7 @@ import { WorkCaution } from '../work-caution/work-caution';
  */
 @Component({
   selector: 'cc-work-page',
-  imports: [DatePipe, RouterLink, MatButtonModule, MatCardModule, MatIconModule, MatProgressBarModule, StatusChip, WorkCaution, ReadingList, VisitBooking, LetterPanel],
+  imports: [DatePipe, RouterLink, MatButtonModule, MatCardModule, MatIconModule, MatProgressBarModule, StatusChip, WorkCaution, ReadingList, VisitBooking, LetterPanel, VisitPrep],
   templateUrl: './work-page.html',
   styleUrl: './work-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -52,6 +54,9 @@ export class WorkPage {
   protected readonly itemStatusLabels = ITEM_STATUS_LABELS;
   protected readonly outcomeLabels = CORRECTION_OUTCOME_LABELS;
   protected readonly visitStatusLabels = SITE_VISIT_STATUS_LABELS;
+  protected readonly returnCauseLabels = RETURN_CAUSE_LABELS;
+  /** The items as the visit preparation names them. */
+  protected readonly prepItems = computed(() => (this.overview()?.items ?? []).map((i) => ({ id: i.id, label: `${codeLabel(i.code)} — ${i.location}` })));
 
   /** What happens next and who acts, from the flow table. */
   protected readonly nextSteps = computed(() => {
