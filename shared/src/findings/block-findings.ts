@@ -1,5 +1,6 @@
 import { clauseRanges } from './clause-splitter';
-import { matchCodes } from './code-matcher';
+import { matchCodes, type CodeMatch } from './code-matcher';
+import { CODE_RULES, type CodeRule } from './code-patterns';
 import { readLocation } from './location-reader';
 import type { FindingCode } from './finding-code';
 import type { MappedText } from './mapped-text';
@@ -70,6 +71,8 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
   splitSentences(text).forEach((written, sentenceIndex) => {
     const sentence = normaliseText(written);
     const matches = matchCodes(sentence.text);
+    const implied = matches.length === 0 ? subjectMatch(section, sentence.text) : null;
+    if (implied) matches.push(implied);
     // Clauses are cut once per sentence with phrases, for negation and for places alike.
     const clauses = matches.length > 0 ? clauseRanges(sentence.text) : [];
     const negated = negatedSpans(sentence.text, matches, clauses);
@@ -91,7 +94,9 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
     live.forEach((match, i) => {
       const isNormalised = sentence.changed.some((c) => c.start < match.end && match.start < c.end);
       for (const place of placements[i]) {
-        const quantity = findingQuantity(match.rule.code, place.countText, place.articleLimit, live.length === 1 && place.laterText ? place.laterText : null);
+        const counted = findingQuantity(match.rule.code, place.countText, place.articleLimit, live.length === 1 && place.laterText ? place.laterText : null);
+        // A device implied by its section at one named place ("BR2: none") is one device.
+        const quantity = counted === null && match === implied && place.room !== 'whole-house' && !/\b(?:all|every|each|several|both)\b|s:/i.test(sentence.text) ? 1 : counted;
         const same = inSentence.find((f) => f.code === match.rule.code && f.room === place.room);
         if (same) continue;
         inSentence.push({
@@ -102,7 +107,7 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
           sentence,
           isRecommendation: match.isRecommendation,
           isFallbackOnly: match.rule.isFallbackOnly === true,
-          confidence: match.computation !== undefined || place.isInferred ? 'inferred' : isNormalised ? 'normalised' : 'exact',
+          confidence: match === implied || match.computation !== undefined || place.isInferred ? 'inferred' : isNormalised ? 'normalised' : 'exact',
           recommendations: [],
           computation: match.computation ?? null,
         });
@@ -126,6 +131,34 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
     if (sentenceIndex === 0 && mention) opening = { room: mention.room, location: readLocation(sentence.text, mention), hadFindings: live.length > 0 };
   });
   return { findings: keepDistinct(found), hasNegated };
+}
+
+/**
+ * Sections whose heading names one kind of device ("SMOKE / CO", "Smoke Detectors"): in shorthand
+ * their lines leave the device unnamed ("BR2: none", "hall: mfr 2012 - expired").
+ */
+const SECTION_SUBJECTS: ReadonlyArray<{ readonly heading: RegExp; readonly code: FindingCode; readonly defect: RegExp; readonly denial: RegExp }> = [
+  {
+    heading: /smoke|carbon monoxide|\bco\b|detect/i,
+    code: 'smoke-co-alarm',
+    // Common practice: a missing, expired (ten years from manufacture) or silent alarm is the defect.
+    defect: /^(?:[\w\s/&'-]{0,30}:\s*)?(?:none|missing|absent|no (?:alarms?|detectors?|units?)|not (?:present|installed|found|observed|provided)|expired|end[- ]of[- ]life|chirp\w*|inoperative|did not (?:sound|respond|activate)|failed)\b|\b(?:expired|end[- ]of[- ]life|chirp(?:s|ed|ing)|(?:past|beyond) (?:their|its|the)? ?(?:\d+|ten)[- ]?year|did not (?:sound|respond|activate))\b/i,
+    denial: /\b(?:tested (?:ok|fine|good|properly|correctly)|ok\b|satisfactory|functional|operat(?:ed|ional) (?:properly|correctly|normally))/i,
+  },
+];
+const ADD_WORDS = /\b(?:need(?:s|ed)? to (?:add|install)|add|install|recommend\w*|should (?:be|have)|replace)\b/i;
+
+/** A finding a sentence gives only through its section's subject, as a phrase spanning the sentence. */
+function subjectMatch(section: Section, text: string): CodeMatch | null {
+  if (section.title === null || section.kind === 'non-electrical') return null;
+  for (const subject of SECTION_SUBJECTS) {
+    if (!subject.heading.test(section.title) || !subject.defect.test(text) || subject.denial.test(text)) continue;
+    const rule = CODE_RULES.find((r): r is CodeRule => r.code === subject.code);
+    if (!rule) return null;
+    const isRecommendation = ADD_WORDS.test(text) && !/^(?:[\w\s/&'-]{0,30}:\s*)?(?:none|missing|absent|no\b)/i.test(text);
+    return { rule, start: 0, end: text.length, isRecommendation, computation: undefined };
+  }
+  return null;
 }
 
 const WIRING_METHODS: ReadonlySet<string> = new Set(['knob-and-tube', 'aluminum-branch-wiring']);

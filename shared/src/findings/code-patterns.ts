@@ -39,6 +39,8 @@ export interface CodeRule {
 }
 
 const ADJ_GAP = adjGap(3);
+/** A flexible cord: extension, lamp or zip cord. */
+const FLEX_CORD = String.raw`(?:extension|lamp|zip|flexible|appliance)\s+cords?`;
 const RECOMMEND = String.raw`(?:recommend(?:ed|s|ing)?|suggest(?:ed)?|should (?:be|have)|install(?:ing|ed)?|upgrad(?:e|ed|ing) to|add(?:ing)?|need(?:s|ed)?|requires?|consider(?:ing)?|have the)`;
 /** Words that turn a recommendation into one about an existing device (replace, test, reset). */
 const NOT_ABOUT_ADDING = String.raw`(?:(?!replac|repair|reset|test|check)[\w-]+\s+){0,4}?`;
@@ -49,6 +51,10 @@ const REFERS_TO_OTHERS = /\bif\b|\bany\b|\bshould any\b|\babove\b|\bthese\b|\bth
 const PANEL_CONTEXT = /panel|dead[- ]?front|load cent|breaker box|fuse box|enclosure/i;
 /** A bare "cover" next to a junction box is the box's cover, not a device cover plate. */
 const JBOX_WORD = /junction|j-?\s?box|\bbox(?:es)?\b/i;
+/** A smoke/CO alarm, or a "Smoke:" / "CO:" label standing for it in shorthand. */
+const SMOKE_OR_LABEL = String.raw`(?:${T.SMOKE}|(?:smoke|co)(?:\s*(?:\/|and|&)\s*co)?\s*:)`;
+/** An alarm past its service life: expired, end of life, chirping, older than ten years. */
+const SMOKE_AGED = String.raw`(?:expired|end[- ]of[- ]life|chirp(?:s|ed|ing)?\b|(?:past|beyond|exceed(?:s|ed|ing)?|over|outlived|older than)\s+(?:(?:the|their|its|a|his|her)\s+)?(?:(?:\d+|ten)[- ]?(?:year|yr)s?\b|(?:recommended\s+|expected\s+|normal\s+)?(?:service|useful|rated)\s+life|life\s*span|expiration|replacement (?:age|date)))`;
 const SUBPANEL_CONTEXT = /sub-?\s?panel|secondary panel|remote panel|downstream|distribution panel|feeder/i;
 
 export const CODE_RULES: readonly CodeRule[] = [
@@ -176,8 +182,11 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`(?:exposed|unprotected|unsecured|loose|dangling|hanging|unsupported|unstapled|frayed)(?:,?\s+(?:dangling|hanging|unsecured|loose|exposed))?\s+(?:(?:nm|romex|electrical|branch(?: circuit)?|sheathed|non-?metallic(?:[- ]sheathed)?)\s+)?(?:wir(?:e|es|ing)|cables?|nm(?:-b)?|romex)\b` },
       { re: rx`${T.WIRING}\s+${gap(8)}${T.BE}(?:exposed|unprotected|unsecured|loose|not (?:secured|supported|protected|stapled|strapped)|dangling|hanging|lying|draped|subject to (?:physical )?damage|within reach)` },
-      { re: rx`extension cords?\s+${gap(3)}(?:used|in use|serving|as|for|run|powering|supplying|providing|feeding)` },
-      { re: rx`(?:used|using|uses|plugged in(?:\s?to)?|powered by|connected to|on)\s+(?:an?\s+)?extension cords?` },
+      { re: rx`${FLEX_CORD}\s+${gap(3)}(?:used|in use|serving|as|for|run|powering|supplying|providing|feeding|(?:has|have)\s+been\s+(?:run|routed|stapled|strung|nailed|tacked|fastened|used|installed))` },
+      { re: rx`${FLEX_CORD}\s+${gap(2)}(?:${T.BE}|being\s+)(?:stapled|strung|nailed|tacked|fastened|routed|run|draped|tied)\s+(?:along|across|through|to|under|over|up|around|in)\b` },
+      { re: rx`${FLEX_CORD}\s+${anyGap(6)}(?:in place of|instead of|as|substitut\w+ for|for)\s+(?:a\s+)?(?:permanent|fixed|premises|branch(?:[- ]circuit)?)\s+wiring` },
+      { re: rx`(?:used|using|uses|plugged in(?:\s?to)?|powered by|connected to|on|fed by|fed from|through)\s+(?:an?\s+|the\s+)?${ADJ_GAP}extension cords?` },
+      { re: rx`(?:uf|nm|underground|feeder|branch|direct[- ]burial)?\s*${T.WIRING}\s+${gap(6)}(?:${T.BE}|(?:has|have)\s+(?:simply\s+)?been\s+)?(?:lies|lying|laid|laying|lays|rests?|resting|run|strung|draped)\s+(?:directly\s+)?(?:on|across|along)\s+(?:the\s+)?(?:surface of the\s+)?(?:ground|dirt|soil|grass|lawn|yard|floor|crawl ?space floor)\b` },
       { re: rx`(?:permanent|fixed)\s+(?:use of\s+)?extension cords?` },
     ],
   },
@@ -257,6 +266,13 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${T.SMOKE}\s*[:-]?\s*${gap(8)}${T.BE}(?:${T.ABSENT}|none|${T.INOPERATIVE}|expired|past (?:their|its) (?:service life|expiration)|(?:over|older than|more than) (?:10|ten) years|disconnected|removed|chirping|${T.FAILED} (?:respond|sound|activate|operate|work)|failed)` },
       { re: rx`${RECOMMEND}\s+${NOT_ABOUT_ADDING}${T.SMOKE}`, isRecommendation: true, unless: /\btest/i },
       { re: rx`(?:unit|device)\s+${gap(4)}${T.FAILED}\s+(?:sound|alarm|respond|activate)`, context: /smoke|carbon monoxide|\bco\b|alarm|detector/i },
+      // Common practice: smoke alarms are replaced ten years after manufacture (the date on the
+      // label), CO alarms at the end of life the maker prints; an old date is the defect.
+      { re: rx`${T.SMOKE}\s+${anyGap(10)}${T.FAILED}\s+(?:sound|alarm|respond|activate|operate|work)` },
+      { re: rx`${SMOKE_OR_LABEL}[^.;]{0,90}?${SMOKE_AGED}` },
+      { re: rx`${SMOKE_OR_LABEL}[^.;]{0,60}?(?:dated|date[- ]?(?:codes?|stamps?)|manufactured|manufacture dates?|made|stamped)\s+(?:in\s+|of\s+)?(?:19[5-9]\d|20[0-2]\d)\b`, context: /replac|expir|past|beyond|exceed|old|aged|life|chirp|\b(?:10|ten)[- ]years?/i },
+      { re: rx`(?:19[5-9]\d|20[0-2]\d)\s+(?:date[- ]?codes?|manufactur\w+ dates?)`, context: /smoke|carbon monoxide|\bco\b|alarm|detector/i, unless: /\btested (?:ok|fine|good|properly|correctly)\b|\bsatisfactory\b/i },
+      { re: rx`smoke(?:\s*(?:\/|and|&)\s*co)?\s*[:-]?\s+(?:${T.ABSENT}|none|expired|${T.INOPERATIVE})` },
     ],
   },
   {

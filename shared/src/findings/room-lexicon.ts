@@ -14,14 +14,14 @@ const ROOM_WORDS: ReadonlyArray<readonly [Room, string]> = [
   ['basement', String.raw`basements?|cellar|bsmt\b\.?|bsmnt\b\.?|lower level|sump`],
   ['crawl-space', String.raw`crawl\s?spaces?|crawl\b`],
   ['laundry', String.raw`laundry(?:\s+(?:room|area|closet))?|washer|dryer|utility room|mud ?room`],
-  ['bedroom', String.raw`(?:(?:primary|master|guest|front|rear|back|north|south|east|west|upstairs|downstairs|kids'?|second|third|small|large)\s+)?(?:bed\s?rooms?|bedrm\b|bdrms?\b\.?|br\s?\d*\b|nursery)|(?:prim|pri|mstr|mbr)\.?\s+br\b|mbr\b|primary suite|master suite|guest room`],
+  ['bedroom', String.raw`(?:(?:primary|master|guest|front|rear|back|north|south|east|west|upstairs|downstairs|kids'?|second|third|small|large)\s+)?(?:bed\s?rooms?|bedrms?\b|bdrms?\b\.?|brs?\s?\d*\b|nursery)|(?:prim|pri|mstr|mbr)\.?\s+br\b|mbr\b|primary suite|master suite|guest room`],
   ['living-area', String.raw`living(?: (?:room|area)s?)?\b|family rooms?|great rooms?|den\b|sun\s?rooms?|rec(?:reation)? rooms?|bonus rooms?|parlou?r|library|front room|lr\b|fireplace|media room`],
   ['hallway', String.raw`hall(?:way)?s?\b|corridors?|stair(?:way|well|case)?s?\b|landing|foyer|entry(?:way)?|front entry`],
   ['attic', String.raw`attics?\b`],
   ['panel', String.raw`(?:main\s+|electrical\s+|service\s+|distribution\s+)?(?:sub-?\s?panel|panel\s*board|panel)s?\b|load cent(?:er|re)|breaker box|fuse box`],
   ['dining', String.raw`dining(?:\s+(?:room|area))?|dinette`],
   ['office', String.raw`(?:home\s+)?office|study\b`],
-  ['whole-house', String.raw`throughout(?: the (?:home|house|dwelling))?|whole[- ]house|entire (?:home|house|dwelling|electrical system|system)|all rooms|every room`],
+  ['whole-house', String.raw`throughout(?: the (?:home|house|dwelling|unit))?(?!\s+(?:the|this|that|each|every|all|both)\b)|anywhere in the (?:home|house|dwelling|unit)|(?:in|on) (?:each|every|all|any) (?:levels?|floors?|stor(?:y|ies))(?: of the (?:home|house|dwelling))?|whole[- ]house|entire (?:home|house|dwelling|electrical system|system)|all rooms|every room`],
 ];
 
 /**
