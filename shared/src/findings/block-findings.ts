@@ -97,7 +97,8 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
         const counted = findingQuantity(match.rule.code, place.countText, place.articleLimit, live.length === 1 && place.laterText ? place.laterText : null);
         // A device implied by its section at one named place ("BR2: none") is one device.
         const quantity = counted === null && match === implied && place.room !== 'whole-house' && !/\b(?:all|every|each|several|both)\b|s:/i.test(sentence.text) ? 1 : counted;
-        const same = inSentence.find((f) => f.code === match.rule.code && f.room === place.room);
+        // The grounding of a service is one system: a sentence naming its parts in two places is one defect.
+        const same = inSentence.find((f) => f.code === match.rule.code && (f.room === place.room || match.rule.panelIsPlace === true));
         if (same) continue;
         inSentence.push({
           code: match.rule.code,

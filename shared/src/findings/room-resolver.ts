@@ -107,6 +107,13 @@ export function placeMatches(
     const own = { countText, laterText, articleLimit };
     const fixed = match.rule.fixedRoom;
     if (fixed) return [{ room: fixed, location: fixedLocation(text, rooms, part, fixed), ...own }];
+    if (match.rule.panelIsPlace) {
+      // "No grounding electrode conductor at the panel or at the exterior": the first place named
+      // with the defect, the panel included; a panel named elsewhere in the sentence before context.
+      const inPart = mentionsIn(rooms, part);
+      const first = inPart[0] ?? (rooms.some((r) => r.room === 'panel') ? rooms.find((r) => r.room === 'panel') : undefined);
+      if (first?.room === 'panel') return [{ room: 'panel', location: readLocation(text, first), ...own }];
+    }
     // A panel named beside another code's defect is a reference point ("cable run up to the panel").
     const group = listedGroup(text, mentionsIn(rooms, part).filter((m) => m.room !== 'panel'));
     if (group.length > 1) {
