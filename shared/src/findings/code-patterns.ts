@@ -44,6 +44,8 @@ export interface CodeRule {
 }
 
 const ADJ_GAP = adjGap(3);
+/** Words between a switch and what is said of it, commas allowed ("The switch for the disposal, right of the sink, is loose"). */
+const SWITCH_GAP = String.raw`(?:(?!${'(?:switch|light|fixture|receptacle|outlet|plates?\b|covers?\b)'})[\w'/#().-]+,?\s+){0,9}?`;
 /** A flexible cord: extension, lamp or zip cord. */
 const FLEX_CORD = String.raw`(?:extension|lamp|zip|flexible|appliance)\s+cords?`;
 const RECOMMEND = String.raw`(?:recommend(?:ed|s|ing)?|suggest(?:ed)?|should (?:be|have)|install(?:ing|ed)?|upgrad(?:e|ed|ing) to|add(?:ing)?|need(?:s|ed)?|requires?|consider(?:ing)?|have the)`;
@@ -287,7 +289,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'light-fixture',
-    trigger: /light|fixture|luminaire|chandelier|pendant|sconce|globe|lens|shade|diffuser|bulb|lamp|insulation/i,
+    trigger: /light|fixture|luminaire|chandelier|pendant|sconce|globe|lens|shade|diffuser|bulb|lamp|insulation|socket|housing|recessed|can/i,
     patterns: [
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|dangling|hanging|not (?:secured|secure|attached|mounted)|${T.FAILED} (?:operate|work|respond|turn on|come on)|in contact with (?:the\s+)?insulation|covered (?:by|with) insulation|not (?:rated|listed|suitable|approved) for (?:a |the )?(?:wet|damp))` },
       { re: rx`(?:${T.INOPERATIVE}|loose|dangling|damaged|broken)\s+${gap(2)}${NOT_APPLIANCE}${T.LIGHT}` },
@@ -296,6 +298,15 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:${T.NO}|broken)\s+(?:(?:the|a)\s+)?(?:globes?|lens(?:es)?|light covers?|shades?|diffusers?)` },
       { re: rx`(?:bare|open|exposed|uncovered)\s+(?:incandescent\s+)?(?:bulbs?|lamps?)\b` },
       { re: rx`insulation\s+${gap(3)}(?:in contact with|touching|covering|over|on top of|against)\s+(?:the\s+)?${gap(2)}(?:recessed|can)\s+(?:lights?|fixtures?|cans?|housings?)` },
+      // Common practice: a recessed housing not rated IC must keep its clearance from insulation.
+      { re: rx`(?:non-?ic|recessed|can)\s+(?:(?:light|lighting|fixture)\s+)?(?:housings?|fixtures?|lights?|cans?)\s+${gap(6)}(?:${T.BE})?(?:covered|buried|packed|surrounded)\s+(?:by|in|with|under)\b` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${SWITCH_GAP}(?:${T.FAILED}|${T.BE}not)\s+(?:light|illuminate|come on|turn on|operate|work)\b` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}(?:has\s+)?(?:pulled|pulling|come|coming|separated|separating)\s+(?:away\s+|loose\s+)?(?:from|off)\s+(?:the\s+|its\s+)?(?:wall|siding|ceiling|box|mounting|surface)` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:${T.BE})?(?:missing|without|lacks?|has no)\s+(?:(?:its|a|the|their)\s+)?(?:glass\s+)?(?:globes?|lens(?:es)?|shades?|diffusers?|covers?)` },
+      { re: rx`(?:globes?|lens(?:es)?|shades?|diffusers?)\s+${T.BE}(?:missing|broken|cracked|absent)`, context: /light|fixture|lamp|bulb/i },
+      { re: rx`(?:bare[- ]bulb|open|exposed|porcelain|keyless)\s+(?:porcelain\s+)?(?:lamp\s?holders?|sockets?)` },
+      { re: rx`(?:lamp\s?holders?|sockets?)\s+${gap(3)}${T.BE}(?:cracked|broken|damaged|loose|missing)` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(3)}(?:hangs?|hanging|suspended)\s+(?:from|by)\s+(?:one|a single|its)\s+(?:chain|end|wire|wires)` },
     ],
   },
   {
@@ -316,6 +327,11 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${T.SWITCH}\s+${gap(7)}(?:(?:has|have|had|of|with|serves?)\s+)?(?:an?\s+)?(?:unknown|no known|undetermined|unclear) (?:function|purpose|use)` },
       { re: rx`(?:function|purpose) of (?:the |a |an )?${gap(2)}${T.SWITCH}\s+${gap(5)}${T.BE}(?:unknown|unclear|undetermined|not determined|could not be determined)` },
       { re: rx`(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|unknown(?:[- ]function)?)\s+${gap(2)}${T.SWITCH}(?!\s*(?:cover\s*)?plates?)` },
+      // Common practice: a switch whose purpose cannot be found is reported for the seller or an electrician to identify.
+      { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:(?:has|have|had|with)\s+)?(?:no|unknown|unk\.?)\s+(?:apparent\s+|known\s+|obvious\s+|determined\s+)?(?:function|purpose|use)` },
+      { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:does|did|do)\s*(?:n[o']t|not)?\s*(?:appear to\s+|seem to\s+)?(?:nothing|not (?:control|operate|turn on|power) (?:anything|any\w*)|not turn (?:the\s+)?${gap(2)}(?:on|off))` },
+      { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:does|did)\s*n[o']t\s+(?:appear to\s+|seem to\s+)?(?:control|operate|turn on|power)\s+(?:anything|any\s+\w+)` },
+      { re: rx`${T.SWITCH}\s+${SWITCH_GAP}${T.BE}loose in (?:the|its) (?:wall|box)` },
     ],
   },
   {
