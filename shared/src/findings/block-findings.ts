@@ -114,10 +114,21 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
         });
       }
     });
+    for (let k = inSentence.length - 1; k >= 0; k--) {
+      const f = inSentence[k];
+      const over = ruleOf(f.code)?.yieldsInSentenceTo;
+      if (over && inSentence.some((g) => !g.isRecommendation && g.room === f.room && over.includes(g.code))) inSentence.splice(k, 1);
+    }
     // A follow-up sentence only recommends, or speaks again of a defect the block already has
     // ("Three-prong receptacles should be grounded or GFCI protected.").
+    // A recommendation of another kind of defect ("have the kitchen counter receptacles upgraded to
+    // GFCI protection" after a double tap) is a finding of its own, unless it is the usual remedy
+    // of the defect before it (GFCI protection for an ungrounded receptacle).
     const onlyFollowUp = inSentence.every(
-      (f) => f.isRecommendation || f.isFallbackOnly || (f.confidence === 'inferred' && found.some((g) => g.code === f.code)),
+      (f) =>
+        f.isFallbackOnly ||
+        (f.isRecommendation && (f.confidence === 'inferred' || lastFound.some((g) => g.code === f.code || ruleOf(f.code)?.yieldsTo?.includes(g.code)))) ||
+        (f.confidence === 'inferred' && found.some((g) => g.code === f.code)),
     );
     if (lastFound.length > 0 && onlyFollowUp && FOLLOW_UP.test(sentence.text)) {
       // "This should be corrected by a licensed electrician.": part of the finding(s) before it.
@@ -132,6 +143,11 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
     if (sentenceIndex === 0 && mention) opening = { room: mention.room, location: readLocation(sentence.text, mention), hadFindings: live.length > 0 };
   });
   return { findings: keepDistinct(found), hasNegated };
+}
+
+const RULE_BY_CODE = new Map(CODE_RULES.map((r) => [r.code, r]));
+function ruleOf(code: FindingCode): CodeRule | undefined {
+  return RULE_BY_CODE.get(code);
 }
 
 /**

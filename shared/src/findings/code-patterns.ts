@@ -30,6 +30,8 @@ export interface CodeRule {
   readonly patterns: readonly CodePattern[];
   /** Recommendation-only matches of this code are dropped when the sentence has one of these codes. */
   readonly yieldsTo?: readonly FindingCode[];
+  /** This code's findings give way to a finding of one of these codes for the same place in the same sentence. */
+  readonly yieldsInSentenceTo?: readonly FindingCode[];
   /** Room used whatever the text says (panel defects are at the panel). */
   readonly fixedRoom?: Room;
   /** Room used when neither the text nor the section names one. */
@@ -67,10 +69,15 @@ const SUBPANEL_CONTEXT = /sub-?\s?panel|secondary panel|remote panel|downstream|
 export const CODE_RULES: readonly CodeRule[] = [
   {
     code: 'gfci-missing',
-    trigger: /gfc?i|gcfi|ground[- ]fault/i,
+    trigger: /gfc?i|gcfi|ground[- ]fault|protected circuit/i,
     yieldsTo: ['gfci-inoperative', 'open-ground', 'false-ground', 'knob-and-tube'],
     patterns: [
-      { re: rx`(?:${T.NO}|not|non-?|neither\s+${gap(5)}(?:has|have|had|is|are|was|were))\s*${PF}${T.GFCI}` },
+      { re: rx`(?:${T.NO}|not|non-?|neither\s+${anyGap(8)}(?:has|have|had|is|are|was|were))\s*${PF}${T.GFCI}` },
+      { re: rx`none\s+of\s+(?:the\s+)?${gap(3)}${T.RCPT}\s+${gap(4)}(?:are|is|were|was|have|has|had)\s+${PF}${T.GFCI}` },
+      // Downstream of no GFCI device, or on no protected circuit: the receptacle is unprotected.
+      { re: rx`not\s+(?:connected\s+|wired\s+|located\s+)?(?:downstream|on the load side)\s+of\s+(?:an?|any)\s+${T.GFCI}` },
+      { re: rx`(?:not|no)\s+(?:appear\s+to\s+be\s+|seem\s+to\s+be\s+)?on\s+an?\s+(?:gfci[- ])?protected\s+circuit` },
+      { re: rx`${T.RCPT}\s+${gap(4)}(?:are|is|were|was)?\s*not\s+protected\b`, context: /gfc?i|ground[- ]fault/i, unless: /afci|arc[- ]fault/i },
       { re: rx`${T.GFCI}(?:\s+(?:protection|protected|${T.RCPT}|breakers?))?\s+${T.BE}${T.ABSENT}` },
       { re: rx`${T.GFCI}(?:\s+protect(?:ion|ed))?(?:\s+(?:at|in|for)\s+${gap(3)}[\w-]+)?\s*[:=-]\s*(?:no|none|missing|absent)\b` },
       { re: rx`${T.RCPT}\s+${gap(4)}(?:are|is|were|was)\s+not\s+(?:on|protected by)\s+(?:an?\s+)?${T.GFCI}` },
@@ -80,6 +87,8 @@ export const CODE_RULES: readonly CodeRule[] = [
   {
     code: 'gfci-inoperative',
     trigger: /gfc?i|gcfi|ground[- ]fault|trip|reset/i,
+    // A receptacle that does not trip because no GFCI protects it is unprotected, not a failed GFCI.
+    yieldsInSentenceTo: ['gfci-missing'],
     patterns: [
       { re: rx`${T.GFCI}\s+${anyGap(7)}${T.FAILED}\s+(?:properly\s+)?(?:trip|reset|respond|function|operate|work)` },
       { re: rx`${T.GFCI}(?:\s+${T.RCPT})?\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|worn(?: out)?|at end of life|end[- ]of[- ]life|not (?:tripping|resetting))` },
@@ -271,7 +280,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'smoke-co-alarm',
-    trigger: /smoke|alarm|detector|carbon monoxide|unit|device/i,
+    trigger: /smoke|alarm|detector|carbon monoxide|unit|device|\bco\b/i,
     defaultRoom: 'whole-house',
     patterns: [
       { re: rx`(?:${T.NO}|${T.INOPERATIVE}|expired|outdated|dated|disconnected|removed|chirping)\s+${gap(2)}${T.SMOKE}` },
@@ -289,7 +298,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'light-fixture',
-    trigger: /light|fixture|luminaire|chandelier|pendant|sconce|globe|lens|shade|diffuser|bulb|lamp|insulation|socket|housing|recessed|can/i,
+    trigger: /light|fixture|luminaire|chandelier|pendant|sconce|globe|lens|shade|diffuser|bulb|lamp|insulation|socket|housing|recessed|\bcans?\b/i,
     patterns: [
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|dangling|hanging|not (?:secured|secure|attached|mounted)|${T.FAILED} (?:operate|work|respond|turn on|come on)|in contact with (?:the\s+)?insulation|covered (?:by|with) insulation|not (?:rated|listed|suitable|approved) for (?:a |the )?(?:wet|damp))` },
       { re: rx`(?:${T.INOPERATIVE}|loose|dangling|damaged|broken)\s+${gap(2)}${NOT_APPLIANCE}${T.LIGHT}` },

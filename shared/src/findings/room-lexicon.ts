@@ -12,7 +12,7 @@ const ROOM_WORDS: ReadonlyArray<readonly [Room, string]> = [
   ['garage', String.raw`garages?|carports?|gar\b\.?`],
   ['exterior', String.raw`exterior(?!\s+walls?\b)|outside(?!\s+(?:walls?|corner)\b)|outdoors?|patio|decks?\b|porch(?:es)?|balcon(?:y|ies)|yard|pool|spa\b|hot tub|siding|eaves|soffits?|(?:service\s+|meter\s+)?pedestal|(?:front|rear|side|back) (?:wall|elevation)|ext\b\.?`],
   ['basement', String.raw`basements?|cellar|bsmt\b\.?|bsmnt\b\.?|lower level|sump`],
-  ['crawl-space', String.raw`crawl\s?spaces?|crawl\b`],
+  ['crawl-space', String.raw`crawl\s?spaces?|crawl\b|(?:under|beneath) the (?:home|house|floor system)|underfloor`],
   ['laundry', String.raw`laundry(?:\s+(?:room|area|closet))?|washer|dryer|utility room|mud ?room`],
   ['bedroom', String.raw`(?:(?:primary|master|guest|front|rear|back|north|south|east|west|upstairs|downstairs|kids'?|second|third|small|large)\s+)?(?:bed\s?rooms?|bedrms?\b|bdrms?\b\.?|brs?\s?\d*\b|nursery)|(?:prim|pri|mstr|mbr)\.?\s+br\b|mbr\b|primary suite|master suite|guest room`],
   ['living-area', String.raw`living(?: (?:room|area)s?)?\b|family rooms?|great rooms?|den\b|sun\s?rooms?|rec(?:reation)? rooms?|bonus rooms?|parlou?r|library|front room|lr\b|fireplace|media room`],
