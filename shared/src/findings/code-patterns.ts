@@ -41,6 +41,8 @@ export interface CodeRule {
    * panel"); for other codes a panel beside the defect is only a reference point.
    */
   readonly panelIsPlace?: boolean;
+  /** Whether the room comes only from the sentence itself or the default (never from earlier sentences or the heading). */
+  readonly ignoresContext?: boolean;
   /** Whether the code stands only in a block (item or paragraph) with no other finding. */
   readonly isFallbackOnly?: boolean;
 }
@@ -56,7 +58,7 @@ const NOT_ABOUT_ADDING = String.raw`(?:(?!replac|repair|reset|test|check)[\w-]+\
 /** A light that is part of an appliance (range hood, oven, refrigerator, opener) is not a light fixture. */
 const NOT_APPLIANCE = String.raw`(?<!\b(?:hood|range|oven|microwave|refrigerator|fridge|freezer|opener|appliance|exhaust fan)\s)`;
 /** A general evaluation that is conditional or points at items listed elsewhere ("all of the above") is not a finding of its own. */
-const REFERS_TO_OTHERS = /\bif\b|\bany\b|\bshould any\b|\babove\b|\bthese\b|\bthis section\b|\b(?:items?|conditions?|defects?|deficiencies) (?:in|of|listed|noted)\b|\blisted\b|\bmarked\b|\bitems? \d/i;
+const REFERS_TO_OTHERS = /\bif\b|\bany\b|\bshould any\b|\babove\b|\bbelow\b|\bfollowing\b|\bthese\b|\bthis section\b|\b(?:items?|conditions?|defects?|deficiencies) (?:in|of|listed|noted)\b|\blisted\b|\bmarked\b|\bitems\b|\bitem \d|\bdeficien\w*|\b(?:repairs|corrections)\s+(?:should|shall|must|are|to|by)\b|\bthe cause\b|\baffected\b/i;
 const PANEL_CONTEXT = /panel|dead[- ]?front|load cent|breaker box|fuse box|enclosure/i;
 /** A bare "cover" next to a junction box is the box's cover, not a device cover plate. */
 const JBOX_WORD = /junction|j-?\s?box|\bbox(?:es)?\b/i;
@@ -384,6 +386,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /electrician|electrical contractor/i,
     isFallbackOnly: true,
     defaultRoom: 'whole-house',
+    // An evaluation of the system is house-wide wherever the sentence stands; only a place it names narrows it.
+    ignoresContext: true,
     patterns: [
       { re: rx`(?:evaluat|review|inspect|assess|examin|diagnos|correct|repair)\w*\s+${anyGap(8)}(?:by|from)\s+(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)s?`, unless: REFERS_TO_OTHERS },
       { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check)`, unless: REFERS_TO_OTHERS },

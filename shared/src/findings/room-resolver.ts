@@ -131,6 +131,7 @@ export function placeMatches(
       nearest(rooms, part.start, part.end, clause) ??
       nearest(rooms, part.start, text.length, { start: 0, end: part.start });
     if (chosen) return [{ room: chosen.room, location: readLocation(text, chosen), ...own }];
+    if (match.rule.ignoresContext) return [{ room: match.rule.defaultRoom ?? 'unknown', location: '', ...own, isInferred: true }];
     if (context.carried) return [{ ...context.carried, ...own, isInferred: true }];
     const opening = context.opening;
     if (opening && !(opening.hadFindings && match.rule.defaultRoom)) {
