@@ -41,7 +41,7 @@ const FILLER = new Set([
   'testing', 'test', 'tests', 'review', 'evaluation', 'inspection', 'other', 'upper', 'lower', 'level',
   'first', 'second', 'floor', 'cont', 'continued', "cont'd", 'or', 'with', 'at', 'to', 'for', 'in',
   'on', 'safety', 'major', 'minor', 'entrance', 'equipment', 'service', 'space', 'report', 'and/or',
-  'limitations', 'defects', 'repairs', 'issues', 'info', 'information', 'description', 'descriptions',
+  'limitations', 'defects', 'detailed', 'detail', 'body', 'narrative', 'repairs', 'issues', 'info', 'information', 'description', 'descriptions',
 ]);
 
 export interface Heading {
