@@ -185,7 +185,11 @@ function keepDistinct(all: readonly BlockFinding[]): BlockFinding[] {
   const found = all.filter(
     (f, i) => !(WIRING_METHODS.has(f.code) && f.confidence === 'inferred' && all.some((g, j) => j < i && g.code === f.code)),
   );
-  const specific = found.filter((f) => !f.isFallbackOnly);
+  const specific = found.filter(
+    (f) =>
+      !f.isFallbackOnly &&
+      !found.some((g) => g !== f && !g.isRecommendation && g.room === f.room && ruleOf(f.code)?.yieldsInBlockTo?.includes(g.code)),
+  );
   const pool = specific.length > 0 ? specific : found.filter((f, i) => found.findIndex((g) => g.code === f.code) === i);
   return pool.filter((f, i) => {
     if (!f.isRecommendation) return true;

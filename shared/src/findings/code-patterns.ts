@@ -32,6 +32,8 @@ export interface CodeRule {
   readonly yieldsTo?: readonly FindingCode[];
   /** This code's findings give way to a finding of one of these codes for the same place in the same sentence. */
   readonly yieldsInSentenceTo?: readonly FindingCode[];
+  /** This code's findings give way to a finding of one of these codes for the same place in the same block. */
+  readonly yieldsInBlockTo?: readonly FindingCode[];
   /** Room used whatever the text says (panel defects are at the panel). */
   readonly fixedRoom?: Room;
   /** Room used when neither the text nor the section names one. */
@@ -125,12 +127,15 @@ export const CODE_RULES: readonly CodeRule[] = [
   {
     code: 'open-ground',
     trigger: /ground|ungr/i,
+    // A receptacle with a neutral-to-ground jumper has no ground wire either: the false ground is the defect.
+    yieldsInBlockTo: ['false-ground'],
     patterns: [
       { re: rx`open(?:\s+equipment)?\s+grounds?(?:ed)?\b(?!\s*fault)` },
       { re: rx`(?:ungrounded|ungrnd|ungr'?d)\s+(?:(?:three|3)[- ](?:prong|slot|hole)\s+)?${gap(2)}${T.RCPT}` },
       { re: rx`(?:tested|tests?|read|reads|showed?|shows|indicated?|registers?|registered)\s+(?:as\s+)?(?:ungrounded|open ground)` },
       { re: rx`(?:three|3)[- ](?:prong|slot|hole)\s+${T.RCPT}?\s*${gap(3)}(?:on|with|in|fed by)\s+(?:an?\s+)?(?:ungrounded|two[- ]wire|2[- ]wire|non-?grounded)` },
-      { re: rx`(?:no|lacks?|lacking|missing|without)\s+(?:an?\s+)?(?:equipment\s+)?ground(?:ing)?(?:\s+(?:conductor|wire|path))?\b(?!\s*(?:fault|electrode|rod|clamp))` },
+      // A feeder with no equipment ground is a subpanel defect, a plastic water line no electrode: neither is a receptacle's open ground.
+      { re: rx`(?:no|lacks?|lacking|missing|without)\s+(?:an?\s+)?(?:equipment\s+)?ground(?:ing)?(?:\s+(?:conductor|wire|path))?\b(?!\s*(?:fault|electrode|rod|clamp))`, unless: /\b(?:feeder|sub-?panel|water (?:line|pipe|service)|electrode|ground rod)\b/i },
       { re: rx`${T.RCPT}\s+${gap(8)}${T.BE}(?:not grounded|ungrounded)` },
     ],
   },
@@ -141,6 +146,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`(?:bootleg(?:ged)?|false|fake)\s+(?:indication of (?:a\s+)?)?ground(?:s|ed|ing)?\b` },
       { re: rx`(?:jumper|jumpered|jumped|tied|bonded)\s+${anyGap(4)}(?:from\s+)?(?:the\s+)?neutral\s+${anyGap(3)}to\s+(?:the\s+)?(?:green\s+)?ground(?:ing)?(?:\s+(?:terminal|screw))?` },
+      { re: rx`(?:jumper|wire)\s+${anyGap(4)}between\s+(?:the\s+)?neutral\s+${anyGap(3)}and\s+(?:the\s+)?(?:green\s+)?ground(?:ing)?(?:\s+(?:terminal|screw))?` },
+      { re: rx`neutral[- ]to[- ]ground(?:ing)?\s+(?:terminal\s+|screw\s+)?jumper`, unless: PANEL_CONTEXT },
       { re: rx`neutral\s+${gap(4)}(?:jumpered|jumped|bonded|tied)\s+(?:over\s+)?to\s+(?:the\s+)?ground(?:ing)?(?:\s+(?:terminal|screw))?`, isRecommendation: true },
     ],
   },

@@ -33,7 +33,7 @@ const ROOM_WORDS = new Set([
   'living', 'hallway', 'hallways', 'hall', 'halls', 'attic', 'attics', 'dining', 'office', 'den',
   'family', 'powder', 'primary', 'master', 'guest', 'porch', 'deck', 'patio', 'stairs', 'entry',
 ]);
-const GENERAL = new Set(['summary', 'general', 'interior', 'interiors', 'introduction', 'overview']);
+const GENERAL = new Set(['summary', 'general', 'detailed', 'detail', 'interior', 'interiors', 'introduction', 'overview']);
 const FILLER = new Set([
   'system', 'systems', 'components', 'component', 'and', '&', 'the', 'of', 'section', 'area', 'areas',
   'room', 'rooms', 'main', 'secondary', 'observations', 'observation', 'findings', 'comments', 'notes',
@@ -41,7 +41,7 @@ const FILLER = new Set([
   'testing', 'test', 'tests', 'review', 'evaluation', 'inspection', 'other', 'upper', 'lower', 'level',
   'first', 'second', 'floor', 'cont', 'continued', "cont'd", 'or', 'with', 'at', 'to', 'for', 'in',
   'on', 'safety', 'major', 'minor', 'entrance', 'equipment', 'service', 'space', 'report', 'and/or',
-  'limitations', 'defects', 'detailed', 'detail', 'body', 'narrative', 'repairs', 'issues', 'info', 'information', 'description', 'descriptions',
+  'limitations', 'defects', 'repairs', 'issues', 'info', 'information', 'description', 'descriptions',
 ]);
 
 export interface Heading {
