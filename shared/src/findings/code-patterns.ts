@@ -379,13 +379,20 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'service-equipment',
-    trigger: /service|weather\s?head|drip|meter|\bse\b|seu|mast|overhead|utility|clearance/i,
+    trigger: /service|weather\s?head|drip|meter|\bse\b|seu|mast|overhead|utility|clearance|drop|limb|branch|tree/i,
     fixedRoom: 'exterior',
     patterns: [
       { re: rx`${T.SERVICE}\s+${gap(8)}${T.BE}(?:damaged|leaning|bent|loose|pulling away|detached|unsecured|not (?:secured|sealed|properly (?:secured|sealed|supported))|${T.ABSENT}|deteriorated|worn|frayed|cracked|rusted|rusting|corroded|too low|sagging|in contact with|contacting|touching|rubbing|exposed|weathered|brittle|torn|split)` },
       { re: rx`(?:${T.NO}|damaged|deteriorated|frayed|worn|cracked|weathered|brittle|loose|leaning|bent|rusted|corroded)\s+${gap(2)}${T.SERVICE}` },
       { re: rx`(?:trees?|branches|limbs|vegetation|vines)\s+${gap(3)}(?:in contact with|contacting|touching|rubbing|against|interfering with)\s+(?:the\s+)?${gap(2)}${T.SERVICE}` },
       { re: rx`(?:inadequate|insufficient|improper|low)\s+(?:service\s+)?(?:drop\s+)?clearance\b`, context: /service|drop|overhead|mast|utility|roof/i, unless: PANEL_CONTEXT },
+      { re: rx`${T.SERVICE}\s+${gap(8)}(?:has\s+|have\s+|is\s+|are\s+)?(?:pulled|pulling|separated|separating|come|coming|broken)\s+(?:away\s+|loose\s+)?(?:from|off)\b` },
+      { re: rx`${T.SERVICE}\s+${gap(4)}(?:jacket|sheath(?:ing)?|insulation)\s+${T.BE}(?:(?:uv|sun)[- ]?)?(?:degraded|damaged|cracked|split|deteriorated|worn|brittle|torn)` },
+      { re: rx`${T.SERVICE}\s+${gap(6)}(?:${T.BE})?(?:not (?:strapped|supported|fastened|clamped)|rubs?|rubbing|chafing|chafed)\b` },
+      // Common practice: service drop conductors keep their clearance above decks, roofs and drives (NFPA 70 (NEC) 2023, 230.24).
+      { re: rx`${T.SERVICE}\s+${anyGap(8)}(?:cross(?:es)?|pass(?:es)?|runs?|hangs?|sags?)\s+(?:over|through|about|roughly|only|within|among|across|to)\b`, context: /\b(?:\d+|five|six|seven|eight|nine|ten)\s*(?:ft|feet|foot|')|limbs?|branch(?:es)?|\btrees?\b|within reach|clearance/i, unless: /\b(?:otherwise secure|adequate clearance|clearance (?:is )?(?:adequate|ok|good))\b/i },
+      { re: rx`(?:service\s+)?drop\s+(?:sags?|sagging|clearance\s+(?:over|above|at|to|is)|is too low|rubs?|rubbing)\b`, context: /service|overhead|utility|drop/i, unless: /\bclearance (?:is )?(?:adequate|ok|good|sufficient)\b/i },
+      { re: rx`(?:limbs?|branch(?:es)?|trees?)\s+(?:rubs?|rubbing|touch(?:es|ing)?|contacts?|contacting)\s+(?:against\s+|on\s+)?(?:them|it|the\s+(?:drop|conductors|service|lines|wires))`, context: /service|drop|overhead|conductor|utility/i },
     ],
   },
   {
