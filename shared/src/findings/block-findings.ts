@@ -98,10 +98,10 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
         // A device implied by its section at one named place ("BR2: none") is one device.
         const quantity = counted === null && match === implied && place.room !== 'whole-house' && !/\b(?:all|every|each|several|both)\b|s:/i.test(sentence.text) ? 1 : counted;
         // The grounding of a service is one system: a sentence naming its parts in two places is one defect.
-        const same = inSentence.find((f) => f.code === match.rule.code && (f.room === place.room || match.rule.panelIsPlace === true));
+        const same = inSentence.find((f) => f.code === outdoorCode(match.rule.code, place.room) && (f.room === place.room || match.rule.panelIsPlace === true));
         if (same) continue;
         inSentence.push({
-          code: match.rule.code,
+          code: outdoorCode(match.rule.code, place.room),
           room: place.room,
           location: place.location,
           quantity,
@@ -143,6 +143,14 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
     if (sentenceIndex === 0 && mention) opening = { room: mention.room, location: readLocation(sentence.text, mention), hadFindings: live.length > 0 };
   });
   return { findings: keepDistinct(found), hasNegated };
+}
+
+/**
+ * A receptacle outdoors with no cover, or a broken one, lacks the weatherproof cover a wet location
+ * needs (NFPA 70 (NEC) 2023, 406.9(B)(1)), not just a cover plate.
+ */
+function outdoorCode(code: FindingCode, room: Room): FindingCode {
+  return code === 'cover-plate-missing' && room === 'exterior' ? 'weather-cover-missing' : code;
 }
 
 const RULE_BY_CODE = new Map(CODE_RULES.map((r) => [r.code, r]));

@@ -171,7 +171,10 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /cover|hood|lid|flap|enclosure|\bw[rp]\b|weather/i,
     defaultRoom: 'exterior',
     patterns: [
-      { re: rx`(?:${T.NO}|${T.BROKEN})\s+(?:(?:an?|the|its|proper|required)\s+)?(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant|[- ]tight)?|wp|wr|exterior|outdoor)[- ]?(?:rated\s+)?(?:covers?|cover plates?|enclosures?|hoods?|lids?|flaps?)` },
+      { re: rx`(?:${T.NO}|${T.BROKEN})\s+(?:(?:an?|the|its|their|proper|required)\s+)?(?:(?:wr|wp|weather[- ]resistant|weather[- ]?proof)\s*\/\s*)?(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant|[- ]tight)?|wp|wr|exterior|outdoor)[- ]?(?:rated\s+)?(?:covers?|cover plates?|enclosures?|hoods?|lids?|flaps?)` },
+      // Common practice (NFPA 70 (NEC) 2023, 406.9(B)(1)): an outdoor receptacle in a wet location has a cover that is weatherproof with a plug in; a flat cover is not.
+      { re: rx`(?:only\s+(?:a\s+)?)?flat\s+${gap(2)}(?:covers?|lids?)(?:\s+only)?`, context: /in[- ]use|bubble|weather|exterior|outdoor|patio|porch|deck|while (?:a cord is )?(?:plugged|in use)/i },
+      { re: rx`(?:covers?|lids?)\s+${gap(3)}(?:${T.BE})?broken off` },
       { re: rx`(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant)?|wp)\s+covers?\s+${anyGap(8)}${T.BE}(?:${T.ABSENT}|broken|damaged|cracked|needed|recommended|required)` },
       { re: rx`(?:exterior|outdoor|outside|patio|deck|porch)\s+${T.RCPT}\s+${gap(3)}(?:covers?|lids?|flaps?)\s+${T.BE}(?:missing|broken|damaged|absent)` },
       { re: rx`(?:not|non)[- ](?:wr|weather[- ]resistant)\b` },
@@ -192,12 +195,13 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /box|splice|wire nut/i,
     patterns: [
       { re: rx`(?:open|uncovered|unenclosed)\s+(?:${T.JBOX}|box(?:es)?\b)` },
-      { re: rx`${T.JBOX}\s+${gap(4)}(?:(?:has|have|had|with|is|are|was|were)\s+)?(?:no|missing|without|lacks?|lacking|open|uncovered|not covered)(?:\s+(?:a|its|the|blank))?(?:\s+(?:covers?|lids?|plates?))?` },
+      { re: rx`${T.JBOX}\s+${gap(8)}(?:(?:has|have|had|with|is|are|was|were)\s+)?(?:no|missing|without|lacks?|lacking|open|uncovered|not covered)(?:\s+(?:a|its|the|blank))?(?:\s+(?:covers?|lids?|plates?))?` },
+      { re: rx`box(?:es)?\s+(?:with\s+|has\s+|have\s+)?(?:no|missing|without)\s+(?:a\s+|its\s+)?(?:covers?|lids?)`, context: /splice|wire nut|junction|conductors? (?:are |is )?(?:exposed|visible)/i },
       { re: rx`${T.JBOX}\s+(?:covers?|lids?)\s+${gap(3)}${T.BE}(?:${T.ABSENT}|off|removed)` },
       { re: rx`${T.NO}\s+(?:blank\s+)?(?:covers?|lids?)\s+(?:on|for)\s+(?:the\s+|an?\s+)?${T.JBOX}` },
-      { re: rx`(?:splices?|spliced (?:wires|conductors)|wire nuts?)\s+${anyGap(6)}(?:outside|not in|not within|not enclosed|without)\s+(?:in\s+)?(?:an?\s+|the\s+)?(?:(?:approved|junction|electrical|enclosed)\s+)?(?:box|enclosure|junction box)` },
+      { re: rx`(?:splices?|spliced (?:wires|conductors)|wire nuts?)\s+${anyGap(6)}(?:outside(?:\s+of)?|not in|not within|not enclosed|without)\s+(?:in\s+)?(?:an?\s+|the\s+|any\s+)?(?:(?:approved|junction|electrical|enclosed)\s+)?(?:box|enclosure|junction box)` },
       { re: rx`(?:open|exposed|unenclosed|loose|taped)\s+(?:wire\s+)?splices?` },
-      { re: rx`(?:spliced?|splices|connections?|connected)\b\s+${anyGap(20)}(?:with\s+no|without(?:\s+an?)?|not\s+in(?:\s+an?)?|outside(?:\s+of)?(?:\s+an?)?)\s+(?:junction\s+|electrical\s+)?(?:box|enclosure)` },
+      { re: rx`(?:spliced?|splices|connections?|connected)\b\s+${anyGap(20)}(?:with\s+no|without(?:\s+an?)?|not\s+in(?:\s+an?)?|rather than (?:being\s+)?(?:enclosed\s+)?in(?:\s+an?)?|outside(?:\s+of)?(?:\s+(?:an?|any))?)\s+(?:junction\s+|electrical\s+)?(?:box|enclosure)` },
       { re: rx`(?:wrapped|taped)\s+(?:only\s+)?(?:in|with)\s+(?:electrical\s+)?tape` },
     ],
   },
