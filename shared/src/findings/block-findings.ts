@@ -96,7 +96,7 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
       for (const place of placements[i]) {
         const counted = findingQuantity(match.rule.code, place.countText, place.articleLimit, live.length === 1 && place.laterText ? place.laterText : null);
         // A device implied by its section at one named place ("BR2: none") is one device.
-        const quantity = counted === null && match === implied && place.room !== 'whole-house' && !/\b(?:all|every|each|several|both)\b|s:/i.test(sentence.text) ? 1 : counted;
+        const quantity = counted === null && match === implied && place.room !== 'whole-house' && !isPluralPlace(sentence.text, rooms.find((r) => r.room === place.room)?.text ?? '') ? 1 : counted;
         // The grounding of a service is one system: a sentence naming its parts in two places is one defect.
         const same = inSentence.find((f) => f.code === outdoorCode(match.rule.code, place.room) && (f.room === place.room || match.rule.panelIsPlace === true));
         if (same) continue;
@@ -171,6 +171,11 @@ const SECTION_SUBJECTS: ReadonlyArray<{ readonly heading: RegExp; readonly code:
     denial: /\b(?:tested (?:ok|fine|good|properly|correctly)|ok\b|satisfactory|functional|operat(?:ed|ional) (?:properly|correctly|normally))/i,
   },
 ];
+/** Several places or devices ("all", "BRs:", "in the bedrms"): no count of one. */
+const ALL_WORDS = /\b(?:all|every|each|several|both)\b/i;
+function isPluralPlace(sentence: string, placeWords: string): boolean {
+  return ALL_WORDS.test(sentence) || /(?:rms|rooms|[^s]s)$/i.test(placeWords.trim());
+}
 const ADD_WORDS = /\b(?:need(?:s|ed)? to (?:add|install)|add|install|recommend\w*|should (?:be|have)|replace)\b/i;
 
 /** A finding a sentence gives only through its section's subject, as a phrase spanning the sentence. */
