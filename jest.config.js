@@ -2,7 +2,7 @@
 // unit (pure shared code, server units, corpus), portal (Angular components),
 // api (supertest against a real PostgreSQL), browser (playwright-core + Debian chromium).
 const swc = ['@swc/jest', { jsc: { parser: { syntax: 'typescript' }, target: 'es2022' }, module: { type: 'commonjs' } }];
-const sharedAlias = { '^@cc/shared$': '<rootDir>/shared/src/index.ts' };
+const sharedAlias = { '^@cc/shared$': '<rootDir>/shared/src/index.ts', '^@cc/shared/(.*)$': '<rootDir>/shared/src/$1' };
 // file-type (photo sniffing) and its helpers ship only ES modules, and file-type exports no `require`
 // entry: jest loads its ESM entry and compiles these packages to CommonJS like the project's own code.
 const esmOnly = ['file-type', 'strtok3', 'token-types', '@tokenizer', '@borewit', 'uint8array-extras'];

@@ -10,6 +10,7 @@ export * from './users/user.schema';
 export * from './requests/us-state';
 export * from './requests/nec-edition';
 export * from './requests/request-status';
+export * from './requests/request-status.schema';
 export * from './requests/request-flow';
 export * from './requests/days-to-closing';
 export * from './requests/repair-request.schema';

@@ -2,7 +2,7 @@ import type { Browser, Page } from 'playwright-core';
 import { seriousViolations } from '../helpers/axe';
 import { openPage, launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
 
-jest.setTimeout(120_000);
+jest.setTimeout(180_000);
 
 // The demo scenario (seeds/data/demo-scenario.ts): 702 Aspen Row has Brightline's quote version 1
 // with three items, waiting for its seller Ellen Brooks. This file signs and pays it, so no other

@@ -6,7 +6,7 @@ import AxeBuilder from '@axe-core/playwright';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
 
-jest.setTimeout(90_000);
+jest.setTimeout(180_000);
 
 const AGENT = 'maya.chen@juniperkey.test';
 

@@ -2,7 +2,7 @@ import { existsSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
 import { expectAccessible, launchBrowser, openPage, portalUrl, screenshot, signInAs } from '../helpers/browser';
 
-jest.setTimeout(60_000);
+jest.setTimeout(180_000);
 
 let browser: Browser;
 let page: Page;

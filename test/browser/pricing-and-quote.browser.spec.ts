@@ -3,7 +3,7 @@ import type { Browser, Page } from 'playwright-core';
 import { FINDING_CODE_TABLE } from '@cc/shared';
 import { expectAccessible, launchBrowser, openPage, portalUrl, screenshot, signInAs } from '../helpers/browser';
 
-jest.setTimeout(90_000);
+jest.setTimeout(180_000);
 
 // The demo scenario (seeds/data/demo-scenario.ts): 1180 Ridgeview Drive waits for Brightline's prices
 // with four confirmed items, two of them "gfci-missing"; Tomás Garza is its seller. This file sends

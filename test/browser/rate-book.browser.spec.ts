@@ -1,7 +1,7 @@
 import type { Browser } from 'playwright-core';
 import { launchBrowser, openPage, portalUrl, screenshot, signInAs } from '../helpers/browser';
 
-jest.setTimeout(60_000);
+jest.setTimeout(180_000);
 
 // The demo scenario seeds Brightline Electric's rate book from the demo entries (shared/src/pricing/
 // demo-rate-book.ts); Sam Okafor works for Brightline. This file only reads the rate book.

@@ -7,7 +7,7 @@ import { REQUEST_STATUS_LABELS } from '@cc/shared';
 import { expectAccessible, launchBrowser, openPage, portalUrl, screenshot, signInAs, watchConsole } from '../helpers/browser';
 import { textPdf } from '../helpers/pdf-fixtures';
 
-jest.setTimeout(90_000);
+jest.setTimeout(180_000);
 
 const AGENT = 'maya.chen@juniperkey.test';
 

@@ -1,6 +1,6 @@
 import * as z from 'zod';
 import { ItemStatusSchema } from '../items/item-status';
-import { RequestStatusSchema } from '../requests/request-status';
+import { RequestStatusSchema } from '../requests/request-status.schema';
 
 export const CLOSING_RISKS = ['high', 'medium', 'low', 'none'] as const;
 export const ClosingRiskSchema = z.enum(CLOSING_RISKS);

@@ -5,7 +5,7 @@ import { ItemStatusSchema } from '../items/item-status';
 import { QuoteSchema } from '../pricing/pricing-input.schema';
 import { QuoteBreakdownSchema } from '../pricing/pricing-breakdown.schema';
 import { RateBookSchema } from '../pricing/rate-book.schema';
-import { RequestStatusSchema } from '../requests/request-status';
+import { RequestStatusSchema } from '../requests/request-status.schema';
 import { QuoteVersionSchema } from '../quotes/quote-version.schema';
 import { PAYMENT_PLANS } from './payment-account';
 

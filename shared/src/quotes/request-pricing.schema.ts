@@ -5,7 +5,7 @@ import { ItemEditionNoteSchema } from '../items/line-item.schema';
 import { QuoteBreakdownSchema } from '../pricing/pricing-breakdown.schema';
 import { QuoteSchema } from '../pricing/pricing-input.schema';
 import { RateBookSchema } from '../pricing/rate-book.schema';
-import { RequestStatusSchema } from '../requests/request-status';
+import { RequestStatusSchema } from '../requests/request-status.schema';
 
 /** Key of a visit of a request (`visit-1`, `visit-2`, or the contractor's own word). */
 export const VisitKeySchema = z

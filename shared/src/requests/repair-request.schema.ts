@@ -3,7 +3,7 @@ import { SessionSchema } from '../auth/auth.schema';
 import { BoundedDateSchema, plainText, RecordIdSchema } from '../http/bounds';
 import { PageQuerySchema } from '../http/page';
 import { NecEditionSchema } from './nec-edition';
-import { RequestStatusSchema } from './request-status';
+import { RequestStatusSchema } from './request-status.schema';
 import { UsStateSchema } from './us-state';
 
 /** The part a person plays on one request (not the same thing as their account role). */

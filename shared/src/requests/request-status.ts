@@ -1,4 +1,5 @@
-import * as z from 'zod';
+// The states as plain lists, without zod: the portal's first load reads them (through the flow table)
+// and stays small. The schema is in request-status.schema.ts.
 
 /** States of a repair request, in the order a request normally moves through them. */
 export const REQUEST_STATUSES = [
@@ -16,8 +17,7 @@ export const REQUEST_STATUSES = [
   'declined',
   'withdrawn',
 ] as const;
-export const RequestStatusSchema = z.enum(REQUEST_STATUSES);
-export type RequestStatus = z.infer<typeof RequestStatusSchema>;
+export type RequestStatus = (typeof REQUEST_STATUSES)[number];
 
 export const REQUEST_STATUS_LABELS: Record<RequestStatus, string> = {
   draft: 'Draft',

@@ -4,7 +4,7 @@ import { FindingCodeSchema, RoomSchema } from '../findings/finding.schema';
 import { ItemStatusSchema } from '../items/item-status';
 import { CompletionLetterSchema } from '../letters/completion-letter.schema';
 import { READING_KINDS } from '../readings/reading-kinds';
-import { RequestStatusSchema } from '../requests/request-status';
+import { RequestStatusSchema } from '../requests/request-status.schema';
 import { ElectricianSchema, SiteVisitSchema } from '../visits/site-visit.schema';
 
 export const WorkItemSchema = z.object({

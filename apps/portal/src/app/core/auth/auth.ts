@@ -1,6 +1,8 @@
 import { HttpClient, HttpContext } from '@angular/common/http';
 import { computed, inject, Injectable, signal } from '@angular/core';
-import { actorsOnRequest, ChangePassword, CurrentUser, FlowActor, PartyRole, Role, Session, SessionState, SignIn } from '@cc/shared';
+import type { ChangePassword, CurrentUser, FlowActor, PartyRole, Role, Session, SessionState, SignIn } from '@cc/shared';
+// The flow table by its own path: the whole shared barrel (every zod schema) stays out of the first load.
+import { actorsOnRequest } from '@cc/shared/requests/request-flow';
 import { firstValueFrom, map, Observable, tap } from 'rxjs';
 import { HANDLES_UNAUTHORISED } from './handles-unauthorised';
 

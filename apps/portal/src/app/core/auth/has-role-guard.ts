@@ -1,6 +1,6 @@
 import { inject } from '@angular/core';
 import { CanActivateFn, RedirectCommand, Router } from '@angular/router';
-import { Role } from '@cc/shared';
+import type { Role } from '@cc/shared';
 import { Auth } from './auth';
 
 /** What the "not for your role" page is told: which page was asked for and whom it serves. */

@@ -1,7 +1,7 @@
 import { computed, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { PageEvent } from '@angular/material/paginator';
-import { Page } from '@cc/shared';
+import type { Page } from '@cc/shared';
 import { catchError, Observable, of, switchMap, tap } from 'rxjs';
 
 export interface PageRequest {

@@ -1,4 +1,4 @@
-import { Role } from '@cc/shared';
+import type { Role } from '@cc/shared';
 
 export interface NavItem {
   label: string;

@@ -1,0 +1,4 @@
+import * as z from 'zod';
+import { REQUEST_STATUSES } from './request-status';
+
+export const RequestStatusSchema = z.enum(REQUEST_STATUSES);
