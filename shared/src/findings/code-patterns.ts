@@ -346,7 +346,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'fan-support',
     trigger: /fan/i,
     patterns: [
-      { re: rx`(?:ceiling\s+)?fans?\s+${gap(4)}(?:wobbl\w*|shak(?:es|ing|y)|sways?|swaying|unstable|${T.BE}(?:loose|not (?:secured|supported|properly (?:supported|secured|mounted))|improperly (?:mounted|supported|secured)))` },
+      { re: rx`(?:ceiling\s+)?fans?\s+${gap(4)}(?:wobbl\w*|shak(?:es|ing|y)|sways?|swaying|unstable|${T.BE}(?:loose|not (?:secured|supported|properly (?:supported|secured|mounted))|improperly (?:mounted|supported|secured)))`, unless: /\b(?:without|no)\s+(?:any\s+|noticeable\s+)?(?:wobbl|shak|sway)/i },
       { re: rx`(?:ceiling\s+)?fans?\s+${gap(2)}${T.BE}(?:mounted|installed|hung|supported)\s+(?:on|to|from|by)\s+(?:a|an|the)?\s*(?:standard|non-?fan[- ]rated|light(?:ing)?|plastic|pancake|junction|ordinary)\s+(?:fixture\s+|outlet\s+|light\s+)?box` },
       { re: rx`(?:wobbl\w*|loose|unsecured|shaky)\s+(?:ceiling\s+)?fans?\b` },
       { re: rx`(?:not|non)[- ](?:an?\s+)?fan[- ](?:rated|support(?:ing)?)\b` },

@@ -59,6 +59,9 @@ export interface RoomMention {
 }
 
 const REFERENCE_BEFORE = /(?:beneath|below|under|underneath|above|over)\s+(?:the\s+)?$/i;
+/** "by the kitchen pass-through", "near the dining room archway": a room's opening as a landmark of another room. */
+const BESIDE_BEFORE = /(?:by|near|beside|next to|at|toward|towards)\s+(?:the\s+)?$/i;
+const OPENING_AFTER = /^\s*(?:pass[- ]?through|opening|archway)/i;
 const FIXTURE_AFTER = /^\s*(?:sink|counter|cabinet|vanity|island|floor|closet)/i;
 
 /** Every place named in `text`, in reading order, without overlaps. */
@@ -70,7 +73,9 @@ export function findRooms(text: string): RoomMention[] {
     const start = m.index;
     const end = start + m[0].length;
     const before = text.slice(Math.max(0, start - 20), start);
-    const isReferencePoint = REFERENCE_BEFORE.test(before) && !FIXTURE_AFTER.test(text.slice(end));
+    const after = text.slice(end, end + 24);
+    const isReferencePoint =
+      (REFERENCE_BEFORE.test(before) && !FIXTURE_AFTER.test(after)) || (BESIDE_BEFORE.test(before) && OPENING_AFTER.test(after));
     found.push({ room: ROOM_WORDS[i][0], start, end, text: m[0], isReferencePoint });
   }
   return found;

@@ -145,6 +145,10 @@ describe('places', () => {
     expect(read('The receptacle behind the refrigerator in the garage is cracked.')).toEqual([['receptacle-damaged', 'garage', 1]]);
   });
 
+  it('takes "by the kitchen pass-through" as a landmark under a room heading', () => {
+    expect(read('Dining Room\nThe switch by the kitchen pass-through has no cover plate.')).toEqual([['cover-plate-missing', 'dining', 1]]);
+  });
+
   it('does not read a water entry or an entry door as a hallway', () => {
     expect(read('Water pipe bond | Main water entry, basement | No bonding clamp found at water line')).toEqual([['grounding-electrode', 'basement', null]]);
   });
@@ -165,6 +169,14 @@ describe('polarity', () => {
     expect(read('Kitchen: the receptacle tests grounded but has a neutral-to-ground jumper at the device; there is no ground wire in the box.')).toEqual([
       ['false-ground', 'kitchen', 1],
     ]);
+  });
+
+  it('denies abandoned wiring (historical, common practice: only energized knob-and-tube is reported)', () => {
+    expect(read('Abandoned knob-and-tube is visible on the basement joists.')).toEqual([]);
+  });
+
+  it('denies a fan that runs without wobble', () => {
+    expect(read('Fan rated box confirmed from the attic; the fan operated without wobble.')).toEqual([]);
   });
 
   it('does not read correct neutral-to-ground bonding at the panel as a false ground', () => {
