@@ -43,6 +43,8 @@ export interface CodeRule {
    * panel"); for other codes a panel beside the defect is only a reference point.
    */
   readonly panelIsPlace?: boolean;
+  /** Whether a place named anywhere in the sentence (a later clause too) is the finding's place before context. */
+  readonly placeAnywhereInSentence?: boolean;
   /** Whether the room comes only from the sentence itself or the default (never from earlier sentences or the heading). */
   readonly ignoresContext?: boolean;
   /** Whether the code stands only in a block (item or paragraph) with no other finding. */
@@ -64,6 +66,8 @@ const REFERS_TO_OTHERS = /\bif\b|\bany\b|\bshould any\b|\babove\b|\bbelow\b|\bfo
 const PANEL_CONTEXT = /panel|dead[- ]?front|load cent|breaker box|fuse box|enclosure/i;
 /** A bare "cover" next to a junction box is the box's cover, not a device cover plate. */
 const JBOX_WORD = /junction|j-?\s?box|\bbox(?:es)?\b/i;
+/** Old wiring that is out of service (common practice: only energized knob-and-tube is reported as a condition). */
+const WIRING_OUT_OF_USE = /\b(?:not energized|de-?energized|abandoned|tested dead|no longer (?:in use|energized|active|in service)|(?:was|were|has been|have been) (?:removed|replaced)|(?:was|were) cut)\b/i;
 /** A smoke/CO alarm, or a "Smoke:" / "CO:" label standing for it in shorthand. */
 const SMOKE_OR_LABEL = String.raw`(?:${T.SMOKE}|(?:smoke|co)(?:\s*(?:\/|and|&)\s*co)?\s*:)`;
 /** An alarm past its service life: expired, end of life, chirping, older than ten years. */
@@ -386,9 +390,11 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'knob-and-tube',
     trigger: /knob|k\s?&\s?t|\bk-t\b|\bknt\b|ungrounded|two[- ]wire|2[- ]wire|cloth|fabric|rubber/i,
     defaultRoom: 'whole-house',
+    // A wiring method is where the sentence finds it, in any of its clauses ("remains in use; it is visible in the attic").
+    placeAnywhereInSentence: true,
     patterns: [
-      { re: rx`knob[- ]?(?:and|&|n|'n'?)[- ]?tube` },
-      { re: rx`\bk\s?&\s?t\b|\bk-t\b|\bknt\b` },
+      { re: rx`knob[- ]?(?:and|&|n|'n'?)[- ]?tube`, unless: WIRING_OUT_OF_USE },
+      { re: rx`\bk\s?&\s?t\b|\bk-t\b|\bknt\b`, unless: WIRING_OUT_OF_USE },
       { re: rx`(?:ungrounded|two[- ]wire|2[- ]wire|cloth[- ](?:insulated|covered|sheathed)|fabric[- ](?:insulated|covered)|rubber[- ]insulated)\s+(?:legacy\s+|old(?:er)?\s+|original\s+|vintage\s+)?(?:wir(?:e|es|ing)|cables?|circuits?)\b` },
     ],
   },

@@ -40,7 +40,7 @@ export interface PlaceContext {
 
 const SEPARATOR = /,\s*|\s+(?:and|also|while|plus|as well as)\s+/gi;
 /** Text between two places of one list: a conjunction, few words, no spatial preposition. */
-const LIST_BETWEEN = /^(?=.*(?:,|\band\b|&|\/|\bor\b))(?!.*\b(?:above|below|beneath|under|over|near|behind|beside|next|adjacent|off|of|from|inside|within|serving|feeding|for|which|that)\b)(?:[\s,&/]*[\w'-]+){0,6}[\s,&/]*$/i;
+const LIST_BETWEEN = /^(?=.*(?:,|\band\b|&|\/|\bor\b))(?!.*\b(?:above|below|beneath|under|over|near|behind|beside|next|adjacent|off|of|from|inside|within|serving|serves?|feeding|feeds?|supplies|supplying|where|for|which|that)\b)(?:[\s,&/]*[\w'-]+){0,6}[\s,&/]*$/i;
 
 /** Splits the sentence into one part per match: a match owns the text up to the next separator. */
 function segments(text: string, matches: readonly CodeMatch[], clauses: readonly Range[]): Range[] {
@@ -129,7 +129,8 @@ export function placeMatches(
     const chosen =
       group[0] ??
       nearest(rooms, part.start, part.end, clause) ??
-      nearest(rooms, part.start, text.length, { start: 0, end: part.start });
+      nearest(rooms, part.start, text.length, { start: 0, end: part.start }) ??
+      (match.rule.placeAnywhereInSentence ? nearest(rooms, part.end, part.end, { start: part.end, end: text.length }) : null);
     if (chosen) return [{ room: chosen.room, location: readLocation(text, chosen), ...own }];
     if (match.rule.ignoresContext) return [{ room: match.rule.defaultRoom ?? 'unknown', location: '', ...own, isInferred: true }];
     if (context.carried) return [{ ...context.carried, ...own, isInferred: true }];

@@ -175,6 +175,18 @@ describe('polarity', () => {
     expect(read('Abandoned knob-and-tube is visible on the basement joists.')).toEqual([]);
   });
 
+  it('denies knob-and-tube that was removed or is not energized (common practice)', () => {
+    expect(read('The disclosure states that knob-and-tube wiring was removed from the house during a 2005 renovation.')).toEqual([]);
+    expect(read('Remnants of knob-and-tube are visible in the attic; they were cut and were not energized.')).toEqual([]);
+  });
+
+  it('places a wiring method where a later clause finds it, and not in the rooms it serves', () => {
+    expect(read('Knob-and-tube wiring remains in use for the second floor; it is visible in the attic.')).toEqual([['knob-and-tube', 'attic', null]]);
+    expect(read('Energized knob-and-tube wiring was found in the attic, where it still serves the upstairs bedrooms.')).toEqual([
+      ['knob-and-tube', 'attic', null],
+    ]);
+  });
+
   it('denies a fan that runs without wobble', () => {
     expect(read('Fan rated box confirmed from the attic; the fan operated without wobble.')).toEqual([]);
   });
