@@ -191,7 +191,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`(?:${T.NO}|broken|cracked|damaged)\s+(?:(?:the|a|an|any)\s+)?(?:(?:switch|${T.RCPT}|light|blank)\s+)?${T.PLATE}`, unless: JBOX_WORD },
       { re: rx`${T.PLATE}\s+${gap(8)}${T.BE}(?:${T.ABSENT}|broken|cracked|damaged)`, unless: JBOX_WORD },
-      { re: rx`${T.PLATE}\s+(?:for|on|at|of)\s+(?:the\s+|a\s+)?(?:${T.SWITCH}|${T.RCPT})\s+${gap(5)}${T.BE}(?:broken|cracked|damaged|missing)` },
+      { re: rx`${T.PLATE}\s+(?:for|on|at|of)\s+(?:the\s+|a\s+)?${ADJ_GAP}(?:${T.SWITCH}|${T.RCPT})\s+${gap(5)}${T.BE}(?:broken|cracked|damaged|missing)` },
     ],
   },
   {

@@ -213,6 +213,10 @@ describe('service, panel and covers', () => {
     expect(read('Shelving has been placed directly in front of the panel.')).toEqual([['panel-deficiency', 'panel', null]]);
   });
 
+  it('reads a cracked cover plate on a described receptacle as the plate, not the receptacle', () => {
+    expect(read('Laundry: the cover plate on the dryer receptacle is cracked.')).toEqual([['cover-plate-missing', 'laundry', 1]]);
+  });
+
   it('reads missing dead-front screws in shorthand', () => {
     expect(read('Dead front: (2) screws missing.')).toEqual([['panel-deficiency', 'panel', 2]]);
   });
