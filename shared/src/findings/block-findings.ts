@@ -1,5 +1,6 @@
 import { clauseRanges } from './clause-splitter';
-import { matchCodes } from './code-matcher';
+import { matchCodes, type CodeMatch } from './code-matcher';
+import { CODE_RULES, type CodeRule } from './code-patterns';
 import { readLocation } from './location-reader';
 import type { FindingCode } from './finding-code';
 import type { MappedText } from './mapped-text';
@@ -70,6 +71,8 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
   splitSentences(text).forEach((written, sentenceIndex) => {
     const sentence = normaliseText(written);
     const matches = matchCodes(sentence.text);
+    const implied = matches.length === 0 ? subjectMatch(section, sentence.text) : null;
+    if (implied) matches.push(implied);
     // Clauses are cut once per sentence with phrases, for negation and for places alike.
     const clauses = matches.length > 0 ? clauseRanges(sentence.text) : [];
     const negated = negatedSpans(sentence.text, matches, clauses);
@@ -91,27 +94,41 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
     live.forEach((match, i) => {
       const isNormalised = sentence.changed.some((c) => c.start < match.end && match.start < c.end);
       for (const place of placements[i]) {
-        const quantity = findingQuantity(match.rule.code, place.countText, place.articleLimit, live.length === 1 && place.laterText ? place.laterText : null);
-        const same = inSentence.find((f) => f.code === match.rule.code && f.room === place.room);
+        const counted = findingQuantity(match.rule.code, place.countText, place.articleLimit, live.length === 1 && place.laterText ? place.laterText : null);
+        // A device implied by its section at one named place ("BR2: none") is one device.
+        const quantity = counted === null && match === implied && place.room !== 'whole-house' && !isPluralPlace(sentence.text, rooms.find((r) => r.room === place.room)?.text ?? '') ? 1 : counted;
+        // The grounding of a service is one system: a sentence naming its parts in two places is one defect.
+        const same = inSentence.find((f) => f.code === outdoorCode(match.rule.code, place.room) && (f.room === place.room || match.rule.panelIsPlace === true));
         if (same) continue;
         inSentence.push({
-          code: match.rule.code,
+          code: outdoorCode(match.rule.code, place.room),
           room: place.room,
           location: place.location,
           quantity,
           sentence,
           isRecommendation: match.isRecommendation,
           isFallbackOnly: match.rule.isFallbackOnly === true,
-          confidence: match.computation !== undefined || place.isInferred ? 'inferred' : isNormalised ? 'normalised' : 'exact',
+          confidence: match === implied || match.computation !== undefined || place.isInferred ? 'inferred' : isNormalised ? 'normalised' : 'exact',
           recommendations: [],
           computation: match.computation ?? null,
         });
       }
     });
+    for (let k = inSentence.length - 1; k >= 0; k--) {
+      const f = inSentence[k];
+      const over = ruleOf(f.code)?.yieldsInSentenceTo;
+      if (over && inSentence.some((g) => !g.isRecommendation && g.room === f.room && over.includes(g.code))) inSentence.splice(k, 1);
+    }
     // A follow-up sentence only recommends, or speaks again of a defect the block already has
     // ("Three-prong receptacles should be grounded or GFCI protected.").
+    // A recommendation of another kind of defect ("have the kitchen counter receptacles upgraded to
+    // GFCI protection" after a double tap) is a finding of its own, unless it is the usual remedy
+    // of the defect before it (GFCI protection for an ungrounded receptacle).
     const onlyFollowUp = inSentence.every(
-      (f) => f.isRecommendation || f.isFallbackOnly || (f.confidence === 'inferred' && found.some((g) => g.code === f.code)),
+      (f) =>
+        f.isFallbackOnly ||
+        (f.isRecommendation && (f.confidence === 'inferred' || lastFound.some((g) => g.code === f.code || ruleOf(f.code)?.yieldsTo?.includes(g.code)))) ||
+        (f.confidence === 'inferred' && found.some((g) => g.code === f.code)),
     );
     if (lastFound.length > 0 && onlyFollowUp && FOLLOW_UP.test(sentence.text)) {
       // "This should be corrected by a licensed electrician.": part of the finding(s) before it.
@@ -128,6 +145,52 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
   return { findings: keepDistinct(found), hasNegated };
 }
 
+/**
+ * A receptacle outdoors with no cover, or a broken one, lacks the weatherproof cover a wet location
+ * needs (NFPA 70 (NEC) 2023, 406.9(B)(1)), not just a cover plate.
+ */
+function outdoorCode(code: FindingCode, room: Room): FindingCode {
+  return code === 'cover-plate-missing' && room === 'exterior' ? 'weather-cover-missing' : code;
+}
+
+const RULE_BY_CODE = new Map(CODE_RULES.map((r) => [r.code, r]));
+function ruleOf(code: FindingCode): CodeRule | undefined {
+  return RULE_BY_CODE.get(code);
+}
+
+/**
+ * Sections whose heading names one kind of device ("SMOKE / CO", "Smoke Detectors"): in shorthand
+ * their lines leave the device unnamed ("BR2: none", "hall: mfr 2012 - expired").
+ */
+const SECTION_SUBJECTS: ReadonlyArray<{ readonly heading: RegExp; readonly code: FindingCode; readonly defect: RegExp; readonly denial: RegExp }> = [
+  {
+    heading: /smoke|carbon monoxide|\bco\b|detect/i,
+    code: 'smoke-co-alarm',
+    // Common practice: a missing, expired (ten years from manufacture) or silent alarm is the defect.
+    defect: /^(?:[\w\s/&'-]{0,30}:\s*)?(?:none|missing|absent|no (?:alarms?|detectors?|units?)|not (?:present|installed|found|observed|provided)|expired|end[- ]of[- ]life|chirp\w*|inoperative|did not (?:sound|respond|activate)|failed)\b|\b(?:expired|end[- ]of[- ]life|chirp(?:s|ed|ing)|(?:past|beyond) (?:their|its|the)? ?(?:\d+|ten)[- ]?year|did not (?:sound|respond|activate))\b/i,
+    denial: /\b(?:tested (?:ok|fine|good|properly|correctly)|ok\b|satisfactory|functional|operat(?:ed|ional) (?:properly|correctly|normally))/i,
+  },
+];
+/** Several places or devices ("all", "BRs:", "in the bedrms"): no count of one. */
+const ALL_WORDS = /\b(?:all|every|each|several|both)\b/i;
+function isPluralPlace(sentence: string, placeWords: string): boolean {
+  return ALL_WORDS.test(sentence) || /(?:rms|rooms|[^s]s)$/i.test(placeWords.trim());
+}
+const ADD_WORDS = /\b(?:need(?:s|ed)? to (?:add|install)|add|install|recommend\w*|should (?:be|have)|replace)\b/i;
+
+/** A finding a sentence gives only through its section's subject, as a phrase spanning the sentence. */
+function subjectMatch(section: Section, text: string): CodeMatch | null {
+  if (section.title === null || section.kind === 'non-electrical') return null;
+  for (const subject of SECTION_SUBJECTS) {
+    if (!subject.heading.test(section.title) || !subject.defect.test(text) || subject.denial.test(text)) continue;
+    const rule = CODE_RULES.find((r): r is CodeRule => r.code === subject.code);
+    if (!rule) return null;
+    const isRecommendation = ADD_WORDS.test(text) && !/^(?:[\w\s/&'-]{0,30}:\s*)?(?:none|missing|absent|no\b)/i.test(text);
+    return { rule, start: 0, end: text.length, isRecommendation, computation: undefined };
+  }
+  return null;
+}
+
 const WIRING_METHODS: ReadonlySet<string> = new Set(['knob-and-tube', 'aluminum-branch-wiring']);
 
 function keepDistinct(all: readonly BlockFinding[]): BlockFinding[] {
@@ -135,7 +198,11 @@ function keepDistinct(all: readonly BlockFinding[]): BlockFinding[] {
   const found = all.filter(
     (f, i) => !(WIRING_METHODS.has(f.code) && f.confidence === 'inferred' && all.some((g, j) => j < i && g.code === f.code)),
   );
-  const specific = found.filter((f) => !f.isFallbackOnly);
+  const specific = found.filter(
+    (f) =>
+      !f.isFallbackOnly &&
+      !found.some((g) => g !== f && !g.isRecommendation && g.room === f.room && ruleOf(f.code)?.yieldsInBlockTo?.includes(g.code)),
+  );
   const pool = specific.length > 0 ? specific : found.filter((f, i) => found.findIndex((g) => g.code === f.code) === i);
   return pool.filter((f, i) => {
     if (!f.isRecommendation) return true;

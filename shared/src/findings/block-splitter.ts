@@ -82,6 +82,8 @@ export function splitBlocks(joined: string): Block[] {
     prevLine = line;
   };
 
+  // Numbered headings that named a room, most recent first.
+  const numbered: Array<{ readonly number: string; readonly room: Room }> = [];
   const lines = splitLines(joined);
   const shortLine = shortLineFor(lines);
   for (const line of lines) {
@@ -94,7 +96,14 @@ export function splitBlocks(joined: string): Block[] {
     const headingLine = classifyHeadingLine(content);
     if (headingLine) {
       close();
-      if (headingLine.type === 'heading') section = headingLine.heading;
+      if (headingLine.type === 'heading') {
+        // "6.3 RECEPTACLES" under "6.0 ELECTRICAL - DETACHED GARAGE" is still in the garage.
+        const number = HEADING_NUMBER.exec(content)?.[1] ?? null;
+        const heading = headingLine.heading;
+        const parent = number !== null ? numbered.find((n) => isSubsection(number, n.number)) : undefined;
+        section = heading.room === null && heading.kind !== 'non-electrical' && parent ? { ...heading, room: parent.room } : heading;
+        if (number !== null && section.room !== null) numbered.unshift({ number, room: section.room });
+      }
       continue;
     }
     const label = inlineNonElectricalLabel(content);
@@ -114,6 +123,15 @@ export function splitBlocks(joined: string): Block[] {
   }
   close();
   return blocks;
+}
+
+/** The numbering of a heading line ("6.0", "6.3", "7.2.1"). */
+const HEADING_NUMBER = /^\s*(?:section\s+)?(\d{1,2}(?:\.\d{1,2})*)\.?\s/i;
+
+/** Whether heading number `child` lies under `parent` ("6.3" under "6.0" or "6", "7.2.1" under "7.2"). */
+function isSubsection(child: string, parent: string): boolean {
+  const base = parent.replace(/(?:\.0)+$/, '');
+  return child !== parent && child.startsWith(`${base}.`);
 }
 
 /** Decides whether a line break inside a block is a sentence boundary, a space or a word wrap. */

@@ -30,34 +30,62 @@ export interface CodeRule {
   readonly patterns: readonly CodePattern[];
   /** Recommendation-only matches of this code are dropped when the sentence has one of these codes. */
   readonly yieldsTo?: readonly FindingCode[];
+  /** This code's findings give way to a finding of one of these codes for the same place in the same sentence. */
+  readonly yieldsInSentenceTo?: readonly FindingCode[];
+  /** This code's findings give way to a finding of one of these codes for the same place in the same block. */
+  readonly yieldsInBlockTo?: readonly FindingCode[];
   /** Room used whatever the text says (panel defects are at the panel). */
   readonly fixedRoom?: Room;
   /** Room used when neither the text nor the section names one. */
   readonly defaultRoom?: Room;
+  /**
+   * Whether a panel named with the defect is its place ("no grounding electrode conductor at the
+   * panel"); for other codes a panel beside the defect is only a reference point.
+   */
+  readonly panelIsPlace?: boolean;
+  /** Whether a place named anywhere in the sentence (a later clause too) is the finding's place before context. */
+  readonly placeAnywhereInSentence?: boolean;
+  /** Whether the room comes only from the sentence itself or the default (never from earlier sentences or the heading). */
+  readonly ignoresContext?: boolean;
   /** Whether the code stands only in a block (item or paragraph) with no other finding. */
   readonly isFallbackOnly?: boolean;
 }
 
 const ADJ_GAP = adjGap(3);
+/** Words between a switch and what is said of it, commas allowed ("The switch for the disposal, right of the sink, is loose"). */
+const SWITCH_GAP = String.raw`(?:(?!${'(?:switch|light|fixture|receptacle|outlet|plates?\b|covers?\b)'})[\w'/#().-]+,?\s+){0,9}?`;
+/** A flexible cord: extension, lamp or zip cord. */
+const FLEX_CORD = String.raw`(?:extension|lamp|zip|flexible|appliance)\s+cords?`;
 const RECOMMEND = String.raw`(?:recommend(?:ed|s|ing)?|suggest(?:ed)?|should (?:be|have)|install(?:ing|ed)?|upgrad(?:e|ed|ing) to|add(?:ing)?|need(?:s|ed)?|requires?|consider(?:ing)?|have the)`;
 /** Words that turn a recommendation into one about an existing device (replace, test, reset). */
 const NOT_ABOUT_ADDING = String.raw`(?:(?!replac|repair|reset|test|check)[\w-]+\s+){0,4}?`;
 /** A light that is part of an appliance (range hood, oven, refrigerator, opener) is not a light fixture. */
 const NOT_APPLIANCE = String.raw`(?<!\b(?:hood|range|oven|microwave|refrigerator|fridge|freezer|opener|appliance|exhaust fan)\s)`;
 /** A general evaluation that is conditional or points at items listed elsewhere ("all of the above") is not a finding of its own. */
-const REFERS_TO_OTHERS = /\bif\b|\bany\b|\bshould any\b|\babove\b|\bthese\b|\bthis section\b|\b(?:items?|conditions?|defects?|deficiencies) (?:in|of|listed|noted)\b|\blisted\b|\bmarked\b|\bitems? \d/i;
+const REFERS_TO_OTHERS = /\bif\b|\bany\b|\bshould any\b|\babove\b|\bbelow\b|\bfollowing\b|\bthese\b|\bthis section\b|\b(?:items?|conditions?|defects?|deficiencies) (?:in|of|listed|noted)\b|\blisted\b|\bmarked\b|\bitems\b|\bitem \d|\bdeficien\w*|\b(?:repairs|corrections)\s+(?:should|shall|must|are|to|by)\b|\bthe cause\b|\baffected\b/i;
 const PANEL_CONTEXT = /panel|dead[- ]?front|load cent|breaker box|fuse box|enclosure/i;
 /** A bare "cover" next to a junction box is the box's cover, not a device cover plate. */
 const JBOX_WORD = /junction|j-?\s?box|\bbox(?:es)?\b/i;
+/** Old wiring that is out of service (common practice: only energized knob-and-tube is reported as a condition). */
+const WIRING_OUT_OF_USE = /\b(?:not energized|de-?energized|abandoned|tested dead|no longer (?:in use|energized|active|in service)|(?:was|were|has been|have been) (?:removed|replaced)|(?:was|were) cut)\b/i;
+/** A smoke/CO alarm, or a "Smoke:" / "CO:" label standing for it in shorthand. */
+const SMOKE_OR_LABEL = String.raw`(?:${T.SMOKE}|(?:smoke|co)(?:\s*(?:\/|and|&)\s*co)?\s*:)`;
+/** An alarm past its service life: expired, end of life, chirping, older than ten years. */
+const SMOKE_AGED = String.raw`(?:expired|end[- ]of[- ]life|chirp(?:s|ed|ing)?\b|(?:past|beyond|exceed(?:s|ed|ing)?|over|outlived|older than)\s+(?:(?:the|their|its|a|his|her)\s+)?(?:(?:\d+|ten)[- ]?(?:year|yr)s?\b|(?:recommended\s+|expected\s+|normal\s+)?(?:service|useful|rated)\s+life|life\s*span|expiration|replacement (?:age|date)))`;
 const SUBPANEL_CONTEXT = /sub-?\s?panel|secondary panel|remote panel|downstream|distribution panel|feeder/i;
 
 export const CODE_RULES: readonly CodeRule[] = [
   {
     code: 'gfci-missing',
-    trigger: /gfc?i|gcfi|ground[- ]fault/i,
+    trigger: /gfc?i|gcfi|ground[- ]fault|protected circuit/i,
     yieldsTo: ['gfci-inoperative', 'open-ground', 'false-ground', 'knob-and-tube'],
     patterns: [
-      { re: rx`(?:${T.NO}|not|non-?|neither\s+${gap(5)}(?:has|have|had|is|are|was|were))\s*${PF}${T.GFCI}` },
+      { re: rx`(?:${T.NO}|not|non-?|neither\s+${anyGap(8)}(?:has|have|had|is|are|was|were))\s*${PF}${T.GFCI}` },
+      { re: rx`none\s+of\s+(?:the\s+)?${gap(3)}${T.RCPT}\s+${gap(4)}(?:are|is|were|was|have|has|had)\s+${PF}${T.GFCI}` },
+      // Downstream of no GFCI device, or on no protected circuit: the receptacle is unprotected.
+      { re: rx`not\s+(?:connected\s+|wired\s+|located\s+)?(?:downstream|on the load side)\s+of\s+(?:an?|any)\s+${T.GFCI}` },
+      { re: rx`(?:not|no)\s+(?:appear\s+to\s+be\s+|seem\s+to\s+be\s+)?on\s+an?\s+(?:gfci[- ])?protected\s+circuit` },
+      { re: rx`${T.RCPT}\s+${gap(4)}(?:are|is|were|was)?\s*not\s+protected\b`, context: /gfc?i|ground[- ]fault/i, unless: /afci|arc[- ]fault/i },
       { re: rx`${T.GFCI}(?:\s+(?:protection|protected|${T.RCPT}|breakers?))?\s+${T.BE}${T.ABSENT}` },
       { re: rx`${T.GFCI}(?:\s+protect(?:ion|ed))?(?:\s+(?:at|in|for)\s+${gap(3)}[\w-]+)?\s*[:=-]\s*(?:no|none|missing|absent)\b` },
       { re: rx`${T.RCPT}\s+${gap(4)}(?:are|is|were|was)\s+not\s+(?:on|protected by)\s+(?:an?\s+)?${T.GFCI}` },
@@ -67,6 +95,8 @@ export const CODE_RULES: readonly CodeRule[] = [
   {
     code: 'gfci-inoperative',
     trigger: /gfc?i|gcfi|ground[- ]fault|trip|reset/i,
+    // A receptacle that does not trip because no GFCI protects it is unprotected, not a failed GFCI.
+    yieldsInSentenceTo: ['gfci-missing'],
     patterns: [
       { re: rx`${T.GFCI}\s+${anyGap(7)}${T.FAILED}\s+(?:properly\s+)?(?:trip|reset|respond|function|operate|work)` },
       { re: rx`${T.GFCI}(?:\s+${T.RCPT})?\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|worn(?: out)?|at end of life|end[- ]of[- ]life|not (?:tripping|resetting))` },
@@ -101,12 +131,15 @@ export const CODE_RULES: readonly CodeRule[] = [
   {
     code: 'open-ground',
     trigger: /ground|ungr/i,
+    // A receptacle with a neutral-to-ground jumper has no ground wire either: the false ground is the defect.
+    yieldsInBlockTo: ['false-ground'],
     patterns: [
       { re: rx`open(?:\s+equipment)?\s+grounds?(?:ed)?\b(?!\s*fault)` },
       { re: rx`(?:ungrounded|ungrnd|ungr'?d)\s+(?:(?:three|3)[- ](?:prong|slot|hole)\s+)?${gap(2)}${T.RCPT}` },
       { re: rx`(?:tested|tests?|read|reads|showed?|shows|indicated?|registers?|registered)\s+(?:as\s+)?(?:ungrounded|open ground)` },
       { re: rx`(?:three|3)[- ](?:prong|slot|hole)\s+${T.RCPT}?\s*${gap(3)}(?:on|with|in|fed by)\s+(?:an?\s+)?(?:ungrounded|two[- ]wire|2[- ]wire|non-?grounded)` },
-      { re: rx`(?:no|lacks?|lacking|missing|without)\s+(?:an?\s+)?(?:equipment\s+)?ground(?:ing)?(?:\s+(?:conductor|wire|path))?\b(?!\s*(?:fault|electrode|rod|clamp))` },
+      // A feeder with no equipment ground is a subpanel defect, a plastic water line no electrode: neither is a receptacle's open ground.
+      { re: rx`(?:no|lacks?|lacking|missing|without)\s+(?:an?\s+)?(?:equipment\s+)?ground(?:ing)?(?:\s+(?:conductor|wire|path))?\b(?!\s*(?:fault|electrode|rod|clamp))`, unless: /\b(?:feeder|sub-?panel|water (?:line|pipe|service)|electrode|ground rod)\b/i },
       { re: rx`${T.RCPT}\s+${gap(8)}${T.BE}(?:not grounded|ungrounded)` },
     ],
   },
@@ -117,6 +150,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`(?:bootleg(?:ged)?|false|fake)\s+(?:indication of (?:a\s+)?)?ground(?:s|ed|ing)?\b` },
       { re: rx`(?:jumper|jumpered|jumped|tied|bonded)\s+${anyGap(4)}(?:from\s+)?(?:the\s+)?neutral\s+${anyGap(3)}to\s+(?:the\s+)?(?:green\s+)?ground(?:ing)?(?:\s+(?:terminal|screw))?` },
+      { re: rx`(?:jumper|wire)\s+${anyGap(4)}between\s+(?:the\s+)?neutral\s+${anyGap(3)}and\s+(?:the\s+)?(?:green\s+)?ground(?:ing)?(?:\s+(?:terminal|screw))?` },
+      { re: rx`neutral[- ]to[- ]ground(?:ing)?\s+(?:terminal\s+|screw\s+)?jumper`, unless: PANEL_CONTEXT },
       { re: rx`neutral\s+${gap(4)}(?:jumpered|jumped|bonded|tied)\s+(?:over\s+)?to\s+(?:the\s+)?ground(?:ing)?(?:\s+(?:terminal|screw))?`, isRecommendation: true },
     ],
   },
@@ -140,7 +175,10 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /cover|hood|lid|flap|enclosure|\bw[rp]\b|weather/i,
     defaultRoom: 'exterior',
     patterns: [
-      { re: rx`(?:${T.NO}|${T.BROKEN})\s+(?:(?:an?|the|its|proper|required)\s+)?(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant|[- ]tight)?|wp|wr|exterior|outdoor)[- ]?(?:rated\s+)?(?:covers?|cover plates?|enclosures?|hoods?|lids?|flaps?)` },
+      { re: rx`(?:${T.NO}|${T.BROKEN})\s+(?:(?:an?|the|its|their|proper|required)\s+)?(?:(?:wr|wp|weather[- ]resistant|weather[- ]?proof)\s*\/\s*)?(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant|[- ]tight)?|wp|wr|exterior|outdoor)[- ]?(?:rated\s+)?(?:covers?|cover plates?|enclosures?|hoods?|lids?|flaps?)` },
+      // Common practice (NFPA 70 (NEC) 2023, 406.9(B)(1)): an outdoor receptacle in a wet location has a cover that is weatherproof with a plug in; a flat cover is not.
+      { re: rx`(?:only\s+(?:a\s+)?)?flat\s+${gap(2)}(?:covers?|lids?)(?:\s+only)?`, context: /in[- ]use|bubble|weather|exterior|outdoor|patio|porch|deck|while (?:a cord is )?(?:plugged|in use)/i },
+      { re: rx`(?:covers?|lids?)\s+${gap(3)}(?:${T.BE})?broken off` },
       { re: rx`(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant)?|wp)\s+covers?\s+${anyGap(8)}${T.BE}(?:${T.ABSENT}|broken|damaged|cracked|needed|recommended|required)` },
       { re: rx`(?:exterior|outdoor|outside|patio|deck|porch)\s+${T.RCPT}\s+${gap(3)}(?:covers?|lids?|flaps?)\s+${T.BE}(?:missing|broken|damaged|absent)` },
       { re: rx`(?:not|non)[- ](?:wr|weather[- ]resistant)\b` },
@@ -153,7 +191,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`(?:${T.NO}|broken|cracked|damaged)\s+(?:(?:the|a|an|any)\s+)?(?:(?:switch|${T.RCPT}|light|blank)\s+)?${T.PLATE}`, unless: JBOX_WORD },
       { re: rx`${T.PLATE}\s+${gap(8)}${T.BE}(?:${T.ABSENT}|broken|cracked|damaged)`, unless: JBOX_WORD },
-      { re: rx`${T.PLATE}\s+(?:for|on|at|of)\s+(?:the\s+|a\s+)?(?:${T.SWITCH}|${T.RCPT})\s+${gap(5)}${T.BE}(?:broken|cracked|damaged|missing)` },
+      { re: rx`${T.PLATE}\s+(?:for|on|at|of)\s+(?:the\s+|a\s+)?${ADJ_GAP}(?:${T.SWITCH}|${T.RCPT})\s+${gap(5)}${T.BE}(?:broken|cracked|damaged|missing)` },
     ],
   },
   {
@@ -161,12 +199,13 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /box|splice|wire nut/i,
     patterns: [
       { re: rx`(?:open|uncovered|unenclosed)\s+(?:${T.JBOX}|box(?:es)?\b)` },
-      { re: rx`${T.JBOX}\s+${gap(4)}(?:(?:has|have|had|with|is|are|was|were)\s+)?(?:no|missing|without|lacks?|lacking|open|uncovered|not covered)(?:\s+(?:a|its|the|blank))?(?:\s+(?:covers?|lids?|plates?))?` },
+      { re: rx`${T.JBOX}\s+${gap(8)}(?:(?:has|have|had|with|is|are|was|were)\s+)?(?:no|missing|without|lacks?|lacking|open|uncovered|not covered)(?:\s+(?:a|its|the|blank))?(?:\s+(?:covers?|lids?|plates?))?` },
+      { re: rx`box(?:es)?\s+(?:with\s+|has\s+|have\s+)?(?:no|missing|without)\s+(?:a\s+|its\s+)?(?:covers?|lids?)`, context: /splice|wire nut|junction|conductors? (?:are |is )?(?:exposed|visible)/i },
       { re: rx`${T.JBOX}\s+(?:covers?|lids?)\s+${gap(3)}${T.BE}(?:${T.ABSENT}|off|removed)` },
       { re: rx`${T.NO}\s+(?:blank\s+)?(?:covers?|lids?)\s+(?:on|for)\s+(?:the\s+|an?\s+)?${T.JBOX}` },
-      { re: rx`(?:splices?|spliced (?:wires|conductors)|wire nuts?)\s+${anyGap(6)}(?:outside|not in|not within|not enclosed|without)\s+(?:in\s+)?(?:an?\s+|the\s+)?(?:(?:approved|junction|electrical|enclosed)\s+)?(?:box|enclosure|junction box)` },
+      { re: rx`(?:splices?|spliced (?:wires|conductors)|wire nuts?)\s+${anyGap(6)}(?:outside(?:\s+of)?|not in|not within|not enclosed|without)\s+(?:in\s+)?(?:an?\s+|the\s+|any\s+)?(?:(?:approved|junction|electrical|enclosed)\s+)?(?:box|enclosure|junction box)` },
       { re: rx`(?:open|exposed|unenclosed|loose|taped)\s+(?:wire\s+)?splices?` },
-      { re: rx`(?:spliced?|splices|connections?|connected)\b\s+${anyGap(20)}(?:with\s+no|without(?:\s+an?)?|not\s+in(?:\s+an?)?|outside(?:\s+of)?(?:\s+an?)?)\s+(?:junction\s+|electrical\s+)?(?:box|enclosure)` },
+      { re: rx`(?:spliced?|splices|connections?|connected)\b\s+${anyGap(20)}(?:with\s+no|without(?:\s+an?)?|not\s+in(?:\s+an?)?|rather than (?:being\s+)?(?:enclosed\s+)?in(?:\s+an?)?|outside(?:\s+of)?(?:\s+(?:an?|any))?)\s+(?:junction\s+|electrical\s+)?(?:box|enclosure)` },
       { re: rx`(?:wrapped|taped)\s+(?:only\s+)?(?:in|with)\s+(?:electrical\s+)?tape` },
     ],
   },
@@ -176,8 +215,11 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`(?:exposed|unprotected|unsecured|loose|dangling|hanging|unsupported|unstapled|frayed)(?:,?\s+(?:dangling|hanging|unsecured|loose|exposed))?\s+(?:(?:nm|romex|electrical|branch(?: circuit)?|sheathed|non-?metallic(?:[- ]sheathed)?)\s+)?(?:wir(?:e|es|ing)|cables?|nm(?:-b)?|romex)\b` },
       { re: rx`${T.WIRING}\s+${gap(8)}${T.BE}(?:exposed|unprotected|unsecured|loose|not (?:secured|supported|protected|stapled|strapped)|dangling|hanging|lying|draped|subject to (?:physical )?damage|within reach)` },
-      { re: rx`extension cords?\s+${gap(3)}(?:used|in use|serving|as|for|run|powering|supplying|providing|feeding)` },
-      { re: rx`(?:used|using|uses|plugged in(?:\s?to)?|powered by|connected to|on)\s+(?:an?\s+)?extension cords?` },
+      { re: rx`${FLEX_CORD}\s+${gap(3)}(?:used|in use|serving|as|for|run|powering|supplying|providing|feeding|(?:has|have)\s+been\s+(?:run|routed|stapled|strung|nailed|tacked|fastened|used|installed))` },
+      { re: rx`${FLEX_CORD}\s+${gap(2)}(?:${T.BE}|being\s+)(?:stapled|strung|nailed|tacked|fastened|routed|run|draped|tied)\s+(?:along|across|through|to|under|over|up|around|in)\b` },
+      { re: rx`${FLEX_CORD}\s+${anyGap(6)}(?:in place of|instead of|as|substitut\w+ for|for)\s+(?:a\s+)?(?:permanent|fixed|premises|branch(?:[- ]circuit)?)\s+wiring` },
+      { re: rx`(?:used|using|uses|plugged in(?:\s?to)?|powered by|connected to|on|fed by|fed from|through)\s+(?:an?\s+|the\s+)?${ADJ_GAP}extension cords?` },
+      { re: rx`(?:uf|nm|underground|feeder|branch|direct[- ]burial)?\s*${T.WIRING}\s+${gap(6)}(?:${T.BE}|(?:has|have)\s+(?:simply\s+)?been\s+)?(?:lies|lying|laid|laying|lays|rests?|resting|run|strung|draped)\s+(?:directly\s+)?(?:on|across|along)\s+(?:the\s+)?(?:surface of the\s+)?(?:ground|dirt|soil|grass|lawn|yard|floor|crawl ?space floor)\b` },
       { re: rx`(?:permanent|fixed)\s+(?:use of\s+)?extension cords?` },
     ],
   },
@@ -212,7 +254,18 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:pointed|sharp|sharp[- ]tipped|drywall|sheet metal|self-tapping|incorrect|wrong|improper)\s+${gap(2)}screws?`, context: PANEL_CONTEXT },
       { re: rx`(?:missing|no)\s+${gap(2)}screws?`, context: PANEL_CONTEXT },
       { re: rx`(?:open|unused|unsealed)\s+(?:knockouts?|k\.?o\.?s?\b|breaker (?:slots?|spaces?|openings?)|slots?|openings?)`, context: PANEL_CONTEXT },
-      { re: rx`(?:${T.NO})\s+(?:breaker\s+)?(?:fillers?|filler plates?|blanks?|blanking plates?|knockout (?:closures|seals|plugs|covers))` },
+      { re: rx`(?:${T.NO})\s+(?:the\s+|its\s+)?(?:blank\s+)?(?:breaker\s+)?(?:fillers?|filler plates?|blanks?|blanking plates?|knockout (?:closures|seals|plugs|covers))` },
+      { re: rx`(?:dead[- ]?front|panel cover|cover)\s*[:-]?\s*${gap(3)}(?:\(\d\)\s*)?screws?\s+${T.BE}(?:missing|absent)`, context: PANEL_CONTEXT },
+      { re: rx`(?:missing|absent)\s+(?:\d|one|two|three|four)\s+screws?`, context: PANEL_CONTEXT },
+      { re: rx`(?:rust|corrosion|water stain(?:s|ing)?)(?:\s*(?:and|\/|&|\+)\s*(?:rust|corrosion|water stain(?:s|ing)?))?\s+${gap(3)}(?:at|on|in|inside|within)\s+(?:the\s+)?(?:bottom|base|back)\s+of\s+(?:the\s+)?(?:enclosure|panel|can|cabinet)` },
+      { re: rx`(?:rust|corrosion)\s+(?:and\s+(?:rust|corrosion|water staining)\s+)?${T.BE}(?:found|observed|noted|present|visible)\s+(?:at|on|in|inside)\s+(?:the\s+)?${gap(2)}(?:enclosure|panel|lugs|breakers|bus)`, context: PANEL_CONTEXT },
+      // Working space in front of a panel: 30 inches wide, 36 inches deep, kept clear (NFPA 70 (NEC) 2023, 110.26(A) and (B)).
+      { re: rx`(?:working|clear|clearance)\s+(?:space|clearance|area)\s+${gap(4)}${T.BE}(?:less than|under|only|about|blocked|obstructed|reduced)`, context: PANEL_CONTEXT },
+      { re: rx`(?:installed|placed|stored|located|built|stacked|sits|sit)\s+(?:directly\s+)?in front of\s+(?:and beside\s+)?(?:the\s+panel|it)\b`, context: PANEL_CONTEXT },
+      { re: rx`(?:blocks?|blocking|obstructs?|obstructing|restricts?|restricting)\s+(?:the\s+)?(?:access|working space|clearance)`, context: PANEL_CONTEXT },
+      { re: rx`less than (?:a foot|an? (?:arm's length|few inches)|\d+\s*(?:inches|in\.?|"|feet|ft)) of (?:clear|working|open) (?:space|clearance)`, context: PANEL_CONTEXT },
+      { re: rx`(?:shelving|storage|shelves|cabinets?|freezer|furniture)\s+${gap(3)}within\s+\d+\s*(?:inches|in\.?|")\s+of\s+(?:the\s+)?panel` },
+      { re: rx`(?:directory|legend|circuit labels?|labell?ing|entries)\s+${gap(3)}${T.BE}(?:faded|unreadable|illegible|outdated|out of date|wrong|incorrect)` },
       { re: rx`(?:knockouts?|fillers?|filler plates?)\s+${T.BE}(?:missing|open|absent)` },
       { re: rx`(?:${T.NO}|incomplete|illegible|inaccurate)\s+(?:panel\s+|circuit\s+)*(?:directory|legend|labels?|labell?ing|identification)` },
       { re: rx`(?:directory|legend|circuit labels?|labell?ing)\s+${gap(3)}${T.BE}(?:${T.ABSENT}|incomplete|illegible|inaccurate|blank|empty|not (?:filled|completed))` },
@@ -239,29 +292,41 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'grounding-electrode',
-    trigger: /ground|gec|bond|electrode/i,
+    trigger: /ground|gec|bond|electrode|jumper/i,
     defaultRoom: 'panel',
+    panelIsPlace: true,
     patterns: [
-      { re: rx`(?:${T.NO}|loose|disconnected|damaged|broken|cut|corroded|inadequate|improper)\s+(?:(?:a|an|the)\s+)?${gap(2)}(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|water (?:pipe |line )?bond(?:ing)?(?: jumper)?|gas (?:pipe |line )?bond(?:ing)?|bonding (?:jumper|conductor|clamp|wire))` },
-      { re: rx`(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|bonding (?:jumper|clamp|conductor))\s+${gap(8)}${T.BE}(?:${T.ABSENT}|loose|disconnected|damaged|cut|broken|corroded|not (?:connected|attached|bonded|secured)|undersized|inadequate)` },
+      { re: rx`(?:${T.NO}|loose|disconnected|damaged|broken|cut|corroded|inadequate|improper)\s+(?:(?:a|an|the)\s+)?${gap(2)}(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|water (?:pipe |line )?bond(?:ing)?(?: jumper)?|gas (?:pipe |line )?bond(?:ing)?|bonding (?:jumper|conductor|clamp|wire|connection))` },
+      { re: rx`(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|bonding (?:jumper|clamp|conductor))\s+${gap(12)}${T.BE}(?:${T.ABSENT}|loose|disconnected|damaged|cut(?: off)?|broken|corroded|not (?:connected|attached|bonded|secured)|undersized|inadequate)` },
+      // A water meter or filter bridged by no jumper leaves the piping bond open (NFPA 70 (NEC) 2023, 250.53(D)(1) and 250.68(B)).
+      { re: rx`${T.NO}\s+(?:bonding\s+)?jumper\s+(?:wire\s+)?(?:around|across|bridging|over|at)\s+(?:the\s+)?(?:water\s+)?(?:meter|filter|softener|water heater)` },
+      { re: rx`(?:gas|water|metal|csst)(?:\s+(?:service|supply|main))?\s+(?:pipes?|piping|lines?)\s+${gap(8)}(?:has|have|had|with)\s+no\s+bond(?:ing)?\b` },
+      { re: rx`(?:ground(?:ing)?|electrode)\s+(?:wire|conductor)\s+${gap(8)}${T.BE}(?:loose|disconnected|cut(?: off)?|broken|not (?:connected|attached))` },
       { re: rx`(?:water|gas|metal|csst)(?:\s+(?:service|supply|main))?(?:\s+(?:pipes?|piping|lines?))?\s+${gap(2)}${T.BE}(?:not|un)[- ]?bonded` },
       { re: rx`(?:not|no)\s+bond(?:ed|ing)\s+(?:\w+\s+){0,3}?(?:water|gas|csst|metal piping)` },
     ],
   },
   {
     code: 'smoke-co-alarm',
-    trigger: /smoke|alarm|detector|carbon monoxide|unit|device/i,
+    trigger: /smoke|alarm|detector|carbon monoxide|unit|device|\bco\b/i,
     defaultRoom: 'whole-house',
     patterns: [
       { re: rx`(?:${T.NO}|${T.INOPERATIVE}|expired|outdated|dated|disconnected|removed|chirping)\s+${gap(2)}${T.SMOKE}` },
       { re: rx`${T.SMOKE}\s*[:-]?\s*${gap(8)}${T.BE}(?:${T.ABSENT}|none|${T.INOPERATIVE}|expired|past (?:their|its) (?:service life|expiration)|(?:over|older than|more than) (?:10|ten) years|disconnected|removed|chirping|${T.FAILED} (?:respond|sound|activate|operate|work)|failed)` },
       { re: rx`${RECOMMEND}\s+${NOT_ABOUT_ADDING}${T.SMOKE}`, isRecommendation: true, unless: /\btest/i },
       { re: rx`(?:unit|device)\s+${gap(4)}${T.FAILED}\s+(?:sound|alarm|respond|activate)`, context: /smoke|carbon monoxide|\bco\b|alarm|detector/i },
+      // Common practice: smoke alarms are replaced ten years after manufacture (the date on the
+      // label), CO alarms at the end of life the maker prints; an old date is the defect.
+      { re: rx`${T.SMOKE}\s+${anyGap(10)}${T.FAILED}\s+(?:sound|alarm|respond|activate|operate|work)` },
+      { re: rx`${SMOKE_OR_LABEL}[^.;]{0,90}?${SMOKE_AGED}` },
+      { re: rx`${SMOKE_OR_LABEL}[^.;]{0,60}?(?:dated|date[- ]?(?:codes?|stamps?)|manufactured|manufacture dates?|made|stamped)\s+(?:in\s+|of\s+)?(?:19[5-9]\d|20[0-2]\d)\b`, context: /replac|expir|past|beyond|exceed|old|aged|life|chirp|\b(?:10|ten)[- ]years?/i },
+      { re: rx`(?:19[5-9]\d|20[0-2]\d)\s+(?:date[- ]?codes?|manufactur\w+ dates?)`, context: /smoke|carbon monoxide|\bco\b|alarm|detector/i, unless: /\btested (?:ok|fine|good|properly|correctly)\b|\bsatisfactory\b/i },
+      { re: rx`smoke(?:\s*(?:\/|and|&)\s*co)?\s*[:-]?\s+(?:${T.ABSENT}|none|expired|${T.INOPERATIVE})` },
     ],
   },
   {
     code: 'light-fixture',
-    trigger: /light|fixture|luminaire|chandelier|pendant|sconce|globe|lens|shade|diffuser|bulb|lamp|insulation/i,
+    trigger: /light|fixture|luminaire|chandelier|pendant|sconce|globe|lens|shade|diffuser|bulb|lamp|insulation|socket|housing|recessed|\bcans?\b/i,
     patterns: [
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|dangling|hanging|not (?:secured|secure|attached|mounted)|${T.FAILED} (?:operate|work|respond|turn on|come on)|in contact with (?:the\s+)?insulation|covered (?:by|with) insulation|not (?:rated|listed|suitable|approved) for (?:a |the )?(?:wet|damp))` },
       { re: rx`(?:${T.INOPERATIVE}|loose|dangling|damaged|broken)\s+${gap(2)}${NOT_APPLIANCE}${T.LIGHT}` },
@@ -270,13 +335,22 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:${T.NO}|broken)\s+(?:(?:the|a)\s+)?(?:globes?|lens(?:es)?|light covers?|shades?|diffusers?)` },
       { re: rx`(?:bare|open|exposed|uncovered)\s+(?:incandescent\s+)?(?:bulbs?|lamps?)\b` },
       { re: rx`insulation\s+${gap(3)}(?:in contact with|touching|covering|over|on top of|against)\s+(?:the\s+)?${gap(2)}(?:recessed|can)\s+(?:lights?|fixtures?|cans?|housings?)` },
+      // Common practice: a recessed housing not rated IC must keep its clearance from insulation.
+      { re: rx`(?:non-?ic|recessed|can)\s+(?:(?:light|lighting|fixture)\s+)?(?:housings?|fixtures?|lights?|cans?)\s+${gap(6)}(?:${T.BE})?(?:covered|buried|packed|surrounded)\s+(?:by|in|with|under)\b` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${SWITCH_GAP}(?:${T.FAILED}|${T.BE}not)\s+(?:light|illuminate|come on|turn on|operate|work)\b` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}(?:has\s+)?(?:pulled|pulling|come|coming|separated|separating)\s+(?:away\s+|loose\s+)?(?:from|off)\s+(?:the\s+|its\s+)?(?:wall|siding|ceiling|box|mounting|surface)` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:${T.BE})?(?:missing|without|lacks?|has no)\s+(?:(?:its|a|the|their)\s+)?(?:glass\s+)?(?:globes?|lens(?:es)?|shades?|diffusers?|covers?)` },
+      { re: rx`(?:globes?|lens(?:es)?|shades?|diffusers?)\s+${T.BE}(?:missing|broken|cracked|absent)`, context: /light|fixture|lamp|bulb/i },
+      { re: rx`(?:bare[- ]bulb|open|exposed|porcelain|keyless)\s+(?:porcelain\s+)?(?:lamp\s?holders?|sockets?)` },
+      { re: rx`(?:lamp\s?holders?|sockets?)\s+${gap(3)}${T.BE}(?:cracked|broken|damaged|loose|missing)` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(3)}(?:hangs?|hanging|suspended)\s+(?:from|by)\s+(?:one|a single|its)\s+(?:chain|end|wire|wires)` },
     ],
   },
   {
     code: 'fan-support',
     trigger: /fan/i,
     patterns: [
-      { re: rx`(?:ceiling\s+)?fans?\s+${gap(4)}(?:wobbl\w*|shak(?:es|ing|y)|sways?|swaying|unstable|${T.BE}(?:loose|not (?:secured|supported|properly (?:supported|secured|mounted))|improperly (?:mounted|supported|secured)))` },
+      { re: rx`(?:ceiling\s+)?fans?\s+${gap(4)}(?:wobbl\w*|shak(?:es|ing|y)|sways?|swaying|unstable|${T.BE}(?:loose|not (?:secured|supported|properly (?:supported|secured|mounted))|improperly (?:mounted|supported|secured)))`, unless: /\b(?:without|no)\s+(?:any\s+|noticeable\s+)?(?:wobbl|shak|sway)/i },
       { re: rx`(?:ceiling\s+)?fans?\s+${gap(2)}${T.BE}(?:mounted|installed|hung|supported)\s+(?:on|to|from|by)\s+(?:a|an|the)?\s*(?:standard|non-?fan[- ]rated|light(?:ing)?|plastic|pancake|junction|ordinary)\s+(?:fixture\s+|outlet\s+|light\s+)?box` },
       { re: rx`(?:wobbl\w*|loose|unsecured|shaky)\s+(?:ceiling\s+)?fans?\b` },
       { re: rx`(?:not|non)[- ](?:an?\s+)?fan[- ](?:rated|support(?:ing)?)\b` },
@@ -290,6 +364,11 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${T.SWITCH}\s+${gap(7)}(?:(?:has|have|had|of|with|serves?)\s+)?(?:an?\s+)?(?:unknown|no known|undetermined|unclear) (?:function|purpose|use)` },
       { re: rx`(?:function|purpose) of (?:the |a |an )?${gap(2)}${T.SWITCH}\s+${gap(5)}${T.BE}(?:unknown|unclear|undetermined|not determined|could not be determined)` },
       { re: rx`(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|unknown(?:[- ]function)?)\s+${gap(2)}${T.SWITCH}(?!\s*(?:cover\s*)?plates?)` },
+      // Common practice: a switch whose purpose cannot be found is reported for the seller or an electrician to identify.
+      { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:(?:has|have|had|with)\s+)?(?:no|unknown|unk\.?)\s+(?:apparent\s+|known\s+|obvious\s+|determined\s+)?(?:function|purpose|use)` },
+      { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:does|did|do)\s*(?:n[o']t|not)?\s*(?:appear to\s+|seem to\s+)?(?:nothing|not (?:control|operate|turn on|power) (?:anything|any\w*)|not turn (?:the\s+)?${gap(2)}(?:on|off))` },
+      { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:does|did)\s*n[o']t\s+(?:appear to\s+|seem to\s+)?(?:control|operate|turn on|power)\s+(?:anything|any\s+\w+)` },
+      { re: rx`${T.SWITCH}\s+${SWITCH_GAP}${T.BE}loose in (?:the|its) (?:wall|box)` },
     ],
   },
   {
@@ -311,21 +390,30 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'knob-and-tube',
     trigger: /knob|k\s?&\s?t|\bk-t\b|\bknt\b|ungrounded|two[- ]wire|2[- ]wire|cloth|fabric|rubber/i,
     defaultRoom: 'whole-house',
+    // A wiring method is where the sentence finds it, in any of its clauses ("remains in use; it is visible in the attic").
+    placeAnywhereInSentence: true,
     patterns: [
-      { re: rx`knob[- ]?(?:and|&|n|'n'?)[- ]?tube` },
-      { re: rx`\bk\s?&\s?t\b|\bk-t\b|\bknt\b` },
+      { re: rx`knob[- ]?(?:and|&|n|'n'?)[- ]?tube`, unless: WIRING_OUT_OF_USE },
+      { re: rx`\bk\s?&\s?t\b|\bk-t\b|\bknt\b`, unless: WIRING_OUT_OF_USE },
       { re: rx`(?:ungrounded|two[- ]wire|2[- ]wire|cloth[- ](?:insulated|covered|sheathed)|fabric[- ](?:insulated|covered)|rubber[- ]insulated)\s+(?:legacy\s+|old(?:er)?\s+|original\s+|vintage\s+)?(?:wir(?:e|es|ing)|cables?|circuits?)\b` },
     ],
   },
   {
     code: 'service-equipment',
-    trigger: /service|weather\s?head|drip|meter|\bse\b|seu|mast|overhead|utility|clearance/i,
+    trigger: /service|weather\s?head|drip|meter|\bse\b|seu|mast|overhead|utility|clearance|drop|limb|branch|tree/i,
     fixedRoom: 'exterior',
     patterns: [
       { re: rx`${T.SERVICE}\s+${gap(8)}${T.BE}(?:damaged|leaning|bent|loose|pulling away|detached|unsecured|not (?:secured|sealed|properly (?:secured|sealed|supported))|${T.ABSENT}|deteriorated|worn|frayed|cracked|rusted|rusting|corroded|too low|sagging|in contact with|contacting|touching|rubbing|exposed|weathered|brittle|torn|split)` },
       { re: rx`(?:${T.NO}|damaged|deteriorated|frayed|worn|cracked|weathered|brittle|loose|leaning|bent|rusted|corroded)\s+${gap(2)}${T.SERVICE}` },
       { re: rx`(?:trees?|branches|limbs|vegetation|vines)\s+${gap(3)}(?:in contact with|contacting|touching|rubbing|against|interfering with)\s+(?:the\s+)?${gap(2)}${T.SERVICE}` },
       { re: rx`(?:inadequate|insufficient|improper|low)\s+(?:service\s+)?(?:drop\s+)?clearance\b`, context: /service|drop|overhead|mast|utility|roof/i, unless: PANEL_CONTEXT },
+      { re: rx`${T.SERVICE}\s+${gap(8)}(?:has\s+|have\s+|is\s+|are\s+)?(?:pulled|pulling|separated|separating|come|coming|broken)\s+(?:away\s+|loose\s+)?(?:from|off)\b` },
+      { re: rx`${T.SERVICE}\s+${gap(4)}(?:jacket|sheath(?:ing)?|insulation)\s+${T.BE}(?:(?:uv|sun)[- ]?)?(?:degraded|damaged|cracked|split|deteriorated|worn|brittle|torn)` },
+      { re: rx`${T.SERVICE}\s+${gap(6)}(?:${T.BE})?(?:not (?:strapped|supported|fastened|clamped)|rubs?|rubbing|chafing|chafed)\b` },
+      // Common practice: service drop conductors keep their clearance above decks, roofs and drives (NFPA 70 (NEC) 2023, 230.24).
+      { re: rx`${T.SERVICE}\s+${anyGap(8)}(?:cross(?:es)?|pass(?:es)?|runs?|hangs?|sags?)\s+(?:over|through|about|roughly|only|within|among|across|to)\b`, context: /\b(?:\d+|five|six|seven|eight|nine|ten)\s*(?:ft|feet|foot|')|limbs?|branch(?:es)?|\btrees?\b|within reach|clearance/i, unless: /\b(?:otherwise secure|adequate clearance|clearance (?:is )?(?:adequate|ok|good))\b/i },
+      { re: rx`(?:service\s+)?drop\s+(?:sags?|sagging|clearance\s+(?:over|above|at|to|is)|is too low|rubs?|rubbing)\b`, context: /service|overhead|utility|drop/i, unless: /\bclearance (?:is )?(?:adequate|ok|good|sufficient)\b/i },
+      { re: rx`(?:limbs?|branch(?:es)?|trees?)\s+(?:rubs?|rubbing|touch(?:es|ing)?|contacts?|contacting)\s+(?:against\s+|on\s+)?(?:them|it|the\s+(?:drop|conductors|service|lines|wires))`, context: /service|drop|overhead|conductor|utility/i },
     ],
   },
   {
@@ -333,6 +421,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /electrician|electrical contractor/i,
     isFallbackOnly: true,
     defaultRoom: 'whole-house',
+    // An evaluation of the system is house-wide wherever the sentence stands; only a place it names narrows it.
+    ignoresContext: true,
     patterns: [
       { re: rx`(?:evaluat|review|inspect|assess|examin|diagnos|correct|repair)\w*\s+${anyGap(8)}(?:by|from)\s+(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)s?`, unless: REFERS_TO_OTHERS },
       { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check)`, unless: REFERS_TO_OTHERS },

@@ -18,6 +18,8 @@ const UNIT = /^(?:a|amps?|amperes?|v|volts?|awg|gauge|ga|ft|feet|foot|inch(?:es)
 /** Words before a number that make it a name or an index ("bedroom 2", "slot 14", "#3"). */
 const INDEX_BEFORE = /^(?:bed\s?rooms?|bath(?:room)?s?|br|bdrms?|rooms?|circuits?|breakers?|no|nos|item|items|page|section|unit|level|floor|space|position|slot|photo|fig|figure|step|zone|#|spaces|about|approximately|approx)$/i;
 const ALLOWED_BETWEEN = 3;
+/** Vague words that quantify only a noun that follows ("all receptacles"), not a manner ("at all speeds"). */
+const VAGUE_BEFORE_NOUN_ONLY = new Set(['all', 'every']);
 /** A word, a bracketed count ("(3)", "(x2)") or a punctuation mark. */
 const TOKEN = /\(\s*x?\d{1,3}\s*\)|[#]?[\w'%-]+|[:;,.]/g;
 
@@ -73,7 +75,8 @@ export function readCount(text: string, articleLimit = Infinity): number | 'vagu
     if (parenthesised) return Number(parenthesised[1]);
     const times = /^(?:(\d{1,2})x|x(\d{1,2}))$/.exec(word);
     if (times) return Number(times[1] ?? times[2]);
-    if (VAGUE.has(word) && !isNumberAhead(tokens, i)) return 'vague';
+    // "several receptacles" is vague; "wobbles at all speeds" says nothing about how many.
+    if (VAGUE.has(word) && !isNumberAhead(tokens, i) && (isNounAhead(tokens, i) || !VAGUE_BEFORE_NOUN_ONLY.has(word))) return 'vague';
     const count = countOf(word);
     if (count === null || count === 0) continue;
     if ((word === 'a' || word === 'an') && tokens[i].index >= articleLimit) continue;
@@ -82,6 +85,8 @@ export function readCount(text: string, articleLimit = Infinity): number | 'vagu
     if (next !== undefined && UNIT.test(next) && word !== 'a' && word !== 'an') continue;
     if (/^\d/.test(word) && tokens[i - 1]?.word === ':') return count;
     if (word === 'pair' && next !== 'of') continue;
+    // "(4 of them)", "1 of 3 inop": the number before "of" is the count.
+    if (/^\d/.test(word) && next === 'of' && /^(?:them|\d+|the)$/.test(tokens[i + 2]?.word ?? '')) return count;
     if (isNounAhead(tokens, i)) return count;
   }
   return null;
@@ -122,6 +127,7 @@ const ONE_DEVICE = new Set(['receptacle-damaged', 'gfci-inoperative', 'fan-suppo
 const DEVICE_NOUN = /\b(?:((?:cover|face|wall|switch|outlet|receptacle|filler)[- ]?plate|(?:recessed |can )?light housing|light fixture|smoke (?:alarm|detector)|co (?:alarm|detector)|carbon monoxide (?:alarm|detector)|ceiling fan|junction box|j-box|gfci (?:receptacle|outlet|breaker|device)|receptacle|outlet|device|duplex|gfci|breaker|fuse|fixture|light|luminaire|lamp|bulb|globe|fan|switch|box|splice|cover|plate|alarm|detector|cord|knockout|screw|terminal|tap|pendant|sconce|chandelier|housing)(s|es)?)\b/gi;
 /** Nouns that name the protection itself when the defect is its absence ("no GFCI protection"). */
 const PROTECTION_NOUN = /^(?:gfci|afci)$/i;
+const CONDUCTORS_UNDER_ONE = /\b(?:two|2|three|3|both|multiple)\s+(?:\w+\s+)?(?:wires|conductors|neutrals|circuits|feeds)\b/gi;
 /** Codes counted only when the text gives a number (a panel condition, exposed wiring). */
 const EXPLICIT_ONLY = new Set(['panel-deficiency', 'exposed-wiring']);
 
@@ -132,6 +138,8 @@ const EXPLICIT_ONLY = new Set(['panel-deficiency', 'exposed-wiring']);
  */
 export function findingQuantity(code: string, countText: string, articleLimit: number, laterText: string | null): number | null {
   if (UNCOUNTED.has(code)) return null;
+  // A double tap is counted in breakers (terminals), not in the conductors under one terminal.
+  if (code === 'double-tap') countText = countText.replace(CONDUCTORS_UNDER_ONE, (m) => ' '.repeat(m.length));
   const count = readCount(countText, articleLimit);
   if (typeof count === 'number') return count;
   if (count === 'vague') return null;

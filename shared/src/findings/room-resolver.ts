@@ -40,7 +40,7 @@ export interface PlaceContext {
 
 const SEPARATOR = /,\s*|\s+(?:and|also|while|plus|as well as)\s+/gi;
 /** Text between two places of one list: a conjunction, few words, no spatial preposition. */
-const LIST_BETWEEN = /^(?=.*(?:,|\band\b|&|\/|\bor\b))(?!.*\b(?:above|below|beneath|under|over|near|behind|beside|next|adjacent|off|of|from|inside|within|serving|feeding|for|which|that)\b)(?:[\s,&/]*[\w'-]+){0,6}[\s,&/]*$/i;
+const LIST_BETWEEN = /^(?=.*(?:,|\band\b|&|\/|\bor\b))(?!.*\b(?:above|below|beneath|under|over|near|behind|beside|next|adjacent|off|of|from|inside|within|serving|serves?|feeding|feeds?|supplies|supplying|where|for|which|that)\b)(?:[\s,&/]*[\w'-]+){0,6}[\s,&/]*$/i;
 
 /** Splits the sentence into one part per match: a match owns the text up to the next separator. */
 function segments(text: string, matches: readonly CodeMatch[], clauses: readonly Range[]): Range[] {
@@ -107,6 +107,13 @@ export function placeMatches(
     const own = { countText, laterText, articleLimit };
     const fixed = match.rule.fixedRoom;
     if (fixed) return [{ room: fixed, location: fixedLocation(text, rooms, part, fixed), ...own }];
+    if (match.rule.panelIsPlace) {
+      // "No grounding electrode conductor at the panel or at the exterior": the first place named
+      // with the defect, the panel included; a panel named elsewhere in the sentence before context.
+      const inPart = mentionsIn(rooms, part);
+      const first = inPart[0] ?? (rooms.some((r) => r.room === 'panel') ? rooms.find((r) => r.room === 'panel') : undefined);
+      if (first?.room === 'panel') return [{ room: 'panel', location: readLocation(text, first), ...own }];
+    }
     // A panel named beside another code's defect is a reference point ("cable run up to the panel").
     const group = listedGroup(text, mentionsIn(rooms, part).filter((m) => m.room !== 'panel'));
     if (group.length > 1) {
@@ -122,8 +129,10 @@ export function placeMatches(
     const chosen =
       group[0] ??
       nearest(rooms, part.start, part.end, clause) ??
-      nearest(rooms, part.start, text.length, { start: 0, end: part.start });
+      nearest(rooms, part.start, text.length, { start: 0, end: part.start }) ??
+      (match.rule.placeAnywhereInSentence ? nearest(rooms, part.end, part.end, { start: part.end, end: text.length }) : null);
     if (chosen) return [{ room: chosen.room, location: readLocation(text, chosen), ...own }];
+    if (match.rule.ignoresContext) return [{ room: match.rule.defaultRoom ?? 'unknown', location: '', ...own, isInferred: true }];
     if (context.carried) return [{ ...context.carried, ...own, isInferred: true }];
     const opening = context.opening;
     if (opening && !(opening.hadFindings && match.rule.defaultRoom)) {

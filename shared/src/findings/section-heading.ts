@@ -1,5 +1,6 @@
 import type { SectionKind } from './finding.schema';
 import { findRooms } from './room-lexicon';
+import { correctSpelling } from './text-normaliser';
 import type { Room } from './room';
 
 /**
@@ -14,7 +15,7 @@ const ELECTRICAL = new Set([
   'electrical', 'electric', 'elec', 'electricity', 'wiring', 'panel', 'panels', 'panelboard', 'subpanel',
   'sub-panel', 'subpanels', 'receptacles', 'receptacle', 'outlets', 'switches', 'lighting', 'lights',
   'gfci', 'gfcis', 'afci', 'afcis', 'grounding', 'bonding', 'smoke', 'alarms', 'alarm', 'detectors',
-  'monoxide', 'carbon', 'co', 'circuits', 'breakers', 'distribution', 'disconnect', 'fixtures',
+  'monoxide', 'carbon', 'co', 'detector', 'circuits', 'breakers', 'distribution', 'disconnect', 'fixtures',
 ]);
 const NON_ELECTRICAL = new Set([
   'roof', 'roofing', 'roofs', 'gutters', 'gutter', 'chimney', 'chimneys', 'flashing', 'plumbing',
@@ -32,7 +33,7 @@ const ROOM_WORDS = new Set([
   'living', 'hallway', 'hallways', 'hall', 'halls', 'attic', 'attics', 'dining', 'office', 'den',
   'family', 'powder', 'primary', 'master', 'guest', 'porch', 'deck', 'patio', 'stairs', 'entry',
 ]);
-const GENERAL = new Set(['summary', 'general', 'interior', 'interiors', 'introduction', 'overview']);
+const GENERAL = new Set(['summary', 'general', 'detailed', 'detail', 'interior', 'interiors', 'introduction', 'overview']);
 const FILLER = new Set([
   'system', 'systems', 'components', 'component', 'and', '&', 'the', 'of', 'section', 'area', 'areas',
   'room', 'rooms', 'main', 'secondary', 'observations', 'observation', 'findings', 'comments', 'notes',
@@ -56,16 +57,22 @@ export type HeadingLine = { readonly type: 'heading'; readonly heading: Heading 
 
 const NUMBERING = /^\s*(?:section\s+)?(?:\d{1,2}(?:\.\d{1,2})*\.?|[ivx]{1,4}\.|[a-z]\))?\s*[-–—:.]?\s*/i;
 
+function isHeadingWord(w: string): boolean {
+  return ELECTRICAL.has(w) || NON_ELECTRICAL.has(w) || ROOM_WORDS.has(w) || GENERAL.has(w) || FILLER.has(w) || /^\d+$/.test(w);
+}
+
 export function classifyHeadingLine(line: string): HeadingLine | null {
   const trimmed = line.trim();
   if (trimmed.length > 70) return null;
   const title = trimmed.replace(NUMBERING, '').replace(/\s*[:\-–—]+\s*$/, '').trim();
   if (title.length === 0 || /[.!?;]/.test(title)) return null;
-  const words = title.toLowerCase().match(/[a-z&'/-]+|\d+/g) ?? [];
+  // Separators ("SMOKE / CO", "PANEL - MAIN") are not words; a misspelt heading word is read as
+  // the trade word it stands for ("SMOKE DETECTERS").
+  const words = (title.toLowerCase().match(/[a-z&'/-]+|\d+/g) ?? [])
+    .filter((w) => /[a-z&\d]/.test(w))
+    .map((w) => (isHeadingWord(w) ? w : (correctSpelling(w)?.toLowerCase() ?? w)));
   if (words.length === 0 || words.length > 8) return null;
-  const isKnown = (w: string) =>
-    ELECTRICAL.has(w) || NON_ELECTRICAL.has(w) || ROOM_WORDS.has(w) || GENERAL.has(w) || FILLER.has(w) || /^\d+$/.test(w);
-  if (!words.every(isKnown)) return roomLabel(trimmed, title, words);
+  if (!words.every(isHeadingWord)) return roomLabel(trimmed, title, words);
   const kind = headingKind(words);
   if (kind === null) return { type: 'label' };
   const room = kind === 'non-electrical' || kind === 'general' ? null : (findRooms(title)[0]?.room ?? null);

@@ -12,7 +12,7 @@ const ABBREVIATIONS = new Set([
 ]);
 
 function isAbbreviation(text: string, dot: number): boolean {
-  const word = /([\w.]+)$/.exec(text.slice(Math.max(0, dot - 12), dot))?.[1]?.toLowerCase() ?? '';
+  const word = /([\w.']+)$/.exec(text.slice(Math.max(0, dot - 12), dot))?.[1]?.toLowerCase() ?? '';
   return ABBREVIATIONS.has(word) || /^[a-z]$/i.test(word);
 }
 

@@ -36,6 +36,7 @@ const SHORTHAND: Readonly<Record<string, string>> = {
   gnd: 'ground', grnd: 'ground', gnds: 'grounds', grnds: 'grounds', gnded: 'grounded', grnded: 'grounded',
   ungnd: 'ungrounded', ungrnd: 'ungrounded', ungrnded: 'ungrounded', "ungr'd": 'ungrounded', ungrd: 'ungrounded',
   neut: 'neutral', neuts: 'neutrals', cond: 'conductor', conds: 'conductors',
+  alm: 'alarm', alms: 'alarms', perm: 'permanent', 'perm.': 'permanent', mfd: 'manufactured', 'mfd.': 'manufactured',
   det: 'detector', dets: 'detectors', smk: 'smoke', sd: 'smoke detector', sds: 'smoke detectors',
   inop: 'inoperative', 'inop.': 'inoperative', inopr: 'inoperative', nw: 'not working', 'n/w': 'not working',
   dmg: 'damaged', dmgd: 'damaged', dmged: 'damaged', brkn: 'broken', msng: 'missing', "miss'g": 'missing',
@@ -45,8 +46,8 @@ const SHORTHAND: Readonly<Record<string, string>> = {
   wp: 'weatherproof', wr: 'weather-resistant',
   al: 'aluminum', alum: 'aluminum', aluminium: 'aluminum', cu: 'copper',
   ga: 'AWG', 'ga.': 'AWG', gauge: 'AWG', gage: 'AWG', awg: 'AWG',
-  obs: 'observed', 'obs.': 'observed', unk: 'unknown', 'unk.': 'unknown', clg: 'ceiling', btn: 'button', mfr: 'manufacture',
-  bsmt: 'basement', bsmnt: 'basement', bdrm: 'bedroom', bdrms: 'bedrooms', bedrm: 'bedroom', kit: 'kitchen', ktchn: 'kitchen',
+  obs: 'observed', 'obs.': 'observed', unk: 'unknown', 'unk.': 'unknown', clg: 'ceiling', btn: 'button', mfr: 'manufactured',
+  bsmt: 'basement', bsmnt: 'basement', bdrm: 'bedroom', bdrms: 'bedrooms', bedrm: 'bedroom', bedrms: 'bedrooms', brs: 'bedrooms', kit: 'kitchen', ktchn: 'kitchen',
   gar: 'garage', ba: 'bathroom', bth: 'bathroom', bthrm: 'bathroom', lndry: 'laundry', hwy: 'hallway', ext: 'exterior', extr: 'exterior',
 };
 
@@ -78,7 +79,7 @@ const VOCABULARY: readonly string[] = [
   'countertop', 'countertops', 'weatherproof', 'ceiling', 'wobbles', 'wobbling', 'secured', 'unsecured',
   'terminal', 'terminals', 'nameplate', 'maximum', 'tripped', 'tripping', 'inspection', 'inspector',
   'observed', 'functional', 'defective', 'connected', 'disconnected', 'corrected', 'properly', 'improperly',
-  'grounds', 'present', 'alarms', 'carbon', 'monoxide', 'luminaire', 'insulation', 'recessed', 'dead-front',
+  'grounds', 'present', 'alarms', 'carbon', 'permanent', 'manufactured', 'expired', 'monoxide', 'luminaire', 'insulation', 'recessed', 'dead-front',
   'deadfront', 'subpanel', 'panelboard', 'jumpered', 'bootleg', 'knob-and-tube', 'tandem', 'ampacity',
   'conduit', 'energized', 'discolored', 'melted', 'loose', 'unknown', 'function', 'inoperable', 'cover',
   'plates', 'covers', 'panel', 'panels', 'labeled', 'labelled', 'unlabeled', 'identified', 'clearance',
@@ -189,6 +190,8 @@ function replacementFor(tokens: readonly Token[], i: number, source: string): st
   if (NUMBER_WORDS[bare] !== undefined && (bare !== 'hundred' || /^\d/.test(prev))) {
     return bare === 'hundred' ? null : String(NUMBER_WORDS[bare]);
   }
+  // "ext cord", "ext. cords": an extension cord, not the exterior.
+  if ((bare === 'ext' || bare === 'extn') && /^cords?$/.test(next)) return 'extension';
   if (Object.prototype.hasOwnProperty.call(SHORTHAND, lower) || Object.prototype.hasOwnProperty.call(SHORTHAND, bare)) {
     const key = Object.prototype.hasOwnProperty.call(SHORTHAND, lower) ? lower : bare;
     const word = SHORTHAND[key];
