@@ -15,6 +15,7 @@ import { Notice } from '../../core/http/notice';
 import { MoneyPipe } from '../../ui/money/money';
 import { WorkCaution } from '../../work/work-caution/work-caution';
 import { EconomicsApi, PlannedDay, type DayRef } from '../economics-api';
+import { SpareSettings } from '../spare-settings/spare-settings';
 
 const isoDay = (offset: number) => new Date(Date.now() + offset * 86_400_000).toISOString().slice(0, 10);
 
@@ -25,7 +26,7 @@ const isoDay = (offset: number) => new Date(Date.now() + offset * 86_400_000).to
  */
 @Component({
   selector: 'cc-day-page',
-  imports: [DatePipe, RouterLink, MatButtonModule, MatCardModule, MatCheckboxModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule, MoneyPipe, WorkCaution],
+  imports: [DatePipe, RouterLink, MatButtonModule, MatCardModule, MatCheckboxModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule, MoneyPipe, WorkCaution, SpareSettings],
   templateUrl: './day-page.html',
   styleUrl: './day-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -98,6 +99,12 @@ export class DayPage {
         this.notice.failure(err);
       },
     });
+  }
+
+  /** The spare allowance changed: the list is counted again. */
+  protected reloadList(): void {
+    const day = this.day();
+    if (day) this.load(day);
   }
 
   /** Opens another day (or electrician) by changing the address. */

@@ -75,9 +75,10 @@ describe('RequestDetail', () => {
     return fixture.nativeElement;
   }
 
-  /** The activity timeline reads the request's entries (none in these cases). */
+  /** The activity timeline reads the request's entries, the photo panel its intake photos (none in these cases). */
   function flushActivity(): void {
     httpTesting.match((r) => r.url === '/api/requests/12/activity').forEach((req) => req.flush({ items: [], total: 0, page: 0, pageSize: 20 }));
+    httpTesting.match((r) => r.url === '/api/requests/12/visit-prep').forEach((req) => req.flush({ photos: [], evidence: [], canAddPhotos: false }));
   }
 
   afterEach(() => {
