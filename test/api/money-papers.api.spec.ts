@@ -49,8 +49,8 @@ function workSection(text: string): { rows: number[]; subtotal: number; tax: num
   const end = text.indexOf('Subtotal');
   expect(start).toBeGreaterThan(-1);
   expect(end).toBeGreaterThan(start);
-  const after = text.slice(end).match(MONEY) ?? [];
-  return { rows: (text.slice(start, end).match(MONEY) ?? []).map(cents), subtotal: cents(after[0]), tax: cents(after[1]), total: cents(after[2]) };
+  const [subtotal, tax, total] = (text.slice(end).match(MONEY) ?? []).map(cents);
+  return { rows: (text.slice(start, end).match(MONEY) ?? []).map(cents), subtotal, tax, total };
 }
 
 /** The reviewer's request: quoted, the amounts the seller's form shows for the decisions, then signed. */
