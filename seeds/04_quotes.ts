@@ -90,6 +90,9 @@ export async function seed(knex: Knex): Promise<void> {
         }),
         trx,
       );
+    });
+    // The signature, once the quote version is stored (it is read back as the page reads it).
+    await knex.transaction(async (trx) => {
       const signed = await trx('request_status_changes').where({ request_id: request.id }).whereIn('to_status', SIGNED).first('created_at', 'changed_by');
       if (!signed) return;
       const stored = await quotes.find(request.id, 1);
