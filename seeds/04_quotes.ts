@@ -8,15 +8,25 @@ import { RateBookRepository } from '../server/src/rate-book/rate-book.repository
 import { composeQuote, quoteContractorOf } from '../server/src/quotes/quote-composer';
 import { RateBookService } from '../server/src/rate-book/rate-book.service';
 import { priceRequest } from '../server/src/pricing/request-pricing';
+import { ApprovalRepository } from '../server/src/approvals/approval.repository';
+import { signedRecord } from '../server/src/approvals/approvals.service';
 
 /** The state a sent quote puts a request in (the flow table's `send-quote`). */
 const QUOTED = REQUEST_FLOW.find((m) => m.event === 'send-quote')!.to;
+/** The states the seller's signature puts a request in (the flow table's `approve` and `decline`). */
+const SIGNED = REQUEST_FLOW.filter((m) => m.event === 'approve' || m.event === 'decline').map((m) => m.to);
 
 // Prices the items of every demo request that reached `quoted` with the suggested entry of its
 // contractor's rate book (1 assumed where the report gave no quantity) and stores the quote version
 // the contractor sent on the day the request became quoted. Requests still in pricing stay unpriced.
+// A request the seller's side approved or declined gets its signature like one signed on the page:
+// the decision per item, the approved scope priced by the shared engine, the consent text, so it
+// shows how it gets paid.
 export async function seed(knex: Knex): Promise<void> {
+  await knex('item_decisions').delete();
+  await knex('quote_approvals').delete();
   await knex('quotes').delete();
+  const approvals = new ApprovalRepository(knex);
   const organisations = new OrganisationRepository(knex);
   const rateBooks = new RateBookService(knex, new RateBookRepository(knex), organisations);
   const entryVersions = new RateBookRepository(knex);
@@ -78,6 +88,37 @@ export async function seed(knex: Knex): Promise<void> {
           priced: { ...priced, input, breakdown },
           entryVersionRowIds: await entryVersions.currentVersionRowIds(entryIds, trx),
         }),
+        trx,
+      );
+    });
+    // The signature, once the quote version is stored (it is read back as the page reads it).
+    await knex.transaction(async (trx) => {
+      const signed = await trx('request_status_changes').where({ request_id: request.id }).whereIn('to_status', SIGNED).first('created_at', 'changed_by');
+      if (!signed) return;
+      const stored = await quotes.find(request.id, 1);
+      const pricing = await approvals.quotePricing(request.id, 1, trx);
+      const signer = await trx('users').where({ id: signed.changed_by }).first('id', 'name', 'email');
+      if (!stored || !pricing || !signer) throw new Error(`Request ${request.id}: the seeded signature has no quote or signer`);
+      // Decisions as the items carry them now: declined ones were declined, the rest approved.
+      const declined = itemStateAfter('decline');
+      const decisions = (await lineItems.listForRequest(request.id, trx)).filter((row) => items.some((i) => i.id === row.id)).map((row) => ({ id: row.id, decision: row.status === declined ? ('declined' as const) : ('approved' as const) }));
+      const approvalId = await approvals.insert(
+        signedRecord({
+          requestId: request.id,
+          request,
+          stored,
+          pricing,
+          approvedKeys: decisions.filter((d) => d.decision === 'approved').map((d) => String(d.id)),
+          signedBy: signer.id,
+          signerName: signer.name ?? signer.email,
+          ipAddress: '127.0.0.1',
+          userAgent: 'Demo data (seeded)',
+        }),
+        trx,
+      );
+      await trx('quote_approvals').where({ id: approvalId }).update({ signed_at: signed.created_at });
+      await approvals.insertDecisions(
+        decisions.map((d) => ({ requestId: request.id, lineItemId: d.id, approvalId, changeOrderId: null, decision: d.decision, note: null, decidedBy: signer.id })),
         trx,
       );
     });

@@ -17,6 +17,7 @@ export * from './requests/repair-request.schema';
 export * from './requests/request-reference';
 export * from './pricing/rounding';
 export * from './pricing/line-shares';
+export * from './pricing/bill-rows';
 export * from './pricing/rate-book.schema';
 export * from './pricing/pricing-input.schema';
 export * from './pricing/pricing-breakdown.schema';

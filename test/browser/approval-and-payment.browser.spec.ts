@@ -57,6 +57,10 @@ describe('the seller approves, signs and pays the deposit on a phone; the contra
     await items.nth(2).getByTestId('decision-decline').locator('button').click();
     await items.nth(2).getByTestId('decision-note').fill('We will offer the buyer a credit for this one');
     await page.getByTestId('decision-totals').waitFor();
+    // The amounts shown beside the approved items are the prices signed: the same after signing.
+    const amountOf = (item: ReturnType<Page['getByTestId']>, id: string) => item.getByTestId(id).textContent().then((t) => t?.trim());
+    const approvedWork = [await items.nth(0).locator('.work').textContent(), await items.nth(1).locator('.work').textContent()];
+    const signedAmounts = [await amountOf(items.nth(0), 'decision-amount'), await amountOf(items.nth(1), 'decision-amount')];
     await page.getByTestId('sign-name').fill('Ellen Brooks');
     await page.getByRole('checkbox', { name: /I am the seller of/ }).check();
     await screenshot(page, 'approval-phone-decided');
@@ -65,6 +69,10 @@ describe('the seller approves, signs and pays the deposit on a phone; the contra
     await page.getByTestId('approval-heading').filter({ hasText: 'Approved work and payment' }).waitFor();
     const statuses = await page.getByTestId('approval-item').evaluateAll((els) => els.map((e) => e.getAttribute('data-status')));
     expect(statuses.sort()).toEqual(['approved', 'approved', 'declined']);
+    for (const [i, work] of approvedWork.entries()) {
+      const after = page.getByTestId('approval-item').filter({ hasText: work!.trim() }).first();
+      expect(await amountOf(after, 'approval-item-amount')).toBe(signedAmounts[i]);
+    }
     await page.getByTestId('approval-signature').filter({ hasText: 'Signed by Ellen Brooks' }).waitFor();
     await expectAxeClean(page);
 

@@ -15,6 +15,8 @@ import {
   type CurrentUser,
   type FindingCode,
   type FlowActor,
+  type Quote,
+  type RateBook,
   type RepairRequestDetail,
   type Room,
   type ScopeItem,
@@ -22,7 +24,7 @@ import {
 } from '@cc/shared';
 import { lineCents } from '@cc/shared';
 import type { Db } from '../db/knex';
-import type { QuoteRepository } from '../quotes/quote.repository';
+import type { QuoteRepository, StoredQuote } from '../quotes/quote.repository';
 import type { ChangeOrderRepository } from '../change-orders/change-order.repository';
 import { toChangeOrderDto } from '../change-orders/change-order-dto';
 import type { InvoiceRepository } from '../invoices/invoice.repository';
@@ -32,7 +34,7 @@ import { toPaymentDtos } from '../payments/payment-dto';
 import { ConflictError, NotFoundError, ValidationError } from '../errors';
 import type { QuotesService } from '../quotes/quotes.service';
 import type { RequestsService } from '../requests/requests.service';
-import type { ApprovalRepository } from './approval.repository';
+import type { ApprovalRepository, StoredApproval } from './approval.repository';
 import { ApprovedScopeReader } from './approved-scope';
 import { assertMayMoveRequest, type FlowService } from '../flow/flow.service';
 import { refusalMessages } from './approval-messages';
@@ -205,24 +207,8 @@ export class ApprovalsService {
       }
 
       const approvedKeys = [...decided.values()].filter((d) => d.decision === 'approved').map((d) => String(d.lineItemId));
-      const breakdown = priceScope({ book: pricing.book, input: pricing.input, approvedKeys });
-      const totalCents = breakdown?.totalCents ?? 0;
-      const property = `${request.street}, ${request.city}, ${request.state} ${request.zip}`;
       const id = await this.approvals.insert(
-        {
-          requestId,
-          quoteId: pricing.quoteId,
-          quoteVersion: latest,
-          signedBy: user.id,
-          signerName: input.signerName,
-          consentText: approvalConsentText({ contractorName: stored.contractor.name, requestReference: requestReference(requestId), quoteVersion: latest, property }),
-          ipAddress: context.ipAddress.slice(0, 64),
-          userAgent: context.userAgent.slice(0, 500),
-          quoteHash: createHash('sha256').update(JSON.stringify(stored)).digest('hex'),
-          approvedTotalCents: totalCents,
-          approvedTaxCents: breakdown?.materialsTaxCents ?? 0,
-          depositCents: paymentAccount(totalCents, pricing.book.terms.cardDepositBp, []).depositCents,
-        },
+        signedRecord({ requestId, request, stored, pricing, approvedKeys, signedBy: user.id, signerName: input.signerName, ipAddress: context.ipAddress, userAgent: context.userAgent }),
         trx,
       );
       await this.approvals.insertDecisions(
@@ -236,6 +222,41 @@ export class ApprovalsService {
     });
     return this.view(user, requestId);
   }
+}
+
+/**
+ * The record of a signature on a quote version: the approved scope priced by the shared engine, the
+ * consent text word for word, and a hash of the version as sent (also used by the demo seeds, so a
+ * seeded approved request is signed like one signed on the page).
+ */
+export function signedRecord(s: {
+  requestId: number;
+  request: Pick<RepairRequestDetail, 'street' | 'city' | 'state' | 'zip'>;
+  stored: Pick<StoredQuote, 'version' | 'contractor'>;
+  pricing: { quoteId: number; book: RateBook; input: Quote };
+  approvedKeys: string[];
+  signedBy: number;
+  signerName: string;
+  ipAddress: string;
+  userAgent: string;
+}): Omit<StoredApproval, 'id' | 'signedAt' | 'signedByName'> {
+  const breakdown = priceScope({ book: s.pricing.book, input: s.pricing.input, approvedKeys: s.approvedKeys });
+  const totalCents = breakdown?.totalCents ?? 0;
+  const property = `${s.request.street}, ${s.request.city}, ${s.request.state} ${s.request.zip}`;
+  return {
+    requestId: s.requestId,
+    quoteId: s.pricing.quoteId,
+    quoteVersion: s.stored.version,
+    signedBy: s.signedBy,
+    signerName: s.signerName,
+    consentText: approvalConsentText({ contractorName: s.stored.contractor.name, requestReference: requestReference(s.requestId), quoteVersion: s.stored.version, property }),
+    ipAddress: s.ipAddress.slice(0, 64),
+    userAgent: s.userAgent.slice(0, 500),
+    quoteHash: createHash('sha256').update(JSON.stringify(s.stored)).digest('hex'),
+    approvedTotalCents: totalCents,
+    approvedTaxCents: breakdown?.materialsTaxCents ?? 0,
+    depositCents: paymentAccount(totalCents, s.pricing.book.terms.cardDepositBp, []).depositCents,
+  };
 }
 
 /** What happens next on the seller's side of the request, and who acts, in one sentence. */

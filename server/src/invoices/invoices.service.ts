@@ -1,5 +1,5 @@
 import { actorsOnRequest, ITEM_STATUS_LABELS, paymentAccount, requestReference, type CurrentUser, type EscrowCompany, type InvoiceSummary, type QuoteContractor } from '@cc/shared';
-import { lineCents } from '@cc/shared';
+import { billRows } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
 import { renderInvoicePdf } from '../integrations/pdf/invoice-pdf';
 import { formatCents } from '@cc/shared';
@@ -22,7 +22,10 @@ export interface InvoiceContent {
   contractor: QuoteContractor;
   addressedTo: { name: string; lines: string[] };
   lines: { description: string; quantity: number | null; state: string; amountCents: number }[];
+  /** Service calls, once per visit (the first-hour minimum is in the lines). */
   serviceCallsCents: number;
+  /** Labour of site conditions counted once per visit (e.g. a panel shutoff); absent on papers issued before it was billed. */
+  visitConditionsCents?: number;
   permitCents: number;
   subtotalCents: number;
   taxCents: number;
@@ -122,14 +125,13 @@ export class InvoicesService {
     const items = new Map((await this.approvals.lineItems(requestId, trx)).map((i) => [i.id, i]));
     const request = await trx('repair_requests').where({ id: requestId }).first('street', 'city', 'state', 'zip');
     const entries = new Map(scope.book.entries.map((e) => [e.id, e]));
-    const b = scope.breakdown;
-    const lines = (b?.visits ?? []).flatMap((v) =>
-      v.lines.map((l) => {
-        const item = items.get(Number(l.key));
-        const where = item?.location ? ` — ${item.location}` : '';
-        return { description: `${entries.get(l.entryId)?.name ?? l.entryName}${where}`, quantity: l.quantity, state: item ? ITEM_STATUS_LABELS[item.status] : '', amountCents: lineCents(l) };
-      }),
-    );
+    // The rows come from the shared engine and add up to the subtotal (the first-hour minimum is in the lines).
+    const bill = billRows(scope.breakdown);
+    const lines = bill.lines.map((l) => {
+      const item = items.get(Number(l.key));
+      const where = item?.location ? ` — ${item.location}` : '';
+      return { description: `${entries.get(l.entryId)?.name ?? l.entryName}${where}`, quantity: l.quantity, state: item ? ITEM_STATUS_LABELS[item.status] : '', amountCents: l.amountCents };
+    });
     const account = paymentAccount(scope.totalCents, scope.cardDepositBp, payments);
     const received = payments.filter((p) => p.status === 'succeeded');
     const title = w.kind === 'receipt' ? 'Receipt' : w.kind === 'closing-invoice' ? 'Invoice — payable at closing' : 'Invoice';
@@ -142,11 +144,12 @@ export class InvoicesService {
       contractor,
       addressedTo: w.addressedTo,
       lines,
-      serviceCallsCents: (b?.serviceCallCents ?? 0) + (b?.firstHourMinimumCents ?? 0),
-      permitCents: b?.permitCents ?? 0,
-      subtotalCents: b?.subtotalCents ?? 0,
-      taxCents: b?.materialsTaxCents ?? 0,
-      totalCents: scope.totalCents,
+      serviceCallsCents: bill.serviceCallCents,
+      visitConditionsCents: bill.visitConditionsCents,
+      permitCents: bill.permitCents,
+      subtotalCents: bill.subtotalCents,
+      taxCents: bill.taxCents,
+      totalCents: bill.totalCents,
       payments: received.map((p) => ({ date: dateOf(p.paidAt), description: PURPOSE_LABELS[p.purpose] + (p.refundedCents ? ` (${formatCents(p.refundedCents)} refunded)` : ''), amountCents: p.amountCents - p.refundedCents })),
       paidCents: account.paidCents,
       balanceCents: account.balanceCents,

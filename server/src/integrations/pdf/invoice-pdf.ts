@@ -23,7 +23,8 @@ export function renderInvoicePdf(c: InvoiceContent): Promise<Buffer> {
   heading('Work');
   row('Item', 'Qty', 'Amount', 'strong');
   for (const line of c.lines) row(`${line.description}${line.state ? ` (${line.state})` : ''}`, line.quantity === null ? '' : String(line.quantity), formatCents(line.amountCents));
-  if (c.serviceCallsCents) row('Service calls and first-hour minimums', '', formatCents(c.serviceCallsCents));
+  if (c.serviceCallsCents) row('Service calls', '', formatCents(c.serviceCallsCents));
+  if (c.visitConditionsCents) row('Site conditions per visit', '', formatCents(c.visitConditionsCents));
   if (c.permitCents) row('Permit fee and handling', '', formatCents(c.permitCents));
   row('Subtotal', '', formatCents(c.subtotalCents), 'strong');
   row('Sales tax on materials', '', formatCents(c.taxCents));

@@ -7,7 +7,7 @@ import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { ApprovalView, priceScope, SignApprovalSchema } from '@cc/shared';
+import { ApprovalView, lineAmountsOf, priceScope, SignApprovalSchema } from '@cc/shared';
 import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
@@ -57,6 +57,16 @@ export class DecisionForm {
     const { book, input } = this.view().pricing;
     return priceScope({ book, input, approvedKeys });
   });
+  /**
+   * What each item costs as signed: an approved item at its amount in the approved scope (the visit's
+   * first-hour minimum is shared by the approved items only, so the amount can differ from the
+   * quote's when another item is declined); an item not approved at the quote's amount.
+   */
+  protected readonly amounts = computed(() => {
+    const inScope = lineAmountsOf(this.approvedTotals());
+    return new Map(this.lines().map((l) => [l.lineItemId!, inScope.get(String(l.lineItemId)) ?? l.lineCents]));
+  });
+  protected readonly isRepriced = computed(() => this.lines().some((l) => this.amounts().get(l.lineItemId!) !== l.lineCents));
 
   protected decide(lineItemId: number, decision: Decision): void {
     this.decisions.update((all) => ({ ...all, [lineItemId]: decision }));
