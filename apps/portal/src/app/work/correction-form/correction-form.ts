@@ -22,7 +22,6 @@ import {
   PhotoKind,
   READING_KIND_LABELS,
   ReadingsSchema,
-  readingsOutside,
   RecordCorrectionSchema,
   RETURN_CAUSE_LABELS,
   RETURN_CAUSES,
@@ -126,13 +125,7 @@ export class CorrectionForm {
    * Readings outside their expected range while the outcome is "Corrected": the item is then recorded
    * as corrected only with a note saying why (shown on the letter beside the reading), or as "Could not correct".
    */
-  protected readonly outsideReadings = computed(() => {
-    if (this.outcome() !== 'corrected') return [];
-    const item = this.item();
-    if (!item) return [];
-    const parsed = ReadingsSchema.safeParse(readingsOf(this.form.controls.readings.getRawValue(), item.readingKinds));
-    return parsed.success ? readingsOutside(parsed.data, this.chosenLabels()) : [];
-  });
+  protected readonly outsideReadings = computed(() => (this.outcome() === 'corrected' ? this.evaluations().filter((e) => e.status === 'outside') : []));
 
   protected readonly photos = signal<ChosenPhoto[]>([]);
   protected readonly photoError = signal<string | null>(null);
