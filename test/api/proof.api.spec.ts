@@ -403,3 +403,63 @@ describe('GET /api/requests/:id/work closing progress', () => {
     expect((await work(requestId, cast.s.buyerAgent)).closing.isAtRisk).toBe(false);
   });
 });
+
+describe('a reading outside its range, a declined item, the payments and the visit after the last outcome', () => {
+  let requestId: number;
+  let gfci: number;
+  // UL 943: at 100 mA a Class A GFCI trips within (20/100)^1.43 s ≈ 100 ms; 300 ms is outside.
+  const slowTrip = gfciRecord({ readings: { gfci: { tripsOnTest: true, resets: true, downstreamProven: 2, tripTimeMs: 300, testCurrentMa: 100 } } });
+  const note = 'Re-tested after tightening the line terminals: 22 ms at 100 mA';
+
+  beforeAll(async () => {
+    ({ requestId, itemIds: [gfci] } = await createPricedRequest(cast, t.db, {
+      status: 'approved',
+      items: [
+        { code: 'gfci-inoperative', quantity: 1, location: 'hall bath vanity', status: 'approved' },
+        { code: 'weather-cover-missing', quantity: 1, location: 'back patio receptacle', status: 'declined' },
+      ],
+    }));
+    await post(cast.s.contractor, `/api/requests/${requestId}/visits`).send(visitBody()).expect(201);
+    await post(cast.s.contractor, `/api/requests/${requestId}/visits`).send(visitBody({ date: inDays(3) })).expect(201);
+  });
+
+  it('refuses "corrected" with a failing check unless a note says why', async () => {
+    const res = await recordCorrection(requestId, gfci, slowTrip);
+    expect(res.status).toBe(400);
+    expect(res.body.details).toEqual([{ path: 'reason', message: expect.stringContaining('A reading is outside its expected range') }]);
+    const visits = (await work(requestId)).visits;
+    await post(cast.s.contractor, `/api/requests/${requestId}/visits/${visits[0].id}/start`).expect(200);
+    const saved = await recordCorrection(requestId, gfci, { ...slowTrip, reason: note });
+    expect(saved.status).toBe(201);
+    expect(saved.body.reason).toBe(note);
+  });
+
+  it('lets both visits be finished once the request moved to corrected (started or never started)', async () => {
+    const overview = await work(requestId);
+    expect(overview.status).toBe('corrected');
+    expect(overview.can.finishVisit).toBe(true);
+    expect(overview.visits.map((v) => v.status)).toEqual(['started', 'booked']);
+    for (const visit of overview.visits) {
+      expect((await post(cast.s.contractor, `/api/requests/${requestId}/visits/${visit.id}/finish`).expect(200)).body.status).toBe('finished');
+    }
+  });
+
+  it('prints the failing reading with the note, the declined item under "not done", the payments and the report', async () => {
+    const [payment] = await t
+      .db('payments')
+      .insert({ request_id: requestId, organisation_id: cast.contractorOrg, method: 'card', purpose: 'full', amount_cents: 31_434, status: 'succeeded', idempotency_key: `letter-${requestId}`, created_by: cast.users.seller.id, paid_at: new Date('2026-11-28T15:00:00Z') })
+      .returning('id');
+    await t.db('invoices').insert({ organisation_id: cast.contractorOrg, series: 'receipt', number: 7341, request_id: requestId, kind: 'receipt', payment_id: payment.id, addressed_to: '{}', content: '{}', total_cents: 31_434, balance_cents: 0 });
+    await post(cast.s.contractor, `/api/requests/${requestId}/letters`).send({ isPermitNotRequired: true, signatureName: 'Sam Okafor' }).expect(201);
+    const pdf = (await bytesOf(cast.s.contractor.agent.get(`/api/requests/${requestId}/letters/1.pdf`)).expect(200)).body as Buffer;
+    const text = (await extractPdfPages(pdf)).pages.join('\n').replace(/\s+/g, ' ');
+    expect(text).toContain('Recorded as corrected with a reading OUTSIDE the expected range (Trip time at 100 mA).');
+    expect(text).toContain(`Contractor's note: ${note}`);
+    const notDone = text.slice(text.indexOf('Items not done'), text.indexOf('Permit'));
+    expect(notDone).toContain('back patio receptacle');
+    expect(notDone).toContain('declined by the seller');
+    expect(text).toContain('$314.34 received by card on 2026-11-28 (receipt RCT-007341)');
+    expect(text).not.toContain('not recorded in Closing Circuit');
+    expect(text).toContain('Inspection report: No report file was uploaded to Closing Circuit');
+  });
+});

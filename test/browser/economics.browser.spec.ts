@@ -27,12 +27,18 @@ async function recordFinished(page: Page, cardText: string, work: string): Promi
   await page.getByTestId('correction-heading').waitFor();
   expect(await page.getByTestId('correction-first-visit').locator('input').isChecked()).toBe(true);
   await page.getByTestId('correction-work').fill(work);
+  // Nothing is taken until ticked.
+  await page.getByTestId('gfci-taken').locator('input').check();
   await page.getByTestId('gfci-trips').locator('input').check();
   await page.getByTestId('gfci-resets').locator('input').check();
   await page.getByTestId('gfci-downstream').fill('1');
   await page.getByTestId('gfci-trip-ms').fill('25');
   await page.getByTestId('gfci-test-ma').fill('7.4');
-  if (await page.getByTestId('polarity-correct').count()) await page.getByTestId('polarity-correct').locator('input').check();
+  if (await page.getByTestId('receptacle-taken').count()) {
+    await page.getByTestId('receptacle-taken').locator('input').check();
+    await page.getByTestId('polarity-correct').locator('input').check();
+    await page.getByTestId('ground-present').locator('input').check();
+  }
   await page.getByTestId('correction-save').click();
   await page.getByTestId('work-heading').waitFor();
   await card.getByTestId('work-item-status').filter({ hasText: 'Corrected' }).waitFor();

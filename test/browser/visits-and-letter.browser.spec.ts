@@ -78,11 +78,15 @@ describe('visits, corrections and the completion letter', () => {
     await page.getByTestId('correction-model').fill('GF15-TR');
     await page.getByRole('checkbox', { name: 'No Equipment Ground' }).check();
     await page.getByRole('checkbox', { name: 'GFCI Protected' }).check();
+    // Nothing is taken until ticked: no reading is judged before it is entered.
+    expect(await page.getByTestId('correction-evaluations').count()).toBe(0);
+    await page.getByTestId('gfci-taken').locator('input').check();
     await page.getByTestId('gfci-trips').locator('input').check();
     await page.getByTestId('gfci-resets').locator('input').check();
     await page.getByTestId('gfci-downstream').fill('3');
     await page.getByTestId('gfci-trip-ms').fill('25');
     await page.getByTestId('gfci-test-ma').fill('7.4');
+    await page.getByTestId('receptacle-taken').locator('input').check();
     await page.getByTestId('polarity-correct').locator('input').check();
     // UL 943: at 7.4 mA a Class A GFCI trips within (20/7.4)^1.43 ≈ 4.14 s; 25 ms is within.
     const tripTime = page.getByTestId('reading-gfci.tripTimeMs');

@@ -14,6 +14,8 @@ export interface LetterContent {
   parties: { role: string; name: string }[];
   reportReference: string;
   items: { code: FindingCode; room: string; location: string; quantity: number | null; correction: Correction | null }[];
+  /** Items the seller declined: not done, for that reason. */
+  declinedItems: { code: FindingCode; room: string; location: string; quantity: number | null }[];
   permit: string;
   warranty: string;
   paymentStatus: string;
@@ -28,6 +30,9 @@ const PAGE_WIDTH = 612;
 const CONTENT_WIDTH = PAGE_WIDTH - 2 * MARGIN;
 const MUTED = '#555555';
 const THUMB = 96;
+
+/** What the letter says of items the seller declined (in "Items not done"). */
+export const DECLINED_BY_SELLER = 'Not done: declined by the seller';
 
 export const SCOPE_STATEMENT =
   'Only the items listed in this letter were addressed. No other part of the electrical system was evaluated, ' +
@@ -83,12 +88,15 @@ export async function renderLetterPdf(letter: LetterContent): Promise<Buffer> {
     for (const [index, item] of corrected.entries()) writeItem(index + 1, item);
 
     heading('Items not done');
-    if (!notDone.length) paragraph('None: every listed item was corrected.');
-    for (const item of notDone) {
-      const c = item.correction!;
+    if (!notDone.length && !letter.declinedItems.length) paragraph('None: every listed item was corrected.');
+    const notDoneLines = [
+      ...notDone.map((item) => ({ item, why: `${CORRECTION_OUTCOME_LABELS[item.correction!.outcome]}: ${item.correction!.reason}` })),
+      ...letter.declinedItems.map((item) => ({ item, why: DECLINED_BY_SELLER })),
+    ];
+    for (const { item, why } of notDoneLines) {
       ensureSpace(40);
       doc.font('strong').fontSize(10.5).fillColor('black').text(`${findingCodeInfo(item.code).label} — ${where(item)}`, MARGIN, doc.y, { width: CONTENT_WIDTH });
-      paragraph(`${CORRECTION_OUTCOME_LABELS[c.outcome]}: ${c.reason}`, 10, 'black', 12);
+      paragraph(why, 10, 'black', 12);
       doc.moveDown(0.4);
     }
 
@@ -111,14 +119,19 @@ export async function renderLetterPdf(letter: LetterContent): Promise<Buffer> {
     paragraph(`Date: ${letter.issuedOn}`);
     doc.end();
 
-    function where(item: LetterContent['items'][number]): string {
+    function where(item: LetterContent['declinedItems'][number]): string {
       return [item.location, item.room !== 'unknown' ? item.room : null, item.quantity ? `quantity ${item.quantity}` : null].filter(Boolean).join(', ');
     }
 
     function writeItem(position: number, item: LetterContent['items'][number]): void {
       const c = item.correction!;
+      const outside = c.evaluations.filter((e) => e.status === 'outside');
       ensureSpace(60);
       doc.font('strong').fontSize(10.5).fillColor('black').text(`${position}. ${findingCodeInfo(item.code).label} — ${where(item)}`, MARGIN, doc.y, { width: CONTENT_WIDTH });
+      if (outside.length) {
+        // Never listed as corrected without saying so: the failing checks and the contractor's note come first.
+        paragraph(`${outsideReadingNotice(outside.map((e) => e.label))} ${c.reason ? `Contractor's note: ${c.reason}` : 'No note was given.'}`, 10, 'black', 12);
+      }
       paragraph(`Work performed: ${c.workPerformed}`, 10, 'black', 12);
       if (c.materials) paragraph(`Materials: ${c.materials}`, 10, 'black', 12);
       const device = [c.deviceMake, c.deviceModel, c.deviceLot && `lot/date code ${c.deviceLot}`].filter(Boolean).join(' ');
@@ -147,4 +160,9 @@ export async function renderLetterPdf(letter: LetterContent): Promise<Buffer> {
       doc.moveDown(0.5);
     }
   });
+}
+
+/** The line a corrected item with a reading outside its range carries on the letter. */
+export function outsideReadingNotice(labels: readonly string[]): string {
+  return `Recorded as corrected with ${labels.length === 1 ? 'a reading' : 'readings'} OUTSIDE the expected range (${labels.join('; ')}).`;
 }

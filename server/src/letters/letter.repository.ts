@@ -131,8 +131,12 @@ export class LetterRepository {
   }
 
   /** The report files the items were read from (the letter's report reference). */
-  async reportNames(requestId: number, trx?: Trx): Promise<string[]> {
-    const rows: { original_name: string }[] = await (trx ?? this.db)('report_files').where({ request_id: requestId }).orderBy('id').select('original_name');
-    return rows.map((r) => r.original_name);
+  /** The inspection-report files of the request: their names, kinds and upload dates. */
+  async reportFiles(requestId: number, trx?: Trx): Promise<{ name: string; kind: string; uploadedOn: string }[]> {
+    const rows: { original_name: string; kind: string; created_at: Date }[] = await (trx ?? this.db)('report_files')
+      .where({ request_id: requestId })
+      .orderBy('id')
+      .select('original_name', 'kind', 'created_at');
+    return rows.map((r) => ({ name: r.original_name, kind: r.kind, uploadedOn: r.created_at.toISOString().slice(0, 10) }));
   }
 }

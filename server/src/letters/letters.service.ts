@@ -37,6 +37,15 @@ function newVerificationCode(): string {
   return Array.from({ length: CODE_LENGTH }, () => CODE_ALPHABET[randomInt(CODE_ALPHABET.length)]).join('');
 }
 
+/**
+ * The inspection report the letter answers: the report files uploaded to the request (name, upload
+ * date), with the inspector where named; never the request's own reference.
+ */
+export function reportReferenceOf(files: readonly { name: string; kind: string; uploadedOn: string }[], inspectorName: string | null): string {
+  if (!files.length) return `No report file was uploaded to Closing Circuit${inspectorName ? ` (inspection by ${inspectorName})` : ''}; the items are those listed below.`;
+  return files.map((f) => `${f.kind === 'pasted' ? 'Pasted report text' : f.name} (added ${f.uploadedOn})`).join('; ') + (inspectorName ? `; inspection by ${inspectorName}` : '');
+}
+
 const sha256Of = (bytes: Buffer) => createHash('sha256').update(bytes).digest('hex');
 const dateOf = (d: Date) => d.toISOString().slice(0, 10);
 
@@ -93,14 +102,15 @@ export class LettersService {
           },
           property: `${request.street}, ${request.city}, ${request.state} ${request.zip}`,
           parties: request.parties.filter((p) => p.name).map((p) => ({ role: PARTY_ROLE_LABELS[p.role], name: p.name! })),
-          reportReference: [request.reference, ...(await this.letters.reportNames(requestId, trx))].join(' · '),
+          reportReference: reportReferenceOf(await this.letters.reportFiles(requestId, trx), request.parties.find((p) => p.role === 'inspector')?.name ?? null),
           items: items.map((i) => {
             const c = corrections.find((x) => x.itemId === i.id);
             return { code: i.code, room: i.room, location: i.location, quantity: i.quantity, correction: c ? toCorrectionDto(requestId, c) : null };
           }),
+          declinedItems: (await this.items.listDeclined(requestId, trx)).map((i) => ({ code: i.code, room: i.room, location: i.location, quantity: i.quantity })),
           permit: input.permitNumber ? `Permit number ${input.permitNumber}.` : 'No permit was required for this work under the local rules where the property is.',
           warranty: input.warranty || (await this.letters.quoteWarranty(requestId, trx)) || 'Workmanship is warranted for one year from the date of this letter; parts carry their manufacturers’ warranties.',
-          paymentStatus: await paymentStatusOf(this.db, requestId),
+          paymentStatus: await paymentStatusOf(trx, requestId),
           signatureName: input.signatureName,
           verificationUrl: this.verificationUrl(code),
           verificationCode: code,

@@ -64,18 +64,23 @@ export class VisitsService {
     return this.mark(user, requestId, visitId, 'booked', 'started');
   }
 
+  /**
+   * The electrician leaves. Once the request moved past the work (every outcome recorded), a visit that
+   * was never marked started can be finished too: it can no longer be started.
+   */
   async finish(user: CurrentUser, requestId: number, visitId: number): Promise<SiteVisit> {
     return this.mark(user, requestId, visitId, 'started', 'finished');
   }
 
-  private async mark(user: CurrentUser, requestId: number, visitId: number, from: 'booked' | 'started', to: 'started' | 'finished'): Promise<SiteVisit> {
+  private async mark(user: CurrentUser, requestId: number, visitId: number, onlyFrom: 'booked' | 'started', to: 'started' | 'finished'): Promise<SiteVisit> {
     const { request, actors } = await requestWithActors(this.access, user, requestId);
+    const from: ('booked' | 'started')[] = to === 'finished' && !mayAct(actors, 'record-correction', request.status) ? ['booked', 'started'] : [onlyFrom];
     if (!(await this.visits.find(requestId, visitId))) throw new NotFoundError('No such site visit');
     assertMayAct(actors, to === 'started' ? 'record-correction' : 'finish-visit', request.status, to === 'started' ? 'Starting a visit' : 'Finishing a visit');
     await this.db.transaction(async (trx) => {
       const locked = await this.items.lockRequest(requestId, trx);
       if (!locked || locked.status !== request.status) throw new ConflictError('The request changed meanwhile. Reload and try again.');
-      if (!(await this.visits.setStatus(visitId, [from], to, trx))) {
+      if (!(await this.visits.setStatus(visitId, from, to, trx))) {
         throw new ConflictError(to === 'started' ? 'This visit was started already' : 'Only a visit that was started can be finished');
       }
       if (to === 'started' && request.status === 'scheduled') {

@@ -57,6 +57,12 @@ export class WorkItemRepository {
     return ((await query) as Row[]).map(toWorkItem);
   }
 
+  /** The items of the request the seller declined (the completion letter lists them as not done). */
+  async listDeclined(requestId: number, trx?: Trx): Promise<WorkItemRecord[]> {
+    const rows = (await (trx ?? this.db)('line_items').where({ request_id: requestId, status: 'declined' }).select(COLUMNS).orderBy('id')) as Row[];
+    return rows.map(toWorkItem);
+  }
+
   async planOnVisit(itemIds: readonly number[], siteVisitId: number | null, trx: Trx): Promise<void> {
     if (itemIds.length) await trx('line_items').whereIn('id', itemIds).update({ site_visit_id: siteVisitId, updated_at: new Date() });
   }

@@ -1,6 +1,7 @@
 import * as z from 'zod';
 import { trimmedText } from '../http/bounds';
-import { ReadingEvaluationSchema, ReadingsSchema } from '../readings/readings.schema';
+import { ReadingEvaluationSchema, ReadingsSchema, type ReadingEvaluation, type Readings } from '../readings/readings.schema';
+import { evaluateReadings } from '../readings/evaluate-readings';
 import { CORRECTION_LABELS } from '../readings/reading-kinds';
 import { ReturnCauseSchema } from '../economics/economics.schema';
 
@@ -19,6 +20,17 @@ export const MAX_PHOTOS_PER_KIND = 4;
 export const MAX_PHOTO_BYTES = 8 * 1024 * 1024;
 export const PHOTO_KINDS = ['before', 'after'] as const;
 export type PhotoKind = (typeof PHOTO_KINDS)[number];
+
+/**
+ * The readings of a correction that are outside their expected range. An item with one of these is
+ * recorded as corrected only with a note (the `reason` field) saying why; otherwise its outcome is
+ * "Could not correct".
+ */
+export function readingsOutside(readings: Readings, labels: readonly string[] = []): ReadingEvaluation[] {
+  return evaluateReadings(readings, { labels }).filter((e) => e.status === 'outside');
+}
+
+export const OUTSIDE_READING_NOTE_MESSAGE = 'A reading is outside its expected range: explain why the item counts as corrected, or choose “Could not correct”';
 
 /** The correction record of one item, sent as the `record` field (JSON) of a multipart form with photos. */
 export const RecordCorrectionSchema = z
@@ -42,6 +54,10 @@ export const RecordCorrectionSchema = z
   })
   .refine((c) => c.outcome !== 'corrected' || c.workPerformed.length > 0, { error: 'Describe the work performed', path: ['workPerformed'] })
   .refine((c) => c.outcome === 'corrected' || c.reason.length > 0, { error: 'Give the reason', path: ['reason'] })
+  .refine((c) => c.outcome !== 'corrected' || c.reason.length > 0 || readingsOutside(c.readings, c.labels).length === 0, {
+    error: OUTSIDE_READING_NOTE_MESSAGE,
+    path: ['reason'],
+  })
   .refine((c) => c.returnCause !== null || c.outcome !== 'corrected' || c.finishedOnFirstVisit, {
     error: 'Say why it took another visit',
     path: ['returnCause'],

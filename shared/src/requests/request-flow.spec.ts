@@ -1,6 +1,7 @@
 import { ITEM_STATUSES } from '../items/item-status';
 import {
   actorsOf,
+  movesThatApply,
   ITEM_FLOW,
   itemPathTo,
   mayAct,
@@ -120,5 +121,12 @@ describe('actorsOf', () => {
     expect(actorsOf({ role: 'contractor', myParts: [], isAssignedContractor: true })).toEqual(['contractor']);
     expect(actorsOf({ role: 'contractor', myParts: [], isAssignedContractor: false })).toEqual([]);
     expect(actorsOf({ role: 'admin', myParts: [], isAssignedContractor: false })).toEqual(['admin']);
+  });
+});
+
+describe('movesThatApply', () => {
+  it('leaves out a detour (approving a change order) unless it applies', () => {
+    expect(movesThatApply('corrected').map((m) => m.event)).toEqual(['issue-letter']);
+    expect(movesThatApply('corrected', ['approve-change-order']).map((m) => m.event).sort()).toEqual(['approve-change-order', 'issue-letter']);
   });
 });

@@ -240,6 +240,14 @@ export function movesOnFrom(status: RequestStatus): RequestMove[] {
   return REQUEST_FLOW.filter((m) => m.from.includes(status) && m.event !== 'withdraw' && m.to !== status);
 }
 
+/**
+ * The moves on from `status` that apply now: the usual ones, and a detour (approving a change order…)
+ * only when the caller knows it applies, e.g. a change order is waiting for the seller.
+ */
+export function movesThatApply(status: RequestStatus, detoursThatApply: readonly RequestEvent[] = []): RequestMove[] {
+  return movesOnFrom(status).filter((m) => !m.isDetour || detoursThatApply.includes(m.event));
+}
+
 /** Who acts next on a request in `status`, in the order the table names them (empty when final). */
 export function whoActsNext(status: RequestStatus): FlowActor[] {
   const actors: FlowActor[] = [];

@@ -31,12 +31,14 @@ import { applyIssues } from '../../core/forms/apply-issues';
 import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { issuesOf } from '../../core/forms/issues-of';
 import { describeFailure } from '../../core/http/api-error-of';
+import { apiErrorOf } from '../../core/http/api-error-of';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
 import { Notice } from '../../core/http/notice';
 import { codeLabel } from '../../ui/code-label';
 import { ReadingList } from '../reading-list/reading-list';
 import { ChosenPhoto, WorkApi } from '../work-api';
 import { WorkCaution } from '../work-caution/work-caution';
+import { isPhotoFile, PHOTO_ACCEPT, photoRefusal } from './photo-type';
 import { readingsOf, readingsForm } from './readings-form';
 
 /**
@@ -86,6 +88,7 @@ export class CorrectionForm {
   protected readonly codeLabel = codeLabel;
   protected readonly maxPhotoMb = MAX_PHOTO_BYTES / 1024 / 1024;
   protected readonly photoKinds = PHOTO_KINDS;
+  protected readonly photoAccept = PHOTO_ACCEPT;
 
   protected readonly form = this.fb.group({
     outcome: this.fb.control<(typeof CORRECTION_OUTCOMES)[number]>('corrected'),
@@ -118,6 +121,11 @@ export class CorrectionForm {
     const parsed = ReadingsSchema.safeParse(readingsOf(this.form.controls.readings.getRawValue(), item.readingKinds));
     return parsed.success ? evaluateReadings(parsed.data, { labels: this.chosenLabels() }) : [];
   });
+  /**
+   * Readings outside their expected range while the outcome is "Corrected": the item is then recorded
+   * as corrected only with a note saying why (shown on the letter beside the reading), or as "Could not correct".
+   */
+  protected readonly outsideReadings = computed(() => (this.outcome() === 'corrected' ? this.evaluations().filter((e) => e.status === 'outside') : []));
 
   protected readonly photos = signal<ChosenPhoto[]>([]);
   protected readonly photoError = signal<string | null>(null);
@@ -135,7 +143,7 @@ export class CorrectionForm {
     return this.photos().filter((p) => p.kind === kind);
   }
 
-  protected choose(kind: PhotoKind, input: HTMLInputElement): void {
+  protected async choose(kind: PhotoKind, input: HTMLInputElement): Promise<void> {
     this.photoError.set(null);
     const files = Array.from(input.files ?? []);
     input.value = '';
@@ -143,6 +151,13 @@ export class CorrectionForm {
     if (tooBig) {
       this.photoError.set(`${tooBig.name} is larger than ${this.maxPhotoMb} MB.`);
       return;
+    }
+    // The bytes decide, not the name: a text file renamed .jpg or a PDF is not a photo.
+    for (const file of files) {
+      if (!(await isPhotoFile(file))) {
+        this.photoError.set(`${file.name} is not a photo: choose a JPEG, PNG, WebP or HEIC photo.`);
+        return;
+      }
     }
     const kept = [...this.photosOf(kind), ...files.map((file) => ({ kind, file, name: file.name }))].slice(0, MAX_PHOTOS_PER_KIND);
     if (kept.length < this.photosOf(kind).length + files.length) this.photoError.set(`At most ${MAX_PHOTOS_PER_KIND} ${kind} photos.`);
@@ -159,10 +174,12 @@ export class CorrectionForm {
     this.formError.set(null);
     const raw = this.form.getRawValue();
     const isCorrected = raw.outcome === 'corrected';
+    // With a reading outside its range, "Corrected" carries the contractor's note in `reason`.
+    const needsNote = this.outsideReadings().length > 0;
     const record = {
       outcome: raw.outcome,
       workPerformed: isCorrected ? raw.workPerformed : '',
-      reason: isCorrected ? '' : raw.reason,
+      reason: isCorrected && !needsNote ? '' : raw.reason,
       materials: isCorrected ? raw.materials : '',
       deviceMake: isCorrected ? raw.deviceMake : '',
       deviceModel: isCorrected ? raw.deviceModel : '',
@@ -180,7 +197,8 @@ export class CorrectionForm {
       return;
     }
     this.isBusy.set(true);
-    this.api.recordCorrection(Number(this.id()), item.id, record, isCorrected ? this.photos() : this.photos().filter((p) => p.kind === 'before')).subscribe({
+    const photos = isCorrected ? this.photos() : this.photos().filter((p) => p.kind === 'before');
+    this.api.recordCorrection(Number(this.id()), item.id, record, photos).subscribe({
       next: () => {
         this.isBusy.set(false);
         this.notice.success('Outcome recorded.');
@@ -188,6 +206,13 @@ export class CorrectionForm {
       },
       error: (err: unknown) => {
         this.isBusy.set(false);
+        const names = { before: photos.filter((p) => p.kind === 'before').map((p) => p.name), after: photos.filter((p) => p.kind === 'after').map((p) => p.name) };
+        const refusal = photoRefusal(apiErrorOf(err)?.details ?? [], names);
+        if (refusal) {
+          this.photoError.set(`${refusal} Remove it and choose another.`);
+          this.formError.set('A photo was refused: see Photos.');
+          return;
+        }
         this.formError.set(applyServerErrors(this.form, err));
       },
     });

@@ -1,12 +1,15 @@
 import { FormBuilder } from '@angular/forms';
 import { ConductorSize, ReadingKind, ReadingsInput, Stranding } from '@cc/shared';
 
-/** The readings part of the correction form: one group per kind, each with a switch saying it was taken. */
+/**
+ * The readings part of the correction form: one group per kind, each with a switch saying it was taken.
+ * Nothing is taken until the person ticks it: an untouched group records nothing (and no failure).
+ */
 export function readingsForm(fb: FormBuilder['nonNullable']) {
   const num = () => fb.control<number | null>(null);
   return fb.group({
-    gfci: fb.group({ isTaken: [true], tripsOnTest: [false], resets: [false], downstreamProven: fb.control<number | null>(0), tripTimeMs: num(), testCurrentMa: num() }),
-    receptacle: fb.group({ isTaken: [true], polarityCorrect: [false], groundPresent: [false] }),
+    gfci: fb.group({ isTaken: [false], tripsOnTest: [false], resets: [false], downstreamProven: fb.control<number | null>(0), tripTimeMs: num(), testCurrentMa: num() }),
+    receptacle: fb.group({ isTaken: [false], polarityCorrect: [false], groundPresent: [false] }),
     groundPath: fb.group({
       isTaken: [false],
       impedanceOhms: num(),

@@ -1,4 +1,6 @@
+import { NgTemplateOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { HttpErrorResponse } from '@angular/common/http';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -22,7 +24,7 @@ const MAX_PDF_BYTES = 20 * 1024 * 1024;
  */
 @Component({
   selector: 'cc-verify-letter',
-  imports: [FormsModule, MatButtonModule, MatCardModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule],
+  imports: [FormsModule, NgTemplateOutlet, MatButtonModule, MatCardModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule],
   templateUrl: './verify-letter.html',
   styleUrl: './verify-letter.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -38,7 +40,14 @@ export class VerifyLetter {
     params: () => this.code()?.trim().toUpperCase() || null,
     stream: ({ params }) => (params ? this.api.verify(params) : of(null)),
   });
-  protected readonly lookupError = computed(() => (this.letter.error() ? describeFailure(this.letter.error()) : null));
+  /** The letter found, read only once the lookup succeeded (a resource in error throws on value()). */
+  protected readonly found = computed(() => (this.letter.hasValue() ? this.letter.value() : null));
+  /** Whether the code names no letter (404), as opposed to a lookup that failed for another reason. */
+  protected readonly isUnknownCode = computed(() => {
+    const err = this.letter.error();
+    return err instanceof HttpErrorResponse && err.status === 404;
+  });
+  protected readonly lookupError = computed(() => (this.letter.error() && !this.isUnknownCode() ? describeFailure(this.letter.error()) : null));
   protected typedCode = '';
 
   protected readonly check = signal<PdfCheck | null>(null);

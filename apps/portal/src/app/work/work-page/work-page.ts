@@ -10,7 +10,7 @@ import {
   CORRECTION_OUTCOME_LABELS,
   FLOW_ACTOR_LABELS,
   ITEM_STATUS_LABELS,
-  movesOnFrom,
+  movesThatApply,
   SITE_VISIT_STATUS_LABELS,
   SiteVisit,
   WorkItem,
@@ -58,11 +58,11 @@ export class WorkPage {
   /** The items as the visit preparation names them. */
   protected readonly prepItems = computed(() => (this.overview()?.items ?? []).map((i) => ({ id: i.id, label: `${codeLabel(i.code)} — ${i.location}` })));
 
-  /** What happens next and who acts, from the flow table. */
+  /** What happens next and who acts, from the flow table (detours such as a change order only where one applies). */
   protected readonly nextSteps = computed(() => {
     const o = this.overview();
     if (!o) return [];
-    return movesOnFrom(o.status).map((m) => `${m.label}: ${m.by.filter((a) => a !== 'admin').map((a) => FLOW_ACTOR_LABELS[a]).join(' or ')}`);
+    return movesThatApply(o.status).map((m) => `${m.label}: ${m.by.filter((a) => a !== 'admin').map((a) => FLOW_ACTOR_LABELS[a]).join(' or ')}`);
   });
   protected readonly progressPercent = computed(() => {
     const c = this.overview()?.closing;

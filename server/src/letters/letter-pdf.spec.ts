@@ -1,0 +1,93 @@
+import { evaluateReadings, ReadingsSchema, type Correction } from '@cc/shared';
+import { extractPdfPages } from '../integrations/pdf-text';
+import { DECLINED_BY_SELLER, renderLetterPdf, type LetterContent } from './letter-pdf';
+import { reportReferenceOf } from './letters.service';
+
+function correction(overrides: Partial<Correction>): Correction {
+  const readings = ReadingsSchema.parse({ gfci: { tripsOnTest: true, resets: true, downstreamProven: 1, tripTimeMs: 27, testCurrentMa: 7.4 } });
+  return {
+    itemId: 1,
+    outcome: 'corrected',
+    reason: '',
+    workPerformed: 'Replaced the GFCI receptacle',
+    materials: '',
+    deviceMake: '',
+    deviceModel: '',
+    deviceLot: '',
+    labels: [],
+    readings,
+    evaluations: evaluateReadings(readings),
+    siteVisitId: null,
+    siteVisitNumber: null,
+    isFirstVisit: true,
+    returnCause: null,
+    recordedByName: 'Sam Okafor',
+    recordedAt: '2026-12-01T10:00:00.000Z',
+    photos: [],
+    ...overrides,
+  };
+}
+
+function content(overrides: Partial<LetterContent>): LetterContent {
+  return {
+    number: 'CL-00005',
+    revision: 1,
+    issuedOn: '2026-12-02',
+    requestReference: 'CC-00005',
+    contractor: { name: 'Brightline Electric', licence: 'Licence EC-1', contact: '' },
+    property: '87 Tinsmith Way, Marlow Springs, CO 81290',
+    parties: [],
+    reportReference: 'report.pdf (added 2026-11-20)',
+    items: [],
+    declinedItems: [],
+    permit: 'No permit was required.',
+    warranty: 'One year.',
+    paymentStatus: 'Paid in full: $300.00 of $300.00.',
+    signatureName: 'Sam Okafor',
+    verificationUrl: 'http://portal.test/verify/ABCDEFGHJK',
+    verificationCode: 'ABCDEFGHJK',
+    photos: new Map(),
+    ...overrides,
+  };
+}
+
+const textOf = async (letter: LetterContent) => (await extractPdfPages(await renderLetterPdf(letter))).pages.join('\n').replace(/\s+/g, ' ');
+
+describe('renderLetterPdf', () => {
+  it('says so when an item listed as corrected has a reading outside its range (UL 943: at most 100 ms at 100 mA)', async () => {
+    const readings = ReadingsSchema.parse({ gfci: { tripsOnTest: true, resets: true, downstreamProven: 1, tripTimeMs: 300, testCurrentMa: 100 } });
+    const slow = correction({ readings, evaluations: evaluateReadings(readings), reason: 'Re-tested after tightening the line terminals: 22 ms' });
+    const text = await textOf(content({ items: [{ code: 'gfci-inoperative', room: 'kitchen', location: 'kitchen counter', quantity: 1, correction: slow }] }));
+    expect(text).toContain('Recorded as corrected with a reading OUTSIDE the expected range (Trip time at 100 mA).');
+    expect(text).toContain("Contractor's note: Re-tested after tightening the line terminals: 22 ms");
+    expect(text).toContain('Trip time at 100 mA: 300 ms — OUTSIDE the expected range');
+  });
+
+  it('says that no note was given for an older record without one', async () => {
+    const readings = ReadingsSchema.parse({ receptacle: { polarityCorrect: false, groundPresent: true } });
+    const text = await textOf(content({ items: [{ code: 'reversed-polarity', room: 'kitchen', location: 'hall', quantity: null, correction: correction({ readings, evaluations: evaluateReadings(readings) }) }] }));
+    expect(text).toContain('OUTSIDE the expected range (Polarity correct). No note was given.');
+  });
+
+  it('lists an item the seller declined under "Items not done", with the reason', async () => {
+    const text = await textOf(
+      content({
+        items: [{ code: 'gfci-inoperative', room: 'kitchen', location: 'kitchen counter', quantity: 1, correction: correction({}) }],
+        declinedItems: [{ code: 'weather-cover-missing', room: 'exterior', location: 'back patio receptacle', quantity: null }],
+      }),
+    );
+    const notDone = text.slice(text.indexOf('Items not done'));
+    expect(notDone).toContain('back patio receptacle');
+    expect(notDone).toContain(DECLINED_BY_SELLER);
+    expect(notDone).not.toContain('None: every listed item was corrected');
+  });
+});
+
+describe('reportReferenceOf', () => {
+  it('names the report files and the inspector, never the request reference', () => {
+    expect(reportReferenceOf([{ name: 'Wren-Hollow-inspection.pdf', kind: 'pdf', uploadedOn: '2026-11-20' }], 'Nora Lindqvist')).toBe(
+      'Wren-Hollow-inspection.pdf (added 2026-11-20); inspection by Nora Lindqvist',
+    );
+    expect(reportReferenceOf([], null)).toBe('No report file was uploaded to Closing Circuit; the items are those listed below.');
+  });
+});
