@@ -31,7 +31,11 @@ async function main(): Promise<void> {
   const server = app.listen(config.port, config.host, () => {
     console.log(`Closing Circuit API and portal listening on http://${config.host}:${config.port}`);
   });
+  // Once: a second signal while closing (a test runner's timeout, Ctrl-C twice) must not end pools twice.
+  let isClosing = false;
   const shutdown = () => {
+    if (isClosing) return;
+    isClosing = true;
     server.close(async () => {
       await mail.stop();
       await fake?.close();

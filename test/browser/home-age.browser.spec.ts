@@ -68,7 +68,7 @@ describe('the code in force when the house was built', () => {
     await bathroom.getByTestId('edition-note-text').waitFor({ state: 'visible' });
     const bathroomText = await bathroom.getByTestId('edition-note-text').innerText();
     expect(bathroomText).toContain(
-      'GFCI protection for bathroom receptacles was first required in 1975 (from memory, to be confirmed), so this house was built under a code that asked for it.',
+      'GFCI protection for bathroom receptacles was first required in 1975 (the year as commonly cited; check it in that edition), so this house was built under a code that asked for it.',
     );
     expect(bathroomText).toContain('the authority having jurisdiction decides');
 
@@ -76,7 +76,7 @@ describe('the code in force when the house was built', () => {
     await kitchen.getByTestId('edition-note-summary').click();
     await kitchen.getByTestId('edition-note-text').waitFor({ state: 'visible' });
     const kitchenText = await kitchen.getByTestId('edition-note-text').innerText();
-    expect(kitchenText).toContain('GFCI protection for kitchen counter-top receptacles within 6 ft of the sink was first required in 1987 (from memory, to be confirmed), after this house was built.');
+    expect(kitchenText).toContain('GFCI protection for kitchen counter-top receptacles within 6 ft of the sink was first required in 1987 (the year as commonly cited; check it in that edition), after this house was built.');
     expect(kitchenText).toContain('adding it is recommended for safety, not a code violation of the original work');
     expect(kitchenText).toContain('GFCI protection is required here for new work and for any replacement today (NEC 406.4(D)(3))');
 

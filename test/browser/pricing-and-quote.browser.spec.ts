@@ -122,9 +122,10 @@ describe('pricing a request and sending its quote', () => {
 
     await row.click();
     await page.getByTestId('request-detail-heading').filter({ hasText: STREET }).waitFor();
-    // The seller sees that the quote waits for them, and that approving is not in the portal yet.
+    // The seller sees that the quote waits for them, with the way to the approval page.
     expect(await page.getByTestId('next-step-summary').textContent()).toContain('Waits for you (the seller');
-    expect(await page.getByTestId('next-step-outside').first().textContent()).toContain('Not in the portal yet');
+    expect(await page.getByTestId('next-step-link').first().getAttribute('href')).toBe(`/requests/${requestId}/approval`);
+    expect(await page.getByTestId('next-step-outside').count()).toBe(0);
     await expectAccessible(page);
     await page.getByTestId('request-quote-link').click();
     await page.getByTestId('quote-heading').filter({ hasText: 'version 1' }).waitFor();

@@ -1,3 +1,5 @@
+// Each case starts tsx in a child process: minutes on a loaded machine, so the limits are generous.
+jest.setTimeout(300_000);
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -22,7 +24,7 @@ function writePdf(path: string, pages: string[]): Promise<void> {
 }
 
 function runCli(files: string[]) {
-  return spawnSync('npx', ['tsx', 'scripts/parse-report.ts', ...files], { cwd: ROOT, encoding: 'utf8', timeout: 60_000 });
+  return spawnSync('npx', ['tsx', 'scripts/parse-report.ts', ...files], { cwd: ROOT, encoding: 'utf8', timeout: 240_000 });
 }
 
 describe('scripts/parse-report.ts', () => {

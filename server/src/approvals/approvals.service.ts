@@ -251,5 +251,6 @@ function nextStep(request: RepairRequestDetail, isSigned: boolean, account: Retu
   if (account.overpaidCents > 0) return 'More was paid than the approved work costs: the contractor refunds the difference.';
   if (account.balanceCents > 0 && account.paidCents === 0) return 'Next: the seller (or the listing agent) chooses how to pay: by card now, a deposit now, or at closing.';
   if (account.balanceCents > 0) return `The balance is due on completion; the contractor books and does the work.`;
-  return `Paid in full. ${who(whoActsNext(request.status))} acts next on the work.`;
+  const next = who(whoActsNext(request.status));
+  return `Paid in full. ${next.charAt(0).toUpperCase()}${next.slice(1)} acts next on the work.`;
 }

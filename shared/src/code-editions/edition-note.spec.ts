@@ -11,7 +11,7 @@ describe('editionNote', () => {
       expect(note?.builtUnder).toBe('required-when-built');
       expect(note?.firstRequired).toBe(1975);
       expect(note?.text).toContain(
-        'GFCI protection for bathroom receptacles was first required in 1975 (from memory, to be confirmed), so this house was built under a code that asked for it.',
+        'GFCI protection for bathroom receptacles was first required in 1975 (the year as commonly cited; check it in that edition), so this house was built under a code that asked for it.',
       );
       expect(note?.summary).toBe('GFCI: required when this 1978 house was built; required for any replacement today');
     });
@@ -20,7 +20,7 @@ describe('editionNote', () => {
       const note = editionNote('gfci-missing', 'kitchen', house(1978, 2023));
       expect(note?.builtUnder).toBe('added-later');
       expect(note?.firstRequired).toBe(1987);
-      expect(note?.text).toContain('kitchen counter-top receptacles within 6 ft of the sink was first required in 1987 (from memory, to be confirmed), after this house was built.');
+      expect(note?.text).toContain('kitchen counter-top receptacles within 6 ft of the sink was first required in 1987 (the year as commonly cited; check it in that edition), after this house was built.');
       expect(note?.text).toContain('recommended for safety, not a code violation of the original work');
       expect(note?.text).toContain('for any replacement today (NEC 406.4(D)(3))');
       expect(note?.text).toContain('authority having jurisdiction');

@@ -109,7 +109,9 @@ const TOPICS: Partial<Record<FindingCode, CodeTopic>> = {
 const DEFERENCE =
   'This is for information: the authority having jurisdiction decides what applies to this house, and a house being sold is generally not required to be brought up to the current code unless the contract or that authority requires it.';
 
-const FROM_MEMORY = ' (from memory, to be confirmed)';
+// A year recalled from code history rather than read in the edition itself (from memory) says so in words
+// a customer can read.
+const FROM_MEMORY = ' (the year as commonly cited; check it in that edition)';
 
 /** "was first required in 1975", "was first required in the 1999 edition, in force from 2002", … */
 function cameIn(r: EditionRule): string {

@@ -28,11 +28,20 @@ describe('nextStepOf', () => {
     }
   });
 
-  it('tells the seller that a quote waits for them, and that approving is not in the portal yet', () => {
+  it('tells the seller that a quote waits for them, with the link to the approval page', () => {
     const step = nextStepOf('quoted', SELLER);
     expect(step.summary).toBe('Waits for you (the seller or the listing agent).');
     const approve = step.moves.find((m) => m.label === 'Approve and sign')!;
-    expect(approve).toMatchObject({ isYours: true, isOutsidePortal: true, place: null });
+    expect(approve).toMatchObject({ isYours: true, isOutsidePortal: false });
+    expect(approve.place?.link(5)).toEqual(['/requests', 5, 'approval']);
+  });
+
+  it('leads the contractor to visits and proof and the inspector to the letter; only withdrawing stays outside the portal', () => {
+    expect(nextStepOf('approved', CONTRACTOR).moves[0].place?.link(5)).toEqual(['/requests', 5, 'work']);
+    expect(nextStepOf('corrected', CONTRACTOR).moves[0]).toMatchObject({ label: 'Issue the completion letter', isOutsidePortal: false });
+    expect(nextStepOf('letter-issued', INSPECTOR).moves.every((m) => m.place?.link(5).includes('work'))).toBe(true);
+    const outside = REQUEST_STATUSES.flatMap((status) => nextStepOf(status, AGENT).moves.filter((m) => m.isOutsidePortal).map((m) => m.label));
+    expect(new Set(outside)).toEqual(new Set(['Withdraw (the sale fell through)']));
   });
 
   it('tells the agent the quote waits for the seller side, not for them', () => {

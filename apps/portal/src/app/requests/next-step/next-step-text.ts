@@ -25,6 +25,16 @@ export const PORTAL_PLACES: Partial<Record<RequestEvent, PortalPlace>> = {
   'add-report': { link: (id) => ['/requests', id], text: 'Add the inspection report', isOnRequestPage: true },
   'confirm-items': { link: (id) => ['/requests', id], text: 'Review and confirm the items', isOnRequestPage: true },
   'send-quote': { link: (id) => ['/requests', id, 'pricing'], text: 'Price the items and send the quote', isOnRequestPage: false },
+  approve: { link: (id) => ['/requests', id, 'approval'], text: 'Approve or decline the items', isOnRequestPage: false },
+  decline: { link: (id) => ['/requests', id, 'approval'], text: 'Approve or decline the items', isOnRequestPage: false },
+  'approve-change-order': { link: (id) => ['/requests', id, 'approval'], text: 'Decide on the change order', isOnRequestPage: false },
+  schedule: { link: (id) => ['/requests', id, 'work'], text: 'Book the visit', isOnRequestPage: false },
+  'start-work': { link: (id) => ['/requests', id, 'work'], text: 'Open visits and proof', isOnRequestPage: false },
+  'finish-work': { link: (id) => ['/requests', id, 'work'], text: 'Record the outcomes', isOnRequestPage: false },
+  'issue-letter': { link: (id) => ['/requests', id, 'work'], text: 'Issue the completion letter', isOnRequestPage: false },
+  'resume-work': { link: (id) => ['/requests', id, 'work'], text: 'Open visits and proof', isOnRequestPage: false },
+  'accept-proof': { link: (id) => ['/requests', id, 'work'], text: 'Read the letter and record the re-inspection', isOnRequestPage: false },
+  'reject-proof': { link: (id) => ['/requests', id, 'work'], text: 'Read the letter and record the re-inspection', isOnRequestPage: false },
 };
 
 export interface NextMove {
