@@ -40,8 +40,10 @@ describe('nextStepOf', () => {
     expect(nextStepOf('approved', CONTRACTOR).moves[0].place?.link(5)).toEqual(['/requests', 5, 'work']);
     expect(nextStepOf('corrected', CONTRACTOR).moves[0]).toMatchObject({ label: 'Issue the completion letter', isOutsidePortal: false });
     expect(nextStepOf('letter-issued', INSPECTOR).moves.every((m) => m.place?.link(5).includes('work'))).toBe(true);
-    const outside = REQUEST_STATUSES.flatMap((status) => nextStepOf(status, AGENT).moves.filter((m) => m.isOutsidePortal).map((m) => m.label));
-    expect(new Set(outside)).toEqual(new Set(['Withdraw (the sale fell through)']));
+    const outside = REQUEST_STATUSES.flatMap((status) =>
+      VIEWERS.flatMap((viewer) => nextStepOf(status, viewer).moves.filter((m) => m.isOutsidePortal).map((m) => m.label)),
+    );
+    expect(outside.filter((label) => label !== 'Withdraw (the sale fell through)')).toEqual([]);
   });
 
   it('tells the agent the quote waits for the seller side, not for them', () => {
