@@ -95,7 +95,7 @@ describe('editionNote', () => {
     it('marks the weather-resistant date as from memory and the in-use cover as not recorded for an older house', () => {
       const note = editionNote('weather-cover-missing', 'exterior', house(1988, 2023));
       expect(note?.requiredSince).toBe(2014);
-      expect(note?.text).toContain('from memory');
+      expect(note?.text).toContain('the year as commonly cited');
       expect(note?.text).toContain('is not recorded here');
       expect(note?.builtUnder).toBe('not-recorded');
     });
