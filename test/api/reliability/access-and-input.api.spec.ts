@@ -170,6 +170,16 @@ const ROUTES: [string, string, 'agent' | 'contractor' | 'admin', Record<string, 
   ['put', '/api/notifications/preferences', 'agent', { preferences: [{ kind: 'quote-sent', delivery: 'digest' }] }],
   ['post', '/api/notifications/unsubscribe/abc', 'agent', {}],
   ['get', '/api/mailbox', 'admin', {}],
+  ['post', '/api/requests/1/visits', 'contractor', { date: '2027-01-12', arrivalFrom: '08:00', arrivalTo: '10:00', electricianId: 1, accessNotes: 'lockbox 1234' }],
+  ['post', '/api/requests/1/visits/1/start', 'contractor', {}],
+  ['post', '/api/requests/1/visits/1/finish', 'contractor', {}],
+  ['post', '/api/requests/1/items/1/correction', 'contractor', { record: JSON.stringify({ outcome: 'corrected', workPerformed: 'w', visitId: 1 }) }],
+  ['get', '/api/requests/1/work', 'contractor', {}],
+  ['post', '/api/requests/1/work/resume', 'contractor', {}],
+  ['post', '/api/requests/1/letters', 'contractor', { permitNumber: 'P-1', isPermitNotRequired: false, warranty: 'one year', signatureName: 'Sam Okafor' }],
+  ['get', '/api/requests/1/letters/1.pdf', 'agent', {}],
+  ['post', '/api/requests/1/proof-review', 'agent', { decision: 'not-accept', note: 'n', items: [{ itemId: 1, reason: 'still reversed' }] }],
+  ['get', '/api/verify/abc', 'agent', {}],
 ];
 
 /** The body with every string, number or date replaced as `bad` decides (recursively). */
