@@ -11,7 +11,9 @@ import {
   type StatusChange,
   REQUEST_SORTS,
 } from '@cc/shared';
+import type pg from 'pg';
 import type { Db, Trx } from '../db/knex';
+import { readPrepared } from '../db/read-pool';
 import type { RepairRequestRow, RequestPartyRow, RequestStatusChangeRow } from '../db/tables';
 
 /** Who is looking: decides which requests exist for them. */
@@ -117,6 +119,8 @@ export class RequestRepository {
     private readonly db: Db,
     /** Lists count no further than this (a smaller cap only in tests). */
     private readonly countCap = LIST_COUNT_CAP,
+    /** Where list pages run as prepared statements (db/read-pool.ts); without it, through Knex. */
+    private readonly readPool: pg.Pool | null = null,
   ) {}
 
   /** Narrows a query on `repair_requests as r` to the requests `viewer` is party to. */
@@ -145,11 +149,12 @@ export class RequestRepository {
    * the index of the sort within the viewer's scope (request_viewers for the people named on
    * requests, repair_requests for contractors and administrators), the summary columns are read
    * for those rows only, and the total is counted no further than LIST_COUNT_CAP + 1 rows (then
-   * `isTotalCapped`). Planned on each run with its values (a plan kept for any user would sort
-   * where this user's rows call for an index, or the reverse).
+   * `isTotalCapped`). Prepared once per connection with one plan for every viewer and page.
    */
   async list(viewer: Viewer, filter: RequestListFilter): Promise<{ items: RepairRequestSummary[]; total: number; isTotalCapped: boolean }> {
-    const rows: (SummaryRow & { n: string; ord: string | null })[] = await this.listStatement(viewer, filter);
+    const statement = this.listStatement(viewer, filter);
+    type Row = SummaryRow & { n: string; ord: string | null };
+    const rows: Row[] = this.readPool ? await readPrepared<Row>(this.readPool, statement) : await statement;
     const counted = Number(rows[0]?.n ?? 0);
     const items: RepairRequestSummary[] = [];
     for (const row of rows) if (row.ord !== null) items.push(toSummary(row));
@@ -184,9 +189,15 @@ export class RequestRepository {
   /** The one statement behind `list` (its plan is checked in the API tests). */
   listStatement(viewer: Viewer, filter: RequestListFilter): Knex.QueryBuilder {
     const db = this.db;
-    const { rows, key, id } = this.visibleRows(viewer, filter);
-    const sort = `${key}.${SORT_COLUMNS[filter.sort]}`;
+    const visible = this.visibleRows(viewer, filter);
     const dir = filter.direction;
+    // A text search reads every visible row anyway (no index finds a substring): it matches them
+    // once ("matches"), and the page and the count read that. Other lists read the sort's index.
+    const isSearch = Boolean(filter.text);
+    const sortColumn = SORT_COLUMNS[filter.sort];
+    const rows = isSearch ? db('matches as m') : visible.rows;
+    const id = isSearch ? 'm.id' : visible.id;
+    const sort = isSearch ? `m.${sortColumn}` : `${visible.key}.${sortColumn}`;
     const pageIds = rows
       .clone()
       .select(`${id} as id`, db.raw(`row_number() OVER (ORDER BY ${sort} ${dir}, ${id} ${dir}) AS ord`))
@@ -195,12 +206,15 @@ export class RequestRepository {
       .limit(filter.pageSize)
       .offset(filter.page * filter.pageSize);
     const counted = db.from(rows.clone().select(db.raw('1')).limit(this.countCap + 1).as('c')).count({ n: '*' });
-    const page = db
+    const page = isSearch ? db.withMaterialized('matches', visible.rows.clone().select(`${visible.id} as id`, `${visible.key}.${sortColumn}`)) : db.queryBuilder();
+    page
       .with('page_ids', pageIds)
       .with('counted', counted)
       .from('counted')
       .joinRaw('LEFT JOIN page_ids ON true')
-      .leftJoin('repair_requests as r', 'r.id', 'page_ids.id')
+      // Row by row through the primary key whatever the page size (OFFSET 0 keeps it a nested loop,
+      // also in a plan made once for any page).
+      .joinRaw('LEFT JOIN LATERAL (SELECT * FROM repair_requests WHERE id = page_ids.id OFFSET 0) AS r ON true')
       .leftJoin('organisations as o', 'o.id', 'r.contractor_organisation_id');
     return joinItemCounts(db, page)
       .select('counted.n', 'page_ids.ord', 'r.*', 'o.name as contractor_name', 'ic.item_count', 'ic.open_work_count')
@@ -209,9 +223,9 @@ export class RequestRepository {
 
   /** What decides a request's code notes (build year, adopted edition) if `viewer` may see it, else null. */
   async findVisibleHouse(viewer: Viewer, id: number): Promise<HouseCode | null> {
-    const row: Pick<RepairRequestRow, 'year_built' | 'nec_edition'> | undefined = await this.scope(this.db('repair_requests as r'), viewer)
-      .where('r.id', id)
-      .first('r.year_built', 'r.nec_edition');
+    type Row = Pick<RepairRequestRow, 'year_built' | 'nec_edition'>;
+    const query = this.scope(this.db('repair_requests as r'), viewer).where('r.id', id).first('r.year_built', 'r.nec_edition');
+    const [row]: (Row | undefined)[] = this.readPool ? await readPrepared<Row>(this.readPool, query) : [await query];
     return row ? { yearBuilt: row.year_built, necEdition: row.nec_edition as NecEdition } : null;
   }
 
