@@ -10,7 +10,11 @@ import pg from 'pg';
  * to have one plan that suits every value. Other queries keep using Knex's pool, planned per run.
  */
 export function createReadPool(databaseUrl: string, max = 10): pg.Pool {
-  return new pg.Pool({ connectionString: databaseUrl, max, options: '-c plan_cache_mode=force_generic_plan' });
+  const pool = new pg.Pool({ connectionString: databaseUrl, max, options: '-c plan_cache_mode=force_generic_plan' });
+  // An idle connection the database ends (a restart, an administrator) is dropped and replaced on
+  // the next read; without a listener its error would end the process.
+  pool.on('error', (err) => console.error(`A read connection to PostgreSQL ended: ${err.message}`));
+  return pool;
 }
 
 /** Runs `query` on `pool` as a prepared statement named after its SQL text (so one per shape). */
