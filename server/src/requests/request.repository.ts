@@ -90,7 +90,10 @@ function joinItemCounts(db: Db | Trx, query: Knex.QueryBuilder): Knex.QueryBuild
   );
 }
 
-type SummaryRow = RepairRequestRow & { contractor_name: string | null; item_count: number; open_work_count: number; total_count?: string };
+/** The columns of repair_requests a summary shows (a list reads only these). */
+const SUMMARY_COLUMNS = ['id', 'street', 'city', 'state', 'zip', 'year_built', 'closing_date', 'nec_edition', 'status', 'created_at', 'updated_at'] as const;
+
+type SummaryRow = Pick<RepairRequestRow, (typeof SUMMARY_COLUMNS)[number]> & { contractor_name: string | null; item_count: number; open_work_count: number; total_count?: string };
 
 function toSummary(row: SummaryRow): RepairRequestSummary {
   return {
@@ -214,10 +217,10 @@ export class RequestRepository {
       .joinRaw('LEFT JOIN page_ids ON true')
       // Row by row through the primary key whatever the page size (OFFSET 0 keeps it a nested loop,
       // also in a plan made once for any page).
-      .joinRaw('LEFT JOIN LATERAL (SELECT * FROM repair_requests WHERE id = page_ids.id OFFSET 0) AS r ON true')
+      .joinRaw(`LEFT JOIN LATERAL (SELECT ${SUMMARY_COLUMNS.join(', ')}, contractor_organisation_id FROM repair_requests WHERE id = page_ids.id OFFSET 0) AS r ON true`)
       .leftJoin('organisations as o', 'o.id', 'r.contractor_organisation_id');
     return joinItemCounts(db, page)
-      .select('counted.n', 'page_ids.ord', 'r.*', 'o.name as contractor_name', 'ic.item_count', 'ic.open_work_count')
+      .select('counted.n', 'page_ids.ord', ...SUMMARY_COLUMNS.map((c) => `r.${c}`), 'o.name as contractor_name', 'ic.item_count', 'ic.open_work_count')
       .orderBy('page_ids.ord');
   }
 
@@ -231,7 +234,7 @@ export class RequestRepository {
 
   /** The request if `viewer` may see it, else null (callers answer 404 either way). */
   async findVisible(viewer: Viewer, id: number, trx?: Trx): Promise<(RepairRequestSummary & { contractorOrganisationId: number | null }) | null> {
-    const row: SummaryRow | undefined = await this.scope(this.summaries(trx), viewer).where('r.id', id).first();
+    const row: (SummaryRow & Pick<RepairRequestRow, 'contractor_organisation_id'>) | undefined = await this.scope(this.summaries(trx), viewer).where('r.id', id).first();
     return row ? { ...toSummary(row), contractorOrganisationId: row.contractor_organisation_id } : null;
   }
 
