@@ -1,5 +1,7 @@
 import request from 'supertest';
 import type { CurrentUser, RepairRequestDetail, RequestStatus } from '@cc/shared';
+import type { Knex } from 'knex';
+import { LineItemRepository } from '../../server/src/intake/line-item.repository';
 import { RequestRepository, type RequestListFilter, type Viewer } from '../../server/src/requests/request.repository';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 import { createOrganisation, createUser, csrfTokenFor, resetDatabase, signIn, validRequestBody, type SignedIn } from '../helpers/fixtures';
@@ -292,8 +294,8 @@ describe('GET /api/requests', () => {
   // BY"). The server prepares list statements once per connection with a generic plan
   // (db/read-pool.ts), so that is the plan checked; sequential scans are switched off so that the
   // small test tables show the plan the planner takes at scale.
-  async function genericPlan(viewer: Viewer, filter: RequestListFilter): Promise<string> {
-    const { sql, bindings } = new RequestRepository(t.db).listStatement(viewer, filter).toSQL().toNative();
+  async function genericPlan(statement: Knex.QueryBuilder): Promise<string> {
+    const { sql, bindings } = statement.toSQL().toNative();
     const literal = (v: unknown): string =>
       Array.isArray(v) ? `ARRAY[${v.map(literal).join(', ')}]` : typeof v === 'number' ? String(v) : `'${String(v).replace(/'/g, "''")}'`;
     return t.db.transaction(async (trx) => {
@@ -324,12 +326,18 @@ describe('GET /api/requests', () => {
   it.each(SORT_INDEXES)('reads the %s’s list sorted by %s %s (statuses %j) through %s', async (who, sort, direction, statuses, index) => {
     const user = cast[who as keyof typeof cast];
     const viewer: Viewer = { id: user.id, role: user.role, organisationId: user.organisationId };
-    const plan = await genericPlan(viewer, { page: 3, pageSize: 25, sort, direction, statuses, text: '', id: null });
+    const plan = await genericPlan(new RequestRepository(t.db).listStatement(viewer, { page: 3, pageSize: 25, sort, direction, statuses, text: '', id: null }));
     expect(plan).toContain(index);
     expect(plan).not.toMatch(/Seq Scan on (repair_requests|request_viewers|request_parties|line_items)/);
     // The page's rows and their item counts are read by key, row by row.
     expect(plan).toContain('repair_requests_pkey');
     expect(plan).toContain('line_items_request_id_status_index');
+  });
+
+  it('reads a request’s items through the index of their request', async () => {
+    const plan = await genericPlan(new LineItemRepository(t.db).listStatement(ownRequest.id));
+    expect(plan).toContain('line_items_request_id_status_index');
+    expect(plan).not.toMatch(/Seq Scan on line_items/);
   });
 
   it('responds 400 for an unknown status or sort', async () => {

@@ -1,4 +1,5 @@
 import { DEFAULT_VISIT_KEY, itemStateAfter, PRICING_ITEM_STATES, type Confidence, type FindingCode, type ItemStatus, type LineItem, type PricingFields, type Room, type Severity } from '@cc/shared';
+import type { Knex } from 'knex';
 import type pg from 'pg';
 import type { Db, Trx } from '../db/knex';
 import { readPrepared } from '../db/read-pool';
@@ -98,12 +99,17 @@ export class LineItemRepository {
 
   /** Items of a request in reading order (report position, then creation), removed ones left out. */
   async listForRequest(requestId: number, trx?: Trx): Promise<StoredLineItem[]> {
-    const query = (trx ?? this.db)<LineItemRow>(TABLE)
+    const query = this.listStatement(requestId, trx);
+    const rows: LineItemRow[] = !trx && this.readPool ? await readPrepared<LineItemRow>(this.readPool, query) : await query;
+    return rows.map(toLineItem);
+  }
+
+  /** The statement behind `listForRequest` (its plan is checked in the API tests). */
+  listStatement(requestId: number, trx?: Trx): Knex.QueryBuilder<LineItemRow> {
+    return (trx ?? this.db)<LineItemRow>(TABLE)
       .where({ request_id: requestId })
       .whereNot({ status: REMOVED })
       .orderByRaw('report_file_id NULLS LAST, evidence_start NULLS LAST, id');
-    const rows: LineItemRow[] = !trx && this.readPool ? await readPrepared<LineItemRow>(this.readPool, query) : await query;
-    return rows.map(toLineItem);
   }
 
   async findInRequest(requestId: number, id: number, trx?: Trx): Promise<StoredLineItem | null> {
