@@ -5,11 +5,13 @@ import { expectAccessible, launchBrowser, openPage, portalUrl, screenshot, signI
 jest.setTimeout(180_000);
 
 // The demo scenario (seeds/data/demo-scenario.ts, seeds/05_day_plan.ts): Brightline's shop is in
-// Marlow Springs; Sam Okafor has a planned day of four visits on the next weekday, and five approved
-// jobs nearby wait for a visit (four of the planned-day seed, and 33 Mill Street of the main scenario). Sam, working the office, books three of them for Lee Park on one day,
-// sees them ordered with times, moves one to himself, and exports a visit's calendar file.
+// Marlow Springs; Sam Okafor has a planned day of four visits on the next weekday, and four approved
+// jobs of the planned-day seed wait nearby (the day also suggests other approved jobs of the demo, such
+// as 33 Mill Street, which other tests work on: this test books only its own four). Sam, working the
+// office, books three of them for Lee Park on one day, sees them ordered with times, moves one to
+// himself, and exports a visit's calendar file.
 const OFFICE = 'sam.okafor@brightline.test';
-const WAITING = ['58 Weaver Lane', '7 Tannery Close', '311 Spindle Way', '140 Cooper Hill', '33 Mill Street'];
+const WAITING = ['58 Weaver Lane', '7 Tannery Close', '311 Spindle Way', '140 Cooper Hill'];
 
 let browser: Browser;
 beforeAll(async () => {
@@ -49,11 +51,12 @@ describe('day plan', () => {
     await screenshot(page, 'day-plan-suggestions-desktop');
 
     for (let booked = 1; booked <= 3; booked++) {
-      const suggestion = page.getByTestId('day-plan-suggestion-0');
-      await suggestion.waitFor();
-      const address = (await suggestion.locator('mat-card-title').textContent())!.trim();
-      expect(WAITING.some((street) => address.startsWith(street))).toBe(true);
-      await page.getByTestId('day-plan-book-0').click();
+      await page.getByTestId('day-plan-suggestion-0').waitFor();
+      const titles = (await page.locator('[data-testid^="day-plan-suggestion-"] mat-card-title').allTextContents()).map((t) => t.trim());
+      const index = titles.findIndex((title) => WAITING.some((street) => title.startsWith(street)));
+      expect(index).toBeGreaterThanOrEqual(0);
+      const address = titles[index];
+      await page.getByTestId(`day-plan-book-${index}`).click();
       await page.getByTestId(`day-plan-stop-${booked - 1}`).waitFor();
       await page.getByTestId('day-plan-stops').locator('mat-card-title').filter({ hasText: address }).waitFor();
     }

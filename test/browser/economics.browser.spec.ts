@@ -5,11 +5,11 @@ jest.setTimeout(240_000);
 
 // The demo's planned day (seeds/05_site_visits.ts, seeds/data/demo-scenario.ts): on the next weekday
 // Lee Park of Brightline visits 418 Wren Hollow (two GFCI receptacles at the kitchen counter, an in-use
-// cover at the rear patio) and then 87 Tinsmith Way. The office (Sam Okafor) opens Lee's day and prints
-// the pick list, Lee ticks it on a phone, records the two Wren Hollow items as finished, and the day's
-// earnings appear. Only this file works the Wren Hollow visit.
+// cover at the rear patio) and then 87 Tinsmith Way. Sam Okafor (office and electrician) opens Lee's
+// day and prints the pick list, ticks it on a phone while loading for Lee, records the two Wren Hollow
+// items as finished, and the day's earnings appear. Only this file works the Wren Hollow visit. (Lee's
+// own account is renamed and given a temporary password by the administration browser test.)
 const SAM = 'sam.okafor@brightline.test';
-const LEE = 'lee.park@brightline.test';
 const STREET = '418 Wren Hollow';
 const PHONE = { viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true };
 
@@ -75,7 +75,7 @@ describe('day economics', () => {
 
   it('lets the electrician tick the pick list on a phone, finish two items and see what the day earned', async () => {
     const page = await openPage(browser, PHONE);
-    await signInAs(page, LEE);
+    await signInAs(page, SAM);
     await page.goto(portalUrl(dayPath));
     await page.getByTestId('pick-progress').waitFor();
     const boxes = page.locator('mat-checkbox');
