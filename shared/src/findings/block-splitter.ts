@@ -2,7 +2,7 @@ import type { SectionKind } from './finding.schema';
 import { MappedTextBuilder, type MappedText } from './mapped-text';
 import type { Room } from './room';
 import { scanAll } from './regex-scan';
-import { classifyHeadingLine, inlineNonElectricalLabel } from './section-heading';
+import { classifyHeadingLine, inlineNonElectricalLabel, SUMMARY_HEADING } from './section-heading';
 
 /**
  * Cuts the joined report text (pages joined with "\f") into sections and blocks. A block is one
@@ -103,6 +103,9 @@ export function splitBlocks(joined: string): Block[] {
         const parent = number !== null ? numbered.find((n) => isSubsection(number, n.number)) : undefined;
         section = heading.room === null && heading.kind !== 'non-electrical' && parent ? { ...heading, room: parent.room } : heading;
         if (number !== null && section.room !== null) numbered.unshift({ number, room: section.room });
+      } else if (headingLine.startsBody && section.title !== null && SUMMARY_HEADING.test(section.title)) {
+        // "COMMENTS" after the summary: the body starts, and its findings merge with the summary's.
+        section = { kind: 'general', title: content.replace(/\s*:$/, ''), room: null };
       }
       continue;
     }

@@ -78,5 +78,12 @@ export function findRooms(text: string): RoomMention[] {
       (REFERENCE_BEFORE.test(before) && !FIXTURE_AFTER.test(after)) || (BESIDE_BEFORE.test(before) && OPENING_AFTER.test(after));
     found.push({ room: ROOM_WORDS[i][0], start, end, text: m[0], isReferencePoint });
   }
+  // A wall named by its side ("the back wall", "the side wall") is the outside of the house only
+  // when nothing else names the room: "the back wall of the garage" is in the garage.
+  if (found.some((r) => WALL_SIDE.test(r.text)) && found.some((r) => !WALL_SIDE.test(r.text) && r.room !== 'panel' && !r.isReferencePoint)) {
+    return found.map((r) => (WALL_SIDE.test(r.text) ? { ...r, isReferencePoint: true } : r));
+  }
   return found;
 }
+
+const WALL_SIDE = /^(?:front|rear|side|back) (?:wall|elevation)$/i;

@@ -1,0 +1,42 @@
+import { parseText } from './report-parser';
+
+/** (code, room, quantity) of every finding. */
+function read(text: string) {
+  return parseText(text).findings.map((f) => [f.code, f.room, f.quantity]);
+}
+
+// Rules of the third tuning round (docs/parser.md, "Third round"). Each example is new text
+// written for this spec, not a sentence of the corpus.
+
+describe('grouping: a summary and the body that repeats it (common practice: summary list plus detailed body)', () => {
+  it('reads a summary heading with words of its own, and merges its item with the body', () => {
+    const text = [
+      'SUMMARY (items needing repair)',
+      '- Hall bath receptacle lacks GFCI protection.',
+      '',
+      'COMMENTS',
+      'The receptacle beside the hall bath sink is not GFCI protected; install a GFCI device.',
+    ].join('\n');
+    expect(read(text)).toEqual([['gfci-missing', 'bathroom', 1]]);
+  });
+
+  it('reads "KEY ELECTRICAL ITEMS" as a summary and "DISCUSSION" as the start of the body', () => {
+    const text = ['KEY ELECTRICAL ITEMS', '1. Loose switch in the den.', '', 'DISCUSSION', 'In the den the wall switch by the door is loose in the wall.'].join('\n');
+    expect(read(text)).toEqual([['switch-issue', 'living-area', 1]]);
+  });
+
+  it('keeps a summary item of its own when the body does not repeat it', () => {
+    const text = ['SUMMARY', '- Garage ceiling light inoperative.', '', 'BODY', 'Open grounds at two bedroom receptacles.'].join('\n');
+    expect(read(text).map(([code]) => code)).toEqual(['light-fixture', 'open-ground']);
+  });
+});
+
+describe('places: a wall named by its side', () => {
+  it('is the room the sentence names, not the outside (common practice: "back wall of the garage")', () => {
+    expect(read('Two receptacles along the back wall of the laundry room have no GFCI protection.')).toEqual([['gfci-missing', 'laundry', 2]]);
+  });
+
+  it('is the outside when the sentence names no room', () => {
+    expect(read('The receptacle on the rear wall has no weatherproof cover.')).toEqual([['weather-cover-missing', 'exterior', 1]]);
+  });
+});
