@@ -72,6 +72,19 @@ const WIRING_OUT_OF_USE = /\b(?:not energized|de-?energized|abandoned|tested dea
 const SMOKE_OR_LABEL = String.raw`(?:${T.SMOKE}|(?:smoke|co)(?:\s*(?:\/|and|&)\s*co)?\s*:)`;
 /** An alarm past its service life: expired, end of life, chirping, older than ten years. */
 const SMOKE_AGED = String.raw`(?:expired|end[- ]of[- ]life|chirp(?:s|ed|ing)?\b|(?:past|beyond|exceed(?:s|ed|ing)?|over|outlived|older than)\s+(?:(?:the|their|its|a|his|her)\s+)?(?:(?:\d+|ten)[- ]?(?:year|yr)s?\b|(?:recommended\s+|expected\s+|normal\s+)?(?:service|useful|rated)\s+life|life\s*span|expiration|replacement (?:age|date)))`;
+/** A service part said to be sound ("secure, no damage observed", "ok"): a condition word after it is about something else. */
+const SERVICE_SOUND = /\b(?:otherwise (?:secure|sound|ok)|(?:no|without) (?:damage|deficiencies|defects|corrosion|rust)|satisfactory|serviceable)\b/i;
+/** "8 ft above the deck surface", "about a foot and a half above the roof". */
+const CLEARANCE = String.raw`(?:only\s+|approx(?:imately|\.)?\s+|about\s+|roughly\s+|~\s?)?(\d+(?:\.\d+)?|a|one|two|three|four|five|six|seven|eight|nine)\s*(?:ft\b\.?|feet|foot|')(?:\s+(?:and\s+a\s+half|\d+\s*(?:in|inches|")))?\s+(?:above|over|from|off)\s+(?:the\s+)?(?:(?:rear|back|front|side|upper|lower|flat)\s+)?(roof|deck|walkway|walk|sidewalk|driveway|drive|grade|ground|yard|patio|pool|porch|balcony)`;
+const CLEARANCE_WORDS: Readonly<Record<string, number>> = { a: 1, one: 1, two: 2, three: 3, four: 4, five: 5, six: 6, seven: 7, eight: 8, nine: 9 };
+/** NFPA 70 (NEC) 2023, 230.24(A) and (B) (from memory): the least clearance above each surface, in feet. */
+export const SERVICE_CLEARANCE_FT: Readonly<Record<string, number>> = {
+  roof: 3, deck: 10, walkway: 10, walk: 10, sidewalk: 10, grade: 10, ground: 10, yard: 10, patio: 10, pool: 10, porch: 10, balcony: 10, driveway: 12, drive: 12,
+};
+function isTooLow(m: RegExpExecArray): boolean {
+  const value = CLEARANCE_WORDS[m[1].toLowerCase()] ?? Number(m[1]);
+  return value < SERVICE_CLEARANCE_FT[m[2].toLowerCase()];
+}
 const SUBPANEL_CONTEXT = /sub-?\s?panel|secondary panel|remote panel|downstream|distribution panel|feeder/i;
 
 export const CODE_RULES: readonly CodeRule[] = [
@@ -414,6 +427,14 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${T.SERVICE}\s+${anyGap(8)}(?:cross(?:es)?|pass(?:es)?|runs?|hangs?|sags?)\s+(?:over|through|about|roughly|only|within|among|across|to)\b`, context: /\b(?:\d+|five|six|seven|eight|nine|ten)\s*(?:ft|feet|foot|')|limbs?|branch(?:es)?|\btrees?\b|within reach|clearance/i, unless: /\b(?:otherwise secure|adequate clearance|clearance (?:is )?(?:adequate|ok|good))\b/i },
       { re: rx`(?:service\s+)?drop\s+(?:sags?|sagging|clearance\s+(?:over|above|at|to|is)|is too low|rubs?|rubbing)\b`, context: /service|overhead|utility|drop/i, unless: /\bclearance (?:is )?(?:adequate|ok|good|sufficient)\b/i },
       { re: rx`(?:limbs?|branch(?:es)?|trees?)\s+(?:rubs?|rubbing|touch(?:es|ing)?|contacts?|contacting)\s+(?:against\s+|on\s+)?(?:them|it|the\s+(?:drop|conductors|service|lines|wires))`, context: /service|drop|overhead|conductor|utility/i },
+      // A part of the service and a condition of it in the same clause, with other words between
+      // ("the meter socket on the left side has heavy corrosion", "SE cable @ meter - jacket split").
+      { re: rx`${T.SERVICE}\s+${anyGap(10)}(?:${T.BE})?(?:${T.SERVICE_CONDITION})`, unless: SERVICE_SOUND },
+      { re: rx`(?:no|without|missing)\s+(?:a\s+)?(?:drip loop|weather\s?head|service mast)\b` },
+      // NFPA 70 (NEC) 2023, 230.24 (from memory): overhead service conductors keep 3 ft above a roof,
+      // 10 ft above grade, decks and walks, 12 ft above a residential driveway; a measured
+      // clearance below that is the defect.
+      { re: rx`${T.SERVICE}[^.;]{0,100}?${CLEARANCE}`, check: isTooLow },
     ],
   },
   {

@@ -84,6 +84,7 @@ const VOCABULARY: readonly string[] = [
   'conduit', 'energized', 'discolored', 'melted', 'loose', 'unknown', 'function', 'inoperable', 'cover',
   'plates', 'covers', 'panel', 'panels', 'labeled', 'labelled', 'unlabeled', 'identified', 'clearance',
   'weathered', 'deteriorated', 'drip', 'meter', 'overhead', 'supported', 'unsupported', 'protect',
+  'weatherhead', 'weatherheads', 'masthead',
 ];
 const VOCAB_SET = new Set(VOCABULARY);
 /** Candidates by first letter, so a word is compared with a dozen words rather than all of them. */

@@ -40,3 +40,38 @@ describe('places: a wall named by its side', () => {
     expect(read('The receptacle on the rear wall has no weatherproof cover.')).toEqual([['weather-cover-missing', 'exterior', 1]]);
   });
 });
+
+describe('service equipment: a part of the service and its condition (common practice)', () => {
+  it.each([
+    ['The meter pan on the east wall shows heavy rust along its lower edge.'],
+    ['SE cable @ weatherhead - jacket sun-degraded and split.'],
+    ['The drip loop conductors are tangled in the maple branches.'],
+    ['The meter post at the lot line is rotted and leaning.'],
+    ['Service mast straps missing; the mast is loose at the eave.'],
+  ])('reads %s', (sentence) => {
+    expect(read(sentence)).toEqual([['service-equipment', 'exterior', null]]);
+  });
+
+  it('does not read a part said to be sound', () => {
+    expect(read('Meter base secure, no corrosion observed.')).toEqual([]);
+    expect(read('Mast and weatherhead - ok.')).toEqual([]);
+  });
+
+  it('reads a missing drip loop', () => {
+    expect(read('The entrance cable enters the meter with no drip loop.')).toEqual([['service-equipment', 'exterior', null]]);
+  });
+});
+
+describe('service clearance, computed (NFPA 70 (NEC) 2023, 230.24, from memory: 3 ft over a roof, 10 ft over decks and walks, 12 ft over a residential driveway)', () => {
+  it('reads a drop 8 ft above a deck as too low (10 ft required)', () => {
+    expect(read('The service drop conductors pass about 8 ft above the rear deck.')).toEqual([['service-equipment', 'exterior', null]]);
+  });
+
+  it('reads a drop 11 ft above a driveway as too low (12 ft required)', () => {
+    expect(read('Service drop: sags to 11 feet over the driveway.')).toEqual([['service-equipment', 'exterior', null]]);
+  });
+
+  it('does not read a drop 14 ft above a driveway (12 ft required)', () => {
+    expect(read('The service drop crosses 14 ft above the driveway.')).toEqual([]);
+  });
+});
