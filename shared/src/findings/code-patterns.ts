@@ -85,6 +85,10 @@ function isTooLow(m: RegExpExecArray): boolean {
   const value = CLEARANCE_WORDS[m[1].toLowerCase()] ?? Number(m[1]);
   return value < SERVICE_CLEARANCE_FT[m[2].toLowerCase()];
 }
+/** A part of the grounding electrode system or of piping bonding (NFPA 70 (NEC) 2023, 250.50, 250.104). */
+const GROUND_PART = String.raw`(?:ground(?:ing)? electrode(?: conductor)?|gec\b|(?:ground(?:ing)?|electrode)\s+(?:rods?|clamps?|wires?|conductors?)\b|(?:main\s+)?(?:water|gas|csst)(?:\s+(?:pipe|piping|line|main|service))?\s+bond(?:ing)?(?:\s+(?:jumper|clamp|wire|conductor|connection))?\b|bond(?:ing)?\s+(?:jumpers?|clamps?|conductors?|wires?|connections?)\b|acorn clamp)`;
+/** What goes wrong with a grounding or bonding part (common practice). */
+const GROUND_CONDITION = String.raw`(?:loose|corroded|(?:heavy|severe|some)?\s*corrosion|rust(?:ed|y)|disconnected|detached|cut(?: off)?|broken|damaged|missing|slipping off|pulled (?:off|loose|free)|(?:not|un)[- ]?(?:connected|attached|bonded|secured|clamped)|undersized|painted over|(?:appears? to )?(?:have|has) been removed|removed)\b`;
 const SUBPANEL_CONTEXT = /sub-?\s?panel|secondary panel|remote panel|downstream|distribution panel|feeder/i;
 
 export const CODE_RULES: readonly CodeRule[] = [
@@ -309,7 +313,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     defaultRoom: 'panel',
     panelIsPlace: true,
     patterns: [
-      { re: rx`(?:${T.NO}|loose|disconnected|damaged|broken|cut|corroded|inadequate|improper)\s+(?:(?:a|an|the)\s+)?${gap(2)}(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|water (?:pipe |line )?bond(?:ing)?(?: jumper)?|gas (?:pipe |line )?bond(?:ing)?|bonding (?:jumper|conductor|clamp|wire|connection))` },
+      { re: rx`(?:${T.NO}|loose|disconnected|damaged|broken|cut|corroded|inadequate|improper)\s+(?:(?:a|an|the)\s+)?${gap(2)}(?:ground(?:ing)? electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|water (?:pipe |line )?bond(?:ing)?(?: jumper)?|gas (?:pipe |line )?bond(?:ing)?|bonding (?:jumper|conductor|clamp|wire|connection))` },
       { re: rx`(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|bonding (?:jumper|clamp|conductor))\s+${gap(12)}${T.BE}(?:${T.ABSENT}|loose|disconnected|damaged|cut(?: off)?|broken|corroded|not (?:connected|attached|bonded|secured)|undersized|inadequate)` },
       // A water meter or filter bridged by no jumper leaves the piping bond open (NFPA 70 (NEC) 2023, 250.53(D)(1) and 250.68(B)).
       { re: rx`${T.NO}\s+(?:bonding\s+)?jumper\s+(?:wire\s+)?(?:around|across|bridging|over|at)\s+(?:the\s+)?(?:water\s+)?(?:meter|filter|softener|water heater)` },
@@ -317,6 +321,12 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:ground(?:ing)?|electrode)\s+(?:wire|conductor)\s+${gap(8)}${T.BE}(?:loose|disconnected|cut(?: off)?|broken|not (?:connected|attached))` },
       { re: rx`(?:water|gas|metal|csst)(?:\s+(?:service|supply|main))?(?:\s+(?:pipes?|piping|lines?))?\s+${gap(2)}${T.BE}(?:not|un)[- ]?bonded` },
       { re: rx`(?:not|no)\s+bond(?:ed|ing)\s+(?:\w+\s+){0,3}?(?:water|gas|csst|metal piping)` },
+      // A grounding or bonding part and its condition in the same clause, with other words between
+      // ("ground wire to the water line at the water heater is loose", "GEC: clamp @ rod loose").
+      { re: rx`${GROUND_PART}\s*[:-]?\s+${anyGap(12)}(?:${T.BE})?${GROUND_CONDITION}` },
+      // A part that should be there and was looked for: "none found", "could not be located" is the defect itself.
+      { re: rx`${GROUND_PART}\s*[:-]?\s+${anyGap(8)}(?:${T.BE})?(?:none (?:found|located|observed|visible)|not (?:found|located|visible|observed|present|installed)|could not be (?:found|located|confirmed|verified|seen))` },
+      { re: rx`(?:could\s?n[o']t|did\s?n[o']t|was unable to|were unable to|unable to)\s+(?:locate|find|confirm|verify|see|identify)\s+(?:a|an|the|any)?\s*${GROUND_PART}` },
     ],
   },
   {

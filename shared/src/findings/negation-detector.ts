@@ -23,7 +23,16 @@ const MAX_CUE_DISTANCE = 60;
 function cuesOutside(text: string, re: RegExp, spans: readonly Range[]): Range[] {
   return scanAll(re, text)
     .map((m) => ({ start: m.index, end: m.index + m[0].length }))
-    .filter((cue) => !spans.some((s) => cue.start < s.end && s.start < cue.end));
+    .filter((cue) => !spans.some((s) => cue.start < s.end && s.start < cue.end) && !removesProtection(text, cue));
+}
+
+/**
+ * "Has been removed" is history for a hazard (old wiring that has been removed) but the defect
+ * itself for a part that protects (a bond, jumper, cover or ground that has been removed).
+ */
+const PROTECTIVE_PART_BEFORE = /\b(?:bond(?:ing)?|jumpers?|clamps?|covers?|plates?|globes?|lens(?:es)?|screws?|fillers?|ground(?:ing)?\s+(?:wires?|conductors?|rods?))\s+(?:[\w'-]+\s+){0,4}$/i;
+function removesProtection(text: string, cue: Range): boolean {
+  return /removed/i.test(text.slice(cue.start, cue.end)) && PROTECTIVE_PART_BEFORE.test(text.slice(Math.max(0, cue.start - 60), cue.start));
 }
 
 /** For each span (sorted by start, not overlapping), whether the sentence denies it. */

@@ -101,7 +101,7 @@ const BY_FIRST = (() => {
 const KEEP = new Set([
   'placed', 'plated', 'slates', 'source', 'services', 'serviced', 'servicing', 'switched', 'ground', 'rounds',
   'detects', 'defected', 'expose', 'exposes', 'damages', 'dammed', 'misting', 'kissing', 'mission', 'panes',
-  'panels', 'paneled', 'pannel', 'coverage', 'covered', 'covering', 'coves', 'lovers', 'circuitry', 'receipt',
+  'panels', 'paneled', 'coverage', 'covered', 'covering', 'coves', 'lovers', 'circuitry', 'receipt',
   'receipts', 'receptor', 'reception', 'outline', 'outlay', 'outlast', 'breaking', 'breaks',
   'bleaker', 'breakfast', 'doubled', 'doubles', 'trouble', 'treated', 'tripod', 'tripled', 'installer',
   'installs', 'evaluates', 'recommends', 'replaces', 'replica', 'present', 'presents', 'presence', 'prevent',

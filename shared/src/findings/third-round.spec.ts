@@ -75,3 +75,26 @@ describe('service clearance, computed (NFPA 70 (NEC) 2023, 230.24, from memory: 
     expect(read('The service drop crosses 14 ft above the driveway.')).toEqual([]);
   });
 });
+
+describe('grounding and bonding: a part and its condition (NFPA 70 (NEC) 2023, 250.50 and 250.104)', () => {
+  it('reads a loose ground wire with many words between', () => {
+    expect(read('The ground wire to the cold water line beside the softener in the basement is loose.')).toEqual([['grounding-electrode', 'basement', null]]);
+  });
+
+  it('reads a part looked for and not found as missing (the "none found" is the defect, not a denial)', () => {
+    expect(read('Gas pipe bonding: none found.')).toEqual([['grounding-electrode', 'panel', null]]);
+    expect(read('I was unable to locate a grounding electrode conductor at the exterior.')).toEqual([['grounding-electrode', 'exterior', null]]);
+  });
+
+  it('reads a bond that has been removed as missing (polarity: removal of a protective part is the defect)', () => {
+    expect(read('The water pipe bond in the garage has been removed.')).toEqual([['grounding-electrode', 'garage', null]]);
+  });
+
+  it('still reads removed legacy wiring as no finding (polarity: historical)', () => {
+    expect(read('The knob-and-tube wiring in the attic has been removed.')).toEqual([]);
+  });
+
+  it('reads a misspelt panel as the panel (normalisation)', () => {
+    expect(read('No grounding electrode conductor at the pannel.')).toEqual([['grounding-electrode', 'panel', null]]);
+  });
+});
