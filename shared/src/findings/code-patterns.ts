@@ -85,6 +85,10 @@ function isTooLow(m: RegExpExecArray): boolean {
   const value = CLEARANCE_WORDS[m[1].toLowerCase()] ?? Number(m[1]);
   return value < SERVICE_CLEARANCE_FT[m[2].toLowerCase()];
 }
+/** Text in one clause that does not name another device (whose cover would be a cover plate). */
+const NOT_ANOTHER_DEVICE = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|light|fixture|panel|breaker)[^.;!?]){0,60}?`;
+/** A box left open: no cover or lid, or its splices or conductors in view. */
+const BOX_UNCOVERED = String.raw`\b(?:no|missing|without|lacks?|lacking)\s+(?:a\s+|its\s+|the\s+|any\s+)?(?:blank\s+)?(?:covers?|lids?)\b(?!\s*plates?|\s+(?:on|for|at)\s+(?:the\s+|an?\s+)?(?:[\w-]+\s+)?(?:${T.RCPT}|${T.SWITCH}|light))|\b(?:covers?|lids?)\s+(?:is\s+|are\s+)?(?:missing|absent|off|removed)\b|\b(?:splices?|wire nuts?|conductors?|connections?)\s+(?:are\s+|is\s+)?(?:visible|showing|exposed|accessible)\b`;
 /** A part of the grounding electrode system or of piping bonding (NFPA 70 (NEC) 2023, 250.50, 250.104). */
 const GROUND_PART = String.raw`(?:ground(?:ing)? electrode(?: conductor)?|gec\b|(?:ground(?:ing)?|electrode)\s+(?:rods?|clamps?|wires?|conductors?)\b|(?:main\s+)?(?:water|gas|csst)(?:\s+(?:pipe|piping|line|main|service))?\s+bond(?:ing)?(?:\s+(?:jumper|clamp|wire|conductor|connection))?\b|bond(?:ing)?\s+(?:jumpers?|clamps?|conductors?|wires?|connections?)\b|acorn clamp)`;
 /** What goes wrong with a grounding or bonding part (common practice). */
@@ -224,6 +228,10 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:open|exposed|unenclosed|loose|taped)\s+(?:wire\s+)?splices?` },
       { re: rx`(?:spliced?|splices|connections?|connected)\b\s+${anyGap(20)}(?:with\s+no|without(?:\s+an?)?|not\s+in(?:\s+an?)?|rather than (?:being\s+)?(?:enclosed\s+)?in(?:\s+an?)?|outside(?:\s+of)?(?:\s+(?:an?|any))?)\s+(?:junction\s+|electrical\s+)?(?:box|enclosure)` },
       { re: rx`(?:wrapped|taped)\s+(?:only\s+)?(?:in|with)\s+(?:electrical\s+)?tape` },
+      // A box and its missing cover, or its visible splices, anywhere in the clause (terse notes and
+      // table rows: "J-box above furnace, no cover, splices visible"; "Lid missing from junction box").
+      { re: rx`${T.JBOX}${NOT_ANOTHER_DEVICE}(?:${BOX_UNCOVERED})` },
+      { re: rx`(?:covers?|lids?)\s+(?:is\s+|are\s+)?(?:missing|absent|off|removed)\s+(?:from|on|at)\s+(?:the\s+|an?\s+)?${T.JBOX}` },
     ],
   },
   {

@@ -62,7 +62,7 @@ const REFERENCE_BEFORE = /(?:beneath|below|under|underneath|above|over)\s+(?:the
 /** "by the kitchen pass-through", "near the dining room archway": a room's opening as a landmark of another room. */
 const BESIDE_BEFORE = /(?:by|near|beside|next to|at|toward|towards)\s+(?:the\s+)?$/i;
 const OPENING_AFTER = /^\s*(?:pass[- ]?through|opening|archway)/i;
-const FIXTURE_AFTER = /^\s*(?:sink|counter|cabinet|vanity|island|floor|closet)/i;
+const FIXTURE_AFTER = /^\s*(?:sink|counter|cabinet|vanity|island|floor|closet|door|window|opener)/i;
 
 /** Every place named in `text`, in reading order, without overlaps. */
 export function findRooms(text: string): RoomMention[] {

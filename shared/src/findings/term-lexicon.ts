@@ -30,7 +30,7 @@ export function adjGap(n: number): string {
 
 /** Up to `n` words of any kind (device nouns allowed), for phrases whose two ends are specific. */
 export function anyGap(n: number): string {
-  return String.raw`(?:[\w'/#().@-]+\s+){0,${n}}?`;
+  return String.raw`(?:[\w'/#().@-]+,?\s+){0,${n}}?`;
 }
 
 /** Grammatical filler allowed between a negative word and "GFCI"/"AFCI" ("not protected by a GFCI"). */

@@ -98,3 +98,24 @@ describe('grounding and bonding: a part and its condition (NFPA 70 (NEC) 2023, 2
     expect(read('No grounding electrode conductor at the pannel.')).toEqual([['grounding-electrode', 'panel', null]]);
   });
 });
+
+describe('open junction boxes: a box and its missing cover in one clause (NFPA 70 (NEC) 2023, 314.28(C))', () => {
+  it('reads terse notes with commas between the box and its state', () => {
+    expect(read('Crawl: junction box at the pier by the access hatch, no cover, splices showing.')).toEqual([['open-junction-box', 'crawl-space', 1]]);
+  });
+
+  it('reads a lid missing from a box', () => {
+    expect(read('Lid missing from the junction box above the garage door opener.')).toEqual([['open-junction-box', 'garage', 1]]);
+  });
+
+  it('does not read a box with its cover on', () => {
+    expect(read('Junction box in the attic has its cover in place.')).toEqual([]);
+  });
+});
+
+describe('table columns: an item and its condition in tab-separated cells (common practice: Item | Location | Condition exports)', () => {
+  it('reads the condition cell with the item cell of the same row', () => {
+    const text = ['Item\tLocation\tCondition\tAction', 'Junction box\tAttic, over hall\tNo cover, splices visible\tInstall cover', 'Meter base\tExterior\tSecure\tNone'].join('\n');
+    expect(read(text)).toEqual([['open-junction-box', 'attic', 1]]);
+  });
+});
