@@ -119,6 +119,12 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
       const over = ruleOf(f.code)?.yieldsInSentenceTo;
       if (over && inSentence.some((g) => !g.isRecommendation && g.room === f.room && over.includes(g.code))) inSentence.splice(k, 1);
     }
+    // "CO: none in the house; gas heater in the den - install a CO alarm": the remedy in the sentence
+    // that states the defect is that defect's, wherever the sentence mentions other places.
+    for (let k = inSentence.length - 1; k >= 0; k--) {
+      const f = inSentence[k];
+      if (f.isRecommendation && inSentence.some((g) => !g.isRecommendation && g.code === f.code)) inSentence.splice(k, 1);
+    }
     // A follow-up sentence only recommends, or speaks again of a defect the block already has
     // ("Three-prong receptacles should be grounded or GFCI protected.").
     // A recommendation of another kind of defect ("have the kitchen counter receptacles upgraded to

@@ -348,7 +348,9 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:unit|device)\s+${gap(4)}${T.FAILED}\s+(?:sound|alarm|respond|activate)`, context: /smoke|carbon monoxide|\bco\b|alarm|detector/i },
       // Common practice: smoke alarms are replaced ten years after manufacture (the date on the
       // label), CO alarms at the end of life the maker prints; an old date is the defect.
-      { re: rx`${T.SMOKE}\s+${anyGap(10)}${T.FAILED}\s+(?:sound|alarm|respond|activate|operate|work)` },
+      { re: rx`${T.SMOKE},?\s+${anyGap(10)}${T.FAILED}\s+(?:sound|alarm|respond|activate|operate|work)` },
+      // "Smoke alarms: battery units; alarm missing from the upstairs bedroom": the device named by its last word.
+      { re: rx`(?:alarms?|detectors?)\s+${gap(3)}${T.BE}(?:${T.ABSENT}|${T.INOPERATIVE}|expired)`, context: /smoke|carbon monoxide|\bco\b/i },
       { re: rx`${SMOKE_OR_LABEL}[^.;]{0,90}?${SMOKE_AGED}` },
       { re: rx`${SMOKE_OR_LABEL}[^.;]{0,60}?(?:dated|date[- ]?(?:codes?|stamps?)|manufactured|manufacture dates?|made|stamped)\s+(?:in\s+|of\s+)?(?:19[5-9]\d|20[0-2]\d)\b`, context: /replac|expir|past|beyond|exceed|old|aged|life|chirp|\b(?:10|ten)[- ]years?/i },
       { re: rx`(?:19[5-9]\d|20[0-2]\d)\s+(?:date[- ]?codes?|manufactur\w+ dates?)`, context: /smoke|carbon monoxide|\bco\b|alarm|detector/i, unless: /\btested (?:ok|fine|good|properly|correctly)\b|\bsatisfactory\b/i },

@@ -21,7 +21,7 @@ const ROOM_WORDS: ReadonlyArray<readonly [Room, string]> = [
   ['panel', String.raw`(?:main\s+|electrical\s+|service\s+|distribution\s+)?(?:sub-?\s?panel|panel\s*board|panel)s?\b|load cent(?:er|re)|breaker box|fuse box`],
   ['dining', String.raw`dining(?:\s+(?:room|area))?|dinette`],
   ['office', String.raw`(?:home\s+)?office|study\b`],
-  ['whole-house', String.raw`throughout(?: the (?:home|house|dwelling|unit))?(?!\s+(?:the|this|that|each|every|all|both)\b)|anywhere in the (?:home|house|dwelling|unit)|(?:in|on) (?:each|every|all|any) (?:levels?|floors?|stor(?:y|ies))(?: of the (?:home|house|dwelling))?|whole[- ]house|entire (?:home|house|dwelling|electrical system|system)|all rooms|every room`],
+  ['whole-house', String.raw`throughout(?: the (?:home|house|dwelling|unit))?(?!\s+(?:the|this|that|each|every|all|both)\b)|anywhere in the (?:home|house|dwelling|unit)|(?:in|on) (?:each|every|all|any) (?:levels?|floors?|stor(?:y|ies))(?: of the (?:home|house|dwelling))?|whole[- ]house|entire (?:home|house|dwelling|electrical system|system)|all rooms|every room|(?<=\b(?:none|nothing|no\s+[\w/-]+(?:\s+[\w/-]+)?)\s+)in (?:the )?(?:house|home|unit|dwelling)\b`],
 ];
 
 /**
@@ -78,6 +78,12 @@ export function findRooms(text: string): RoomMention[] {
       (REFERENCE_BEFORE.test(before) && !FIXTURE_AFTER.test(after)) || (BESIDE_BEFORE.test(before) && OPENING_AFTER.test(after));
     found.push({ room: ROOM_WORDS[i][0], start, end, text: m[0], isReferencePoint });
   }
+  // A level or outbuilding named before a room is where that room is ("basement bedroom", "garage
+  // apartment kitchen"): the room itself is the place.
+  for (let i = 0; i + 1 < found.length; i++) {
+    const [a, b] = [found[i], found[i + 1]];
+    if (LEVEL_ROOMS.has(a.room) && HABITABLE.has(b.room) && /^[\s-]*$/.test(text.slice(a.end, b.start))) found[i] = { ...a, isReferencePoint: true };
+  }
   // A wall named by its side ("the back wall", "the side wall") is the outside of the house only
   // when nothing else names the room: "the back wall of the garage" is in the garage.
   if (found.some((r) => WALL_SIDE.test(r.text)) && found.some((r) => !WALL_SIDE.test(r.text) && r.room !== 'panel' && !r.isReferencePoint)) {
@@ -86,4 +92,6 @@ export function findRooms(text: string): RoomMention[] {
   return found;
 }
 
+const LEVEL_ROOMS: ReadonlySet<Room> = new Set(['basement', 'attic', 'garage', 'hallway']);
+const HABITABLE: ReadonlySet<Room> = new Set(['bedroom', 'bathroom', 'kitchen', 'laundry', 'office', 'living-area', 'dining']);
 const WALL_SIDE = /^(?:front|rear|side|back) (?:wall|elevation)$/i;

@@ -119,3 +119,28 @@ describe('table columns: an item and its condition in tab-separated cells (commo
     expect(read(text)).toEqual([['open-junction-box', 'attic', 1]]);
   });
 });
+
+describe('smoke and CO alarms, third round (common practice; NFPA 72)', () => {
+  it('reads an alarm that did not sound with a described unit between', () => {
+    expect(read('The bedroom smoke alarm, an older hard-wired unit near the closet, did not sound when tested.')).toEqual([['smoke-co-alarm', 'bedroom', 1]]);
+  });
+
+  it('reads "none in the house" as house-wide, with the remedy in the same sentence as its recommendation', () => {
+    expect(read('CO alarm: none in the house; gas range in the kitchen - install a CO alarm.')).toEqual([['smoke-co-alarm', 'whole-house', 1]]);
+  });
+
+  it('reads the alarm by its last word in an alarm row', () => {
+    expect(read('Smoke alarms: hard-wired units; alarm missing from the nursery.')).toEqual([['smoke-co-alarm', 'bedroom', 1]]);
+  });
+
+  it('keeps "tested ok" to the unit after ", only" (clauses)', () => {
+    expect(read('Smoke alarms: none in the bedrooms, only a hall unit (tested ok).')).toEqual([['smoke-co-alarm', 'bedroom', null]]);
+  });
+});
+
+describe('places: a level named before a room', () => {
+  it('is where the room is; the room is the place ("basement bedroom" is a bedroom)', () => {
+    expect(read('There is no smoke alarm in the basement bedroom.')).toEqual([['smoke-co-alarm', 'bedroom', 1]]);
+    expect(read('The attic bathroom fan light is inoperative.')[0]?.[1]).toBe('bathroom');
+  });
+});
