@@ -89,6 +89,12 @@ function isTooLow(m: RegExpExecArray): boolean {
 const NOT_ANOTHER_DEVICE = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|light|fixture|panel|breaker)[^.;!?]){0,60}?`;
 /** A box left open: no cover or lid, or its splices or conductors in view. */
 const BOX_UNCOVERED = String.raw`\b(?:no|missing|without|lacks?|lacking)\s+(?:a\s+|its\s+|the\s+|any\s+)?(?:blank\s+)?(?:covers?|lids?)\b(?!\s*plates?|\s+(?:on|for|at)\s+(?:the\s+|an?\s+)?(?:[\w-]+\s+)?(?:${T.RCPT}|${T.SWITCH}|light))|\b(?:covers?|lids?)\s+(?:is\s+|are\s+)?(?:missing|absent|off|removed)\b|\b(?:splices?|wire nuts?|conductors?|connections?)\s+(?:are\s+|is\s+)?(?:visible|showing|exposed|accessible)\b`;
+/** Words between a cable and its condition: not another device, whose condition it would be. */
+const WIRE_GAP = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|light|fixture|box(?:es)?\b|panel|breaker|cords?\b|service|meter)[\w'/#().@-]+,?\s+){0,10}?`;
+/** A cable said to be secured, or the cable of a splice or fixture (an open splice, a hanging fixture is that defect). */
+const WIRE_SOUND_OR_OTHER = /\b(?:properly|neatly|adequately|well) (?:secured|supported|protected|stapled|strapped)\b|\bsplices?\b|\bwire nuts?\b|\b(?:chandelier|fixture|luminaire|pendant)s?\b/i;
+/** What goes wrong with a cable run (common practice): not secured, not protected, within reach of damage. */
+const WIRE_CONDITION = String.raw`(?:exposed to (?:physical )?damage|subject to (?:physical )?damage|unprotected|unsecured|unsupported|unstapled|(?:has\s+)?(?:come|came|coming|pulled|pulling) (?:loose|free|away)|(?:not|never) (?:clamped|secured|supported|stapled|strapped|fastened|protected)|loose\b|hang(?:s|ing)\b|dangl(?:es|ing)|draped|(?:hanging\s+)?in loops)`;
 /** A part of the grounding electrode system or of piping bonding (NFPA 70 (NEC) 2023, 250.50, 250.104). */
 const GROUND_PART = String.raw`(?:ground(?:ing)? electrode(?: conductor)?|gec\b|(?:ground(?:ing)?|electrode)\s+(?:rods?|clamps?|wires?|conductors?)\b|(?:main\s+)?(?:water|gas|csst)(?:\s+(?:pipe|piping|line|main|service))?\s+bond(?:ing)?(?:\s+(?:jumper|clamp|wire|conductor|connection))?\b|bond(?:ing)?\s+(?:jumpers?|clamps?|conductors?|wires?|connections?)\b|acorn clamp)`;
 /** What goes wrong with a grounding or bonding part (common practice). */
@@ -246,6 +252,9 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:used|using|uses|plugged in(?:\s?to)?|powered by|connected to|on|fed by|fed from|through)\s+(?:an?\s+|the\s+)?${ADJ_GAP}extension cords?` },
       { re: rx`(?:uf|nm|underground|feeder|branch|direct[- ]burial)?\s*${T.WIRING}\s+${gap(6)}(?:${T.BE}|(?:has|have)\s+(?:simply\s+)?been\s+)?(?:lies|lying|laid|laying|lays|rests?|resting|run|strung|draped)\s+(?:directly\s+)?(?:on|across|along)\s+(?:the\s+)?(?:surface of the\s+)?(?:ground|dirt|soil|grass|lawn|yard|floor|crawl ?space floor)\b` },
       { re: rx`(?:permanent|fixed)\s+(?:use of\s+)?extension cords?` },
+      // A cable and its condition in the same clause with other words between ("NM cable to the
+      // disposal not clamped at the unit, loose under the sink"; common practice, NEC 334.15 and 334.30).
+      { re: rx`(?:nm(?:-b)?|romex|uf|surface[- ](?:run|mounted)|branch(?:[- ]circuit)?|sheathed)?\s*(?:wir(?:e|es|ing)\b(?!\s+nuts?\b)|cables?\b)\s+${WIRE_GAP}(?:${T.BE})?${WIRE_CONDITION}`, unless: WIRE_SOUND_OR_OTHER },
     ],
   },
   {

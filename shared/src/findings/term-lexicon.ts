@@ -38,7 +38,7 @@ export const PROTECTION_FILLER = String.raw`(?:(?:protected|protection|by|a|an|a
 
 export const T = {
   /** receptacle, recepticle, receptical, recep., rcpt, outlet, outlett, plug-in */
-  RCPT: String.raw`(?:rec[ei]pt?[aeiu]?c(?:le|al|el)s?\b|recepts?\b\.?|recep\b\.?|rcpts?\b\.?|rcp\b\.?|outlett?s?\b|duplex(?:es)?\b|devices?\b)`,
+  RCPT: String.raw`(?:rec[ei]pt?[aeiu]?c(?:le|al|el)s?\b|recepts?\b\.?|recep\b\.?|rcpts?\b\.?|rcp\b\.?|outlett?s?\b(?!\s+height)|duplex(?:es)?\b|devices?\b)`,
   GFCI: String.raw`(?:gfcis?\b|g\.f\.c\.i\.|gfis?\b|gfic\b|gcfi\b|ground[- ]fault(?:[- ]circuit[- ]interrupt(?:er|or|ing)?s?)?(?:[- ]protect(?:ed|ion))?)`,
   AFCI: String.raw`(?:afcis?\b|a\.f\.c\.i\.|afi\b|arc[- ]fault(?:[- ]circuit[- ]interrupt(?:er|or|ing)?s?)?(?:[- ]protect(?:ed|ion))?)`,
   BREAKER: String.raw`(?:circuit\s+)?(?:breakers?\b|brkrs?\b\.?|bkrs?\b\.?|ocpds?\b|fuses?\b|overcurrent (?:protection|devices?))`,

@@ -144,3 +144,22 @@ describe('places: a level named before a room', () => {
     expect(read('The attic bathroom fan light is inoperative.')[0]?.[1]).toBe('bathroom');
   });
 });
+
+describe('exposed wiring: a cable and its condition in one clause (common practice; NFPA 70 (NEC) 2023, 334.15, 334.30)', () => {
+  it('reads a terse note with commas and other words between', () => {
+    expect(read('Garage: NM cable to the opener not stapled above the door, loose along the header.')).toEqual([['exposed-wiring', 'garage', null]]);
+  });
+
+  it('reads a surface cable that has come loose from its clips', () => {
+    expect(read('In the den the surface-run cable has come loose from its clips behind the couch.')).toEqual([['exposed-wiring', 'living-area', null]]);
+  });
+
+  it('does not read a cable said to be secured, nor the wires a fixture hangs from', () => {
+    expect(read('Attic cables are properly secured to the rafters.')).toEqual([]);
+    expect(read('The dining room chandelier hangs on its wires.').map(([code]) => code)).not.toContain('exposed-wiring');
+  });
+
+  it('does not read "outlet height" as a receptacle', () => {
+    expect(read('The bedroom cable runs at outlet height and has come loose.')).toEqual([['exposed-wiring', 'bedroom', null]]);
+  });
+});
