@@ -89,6 +89,10 @@ function isTooLow(m: RegExpExecArray): boolean {
 const NOT_ANOTHER_DEVICE = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|light|fixture|panel|breaker)[^.;!?]){0,60}?`;
 /** A box left open: no cover or lid, or its splices or conductors in view. */
 const BOX_UNCOVERED = String.raw`\b(?:no|missing|without|lacks?|lacking)\s+(?:a\s+|its\s+|the\s+|any\s+)?(?:blank\s+)?(?:covers?|lids?)\b(?!\s*plates?|\s+(?:on|for|at)\s+(?:the\s+|an?\s+)?(?:[\w-]+\s+)?(?:${T.RCPT}|${T.SWITCH}|light))|\b(?:covers?|lids?)\s+(?:is\s+|are\s+)?(?:missing|absent|off|removed)\b|\b(?:splices?|wire nuts?|conductors?|connections?)\s+(?:are\s+|is\s+)?(?:visible|showing|exposed|accessible)\b`;
+/** Words between a receptacle and its condition: no other device, no clause-ending comma. */
+const RCPT_GAP = String.raw`(?:(?!${T.SWITCH}|light|fixture|panel|breaker|cords?\b|plates?\b|covers?\b|gfc?i|wir(?:e|es|ing)\b|cables?\b)[\w'/#().@:-]+\s+){0,10}?`;
+/** What goes wrong with a receptacle (common practice): heat, damage, looseness, no power. */
+const RCPT_CONDITION = String.raw`(?:(?:warm|hot)(?:\s+to\s+the\s+touch)?\b|discolou?red|scorched|burn(?:ed|t)|melted|charred|cracked|broken|damaged|loose\s+(?:in|from|at)\b|hanging\s+(?:out|loose|from)|pulled\s+(?:out|away)|(?:had\s+|has\s+)?no\s+power\b|dead\b|${T.INOPERATIVE})`;
 /** Words between a cable and its condition: not another device, whose condition it would be. */
 const WIRE_GAP = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|light|fixture|box(?:es)?\b|panel|breaker|cords?\b|service|meter)[\w'/#().@-]+,?\s+){0,10}?`;
 /** A cable said to be secured, or the cable of a splice or fixture (an open splice, a hanging fixture is that defect). */
@@ -195,6 +199,9 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`no power (?:at|to)\s+(?:the\s+)?${gap(3)}${T.RCPT}` },
       { re: rx`(?:plugs?|cords?)\s+(?:fall|falls|fell|slip|slips|pull|pulls)\s+out` },
       { re: rx`(?:loose|poor|weak|worn)\s+(?:blade\s+)?(?:tension|grip|contacts)` },
+      // A receptacle and its condition in the same clause with a longer description between ("the
+      // receptacle on the fireplace wall in the family room was warm and discolored"; common practice).
+      { re: rx`${T.RCPT}:?\s+${RCPT_GAP}(?:${T.BE})?(?:(?:noticeably|very|slightly|visibly|partly|partially)\s+)?${RCPT_CONDITION}`, unless: /\b(?:gfc?i|ground[- ]fault)\b[^.;]{0,30}\b(?:dead|no power)\b.{0,40}\breset\b/i },
     ],
   },
   {

@@ -8,7 +8,7 @@ import type { Room } from './room';
  */
 const ROOM_WORDS: ReadonlyArray<readonly [Room, string]> = [
   ['bathroom', String.raw`(?:(?:hall|guest|primary|master|main|upstairs|downstairs|half|full|kids'?|jack and jill|second|upper|lower)\s+)?bath(?:room)?s?\b|powder rooms?|en-?suites?|lavatory|restrooms?|(?:tub|shower)(?:\s+(?:area|enclosure|stall))?\b|vanity`],
-  ['kitchen', String.raw`kitchens?|kitchenette|kit\b\.?|(?:kitchen\s+)?island|breakfast (?:nook|area|bar)|pantry|(?:kitchen\s+)?counter\s*tops?|countertops?|(?:refrigerator|fridge|dishwasher|garbage disposal|disposal|range hood)(?![\w\s,]{0,30}\b(?:garage|basement|laundry|bar|utility|porch|patio)\b)`],
+  ['kitchen', String.raw`kitchens?|kitchenette|kit\b\.?|(?:kitchen\s+)?island|breakfast (?:nook|area|bar)|pantry|(?:kitchen\s+)?counter\s*tops?|countertops?|(?:refrigerator|fridge|dishwasher|garbage disposal|disposal|range hood|stove|cooktop|(?:electric\s+)?range(?=\s+(?:receptacle|outlet|cord|circuit|hood))|(?<=\b(?:the|behind|beside|near)\s)range\b)(?![\w\s,]{0,30}\b(?:garage|basement|laundry|bar|utility|porch|patio)\b)`],
   ['garage', String.raw`garages?|carports?|gar\b\.?`],
   ['exterior', String.raw`exterior(?!\s+walls?\b)|outside(?!\s+(?:walls?|corner|of|the|a|an|its|their|this|that|each|every|all|any|bedrooms?|sleeping|junction|boxes?|enclosures?|panels?)\b)|outdoors?|patio|decks?\b|porch(?:es)?|balcon(?:y|ies)|yard|pool|spa\b|hot tub|siding|eaves|soffits?|(?:service\s+|meter\s+)?pedestal|(?:front|rear|side|back) (?:wall|elevation)|ext\b\.?`],
   ['basement', String.raw`basements?|cellar|bsmt\b\.?|bsmnt\b\.?|lower level|sump`],

@@ -163,3 +163,21 @@ describe('exposed wiring: a cable and its condition in one clause (common practi
     expect(read('The bedroom cable runs at outlet height and has come loose.')).toEqual([['exposed-wiring', 'bedroom', null]]);
   });
 });
+
+describe('damaged receptacles: a receptacle and its condition with a description between (common practice; NFPA 70 (NEC) 2023, 406.4)', () => {
+  it.each([
+    ['The receptacle on the end of the island beside the stools in the kitchen was hot to the touch.', 'kitchen'],
+    ['Office: recep by the closet door hanging out of its box.', 'office'],
+    ['Den: outlet L of window: no power.', 'living-area'],
+  ])('reads %s', (sentence, room) => {
+    expect(read(sentence)).toEqual([['receptacle-damaged', room, 1]]);
+  });
+
+  it('reads a range receptacle as in the kitchen', () => {
+    expect(read('The range receptacle is loose in the wall.')).toEqual([['receptacle-damaged', 'kitchen', 1]]);
+  });
+
+  it('does not read a receptacle that tested fine', () => {
+    expect(read('The receptacle beside the bed in the guest room tested fine.')).toEqual([]);
+  });
+});
