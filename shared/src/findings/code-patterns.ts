@@ -90,7 +90,7 @@ const NOT_ANOTHER_DEVICE = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|light|fixture|
 /** A box left open: no cover or lid, or its splices or conductors in view. */
 const BOX_UNCOVERED = String.raw`\b(?:no|missing|without|lacks?|lacking)\s+(?:a\s+|its\s+|the\s+|any\s+)?(?:blank\s+)?(?:covers?|lids?)\b(?!\s*plates?|\s+(?:on|for|at)\s+(?:the\s+|an?\s+)?(?:[\w-]+\s+)?(?:${T.RCPT}|${T.SWITCH}|light))|\b(?:covers?|lids?)\s+(?:is\s+|are\s+)?(?:missing|absent|off|removed)\b|\b(?:splices?|wire nuts?|conductors?|connections?)\s+(?:are\s+|is\s+)?(?:visible|showing|exposed|accessible)\b`;
 /** Words between a receptacle and its condition: no other device, no clause-ending comma. */
-const RCPT_GAP = String.raw`(?:(?!${T.SWITCH}|light|fixture|panel|breaker|cords?\b|plates?\b|covers?\b|gfc?i|wir(?:e|es|ing)\b|cables?\b)[\w'/#().@:-]+\s+){0,10}?`;
+const RCPT_GAP = String.raw`(?:(?!${T.SWITCH}|light|fixture|panel|breaker|cords?\b|plates?\b|covers?\b|gfc?i|wir(?:e|es|ing)\b|cables?\b)[\w'/#().@:-]+\s+){0,12}?`;
 /** What goes wrong with a receptacle (common practice): heat, damage, looseness, no power. */
 const RCPT_CONDITION = String.raw`(?:(?:warm|hot)(?:\s+to\s+the\s+touch)?\b|discolou?red|scorched|burn(?:ed|t)|melted|charred|cracked|broken|damaged|loose\s+(?:in|from|at)\b|hanging\s+(?:out|loose|from)|pulled\s+(?:out|away)|(?:had\s+|has\s+)?no\s+power\b|dead\b|${T.INOPERATIVE})`;
 /** Words between a cable and its condition: not another device, whose condition it would be. */
