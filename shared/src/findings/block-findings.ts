@@ -42,7 +42,7 @@ export interface BlockContext {
 }
 
 /** A sentence that only recommends or asks for follow-up ("This should be corrected by a licensed electrician."). */
-const FOLLOW_UP = /\b(?:recommend\w*|suggest\w*|advise\w*|should be|should have|needs? to be|must be|have (?:it|this|these|them|the\s+\w+) (?:\w+ed|repaired|corrected|checked|evaluated)|correct(?:ion|ed)?|repair(?:ed|s)?|replace(?:d|ment)?|evaluat\w*|further (?:evaluation|review)|by a (?:licensed|qualified)|licensed electrician|qualified electrician|electrical contractor|for safety|safety (?:hazard|concern|issue)|fire (?:hazard|risk)|shock (?:hazard|risk)|hazard)/i;
+const FOLLOW_UP = /\b(?:recommend\w*|install (?:the|a|an|new|proper|listed)\b|suggest\w*|advise\w*|should be|should have|needs? to be|must be|have (?:it|this|these|them|the\s+\w+) (?:\w+ed|repaired|corrected|checked|evaluated)|correct(?:ion|ed)?|repair(?:ed|s)?|replace(?:d|ment)?|evaluat\w*|further (?:evaluation|review)|by a (?:licensed|qualified)|licensed electrician|qualified electrician|electrical contractor|for safety|safety (?:hazard|concern|issue)|fire (?:hazard|risk)|shock (?:hazard|risk)|hazard)/i;
 
 /** A sentence that points back to a place named before it ("It is not GFCI protected"). */
 const REFERS_BACK = /^(?:it|they|this|these|those|each|both|one|the same|also|and)\b/i;
@@ -134,7 +134,8 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
       (f) =>
         f.isFallbackOnly ||
         (f.isRecommendation && (f.confidence === 'inferred' || lastFound.some((g) => g.code === f.code || ruleOf(f.code)?.yieldsTo?.includes(g.code)))) ||
-        (f.confidence === 'inferred' && found.some((g) => g.code === f.code)),
+        // A defect at a fixed place (the panel, the service) named again in the block is the same defect.
+        ((f.confidence === 'inferred' || ruleOf(f.code)?.fixedRoom !== undefined) && found.some((g) => g.code === f.code)),
     );
     if (lastFound.length > 0 && onlyFollowUp && FOLLOW_UP.test(sentence.text)) {
       // "This should be corrected by a licensed electrician.": part of the finding(s) before it.

@@ -103,6 +103,7 @@ const WIRE_CONDITION = String.raw`(?:exposed to (?:physical )?damage|subject to 
 const GROUND_PART = String.raw`(?:ground(?:ing)? electrode(?: conductor)?|gec\b|(?:ground(?:ing)?|electrode)\s+(?:rods?|clamps?|wires?|conductors?)\b|(?:main\s+)?(?:water|gas|csst)(?:\s+(?:pipe|piping|line|main|service))?\s+bond(?:ing)?(?:\s+(?:jumper|clamp|wire|conductor|connection))?\b|bond(?:ing)?\s+(?:jumpers?|clamps?|conductors?|wires?|connections?)\b|acorn clamp)`;
 /** What goes wrong with a grounding or bonding part (common practice). */
 const GROUND_CONDITION = String.raw`(?:loose|corroded|(?:heavy|severe|some)?\s*corrosion|rust(?:ed|y)|disconnected|detached|cut(?: off)?|broken|damaged|missing|slipping off|pulled (?:off|loose|free)|(?:not|un)[- ]?(?:connected|attached|bonded|secured|clamped)|undersized|painted over|(?:appears? to )?(?:have|has) been removed|removed)\b`;
+const COVER_OFF_TO_INSPECT = /\bremoved\s+(?:by\s+(?:the\s+)?inspector\s+)?(?:for|to|during|so|when|while)\b|\bwith\s+(?:the\s+)?(?:dead[- ]?front|(?:panel\s+)?cover)(?:\s+cover)?\s+(?:was\s+)?(?:removed|off)\b|\b(?:was|were)\s+removed\.?$/i;
 const SUBPANEL_CONTEXT = /sub-?\s?panel|secondary panel|remote panel|downstream|distribution panel|feeder/i;
 
 export const CODE_RULES: readonly CodeRule[] = [
@@ -291,7 +292,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     fixedRoom: 'panel',
     patterns: [
       { re: rx`${T.NO}\s+${gap(2)}(?:dead[- ]?front|panel cover|inner cover|interior cover)(?:\s+screws?)?` },
-      { re: rx`(?:dead[- ]?front|panel cover|inner cover)(?:\s+cover)?\s+${gap(3)}${T.BE}(?:missing|absent|removed|not installed)(?:\s+(?:\w+\s+)?screws?)?` },
+      // Polarity: a cover taken off to look inside ("removed for inspection", "with the dead front removed") is procedure, not a defect.
+      { re: rx`(?:dead[- ]?front|panel cover|inner cover)(?:\s+cover)?\s+${gap(3)}${T.BE}(?:missing|absent|removed|not installed)(?:\s+(?:\w+\s+)?screws?)?`, unless: COVER_OFF_TO_INSPECT },
       { re: rx`(?:pointed|sharp|sharp[- ]tipped|drywall|sheet metal|self-tapping|incorrect|wrong|improper)\s+${gap(2)}screws?`, context: PANEL_CONTEXT },
       { re: rx`(?:missing|no)\s+${gap(2)}screws?`, context: PANEL_CONTEXT },
       { re: rx`(?:open|unused|unsealed)\s+(?:knockouts?|k\.?o\.?s?\b|breaker (?:slots?|spaces?|openings?)|slots?|openings?)`, context: PANEL_CONTEXT },

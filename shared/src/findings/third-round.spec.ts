@@ -181,3 +181,20 @@ describe('damaged receptacles: a receptacle and its condition with a description
     expect(read('The receptacle beside the bed in the guest room tested fine.')).toEqual([]);
   });
 });
+
+describe('panel: procedure is not a defect, and one panel defect told twice is one (common practice; NFPA 70 (NEC) 2023, 110.12(A))', () => {
+  it('does not read a dead front taken off for the inspection', () => {
+    expect(read('The dead front was removed for inspection.')).toEqual([]);
+    expect(read('With the panel cover removed, the bus and breakers looked clean.')).toEqual([]);
+  });
+
+  it('still reads a dead front that is missing', () => {
+    expect(read('The garage subpanel dead front is missing.')).toEqual([['panel-deficiency', 'panel', null]]);
+  });
+
+  it('reads the remedy sentence of a panel defect as its recommendation', () => {
+    const found = parseText('Two of the dead-front screws are pointed drywall screws. Pointed screws can pierce conductors; install the blunt screws the maker lists.').findings;
+    expect(found.map((f) => f.code)).toEqual(['panel-deficiency']);
+    expect(found[0].recommendation).toContain('install the blunt screws');
+  });
+});
