@@ -92,7 +92,7 @@ const BOX_UNCOVERED = String.raw`\b(?:no|missing|without|lacks?|lacking)\s+(?:a\
 /** Words between a receptacle and its condition: no other device, no clause-ending comma. */
 const RCPT_GAP = String.raw`(?:(?!${T.SWITCH}|light|fixture|panel|breaker|cords?\b|plates?\b|covers?\b|gfc?i|wir(?:e|es|ing)\b|cables?\b)[\w'/#().@:-]+\s+){0,12}?`;
 /** What goes wrong with a receptacle (common practice): heat, damage, looseness, no power. */
-const RCPT_CONDITION = String.raw`(?:(?:warm|hot)(?:\s+to\s+the\s+touch)?\b|discolou?red|scorched|burn(?:ed|t)|melted|charred|cracked|broken|damaged|loose\s+(?:in|from|at)\b|hanging\s+(?:out|loose|from)|pulled\s+(?:out|away)|(?:had\s+|has\s+)?no\s+power\b|dead\b|${T.INOPERATIVE})`;
+const RCPT_CONDITION = String.raw`(?:(?:is|are|was|were|felt|feels?|runs?|ran|running)\s+(?:(?:noticeably|very|slightly)\s+)?(?:warm|hot)\b(?!\s+(?:and|&|\/)\s+neutral)|(?:warm|hot)\s+to\s+the\s+touch|discolou?red|scorched|burn(?:ed|t)|melted|charred|cracked|broken|damaged|loose\s+(?:in|from|at)\b|hanging\s+(?:out|loose|from)|pulled\s+(?:out|away)|(?:had\s+|has\s+)?no\s+power\b|dead\b|${T.INOPERATIVE})`;
 /** Words between a cable and its condition: not another device, whose condition it would be. */
 const WIRE_GAP = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|light|fixture|box(?:es)?\b|panel|breaker|cords?\b|service|meter)[\w'/#().@-]+,?\s+){0,10}?`;
 /** A cable said to be secured, or the cable of a splice or fixture (an open splice, a hanging fixture is that defect). */
@@ -171,7 +171,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:tested|tests?|read|reads|showed?|shows|indicated?|registers?|registered)\s+(?:as\s+)?(?:ungrounded|open ground)` },
       { re: rx`(?:three|3)[- ](?:prong|slot|hole)\s+${T.RCPT}?\s*${gap(3)}(?:on|with|in|fed by)\s+(?:an?\s+)?(?:ungrounded|two[- ]wire|2[- ]wire|non-?grounded)` },
       // A feeder with no equipment ground is a subpanel defect, a plastic water line no electrode: neither is a receptacle's open ground.
-      { re: rx`(?:no|lacks?|lacking|missing|without)\s+(?:an?\s+)?(?:equipment\s+)?ground(?:ing)?(?:\s+(?:conductor|wire|path))?\b(?!\s*(?:fault|electrode|rod|clamp))`, unless: /\b(?:feeder|sub-?panel|water (?:line|pipe|service)|electrode|ground rod)\b/i },
+      { re: rx`(?:no|lacks?|lacking|missing|without)\s+(?:an?\s+)?(?:equipment\s+)?ground(?:ing)?(?:\s+(?:conductor|wire|path))?\b(?!\s*(?:fault|electrode|rod|clamp))`, unless: /\b(?:feeder|sub-?panel|water (?:line|pipe|service)|electrode|ground rod|knob[- ]?(?:and|&|n)[- ]?tube)\b/i },
       { re: rx`${T.RCPT}\s+${gap(8)}${T.BE}(?:not grounded|ungrounded)` },
     ],
   },
@@ -405,6 +405,9 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:ceiling\s+)?fans?\s+${gap(2)}${T.BE}(?:mounted|installed|hung|supported)\s+(?:on|to|from|by)\s+(?:a|an|the)?\s*(?:standard|non-?fan[- ]rated|light(?:ing)?|plastic|pancake|junction|ordinary)\s+(?:fixture\s+|outlet\s+|light\s+)?box` },
       { re: rx`(?:wobbl\w*|loose|unsecured|shaky)\s+(?:ceiling\s+)?fans?\b` },
       { re: rx`(?:not|non)[- ](?:an?\s+)?fan[- ](?:rated|support(?:ing)?)\b` },
+      // A fan hung from a box that cannot carry it (NFPA 70 (NEC) 2023, 314.27(C)): "not rated to carry a fan", "no fan brace".
+      { re: rx`fans?\s+${anyGap(12)}box\s+${anyGap(4)}(?:${T.BE})?not\s+(?:rated|listed|approved|designed)\s+(?:to\s+(?:carry|support|hold)|for)\s+(?:a\s+|the\s+)?(?:ceiling\s+)?fan` },
+      { re: rx`(?:no|without|lacks?|missing)\s+(?:a\s+|any\s+)?(?:ceiling\s+)?fan[- ](?:rated\s+)?(?:brace|box|support|bracket)`, context: /\bfans?\b/i },
     ],
   },
   {

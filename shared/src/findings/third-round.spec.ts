@@ -198,3 +198,25 @@ describe('panel: procedure is not a defect, and one panel defect told twice is o
     expect(found[0].recommendation).toContain('install the blunt screws');
   });
 });
+
+describe('fans, polarity and places (third round)', () => {
+  it('reads a fan on a box not rated to carry it, though "not" comes before the fan (NFPA 70 (NEC) 2023, 314.27(C))', () => {
+    expect(read('In the study the fan hangs from a plastic box that is not rated for a fan, and the fan sways at high speed.')).toEqual([['fan-support', 'office', 1]]);
+  });
+
+  it('reads a fan with no fan brace (NFPA 70 (NEC) 2023, 314.27(C))', () => {
+    expect(read('Den ceiling fan hangs from an ordinary light box with no fan brace.')).toEqual([['fan-support', 'living-area', 1]]);
+  });
+
+  it('reads "hot and neutral reversed" as polarity, not a hot receptacle (NFPA 70 (NEC) 2023, 200.11)', () => {
+    expect(read('The dishwasher receptacle tested with hot and neutral reversed.')).toEqual([['reversed-polarity', 'kitchen', 1]]);
+  });
+
+  it('reads a Florida room or sun porch as a living area (common practice: regional room names)', () => {
+    expect(read('The Florida room ceiling fan wobbles.')).toEqual([['fan-support', 'living-area', 1]]);
+  });
+
+  it('does not read the missing ground of knob-and-tube as an open ground at a receptacle', () => {
+    expect(read('Knob-and-tube wiring was not designed for insulation, and it has no equipment ground.').map(([code]) => code)).toEqual(['knob-and-tube']);
+  });
+});
