@@ -10,7 +10,7 @@ const ROOM_WORDS: ReadonlyArray<readonly [Room, string]> = [
   ['bathroom', String.raw`(?:(?:hall|guest|primary|master|main|upstairs|downstairs|half|full|kids'?|jack and jill|second|upper|lower)\s+)?bath(?:room)?s?\b|powder rooms?|en-?suites?|lavatory|restrooms?|(?:tub|shower)(?:\s+(?:area|enclosure|stall))?\b|vanity`],
   ['kitchen', String.raw`kitchens?|kitchenette|kit\b\.?|(?:kitchen\s+)?island|breakfast (?:nook|area|bar)|pantry|(?:kitchen\s+)?counter\s*tops?|countertops?|(?:refrigerator|fridge|dishwasher|garbage disposal|disposal|range hood|stove|cooktop|(?:electric\s+)?range(?=\s+(?:receptacle|outlet|cord|circuit|hood))|(?<=\b(?:the|behind|beside|near)\s)range\b)(?![\w\s,]{0,30}\b(?:garage|basement|laundry|bar|utility|porch|patio)\b)`],
   ['garage', String.raw`garages?|carports?|gar\b\.?`],
-  ['exterior', String.raw`exterior(?!\s+walls?\b)|outside(?!\s+(?:walls?|corner|of|the|a|an|its|their|this|that|each|every|all|any|bedrooms?|sleeping|junction|boxes?|enclosures?|panels?)\b)|outdoors?|patio|decks?\b|porch(?:es)?|balcon(?:y|ies)|yard|pool|spa\b|hot tub|siding|eaves|soffits?|(?:service\s+|meter\s+)?pedestal|(?:front|rear|side|back) (?:wall|elevation)|ext\b\.?`],
+  ['exterior', String.raw`exterior(?!\s+walls?\b)|outside(?!\s+(?:walls?|corner|of|the|a|an|its|their|this|that|each|every|all|any|bedrooms?|sleeping|junction|boxes?|enclosures?|panels?)\b)|outdoors?|patio|decks?\b|porch(?:es)?|balcon(?:y|ies)|yard|pool|spa\b|hot tub|siding|eaves|soffits?|(?:service\s+|meter\s+)?pedestal|courtyards?|lanais?|verandas?|terraces?|gazebos?|breezeways?|(?:front|rear|side|back) (?:wall|elevation)|ext\b\.?`],
   ['basement', String.raw`basements?|cellar|bsmt\b\.?|bsmnt\b\.?|lower level|sump`],
   ['crawl-space', String.raw`crawl\s?spaces?|crawl\b|(?:under|beneath) the (?:home|house|floor system)|underfloor`],
   ['laundry', String.raw`laundry(?:\s+(?:room|area|closet))?|washer|dryer|utility room|mud ?room`],
@@ -83,6 +83,10 @@ export function findRooms(text: string): RoomMention[] {
   for (let i = 0; i + 1 < found.length; i++) {
     const [a, b] = [found[i], found[i + 1]];
     if (LEVEL_ROOMS.has(a.room) && HABITABLE.has(b.room) && /^[\s-]*$/.test(text.slice(a.end, b.start))) found[i] = { ...a, isReferencePoint: true };
+  }
+  // An entry named with the outside ("at the front entry, loose from the siding") is the outside entry.
+  if (found.some((r) => r.room === 'exterior' && !r.isReferencePoint)) {
+    for (let i = 0; i < found.length; i++) if (/\bentry\b/i.test(found[i].text) && found[i].room === 'hallway') found[i] = { ...found[i], room: 'exterior' };
   }
   // A wall named by its side ("the back wall", "the side wall") is the outside of the house only
   // when nothing else names the room: "the back wall of the garage" is in the garage.

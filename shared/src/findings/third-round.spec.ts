@@ -220,3 +220,21 @@ describe('fans, polarity and places (third round)', () => {
     expect(read('Knob-and-tube wiring was not designed for insulation, and it has no equipment ground.').map(([code]) => code)).toEqual(['knob-and-tube']);
   });
 });
+
+describe('lights: a light and its condition in one clause (common practice; NFPA 70 (NEC) 2023, 410.16)', () => {
+  it('reads water in a globe and rust', () => {
+    expect(read('Hall bath vanity light has water in the globe.')).toEqual([['light-fixture', 'bathroom', 1]]);
+  });
+
+  it('reads a courtyard light (courtyard, lanai, veranda are outside)', () => {
+    expect(read('- Courtyard wall light loose')).toEqual([['light-fixture', 'exterior', 1]]);
+  });
+
+  it('reads an entry named with the siding as the outside entry', () => {
+    expect(read('The light at the side entry is pulling away from the siding.')).toEqual([['light-fixture', 'exterior', 1]]);
+  });
+
+  it('does not read loose-fill insulation near fixtures as a loose fixture', () => {
+    expect(read('Wiring runs toward the ceiling fixtures of the front rooms, and loose-fill insulation covers it.').map(([code]) => code)).not.toContain('light-fixture');
+  });
+});
