@@ -47,6 +47,12 @@ export interface CodeRule {
   readonly placeAnywhereInSentence?: boolean;
   /** Whether the room comes only from the sentence itself or the default (never from earlier sentences or the heading). */
   readonly ignoresContext?: boolean;
+  /**
+   * Whether the code is a condition of the house's wiring as a whole (aluminum branch wiring): the
+   * places a sentence names are where it was seen, not its extent, unless the sentence limits it
+   * ("only in the garage", "within the addition", "throughout the basement").
+   */
+  readonly isHouseWide?: boolean;
   /** Whether the code stands only in a block (item or paragraph) with no other finding. */
   readonly isFallbackOnly?: boolean;
 }
@@ -435,6 +441,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'aluminum-branch-wiring',
     trigger: /alum|\bal\b/i,
     defaultRoom: 'whole-house',
+    isHouseWide: true,
+    ignoresContext: true,
     patterns: [
       {
         re: rx`(?:(?:single|solid)[- ](?:strand(?:ed)?|conductor)\s+)?(?:aluminum|aluminium|alum\.?|al)\s+(?:single[- ]strand\s+|solid\s+)?(?:branch(?:[- ]circuit)?\s+)?(?:circuit\s+)?(?:wir(?:e|es|ing)|conductors?|circuits?)\b`,

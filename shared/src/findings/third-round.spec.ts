@@ -238,3 +238,17 @@ describe('lights: a light and its condition in one clause (common practice; NFPA
     expect(read('Wiring runs toward the ceiling fixtures of the front rooms, and loose-fill insulation covers it.').map(([code]) => code)).not.toContain('light-fixture');
   });
 });
+
+describe('aluminum branch wiring is a condition of the whole house (common practice; NFPA 70 (NEC) 2023, 110.14)', () => {
+  it('reads the rooms where it was seen as sample points', () => {
+    expect(read('Solid aluminum branch conductors were seen at the receptacles opened in the den and a bedroom.')).toEqual([['aluminum-branch-wiring', 'whole-house', null]]);
+  });
+
+  it('does not take the room of its heading', () => {
+    expect(read('LAUNDRY\nThe branch circuits are solid aluminum wiring.')).toEqual([['aluminum-branch-wiring', 'whole-house', null]]);
+  });
+
+  it('keeps a place the sentence limits it to', () => {
+    expect(read('Only the garage addition is wired with solid aluminum wiring.')).toEqual([['aluminum-branch-wiring', 'garage', null]]);
+  });
+});
