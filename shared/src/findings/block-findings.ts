@@ -1,6 +1,6 @@
 import { clauseRanges } from './clause-splitter';
 import { matchCodes, type CodeMatch } from './code-matcher';
-import { CODE_RULES, type CodeRule } from './code-patterns';
+import { CODE_RULES, WHOLE_SYSTEM, type CodeRule } from './code-patterns';
 import { readLocation } from './location-reader';
 import type { FindingCode } from './finding-code';
 import type { MappedText } from './mapped-text';
@@ -132,7 +132,7 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
     // of the defect before it (GFCI protection for an ungrounded receptacle).
     const onlyFollowUp = inSentence.every(
       (f) =>
-        f.isFallbackOnly ||
+        (f.isFallbackOnly && !WHOLE_SYSTEM.test(f.sentence.text)) ||
         (f.isRecommendation && (f.confidence === 'inferred' || lastFound.some((g) => g.code === f.code || ruleOf(f.code)?.yieldsTo?.includes(g.code)))) ||
         // A defect at a fixed place (the panel, the service) named again in the block is the same defect.
         ((f.confidence === 'inferred' || ruleOf(f.code)?.fixedRoom !== undefined) && found.some((g) => g.code === f.code)),
@@ -200,6 +200,7 @@ function subjectMatch(section: Section, text: string): CodeMatch | null {
 
 const WIRING_METHODS: ReadonlySet<string> = new Set(['knob-and-tube', 'aluminum-branch-wiring']);
 
+
 function keepDistinct(all: readonly BlockFinding[]): BlockFinding[] {
   // A wiring method named again in the block without a place of its own is the same wiring.
   const found = all.filter(
@@ -207,7 +208,7 @@ function keepDistinct(all: readonly BlockFinding[]): BlockFinding[] {
   );
   const specific = found.filter(
     (f) =>
-      !f.isFallbackOnly &&
+      (!f.isFallbackOnly || WHOLE_SYSTEM.test(f.sentence.text)) &&
       !found.some((g) => g !== f && !g.isRecommendation && g.room === f.room && ruleOf(f.code)?.yieldsInBlockTo?.includes(g.code)),
   );
   const pool = specific.length > 0 ? specific : found.filter((f, i) => found.findIndex((g) => g.code === f.code) === i);

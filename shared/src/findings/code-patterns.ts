@@ -69,6 +69,15 @@ const NOT_ABOUT_ADDING = String.raw`(?:(?!replac|repair|reset|test|check)[\w-]+\
 const NOT_APPLIANCE = String.raw`(?<!\b(?:hood|range|oven|microwave|refrigerator|fridge|freezer|opener|appliance|exhaust fan)\s)`;
 /** A general evaluation that is conditional or points at items listed elsewhere ("all of the above") is not a finding of its own. */
 const REFERS_TO_OTHERS = /\bif\b|\bany\b|\bshould any\b|\babove\b|\bbelow\b|\bfollowing\b|\bthese\b|\bthis section\b|\b(?:items?|conditions?|defects?|deficiencies) (?:in|of|listed|noted)\b|\blisted\b|\bmarked\b|\bitems\b|\bitem \d|\bdeficien\w*|\b(?:repairs|corrections)\s+(?:should|shall|must|are|to|by)\b|\bthe cause\b|\baffected\b/i;
+/**
+ * A general evaluation of the whole system ("evaluate the entire electrical system", "a full
+ * evaluation of the wiring") is its own item beside a block's specific defects: its scope is the
+ * house, not the defect before it (common practice). One that names a wiring method or "these"
+ * repairs is that finding's recommendation.
+ */
+export const WHOLE_SYSTEM = /^(?![\s\S]*\b(?:alumin\w*|knob|k&t|legacy|these|those)\b)[\s\S]*?(?:\b(?:entire|whole|full|complete|comprehensive|overall)\s+(?:[\w-]+\s+){0,2}?(?:system|house|home|wiring|evaluation|review)\b|\bevaluate the (?:electrical )?system\b)/i;
+/** An evaluation that points at other items, unless it is of the whole system ("so that any hidden conditions can be priced"). */
+const REFERS_TO_OTHERS_ONLY = new RegExp(`^(?![\\s\\S]*(?:${WHOLE_SYSTEM.source}))[\\s\\S]*?(?:${REFERS_TO_OTHERS.source})`, 'i');
 const PANEL_CONTEXT = /panel|dead[- ]?front|load cent|breaker box|fuse box|enclosure/i;
 /** A bare "cover" next to a junction box is the box's cover, not a device cover plate. */
 const JBOX_WORD = /junction|j-?\s?box|\bbox(?:es)?\b/i;
@@ -500,8 +509,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     // An evaluation of the system is house-wide wherever the sentence stands; only a place it names narrows it.
     ignoresContext: true,
     patterns: [
-      { re: rx`(?:evaluat|review|inspect|assess|examin|diagnos|correct|repair)\w*\s+${anyGap(8)}(?:by|from)\s+(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)s?`, unless: REFERS_TO_OTHERS },
-      { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check)`, unless: REFERS_TO_OTHERS },
+      { re: rx`(?:evaluat|review|inspect|assess|examin|diagnos|correct|repair)\w*\s+${anyGap(8)}(?:by|from)\s+(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)s?`, unless: REFERS_TO_OTHERS_ONLY },
+      { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check)`, unless: REFERS_TO_OTHERS_ONLY },
       { re: rx`(?:consult|contact|hire|engage|retain|call)\s+(?:with\s+)?(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)`, unless: /\bif\b|\bany\b/i },
     ],
   },

@@ -252,3 +252,29 @@ describe('aluminum branch wiring is a condition of the whole house (common pract
     expect(read('Only the garage addition is wired with solid aluminum wiring.')).toEqual([['aluminum-branch-wiring', 'garage', null]]);
   });
 });
+
+describe('grouping: an evaluation of the whole system is its own item (common practice)', () => {
+  it('stands beside the specific defects of its paragraph', () => {
+    const text = 'The hall switch is loose in the wall. Given the age of the house, we recommend that a licensed electrician evaluate the entire electrical system so that any hidden conditions can be priced.';
+    expect(read(text)).toEqual([
+      ['switch-issue', 'hallway', 1],
+      ['evaluate-general', 'whole-house', null],
+    ]);
+  });
+
+  it('is the recommendation of the defect before it when it points at it', () => {
+    const text = 'The hall switch is loose in the wall. This should be evaluated by a licensed electrician.';
+    expect(read(text)).toEqual([['switch-issue', 'hallway', 1]]);
+  });
+
+  it('belongs to a wiring method it names', () => {
+    const text = 'Solid aluminum branch wiring is present. A licensed electrician familiar with aluminum wiring should evaluate the entire house.';
+    expect(read(text)).toEqual([['aluminum-branch-wiring', 'whole-house', null]]);
+  });
+});
+
+describe('places: a pedestal sink is in the bathroom, not a service pedestal', () => {
+  it('reads the room the sentence names', () => {
+    expect(read('No GFCI protection at the receptacle beside the pedestal sink in the powder room.')).toEqual([['gfci-missing', 'bathroom', 1]]);
+  });
+});
