@@ -1,14 +1,7 @@
 import type { Knex } from 'knex';
 import { DEFAULT_DAY_PLAN_SETTINGS } from '@cc/shared';
 import { BRIGHTLINE_SHOP, ORGANISATIONS, PEOPLE, PLANNED_DAY_VISITS } from './data/demo-scenario';
-
-/** The next Monday-to-Friday day after today (UTC), as YYYY-MM-DD. */
-function nextWeekday(): string {
-  const d = new Date();
-  do d.setUTCDate(d.getUTCDate() + 1);
-  while (d.getUTCDay() === 0 || d.getUTCDay() === 6);
-  return d.toISOString().slice(0, 10);
-}
+import { nextWeekday } from './data/next-weekday';
 
 // Brightline's planning settings (defaults, with its shop) and a planned day for Sam Okafor on the
 // next weekday: a site visit for each scheduled request of PLANNED_DAY_VISITS, taking its approved

@@ -5,17 +5,17 @@ import { requestPathTo, type FindingCode, type RequestEvent, type RequestStatus,
 export const DEMO_PASSWORD = 'marlow-springs-demo';
 
 export const ORGANISATIONS = [
-  { key: 'juniper', name: 'Juniper Key Realty', kind: 'brokerage', phone: '(719) 555-0141', address: '12 Aspen Row, Marlow Springs, CO 81290' },
-  { key: 'tallgrass', name: 'Tallgrass Home Partners', kind: 'brokerage', phone: '(719) 555-0178', address: '480 Mill Street, Marlow Springs, CO 81290' },
+  { key: 'juniper', name: 'Juniper Key Realty', kind: 'brokerage', phone: '(719) 555-0141', address: '12 Aspen Row, Marlow Springs, CO 80903' },
+  { key: 'tallgrass', name: 'Tallgrass Home Partners', kind: 'brokerage', phone: '(719) 555-0178', address: '480 Mill Street, Marlow Springs, CO 80903' },
   {
-    key: 'brightline', name: 'Brightline Electric Co.', kind: 'contractor', phone: '(719) 555-0123', address: '77 Foundry Lane, Marlow Springs, CO 81290',
+    key: 'brightline', name: 'Brightline Electric Co.', kind: 'contractor', phone: '(719) 555-0123', address: '77 Foundry Lane, Marlow Springs, CO 80903',
     licenceNumber: 'EC-0048215', licenceState: 'CO', licenceClass: 'Electrical contractor (master on staff)',
   },
   {
-    key: 'copperleaf', name: 'Copperleaf Electrical Services', kind: 'contractor', phone: '(719) 555-0190', address: '3 Quarry Bend Road, Quarry Bend, CO 81292',
+    key: 'copperleaf', name: 'Copperleaf Electrical Services', kind: 'contractor', phone: '(719) 555-0190', address: '3 Quarry Bend Road, Quarry Bend, CO 80817',
     licenceNumber: 'EC-0051907', licenceState: 'CO', licenceClass: 'Electrical contractor',
   },
-  { key: 'keystone', name: 'Keystone Lens Home Inspections', kind: 'inspection-company', phone: '(719) 555-0166', address: '9 Ridgeview Court, Marlow Springs, CO 81290' },
+  { key: 'keystone', name: 'Keystone Lens Home Inspections', kind: 'inspection-company', phone: '(719) 555-0166', address: '9 Ridgeview Court, Marlow Springs, CO 80903' },
   { key: 'platform', name: 'Closing Circuit', kind: 'platform', phone: null, address: null },
 ] as const;
 
@@ -79,19 +79,19 @@ const junction: DemoItem = { code: 'open-junction-box', room: 'attic', location:
 const upTo = (status: RequestStatus): RequestEvent[] => requestPathTo(status).map((m) => m.event);
 
 export const REQUESTS: DemoRequest[] = [
-  { street: '214 Larkspur Lane', city: 'Marlow Springs', zip: '81290', yearBuilt: 1987, closingInDays: 24, necEdition: 2023, path: upTo('draft'), buyerAgent: 'maya', listingAgent: null, seller: null, invitedSellerEmail: 'walt.simms@mail.test', inspector: null, contractor: null, items: [] },
-  { street: '9 Foundry Court', city: 'Marlow Springs', zip: '81290', yearBuilt: 1962, closingInDays: 19, necEdition: 2023, path: upTo('intake'), buyerAgent: 'maya', listingAgent: 'rob', seller: 'ellen', inspector: 'nora', contractor: 'brightline', items: [] },
-  { street: '1180 Ridgeview Drive', city: 'Marlow Springs', zip: '81290', yearBuilt: 2004, closingInDays: 16, necEdition: 2023, path: upTo('pricing'), buyerAgent: 'maya', listingAgent: 'rob', seller: 'tomas', inspector: 'nora', contractor: 'brightline', items: [gfciKitchen, gfciBath, weatherCover, doubleTap] },
-  { street: '56 Quarry Bend Road', city: 'Quarry Bend', zip: '81292', yearBuilt: 1948, closingInDays: 12, necEdition: 2020, path: upTo('pricing'), buyerAgent: 'priya', listingAgent: null, seller: 'june', inspector: 'nora', contractor: 'copperleaf', items: [openGround, polarity, junction] },
-  { street: '702 Aspen Row', city: 'Marlow Springs', zip: '81290', yearBuilt: 1975, closingInDays: 14, necEdition: 2023, path: upTo('quoted'), buyerAgent: 'maya', listingAgent: 'rob', seller: 'ellen', inspector: 'nora', contractor: 'brightline', items: [gfciBath, polarity, smoke] },
-  { street: '33 Mill Street', city: 'Marlow Springs', zip: '81290', yearBuilt: 1958, closingInDays: 9, necEdition: 2023, path: upTo('approved'), buyerAgent: 'priya', listingAgent: 'rob', seller: 'tomas', inspector: 'nora', contractor: 'brightline', items: [openGround, doubleTap] },
-  { street: '418 Wren Hollow', city: 'Marlow Springs', zip: '81290', yearBuilt: 1991, closingInDays: 6, necEdition: 2023, path: upTo('scheduled'), buyerAgent: 'maya', listingAgent: null, seller: 'june', inspector: 'nora', contractor: 'brightline', items: [gfciKitchen, weatherCover] },
-  { street: '87 Tinsmith Way', city: 'Marlow Springs', zip: '81290', yearBuilt: 1969, closingInDays: 4, necEdition: 2023, path: upTo('in-progress'), buyerAgent: 'maya', listingAgent: 'rob', seller: 'ellen', inspector: 'nora', contractor: 'brightline', items: [gfciBath, junction, smoke] },
-  { street: '1502 Sawmill Ridge', city: 'Quarry Bend', zip: '81292', yearBuilt: 2011, closingInDays: 3, necEdition: 2020, path: upTo('corrected'), buyerAgent: 'priya', listingAgent: 'rob', seller: 'tomas', inspector: 'nora', contractor: 'brightline', items: [weatherCover] },
-  { street: '25 Lantern Square', city: 'Marlow Springs', zip: '81290', yearBuilt: 1999, closingInDays: 2, necEdition: 2023, path: upTo('letter-issued'), buyerAgent: 'maya', listingAgent: 'rob', seller: 'june', inspector: 'nora', contractor: 'brightline', items: [doubleTap, gfciKitchen] },
-  { street: '640 Bellweather Road', city: 'Marlow Springs', zip: '81290', yearBuilt: 1983, closingInDays: -5, necEdition: 2023, path: upTo('accepted'), buyerAgent: 'maya', listingAgent: null, seller: 'ellen', inspector: 'nora', contractor: 'brightline', items: [polarity] },
-  { street: '12 Cobble Creek Lane', city: 'Marlow Springs', zip: '81290', yearBuilt: 1955, closingInDays: 30, necEdition: 2023, path: upTo('declined'), buyerAgent: 'priya', listingAgent: 'rob', seller: 'june', inspector: 'nora', contractor: 'brightline', items: [openGround] },
-  { street: '301 Kestrel Point', city: 'Quarry Bend', zip: '81292', yearBuilt: 1979, closingInDays: 21, necEdition: 2020, path: [...upTo('intake'), 'withdraw'], buyerAgent: 'maya', listingAgent: null, seller: 'tomas', inspector: 'nora', contractor: 'copperleaf', items: [] },
+  { street: '214 Larkspur Lane', city: 'Marlow Springs', zip: '80903', yearBuilt: 1987, closingInDays: 24, necEdition: 2023, path: upTo('draft'), buyerAgent: 'maya', listingAgent: null, seller: null, invitedSellerEmail: 'walt.simms@mail.test', inspector: null, contractor: null, items: [] },
+  { street: '9 Foundry Court', city: 'Marlow Springs', zip: '80903', yearBuilt: 1962, closingInDays: 19, necEdition: 2023, path: upTo('intake'), buyerAgent: 'maya', listingAgent: 'rob', seller: 'ellen', inspector: 'nora', contractor: 'brightline', items: [] },
+  { street: '1180 Ridgeview Drive', city: 'Marlow Springs', zip: '80903', yearBuilt: 2004, closingInDays: 16, necEdition: 2023, path: upTo('pricing'), buyerAgent: 'maya', listingAgent: 'rob', seller: 'tomas', inspector: 'nora', contractor: 'brightline', items: [gfciKitchen, gfciBath, weatherCover, doubleTap] },
+  { street: '56 Quarry Bend Road', city: 'Quarry Bend', zip: '80817', yearBuilt: 1948, closingInDays: 12, necEdition: 2020, path: upTo('pricing'), buyerAgent: 'priya', listingAgent: null, seller: 'june', inspector: 'nora', contractor: 'copperleaf', items: [openGround, polarity, junction] },
+  { street: '702 Aspen Row', city: 'Marlow Springs', zip: '80903', yearBuilt: 1975, closingInDays: 14, necEdition: 2023, path: upTo('quoted'), buyerAgent: 'maya', listingAgent: 'rob', seller: 'ellen', inspector: 'nora', contractor: 'brightline', items: [gfciBath, polarity, smoke] },
+  { street: '33 Mill Street', city: 'Marlow Springs', zip: '80903', yearBuilt: 1958, closingInDays: 9, necEdition: 2023, path: upTo('approved'), buyerAgent: 'priya', listingAgent: 'rob', seller: 'tomas', inspector: 'nora', contractor: 'brightline', items: [openGround, doubleTap] },
+  { street: '418 Wren Hollow', city: 'Marlow Springs', zip: '80903', yearBuilt: 1991, closingInDays: 6, necEdition: 2023, path: upTo('scheduled'), buyerAgent: 'maya', listingAgent: null, seller: 'june', inspector: 'nora', contractor: 'brightline', items: [gfciKitchen, weatherCover] },
+  { street: '87 Tinsmith Way', city: 'Marlow Springs', zip: '80903', yearBuilt: 1969, closingInDays: 4, necEdition: 2023, path: upTo('in-progress'), buyerAgent: 'maya', listingAgent: 'rob', seller: 'ellen', inspector: 'nora', contractor: 'brightline', items: [gfciBath, junction, smoke] },
+  { street: '1502 Sawmill Ridge', city: 'Quarry Bend', zip: '80817', yearBuilt: 2011, closingInDays: 3, necEdition: 2020, path: upTo('corrected'), buyerAgent: 'priya', listingAgent: 'rob', seller: 'tomas', inspector: 'nora', contractor: 'brightline', items: [weatherCover] },
+  { street: '25 Lantern Square', city: 'Marlow Springs', zip: '80903', yearBuilt: 1999, closingInDays: 2, necEdition: 2023, path: upTo('letter-issued'), buyerAgent: 'maya', listingAgent: 'rob', seller: 'june', inspector: 'nora', contractor: 'brightline', items: [doubleTap, gfciKitchen] },
+  { street: '640 Bellweather Road', city: 'Marlow Springs', zip: '80903', yearBuilt: 1983, closingInDays: -5, necEdition: 2023, path: upTo('accepted'), buyerAgent: 'maya', listingAgent: null, seller: 'ellen', inspector: 'nora', contractor: 'brightline', items: [polarity] },
+  { street: '12 Cobble Creek Lane', city: 'Marlow Springs', zip: '80903', yearBuilt: 1955, closingInDays: 30, necEdition: 2023, path: upTo('declined'), buyerAgent: 'priya', listingAgent: 'rob', seller: 'june', inspector: 'nora', contractor: 'brightline', items: [openGround] },
+  { street: '301 Kestrel Point', city: 'Quarry Bend', zip: '80817', yearBuilt: 1979, closingInDays: 21, necEdition: 2020, path: [...upTo('intake'), 'withdraw'], buyerAgent: 'maya', listingAgent: null, seller: 'tomas', inspector: 'nora', contractor: 'copperleaf', items: [] },
   // Brightline's planned day (seeds/05_day_plan.ts books their visits for Sam Okafor on the next
   // weekday) and approved jobs nearby still waiting for a visit. Real ZIP codes of the ZIP-code list,
   // so the day plan can place them; the town, streets and people stay invented.
@@ -123,9 +123,8 @@ function plannedDayRequests(): DemoRequest[] {
   ];
 }
 
-/** The demo's planned day of site visits (booked by seeds/05_site_visits.ts), days from the seeding day. */
+/** Two more visits of the demo's planned day (booked by seeds/05_site_visits.ts on the next weekday). */
 export const DEMO_PLANNED_DAY = {
-  inDays: 1,
   electricianEmail: 'sam.okafor@brightline.test',
   stops: [
     { street: '418 Wren Hollow', arrivalFrom: '08:00', arrivalTo: '09:00', accessNotes: 'Seller home until 9; side gate unlocked' },

@@ -258,7 +258,13 @@ describe('POST /api/day-plan/visits/:visitId/move', () => {
       expect(moved.from.stops.some((s) => s.visitId === visitId)).toBe(false);
       expect(moved.to).toMatchObject({ date: other, electrician: { id: cast.users.colleague.id } });
       expect(moved.to.stops.find((s) => s.visitId === visitId)).toMatchObject({ arrivalFrom: '09:00', arrivalTo: '11:00' });
-      expect(told).toHaveBeenCalledWith({ requestId, visitNumber: 1, date: other, arrivalFrom: '09:00', arrivalTo: '11:00' });
+      expect(told).toHaveBeenCalledWith(
+        expect.anything(),
+        expect.objectContaining({ requestId, visitNumber: 1, date: other, arrivalFrom: '09:00', arrivalTo: '11:00', previous: expect.objectContaining({ date }) }),
+      );
+      const mail = await t.db('outbox_messages').where({ request_id: requestId, kind: 'visit-scheduled' }).orderBy('id', 'desc').first('subject', 'text_body');
+      expect(mail.subject).toContain('moved to');
+      expect(mail.text_body).toContain('It was on');
     } finally {
       told.mockRestore();
     }

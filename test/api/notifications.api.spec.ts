@@ -196,19 +196,52 @@ describe('the outbox worker', () => {
 describe('preferences', () => {
   const put = (who: SignedIn, preferences: object[]) => write(who, 'put', '/api/notifications/preferences').send({ preferences });
 
-  it('lists every message a person can set, with its default delivery', async () => {
-    const res = await cast.s.seller.agent.get('/api/notifications/preferences').expect(200);
-    expect(res.body).toContainEqual({ kind: 'quote-sent', label: 'Quote sent', delivery: 'immediate', isDigestOnly: false });
-    expect(res.body).toContainEqual({ kind: 'closing-at-risk', label: 'Closing at risk (daily digest)', delivery: 'digest', isDigestOnly: true });
-    expect(res.body.map((p: { kind: string }) => p.kind)).not.toContain('invitation');
+  const kindsOf = async (who: SignedIn) => ((await who.agent.get('/api/notifications/preferences').expect(200)).body as { kind: string }[]).map((p) => p.kind);
+
+  it('lists the messages a person can receive, with their default delivery', async () => {
+    const agent = (await cast.s.listingAgent.agent.get('/api/notifications/preferences').expect(200)).body;
+    expect(agent).toContainEqual({ kind: 'quote-sent', label: 'Quote sent', delivery: 'immediate', isDigestOnly: false });
+    expect(agent).toContainEqual({ kind: 'closing-at-risk', label: 'Closing at risk (daily digest)', delivery: 'digest', isDigestOnly: true });
+    expect(agent.map((p: { kind: string }) => p.kind)).not.toContain('invitation');
     await request(t.app).get('/api/notifications/preferences').expect(401);
   });
 
+  it('lists only the messages of the parts a role can play', async () => {
+    const seller = await kindsOf(cast.s.seller);
+    expect(seller).toEqual(expect.arrayContaining(['quote-sent', 'payment-received', 'visit-scheduled', 'item-corrected']));
+    expect(seller).not.toContain('closing-at-risk');
+    expect(seller).not.toContain('letter-issued');
+    expect(seller).not.toContain('ready-to-price');
+    expect(await kindsOf(cast.s.inspector)).toEqual(['letter-issued']);
+    const contractor = await kindsOf(cast.s.contractor);
+    expect(contractor).toEqual(expect.arrayContaining(['ready-to-price', 'items-decided', 'closing-at-risk']));
+    expect(contractor).not.toContain('quote-sent');
+    expect(await kindsOf(cast.s.admin)).toEqual([]);
+  });
+
   it('refuses settings that cannot be (400 with the field)', async () => {
-    const res = await put(cast.s.seller, [{ kind: 'closing-at-risk', delivery: 'immediate' }]).expect(400);
+    const res = await put(cast.s.listingAgent, [{ kind: 'closing-at-risk', delivery: 'immediate' }]).expect(400);
     expect(res.body.details).toEqual([{ path: 'preferences.0.delivery', message: 'This message comes only in the daily digest' }]);
     await put(cast.s.seller, [{ kind: 'invitation', delivery: 'off' }]).expect(400);
     await put(cast.s.seller, [{ kind: 'quote-sent', delivery: 'weekly' }]).expect(400);
+    const foreign = await put(cast.s.seller, [{ kind: 'quote-sent', delivery: 'off' }, { kind: 'letter-issued', delivery: 'off' }]).expect(400);
+    expect(foreign.body.details).toEqual([{ path: 'preferences.1.kind', message: 'Your account never receives this message' }]);
+    expect(await t.db('notification_preferences').where({ user_id: cast.users.seller.id, kind: 'quote-sent' }).first()).toBeUndefined();
+  });
+
+  it('sends nothing to a deactivated account', async () => {
+    const { requestId: id } = await createPricedRequest(cast, t.db, { items: [{ code: 'gfci-inoperative', quantity: 1 }] });
+    await worker.drain();
+    mail.clear();
+    await t.db('users').where({ id: cast.users.seller.id }).update({ is_active: false });
+    try {
+      await notify({ kind: 'payment-received', requestId: id, actorUserId: null, paymentId: 98, amountCents: 4_000, receiptNumber: null });
+      await worker.drain();
+      expect(receivers()).not.toContain('seller');
+      expect(receivers()).toEqual(expect.arrayContaining(['contractor', 'listingAgent']));
+    } finally {
+      await t.db('users').where({ id: cast.users.seller.id }).update({ is_active: true });
+    }
   });
 
   it('honours “off” and “digest”; the digest folds what waited into one message with an unsubscribe link', async () => {

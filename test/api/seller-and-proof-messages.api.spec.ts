@@ -291,10 +291,19 @@ describe('in the transaction of the change', () => {
 describe('preferences', () => {
   const put = (who: SignedIn, preferences: object[]) => write(who, 'put', '/api/notifications/preferences').send({ preferences });
 
-  it('lists the new messages once each, with their labels', async () => {
-    const kinds = ((await cast.s.seller.agent.get('/api/notifications/preferences').expect(200)).body as { kind: string; label: string }[]).map((p) => p.kind);
-    for (const kind of ['change-order-sent', 'change-order-decided', 'refund-settled', 'items-decided', 'payment-received', 'visit-scheduled', 'item-corrected', 'letter-issued']) {
-      expect(kinds.filter((k) => k === kind)).toHaveLength(1);
+  it('lists the new messages once each to the people who receive them', async () => {
+    const kindsOf = async (who: SignedIn) => ((await who.agent.get('/api/notifications/preferences').expect(200)).body as { kind: string }[]).map((p) => p.kind);
+    const seller = await kindsOf(cast.s.seller);
+    const listingAgent = await kindsOf(cast.s.listingAgent);
+    const contractor = await kindsOf(cast.s.contractor);
+    for (const kind of ['change-order-sent', 'refund-settled', 'payment-received', 'visit-scheduled', 'item-corrected']) {
+      expect(seller.filter((k) => k === kind)).toHaveLength(1);
+    }
+    for (const kind of ['items-decided', 'visit-scheduled', 'item-corrected', 'letter-issued']) {
+      expect(listingAgent.filter((k) => k === kind)).toHaveLength(1);
+    }
+    for (const kind of ['change-order-decided', 'refund-settled', 'items-decided', 'payment-received']) {
+      expect(contractor.filter((k) => k === kind)).toHaveLength(1);
     }
   });
 

@@ -5,11 +5,11 @@ import { expectAccessible, launchBrowser, openPage, portalUrl, screenshot, signI
 jest.setTimeout(180_000);
 
 // The demo scenario (seeds/data/demo-scenario.ts, seeds/05_day_plan.ts): Brightline's shop is in
-// Marlow Springs; Sam Okafor has a planned day of four visits on the next weekday, and four approved
-// jobs nearby wait for a visit. Sam, working the office, books three of them for Lee Park on one day,
+// Marlow Springs; Sam Okafor has a planned day of four visits on the next weekday, and five approved
+// jobs nearby wait for a visit (four of the planned-day seed, and 33 Mill Street of the main scenario). Sam, working the office, books three of them for Lee Park on one day,
 // sees them ordered with times, moves one to himself, and exports a visit's calendar file.
 const OFFICE = 'sam.okafor@brightline.test';
-const WAITING = ['58 Weaver Lane', '7 Tannery Close', '311 Spindle Way', '140 Cooper Hill'];
+const WAITING = ['58 Weaver Lane', '7 Tannery Close', '311 Spindle Way', '140 Cooper Hill', '33 Mill Street'];
 
 let browser: Browser;
 beforeAll(async () => {

@@ -188,7 +188,8 @@ export class DayPlanService {
       await this.siteVisits.reschedule(visitId, { date: input.date, electricianId: input.electricianId, ...window }, trx);
       // The seller's side hears the new day or window, written to the outbox with the move itself.
       if (input.date !== visit.date || window.arrivalFrom !== visit.arrivalFrom || window.arrivalTo !== visit.arrivalTo) {
-        await this.messages.visitScheduled(trx, { requestId: visit.requestId, visitNumber: visit.number, date: input.date, ...window, by: user.id });
+        const previous = { date: visit.date, arrivalFrom: visit.arrivalFrom, arrivalTo: visit.arrivalTo };
+        await this.messages.visitScheduled(trx, { requestId: visit.requestId, visitNumber: visit.number, date: input.date, ...window, by: user.id, previous });
       }
     });
     return {

@@ -1,11 +1,10 @@
-import { requestReference, type AcceptInvitation, type CurrentUser, type Invitation } from '@cc/shared';
+import { requestReference, ROLE_FOR_PARTY, type AcceptInvitation, type CurrentUser, type Invitation } from '@cc/shared';
 import type { Db } from '../db/knex';
 import { inTransaction } from '../db/transaction';
 import type { RequestRepository } from '../requests/request.repository';
 import type { UserRepository } from '../auth/user.repository';
 import { ConflictError, ForbiddenError, NotFoundError } from '../errors';
 import type { Passwords } from '../auth/passwords';
-import { ROLE_FOR_PARTY } from '../requests/requests.service';
 
 const ACCEPTED_ALREADY = 'This invitation was accepted already. Sign in to open the request.';
 

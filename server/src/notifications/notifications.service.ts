@@ -5,6 +5,7 @@
 import { createHash } from 'node:crypto';
 import {
   ADJUSTABLE_KINDS,
+  kindsForRole,
   NOTIFICATION_RULES,
   requestReference,
   type ActivityKind,
@@ -17,7 +18,7 @@ import {
 } from '@cc/shared';
 import type { NewActivity, ActivityRepository } from '../activity/activity.repository';
 import type { Db, Trx } from '../db/knex';
-import { NotFoundError } from '../errors';
+import { NotFoundError, ValidationError } from '../errors';
 import { footerFor, layOut, wordsFor, type RequestFacts } from './message-templates';
 import { occurrenceOf, type NotifyInput } from './notify-input';
 import type { NewOutboxMessage, OutboxRepository } from './outbox.repository';
@@ -150,6 +151,7 @@ export class NotificationsService {
     const roles = parts.filter((p): p is PartyRole => p !== 'contractor' && p !== 'admin');
     const rows: { id: number; email: string; name: string }[] = await trx('users as u')
       .select('u.id', 'u.email', 'u.name')
+      .where('u.is_active', true)
       .where((w) => {
         if (roles.length) {
           w.whereIn('u.id', trx('request_parties').select('user_id').where({ request_id: requestId }).whereIn('role', roles).whereNotNull('user_id'));
@@ -169,7 +171,7 @@ export class NotificationsService {
 
   async preferencesOf(user: CurrentUser): Promise<NotificationPreference[]> {
     const chosen = await this.preferences.forUser(user.id);
-    return ADJUSTABLE_KINDS.map((kind) => ({
+    return kindsForRole(user.role).map((kind) => ({
       kind,
       label: NOTIFICATION_RULES[kind].label,
       delivery: chosen.get(kind) ?? NOTIFICATION_RULES[kind].defaultDelivery,
@@ -178,6 +180,9 @@ export class NotificationsService {
   }
 
   async updatePreferences(user: CurrentUser, input: UpdatePreferences): Promise<NotificationPreference[]> {
+    const mine = kindsForRole(user.role);
+    const foreign = input.preferences.flatMap((p, i) => (mine.includes(p.kind) ? [] : [{ path: `preferences.${i}.kind`, message: 'Your account never receives this message' }]));
+    if (foreign.length) throw new ValidationError('Some messages never reach your account', foreign);
     await this.db.transaction(async (trx) => {
       await this.preferences.set(user.id, input.preferences, trx);
       // Messages already waiting for the digest of a kind now turned off are not sent.

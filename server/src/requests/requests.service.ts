@@ -14,7 +14,7 @@ import {
   type PartyRole,
   type RepairRequestDetail,
   type RepairRequestSummary,
-  type Role,
+  ROLE_FOR_PARTY,
   type UsState,
   parseRequestReference,
   RepairRequestListQuerySchema,
@@ -35,13 +35,6 @@ const INVITE_DAYS = 14;
 /** Who invites parties (and so sees the invitation links of those not yet joined). */
 const INVITERS: readonly FlowActor[] = REQUEST_ACTIONS['invite-party'].by;
 
-/** The account role a person needs to take a part on a request. */
-export const ROLE_FOR_PARTY: Record<PartyRole, Role> = {
-  'buyer-agent': 'agent',
-  'listing-agent': 'agent',
-  seller: 'seller',
-  inspector: 'inspector',
-};
 
 export class RequestsService {
   constructor(

@@ -1,5 +1,6 @@
 import * as z from 'zod';
-import { REQUEST_ACTIONS, type FlowActor } from '../requests/request-flow';
+import type { Role } from '../auth/role';
+import { actorsForRole, REQUEST_ACTIONS, type FlowActor } from '../requests/request-flow';
 
 /** Every message the product sends by e-mail. */
 export const NOTIFICATION_KINDS = [
@@ -59,6 +60,12 @@ export const NOTIFICATION_RULES: Record<NotificationKind, NotificationKindRule> 
     isDigestOnly: true,
   },
 };
+
+/** The adjustable kinds an account of `role` can receive (the only ones its preferences screen lists). */
+export function kindsForRole(role: Role): NotificationKind[] {
+  const parts = actorsForRole(role);
+  return ADJUSTABLE_KINDS.filter((kind) => NOTIFICATION_RULES[kind].to.some((part) => parts.includes(part)));
+}
 
 /** The kinds a person sets on the preferences screen. */
 export const ADJUSTABLE_KINDS: readonly NotificationKind[] = NOTIFICATION_KINDS.filter((k) => NOTIFICATION_RULES[k].isAdjustable);

@@ -1,5 +1,6 @@
 import { ITEM_STATUSES } from '../items/item-status';
 import {
+  actorsForRole,
   actorsOf,
   movesThatApply,
   ITEM_FLOW,
@@ -121,6 +122,16 @@ describe('actorsOf', () => {
     expect(actorsOf({ role: 'contractor', myParts: [], isAssignedContractor: true })).toEqual(['contractor']);
     expect(actorsOf({ role: 'contractor', myParts: [], isAssignedContractor: false })).toEqual([]);
     expect(actorsOf({ role: 'admin', myParts: [], isAssignedContractor: false })).toEqual(['admin']);
+  });
+});
+
+describe('actorsForRole', () => {
+  it('lets an agent account act for either side, the others only as themselves', () => {
+    expect(actorsForRole('agent')).toEqual(['buyer-agent', 'listing-agent']);
+    expect(actorsForRole('seller')).toEqual(['seller']);
+    expect(actorsForRole('inspector')).toEqual(['inspector']);
+    expect(actorsForRole('contractor')).toEqual(['contractor']);
+    expect(actorsForRole('admin')).toEqual(['admin']);
   });
 });
 

@@ -13,6 +13,20 @@ import { FINAL_STATUSES, REQUEST_STATUSES, type RequestStatus } from './request-
  */
 export type FlowActor = PartyRole | 'contractor' | 'admin';
 
+/** The account role a person needs to take each part on a request. */
+export const ROLE_FOR_PARTY: Readonly<Record<PartyRole, Role>> = {
+  'buyer-agent': 'agent',
+  'listing-agent': 'agent',
+  seller: 'seller',
+  inspector: 'inspector',
+};
+
+/** The parts an account of `role` can play on some request (a contractor's people act as `contractor`). */
+export function actorsForRole(role: Role): FlowActor[] {
+  if (role === 'contractor' || role === 'admin') return [role];
+  return (Object.keys(ROLE_FOR_PARTY) as PartyRole[]).filter((part) => ROLE_FOR_PARTY[part] === role);
+}
+
 export const FLOW_ACTOR_LABELS: Record<FlowActor, string> = {
   'buyer-agent': 'the buyer’s agent',
   'listing-agent': 'the listing agent',
