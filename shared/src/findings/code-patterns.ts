@@ -242,7 +242,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'cover-plate-missing',
     trigger: /plate|cover/i,
     patterns: [
-      { re: rx`(?:${T.NO}|broken|cracked|damaged)\s+(?:(?:the|a|an|any)\s+)?(?:(?:switch|${T.RCPT}|light|blank)\s+)?${T.PLATE}`, unless: JBOX_WORD },
+      { re: rx`(?:${T.NO}|broken|cracked|damaged)\s+(?:(?:the|a|an|any|its|their)\s+)?(?:(?:switch|${T.RCPT}|light|blank)\s+)?${T.PLATE}`, unless: JBOX_WORD },
       { re: rx`${T.PLATE}\s+${gap(8)}${T.BE}(?:${T.ABSENT}|broken|cracked|damaged)`, unless: JBOX_WORD },
       { re: rx`${T.PLATE}\s+(?:for|on|at|of)\s+(?:the\s+|a\s+)?${ADJ_GAP}(?:${T.SWITCH}|${T.RCPT})\s+${gap(5)}${T.BE}(?:broken|cracked|damaged|missing)` },
     ],
@@ -444,6 +444,10 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:does|did|do)\s*(?:n[o']t|not)?\s*(?:appear to\s+|seem to\s+)?(?:nothing|not (?:control|operate|turn on|power) (?:anything|any\w*)|not turn (?:the\s+)?${gap(2)}(?:on|off))` },
       { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:does|did)\s*n[o']t\s+(?:appear to\s+|seem to\s+)?(?:control|operate|turn on|power)\s+(?:anything|any\s+\w+)` },
       { re: rx`${T.SWITCH}\s+${SWITCH_GAP}${T.BE}loose in (?:the|its) (?:wall|box)` },
+      // "The switch controlling the desk receptacle is broken": the switch is the subject, not what it controls.
+      { re: rx`${T.SWITCH}\s+(?:that\s+)?(?:controlling|controls|for|serving|serves|operating|operates)\s+(?:the\s+|a\s+)?${anyGap(3)}(?:${T.RCPT}|${T.LIGHT}|fans?\b|disposal|disposer)\s+${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked)` },
+      // The switch's toggle, rocker or paddle broken or loose (common practice).
+      { re: rx`(?:toggle|rocker|paddle)s?\s+${gap(3)}${T.BE}(?:broken|snapped(?: off)?|sloppy|loose|missing|cracked|stuck)`, context: /switch|toggle/i },
     ],
   },
   {

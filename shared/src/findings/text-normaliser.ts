@@ -39,7 +39,7 @@ const SHORTHAND: Readonly<Record<string, string>> = {
   alm: 'alarm', alms: 'alarms', perm: 'permanent', 'perm.': 'permanent', mfd: 'manufactured', 'mfd.': 'manufactured',
   det: 'detector', dets: 'detectors', smk: 'smoke', sd: 'smoke detector', sds: 'smoke detectors',
   inop: 'inoperative', 'inop.': 'inoperative', inopr: 'inoperative', nw: 'not working', 'n/w': 'not working',
-  dmg: 'damaged', dmgd: 'damaged', dmged: 'damaged', brkn: 'broken', msng: 'missing', "miss'g": 'missing',
+  dmg: 'damaged', dmgd: 'damaged', dmged: 'damaged', brkn: 'broken', broke: 'broken', msng: 'missing', "miss'g": 'missing',
   'w/o': 'without', 'w/out': 'without', 'w/': 'with',
   reqd: 'required', "req'd": 'required', rcmd: 'recommend', recomm: 'recommend', recom: 'recommend',
   cvr: 'cover', cvrs: 'covers', cov: 'cover', plt: 'plate', plts: 'plates',

@@ -278,3 +278,18 @@ describe('places: a pedestal sink is in the bathroom, not a service pedestal', (
     expect(read('No GFCI protection at the receptacle beside the pedestal sink in the powder room.')).toEqual([['gfci-missing', 'bathroom', 1]]);
   });
 });
+
+describe('switches and cover plates (common practice; NFPA 70 (NEC) 2023, 404.9 and 406.6)', () => {
+  it('reads the switch as the subject of "the switch controlling the receptacle is broken"', () => {
+    expect(read('The switch controlling the hall receptacle is broken.')).toEqual([['switch-issue', 'hallway', 1]]);
+  });
+
+  it('reads a snapped-off toggle as a switch defect', () => {
+    expect(read('Bedroom 2 light switch: toggle snapped off.')).toEqual([['switch-issue', 'bedroom', 1]]);
+  });
+
+  it('reads "missing its cover plate" and "broke" (normalisation)', () => {
+    expect(read('The receptacle beside the dryer is missing its cover plate.')).toEqual([['cover-plate-missing', 'laundry', 1]]);
+    expect(read('Den: the switch cover plate is broke.')).toEqual([['cover-plate-missing', 'living-area', 1]]);
+  });
+});
