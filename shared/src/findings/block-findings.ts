@@ -5,6 +5,7 @@ import { readLocation } from './location-reader';
 import type { FindingCode } from './finding-code';
 import type { MappedText } from './mapped-text';
 import { negatedSpans } from './negation-detector';
+import { deviceRating, nameplateMaximum, type CarriedRatings } from './overcurrent-check';
 import { findingQuantity } from './quantity-reader';
 import { scanAll } from './regex-scan';
 import { findRooms, type RoomMention } from './room-lexicon';
@@ -68,9 +69,12 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
   // The findings of the last sentence that had any: a follow-up sentence belongs to them.
   let lastFound: BlockFinding[] = [];
 
+  // A nameplate maximum stated without a rating beside it: the next sentence may give the rating.
+  let ratings: CarriedRatings | null = null;
   splitSentences(text).forEach((written, sentenceIndex) => {
     const sentence = normaliseText(written);
-    const matches = matchCodes(sentence.text);
+    const matches = matchCodes(sentence.text, { carried: ratings });
+    ratings = matches.some((m) => m.computation !== undefined) ? null : { nameplate: nameplateMaximum(sentence.text), rating: deviceRating(sentence.text) };
     const implied = matches.length === 0 ? subjectMatch(section, sentence.text) : null;
     if (implied) matches.push(implied);
     // Clauses are cut once per sentence with phrases, for negation and for places alike.

@@ -293,3 +293,25 @@ describe('switches and cover plates (common practice; NFPA 70 (NEC) 2023, 404.9 
     expect(read('Den: the switch cover plate is broke.')).toEqual([['cover-plate-missing', 'living-area', 1]]);
   });
 });
+
+describe('computed: a breaker or fuse above an appliance nameplate maximum (NFPA 70 (NEC) 2023, 110.3(B); 440.22 for A/C equipment)', () => {
+  it.each([
+    ['The condenser is marked "Max Fuse / Breaker 25 A"; its breaker in the panel is 40 A.', 40, 25],
+    ['Heat pump breaker is 50 A; the unit label lists 30 amps maximum.', 50, 30],
+    ['Furnace breaker 20A; furnace data plate lists max overcurrent device 15A.', 20, 15],
+  ])('reads %s', (sentence, rating, limit) => {
+    const found = parseText(sentence).findings;
+    expect(found.map((f) => [f.code, f.room])).toEqual([['overcurrent-mismatch', 'panel']]);
+    expect(found[0].computation).toBe(`${rating} A overcurrent device; the nameplate allows at most ${limit} A (NEC 110.3(B))`);
+  });
+
+  it('reads the nameplate and the rating in two sentences of one paragraph, either order', () => {
+    expect(read('The condenser data plate lists max breaker 30 A. The breaker at the disconnect beside the unit is 45 A.')).toEqual([['overcurrent-mismatch', 'panel', 1]]);
+    expect(read('A/C breaker is 2-pole 50 A. Condenser label: max fuse/breaker 35 A.')).toEqual([['overcurrent-mismatch', 'panel', 1]]);
+  });
+
+  it('does not compare a main breaker with a nameplate, nor a rating within it', () => {
+    expect(read('Main breaker 200 amp. Furnace label max fuse 15 A.')).toEqual([]);
+    expect(read('The condenser data plate lists max breaker 30 A. The breaker in the panel is 30 A.')).toEqual([]);
+  });
+});
