@@ -153,6 +153,8 @@ function joinLine(builder: MappedTextBuilder, prev: Line, next: Line, shortLine:
     next.text.includes('\t') ||
     isTableRow(prev.text) ||
     isTableRow(next.text) ||
+    // A terse note that starts with its own place label ("Kitch: fridge recep loose") is a new sentence.
+    /^[\p{Lu}][\p{L}\d./ -]{0,18}:\s/u.test(after) ||
     (before.length < shortLine && !/[.!?]$/.test(before) && !CONNECTOR_END.test(before) && /^[\p{Lu}\d(]/u.test(after));
   builder.appendSeparator(isBoundary ? '\n' : ' ', breakAt);
 }

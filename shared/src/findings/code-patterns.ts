@@ -122,6 +122,8 @@ const GROUND_PART = String.raw`(?:ground(?:ing)? electrode(?: conductor)?|gec\b|
 /** What goes wrong with a grounding or bonding part (common practice). */
 const GROUND_CONDITION = String.raw`(?:loose|corroded|(?:heavy|severe|some)?\s*corrosion|rust(?:ed|y)|disconnected|detached|cut(?: off)?|broken|damaged|missing|slipping off|pulled (?:off|loose|free)|(?:not|un)[- ]?(?:connected|attached|bonded|secured|clamped)|undersized|painted over|(?:appears? to )?(?:have|has) been removed|removed)\b`;
 const COVER_OFF_TO_INSPECT = /\bremoved\s+(?:by\s+(?:the\s+)?inspector\s+)?(?:for|to|during|so|when|while)\b|\bwith\s+(?:the\s+)?(?:dead[- ]?front|(?:panel\s+)?cover)(?:\s+cover)?\s+(?:was\s+)?(?:removed|off)\b|\b(?:was|were)\s+removed\.?$/i;
+/** A statement that the arrangement is right ("correct", "as permitted", "ok"), not negated ("not correct"). */
+const CORRECT_AT_SERVICE = /(?<!\bnot\s)\b(?:correct|permitted|proper|acceptable|allowed|ok|okay|normal|appropriate)\b/i;
 const SUBPANEL_CONTEXT = /sub-?\s?panel|secondary panel|remote panel|downstream|distribution panel|feeder/i;
 
 export const CODE_RULES: readonly CodeRule[] = [
@@ -199,6 +201,9 @@ export const CODE_RULES: readonly CodeRule[] = [
     yieldsTo: ['subpanel-bonding'],
     patterns: [
       { re: rx`(?:bootleg(?:ged)?|false|fake)\s+(?:indication of (?:a\s+)?)?ground(?:s|ed|ing)?\b` },
+      // "(bootleg)" after the jumper it names, and "neutral -> ground screw" shorthand (common practice).
+      { re: rx`bootleg(?:ged)?\b` },
+      { re: rx`(?:jumper|jumpered|jumped)\s+${anyGap(3)}(?:n|neutral)\s*(?:->|-->|→|to)\s*(?:the\s+)?(?:g|gnd|ground)(?:ing)?(?:\s+(?:terminal|screw))?` },
       { re: rx`(?:jumper|jumpered|jumped|tied|bonded)\s+${anyGap(4)}(?:from\s+)?(?:the\s+)?neutral\s+${anyGap(3)}to\s+(?:the\s+)?(?:green\s+)?ground(?:ing)?(?:\s+(?:terminal|screw))?` },
       { re: rx`(?:jumper|wire)\s+${anyGap(4)}between\s+(?:the\s+)?neutral\s+${anyGap(3)}and\s+(?:the\s+)?(?:green\s+)?ground(?:ing)?(?:\s+(?:terminal|screw))?` },
       { re: rx`neutral[- ]to[- ]ground(?:ing)?\s+(?:terminal\s+|screw\s+)?jumper`, unless: PANEL_CONTEXT },
@@ -343,8 +348,10 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'subpanel-bonding',
     trigger: /neutral|ground|bond|green|egc/i,
     fixedRoom: 'panel',
+    // Polarity: neutrals and grounds together at the main service are correct ("which is correct at
+    // the service equipment", "as permitted at the main"; NFPA 70 (NEC) 2023, 250.24(A)).
     patterns: [
-      { re: rx`(?:neutrals?|grounds?)(?:\s+(?:conductors?|wires?))?\s+(?:and|&)\s+(?:neutrals?|grounds?|grounding|equipment grounds?)(?:\s+(?:conductors?|wires?))?\s+${gap(3)}(?:share|sharing|are on|on (?:the )?same|(?:landed |terminated )?together|combined|commingled|mixed|${T.BE}not (?:separated|isolated))` },
+      { re: rx`(?:neutrals?|grounds?)(?:\s+(?:conductors?|wires?))?\s+(?:and|&)\s+(?:neutrals?|grounds?|grounding|equipment grounds?)(?:\s+(?:conductors?|wires?))?\s+${gap(3)}(?:share|sharing|are on|on (?:the )?same|(?:landed |terminated )?together|combined|commingled|mixed|${T.BE}not (?:separated|isolated))`, unless: CORRECT_AT_SERVICE },
       { re: rx`(?:grounds?|ground wires|egcs?|equipment grounds?)\s+${gap(3)}(?:on|landed on|connected to|terminated on|share)\s+(?:the\s+)?neutral\s+(?:bar|bus)`, context: SUBPANEL_CONTEXT },
       { re: rx`(?:bonding|bond|green)\s+(?:screw|strap|jumper)\s+${gap(3)}${T.BE}(?:present|installed|in place|not removed)`, context: SUBPANEL_CONTEXT },
       { re: rx`neutral\s+(?:bar|bus)?\s*${gap(2)}${T.BE}bonded\s+to\s+(?:the\s+)?(?:enclosure|case|can|cabinet|panel|ground)`, context: SUBPANEL_CONTEXT },

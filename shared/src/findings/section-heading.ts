@@ -78,7 +78,12 @@ export function classifyHeadingLine(line: string): HeadingLine | null {
   const trimmed = line.trim();
   if (trimmed.length > 70) return null;
   const title = trimmed.replace(NUMBERING, '').replace(/\s*[:\-–—]+\s*$/, '').trim();
-  if (title.length === 0 || /[.!?;]/.test(title)) return null;
+  if (title.length === 0) return null;
+  // "ELECTRICAL SUMMARY (see 7.1 - 7.6 for detail)": a summary heading with a note in brackets.
+  if (/[.!?;]/.test(title)) {
+    const bare = title.replace(/\s*\([^()]*\)\s*$/, '');
+    return bare !== title && SUMMARY_HEADING.test(bare) && !/[.!?;]/.test(bare) ? classifyHeadingLine(bare) : null;
+  }
   // Separators ("SMOKE / CO", "PANEL - MAIN") are not words; a misspelt heading word is read as
   // the trade word it stands for ("SMOKE DETECTERS").
   const words = (title.toLowerCase().match(/[a-z&'/-]+|\d+/g) ?? [])

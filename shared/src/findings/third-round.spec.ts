@@ -315,3 +315,33 @@ describe('computed: a breaker or fuse above an appliance nameplate maximum (NFPA
     expect(read('The condenser data plate lists max breaker 30 A. The breaker in the panel is 30 A.')).toEqual([]);
   });
 });
+
+describe('neutral-ground bonding, bootleg grounds and terse labels (third round)', () => {
+  it('does not read neutrals and grounds on one bar "as permitted at the main" (polarity; NFPA 70 (NEC) 2023, 250.24(A))', () => {
+    expect(read('Neutrals and grounds are terminated on the same bar, which is correct at the service equipment.')).toEqual([]);
+  });
+
+  it('still reads them together in a subpanel where that is not correct (NFPA 70 (NEC) 2023, 250.142(B))', () => {
+    expect(read('In the garage subpanel, neutrals and grounds share the same bar; this is not correct downstream of the service.')).toEqual([['subpanel-bonding', 'panel', null]]);
+  });
+
+  it('reads "(bootleg)" and "jumper neutral -> gnd screw" as a false ground (NFPA 70 (NEC) 2023, 250.142(B))', () => {
+    expect(read('Den rcpt: tester shows correct wiring but cover off shows jumper neutral -> gnd screw (bootleg).')).toEqual([['false-ground', 'living-area', 1]]);
+  });
+
+  it('starts a new sentence at a terse line with its own place label', () => {
+    expect(read('LR: 2 recepts 3-prong, bootleg gnd found\n Kitch: fridge recep loose in box')).toEqual([
+      ['false-ground', 'living-area', 2],
+      ['receptacle-damaged', 'kitchen', 1],
+    ]);
+  });
+
+  it('reads a kitchen peninsula as the kitchen', () => {
+    expect(read('The receptacle at the end of the peninsula is not GFCI protected.')).toEqual([['gfci-missing', 'kitchen', 1]]);
+  });
+
+  it('reads a summary heading with a note in brackets', () => {
+    const text = ['ELECTRICAL SUMMARY (see 7.1 - 7.2 for detail)', 'a. Bootleg ground at a kitchen receptacle.', '', '7.1 Receptacles', '7.1.1 Kitchen: the receptacle by the stove has a bootleg ground.'].join('\n');
+    expect(read(text)).toEqual([['false-ground', 'kitchen', 1]]);
+  });
+});
