@@ -483,7 +483,10 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`knob[- ]?(?:and|&|n|'n'?)[- ]?tube`, unless: WIRING_OUT_OF_USE },
       { re: rx`\bk\s?&\s?t\b|\bk-t\b|\bknt\b`, unless: WIRING_OUT_OF_USE },
-      { re: rx`(?:ungrounded|two[- ]wire|2[- ]wire|cloth[- ](?:insulated|covered|sheathed)|fabric[- ](?:insulated|covered)|rubber[- ]insulated)\s+(?:legacy\s+|old(?:er)?\s+|original\s+|vintage\s+)?(?:wir(?:e|es|ing)|cables?|circuits?)\b` },
+      // Two-wire or cloth-covered cable is a wiring method of its own; at a three-slot receptacle it
+      // is an open ground, so it is knob-and-tube only when the sentence says the wiring is that old
+      // kind with no receptacle on it (common practice).
+      { re: rx`(?:ungrounded|two[- ]wire|2[- ]wire|cloth[- ](?:insulated|covered|sheathed)|fabric[- ](?:insulated|covered)|rubber[- ]insulated)\s+(?:legacy\s+|old(?:er)?\s+|original\s+|vintage\s+)?(?:wir(?:e|es|ing)|cables?|circuits?)\b`, unless: /\b(?:recep\w*|rcpts?|outlets?|three[- ](?:slot|prong)|3[- ](?:slot|prong)|grounded cable|patchwork|mix)\b/i },
     ],
   },
   {

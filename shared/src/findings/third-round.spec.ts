@@ -345,3 +345,13 @@ describe('neutral-ground bonding, bootleg grounds and terse labels (third round)
     expect(read(text)).toEqual([['false-ground', 'kitchen', 1]]);
   });
 });
+
+describe('two-wire cable at a receptacle is an open ground, not knob-and-tube (common practice; NFPA 70 (NEC) 2023, 406.4(D)(2))', () => {
+  it('reads only the open ground', () => {
+    expect(read('In the den the three-slot receptacles are fed by two-wire cable and have no ground.').map(([code]) => code)).toEqual(['open-ground']);
+  });
+
+  it('still reads ungrounded legacy wiring named on its own', () => {
+    expect(read('The attic still has original cloth-insulated wiring in use.')).toEqual([['knob-and-tube', 'attic', null]]);
+  });
+});
