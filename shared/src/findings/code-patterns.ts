@@ -197,7 +197,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'false-ground',
-    trigger: /ground/i,
+    trigger: /ground|gnd|bootleg/i,
     yieldsTo: ['subpanel-bonding'],
     patterns: [
       { re: rx`(?:bootleg(?:ged)?|false|fake)\s+(?:indication of (?:a\s+)?)?ground(?:s|ed|ing)?\b` },
@@ -360,7 +360,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'grounding-electrode',
-    trigger: /ground|gec|bond|electrode|jumper/i,
+    trigger: /ground|gec|bond|electrode|jumper|acorn/i,
     defaultRoom: 'panel',
     panelIsPlace: true,
     patterns: [
@@ -440,7 +440,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'switch-issue',
-    trigger: /switch/i,
+    trigger: /switch|toggle|rocker|paddle/i,
     patterns: [
       { re: rx`${T.SWITCH}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|(?:warm|hot) to the touch|warm|hot|sparks?|sparking|arcing|${T.FAILED} (?:operate|work|respond|control))` },
       { re: rx`${T.SWITCH}\s+${gap(7)}(?:(?:has|have|had|of|with|serves?)\s+)?(?:an?\s+)?(?:unknown|no known|undetermined|unclear) (?:function|purpose|use)` },
