@@ -213,6 +213,8 @@ export const CODE_RULES: readonly CodeRule[] = [
   {
     code: 'receptacle-damaged',
     trigger: /rec[ei]p|rcp|outlet|duplex|device|plug|cord|tension|grip|contacts/i,
+    // A GFCI that will not reset leaves the receptacles after it dead: that is the GFCI's defect, not theirs (common practice).
+    yieldsInSentenceTo: ['gfci-inoperative'],
     patterns: [
       { re: rx`(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?:[- ]over)?|worn|discolou?red|heat[- ]damaged|dead|${T.INOPERATIVE})\s+${ADJ_GAP}${T.RCPT}` },
       { re: rx`(?:cracked|broken|damaged) (?:face|housing|body)|loose (?:plug )?fit|plugs? (?:fits?|fit) loose(?:ly)?|(?:will not|won't|does not|doesn't) (?:hold|retain) (?:a |the )?plugs?` },

@@ -355,3 +355,13 @@ describe('two-wire cable at a receptacle is an open ground, not knob-and-tube (c
     expect(read('The attic still has original cloth-insulated wiring in use.')).toEqual([['knob-and-tube', 'attic', null]]);
   });
 });
+
+describe('grouping: receptacles dead behind a GFCI that will not reset are the GFCI defect (common practice; NFPA 70 (NEC) 2023, 406.4(D)(3))', () => {
+  it('reads one GFCI finding, not a dead receptacle beside it', () => {
+    expect(read('Kitchen: the GFCI receptacle by the sink trips but will not reset; the counter receptacles after it are dead.')).toEqual([['gfci-inoperative', 'kitchen', 1]]);
+  });
+
+  it('still reads a dead receptacle with no GFCI in its sentence', () => {
+    expect(read('The receptacle behind the bed in the guest room is dead.')).toEqual([['receptacle-damaged', 'bedroom', 1]]);
+  });
+});
