@@ -2,10 +2,10 @@ import type { Knex } from 'knex';
 import { DEMO_PLANNED_DAY } from './data/demo-scenario';
 import { nextWeekday } from './data/next-weekday';
 
-// Books two more visits on the demo's planned day (the next weekday, as seeds/05_day_plan.ts): Sam
-// Okafor of Brightline visits the scheduled and the under-way requests in the order given, with their
-// approved items planned on the visit. Day economics (pick list, earnings) and the visit screen read
-// these. Only these requests' visits are replaced; the day plan's own visits stay.
+// Books Lee Park's planned day (the next weekday, as Sam Okafor's in seeds/05_day_plan.ts): Lee of
+// Brightline visits the scheduled and the under-way requests in the order given, with their approved
+// items planned on the visit. Day economics (pick list, earnings) and the visit screen read these.
+// Only these requests' visits are replaced; the day plan's own visits stay.
 export async function seed(knex: Knex): Promise<void> {
   const date = nextWeekday();
   const electrician = await knex('users').where({ email: DEMO_PLANNED_DAY.electricianEmail }).first('id');

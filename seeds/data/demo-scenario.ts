@@ -123,9 +123,9 @@ function plannedDayRequests(): DemoRequest[] {
   ];
 }
 
-/** Two more visits of the demo's planned day (booked by seeds/05_site_visits.ts on the next weekday). */
+/** Lee Park's planned day of two visits (booked by seeds/05_site_visits.ts on the next weekday). */
 export const DEMO_PLANNED_DAY = {
-  electricianEmail: 'sam.okafor@brightline.test',
+  electricianEmail: 'lee.park@brightline.test',
   stops: [
     { street: '418 Wren Hollow', arrivalFrom: '08:00', arrivalTo: '09:00', accessNotes: 'Seller home until 9; side gate unlocked' },
     { street: '87 Tinsmith Way', arrivalFrom: '10:00', arrivalTo: '11:30', accessNotes: 'Lockbox on the garage door, code 5180' },

@@ -4,11 +4,11 @@ import { csrfSync } from 'csrf-sync';
 import express, { type Express } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
-import pg from 'pg';
 import { createPassport } from './auth/passport';
 import { createSessionStore } from './auth/session-store';
 import type { Config } from './config/config';
 import type { Db } from './db/knex';
+import { createReadPool } from './db/read-pool';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { inputGuard } from './http/input-guard';
 import { createApiRouter } from './api.router';
@@ -18,16 +18,17 @@ import { createPaymentWebhookRouter } from './payments/payment-webhook.router';
 export interface App {
   app: Express;
   services: Services;
-  /** Closes what the app opened (session store pool). The caller owns `db`. */
+  /** Closes what the app opened (the read pool of sessions and lists). The caller owns `db`. */
   close(): Promise<void>;
 }
 
 /** Builds the Express app without listening, so tests can drive it with supertest. */
 export function createApp(config: Config, db: Db): App {
-  const services = createServices(db, config);
+  // The session with its user and list pages run as prepared statements on their own connections.
+  const readPool = createReadPool(config.databaseUrl);
+  const services = createServices(db, config, readPool);
   const passport = createPassport(services.auth, services.repositories.users);
-  const sessionPool = new pg.Pool({ connectionString: config.databaseUrl, max: 10 });
-  const store = createSessionStore(sessionPool, { prune: config.env !== 'test' });
+  const store = createSessionStore(readPool, { prune: config.env !== 'test' });
   const csrf = csrfSync({ getTokenFromRequest: (req) => req.headers['x-csrf-token'] as string | undefined });
 
   const app = express();
@@ -84,7 +85,7 @@ export function createApp(config: Config, db: Db): App {
     services,
     async close() {
       store.close();
-      await Promise.all([sessionPool.end(), services.reportReader.close()]);
+      await Promise.all([readPool.end(), services.reportReader.close()]);
     },
   };
 }

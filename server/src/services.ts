@@ -1,3 +1,4 @@
+import type pg from 'pg';
 import type { Config } from './config/config';
 import type { Db } from './db/knex';
 import { ItemPricingRepository } from './pricing/item-pricing.repository';
@@ -6,7 +7,7 @@ import { OrganisationRepository } from './organisations/organisation.repository'
 import { QuoteRepository } from './quotes/quote.repository';
 import { RateBookRepository } from './rate-book/rate-book.repository';
 import { ReportFileRepository } from './intake/report-file.repository';
-import { RequestRepository } from './requests/request.repository';
+import { LIST_COUNT_CAP, RequestRepository } from './requests/request.repository';
 import { UserRepository } from './auth/user.repository';
 import { SessionRepository } from './auth/session.repository';
 import { AdminService } from './admin/admin.service';
@@ -55,11 +56,11 @@ import { IntakePhotosService } from './economics/intake-photos';
 import { dayPlanDriveTime } from './economics/drive-time';
 
 /** Builds every repository and service of the app from one database handle and the config. */
-export function createServices(db: Db, config: Config) {
+export function createServices(db: Db, config: Config, readPool: pg.Pool | null = null) {
   const users = new UserRepository(db);
   const organisations = new OrganisationRepository(db);
-  const requests = new RequestRepository(db);
-  const items = new LineItemRepository(db);
+  const requests = new RequestRepository(db, LIST_COUNT_CAP, readPool);
+  const items = new LineItemRepository(db, readPool);
   const reports = new ReportFileRepository(db);
   const passwords = new Passwords(config.bcryptRounds);
   const storage = new LocalFileStorage(config.storageDir);

@@ -146,6 +146,19 @@ describe('POST /api/auth/password', () => {
     await expect(signIn(t.app, user)).rejects.toThrow(/401/);
   });
 
+  it('ends the account’s other sessions at once and keeps the one that changed it', async () => {
+    const user = await createUser(t.db, 'agent');
+    const changing = await signIn(t.app, user);
+    const other = await signIn(t.app, user);
+    await other.agent.get('/api/requests').expect(200);
+    await changing.agent.post('/api/auth/password').set('x-csrf-token', changing.csrfToken).send({ currentPassword: PASSWORD, newPassword: 'a much longer new password' }).expect(204);
+    await other.agent.get('/api/requests').expect(401);
+    await other.agent.get('/api/auth/me').expect(401);
+    await changing.agent.get('/api/requests').expect(200);
+    const me = await changing.agent.get('/api/auth/me').expect(200);
+    expect(me.body.user.id).toBe(user.id);
+  });
+
   it('responds 400 on the field when the current password is wrong or the new one too short', async () => {
     const user = await createUser(t.db, 'agent');
     const { agent, csrfToken } = await signIn(t.app, user);

@@ -1,6 +1,8 @@
 import request from 'supertest';
-import type { CurrentUser, RepairRequestDetail } from '@cc/shared';
-import { RequestRepository } from '../../server/src/requests/request.repository';
+import type { CurrentUser, RepairRequestDetail, RequestStatus } from '@cc/shared';
+import type { Knex } from 'knex';
+import { LineItemRepository } from '../../server/src/intake/line-item.repository';
+import { RequestRepository, type RequestListFilter, type Viewer } from '../../server/src/requests/request.repository';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 import { createOrganisation, createUser, csrfTokenFor, resetDatabase, signIn, validRequestBody, type SignedIn } from '../helpers/fixtures';
 
@@ -227,6 +229,38 @@ describe('GET /api/requests', () => {
     expect(indexes.some((i) => /\(year_built\)/.test(i.indexdef))).toBe(true);
   });
 
+  it('keeps each person’s list in step with the request and its parties, whoever writes them', async () => {
+    const agent = await signIn(t.app, await createUser(t.db, 'agent', await createOrganisation(t.db, 'brokerage')));
+    const seller = await signIn(t.app, await createUser(t.db, 'seller'));
+    const created = await agent.agent
+      .post('/api/requests')
+      .set('x-csrf-token', agent.csrfToken)
+      .send(validRequestBody({ street: '3 Viewer Lane', sellerEmail: seller.user.email }))
+      .expect(201);
+    const id: number = created.body.id;
+    const listed = async (s: SignedIn, query: string) => ((await s.agent.get(`/api/requests?pageSize=100&${query}`).expect(200)).body.items as { id: number; street: string; status: string; closingDate: string; yearBuilt: number }[]).find((r) => r.id === id);
+
+    expect(await listed(seller, 'q=viewer%20lane')).toMatchObject({ street: '3 Viewer Lane', status: 'draft' });
+    // Any writer of the request's columns (here plain SQL): status, street, closing date and build year follow at once.
+    await t.db('repair_requests').where({ id }).update({ status: 'intake', street: '5 Moved Court', closing_date: '2031-05-01', year_built: 1950 });
+    for (const s of [agent, seller]) {
+      expect(await listed(s, 'status=intake&sort=street')).toMatchObject({ street: '5 Moved Court', status: 'intake', closingDate: '2031-05-01' });
+      expect(await listed(s, 'status=draft')).toBeUndefined();
+      expect(await listed(s, 'q=moved%20court&builtBefore=1951')).toBeDefined();
+      expect(await listed(s, 'q=viewer%20lane')).toBeUndefined();
+    }
+    const [first] = (await seller.agent.get('/api/requests?sort=closingDate&direction=desc&pageSize=1').expect(200)).body.items;
+    expect(first.id).toBe(id);
+    // A party who leaves the request leaves the list; one who comes back (an accepted invitation) is in it again.
+    const [party] = await t.db('request_parties').where({ request_id: id, user_id: seller.user.id }).delete().returning('*');
+    expect(await listed(seller, '')).toBeUndefined();
+    await seller.agent.get(`/api/requests/${id}`).expect(404);
+    await t.db('request_parties').insert({ ...party, id: undefined });
+    expect(await listed(seller, '')).toMatchObject({ street: '5 Moved Court' });
+    const viewers = await t.db('request_viewers').where({ request_id: id }).orderBy('user_id').select('user_id');
+    expect(viewers.map((v: { user_id: number }) => v.user_id)).toEqual([agent.user.id, seller.user.id].sort((a, b) => a - b));
+  });
+
   it('responds 400 for a build year that is not a year', async () => {
     for (const bad of ['soon', '1500', '1975.5', '99999']) {
       const res = await sessions.buyerAgent.agent.get(`/api/requests?builtBefore=${bad}`);
@@ -255,24 +289,55 @@ describe('GET /api/requests', () => {
     expect(capped.items).toHaveLength(1);
   });
 
-  // The first page of a contractor's list is read through the index of its sort within the
-  // organisation's rows, not by sorting every visible row (PostgreSQL documentation, "Using
-  // EXPLAIN"; sequential scans are switched off so that the small test table shows the plan the
-  // planner takes at scale).
-  it.each([
-    ['closingDate', 'repair_requests_contractor_closing_index'],
-    ['createdAt', 'repair_requests_contractor_created_index'],
-  ] as const)('reads a contractor’s page sorted by %s through %s', async (sort, index) => {
-    const viewer = { id: cast.contractor.id, role: 'contractor' as const, organisationId: contractorOrg };
-    const filter = { page: 0, pageSize: 25, sort, direction: 'asc' as const, statuses: [], text: '', id: null };
-    const { sql, bindings } = new RequestRepository(t.db).listStatement(viewer, filter).toSQL();
-    const plan = await t.db.transaction(async (trx) => {
+  // Every list reads its page through the index of its sort within the viewer's scope, not by
+  // sorting every visible row (PostgreSQL documentation, "Using EXPLAIN" and "Indexes and ORDER
+  // BY"). The server prepares list statements once per connection with a generic plan
+  // (db/read-pool.ts), so that is the plan checked; sequential scans are switched off so that the
+  // small test tables show the plan the planner takes at scale.
+  async function genericPlan(statement: Knex.QueryBuilder): Promise<string> {
+    const { sql, bindings } = statement.toSQL().toNative();
+    const literal = (v: unknown): string =>
+      Array.isArray(v) ? `ARRAY[${v.map(literal).join(', ')}]` : typeof v === 'number' ? String(v) : `'${String(v).replace(/'/g, "''")}'`;
+    return t.db.transaction(async (trx) => {
       await trx.raw('SET LOCAL enable_seqscan = off');
-      const res = await trx.raw(`EXPLAIN ${sql}`, bindings);
+      await trx.raw('SET LOCAL plan_cache_mode = force_generic_plan');
+      await trx.raw(`PREPARE list_plan AS ${sql.replace(/\?/g, '\\?')}`);
+      const res = await trx.raw(`EXPLAIN EXECUTE list_plan(${(bindings as unknown[]).map(literal).join(', ')})`);
+      await trx.raw('DEALLOCATE list_plan');
       return (res.rows as { 'QUERY PLAN': string }[]).map((r) => r['QUERY PLAN']).join('\n');
     });
+  }
+
+  const SORT_INDEXES: [string, RequestListFilter['sort'], 'asc' | 'desc', RequestStatus[], string][] = [
+    ['buyerAgent', 'closingDate', 'asc', [], 'request_viewers_closing_index'],
+    ['buyerAgent', 'createdAt', 'desc', [], 'request_viewers_created_index'],
+    ['buyerAgent', 'street', 'asc', [], 'request_viewers_street_index'],
+    ['buyerAgent', 'status', 'asc', [], 'request_viewers_status_index'],
+    ['seller', 'closingDate', 'desc', ['draft'], 'request_viewers_status_index'],
+    ['contractor', 'closingDate', 'asc', [], 'repair_requests_contractor_closing_index'],
+    ['contractor', 'createdAt', 'desc', [], 'repair_requests_contractor_created_index'],
+    ['contractor', 'street', 'asc', [], 'repair_requests_contractor_street_index'],
+    ['contractor', 'closingDate', 'asc', ['pricing'], 'repair_requests_contractor_status_index'],
+    ['admin', 'closingDate', 'asc', [], 'repair_requests_closing_id_index'],
+    ['admin', 'createdAt', 'desc', [], 'repair_requests_created_index'],
+    ['admin', 'street', 'asc', [], 'repair_requests_street_index'],
+    ['admin', 'status', 'asc', [], 'repair_requests_status_id_index'],
+  ];
+  it.each(SORT_INDEXES)('reads the %s’s list sorted by %s %s (statuses %j) through %s', async (who, sort, direction, statuses, index) => {
+    const user = cast[who as keyof typeof cast];
+    const viewer: Viewer = { id: user.id, role: user.role, organisationId: user.organisationId };
+    const plan = await genericPlan(new RequestRepository(t.db).listStatement(viewer, { page: 3, pageSize: 25, sort, direction, statuses, text: '', id: null }));
     expect(plan).toContain(index);
-    expect(plan).not.toMatch(/Seq Scan on repair_requests/);
+    expect(plan).not.toMatch(/Seq Scan on (repair_requests|request_viewers|request_parties|line_items)/);
+    // The page's rows and their item counts are read by key, row by row.
+    expect(plan).toContain('repair_requests_pkey');
+    expect(plan).toContain('line_items_request_id_status_index');
+  });
+
+  it('reads a request’s items through the index of their request', async () => {
+    const plan = await genericPlan(new LineItemRepository(t.db).listStatement(ownRequest.id));
+    expect(plan).toContain('line_items_request_id_status_index');
+    expect(plan).not.toMatch(/Seq Scan on line_items/);
   });
 
   it('responds 400 for an unknown status or sort', async () => {

@@ -3,12 +3,13 @@ import { expectAccessible, launchBrowser, openPage, portalUrl, screenshot, signI
 
 jest.setTimeout(240_000);
 
-// The demo's planned day (seeds/05_site_visits.ts, seeds/data/demo-scenario.ts): tomorrow Sam Okafor
-// of Brightline visits 418 Wren Hollow (two GFCI receptacles at the kitchen counter, an in-use cover at
-// the rear patio) and then 87 Tinsmith Way. The office opens the day and prints the pick list, the
-// electrician ticks it on a phone, records the two Wren Hollow items as finished, and the day's
+// The demo's planned day (seeds/05_site_visits.ts, seeds/data/demo-scenario.ts): on the next weekday
+// Lee Park of Brightline visits 418 Wren Hollow (two GFCI receptacles at the kitchen counter, an in-use
+// cover at the rear patio) and then 87 Tinsmith Way. The office (Sam Okafor) opens Lee's day and prints
+// the pick list, Lee ticks it on a phone, records the two Wren Hollow items as finished, and the day's
 // earnings appear. Only this file works the Wren Hollow visit.
 const SAM = 'sam.okafor@brightline.test';
+const LEE = 'lee.park@brightline.test';
 const STREET = '418 Wren Hollow';
 const PHONE = { viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true };
 
@@ -52,7 +53,7 @@ describe('day economics', () => {
     await signInAs(page, SAM);
     await page.getByTestId('nav-economics').click();
     await page.getByTestId('economics-heading').waitFor();
-    await page.getByTestId('planned-day').filter({ hasText: 'Sam Okafor' }).first().click();
+    await page.getByTestId('planned-day').filter({ hasText: 'Lee Park' }).first().click();
     await page.getByTestId('pick-progress').waitFor();
     dayPath = new URL(page.url()).pathname + new URL(page.url()).search;
     expect(dayPath).toMatch(/^\/economics\?date=\d{4}-\d{2}-\d{2}&electricianId=\d+$/);
@@ -74,7 +75,7 @@ describe('day economics', () => {
 
   it('lets the electrician tick the pick list on a phone, finish two items and see what the day earned', async () => {
     const page = await openPage(browser, PHONE);
-    await signInAs(page, SAM);
+    await signInAs(page, LEE);
     await page.goto(portalUrl(dayPath));
     await page.getByTestId('pick-progress').waitFor();
     const boxes = page.locator('mat-checkbox');

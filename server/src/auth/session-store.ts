@@ -1,6 +1,8 @@
 import connectPgSimple from 'connect-pg-simple';
 import session from 'express-session';
 import type pg from 'pg';
+import type { CurrentUser } from '@cc/shared';
+import { toCurrentUser, type UserWithOrgRow } from './user.repository';
 
 /** How often a session's expiry is written again while it is in use (sessions roll). */
 const TOUCH_EVERY_MS = 5 * 60_000;
@@ -8,14 +10,75 @@ const TOUCH_EVERY_MS = 5 * 60_000;
 const REMEMBERED = 20_000;
 
 /**
- * Sessions kept in PostgreSQL (connect-pg-simple). Sessions roll (every answer moves the expiry
- * on), but the expiry is written at most once per TOUCH_EVERY_MS per session and process instead of
- * on every request: a session then lives up to that much less than its full idle time.
+ * The session and its signed-in user in one statement: the user only while the account is active
+ * (a deactivated account's sessions find no user, so the person is signed out at once). Nothing is
+ * kept between requests: every request reads both again, so a session deleted on a password change
+ * or a deactivation ends with the next request. Prepared once per connection (named statement).
+ */
+const SESSION_WITH_USER = {
+  name: 'cc-session-with-user',
+  text: `SELECT s.sess, u.id, u.email, u.name, u.role, u.organisation_id, o.name AS organisation_name
+         FROM sessions s
+         LEFT JOIN users u
+           ON u.is_active
+          AND u.id = CASE WHEN (s.sess -> 'passport' ->> 'user') ~ '^[0-9]{1,9}$' THEN (s.sess -> 'passport' ->> 'user')::int END
+         LEFT JOIN organisations o ON o.id = u.organisation_id
+         WHERE s.sid = $1 AND s.expire >= to_timestamp($2)`,
+};
+
+type SessionWithUserRow = { sess: session.SessionData | string } & (
+  | Pick<UserWithOrgRow, 'id' | 'email' | 'name' | 'role' | 'organisation_id' | 'organisation_name'>
+  | { id: null }
+);
+
+/**
+ * The user read with a session, keyed by the session's `passport` object (which express-session
+ * hands on to req.session by reference): null when the session's account is gone or deactivated.
+ * Held only as long as that session object lives, i.e. for the one request that read it.
+ */
+const usersReadWithSession = new WeakMap<object, { forId: unknown; user: CurrentUser | null }>();
+
+/**
+ * The active user read together with the session behind `passportData` (req.session.passport),
+ * if that read was for user `id`; `undefined` when there is none (then the caller reads the user).
+ */
+export function userReadWithSession(passportData: unknown, id: number): CurrentUser | null | undefined {
+  if (typeof passportData !== 'object' || passportData === null) return undefined;
+  const read = usersReadWithSession.get(passportData);
+  return read && read.forId === id ? read.user : undefined;
+}
+
+/**
+ * Sessions kept in PostgreSQL (connect-pg-simple). Reading a session also reads its active user in
+ * the same statement (see SESSION_WITH_USER), so an authenticated request makes one round trip before
+ * its route. Sessions roll (every answer moves the expiry on), but the expiry is written at most
+ * once per TOUCH_EVERY_MS per session and process instead of on every request: a session then lives
+ * up to that much less than its full idle time.
  */
 export function createSessionStore(pool: pg.Pool, options: { prune: boolean }): InstanceType<ReturnType<typeof connectPgSimple>> {
   const PgStore = connectPgSimple(session);
   const lastTouched = new Map<string, number>();
-  class ThrottledPgStore extends PgStore {
+  class SessionStore extends PgStore {
+    override get(sid: string, done: (err: unknown, sess?: session.SessionData | null) => void): void {
+      pool.query<SessionWithUserRow>({ ...SESSION_WITH_USER, values: [sid, Math.ceil(Date.now() / 1000)] }).then(
+        ({ rows: [row] }) => {
+          if (!row) return done(null);
+          let sess: session.SessionData;
+          try {
+            sess = typeof row.sess === 'string' ? JSON.parse(row.sess) : row.sess;
+          } catch {
+            return this.destroy(sid, (err) => done(err));
+          }
+          const passportData = (sess as { passport?: { user?: unknown } }).passport;
+          if (typeof passportData === 'object' && passportData !== null) {
+            usersReadWithSession.set(passportData, { forId: passportData.user, user: row.id === null ? null : toCurrentUser(row) });
+          }
+          done(null, sess);
+        },
+        (err: unknown) => done(err),
+      );
+    }
+
     override touch(sid: string, sess: session.SessionData, done?: (err?: unknown) => void): void {
       const now = Date.now();
       if (now - (lastTouched.get(sid) ?? 0) < TOUCH_EVERY_MS) {
@@ -32,5 +95,5 @@ export function createSessionStore(pool: pg.Pool, options: { prune: boolean }): 
       super.destroy(sid, done);
     }
   }
-  return new ThrottledPgStore({ pool, tableName: 'sessions', pruneSessionInterval: options.prune ? 15 * 60 : false });
+  return new SessionStore({ pool, tableName: 'sessions', pruneSessionInterval: options.prune ? 15 * 60 : false });
 }

@@ -5,9 +5,9 @@ import type { UserRow } from '../db/tables';
 
 const TABLE = 'users';
 
-type UserWithOrgRow = UserRow & { organisation_name: string | null };
+export type UserWithOrgRow = UserRow & { organisation_name: string | null };
 
-function toCurrentUser(row: UserWithOrgRow): CurrentUser {
+export function toCurrentUser(row: Pick<UserWithOrgRow, 'id' | 'email' | 'name' | 'role' | 'organisation_id' | 'organisation_name'>): CurrentUser {
   return {
     id: row.id,
     email: row.email,

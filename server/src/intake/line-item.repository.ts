@@ -1,5 +1,8 @@
 import { DEFAULT_VISIT_KEY, itemStateAfter, PRICING_ITEM_STATES, type Confidence, type FindingCode, type ItemStatus, type LineItem, type PricingFields, type Room, type Severity } from '@cc/shared';
+import type { Knex } from 'knex';
+import type pg from 'pg';
 import type { Db, Trx } from '../db/knex';
+import { readPrepared } from '../db/read-pool';
 import type { LineItemRow } from '../db/tables';
 
 const TABLE = 'line_items';
@@ -88,15 +91,25 @@ function toRow(item: LineItemChanges & Partial<NewLineItem>): Partial<LineItemRo
 
 /** The one writer of `line_items` (the pricing repository only reads them). */
 export class LineItemRepository {
-  constructor(private readonly db: Db) {}
+  constructor(
+    private readonly db: Db,
+    /** Where the item list runs as a prepared statement outside transactions (db/read-pool.ts). */
+    private readonly readPool: pg.Pool | null = null,
+  ) {}
 
   /** Items of a request in reading order (report position, then creation), removed ones left out. */
   async listForRequest(requestId: number, trx?: Trx): Promise<StoredLineItem[]> {
-    const rows = await (trx ?? this.db)<LineItemRow>(TABLE)
+    const query = this.listStatement(requestId, trx);
+    const rows: LineItemRow[] = !trx && this.readPool ? await readPrepared<LineItemRow>(this.readPool, query) : await query;
+    return rows.map(toLineItem);
+  }
+
+  /** The statement behind `listForRequest` (its plan is checked in the API tests). */
+  listStatement(requestId: number, trx?: Trx): Knex.QueryBuilder<LineItemRow> {
+    return (trx ?? this.db)<LineItemRow>(TABLE)
       .where({ request_id: requestId })
       .whereNot({ status: REMOVED })
       .orderByRaw('report_file_id NULLS LAST, evidence_start NULLS LAST, id');
-    return rows.map(toLineItem);
   }
 
   async findInRequest(requestId: number, id: number, trx?: Trx): Promise<StoredLineItem | null> {

@@ -43,8 +43,8 @@ export class LineItemsService {
   }
 
   async list(user: CurrentUser, requestId: number): Promise<LineItem[]> {
-    const request = await this.access.get(user, requestId);
-    return (await this.items.listForRequest(requestId)).map((i) => this.withNote(i, request));
+    const house = await this.access.house(user, requestId);
+    return (await this.items.listForRequest(requestId)).map((i) => this.withNote(i, house));
   }
 
   /** 404 unless visible, 403 unless one of its agents (or admin), 409 once intake is over. */

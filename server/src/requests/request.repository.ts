@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import {
   itemStateAfter,
   requestReference,
+  type HouseCode,
   type NecEdition,
   type PartyRole,
   type RepairRequestSummary,
@@ -10,7 +11,9 @@ import {
   type StatusChange,
   REQUEST_SORTS,
 } from '@cc/shared';
+import type pg from 'pg';
 import type { Db, Trx } from '../db/knex';
+import { readPrepared } from '../db/read-pool';
 import type { RepairRequestRow, RequestPartyRow, RequestStatusChangeRow } from '../db/tables';
 
 /** Who is looking: decides which requests exist for them. */
@@ -58,11 +61,12 @@ export interface PartyRecord {
   inviteExpiresAt: Date | null;
 }
 
+/** Each sort's column, on repair_requests (`r`) and on request_viewers (`v`). */
 const SORT_COLUMNS: Record<RequestListFilter['sort'], string> = {
-  closingDate: 'r.closing_date',
-  createdAt: 'r.created_at',
-  status: 'r.status',
-  street: 'r.street',
+  closingDate: 'closing_date',
+  createdAt: 'created_at',
+  status: 'status',
+  street: 'street',
 };
 
 /** Lists count their rows no further than this; beyond it they say "1,000+". */
@@ -71,20 +75,25 @@ export const LIST_COUNT_CAP = 1000;
 /** Items a request does not count yet or any more: proposals nobody confirmed, and removed ones. */
 const UNCOUNTED_ITEM_STATES = [itemStateAfter('propose'), itemStateAfter('remove')];
 
-/** The `item_count` column of a request summary (a query on `repair_requests as r`). */
-function itemCount(db: Db | Trx): Knex.Raw {
-  return db.raw('(SELECT count(*) FROM line_items li WHERE li.request_id = r.id AND li.status <> ALL(?))::int AS item_count', [UNCOUNTED_ITEM_STATES]);
-}
-
 /** Item states that are approved work without an outcome yet (approved, and not accepted to rework). */
 const OPEN_WORK_ITEM_STATES = [itemStateAfter('approve'), itemStateAfter('not-accept')];
 
-/** The `open_work_count` column of a request summary (closing-date tracking). */
-function openWorkCount(db: Db | Trx): Knex.Raw {
-  return db.raw('(SELECT count(*) FROM line_items li WHERE li.request_id = r.id AND li.status = ANY(?))::int AS open_work_count', [OPEN_WORK_ITEM_STATES]);
+/**
+ * Joins to a query on `repair_requests as r` the `item_count` and `open_work_count` columns of a
+ * request summary (closing-date tracking), both counted in one pass over the request's items.
+ */
+function joinItemCounts(db: Db | Trx, query: Knex.QueryBuilder): Knex.QueryBuilder {
+  return query.joinRaw(
+    `LEFT JOIN LATERAL (SELECT count(*) FILTER (WHERE li.status <> ALL(?))::int AS item_count, count(*) FILTER (WHERE li.status = ANY(?))::int AS open_work_count
+       FROM line_items li WHERE li.request_id = r.id) AS ic ON true`,
+    [UNCOUNTED_ITEM_STATES, OPEN_WORK_ITEM_STATES],
+  );
 }
 
-type SummaryRow = RepairRequestRow & { contractor_name: string | null; item_count: number; open_work_count: number; total_count?: string };
+/** The columns of repair_requests a summary shows (a list reads only these). */
+const SUMMARY_COLUMNS = ['id', 'street', 'city', 'state', 'zip', 'year_built', 'closing_date', 'nec_edition', 'status', 'created_at', 'updated_at'] as const;
+
+type SummaryRow = Pick<RepairRequestRow, (typeof SUMMARY_COLUMNS)[number]> & { contractor_name: string | null; item_count: number; open_work_count: number; total_count?: string };
 
 function toSummary(row: SummaryRow): RepairRequestSummary {
   return {
@@ -113,6 +122,8 @@ export class RequestRepository {
     private readonly db: Db,
     /** Lists count no further than this (a smaller cap only in tests). */
     private readonly countCap = LIST_COUNT_CAP,
+    /** Where list pages run as prepared statements (db/read-pool.ts); without it, through Knex. */
+    private readonly readPool: pg.Pool | null = null,
   ) {}
 
   /** Narrows a query on `repair_requests as r` to the requests `viewer` is party to. */
@@ -128,67 +139,102 @@ export class RequestRepository {
 
   private summaries(trx?: Trx): Knex.QueryBuilder {
     const db = trx ?? this.db;
-    return db('repair_requests as r')
-      .leftJoin('organisations as o', 'o.id', 'r.contractor_organisation_id')
-      .select(
-        'r.*',
-        'o.name as contractor_name',
-        itemCount(db),
-        openWorkCount(db),
-      );
+    return joinItemCounts(db, db('repair_requests as r').leftJoin('organisations as o', 'o.id', 'r.contractor_organisation_id')).select(
+      'r.*',
+      'o.name as contractor_name',
+      'ic.item_count',
+      'ic.open_work_count',
+    );
   }
 
   /**
-   * One page of the requests `viewer` sees, in one statement: the page's ids are picked first (by
-   * the sort's index within the viewer's scope), the summary columns are read for those rows only,
-   * and the total is counted no further than LIST_COUNT_CAP + 1 rows (then `isTotalCapped`).
+   * One page of the requests `viewer` sees, in one statement: the page's ids are picked first by
+   * the index of the sort within the viewer's scope (request_viewers for the people named on
+   * requests, repair_requests for contractors and administrators), the summary columns are read
+   * for those rows only, and the total is counted no further than LIST_COUNT_CAP + 1 rows (then
+   * `isTotalCapped`). Prepared once per connection with one plan for every viewer and page.
    */
   async list(viewer: Viewer, filter: RequestListFilter): Promise<{ items: RepairRequestSummary[]; total: number; isTotalCapped: boolean }> {
-    const rows: (SummaryRow & { n: string; ord: string | null })[] = await this.listStatement(viewer, filter);
+    const statement = this.listStatement(viewer, filter);
+    type Row = SummaryRow & { n: string; ord: string | null };
+    const rows: Row[] = this.readPool ? await readPrepared<Row>(this.readPool, statement) : await statement;
     const counted = Number(rows[0]?.n ?? 0);
-    return {
-      items: rows.filter((r) => r.ord !== null).map(toSummary),
-      total: Math.min(counted, this.countCap),
-      isTotalCapped: counted > this.countCap,
-    };
+    const items: RepairRequestSummary[] = [];
+    for (const row of rows) if (row.ord !== null) items.push(toSummary(row));
+    return { items, total: Math.min(counted, this.countCap), isTotalCapped: counted > this.countCap };
+  }
+
+  /**
+   * The rows `viewer` may list, filtered: request_viewers (`v`, one row per person and request, with
+   * the request's sort and filter columns) for the people named on requests; repair_requests (`r`)
+   * for contractors and administrators.
+   */
+  private visibleRows(viewer: Viewer, filter: RequestListFilter): { rows: Knex.QueryBuilder; key: 'v' | 'r'; id: string } {
+    const db = this.db;
+    const isNamed = viewer.role !== 'admin' && viewer.role !== 'contractor';
+    const key = isNamed ? 'v' : 'r';
+    const id = isNamed ? 'v.request_id' : 'r.id';
+    const rows = isNamed ? db('request_viewers as v').where('v.user_id', viewer.id) : db('repair_requests as r');
+    if (viewer.role === 'contractor') rows.where('r.contractor_organisation_id', viewer.organisationId ?? -1);
+    if (filter.statuses.length) rows.whereRaw(`${key}.status = ANY(?)`, [filter.statuses]);
+    if (filter.builtBefore) rows.where(`${key}.year_built`, '<', filter.builtBefore);
+    if (filter.text) {
+      const like = `%${filter.text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+      const searched = isNamed ? 'v.search_text' : "(r.street || ' ' || r.city || ' ' || r.zip)";
+      rows.where((w) => {
+        w.whereRaw(`${searched} ILIKE ?`, [like]);
+        if (filter.id !== null) w.orWhere(id, filter.id);
+      });
+    }
+    return { rows, key, id };
   }
 
   /** The one statement behind `list` (its plan is checked in the API tests). */
   listStatement(viewer: Viewer, filter: RequestListFilter): Knex.QueryBuilder {
     const db = this.db;
-    const visible = this.scope(db('repair_requests as r'), viewer);
-    if (filter.statuses.length) visible.whereIn('r.status', filter.statuses);
-    if (filter.builtBefore) visible.where('r.year_built', '<', filter.builtBefore);
-    if (filter.text) {
-      const like = `%${filter.text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-      visible.where((w) => {
-        w.whereRaw("(r.street || ' ' || r.city || ' ' || r.zip) ILIKE ?", [like]);
-        if (filter.id !== null) w.orWhere('r.id', filter.id);
-      });
-    }
-    const sort = SORT_COLUMNS[filter.sort];
-    const pageIds = visible
+    const visible = this.visibleRows(viewer, filter);
+    const dir = filter.direction;
+    // A text search reads every visible row anyway (no index finds a substring): it matches them
+    // once ("matches"), and the page and the count read that. Other lists read the sort's index.
+    const isSearch = Boolean(filter.text);
+    const sortColumn = SORT_COLUMNS[filter.sort];
+    const rows = isSearch ? db('matches as m') : visible.rows;
+    const id = isSearch ? 'm.id' : visible.id;
+    const sort = isSearch ? `m.${sortColumn}` : `${visible.key}.${sortColumn}`;
+    const pageIds = rows
       .clone()
-      .select('r.id', db.raw(`row_number() OVER (ORDER BY ${sort} ${filter.direction}, r.id ${filter.direction}) AS ord`))
-      .orderBy(sort, filter.direction)
-      .orderBy('r.id', filter.direction)
+      .select(`${id} as id`, db.raw(`row_number() OVER (ORDER BY ${sort} ${dir}, ${id} ${dir}) AS ord`))
+      .orderBy(sort, dir)
+      .orderBy(id, dir)
       .limit(filter.pageSize)
       .offset(filter.page * filter.pageSize);
-    const counted = db.from(visible.clone().select(db.raw('1')).limit(this.countCap + 1).as('v')).count({ n: '*' });
-    return db
+    const counted = db.from(rows.clone().select(db.raw('1')).limit(this.countCap + 1).as('c')).count({ n: '*' });
+    const page = isSearch ? db.withMaterialized('matches', visible.rows.clone().select(`${visible.id} as id`, `${visible.key}.${sortColumn}`)) : db.queryBuilder();
+    page
       .with('page_ids', pageIds)
       .with('counted', counted)
       .from('counted')
       .joinRaw('LEFT JOIN page_ids ON true')
-      .leftJoin('repair_requests as r', 'r.id', 'page_ids.id')
-      .leftJoin('organisations as o', 'o.id', 'r.contractor_organisation_id')
-      .select('counted.n', 'page_ids.ord', 'r.*', 'o.name as contractor_name', itemCount(db), openWorkCount(db))
+      // Row by row through the primary key whatever the page size (OFFSET 0 keeps it a nested loop,
+      // also in a plan made once for any page).
+      .joinRaw(`LEFT JOIN LATERAL (SELECT ${SUMMARY_COLUMNS.join(', ')}, contractor_organisation_id FROM repair_requests WHERE id = page_ids.id OFFSET 0) AS r ON true`)
+      .leftJoin('organisations as o', 'o.id', 'r.contractor_organisation_id');
+    return joinItemCounts(db, page)
+      .select('counted.n', 'page_ids.ord', ...SUMMARY_COLUMNS.map((c) => `r.${c}`), 'o.name as contractor_name', 'ic.item_count', 'ic.open_work_count')
       .orderBy('page_ids.ord');
+  }
+
+  /** What decides a request's code notes (build year, adopted edition) if `viewer` may see it, else null. */
+  async findVisibleHouse(viewer: Viewer, id: number): Promise<HouseCode | null> {
+    type Row = Pick<RepairRequestRow, 'year_built' | 'nec_edition'>;
+    const query = this.scope(this.db('repair_requests as r'), viewer).where('r.id', id).first('r.year_built', 'r.nec_edition');
+    const [row]: (Row | undefined)[] = this.readPool ? await readPrepared<Row>(this.readPool, query) : [await query];
+    return row ? { yearBuilt: row.year_built, necEdition: row.nec_edition as NecEdition } : null;
   }
 
   /** The request if `viewer` may see it, else null (callers answer 404 either way). */
   async findVisible(viewer: Viewer, id: number, trx?: Trx): Promise<(RepairRequestSummary & { contractorOrganisationId: number | null }) | null> {
-    const row: SummaryRow | undefined = await this.scope(this.summaries(trx), viewer).where('r.id', id).first();
+    const row: (SummaryRow & Pick<RepairRequestRow, 'contractor_organisation_id'>) | undefined = await this.scope(this.summaries(trx), viewer).where('r.id', id).first();
     return row ? { ...toSummary(row), contractorOrganisationId: row.contractor_organisation_id } : null;
   }
 

@@ -8,6 +8,7 @@ import {
   type FlowActor,
   type CreateRepairRequestParsed,
   type CurrentUser,
+  type HouseCode,
   type InviteParty,
   type Page,
   type Party,
@@ -71,6 +72,13 @@ export class RequestsService {
       builtBefore: query.builtBefore ?? null,
     });
     return { items: items.map((i) => this.withRisk(i)), total, isTotalCapped, page: query.page, pageSize: query.pageSize };
+  }
+
+  /** The build year and adopted edition of a request `user` may see (for code notes); 404 otherwise. */
+  async house(user: CurrentUser, id: number): Promise<HouseCode> {
+    const house = await this.requests.findVisibleHouse(viewerOf(user), id);
+    if (!house) throw new NotFoundError('No such repair request');
+    return house;
   }
 
   /** The request as `user` may see it; 404 when they are not a party to it. */

@@ -7,6 +7,25 @@ describe('businessDaysBetween', () => {
     expect(businessDaysBetween('2026-12-08', '2026-12-08')).toBe(0);
   });
 
+  it('counts long spans as day-by-day counting does (every start weekday, spans up to two years)', () => {
+    const dayByDay = (from: string, to: string): number => {
+      let count = 0;
+      for (let t = Date.parse(`${from}T00:00:00Z`) + 86_400_000; t <= Date.parse(`${to}T00:00:00Z`); t += 86_400_000) {
+        const day = new Date(t).getUTCDay();
+        if (day !== 0 && day !== 6) count++;
+      }
+      return count;
+    };
+    for (let start = 0; start < 7; start++) {
+      const from = new Date(Date.UTC(2026, 11, 1 + start)).toISOString().slice(0, 10);
+      for (const span of [0, 1, 5, 6, 7, 8, 13, 14, 30, 365, 366, 730]) {
+        const to = new Date(Date.UTC(2026, 11, 1 + start + span)).toISOString().slice(0, 10);
+        expect(businessDaysBetween(from, to)).toBe(dayByDay(from, to));
+        expect(businessDaysBetween(to, from) + dayByDay(from, to)).toBe(0);
+      }
+    }
+  });
+
   it('is negative once the date has passed', () => {
     expect(businessDaysBetween('2026-12-08', '2026-12-01')).toBe(-5);
   });

@@ -25,8 +25,13 @@ export function businessDaysBetween(from: string, to: string): number {
   const end = Date.parse(`${to}T00:00:00Z`);
   const sign = end >= start ? 1 : -1;
   const [low, high] = sign > 0 ? [start, end] : [end, start];
-  let count = 0;
-  for (let t = low + MS_PER_DAY; t <= high; t += MS_PER_DAY) if (isWeekday(t)) count++;
+  // Any seven days in a row hold five weekdays: whole weeks are counted at once, only the rest
+  // (up to six days) day by day, so a far closing date costs no more than a near one (lists compute
+  // this for every row).
+  const days = Math.round((high - low) / MS_PER_DAY);
+  const weeks = Math.floor(days / 7);
+  let count = weeks * 5;
+  for (let t = low + (weeks * 7 + 1) * MS_PER_DAY; t <= high; t += MS_PER_DAY) if (isWeekday(t)) count++;
   return sign * count;
 }
 

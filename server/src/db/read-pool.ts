@@ -1,0 +1,25 @@
+import { createHash } from 'node:crypto';
+import type { Knex } from 'knex';
+import pg from 'pg';
+
+/**
+ * Connections for the reads the server makes on most requests (the session with its user, a list
+ * page), run as named prepared statements: each connection parses and plans such a statement once
+ * and then only executes it. Its plan is the generic one (made without the values, from the
+ * statement's shape: index per sort, row by row by primary key), so these statements are written
+ * to have one plan that suits every value. Other queries keep using Knex's pool, planned per run.
+ */
+export function createReadPool(databaseUrl: string, max = 10): pg.Pool {
+  const pool = new pg.Pool({ connectionString: databaseUrl, max, options: '-c plan_cache_mode=force_generic_plan' });
+  // An idle connection the database ends (a restart, an administrator) is dropped and replaced on
+  // the next read; without a listener its error would end the process.
+  pool.on('error', (err) => console.error(`A read connection to PostgreSQL ended: ${err.message}`));
+  return pool;
+}
+
+/** Runs `query` on `pool` as a prepared statement named after its SQL text (so one per shape). */
+export async function readPrepared<T extends pg.QueryResultRow>(pool: pg.Pool, query: Knex.QueryBuilder | Knex.Raw): Promise<T[]> {
+  const { sql, bindings } = query.toSQL().toNative();
+  const name = `cc-${createHash('sha1').update(sql).digest('base64url').slice(0, 24)}`;
+  return (await pool.query<T>({ name, text: sql, values: bindings as unknown[] })).rows;
+}
