@@ -5,13 +5,33 @@
 import { readFileSync } from 'node:fs';
 import { CORPUS_LAYOUT, formatScoreTable } from './corpus-runner';
 import { runBatch } from './batch';
-import type { LabelledFinding } from './score';
+import { scoreCodes, scoreCorpus, type LabelledFinding } from './score';
+
+/** The corpus's batches by excerpt number, for held-out comparisons (docs/parser.md). */
+const BATCHES: ReadonlyArray<{ name: string; from: number; to: number }> = [
+  { name: 'project 01-46', from: 1, to: 99 },
+  { name: 'A+B 101-160', from: 101, to: 199 },
+  { name: 'tuning 201-255', from: 200, to: 299 },
+  { name: 'C 301-360', from: 300, to: 399 },
+];
 
 async function main(names: string[]): Promise<void> {
   const run = await runBatch(CORPUS_LAYOUT);
   if (names.length === 0) {
     console.log(formatScoreTable(run.score));
     console.log(`codes only: F1 ${(100 * run.codes.f1).toFixed(1)}%`);
+    const expected = JSON.parse(readFileSync(CORPUS_LAYOUT.expectedFile, 'utf8')) as Record<string, LabelledFinding[]>;
+    const pct = (x: number) => `${(100 * x).toFixed(1)}`;
+    for (const b of BATCHES) {
+      const files = run.score.files.filter((f) => {
+        const n = Number.parseInt(f.file, 10);
+        return n >= b.from && n <= b.to;
+      });
+      const s = scoreCorpus(files);
+      const inBatch = new Set(files.map((f) => f.file));
+      const codes = scoreCodes(run.results.filter((r) => inBatch.has(r.file)).map((r) => ({ expected: expected[r.file], predicted: r.result.findings })));
+      console.log(`${b.name.padEnd(16)} P ${pct(s.precision)}  R ${pct(s.recall)}  F1 ${pct(s.f1)}  codes F1 ${pct(codes.f1)}  qty ${pct(s.quantityAccuracy)} (${s.quantityCorrect}/${s.truePositives})`);
+    }
     return;
   }
   const expected = JSON.parse(readFileSync(CORPUS_LAYOUT.expectedFile, 'utf8')) as Record<string, LabelledFinding[]>;

@@ -12,13 +12,13 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // as test/corpus/manifest.json says: as text, or laid out in a real PDF (running header and footer,
 // or two columns) and read back through the project's PDF text extraction.
 // Scores match findings by (code, room) as a multiset.
-// A ratchet, not the goal: with the independent writers' excerpts (201-255, then A+B 101-160) in the
-// corpus, the whole corpus scores precision 0.915, recall 0.906, F1 0.911 and quantity 0.953
-// (2026-12-02, docs/parser.md). The goal is 0.95 on each; raise these floors as the parser gets
-// there, never lower them.
-const MIN_PRECISION = 0.91;
-const MIN_RECALL = 0.9;
-const MIN_F1 = 0.91;
+// A ratchet, not the goal: with the independent writers' excerpts (201-255, A+B 101-160, then C
+// 301-360) in the corpus, the whole corpus scores precision 0.938, recall 0.918, F1 0.928 and
+// quantity 0.951 (2026-12-02, third round, docs/parser.md). The goal is 0.95 on each; raise these
+// floors as the parser gets there, never lower them.
+const MIN_PRECISION = 0.93;
+const MIN_RECALL = 0.91;
+const MIN_F1 = 0.92;
 const MIN_QUANTITY = 0.95;
 
 describe('report parser corpus', () => {

@@ -1,10 +1,11 @@
 import { clauseRanges } from './clause-splitter';
 import { matchCodes, type CodeMatch } from './code-matcher';
-import { CODE_RULES, type CodeRule } from './code-patterns';
+import { CODE_RULES, WHOLE_SYSTEM, type CodeRule } from './code-patterns';
 import { readLocation } from './location-reader';
 import type { FindingCode } from './finding-code';
 import type { MappedText } from './mapped-text';
 import { negatedSpans } from './negation-detector';
+import { deviceRating, nameplateMaximum, type CarriedRatings } from './overcurrent-check';
 import { findingQuantity } from './quantity-reader';
 import { scanAll } from './regex-scan';
 import { findRooms, type RoomMention } from './room-lexicon';
@@ -42,7 +43,7 @@ export interface BlockContext {
 }
 
 /** A sentence that only recommends or asks for follow-up ("This should be corrected by a licensed electrician."). */
-const FOLLOW_UP = /\b(?:recommend\w*|suggest\w*|advise\w*|should be|should have|needs? to be|must be|have (?:it|this|these|them|the\s+\w+) (?:\w+ed|repaired|corrected|checked|evaluated)|correct(?:ion|ed)?|repair(?:ed|s)?|replace(?:d|ment)?|evaluat\w*|further (?:evaluation|review)|by a (?:licensed|qualified)|licensed electrician|qualified electrician|electrical contractor|for safety|safety (?:hazard|concern|issue)|fire (?:hazard|risk)|shock (?:hazard|risk)|hazard)/i;
+const FOLLOW_UP = /\b(?:recommend\w*|install (?:the|a|an|new|proper|listed)\b|suggest\w*|advise\w*|should be|should have|needs? to be|must be|have (?:it|this|these|them|the\s+\w+) (?:\w+ed|repaired|corrected|checked|evaluated)|correct(?:ion|ed)?|repair(?:ed|s)?|replace(?:d|ment)?|evaluat\w*|further (?:evaluation|review)|by a (?:licensed|qualified)|licensed electrician|qualified electrician|electrical contractor|for safety|safety (?:hazard|concern|issue)|fire (?:hazard|risk)|shock (?:hazard|risk)|hazard)/i;
 
 /** A sentence that points back to a place named before it ("It is not GFCI protected"). */
 const REFERS_BACK = /^(?:it|they|this|these|those|each|both|one|the same|also|and)\b/i;
@@ -68,9 +69,12 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
   // The findings of the last sentence that had any: a follow-up sentence belongs to them.
   let lastFound: BlockFinding[] = [];
 
+  // A nameplate maximum stated without a rating beside it: the next sentence may give the rating.
+  let ratings: CarriedRatings | null = null;
   splitSentences(text).forEach((written, sentenceIndex) => {
     const sentence = normaliseText(written);
-    const matches = matchCodes(sentence.text);
+    const matches = matchCodes(sentence.text, { carried: ratings });
+    ratings = matches.some((m) => m.computation !== undefined) ? null : { nameplate: nameplateMaximum(sentence.text), rating: deviceRating(sentence.text) };
     const implied = matches.length === 0 ? subjectMatch(section, sentence.text) : null;
     if (implied) matches.push(implied);
     // Clauses are cut once per sentence with phrases, for negation and for places alike.
@@ -119,6 +123,12 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
       const over = ruleOf(f.code)?.yieldsInSentenceTo;
       if (over && inSentence.some((g) => !g.isRecommendation && g.room === f.room && over.includes(g.code))) inSentence.splice(k, 1);
     }
+    // "CO: none in the house; gas heater in the den - install a CO alarm": the remedy in the sentence
+    // that states the defect is that defect's, wherever the sentence mentions other places.
+    for (let k = inSentence.length - 1; k >= 0; k--) {
+      const f = inSentence[k];
+      if (f.isRecommendation && inSentence.some((g) => !g.isRecommendation && g.code === f.code)) inSentence.splice(k, 1);
+    }
     // A follow-up sentence only recommends, or speaks again of a defect the block already has
     // ("Three-prong receptacles should be grounded or GFCI protected.").
     // A recommendation of another kind of defect ("have the kitchen counter receptacles upgraded to
@@ -126,9 +136,10 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
     // of the defect before it (GFCI protection for an ungrounded receptacle).
     const onlyFollowUp = inSentence.every(
       (f) =>
-        f.isFallbackOnly ||
+        (f.isFallbackOnly && !WHOLE_SYSTEM.test(f.sentence.text)) ||
         (f.isRecommendation && (f.confidence === 'inferred' || lastFound.some((g) => g.code === f.code || ruleOf(f.code)?.yieldsTo?.includes(g.code)))) ||
-        (f.confidence === 'inferred' && found.some((g) => g.code === f.code)),
+        // A defect at a fixed place (the panel, the service) named again in the block is the same defect.
+        ((f.confidence === 'inferred' || ruleOf(f.code)?.fixedRoom !== undefined) && found.some((g) => g.code === f.code)),
     );
     if (lastFound.length > 0 && onlyFollowUp && FOLLOW_UP.test(sentence.text)) {
       // "This should be corrected by a licensed electrician.": part of the finding(s) before it.
@@ -193,6 +204,7 @@ function subjectMatch(section: Section, text: string): CodeMatch | null {
 
 const WIRING_METHODS: ReadonlySet<string> = new Set(['knob-and-tube', 'aluminum-branch-wiring']);
 
+
 function keepDistinct(all: readonly BlockFinding[]): BlockFinding[] {
   // A wiring method named again in the block without a place of its own is the same wiring.
   const found = all.filter(
@@ -200,7 +212,7 @@ function keepDistinct(all: readonly BlockFinding[]): BlockFinding[] {
   );
   const specific = found.filter(
     (f) =>
-      !f.isFallbackOnly &&
+      (!f.isFallbackOnly || WHOLE_SYSTEM.test(f.sentence.text)) &&
       !found.some((g) => g !== f && !g.isRecommendation && g.room === f.room && ruleOf(f.code)?.yieldsInBlockTo?.includes(g.code)),
   );
   const pool = specific.length > 0 ? specific : found.filter((f, i) => found.findIndex((g) => g.code === f.code) === i);

@@ -2,7 +2,7 @@ import type { SectionKind } from './finding.schema';
 import { MappedTextBuilder, type MappedText } from './mapped-text';
 import type { Room } from './room';
 import { scanAll } from './regex-scan';
-import { classifyHeadingLine, inlineNonElectricalLabel } from './section-heading';
+import { classifyHeadingLine, inlineNonElectricalLabel, SUMMARY_HEADING } from './section-heading';
 
 /**
  * Cuts the joined report text (pages joined with "\f") into sections and blocks. A block is one
@@ -103,6 +103,9 @@ export function splitBlocks(joined: string): Block[] {
         const parent = number !== null ? numbered.find((n) => isSubsection(number, n.number)) : undefined;
         section = heading.room === null && heading.kind !== 'non-electrical' && parent ? { ...heading, room: parent.room } : heading;
         if (number !== null && section.room !== null) numbered.unshift({ number, room: section.room });
+      } else if (headingLine.startsBody && section.title !== null && SUMMARY_HEADING.test(section.title)) {
+        // "COMMENTS" after the summary: the body starts, and its findings merge with the summary's.
+        section = { kind: 'general', title: content.replace(/\s*:$/, ''), room: null };
       }
       continue;
     }
@@ -150,6 +153,8 @@ function joinLine(builder: MappedTextBuilder, prev: Line, next: Line, shortLine:
     next.text.includes('\t') ||
     isTableRow(prev.text) ||
     isTableRow(next.text) ||
+    // A terse note that starts with its own place label ("Kitch: fridge recep loose") is a new sentence.
+    /^[\p{Lu}][\p{L}\d./ -]{0,18}:\s/u.test(after) ||
     (before.length < shortLine && !/[.!?]$/.test(before) && !CONNECTOR_END.test(before) && /^[\p{Lu}\d(]/u.test(after));
   builder.appendSeparator(isBoundary ? '\n' : ' ', breakAt);
 }

@@ -8,10 +8,10 @@ export interface Range {
 
 /**
  * Splits a sentence into clauses at semicolons and at contrast or cause words ("but", "although",
- * "however", "because"...). Negation never crosses a clause, and a room named in one clause
+ * "however", "because"..., and ", only": "none in the bedrooms, only a hall unit"). Negation never crosses a clause, and a room named in one clause
  * belongs first to the findings of that clause.
  */
-const CLAUSE_BREAK = /\s*;\s*|,?\s+(?:but|although|though|however|whereas|because|except|yet)\b,?\s*/gi;
+const CLAUSE_BREAK = /\s*;\s*|,?\s+(?:but|although|though|however|whereas|because|except|yet)\b,?\s*|,\s+(?=only\b)/gi;
 
 export function clauseRanges(text: string): Range[] {
   const ranges: Range[] = [];

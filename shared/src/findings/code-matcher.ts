@@ -2,7 +2,7 @@ import { CODE_RULES, type CodePattern, type CodeRule } from './code-patterns';
 import { FINDING_CODES } from './finding-code';
 import { LiteralScanner } from './literal-scanner';
 import { requiredLiteralLists } from './phrase-literals';
-import { checkOvercurrent } from './overcurrent-check';
+import { checkOvercurrent, type CarriedRatings } from './overcurrent-check';
 import { scanAll } from './regex-scan';
 
 /** One defect phrase found in a sentence. */
@@ -23,6 +23,8 @@ export interface MatchOptions {
    * phrase's own required words (for checks that the shortcuts change nothing).
    */
   readonly ignoreTriggers?: boolean;
+  /** A nameplate maximum or device rating stated by the sentence before in the same block (see checkOvercurrent). */
+  readonly carried?: CarriedRatings | null;
 }
 
 /**
@@ -102,7 +104,7 @@ function allMatches(sentence: string, options: MatchOptions): CodeMatch[] {
       }
     }
   }
-  for (const check of checkOvercurrent(sentence)) found.push({ rule: OVERCURRENT_RULE, start: check.start, end: check.end, isRecommendation: false, computation: check.computation });
+  for (const check of checkOvercurrent(sentence, options.carried ?? null)) found.push({ rule: OVERCURRENT_RULE, start: check.start, end: check.end, isRecommendation: false, computation: check.computation });
   return found;
 }
 

@@ -47,6 +47,12 @@ export interface CodeRule {
   readonly placeAnywhereInSentence?: boolean;
   /** Whether the room comes only from the sentence itself or the default (never from earlier sentences or the heading). */
   readonly ignoresContext?: boolean;
+  /**
+   * Whether the code is a condition of the house's wiring as a whole (aluminum branch wiring): the
+   * places a sentence names are where it was seen, not its extent, unless the sentence limits it
+   * ("only in the garage", "within the addition", "throughout the basement").
+   */
+  readonly isHouseWide?: boolean;
   /** Whether the code stands only in a block (item or paragraph) with no other finding. */
   readonly isFallbackOnly?: boolean;
 }
@@ -63,6 +69,15 @@ const NOT_ABOUT_ADDING = String.raw`(?:(?!replac|repair|reset|test|check)[\w-]+\
 const NOT_APPLIANCE = String.raw`(?<!\b(?:hood|range|oven|microwave|refrigerator|fridge|freezer|opener|appliance|exhaust fan)\s)`;
 /** A general evaluation that is conditional or points at items listed elsewhere ("all of the above") is not a finding of its own. */
 const REFERS_TO_OTHERS = /\bif\b|\bany\b|\bshould any\b|\babove\b|\bbelow\b|\bfollowing\b|\bthese\b|\bthis section\b|\b(?:items?|conditions?|defects?|deficiencies) (?:in|of|listed|noted)\b|\blisted\b|\bmarked\b|\bitems\b|\bitem \d|\bdeficien\w*|\b(?:repairs|corrections)\s+(?:should|shall|must|are|to|by)\b|\bthe cause\b|\baffected\b/i;
+/**
+ * A general evaluation of the whole system ("evaluate the entire electrical system", "a full
+ * evaluation of the wiring") is its own item beside a block's specific defects: its scope is the
+ * house, not the defect before it (common practice). One that names a wiring method or "these"
+ * repairs is that finding's recommendation.
+ */
+export const WHOLE_SYSTEM = /^(?![\s\S]*\b(?:alumin\w*|knob|k&t|legacy|these|those)\b)[\s\S]*?(?:\b(?:entire|whole|full|complete|comprehensive|overall)\s+(?:[\w-]+\s+){0,2}?(?:system|house|home|wiring|evaluation|review)\b|\bevaluate the (?:electrical )?system\b)/i;
+/** An evaluation that points at other items, unless it is of the whole system ("so that any hidden conditions can be priced"). */
+const REFERS_TO_OTHERS_ONLY = new RegExp(`^(?![\\s\\S]*(?:${WHOLE_SYSTEM.source}))[\\s\\S]*?(?:${REFERS_TO_OTHERS.source})`, 'i');
 const PANEL_CONTEXT = /panel|dead[- ]?front|load cent|breaker box|fuse box|enclosure/i;
 /** A bare "cover" next to a junction box is the box's cover, not a device cover plate. */
 const JBOX_WORD = /junction|j-?\s?box|\bbox(?:es)?\b/i;
@@ -72,6 +87,43 @@ const WIRING_OUT_OF_USE = /\b(?:not energized|de-?energized|abandoned|tested dea
 const SMOKE_OR_LABEL = String.raw`(?:${T.SMOKE}|(?:smoke|co)(?:\s*(?:\/|and|&)\s*co)?\s*:)`;
 /** An alarm past its service life: expired, end of life, chirping, older than ten years. */
 const SMOKE_AGED = String.raw`(?:expired|end[- ]of[- ]life|chirp(?:s|ed|ing)?\b|(?:past|beyond|exceed(?:s|ed|ing)?|over|outlived|older than)\s+(?:(?:the|their|its|a|his|her)\s+)?(?:(?:\d+|ten)[- ]?(?:year|yr)s?\b|(?:recommended\s+|expected\s+|normal\s+)?(?:service|useful|rated)\s+life|life\s*span|expiration|replacement (?:age|date)))`;
+/** A service part said to be sound ("secure, no damage observed", "ok"): a condition word after it is about something else. */
+const SERVICE_SOUND = /\b(?:otherwise (?:secure|sound|ok)|(?:no|without) (?:damage|deficiencies|defects|corrosion|rust)|satisfactory|serviceable)\b/i;
+/** "8 ft above the deck surface", "about a foot and a half above the roof". */
+const CLEARANCE = String.raw`(?:only\s+|approx(?:imately|\.)?\s+|about\s+|roughly\s+|~\s?)?(\d+(?:\.\d+)?|a|one|two|three|four|five|six|seven|eight|nine)\s*(?:ft\b\.?|feet|foot|')(?:\s+(?:and\s+a\s+half|\d+\s*(?:in|inches|")))?\s+(?:above|over|from|off)\s+(?:the\s+)?(?:(?:rear|back|front|side|upper|lower|flat)\s+)?(roof|deck|walkway|walk|sidewalk|driveway|drive|grade|ground|yard|patio|pool|porch|balcony)`;
+const CLEARANCE_WORDS: Readonly<Record<string, number>> = { a: 1, one: 1, two: 2, three: 3, four: 4, five: 5, six: 6, seven: 7, eight: 8, nine: 9 };
+/** NFPA 70 (NEC) 2023, 230.24(A) and (B) (from memory): the least clearance above each surface, in feet. */
+export const SERVICE_CLEARANCE_FT: Readonly<Record<string, number>> = {
+  roof: 3, deck: 10, walkway: 10, walk: 10, sidewalk: 10, grade: 10, ground: 10, yard: 10, patio: 10, pool: 10, porch: 10, balcony: 10, driveway: 12, drive: 12,
+};
+function isTooLow(m: RegExpExecArray): boolean {
+  const value = CLEARANCE_WORDS[m[1].toLowerCase()] ?? Number(m[1]);
+  return value < SERVICE_CLEARANCE_FT[m[2].toLowerCase()];
+}
+/** Text in one clause that does not name another device (whose cover would be a cover plate). */
+const NOT_ANOTHER_DEVICE = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|light|fixture|panel|breaker)[^.;!?]){0,60}?`;
+/** A box left open: no cover or lid, or its splices or conductors in view. */
+const BOX_UNCOVERED = String.raw`\b(?:no|missing|without|lacks?|lacking)\s+(?:a\s+|its\s+|the\s+|any\s+)?(?:blank\s+)?(?:covers?|lids?)\b(?!\s*plates?|\s+(?:on|for|at)\s+(?:the\s+|an?\s+)?(?:[\w-]+\s+)?(?:${T.RCPT}|${T.SWITCH}|light))|\b(?:covers?|lids?)\s+(?:is\s+|are\s+)?(?:missing|absent|off|removed)\b|\b(?:splices?|wire nuts?|conductors?|connections?)\s+(?:are\s+|is\s+)?(?:visible|showing|exposed|accessible)\b`;
+/** Words between a light and its condition: no other device. */
+const LIGHT_GAP = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|fans?\b|panel|breaker|box(?:es)?\b|cords?\b|wir(?:e|es|ing)\b|cables?\b|smoke|alarms?\b)[\w'/#().@:-]+\s+){0,10}?`;
+const LIGHT_CONDITION = String.raw`(?:loose\b(?!-)|(?:has\s+)?water\s+in|rust(?:ed|ing|y)?\b|corroded|cracked|broken|damaged|scorched|melted|dangl(?:es|ing)|(?:does|did)\s*n[o']t\s+(?:light|work|come on|turn on)|${T.INOPERATIVE})`;
+/** Words between a receptacle and its condition: no other device, no clause-ending comma. */
+const RCPT_GAP = String.raw`(?:(?!${T.SWITCH}|light|fixture|panel|breaker|cords?\b|plates?\b|covers?\b|gfc?i|wir(?:e|es|ing)\b|cables?\b)[\w'/#().@:-]+\s+){0,12}?`;
+/** What goes wrong with a receptacle (common practice): heat, damage, looseness, no power. */
+const RCPT_CONDITION = String.raw`(?:(?:is|are|was|were|felt|feels?|runs?|ran|running)\s+(?:(?:noticeably|very|slightly)\s+)?(?:warm|hot)\b(?!\s+(?:and|&|\/)\s+neutral)|(?:warm|hot)\s+to\s+the\s+touch|discolou?red|scorched|burn(?:ed|t)|melted|charred|cracked|broken|damaged|loose\s+(?:in|from|at)\b|hanging\s+(?:out|loose|from)|pulled\s+(?:out|away)|(?:had\s+|has\s+)?no\s+power\b|dead\b|${T.INOPERATIVE})`;
+/** Words between a cable and its condition: not another device, whose condition it would be. */
+const WIRE_GAP = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|light|fixture|box(?:es)?\b|panel|breaker|cords?\b|service|meter)[\w'/#().@-]+,?\s+){0,10}?`;
+/** A cable said to be secured, or the cable of a splice or fixture (an open splice, a hanging fixture is that defect). */
+const WIRE_SOUND_OR_OTHER = /\b(?:properly|neatly|adequately|well) (?:secured|supported|protected|stapled|strapped)\b|\bsplices?\b|\bwire nuts?\b|\b(?:chandelier|fixture|luminaire|pendant)s?\b/i;
+/** What goes wrong with a cable run (common practice): not secured, not protected, within reach of damage. */
+const WIRE_CONDITION = String.raw`(?:exposed to (?:physical )?damage|subject to (?:physical )?damage|unprotected|unsecured|unsupported|unstapled|(?:has\s+)?(?:come|came|coming|pulled|pulling) (?:loose|free|away)|(?:not|never) (?:clamped|secured|supported|stapled|strapped|fastened|protected)|loose\b|hang(?:s|ing)\b|dangl(?:es|ing)|draped|(?:hanging\s+)?in loops)`;
+/** A part of the grounding electrode system or of piping bonding (NFPA 70 (NEC) 2023, 250.50, 250.104). */
+const GROUND_PART = String.raw`(?:ground(?:ing)? electrode(?: conductor)?|gec\b|(?:ground(?:ing)?|electrode)\s+(?:rods?|clamps?|wires?|conductors?)\b|(?:main\s+)?(?:water|gas|csst)(?:\s+(?:pipe|piping|line|main|service))?\s+bond(?:ing)?(?:\s+(?:jumper|clamp|wire|conductor|connection))?\b|bond(?:ing)?\s+(?:jumpers?|clamps?|conductors?|wires?|connections?)\b|acorn clamp)`;
+/** What goes wrong with a grounding or bonding part (common practice). */
+const GROUND_CONDITION = String.raw`(?:loose|corroded|(?:heavy|severe|some)?\s*corrosion|rust(?:ed|y)|disconnected|detached|cut(?: off)?|broken|damaged|missing|slipping off|pulled (?:off|loose|free)|(?:not|un)[- ]?(?:connected|attached|bonded|secured|clamped)|undersized|painted over|(?:appears? to )?(?:have|has) been removed|removed)\b`;
+const COVER_OFF_TO_INSPECT = /\bremoved\s+(?:by\s+(?:the\s+)?inspector\s+)?(?:for|to|during|so|when|while)\b|\bwith\s+(?:the\s+)?(?:dead[- ]?front|(?:panel\s+)?cover)(?:\s+cover)?\s+(?:was\s+)?(?:removed|off)\b|\b(?:was|were)\s+removed\.?$/i;
+/** A statement that the arrangement is right ("correct", "as permitted", "ok"), not negated ("not correct"). */
+const CORRECT_AT_SERVICE = /(?<!\bnot\s)\b(?:correct|permitted|proper|acceptable|allowed|ok|okay|normal|appropriate)\b/i;
 const SUBPANEL_CONTEXT = /sub-?\s?panel|secondary panel|remote panel|downstream|distribution panel|feeder/i;
 
 export const CODE_RULES: readonly CodeRule[] = [
@@ -139,16 +191,19 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:tested|tests?|read|reads|showed?|shows|indicated?|registers?|registered)\s+(?:as\s+)?(?:ungrounded|open ground)` },
       { re: rx`(?:three|3)[- ](?:prong|slot|hole)\s+${T.RCPT}?\s*${gap(3)}(?:on|with|in|fed by)\s+(?:an?\s+)?(?:ungrounded|two[- ]wire|2[- ]wire|non-?grounded)` },
       // A feeder with no equipment ground is a subpanel defect, a plastic water line no electrode: neither is a receptacle's open ground.
-      { re: rx`(?:no|lacks?|lacking|missing|without)\s+(?:an?\s+)?(?:equipment\s+)?ground(?:ing)?(?:\s+(?:conductor|wire|path))?\b(?!\s*(?:fault|electrode|rod|clamp))`, unless: /\b(?:feeder|sub-?panel|water (?:line|pipe|service)|electrode|ground rod)\b/i },
+      { re: rx`(?:no|lacks?|lacking|missing|without)\s+(?:an?\s+)?(?:equipment\s+)?ground(?:ing)?(?:\s+(?:conductor|wire|path))?\b(?!\s*(?:fault|electrode|rod|clamp))`, unless: /\b(?:feeder|sub-?panel|water (?:line|pipe|service)|electrode|ground rod|knob[- ]?(?:and|&|n)[- ]?tube)\b/i },
       { re: rx`${T.RCPT}\s+${gap(8)}${T.BE}(?:not grounded|ungrounded)` },
     ],
   },
   {
     code: 'false-ground',
-    trigger: /ground/i,
+    trigger: /ground|gnd|bootleg/i,
     yieldsTo: ['subpanel-bonding'],
     patterns: [
       { re: rx`(?:bootleg(?:ged)?|false|fake)\s+(?:indication of (?:a\s+)?)?ground(?:s|ed|ing)?\b` },
+      // "(bootleg)" after the jumper it names, and "neutral -> ground screw" shorthand (common practice).
+      { re: rx`bootleg(?:ged)?\b` },
+      { re: rx`(?:jumper|jumpered|jumped)\s+${anyGap(3)}(?:n|neutral)\s*(?:->|-->|→|to)\s*(?:the\s+)?(?:g|gnd|ground)(?:ing)?(?:\s+(?:terminal|screw))?` },
       { re: rx`(?:jumper|jumpered|jumped|tied|bonded)\s+${anyGap(4)}(?:from\s+)?(?:the\s+)?neutral\s+${anyGap(3)}to\s+(?:the\s+)?(?:green\s+)?ground(?:ing)?(?:\s+(?:terminal|screw))?` },
       { re: rx`(?:jumper|wire)\s+${anyGap(4)}between\s+(?:the\s+)?neutral\s+${anyGap(3)}and\s+(?:the\s+)?(?:green\s+)?ground(?:ing)?(?:\s+(?:terminal|screw))?` },
       { re: rx`neutral[- ]to[- ]ground(?:ing)?\s+(?:terminal\s+|screw\s+)?jumper`, unless: PANEL_CONTEXT },
@@ -158,6 +213,8 @@ export const CODE_RULES: readonly CodeRule[] = [
   {
     code: 'receptacle-damaged',
     trigger: /rec[ei]p|rcp|outlet|duplex|device|plug|cord|tension|grip|contacts/i,
+    // A GFCI that will not reset leaves the receptacles after it dead: that is the GFCI's defect, not theirs (common practice).
+    yieldsInSentenceTo: ['gfci-inoperative'],
     patterns: [
       { re: rx`(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?:[- ]over)?|worn|discolou?red|heat[- ]damaged|dead|${T.INOPERATIVE})\s+${ADJ_GAP}${T.RCPT}` },
       { re: rx`(?:cracked|broken|damaged) (?:face|housing|body)|loose (?:plug )?fit|plugs? (?:fits?|fit) loose(?:ly)?|(?:will not|won't|does not|doesn't) (?:hold|retain) (?:a |the )?plugs?` },
@@ -168,6 +225,9 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`no power (?:at|to)\s+(?:the\s+)?${gap(3)}${T.RCPT}` },
       { re: rx`(?:plugs?|cords?)\s+(?:fall|falls|fell|slip|slips|pull|pulls)\s+out` },
       { re: rx`(?:loose|poor|weak|worn)\s+(?:blade\s+)?(?:tension|grip|contacts)` },
+      // A receptacle and its condition in the same clause with a longer description between ("the
+      // receptacle on the fireplace wall in the family room was warm and discolored"; common practice).
+      { re: rx`${T.RCPT}:?\s+${RCPT_GAP}(?:${T.BE})?(?:(?:noticeably|very|slightly|visibly|partly|partially)\s+)?${RCPT_CONDITION}`, unless: /\b(?:gfc?i|ground[- ]fault)\b[^.;]{0,30}\b(?:dead|no power)\b.{0,40}\breset\b/i },
     ],
   },
   {
@@ -189,7 +249,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'cover-plate-missing',
     trigger: /plate|cover/i,
     patterns: [
-      { re: rx`(?:${T.NO}|broken|cracked|damaged)\s+(?:(?:the|a|an|any)\s+)?(?:(?:switch|${T.RCPT}|light|blank)\s+)?${T.PLATE}`, unless: JBOX_WORD },
+      { re: rx`(?:${T.NO}|broken|cracked|damaged)\s+(?:(?:the|a|an|any|its|their)\s+)?(?:(?:switch|${T.RCPT}|light|blank)\s+)?${T.PLATE}`, unless: JBOX_WORD },
       { re: rx`${T.PLATE}\s+${gap(8)}${T.BE}(?:${T.ABSENT}|broken|cracked|damaged)`, unless: JBOX_WORD },
       { re: rx`${T.PLATE}\s+(?:for|on|at|of)\s+(?:the\s+|a\s+)?${ADJ_GAP}(?:${T.SWITCH}|${T.RCPT})\s+${gap(5)}${T.BE}(?:broken|cracked|damaged|missing)` },
     ],
@@ -207,6 +267,10 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:open|exposed|unenclosed|loose|taped)\s+(?:wire\s+)?splices?` },
       { re: rx`(?:spliced?|splices|connections?|connected)\b\s+${anyGap(20)}(?:with\s+no|without(?:\s+an?)?|not\s+in(?:\s+an?)?|rather than (?:being\s+)?(?:enclosed\s+)?in(?:\s+an?)?|outside(?:\s+of)?(?:\s+(?:an?|any))?)\s+(?:junction\s+|electrical\s+)?(?:box|enclosure)` },
       { re: rx`(?:wrapped|taped)\s+(?:only\s+)?(?:in|with)\s+(?:electrical\s+)?tape` },
+      // A box and its missing cover, or its visible splices, anywhere in the clause (terse notes and
+      // table rows: "J-box above furnace, no cover, splices visible"; "Lid missing from junction box").
+      { re: rx`${T.JBOX}${NOT_ANOTHER_DEVICE}(?:${BOX_UNCOVERED})` },
+      { re: rx`(?:covers?|lids?)\s+(?:is\s+|are\s+)?(?:missing|absent|off|removed)\s+(?:from|on|at)\s+(?:the\s+|an?\s+)?${T.JBOX}` },
     ],
   },
   {
@@ -221,6 +285,9 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:used|using|uses|plugged in(?:\s?to)?|powered by|connected to|on|fed by|fed from|through)\s+(?:an?\s+|the\s+)?${ADJ_GAP}extension cords?` },
       { re: rx`(?:uf|nm|underground|feeder|branch|direct[- ]burial)?\s*${T.WIRING}\s+${gap(6)}(?:${T.BE}|(?:has|have)\s+(?:simply\s+)?been\s+)?(?:lies|lying|laid|laying|lays|rests?|resting|run|strung|draped)\s+(?:directly\s+)?(?:on|across|along)\s+(?:the\s+)?(?:surface of the\s+)?(?:ground|dirt|soil|grass|lawn|yard|floor|crawl ?space floor)\b` },
       { re: rx`(?:permanent|fixed)\s+(?:use of\s+)?extension cords?` },
+      // A cable and its condition in the same clause with other words between ("NM cable to the
+      // disposal not clamped at the unit, loose under the sink"; common practice, NEC 334.15 and 334.30).
+      { re: rx`(?:nm(?:-b)?|romex|uf|surface[- ](?:run|mounted)|branch(?:[- ]circuit)?|sheathed)?\s*(?:wir(?:e|es|ing)\b(?!\s+nuts?\b)|cables?\b)\s+${WIRE_GAP}(?:${T.BE})?${WIRE_CONDITION}`, unless: WIRE_SOUND_OR_OTHER },
     ],
   },
   {
@@ -250,7 +317,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     fixedRoom: 'panel',
     patterns: [
       { re: rx`${T.NO}\s+${gap(2)}(?:dead[- ]?front|panel cover|inner cover|interior cover)(?:\s+screws?)?` },
-      { re: rx`(?:dead[- ]?front|panel cover|inner cover)(?:\s+cover)?\s+${gap(3)}${T.BE}(?:missing|absent|removed|not installed)(?:\s+(?:\w+\s+)?screws?)?` },
+      // Polarity: a cover taken off to look inside ("removed for inspection", "with the dead front removed") is procedure, not a defect.
+      { re: rx`(?:dead[- ]?front|panel cover|inner cover)(?:\s+cover)?\s+${gap(3)}${T.BE}(?:missing|absent|removed|not installed)(?:\s+(?:\w+\s+)?screws?)?`, unless: COVER_OFF_TO_INSPECT },
       { re: rx`(?:pointed|sharp|sharp[- ]tipped|drywall|sheet metal|self-tapping|incorrect|wrong|improper)\s+${gap(2)}screws?`, context: PANEL_CONTEXT },
       { re: rx`(?:missing|no)\s+${gap(2)}screws?`, context: PANEL_CONTEXT },
       { re: rx`(?:open|unused|unsealed)\s+(?:knockouts?|k\.?o\.?s?\b|breaker (?:slots?|spaces?|openings?)|slots?|openings?)`, context: PANEL_CONTEXT },
@@ -282,8 +350,10 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'subpanel-bonding',
     trigger: /neutral|ground|bond|green|egc/i,
     fixedRoom: 'panel',
+    // Polarity: neutrals and grounds together at the main service are correct ("which is correct at
+    // the service equipment", "as permitted at the main"; NFPA 70 (NEC) 2023, 250.24(A)).
     patterns: [
-      { re: rx`(?:neutrals?|grounds?)(?:\s+(?:conductors?|wires?))?\s+(?:and|&)\s+(?:neutrals?|grounds?|grounding|equipment grounds?)(?:\s+(?:conductors?|wires?))?\s+${gap(3)}(?:share|sharing|are on|on (?:the )?same|(?:landed |terminated )?together|combined|commingled|mixed|${T.BE}not (?:separated|isolated))` },
+      { re: rx`(?:neutrals?|grounds?)(?:\s+(?:conductors?|wires?))?\s+(?:and|&)\s+(?:neutrals?|grounds?|grounding|equipment grounds?)(?:\s+(?:conductors?|wires?))?\s+${gap(3)}(?:share|sharing|are on|on (?:the )?same|(?:landed |terminated )?together|combined|commingled|mixed|${T.BE}not (?:separated|isolated))`, unless: CORRECT_AT_SERVICE },
       { re: rx`(?:grounds?|ground wires|egcs?|equipment grounds?)\s+${gap(3)}(?:on|landed on|connected to|terminated on|share)\s+(?:the\s+)?neutral\s+(?:bar|bus)`, context: SUBPANEL_CONTEXT },
       { re: rx`(?:bonding|bond|green)\s+(?:screw|strap|jumper)\s+${gap(3)}${T.BE}(?:present|installed|in place|not removed)`, context: SUBPANEL_CONTEXT },
       { re: rx`neutral\s+(?:bar|bus)?\s*${gap(2)}${T.BE}bonded\s+to\s+(?:the\s+)?(?:enclosure|case|can|cabinet|panel|ground)`, context: SUBPANEL_CONTEXT },
@@ -292,11 +362,11 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'grounding-electrode',
-    trigger: /ground|gec|bond|electrode|jumper/i,
+    trigger: /ground|gec|bond|electrode|jumper|acorn/i,
     defaultRoom: 'panel',
     panelIsPlace: true,
     patterns: [
-      { re: rx`(?:${T.NO}|loose|disconnected|damaged|broken|cut|corroded|inadequate|improper)\s+(?:(?:a|an|the)\s+)?${gap(2)}(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|water (?:pipe |line )?bond(?:ing)?(?: jumper)?|gas (?:pipe |line )?bond(?:ing)?|bonding (?:jumper|conductor|clamp|wire|connection))` },
+      { re: rx`(?:${T.NO}|loose|disconnected|damaged|broken|cut|corroded|inadequate|improper)\s+(?:(?:a|an|the)\s+)?${gap(2)}(?:ground(?:ing)? electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|water (?:pipe |line )?bond(?:ing)?(?: jumper)?|gas (?:pipe |line )?bond(?:ing)?|bonding (?:jumper|conductor|clamp|wire|connection))` },
       { re: rx`(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|bonding (?:jumper|clamp|conductor))\s+${gap(12)}${T.BE}(?:${T.ABSENT}|loose|disconnected|damaged|cut(?: off)?|broken|corroded|not (?:connected|attached|bonded|secured)|undersized|inadequate)` },
       // A water meter or filter bridged by no jumper leaves the piping bond open (NFPA 70 (NEC) 2023, 250.53(D)(1) and 250.68(B)).
       { re: rx`${T.NO}\s+(?:bonding\s+)?jumper\s+(?:wire\s+)?(?:around|across|bridging|over|at)\s+(?:the\s+)?(?:water\s+)?(?:meter|filter|softener|water heater)` },
@@ -304,6 +374,12 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:ground(?:ing)?|electrode)\s+(?:wire|conductor)\s+${gap(8)}${T.BE}(?:loose|disconnected|cut(?: off)?|broken|not (?:connected|attached))` },
       { re: rx`(?:water|gas|metal|csst)(?:\s+(?:service|supply|main))?(?:\s+(?:pipes?|piping|lines?))?\s+${gap(2)}${T.BE}(?:not|un)[- ]?bonded` },
       { re: rx`(?:not|no)\s+bond(?:ed|ing)\s+(?:\w+\s+){0,3}?(?:water|gas|csst|metal piping)` },
+      // A grounding or bonding part and its condition in the same clause, with other words between
+      // ("ground wire to the water line at the water heater is loose", "GEC: clamp @ rod loose").
+      { re: rx`${GROUND_PART}\s*[:-]?\s+${anyGap(12)}(?:${T.BE})?${GROUND_CONDITION}` },
+      // A part that should be there and was looked for: "none found", "could not be located" is the defect itself.
+      { re: rx`${GROUND_PART}\s*[:-]?\s+${anyGap(8)}(?:${T.BE})?(?:none (?:found|located|observed|visible)|not (?:found|located|visible|observed|present|installed)|could not be (?:found|located|confirmed|verified|seen))` },
+      { re: rx`(?:could\s?n[o']t|did\s?n[o']t|was unable to|were unable to|unable to)\s+(?:locate|find|confirm|verify|see|identify)\s+(?:a|an|the|any)?\s*${GROUND_PART}` },
     ],
   },
   {
@@ -317,7 +393,9 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:unit|device)\s+${gap(4)}${T.FAILED}\s+(?:sound|alarm|respond|activate)`, context: /smoke|carbon monoxide|\bco\b|alarm|detector/i },
       // Common practice: smoke alarms are replaced ten years after manufacture (the date on the
       // label), CO alarms at the end of life the maker prints; an old date is the defect.
-      { re: rx`${T.SMOKE}\s+${anyGap(10)}${T.FAILED}\s+(?:sound|alarm|respond|activate|operate|work)` },
+      { re: rx`${T.SMOKE},?\s+${anyGap(10)}${T.FAILED}\s+(?:sound|alarm|respond|activate|operate|work)` },
+      // "Smoke alarms: battery units; alarm missing from the upstairs bedroom": the device named by its last word.
+      { re: rx`(?:alarms?|detectors?)\s+${gap(3)}${T.BE}(?:${T.ABSENT}|${T.INOPERATIVE}|expired)`, context: /smoke|carbon monoxide|\bco\b/i },
       { re: rx`${SMOKE_OR_LABEL}[^.;]{0,90}?${SMOKE_AGED}` },
       { re: rx`${SMOKE_OR_LABEL}[^.;]{0,60}?(?:dated|date[- ]?(?:codes?|stamps?)|manufactured|manufacture dates?|made|stamped)\s+(?:in\s+|of\s+)?(?:19[5-9]\d|20[0-2]\d)\b`, context: /replac|expir|past|beyond|exceed|old|aged|life|chirp|\b(?:10|ten)[- ]years?/i },
       { re: rx`(?:19[5-9]\d|20[0-2]\d)\s+(?:date[- ]?codes?|manufactur\w+ dates?)`, context: /smoke|carbon monoxide|\bco\b|alarm|detector/i, unless: /\btested (?:ok|fine|good|properly|correctly)\b|\bsatisfactory\b/i },
@@ -344,6 +422,9 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:bare[- ]bulb|open|exposed|porcelain|keyless)\s+(?:porcelain\s+)?(?:lamp\s?holders?|sockets?)` },
       { re: rx`(?:lamp\s?holders?|sockets?)\s+${gap(3)}${T.BE}(?:cracked|broken|damaged|loose|missing)` },
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(3)}(?:hangs?|hanging|suspended)\s+(?:from|by)\s+(?:one|a single|its)\s+(?:chain|end|wire|wires)` },
+      // A light and its condition in the same clause with other words between (common practice):
+      // water in the globe, rust, loose from its mounting, does not light.
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}:?\s+${LIGHT_GAP}(?:${T.BE})?${LIGHT_CONDITION}` },
     ],
   },
   {
@@ -354,11 +435,14 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:ceiling\s+)?fans?\s+${gap(2)}${T.BE}(?:mounted|installed|hung|supported)\s+(?:on|to|from|by)\s+(?:a|an|the)?\s*(?:standard|non-?fan[- ]rated|light(?:ing)?|plastic|pancake|junction|ordinary)\s+(?:fixture\s+|outlet\s+|light\s+)?box` },
       { re: rx`(?:wobbl\w*|loose|unsecured|shaky)\s+(?:ceiling\s+)?fans?\b` },
       { re: rx`(?:not|non)[- ](?:an?\s+)?fan[- ](?:rated|support(?:ing)?)\b` },
+      // A fan hung from a box that cannot carry it (NFPA 70 (NEC) 2023, 314.27(C)): "not rated to carry a fan", "no fan brace".
+      { re: rx`fans?\s+${anyGap(12)}box\s+${anyGap(4)}(?:${T.BE})?not\s+(?:rated|listed|approved|designed)\s+(?:to\s+(?:carry|support|hold)|for)\s+(?:a\s+|the\s+)?(?:ceiling\s+)?fan` },
+      { re: rx`(?:no|without|lacks?|missing)\s+(?:a\s+|any\s+)?(?:ceiling\s+)?fan[- ](?:rated\s+)?(?:brace|box|support|bracket)`, context: /\bfans?\b/i },
     ],
   },
   {
     code: 'switch-issue',
-    trigger: /switch/i,
+    trigger: /switch|toggle|rocker|paddle/i,
     patterns: [
       { re: rx`${T.SWITCH}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|(?:warm|hot) to the touch|warm|hot|sparks?|sparking|arcing|${T.FAILED} (?:operate|work|respond|control))` },
       { re: rx`${T.SWITCH}\s+${gap(7)}(?:(?:has|have|had|of|with|serves?)\s+)?(?:an?\s+)?(?:unknown|no known|undetermined|unclear) (?:function|purpose|use)` },
@@ -369,12 +453,18 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:does|did|do)\s*(?:n[o']t|not)?\s*(?:appear to\s+|seem to\s+)?(?:nothing|not (?:control|operate|turn on|power) (?:anything|any\w*)|not turn (?:the\s+)?${gap(2)}(?:on|off))` },
       { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:does|did)\s*n[o']t\s+(?:appear to\s+|seem to\s+)?(?:control|operate|turn on|power)\s+(?:anything|any\s+\w+)` },
       { re: rx`${T.SWITCH}\s+${SWITCH_GAP}${T.BE}loose in (?:the|its) (?:wall|box)` },
+      // "The switch controlling the desk receptacle is broken": the switch is the subject, not what it controls.
+      { re: rx`${T.SWITCH}\s+(?:that\s+)?(?:controlling|controls|for|serving|serves|operating|operates)\s+(?:the\s+|a\s+)?${anyGap(3)}(?:${T.RCPT}|${T.LIGHT}|fans?\b|disposal|disposer)\s+${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked)` },
+      // The switch's toggle, rocker or paddle broken or loose (common practice).
+      { re: rx`(?:toggle|rocker|paddle)s?\s+${gap(3)}${T.BE}(?:broken|snapped(?: off)?|sloppy|loose|missing|cracked|stuck)`, context: /switch|toggle/i },
     ],
   },
   {
     code: 'aluminum-branch-wiring',
     trigger: /alum|\bal\b/i,
     defaultRoom: 'whole-house',
+    isHouseWide: true,
+    ignoresContext: true,
     patterns: [
       {
         re: rx`(?:(?:single|solid)[- ](?:strand(?:ed)?|conductor)\s+)?(?:aluminum|aluminium|alum\.?|al)\s+(?:single[- ]strand\s+|solid\s+)?(?:branch(?:[- ]circuit)?\s+)?(?:circuit\s+)?(?:wir(?:e|es|ing)|conductors?|circuits?)\b`,
@@ -395,7 +485,10 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`knob[- ]?(?:and|&|n|'n'?)[- ]?tube`, unless: WIRING_OUT_OF_USE },
       { re: rx`\bk\s?&\s?t\b|\bk-t\b|\bknt\b`, unless: WIRING_OUT_OF_USE },
-      { re: rx`(?:ungrounded|two[- ]wire|2[- ]wire|cloth[- ](?:insulated|covered|sheathed)|fabric[- ](?:insulated|covered)|rubber[- ]insulated)\s+(?:legacy\s+|old(?:er)?\s+|original\s+|vintage\s+)?(?:wir(?:e|es|ing)|cables?|circuits?)\b` },
+      // Two-wire or cloth-covered cable is a wiring method of its own; at a three-slot receptacle it
+      // is an open ground, so it is knob-and-tube only when the sentence says the wiring is that old
+      // kind with no receptacle on it (common practice).
+      { re: rx`(?:ungrounded|two[- ]wire|2[- ]wire|cloth[- ](?:insulated|covered|sheathed)|fabric[- ](?:insulated|covered)|rubber[- ]insulated)\s+(?:legacy\s+|old(?:er)?\s+|original\s+|vintage\s+)?(?:wir(?:e|es|ing)|cables?|circuits?)\b`, unless: /\b(?:recep\w*|rcpts?|outlets?|three[- ](?:slot|prong)|3[- ](?:slot|prong)|grounded cable|patchwork|mix)\b/i },
     ],
   },
   {
@@ -414,6 +507,14 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${T.SERVICE}\s+${anyGap(8)}(?:cross(?:es)?|pass(?:es)?|runs?|hangs?|sags?)\s+(?:over|through|about|roughly|only|within|among|across|to)\b`, context: /\b(?:\d+|five|six|seven|eight|nine|ten)\s*(?:ft|feet|foot|')|limbs?|branch(?:es)?|\btrees?\b|within reach|clearance/i, unless: /\b(?:otherwise secure|adequate clearance|clearance (?:is )?(?:adequate|ok|good))\b/i },
       { re: rx`(?:service\s+)?drop\s+(?:sags?|sagging|clearance\s+(?:over|above|at|to|is)|is too low|rubs?|rubbing)\b`, context: /service|overhead|utility|drop/i, unless: /\bclearance (?:is )?(?:adequate|ok|good|sufficient)\b/i },
       { re: rx`(?:limbs?|branch(?:es)?|trees?)\s+(?:rubs?|rubbing|touch(?:es|ing)?|contacts?|contacting)\s+(?:against\s+|on\s+)?(?:them|it|the\s+(?:drop|conductors|service|lines|wires))`, context: /service|drop|overhead|conductor|utility/i },
+      // A part of the service and a condition of it in the same clause, with other words between
+      // ("the meter socket on the left side has heavy corrosion", "SE cable @ meter - jacket split").
+      { re: rx`${T.SERVICE}\s+${anyGap(10)}(?:${T.BE})?(?:${T.SERVICE_CONDITION})`, unless: SERVICE_SOUND },
+      { re: rx`(?:no|without|missing)\s+(?:a\s+)?(?:drip loop|weather\s?head|service mast)\b` },
+      // NFPA 70 (NEC) 2023, 230.24 (from memory): overhead service conductors keep 3 ft above a roof,
+      // 10 ft above grade, decks and walks, 12 ft above a residential driveway; a measured
+      // clearance below that is the defect.
+      { re: rx`${T.SERVICE}[^.;]{0,100}?${CLEARANCE}`, check: isTooLow },
     ],
   },
   {
@@ -424,8 +525,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     // An evaluation of the system is house-wide wherever the sentence stands; only a place it names narrows it.
     ignoresContext: true,
     patterns: [
-      { re: rx`(?:evaluat|review|inspect|assess|examin|diagnos|correct|repair)\w*\s+${anyGap(8)}(?:by|from)\s+(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)s?`, unless: REFERS_TO_OTHERS },
-      { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check)`, unless: REFERS_TO_OTHERS },
+      { re: rx`(?:evaluat|review|inspect|assess|examin|diagnos|correct|repair)\w*\s+${anyGap(8)}(?:by|from)\s+(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)s?`, unless: REFERS_TO_OTHERS_ONLY },
+      { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check)`, unless: REFERS_TO_OTHERS_ONLY },
       { re: rx`(?:consult|contact|hire|engage|retain|call)\s+(?:with\s+)?(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)`, unless: /\bif\b|\bany\b/i },
     ],
   },

@@ -13,10 +13,12 @@ describe('MappedTextBuilder', () => {
     expect(sourceRange(m)).toEqual({ start: 0, end: source.length });
   });
 
-  it('turns a tab (table cell) into a clause break', () => {
+  it('reads the cells of a tab row on as one line, like a pipe row (the item is read with its condition)', () => {
     const b = new MappedTextBuilder();
     b.appendSource('Garage\tReceptacle cracked', 0, 25);
-    expect(b.build().text).toBe('Garage;Receptacle cracked');
+    const text = b.build();
+    expect(text.text).toBe('Garage Receptacle cracked');
+    expect(text.offsets[6]).toBe(6);
   });
 
   it('joins a word wrapped with a hyphen', () => {

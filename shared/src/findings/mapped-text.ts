@@ -23,11 +23,9 @@ export class MappedTextBuilder {
     let run = from; // start of the source run not yet appended to `text`
     for (let i = from; i < to; i++) {
       const ch = source[i];
-      if (ch === '\t') {
-        this.text += source.slice(run, i) + ';';
-        run = i + 1;
-      } else if (ch === '|') {
-        // A column rule of a table row: the columns read on as one line ("CO alarm | Hallway | None present").
+      if (ch === '|' || ch === '\t') {
+        // A column rule of a table row, or a tab between columns: the columns read on as one line
+        // ("CO alarm | Hallway | None present"), so an item's condition is read with the item.
         this.text += source.slice(run, i);
         run = i + 1;
         if (this.offsets.length === 0 || WHITESPACE.test(this.last)) continue;
@@ -41,7 +39,7 @@ export class MappedTextBuilder {
         continue;
       }
       this.offsets.push(i);
-      this.last = ch === '\t' ? ';' : ch;
+      this.last = ch;
     }
     this.text += source.slice(run, to);
   }

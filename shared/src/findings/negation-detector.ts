@@ -17,13 +17,24 @@ const CUE_BEFORE = /\b(?:no|not|never|none of|free of|no evidence of|no signs? o
 const CUE_AFTER = /(?:\b(?:was|were|is|are)\s+)?\bnot\s+(?:observed|found|noted|detected|seen|evident|identified|present)\b|\bnone\b(?!\s+of\b)(?:\s+(?:observed|found|noted|detected|seen|evident))?|\bn\/a\b|\bnot an issue\b|\b(?:was|is|were|are)\s+not\s+(?:considered|reported as|listed as|counted as)\s+(?:a\s+)?(?:defect|deficiency|concern|problem)\b|\btypical (?:for|of) (?:the|its|a home of this) (?:age|era|period|vintage)\b|\bas (?:required|expected|intended)\b|\b(?:was|were) previously (?:present|installed|used|in use)\b|\b(?:tested|test|tests) (?:ok|okay|good|correctly|properly|fine)\b|\b(?:has|have|had) (?:since )?been (?:removed|replaced|abandoned|decommissioned|disconnected and removed)\b|\b(?:was|were) (?:removed|replaced|corrected|repaired|upgraded) (?:in|during|when|before|by)\b/gi;
 /** Text between two listed phrases: commas, "and", "or", "nor", "/", "&". */
 const LIST_JOIN = /^[\s,]*(?:(?:and|or|nor|&|\/|and\/or)[\s,]*)?$/i;
+/** A participle right after "not" that the phrase does not start with: the "not" is about it. */
+const OWN_VERB = /^\s+(?:\w+ly\s+)?(?!(?:grounded|protected|bonded|secured|supported|covered|connected|working|functioning|operating|installed|present|tripping|resetting)\b)\w+(?:ed|en)\s+\S/i;
 /** Longest run of ordinary words allowed between a cue and the phrase it denies. */
 const MAX_CUE_DISTANCE = 60;
 
 function cuesOutside(text: string, re: RegExp, spans: readonly Range[]): Range[] {
   return scanAll(re, text)
     .map((m) => ({ start: m.index, end: m.index + m[0].length }))
-    .filter((cue) => !spans.some((s) => cue.start < s.end && s.start < cue.end));
+    .filter((cue) => !spans.some((s) => cue.start < s.end && s.start < cue.end) && !removesProtection(text, cue));
+}
+
+/**
+ * "Has been removed" is history for a hazard (old wiring that has been removed) but the defect
+ * itself for a part that protects (a bond, jumper, cover or ground that has been removed).
+ */
+const PROTECTIVE_PART_BEFORE = /\b(?:bond(?:ing)?|jumpers?|clamps?|covers?|plates?|globes?|lens(?:es)?|screws?|fillers?|ground(?:ing)?\s+(?:wires?|conductors?|rods?))\s+(?:[\w'-]+\s+){0,4}$/i;
+function removesProtection(text: string, cue: Range): boolean {
+  return /removed/i.test(text.slice(cue.start, cue.end)) && PROTECTIVE_PART_BEFORE.test(text.slice(Math.max(0, cue.start - 60), cue.start));
 }
 
 /** For each span (sorted by start, not overlapping), whether the sentence denies it. */
@@ -37,6 +48,9 @@ export function negatedSpans(text: string, spans: readonly Range[], clauses: rea
     const first = spans.findIndex((s) => s.start >= cue.end);
     if (first === -1 || clauseOf(spans[first].start) !== clauseOf(cue.start)) continue;
     if (spans[first].start - cue.end > MAX_CUE_DISTANCE) continue;
+    // "not rated to carry a fan, and the fan shakes": a "not" that negates a verb of its own before
+    // the phrase ("not rated", "not labeled") denies that verb, not the phrase.
+    if (/^(?:not|never)$/i.test(text.slice(cue.start, cue.end)) && OWN_VERB.test(text.slice(cue.end, spans[first].start))) continue;
     negated[first] = true;
     for (let i = first + 1; i < spans.length && isListed(spans[i - 1], spans[i]); i++) negated[i] = true;
   }

@@ -27,7 +27,7 @@ const SIZE = /(?<![\w.])(\d{1,2})[\s-]?awg\b/gi;
 const MATERIAL = /\b(?:(aluminum|aluminium)|(copper))\b/gi;
 const DEVICE = /\b(?:breakers?|fuses?|fused|ocpds?|overcurrent|double-pole|2-pole|single-pole|two-pole|circuit)\b/i;
 /** The nameplate's limit: "nameplate max overcurrent device 30A", "MOCP 25 A", "max breaker 20A". */
-const NAMEPLATE = /\b(?:(?:nameplate|name plate|label|data plate|rating plate)\b[^.;]{0,30}?\bmax(?:imum|\.)?|max(?:imum|\.)?\s+(?:overcurrent|ocpd|breaker|fuse|circuit breaker)|mocp|max\.?\s+ocp)[^.;\d]{0,40}?(\d{2,3})\s?-?(?:a|amps?|amperes?)\b/gi;
+const NAMEPLATE = /\b(?:(?:nameplate|name plate|label|data plate|rating plate)\b[^.;]{0,30}?\bmax(?:imum|\.)?|max(?:imum|\.)?\s+(?:(?:overcurrent|ocpd|breaker|fuse|circuit breaker|hacr|device|protection|size|rating|or|and)\b\s*\/?\s*)+|mocp|max\.?\s+ocp)[^.;\d]{0,40}?(\d{2,3})\s?-?(?:a|amps?|amperes?)\b|\b(?:nameplate|name plate|label|data plate|rating plate|plate)\b[^.;\d]{0,30}?(\d{2,3})\s?-?(?:a|amps?|amperes?)\s+(?:max(?:imum|\.)?|at most)\b/gi;
 /** Text between a rating and a size that keeps them about the same circuit. */
 const MAX_PAIR_GAP = 140;
 
@@ -36,7 +36,13 @@ interface Mention extends Range {
 }
 
 function mentions(re: RegExp, text: string): Mention[] {
-  return scanAll(re, text).map((m) => ({ start: m.index, end: m.index + m[0].length, value: Number(m[1]) }));
+  return scanAll(re, text).map((m) => ({ start: m.index, end: m.index + m[0].length, value: Number(m[1] ?? m[2]) }));
+}
+
+/** The nameplate maximum a sentence states, if any: a following sentence of the block may give the device's rating. */
+export function nameplateMaximum(text: string): number | null {
+  const found = mentions(NAMEPLATE, text);
+  return found.length > 0 ? found[found.length - 1].value : null;
 }
 
 /** The material said nearest to a conductor size (after it first: "12 AWG copper"), copper when none. */
@@ -77,9 +83,37 @@ function nearestSize(sizes: readonly Mention[], rating: Mention, text: string): 
 }
 
 /** The oversized overcurrent devices stated in one sentence, each with its computation. */
-export function checkOvercurrent(text: string): OvercurrentCheck[] {
+/** What the sentence before in the same block said: a nameplate maximum, or a device rating. */
+export interface CarriedRatings {
+  readonly nameplate: number | null;
+  readonly rating: number | null;
+}
+
+/** A rating of a main breaker or of the service is not a branch device's rating. */
+const MAIN_OR_SERVICE = /\bmain\s+(?:breaker|disconnect|fuse|brkr)|\bservice\b|\b\d{3}\s?-?a(?:mps?)?\s+(?:main|panel|service)/i;
+
+/** A branch device's rating stated by the sentence (for the next sentence's nameplate), or null. */
+export function deviceRating(text: string): number | null {
+  if (!DEVICE.test(text) || MAIN_OR_SERVICE.test(text) || mentions(NAMEPLATE, text).length > 0) return null;
+  return mentions(RATING, text)[0]?.value ?? null;
+}
+
+const nameplateCheck = (rating: number, limit: number, at: Range): OvercurrentCheck => ({
+  ...at,
+  computation: `${rating} A overcurrent device; the nameplate allows at most ${limit} A (NEC 110.3(B))`,
+});
+
+export function checkOvercurrent(text: string, carried: CarriedRatings | null = null): OvercurrentCheck[] {
   if (!DEVICE.test(text) && !/\bfus|\bbreak|\bnameplate|\bmax/i.test(text)) return [];
   const nameplates = mentions(NAMEPLATE, text);
+  // "The data plate lists max breaker 30 A. The breaker at the disconnect is 45 A." (or the other
+  // way round): the nameplate and the device's rating in two sentences of one block.
+  if (nameplates.length === 0 && carried?.nameplate != null && DEVICE.test(text) && !MAIN_OR_SERVICE.test(text)) {
+    const over = mentions(RATING, text).find((r) => r.value > (carried.nameplate ?? Infinity));
+    if (over) return [nameplateCheck(over.value, carried.nameplate, over)];
+  }
+  const unpaired = nameplates.length > 0 && mentions(RATING, text).every((r) => nameplates.some((n) => r.start >= n.start && r.end <= n.end));
+  if (unpaired && carried?.rating != null && carried.rating > nameplates[0].value) return [nameplateCheck(carried.rating, nameplates[0].value, nameplates[0])];
   const ratings = mentions(RATING, text).filter((r) => !nameplates.some((n) => r.start >= n.start && r.end <= n.end));
   if (ratings.length === 0) return [];
   const sizes = mentions(SIZE, text);

@@ -6,6 +6,7 @@ import { findRooms } from './room-lexicon';
 import type { Room } from './room';
 import type { Finding, ParseResult, SkippedText } from './finding.schema';
 import { sourceRange, type MappedText } from './mapped-text';
+import { SUMMARY_HEADING } from './section-heading';
 
 /** The character that joins pages into one text; offsets in a ParseResult refer to that text. */
 export const PAGE_SEPARATOR = '\f';
@@ -113,8 +114,6 @@ function mergeWiringMentions(findings: Finding[]): Finding[] {
   });
 }
 
-/** A summary at the top of a report ("SUMMARY OF ELECTRICAL CONCERNS", "Overview"). */
-const SUMMARY_HEADING = /summary|overview|at a glance|key (?:findings|items|concerns)|highlights|action items/i;
 
 /**
  * One finding per defect: a summary item whose defect the body describes again (same code, and the

@@ -8,20 +8,20 @@ import type { Room } from './room';
  */
 const ROOM_WORDS: ReadonlyArray<readonly [Room, string]> = [
   ['bathroom', String.raw`(?:(?:hall|guest|primary|master|main|upstairs|downstairs|half|full|kids'?|jack and jill|second|upper|lower)\s+)?bath(?:room)?s?\b|powder rooms?|en-?suites?|lavatory|restrooms?|(?:tub|shower)(?:\s+(?:area|enclosure|stall))?\b|vanity`],
-  ['kitchen', String.raw`kitchens?|kitchenette|kit\b\.?|(?:kitchen\s+)?island|breakfast (?:nook|area|bar)|pantry|(?:kitchen\s+)?counter\s*tops?|countertops?|(?:refrigerator|fridge|dishwasher|garbage disposal|disposal|range hood)(?![\w\s,]{0,30}\b(?:garage|basement|laundry|bar|utility|porch|patio)\b)`],
+  ['kitchen', String.raw`kitchens?|kitchenette|kit\b\.?|(?:kitchen\s+)?island|breakfast (?:nook|area|bar)|peninsula|pantry|(?:kitchen\s+)?counter\s*tops?|countertops?|(?:refrigerator|fridge|dishwasher|garbage disposal|disposal|range hood|stove|cooktop|(?:electric\s+)?range(?=\s+(?:receptacle|outlet|cord|circuit|hood))|(?<=\b(?:the|behind|beside|near)\s)range\b)(?![\w\s,]{0,30}\b(?:garage|basement|laundry|bar|utility|porch|patio)\b)`],
   ['garage', String.raw`garages?|carports?|gar\b\.?`],
-  ['exterior', String.raw`exterior(?!\s+walls?\b)|outside(?!\s+(?:walls?|corner|of|the|a|an|its|their|this|that|each|every|all|any|bedrooms?|sleeping|junction|boxes?|enclosures?|panels?)\b)|outdoors?|patio|decks?\b|porch(?:es)?|balcon(?:y|ies)|yard|pool|spa\b|hot tub|siding|eaves|soffits?|(?:service\s+|meter\s+)?pedestal|(?:front|rear|side|back) (?:wall|elevation)|ext\b\.?`],
+  ['exterior', String.raw`exterior(?!\s+walls?\b)|outside(?!\s+(?:walls?|corner|of|the|a|an|its|their|this|that|each|every|all|any|bedrooms?|sleeping|junction|boxes?|enclosures?|panels?)\b)|outdoors?|patio|decks?\b|porch(?:es)?|balcon(?:y|ies)|yard|pool|spa\b|hot tub|siding|eaves|soffits?|(?:service\s+|meter\s+)?pedestal(?!\s+(?:sinks?|lavatory|basins?|fans?))|courtyards?|lanais?|verandas?|terraces?|gazebos?|breezeways?|(?:front|rear|side|back) (?:wall|elevation)|ext\b\.?`],
   ['basement', String.raw`basements?|cellar|bsmt\b\.?|bsmnt\b\.?|lower level|sump`],
   ['crawl-space', String.raw`crawl\s?spaces?|crawl\b|(?:under|beneath) the (?:home|house|floor system)|underfloor`],
   ['laundry', String.raw`laundry(?:\s+(?:room|area|closet))?|washer|dryer|utility room|mud ?room`],
   ['bedroom', String.raw`(?:(?:primary|master|guest|front|rear|back|north|south|east|west|upstairs|downstairs|kids'?|second|third|small|large)\s+)?(?:bed\s?rooms?|bedrms?\b|bdrms?\b\.?|brs?\s?\d*\b|nursery)|(?:prim|pri|mstr|mbr)\.?\s+br\b|mbr\b|primary suite|master suite|guest room`],
-  ['living-area', String.raw`living(?: (?:room|area)s?)?\b|family rooms?|great rooms?|den\b|sun\s?rooms?|rec(?:reation)? rooms?|bonus rooms?|parlou?r|library|front room|lr\b|fireplace|media room`],
+  ['living-area', String.raw`living(?: (?:room|area)s?)?\b|family rooms?|great rooms?|den\b|sun\s?rooms?|florida rooms?|sun porch(?:es)?|three[- ]season rooms?|rec(?:reation)? rooms?|bonus rooms?|parlou?r|library|front room|lr\b|fireplace|media room`],
   ['hallway', String.raw`hall(?:way)?s?\b|corridors?|stair(?:way|well|case)?s?\b|landing|foyer|(?<!\b(?:water|service|cable|line|pipe|meter|conduit|wire|point of)\s+)entry(?:way)?(?!\s+(?:doors?|points?))|front entry(?!\s+doors?)`],
   ['attic', String.raw`attics?\b`],
   ['panel', String.raw`(?:main\s+|electrical\s+|service\s+|distribution\s+)?(?:sub-?\s?panel|panel\s*board|panel)s?\b|load cent(?:er|re)|breaker box|fuse box`],
   ['dining', String.raw`dining(?:\s+(?:room|area))?|dinette`],
   ['office', String.raw`(?:home\s+)?office|study\b`],
-  ['whole-house', String.raw`throughout(?: the (?:home|house|dwelling|unit))?(?!\s+(?:the|this|that|each|every|all|both)\b)|anywhere in the (?:home|house|dwelling|unit)|(?:in|on) (?:each|every|all|any) (?:levels?|floors?|stor(?:y|ies))(?: of the (?:home|house|dwelling))?|whole[- ]house|entire (?:home|house|dwelling|electrical system|system)|all rooms|every room`],
+  ['whole-house', String.raw`throughout(?: the (?:home|house|dwelling|unit))?(?!\s+(?:the|this|that|each|every|all|both)\b)|anywhere in the (?:home|house|dwelling|unit)|(?:in|on) (?:each|every|all|any) (?:levels?|floors?|stor(?:y|ies))(?: of the (?:home|house|dwelling))?|whole[- ]house|entire (?:home|house|dwelling|electrical system|system)|all rooms|every room|(?<=\b(?:none|nothing|no\s+[\w/-]+(?:\s+[\w/-]+)?)\s+)in (?:the )?(?:house|home|unit|dwelling)\b`],
 ];
 
 /**
@@ -62,7 +62,7 @@ const REFERENCE_BEFORE = /(?:beneath|below|under|underneath|above|over)\s+(?:the
 /** "by the kitchen pass-through", "near the dining room archway": a room's opening as a landmark of another room. */
 const BESIDE_BEFORE = /(?:by|near|beside|next to|at|toward|towards)\s+(?:the\s+)?$/i;
 const OPENING_AFTER = /^\s*(?:pass[- ]?through|opening|archway)/i;
-const FIXTURE_AFTER = /^\s*(?:sink|counter|cabinet|vanity|island|floor|closet)/i;
+const FIXTURE_AFTER = /^\s*(?:sink|counter|cabinet|vanity|island|floor|closet|door|window|opener)/i;
 
 /** Every place named in `text`, in reading order, without overlaps. */
 export function findRooms(text: string): RoomMention[] {
@@ -78,5 +78,24 @@ export function findRooms(text: string): RoomMention[] {
       (REFERENCE_BEFORE.test(before) && !FIXTURE_AFTER.test(after)) || (BESIDE_BEFORE.test(before) && OPENING_AFTER.test(after));
     found.push({ room: ROOM_WORDS[i][0], start, end, text: m[0], isReferencePoint });
   }
+  // A level or outbuilding named before a room is where that room is ("basement bedroom", "garage
+  // apartment kitchen"): the room itself is the place.
+  for (let i = 0; i + 1 < found.length; i++) {
+    const [a, b] = [found[i], found[i + 1]];
+    if (LEVEL_ROOMS.has(a.room) && HABITABLE.has(b.room) && /^[\s-]*$/.test(text.slice(a.end, b.start))) found[i] = { ...a, isReferencePoint: true };
+  }
+  // An entry named with the outside ("at the front entry, loose from the siding") is the outside entry.
+  if (found.some((r) => r.room === 'exterior' && !r.isReferencePoint)) {
+    for (let i = 0; i < found.length; i++) if (/\bentry\b/i.test(found[i].text) && found[i].room === 'hallway') found[i] = { ...found[i], room: 'exterior' };
+  }
+  // A wall named by its side ("the back wall", "the side wall") is the outside of the house only
+  // when nothing else names the room: "the back wall of the garage" is in the garage.
+  if (found.some((r) => WALL_SIDE.test(r.text)) && found.some((r) => !WALL_SIDE.test(r.text) && r.room !== 'panel' && !r.isReferencePoint)) {
+    return found.map((r) => (WALL_SIDE.test(r.text) ? { ...r, isReferencePoint: true } : r));
+  }
   return found;
 }
+
+const LEVEL_ROOMS: ReadonlySet<Room> = new Set(['basement', 'attic', 'garage', 'hallway']);
+const HABITABLE: ReadonlySet<Room> = new Set(['bedroom', 'bathroom', 'kitchen', 'laundry', 'office', 'living-area', 'dining']);
+const WALL_SIDE = /^(?:front|rear|side|back) (?:wall|elevation)$/i;

@@ -42,6 +42,9 @@ const SEPARATOR = /,\s*|\s+(?:and|also|while|plus|as well as)\s+/gi;
 /** Text between two places of one list: a conjunction, few words, no spatial preposition. */
 const LIST_BETWEEN = /^(?=.*(?:,|\band\b|&|\/|\bor\b))(?!.*\b(?:above|below|beneath|under|over|near|behind|beside|next|adjacent|off|of|from|inside|within|serving|serves?|feeding|feeds?|supplies|supplying|where|for|which|that)\b)(?:[\s,&/]*[\w'-]+){0,6}[\s,&/]*$/i;
 
+/** Words that limit a house-wide condition to the place named ("only in the garage", "within the addition"). */
+const LIMITED = /\b(?:only|addition|within|limited to|confined to|throughout the|circuit\s+\d+)\b/i;
+
 /** Splits the sentence into one part per match: a match owns the text up to the next separator. */
 function segments(text: string, matches: readonly CodeMatch[], clauses: readonly Range[]): Range[] {
   const bounds = [0];
@@ -114,6 +117,7 @@ export function placeMatches(
       const first = inPart[0] ?? (rooms.some((r) => r.room === 'panel') ? rooms.find((r) => r.room === 'panel') : undefined);
       if (first?.room === 'panel') return [{ room: 'panel', location: readLocation(text, first), ...own }];
     }
+    if (match.rule.isHouseWide && !LIMITED.test(text)) return [{ room: match.rule.defaultRoom ?? 'whole-house', location: '', ...own, isInferred: true }];
     // A panel named beside another code's defect is a reference point ("cable run up to the panel").
     const group = listedGroup(text, mentionsIn(rooms, part).filter((m) => m.room !== 'panel'));
     if (group.length > 1) {

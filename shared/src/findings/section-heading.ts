@@ -33,7 +33,17 @@ const ROOM_WORDS = new Set([
   'living', 'hallway', 'hallways', 'hall', 'halls', 'attic', 'attics', 'dining', 'office', 'den',
   'family', 'powder', 'primary', 'master', 'guest', 'porch', 'deck', 'patio', 'stairs', 'entry',
 ]);
-const GENERAL = new Set(['summary', 'general', 'detailed', 'detail', 'interior', 'interiors', 'introduction', 'overview']);
+const GENERAL = new Set(['summary', 'general', 'detailed', 'detail', 'interior', 'interiors', 'introduction', 'overview', 'body', 'discussion', 'narrative']);
+
+/**
+ * A summary at the top of a report ("SUMMARY OF ELECTRICAL CONCERNS", "KEY ELECTRICAL ITEMS",
+ * "Overview"): its items are repeated by the body, and merge with the body's findings.
+ */
+export const SUMMARY_HEADING = /summary|overview|at a glance|\b(?:key|significant|major|priority|principal|notable)\s+(?:[\w-]+\s+){0,3}?(?:findings|items|concerns|issues|defects|deficiencies)\b|highlights|action items/i;
+/** A summary heading with words of its own after it ("SUMMARY (electrical items requiring attention)"). */
+const SUMMARY_START = /^(?:summary|overview|key|significant|major|priority)\b/i;
+/** A label that starts the report's body after its summary ("COMMENTS", "DETAILED FINDINGS", "Observations"). */
+const BODY_PART = /^(?:(?:detailed|full|report)\s+)?(?:comments|findings|observations|details|discussion|body|narrative)$/i;
 const FILLER = new Set([
   'system', 'systems', 'components', 'component', 'and', '&', 'the', 'of', 'section', 'area', 'areas',
   'room', 'rooms', 'main', 'secondary', 'observations', 'observation', 'findings', 'comments', 'notes',
@@ -53,7 +63,10 @@ export interface Heading {
 }
 
 /** What a line is when it is not report content. */
-export type HeadingLine = { readonly type: 'heading'; readonly heading: Heading } | { readonly type: 'label' };
+export type HeadingLine =
+  | { readonly type: 'heading'; readonly heading: Heading }
+  /** `startsBody`: the label opens the report's body ("COMMENTS"), which ends a summary. */
+  | { readonly type: 'label'; readonly startsBody?: boolean };
 
 const NUMBERING = /^\s*(?:section\s+)?(?:\d{1,2}(?:\.\d{1,2})*\.?|[ivx]{1,4}\.|[a-z]\))?\s*[-–—:.]?\s*/i;
 
@@ -65,18 +78,29 @@ export function classifyHeadingLine(line: string): HeadingLine | null {
   const trimmed = line.trim();
   if (trimmed.length > 70) return null;
   const title = trimmed.replace(NUMBERING, '').replace(/\s*[:\-–—]+\s*$/, '').trim();
-  if (title.length === 0 || /[.!?;]/.test(title)) return null;
+  if (title.length === 0) return null;
+  // "ELECTRICAL SUMMARY (see 7.1 - 7.6 for detail)": a summary heading with a note in brackets.
+  if (/[.!?;]/.test(title)) {
+    const bare = title.replace(/\s*\([^()]*\)\s*$/, '');
+    return bare !== title && SUMMARY_HEADING.test(bare) && !/[.!?;]/.test(bare) ? classifyHeadingLine(bare) : null;
+  }
   // Separators ("SMOKE / CO", "PANEL - MAIN") are not words; a misspelt heading word is read as
   // the trade word it stands for ("SMOKE DETECTERS").
   const words = (title.toLowerCase().match(/[a-z&'/-]+|\d+/g) ?? [])
     .filter((w) => /[a-z&\d]/.test(w))
     .map((w) => (isHeadingWord(w) ? w : (correctSpelling(w)?.toLowerCase() ?? w)));
   if (words.length === 0 || words.length > 8) return null;
-  if (!words.every(isHeadingWord)) return roomLabel(trimmed, title, words);
+  if (!words.every(isHeadingWord)) return summaryHeading(title, words) ?? roomLabel(trimmed, title, words);
   const kind = headingKind(words);
-  if (kind === null) return { type: 'label' };
+  if (kind === null) return BODY_PART.test(title) ? { type: 'label', startsBody: true } : { type: 'label' };
   const room = kind === 'non-electrical' || kind === 'general' ? null : (findRooms(title)[0]?.room ?? null);
   return { type: 'heading', heading: { kind, title, room } };
+}
+
+/** A summary heading followed by words the heading lists do not know, with no verb or defect. */
+function summaryHeading(title: string, words: readonly string[]): HeadingLine | null {
+  if (!SUMMARY_START.test(title) || !SUMMARY_HEADING.test(title) || LABEL_VERB.test(title) || /:\s*\S/.test(title)) return null;
+  return { type: 'heading', heading: { kind: words.some((w) => ELECTRICAL.has(w)) ? 'electrical' : 'general', title, room: null } };
 }
 
 /**

@@ -30,7 +30,7 @@ export function adjGap(n: number): string {
 
 /** Up to `n` words of any kind (device nouns allowed), for phrases whose two ends are specific. */
 export function anyGap(n: number): string {
-  return String.raw`(?:[\w'/#().-]+\s+){0,${n}}?`;
+  return String.raw`(?:[\w'/#().@-]+,?\s+){0,${n}}?`;
 }
 
 /** Grammatical filler allowed between a negative word and "GFCI"/"AFCI" ("not protected by a GFCI"). */
@@ -38,7 +38,7 @@ export const PROTECTION_FILLER = String.raw`(?:(?:protected|protection|by|a|an|a
 
 export const T = {
   /** receptacle, recepticle, receptical, recep., rcpt, outlet, outlett, plug-in */
-  RCPT: String.raw`(?:rec[ei]pt?[aeiu]?c(?:le|al|el)s?\b|recepts?\b\.?|recep\b\.?|rcpts?\b\.?|rcp\b\.?|outlett?s?\b|duplex(?:es)?\b|devices?\b)`,
+  RCPT: String.raw`(?:rec[ei]pt?[aeiu]?c(?:le|al|el)s?\b|recepts?\b\.?|recep\b\.?|rcpts?\b\.?|rcp\b\.?|outlett?s?\b(?!\s+height)|duplex(?:es)?\b|devices?\b)`,
   GFCI: String.raw`(?:gfcis?\b|g\.f\.c\.i\.|gfis?\b|gfic\b|gcfi\b|ground[- ]fault(?:[- ]circuit[- ]interrupt(?:er|or|ing)?s?)?(?:[- ]protect(?:ed|ion))?)`,
   AFCI: String.raw`(?:afcis?\b|a\.f\.c\.i\.|afi\b|arc[- ]fault(?:[- ]circuit[- ]interrupt(?:er|or|ing)?s?)?(?:[- ]protect(?:ed|ion))?)`,
   BREAKER: String.raw`(?:circuit\s+)?(?:breakers?\b|brkrs?\b\.?|bkrs?\b\.?|ocpds?\b|fuses?\b|overcurrent (?:protection|devices?))`,
@@ -49,7 +49,12 @@ export const T = {
   SWITCH: String.raw`(?:(?:light|wall|dimmer|3-way|three[- ]way|toggle)\s+)?switch(?:es)?\b`,
   LIGHT: String.raw`(?:(?:recessed|can|ceiling|closet|exterior|flood|porch|vanity|wall)\s+)?(?:light(?:ing)?(?:\s+fixtures?)?\b|lights\b|fixtures?\b|luminaires?\b|chandeliers?\b|pendants?\b|sconces?\b|can lights?\b|flood ?lights?\b)`,
   SMOKE: String.raw`(?:(?:smoke(?:\s*(?:\/|and|&)\s*(?:co|carbon monoxide))?|co|carbon monoxide)\s*(?:alarms?|detectors?)\b|smokes\b)`,
-  SERVICE: String.raw`(?:service[- ](?:mast|riser|head|drop(?: conductors?| wires?| cable)?|entrance(?: cable| conductors?)?|conductors?|lateral|cable)\b|weather\s?head\b|drip loops?\b|(?:electric\s+)?meter(?:\s+(?:base|socket|box|can|enclosure|pan))\b|se cable\b|seu\b|mast(?:head)?\b|overhead (?:service|conductors|wires|lines)\b|utility (?:drop|lines|wires)\b)`,
+  SERVICE: String.raw`(?:(?:overhead\s+)?service[- ](?:mast|riser|head|drop(?: drip loop| conductors?| wires?| cable)?|entrance(?: cable| conductors?)?|conductors?|lateral|cable)\b|weather\s?head\b|drip loops?(?: conductors?)?\b|(?:electric\s+)?meter(?:\s+(?:base|socket|box|can|enclosure|pan|pole|post|ring))\b|se cable\b|seu\b|mast(?:head)?\b|overhead (?:service|conductors|wires|lines)\b|utility (?:drop|lines|wires)\b)`,
+  /**
+   * What goes wrong with a part of the service (common practice): damage, weathering, corrosion,
+   * loose or leaning support, and conductors lying on or against something.
+   */
+  SERVICE_CONDITION: String.raw`(?:frayed|cracked|split|torn|brittle|abraded|chafed|(?:uv|sun)[- ]?degraded|degraded|deteriorat\w*|worn|weathered|damaged|broken|bent|leaning|loose|rock(?:s|ing)\b|corroded|(?:heavy|severe|some|visible)\s+(?:corrosion|rust)|corrosion\b|rust(?:ed|ing|y)?\b|rott(?:ed|ing)|rotten|sag(?:s|ging|ged)?\b|tangled|pull(?:ed|ing) (?:away|loose|free|tight|out)|separat(?:ed|ing) from|detached|stressed|(?:resting|rests?|lies?|lying|laying|lays?) (?:on|against|in)\b|water (?:staining|stains?|intrusion)|(?:not|un)[- ]?(?:strapped|secured|supported|sealed|clamped)|straps? (?:missing|broken|loose)|missing (?:straps?|support)|(?:too\s+)?low\s+(?:over|above|to)\b)`,
   /** Failure verbs after "did not", "would not" ... */
   FAILED: String.raw`(?:did\s?n[o']t|does\s?n[o']t|would\s?n[o']t|will not|won't|failed to|fails to|fail to|could not|couldn't|wouldn't)`,
   /** "missing", "absent", "not installed" ... after the thing that is missing. */

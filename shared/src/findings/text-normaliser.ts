@@ -39,7 +39,7 @@ const SHORTHAND: Readonly<Record<string, string>> = {
   alm: 'alarm', alms: 'alarms', perm: 'permanent', 'perm.': 'permanent', mfd: 'manufactured', 'mfd.': 'manufactured',
   det: 'detector', dets: 'detectors', smk: 'smoke', sd: 'smoke detector', sds: 'smoke detectors',
   inop: 'inoperative', 'inop.': 'inoperative', inopr: 'inoperative', nw: 'not working', 'n/w': 'not working',
-  dmg: 'damaged', dmgd: 'damaged', dmged: 'damaged', brkn: 'broken', msng: 'missing', "miss'g": 'missing',
+  dmg: 'damaged', dmgd: 'damaged', dmged: 'damaged', brkn: 'broken', broke: 'broken', msng: 'missing', "miss'g": 'missing',
   'w/o': 'without', 'w/out': 'without', 'w/': 'with',
   reqd: 'required', "req'd": 'required', rcmd: 'recommend', recomm: 'recommend', recom: 'recommend',
   cvr: 'cover', cvrs: 'covers', cov: 'cover', plt: 'plate', plts: 'plates',
@@ -84,6 +84,7 @@ const VOCABULARY: readonly string[] = [
   'conduit', 'energized', 'discolored', 'melted', 'loose', 'unknown', 'function', 'inoperable', 'cover',
   'plates', 'covers', 'panel', 'panels', 'labeled', 'labelled', 'unlabeled', 'identified', 'clearance',
   'weathered', 'deteriorated', 'drip', 'meter', 'overhead', 'supported', 'unsupported', 'protect',
+  'weatherhead', 'weatherheads', 'masthead',
 ];
 const VOCAB_SET = new Set(VOCABULARY);
 /** Candidates by first letter, so a word is compared with a dozen words rather than all of them. */
@@ -100,7 +101,7 @@ const BY_FIRST = (() => {
 const KEEP = new Set([
   'placed', 'plated', 'slates', 'source', 'services', 'serviced', 'servicing', 'switched', 'ground', 'rounds',
   'detects', 'defected', 'expose', 'exposes', 'damages', 'dammed', 'misting', 'kissing', 'mission', 'panes',
-  'panels', 'paneled', 'pannel', 'coverage', 'covered', 'covering', 'coves', 'lovers', 'circuitry', 'receipt',
+  'panels', 'paneled', 'coverage', 'covered', 'covering', 'coves', 'lovers', 'circuitry', 'receipt',
   'receipts', 'receptor', 'reception', 'outline', 'outlay', 'outlast', 'breaking', 'breaks',
   'bleaker', 'breakfast', 'doubled', 'doubles', 'trouble', 'treated', 'tripod', 'tripled', 'installer',
   'installs', 'evaluates', 'recommends', 'replaces', 'replica', 'present', 'presents', 'presence', 'prevent',
