@@ -56,6 +56,18 @@ beforeAll(async () => {
 afterAll(() => t.close());
 
 describe('POST /api/requests/:id/approval', () => {
+  it('refuses a decline note longer than 500 characters with its field path, and stores nothing (never a cut note)', async () => {
+    const { requestId, itemIds } = await quotedRequest(cast, t, book, [GFCI, PLATE]);
+    const longNote = 'The buyer will have this done after closing by their own electrician. '.repeat(16).slice(0, 1_100);
+    expect(longNote).toHaveLength(1_100);
+    const res = await write(cast.s.seller, 'post', `/api/requests/${requestId}/approval`)
+      .send(signBody(itemIds, ['approved', 'declined'], { decisions: [{ lineItemId: itemIds[0], decision: 'approved' }, { lineItemId: itemIds[1], decision: 'declined', note: longNote }] }));
+    expect(res.status).toBe(400);
+    expect(res.body.details).toContainEqual({ path: 'decisions.1.note', message: 'Keep the note to 500 characters' });
+    expect(await t.db('item_decisions').where({ request_id: requestId })).toHaveLength(0);
+    expect((await view(requestId)).signature).toBeNull();
+  });
+
   it('signs: items approved and declined, scope priced like docs/pricing.md Example 1, the request approved', async () => {
     const { requestId, itemIds } = await quotedRequest(cast, t, book, [GFCI, PLATE]);
     const res = await write(cast.s.seller, 'post', `/api/requests/${requestId}/approval`)

@@ -3,7 +3,7 @@ import { readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import sharp from 'sharp';
 import request from 'supertest';
-import { findingCodeInfo, MAX_PHOTO_BYTES, type CompletionLetter, type Correction, type WorkOverview } from '@cc/shared';
+import { findingCodeInfo, MAX_PHOTO_BYTES, NOT_A_PDF_MESSAGE, type CompletionLetter, type Correction, type WorkOverview } from '@cc/shared';
 import { extractPdfPages } from '../../server/src/integrations/pdf-text';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 import { resetDatabase, type SignedIn } from '../helpers/fixtures';
@@ -344,10 +344,26 @@ describe('completion letters', () => {
     const forged = await publicCheck(modified, letter.verificationCode);
     expect(forged.status).toBe(200);
     expect(forged.body).toMatchObject({ isGenuine: false, isCurrent: false, matchesCode: false });
-    expect(forged.body.message).toContain('not a letter issued through Closing Circuit');
+    expect(forged.body.message).toBe('This PDF is not a completion letter issued through Closing Circuit (or it was changed after issue).');
 
     const appended = await publicCheck(Buffer.concat([firstPdf, Buffer.from('\n% edited\n')]));
     expect(appended.body).toMatchObject({ isGenuine: false, matchesCode: null, letter: null });
+  });
+
+  it('answers 200 with isGenuine false for an unknown PDF (even beside a code that names no letter), and 400 on the file field for a non-PDF', async () => {
+    const unknown = await publicCheck(Buffer.concat([firstPdf, Buffer.from('\n% edited\n')]), 'NOSUCHCODE');
+    expect(unknown.status).toBe(200);
+    expect(unknown.body).toMatchObject({ isGenuine: false, matchesCode: false, letter: null, message: expect.stringContaining('is not a completion letter issued through Closing Circuit') });
+
+    const genuineWrongCode = await publicCheck(firstPdf, 'NOSUCHCODE');
+    expect(genuineWrongCode.status).toBe(200);
+    expect(genuineWrongCode.body).toMatchObject({ isGenuine: true, matchesCode: false });
+
+    const visitor = request.agent(t.app);
+    const token = (await visitor.get('/api/auth/csrf').expect(200)).body.csrfToken;
+    const text = await visitor.post('/api/verify').set('x-csrf-token', token).attach('file', Buffer.from('Letter number CL-1, revision 1\n'), { filename: 'letter.txt', contentType: 'text/plain' });
+    expect(text.status).toBe(400);
+    expect(text.body.details).toEqual([{ path: 'file', message: NOT_A_PDF_MESSAGE }]);
   });
 
   it('lets the inspector list an item not accepted, which reopens it; the next revision supersedes the first', async () => {

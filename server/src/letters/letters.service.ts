@@ -1,5 +1,6 @@
 import { createHash, randomInt } from 'node:crypto';
 import {
+  NOT_A_PDF_MESSAGE,
   mayMoveItem,
   mayMoveRequest,
   PARTY_ROLE_LABELS,
@@ -48,6 +49,11 @@ export function reportReferenceOf(files: readonly { name: string; kind: string; 
 
 const sha256Of = (bytes: Buffer) => createHash('sha256').update(bytes).digest('hex');
 const dateOf = (d: Date) => d.toISOString().slice(0, 10);
+
+/** What the public check says of a PDF that is no issued letter, byte for byte. */
+export const UNKNOWN_PDF_MESSAGE = 'This PDF is not a completion letter issued through Closing Circuit (or it was changed after issue).';
+/** Whether bytes start like a PDF file (ISO 32000-1:2008, 7.5.2: the header `%PDF-` in the first 1024 bytes). */
+const isPdf = (bytes: Buffer): boolean => bytes.subarray(0, 1024).includes('%PDF-');
 
 /** Completion letters: issuing revisions, downloading them, the public verification and the inspector's review. */
 export class LettersService {
@@ -156,17 +162,20 @@ export class LettersService {
 
   /** Whether uploaded bytes are a letter this product issued, and its current revision. */
   async checkPdf(bytes: Buffer, code: string | null): Promise<PdfCheck> {
+    if (!isPdf(bytes)) throw new ValidationError('This file is not a PDF', [{ path: 'file', message: NOT_A_PDF_MESSAGE }]);
     const letter = await this.letters.findBySha256(sha256Of(bytes));
+    // A code that names no letter does not hide the answer about the file: it just matches nothing.
     const named = code && VERIFICATION_CODE.test(code) ? await this.letters.findByCode(code) : null;
-    if (code !== null && !named) throw new NotFoundError('No letter has this verification code');
     if (!letter) {
-      return { isGenuine: false, isCurrent: false, matchesCode: code === null ? null : false, letter: named ? await this.publicView(named) : null, message: 'This file is not a letter issued through Closing Circuit: it differs from every issued letter, even if only slightly.' };
+      return { isGenuine: false, isCurrent: false, matchesCode: code === null ? null : false, letter: named ? await this.publicView(named) : null, message: UNKNOWN_PDF_MESSAGE };
     }
     const view = await this.publicView(letter);
     const matchesCode = code === null ? null : letter.verificationCode === code;
     const message =
       matchesCode === false
-        ? 'This file is a genuine letter, but not the one this code names.'
+        ? named
+          ? 'This file is a genuine letter, but not the one this code names.'
+          : 'This file is a genuine letter, but no letter has the code typed: check the code printed beside the QR code.'
         : view.isCurrent
           ? `Genuine: this is letter ${view.number}, revision ${view.revision}, the current revision.`
           : `Genuine but superseded: revision ${view.supersededBy!.revision} replaced this revision on ${view.supersededBy!.issuedOn}.`;

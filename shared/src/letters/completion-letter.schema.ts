@@ -70,3 +70,6 @@ export const ProofReviewSchema = z.discriminatedUnion('decision', [
   }),
 ]);
 export type ProofReview = z.input<typeof ProofReviewSchema>;
+
+/** What the public check says of an uploaded file that is not a PDF (the portal says it before sending, the server on refusing). */
+export const NOT_A_PDF_MESSAGE = 'This file is not a PDF. Choose the completion letter’s PDF file (it ends in .pdf).';

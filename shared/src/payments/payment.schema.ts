@@ -20,10 +20,14 @@ export const IdempotencyKeySchema = z.string().regex(/^[A-Za-z0-9_-]{16,100}$/, 
 export const ITEM_DECISIONS = ['approved', 'declined'] as const;
 export const ItemDecisionValueSchema = z.enum(ITEM_DECISIONS);
 
+/** Longest note a seller may leave beside an item decision (the column holds this many; longer is refused, never cut). */
+export const DECISION_NOTE_MAX = 500;
+export const DecisionNoteSchema = trimmedText(DECISION_NOTE_MAX, `Keep the note to ${DECISION_NOTE_MAX} characters`);
+
 export const ItemDecisionInputSchema = z.object({
   lineItemId: RecordIdSchema,
   decision: ItemDecisionValueSchema,
-  note: trimmedText(500).optional(),
+  note: DecisionNoteSchema.optional(),
 });
 
 export const SignApprovalSchema = z.object({
@@ -176,7 +180,7 @@ export const DecideChangeOrderSchema = z.object({
   decision: z.enum(['approve', 'decline']),
   signerName: trimmedText(200).pipe(z.string().min(3, 'Type your full name to sign')),
   hasConsented: z.literal(true, 'Tick the box to agree to the terms'),
-  note: trimmedText(500).optional(),
+  note: DecisionNoteSchema.optional(),
 });
 export type DecideChangeOrder = z.input<typeof DecideChangeOrderSchema>;
 export type DecideChangeOrderParsed = z.output<typeof DecideChangeOrderSchema>;

@@ -17,6 +17,7 @@ import { ApprovalApi } from '../approval-api';
 import { ChangeOrdersPanel } from '../change-orders-panel/change-orders-panel';
 import { DecisionForm } from '../decision-form/decision-form';
 import { MoneyPanel } from '../money-panel/money-panel';
+import { signedByText } from '../signed-by/signed-by';
 
 type Loaded = { view: ApprovalView; error?: undefined } | { view?: undefined; error: string };
 
@@ -62,6 +63,7 @@ export class ApprovalPage {
     const id = Number(this.payment());
     return this.view()?.payments.find((p) => p.id === id) ?? null;
   });
+  protected readonly signedBy = signedByText;
   protected readonly decisionNotes = computed(() => new Map((this.view()?.decisions ?? []).filter((d) => d.note).map((d) => [d.lineItemId, d.note])));
   protected readonly showsMoney = computed(() => {
     const v = this.view();

@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
-import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
+import { FormArray, FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatCardModule } from '@angular/material/card';
@@ -7,7 +7,7 @@ import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { ApprovalView, lineAmountsOf, priceScope, SignApprovalSchema } from '@cc/shared';
+import { ApprovalView, DECISION_NOTE_MAX, DecisionNoteSchema, lineAmountsOf, priceScope, SignApprovalSchema } from '@cc/shared';
 import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
@@ -38,18 +38,28 @@ export class DecisionForm {
 
   protected readonly label = codeLabel;
   protected readonly decisions = signal<Partial<Record<number, Decision>>>({});
-  protected readonly notes = signal<Partial<Record<number, string>>>({});
+  protected readonly noteMax = DECISION_NOTE_MAX;
   protected readonly isSending = signal(false);
   protected readonly problem = signal<string | null>(null);
   protected readonly isMissingDecisions = signal(false);
 
+  /** The quote's priced lines: the items to decide on. */
+  protected readonly lines = computed(() => this.view().quote.lines.filter((l) => l.kind === 'priced' && l.lineItemId !== null));
+
+  /**
+   * The signature and one note per line, at the paths of the request body (`decisions.<i>.note`), so a
+   * note the server refuses shows its message under that note.
+   */
   protected readonly form = new FormGroup({
     signerName: new FormControl('', { nonNullable: true, validators: zodValidator(SignApprovalSchema.shape.signerName) }),
     hasConsented: new FormControl(false, { nonNullable: true, validators: zodValidator(SignApprovalSchema.shape.hasConsented) }),
+    decisions: new FormArray<FormGroup<{ note: FormControl<string> }>>([]),
   });
-
-  /** The quote's priced lines: the items to decide on. */
-  protected readonly lines = computed(() => this.view().quote.lines.filter((l) => l.kind === 'priced' && l.lineItemId !== null));
+  private readonly notes = computed(() => {
+    const rows = this.lines().map(() => new FormGroup({ note: new FormControl('', { nonNullable: true, validators: zodValidator(DecisionNoteSchema) }) }));
+    this.form.setControl('decisions', new FormArray(rows));
+    return rows.map((r) => r.controls.note);
+  });
   protected readonly undecided = computed(() => this.lines().filter((l) => !this.decisions()[l.lineItemId!]).length);
   /** What the approved items cost together, priced by the same engine as the server. */
   protected readonly approvedTotals = computed(() => {
@@ -73,11 +83,13 @@ export class DecisionForm {
     this.isMissingDecisions.set(false);
   }
 
-  protected setNote(lineItemId: number, note: string): void {
-    this.notes.update((all) => ({ ...all, [lineItemId]: note }));
+  /** The note control of the line at `index`. */
+  protected noteAt(index: number): FormControl<string> {
+    return this.notes()[index]!;
   }
 
   protected sign(): void {
+    this.notes();
     this.form.markAllAsTouched();
     const missing = this.undecided() > 0;
     this.isMissingDecisions.set(missing);
@@ -87,7 +99,10 @@ export class DecisionForm {
     const v = this.view();
     const body = {
       quoteVersion: v.quote.version,
-      decisions: this.lines().map((l) => ({ lineItemId: l.lineItemId!, decision: this.decisions()[l.lineItemId!]!, ...(this.notes()[l.lineItemId!]?.trim() ? { note: this.notes()[l.lineItemId!]!.trim() } : {}) })),
+      decisions: this.lines().map((l, i) => {
+        const note = this.notes()[i]!.value.trim();
+        return { lineItemId: l.lineItemId!, decision: this.decisions()[l.lineItemId!]!, ...(note ? { note } : {}) };
+      }),
       signerName: this.form.controls.signerName.value,
       hasConsented: true as const,
     };

@@ -45,7 +45,7 @@ describe('RequestDetail', () => {
   let loader: HarnessLoader;
   let httpTesting: HttpTestingController;
 
-  async function render(role: Role, myParts: PartyRole[]): Promise<HTMLElement> {
+  async function render(role: Role, myParts: PartyRole[], overrides: Partial<RepairRequestDetail> = {}): Promise<HTMLElement> {
     TestBed.configureTestingModule({
       providers: [
         provideRouter([]),
@@ -63,7 +63,7 @@ describe('RequestDetail', () => {
     fixture.componentRef.setInput('id', '12');
     loader = TestbedHarnessEnvironment.loader(fixture);
     await fixture.whenStable();
-    httpTesting.expectOne('/api/requests/12').flush(detail(myParts));
+    httpTesting.expectOne('/api/requests/12').flush({ ...detail(myParts), ...overrides });
     await fixture.whenStable();
     // The line-items area loads the request's reports and items (none yet in these cases).
     httpTesting.expectOne('/api/requests/12/reports').flush([]);
@@ -94,6 +94,16 @@ describe('RequestDetail', () => {
     expect(host.textContent).toContain('EC-2231');
     expect(host.querySelector('[data-testid="line-items-empty"]')?.textContent).toContain('No items yet');
     expect(host.querySelector('cc-safety-notice')).not.toBeNull();
+  });
+
+  it('flags the closing date at risk as the request list does, from the DTO flag', async () => {
+    const host = await render('agent', ['buyer-agent'], { status: 'approved', openWorkCount: 3, isAtRisk: true });
+    expect(host.querySelector('[data-testid="request-at-risk"]')?.textContent).toContain('At risk: 3 approved items still open close to closing');
+  });
+
+  it('shows no at-risk flag when the request is not at risk', async () => {
+    const host = await render('agent', ['buyer-agent'], { status: 'approved', openWorkCount: 3, isAtRisk: false });
+    expect(host.querySelector('[data-testid="request-at-risk"]')).toBeNull();
   });
 
   it('shows the pending invitation link and the invite form to an agent of the request', async () => {

@@ -24,6 +24,7 @@ import { PartyList } from '../party-list/party-list';
 import { RequestsApi } from '../requests-api';
 import { StatusHistory } from '../status-history/status-history';
 import { VisitPrep } from '../../economics/visit-prep/visit-prep';
+import { AtRiskFlag } from '../at-risk-flag/at-risk-flag';
 
 type Loaded = { detail: RepairRequestDetail; error?: undefined } | { detail?: undefined; error: string };
 
@@ -31,6 +32,7 @@ type Loaded = { detail: RepairRequestDetail; error?: undefined } | { detail?: un
 @Component({
   selector: 'cc-request-detail',
   imports: [
+    AtRiskFlag,
     DatePipe,
     RouterLink,
     MatCardModule,

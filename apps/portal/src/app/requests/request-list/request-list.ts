@@ -28,6 +28,7 @@ import { CappedPaginatorIntl } from '../../ui/capped-paginator-intl';
 import { DaysToClosing } from '../../ui/days-to-closing/days-to-closing';
 import { StatusChip } from '../../ui/status-chip/status-chip';
 import { RequestsApi } from '../requests-api';
+import { AtRiskFlag } from '../at-risk-flag/at-risk-flag';
 
 type RequestSort = (typeof REQUEST_SORTS)[number];
 /** Build-year filters: years around which the code's protections changed (GFCI 1975 and 1987, the 2005 edition). */
@@ -38,6 +39,7 @@ const DEFAULT_SORT: Sort = { active: 'closingDate', direction: 'asc' };
 @Component({
   selector: 'cc-request-list',
   imports: [
+    AtRiskFlag,
     DatePipe,
     ReactiveFormsModule,
     RouterLink,

@@ -10,12 +10,14 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router } from '@angular/router';
-import { PdfCheck } from '@cc/shared';
+import { NOT_A_PDF_MESSAGE, PdfCheck } from '@cc/shared';
 import { of } from 'rxjs';
-import { describeFailure } from '../../core/http/api-error-of';
+import { apiErrorOf, describeFailure } from '../../core/http/api-error-of';
 import { WorkApi } from '../work-api';
 
 const MAX_PDF_BYTES = 20 * 1024 * 1024;
+/** Whether a chosen file says it is a PDF (by type or name; the server checks the bytes). */
+const looksLikePdf = (file: File): boolean => file.type === 'application/pdf' || /\.pdf$/i.test(file.name);
 
 /**
  * The public page a completion letter's QR code opens: no sign-in, no personal data. It confirms the
@@ -52,6 +54,8 @@ export class VerifyLetter {
 
   protected readonly check = signal<PdfCheck | null>(null);
   protected readonly checkError = signal<string | null>(null);
+  /** The problem with the chosen file itself (not a PDF, too large), shown under the file picker. */
+  protected readonly fileError = signal<string | null>(null);
   protected readonly isChecking = signal(false);
 
   protected lookUp(): void {
@@ -64,9 +68,14 @@ export class VerifyLetter {
     picker.value = '';
     this.check.set(null);
     this.checkError.set(null);
+    this.fileError.set(null);
     if (!file) return;
+    if (!looksLikePdf(file)) {
+      this.fileError.set(NOT_A_PDF_MESSAGE);
+      return;
+    }
     if (file.size > MAX_PDF_BYTES) {
-      this.checkError.set('That file is larger than any letter we issue (20 MB).');
+      this.fileError.set('That file is larger than any letter we issue (20 MB).');
       return;
     }
     this.isChecking.set(true);
@@ -77,7 +86,9 @@ export class VerifyLetter {
       },
       error: (err: unknown) => {
         this.isChecking.set(false);
-        this.checkError.set(describeFailure(err));
+        const onFile = apiErrorOf(err)?.details.find((d) => d.path === 'file');
+        if (onFile) this.fileError.set(onFile.message);
+        else this.checkError.set(describeFailure(err));
       },
     });
   }
