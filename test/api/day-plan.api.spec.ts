@@ -1,6 +1,6 @@
 // The day plan: ordering, times and the overflow warning, suggestions, moving visits, settings,
 // property locations, calendar files and feeds, and who may see or change any of it.
-import type { DayPlan, DayPlanSettings, MoveVisitResult, WeekPlan } from '@cc/shared';
+import type { DayEconomics, DayPlan, DayPlanSettings, MoveVisitResult, WeekPlan } from '@cc/shared';
 import { DEFAULT_DAY_PLAN_SETTINGS, distanceMatrix, tourLength } from '@cc/shared';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 import { resetDatabase, type SignedIn } from '../helpers/fixtures';
@@ -168,6 +168,22 @@ describe('GET /api/day-plan', () => {
   it('keeps nearby ZIP areas within the usual 20–30 minutes’ drive of each other (common practice)', async () => {
     const day = await plan(date, cast.users.contractor.id);
     for (const s of day.stops) expect(s.driveMinutes).toBeLessThanOrEqual(30);
+  });
+
+  it('gives the day economics the day plan’s drive, the drive back to the shop included, on screen and in the CSV', async () => {
+    const day = await plan(date, cast.users.contractor.id);
+    const query = { date, electricianId: cast.users.contractor.id };
+    const economics: DayEconomics = (await cast.s.contractor.agent.get('/api/economics/day').query(query).expect(200)).body;
+    expect(day.returnDriveMinutes!).toBeGreaterThan(0);
+    expect(economics.hasDayPlan).toBe(true);
+    expect(economics.totals.driveMinutes).toBe(day.totalDriveMinutes);
+    // Each visit carries the drive to it; the day's last stop also the drive back to the shop.
+    const byVisit = new Map(economics.visits.map((v) => [v.siteVisitId, v.driveMinutes]));
+    expect(day.stops.map((s) => byVisit.get(s.visitId))).toEqual(day.stops.map((s, i) => s.driveMinutes! + (i === day.stops.length - 1 ? day.returnDriveMinutes! : 0)));
+    const csv = await cast.s.contractor.agent.get('/api/economics/period.csv').query({ from: date, to: date, electricianId: query.electricianId }).expect(200);
+    const [header, ...rows] = csv.text.trim().split('\n');
+    const column = header.split(',').indexOf('drive_minutes');
+    expect(rows.reduce((sum, r) => sum + Number(r.split(',')[column]), 0)).toBe(day.totalDriveMinutes);
   });
 
   it('takes the on-site minutes from the labour minutes of the current quote’s lines', async () => {

@@ -241,16 +241,17 @@ describe('the seeded week', () => {
     // D2: V3 flat only: 9,500 + 17,500 = 27,000, no materials cost, 18 + 20 min → 27,000 × 60 / 18 = 90,000; / 38 = 42,631.6 → 42,632.
     //     V4: 9,500 + 18,500 + 3,240 = 31,240, cost 2,400 → 28,840 over 40 (43,260/h) and 45 (38,453.3 → 38,453/h).
     //     Day: 55,840 earned over 58 on site (57,765.5 → 57,766/h) and 83 paid (40,366.3 → 40,366/h).
-    // D3: V5 booked, not worked: nothing billed, no minutes.
+    // D3: V5 booked, not worked: nothing billed, no on-site minutes; its planned 12 minutes' drive still count as the day's driving.
     expect(period.days.map((d) => [d.date, d.totals.billedCents, d.totals.earningsCents, d.totals.onSiteMinutes, d.totals.driveMinutes, d.totals.perOnSiteHourCents, d.totals.perPaidHourCents])).toEqual([
       [D1, 59_680, 57_005, 75, 25, 45_604, 34_203],
       [D2, 58_240, 55_840, 58, 25, 57_766, 40_366],
-      [D3, 0, 0, 0, 0, null, null],
+      [D3, 0, 0, 0, 12, null, null],
     ]);
     expect(period.visits.find((v) => v.siteVisitId === week.v3)).toMatchObject({ billedCents: 27_000, materialsCostCents: 0, perOnSiteHourCents: 90_000, perPaidHourCents: 42_632 });
     expect(period.visits.find((v) => v.siteVisitId === week.v4)).toMatchObject({ billedCents: 31_240, perOnSiteHourCents: 43_260, perPaidHourCents: 38_453 });
-    // Week: 112,845 earned over 133 on site (50,907.5 → 50,908/h) and 183 paid minutes (36,998.4 → 36,998/h); V5 has no minutes.
-    expect(period.totals).toMatchObject({ visitCount: 5, correctedCount: 5, earningsCents: 112_845, onSiteMinutes: 133, driveMinutes: 50, perOnSiteHourCents: 50_908, perPaidHourCents: 36_998, visitsWithoutMinutes: 1 });
+    // Week: 112,845 earned over 133 on site (50,907.5 → 50,908/h) and 183 paid minutes (36,998.4 → 36,998/h); V5 has no
+    // on-site minutes (left out of the rates) but its 12 minutes' drive are planned: 25 + 25 + 12 = 62 minutes' driving.
+    expect(period.totals).toMatchObject({ visitCount: 5, correctedCount: 5, earningsCents: 112_845, onSiteMinutes: 133, driveMinutes: 62, perOnSiteHourCents: 50_908, perPaidHourCents: 36_998, visitsWithoutMinutes: 1 });
 
     // A, B, D, E first visit; C came back (part not on the truck): 4 of 5 = 8,000 bp.
     expect(period.singleVisit.overall).toEqual({ group: 'All items', items: 5, firstVisit: 4, rateBp: 8_000 });
