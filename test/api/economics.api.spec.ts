@@ -8,7 +8,7 @@ import sharp from 'sharp';
 import request from 'supertest';
 import { DEMO_RATE_BOOK, type DayEconomics, type PeriodEconomics, type PickList, type VisitPrep } from '@cc/shared';
 import { extractPdfPages } from '../../server/src/integrations/pdf-text';
-import type { PlannedStop } from '../../server/src/economics/drive-time';
+import type { DriveTimeSource, PlannedStop } from '../../server/src/economics/drive-time';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 import { resetDatabase, type SignedIn } from '../helpers/fixtures';
 import { createPricedRequest, createPricingCast, storeRateBook, type PricingCast, type StoredBook } from '../helpers/pricing-fixtures';
@@ -178,6 +178,49 @@ describe('GET /api/economics/pick-list', () => {
     expect(res.headers['content-type']).toBe('application/pdf');
     const text = (await extractPdfPages(res.body as Buffer)).pages.join('\n').replace(/\s+/g, ' ');
     for (const name of ['GFCI receptacle 15 A, TR/WR', 'Extra-duty in-use cover', 'Pigtail and listed connector', 'Covers and plates', 'de-energise']) expect(text).toContain(name);
+  });
+});
+
+describe('the pick list in the day plan’s driving order, the same on screen and on paper', () => {
+  const query = () => ({ date: D1, electricianId: cast.users.colleague.id });
+  let original: DriveTimeSource;
+
+  let streets: { id: number; street: string }[];
+  beforeAll(async () => {
+    // Streets of their own, so that the two visits' labels differ.
+    streets = await t.db('repair_requests').whereIn('id', [week.r1, week.r2]).select('id', 'street');
+    await t.db('repair_requests').where({ id: week.r1 }).update({ street: '1 First Stop Lane' });
+    await t.db('repair_requests').where({ id: week.r2 }).update({ street: '2 Second Stop Lane' });
+    original = t.services.economics.driveTime;
+    // The day plan drives to V2 first, then V1 (booked the other way round).
+    t.services.economics.driveTime = async (_org, electricianId, date) =>
+      date === D1 && electricianId === cast.users.colleague.id ? [{ siteVisitId: week.v2, driveMinutes: 10 }, { siteVisitId: week.v1, driveMinutes: 15 }] : original(_org, electricianId, date);
+  });
+  afterAll(async () => {
+    for (const { id, street } of streets) await t.db('repair_requests').where({ id }).update({ street });
+    t.services.economics.driveTime = original;
+  });
+
+  it('lists the visits in driving order and names each line’s visits; on paper too, with the spare only where there is one', async () => {
+    await write(cast.s.contractor, 'put', '/api/economics/spares').send({ spares: [{ entryKey: 'gfci-replace', spareUnits: 2 }] }).expect(200);
+    const list: PickList = (await cast.s.contractor.agent.get('/api/economics/pick-list').query(query()).expect(200)).body;
+    expect(list.visits.map((v) => v.id)).toEqual([week.v2, week.v1]);
+    const label = (id: number) => {
+      const v = list.visits.find((x) => x.id === id)!;
+      return `Site visit ${v.number} · ${v.street}`;
+    };
+    expect(list.lines.find((l) => l.name === 'GFCI receptacle 15 A, TR/WR')!.forVisits).toEqual([label(week.v1)]);
+    expect(list.lines.find((l) => l.name === 'Pigtail and listed connector')!.forVisits).toEqual([label(week.v2)]);
+
+    const res = await bytesOf(cast.s.contractor.agent.get('/api/economics/pick-list.pdf').query(query()));
+    expect(res.status).toBe(200);
+    const text = (await extractPdfPages(res.body as Buffer)).pages.join('\n').replace(/\s+/g, ' ');
+    // Visits in driving order, each line with its visits, the spare in the screen's words only on the GFCI line.
+    expect(label(week.v1)).not.toBe(label(week.v2));
+    expect(text.indexOf(label(week.v2))).toBeLessThan(text.indexOf(label(week.v1)));
+    expect(text).toContain(`GFCI receptacle 15 A, TR/WR — 1 for the items + 2 spare · ${label(week.v1)}`);
+    expect(text).toContain(`Pigtail and listed connector — ${label(week.v2)}`);
+    expect(text).not.toMatch(/\(\+0\)|\+ 0 spare|Load \(spare\)/);
   });
 });
 
