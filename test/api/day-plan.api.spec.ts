@@ -259,6 +259,24 @@ describe('suggestions and booking one', () => {
   });
 });
 
+describe('booking on a past day', () => {
+  it('suggests nothing for a past day and refuses to book one, from the day plan and the booking form alike, with the field', async () => {
+    const { requestId } = await approvedJob('80910', '9 Yesterday Lane');
+    const past = inDays(-1);
+    const earlier = await plan(past, cast.users.colleague.id);
+    expect(earlier.suggestions).toEqual([]);
+    // The same job is suggested for a day ahead, so the empty list above is the past date's doing.
+    expect((await plan(inDays(9), cast.users.colleague.id)).suggestions.some((s) => s.requestId === requestId)).toBe(true);
+    const fromPlan = await write(cast.s.contractor, 'post', '/api/day-plan/book').send({ requestId, date: past, electricianId: cast.users.colleague.id });
+    expect(fromPlan.status).toBe(400);
+    expect(fromPlan.body.details).toEqual([{ path: 'date', message: 'Choose today or a later day' }]);
+    const fromForm = await write(cast.s.contractor, 'post', `/api/requests/${requestId}/visits`).send({ date: past, arrivalFrom: '08:00', arrivalTo: '10:00', electricianId: cast.users.colleague.id });
+    expect(fromForm.status).toBe(400);
+    expect(fromForm.body.details).toEqual([{ path: 'date', message: 'Choose today or a later day' }]);
+    expect(await t.db('site_visits').where({ request_id: requestId }).count('id as n').first()).toEqual({ n: '0' });
+  });
+});
+
 describe('POST /api/day-plan/visits/:visitId/move', () => {
   it('moves a booked visit to another electrician and day, plans both days again and tells the seller side the new window', async () => {
     const date = inDays(11);
