@@ -96,7 +96,7 @@ export function createServices(db: Db, config: Config, readPool: pg.Pool | null 
     flow,
     notifications,
     outbox,
-    digest: new DailyDigest(db, notifications, outbox),
+    digest: new DailyDigest(db, notifications, outbox, config.atRiskBusinessDays),
     /** The development mailbox, while mail goes to the local sink. */
     mailbox: config.mail.smtp ? null : new CapturedMailRepository(db),
     activity: new ActivityService(requestsService, activity),

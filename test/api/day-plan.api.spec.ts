@@ -1,6 +1,6 @@
 // The day plan: ordering, times and the overflow warning, suggestions, moving visits, settings,
 // property locations, calendar files and feeds, and who may see or change any of it.
-import type { DayPlan, DayPlanSettings, MoveVisitResult, WeekPlan } from '@cc/shared';
+import type { DayEconomics, DayPlan, DayPlanSettings, MoveVisitResult, WeekPlan } from '@cc/shared';
 import { DEFAULT_DAY_PLAN_SETTINGS, distanceMatrix, tourLength } from '@cc/shared';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 import { resetDatabase, type SignedIn } from '../helpers/fixtures';
@@ -170,6 +170,22 @@ describe('GET /api/day-plan', () => {
     for (const s of day.stops) expect(s.driveMinutes).toBeLessThanOrEqual(30);
   });
 
+  it('gives the day economics the day plan’s drive, the drive back to the shop included, on screen and in the CSV', async () => {
+    const day = await plan(date, cast.users.contractor.id);
+    const query = { date, electricianId: cast.users.contractor.id };
+    const economics: DayEconomics = (await cast.s.contractor.agent.get('/api/economics/day').query(query).expect(200)).body;
+    expect(day.returnDriveMinutes!).toBeGreaterThan(0);
+    expect(economics.hasDayPlan).toBe(true);
+    expect(economics.totals.driveMinutes).toBe(day.totalDriveMinutes);
+    // Each visit carries the drive to it; the day's last stop also the drive back to the shop.
+    const byVisit = new Map(economics.visits.map((v) => [v.siteVisitId, v.driveMinutes]));
+    expect(day.stops.map((s) => byVisit.get(s.visitId))).toEqual(day.stops.map((s, i) => s.driveMinutes! + (i === day.stops.length - 1 ? day.returnDriveMinutes! : 0)));
+    const csv = await cast.s.contractor.agent.get('/api/economics/period.csv').query({ from: date, to: date, electricianId: query.electricianId }).expect(200);
+    const [header, ...rows] = csv.text.trim().split('\n');
+    const column = header.split(',').indexOf('drive_minutes');
+    expect(rows.reduce((sum, r) => sum + Number(r.split(',')[column]), 0)).toBe(day.totalDriveMinutes);
+  });
+
   it('takes the on-site minutes from the labour minutes of the current quote’s lines', async () => {
     const { requestId, itemIds } = await approvedJob('80907', '40 Quote Lane', 2);
     const [quote] = await t.db('quotes')
@@ -240,6 +256,24 @@ describe('suggestions and booking one', () => {
     const status = (await t.db('repair_requests').where({ id: waiting }).first('status')).status;
     expect(status).toBe('scheduled');
     await write(cast.s.contractor, 'post', '/api/day-plan/book').send({ requestId: waiting, date, electricianId: cast.users.colleague.id }).expect(409);
+  });
+});
+
+describe('booking on a past day', () => {
+  it('suggests nothing for a past day and refuses to book one, from the day plan and the booking form alike, with the field', async () => {
+    const { requestId } = await approvedJob('80910', '9 Yesterday Lane');
+    const past = inDays(-1);
+    const earlier = await plan(past, cast.users.colleague.id);
+    expect(earlier.suggestions).toEqual([]);
+    // The same job is suggested for a day ahead, so the empty list above is the past date's doing.
+    expect((await plan(inDays(9), cast.users.colleague.id)).suggestions.some((s) => s.requestId === requestId)).toBe(true);
+    const fromPlan = await write(cast.s.contractor, 'post', '/api/day-plan/book').send({ requestId, date: past, electricianId: cast.users.colleague.id });
+    expect(fromPlan.status).toBe(400);
+    expect(fromPlan.body.details).toEqual([{ path: 'date', message: 'Choose today or a later day' }]);
+    const fromForm = await write(cast.s.contractor, 'post', `/api/requests/${requestId}/visits`).send({ date: past, arrivalFrom: '08:00', arrivalTo: '10:00', electricianId: cast.users.colleague.id });
+    expect(fromForm.status).toBe(400);
+    expect(fromForm.body.details).toEqual([{ path: 'date', message: 'Choose today or a later day' }]);
+    expect(await t.db('site_visits').where({ request_id: requestId }).count('id as n').first()).toEqual({ n: '0' });
   });
 });
 

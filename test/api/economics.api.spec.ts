@@ -8,7 +8,7 @@ import sharp from 'sharp';
 import request from 'supertest';
 import { DEMO_RATE_BOOK, type DayEconomics, type PeriodEconomics, type PickList, type VisitPrep } from '@cc/shared';
 import { extractPdfPages } from '../../server/src/integrations/pdf-text';
-import type { PlannedStop } from '../../server/src/economics/drive-time';
+import type { DriveTimeSource, PlannedStop } from '../../server/src/economics/drive-time';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 import { resetDatabase, type SignedIn } from '../helpers/fixtures';
 import { createPricedRequest, createPricingCast, storeRateBook, type PricingCast, type StoredBook } from '../helpers/pricing-fixtures';
@@ -181,6 +181,49 @@ describe('GET /api/economics/pick-list', () => {
   });
 });
 
+describe('the pick list in the day plan’s driving order, the same on screen and on paper', () => {
+  const query = () => ({ date: D1, electricianId: cast.users.colleague.id });
+  let original: DriveTimeSource;
+
+  let streets: { id: number; street: string }[];
+  beforeAll(async () => {
+    // Streets of their own, so that the two visits' labels differ.
+    streets = await t.db('repair_requests').whereIn('id', [week.r1, week.r2]).select('id', 'street');
+    await t.db('repair_requests').where({ id: week.r1 }).update({ street: '1 First Stop Lane' });
+    await t.db('repair_requests').where({ id: week.r2 }).update({ street: '2 Second Stop Lane' });
+    original = t.services.economics.driveTime;
+    // The day plan drives to V2 first, then V1 (booked the other way round).
+    t.services.economics.driveTime = async (_org, electricianId, date) =>
+      date === D1 && electricianId === cast.users.colleague.id ? [{ siteVisitId: week.v2, driveMinutes: 10 }, { siteVisitId: week.v1, driveMinutes: 15 }] : original(_org, electricianId, date);
+  });
+  afterAll(async () => {
+    for (const { id, street } of streets) await t.db('repair_requests').where({ id }).update({ street });
+    t.services.economics.driveTime = original;
+  });
+
+  it('lists the visits in driving order and names each line’s visits; on paper too, with the spare only where there is one', async () => {
+    await write(cast.s.contractor, 'put', '/api/economics/spares').send({ spares: [{ entryKey: 'gfci-replace', spareUnits: 2 }] }).expect(200);
+    const list: PickList = (await cast.s.contractor.agent.get('/api/economics/pick-list').query(query()).expect(200)).body;
+    expect(list.visits.map((v) => v.id)).toEqual([week.v2, week.v1]);
+    const label = (id: number) => {
+      const v = list.visits.find((x) => x.id === id)!;
+      return `Site visit ${v.number} · ${v.street}`;
+    };
+    expect(list.lines.find((l) => l.name === 'GFCI receptacle 15 A, TR/WR')!.forVisits).toEqual([label(week.v1)]);
+    expect(list.lines.find((l) => l.name === 'Pigtail and listed connector')!.forVisits).toEqual([label(week.v2)]);
+
+    const res = await bytesOf(cast.s.contractor.agent.get('/api/economics/pick-list.pdf').query(query()));
+    expect(res.status).toBe(200);
+    const text = (await extractPdfPages(res.body as Buffer)).pages.join('\n').replace(/\s+/g, ' ');
+    // Visits in driving order, each line with its visits, the spare in the screen's words only on the GFCI line.
+    expect(label(week.v1)).not.toBe(label(week.v2));
+    expect(text.indexOf(label(week.v2))).toBeLessThan(text.indexOf(label(week.v1)));
+    expect(text).toContain(`GFCI receptacle 15 A, TR/WR — 1 for the items + 2 spare · ${label(week.v1)}`);
+    expect(text).toContain(`Pigtail and listed connector — ${label(week.v2)}`);
+    expect(text).not.toMatch(/\(\+0\)|\+ 0 spare|Load \(spare\)/);
+  });
+});
+
 describe('the first-visit outcome on correction records', () => {
   it('asks for the cause when an item was not finished on the first visit', async () => {
     const res = await post(cast.s.colleague, `/api/requests/${week.r2}/items/${week.c}/correction`).field('record', JSON.stringify(corrected({ finishedOnFirstVisit: false })));
@@ -241,16 +284,17 @@ describe('the seeded week', () => {
     // D2: V3 flat only: 9,500 + 17,500 = 27,000, no materials cost, 18 + 20 min → 27,000 × 60 / 18 = 90,000; / 38 = 42,631.6 → 42,632.
     //     V4: 9,500 + 18,500 + 3,240 = 31,240, cost 2,400 → 28,840 over 40 (43,260/h) and 45 (38,453.3 → 38,453/h).
     //     Day: 55,840 earned over 58 on site (57,765.5 → 57,766/h) and 83 paid (40,366.3 → 40,366/h).
-    // D3: V5 booked, not worked: nothing billed, no minutes.
+    // D3: V5 booked, not worked: nothing billed, no on-site minutes; its planned 12 minutes' drive still count as the day's driving.
     expect(period.days.map((d) => [d.date, d.totals.billedCents, d.totals.earningsCents, d.totals.onSiteMinutes, d.totals.driveMinutes, d.totals.perOnSiteHourCents, d.totals.perPaidHourCents])).toEqual([
       [D1, 59_680, 57_005, 75, 25, 45_604, 34_203],
       [D2, 58_240, 55_840, 58, 25, 57_766, 40_366],
-      [D3, 0, 0, 0, 0, null, null],
+      [D3, 0, 0, 0, 12, null, null],
     ]);
     expect(period.visits.find((v) => v.siteVisitId === week.v3)).toMatchObject({ billedCents: 27_000, materialsCostCents: 0, perOnSiteHourCents: 90_000, perPaidHourCents: 42_632 });
     expect(period.visits.find((v) => v.siteVisitId === week.v4)).toMatchObject({ billedCents: 31_240, perOnSiteHourCents: 43_260, perPaidHourCents: 38_453 });
-    // Week: 112,845 earned over 133 on site (50,907.5 → 50,908/h) and 183 paid minutes (36,998.4 → 36,998/h); V5 has no minutes.
-    expect(period.totals).toMatchObject({ visitCount: 5, correctedCount: 5, earningsCents: 112_845, onSiteMinutes: 133, driveMinutes: 50, perOnSiteHourCents: 50_908, perPaidHourCents: 36_998, visitsWithoutMinutes: 1 });
+    // Week: 112,845 earned over 133 on site (50,907.5 → 50,908/h) and 183 paid minutes (36,998.4 → 36,998/h); V5 has no
+    // on-site minutes (left out of the rates) but its 12 minutes' drive are planned: 25 + 25 + 12 = 62 minutes' driving.
+    expect(period.totals).toMatchObject({ visitCount: 5, correctedCount: 5, earningsCents: 112_845, onSiteMinutes: 133, driveMinutes: 62, perOnSiteHourCents: 50_908, perPaidHourCents: 36_998, visitsWithoutMinutes: 1 });
 
     // A, B, D, E first visit; C came back (part not on the truck): 4 of 5 = 8,000 bp.
     expect(period.singleVisit.overall).toEqual({ group: 'All items', items: 5, firstVisit: 4, rateBp: 8_000 });

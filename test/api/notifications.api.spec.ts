@@ -281,16 +281,22 @@ describe('preferences', () => {
     await anonymous.get('/api/notifications/unsubscribe/not-a-token').expect(404);
   });
 
-  it('the daily digest warns the agents and the contractor of a closing at risk', async () => {
-    const { requestId: id } = await createPricedRequest(cast, t.db, { items: [{ code: 'gfci-inoperative', quantity: 1 }] });
+  it('the daily digest warns the agents and the contractor of a closing at risk, by the request list’s rule', async () => {
+    // Open approved work 2 business days (Sat 1 May → Tue 4 May) before closing: at risk, as the request list flags it.
+    const { requestId: id } = await createPricedRequest(cast, t.db, { status: 'approved', items: [{ code: 'gfci-inoperative', quantity: 1, status: 'approved' }] });
     await t.db('repair_requests').where({ id }).update({ closing_date: '2027-05-04' });
+    // Work finished, no open approved work, the same closing: not at risk on the list, so not in the digest either.
+    const { requestId: finished } = await createPricedRequest(cast, t.db, { status: 'corrected', items: [{ code: 'gfci-inoperative', quantity: 1, status: 'corrected' }] });
+    await t.db('repair_requests').where({ id: finished }).update({ closing_date: '2027-05-04' });
     await worker.drain();
     mail.clear();
     await t.services.digest.run('2027-05-01');
     await worker.drain();
     // The listing agent turned the digest off above; the buyer's agent and the contractor's people get it.
     expect(receivers()).toEqual(['buyerAgent', 'colleague', 'contractor']);
-    expect(mail.to(emailOf('buyerAgent'))[0].text).toContain(`CC-${String(id).padStart(5, '0')}: closing at risk`);
+    const text = mail.to(emailOf('buyerAgent'))[0].text;
+    expect(text).toContain(`CC-${String(id).padStart(5, '0')}: closing at risk`);
+    expect(text).not.toContain(`CC-${String(finished).padStart(5, '0')}: closing at risk`);
   });
 });
 

@@ -21,7 +21,7 @@ import { inTransaction } from '../db/transaction';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../errors';
 import type { RequestsService } from '../requests/requests.service';
 import type { SiteVisitRepository } from '../visits/site-visit.repository';
-import { assertDateInRange, type VisitsService } from '../visits/visits.service';
+import { assertDateInRange, todayUtc, type VisitsService } from '../visits/visits.service';
 import type { ProofMessages } from '../work/proof-messages';
 import { assertMayAct, requestWithActors } from '../work/request-actors';
 import { visitsCalendar } from './calendar';
@@ -91,7 +91,8 @@ export class DayPlanService {
    * of the route (common practice: 20–30 minutes), least extra driving first.
    */
   private async suggestions(organisationId: number, plan: DayPlan): Promise<DayPlanSuggestion[]> {
-    if (plan.overflowMinutes > 0) return [];
+    // Nothing can be booked on a past day (the booking rule), so nothing is suggested for one.
+    if (plan.overflowMinutes > 0 || plan.date < todayUtc()) return [];
     const settings = await this.plans.settings(organisationId);
     const shop = shopPlace(settings);
     if (!shop) return [];
@@ -137,6 +138,7 @@ export class DayPlanService {
     const organisationId = this.organisationOf(user);
     await this.electricianOf(organisationId, input.electricianId);
     if (!(await this.plans.isRequestOf(organisationId, input.requestId))) throw new NotFoundError('No such request');
+    assertDateInRange(input.date);
     const plan = await planDay(this.db, organisationId, input.electricianId, input.date);
     const job = (await this.plans.unscheduledJobs(organisationId)).find((j) => j.requestId === input.requestId);
     if (!job) throw new ConflictError('This job has no approved items waiting for a visit any more.');

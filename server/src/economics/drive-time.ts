@@ -7,7 +7,7 @@ import { planDay } from '../day-plan/plan-day';
  */
 export interface PlannedStop {
   siteVisitId: number;
-  /** Minutes of driving to this stop from the previous one (or from the start of the day). */
+  /** Minutes of driving to this stop from the previous one (or from the shop); the day's last stop also carries the drive back to the shop. */
   driveMinutes: number;
 }
 
@@ -19,12 +19,13 @@ export const noDayPlan: DriveTimeSource = async () => null;
 
 /**
  * Drive minutes from the day plan (server/src/day-plan): the minutes to each stop from the previous one
- * (the first from the shop). The drive back to the shop at the end of the day is not a visit's and is not
- * counted here. A day without visits has no plan.
+ * (the first from the shop), and the drive back to the shop added to the day's last stop, so that the
+ * stops add up to the day plan's total drive. A day without visits has no plan.
  */
 export function dayPlanDriveTime(db: Db): DriveTimeSource {
   return async (organisationId, electricianId, date) => {
     const plan = await planDay(db, organisationId, electricianId, date);
-    return plan.stops.length ? plan.stops.map((s) => ({ siteVisitId: s.visitId, driveMinutes: s.driveMinutes ?? 0 })) : null;
+    const last = plan.stops.length - 1;
+    return last < 0 ? null : plan.stops.map((s, i) => ({ siteVisitId: s.visitId, driveMinutes: (s.driveMinutes ?? 0) + (i === last ? (plan.returnDriveMinutes ?? 0) : 0) }));
   };
 }

@@ -109,12 +109,14 @@ export class EconomicsService {
   async pickList(user: CurrentUser, query: DayQuery): Promise<PickList> {
     const organisationId = this.organisationOf(user);
     const electrician = await this.electrician(organisationId, query.electricianId);
-    let visits = await this.repo.visits(organisationId, query.date, query.date, electrician.id);
+    let visits = await this.inDrivingOrder(organisationId, electrician.id, query.date, await this.repo.visits(organisationId, query.date, query.date, electrician.id));
     if (query.siteVisitId !== undefined) {
       visits = visits.filter((v) => v.id === query.siteVisitId);
       if (!visits.length) throw new NotFoundError('No such site visit on this day');
     }
-    const items = await this.repo.bookedItems(visits.map((v) => v.id));
+    const position = new Map(visits.map((v, i) => [v.id, i]));
+    // Items in the visits' order, so that each line names its visits in driving order too.
+    const items = (await this.repo.bookedItems(visits.map((v) => v.id))).sort((a, b) => position.get(a.siteVisitId)! - position.get(b.siteVisitId)!);
     const scopes = await this.scopesOf(visits.map((v) => v.requestId));
     const label = (v: EconomicsVisit) => `Site visit ${v.number} · ${v.street}`;
     const keys = await this.keysOf(organisationId);
@@ -139,6 +141,13 @@ export class EconomicsService {
       itemsWithoutMaterials: built.itemsWithoutMaterials,
       tickedCount: lines.filter((l) => l.isTicked).length,
     };
+  }
+
+  /** The day's visits in the day plan's driving order (visits the plan does not know, after, as booked). */
+  private async inDrivingOrder(organisationId: number, electricianId: number, date: string, visits: EconomicsVisit[]): Promise<EconomicsVisit[]> {
+    const stops = (await this.driveTime(organisationId, electricianId, date)) ?? [];
+    const order = new Map(stops.map((s, i) => [s.siteVisitId, i]));
+    return [...visits].sort((a, b) => (order.get(a.id) ?? stops.length) - (order.get(b.id) ?? stops.length));
   }
 
   /** Ticks a line of the day's pick list as loaded (or takes the tick off); answers the list. */

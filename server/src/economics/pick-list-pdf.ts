@@ -1,7 +1,7 @@
-import { PICK_KIND_LABELS, PICK_KINDS, WORK_SAFETY_CAUTION, type PickList } from '@cc/shared';
+import { PICK_KIND_LABELS, PICK_KINDS, spareNote, WORK_SAFETY_CAUTION, type PickList } from '@cc/shared';
 import { createPdfLayout, MARGIN, MUTED } from '../integrations/pdf/pdf-layout';
 
-/** The pick list of a day (or one visit) on paper, grouped by kind, with a box to tick per line. */
+/** The pick list of a day (or one visit) on paper, visits in driving order, lines grouped by kind with their visits and a box to tick. */
 export function renderPickListPdf(list: PickList, contractorName: string): Promise<Buffer> {
   const title = list.siteVisitId === null ? `Pick list for ${list.date}` : `Pick list for one visit on ${list.date}`;
   const { doc, heading, paragraph, row, pageNumbers, finish } = createPdfLayout({ info: { Title: title, Author: contractorName, Subject: `${title}, ${list.electrician.name}` }, footerHeight: 24 });
@@ -17,10 +17,10 @@ export function renderPickListPdf(list: PickList, contractorName: string): Promi
     const lines = list.lines.filter((l) => l.kind === kind);
     if (!lines.length) continue;
     heading(PICK_KIND_LABELS[kind]);
-    row('Material', 'Qty', 'Load (spare)', 'strong');
+    row('Material (for which visits)', 'Items', 'Load', 'strong');
     for (const l of lines) {
-      const extra = l.isSiteCondition ? ' — site condition' : '';
-      row(`${l.isTicked ? '[x]' : '[  ]'} ${l.name}${extra}`, String(l.quantity), l.spare ? `${l.total} (+${l.spare})` : String(l.total));
+      const facts = [spareNote(l), l.isSiteCondition ? 'site condition' : '', l.forVisits.join('; ')].filter(Boolean).join(' · ');
+      row(`${l.isTicked ? '[x]' : '[  ]'} ${l.name}${facts ? ` — ${facts}` : ''}`, String(l.quantity), String(l.total));
     }
   }
   if (!list.lines.length) paragraph('Nothing to load: no booked item on this list names materials.', 10, MUTED);

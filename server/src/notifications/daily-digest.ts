@@ -1,7 +1,8 @@
 // The daily digest: once a day (one server process runs it: the day's row in digest_runs decides),
 // requests whose closing is at risk are noted for their agents and contractor, and everything that
 // waited for the digest is folded into one e-mail per person, with a link that turns digests off.
-import { closingRisk, daysToClosing, isEnded, REQUEST_STATUSES, type RequestStatus } from '@cc/shared';
+import { closingProgress, daysToClosing, isEnded, REQUEST_STATUSES, type RequestStatus } from '@cc/shared';
+import { joinItemCounts } from '../requests/request.repository';
 import type { Db, Trx } from '../db/knex';
 import { escapeHtml, layOut } from './message-templates';
 import { hash, type NotificationsService } from './notifications.service';
@@ -22,6 +23,8 @@ export class DailyDigest {
     private readonly db: Db,
     private readonly notifications: NotificationsService,
     private readonly outbox: OutboxRepository,
+    /** Open approved work this many business days before closing notes a request as at risk (as the request list flags it). */
+    private readonly atRiskBusinessDays = 3,
   ) {}
 
   /** Runs the digest of `day` (YYYY-MM-DD) unless it ran already. */
@@ -36,11 +39,16 @@ export class DailyDigest {
   }
 
   private async noteRisks(day: string, trx: Trx): Promise<number> {
-    const rows: { id: number; status: RequestStatus; closing_date: string }[] = await trx('repair_requests').whereIn('status', OPEN_STATUSES).select('id', 'status', 'closing_date');
+    const rows: { id: number; status: RequestStatus; closing_date: string; open_work_count: number }[] = await joinItemCounts(
+      trx,
+      trx('repair_requests as r').whereIn('r.status', OPEN_STATUSES).select('r.id', 'r.status', 'r.closing_date', 'ic.open_work_count'),
+    );
     let count = 0;
     for (const r of rows) {
       const daysLeft = daysToClosing(r.closing_date, day);
-      if (closingRisk(r.status, daysLeft) !== 'high') continue;
+      // The request list's rule (shared closing-progress): open approved work this close to closing.
+      const { isAtRisk } = closingProgress({ closingDate: r.closing_date, today: day, approvedCount: Number(r.open_work_count), resolvedCount: 0, atRiskBusinessDays: this.atRiskBusinessDays });
+      if (!isAtRisk) continue;
       await this.notifications.notify(trx, { kind: 'closing-at-risk', requestId: r.id, actorUserId: null, day, daysLeft });
       count++;
     }

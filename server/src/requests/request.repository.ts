@@ -82,7 +82,7 @@ const OPEN_WORK_ITEM_STATES = [itemStateAfter('approve'), itemStateAfter('not-ac
  * Joins to a query on `repair_requests as r` the `item_count` and `open_work_count` columns of a
  * request summary (closing-date tracking), both counted in one pass over the request's items.
  */
-function joinItemCounts(db: Db | Trx, query: Knex.QueryBuilder): Knex.QueryBuilder {
+export function joinItemCounts(db: Db | Trx, query: Knex.QueryBuilder): Knex.QueryBuilder {
   return query.joinRaw(
     `LEFT JOIN LATERAL (SELECT count(*) FILTER (WHERE li.status <> ALL(?))::int AS item_count, count(*) FILTER (WHERE li.status = ANY(?))::int AS open_work_count
        FROM line_items li WHERE li.request_id = r.id) AS ic ON true`,

@@ -109,13 +109,14 @@ function itemsToPlan(items: readonly WorkItemRecord[], quotedVisitKey: string | 
   return open.filter((i) => i.quotedVisitKey === quotedVisitKey);
 }
 
-/** A visit's date is from today to a year ahead (booking and moving alike). */
+/** Today's date, YYYY-MM-DD, in UTC (the product keeps no organisation time zone yet). */
+export const todayUtc = (): string => new Date().toISOString().slice(0, 10);
+
+/** The one booking rule for a visit's date (booking form, day-plan suggestions, moves): from today to a year ahead. */
 export function assertDateInRange(date: string): void {
-  const today = new Date().toISOString().slice(0, 10);
   const latest = new Date(Date.now() + MAX_DAYS_AHEAD * 86_400_000).toISOString().slice(0, 10);
-  if (date < today || date > latest) {
-    throw new ValidationError('Choose a date from today to a year ahead', [{ path: 'date', message: 'Choose a date from today to a year ahead' }]);
-  }
+  if (date < todayUtc()) throw new ValidationError('Choose today or a later day', [{ path: 'date', message: 'Choose today or a later day' }]);
+  if (date > latest) throw new ValidationError('Choose a date at most a year ahead', [{ path: 'date', message: 'Choose a date at most a year ahead' }]);
 }
 
 export function toSiteVisitDto(visit: SiteVisitRecord, items: readonly WorkItemRecord[], actors: readonly FlowActor[], status: RequestStatus): SiteVisit {

@@ -49,14 +49,14 @@ describe('visit and day figures', () => {
     expect(visitRates({ billedCents: 31_250, materialsCostCents: 2_400, onSiteMinutes: null, driveMinutes: 15 })).toEqual({ earningsCents: 28_850, perOnSiteHourCents: null, perPaidHourCents: null });
   });
 
-  it('totals a day over the visits whose minutes are known', () => {
+  it('totals the day plan’s driving of every visit, and the rates over the visits whose minutes are known', () => {
     const totals = totalsOf([
       { billedCents: 10_000, materialsCostCents: 1_000, onSiteMinutes: 30, driveMinutes: 10, correctedCount: 1 },
       { billedCents: 20_000, materialsCostCents: 2_000, onSiteMinutes: 60, driveMinutes: 20, correctedCount: 2 },
       { billedCents: 5_000, materialsCostCents: 0, onSiteMinutes: null, driveMinutes: 10, correctedCount: 0 },
     ]);
-    // on site: 27,000 over 90 min = 18,000/h; paid: 27,000 over 120 min = 13,500/h.
-    expect(totals).toEqual({ visitCount: 3, correctedCount: 3, billedCents: 35_000, materialsCostCents: 3_000, earningsCents: 32_000, onSiteMinutes: 90, driveMinutes: 30, perOnSiteHourCents: 18_000, perPaidHourCents: 13_500, visitsWithoutMinutes: 1 });
+    // on site: 27,000 over 90 min = 18,000/h; paid: 27,000 over 120 min = 13,500/h; driving: all three visits, 40 min.
+    expect(totals).toEqual({ visitCount: 3, correctedCount: 3, billedCents: 35_000, materialsCostCents: 3_000, earningsCents: 32_000, onSiteMinutes: 90, driveMinutes: 40, perOnSiteHourCents: 18_000, perPaidHourCents: 13_500, visitsWithoutMinutes: 1 });
   });
 
   it('a day of six GFCI replacements of 20 minutes with 10-minute drives pays several times the first-hour minimum per hour (common practice)', () => {

@@ -21,8 +21,9 @@ export function visitRates(v: VisitFigures): { earningsCents: number; perOnSiteH
 }
 
 /**
- * A day's (or a period's) totals. The rates use only the visits whose minutes are known (finished,
- * and for the paid hour with a day plan), over the earnings of those same visits.
+ * A day's (or a period's) totals. The driving is every visit's planned drive (the day plan's, finished or
+ * not). The rates use only the visits whose minutes are known (finished, and for the paid hour with a
+ * day plan), over the earnings of those same visits.
  */
 export function totalsOf(visits: readonly (VisitFigures & { correctedCount: number })[]): EconomicsTotals {
   const sum = (f: (v: VisitFigures & { correctedCount: number }) => number) => visits.reduce((s, v) => s + f(v), 0);
@@ -30,7 +31,7 @@ export function totalsOf(visits: readonly (VisitFigures & { correctedCount: numb
   const paid = timed.filter((v) => v.driveMinutes !== null);
   const earnings = (list: readonly VisitFigures[]) => list.reduce((s, v) => s + v.billedCents - v.materialsCostCents, 0);
   const onSite = timed.reduce((s, v) => s + (v.onSiteMinutes ?? 0), 0);
-  const drive = paid.reduce((s, v) => s + (v.driveMinutes ?? 0), 0);
+  const drive = sum((v) => v.driveMinutes ?? 0);
   const paidMinutes = paid.reduce((s, v) => s + (v.onSiteMinutes ?? 0) + (v.driveMinutes ?? 0), 0);
   const timedEarnings = earnings(timed);
   const paidEarnings = earnings(paid);

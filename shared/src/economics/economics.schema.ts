@@ -105,7 +105,7 @@ export const VisitEconomicsSchema = z.object({
   earningsCents: z.number().int(),
   /** From the visit's start to its finish; null while it is not finished. */
   onSiteMinutes: z.number().int().nullable(),
-  /** From the day plan; null when the day has no plan yet. */
+  /** From the day plan (to this visit; the day's last visit also the drive back to the shop); null when the day has no plan yet. */
   driveMinutes: z.number().int().nullable(),
   perOnSiteHourCents: z.number().int().nullable(),
   /** Per hour of on-site plus drive time. */

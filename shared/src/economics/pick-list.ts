@@ -65,6 +65,14 @@ export interface BuiltPickLine {
   forVisits: string[];
 }
 
+/**
+ * What a line's load is made of, the same words on the screen and on paper: "5 for the items + 1 spare"
+ * when a spare allowance is in it, else nothing (the load is just the items').
+ */
+export function spareNote(line: Pick<BuiltPickLine, 'quantity' | 'spare'>): string {
+  return line.spare ? `${line.quantity} for the items + ${line.spare} spare` : '';
+}
+
 export interface BuiltPickList {
   lines: BuiltPickLine[];
   itemsWithoutMaterials: { itemId: number; code: string; reason: string }[];

@@ -1,10 +1,12 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { provideRouter } from '@angular/router';
 import { DayPlan, DayPlanStop } from '@cc/shared';
+import { Auth } from '../../core/auth/auth';
 import { Clock } from '../../core/time/clock';
 import { DayPage } from './day-page';
 
@@ -53,21 +55,34 @@ function plan(overrides: Partial<DayPlan> = {}): DayPlan {
 describe('DayPage', () => {
   let http: HttpTestingController;
 
-  async function render(answer: DayPlan) {
+  /** Renders the page signed in as `signedInId` (the office's user, 1, by default) with the organisation's `people`; expects the day of `expectedId`. */
+  async function render(answer: DayPlan, { signedInId = 1, people = [{ id: 7, name: 'Lee Park' }], expectedId = 7 } = {}) {
     TestBed.configureTestingModule({
-      providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting(), { provide: Clock, useValue: { today: () => '2026-12-07' } }],
+      providers: [
+        provideRouter([]),
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        { provide: Clock, useValue: { today: () => '2026-12-07' } },
+        { provide: Auth, useValue: { user: signal({ id: signedInId }) } },
+      ],
     });
     http = TestBed.inject(HttpTestingController);
     const fixture = TestBed.createComponent(DayPage);
     await fixture.whenStable();
-    http.expectOne('/api/day-plan/electricians').flush([{ id: 7, name: 'Lee Park' }]);
+    http.expectOne('/api/day-plan/electricians').flush(people);
     await fixture.whenStable();
-    http.expectOne((r) => r.url === '/api/day-plan' && r.params.get('date') === '2026-12-07' && r.params.get('electricianId') === '7').flush(answer);
+    http.expectOne((r) => r.url === '/api/day-plan' && r.params.get('date') === '2026-12-07' && r.params.get('electricianId') === String(expectedId)).flush(answer);
     await fixture.whenStable();
     return { fixture, host: fixture.nativeElement as HTMLElement };
   }
 
   afterEach(() => http.verify());
+
+  it('opens on the signed-in person’s own day when they are one of the electricians', async () => {
+    const people = [{ id: 7, name: 'Lee Park' }, { id: 9, name: 'Sam Okafor' }];
+    const { host } = await render(plan({ electrician: people[1] }), { signedInId: 9, people, expectedId: 9 });
+    expect(host.textContent).toContain('Sam Okafor');
+  });
 
   it('lists the stops in the planned order with their times, the drive before each, and the late arrival', async () => {
     const { host } = await render(plan());

@@ -9,6 +9,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { ActivatedRoute, Router, RouterLink } from '@angular/router';
 import { DayPlan, DayPlanStop, DayPlanSuggestion, Electrician, SITE_VISIT_STATUS_LABELS } from '@cc/shared';
+import { Auth } from '../../core/auth/auth';
 import { Notice } from '../../core/http/notice';
 import { Clock } from '../../core/time/clock';
 import { SafetyNotice } from '../../ui/safety-notice/safety-notice';
@@ -30,6 +31,7 @@ export class DayPage {
   private readonly dialog = inject(MatDialog);
   private readonly route = inject(ActivatedRoute);
   private readonly router = inject(Router);
+  private readonly auth = inject(Auth);
 
   protected readonly electricians = signal<Electrician[]>([]);
   protected readonly date = signal(this.route.snapshot.queryParamMap.get('date') ?? inject(Clock).today());
@@ -47,7 +49,9 @@ export class DayPage {
     this.api.electricians().subscribe({
       next: (people) => {
         this.electricians.set(people);
-        if (this.electricianId() === null && people.length) this.electricianId.set(people[0].id);
+        // The URL's choice first; else the signed-in person when they are one of the electricians; else the first.
+        const me = people.find((e) => e.id === this.auth.user()?.id);
+        if (this.electricianId() === null && people.length) this.electricianId.set((me ?? people[0]).id);
         this.load();
       },
       error: (err: unknown) => this.notice.failure(err),

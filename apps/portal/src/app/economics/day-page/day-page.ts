@@ -9,7 +9,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { Router, RouterLink } from '@angular/router';
-import { DayEconomics, Electrician, PICK_KIND_LABELS, PICK_KINDS, PickList, PickListLine } from '@cc/shared';
+import { DayEconomics, Electrician, PICK_KIND_LABELS, PICK_KINDS, PickList, PickListLine, spareNote } from '@cc/shared';
 import { forkJoin } from 'rxjs';
 import { Notice } from '../../core/http/notice';
 import { MoneyPipe } from '../../ui/money/money';
@@ -48,6 +48,7 @@ export class DayPage {
   protected readonly isLoading = signal(false);
   protected readonly busyLine = signal<string | null>(null);
   protected readonly kindLabels = PICK_KIND_LABELS;
+  protected readonly spareNote = spareNote;
 
   protected readonly day = computed<DayRef | null>(() => {
     const date = this.date();
