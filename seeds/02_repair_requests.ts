@@ -5,6 +5,7 @@ import { FlowService, type Mover } from '../server/src/flow/flow.service';
 import { LineItemRepository } from '../server/src/intake/line-item.repository';
 import { RequestRepository } from '../server/src/requests/request.repository';
 import { ORGANISATIONS, PEOPLE, REQUESTS, type DemoRequest } from './data/demo-scenario';
+import { historyWriters, markHistoryDelivered } from './data/history';
 
 const DAY = 86_400_000;
 const REFUSED = { notYours: 'The demo scenario names someone the flow does not let make this move', notNow: 'The demo path leaves the flow', stale: 'Item changed meanwhile' };
@@ -37,7 +38,8 @@ interface Seeding {
 
 // Resets the requests and creates the dozen demo requests with their parties, history and items.
 // Every request and item moves through the flow service, made by the party who would make the move
-// (the first the flow table names who is on the request), so the history credits the right person.
+// (the first the flow table names who is on the request), so the history credits the right person,
+// and the Activity panel shows each move at the day it was made.
 export async function seed(knex: Knex): Promise<void> {
   await knex.raw('TRUNCATE request_status_changes, request_parties, line_items, repair_requests RESTART IDENTITY CASCADE');
   const users = new Map<string, { id: number; email: string }>();
@@ -50,10 +52,13 @@ export async function seed(knex: Knex): Promise<void> {
   }
   const requests = new RequestRepository(knex);
   const items = new LineItemRepository(knex);
-  const seeding: Seeding = { users, orgs, contractorUser, adminId: users.get('admin')!.id, flow: new FlowService(requests, items), requests, items };
+  // The moves write their timeline entries and messages through the server's own listener.
+  const flow = historyWriters(knex).listenOn(new FlowService(requests, items));
+  const seeding: Seeding = { users, orgs, contractorUser, adminId: users.get('admin')!.id, flow, requests, items };
   for (const [index, r] of REQUESTS.entries()) {
     await knex.transaction((trx) => seedRequest(trx, r, index, seeding));
   }
+  await markHistoryDelivered(knex);
 }
 
 async function seedRequest(trx: Knex.Transaction, r: DemoRequest, index: number, s: Seeding): Promise<void> {

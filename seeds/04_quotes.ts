@@ -10,6 +10,7 @@ import { RateBookService } from '../server/src/rate-book/rate-book.service';
 import { priceRequest } from '../server/src/pricing/request-pricing';
 import { ApprovalRepository } from '../server/src/approvals/approval.repository';
 import { signedRecord } from '../server/src/approvals/approvals.service';
+import { historyWriters, markHistoryDelivered } from './data/history';
 
 /** The state a sent quote puts a request in (the flow table's `send-quote`). */
 const QUOTED = REQUEST_FLOW.find((m) => m.event === 'send-quote')!.to;
@@ -32,6 +33,7 @@ export async function seed(knex: Knex): Promise<void> {
   const entryVersions = new RateBookRepository(knex);
   const quotes = new QuoteRepository(knex);
   const lineItems = new LineItemRepository(knex);
+  const history = historyWriters(knex);
 
   // Requests whose history shows a quote sent.
   const requests = await knex('repair_requests')
@@ -121,6 +123,9 @@ export async function seed(knex: Knex): Promise<void> {
         decisions.map((d) => ({ requestId: request.id, lineItemId: d.id, approvalId, changeOrderId: null, decision: d.decision, note: null, decidedBy: signer.id })),
         trx,
       );
+      // The timeline entry (with the approved amount the contractor's dashboard sums) and messages, as signing writes them.
+      await history.sellerNotices.quoteDecided(trx, { requestId: request.id, by: signer.id, approvalId, isApproved: decisions.some((d) => d.decision === 'approved'), at: signed.created_at });
     });
   }
+  await markHistoryDelivered(knex);
 }

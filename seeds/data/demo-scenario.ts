@@ -64,6 +64,12 @@ export interface DemoRequest {
   inspector: PersonKey | null;
   contractor: OrganisationKey | null;
   items: DemoItem[];
+  /**
+   * Where the proof of the work takes a request that the path left `scheduled`: seeds/06_proof.ts
+   * records each item's correction (readings, photo) through the corrections service, then issues the
+   * completion letter and has it accepted through the letters service, as the people would.
+   */
+  proof?: 'corrected' | 'letter-issued' | 'accepted';
 }
 
 const gfciKitchen: DemoItem = { code: 'gfci-missing', room: 'kitchen', location: 'kitchen counter right of range', quantity: 2, severity: 'safety', necRefs: ['210.8(A)', '406.4(D)(3)'] };
@@ -87,9 +93,9 @@ export const REQUESTS: DemoRequest[] = [
   { street: '33 Mill Street', city: 'Marlow Springs', zip: '80903', yearBuilt: 1958, closingInDays: 9, necEdition: 2023, path: upTo('approved'), buyerAgent: 'priya', listingAgent: 'rob', seller: 'tomas', inspector: 'nora', contractor: 'brightline', items: [openGround, doubleTap] },
   { street: '418 Wren Hollow', city: 'Marlow Springs', zip: '80903', yearBuilt: 1991, closingInDays: 6, necEdition: 2023, path: upTo('scheduled'), buyerAgent: 'maya', listingAgent: null, seller: 'june', inspector: 'nora', contractor: 'brightline', items: [gfciKitchen, weatherCover] },
   { street: '87 Tinsmith Way', city: 'Marlow Springs', zip: '80903', yearBuilt: 1969, closingInDays: 4, necEdition: 2023, path: upTo('in-progress'), buyerAgent: 'maya', listingAgent: 'rob', seller: 'ellen', inspector: 'nora', contractor: 'brightline', items: [gfciBath, junction, smoke] },
-  { street: '1502 Sawmill Ridge', city: 'Quarry Bend', zip: '80817', yearBuilt: 2011, closingInDays: 3, necEdition: 2020, path: upTo('corrected'), buyerAgent: 'priya', listingAgent: 'rob', seller: 'tomas', inspector: 'nora', contractor: 'brightline', items: [weatherCover] },
-  { street: '25 Lantern Square', city: 'Marlow Springs', zip: '80903', yearBuilt: 1999, closingInDays: 2, necEdition: 2023, path: upTo('letter-issued'), buyerAgent: 'maya', listingAgent: 'rob', seller: 'june', inspector: 'nora', contractor: 'brightline', items: [doubleTap, gfciKitchen] },
-  { street: '640 Bellweather Road', city: 'Marlow Springs', zip: '80903', yearBuilt: 1983, closingInDays: -5, necEdition: 2023, path: upTo('accepted'), buyerAgent: 'maya', listingAgent: null, seller: 'ellen', inspector: 'nora', contractor: 'brightline', items: [polarity] },
+  { street: '1502 Sawmill Ridge', city: 'Quarry Bend', zip: '80817', yearBuilt: 2011, closingInDays: 3, necEdition: 2020, path: upTo('scheduled'), proof: 'corrected', buyerAgent: 'priya', listingAgent: 'rob', seller: 'tomas', inspector: 'nora', contractor: 'brightline', items: [weatherCover] },
+  { street: '25 Lantern Square', city: 'Marlow Springs', zip: '80903', yearBuilt: 1999, closingInDays: 2, necEdition: 2023, path: upTo('scheduled'), proof: 'letter-issued', buyerAgent: 'maya', listingAgent: 'rob', seller: 'june', inspector: 'nora', contractor: 'brightline', items: [doubleTap, gfciKitchen] },
+  { street: '640 Bellweather Road', city: 'Marlow Springs', zip: '80903', yearBuilt: 1983, closingInDays: -5, necEdition: 2023, path: upTo('scheduled'), proof: 'accepted', buyerAgent: 'maya', listingAgent: null, seller: 'ellen', inspector: 'nora', contractor: 'brightline', items: [polarity] },
   { street: '12 Cobble Creek Lane', city: 'Marlow Springs', zip: '80903', yearBuilt: 1955, closingInDays: 30, necEdition: 2023, path: upTo('declined'), buyerAgent: 'priya', listingAgent: 'rob', seller: 'june', inspector: 'nora', contractor: 'brightline', items: [openGround] },
   { street: '301 Kestrel Point', city: 'Quarry Bend', zip: '80817', yearBuilt: 1979, closingInDays: 21, necEdition: 2020, path: [...upTo('intake'), 'withdraw'], buyerAgent: 'maya', listingAgent: null, seller: 'tomas', inspector: 'nora', contractor: 'copperleaf', items: [] },
   // Brightline's planned day (seeds/05_day_plan.ts books their visits for Sam Okafor on the next

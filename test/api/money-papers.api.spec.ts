@@ -12,6 +12,11 @@ import { seed as seedRateBooks } from '../../seeds/03_rate_books';
 import { seed as seedQuotes } from '../../seeds/04_quotes';
 import { seed as seedDayPlan } from '../../seeds/05_day_plan';
 import { seed as seedSiteVisits } from '../../seeds/05_site_visits';
+import { seed as seedProof } from '../../seeds/06_proof';
+import { createHash } from 'node:crypto';
+import request from 'supertest';
+import { loadConfig } from '../../server/src/config/config';
+import { LocalFileStorage } from '../../server/src/integrations/storage/local-file-storage';
 import { resetDatabase, signIn, type SignedIn } from '../helpers/fixtures';
 import { createPaymentsTestApp, newKey, payOnFakePage, quotedRequest, sign, signBody, write, type PaymentsTestApp } from '../helpers/payment-fixtures';
 import { createPricingCast, storeRateBook, type PricingCast, type StoredBook } from '../helpers/pricing-fixtures';
@@ -118,7 +123,7 @@ describe('the demo data', () => {
     saved = process.env.BCRYPT_ROUNDS;
     process.env.BCRYPT_ROUNDS = '4';
     await resetDatabase(t.db);
-    for (const seed of [seedPeople, seedRequests, seedRateBooks, seedQuotes, seedSiteVisits, seedDayPlan]) await seed(t.db);
+    for (const seed of [seedPeople, seedRequests, seedRateBooks, seedQuotes, seedSiteVisits, seedDayPlan, seedProof]) await seed(t.db);
   });
   afterAll(() => {
     if (saved === undefined) delete process.env.BCRYPT_ROUNDS;
@@ -149,5 +154,50 @@ describe('the demo data', () => {
     const decisions = await t.db('item_decisions').where({ request_id: declined.id });
     expect(decisions.length).toBeGreaterThan(0);
     expect(decisions.every((d: { decision: string }) => d.decision === 'declined')).toBe(true);
+  });
+
+  it('proves the finished demo work: each letter is a stored PDF that verifies by its code, the accepted one as accepted', async () => {
+    const storage = new LocalFileStorage(loadConfig(process.env).storageDir);
+    const letters: { request_id: number; verification_code: string; sha256: string; storage_key: string; status: string }[] = await t
+      .db('completion_letters as l')
+      .join('repair_requests as r', 'r.id', 'l.request_id')
+      .orderBy('l.request_id')
+      .select('l.request_id', 'l.verification_code', 'l.sha256', 'l.storage_key', 'r.status');
+    expect(letters.map((l) => l.status).sort()).toEqual(['accepted', 'letter-issued']);
+    for (const letter of letters) {
+      const pdf = await storage.get(letter.storage_key);
+      expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
+      expect(createHash('sha256').update(pdf).digest('hex')).toBe(letter.sha256);
+      const verified = await request(t.app).get(`/api/verify/${letter.verification_code}`).expect(200);
+      expect(verified.body).toMatchObject({ sha256: letter.sha256, isCurrent: true, isAccepted: letter.status === 'accepted' });
+    }
+    // Every approved item of a corrected (or later) request has its recorded correction.
+    const uncorrected = await t
+      .db('line_items as i')
+      .join('repair_requests as r', 'r.id', 'i.request_id')
+      .whereIn('r.status', ['corrected', 'letter-issued', 'accepted'])
+      .whereNotExists(t.db('item_corrections as c').whereRaw('c.line_item_id = i.id').select(t.db.raw('1')))
+      .whereIn('i.status', ['corrected', 'accepted'])
+      .count({ n: '*' });
+    expect(Number(uncorrected[0].n)).toBe(0);
+  });
+
+  it('gives the demo requests a history: each move in the Activity panel, credited to who made it, and the approvals in money', async () => {
+    const moves: { request_id: number; to_status: string; changed_by: number }[] = await t.db('request_status_changes').select('request_id', 'to_status', 'changed_by');
+    const entries: { request_id: number; actor_user_id: number; after: { status?: string } | null; kind: string }[] = await t
+      .db('activity_events')
+      .where({ kind: 'status' })
+      .select('request_id', 'actor_user_id', 'after', 'kind');
+    expect(moves.length).toBeGreaterThan(50);
+    // One timeline entry per status change, by the same person.
+    const key = (r: number, to: string | undefined, by: number) => `${r}|${to}|${by}`;
+    expect(entries.map((e) => key(e.request_id, e.after?.status, e.actor_user_id)).sort()).toEqual(moves.map((m) => key(m.request_id, m.to_status, m.changed_by)).sort());
+    // The approvals' timeline entries carry the signed amounts the contractor's dashboard sums by month.
+    const signed = await t.db('quote_approvals').sum({ cents: 'approved_total_cents' });
+    const decided = await t.db('activity_events').where({ action: 'items-decided' }).sum({ cents: 'amount_cents' });
+    expect(Number(decided[0].cents)).toBe(Number(signed[0].cents));
+    expect(Number(signed[0].cents)).toBeGreaterThan(0);
+    // Old news is not e-mailed again when the server starts.
+    expect(await t.db('outbox_messages').whereIn('status', ['pending', 'held']).count({ n: '*' })).toEqual([{ n: '0' }]);
   });
 });

@@ -13,6 +13,8 @@ export interface NewActivity {
   before?: ActivityValues | null;
   after?: ActivityValues | null;
   amountCents?: number | null;
+  /** When it happened: now, unless demo data backdates its history. */
+  at?: Date;
 }
 
 interface ActivityRow {
@@ -59,6 +61,7 @@ export class ActivityRepository {
         before: e.before ? JSON.stringify(e.before) : null,
         after: e.after ? JSON.stringify(e.after) : null,
         amount_cents: e.amountCents ?? null,
+        ...(e.at ? { created_at: e.at } : {}),
       })),
     );
   }

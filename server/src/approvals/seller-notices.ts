@@ -7,6 +7,8 @@ export interface SellerNoticeEvent {
   requestId: number;
   /** Who did it (user id; null for the payment service). */
   by: number | null;
+  /** When it happened: now, unless demo data backdates its history. */
+  at?: Date;
 }
 
 export interface SellerNotices {

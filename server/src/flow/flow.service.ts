@@ -38,6 +38,8 @@ export interface RequestMoveMade {
   byUserId: number | null;
   actor: FlowActor;
   note: string | null;
+  /** When it was made: now, unless demo data backdates its history. */
+  at?: Date;
 }
 
 export interface ItemMoveMade {
@@ -48,6 +50,7 @@ export interface ItemMoveMade {
   to: ItemStatus;
   byUserId: number | null;
   actor: FlowActor;
+  at?: Date;
 }
 
 /**
@@ -112,7 +115,7 @@ export class FlowService {
     if (refusal) refuse(refusal, messages);
     const move = requestMove('open', null)!;
     const requestId = await create(move.to);
-    await this.record(trx, { requestId, move, from: null, to: move.to, byUserId: mover.userId, actor: actingAs(mover.actors, move.by), note }, mover.at);
+    await this.record(trx, { requestId, move, from: null, to: move.to, byUserId: mover.userId, actor: actingAs(mover.actors, move.by), note, at: mover.at });
     return requestId;
   }
 
@@ -126,14 +129,14 @@ export class FlowService {
     const refusal = requestMoveRefusal(mover.actors, event, from);
     if (refusal) refuse(refusal, messages);
     const move = requestMove(event, from)!;
-    const made: RequestMoveMade = { requestId, move, from, to: move.to, byUserId: mover.userId, actor: actingAs(mover.actors, move.by), note };
-    await this.record(trx, made, mover.at);
+    const made: RequestMoveMade = { requestId, move, from, to: move.to, byUserId: mover.userId, actor: actingAs(mover.actors, move.by), note, at: mover.at };
+    await this.record(trx, made);
     return made;
   }
 
-  private async record(trx: Trx, made: RequestMoveMade, at: Date | undefined): Promise<void> {
+  private async record(trx: Trx, made: RequestMoveMade): Promise<void> {
     if (made.from !== made.to) {
-      const moved = await this.requests.changeStatus(made.requestId, { from: made.from, to: made.to, by: made.byUserId, actor: made.actor, note: made.note, at }, trx);
+      const moved = await this.requests.changeStatus(made.requestId, { from: made.from, to: made.to, by: made.byUserId, actor: made.actor, note: made.note, at: made.at }, trx);
       if (!moved) throw new ConflictError('The request changed meanwhile. Reload and try again.');
     }
     for (const listener of this.listeners) await listener.requestMoved?.(trx, made);
@@ -147,7 +150,7 @@ export class FlowService {
     const ids = await this.items.insert(items.map((i) => ({ ...i, status: move.to })), trx);
     const actor = actingAs(mover.actors, move.by);
     for (const [index, itemId] of ids.entries()) {
-      for (const listener of this.listeners) await listener.itemMoved?.(trx, { requestId: items[index].requestId, itemId, move, from: null, to: move.to, byUserId: mover.userId, actor });
+      for (const listener of this.listeners) await listener.itemMoved?.(trx, { requestId: items[index].requestId, itemId, move, from: null, to: move.to, byUserId: mover.userId, actor, at: mover.at });
     }
     return ids;
   }
@@ -168,7 +171,7 @@ export class FlowService {
     if (refusal) refuse(refusal, messages);
     const move = itemMove(event, item.status)!;
     if (!(await this.items.update(item.id, item.version, { ...changes, status: move.to }, trx))) throw new ConflictError(messages.stale);
-    const made: ItemMoveMade = { requestId: item.requestId, itemId: item.id, move, from: item.status, to: move.to, byUserId: mover.userId, actor: actingAs(mover.actors, move.by) };
+    const made: ItemMoveMade = { requestId: item.requestId, itemId: item.id, move, from: item.status, to: move.to, byUserId: mover.userId, actor: actingAs(mover.actors, move.by), at: mover.at };
     for (const listener of this.listeners) await listener.itemMoved?.(trx, made);
     return made;
   }

@@ -9,7 +9,7 @@ import type { NotificationsService } from './notifications.service';
 export function createFlowListener(activity: ActivityRepository, notifications: NotificationsService): FlowListener {
   return {
     async requestMoved(trx: Trx, made: RequestMoveMade): Promise<void> {
-      const { requestId, move, from, to, byUserId, note } = made;
+      const { requestId, move, from, to, byUserId, note, at } = made;
       if (from !== to) {
         await activity.record(trx, {
           requestId,
@@ -19,16 +19,17 @@ export function createFlowListener(activity: ActivityRepository, notifications: 
           summary: `${move.label}: ${from ? `${REQUEST_STATUS_LABELS[from]} → ` : ''}${REQUEST_STATUS_LABELS[to]}${note ? ` (${note})` : ''}`,
           before: from ? { status: from } : null,
           after: { status: to },
+          at,
         });
       }
       if (move.event === 'confirm-items') {
         // The items being confirmed (whether the flow moves them before or after the request).
         const [{ count }] = await trx('line_items').where({ request_id: requestId }).whereIn('status', ['proposed', 'open']).count({ count: '*' });
-        await notifications.notify(trx, { kind: 'ready-to-price', requestId, actorUserId: byUserId, itemCount: Number(count) });
+        await notifications.notify(trx, { kind: 'ready-to-price', requestId, actorUserId: byUserId, itemCount: Number(count), at });
       }
       if (move.event === 'send-quote') {
         const quote = await trx('quotes').where({ request_id: requestId }).orderBy('version', 'desc').first('version', 'total_cents');
-        if (quote) await notifications.notify(trx, { kind: 'quote-sent', requestId, actorUserId: byUserId, version: quote.version, totalCents: quote.total_cents });
+        if (quote) await notifications.notify(trx, { kind: 'quote-sent', requestId, actorUserId: byUserId, version: quote.version, totalCents: quote.total_cents, at });
       }
     },
 
@@ -45,6 +46,7 @@ export function createFlowListener(activity: ActivityRepository, notifications: 
         summary: `${made.move.label}: ${(item && findingCodeInfo(item.code as FindingCode)?.label) ?? `item #${made.itemId}`}`,
         before: made.from ? { status: made.from } : null,
         after: { status: made.to },
+        at: made.at,
       });
     },
   };

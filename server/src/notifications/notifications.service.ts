@@ -130,6 +130,7 @@ export class NotificationsService {
         summary: `${words.subject.replace(`${facts.reference}: `, '')}${told.length ? ` — e-mailed to ${told.join(', ')}` : ''}`,
         after: { emailedTo: told },
         amountCents: amountOf(input),
+        at: input.at,
       };
       await this.activity.record(trx, entry);
     }

@@ -6,6 +6,8 @@ interface Base {
   requestId: number;
   /** Who made the change (not e-mailed about their own action); null for the system. */
   actorUserId: number | null;
+  /** When it happened (the activity entry's time): now, unless demo data backdates its history. */
+  at?: Date;
 }
 
 export type NotifyInput =

@@ -10,7 +10,7 @@ export function sellerNoticesByMail(notifications: NotificationsService): Seller
   const changeOrder = async (trx: Trx, id: number) =>
     (await trx('change_orders').where({ id }).first('number', 'price_cents', 'reason')) as { number: number; price_cents: number; reason: string };
   return {
-    async quoteDecided(trx, { requestId, by, approvalId }) {
+    async quoteDecided(trx, { requestId, by, approvalId, at }) {
       const approval = await trx('quote_approvals').where({ id: approvalId }).first('approved_total_cents');
       const counts: { decision: string; n: string }[] = await trx('item_decisions').where({ approval_id: approvalId }).groupBy('decision').select('decision', trx.raw('count(*) AS n'));
       const count = (decision: string) => Number(counts.find((c) => c.decision === decision)?.n ?? 0);
@@ -22,10 +22,11 @@ export function sellerNoticesByMail(notifications: NotificationsService): Seller
         declinedCount: count('declined'),
         approvedCents: approval.approved_total_cents,
         decisionRef: `approval-${approvalId}`,
+        at,
       });
     },
 
-    async paymentReceived(trx, { requestId, by, paymentId, receiptInvoiceId }) {
+    async paymentReceived(trx, { requestId, by, paymentId, receiptInvoiceId, at }) {
       const payment = await trx('payments').where({ id: paymentId }).first('amount_cents');
       const receipt: { series: InvoiceSeries; number: number } | undefined = receiptInvoiceId === null ? undefined : await trx('invoices').where({ id: receiptInvoiceId }).first('series', 'number');
       await notifications.notify(trx, {
@@ -35,6 +36,7 @@ export function sellerNoticesByMail(notifications: NotificationsService): Seller
         paymentId,
         amountCents: payment.amount_cents,
         receiptNumber: receipt ? invoiceNumber(receipt.series, receipt.number) : null,
+        at,
       });
     },
 
