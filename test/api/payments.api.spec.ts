@@ -55,6 +55,17 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
+describe('the payment page sends the seller back', () => {
+  it('to the portal address the payment was started from, and never to another host named in the Origin header', async () => {
+    const { requestId } = await signedRequest();
+    const publicUrl = 'http://portal.test'; // PUBLIC_URL of the test app (test/helpers/test-app.ts)
+    const forged = (await startPayment(requestId, { plan: 'card-deposit', idempotencyKey: newKey() }).set('Origin', 'http://elsewhere.test').expect(201)).body as StartedPayment;
+    const page = await payOnFakePage(forged.checkoutUrl!, PAID_CARD);
+    expect(page.status).toBe(303);
+    expect(page.location).toBe(`${publicUrl}/requests/${requestId}/approval?payment=${forged.payment.id}`);
+  });
+});
+
 describe('POST /api/requests/:id/approval', () => {
   it('refuses a decline note longer than 500 characters with its field path, and stores nothing (never a cut note)', async () => {
     const { requestId, itemIds } = await quotedRequest(cast, t, book, [GFCI, PLATE]);

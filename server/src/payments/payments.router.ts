@@ -12,7 +12,7 @@ export function createPaymentsRouter({ services }: RouterDeps): Router {
 
   /** Starts a card payment (answers with the payment page to go to) or an invoice payable at closing. */
   router.post('/', async (req, res) => {
-    res.status(201).json(await payments.start(userOf(req), idParam(req), StartPaymentSchema.parse(req.body ?? {})));
+    res.status(201).json(await payments.start(userOf(req), idParam(req), StartPaymentSchema.parse(req.body ?? {}), req.get('origin')));
   });
 
   router.post('/funds', async (req, res) => {

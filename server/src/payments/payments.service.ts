@@ -1,3 +1,4 @@
+import { portalBaseFor } from '../http/portal-origin';
 import { actorsOnRequest, amountDue, paymentAccount, requestReference, type CreateRefund, type CurrentUser, type RecordFunds, type StartedPayment, type StartPaymentParsed } from '@cc/shared';
 import type Stripe from 'stripe';
 import type { Db, Trx } from '../db/knex';
@@ -41,7 +42,8 @@ export class PaymentsService {
     private readonly publicUrl: string,
   ) {}
 
-  async start(user: CurrentUser, requestId: number, input: StartPaymentParsed): Promise<StartedPayment> {
+  /** `origin`: the Origin header of the request, so the payment page sends the seller back to the address they use. */
+  async start(user: CurrentUser, requestId: number, input: StartPaymentParsed, origin?: string): Promise<StartedPayment> {
     const request = await this.access.get(user, requestId);
     assertMayAct(actorsOnRequest(user, request), 'pay', request.status, refusalMessages('pay for the work', request.status));
     if (input.plan !== 'at-closing' && !this.gateway) throw new ConflictError('Card payments are not set up on this server. Choose payment at closing.');
@@ -67,14 +69,14 @@ export class PaymentsService {
       const invoice = await this.invoices.issueClosingInvoice(requestId, payment, input.escrow, user.id, trx);
       return { payment, invoiceNumber: invoiceNumber(invoice.series, invoice.number), isNew: true };
     });
-    const payment = result.payment.method === 'card' ? await this.checkoutFor(result.payment, user) : result.payment;
+    const payment = result.payment.method === 'card' ? await this.checkoutFor(result.payment, user, portalBaseFor(this.publicUrl, origin)) : result.payment;
     return { payment: toPaymentDtos([payment], [], true)[0], checkoutUrl: payment.method === 'card' ? payment.checkoutUrl : null, invoiceNumber: result.invoiceNumber };
   }
 
   /** The payment page of a card payment: made once; asking again (same idempotency key) gives the same page. */
-  private async checkoutFor(payment: StoredPayment, user: CurrentUser): Promise<StoredPayment> {
+  private async checkoutFor(payment: StoredPayment, user: CurrentUser, portalBase: string): Promise<StoredPayment> {
     if (payment.checkoutUrl || payment.status !== 'pending') return payment;
-    const back = `${this.publicUrl}/requests/${payment.requestId}/approval`;
+    const back = `${portalBase}/requests/${payment.requestId}/approval`;
     try {
       const session = await this.gateway!.createCheckout({
         paymentId: payment.id,
