@@ -217,10 +217,17 @@ export class RequestRepository {
       .joinRaw('LEFT JOIN page_ids ON true')
       // Row by row through the primary key whatever the page size (OFFSET 0 keeps it a nested loop,
       // also in a plan made once for any page).
-      .joinRaw(`LEFT JOIN LATERAL (SELECT ${SUMMARY_COLUMNS.join(', ')}, contractor_organisation_id FROM repair_requests WHERE id = page_ids.id OFFSET 0) AS r ON true`)
-      .leftJoin('organisations as o', 'o.id', 'r.contractor_organisation_id');
+      .joinRaw(`LEFT JOIN LATERAL (SELECT ${SUMMARY_COLUMNS.join(', ')}, contractor_organisation_id FROM repair_requests WHERE id = page_ids.id OFFSET 0) AS r ON true`);
     return joinItemCounts(db, page)
-      .select('counted.n', 'page_ids.ord', ...SUMMARY_COLUMNS.map((c) => `r.${c}`), 'o.name as contractor_name', 'ic.item_count', 'ic.open_work_count')
+      .select(
+        'counted.n',
+        'page_ids.ord',
+        ...SUMMARY_COLUMNS.map((c) => `r.${c}`),
+        // The contractor's name by its key, row by row (a join here was planned as a hash of every organisation per row).
+        db.raw('(SELECT o.name FROM organisations o WHERE o.id = r.contractor_organisation_id) AS contractor_name'),
+        'ic.item_count',
+        'ic.open_work_count',
+      )
       .orderBy('page_ids.ord');
   }
 
