@@ -89,7 +89,8 @@ export function createServices(db: Db, config: Config, readPool: pg.Pool | null 
   const siteVisits = new SiteVisitRepository(db);
   const corrections = new CorrectionRepository(db);
   const letterRecords = new LetterRepository(db);
-  const visits = new VisitsService(db, requestsService, flow, siteVisits, workItems, proofMessages);
+  const dayPlans = new DayPlanRepository(db);
+  const visits = new VisitsService(db, requestsService, flow, siteVisits, workItems, proofMessages, (organisationId) => dayPlans.timeZone(organisationId));
   const letters = new LettersService(db, requestsService, flow, organisations, workItems, corrections, letterRecords, storage, proofMessages, config.publicUrl);
   return {
     repositories: { users, organisations, requests, items, reports, activity },
@@ -115,7 +116,7 @@ export function createServices(db: Db, config: Config, readPool: pg.Pool | null 
     quotes: quotesService,
     sellerSide: createSellerSideServices(db, config, { requests: requestsService, quotes: quotesService, requestRows: requests, quoteRows: quotes, flow }, sellerNoticesByMail(notifications)),
     visits,
-    dayPlan: new DayPlanService(db, new DayPlanRepository(db), siteVisits, requestsService, visits, proofMessages, config.publicUrl),
+    dayPlan: new DayPlanService(db, dayPlans, siteVisits, requestsService, visits, proofMessages, config.publicUrl),
     corrections: new CorrectionsService(db, requestsService, flow, workItems, siteVisits, corrections, storage, proofMessages),
     letters,
     work: new WorkService(requestsService, workItems, siteVisits, corrections, letterRecords, letters, config.atRiskBusinessDays),

@@ -74,6 +74,7 @@ export * from './dashboards/dashboard.schema';
 export * from './dashboards/dashboard-rules';
 export * from './geo/great-circle';
 export * from './geo/route-order';
+export * from './geo/time-zones';
 export * from './day-plan/day-plan.schema';
 export * from './day-plan/day-schedule';
 export * from './day-plan/window-order';

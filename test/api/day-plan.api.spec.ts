@@ -132,6 +132,40 @@ describe('settings', () => {
   });
 });
 
+describe('time zone', () => {
+  it('is the shop state’s until one is chosen, refuses a name that is not a time zone, and books today only from a time to come', async () => {
+    const defaults = await saveSettings();
+    // CO → America/Denver (IANA tz database zone.tab; common practice for the state's zone).
+    expect(defaults).toMatchObject({ timeZone: null, effectiveTimeZone: 'America/Denver' });
+    const chosen = await saveSettings({ timeZone: 'Pacific/Honolulu' });
+    expect(chosen).toMatchObject({ timeZone: 'Pacific/Honolulu', effectiveTimeZone: 'Pacific/Honolulu' });
+    for (const timeZone of ['Mars/Olympus_Mons', 'America/Denver\u0000', 'x'.repeat(65)]) {
+      const current: DayPlanSettings = (await cast.s.contractor.agent.get('/api/day-plan/settings').expect(200)).body;
+      const res = await write(cast.s.contractor, 'put', '/api/day-plan/settings').send(settingsBody({ version: current.version, timeZone }));
+      expect(res.status).toBe(400);
+      expect(res.body.details.map((d: { path: string }) => d.path)).toContain('timeZone');
+    }
+    // Today in Honolulu (UTC-10 all year, IANA tz database): a window that started an hour ago is refused
+    // on its time; one tomorrow is booked. (At 00:xx there is no earlier hour today: then only the date is checked.)
+    const now = new Date(Date.now() - 10 * 3_600_000);
+    const today = now.toISOString().slice(0, 10);
+    const { requestId } = await approvedJob('80909', '3 Clock Lane');
+    const hourAgo = `${String(Math.max(now.getUTCHours() - 1, 0)).padStart(2, '0')}:00`;
+    if (now.getUTCHours() >= 1) {
+      const past = await write(cast.s.contractor, 'post', `/api/requests/${requestId}/visits`).send({ date: today, arrivalFrom: hourAgo, arrivalTo: '23:30', electricianId: cast.users.contractor.id, accessNotes: '' });
+      expect(past.status).toBe(400);
+      expect(past.body.details).toEqual([expect.objectContaining({ path: 'arrivalFrom', message: expect.stringContaining('Pacific/Honolulu') })]);
+    }
+    const yesterday = new Date(now.getTime() - 86_400_000).toISOString().slice(0, 10);
+    const before = await write(cast.s.contractor, 'post', `/api/requests/${requestId}/visits`).send({ date: yesterday, arrivalFrom: '09:00', arrivalTo: '10:00', electricianId: cast.users.contractor.id, accessNotes: '' });
+    expect(before.status).toBe(400);
+    expect(before.body.details.map((d: { path: string }) => d.path)).toEqual(['date']);
+    const tomorrow = new Date(now.getTime() + 86_400_000).toISOString().slice(0, 10);
+    await bookVisit(requestId, tomorrow, cast.users.contractor.id, '09:00', '10:00');
+    await saveSettings();
+  });
+});
+
 describe('GET /api/day-plan', () => {
   const date = inDays(5);
   const visitIds: number[] = [];
@@ -262,17 +296,17 @@ describe('suggestions and booking one', () => {
 describe('booking on a past day', () => {
   it('suggests nothing for a past day and refuses to book one, from the day plan and the booking form alike, with the field', async () => {
     const { requestId } = await approvedJob('80910', '9 Yesterday Lane');
-    const past = inDays(-1);
+    const past = inDays(-2); // past in every zone (the organisation's today may still be UTC's yesterday)
     const earlier = await plan(past, cast.users.colleague.id);
     expect(earlier.suggestions).toEqual([]);
     // The same job is suggested for a day ahead, so the empty list above is the past date's doing.
     expect((await plan(inDays(9), cast.users.colleague.id)).suggestions.some((s) => s.requestId === requestId)).toBe(true);
     const fromPlan = await write(cast.s.contractor, 'post', '/api/day-plan/book').send({ requestId, date: past, electricianId: cast.users.colleague.id });
     expect(fromPlan.status).toBe(400);
-    expect(fromPlan.body.details).toEqual([{ path: 'date', message: 'Choose today or a later day' }]);
+    expect(fromPlan.body.details).toEqual([{ path: 'date', message: expect.stringMatching(/^Choose today \(\d{4}-\d\d-\d\d in America\/Denver\) or a later day$/) }]);
     const fromForm = await write(cast.s.contractor, 'post', `/api/requests/${requestId}/visits`).send({ date: past, arrivalFrom: '08:00', arrivalTo: '10:00', electricianId: cast.users.colleague.id });
     expect(fromForm.status).toBe(400);
-    expect(fromForm.body.details).toEqual([{ path: 'date', message: 'Choose today or a later day' }]);
+    expect(fromForm.body.details).toEqual([{ path: 'date', message: expect.stringMatching(/^Choose today \(\d{4}-\d\d-\d\d in America\/Denver\) or a later day$/) }]);
     expect(await t.db('site_visits').where({ request_id: requestId }).count('id as n').first()).toEqual({ n: '0' });
   });
 });
@@ -324,17 +358,21 @@ describe('POST /api/day-plan/visits/:visitId/move', () => {
 });
 
 describe('calendar files and feeds', () => {
-  it('exports one visit as an event with its arrival window and address, without the access notes', async () => {
+  it('exports one visit as an event with its arrival window in UTC, its address, and without the access notes', async () => {
+    // America/Phoenix keeps UTC-7 all year (IANA tz database; Arizona observes no daylight time), so
+    // 08:30-10:30 there is 15:30-17:30 UTC whatever the date; RFC 5545 §3.3.5 writes UTC times with "Z".
+    await saveSettings({ timeZone: 'America/Phoenix' });
     const date = inDays(15);
     const { requestId } = await approvedJob('80909', '12 Calendar Court');
     const visitId = await bookVisit(requestId, date, cast.users.contractor.id, '08:30', '10:30');
     const res = await cast.s.contractor.agent.get(`/api/day-plan/visits/${visitId}.ics`).expect(200);
+    await saveSettings();
     expect(res.headers['content-type']).toMatch(/^text\/calendar/);
     const text = res.text;
     const compact = date.replaceAll('-', '');
     expect(text).toContain('BEGIN:VEVENT');
-    expect(text).toMatch(new RegExp(`DTSTART:${compact}T083000\\r?\\n`));
-    expect(text).toMatch(new RegExp(`DTEND:${compact}T103000\\r?\\n`));
+    expect(text).toMatch(new RegExp(`DTSTART:${compact}T153000Z\\r?\\n`));
+    expect(text).toMatch(new RegExp(`DTEND:${compact}T173000Z\\r?\\n`));
     expect(text).toContain('12 Calendar Court');
     expect(text).not.toContain('Lockbox');
   });

@@ -136,7 +136,21 @@ describe('day plan', () => {
     await page.getByTestId('settings-speed').fill('32');
     await page.getByTestId('settings-save').click();
     await page.getByText('Settings saved').waitFor();
+    // The time zone: the shop's state (CO → America/Denver, IANA tz database) until one is chosen.
+    await page.getByTestId('settings-time-zone').click();
+    await page.getByRole('option', { name: "From the shop's state (America/Denver)" }).waitFor();
+    await page.getByRole('option', { name: 'America/Phoenix', exact: true }).click();
+    await page.getByTestId('settings-save').click();
+    await page.getByText('Settings saved').waitFor();
+    await page.reload();
+    await page.getByTestId('day-plan-settings-heading').waitFor();
+    expect(await page.getByTestId('settings-time-zone').textContent()).toContain('America/Phoenix');
     await screenshot(page, 'day-plan-settings-desktop');
+    // Back to the state's zone, as the other tests expect.
+    await page.getByTestId('settings-time-zone').click();
+    await page.getByRole('option', { name: "From the shop's state (America/Denver)" }).click();
+    await page.getByTestId('settings-save').click();
+    await page.getByText('Settings saved').last().waitFor();
     await page.close();
   });
 });

@@ -1,4 +1,4 @@
-import { DEFAULT_DAY_PLAN_SETTINGS, type SiteVisitStatus, type UsState } from '@cc/shared';
+import { DEFAULT_DAY_PLAN_SETTINGS, effectiveTimeZone, type SiteVisitStatus, type UsState } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
 
 /** The organisation's planning settings as stored (defaults filled in until saved). */
@@ -12,6 +12,8 @@ export interface StoredDayPlanSettings {
   lunchStart: string;
   lunchMinutes: number;
   shop: { street: string; city: string; state: UsState; zip: string; latitude: number | null; longitude: number | null };
+  /** The time zone chosen (IANA name); null: the shop's state's. */
+  timeZone: string | null;
   /** 0 until saved. */
   version: number;
 }
@@ -62,6 +64,7 @@ interface SettingsRow {
   shop_street: string;
   shop_city: string;
   shop_state: string;
+  time_zone: string | null;
   shop_zip: string;
   shop_latitude: number | null;
   shop_longitude: number | null;
@@ -108,7 +111,7 @@ export class DayPlanRepository {
     const row: SettingsRow | undefined = await (trx ?? this.db)('day_plan_settings').where({ organisation_id: organisationId }).first();
     if (!row) {
       const org = await (trx ?? this.db)('organisations').where({ id: organisationId }).first('address');
-      return { ...DEFAULT_DAY_PLAN_SETTINGS, shop: shopFromAddress(org?.address ?? null), version: 0 };
+      return { ...DEFAULT_DAY_PLAN_SETTINGS, shop: shopFromAddress(org?.address ?? null), timeZone: null, version: 0 };
     }
     return {
       roadFactorPercent: row.road_factor_percent,
@@ -120,8 +123,15 @@ export class DayPlanRepository {
       lunchStart: row.lunch_start,
       lunchMinutes: row.lunch_minutes,
       shop: { street: row.shop_street, city: row.shop_city, state: row.shop_state as UsState, zip: row.shop_zip, latitude: row.shop_latitude, longitude: row.shop_longitude },
+      timeZone: row.time_zone,
       version: row.version,
     };
+  }
+
+  /** The organisation's time zone in use: the one chosen in the settings, else the shop's state's. */
+  async timeZone(organisationId: number, trx?: Trx): Promise<string> {
+    const settings = await this.settings(organisationId, trx);
+    return effectiveTimeZone(settings.timeZone, settings.shop.state);
   }
 
   /** Saves the settings when `version` is the stored one (0: none saved yet); false when it is not. */
@@ -141,6 +151,7 @@ export class DayPlanRepository {
       shop_zip: s.shop.zip,
       shop_latitude: s.shop.latitude,
       shop_longitude: s.shop.longitude,
+      time_zone: s.timeZone,
       updated_by: by,
       updated_at: new Date(),
     };

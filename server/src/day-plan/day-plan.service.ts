@@ -1,6 +1,8 @@
 import { createHash, randomBytes } from 'node:crypto';
 import {
+  addDays,
   clockOf,
+  effectiveTimeZone,
   driveMinutes,
   minutesOfDay,
   USUAL_MAX_DRIVE_MINUTES,
@@ -21,7 +23,7 @@ import { inTransaction } from '../db/transaction';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../errors';
 import type { RequestsService } from '../requests/requests.service';
 import type { SiteVisitRepository } from '../visits/site-visit.repository';
-import { assertDateInRange, todayUtc, type VisitsService } from '../visits/visits.service';
+import { assertBookable, todayIn, type VisitsService } from '../visits/visits.service';
 import type { ProofMessages } from '../work/proof-messages';
 import { assertMayAct, requestWithActors } from '../work/request-actors';
 import { visitsCalendar } from './calendar';
@@ -34,7 +36,6 @@ const SUGGESTED_WINDOW_MINUTES = 120;
 const FEED_DAYS_BACK = 30;
 const FEED_DAYS_AHEAD = 366;
 
-const addDays = (date: string, days: number) => new Date(Date.parse(`${date}T00:00:00Z`) + days * 86_400_000).toISOString().slice(0, 10);
 const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
 
 /** The office side of planning days: the plan, the week, moving visits, settings, locations and calendars. */
@@ -68,7 +69,7 @@ export class DayPlanService {
 
   async settings(user: CurrentUser): Promise<DayPlanSettings> {
     const settings = await this.plans.settings(this.organisationOf(user));
-    return { ...settings, isShopLocated: shopPlace(settings) !== null };
+    return { ...settings, isShopLocated: shopPlace(settings) !== null, effectiveTimeZone: effectiveTimeZone(settings.timeZone, settings.shop.state) };
   }
 
   async saveSettings(user: CurrentUser, input: z.output<typeof UpdateDayPlanSettingsSchema>): Promise<DayPlanSettings> {
@@ -92,8 +93,8 @@ export class DayPlanService {
    */
   private async suggestions(organisationId: number, plan: DayPlan): Promise<DayPlanSuggestion[]> {
     // Nothing can be booked on a past day (the booking rule), so nothing is suggested for one.
-    if (plan.overflowMinutes > 0 || plan.date < todayUtc()) return [];
     const settings = await this.plans.settings(organisationId);
+    if (plan.overflowMinutes > 0 || plan.date < todayIn(effectiveTimeZone(settings.timeZone, settings.shop.state))) return [];
     const shop = shopPlace(settings);
     if (!shop) return [];
     const visits = await this.plans.visits(organisationId, plan.date, plan.date, plan.electrician.id);
@@ -138,7 +139,7 @@ export class DayPlanService {
     const organisationId = this.organisationOf(user);
     await this.electricianOf(organisationId, input.electricianId);
     if (!(await this.plans.isRequestOf(organisationId, input.requestId))) throw new NotFoundError('No such request');
-    assertDateInRange(input.date);
+    assertBookable(input, await this.plans.timeZone(organisationId));
     const plan = await planDay(this.db, organisationId, input.electricianId, input.date);
     const job = (await this.plans.unscheduledJobs(organisationId)).find((j) => j.requestId === input.requestId);
     if (!job) throw new ConflictError('This job has no approved items waiting for a visit any more.');
@@ -181,8 +182,8 @@ export class DayPlanService {
     if (!(await this.plans.electricians(organisationId)).some((e) => e.id === input.electricianId)) {
       throw new ValidationError('Choose one of your electricians', [{ path: 'electricianId', message: 'Choose a person of your organisation' }]);
     }
-    assertDateInRange(input.date);
     const window = { arrivalFrom: input.arrivalFrom ?? visit.arrivalFrom, arrivalTo: input.arrivalTo ?? visit.arrivalTo };
+    assertBookable({ date: input.date, arrivalFrom: window.arrivalFrom }, await this.plans.timeZone(organisationId));
     if (window.arrivalTo <= window.arrivalFrom) throw new ValidationError('The window ends after it starts', [{ path: 'arrivalTo', message: 'The window ends after it starts' }]);
     await inTransaction(this.db, async (trx) => {
       const locked = await this.plans.findVisit(organisationId, visitId, trx);
@@ -216,7 +217,7 @@ export class DayPlanService {
     const electrician = await this.electricianOf(organisationId, visit.electricianId);
     const record = (await this.plans.visits(organisationId, visit.date, visit.date, visit.electricianId)).find((v) => v.visitId === visitId);
     if (!record) throw new NotFoundError('No such site visit');
-    return visitsCalendar([record], () => electrician.name);
+    return visitsCalendar([record], () => electrician.name, await this.plans.timeZone(organisationId));
   }
 
   /** A new secret feed address for an electrician's visits; the previous one stops working. */
@@ -233,9 +234,10 @@ export class DayPlanService {
     if (!/^[A-Za-z0-9_-]{32}$/.test(token)) throw new NotFoundError('No such calendar');
     const owner = await this.plans.feedOwner(hashToken(token));
     if (!owner) throw new NotFoundError('No such calendar');
-    const today = new Date().toISOString().slice(0, 10);
+    const zone = await this.plans.timeZone(owner.organisationId);
+    const today = todayIn(zone);
     const visits = await this.plans.visits(owner.organisationId, addDays(today, -FEED_DAYS_BACK), addDays(today, FEED_DAYS_AHEAD), owner.id);
-    return visitsCalendar(visits, () => owner.name, `Site visits · ${owner.name}`);
+    return visitsCalendar(visits, () => owner.name, zone, `Site visits · ${owner.name}`);
   }
 }
 

@@ -1,4 +1,4 @@
-import { mayAct, type CurrentUser, type Electrician, type FlowActor, type RequestStatus, type SiteVisit, BookSiteVisitSchema } from '@cc/shared';
+import { addDays, mayAct, wallClock, type CurrentUser, type Electrician, type FlowActor, type RequestStatus, type SiteVisit, BookSiteVisitSchema } from '@cc/shared';
 import type { z } from 'zod';
 import type { Db } from '../db/knex';
 import type { FlowService } from '../flow/flow.service';
@@ -21,6 +21,8 @@ export class VisitsService {
     private readonly visits: SiteVisitRepository,
     private readonly items: WorkItemRepository,
     private readonly messages: ProofMessages,
+    /** The time zone an organisation books in (its day-plan settings). */
+    private readonly timeZoneOf: (organisationId: number) => Promise<string>,
   ) {}
 
   /** The electricians of the assigned contractor (who can be sent on a visit). */
@@ -33,7 +35,7 @@ export class VisitsService {
   async book(user: CurrentUser, requestId: number, input: z.output<typeof BookSiteVisitSchema>): Promise<SiteVisit> {
     const { request, actors } = await requestWithActors(this.access, user, requestId);
     assertMayAct(actors, 'book-visit', request.status, 'Booking a visit');
-    assertDateInRange(input.date);
+    assertBookable(input, await this.timeZoneOf(request.contractor!.id));
     const electricians = await this.visits.electricians(request.contractor!.id);
     if (!electricians.some((e) => e.id === input.electricianId)) {
       throw new ValidationError('Choose one of your electricians', [{ path: 'electricianId', message: 'Choose a person of your organisation' }]);
@@ -109,14 +111,20 @@ function itemsToPlan(items: readonly WorkItemRecord[], quotedVisitKey: string | 
   return open.filter((i) => i.quotedVisitKey === quotedVisitKey);
 }
 
-/** Today's date, YYYY-MM-DD, in UTC (the product keeps no organisation time zone yet). */
-export const todayUtc = (): string => new Date().toISOString().slice(0, 10);
+/** Today's date (YYYY-MM-DD) on the wall clock of `zone`. */
+export const todayIn = (zone: string, now = Date.now()): string => wallClock(zone, now).date;
 
-/** The one booking rule for a visit's date (booking form, day-plan suggestions, moves): from today to a year ahead. */
-export function assertDateInRange(date: string): void {
-  const latest = new Date(Date.now() + MAX_DAYS_AHEAD * 86_400_000).toISOString().slice(0, 10);
-  if (date < todayUtc()) throw new ValidationError('Choose today or a later day', [{ path: 'date', message: 'Choose today or a later day' }]);
-  if (date > latest) throw new ValidationError('Choose a date at most a year ahead', [{ path: 'date', message: 'Choose a date at most a year ahead' }]);
+/**
+ * The one booking rule for a visit (booking form, day-plan suggestions, moves), in the organisation's
+ * time zone: from today to a year ahead, and today only from a time still to come.
+ */
+export function assertBookable(visit: { date: string; arrivalFrom?: string | null }, zone: string, now = Date.now()): void {
+  const here = wallClock(zone, now);
+  if (visit.date < here.date) throw new ValidationError('Choose today or a later day', [{ path: 'date', message: `Choose today (${here.date} in ${zone}) or a later day` }]);
+  if (visit.date > addDays(here.date, MAX_DAYS_AHEAD)) throw new ValidationError('Choose a date at most a year ahead', [{ path: 'date', message: 'Choose a date at most a year ahead' }]);
+  if (visit.date === here.date && visit.arrivalFrom && visit.arrivalFrom <= here.clock) {
+    throw new ValidationError('Choose a time still to come', [{ path: 'arrivalFrom', message: `It is ${here.clock} now in ${zone}: choose a later arrival time, or another day` }]);
+  }
 }
 
 export function toSiteVisitDto(visit: SiteVisitRecord, items: readonly WorkItemRecord[], actors: readonly FlowActor[], status: RequestStatus): SiteVisit {

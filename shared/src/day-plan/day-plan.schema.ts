@@ -1,6 +1,7 @@
 import * as z from 'zod';
 import { BoundedDateSchema, INT4_MAX, RecordIdSchema, trimmedText } from '../http/bounds';
 import { US_STATES } from '../requests/us-state';
+import { isTimeZone } from '../geo/time-zones';
 
 // The day plan of an electrician: the site visits of one date, ordered to keep driving short, with
 // their times against the working day. The settings belong to the contractor organisation.
@@ -35,6 +36,8 @@ const settingsShape = {
   lunchStart: clock,
   lunchMinutes: whole(0, 120, 'the lunch minutes'),
   shop: ShopAddressSchema,
+  /** The organisation's time zone (IANA name) for booking and calendars; null: the zone of the shop's state. */
+  timeZone: z.string().trim().max(64, 'Choose a time zone from the list').refine(isTimeZone, 'Choose a time zone from the list').nullable().default(null),
 };
 
 const dayOrder = (s: { dayStart: string; dayEnd: string; lunchStart: string }, ctx: z.RefinementCtx) => {
@@ -51,6 +54,8 @@ export const DayPlanSettingsSchema = z.object({
   version: z.number().int(),
   /** Whether the shop has a place on the map (its ZIP code is known, or a point was entered). */
   isShopLocated: z.boolean(),
+  /** The zone in use: the one chosen, else the shop's state's. */
+  effectiveTimeZone: z.string(),
 });
 export type DayPlanSettings = z.infer<typeof DayPlanSettingsSchema>;
 

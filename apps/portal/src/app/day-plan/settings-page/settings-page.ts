@@ -6,7 +6,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
-import { DayPlanSettings, LatitudeSchema, LongitudeSchema, ShopAddressSchema, UpdateDayPlanSettingsSchema, US_STATES } from '@cc/shared';
+import { DayPlanSettings, LatitudeSchema, LongitudeSchema, ShopAddressSchema, STATE_TIME_ZONES, UpdateDayPlanSettingsSchema, US_STATES, US_TIME_ZONES } from '@cc/shared';
 import { applyIssues } from '../../core/forms/apply-issues';
 import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { zodValidator } from '../../core/forms/zod-validator';
@@ -31,6 +31,7 @@ export class SettingsPage {
   private readonly fb = inject(FormBuilder).nonNullable;
 
   protected readonly states = US_STATES;
+  protected readonly timeZones = US_TIME_ZONES;
   protected readonly saved = signal<DayPlanSettings | null>(null);
   protected readonly formError = signal<string | null>(null);
   protected readonly isBusy = signal(false);
@@ -43,6 +44,8 @@ export class SettingsPage {
     dayEnd: ['16:30', zodValidator(fields.dayEnd)],
     lunchStart: ['12:00', zodValidator(fields.lunchStart)],
     lunchMinutes: [30, zodValidator(fields.lunchMinutes)],
+    /** null: the zone of the shop's state. */
+    timeZone: this.fb.control<string | null>(null, zodValidator(fields.timeZone)),
     shop: this.fb.group({
       street: ['', zodValidator(shop.street)],
       city: ['', zodValidator(shop.city)],
@@ -59,8 +62,13 @@ export class SettingsPage {
 
   private show(settings: DayPlanSettings): void {
     this.saved.set(settings);
-    const { version: _version, isShopLocated: _located, ...values } = settings;
+    const { version: _version, isShopLocated: _located, effectiveTimeZone: _zone, ...values } = settings;
     this.form.reset(values);
+  }
+
+  /** The zone the shop's state gives, as the form's state field now reads. */
+  protected stateZone(): string {
+    return STATE_TIME_ZONES[this.form.controls.shop.controls.state.value as keyof typeof STATE_TIME_ZONES] ?? 'UTC';
   }
 
   protected save(): void {
