@@ -52,6 +52,8 @@ describe('the seller approves, signs and pays the deposit on a phone; the contra
     await page.getByTestId('sign-submit').click();
     await page.getByTestId('decision-missing').filter({ hasText: '3 left' }).waitFor();
 
+    // Before any decision each item shows its amount in the quote.
+    const quotedAmounts = await Promise.all([0, 1].map((i) => items.nth(i).getByTestId('decision-amount').textContent().then((t) => t?.trim())));
     await items.nth(0).getByTestId('decision-approve').locator('button').click();
     await items.nth(1).getByTestId('decision-approve').locator('button').click();
     await items.nth(2).getByTestId('decision-decline').locator('button').click();
@@ -61,6 +63,13 @@ describe('the seller approves, signs and pays the deposit on a phone; the contra
     const amountOf = (item: ReturnType<Page['getByTestId']>, id: string) => item.getByTestId(id).textContent().then((t) => t?.trim());
     const approvedWork = [await items.nth(0).locator('.work').textContent(), await items.nth(1).locator('.work').textContent()];
     const signedAmounts = [await amountOf(items.nth(0), 'decision-amount'), await amountOf(items.nth(1), 'decision-amount')];
+    // An approved item whose amount moved with the decline says why, beside its quoted amount.
+    const repriced = signedAmounts.filter((a, i) => a !== quotedAmounts[i]).length;
+    for (const i of [0, 1]) {
+      const note = items.nth(i).getByTestId('decision-repriced');
+      expect(await note.count()).toBe(signedAmounts[i] !== quotedAmounts[i] ? 1 : 0);
+      if (signedAmounts[i] !== quotedAmounts[i]) expect(await note.textContent()).toContain(`Quoted at ${quotedAmounts[i]}`);
+    }
     await page.getByTestId('sign-name').fill('Ellen Brooks');
     await page.getByRole('checkbox', { name: /I am the seller of/ }).check();
     await screenshot(page, 'approval-phone-decided');
@@ -73,6 +82,7 @@ describe('the seller approves, signs and pays the deposit on a phone; the contra
       const after = page.getByTestId('approval-item').filter({ hasText: work!.trim() }).first();
       expect(await amountOf(after, 'approval-item-amount')).toBe(signedAmounts[i]);
     }
+    expect(await page.getByTestId('approval-item-repriced').count()).toBe(repriced);
     await page.getByTestId('approval-signature').filter({ hasText: 'Signed by Ellen Brooks' }).waitFor();
     await expectAxeClean(page);
 

@@ -40,6 +40,14 @@ export async function openPage(browser: Browser, options: BrowserContextOptions 
  * violation. Every browser test calls it on every page it visits.
  */
 export async function expectAccessible(page: Page): Promise<void> {
+  // The page as it settles: a hint or error fading in is measured at its final colour, not mid-way
+  // (finite animations only, at most 2 s; a spinner's endless one is left running).
+  await page.evaluate(() =>
+    Promise.race([
+      Promise.all(document.getAnimations().filter((a) => a.effect?.getComputedTiming().endTime !== Infinity).map((a) => a.finished.catch(() => undefined))),
+      new Promise((resolve) => setTimeout(resolve, 2000)),
+    ]),
+  );
   const results = await new AxeBuilder({ page }).analyze();
   const blocking = results.violations
     .filter((v) => v.impact === 'serious' || v.impact === 'critical')

@@ -64,6 +64,8 @@ export class ApprovalPage {
     return this.view()?.payments.find((p) => p.id === id) ?? null;
   });
   protected readonly signedBy = signedByText;
+  /** Each item's amount in the quote as sent, to say so where the signed amount differs. */
+  protected readonly quotedCents = computed(() => new Map((this.view()?.quote.lines ?? []).filter((l) => l.lineItemId !== null).map((l) => [l.lineItemId!, l.lineCents])));
   protected readonly decisionNotes = computed(() => new Map((this.view()?.decisions ?? []).filter((d) => d.note).map((d) => [d.lineItemId, d.note])));
   protected readonly showsMoney = computed(() => {
     const v = this.view();
