@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import sharp from 'sharp';
-import { IssueLetterSchema, ProofReviewSchema, RecordCorrectionSchema, type CurrentUser, type FindingCode, type RecordCorrection } from '@cc/shared';
+import { IssueLetterSchema, ProofReviewSchema, RecordCorrectionSchema, RecordFundsSchema, StartPaymentSchema, type CurrentUser, type FindingCode, type RecordCorrection } from '@cc/shared';
 import { loadConfig } from '../server/src/config/config';
 import type { UploadedPhoto } from '../server/src/corrections/corrections.service';
 import { createServices } from '../server/src/services';
@@ -54,8 +54,9 @@ async function demoPhoto(caption: string): Promise<Buffer> {
 // The proof of the work for the demo requests that carry `proof`: their paths left them scheduled;
 // here the electrician's visit (two days before the seeding day) is started, each approved item's
 // correction is recorded with its readings and a photo, the visit is finished, and, as far as
-// `proof` goes, the completion letter is issued (a real PDF in the file storage, verifiable on
-// /verify) and accepted by the inspector. All through the server's own services.
+// `proof` goes, the seller elects payment at closing, the completion letter is issued (a real PDF in
+// the file storage, verifiable on /verify), the inspector accepts it and the contractor records the
+// funds from escrow. All through the server's own services.
 export async function seed(knex: Knex): Promise<void> {
   const config = loadConfig(process.env);
   const services = createServices(knex, config);
@@ -84,8 +85,23 @@ export async function seed(knex: Knex): Promise<void> {
     }
     await services.visits.finish(electrician, request.id, visit.id);
     if (demo.proof === 'corrected') continue;
+    // The seller chose payment from the proceeds at closing (an invoice to the escrow company).
+    const sellerRow = await knex('request_parties').where({ request_id: request.id, role: 'seller' }).whereNotNull('user_id').first('user_id');
+    const seller = (await users.findById(sellerRow.user_id))!;
+    const started = await services.sellerSide.payments.start(
+      seller,
+      request.id,
+      StartPaymentSchema.parse({ plan: 'at-closing', idempotencyKey: `demo-closing-payment-${request.id}-0000`, escrow: { company: 'Marlow Title & Escrow', officer: 'Renata Ruiz', fileNumber: `MT-26-${1000 + request.id}` } }),
+    );
     await services.letters.issue(electrician, request.id, IssueLetterSchema.parse({ isPermitNotRequired: true, signatureName: electrician.name }));
-    if (demo.proof === 'accepted') await services.letters.review(inspector, request.id, ProofReviewSchema.parse({ decision: 'accept', note: 'Checked against the letter and the photos' }));
+    if (demo.proof !== 'accepted') continue;
+    await services.letters.review(inspector, request.id, ProofReviewSchema.parse({ decision: 'accept', note: 'Checked against the letter and the photos' }));
+    // The sale closed: the escrow company wired the invoice's amount, and the contractor records it.
+    await services.sellerSide.payments.recordFunds(
+      electrician,
+      request.id,
+      RecordFundsSchema.parse({ paymentId: started.payment.id, amountCents: started.payment.amountCents, receivedOn: new Date().toISOString().slice(0, 10), reference: `Wire MT-26-${1000 + request.id}` }),
+    );
   }
   await markHistoryDelivered(knex);
 }
