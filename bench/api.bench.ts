@@ -200,7 +200,12 @@ export async function run(): Promise<void> {
     for (const r of rows) console.log(r);
     console.log(`${met} of ${endpoints.length} endpoints meet the target (load average after the runs: ${load1()})`);
   } finally {
-    server?.kill('SIGTERM');
+    // The server ends before its database does (else its read pool reports every dropped connection).
+    if (server && server.exitCode === null) {
+      const exited = new Promise((resolve) => server!.once('exit', resolve));
+      server.kill('SIGTERM');
+      await Promise.race([exited, new Promise((resolve) => setTimeout(resolve, 10_000))]);
+    }
     cluster.stop();
     rmSync(work, { recursive: true, force: true });
   }

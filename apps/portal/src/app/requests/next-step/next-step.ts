@@ -25,4 +25,6 @@ export class NextStepPanel {
   readonly isOnRequestPage = input(false);
 
   protected readonly step = computed(() => nextStepOf(this.status(), { role: this.auth.role() ?? 'seller', myParts: this.myParts() }));
+  /** Moves made on the same page as the move before them share that move's link (one button, not two alike). */
+  protected readonly sharesLinkAbove = computed(() => this.step().moves.map((m, i) => i > 0 && !!m.place && this.step().moves[i - 1].place?.text === m.place.text));
 }
