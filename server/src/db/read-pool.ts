@@ -17,9 +17,23 @@ export function createReadPool(databaseUrl: string, max = 10): pg.Pool {
   return pool;
 }
 
+/** Statement names by SQL text: one per statement shape, so the set stays small (cleared if it ever grows). */
+const statementNames = new Map<string, string>();
+const MAX_SHAPES = 1000;
+
+function statementName(sql: string): string {
+  let name = statementNames.get(sql);
+  if (name === undefined) {
+    if (statementNames.size >= MAX_SHAPES) statementNames.clear();
+    name = `cc-${createHash('sha1').update(sql).digest('base64url').slice(0, 24)}`;
+    statementNames.set(sql, name);
+  }
+  return name;
+}
+
 /** Runs `query` on `pool` as a prepared statement named after its SQL text (so one per shape). */
 export async function readPrepared<T extends pg.QueryResultRow>(pool: pg.Pool, query: Knex.QueryBuilder | Knex.Raw): Promise<T[]> {
   const { sql, bindings } = query.toSQL().toNative();
-  const name = `cc-${createHash('sha1').update(sql).digest('base64url').slice(0, 24)}`;
+  const name = statementName(sql);
   return (await pool.query<T>({ name, text: sql, values: bindings as unknown[] })).rows;
 }
