@@ -303,10 +303,10 @@ describe('booking on a past day', () => {
     expect((await plan(inDays(9), cast.users.colleague.id)).suggestions.some((s) => s.requestId === requestId)).toBe(true);
     const fromPlan = await write(cast.s.contractor, 'post', '/api/day-plan/book').send({ requestId, date: past, electricianId: cast.users.colleague.id });
     expect(fromPlan.status).toBe(400);
-    expect(fromPlan.body.details).toEqual([{ path: 'date', message: expect.stringMatching(/^Choose today \(\d{4}-\d\d-\d\d in America\/Denver\) or a later day$/) }]);
+    expect(fromPlan.body.details).toEqual([{ path: 'date', message: expect.stringMatching(/^Past: today is \d{4}-\d\d-\d\d in America\/Denver$/) }]);
     const fromForm = await write(cast.s.contractor, 'post', `/api/requests/${requestId}/visits`).send({ date: past, arrivalFrom: '08:00', arrivalTo: '10:00', electricianId: cast.users.colleague.id });
     expect(fromForm.status).toBe(400);
-    expect(fromForm.body.details).toEqual([{ path: 'date', message: expect.stringMatching(/^Choose today \(\d{4}-\d\d-\d\d in America\/Denver\) or a later day$/) }]);
+    expect(fromForm.body.details).toEqual([{ path: 'date', message: expect.stringMatching(/^Past: today is \d{4}-\d\d-\d\d in America\/Denver$/) }]);
     expect(await t.db('site_visits').where({ request_id: requestId }).count('id as n').first()).toEqual({ n: '0' });
   });
 });

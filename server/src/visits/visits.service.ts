@@ -120,10 +120,11 @@ export const todayIn = (zone: string, now = Date.now()): string => wallClock(zon
  */
 export function assertBookable(visit: { date: string; arrivalFrom?: string | null }, zone: string, now = Date.now()): void {
   const here = wallClock(zone, now);
-  if (visit.date < here.date) throw new ValidationError('Choose today or a later day', [{ path: 'date', message: `Choose today (${here.date} in ${zone}) or a later day` }]);
+  if (visit.date < here.date) throw new ValidationError('Choose today or a later day', [{ path: 'date', message: `Past: today is ${here.date} in ${zone}` }]);
   if (visit.date > addDays(here.date, MAX_DAYS_AHEAD)) throw new ValidationError('Choose a date at most a year ahead', [{ path: 'date', message: 'Choose a date at most a year ahead' }]);
   if (visit.date === here.date && visit.arrivalFrom && visit.arrivalFrom <= here.clock) {
-    throw new ValidationError('Choose a time still to come', [{ path: 'arrivalFrom', message: `It is ${here.clock} now in ${zone}: choose a later arrival time, or another day` }]);
+    // Short field messages: they show under the field on a phone; the summary says what to do.
+    throw new ValidationError('Choose an arrival time still to come today, or another day', [{ path: 'arrivalFrom', message: `Past: it is ${here.clock} in ${zone}` }]);
   }
 }
 
