@@ -136,12 +136,17 @@ describe('day plan', () => {
     await page.getByTestId('settings-speed').fill('32');
     await page.getByTestId('settings-save').click();
     await page.getByText('Settings saved').waitFor();
+    // Saved once the server answered (an earlier save's notice may still be on screen).
+    const saveAndWait = async () => {
+      const saved = page.waitForResponse((r) => r.url().endsWith('/api/day-plan/settings') && r.request().method() === 'PUT');
+      await page.getByTestId('settings-save').click();
+      expect((await saved).status()).toBe(200);
+    };
     // The time zone: the shop's state (CO → America/Denver, IANA tz database) until one is chosen.
     await page.getByTestId('settings-time-zone').click();
     await page.getByRole('option', { name: "From the shop's state (America/Denver)" }).waitFor();
     await page.getByRole('option', { name: 'America/Phoenix', exact: true }).click();
-    await page.getByTestId('settings-save').click();
-    await page.getByText('Settings saved').waitFor();
+    await saveAndWait();
     await page.reload();
     await page.getByTestId('day-plan-settings-heading').waitFor();
     expect(await page.getByTestId('settings-time-zone').textContent()).toContain('America/Phoenix');
@@ -149,8 +154,7 @@ describe('day plan', () => {
     // Back to the state's zone, as the other tests expect.
     await page.getByTestId('settings-time-zone').click();
     await page.getByRole('option', { name: "From the shop's state (America/Denver)" }).click();
-    await page.getByTestId('settings-save').click();
-    await page.getByText('Settings saved').last().waitFor();
+    await saveAndWait();
     await page.close();
   });
 });

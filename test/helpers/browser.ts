@@ -42,12 +42,17 @@ export async function openPage(browser: Browser, options: BrowserContextOptions 
 export async function expectAccessible(page: Page): Promise<void> {
   // The page as it settles: a hint or error fading in is measured at its final colour, not mid-way
   // (finite animations only, at most 2 s; a spinner's endless one is left running).
-  await page.evaluate(() =>
-    Promise.race([
+  // A snack bar coming or going is waited for too (its classes mark the animation before it runs).
+  await page.evaluate(async () => {
+    const until = Date.now() + 2000;
+    while (document.querySelector('.mat-snack-bar-container-enter, .mat-snack-bar-container-exit') && Date.now() < until) {
+      await new Promise((resolve) => setTimeout(resolve, 50));
+    }
+    await Promise.race([
       Promise.all(document.getAnimations().filter((a) => a.effect?.getComputedTiming().endTime !== Infinity).map((a) => a.finished.catch(() => undefined))),
-      new Promise((resolve) => setTimeout(resolve, 2000)),
-    ]),
-  );
+      new Promise((resolve) => setTimeout(resolve, Math.max(0, until - Date.now()))),
+    ]);
+  });
   const results = await new AxeBuilder({ page }).analyze();
   const blocking = results.violations
     .filter((v) => v.impact === 'serious' || v.impact === 'critical')
