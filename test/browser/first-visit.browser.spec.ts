@@ -180,6 +180,8 @@ describe('the administrator', () => {
 
     await row.getByTestId('user-reset-password').click();
     await page.getByTestId('confirm-go').click();
+    // The password shows once the server answered: wait for it, not for the empty box.
+    await page.getByTestId('temporary-password').filter({ hasText: /[a-z2-9]{4}-[a-z2-9]{4}/ }).waitFor();
     const temporary = ((await page.getByTestId('temporary-password').textContent()) ?? '').trim();
     expect(temporary).toMatch(/^[a-z2-9]{4}(-[a-z2-9]{4}){3}$/);
     await expectAccessible(page);
