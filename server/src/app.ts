@@ -33,6 +33,10 @@ export function createApp(config: Config, db: Db): App {
 
   const app = express();
   app.disable('x-powered-by');
+  // No ETag on API answers: they are private and change with every move, the portal never asks
+  // "if none match", and hashing each body cost a list request a SHA-1 of its whole answer.
+  // (express.static keeps its own ETags for the portal's files.)
+  app.set('etag', false);
   // The client address comes from X-Forwarded-For only behind a proxy the configuration names.
   app.set('trust proxy', config.trustProxy);
   app.use(

@@ -1,6 +1,6 @@
 import request from 'supertest';
 import type { CurrentUser, RepairRequestDetail, RequestStatus } from '@cc/shared';
-import type { Knex } from 'knex';
+import type { Statement } from '../../server/src/db/read-pool';
 import { LineItemRepository } from '../../server/src/intake/line-item.repository';
 import { RequestRepository, type RequestListFilter, type Viewer } from '../../server/src/requests/request.repository';
 import { createTestApp, type TestApp } from '../helpers/test-app';
@@ -294,8 +294,7 @@ describe('GET /api/requests', () => {
   // BY"). The server prepares list statements once per connection with a generic plan
   // (db/read-pool.ts), so that is the plan checked; sequential scans are switched off so that the
   // small test tables show the plan the planner takes at scale.
-  async function genericPlan(statement: Knex.QueryBuilder, { sortsPricedOut = true } = {}): Promise<string> {
-    const { sql, bindings } = statement.toSQL().toNative();
+  async function genericPlan({ text: sql, values: bindings }: Statement, { sortsPricedOut = true } = {}): Promise<string> {
     const literal = (v: unknown): string =>
       Array.isArray(v) ? `ARRAY[${v.map(literal).join(', ')}]` : typeof v === 'number' ? String(v) : `'${String(v).replace(/'/g, "''")}'`;
     return t.db.transaction(async (trx) => {
@@ -304,7 +303,7 @@ describe('GET /api/requests', () => {
       await trx.raw('SET LOCAL enable_seqscan = off');
       if (sortsPricedOut) await trx.raw('SET LOCAL enable_sort = off');
       await trx.raw('SET LOCAL plan_cache_mode = force_generic_plan');
-      await trx.raw(`PREPARE list_plan AS ${sql.replace(/\?/g, '\\?')}`);
+      await trx.raw(`PREPARE list_plan AS ${sql}`);
       const res = await trx.raw(`EXPLAIN EXECUTE list_plan(${(bindings as unknown[]).map(literal).join(', ')})`);
       await trx.raw('DEALLOCATE list_plan');
       return (res.rows as { 'QUERY PLAN': string }[]).map((r) => r['QUERY PLAN']).join('\n');

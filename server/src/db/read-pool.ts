@@ -31,9 +31,43 @@ function statementName(sql: string): string {
   return name;
 }
 
+/** A statement written with numbered parameters ($1, $2…) and their values. */
+export interface Statement {
+  text: string;
+  values: unknown[];
+}
+
+/**
+ * Collects the values of a statement written by hand: `add(value)` answers the parameter (`$n`) to
+ * write in its place. Hot statements are written this way instead of through Knex, whose building
+ * and compiling cost more per request than running the statement.
+ */
+export class StatementParams {
+  readonly values: unknown[] = [];
+  add(value: unknown): string {
+    this.values.push(value);
+    return `$${this.values.length}`;
+  }
+}
+
 /** Runs `query` on `pool` as a prepared statement named after its SQL text (so one per shape). */
-export async function readPrepared<T extends pg.QueryResultRow>(pool: pg.Pool, query: Knex.QueryBuilder | Knex.Raw): Promise<T[]> {
+export async function readPrepared<T extends pg.QueryResultRow>(pool: pg.Pool, query: Knex.QueryBuilder | Knex.Raw | Statement): Promise<T[]> {
+  const { text, values } = 'toSQL' in query ? nativeOf(query) : query;
+  return (await pool.query<T>({ name: statementName(text), text, values })).rows;
+}
+
+function nativeOf(query: Knex.QueryBuilder | Knex.Raw): Statement {
   const { sql, bindings } = query.toSQL().toNative();
-  const name = statementName(sql);
-  return (await pool.query<T>({ name, text: sql, values: bindings as unknown[] })).rows;
+  return { text: sql, values: bindings as unknown[] };
+}
+
+/** Runs a hand-written statement through Knex (`db`), where no read pool is at hand (tests, transactions). */
+export async function runStatement<T>(db: Knex | Knex.Transaction, statement: Statement): Promise<T[]> {
+  const bindings: unknown[] = [];
+  const sql = statement.text.replace(/\$(\d+)/g, (_, n: string) => {
+    bindings.push(statement.values[Number(n) - 1]);
+    return '?';
+  });
+  const result: { rows: T[] } = await db.raw(sql, bindings as Knex.RawBinding[]);
+  return result.rows;
 }

@@ -13,7 +13,7 @@ import {
 } from '@cc/shared';
 import type pg from 'pg';
 import type { Db, Trx } from '../db/knex';
-import { readPrepared } from '../db/read-pool';
+import { readPrepared, runStatement, StatementParams, type Statement } from '../db/read-pool';
 import type { RepairRequestRow, RequestPartyRow, RequestStatusChangeRow } from '../db/tables';
 
 /** Who is looking: decides which requests exist for them. */
@@ -83,12 +83,17 @@ const OPEN_WORK_ITEM_STATES = [itemStateAfter('approve'), itemStateAfter('not-ac
  * request summary (closing-date tracking), both counted in one pass over the request's items.
  */
 export function joinItemCounts(db: Db | Trx, query: Knex.QueryBuilder): Knex.QueryBuilder {
-  return query.joinRaw(
-    `LEFT JOIN LATERAL (SELECT count(*) FILTER (WHERE li.status <> ALL(?))::int AS item_count, count(*) FILTER (WHERE li.status = ANY(?))::int AS open_work_count
-       FROM line_items li WHERE li.request_id = r.id) AS ic ON true`,
-    [UNCOUNTED_ITEM_STATES, OPEN_WORK_ITEM_STATES],
-  );
+  return query.joinRaw(`LEFT JOIN LATERAL (${itemCountsOfR('?', '?')}) AS ic ON true`, [UNCOUNTED_ITEM_STATES, OPEN_WORK_ITEM_STATES]);
 }
+
+/** The item counts of request `r`, with the parameters that stand for the two state lists. */
+function itemCountsOfR(uncounted: string, openWork: string): string {
+  return `SELECT count(*) FILTER (WHERE li.status <> ALL(${uncounted}))::int AS item_count, count(*) FILTER (WHERE li.status = ANY(${openWork}))::int AS open_work_count
+       FROM line_items li WHERE li.request_id = r.id`;
+}
+
+/** The same, in a hand-written statement. */
+const itemCountsIn = (p: StatementParams): string => itemCountsOfR(p.add(UNCOUNTED_ITEM_STATES), p.add(OPEN_WORK_ITEM_STATES));
 
 /** The columns of repair_requests a summary shows (a list reads only these). */
 const SUMMARY_COLUMNS = ['id', 'street', 'city', 'state', 'zip', 'year_built', 'closing_date', 'nec_edition', 'status', 'created_at', 'updated_at'] as const;
@@ -157,7 +162,7 @@ export class RequestRepository {
   async list(viewer: Viewer, filter: RequestListFilter): Promise<{ items: RepairRequestSummary[]; total: number; isTotalCapped: boolean }> {
     const statement = this.listStatement(viewer, filter);
     type Row = SummaryRow & { n: string; ord: string | null };
-    const rows: Row[] = this.readPool ? await readPrepared<Row>(this.readPool, statement) : await statement;
+    const rows = this.readPool ? await readPrepared<Row>(this.readPool, statement) : await runStatement<Row>(this.db, statement);
     const counted = Number(rows[0]?.n ?? 0);
     const items: RepairRequestSummary[] = [];
     for (const row of rows) if (row.ord !== null) items.push(toSummary(row));
@@ -165,70 +170,58 @@ export class RequestRepository {
   }
 
   /**
-   * The rows `viewer` may list, filtered: request_viewers (`v`, one row per person and request, with
-   * the request's sort and filter columns) for the people named on requests; repair_requests (`r`)
-   * for contractors and administrators.
+   * The one statement behind `list` (its plan is checked in the API tests), written by hand: it runs
+   * on most requests, and building it through Knex cost more than running it. Its text depends only
+   * on the list's shape (who looks, which filters, the sort), so each shape is one prepared statement.
+   *
+   * The rows `viewer` may list come from request_viewers (`v`, one row per person and request, with
+   * the request's sort and filter columns) for the people named on requests, and from
+   * repair_requests (`r`) for contractors and administrators.
    */
-  private visibleRows(viewer: Viewer, filter: RequestListFilter): { rows: Knex.QueryBuilder; key: 'v' | 'r'; id: string } {
-    const db = this.db;
+  listStatement(viewer: Viewer, filter: RequestListFilter): Statement {
+    const p = new StatementParams();
     const isNamed = viewer.role !== 'admin' && viewer.role !== 'contractor';
     const key = isNamed ? 'v' : 'r';
     const id = isNamed ? 'v.request_id' : 'r.id';
-    const rows = isNamed ? db('request_viewers as v').where('v.user_id', viewer.id) : db('repair_requests as r');
-    if (viewer.role === 'contractor') rows.where('r.contractor_organisation_id', viewer.organisationId ?? -1);
-    if (filter.statuses.length) rows.whereRaw(`${key}.status = ANY(?)`, [filter.statuses]);
-    if (filter.builtBefore) rows.where(`${key}.year_built`, '<', filter.builtBefore);
-    if (filter.text) {
-      const like = `%${filter.text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-      const searched = isNamed ? 'v.search_text' : "(r.street || ' ' || r.city || ' ' || r.zip)";
-      rows.where((w) => {
-        w.whereRaw(`${searched} ILIKE ?`, [like]);
-        if (filter.id !== null) w.orWhere(id, filter.id);
-      });
-    }
-    return { rows, key, id };
-  }
+    const sortColumn = SORT_COLUMNS[filter.sort];
+    const dir = filter.direction === 'desc' ? 'DESC' : 'ASC';
 
-  /** The one statement behind `list` (its plan is checked in the API tests). */
-  listStatement(viewer: Viewer, filter: RequestListFilter): Knex.QueryBuilder {
-    const db = this.db;
-    const visible = this.visibleRows(viewer, filter);
-    const dir = filter.direction;
+    const conditions: string[] = [];
+    if (isNamed) conditions.push(`v.user_id = ${p.add(viewer.id)}`);
+    if (viewer.role === 'contractor') conditions.push(`r.contractor_organisation_id = ${p.add(viewer.organisationId ?? -1)}`);
+    if (filter.statuses.length) conditions.push(`${key}.status = ANY(${p.add(filter.statuses)})`);
+    if (filter.builtBefore) conditions.push(`${key}.year_built < ${p.add(filter.builtBefore)}`);
+    if (filter.text) {
+      const like = p.add(`%${filter.text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`);
+      const searched = isNamed ? 'v.search_text' : "(r.street || ' ' || r.city || ' ' || r.zip)";
+      conditions.push(filter.id !== null ? `(${searched} ILIKE ${like} OR ${id} = ${p.add(filter.id)})` : `${searched} ILIKE ${like}`);
+    }
+    const visible = `${isNamed ? 'request_viewers v' : 'repair_requests r'}${conditions.length ? ` WHERE ${conditions.join(' AND ')}` : ''}`;
+
     // A text search reads every visible row anyway (no index finds a substring): it matches them
     // once ("matches"), and the page and the count read that. Other lists read the sort's index.
     const isSearch = Boolean(filter.text);
-    const sortColumn = SORT_COLUMNS[filter.sort];
-    const rows = isSearch ? db('matches as m') : visible.rows;
-    const id = isSearch ? 'm.id' : visible.id;
-    const sort = isSearch ? `m.${sortColumn}` : `${visible.key}.${sortColumn}`;
-    const pageIds = rows
-      .clone()
-      .select(`${id} as id`, db.raw(`row_number() OVER (ORDER BY ${sort} ${dir}, ${id} ${dir}) AS ord`))
-      .orderBy(sort, dir)
-      .orderBy(id, dir)
-      .limit(filter.pageSize)
-      .offset(filter.page * filter.pageSize);
-    const counted = db.from(rows.clone().select(db.raw('1')).limit(this.countCap + 1).as('c')).count({ n: '*' });
-    const page = isSearch ? db.withMaterialized('matches', visible.rows.clone().select(`${visible.id} as id`, `${visible.key}.${sortColumn}`)) : db.queryBuilder();
-    page
-      .with('page_ids', pageIds)
-      .with('counted', counted)
-      .from('counted')
-      .joinRaw('LEFT JOIN page_ids ON true')
-      // Row by row through the primary key whatever the page size (OFFSET 0 keeps it a nested loop,
-      // also in a plan made once for any page).
-      .joinRaw(`LEFT JOIN LATERAL (SELECT ${SUMMARY_COLUMNS.join(', ')}, contractor_organisation_id FROM repair_requests WHERE id = page_ids.id OFFSET 0) AS r ON true`);
-    return joinItemCounts(db, page)
-      .select(
-        'counted.n',
-        'page_ids.ord',
-        ...SUMMARY_COLUMNS.map((c) => `r.${c}`),
-        // The contractor's name by its key, row by row (a join here was planned as a hash of every organisation per row).
-        db.raw('(SELECT o.name FROM organisations o WHERE o.id = r.contractor_organisation_id) AS contractor_name'),
-        'ic.item_count',
-        'ic.open_work_count',
-      )
-      .orderBy('page_ids.ord');
+    const [rows, rowId, sort] = isSearch ? ['matches m', 'm.id', `m.${sortColumn}`] : [visible, id, `${key}.${sortColumn}`];
+    const order = `${sort} ${dir}, ${rowId} ${dir}`;
+    // The page's rows are read row by row through the primary key whatever the page size (OFFSET 0
+    // keeps it a nested loop, also in a plan made once for any page), and the contractor's name by
+    // its key (a join here was planned as a hash of every organisation per row).
+    const matches = isSearch ? `matches AS MATERIALIZED (SELECT ${id} AS id, ${key}.${sortColumn} FROM ${visible}), ` : '';
+    return {
+      text: `WITH ${matches}page_ids AS (
+          SELECT ${rowId} AS id, row_number() OVER (ORDER BY ${order}) AS ord FROM ${rows}
+          ORDER BY ${order} LIMIT ${p.add(filter.pageSize)} OFFSET ${p.add(filter.page * filter.pageSize)}),
+        counted AS (SELECT count(*) AS n FROM (SELECT 1 FROM ${rows} LIMIT ${p.add(this.countCap + 1)}) AS c)
+        SELECT counted.n, page_ids.ord, ${SUMMARY_COLUMNS.map((c) => `r.${c}`).join(', ')},
+          (SELECT o.name FROM organisations o WHERE o.id = r.contractor_organisation_id) AS contractor_name,
+          ic.item_count, ic.open_work_count
+        FROM counted
+        LEFT JOIN page_ids ON true
+        LEFT JOIN LATERAL (SELECT ${SUMMARY_COLUMNS.join(', ')}, contractor_organisation_id FROM repair_requests WHERE id = page_ids.id OFFSET 0) AS r ON true
+        LEFT JOIN LATERAL (${itemCountsIn(p)}) AS ic ON true
+        ORDER BY page_ids.ord`,
+      values: p.values,
+    };
   }
 
   /** What decides a request's code notes (build year, adopted edition) if `viewer` may see it, else null. */
