@@ -80,16 +80,21 @@ const OPEN_WORK_ITEM_STATES = [itemStateAfter('approve'), itemStateAfter('not-ac
 
 /**
  * Joins to a query on `repair_requests as r` the `item_count` and `open_work_count` columns of a
- * request summary (closing-date tracking), both counted in one pass over the request's items.
+ * request summary (closing-date tracking), read from the request's items counted by status.
  */
 export function joinItemCounts(db: Db | Trx, query: Knex.QueryBuilder): Knex.QueryBuilder {
   return query.joinRaw(`LEFT JOIN LATERAL (${itemCountsOfR('?', '?')}) AS ic ON true`, [UNCOUNTED_ITEM_STATES, OPEN_WORK_ITEM_STATES]);
 }
 
-/** The item counts of request `r`, with the parameters that stand for the two state lists. */
+/**
+ * The item counts of request `r`, with the parameters that stand for the two state lists: read from
+ * its items counted by status (`item_status_counts`, kept by triggers on line_items), not by
+ * reading its items.
+ */
 function itemCountsOfR(uncounted: string, openWork: string): string {
-  return `SELECT count(*) FILTER (WHERE li.status <> ALL(${uncounted}))::int AS item_count, count(*) FILTER (WHERE li.status = ANY(${openWork}))::int AS open_work_count
-       FROM line_items li WHERE li.request_id = r.id`;
+  return `SELECT coalesce(sum(c.value::int) FILTER (WHERE c.key <> ALL(${uncounted})), 0)::int AS item_count,
+       coalesce(sum(c.value::int) FILTER (WHERE c.key = ANY(${openWork})), 0)::int AS open_work_count
+       FROM jsonb_each_text(r.item_status_counts) AS c`;
 }
 
 /** The same, in a hand-written statement. */
@@ -217,7 +222,7 @@ export class RequestRepository {
           ic.item_count, ic.open_work_count
         FROM counted
         LEFT JOIN page_ids ON true
-        LEFT JOIN LATERAL (SELECT ${SUMMARY_COLUMNS.join(', ')}, contractor_organisation_id FROM repair_requests WHERE id = page_ids.id OFFSET 0) AS r ON true
+        LEFT JOIN LATERAL (SELECT ${SUMMARY_COLUMNS.join(', ')}, contractor_organisation_id, item_status_counts FROM repair_requests WHERE id = page_ids.id OFFSET 0) AS r ON true
         LEFT JOIN LATERAL (${itemCountsIn(p)}) AS ic ON true
         ORDER BY page_ids.ord`,
       values: p.values,
