@@ -364,13 +364,19 @@ describe('the seeded week', () => {
 
 describe('intake photos and evidence for the visit screen', () => {
   const photo = () => sharp({ create: { width: 320, height: 240, channels: 3, background: '#7f8c8d' } }).jpeg().toBuffer();
+  // A request of its own, approved and not yet worked (photos are for a visit still to come).
+  const open = { request: 0, item: 0, other: 0 };
+  beforeAll(async () => {
+    ({ requestId: open.request, itemIds: [open.item] } = await approvedRequest([{ code: 'gfci-inoperative', quantity: 1, entry: 'gfci-replace', room: 'exterior' }]));
+    await t.db('line_items').where({ id: open.item }).update({ evidence: 'GFCI at the patio would not trip; cover missing.', page: 7 });
+  });
 
   it('lets the agents and the seller attach photos, shows them with the report’s evidence to the contractor', async () => {
-    const res = await post(cast.s.seller, `/api/requests/${week.r1}/intake-photos`).field('itemId', String(week.a)).field('caption', 'Tile right up to the box').attach('photo', await photo(), 'patio.jpg');
+    const res = await post(cast.s.seller, `/api/requests/${open.request}/intake-photos`).field('itemId', String(open.item)).field('caption', 'Tile right up to the box').attach('photo', await photo(), 'patio.jpg');
     expect(res.status).toBe(201);
-    const prep: VisitPrep = (await cast.s.colleague.agent.get(`/api/requests/${week.r1}/visit-prep`).expect(200)).body;
-    expect(prep.photos.map((p) => [p.itemId, p.caption, p.width])).toEqual([[week.a, 'Tile right up to the box', 320]]);
-    expect(prep.evidence).toEqual([{ itemId: week.a, evidence: 'GFCI at the patio would not trip; cover missing.', page: 7 }]);
+    const prep: VisitPrep = (await cast.s.colleague.agent.get(`/api/requests/${open.request}/visit-prep`).expect(200)).body;
+    expect(prep.photos.map((p) => [p.itemId, p.caption, p.width])).toEqual([[open.item, 'Tile right up to the box', 320]]);
+    expect(prep.evidence).toEqual([{ itemId: open.item, evidence: 'GFCI at the patio would not trip; cover missing.', page: 7 }]);
     expect(prep.canAddPhotos).toBe(false);
     const bytes = await bytesOf(cast.s.colleague.agent.get(prep.photos[0].url));
     expect(bytes.status).toBe(200);
@@ -379,15 +385,26 @@ describe('intake photos and evidence for the visit screen', () => {
 
   it('refuses the contractor (403), outsiders (404), non-images, NUL captions and items of other requests', async () => {
     const jpeg = await photo();
-    await post(cast.s.contractor, `/api/requests/${week.r1}/intake-photos`).attach('photo', jpeg, 'x.jpg').expect(403);
-    await post(cast.s.otherContractor, `/api/requests/${week.r1}/intake-photos`).attach('photo', jpeg, 'x.jpg').expect(404);
-    await cast.s.otherContractor.agent.get(`/api/requests/${week.r1}/visit-prep`).expect(404);
-    await post(cast.s.seller, `/api/requests/${week.r1}/intake-photos`).attach('photo', Buffer.from('not an image at all'), 'x.jpg').expect(415);
-    await post(cast.s.seller, `/api/requests/${week.r1}/intake-photos`).field('caption', 'a\u0000b').attach('photo', jpeg, 'x.jpg').expect(400);
-    const other = await post(cast.s.seller, `/api/requests/${week.r1}/intake-photos`).field('itemId', String(week.b)).attach('photo', jpeg, 'x.jpg');
+    await post(cast.s.contractor, `/api/requests/${open.request}/intake-photos`).attach('photo', jpeg, 'x.jpg').expect(403);
+    await post(cast.s.otherContractor, `/api/requests/${open.request}/intake-photos`).attach('photo', jpeg, 'x.jpg').expect(404);
+    await cast.s.otherContractor.agent.get(`/api/requests/${open.request}/visit-prep`).expect(404);
+    await post(cast.s.seller, `/api/requests/${open.request}/intake-photos`).attach('photo', Buffer.from('not an image at all'), 'x.jpg').expect(415);
+    await post(cast.s.seller, `/api/requests/${open.request}/intake-photos`).field('caption', 'a\u0000b').attach('photo', jpeg, 'x.jpg').expect(400);
+    const other = await post(cast.s.seller, `/api/requests/${open.request}/intake-photos`).field('itemId', String(week.b)).attach('photo', jpeg, 'x.jpg');
     expect(other.status).toBe(400);
     expect(other.body.details[0].path).toBe('itemId');
-    await post(cast.s.seller, `/api/requests/${week.r1}/intake-photos`).expect(400);
-    await cast.s.colleague.agent.get(`/api/requests/${week.r1}/intake-photos/999999`).expect(404);
+    await post(cast.s.seller, `/api/requests/${open.request}/intake-photos`).expect(400);
+    await cast.s.colleague.agent.get(`/api/requests/${open.request}/intake-photos/999999`).expect(404);
+  });
+
+  it('takes no more photos once the work is done (the flow table’s add-intake-photo), and says so', async () => {
+    // week.r1's only item was corrected above: the request is past its visits.
+    const { status } = (await cast.s.seller.agent.get(`/api/requests/${week.r1}`).expect(200)).body;
+    expect(status).toBe('corrected');
+    const res = await post(cast.s.seller, `/api/requests/${week.r1}/intake-photos`).attach('photo', await photo(), 'late.jpg');
+    expect(res.status).toBe(409);
+    expect(res.body.error).toMatch(/Adding photos for the electrician is not possible while the request is/);
+    const prep: VisitPrep = (await cast.s.seller.agent.get(`/api/requests/${week.r1}/visit-prep`).expect(200)).body;
+    expect(prep.canAddPhotos).toBe(false);
   });
 });

@@ -1,14 +1,12 @@
 import { createHash } from 'node:crypto';
-import { actorsOnRequest, MAX_INTAKE_PHOTOS, type CurrentUser, type FlowActor, type IntakePhoto, type VisitPrep } from '@cc/shared';
+import { actorsOnRequest, mayAct, MAX_INTAKE_PHOTOS, type CurrentUser, type IntakePhoto, type VisitPrep } from '@cc/shared';
+import { assertMayAct } from '../work/request-actors';
 import type { Db } from '../db/knex';
-import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../errors';
+import { ConflictError, NotFoundError, ValidationError } from '../errors';
 import type { FileStorage } from '../integrations/storage/file-storage';
 import { StagedFiles } from '../integrations/storage/staged-files';
 import { cleanPhoto } from '../corrections/photo-image';
 import type { RequestsService } from '../requests/requests.service';
-
-/** The parts who attach photos at intake: the agents and the seller. */
-const PHOTO_TAKERS: readonly FlowActor[] = ['buyer-agent', 'listing-agent', 'seller'];
 
 interface PhotoRow {
   id: number;
@@ -57,13 +55,13 @@ export class IntakePhotosService {
     return {
       photos: photos.map((p) => toDto(requestId, p)),
       evidence: items.filter((i) => i.evidence).map((i) => ({ itemId: i.id, evidence: i.evidence!, page: i.page })),
-      canAddPhotos: actorsOnRequest(user, request).some((a) => PHOTO_TAKERS.includes(a)),
+      canAddPhotos: mayAct(actorsOnRequest(user, request), 'add-intake-photo', request.status),
     };
   }
 
   async add(user: CurrentUser, requestId: number, input: { itemId?: number; caption: string }, uploads: readonly Buffer[]): Promise<IntakePhoto[]> {
     const request = await this.access.get(user, requestId);
-    if (!actorsOnRequest(user, request).some((a) => PHOTO_TAKERS.includes(a))) throw new ForbiddenError('Only the agents and the seller attach intake photos');
+    assertMayAct(actorsOnRequest(user, request), 'add-intake-photo', request.status, 'Adding photos for the electrician');
     if (!uploads.length) throw new ValidationError('Attach a photo', [{ path: 'photo', message: 'Choose a photo' }]);
     const cleaned: { data: Buffer; width: number; height: number; key: string }[] = [];
     for (const [i, bytes] of uploads.entries()) {

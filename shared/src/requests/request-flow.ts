@@ -126,6 +126,9 @@ export const REQUEST_ACTIONS = {
   'finish-visit': { in: ['scheduled', 'in-progress', 'corrected', 'letter-issued', 'accepted', 'reopened'], by: ['contractor'] },
   // Lockbox codes and occupant contacts: only the assigned contractor and the listing agent (who gave them).
   'see-access-notes': { in: BEFORE_LETTER, by: ['listing-agent', 'contractor'] },
+  // Photos for the electrician (a box behind tile, a panel cover): from the seller's side and the
+  // agents, as long as a visit may still come (not once the work is done or the request ended).
+  'add-intake-photo': { in: ['draft', 'intake', 'pricing', 'quoted', 'approved', 'scheduled', 'in-progress', 'reopened'], by: [...AGENTS, 'seller'] },
   /** The contractor's pricing page (read only unless `price` is allowed too). */
   'read-pricing': { in: REQUEST_STATUSES, by: ['contractor', 'admin'] },
   /** The ballpark range from the assigned contractor's rate book, and the site conditions flagged for it. */
