@@ -10,6 +10,7 @@ import { RateBookService } from '../server/src/rate-book/rate-book.service';
 import { priceRequest } from '../server/src/pricing/request-pricing';
 import { ApprovalRepository } from '../server/src/approvals/approval.repository';
 import { signedRecord } from '../server/src/approvals/approvals.service';
+import { DayPlanRepository } from '../server/src/day-plan/day-plan.repository';
 import { historyWriters, markHistoryDelivered } from './data/history';
 
 /** The state a sent quote puts a request in (the flow table's `send-quote`). */
@@ -33,6 +34,7 @@ export async function seed(knex: Knex): Promise<void> {
   const entryVersions = new RateBookRepository(knex);
   const quotes = new QuoteRepository(knex);
   const lineItems = new LineItemRepository(knex);
+  const dayPlans = new DayPlanRepository(knex);
   const history = historyWriters(knex);
 
   // Requests whose history shows a quote sent.
@@ -81,6 +83,7 @@ export async function seed(knex: Knex): Promise<void> {
           version: 1,
           sentBy: sender?.id ?? null,
           sentAt: sent?.created_at ?? new Date(),
+          timeZone: await dayPlans.timeZone(org.id),
           note: null,
           contractor: quoteContractorOf(org),
           property: { street: request.street, city: request.city, state: request.state, zip: request.zip },

@@ -84,13 +84,15 @@ export function createServices(db: Db, config: Config, readPool: pg.Pool | null 
   const requestsService = new RequestsService(db, requests, users, organisations, flow, items, itemPricing, config.publicUrl, notifications, activity, config.atRiskBusinessDays);
   const rateBookService = new RateBookService(db, rateBooks, organisations);
   const pricingService = new PricingService(db, requestsService, rateBookService, itemPricing, items, quotes, flow);
-  const quotesService = new QuotesService(db, requestsService, pricingService, rateBookService, rateBooks, requests, organisations, itemPricing, quotes, flow);
+  const dayPlans = new DayPlanRepository(db);
+  /** An organisation's time zone: where its days (bookings, how long a quote holds) begin and end. */
+  const timeZoneOf = (organisationId: number) => dayPlans.timeZone(organisationId);
+  const quotesService = new QuotesService(db, requestsService, pricingService, rateBookService, rateBooks, requests, organisations, itemPricing, quotes, flow, timeZoneOf);
   const workItems = new WorkItemRepository(db);
   const siteVisits = new SiteVisitRepository(db);
   const corrections = new CorrectionRepository(db);
   const letterRecords = new LetterRepository(db);
-  const dayPlans = new DayPlanRepository(db);
-  const visits = new VisitsService(db, requestsService, flow, siteVisits, workItems, proofMessages, (organisationId) => dayPlans.timeZone(organisationId));
+  const visits = new VisitsService(db, requestsService, flow, siteVisits, workItems, proofMessages, timeZoneOf);
   const letters = new LettersService(db, requestsService, flow, organisations, workItems, corrections, letterRecords, storage, proofMessages, config.publicUrl);
   return {
     repositories: { users, organisations, requests, items, reports, activity },
@@ -114,7 +116,7 @@ export function createServices(db: Db, config: Config, readPool: pg.Pool | null 
     pricing: pricingService,
     ballpark: new BallparkService(requestsService, rateBookService, itemPricing),
     quotes: quotesService,
-    sellerSide: createSellerSideServices(db, config, { requests: requestsService, quotes: quotesService, requestRows: requests, quoteRows: quotes, flow }, sellerNoticesByMail(notifications)),
+    sellerSide: createSellerSideServices(db, config, { requests: requestsService, quotes: quotesService, requestRows: requests, quoteRows: quotes, flow, timeZoneOf }, sellerNoticesByMail(notifications)),
     visits,
     dayPlan: new DayPlanService(db, dayPlans, siteVisits, requestsService, visits, proofMessages, config.publicUrl),
     corrections: new CorrectionsService(db, requestsService, flow, workItems, siteVisits, corrections, storage, proofMessages),

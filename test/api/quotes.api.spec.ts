@@ -92,8 +92,12 @@ describe('POST /api/requests/:id/quotes', () => {
     });
     expect(quote.safetyNotice).toMatch(/licensed/);
     expect(quote.safetyNotice).toMatch(/permit/);
-    const today = new Date();
-    const valid = new Date(Date.UTC(today.getUTCFullYear(), today.getUTCMonth(), today.getUTCDate() + DEMO_RATE_BOOK.terms.quoteValidityDays));
+    // The prices hold for the rate book's days after the day the quote was sent in the contractor's
+    // time zone: a Colorado shop with no zone chosen keeps Denver's days (IANA tz database zone.tab),
+    // read here through the runtime's own time-zone data (ECMA-402 Intl.DateTimeFormat).
+    const sentDay = new Intl.DateTimeFormat('en-CA', { timeZone: 'America/Denver', year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date(quote.sentAt));
+    const [y, m, d] = sentDay.split('-').map(Number);
+    const valid = new Date(Date.UTC(y, m - 1, d + DEMO_RATE_BOOK.terms.quoteValidityDays));
     expect(quote.validUntil).toBe(valid.toISOString().slice(0, 10));
     expect(quote.lines).toEqual([
       expect.objectContaining({

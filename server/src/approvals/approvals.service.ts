@@ -22,7 +22,7 @@ import {
   type ScopeItem,
   type SignApprovalParsed,
 } from '@cc/shared';
-import { lineCents } from '@cc/shared';
+import { lineCents, wallClock } from '@cc/shared';
 import type { Db } from '../db/knex';
 import type { QuoteRepository, StoredQuote } from '../quotes/quote.repository';
 import type { ChangeOrderRepository } from '../change-orders/change-order.repository';
@@ -47,7 +47,6 @@ export interface SigningContext {
 }
 
 const SELLER_SIDE_PARTS: readonly FlowActor[] = ['seller', 'listing-agent', 'admin'];
-const todayUtc = () => new Date().toISOString().slice(0, 10);
 
 /** The seller's decision on the quote: the page that shows it, and signing it. */
 export class ApprovalsService {
@@ -63,6 +62,8 @@ export class ApprovalsService {
     private readonly payments: PaymentRepository,
     private readonly invoices: InvoiceRepository,
     private readonly notices: SellerNotices,
+    /** An organisation's time zone: a quote holds until the end of its last day there. */
+    private readonly timeZoneOf: (organisationId: number) => Promise<string>,
   ) {}
 
   async view(user: CurrentUser, requestId: number): Promise<ApprovalView> {
@@ -176,6 +177,8 @@ export class ApprovalsService {
 
     // Sent versions never change: the one decided on is read before the transaction.
     const stored = await this.quoteRows.find(requestId, input.quoteVersion);
+    // The quote's contractor (as it was sent) decides in which time zone its last day ends.
+    const today = stored ? wallClock(await this.timeZoneOf(stored.contractor.organisationId), Date.now()).date : null;
     await this.db.transaction(async (trx) => {
       const status = await this.approvals.lockRequest(requestId, trx);
       if (status !== request.status || (await this.approvals.find(requestId, trx))) throw new ConflictError('The quote was decided on meanwhile. Reload to see the decision.');
@@ -183,7 +186,7 @@ export class ApprovalsService {
       if (latest !== input.quoteVersion) throw new ConflictError(`Quote version ${latest} is the current one now. Reload and decide on it.`);
       const pricing = await this.approvals.quotePricing(requestId, latest, trx);
       if (!stored || !pricing) throw new NotFoundError('No quote has been sent for this request yet');
-      if (stored.validUntil < todayUtc()) throw new ConflictError(`The prices of this quote held until ${stored.validUntil}. Ask the contractor for a new version.`);
+      if (today !== null && stored.validUntil < today) throw new ConflictError(`The prices of this quote held until ${stored.validUntil}. Ask the contractor for a new version.`);
 
       const pricedIds = stored.lines.filter((l) => l.kind === 'priced' && l.lineItemId !== null).map((l) => l.lineItemId as number);
       const decided = new Map<number, (typeof input.decisions)[number]>();

@@ -21,7 +21,7 @@ import type { SellerNotices } from './seller-notices';
 export function createSellerSideServices(
   db: Db,
   config: Config,
-  base: { requests: RequestsService; quotes: QuotesService; requestRows: RequestRepository; quoteRows: QuoteRepository; flow: FlowService },
+  base: { requests: RequestsService; quotes: QuotesService; requestRows: RequestRepository; quoteRows: QuoteRepository; flow: FlowService; timeZoneOf: (organisationId: number) => Promise<string> },
   notices: SellerNotices,
 ) {
   const approvalRows = new ApprovalRepository(db);
@@ -32,7 +32,7 @@ export function createSellerSideServices(
   const gateway = config.payments ? new PaymentGateway(config.payments) : null;
   const invoices = new InvoicesService(db, base.requests, scopes, approvalRows, paymentRows, invoiceRows);
   return {
-    approvals: new ApprovalsService(db, base.requests, base.quotes, base.quoteRows, base.flow, approvalRows, scopes, changeOrderRows, paymentRows, invoiceRows, notices),
+    approvals: new ApprovalsService(db, base.requests, base.quotes, base.quoteRows, base.flow, approvalRows, scopes, changeOrderRows, paymentRows, invoiceRows, notices, base.timeZoneOf),
     changeOrders: new ChangeOrdersService(db, base.requests, base.flow, approvalRows, scopes, changeOrderRows, notices),
     payments: new PaymentsService(db, base.requests, approvalRows, scopes, paymentRows, invoices, gateway, notices, config.publicUrl),
     invoices,

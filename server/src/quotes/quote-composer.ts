@@ -1,4 +1,4 @@
-import { editionNote, effectiveQuantity, itemStateAfter, lineCents, type HouseCode, type Organisation, type QuoteContractor, type QuoteVersion } from '@cc/shared';
+import { addDays, editionNote, effectiveQuantity, wallClock, itemStateAfter, lineCents, type HouseCode, type Organisation, type QuoteContractor, type QuoteVersion } from '@cc/shared';
 import type { StoredPricingItem } from '../pricing/item-pricing.repository';
 import type { NewQuote, NewQuoteLine } from './quote.repository';
 import type { LoadedRateBook } from '../rate-book/rate-book.service';
@@ -16,10 +16,12 @@ export function quoteContractorOf(org: Organisation): QuoteContractor {
   return { organisationId: org.id, name: org.name, licenceNumber: org.licenceNumber, licenceState: org.licenceState, licenceClass: org.licenceClass, phone: org.phone, address: org.address };
 }
 
-/** The last day a quote sent at `sentAt` holds: `days` calendar days later (UTC dates). */
-export function validUntil(sentAt: Date, days: number): string {
-  const d = new Date(Date.UTC(sentAt.getUTCFullYear(), sentAt.getUTCMonth(), sentAt.getUTCDate() + days));
-  return d.toISOString().slice(0, 10);
+/**
+ * The last day a quote sent at `sentAt` holds: `days` calendar days after the day it was sent, as a
+ * day in the contractor's time zone (`zone`), where the quote's prices are set.
+ */
+export function validUntil(sentAt: Date, days: number, zone: string): string {
+  return addDays(wallClock(zone, sentAt).date, days);
 }
 
 export interface QuoteToCompose {
@@ -27,6 +29,8 @@ export interface QuoteToCompose {
   version: number;
   sentBy: number | null;
   sentAt: Date;
+  /** The contractor's time zone (its days decide how long the prices hold). */
+  timeZone: string;
   note: string | null;
   contractor: QuoteContractor;
   property: QuoteVersion['property'];
@@ -105,7 +109,7 @@ export function composeQuote(q: QuoteToCompose): NewQuote {
     organisationId: q.contractor.organisationId,
     sentBy: q.sentBy,
     sentAt: q.sentAt,
-    validUntil: validUntil(q.sentAt, terms.quoteValidityDays),
+    validUntil: validUntil(q.sentAt, terms.quoteValidityDays, q.timeZone),
     breakdown: q.priced.breakdown,
     warrantyText: terms.warrantyText,
     safetyNotice: QUOTE_SAFETY_NOTICE,

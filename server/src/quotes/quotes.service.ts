@@ -28,6 +28,8 @@ export class QuotesService {
     private readonly items: ItemPricingRepository,
     private readonly quotes: QuoteRepository,
     private readonly flow: FlowService,
+    /** An organisation's time zone (day-plan settings, else its state's): quotes hold for days there. */
+    private readonly timeZoneOf: (organisationId: number) => Promise<string>,
   ) {}
 
   /**
@@ -41,6 +43,7 @@ export class QuotesService {
     const organisationId = request.contractor!.id;
     const org = await this.organisations.findById(organisationId);
     if (!org) throw new NotFoundError('No such contractor');
+    const timeZone = await this.timeZoneOf(organisationId);
     const version = await this.db.transaction(async (trx) => {
       const status = await this.requests.lockStatus(requestId, trx);
       if (!status) throw new ConflictError(refused.notNow);
@@ -72,6 +75,7 @@ export class QuotesService {
           version: next,
           sentBy: user.id,
           sentAt: new Date(),
+          timeZone,
           note: input.note || null,
           contractor: quoteContractorOf(org),
           property: { street: request.street, city: request.city, state: request.state, zip: request.zip },
