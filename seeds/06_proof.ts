@@ -96,7 +96,8 @@ export async function seed(knex: Knex): Promise<void> {
     await services.letters.issue(electrician, request.id, IssueLetterSchema.parse({ isPermitNotRequired: true, signatureName: electrician.name }));
     if (demo.proof !== 'accepted') continue;
     await services.letters.review(inspector, request.id, ProofReviewSchema.parse({ decision: 'accept', note: 'Checked against the letter and the photos' }));
-    // The sale closed: the escrow company wired the invoice's amount, and the contractor records it.
+    // The sale closed today (Bellweather's closing date): the escrow company wired the invoice's
+    // amount, and the contractor records it.
     await services.sellerSide.payments.recordFunds(
       electrician,
       request.id,
