@@ -4,7 +4,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { MAX_INTAKE_PHOTOS, VisitPrep as VisitPrepData } from '@cc/shared';
+import { MAX_INTAKE_PHOTOS, statesAllowing, type RequestStatus, VisitPrep as VisitPrepData } from '@cc/shared';
 import { describeFailure } from '../../core/http/api-error-of';
 import { Notice } from '../../core/http/notice';
 import { EconomicsApi } from '../economics-api';
@@ -34,6 +34,13 @@ export class VisitPrep {
   readonly items = input<readonly PrepItem[]>([]);
   /** Whether to list the report's evidence per item (the visit screen does). */
   readonly showEvidence = input(false);
+  /** The request's status, when the page knows it: past the visits, nobody adds photos any more. */
+  readonly status = input<RequestStatus | null>(null);
+  /** Whether the request is past the states in which photos are added (the flow table's add-intake-photo). */
+  protected readonly isPastPhotos = computed(() => {
+    const status = this.status();
+    return status !== null && !statesAllowing('add-intake-photo').includes(status);
+  });
 
   protected readonly data = signal<VisitPrepData | null>(null);
   protected readonly files = signal<File[]>([]);
