@@ -1,8 +1,7 @@
 import { Routes } from '@angular/router';
 import { hasRole } from './core/auth/has-role-guard';
 import { signedIn } from './core/auth/signed-in-guard';
-import { requestPricingRoutes } from './pricing/pricing.routes';
-import { workRoutes } from './work/work.routes';
+import { letterVerificationRoutes } from './work/work.routes';
 
 export const routes: Routes = [
   { path: '', pathMatch: 'full', redirectTo: 'requests' },
@@ -21,8 +20,7 @@ export const routes: Routes = [
     title: 'Stop the daily digest · Closing Circuit',
     loadComponent: () => import('./notifications/unsubscribe/unsubscribe').then((m) => m.Unsubscribe),
   },
-  ...requestPricingRoutes,
-  ...workRoutes,
+  ...letterVerificationRoutes,
   {
     path: 'dashboard',
     canActivate: [signedIn],
