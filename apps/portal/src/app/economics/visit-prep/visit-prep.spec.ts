@@ -11,7 +11,8 @@ describe('VisitPrep (photos for the electrician)', () => {
     const fixture = TestBed.createComponent(VisitPrep);
     fixture.componentRef.setInput('requestId', 31);
     fixture.componentRef.setInput('status', status);
-    await fixture.whenStable();
+    // The first change detection starts the resource's request (whenStable would wait for its answer).
+    fixture.detectChanges();
     http.expectOne('/api/requests/31/visit-prep').flush(prep);
     await fixture.whenStable();
     return fixture.nativeElement;

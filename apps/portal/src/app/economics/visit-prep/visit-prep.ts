@@ -1,4 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -42,7 +43,9 @@ export class VisitPrep {
     return status !== null && !statesAllowing('add-intake-photo').includes(status);
   });
 
-  protected readonly data = signal<VisitPrepData | null>(null);
+  /** The photos and evidence, read again whenever the request changes (and after an upload). */
+  protected readonly prep = rxResource({ params: () => this.requestId(), stream: ({ params }) => this.api.visitPrep(params) });
+  protected readonly data = computed<VisitPrepData | null>(() => (this.prep.hasValue() ? this.prep.value() : null));
   protected readonly files = signal<File[]>([]);
   protected readonly itemId = signal<number | null>(null);
   protected readonly caption = signal('');
@@ -56,11 +59,10 @@ export class VisitPrep {
   });
 
   constructor() {
-    effect(() => this.load(this.requestId()));
-  }
-
-  private load(requestId: number): void {
-    this.api.visitPrep(requestId).subscribe({ next: (d) => this.data.set(d), error: (err: unknown) => this.notice.failure(err) });
+    effect(() => {
+      const failure = this.prep.error();
+      if (failure) this.notice.failure(failure);
+    });
   }
 
   protected labelOf(itemId: number | null): string {
@@ -91,7 +93,7 @@ export class VisitPrep {
         this.caption.set('');
         input.value = '';
         this.notice.success(files.length === 1 ? 'Photo added.' : `${files.length} photos added.`);
-        this.load(this.requestId());
+        this.prep.reload();
       },
       error: (err: unknown) => {
         this.isBusy.set(false);

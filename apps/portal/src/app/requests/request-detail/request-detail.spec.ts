@@ -64,6 +64,9 @@ describe('RequestDetail', () => {
     loader = TestbedHarnessEnvironment.loader(fixture);
     await fixture.whenStable();
     httpTesting.expectOne('/api/requests/12').flush({ ...detail(myParts), ...overrides });
+    // Rendering the page starts the photo panel's resource; it is answered before waiting for stability.
+    fixture.detectChanges();
+    flushActivity();
     await fixture.whenStable();
     // The line-items area loads the request's reports and items (none yet in these cases).
     httpTesting.expectOne('/api/requests/12/reports').flush([]);
