@@ -1,5 +1,6 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { MatCheckboxModule } from '@angular/material/checkbox';
@@ -43,9 +44,6 @@ export class DayPage {
 
   protected readonly electricians = signal<Electrician[]>([]);
   protected readonly plannedDays = signal<PlannedDay[]>([]);
-  protected readonly pickList = signal<PickList | null>(null);
-  protected readonly economics = signal<DayEconomics | null>(null);
-  protected readonly isLoading = signal(false);
   protected readonly busyLine = signal<string | null>(null);
   protected readonly kindLabels = PICK_KIND_LABELS;
   protected readonly spareNote = spareNote;
@@ -57,6 +55,14 @@ export class DayPage {
     const visit = Number(this.visit());
     return { date, electricianId: id, siteVisitId: Number.isInteger(visit) && visit > 0 ? visit : null };
   });
+  /** The chosen day's pick list and economics, read again when the day (or visit) changes; none without a day. */
+  private readonly dayData = rxResource({
+    params: () => this.day() ?? undefined,
+    stream: ({ params }) => forkJoin([this.api.pickList(params), this.api.day(params)]),
+  });
+  protected readonly pickList = computed<PickList | null>(() => (this.dayData.hasValue() ? this.dayData.value()[0] : null));
+  protected readonly economics = computed<DayEconomics | null>(() => (this.dayData.hasValue() ? this.dayData.value()[1] : null));
+  protected readonly isLoading = computed(() => this.dayData.isLoading());
   protected readonly groups = computed(() => {
     const lines = this.pickList()?.lines ?? [];
     return PICK_KINDS.map((kind) => ({ kind, label: PICK_KIND_LABELS[kind], lines: lines.filter((l) => l.kind === kind) })).filter((g) => g.lines.length);
@@ -76,36 +82,14 @@ export class DayPage {
       error: (err: unknown) => this.notice.failure(err),
     });
     effect(() => {
-      const day = this.day();
-      if (day) this.load(day);
-      else {
-        this.pickList.set(null);
-        this.economics.set(null);
-      }
-    });
-  }
-
-  private load(day: DayRef): void {
-    this.isLoading.set(true);
-    forkJoin([this.api.pickList(day), this.api.day(day)]).subscribe({
-      next: ([list, economics]) => {
-        this.pickList.set(list);
-        this.economics.set(economics);
-        this.isLoading.set(false);
-      },
-      error: (err: unknown) => {
-        this.isLoading.set(false);
-        this.pickList.set(null);
-        this.economics.set(null);
-        this.notice.failure(err);
-      },
+      const failure = this.dayData.error();
+      if (failure) this.notice.failure(failure);
     });
   }
 
   /** The spare allowance changed: the list is counted again. */
   protected reloadList(): void {
-    const day = this.day();
-    if (day) this.load(day);
+    this.dayData.reload();
   }
 
   /** Opens another day (or electrician) by changing the address. */
@@ -126,7 +110,8 @@ export class DayPage {
         this.busyLine.set(null);
         // A one-visit list keeps its own lines; the ticks are the day's.
         const current = this.pickList();
-        this.pickList.set(current && current.siteVisitId !== null ? { ...current, lines: current.lines.map((l) => ({ ...l, isTicked: list.lines.find((x) => x.key === l.key)?.isTicked ?? l.isTicked })), tickedCount: current.lines.filter((l) => list.lines.find((x) => x.key === l.key)?.isTicked ?? l.isTicked).length } : list);
+        const next = current && current.siteVisitId !== null ? { ...current, lines: current.lines.map((l) => ({ ...l, isTicked: list.lines.find((x) => x.key === l.key)?.isTicked ?? l.isTicked })), tickedCount: current.lines.filter((l) => list.lines.find((x) => x.key === l.key)?.isTicked ?? l.isTicked).length } : list;
+        this.dayData.value.update((data) => (data ? [next, data[1]] : data));
       },
       error: (err: unknown) => {
         this.busyLine.set(null);
