@@ -28,7 +28,7 @@ interface Line {
   readonly text: string;
 }
 
-const ITEM_MARKER = /^\s*(?:\d{1,3}(?:\.\d{1,3})+\.?|\d{1,3}[.)]|[a-h][.)]|item\s+\d{1,3}\s*[:.)-]|[-•*‣▪◦●·–—>]|\[\s?[x ]?\])\s+/i;
+const ITEM_MARKER = /^\s*(?:\d{1,3}(?:\.\d{1,3})+\.?|\d{1,3}[.)]|[a-h][.)]|item\s+\d{1,3}\s*[:.)-]|\[\d{1,3}\]|[-•*‣▪◦●·–—>]|\[\s?[x ]?\])\s+/i;
 const NOISE_LINE = /^(?:[|+:=\s-]{3,}|.{0,80}\bpage\s+\d+(?:\s*(?:of|\/)\s*\d+)?|-{1,2}\s*\d+\s+of\s+\d+\s*-{1,2}|\d+\s*\/\s*\d+)\s*$/i;
 const CONNECTOR_END = /(?:[,;&/-]|\b(?:and|or|the|a|an|at|of|to|with|in|on|for|by|from|is|are|was|were|not|no))$/i;
 /** A checklist line that ends in its answer ("GFCI at exterior: No"). */
@@ -84,6 +84,9 @@ export function splitBlocks(joined: string): Block[] {
 
   // Numbered headings that named a room, most recent first.
   const numbered: Array<{ readonly number: string; readonly room: Room }> = [];
+  // A summary whose items stand under topic headings of their own ("REPORT SUMMARY" then
+  // "ELECTRICAL"): the summary, its topic titles so far, and whether an item of its own has come since its heading.
+  let summary: { readonly title: string; readonly topics: Set<string>; hasTopics: boolean; hasContent: boolean } | null = null;
   const lines = splitLines(joined);
   const shortLine = shortLineFor(lines);
   for (const line of lines) {
@@ -99,13 +102,26 @@ export function splitBlocks(joined: string): Block[] {
       if (headingLine.type === 'heading') {
         // "6.3 RECEPTACLES" under "6.0 ELECTRICAL - DETACHED GARAGE" is still in the garage.
         const number = HEADING_NUMBER.exec(content)?.[1] ?? null;
-        const heading = headingLine.heading;
+        let heading = headingLine.heading;
+        const topic = heading.title.toLowerCase();
+        if (SUMMARY_HEADING.test(heading.title)) {
+          summary = { title: heading.title, topics: new Set(), hasTopics: false, hasContent: false };
+        } else if (summary && number === null && (summary.hasTopics || !summary.hasContent) && !summary.topics.has(topic) && !BODY_WORD.test(topic)) {
+          // A topic heading right under a summary heading, and its siblings, are still the summary
+          // (a numbered heading or a topic named again starts the body).
+          summary.topics.add(topic);
+          summary.hasTopics = true;
+          heading = { ...heading, title: `${heading.title} (${summary.title})` };
+        } else {
+          summary = null;
+        }
         const parent = number !== null ? numbered.find((n) => isSubsection(number, n.number)) : undefined;
         section = heading.room === null && heading.kind !== 'non-electrical' && parent ? { ...heading, room: parent.room } : heading;
         if (number !== null && section.room !== null) numbered.unshift({ number, room: section.room });
       } else if (headingLine.startsBody && section.title !== null && SUMMARY_HEADING.test(section.title)) {
         // "COMMENTS" after the summary: the body starts, and its findings merge with the summary's.
         section = { kind: 'general', title: content.replace(/\s*:$/, ''), room: null };
+        summary = null;
       }
       continue;
     }
@@ -117,9 +133,12 @@ export function splitBlocks(joined: string): Block[] {
     }
     const marker = ITEM_MARKER.exec(line.text);
     if (marker || !builder || !prevLine) {
+      // A note about the summary itself ("This summary is not the entire report") is not one of its items.
+      if (summary && !SUMMARY_NOTE.test(content)) summary.hasContent = true;
       open(line, line.start + (marker ? marker[0].length : 0), section);
       continue;
     }
+    if (summary && !SUMMARY_NOTE.test(content) && (/[.!?]$/.test(prevLine.text.trim()) || isTableRow(line.text))) summary.hasContent = true;
     joinLine(builder, prevLine, line, shortLine);
     builder.appendSource(joined, line.start, line.end);
     prevLine = line;
@@ -127,6 +146,11 @@ export function splitBlocks(joined: string): Block[] {
   close();
   return blocks;
 }
+
+/** A line about the summary itself, not one of its items. */
+const SUMMARY_NOTE = /\b(?:summary|report)\b/i;
+/** A heading word that opens the report's body ("ELECTRICAL -- DETAILED OBSERVATIONS"). */
+const BODY_WORD = /\b(?:detail\w*|observations|findings|body|comments|discussion|narrative)\b/i;
 
 /** The numbering of a heading line ("6.0", "6.3", "7.2.1"). */
 const HEADING_NUMBER = /^\s*(?:section\s+)?(\d{1,2}(?:\.\d{1,2})*)\.?\s/i;

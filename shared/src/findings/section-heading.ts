@@ -15,7 +15,7 @@ const ELECTRICAL = new Set([
   'electrical', 'electric', 'elec', 'electricity', 'wiring', 'panel', 'panels', 'panelboard', 'subpanel',
   'sub-panel', 'subpanels', 'receptacles', 'receptacle', 'outlets', 'switches', 'lighting', 'lights',
   'gfci', 'gfcis', 'afci', 'afcis', 'grounding', 'bonding', 'smoke', 'alarms', 'alarm', 'detectors',
-  'monoxide', 'carbon', 'co', 'detector', 'circuits', 'breakers', 'distribution', 'disconnect', 'fixtures',
+  'monoxide', 'carbon', 'co', 'detector', 'circuits', 'breakers', 'distribution', 'disconnect', 'fixtures', 'fuse', 'fuses', 'meter',
 ]);
 const NON_ELECTRICAL = new Set([
   'roof', 'roofing', 'roofs', 'gutters', 'gutter', 'chimney', 'chimneys', 'flashing', 'plumbing',
@@ -41,7 +41,7 @@ const GENERAL = new Set(['summary', 'general', 'detailed', 'detail', 'interior',
  */
 export const SUMMARY_HEADING = /summary|overview|at a glance|\b(?:key|significant|major|priority|principal|notable)\s+(?:[\w-]+\s+){0,3}?(?:findings|items|concerns|issues|defects|deficiencies)\b|highlights|action items/i;
 /** A summary heading with words of its own after it ("SUMMARY (electrical items requiring attention)"). */
-const SUMMARY_START = /^(?:summary|overview|key|significant|major|priority)\b/i;
+const SUMMARY_START = /^(?:summary|overview|key|significant|major|priority|(?:report|inspection|deficiency|deficiencies|defect|repair|findings)\s+summary)\b/i;
 /** A label that starts the report's body after its summary ("COMMENTS", "DETAILED FINDINGS", "Observations"). */
 const BODY_PART = /^(?:(?:detailed|full|report)\s+)?(?:comments|findings|observations|details|discussion|body|narrative)$/i;
 const FILLER = new Set([
@@ -76,7 +76,11 @@ function isHeadingWord(w: string): boolean {
 
 export function classifyHeadingLine(line: string): HeadingLine | null {
   const trimmed = line.trim();
-  if (trimmed.length > 70) return null;
+  if (trimmed.length > 70) {
+    // "SUMMARY OF ELECTRICAL CONCERNS (details follow in the body of the report)": a long note in brackets.
+    const bare = trimmed.replace(/\s*\([^()]*\)\s*$/, '');
+    return bare !== trimmed && bare.length <= 70 && SUMMARY_HEADING.test(bare) ? classifyHeadingLine(bare) : null;
+  }
   const title = trimmed.replace(NUMBERING, '').replace(/\s*[:\-–—]+\s*$/, '').trim();
   if (title.length === 0) return null;
   // "ELECTRICAL SUMMARY (see 7.1 - 7.6 for detail)": a summary heading with a note in brackets.
@@ -119,7 +123,8 @@ function roomLabel(line: string, title: string, words: readonly string[]): Headi
 }
 
 function headingKind(words: readonly string[]): Heading['kind'] | null {
-  if (words.some((w) => ELECTRICAL.has(w))) return 'electrical';
+  // "SERVICE ENTRANCE", "SERVICE EQUIPMENT": the electrical service.
+  if (words.some((w) => ELECTRICAL.has(w)) || (words.includes('service') && words.some((w) => w === 'entrance' || w === 'equipment'))) return 'electrical';
   if (words.some((w) => ROOM_WORDS.has(w))) return 'room';
   if (words.some((w) => NON_ELECTRICAL.has(w))) return 'non-electrical';
   if (words.some((w) => GENERAL.has(w))) return 'general';

@@ -1,0 +1,73 @@
+import { parseText } from './report-parser';
+
+/** (code, room, quantity) of every finding. */
+function read(text: string) {
+  return parseText(text).findings.map((f) => [f.code, f.room, f.quantity]);
+}
+
+// Rules of the fourth tuning round (docs/parser.md, "Fourth round"). Each example is new text
+// written for this spec, not a sentence of the corpus.
+
+describe('grouping: summaries in more shapes (common practice: summary list plus detailed body)', () => {
+  it('reads "<word> SUMMARY -- ELECTRICAL" as a summary and merges its item with the body', () => {
+    const text = [
+      'REPAIR SUMMARY -- ELECTRICAL',
+      ' 1. Den receptacle - loose in box.',
+      '',
+      'DETAIL',
+      'Den',
+      ' - The receptacle left of the bookcase is loose in its box and pulls out when a plug is removed.',
+    ].join('\n');
+    expect(read(text)).toEqual([['receptacle-damaged', 'living-area', 1]]);
+  });
+
+  it('reads a summary heading with a long note in brackets', () => {
+    const text = [
+      'SUMMARY OF ELECTRICAL ITEMS (each item is described again in the sections of the report below)',
+      '  - Laundry receptacle not GFCI protected.',
+      '',
+      'ELECTRICAL -- LAUNDRY',
+      'The receptacle behind the washer in the laundry room is not GFCI protected.',
+    ].join('\n');
+    expect(read(text)).toEqual([['gfci-missing', 'laundry', 1]]);
+  });
+
+  it('keeps topic headings right under a summary heading in the summary, until a numbered heading', () => {
+    const text = [
+      'INSPECTION SUMMARY',
+      'This summary is not the whole report.',
+      '',
+      'ELECTRICAL',
+      '  1. Office ceiling light inoperative.',
+      '',
+      'HEATING',
+      '  2. Furnace filter dirty.',
+      '',
+      '7.2 Office',
+      'The ceiling light in the office did not come on with its switch; a new bulb was tried.',
+    ].join('\n');
+    expect(read(text)).toEqual([['light-fixture', 'office', 1]]);
+  });
+
+  it('reads bracketed item numbers ("[2]") as items of their own', () => {
+    const text = ['SUMMARY -- ELECTRICAL ITEMS', '  [1] Loose switch (hall).', '  [2] Ceiling fan wobbles (den).'].join('\n');
+    expect(read(text)).toEqual([
+      ['switch-issue', 'hallway', 1],
+      ['fan-support', 'living-area', 1],
+    ]);
+  });
+
+  it('reads "SERVICE ENTRANCE" and "FUSE PANEL" as electrical headings that end the summary', () => {
+    const text = [
+      'SUMMARY',
+      '  - Drip loop missing at the service mast.',
+      '',
+      'SERVICE ENTRANCE',
+      'The service mast on the east wall has no drip loop; water can follow the conductors into the mast.',
+      '',
+      'FUSE PANEL',
+      'Fuses were the correct size for the wire.',
+    ].join('\n');
+    expect(read(text)).toEqual([['service-equipment', 'exterior', null]]);
+  });
+});
