@@ -71,3 +71,28 @@ describe('grouping: summaries in more shapes (common practice: summary list plus
     expect(read(text)).toEqual([['service-equipment', 'exterior', null]]);
   });
 });
+
+describe('computed: overcurrent devices in shorthand (NFPA 70 (NEC) 2023, 240.4(D) and 110.3(B))', () => {
+  it('reads "12 ga Al" as 12 AWG aluminum, allowed 15 A (240.4(D))', () => {
+    expect(read('Panel\n- Slot 7: 20A SP brkr on 12 ga Al (den ckt).')).toEqual([['overcurrent-mismatch', 'panel', 1]]);
+  });
+
+  it('reads a pole mark ("2P") as a breaker and "guage" as gauge (240.4(D): 10 AWG copper 30 A)', () => {
+    expect(read('- 40A 2P to the dryer, cond 10 guage Cu.')).toEqual([['overcurrent-mismatch', 'panel', 1]]);
+  });
+
+  it('compares an "Installed:" rating with the nameplate maximum of the sentence before (110.3(B))', () => {
+    expect(read('- Heat pump nameplate max fuse/brkr 30A. Installed: 2P 40A.')).toEqual([['overcurrent-mismatch', 'panel', 1]]);
+  });
+
+  it('carries no nameplate that was already compared in its own sentence', () => {
+    const text = 'The condenser is on a 20 amp breaker and its nameplate lists 20 amp maximum. The dryer is on a 30 amp breaker with 10 AWG copper.';
+    expect(read(text)).toEqual([]);
+  });
+});
+
+describe('polarity: a defect an earlier inspection reported (common practice: history is no finding)', () => {
+  it('denies a defect an earlier inspection report noted', () => {
+    expect(read('A 2021 inspection report from the seller noted a double-tapped breaker, which an electrician has since corrected.')).toEqual([]);
+  });
+});

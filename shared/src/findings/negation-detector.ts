@@ -9,7 +9,7 @@ import { scanAll } from './regex-scan';
  * before it ("reversed polarity or open grounds: none found"). Cues never cross a clause, and a
  * cue inside a phrase ("no GFCI", "did not trip") is part of the defect, not a denial.
  */
-const CUE_BEFORE = /\b(?:no|not|never|none of|free of|no evidence of|no signs? of|no indication of|did not (?:observe|find|note|see|detect)|didn't (?:observe|find|note|see)|absence of|if|unless|whether|in the event (?:of|that)|should (?:any|there be)|previously|formerly|former|abandoned|once had|no longer|had been (?:replaced|removed|corrected|repaired)|has been (?:replaced|removed|corrected|repaired)|was (?:replaced|removed|corrected|repaired))\b/gi;
+const CUE_BEFORE = /\b(?:no|not|never|none of|free of|no evidence of|no signs? of|no indication of|did not (?:observe|find|note|see|detect)|didn't (?:observe|find|note|see)|absence of|if|unless|whether|in the event (?:of|that)|should (?:any|there be)|previously|formerly|former|abandoned|once had|no longer|had been (?:replaced|removed|corrected|repaired)|has been (?:replaced|removed|corrected|repaired)|was (?:replaced|removed|corrected|repaired)|(?:previous|prior|earlier|(?:19|20)\d\d) (?:home )?inspection(?: report)?)\b/gi;
 /**
  * After the phrase: not found ("not observed", "none"), positive ("as required", "tested OK") or
  * historical ("has been removed", "was replaced in 2015").

@@ -45,14 +45,14 @@ const SHORTHAND: Readonly<Record<string, string>> = {
   cvr: 'cover', cvrs: 'covers', cov: 'cover', plt: 'plate', plts: 'plates',
   wp: 'weatherproof', wr: 'weather-resistant',
   al: 'aluminum', alum: 'aluminum', aluminium: 'aluminum', cu: 'copper',
-  ga: 'AWG', 'ga.': 'AWG', gauge: 'AWG', gage: 'AWG', awg: 'AWG',
+  ga: 'AWG', 'ga.': 'AWG', gauge: 'AWG', gage: 'AWG', guage: 'AWG', awg: 'AWG',
   obs: 'observed', 'obs.': 'observed', unk: 'unknown', 'unk.': 'unknown', clg: 'ceiling', btn: 'button', mfr: 'manufactured',
   bsmt: 'basement', bsmnt: 'basement', bdrm: 'bedroom', bdrms: 'bedrooms', bedrm: 'bedroom', bedrms: 'bedrooms', brs: 'bedrooms', kit: 'kitchen', ktchn: 'kitchen',
   gar: 'garage', ba: 'bathroom', bth: 'bathroom', bthrm: 'bathroom', lndry: 'laundry', hwy: 'hallway', ext: 'exterior', extr: 'exterior',
 };
 
 /** Shorthand that is only expanded where the context says it is the trade word. */
-const CONTEXTUAL = new Set(['al', 'cu', 'sd', 'sds', 'sec', 'ser', 'sw', 'lt', 'lts', 'cb', 'kt', 'ba', 'gar', 'kit', 'ext', 'wp', 'wr', 'det', 'dets', 'cond', 'conds', 'ga', 'ga.', 'gauge', 'gage', 'awg']);
+const CONTEXTUAL = new Set(['al', 'cu', 'sd', 'sds', 'sec', 'ser', 'sw', 'lt', 'lts', 'cb', 'kt', 'ba', 'gar', 'kit', 'ext', 'wp', 'wr', 'det', 'dets', 'cond', 'conds', 'ga', 'ga.', 'gauge', 'gage', 'guage', 'awg']);
 
 const NUMBER_WORDS: Readonly<Record<string, number>> = {
   two: 2, three: 3, four: 4, five: 5, six: 6, seven: 7, eight: 8, nine: 9, ten: 10, eleven: 11, twelve: 12,
@@ -161,7 +161,7 @@ function isTransposition(a: string, b: string): boolean {
 /** A word, with the characters shorthand uses ("k&t", "w/o", "j-box", "ungr'd", "inop."). */
 const WORD = /#\s?\d{1,2}\b|[A-Za-z][A-Za-z'&/-]*[A-Za-z/]\.?|[A-Za-z]\.?|\d+(?:\.\d+)?/g;
 /** Words after which "Al"/"Cu" are metals, and gauge words that follow a size. */
-const WIRE_CONTEXT = /^(?:\d{1,2}|#\d{1,2}|awg|wire|wires|wiring|conductors?|branch|circuits?|cable|solid|stranded|and|or|\/)$/i;
+const WIRE_CONTEXT = /^(?:\d{1,2}|#\d{1,2}|awg|ga\.?|gauge|gage|guage|wire|wires|wiring|conductors?|branch|circuits?|cable|solid|stranded|and|or|\/)$/i;
 const SIZE = /^(?:#\s?)?(\d{1,2})$/;
 
 function capitalised(original: string, replacement: string): string {
@@ -216,6 +216,7 @@ function contextAllows(key: string, prev: string, next: string, gapBefore: strin
     case 'ga.':
     case 'gauge':
     case 'gage':
+    case 'guage':
     case 'awg':
       return SIZE.test(prev) && /^[\s-]*$/.test(gapBefore);
     case 'sd':
