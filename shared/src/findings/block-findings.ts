@@ -98,7 +98,7 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
     live.forEach((match, i) => {
       const isNormalised = sentence.changed.some((c) => c.start < match.end && match.start < c.end);
       for (const place of placements[i]) {
-        const counted = findingQuantity(match.rule.code, place.countText, place.articleLimit, live.length === 1 && place.laterText ? place.laterText : null);
+        const counted = findingQuantity(match.rule.code, place.countText, place.articleLimit, live.length === 1 && place.laterText ? place.laterText : null, place.subjectText ?? '');
         // A device implied by its section at one named place ("BR2: none") is one device.
         const quantity = counted === null && match === implied && place.room !== 'whole-house' && !isPluralPlace(sentence.text, rooms.find((r) => r.room === place.room)?.text ?? '') ? 1 : counted;
         // The grounding of a service is one system: a sentence naming its parts in two places is one defect.

@@ -96,3 +96,38 @@ describe('polarity: a defect an earlier inspection reported (common practice: hi
     expect(read('A 2021 inspection report from the seller noted a double-tapped breaker, which an electrician has since corrected.')).toEqual([]);
   });
 });
+
+describe('counts: numbers and singular devices on unseen wording (common practice: a singular device is one)', () => {
+  it('reads the count after a room named twice ("In the den, the two hearth receptacles")', () => {
+    expect(read('In the den, the two hearth receptacles beside the fireplace have reversed polarity.')).toEqual([['reversed-polarity', 'living-area', 2]]);
+  });
+
+  it('reads "bedroom two receptacles" as a count of two, not bedroom 2', () => {
+    expect(read('In the north bedroom two receptacles tested with an open ground.')).toEqual([['open-ground', 'bedroom', 2]]);
+  });
+
+  it('reads "any of the three bedrooms" as three', () => {
+    expect(read('No smoke alarms in any of the three bedrooms.')).toEqual([['smoke-co-alarm', 'bedroom', 3]]);
+  });
+
+  it('counts the subject of the clause for a second defect that names no device', () => {
+    expect(read('The receptacle on the garage wall is cracked and is not GFCI protected.')).toEqual([
+      ['receptacle-damaged', 'garage', 1],
+      ['gfci-missing', 'garage', 1],
+    ]);
+  });
+
+  it('reads a misspelt singular receptacle as one device', () => {
+    expect(read('No GFCI protection at the laundry recepticle.')).toEqual([['gfci-missing', 'laundry', 1]]);
+  });
+});
+
+describe('exposed wiring in shorthand (NFPA 70 (NEC) 2023, 400.12: flexible cord is no substitute for fixed wiring)', () => {
+  it('reads "ext. cord" and "perm. wiring" mid-sentence as the words they stand for', () => {
+    expect(read('Laundry\n - Freezer fed by ext. cord through the wall, used as perm. wiring.')).toEqual([['exposed-wiring', 'laundry', 1]]);
+  });
+
+  it('reads a pool equipment pad as outside', () => {
+    expect(read('Pump timer | Equipment pad | Conduit pulled loose from the box; conductors exposed.')).toEqual([['exposed-wiring', 'exterior', null]]);
+  });
+});

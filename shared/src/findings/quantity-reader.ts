@@ -18,6 +18,8 @@ const UNIT = /^(?:a|amps?|amperes?|v|volts?|awg|gauge|ga|ft|feet|foot|inch(?:es)
 /** Words before a number that make it a name or an index ("bedroom 2", "slot 14", "#3"). */
 const INDEX_BEFORE = /^(?:bed\s?rooms?|bath(?:room)?s?|br|bdrms?|rooms?|circuits?|breakers?|no|nos|item|items|page|section|unit|level|floor|space|position|slot|photo|fig|figure|step|zone|#|spaces|about|approximately|approx)$/i;
 const ALLOWED_BETWEEN = 3;
+/** A plural countable noun: after an index word a number word counts it ("bedroom two receptacles"). */
+const PLURAL_COUNTABLE = /^(?:receptacles|outlets|devices|breakers|fuses|lights|fixtures|switches|boxes|covers|plates|alarms|detectors|fans|cords|splices)$/i;
 /** Vague words that quantify only a noun that follows ("all receptacles"), not a manner ("at all speeds"). */
 const VAGUE_BEFORE_NOUN_ONLY = new Set(['all', 'every']);
 /** A word, a bracketed count ("(3)", "(x2)") or a punctuation mark. */
@@ -80,7 +82,8 @@ export function readCount(text: string, articleLimit = Infinity): number | 'vagu
     const count = countOf(word);
     if (count === null || count === 0) continue;
     if ((word === 'a' || word === 'an') && tokens[i].index >= articleLimit) continue;
-    if (i > 0 && INDEX_BEFORE.test(tokens[i - 1].word)) continue;
+    // "bedroom 2" is an index, but "bedroom two receptacles" is a count.
+    if (i > 0 && INDEX_BEFORE.test(tokens[i - 1].word) && !(/^[a-z]/.test(word) && count > 1 && PLURAL_COUNTABLE.test(tokens[i + 1]?.word ?? ''))) continue;
     const next = tokens[i + 1]?.word;
     if (next !== undefined && UNIT.test(next) && word !== 'a' && word !== 'an') continue;
     if (/^\d/.test(word) && tokens[i - 1]?.word === ':') return count;
@@ -106,9 +109,12 @@ function isNounAhead(tokens: Token[], i: number): boolean {
   return false;
 }
 
-/** "all three receptacles": a vague word directly followed by a number gives way to it. */
+/** "all three receptacles", "any of the three bedrooms": a vague word followed by a number gives way to it. */
 function isNumberAhead(tokens: Token[], i: number): boolean {
-  const next = tokens[i + 1]?.word;
+  let j = i + 1;
+  if (tokens[j]?.word === 'of') j++;
+  if (j > i + 1 && /^(?:the|these|those|its|their)$/.test(tokens[j]?.word ?? '')) j++;
+  const next = tokens[j]?.word;
   return next !== undefined && countOf(next) !== null && next !== 'a' && next !== 'an';
 }
 
@@ -124,7 +130,7 @@ const ONE_DEVICE = new Set(['receptacle-damaged', 'gfci-inoperative', 'fan-suppo
  * (plural). Compounds come first so that "cover plates" is plural. Cable and wire are left out: an
  * inspector's "NM cable is exposed" speaks of wiring, not of one cable.
  */
-const DEVICE_NOUN = /\b(?:((?:cover|face|wall|switch|outlet|receptacle|filler)[- ]?plate|(?:recessed |can )?light housing|light fixture|smoke (?:alarm|detector)|co (?:alarm|detector)|carbon monoxide (?:alarm|detector)|ceiling fan|junction box|j-box|gfci (?:receptacle|outlet|breaker|device)|receptacle|outlet|device|duplex|gfci|breaker|fuse|fixture|light|luminaire|lamp|bulb|globe|fan|switch|box|splice|cover|plate|alarm|detector|cord|knockout|screw|terminal|tap|pendant|sconce|chandelier|housing)(s|es)?)\b/gi;
+const DEVICE_NOUN = /\b(?:((?:cover|face|wall|switch|outlet|receptacle|filler)[- ]?plate|(?:recessed |can )?light housing|light fixture|smoke (?:alarm|detector)|co (?:alarm|detector)|carbon monoxide (?:alarm|detector)|ceiling fan|junction box|j-box|gfci (?:receptacle|outlet|breaker|device)|rec[ei]pt?[aeiu]?c(?:le|al|el)|rcpt|outlet|device|duplex|gfci|breaker|fuse|fixture|light|luminaire|lamp|bulb|globe|fan|switch|box|splice|cover|plate|alarm|detector|cord|knockout|screw|terminal|tap|pendant|sconce|chandelier|housing)(s|es)?)\b/gi;
 /** Nouns that name the protection itself when the defect is its absence ("no GFCI protection"). */
 const PROTECTION_NOUN = /^(?:gfci|afci)$/i;
 const CONDUCTORS_UNDER_ONE = /\b(?:two|2|three|3|both|multiple)\s+(?:\w+\s+)?(?:wires|conductors|neutrals|circuits|feeds)\b/gi;
@@ -136,7 +142,7 @@ const EXPLICIT_ONLY = new Set(['panel-deficiency', 'exposed-wiring']);
  * number ("several", "the receptacles"); 1 for a singular device ("a loose receptacle", "the cover
  * plate by the back door"); null for codes that are conditions, not devices.
  */
-export function findingQuantity(code: string, countText: string, articleLimit: number, laterText: string | null): number | null {
+export function findingQuantity(code: string, countText: string, articleLimit: number, laterText: string | null, subjectText = ''): number | null {
   if (UNCOUNTED.has(code)) return null;
   // A double tap is counted in breakers (terminals), not in the conductors under one terminal.
   if (code === 'double-tap') countText = countText.replace(CONDUCTORS_UNDER_ONE, (m) => ' '.repeat(m.length));
@@ -147,11 +153,26 @@ export function findingQuantity(code: string, countText: string, articleLimit: n
     const later = readCount(laterText, 0);
     if (typeof later === 'number') return later;
   }
-  const nouns = scanAll(DEVICE_NOUN, countText).filter((m) => !(code === 'gfci-missing' && PROTECTION_NOUN.test(m[1])));
-  if (nouns.length > 0) {
-    const first = nouns[0];
-    if (first[2]) return null;
-    return EXPLICIT_ONLY.has(code) && !/^cord$/i.test(first[1]) ? null : 1;
+  const nouns = deviceNouns(code, countText);
+  if (nouns.length > 0) return singularCount(code, nouns[0]);
+  // The part names no device: the clause's subject before it does ("The receptacle by the deck has
+  // no cover and is not GFCI protected"), or "it" stands for one device.
+  if (subjectText !== '' && !EXPLICIT_ONLY.has(code)) {
+    const subject = readCount(subjectText, Infinity);
+    if (typeof subject === 'number') return subject;
+    const named = subject === null ? deviceNouns(code, subjectText) : [];
+    if (named.length > 0) return singularCount(code, named[0]);
   }
+  if (/^\s*it\b/i.test(countText) && code === 'gfci-missing') return 1;
   return ONE_DEVICE.has(code) ? 1 : null;
+}
+
+function deviceNouns(code: string, text: string): RegExpExecArray[] {
+  return scanAll(DEVICE_NOUN, text).filter((m) => !(code === 'gfci-missing' && PROTECTION_NOUN.test(m[1])));
+}
+
+/** One for a singular device noun, null for a plural (or for wiring, which is counted only by a number). */
+function singularCount(code: string, noun: RegExpExecArray): number | null {
+  if (noun[2]) return null;
+  return EXPLICIT_ONLY.has(code) && !/^cord$/i.test(noun[1]) ? null : 1;
 }

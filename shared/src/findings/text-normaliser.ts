@@ -188,6 +188,9 @@ function replacementFor(tokens: readonly Token[], i: number, source: string): st
   const glued = /^(\d{1,2})(?:ga|g|awg)$/i.exec(text);
   if (glued) return `${glued[1]} AWG`;
   const bare = lower.replace(/\.$/, '');
+  // "the north bedroom two receptacles": a number word after a room word stays a word, so the count
+  // reader can tell it from an index ("bedroom 2").
+  if (NUMBER_WORDS[bare] !== undefined && /^(?:bed\s?rooms?|bath(?:room)?s?|rooms?|halls?|hallways?|kitchen|garage|basement)$/.test(prev)) return null;
   if (NUMBER_WORDS[bare] !== undefined && (bare !== 'hundred' || /^\d/.test(prev))) {
     return bare === 'hundred' ? null : String(NUMBER_WORDS[bare]);
   }
@@ -266,8 +269,11 @@ export function normaliseText(m: MappedText): NormalisedText {
     const replacement = replacementFor(tokens, i, source);
     if (replacement === null) continue;
     const { start, end } = tokens[i];
-    // A trailing full stop of an abbreviation ("inop.", "recep.") stays in the text as written.
-    const wordEnd = source[end - 1] === '.' && !replacement.endsWith('.') ? end - 1 : end;
+    // A trailing full stop of an abbreviation ("inop.", "recep.") stays in the text as written,
+    // unless the sentence goes on in lower case ("ext. cord", "perm. wiring"): then it is the
+    // abbreviation's own and goes with the word.
+    const keepsStop = source[end - 1] === '.' && !replacement.endsWith('.') && !/^\s+[a-z]/.test(source.slice(end, end + 2));
+    const wordEnd = keepsStop ? end - 1 : end;
     text += source.slice(copied, start);
     for (let k = copied; k < start; k++) offsets.push(m.offsets[k]);
     changed.push({ start: text.length, end: text.length + replacement.length });
