@@ -96,6 +96,10 @@ const CLEARANCE_WORDS: Readonly<Record<string, number>> = { a: 1, one: 1, two: 2
 export const SERVICE_CLEARANCE_FT: Readonly<Record<string, number>> = {
   roof: 3, deck: 10, walkway: 10, walk: 10, sidewalk: 10, grade: 10, ground: 10, yard: 10, patio: 10, pool: 10, porch: 10, balcony: 10, driveway: 12, drive: 12,
 };
+/** The same check with the surface captured before the distance ("clearance above the deck is 8 ft"). */
+function isTooLowSurfaceFirst(m: RegExpExecArray): boolean {
+  return Number(m[2]) < SERVICE_CLEARANCE_FT[m[1].toLowerCase()];
+}
 function isTooLow(m: RegExpExecArray): boolean {
   const value = CLEARANCE_WORDS[m[1].toLowerCase()] ?? Number(m[1]);
   return value < SERVICE_CLEARANCE_FT[m[2].toLowerCase()];
@@ -123,7 +127,7 @@ const GROUND_PART = String.raw`(?:ground(?:ing)? electrode(?: conductor)?|gec\b|
 const GROUND_CONDITION = String.raw`(?:loose|corroded|(?:heavy|severe|some)?\s*corrosion|rust(?:ed|y)|disconnected|detached|cut(?: off)?|broken|damaged|missing|slipping off|pulled (?:off|loose|free)|(?:not|un)[- ]?(?:connected|attached|bonded|secured|clamped)|undersized|painted over|(?:appears? to )?(?:have|has) been removed|removed)\b`;
 const COVER_OFF_TO_INSPECT = /\bremoved\s+(?:by\s+(?:the\s+)?inspector\s+)?(?:for|to|during|so|when|while)\b|\bwith\s+(?:the\s+)?(?:dead[- ]?front|(?:panel\s+)?cover)(?:\s+cover)?\s+(?:was\s+)?(?:removed|off)\b|\b(?:was|were)\s+removed\.?$/i;
 /** A statement that the arrangement is right ("correct", "as permitted", "ok"), not negated ("not correct"). */
-const CORRECT_AT_SERVICE = /(?<!\bnot\s)\b(?:correct|permitted|proper|acceptable|allowed|ok|okay|normal|appropriate)\b/i;
+const CORRECT_AT_SERVICE = /(?<!\bnot\s)\b(?:correct(?:ly)?|permitted|proper(?:ly)?|acceptable|allowed|ok|okay|normal|appropriate|(?:like|as) (?:they|it) should be)\b|\b(?:is|serves as|being|acts as)\s+(?:the\s+)?(?:service (?:disconnect|equipment|panel)|main (?:service\s+)?(?:panel|disconnect)|first (?:means of )?disconnect)\b/i;
 const SUBPANEL_CONTEXT = /sub-?\s?panel|secondary panel|remote panel|downstream|distribution panel|feeder/i;
 
 export const CODE_RULES: readonly CodeRule[] = [
@@ -355,7 +359,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`(?:neutrals?|grounds?)(?:\s+(?:conductors?|wires?))?\s+(?:and|&)\s+(?:neutrals?|grounds?|grounding|equipment grounds?)(?:\s+(?:conductors?|wires?))?\s+${gap(3)}(?:share|sharing|are on|on (?:the )?same|(?:landed |terminated )?together|combined|commingled|mixed|${T.BE}not (?:separated|isolated))`, unless: CORRECT_AT_SERVICE },
       { re: rx`(?:grounds?|ground wires|egcs?|equipment grounds?)\s+${gap(3)}(?:on|landed on|connected to|terminated on|share)\s+(?:the\s+)?neutral\s+(?:bar|bus)`, context: SUBPANEL_CONTEXT },
-      { re: rx`(?:bonding|bond|green)\s+(?:screw|strap|jumper)\s+${gap(3)}${T.BE}(?:present|installed|in place|not removed)`, context: SUBPANEL_CONTEXT },
+      { re: rx`(?:bonding|bond|green)\s+(?:screw|strap|jumper)\s+${gap(3)}${T.BE}(?:present|installed|in place|not removed)`, context: SUBPANEL_CONTEXT, unless: /\b(?:not|never)\s+(?:been\s+)?(?:installed|present|in place)\b/i },
       { re: rx`neutral\s+(?:bar|bus)?\s*${gap(2)}${T.BE}bonded\s+to\s+(?:the\s+)?(?:enclosure|case|can|cabinet|panel|ground)`, context: SUBPANEL_CONTEXT },
       { re: rx`no separate ground(?:ing)? (?:bar|bus)` },
     ],
@@ -493,7 +497,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'service-equipment',
-    trigger: /service|weather\s?head|drip|meter|\bse\b|seu|mast|overhead|utility|clearance|drop|limb|branch|tree/i,
+    trigger: /service|weather\s?head|drip|meter|\bse\b|seu|mast|overhead|utility|clearance|drop|limb|branch|tree|pedestal/i,
     fixedRoom: 'exterior',
     patterns: [
       { re: rx`${T.SERVICE}\s+${gap(8)}${T.BE}(?:damaged|leaning|bent|loose|pulling away|detached|unsecured|not (?:secured|sealed|properly (?:secured|sealed|supported))|${T.ABSENT}|deteriorated|worn|frayed|cracked|rusted|rusting|corroded|too low|sagging|in contact with|contacting|touching|rubbing|exposed|weathered|brittle|torn|split)` },
@@ -504,9 +508,11 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${T.SERVICE}\s+${gap(4)}(?:jacket|sheath(?:ing)?|insulation)\s+${T.BE}(?:(?:uv|sun)[- ]?)?(?:degraded|damaged|cracked|split|deteriorated|worn|brittle|torn)` },
       { re: rx`${T.SERVICE}\s+${gap(6)}(?:${T.BE})?(?:not (?:strapped|supported|fastened|clamped)|rubs?|rubbing|chafing|chafed)\b` },
       // Common practice: service drop conductors keep their clearance above decks, roofs and drives (NFPA 70 (NEC) 2023, 230.24).
-      { re: rx`${T.SERVICE}\s+${anyGap(8)}(?:cross(?:es)?|pass(?:es)?|runs?|hangs?|sags?)\s+(?:over|through|about|roughly|only|within|among|across|to)\b`, context: /\b(?:\d+|five|six|seven|eight|nine|ten)\s*(?:ft|feet|foot|')|limbs?|branch(?:es)?|\btrees?\b|within reach|clearance/i, unless: /\b(?:otherwise secure|adequate clearance|clearance (?:is )?(?:adequate|ok|good))\b/i },
+      { re: rx`${T.SERVICE}\s+${anyGap(8)}(?:cross(?:es)?|pass(?:es)?|runs?|hangs?|sags?)\s+(?:right\s+|directly\s+|straight\s+)?(?:over|through|about|roughly|only|within|among|across|to)\b`, context: /\b(?:\d+|five|six|seven|eight|nine|ten)\s*(?:ft|feet|foot|')|limbs?|branch(?:es)?|\btrees?\b|within reach|clearance/i, unless: /\b(?:otherwise secure|adequate clearance|clearance (?:is )?(?:adequate|ok|good))\b/i },
       { re: rx`(?:service\s+)?drop\s+(?:sags?|sagging|clearance\s+(?:over|above|at|to|is)|is too low|rubs?|rubbing)\b`, context: /service|overhead|utility|drop/i, unless: /\bclearance (?:is )?(?:adequate|ok|good|sufficient)\b/i },
-      { re: rx`(?:limbs?|branch(?:es)?|trees?)\s+(?:rubs?|rubbing|touch(?:es|ing)?|contacts?|contacting)\s+(?:against\s+|on\s+)?(?:them|it|the\s+(?:drop|conductors|service|lines|wires))`, context: /service|drop|overhead|conductor|utility/i },
+      { re: rx`(?:limbs?|branch(?:es)?|trees?)\s+${gap(3)}(?:rubs?|rubbing|touch(?:es|ing)?|contacts?|contacting|in contact with|rest(?:s|ing)?\s+on|lying on|lie on|grow(?:s|ing)?\s+(?:through|into|around))\s+(?:against\s+|on\s+)?(?:them|it|(?:the\s+)?(?:service\s+|drop\s+|overhead\s+)?(?:drop|conductors|service|lines|wires))`, context: /service|drop|overhead|conductor|utility/i },
+      // NFPA 70 (NEC) 2023, 230.24 (from memory): "measured clearance above the deck ... is about 8 ft".
+      { re: rx`clearance\s+(?:above|over)\s+(?:the\s+)?(?:(?:rear|back|front|side|upper|lower|flat)\s+)?(roof|deck|walkway|walk|sidewalk|driveway|drive|grade|ground|yard|patio|pool|porch|balcony)\b[^.;]{0,40}?\b(?:is|was|of)\s+(?:only\s+|about\s+|approx(?:imately|\.)?\s+|roughly\s+|~\s?)?(\d+(?:\.\d+)?)\s*(?:ft\b|feet|foot|')`, check: isTooLowSurfaceFirst },
       // A part of the service and a condition of it in the same clause, with other words between
       // ("the meter socket on the left side has heavy corrosion", "SE cable @ meter - jacket split").
       { re: rx`${T.SERVICE}\s+${anyGap(10)}(?:${T.BE})?(?:${T.SERVICE_CONDITION})`, unless: SERVICE_SOUND },

@@ -131,3 +131,48 @@ describe('exposed wiring in shorthand (NFPA 70 (NEC) 2023, 400.12: flexible cord
     expect(read('Pump timer | Equipment pad | Conduit pulled loose from the box; conductors exposed.')).toEqual([['exposed-wiring', 'exterior', null]]);
   });
 });
+
+describe('bonding at the service is correct (NFPA 70 (NEC) 2023, 250.24(A)(5) and 250.142(B))', () => {
+  it('reads neutrals and grounds together at the panel that is the service disconnect as no defect', () => {
+    expect(read('Panel\nNeutrals and grounds share one bar in this panel, which serves as the service disconnect.')).toEqual([]);
+  });
+
+  it('reads "correctly combined" and "like they should be" as no defect', () => {
+    expect(read('Neutrals and grounds are correctly combined at the main panel.')).toEqual([]);
+    expect(read('Basement panel, neutrals and grounds together like they should be at the main.')).toEqual([]);
+  });
+
+  it('reads a bonding screw that has not been installed in a subpanel as no defect', () => {
+    expect(read('The garage subpanel keeps neutrals on their own bar, and the bonding screw has not been installed.')).toEqual([]);
+  });
+});
+
+describe('service: more conditions (NFPA 70 (NEC) 2023, 230.24 clearances, 230.50 protection; common practice)', () => {
+  it('reads limbs resting on the conductors and a drop running right through a tree', () => {
+    expect(read('The service drop runs right through the crown of the maple, and the limbs are resting on the conductors.')).toEqual([['service-equipment', 'exterior', null]]);
+  });
+
+  it('reads a mast that leans or has a bend in it', () => {
+    expect(read('The mast on the gable end has a visible bend in it and the whole mast leans toward the yard.')).toEqual([['service-equipment', 'exterior', null]]);
+  });
+
+  it('reads service entrance cable that has lost its sheathing', () => {
+    expect(read('The service entrance cable along the porch roof edge has lost most of its outer sheathing.')).toEqual([['service-equipment', 'exterior', null]]);
+  });
+
+  it('computes a measured clearance stated after the surface (230.24(B): 10 ft over a deck)', () => {
+    expect(read('The drop crosses the patio. Measured clearance above the deck at the stairs is about 7 ft.')).toEqual([['service-equipment', 'exterior', null]]);
+    expect(read('Measured clearance above the deck at the stairs is about 12 ft.')).toEqual([]);
+  });
+
+  it('reads a meter pedestal that is leaning, but not a pedestal sink', () => {
+    expect(read('The meter pedestal at the lot line is leaning toward the drive.')).toEqual([['service-equipment', 'exterior', null]]);
+    expect(read('The pedestal sink in the powder room is leaning; the plumber should reset it.')).toEqual([]);
+  });
+});
+
+describe('spelling: another form of a word is no misspelling (common practice)', () => {
+  it('leaves "correctly" as written', () => {
+    expect(read('The switch in the den is correctly wired but loose in the box.')).toEqual([['switch-issue', 'living-area', 1]]);
+  });
+});

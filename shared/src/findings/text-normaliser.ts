@@ -145,9 +145,16 @@ export function correctSpelling(word: string): string | null {
   }
   // A plural or a past form of a vocabulary word is not a misspelling of it.
   if (best !== null && (lower === `${best}s` || lower === `${best}es` || lower === `${best}ed` || lower === `${best}d` || `${lower}s` === best)) best = null;
+  // Another form of the same word ("correctly" beside "corrected") is not a misspelling of it.
+  if (best !== null && stem(lower) === stem(best)) best = null;
   if (MEMO.size > MEMO_LIMIT) MEMO.clear();
   MEMO.set(lower, best);
   return best;
+}
+
+/** A word without its common ending ("correctly", "corrected" → "correct"). */
+function stem(word: string): string {
+  return word.replace(/(?:ly|ing|ed|es|s|ions?)$/, '');
 }
 
 /** Whether `a` is `b` with two neighbouring letters swapped. */
