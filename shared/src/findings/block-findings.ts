@@ -43,7 +43,7 @@ export interface BlockContext {
 }
 
 /** A sentence that only recommends or asks for follow-up ("This should be corrected by a licensed electrician."). */
-const FOLLOW_UP = /\b(?:recommend\w*|install (?:the|a|an|new|proper|listed)\b|suggest\w*|advise\w*|should be|should have|needs? to be|must be|have (?:it|this|these|them|the\s+\w+) (?:\w+ed|repaired|corrected|checked|evaluated)|correct(?:ion|ed)?|repair(?:ed|s)?|replace(?:d|ment)?|evaluat\w*|further (?:evaluation|review)|by a (?:licensed|qualified)|licensed electrician|qualified electrician|electrical contractor|for safety|safety (?:hazard|concern|issue)|fire (?:hazard|risk)|shock (?:hazard|risk)|hazard)/i;
+const FOLLOW_UP = /\b(?:recommend\w*|install (?:the|a|an|new|proper|listed)\b|suggest\w*|advise\w*|should be|should have|needs? to be|must be|have (?:it|this|these|them|the\s+\w+) (?:\w+ed|repaired|corrected|checked|evaluated)|correct(?:ion|ed)?|repair(?:ed|s)?|replace(?:d|ment)?|evaluat\w*|further (?:evaluation|review)|by a (?:licensed|qualified)|licensed electrician|qualified electrician|electrical contractor|requir(?:e|es|ed)\b|for safety|safety (?:hazard|concern|issue)|fire (?:hazard|risk)|shock (?:hazard|risk)|hazard)/i;
 
 /** A sentence that points back to a place named before it ("It is not GFCI protected"). */
 const REFERS_BACK = /^(?:it|they|this|these|those|each|both|one|the same|also|and)\b/i;

@@ -176,3 +176,27 @@ describe('spelling: another form of a word is no misspelling (common practice)',
     expect(read('The switch in the den is correctly wired but loose in the box.')).toEqual([['switch-issue', 'living-area', 1]]);
   });
 });
+
+describe('smoke and CO alarms (NFPA 72 (2022) 29.8.1 for placement outside sleeping rooms, from memory; common practice)', () => {
+  it('reads "no smoke or carbon monoxide alarms ... in the home" as one house-wide finding', () => {
+    expect(read('No smoke or carbon monoxide alarms were found in the home.')).toEqual([['smoke-co-alarm', 'whole-house', null]]);
+  });
+
+  it('takes the hallway, not the bedrooms, for an alarm missing "outside the bedrooms"', () => {
+    expect(read('There is no CO alarm outside the bedrooms in the second-floor hallway.')).toEqual([['smoke-co-alarm', 'hallway', 1]]);
+  });
+
+  it('reads "no smoke alarm issues" as no finding', () => {
+    expect(read('No smoke alarm issues; units were present in each bedroom and tested.')).toEqual([]);
+  });
+
+  it('reads an alarm that is gone, and "no response" after a shorthand "det."', () => {
+    expect(read('The smoke alarm in the den is gone; only the mounting plate remains.')).toEqual([['smoke-co-alarm', 'living-area', 1]]);
+    expect(read('Office smoke det. -- no response to test.')).toEqual([['smoke-co-alarm', 'office', 1]]);
+  });
+
+  it('reads a sentence about what the law requires as the finding before it, not one of its own', () => {
+    const text = 'No CO alarms were present in the home. The house has an attached garage; the state requires CO alarms near sleeping rooms.';
+    expect(read(text)).toEqual([['smoke-co-alarm', 'whole-house', null]]);
+  });
+});

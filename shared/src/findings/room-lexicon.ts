@@ -21,7 +21,7 @@ const ROOM_WORDS: ReadonlyArray<readonly [Room, string]> = [
   ['panel', String.raw`(?:main\s+|electrical\s+|service\s+|distribution\s+)?(?:sub-?\s?panel|panel\s*board|panel)s?\b|load cent(?:er|re)|breaker box|fuse box`],
   ['dining', String.raw`dining(?:\s+(?:room|area))?|dinette`],
   ['office', String.raw`(?:home\s+)?office|study\b`],
-  ['whole-house', String.raw`throughout(?: the (?:home|house|dwelling|unit))?(?!\s+(?:the|this|that|each|every|all|both)\b)|anywhere in the (?:home|house|dwelling|unit)|(?:in|on) (?:each|every|all|any) (?:levels?|floors?|stor(?:y|ies))(?: of the (?:home|house|dwelling))?|whole[- ]house|entire (?:home|house|dwelling|electrical system|system)|all rooms|every room|(?<=\b(?:none|nothing|no\s+[\w/-]+(?:\s+[\w/-]+)?)\s+)in (?:the )?(?:house|home|unit|dwelling)\b`],
+  ['whole-house', String.raw`throughout(?: the (?:home|house|dwelling|unit))?(?!\s+(?:the|this|that|each|every|all|both)\b)|anywhere in the (?:home|house|dwelling|unit)|(?:in|on) (?:each|every|all|any) (?:levels?|floors?|stor(?:y|ies))(?: of the (?:home|house|dwelling))?|whole[- ]house|entire (?:home|house|dwelling|electrical system|system)|all rooms|every room|(?<=\b(?:none|nothing|no\s+[\w/-]+(?:\s+[\w/-]+)?|present|found|installed|observed|anywhere)\s+)in (?:the )?(?:house|home|unit|dwelling)\b`],
 ];
 
 /**
@@ -58,7 +58,7 @@ export interface RoomMention {
   readonly isReferencePoint: boolean;
 }
 
-const REFERENCE_BEFORE = /(?:beneath|below|under|underneath|above|over)\s+(?:the\s+)?$/i;
+const REFERENCE_BEFORE = /(?:beneath|below|under|underneath|above|over|outside(?:\s+of)?)\s+(?:the\s+)?$/i;
 /** "by the kitchen pass-through", "near the dining room archway": a room's opening as a landmark of another room. */
 const BESIDE_BEFORE = /(?:by|near|beside|next to|at|toward|towards)\s+(?:the\s+)?$/i;
 const OPENING_AFTER = /^\s*(?:pass[- ]?through|opening|archway)/i;

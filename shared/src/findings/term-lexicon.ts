@@ -48,7 +48,7 @@ export const T = {
   WIRING: String.raw`(?:wir(?:e|es|ing)\b(?!\s+nuts?\b)|cables?\b|conductors?\b|nm(?:-b)?\b|romex\b)`,
   SWITCH: String.raw`(?:(?:light|wall|dimmer|3-way|three[- ]way|toggle)\s+)?switch(?:es)?\b`,
   LIGHT: String.raw`(?:(?:recessed|can|ceiling|closet|exterior|flood|porch|vanity|wall)\s+)?(?:light(?:ing)?(?:\s+fixtures?)?\b|lights\b|fixtures?\b|luminaires?\b|chandeliers?\b|pendants?\b|sconces?\b|can lights?\b|flood ?lights?\b)`,
-  SMOKE: String.raw`(?:(?:smoke(?:\s*(?:\/|and|&)\s*(?:co|carbon monoxide))?|co|carbon monoxide)\s*(?:alarms?|detectors?)\b|smokes\b)`,
+  SMOKE: String.raw`(?:(?:smoke(?:\s*(?:\/|and|&|or)\s*(?:co|carbon monoxide))?|co|carbon monoxide)\s*(?:alarms?|detectors?)\b|smokes\b)`,
   SERVICE: String.raw`(?:(?:overhead\s+)?service[- ](?:mast|riser|head|drop(?: drip loop| conductors?| wires?| cable)?|entrance(?: cable| conductors?)?|conductors?|lateral|cable)\b|weather\s?head\b|drip loops?(?: conductors?)?\b|(?:electric\s+)?meter(?:\s+(?:base|socket|box|can|enclosure|pan|pole|post|ring))\b|se cable\b|seu\b|mast(?:head)?\b|overhead (?:service|conductors|wires|lines)\b|utility (?:drop|lines|wires)\b|(?:(?:meter(?:\s*\/\s*disconnect)?|service|disconnect)\s+)?(?<!(?:sink|lavatory|basin|vanity)\s)pedestal\b(?!\s+(?:sinks?|lavator(?:y|ies)|basins?|fans?)))`,
   /**
    * What goes wrong with a part of the service (common practice): damage, weathering, corrosion,
@@ -58,7 +58,7 @@ export const T = {
   /** Failure verbs after "did not", "would not" ... */
   FAILED: String.raw`(?:did\s?n[o']t|does\s?n[o']t|would\s?n[o']t|will not|won't|failed to|fails to|fail to|could not|couldn't|wouldn't)`,
   /** "missing", "absent", "not installed" ... after the thing that is missing. */
-  ABSENT: String.raw`(?:missing|absent|lacking|not (?:present|installed|provided|observed|found|noted|visible|evident)|none (?:present|installed|found|observed|provided))`,
+  ABSENT: String.raw`(?:missing|absent|lacking|gone\b|not (?:present|installed|provided|observed|found|noted|visible|evident)|none (?:present|installed|found|observed|provided))`,
   /** "no", "missing", "lacks" ... before the thing that is missing. */
   NO: String.raw`(?:no|missing|lacks?|lacking|lacked|without|absent|absence of)`,
   BROKEN: String.raw`(?:broken|cracked|damaged|loose|missing)`,
