@@ -170,8 +170,12 @@ function joinLine(builder: MappedTextBuilder, prev: Line, next: Line, shortLine:
     return;
   }
   const breakAt = prev.end;
+  // A table cell wrapped onto a deeply indented line of its own ("... missing its" / "cover, splices
+  // exposed") goes on with the row.
+  const continuesCell = isTableRow(prev.text) && /^\s{16,}\S/.test(next.text) && !isTableRow(next.text) && !/[.!?:]$/.test(before) && !prev.text.includes('|') && !next.text.includes('\t');
   const isBoundary =
-    /:$/.test(before) ||
+    !continuesCell &&
+    (/:$/.test(before) ||
     CHECKLIST_ANSWER.test(before) ||
     prev.text.includes('\t') ||
     next.text.includes('\t') ||
@@ -179,7 +183,7 @@ function joinLine(builder: MappedTextBuilder, prev: Line, next: Line, shortLine:
     isTableRow(next.text) ||
     // A terse note that starts with its own place label ("Kitch: fridge recep loose") is a new sentence.
     /^[\p{Lu}][\p{L}\d./ -]{0,18}:\s/u.test(after) ||
-    (before.length < shortLine && !/[.!?]$/.test(before) && !CONNECTOR_END.test(before) && /^[\p{Lu}\d(]/u.test(after));
+    (before.length < shortLine && !/[.!?]$/.test(before) && !CONNECTOR_END.test(before) && /^[\p{Lu}\d(]/u.test(after)));
   builder.appendSeparator(isBoundary ? '\n' : ' ', breakAt);
 }
 

@@ -105,7 +105,9 @@ function isTooLow(m: RegExpExecArray): boolean {
   return value < SERVICE_CLEARANCE_FT[m[2].toLowerCase()];
 }
 /** Text in one clause that does not name another device (whose cover would be a cover plate). */
-const NOT_ANOTHER_DEVICE = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|light|fixture|panel|breaker)[^.;!?]){0,60}?`;
+const NOT_ANOTHER_DEVICE = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|light|fixture|panel|breaker)[^.;!?]){0,80}?`;
+/** A box named by what it feeds ("a junction box feeding the shop lights"): the box is the subject, not the lights. */
+const BOX_FEEDING = /\b(?:junction|j-?\s?box|splice box)\b[^.;]{0,20}?\b(?:feeding|feeds|serving|serves|supplying|supplies|for)\b/i;
 /** A box left open: no cover or lid, or its splices or conductors in view. */
 const BOX_UNCOVERED = String.raw`\b(?:no|missing|without|lacks?|lacking)\s+(?:a\s+|its\s+|the\s+|any\s+)?(?:blank\s+)?(?:covers?|lids?)\b(?!\s*plates?|\s+(?:on|for|at)\s+(?:the\s+|an?\s+)?(?:[\w-]+\s+)?(?:${T.RCPT}|${T.SWITCH}|light))|\b(?:covers?|lids?)\s+(?:is\s+|are\s+)?(?:missing|absent|off|removed)\b|\b(?:splices?|wire nuts?|conductors?|connections?)\s+(?:are\s+|is\s+)?(?:visible|showing|exposed|accessible)\b`;
 /** Words between a light and its condition: no other device. */
@@ -243,7 +245,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       // Common practice (NFPA 70 (NEC) 2023, 406.9(B)(1)): an outdoor receptacle in a wet location has a cover that is weatherproof with a plug in; a flat cover is not.
       { re: rx`(?:only\s+(?:a\s+)?)?flat\s+${gap(2)}(?:covers?|lids?)(?:\s+only)?`, context: /in[- ]use|bubble|weather|exterior|outdoor|patio|porch|deck|while (?:a cord is )?(?:plugged|in use)/i },
       { re: rx`(?:covers?|lids?)\s+${gap(3)}(?:${T.BE})?broken off` },
-      { re: rx`(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant)?|wp)\s+covers?\s+${anyGap(8)}${T.BE}(?:${T.ABSENT}|broken|damaged|cracked|needed|recommended|required)` },
+      { re: rx`(?<!\b(?:no|without|missing)\s)(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant)?|wp)\s+covers?\s+${anyGap(8)}${T.BE}(?:${T.ABSENT}|broken|damaged|cracked|needed|recommended|required)` },
       { re: rx`(?:exterior|outdoor|outside|patio|deck|porch)\s+${T.RCPT}\s+${gap(3)}(?:covers?|lids?|flaps?)\s+${T.BE}(?:missing|broken|damaged|absent)` },
       { re: rx`(?:not|non)[- ](?:wr|weather[- ]resistant)\b` },
       { re: rx`(?:covers?|lids?)\s+${anyGap(4)}(?:not|isn't|is not)\s+(?:an?\s+)?(?:in[- ]use|bubble|weather[- ]?proof|wp|while[- ]in[- ]use|extra[- ]duty)\b` },
@@ -275,6 +277,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       // table rows: "J-box above furnace, no cover, splices visible"; "Lid missing from junction box").
       { re: rx`${T.JBOX}${NOT_ANOTHER_DEVICE}(?:${BOX_UNCOVERED})` },
       { re: rx`(?:covers?|lids?)\s+(?:is\s+|are\s+)?(?:missing|absent|off|removed)\s+(?:from|on|at)\s+(?:the\s+|an?\s+)?${T.JBOX}` },
+      // "a junction box feeding the shop lights has no cover plate": the box is the subject (common practice).
+      { re: rx`${T.JBOX}\s+(?:that\s+)?(?:feeding|feeds|serving|serves|supplying|supplies|for)\s+${anyGap(4)}(?:has|have|is|are|with)?\s*(?:no|missing|without)\s+(?:a\s+|its\s+|the\s+|any\s+)?(?:blank\s+)?(?:covers?|lids?|cover plates?)\b` },
     ],
   },
   {
@@ -421,7 +425,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:non-?ic|recessed|can)\s+(?:(?:light|lighting|fixture)\s+)?(?:housings?|fixtures?|lights?|cans?)\s+${gap(6)}(?:${T.BE})?(?:covered|buried|packed|surrounded)\s+(?:by|in|with|under)\b` },
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${SWITCH_GAP}(?:${T.FAILED}|${T.BE}not)\s+(?:light|illuminate|come on|turn on|operate|work)\b` },
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}(?:has\s+)?(?:pulled|pulling|come|coming|separated|separating)\s+(?:away\s+|loose\s+)?(?:from|off)\s+(?:the\s+|its\s+)?(?:wall|siding|ceiling|box|mounting|surface)` },
-      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:${T.BE})?(?:missing|without|lacks?|has no)\s+(?:(?:its|a|the|their)\s+)?(?:glass\s+)?(?:globes?|lens(?:es)?|shades?|diffusers?|covers?)` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:${T.BE})?(?:missing|without|lacks?|has no)\s+(?:(?:its|a|the|their)\s+)?(?:glass\s+)?(?:globes?|lens(?:es)?|shades?|diffusers?|covers?)`, unless: BOX_FEEDING },
       { re: rx`(?:globes?|lens(?:es)?|shades?|diffusers?)\s+${T.BE}(?:missing|broken|cracked|absent)`, context: /light|fixture|lamp|bulb/i },
       { re: rx`(?:bare[- ]bulb|open|exposed|porcelain|keyless)\s+(?:porcelain\s+)?(?:lamp\s?holders?|sockets?)` },
       { re: rx`(?:lamp\s?holders?|sockets?)\s+${gap(3)}${T.BE}(?:cracked|broken|damaged|loose|missing)` },

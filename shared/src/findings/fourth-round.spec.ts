@@ -200,3 +200,32 @@ describe('smoke and CO alarms (NFPA 72 (2022) 29.8.1 for placement outside sleep
     expect(read(text)).toEqual([['smoke-co-alarm', 'whole-house', null]]);
   });
 });
+
+describe('boxes, shops and wrapped table cells (NFPA 70 (NEC) 2023, 314.25: every box has a cover)', () => {
+  it('reads a box named by what it feeds as the box with no cover', () => {
+    expect(read('Over the bench, a metal junction box feeding the fluorescent lights has no cover plate.')).toEqual([['open-junction-box', 'unknown', 1]]);
+  });
+
+  it('reads a box with a long description before its missing cover', () => {
+    expect(read('A junction box fastened to the floor joist next to the old oil tank in the cellar has no cover.')).toEqual([['open-junction-box', 'basement', 1]]);
+  });
+
+  it('reads a workshop as the garage, and a "basement workshop" as the basement', () => {
+    expect(read('In the workshop, the receptacle by the bench is cracked.')).toEqual([['receptacle-damaged', 'garage', 1]]);
+    expect(read('In the basement workshop, the receptacle by the bench is cracked.')).toEqual([['receptacle-damaged', 'basement', 1]]);
+  });
+
+  it('goes on with a fixed-width row whose last cell wraps onto an indented line', () => {
+    const text = [
+      'System      Item              Location        Rating  Note',
+      'Electrical  Junction box      Attic           D       Box over the hall missing its',
+      '                                                      cover, splices exposed',
+      'Electrical  Panel             Garage          S       Labeled',
+    ].join('\n');
+    expect(read(text)).toEqual([['open-junction-box', 'attic', 1]]);
+  });
+
+  it('reads "No in-use covers ..., lids broken" as the missing cover, not as denied', () => {
+    expect(read('Exterior receptacles: No in-use covers on the two receptacles by the patio, lids broken off.')).toEqual([['weather-cover-missing', 'exterior', 2]]);
+  });
+});

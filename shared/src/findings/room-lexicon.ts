@@ -9,7 +9,7 @@ import type { Room } from './room';
 const ROOM_WORDS: ReadonlyArray<readonly [Room, string]> = [
   ['bathroom', String.raw`(?:(?:hall|guest|primary|master|main|upstairs|downstairs|half|full|kids'?|jack and jill|second|upper|lower)\s+)?bath(?:room)?s?\b|powder rooms?|en-?suites?|lavatory|restrooms?|(?:tub|shower)(?:\s+(?:area|enclosure|stall))?\b|vanity`],
   ['kitchen', String.raw`kitchens?|kitchenette|kit\b\.?|(?:kitchen\s+)?island|breakfast (?:nook|area|bar)|peninsula|pantry|(?:kitchen\s+)?counter\s*tops?|countertops?|(?:refrigerator|fridge|dishwasher|garbage disposal|disposal|range hood|stove|cooktop|(?:electric\s+)?range(?=\s+(?:receptacle|outlet|cord|circuit|hood))|(?<=\b(?:the|behind|beside|near)\s)range\b)(?![\w\s,]{0,30}\b(?:garage|basement|laundry|bar|utility|porch|patio)\b)`],
-  ['garage', String.raw`garages?|carports?|gar\b\.?`],
+  ['garage', String.raw`garages?|carports?|gar\b\.?|(?:work\s?)?shops?\b(?![- ](?:lights?|vacs?|fixtures?|lamps?))|shop (?:building|bldg)`],
   ['exterior', String.raw`exterior(?!\s+walls?\b)|outside(?!\s+(?:walls?|corner|of|the|a|an|its|their|this|that|each|every|all|any|bedrooms?|sleeping|junction|boxes?|enclosures?|panels?)\b)|outdoors?|patio|decks?\b|porch(?:es)?|balcon(?:y|ies)|yard|pool|spa\b|hot tub|siding|eaves|soffits?|(?:service\s+|meter\s+)?pedestal(?!\s+(?:sinks?|lavatory|basins?|fans?))|courtyards?|lanais?|verandas?|terraces?|gazebos?|breezeways?|(?:pool\s+|pump\s+)?equipment pads?|(?:front|rear|side|back) (?:wall|elevation)|ext\b\.?`],
   ['basement', String.raw`basements?|cellar|bsmt\b\.?|bsmnt\b\.?|lower level|sump`],
   ['crawl-space', String.raw`crawl\s?spaces?|crawl\b|(?:under|beneath) the (?:home|house|floor system)|underfloor`],
@@ -83,6 +83,11 @@ export function findRooms(text: string): RoomMention[] {
   for (let i = 0; i + 1 < found.length; i++) {
     const [a, b] = [found[i], found[i + 1]];
     if (LEVEL_ROOMS.has(a.room) && HABITABLE.has(b.room) && /^[\s-]*$/.test(text.slice(a.end, b.start))) found[i] = { ...a, isReferencePoint: true };
+  }
+  // A shop named after another place is in that place ("basement workshop", "garage shop").
+  for (let i = 1; i < found.length; i++) {
+    const [a, b] = [found[i - 1], found[i]];
+    if (/shop/i.test(b.text) && a.room !== 'panel' && /^[\s-]*$/.test(text.slice(a.end, b.start))) found[i] = { ...b, isReferencePoint: true };
   }
   // An entry named with the outside ("at the front entry, loose from the siding") is the outside entry.
   if (found.some((r) => r.room === 'exterior' && !r.isReferencePoint)) {
