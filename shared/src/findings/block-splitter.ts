@@ -172,7 +172,11 @@ function joinLine(builder: MappedTextBuilder, prev: Line, next: Line, shortLine:
   const breakAt = prev.end;
   // A table cell wrapped onto a deeply indented line of its own ("... missing its" / "cover, splices
   // exposed") goes on with the row.
-  const continuesCell = isTableRow(prev.text) && /^\s{16,}\S/.test(next.text) && !isTableRow(next.text) && !/[.!?:]$/.test(before) && !prev.text.includes('|') && !next.text.includes('\t');
+  // So does a pipe row that a narrow column wrapped mid-cell ("Receptacle | Den | Reversed" /
+  // "polarity | Electrician"): the next line goes on in lower case.
+  const continuesCell =
+    (isTableRow(prev.text) && /^\s{16,}\S/.test(next.text) && !isTableRow(next.text) && !/[.!?:]$/.test(before) && !prev.text.includes('|') && !next.text.includes('\t')) ||
+    (prev.text.includes('|') && /^\p{Ll}/u.test(after) && !/[.!?:|]$/.test(before));
   const isBoundary =
     !continuesCell &&
     (/:$/.test(before) ||

@@ -229,3 +229,10 @@ describe('boxes, shops and wrapped table cells (NFPA 70 (NEC) 2023, 314.25: ever
     expect(read('Exterior receptacles: No in-use covers on the two receptacles by the patio, lids broken off.')).toEqual([['weather-cover-missing', 'exterior', 2]]);
   });
 });
+
+describe('tables: a pipe row wrapped by a narrow column (common practice: table exports in two-column PDFs)', () => {
+  it('reads the lower-case line after a pipe row as the rest of that row', () => {
+    const text = ['Item | Location | Condition | Action', 'Receptacle | Guest bedroom, east wall | Reversed', 'polarity | Electrician', 'Light | Garage | Tested', 'ok | None'].join('\n');
+    expect(read(text)).toEqual([['reversed-polarity', 'bedroom', 1]]);
+  });
+});
