@@ -111,8 +111,8 @@ const BOX_FEEDING = /\b(?:junction|j-?\s?box|splice box)\b[^.;]{0,20}?\b(?:feedi
 /** A box left open: no cover or lid, or its splices or conductors in view. */
 const BOX_UNCOVERED = String.raw`\b(?:no|missing|without|lacks?|lacking)\s+(?:a\s+|its\s+|the\s+|any\s+)?(?:blank\s+)?(?:covers?|lids?)\b(?!\s*plates?|\s+(?:on|for|at)\s+(?:the\s+|an?\s+)?(?:[\w-]+\s+)?(?:${T.RCPT}|${T.SWITCH}|light))|\b(?:covers?|lids?)\s+(?:is\s+|are\s+)?(?:missing|absent|off|removed)\b|\b(?:splices?|wire nuts?|conductors?|connections?)\s+(?:are\s+|is\s+)?(?:visible|showing|exposed|accessible)\b`;
 /** Words between a light and its condition: no other device. */
-const LIGHT_GAP = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|fans?\b|panel|breaker|box(?:es)?\b|cords?\b|wir(?:e|es|ing)\b|cables?\b|smoke|alarms?\b)[\w'/#().@:-]+\s+){0,10}?`;
-const LIGHT_CONDITION = String.raw`(?:loose\b(?!-)|(?:has\s+)?water\s+in|rust(?:ed|ing|y)?\b|corroded|cracked|broken|damaged|scorched|melted|dangl(?:es|ing)|(?:does|did)\s*n[o']t\s+(?:light|work|come on|turn on)|${T.INOPERATIVE})`;
+const LIGHT_GAP = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|fans?\b|panel|breaker|box(?:es)?\b|cords?\b|wir(?:e|es|ing)\b|cables?\b|smoke|alarms?\b)[\w'/#().@:-]+,?\s+){0,10}?`;
+const LIGHT_CONDITION = String.raw`(?:loose\b(?!-)|dead\b|(?:has\s+)?water\s+in|rust(?:ed|ing|y)?\b|corroded|cracked|broken|damaged|scorched|melted|dangl(?:es|ing)|(?:does|did)\s*n[o']t\s+(?:light|work|come on|turn on)|${T.INOPERATIVE})`;
 /** Words between a receptacle and its condition: no other device, no clause-ending comma. */
 const RCPT_GAP = String.raw`(?:(?!${T.SWITCH}|light|fixture|panel|breaker|cords?\b|plates?\b|covers?\b|gfc?i|wir(?:e|es|ing)\b|cables?\b)[\w'/#().@:-]+\s+){0,12}?`;
 /** What goes wrong with a receptacle (common practice): heat, damage, looseness, no power. */
@@ -432,7 +432,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(3)}(?:hangs?|hanging|suspended)\s+(?:from|by)\s+(?:one|a single|its)\s+(?:chain|end|wire|wires)` },
       // A light and its condition in the same clause with other words between (common practice):
       // water in the globe, rust, loose from its mounting, does not light.
-      { re: rx`${NOT_APPLIANCE}${T.LIGHT}:?\s+${LIGHT_GAP}(?:${T.BE})?${LIGHT_CONDITION}` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}[:,]?\s+${LIGHT_GAP}(?:${T.BE})?${LIGHT_CONDITION}` },
     ],
   },
   {

@@ -236,3 +236,17 @@ describe('tables: a pipe row wrapped by a narrow column (common practice: table 
     expect(read(text)).toEqual([['reversed-polarity', 'bedroom', 1]]);
   });
 });
+
+describe('lights (common practice; NFPA 70 (NEC) 2023, 410.116 for recessed housings near insulation)', () => {
+  it('reads a light, a description with commas, and its failure', () => {
+    expect(read('One of the four under-cabinet lights, beside the cooktop, does not come on.')).toEqual([['light-fixture', 'kitchen', 1]]);
+  });
+
+  it('reads a light strip that is dead', () => {
+    expect(read('In the hall closet the light strip over the shelf is dead.')).toEqual([['light-fixture', 'hallway', 1]]);
+  });
+
+  it('places recessed lights seen from the attic in the room they light', () => {
+    expect(read('From the attic we saw that the recessed lights over the dining room are buried in insulation.')).toEqual([['light-fixture', 'dining', null]]);
+  });
+});

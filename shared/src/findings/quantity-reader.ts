@@ -89,7 +89,7 @@ export function readCount(text: string, articleLimit = Infinity): number | 'vagu
     if (/^\d/.test(word) && tokens[i - 1]?.word === ':') return count;
     if (word === 'pair' && next !== 'of') continue;
     // "(4 of them)", "1 of 3 inop": the number before "of" is the count.
-    if (/^\d/.test(word) && next === 'of' && /^(?:them|\d+|the)$/.test(tokens[i + 2]?.word ?? '')) return count;
+    if ((/^\d/.test(word) || word === 'one') && next === 'of' && /^(?:them|\d+|the)$/.test(tokens[i + 2]?.word ?? '')) return count;
     if (isNounAhead(tokens, i)) return count;
   }
   return null;

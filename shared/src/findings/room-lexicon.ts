@@ -58,6 +58,10 @@ export interface RoomMention {
   readonly isReferencePoint: boolean;
 }
 
+/** Ceiling lights "over the kitchen", seen from the attic above, light that room (common practice). */
+const LIGHTS_IN_CEILING = /\b(?:recessed|can|pot)\s+(?:can\s+)?(?:lights?|fixtures?|housings?|cans?)\s+(?:\w+\s+)?(?:over|above)\s+(?:the\s+)?$/i;
+/** A place the inspector looked from ("From the attic we observed ...", "seen from the crawl space"). */
+const VANTAGE_BEFORE = /(?:^\s*|[.;]\s+)from\s+(?:the\s+)?$|\b(?:viewed|seen|observed|visible|looking)\s+from\s+(?:the\s+)?$/i;
 const REFERENCE_BEFORE = /(?:beneath|below|under|underneath|above|over|outside(?:\s+of)?)\s+(?:the\s+)?$/i;
 /** "by the kitchen pass-through", "near the dining room archway": a room's opening as a landmark of another room. */
 const BESIDE_BEFORE = /(?:by|near|beside|next to|at|toward|towards)\s+(?:the\s+)?$/i;
@@ -67,6 +71,7 @@ const FIXTURE_AFTER = /^\s*(?:sink|counter|cabinet|vanity|island|floor|closet|do
 /** Every place named in `text`, in reading order, without overlaps. */
 export function findRooms(text: string): RoomMention[] {
   const found: RoomMention[] = [];
+  const hasVantage = /\bfrom\s+(?:the\s+)?(?:attic|crawl)/i.test(text);
   for (const m of scanAll(ROOM_RE, text)) {
     let i = 0;
     while (m[ROOM_GROUP[i]] === undefined) i++;
@@ -75,7 +80,9 @@ export function findRooms(text: string): RoomMention[] {
     const before = text.slice(Math.max(0, start - 20), start);
     const after = text.slice(end, end + 24);
     const isReferencePoint =
-      (REFERENCE_BEFORE.test(before) && !FIXTURE_AFTER.test(after)) || (BESIDE_BEFORE.test(before) && OPENING_AFTER.test(after));
+      (REFERENCE_BEFORE.test(before) && !FIXTURE_AFTER.test(after) && !(hasVantage && LIGHTS_IN_CEILING.test(text.slice(Math.max(0, start - 50), start)))) ||
+      (BESIDE_BEFORE.test(before) && OPENING_AFTER.test(after)) ||
+      VANTAGE_BEFORE.test(text.slice(Math.max(0, start - 30), start));
     found.push({ room: ROOM_WORDS[i][0], start, end, text: m[0], isReferencePoint });
   }
   // A level or outbuilding named before a room is where that room is ("basement bedroom", "garage
