@@ -45,6 +45,11 @@ export interface BlockContext {
 /** A sentence that only recommends or asks for follow-up ("This should be corrected by a licensed electrician."). */
 const FOLLOW_UP = /\b(?:recommend\w*|install (?:the|a|an|new|proper|listed)\b|suggest\w*|advise\w*|should be|should have|needs? to be|must be|have (?:it|this|these|them|the\s+\w+) (?:\w+ed|repaired|corrected|checked|evaluated)|correct(?:ion|ed)?|repair(?:ed|s)?|replace(?:d|ment)?|evaluat\w*|further (?:evaluation|review)|by a (?:licensed|qualified)|licensed electrician|qualified electrician|electrical contractor|requir(?:e|es|ed)\b|for safety|safety (?:hazard|concern|issue)|fire (?:hazard|risk)|shock (?:hazard|risk)|hazard)/i;
 
+/** A sentence about the device just named ("The fan ...", "It ..."). */
+const SAME_SUBJECT = /^(?:the|this|that|it)\b(?!\s+(?:other|second|third|next|remaining)\b)/i;
+/** Words that make it another device ("also", "another", "too"). */
+const ANOTHER = /\b(?:also|another|too|as well|second|other|additional|each|all|both)\b/i;
+
 /** A sentence that points back to a place named before it ("It is not GFCI protected"). */
 const REFERS_BACK = /^(?:it|they|this|these|those|each|both|one|the same|also|and)\b/i;
 /** A short line naming a place with no verb ("Basement bar area", "Primary bath:"). */
@@ -141,7 +146,14 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
         // A defect at a fixed place (the panel, the service) named again in the block is the same defect.
         ((f.confidence === 'inferred' || ruleOf(f.code)?.fixedRoom !== undefined) && found.some((g) => g.code === f.code)),
     );
-    if (lastFound.length > 0 && onlyFollowUp && FOLLOW_UP.test(sentence.text)) {
+    // "The fan rocks noticeably at speed." after "The ceiling fan in the den is hung from a pancake
+    // box": the same device told again, with no place and nothing that makes it another one.
+    const isRepeat =
+      inSentence.length > 0 &&
+      SAME_SUBJECT.test(sentence.text) &&
+      !ANOTHER.test(sentence.text) &&
+      inSentence.every((f) => f.confidence === 'inferred' && !f.isRecommendation && f.computation === null && lastFound.some((g) => g.code === f.code && g.room === f.room));
+    if (lastFound.length > 0 && ((onlyFollowUp && FOLLOW_UP.test(sentence.text)) || isRepeat)) {
       // "This should be corrected by a licensed electrician.": part of the finding(s) before it.
       for (const f of lastFound) f.recommendations.push(written);
     } else {

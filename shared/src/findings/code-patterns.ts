@@ -442,6 +442,10 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:ceiling\s+)?fans?\s+${gap(4)}(?:wobbl\w*|shak(?:es|ing|y)|sways?|swaying|unstable|${T.BE}(?:loose|not (?:secured|supported|properly (?:supported|secured|mounted))|improperly (?:mounted|supported|secured)))`, unless: /\b(?:without|no)\s+(?:any\s+|noticeable\s+)?(?:wobbl|shak|sway)/i },
       { re: rx`(?:ceiling\s+)?fans?\s+${gap(2)}${T.BE}(?:mounted|installed|hung|supported)\s+(?:on|to|from|by)\s+(?:a|an|the)?\s*(?:standard|non-?fan[- ]rated|light(?:ing)?|plastic|pancake|junction|ordinary)\s+(?:fixture\s+|outlet\s+|light\s+)?box` },
       { re: rx`(?:wobbl\w*|loose|unsecured|shaky)\s+(?:ceiling\s+)?fans?\b` },
+      // A fan hung from a box made for a light, with words between (NFPA 70 (NEC) 2023, 314.27(C)):
+      // "the ceiling fan in the sunroom is hung from a shallow pancake box", "clg fan on std pancake box".
+      { re: rx`(?:ceiling\s+)?fans?\s+${anyGap(5)}(?:(?:mounted|installed|hung|supported|hanging|attached)\s+)?(?:on|to|from)\s+(?:an?\s+|the\s+|its\s+)?(?:(?:shallow|small|light[- ]duty|old|original|metal|round|existing|thin)\s+){0,2}(?:(?:standard|std\.?|non-?fan[- ]rated|light(?:ing)?|plastic|pancake|ordinary)\s+){1,2}(?:fixture\s+|outlet\s+|light\s+|ceiling\s+)?box`, unless: /\bfan[- ]rated (?:box|brace) (?:is |was )?(?:present|installed|in place)/i },
+      { re: rx`(?:ceiling\s+)?fans?\s+${gap(3)}(?:rocks|rocking|sways)\b` },
       { re: rx`(?:not|non)[- ](?:an?\s+)?fan[- ](?:rated|support(?:ing)?)\b` },
       // A fan hung from a box that cannot carry it (NFPA 70 (NEC) 2023, 314.27(C)): "not rated to carry a fan", "no fan brace".
       { re: rx`fans?\s+${anyGap(12)}box\s+${anyGap(4)}(?:${T.BE})?not\s+(?:rated|listed|approved|designed)\s+(?:to\s+(?:carry|support|hold)|for)\s+(?:a\s+|the\s+)?(?:ceiling\s+)?fan` },

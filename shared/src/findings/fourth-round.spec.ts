@@ -250,3 +250,26 @@ describe('lights (common practice; NFPA 70 (NEC) 2023, 410.116 for recessed hous
     expect(read('From the attic we saw that the recessed lights over the dining room are buried in insulation.')).toEqual([['light-fixture', 'dining', null]]);
   });
 });
+
+describe('fans on boxes made for lights (NFPA 70 (NEC) 2023, 314.27(C))', () => {
+  it('reads a fan hung from a shallow pancake box with words between', () => {
+    expect(read('The ceiling fan in the den is hung from a shallow pancake box nailed to a furring strip.')).toEqual([['fan-support', 'living-area', 1]]);
+  });
+
+  it('reads shorthand "clg fan on std pancake box"', () => {
+    expect(read('- Office: clg fan on std pancake box, wobbles at high speed')).toEqual([['fan-support', 'office', 1]]);
+  });
+
+  it('reads a fan that rocks, and takes a second sentence about the same fan as the same defect', () => {
+    const text = 'The ceiling fan in the family room is hung from the original light fixture box. The fan rocks noticeably at high speed.';
+    expect(read(text)).toEqual([['fan-support', 'living-area', 1]]);
+  });
+
+  it('keeps a second fan that the text says is another one', () => {
+    const text = 'The ceiling fan in the family room wobbles at high speed. The other fan also wobbles.';
+    expect(read(text)).toEqual([
+      ['fan-support', 'living-area', 1],
+      ['fan-support', 'living-area', 1],
+    ]);
+  });
+});
