@@ -174,6 +174,10 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:${T.NO}|not|non-?)\s*${PF}${T.AFCI}` },
       { re: rx`${T.AFCI}(?:\s+(?:protection|protected|breakers?|${T.RCPT}))?\s+${T.BE}${T.ABSENT}` },
       { re: rx`${RECOMMEND}\s+${NOT_ABOUT_ADDING}${T.AFCI}`, isRecommendation: true },
+      // "None of the bedroom circuits have arc-fault protection" (NFPA 70 (NEC) 2023, 210.12).
+      { re: rx`none\s+of\s+(?:the\s+)?${gap(3)}(?:circuits?|${T.RCPT}|breakers?|rooms?|bedrooms?)\s+${gap(2)}(?:are|is|were|was|have|has|had)\s+${PF}${T.AFCI}` },
+      // "AFCI protection ... is recommended as a safety upgrade": the recommendation after the device.
+      { re: rx`${T.AFCI}(?:\s+protection)?\s+${anyGap(12)}(?:is|are)\s+(?:recommended|advised|suggested)\b`, isRecommendation: true },
     ],
   },
   {

@@ -273,3 +273,14 @@ describe('fans on boxes made for lights (NFPA 70 (NEC) 2023, 314.27(C))', () => 
     ]);
   });
 });
+
+describe('AFCI (NFPA 70 (NEC) 2023, 210.12)', () => {
+  it('reads "none of the bedroom circuits have arc-fault protection"', () => {
+    expect(read('None of the bedroom circuits have arc-fault protection.')).toEqual([['afci-missing', 'bedroom', null]]);
+  });
+
+  it('reads AFCI protection that "is recommended" as the recommendation of a missing AFCI', () => {
+    const found = parseText('AFCI protection was not required when the house was built and is recommended for the bedroom circuits.').findings;
+    expect(found.map((f) => [f.code, f.room])).toEqual([['afci-missing', 'bedroom']]);
+  });
+});
