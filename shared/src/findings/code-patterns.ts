@@ -138,7 +138,9 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /gfc?i|gcfi|ground[- ]fault|protected circuit/i,
     yieldsTo: ['gfci-inoperative', 'open-ground', 'false-ground', 'knob-and-tube'],
     patterns: [
-      { re: rx`(?:${T.NO}|not|non-?|neither\s+${anyGap(8)}(?:has|have|had|is|are|was|were))\s*${PF}${T.GFCI}` },
+      { re: rx`(?:${T.NO}|not|non-?|none|(?:is|are|was|were)n[’']t|neither\s+${anyGap(8)}(?:has|have|had|is|are|was|were))\s*${PF}${T.GFCI}` },
+      // "... they are not protected, I tested them with my GFCI tester": a pronoun for the receptacles just named.
+      { re: rx`(?:they|it)\s+(?:are|is|were|was)\s+not\s+protected\b`, context: /^(?=[\s\S]*\b(?:gfc?i|ground[- ]fault))(?=[\s\S]*\b(?:receptacles?|outlets?|rcpts?)\b)/i, unless: /afci|arc[- ]fault/i },
       { re: rx`none\s+of\s+(?:the\s+)?${gap(3)}${T.RCPT}\s+${gap(4)}(?:are|is|were|was|have|has|had)\s+${PF}${T.GFCI}` },
       // Downstream of no GFCI device, or on no protected circuit: the receptacle is unprotected.
       { re: rx`not\s+(?:connected\s+|wired\s+|located\s+)?(?:downstream|on the load side)\s+of\s+(?:an?|any)\s+${T.GFCI}` },

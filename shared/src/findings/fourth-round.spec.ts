@@ -284,3 +284,18 @@ describe('AFCI (NFPA 70 (NEC) 2023, 210.12)', () => {
     expect(found.map((f) => [f.code, f.room])).toEqual([['afci-missing', 'bedroom']]);
   });
 });
+
+describe('GFCI missing in more wordings (NFPA 70 (NEC) 2023, 210.8(A))', () => {
+  it('reads "isn\'t GFCI protected" and "none GFCI"', () => {
+    expect(read('The laundry receptacle next to the utility sink isn\'t GFCI protected.')).toEqual([['gfci-missing', 'laundry', 1]]);
+    expect(read('Garage recepticles (3) none GFCI.')).toEqual([['gfci-missing', 'garage', 3]]);
+  });
+
+  it('reads "they are not protected" about receptacles tested with a GFCI tester', () => {
+    expect(read('In the garage the two bench receptacles are on their own circuit and they are not protected, checked with a GFCI tester.')).toEqual([['gfci-missing', 'garage', 2]]);
+  });
+
+  it('takes a sump pit as no place of its own (the section says where it is)', () => {
+    expect(read('CRAWL SPACE\nThe receptacle beside the sump pit is not GFCI protected.')).toEqual([['gfci-missing', 'crawl-space', 1]]);
+  });
+});
