@@ -59,7 +59,9 @@ export interface CodeRule {
 
 const ADJ_GAP = adjGap(3);
 /** Words between a switch and what is said of it, commas allowed ("The switch for the disposal, right of the sink, is loose"). */
-const SWITCH_GAP = String.raw`(?:(?!${'(?:switch|light|fixture|receptacle|outlet|plates?\b|covers?\b)'})[\w'/#().-]+,?\s+){0,9}?`;
+const SWITCH_GAP = String.raw`(?:(?!${'(?:switch|light|fixture|receptacle|outlet|plates?\b|covers?\b)'})[\w'/#().-]+,?\s+){0,12}?`;
+/** A switch or dimmer named by the light it controls ("the dimmer for the chandelier is hot"): the switch is the subject. */
+const SWITCH_FOR_LIGHT = /\b(?:switch(?:es)?|dimmers?)\s+(?:that\s+)?(?:for|controlling|controls|serving|operating)\b/i;
 /** A flexible cord: extension, lamp or zip cord. */
 const FLEX_CORD = String.raw`(?:extension|lamp|zip|flexible|appliance)\s+cords?`;
 const RECOMMEND = String.raw`(?:recommend(?:ed|s|ing)?|suggest(?:ed)?|should (?:be|have)|install(?:ing|ed)?|upgrad(?:e|ed|ing) to|add(?:ing)?|need(?:s|ed)?|requires?|consider(?:ing)?|have the)`;
@@ -422,7 +424,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|dangling|hanging|not (?:secured|secure|attached|mounted)|${T.FAILED} (?:operate|work|respond|turn on|come on)|in contact with (?:the\s+)?insulation|covered (?:by|with) insulation|not (?:rated|listed|suitable|approved) for (?:a |the )?(?:wet|damp))` },
       { re: rx`(?:${T.INOPERATIVE}|loose|dangling|damaged|broken)\s+${gap(2)}${NOT_APPLIANCE}${T.LIGHT}` },
-      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:flickers?|flickering|buzz(?:es|ing)?|(?:is|are|was)\s+(?:scorched|discolou?red|melted|cracked))\b` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:flickers?|flickering|buzz(?:es|ing)?|(?:is|are|was)\s+(?:scorched|discolou?red|melted|cracked))\b`, unless: SWITCH_FOR_LIGHT },
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:hangs?|hanging|suspended|dangles|dangling)\s+(?:from|by|on)\b` },
       { re: rx`(?:${T.NO}|broken)\s+(?:(?:the|a)\s+)?(?:globes?|lens(?:es)?|light covers?|shades?|diffusers?)` },
       { re: rx`(?:bare|open|exposed|uncovered)\s+(?:incandescent\s+)?(?:bulbs?|lamps?)\b` },
@@ -460,7 +462,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'switch-issue',
-    trigger: /switch|toggle|rocker|paddle/i,
+    trigger: /switch|toggle|rocker|paddle|dimmer/i,
     patterns: [
       { re: rx`${T.SWITCH}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|(?:warm|hot) to the touch|warm|hot|sparks?|sparking|arcing|${T.FAILED} (?:operate|work|respond|control))` },
       { re: rx`${T.SWITCH}\s+${gap(7)}(?:(?:has|have|had|of|with|serves?)\s+)?(?:an?\s+)?(?:unknown|no known|undetermined|unclear) (?:function|purpose|use)` },
@@ -469,7 +471,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       // Common practice: a switch whose purpose cannot be found is reported for the seller or an electrician to identify.
       { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:(?:has|have|had|with)\s+)?(?:no|unknown|unk\.?)\s+(?:apparent\s+|known\s+|obvious\s+|determined\s+)?(?:function|purpose|use)` },
       { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:does|did|do)\s*(?:n[o']t|not)?\s*(?:appear to\s+|seem to\s+)?(?:nothing|not (?:control|operate|turn on|power) (?:anything|any\w*)|not turn (?:the\s+)?${gap(2)}(?:on|off))` },
-      { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:does|did)\s*n[o']t\s+(?:appear to\s+|seem to\s+)?(?:control|operate|turn on|power)\s+(?:anything|any\s+\w+)` },
+      { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:does|did)\s*n[o']?t\s+(?:appear to\s+|seem to\s+)?(?:control|operate|turn on|power|do)\s+(?:anything|any\s+\w+)` },
       { re: rx`${T.SWITCH}\s+${SWITCH_GAP}${T.BE}loose in (?:the|its) (?:wall|box)` },
       // "The switch controlling the desk receptacle is broken": the switch is the subject, not what it controls.
       { re: rx`${T.SWITCH}\s+(?:that\s+)?(?:controlling|controls|for|serving|serves|operating|operates)\s+(?:the\s+|a\s+)?${anyGap(3)}(?:${T.RCPT}|${T.LIGHT}|fans?\b|disposal|disposer)\s+${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked)` },

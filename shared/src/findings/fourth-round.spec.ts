@@ -299,3 +299,17 @@ describe('GFCI missing in more wordings (NFPA 70 (NEC) 2023, 210.8(A))', () => {
     expect(read('CRAWL SPACE\nThe receptacle beside the sump pit is not GFCI protected.')).toEqual([['gfci-missing', 'crawl-space', 1]]);
   });
 });
+
+describe('switches and dimmers (common practice; NFPA 70 (NEC) 2023, 404.14 for dimmer ratings)', () => {
+  it('reads a dimmer named by the light it controls as the switch, not the light', () => {
+    expect(read('Switches: the dimmer for the den chandelier is hot to the touch and buzzes.')).toEqual([['switch-issue', 'living-area', 1]]);
+  });
+
+  it('reads a switch with a long description that "did not control any light"', () => {
+    expect(read('The single switch at the top of the stairs by the linen closet did not control any light.')).toEqual([['switch-issue', 'hallway', 1]]);
+  });
+
+  it('reads "doesnt do anything" and a misspelt "swtich"', () => {
+    expect(read('Office: the swtich by the closet doesnt do anything I could find.')).toEqual([['switch-issue', 'office', 1]]);
+  });
+});

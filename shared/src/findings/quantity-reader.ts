@@ -12,7 +12,7 @@ const NUMBER_WORDS: Readonly<Record<string, number>> = {
 };
 const VAGUE = new Set(['several', 'multiple', 'various', 'numerous', 'some', 'many', 'few', 'all', 'each', 'every', 'any']);
 /** Nouns a count can apply to (devices, defects and places). */
-const COUNTABLE = /^(?:rec[ei]pt?[aeiu]?c(?:le|al|el)s?|recepts?|recep|rcpts?|outlett?s?|devices?|gfc?is?|afcis?|breakers?|brkrs?|fuses?|circuits?|wires?|conductors?|cables?|cords?|lights?|fixtures?|lamps?|bulbs?|switch(?:es)?|box(?:es)?|j-?box(?:es)?|splices?|covers?|plates?|alarms?|detectors?|smokes?|fans?|knockouts?|fillers?|blanks?|openings?|slots?|screws?|taps?|grounds?|locations?|places?|spots?|areas?|rooms?|bathrooms?|baths?|bedrooms?|units?|terminals?|neutrals?)$/i;
+const COUNTABLE = /^(?:rec[ei]pt?[aeiu]?c(?:le|al|el)s?|recepts?|recep|rcpts?|outlett?s?|devices?|gfc?is?|afcis?|breakers?|brkrs?|fuses?|circuits?|wires?|conductors?|cables?|cords?|lights?|fixtures?|lamps?|bulbs?|switch(?:es)?|dimmers?|box(?:es)?|j-?box(?:es)?|splices?|covers?|plates?|alarms?|detectors?|smokes?|fans?|knockouts?|fillers?|blanks?|openings?|slots?|screws?|taps?|grounds?|locations?|places?|spots?|areas?|rooms?|bathrooms?|baths?|bedrooms?|units?|terminals?|neutrals?)$/i;
 /** Words that make the number a measure, not a count ("20 amp", "6 feet", "3-prong"). */
 const UNIT = /^(?:a|amps?|amperes?|v|volts?|awg|gauge|ga|ft|feet|foot|inch(?:es)?|in|years?|yrs?|prong|slot|wire|pole|way|mm|%|percent|degrees?|minutes?|hours?|days?)$/i;
 /** Words before a number that make it a name or an index ("bedroom 2", "slot 14", "#3"). */
@@ -130,7 +130,7 @@ const ONE_DEVICE = new Set(['receptacle-damaged', 'gfci-inoperative', 'fan-suppo
  * (plural). Compounds come first so that "cover plates" is plural. Cable and wire are left out: an
  * inspector's "NM cable is exposed" speaks of wiring, not of one cable.
  */
-const DEVICE_NOUN = /\b(?:((?:cover|face|wall|switch|outlet|receptacle|filler)[- ]?plate|(?:recessed |can )?light housing|light fixture|smoke (?:alarm|detector)|co (?:alarm|detector)|carbon monoxide (?:alarm|detector)|ceiling fan|junction box|j-box|gfci (?:receptacle|outlet|breaker|device)|rec[ei]pt?[aeiu]?c(?:le|al|el)|rcpt|outlet|device|duplex|gfci|breaker|fuse|fixture|light|luminaire|lamp|bulb|globe|fan|switch|box|splice|cover|plate|alarm|detector|cord|knockout|screw|terminal|tap|pendant|sconce|chandelier|housing)(s|es)?)\b/gi;
+const DEVICE_NOUN = /\b(?:((?:cover|face|wall|switch|outlet|receptacle|filler)[- ]?plate|(?:recessed |can )?light housing|light fixture|smoke (?:alarm|detector)|co (?:alarm|detector)|carbon monoxide (?:alarm|detector)|ceiling fan|junction box|j-box|gfci (?:receptacle|outlet|breaker|device)|rec[ei]pt?[aeiu]?c(?:le|al|el)|rcpt|outlet|device|duplex|gfci|breaker|fuse|fixture|light|luminaire|lamp|bulb|globe|fan|switch|dimmer|box|splice|cover|plate|alarm|detector|cord|knockout|screw|terminal|tap|pendant|sconce|chandelier|housing)(s|es)?)\b/gi;
 /** Nouns that name the protection itself when the defect is its absence ("no GFCI protection"). */
 const PROTECTION_NOUN = /^(?:gfci|afci)$/i;
 const CONDUCTORS_UNDER_ONE = /\b(?:two|2|three|3|both|multiple)\s+(?:\w+\s+)?(?:wires|conductors|neutrals|circuits|feeds)\b/gi;
@@ -153,7 +153,9 @@ export function findingQuantity(code: string, countText: string, articleLimit: n
     const later = readCount(laterText, 0);
     if (typeof later === 'number') return later;
   }
-  const nouns = deviceNouns(code, countText);
+  // A label before the text ("Switches: the dimmer for the den light is hot") names the topic, not the device.
+  const unlabelled = countText.replace(LEADING_LABEL, '');
+  const nouns = deviceNouns(code, unlabelled).length > 0 ? deviceNouns(code, unlabelled) : deviceNouns(code, countText);
   if (nouns.length > 0) return singularCount(code, nouns[0]);
   // The part names no device: the clause's subject before it does ("The receptacle by the deck has
   // no cover and is not GFCI protected"), or "it" stands for one device.
@@ -166,6 +168,8 @@ export function findingQuantity(code: string, countText: string, articleLimit: n
   if (/^\s*it\b/i.test(countText) && code === 'gfci-missing') return 1;
   return ONE_DEVICE.has(code) ? 1 : null;
 }
+
+const LEADING_LABEL = /^\s*[A-Za-z][\w /&-]{0,30}:\s+(?=\S)/;
 
 function deviceNouns(code: string, text: string): RegExpExecArray[] {
   return scanAll(DEVICE_NOUN, text).filter((m) => !(code === 'gfci-missing' && PROTECTION_NOUN.test(m[1])));
