@@ -291,7 +291,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'exposed-wiring',
-    trigger: /wir|cable|conductor|\bnm\b|romex|cord/i,
+    trigger: /wir|cabl|conductor|\bnm\b|romex|cord/i,
     patterns: [
       { re: rx`(?:exposed|unprotected|unsecured|loose|dangling|hanging|unsupported|unstapled|frayed)(?:,?\s+(?:dangling|hanging|unsecured|loose|exposed))?\s+(?:(?:nm|romex|electrical|branch(?: circuit)?|sheathed|non-?metallic(?:[- ]sheathed)?)\s+)?(?:wir(?:e|es|ing)|cables?|nm(?:-b)?|romex)\b` },
       { re: rx`${T.WIRING}\s+${gap(8)}${T.BE}(?:exposed|unprotected|unsecured|loose|not (?:secured|supported|protected|stapled|strapped)|dangling|hanging|lying|draped|subject to (?:physical )?damage|within reach)` },
@@ -303,7 +303,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:permanent|fixed)\s+(?:use of\s+)?extension cords?` },
       // A cable and its condition in the same clause with other words between ("NM cable to the
       // disposal not clamped at the unit, loose under the sink"; common practice, NEC 334.15 and 334.30).
-      { re: rx`(?:nm(?:-b)?|romex|uf|surface[- ](?:run|mounted)|branch(?:[- ]circuit)?|sheathed)?\s*(?:wir(?:e|es|ing)\b(?!\s+nuts?\b)|cables?\b)\s+${WIRE_GAP}(?:${T.BE})?${WIRE_CONDITION}`, unless: WIRE_SOUND_OR_OTHER },
+      { re: rx`(?:nm(?:-b)?|romex|uf|surface[- ](?:run|mounted)|branch(?:[- ]circuit)?|sheathed)?\s*(?:wir(?:e|es|ing)\b(?!\s+nuts?\b)|cables?\b|cabling\b)\s+${WIRE_GAP}(?:${T.BE})?${WIRE_CONDITION}`, unless: WIRE_SOUND_OR_OTHER },
     ],
   },
   {
@@ -447,7 +447,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'fan-support',
     trigger: /fan/i,
     patterns: [
-      { re: rx`(?:ceiling\s+)?fans?\s+${gap(4)}(?:wobbl\w*|shak(?:es|ing|y)|sways?|swaying|unstable|${T.BE}(?:loose|not (?:secured|supported|properly (?:supported|secured|mounted))|improperly (?:mounted|supported|secured)))`, unless: /\b(?:without|no)\s+(?:any\s+|noticeable\s+)?(?:wobbl|shak|sway)/i },
+      { re: rx`(?<!\b(?:exhaust|vent|ventilation|bath|attic|range|inline)\s)(?:ceiling\s+)?fans?\s+${gap(4)}(?:wobbl\w*|shak(?:es|ing|y)|sways?|swaying|unstable|${T.BE}(?:loose|not (?:secured|supported|properly (?:supported|secured|mounted))|improperly (?:mounted|supported|secured)))`, unless: /\b(?:without|no)\s+(?:any\s+|noticeable\s+)?(?:wobbl|shak|sway)/i },
       { re: rx`(?:ceiling\s+)?fans?\s+${gap(2)}${T.BE}(?:mounted|installed|hung|supported)\s+(?:on|to|from|by)\s+(?:a|an|the)?\s*(?:standard|non-?fan[- ]rated|light(?:ing)?|plastic|pancake|junction|ordinary)\s+(?:fixture\s+|outlet\s+|light\s+)?box` },
       { re: rx`(?:wobbl\w*|loose|unsecured|shaky)\s+(?:ceiling\s+)?fans?\b` },
       // A fan hung from a box made for a light, with words between (NFPA 70 (NEC) 2023, 314.27(C)):

@@ -313,3 +313,9 @@ describe('switches and dimmers (common practice; NFPA 70 (NEC) 2023, 404.14 for 
     expect(read('Office: the swtich by the closet doesnt do anything I could find.')).toEqual([['switch-issue', 'office', 1]]);
   });
 });
+
+describe('exposed cabling and exhaust fans (NFPA 70 (NEC) 2023, 334.15(B) and 334.30; common practice)', () => {
+  it('reads loose NM cabling feeding an exhaust fan as exposed wiring, not a ceiling fan defect', () => {
+    expect(read('In the attic, the NM cabling feeding the bath exhaust fan lies loose across the joists.')).toEqual([['exposed-wiring', 'attic', null]]);
+  });
+});
