@@ -32,7 +32,7 @@ const ITEM_MARKER = /^\s*(?:\d{1,3}(?:\.\d{1,3})+\.?|\d{1,3}[.)]|[a-h][.)]|item\
 const NOISE_LINE = /^(?:[|+:=\s-]{3,}|.{0,80}\bpage\s+\d+(?:\s*(?:of|\/)\s*\d+)?|-{1,2}\s*\d+\s+of\s+\d+\s*-{1,2}|\d+\s*\/\s*\d+)\s*$/i;
 const CONNECTOR_END = /(?:[,;&/-]|\b(?:and|or|the|a|an|at|of|to|with|in|on|for|by|from|is|are|was|were|not|no))$/i;
 /** A checklist line that ends in its answer ("GFCI at exterior: No"). */
-const CHECKLIST_ANSWER = /:\s*(?:yes|no|none|n\/a|ok|missing)$/i;
+const CHECKLIST_ANSWER = /^[^.!?]{0,40}:\s*(?:yes|no|none|n\/a|ok|missing)$/i;
 const SHORT_LINE = 45;
 /** A line counts as short against the report's own measure: narrow columns make every line shorter. */
 const SHORT_SHARE = 0.75;

@@ -241,7 +241,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:loose|poor|weak|worn)\s+(?:blade\s+)?(?:tension|grip|contacts)` },
       // A receptacle and its condition in the same clause with a longer description between ("the
       // receptacle on the fireplace wall in the family room was warm and discolored"; common practice).
-      { re: rx`${T.RCPT}:?\s+${RCPT_GAP}(?:${T.BE})?(?:(?:noticeably|very|slightly|visibly|partly|partially)\s+)?${RCPT_CONDITION}`, unless: /\b(?:gfc?i|ground[- ]fault)\b[^.;]{0,30}\b(?:dead|no power)\b.{0,40}\breset\b/i },
+      { re: rx`${T.RCPT}:?\s+${RCPT_GAP}(?:${T.BE})?(?:(?:noticeably|very|slightly|visibly|partly|partially)\s+)?${RCPT_CONDITION}`, unless: /\b(?:gfc?i|ground[- ]fault)\b[^.;]{0,30}\b(?:dead|no power)\b.{0,40}\breset\b|\b(?:gfc?i|ground[- ]fault)\b[^.;]{0,60}\b(?:will not|won't|does not|doesn't|did not|fails? to|failed to)\s+reset\b/i },
     ],
   },
   {

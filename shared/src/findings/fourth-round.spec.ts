@@ -319,3 +319,18 @@ describe('exposed cabling and exhaust fans (NFPA 70 (NEC) 2023, 334.15(B) and 33
     expect(read('In the attic, the NM cabling feeding the bath exhaust fan lies loose across the joists.')).toEqual([['exposed-wiring', 'attic', null]]);
   });
 });
+
+describe('narrow columns, GFCIs that will not reset, what a cord is counted in (common practice)', () => {
+  it('does not take a prose line ending in ": no" for a checklist answer', () => {
+    const text = 'ELECTRICAL. The main panel is in the utility room and was in good condition: no\ndouble taps, no scorching, no rust.';
+    expect(read(text)).toEqual([]);
+  });
+
+  it('reads a GFCI that trips but will not reset, leaving receptacles dead, as the GFCI\'s defect', () => {
+    expect(read('GFCI receptacle beside the bar sink trips but will not reset -- no power to the receptacles after it.')).toEqual([['gfci-inoperative', 'unknown', 1]]);
+  });
+
+  it('counts an extension cord, not the lights it feeds', () => {
+    expect(read('Garage: an extension cord is used as permanent wiring to the three lights over the bench.')).toEqual([['exposed-wiring', 'garage', 1]]);
+  });
+});

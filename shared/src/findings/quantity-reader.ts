@@ -69,7 +69,7 @@ export function readQuantity(text: string, articleLimit = Infinity): number | nu
 }
 
 /** Like readQuantity, but tells a vague count ("several", "all") apart from none given. */
-export function readCount(text: string, articleLimit = Infinity): number | 'vague' | null {
+export function readCount(text: string, articleLimit = Infinity, countable: RegExp = COUNTABLE): number | 'vague' | null {
   const tokens = tokenize(text);
   for (let i = 0; i < tokens.length; i++) {
     const { word } = tokens[i];
@@ -78,7 +78,7 @@ export function readCount(text: string, articleLimit = Infinity): number | 'vagu
     const times = /^(?:(\d{1,2})x|x(\d{1,2}))$/.exec(word);
     if (times) return Number(times[1] ?? times[2]);
     // "several receptacles" is vague; "wobbles at all speeds" says nothing about how many.
-    if (VAGUE.has(word) && !isNumberAhead(tokens, i) && (isNounAhead(tokens, i) || !VAGUE_BEFORE_NOUN_ONLY.has(word))) return 'vague';
+    if (VAGUE.has(word) && !isNumberAhead(tokens, i) && (isNounAhead(tokens, i, countable) || !VAGUE_BEFORE_NOUN_ONLY.has(word))) return 'vague';
     const count = countOf(word);
     if (count === null || count === 0) continue;
     if ((word === 'a' || word === 'an') && tokens[i].index >= articleLimit) continue;
@@ -90,12 +90,12 @@ export function readCount(text: string, articleLimit = Infinity): number | 'vagu
     if (word === 'pair' && next !== 'of') continue;
     // "(4 of them)", "1 of 3 inop": the number before "of" is the count.
     if ((/^\d/.test(word) || word === 'one') && next === 'of' && /^(?:them|\d+|the)$/.test(tokens[i + 2]?.word ?? '')) return count;
-    if (isNounAhead(tokens, i)) return count;
+    if (isNounAhead(tokens, i, countable)) return count;
   }
   return null;
 }
 
-function isNounAhead(tokens: Token[], i: number): boolean {
+function isNounAhead(tokens: Token[], i: number, countable: RegExp = COUNTABLE): boolean {
   for (let j = i + 1; j <= i + 1 + ALLOWED_BETWEEN && j < tokens.length; j++) {
     const word = tokens[j].word;
     const isMeasure = /^\d/.test(word) && UNIT.test(tokens[j + 1]?.word ?? '');
@@ -104,7 +104,7 @@ function isNounAhead(tokens: Token[], i: number): boolean {
       continue;
     }
     if (/^[:;.]$/.test(word) || UNIT.test(word) || countOf(word) !== null) return false;
-    if (COUNTABLE.test(word)) return true;
+    if (countable.test(word)) return true;
   }
   return false;
 }
@@ -134,6 +134,8 @@ const DEVICE_NOUN = /\b(?:((?:cover|face|wall|switch|outlet|receptacle|filler)[-
 /** Nouns that name the protection itself when the defect is its absence ("no GFCI protection"). */
 const PROTECTION_NOUN = /^(?:gfci|afci)$/i;
 const CONDUCTORS_UNDER_ONE = /\b(?:two|2|three|3|both|multiple)\s+(?:\w+\s+)?(?:wires|conductors|neutrals|circuits|feeds)\b/gi;
+/** What exposed wiring is counted in: cords, cables, runs, places; not the lights a cord feeds. */
+const WIRING_COUNTABLE = /^(?:cords?|cables?|wires?|wiring|conductors?|splices?|places?|locations?|spots?|areas?|circuits?)$/i;
 /** Codes counted only when the text gives a number (a panel condition, exposed wiring). */
 const EXPLICIT_ONLY = new Set(['panel-deficiency', 'exposed-wiring']);
 
@@ -146,7 +148,7 @@ export function findingQuantity(code: string, countText: string, articleLimit: n
   if (UNCOUNTED.has(code)) return null;
   // A double tap is counted in breakers (terminals), not in the conductors under one terminal.
   if (code === 'double-tap') countText = countText.replace(CONDUCTORS_UNDER_ONE, (m) => ' '.repeat(m.length));
-  const count = readCount(countText, articleLimit);
+  const count = readCount(countText, articleLimit, code === 'exposed-wiring' ? WIRING_COUNTABLE : COUNTABLE);
   if (typeof count === 'number') return count;
   if (count === 'vague') return null;
   if (laterText !== null) {
