@@ -140,7 +140,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /gfc?i|gcfi|ground[- ]fault|protected circuit/i,
     yieldsTo: ['gfci-inoperative', 'open-ground', 'false-ground', 'knob-and-tube'],
     patterns: [
-      { re: rx`(?:${T.NO}|not|non-?|none|(?:is|are|was|were)n[’']t|neither\s+${anyGap(8)}(?:has|have|had|is|are|was|were))\s*${PF}${T.GFCI}` },
+      { re: rx`(?:${T.NO}|not|non-?|none|(?:is|are|was|were)n[’']?t|neither\s+${anyGap(8)}(?:has|have|had|is|are|was|were))\s*${PF}${T.GFCI}` },
       // "... they are not protected, I tested them with my GFCI tester": a pronoun for the receptacles just named.
       { re: rx`(?:they|it)\s+(?:are|is|were|was)\s+not\s+protected\b`, context: /^(?=[\s\S]*\b(?:gfc?i|ground[- ]fault))(?=[\s\S]*\b(?:receptacles?|outlets?|rcpts?)\b)/i, unless: /afci|arc[- ]fault/i },
       { re: rx`none\s+of\s+(?:the\s+)?${gap(3)}${T.RCPT}\s+${gap(4)}(?:are|is|were|was|have|has|had)\s+${PF}${T.GFCI}` },
@@ -263,7 +263,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'cover-plate-missing',
     trigger: /plate|cover/i,
     patterns: [
-      { re: rx`(?:${T.NO}|broken|cracked|damaged)\s+(?:(?:the|a|an|any|its|their)\s+)?(?:(?:switch|${T.RCPT}|light|blank)\s+)?${T.PLATE}`, unless: JBOX_WORD },
+      { re: rx`(?:${T.NO}|broken|cracked|damaged)\s+(?:(?:the|a|an|any|its|their)\s+)?(?:\d{1,2}\s+|two\s+|both\s+)?(?:(?:switch|${T.RCPT}|light|blank)\s+)?${T.PLATE}`, unless: JBOX_WORD },
       { re: rx`${T.PLATE}\s+${gap(8)}${T.BE}(?:${T.ABSENT}|broken|cracked|damaged)`, unless: JBOX_WORD },
       { re: rx`${T.PLATE}\s+(?:for|on|at|of)\s+(?:the\s+|a\s+)?${ADJ_GAP}(?:${T.SWITCH}|${T.RCPT})\s+${gap(5)}${T.BE}(?:broken|cracked|damaged|missing)` },
     ],
@@ -548,7 +548,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     ignoresContext: true,
     patterns: [
       { re: rx`(?:evaluat|review|inspect|assess|examin|diagnos|correct|repair)\w*\s+${anyGap(8)}(?:by|from)\s+(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)s?`, unless: REFERS_TO_OTHERS_ONLY },
-      { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check)`, unless: REFERS_TO_OTHERS_ONLY },
+      { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check|go (?:through|over)|look (?:over|through))`, unless: REFERS_TO_OTHERS_ONLY },
       { re: rx`(?:consult|contact|hire|engage|retain|call)\s+(?:with\s+)?(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)`, unless: /\bif\b|\bany\b/i },
     ],
   },

@@ -334,3 +334,21 @@ describe('narrow columns, GFCIs that will not reset, what a cord is counted in (
     expect(read('Garage: an extension cord is used as permanent wiring to the three lights over the bench.')).toEqual([['exposed-wiring', 'garage', 1]]);
   });
 });
+
+describe('casual writing: "too" for two, "isnt", an electrician to go through the system (common practice)', () => {
+  it('reads "missing too cover plates" as two missing plates', () => {
+    expect(read('The guest bedroom is missing too cover plates.')).toEqual([['cover-plate-missing', 'bedroom', 2]]);
+  });
+
+  it('reads "isnt GFCI protected" and counts the one receptacle, whatever a later clause says of every GFCI', () => {
+    expect(read('Powder room recepticle isnt GFCI protected, pushed test on every GFI in the house and it stayed hot.')).toEqual([['gfci-missing', 'bathroom', 1]]);
+  });
+
+  it('keeps "on any level" a spread, not one device', () => {
+    expect(read('No carbon monoxide alarm was found on any level.')).toEqual([['smoke-co-alarm', 'whole-house', null]]);
+  });
+
+  it('reads "have a licensed electrician go through the whole system"', () => {
+    expect(read('Given the owner work, have a licensed electrician go through the whole system before closing.')).toEqual([['evaluate-general', 'whole-house', null]]);
+  });
+});

@@ -18,6 +18,8 @@ const UNIT = /^(?:a|amps?|amperes?|v|volts?|awg|gauge|ga|ft|feet|foot|inch(?:es)
 /** Words before a number that make it a name or an index ("bedroom 2", "slot 14", "#3"). */
 const INDEX_BEFORE = /^(?:bed\s?rooms?|bath(?:room)?s?|br|bdrms?|rooms?|circuits?|breakers?|no|nos|item|items|page|section|unit|level|floor|space|position|slot|photo|fig|figure|step|zone|#|spaces|about|approximately|approx)$/i;
 const ALLOWED_BETWEEN = 3;
+/** Places a vague word spreads a defect over ("on any level", "in every bedroom"): still no count of one. */
+const SPREAD_NOUN = /^(?:levels?|floors?|stor(?:y|ies)|rooms?|bedrooms?|areas?|locations?)$/;
 /** A plural countable noun: after an index word a number word counts it ("bedroom two receptacles"). */
 const PLURAL_COUNTABLE = /^(?:receptacles|outlets|devices|breakers|fuses|lights|fixtures|switches|boxes|covers|plates|alarms|detectors|fans|cords|splices)$/i;
 /** Vague words that quantify only a noun that follows ("all receptacles"), not a manner ("at all speeds"). */
@@ -77,7 +79,9 @@ export function readCount(text: string, articleLimit = Infinity, countable: RegE
     if (parenthesised) return Number(parenthesised[1]);
     const times = /^(?:(\d{1,2})x|x(\d{1,2}))$/.exec(word);
     if (times) return Number(times[1] ?? times[2]);
-    // "several receptacles" is vague; "wobbles at all speeds" says nothing about how many.
+    // "several receptacles" is vague; "wobbles at all speeds" says nothing about how many; a vague
+    // word after the defect phrase speaks of something else ("... not GFCI protected, pushed test on every GFI").
+    if (VAGUE.has(word) && tokens[i].index >= articleLimit && !SPREAD_NOUN.test(tokens[i + 1]?.word ?? '')) continue;
     if (VAGUE.has(word) && !isNumberAhead(tokens, i) && (isNounAhead(tokens, i, countable) || !VAGUE_BEFORE_NOUN_ONLY.has(word))) return 'vague';
     const count = countOf(word);
     if (count === null || count === 0) continue;

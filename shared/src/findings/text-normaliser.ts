@@ -165,6 +165,10 @@ function isTransposition(a: string, b: string): boolean {
   return i + 1 < a.length && a[i] === b[i + 1] && a[i + 1] === b[i] && a.slice(i + 2) === b.slice(i + 2);
 }
 
+/** Plural device nouns, and words that come before them, after which "too" is a misspelt "two". */
+const TOO_PLURAL = /^(?:receptacles|recepticles|outlets|plates|covers|breakers|lights|fixtures|switches|alarms|detectors|fans|boxes|cords|bulbs|screws|taps)$/;
+const TOO_MODIFIER = /^(?:cover|face|wall|switch|outlet|receptacle|light|smoke|ceiling|gfci|junction|extension|open|double)$/;
+
 /** A word, with the characters shorthand uses ("k&t", "w/o", "j-box", "ungr'd", "inop."). */
 const WORD = /#\s?\d{1,2}\b|[A-Za-z][A-Za-z'&/-]*[A-Za-z/]\.?|[A-Za-z]\.?|\d+(?:\.\d+)?/g;
 /** Words after which "Al"/"Cu" are metals, and gauge words that follow a size. */
@@ -201,6 +205,8 @@ function replacementFor(tokens: readonly Token[], i: number, source: string): st
   if (NUMBER_WORDS[bare] !== undefined && (bare !== 'hundred' || /^\d/.test(prev))) {
     return bare === 'hundred' ? null : String(NUMBER_WORDS[bare]);
   }
+  // "missing too cover plates": "too" before a plural device noun is the number two.
+  if (bare === 'too' && (TOO_PLURAL.test(next.replace(/\.$/, '')) || (TOO_MODIFIER.test(next) && TOO_PLURAL.test((tokens[i + 2]?.text.toLowerCase() ?? '').replace(/\.$/, ''))))) return '2';
   // "ext cord", "ext. cords": an extension cord, not the exterior.
   if ((bare === 'ext' || bare === 'extn') && /^cords?$/.test(next)) return 'extension';
   if (Object.prototype.hasOwnProperty.call(SHORTHAND, lower) || Object.prototype.hasOwnProperty.call(SHORTHAND, bare)) {
