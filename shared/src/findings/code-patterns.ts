@@ -122,7 +122,12 @@ const RCPT_CONDITION = String.raw`(?:(?:is|are|was|were|felt|feels?|runs?|ran|ru
 /** Words between a cable and its condition: not another device, whose condition it would be. */
 const WIRE_GAP = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|light|fixture|box(?:es)?\b|panel|breaker|cords?\b|service|meter)[\w'/#().@-]+,?\s+){0,10}?`;
 /** A cable said to be secured, or the cable of a splice or fixture (an open splice, a hanging fixture is that defect). */
-const WIRE_SOUND_OR_OTHER = /\b(?:properly|neatly|adequately|well) (?:secured|supported|protected|stapled|strapped)\b|\bsplices?\b|\bwire nuts?\b|\b(?:chandelier|fixture|luminaire|pendant)s?\b/i;
+const WIRE_SOUND_OR_OTHER = /\b(?:properly|neatly|adequately|well) (?:secured|supported|protected|stapled|strapped)\b|\bsplices?\b|\bwire nuts?\b|\b(?:chandelier|fixture|luminaire|pendant)s?\b|\bservice[- ]entrance\b|\bse cable\b|\bservice (?:drop|conductors?|cable)\b|\b(?:junction|j-?\s?box|jbox)\w*\b[^.;]{0,50}\bwires?\s+(?:are\s+)?(?:hanging|dangling|exposed|visible|pulled)/i;
+/**
+ * Service cable (its own code), or wires hanging out of an open box (that box's defect, NFPA 70 (NEC)
+ * 2023, 314.25): "Open junction box over the bench, wires hanging".
+ */
+const SERVICE_OR_BOX_WIRES = /\bservice[- ]entrance\b|\bse cable\b|\bservice (?:drop|conductors?|cable)\b|\b(?:junction|j-?\s?box|jbox)\w*\b[^.;]{0,50}\bwires?\s+(?:are\s+)?(?:hanging|dangling|exposed|visible|pulled)/i;
 /** What goes wrong with a cable run (common practice): not secured, not protected, within reach of damage. */
 const WIRE_CONDITION = String.raw`(?:exposed to (?:physical )?damage|subject to (?:physical )?damage|unprotected|unsecured|unsupported|unstapled|(?:has\s+)?(?:come|came|coming|pulled|pulling) (?:loose|free|away)|(?:not|never) (?:clamped|secured|supported|stapled|strapped|fastened|protected)|loose\b|hang(?:s|ing)\b|dangl(?:es|ing)|draped|(?:hanging\s+)?in loops)`;
 /** A part of the grounding electrode system or of piping bonding (NFPA 70 (NEC) 2023, 250.50, 250.104). */
@@ -294,7 +299,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /wir|cabl|conductor|\bnm\b|romex|cord/i,
     patterns: [
       { re: rx`(?:exposed|unprotected|unsecured|loose|dangling|hanging|unsupported|unstapled|frayed)(?:,?\s+(?:dangling|hanging|unsecured|loose|exposed))?\s+(?:(?:nm|romex|electrical|branch(?: circuit)?|sheathed|non-?metallic(?:[- ]sheathed)?)\s+)?(?:wir(?:e|es|ing)|cables?|nm(?:-b)?|romex)\b` },
-      { re: rx`${T.WIRING}\s+${gap(8)}${T.BE}(?:exposed|unprotected|unsecured|loose|not (?:secured|supported|protected|stapled|strapped)|dangling|hanging|lying|draped|subject to (?:physical )?damage|within reach)` },
+      { re: rx`${T.WIRING}\s+${gap(8)}${T.BE}(?:exposed|unprotected|unsecured|loose|not (?:secured|supported|protected|stapled|strapped)|dangling|hanging|lying|draped|subject to (?:physical )?damage|within reach)`, unless: SERVICE_OR_BOX_WIRES },
       { re: rx`${FLEX_CORD}\s+${gap(3)}(?:used|in use|serving|as|for|run|powering|supplying|providing|feeding|(?:has|have)\s+been\s+(?:run|routed|stapled|strung|nailed|tacked|fastened|used|installed))` },
       { re: rx`${FLEX_CORD}\s+${gap(2)}(?:${T.BE}|being\s+)(?:stapled|strung|nailed|tacked|fastened|routed|run|draped|tied)\s+(?:along|across|through|to|under|over|up|around|in)\b` },
       { re: rx`${FLEX_CORD}\s+${anyGap(6)}(?:in place of|instead of|as|substitut\w+ for|for)\s+(?:a\s+)?(?:permanent|fixed|premises|branch(?:[- ]circuit)?)\s+wiring` },

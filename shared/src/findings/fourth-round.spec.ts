@@ -352,3 +352,21 @@ describe('casual writing: "too" for two, "isnt", an electrician to go through th
     expect(read('Given the owner work, have a licensed electrician go through the whole system before closing.')).toEqual([['evaluate-general', 'whole-house', null]]);
   });
 });
+
+describe('served rooms, service cable, wires of an open box (common practice; NFPA 70 (NEC) 2023, 314.25)', () => {
+  it('reads a room a circuit supplies as where it goes, not where the defect is', () => {
+    expect(read('ATTIC\nKnob-and-tube wiring is energized and still supplies the bedroom and den circuits.')).toEqual([['knob-and-tube', 'attic', null]]);
+  });
+
+  it('keeps a room named with the devices a circuit serves', () => {
+    expect(read('The circuit serving the kitchen receptacles is not GFCI protected.')).toEqual([['gfci-missing', 'kitchen', null]]);
+  });
+
+  it('reads a cracked service entrance cable jacket as the service, not exposed wiring', () => {
+    expect(read('The service entrance cable below the weatherhead has a cracked jacket and is exposed for a foot.')).toEqual([['service-equipment', 'exterior', null]]);
+  });
+
+  it('reads wires hanging from an open box as the box defect only', () => {
+    expect(read('Open junction box at the garage ceiling over the bench, wires hanging.')).toEqual([['open-junction-box', 'garage', 1]]);
+  });
+});

@@ -62,6 +62,10 @@ export interface RoomMention {
 const LIGHTS_IN_CEILING = /\b(?:recessed|can|pot)\s+(?:can\s+)?(?:lights?|fixtures?|housings?|cans?)\s+(?:\w+\s+)?(?:over|above)\s+(?:the\s+)?$/i;
 /** A place the inspector looked from ("From the attic we observed ...", "seen from the crawl space"). */
 const VANTAGE_BEFORE = /(?:^\s*|[.;]\s+)from\s+(?:the\s+)?$|\b(?:viewed|seen|observed|visible|looking)\s+from\s+(?:the\s+)?$/i;
+/** A verb of supply before a room: the room is served, not the place ("feeding the kitchen"). */
+const SERVED_BEFORE = /\b(?:feeding|feeds|serving|serves|supplying|supplies|powering|powers)\s+(?:the\s+)?$/i;
+/** A device noun after the room: "serving the kitchen receptacles" names the devices' place. */
+const DEVICE_AFTER = /^\s*(?:[\w-]+\s+)?(?:receptacles?|outlets?|rcpts?|lights?|fixtures?|counters?|countertops?|switch(?:es)?|fans?|gfcis?|alarms?|smoke)\b/i;
 const REFERENCE_BEFORE = /(?:beneath|below|under|underneath|above|over|outside(?:\s+of)?)\s+(?:the\s+)?$/i;
 /** "by the kitchen pass-through", "near the dining room archway": a room's opening as a landmark of another room. */
 const BESIDE_BEFORE = /(?:by|near|beside|next to|at|toward|towards)\s+(?:the\s+)?$/i;
@@ -90,6 +94,16 @@ export function findRooms(text: string): RoomMention[] {
   for (let i = 0; i + 1 < found.length; i++) {
     const [a, b] = [found[i], found[i + 1]];
     if (LEVEL_ROOMS.has(a.room) && HABITABLE.has(b.room) && /^[\s-]*$/.test(text.slice(a.end, b.start))) found[i] = { ...a, isReferencePoint: true };
+  }
+  // A room a cable or circuit feeds ("NM cable feeding the kitchen", "still supplies the bedroom and
+  // living room circuits") is where it goes, not where the defect is; places listed with it too.
+  for (let i = 0; i < found.length; i++) {
+    const r = found[i];
+    if (r.isReferencePoint || r.room === 'panel') continue;
+    const lead = text.slice(Math.max(0, r.start - 24), r.start);
+    if (!SERVED_BEFORE.test(lead) || DEVICE_AFTER.test(text.slice(r.end, r.end + 24))) continue;
+    found[i] = { ...r, isReferencePoint: true };
+    for (let j = i + 1; j < found.length && /^\s*(?:,|and|or|&|\/)\s*(?:the\s+)?$/i.test(text.slice(found[j - 1].end, found[j].start)); j++) found[j] = { ...found[j], isReferencePoint: true };
   }
   // A shop named after another place is in that place ("basement workshop", "garage shop").
   for (let i = 1; i < found.length; i++) {
