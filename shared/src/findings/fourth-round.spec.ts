@@ -370,3 +370,13 @@ describe('served rooms, service cable, wires of an open box (common practice; NF
     expect(read('Open junction box at the garage ceiling over the bench, wires hanging.')).toEqual([['open-junction-box', 'garage', 1]]);
   });
 });
+
+describe('counts from named sides and listed positions (common practice)', () => {
+  it('reads "the front and rear exterior receptacles" as two', () => {
+    expect(read('The front and rear exterior receptacles have no weatherproof covers.')).toEqual([['weather-cover-missing', 'exterior', 2]]);
+  });
+
+  it('reads "breakers at positions 4 and 9" as two', () => {
+    expect(read('Double-tapped breakers at positions 4 and 9.')).toEqual([['double-tap', 'panel', 2]]);
+  });
+});

@@ -155,6 +155,11 @@ export function findingQuantity(code: string, countText: string, articleLimit: n
   const count = readCount(countText, articleLimit, code === 'exposed-wiring' ? WIRING_COUNTABLE : COUNTABLE);
   if (typeof count === 'number') return count;
   if (count === 'vague') return null;
+  // "the front and rear receptacles", "front+rear": two sides named, two devices.
+  if (SIDE_PAIR.test(countText)) return 2;
+  // "breakers at positions 4 and 9", "slots 12, 14 and 16": one device per number listed.
+  const listed = INDEX_LIST.exec(countText);
+  if (listed) return (listed[0].match(/\d{1,3}/g) ?? []).length;
   if (laterText !== null) {
     const later = readCount(laterText, 0);
     if (typeof later === 'number') return later;
@@ -175,6 +180,11 @@ export function findingQuantity(code: string, countText: string, articleLimit: n
   return ONE_DEVICE.has(code) ? 1 : null;
 }
 
+const SIDE = String.raw`(?:front|rear|back|side|left|right|north|south|east|west|upper|lower)`;
+/** Two sides named together before a plural device noun. */
+const SIDE_PAIR = new RegExp(String.raw`\b${SIDE}\s*(?:and|&|\+|\/)\s*${SIDE}\b(?:\s+[\w-]+){0,2}?\s+(?:receptacles|outlets|rcpts|covers|lights|fixtures|switches|plates|boxes|alarms|fans)\b`, 'i');
+/** Numbered positions listed after an index word. */
+const INDEX_LIST = /\b(?:positions|slots|spaces|circuits|breakers)\s+#?\d{1,3}(?:\s*,\s*#?\d{1,3})*\s*,?\s*(?:and|&)\s*#?\d{1,3}\b/i;
 const LEADING_LABEL = /^\s*[A-Za-z][\w /&-]{0,30}:\s+(?=\S)/;
 
 function deviceNouns(code: string, text: string): RegExpExecArray[] {
