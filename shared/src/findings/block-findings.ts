@@ -3,15 +3,15 @@ import { matchCodes, type CodeMatch } from './code-matcher';
 import { CODE_RULES, WHOLE_SYSTEM, type CodeRule } from './code-patterns';
 import { readLocation } from './location-reader';
 import type { FindingCode } from './finding-code';
-import type { MappedText } from './mapped-text';
+import { sourceRange, type MappedText } from './mapped-text';
 import { negatedSpans } from './negation-detector';
 import { deviceRating, nameplateMaximum, type CarriedRatings } from './overcurrent-check';
-import { findingQuantity } from './quantity-reader';
+import { findingQuantity, isCounted } from './quantity-reader';
 import { scanAll } from './regex-scan';
 import { findRooms, type RoomMention } from './room-lexicon';
 import type { Room } from './room';
 import { lastPlaceMention, placeMatches } from './room-resolver';
-import type { Section } from './block-splitter';
+import type { RowCount, Section } from './block-splitter';
 import { splitSentences } from './sentence-splitter';
 import { normaliseText } from './text-normaliser';
 import type { Confidence } from './finding.schema';
@@ -64,7 +64,7 @@ const VERB = /\b(?:is|are|was|were|has|have|had|be|been)\b/i;
  * finding is dropped when the block already has the same code for the same room, and a general
  * "have an electrician evaluate" finding is dropped when the block has any specific finding.
  */
-export function readBlock(text: MappedText, section: Section): BlockResult {
+export function readBlock(text: MappedText, section: Section, rowCounts: readonly RowCount[] = []): BlockResult {
   const found: BlockFinding[] = [];
   let hasNegated = false;
   // The last place named so far; its location is read only when a later sentence refers back to it.
@@ -100,12 +100,15 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
       clauses,
     );
     const inSentence: BlockFinding[] = [];
+    // A table row's quantity column gives the count of the row's findings.
+    const rowCount = rowCounts.length > 0 ? rowCountOf(written, rowCounts) : null;
     live.forEach((match, i) => {
       const isNormalised = sentence.changed.some((c) => c.start < match.end && match.start < c.end);
       for (const place of placements[i]) {
         const counted = findingQuantity(match.rule.code, place.countText, place.articleLimit, live.length === 1 && place.laterText ? place.laterText : null, place.subjectText ?? '');
         // A device implied by its section at one named place ("BR2: none") is one device.
-        const quantity = counted === null && match === implied && place.room !== 'whole-house' && !isPluralPlace(sentence.text, rooms.find((r) => r.room === place.room)?.text ?? '') ? 1 : counted;
+        const implied1 = counted === null && match === implied && place.room !== 'whole-house' && !isPluralPlace(sentence.text, rooms.find((r) => r.room === place.room)?.text ?? '') ? 1 : counted;
+        const quantity = rowCount !== null && isCounted(match.rule.code) ? rowCount : implied1;
         // The grounding of a service is one system: a sentence naming its parts in two places is one defect.
         const same = inSentence.find((f) => f.code === outdoorCode(match.rule.code, place.room) && (f.room === place.room || match.rule.panelIsPlace === true));
         if (same) continue;
@@ -166,6 +169,12 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
     if (sentenceIndex === 0 && mention) opening = { room: mention.room, location: readLocation(sentence.text, mention), hadFindings: live.length > 0 };
   });
   return { findings: keepDistinct(found), hasNegated };
+}
+
+/** The quantity column's count for the table row a sentence starts in, or null. */
+function rowCountOf(sentence: MappedText, rowCounts: readonly RowCount[]): number | null {
+  const { start } = sourceRange(sentence);
+  return rowCounts.find((r) => r.start <= start && start < r.end)?.count ?? null;
 }
 
 /**

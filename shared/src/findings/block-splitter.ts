@@ -1,5 +1,5 @@
 import type { SectionKind } from './finding.schema';
-import { MappedTextBuilder, type MappedText } from './mapped-text';
+import { MappedTextBuilder, sourceRange, type MappedText } from './mapped-text';
 import type { Room } from './room';
 import { scanAll } from './regex-scan';
 import { classifyHeadingLine, inlineNonElectricalLabel, SUMMARY_HEADING } from './section-heading';
@@ -20,6 +20,30 @@ export interface Section {
 export interface Block {
   readonly section: Section;
   readonly text: MappedText;
+  /** Counts a table's quantity column gives its rows (source offsets of each row). */
+  readonly rowCounts?: readonly RowCount[];
+}
+
+/** The count a quantity column ("Qty", "Count") gives one table row, by the row's source offsets. */
+export interface RowCount {
+  readonly start: number;
+  readonly end: number;
+  readonly count: number;
+}
+
+/** A table's quantity column heading. */
+const QUANTITY_HEADING = /^(?:qty\.?|quantity|count|no\.|#|number|units?)$/i;
+
+/** The cells of a table row (pipes, tabs or fixed-width columns), or null for a line that is no row. */
+function tableCells(line: string): string[] | null {
+  const trimmed = line.trim();
+  let cells: string[];
+  if (trimmed.includes('|')) cells = trimmed.replace(/^\|/, '').replace(/\|$/, '').split('|');
+  else if (trimmed.includes('\t')) cells = trimmed.split('\t');
+  else if (/\S {3,}\S/.test(trimmed)) cells = trimmed.split(/ {3,}/);
+  else return null;
+  cells = cells.map((c) => c.trim());
+  return cells.length >= 3 ? cells : null;
 }
 
 interface Line {
@@ -87,10 +111,23 @@ export function splitBlocks(joined: string): Block[] {
   // A summary whose items stand under topic headings of their own ("REPORT SUMMARY" then
   // "ELECTRICAL"): the summary, its topic titles so far, and whether an item of its own has come since its heading.
   let summary: { readonly title: string; readonly topics: Set<string>; hasTopics: boolean; hasContent: boolean } | null = null;
+  // The quantity column of the table being read ("Item | Location | Qty | Condition"), and the rows' counts.
+  let quantityColumn: number | null = null;
+  const rowCounts: RowCount[] = [];
   const lines = splitLines(joined);
   const shortLine = shortLineFor(lines);
   for (const line of lines) {
     const content = line.text.trim();
+    const cells = content.length > 0 ? tableCells(line.text) : null;
+    if (cells) {
+      const heading = cells.findIndex((c) => QUANTITY_HEADING.test(c));
+      if (heading !== -1) quantityColumn = heading;
+      else if (quantityColumn !== null && /^\d{1,2}$/.test(cells[quantityColumn] ?? '') && Number(cells[quantityColumn]) > 0) {
+        rowCounts.push({ start: line.start, end: line.end, count: Number(cells[quantityColumn]) });
+      }
+    } else if (content.length > 0 && !NOISE_LINE.test(content) && !/^\s{8,}\S/.test(line.text)) {
+      quantityColumn = null;
+    }
     if (content.length === 0) {
       close();
       continue;
@@ -144,7 +181,12 @@ export function splitBlocks(joined: string): Block[] {
     prevLine = line;
   }
   close();
-  return blocks;
+  if (rowCounts.length === 0) return blocks;
+  return blocks.map((b) => {
+    const { start, end } = sourceRange(b.text);
+    const own = rowCounts.filter((r) => r.start < end && start < r.end);
+    return own.length > 0 ? { ...b, rowCounts: own } : b;
+  });
 }
 
 /** A line about the summary itself, not one of its items. */

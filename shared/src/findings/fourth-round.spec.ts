@@ -380,3 +380,22 @@ describe('counts from named sides and listed positions (common practice)', () =>
     expect(read('Double-tapped breakers at positions 4 and 9.')).toEqual([['double-tap', 'panel', 2]]);
   });
 });
+
+describe('tables: a quantity column gives the row\'s count (common practice: table exports)', () => {
+  it('reads "Qty" in a pipe table, a tab table and a fixed-width table', () => {
+    const pipes = ['Item | Location | Qty | Condition', 'Receptacle | Den | 2 | Reversed polarity'].join('\n');
+    expect(read(pipes)).toEqual([['reversed-polarity', 'living-area', 2]]);
+    const tabs = ['Item\tLocation\tQty\tCondition', 'Cover plate\tHall\t2\tMissing'].join('\n');
+    expect(read(tabs)).toEqual([['cover-plate-missing', 'hallway', 2]]);
+    const fixed = ['Component          Location        Count   Condition', 'Smoke alarm        Bedrooms        3       Missing'].join('\n');
+    expect(read(fixed)).toEqual([['smoke-co-alarm', 'bedroom', 3]]);
+  });
+
+  it('gives no count to a condition of the house, and forgets the column after the table', () => {
+    const text = ['Item | Location | Qty | Condition', 'Wiring | Attic | 1 | Knob-and-tube in use', '', 'The receptacle by the den door has reversed polarity.'].join('\n');
+    expect(read(text)).toEqual([
+      ['knob-and-tube', 'attic', null],
+      ['reversed-polarity', 'living-area', 1],
+    ]);
+  });
+});

@@ -127,6 +127,10 @@ function isNumberAhead(tokens: Token[], i: number): boolean {
  * service, a general evaluation): they carry no count even when the text gives one.
  */
 const UNCOUNTED = new Set(['service-equipment', 'knob-and-tube', 'grounding-electrode', 'subpanel-bonding', 'afci-missing', 'aluminum-branch-wiring', 'evaluate-general']);
+/** Whether findings of the code carry a count at all. */
+export function isCounted(code: string): boolean {
+  return !UNCOUNTED.has(code);
+}
 /** Codes about one device each: with no noun in the finding's words, the report speaks of one. */
 const ONE_DEVICE = new Set(['receptacle-damaged', 'gfci-inoperative', 'fan-support', 'switch-issue', 'reversed-polarity', 'false-ground', 'light-fixture', 'double-tap', 'overcurrent-mismatch', 'weather-cover-missing', 'cover-plate-missing', 'open-junction-box']);
 /**

@@ -61,7 +61,7 @@ export function parseReport(pages: readonly string[]): ParseResult {
       skip('non-electrical-section');
       continue;
     }
-    const result = readBlock(block.text, block.section);
+    const result = readBlock(block.text, block.section, block.rowCounts);
     if (result.findings.length === 0) {
       const suggestion = result.hasNegated ? null : suggestItem(block.text.text, block.section.room);
       if (suggestion) {
