@@ -399,3 +399,18 @@ describe('tables: a quantity column gives the row\'s count (common practice: tab
     ]);
   });
 });
+
+describe('polarity: repairs already made, earlier owners, general advice (common practice: history and advice are no findings)', () => {
+  it('denies a defect that "was repaired prior to the inspection" or "has since been corrected"', () => {
+    expect(read('Reversed polarity at the office receptacle was repaired prior to the inspection.')).toEqual([]);
+    expect(read('The double tap in the garage subpanel has since been corrected.')).toEqual([]);
+  });
+
+  it('denies wiring a previous owner replaced', () => {
+    expect(read('A previous owner replaced the aluminum wiring with copper in 1998.')).toEqual([]);
+  });
+
+  it('denies general advice that starts with "Where"', () => {
+    expect(read('Where ungrounded three-prong receptacles exist, GFCI protection may be added as an alternative.')).toEqual([]);
+  });
+});
