@@ -51,7 +51,7 @@ const SAME_SUBJECT = /^(?:the|this|that|it)\b(?!\s+(?:other|second|third|next|re
 const ANOTHER = /\b(?:also|another|too|as well|second|other|additional|each|all|both)\b/i;
 
 /** A sentence that points back to a place named before it ("It is not GFCI protected"). */
-const REFERS_BACK = /^(?:it|they|this|these|those|each|both|one|the same|also|and)\b/i;
+const REFERS_BACK = /^(?:it|they|this|these|those|each|both|one|the same|also|and|there (?:is|are|was|were) also)\b/i;
 /** A short line naming a place with no verb ("Basement bar area", "Primary bath:"). */
 const MAX_LABEL_WORDS = 5;
 /** Counting whitespace runs gives the word count of `split(/\s+/)` without its copy of the expression. */

@@ -131,7 +131,7 @@ const SERVICE_OR_BOX_WIRES = /\bservice[- ]entrance\b|\bse cable\b|\bservice (?:
 /** What goes wrong with a cable run (common practice): not secured, not protected, within reach of damage. */
 const WIRE_CONDITION = String.raw`(?:exposed to (?:physical )?damage|subject to (?:physical )?damage|unprotected|unsecured|unsupported|unstapled|(?:has\s+)?(?:come|came|coming|pulled|pulling) (?:loose|free|away)|(?:not|never) (?:clamped|secured|supported|stapled|strapped|fastened|protected)|loose\b|hang(?:s|ing)\b|dangl(?:es|ing)|draped|(?:hanging\s+)?in loops)`;
 /** A part of the grounding electrode system or of piping bonding (NFPA 70 (NEC) 2023, 250.50, 250.104). */
-const GROUND_PART = String.raw`(?:ground(?:ing)? electrode(?: conductor)?|gec\b|(?:ground(?:ing)?|electrode)\s+(?:rods?|clamps?|wires?|conductors?)\b|(?:main\s+)?(?:water|gas|csst)(?:\s+(?:pipe|piping|line|main|service))?\s+bond(?:ing)?(?:\s+(?:jumper|clamp|wire|conductor|connection))?\b|bond(?:ing)?\s+(?:jumpers?|clamps?|conductors?|wires?|connections?)\b|acorn clamp)`;
+const GROUND_PART = String.raw`(?:ground(?:ing)? electrode(?: conductor| system)?|ges\b|gec\b|(?:ground(?:ing)?|electrode)\s+(?:rods?|clamps?|wires?|conductors?)\b|(?:main\s+)?(?:water|gas|csst)(?:\s+(?:pipe|piping|line|main|service))?\s+bond(?:ing)?(?:\s+(?:jumper|clamp|wire|conductor|connection))?\b|bond(?:ing)?\s+(?:jumpers?|clamps?|conductors?|wires?|connections?)\b|acorn clamp)`;
 /** What goes wrong with a grounding or bonding part (common practice). */
 const GROUND_CONDITION = String.raw`(?:loose|corroded|(?:heavy|severe|some)?\s*corrosion|rust(?:ed|y)|disconnected|detached|cut(?: off)?|broken|damaged|missing|slipping off|pulled (?:off|loose|free)|(?:not|un)[- ]?(?:connected|attached|bonded|secured|clamped)|undersized|painted over|(?:appears? to )?(?:have|has) been removed|removed)\b`;
 const COVER_OFF_TO_INSPECT = /\bremoved\s+(?:by\s+(?:the\s+)?inspector\s+)?(?:for|to|during|so|when|while)\b|\bwith\s+(?:the\s+)?(?:dead[- ]?front|(?:panel\s+)?cover)(?:\s+cover)?\s+(?:was\s+)?(?:removed|off)\b|\b(?:was|were)\s+removed\.?$/i;
@@ -369,12 +369,12 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'subpanel-bonding',
-    trigger: /neutral|ground|bond|green|egc/i,
+    trigger: /neutral|ground|bond|green|egc|\bn\s*(?:&|\/|and)\s*g\b/i,
     fixedRoom: 'panel',
     // Polarity: neutrals and grounds together at the main service are correct ("which is correct at
     // the service equipment", "as permitted at the main"; NFPA 70 (NEC) 2023, 250.24(A)).
     patterns: [
-      { re: rx`(?:neutrals?|grounds?)(?:\s+(?:conductors?|wires?))?\s+(?:and|&)\s+(?:neutrals?|grounds?|grounding|equipment grounds?)(?:\s+(?:conductors?|wires?))?\s+${gap(3)}(?:share|sharing|are on|on (?:the )?same|(?:landed |terminated )?together|combined|commingled|mixed|${T.BE}not (?:separated|isolated))`, unless: CORRECT_AT_SERVICE },
+      { re: rx`(?:neutrals?|grounds?|n)(?:\s+(?:conductors?|wires?))?\s*(?:and|&|\/)\s*(?:neutrals?|grounds?|grounding|equipment grounds?|g)(?:\s+(?:conductors?|wires?))?\s+${gap(3)}(?:share|sharing|are on|on (?:the )?same|(?:landed |terminated )?together|combined|commingled|mixed|${T.BE}not (?:separated|isolated))`, unless: CORRECT_AT_SERVICE },
       { re: rx`(?:grounds?|ground wires|egcs?|equipment grounds?)\s+${gap(3)}(?:on|landed on|connected to|terminated on|share)\s+(?:the\s+)?neutral\s+(?:bar|bus)`, context: SUBPANEL_CONTEXT },
       { re: rx`(?:bonding|bond|green)\s+(?:screw|strap|jumper)\s+${gap(3)}${T.BE}(?:present|installed|in place|not removed)`, context: SUBPANEL_CONTEXT, unless: /\b(?:not|never)\s+(?:been\s+)?(?:installed|present|in place)\b/i },
       { re: rx`neutral\s+(?:bar|bus)?\s*${gap(2)}${T.BE}bonded\s+to\s+(?:the\s+)?(?:enclosure|case|can|cabinet|panel|ground)`, context: SUBPANEL_CONTEXT },
@@ -383,11 +383,11 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'grounding-electrode',
-    trigger: /ground|gec|bond|electrode|jumper|acorn/i,
+    trigger: /ground|gec|\bges\b|bond|electrode|jumper|acorn/i,
     defaultRoom: 'panel',
     panelIsPlace: true,
     patterns: [
-      { re: rx`(?:${T.NO}|loose|disconnected|damaged|broken|cut|corroded|inadequate|improper)\s+(?:(?:a|an|the)\s+)?${gap(2)}(?:ground(?:ing)? electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|water (?:pipe |line )?bond(?:ing)?(?: jumper)?|gas (?:pipe |line )?bond(?:ing)?|bonding (?:jumper|conductor|clamp|wire|connection))` },
+      { re: rx`(?:${T.NO}|loose|disconnected|damaged|broken|cut|corroded|inadequate|improper)\s+(?:(?:a|an|the)\s+)?${gap(2)}(?:ground(?:ing)? electrode(?: conductor| system)?|gec\b|ges\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|water (?:pipe |line )?bond(?:ing)?(?: jumper)?|gas (?:pipe |line )?bond(?:ing)?|bonding (?:jumper|conductor|clamp|wire|connection))` },
       { re: rx`(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|bonding (?:jumper|clamp|conductor))\s+${gap(12)}${T.BE}(?:${T.ABSENT}|loose|disconnected|damaged|cut(?: off)?|broken|corroded|not (?:connected|attached|bonded|secured)|undersized|inadequate)` },
       // A water meter or filter bridged by no jumper leaves the piping bond open (NFPA 70 (NEC) 2023, 250.53(D)(1) and 250.68(B)).
       { re: rx`${T.NO}\s+(?:bonding\s+)?jumper\s+(?:wire\s+)?(?:around|across|bridging|over|at)\s+(?:the\s+)?(?:water\s+)?(?:meter|filter|softener|water heater)` },

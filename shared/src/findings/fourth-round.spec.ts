@@ -414,3 +414,19 @@ describe('polarity: repairs already made, earlier owners, general advice (common
     expect(read('Where ungrounded three-prong receptacles exist, GFCI protection may be added as an alternative.')).toEqual([]);
   });
 });
+
+describe('terse outbuilding notes (NFPA 70 (NEC) 2023, 250.32(A) and 250.24(A)(5))', () => {
+  it('reads a heading with an abbreviation ("DET. GARAGE / SHOP") as the garage', () => {
+    expect(read('DET. GARAGE / SHOP\nExt cord used as perm. wiring to the bench, stapled to rafters.')).toEqual([['exposed-wiring', 'garage', 1]]);
+  });
+
+  it('reads "N & G on same bar" in a subpanel and "No GES found"', () => {
+    expect(read('Subpnl in barn:\n - N & G on same bar, bond screw installed.')).toEqual([['subpanel-bonding', 'panel', null]]);
+    expect(read('Barn: no GES found, no rod.')).toEqual([['grounding-electrode', 'panel', null]]);
+  });
+
+  it('carries the place of the sentence before to "There is also ..."', () => {
+    const text = 'In the crawl space the NM cable is newer. There is also an open splice wrapped in tape with no box.';
+    expect(read(text)).toEqual([['open-junction-box', 'crawl-space', 1]]);
+  });
+});

@@ -83,6 +83,10 @@ export function classifyHeadingLine(line: string): HeadingLine | null {
   }
   const title = trimmed.replace(NUMBERING, '').replace(/\s*[:\-–—]+\s*$/, '').trim();
   if (title.length === 0) return null;
+  // "DET. GARAGE / SHOP": the full stop of a short abbreviation inside a heading is no sentence end.
+  if (/^[A-Z][A-Z]{1,4}\.\s+[A-Z]/.test(title) && !/[!?;]|\.\s*$/.test(title) && (title.match(/\./g) ?? []).length === 1) {
+    return classifyHeadingLine(title.replace(/^([A-Z]{2,5})\.\s+/, '$1 '));
+  }
   // "ELECTRICAL SUMMARY (see 7.1 - 7.6 for detail)": a summary heading with a note in brackets.
   if (/[.!?;]/.test(title)) {
     const bare = title.replace(/\s*\([^()]*\)\s*$/, '');
