@@ -119,6 +119,8 @@ const LIGHT_CONDITION = String.raw`(?:loose\b(?!-)|dead\b|(?:has\s+)?water\s+in|
 const RCPT_GAP = String.raw`(?:(?!${T.SWITCH}|light|fixture|panel|breaker|cords?\b|plates?\b|covers?\b|gfc?i|wir(?:e|es|ing)\b|cables?\b)[\w'/#().@:-]+\s+){0,12}?`;
 /** What goes wrong with a receptacle (common practice): heat, damage, looseness, no power. */
 const RCPT_CONDITION = String.raw`(?:(?:is|are|was|were|felt|feels?|runs?|ran|running)\s+(?:(?:noticeably|very|slightly)\s+)?(?:warm|hot)\b(?!\s+(?:and|&|\/)\s+neutral)|(?:warm|hot)\s+to\s+the\s+touch|discolou?red|scorched|burn(?:ed|t)|melted|charred|cracked|broken|damaged|loose\s+(?:in|from|at)\b|hanging\s+(?:out|loose|from)|pulled\s+(?:out|away)|(?:had\s+|has\s+)?no\s+power\b|dead\b|${T.INOPERATIVE})`;
+/** Receptacles dead because the GFCI before them failed (common practice: that is the GFCI's defect). */
+const DEAD_BEHIND_GFCI = /\bdownstream\b[^.;]{0,40}\b(?:dead|no power|without power)\b|\b(?:gfc?i|ground[- ]fault)\b[^.;]{0,30}\b(?:dead|no power)\b.{0,40}\breset\b|\b(?:gfc?i|ground[- ]fault)\b[^.;]{0,60}\b(?:will not|won't|does not|doesn't|did not|fails? to|failed to)\s+reset\b/i;
 /** Words between a cable and its condition: not another device, whose condition it would be. */
 const WIRE_GAP = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|light|fixture|box(?:es)?\b|panel|breaker|cords?\b|service|meter)[\w'/#().@-]+,?\s+){0,10}?`;
 /** A cable said to be secured, or the cable of a splice or fixture (an open splice, a hanging fixture is that defect). */
@@ -237,7 +239,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?:[- ]over)?|worn|discolou?red|heat[- ]damaged|dead|${T.INOPERATIVE})\s+${ADJ_GAP}${T.RCPT}` },
       { re: rx`(?:cracked|broken|damaged) (?:face|housing|body)|loose (?:plug )?fit|plugs? (?:fits?|fit) loose(?:ly)?|(?:will not|won't|does not|doesn't) (?:hold|retain) (?:a |the )?plugs?` },
-      { re: rx`${T.RCPT}\s+${gap(8)}${T.BE}(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?: over)?|worn|discolou?red|dead|${T.INOPERATIVE}|not (?:energized|powered|secured|secure|fastened)|pulled (?:out|away)|recessed)` },
+      { re: rx`${T.RCPT}\s+${gap(8)}${T.BE}(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?: over)?|worn|discolou?red|dead|${T.INOPERATIVE}|not (?:energized|powered|secured|secure|fastened)|pulled (?:out|away)|recessed)`, unless: DEAD_BEHIND_GFCI },
       { re: rx`${T.RCPT}\s+${gap(5)}(?:(?:has|have|had)\s+no|(?:is|are)\s+without)\s+power` },
       { re: rx`${T.RCPT}\s+${gap(8)}(?:shows?|showed|has|have|had|with)\s+(?:(?:brown|black|dark|visible|some)\s+)?(?:scorch|burn|arc(?:ing)?|char|heat|melt)\w*(?:\s+marks?)?` },
       { re: rx`(?:scorch|burn|arc(?:ing)?|char)\w*\s+marks?\s+(?:on|at)\s+${gap(3)}${T.RCPT}` },
@@ -246,7 +248,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:loose|poor|weak|worn)\s+(?:blade\s+)?(?:tension|grip|contacts)` },
       // A receptacle and its condition in the same clause with a longer description between ("the
       // receptacle on the fireplace wall in the family room was warm and discolored"; common practice).
-      { re: rx`${T.RCPT}:?\s+${RCPT_GAP}(?:${T.BE})?(?:(?:noticeably|very|slightly|visibly|partly|partially)\s+)?${RCPT_CONDITION}`, unless: /\b(?:gfc?i|ground[- ]fault)\b[^.;]{0,30}\b(?:dead|no power)\b.{0,40}\breset\b|\b(?:gfc?i|ground[- ]fault)\b[^.;]{0,60}\b(?:will not|won't|does not|doesn't|did not|fails? to|failed to)\s+reset\b/i },
+      { re: rx`${T.RCPT}:?\s+${RCPT_GAP}(?:${T.BE})?(?:(?:noticeably|very|slightly|visibly|partly|partially)\s+)?${RCPT_CONDITION}`, unless: DEAD_BEHIND_GFCI },
     ],
   },
   {
@@ -522,7 +524,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     fixedRoom: 'exterior',
     patterns: [
       { re: rx`${T.SERVICE}\s+${gap(8)}${T.BE}(?:damaged|leaning|bent|loose|pulling away|detached|unsecured|not (?:secured|sealed|properly (?:secured|sealed|supported))|${T.ABSENT}|deteriorated|worn|frayed|cracked|rusted|rusting|corroded|too low|sagging|in contact with|contacting|touching|rubbing|exposed|weathered|brittle|torn|split)` },
-      { re: rx`(?:${T.NO}|damaged|deteriorated|frayed|worn|cracked|weathered|brittle|loose|leaning|bent|rusted|corroded)\s+${gap(2)}${T.SERVICE}` },
+      { re: rx`(?:${T.NO}|damaged|deteriorated|frayed|worn|cracked|weathered|brittle|loose|leaning|bent|rusted|corroded)\s+${gap(2)}${T.SERVICE}(?!\s+(?:deficiencies|defects|issues|problems|concerns)\b)` },
       { re: rx`(?:trees?|branches|limbs|vegetation|vines)\s+${gap(3)}(?:in contact with|contacting|touching|rubbing|against|interfering with)\s+(?:the\s+)?${gap(2)}${T.SERVICE}` },
       { re: rx`(?:inadequate|insufficient|improper|low)\s+(?:service\s+)?(?:drop\s+)?clearance\b`, context: /service|drop|overhead|mast|utility|roof/i, unless: PANEL_CONTEXT },
       { re: rx`${T.SERVICE}\s+${gap(8)}(?:has\s+|have\s+|is\s+|are\s+)?(?:pulled|pulling|separated|separating|come|coming|broken)\s+(?:away\s+|loose\s+)?(?:from|off)\b` },

@@ -430,3 +430,24 @@ describe('terse outbuilding notes (NFPA 70 (NEC) 2023, 250.32(A) and 250.24(A)(5
     expect(read(text)).toEqual([['open-junction-box', 'crawl-space', 1]]);
   });
 });
+
+describe('titles, questions, "no ... deficiencies", receptacles dead behind a GFCI (common practice)', () => {
+  it('reads a sub-heading that only names the defect as the heading of the paragraph after it', () => {
+    const text = ['7.3 Double Tap', 'The 20 amp breaker at position 6 has two conductors under its terminal.'].join('\n');
+    expect(read(text)).toEqual([['double-tap', 'panel', 1]]);
+  });
+
+  it('reads a defect asked about ("knob-and-tube?") as no finding', () => {
+    expect(read('attic: knob-and-tube? not seen, insulation deep')).toEqual([]);
+  });
+
+  it('reads "no service entrance deficiencies" as no finding', () => {
+    expect(read('No service entrance deficiencies were noted; underground service.')).toEqual([]);
+  });
+
+  it('gives receptacles dead downstream of a failed GFCI to the GFCI, counted as one GFCI', () => {
+    const text = 'The GFCI at the bar sink will not reset. The two receptacles downstream of it are dead as a result.';
+    expect(read(text)).toEqual([['gfci-inoperative', 'unknown', 1]]);
+    expect(read("Garage: GFCI rcpt by the door trips, won't reset -- rcpts on that ckt dead (x2).")).toEqual([['gfci-inoperative', 'garage', 1]]);
+  });
+});

@@ -54,6 +54,10 @@ export function negatedSpans(text: string, spans: readonly Range[], clauses: rea
     negated[first] = true;
     for (let i = first + 1; i < spans.length && isListed(spans[i - 1], spans[i]); i++) negated[i] = true;
   }
+  // "attic: knob-and-tube?": a phrase asked about, not reported.
+  spans.forEach((s, i) => {
+    if (/^\s?\?/.test(text.slice(s.end, s.end + 2))) negated[i] = true;
+  });
   for (const cue of cuesOutside(text, CUE_AFTER, spans)) {
     let last = -1;
     spans.forEach((s, i) => {

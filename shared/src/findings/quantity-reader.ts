@@ -141,6 +141,7 @@ const ONE_DEVICE = new Set(['receptacle-damaged', 'gfci-inoperative', 'fan-suppo
 const DEVICE_NOUN = /\b(?:((?:cover|face|wall|switch|outlet|receptacle|filler)[- ]?plate|(?:recessed |can )?light housing|light fixture|smoke (?:alarm|detector)|co (?:alarm|detector)|carbon monoxide (?:alarm|detector)|ceiling fan|junction box|j-box|gfci (?:receptacle|outlet|breaker|device)|rec[ei]pt?[aeiu]?c(?:le|al|el)|rcpt|outlet|device|duplex|gfci|breaker|fuse|fixture|light|luminaire|lamp|bulb|globe|fan|switch|dimmer|box|splice|cover|plate|alarm|detector|cord|knockout|screw|terminal|tap|pendant|sconce|chandelier|housing)(s|es)?)\b/gi;
 /** Nouns that name the protection itself when the defect is its absence ("no GFCI protection"). */
 const PROTECTION_NOUN = /^(?:gfci|afci)$/i;
+const DEAD_AFTER_GFCI = /\b(?:rcpts?|receptacles?|outlets?)\b[^.;]{0,40}\b(?:dead|without power|no power|not powered)\b[^.;]*/gi;
 const CONDUCTORS_UNDER_ONE = /\b(?:two|2|three|3|both|multiple)\s+(?:\w+\s+)?(?:wires|conductors|neutrals|circuits|feeds)\b/gi;
 /** What exposed wiring is counted in: cords, cables, runs, places; not the lights a cord feeds. */
 const WIRING_COUNTABLE = /^(?:cords?|cables?|wires?|wiring|conductors?|splices?|places?|locations?|spots?|areas?|circuits?)$/i;
@@ -156,6 +157,8 @@ export function findingQuantity(code: string, countText: string, articleLimit: n
   if (UNCOUNTED.has(code)) return null;
   // A double tap is counted in breakers (terminals), not in the conductors under one terminal.
   if (code === 'double-tap') countText = countText.replace(CONDUCTORS_UNDER_ONE, (m) => ' '.repeat(m.length));
+  // A failed GFCI is counted in GFCIs, not in the receptacles left dead after it ("rcpts on that ckt dead (x3)").
+  if (code === 'gfci-inoperative') countText = countText.replace(DEAD_AFTER_GFCI, (m) => ' '.repeat(m.length));
   const count = readCount(countText, articleLimit, code === 'exposed-wiring' ? WIRING_COUNTABLE : COUNTABLE);
   if (typeof count === 'number') return count;
   if (count === 'vague') return null;
