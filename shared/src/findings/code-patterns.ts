@@ -80,7 +80,7 @@ const REFERS_TO_OTHERS = /\bif\b|\bany\b|\bshould any\b|\babove\b|\bbelow\b|\bfo
 export const WHOLE_SYSTEM = /^(?![\s\S]*\b(?:alumin\w*|knob|k&t|legacy|these|those)\b)[\s\S]*?(?:\b(?:entire|whole|full|complete|comprehensive|overall)\s+(?:[\w-]+\s+){0,2}?(?:system|house|home|wiring|evaluation|review)\b|\bevaluate the (?:electrical )?system\b)/i;
 /** An evaluation that points at other items, unless it is of the whole system ("so that any hidden conditions can be priced"). */
 const REFERS_TO_OTHERS_ONLY = new RegExp(`^(?![\\s\\S]*(?:${WHOLE_SYSTEM.source}))[\\s\\S]*?(?:${REFERS_TO_OTHERS.source})`, 'i');
-const PANEL_CONTEXT = /panel|dead[- ]?front|load cent|breaker box|fuse box|enclosure/i;
+const PANEL_CONTEXT = /panel|\bpnl\b|dead[- ]?front|load cent|breaker box|fuse box|enclosure|\bko\b.{0,20}\bcan\b/i;
 /** A bare "cover" next to a junction box is the box's cover, not a device cover plate. */
 const JBOX_WORD = /junction|j-?\s?box|\bbox(?:es)?\b/i;
 /** Old wiring that is out of service (common practice: only energized knob-and-tube is reported as a condition). */

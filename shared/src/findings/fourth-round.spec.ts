@@ -451,3 +451,13 @@ describe('titles, questions, "no ... deficiencies", receptacles dead behind a GF
     expect(read("Garage: GFCI rcpt by the door trips, won't reset -- rcpts on that ckt dead (x2).")).toEqual([['gfci-inoperative', 'garage', 1]]);
   });
 });
+
+describe('shorthand places and panel parts (NFPA 70 (NEC) 2023, 110.12(A) for unused openings)', () => {
+  it('reads "kitch" as the kitchen', () => {
+    expect(read('kitch: (2) 3-prong open gnd')).toEqual([['open-ground', 'kitchen', 2]]);
+  });
+
+  it('reads an open KO at the side of the can as a panel defect', () => {
+    expect(read('PNL:\n  - open KO @ side of can, no plug')).toEqual([['panel-deficiency', 'panel', null]]);
+  });
+});

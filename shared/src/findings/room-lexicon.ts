@@ -8,7 +8,7 @@ import type { Room } from './room';
  */
 const ROOM_WORDS: ReadonlyArray<readonly [Room, string]> = [
   ['bathroom', String.raw`(?:(?:hall|guest|primary|master|main|upstairs|downstairs|half|full|kids'?|jack and jill|second|upper|lower)\s+)?bath(?:room)?s?\b|powder rooms?|en-?suites?|lavatory|restrooms?|(?:tub|shower)(?:\s+(?:area|enclosure|stall))?\b|vanity`],
-  ['kitchen', String.raw`kitchens?|kitchenette|kit\b\.?|(?:kitchen\s+)?island|breakfast (?:nook|area|bar)|peninsula|pantry|(?:kitchen\s+)?counter\s*tops?|countertops?|(?:refrigerator|fridge|dishwasher|garbage disposal|disposal|range hood|stove|cooktop|(?:electric\s+)?range(?=\s+(?:receptacle|outlet|cord|circuit|hood))|(?<=\b(?:the|behind|beside|near)\s)range\b)(?![\w\s,]{0,30}\b(?:garage|basement|laundry|bar|utility|porch|patio)\b)`],
+  ['kitchen', String.raw`kitchens?|kitchenette|kit\b\.?|kitch\b\.?|(?:kitchen\s+)?island|breakfast (?:nook|area|bar)|peninsula|pantry|(?:kitchen\s+)?counter\s*tops?|countertops?|(?:refrigerator|fridge|dishwasher|garbage disposal|disposal|range hood|stove|cooktop|(?:electric\s+)?range(?=\s+(?:receptacle|outlet|cord|circuit|hood))|(?<=\b(?:the|behind|beside|near)\s)range\b)(?![\w\s,]{0,30}\b(?:garage|basement|laundry|bar|utility|porch|patio)\b)`],
   ['garage', String.raw`garages?|carports?|gar\b\.?|(?:work\s?)?shops?\b(?![- ](?:lights?|vacs?|fixtures?|lamps?))|shop (?:building|bldg)`],
   ['exterior', String.raw`exterior(?!\s+walls?\b)|outside(?!\s+(?:walls?|corner|of|the|a|an|its|their|this|that|each|every|all|any|bedrooms?|sleeping|junction|boxes?|enclosures?|panels?)\b)|outdoors?|patio|decks?\b|porch(?:es)?|balcon(?:y|ies)|yard|pool|spa\b|hot tub|siding|eaves|soffits?|(?:service\s+|meter\s+)?pedestal(?!\s+(?:sinks?|lavatory|basins?|fans?))|courtyards?|lanais?|verandas?|terraces?|gazebos?|breezeways?|(?:pool\s+|pump\s+)?equipment pads?|(?:front|rear|side|back) (?:wall|elevation)|ext\b\.?`],
   ['basement', String.raw`basements?|cellar|bsmt\b\.?|bsmnt\b\.?|lower level`],
@@ -18,7 +18,7 @@ const ROOM_WORDS: ReadonlyArray<readonly [Room, string]> = [
   ['living-area', String.raw`living(?: (?:room|area)s?)?\b|family rooms?|great rooms?|den\b|sun\s?rooms?|florida rooms?|sun porch(?:es)?|three[- ]season rooms?|rec(?:reation)? rooms?|bonus rooms?|parlou?r|library|front room|lr\b|fireplace|media room`],
   ['hallway', String.raw`hall(?:way)?s?\b|corridors?|stair(?:way|well|case)?s?\b|landing|foyer|(?<!\b(?:water|service|cable|line|pipe|meter|conduit|wire|point of)\s+)entry(?:way)?(?!\s+(?:doors?|points?))|front entry(?!\s+doors?)`],
   ['attic', String.raw`attics?\b`],
-  ['panel', String.raw`(?:main\s+|electrical\s+|service\s+|distribution\s+)?(?:sub-?\s?panel|panel\s*board|panel)s?\b|load cent(?:er|re)|breaker box|fuse box`],
+  ['panel', String.raw`(?:main\s+|electrical\s+|service\s+|distribution\s+)?(?:sub-?\s?panel|panel\s*board|panel|pnl)s?\b|load cent(?:er|re)|breaker box|fuse box`],
   ['dining', String.raw`dining(?:\s+(?:room|area))?|dinette`],
   ['office', String.raw`(?:home\s+)?office|study\b`],
   ['whole-house', String.raw`throughout(?: the (?:home|house|dwelling|unit))?(?!\s+(?:the|this|that|each|every|all|both)\b)|anywhere in the (?:home|house|dwelling|unit)|(?:in|on) (?:each|every|all|any) (?:levels?|floors?|stor(?:y|ies))(?: of the (?:home|house|dwelling))?|whole[- ]house|entire (?:home|house|dwelling|electrical system|system)|all rooms|every room|(?<=\b(?:none|nothing|no\s+[\w/-]+(?:\s+[\w/-]+)?|present|found|installed|observed|anywhere)\s+)in (?:the )?(?:house|home|unit|dwelling)\b`],
