@@ -461,3 +461,14 @@ describe('shorthand places and panel parts (NFPA 70 (NEC) 2023, 110.12(A) for un
     expect(read('PNL:\n  - open KO @ side of can, no plug')).toEqual([['panel-deficiency', 'panel', null]]);
   });
 });
+
+describe('pool and spa sections are places outside, not skipped (NFPA 70 (NEC) 2023, 680.21 and 680.26)', () => {
+  it('reads a pump breaker above the motor nameplate under a "Pool Equipment" heading', () => {
+    const text = 'Pool Equipment\nThe pump circuit is on a 30 amp breaker; the pump nameplate lists a maximum protective device of 20 amps.';
+    expect(read(text)).toEqual([['overcurrent-mismatch', 'panel', 1]]);
+  });
+
+  it('reads the pool receptacle under a "POOL / SPA" heading as outside', () => {
+    expect(read('POOL / SPA\nThe receptacle at the pump is not GFCI protected.')).toEqual([['gfci-missing', 'exterior', 1]]);
+  });
+});

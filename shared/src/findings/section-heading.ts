@@ -25,13 +25,15 @@ const NON_ELECTRICAL = new Set([
   'grading', 'drainage', 'grounds', 'landscaping', 'driveway', 'driveways', 'walkways', 'fireplace',
   'fireplaces', 'finishes', 'walls', 'ceilings', 'floors', 'flooring', 'cabinets', 'countertops',
   'septic', 'well', 'sewer', 'irrigation', 'sprinklers', 'pest', 'radon', 'mold', 'heat', 'pump',
-  'supply', 'drains', 'waste', 'vents', 'fuel', 'gas', 'site', 'lot', 'fences', 'pool', 'spa', 'plumb',
+  'supply', 'drains', 'waste', 'vents', 'fuel', 'gas', 'site', 'lot', 'fences', 'plumb',
 ]);
 const ROOM_WORDS = new Set([
   'kitchen', 'kitchens', 'bathroom', 'bathrooms', 'bath', 'baths', 'garage', 'garages', 'carport',
   'exterior', 'basement', 'basements', 'crawl', 'crawlspace', 'laundry', 'bedroom', 'bedrooms',
   'living', 'hallway', 'hallways', 'hall', 'halls', 'attic', 'attics', 'dining', 'office', 'den',
   'family', 'powder', 'primary', 'master', 'guest', 'porch', 'deck', 'patio', 'stairs', 'entry',
+  // A pool or spa section holds its pump, light, bonding and GFCI items: it is a place outside (common practice).
+  'pool', 'spa',
 ]);
 const GENERAL = new Set(['summary', 'general', 'detailed', 'detail', 'interior', 'interiors', 'introduction', 'overview', 'body', 'discussion', 'narrative']);
 
