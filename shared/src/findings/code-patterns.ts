@@ -114,7 +114,7 @@ const BOX_FEEDING = /\b(?:junction|j-?\s?box|splice box)\b[^.;]{0,20}?\b(?:feedi
 const BOX_UNCOVERED = String.raw`\b(?:no|missing|without|lacks?|lacking)\s+(?:a\s+|its\s+|the\s+|any\s+)?(?:blank\s+)?(?:covers?|lids?)\b(?!\s*plates?|\s+(?:on|for|at)\s+(?:the\s+|an?\s+)?(?:[\w-]+\s+)?(?:${T.RCPT}|${T.SWITCH}|light))|\b(?:covers?|lids?)\s+(?:is\s+|are\s+)?(?:missing|absent|off|removed)\b|\b(?:splices?|wire nuts?|conductors?|connections?)\s+(?:are\s+|is\s+)?(?:visible|showing|exposed|accessible)\b`;
 /** Words between a light and its condition: no other device. */
 const LIGHT_GAP = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|fans?\b|panel|breaker|box(?:es)?\b|cords?\b|wir(?:e|es|ing)\b|cables?\b|smoke|alarms?\b)[\w'/#().@:-]+,?\s+){0,10}?`;
-const LIGHT_CONDITION = String.raw`(?:loose\b(?!-)|dead\b|(?:has\s+)?water\s+in|rust(?:ed|ing|y)?\b|corroded|cracked|broken|damaged|scorched|melted|dangl(?:es|ing)|(?:does|did)\s*n[o']t\s+(?:light|work|come on|turn on)|${T.INOPERATIVE})`;
+const LIGHT_CONDITION = String.raw`(?:loose\b(?!-)|dead\b|hang(?:s|ing)\s+(?:by|from)\s+(?:its|the|their)\s+wires\b|(?:has\s+)?water\s+in|rust(?:ed|ing|y)?\b|corroded|cracked|broken|damaged|scorched|melted|dangl(?:es|ing)|(?:does|did)\s*n[o']t\s+(?:light|work|come on|turn on)|${T.INOPERATIVE})`;
 /** Words between a receptacle and its condition: no other device, no clause-ending comma. */
 const RCPT_GAP = String.raw`(?:(?!${T.SWITCH}|light|fixture|panel|breaker|cords?\b|plates?\b|covers?\b|gfc?i|wir(?:e|es|ing)\b|cables?\b)[\w'/#().@:-]+\s+){0,12}?`;
 /** What goes wrong with a receptacle (common practice): heat, damage, looseness, no power. */
@@ -439,7 +439,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       // Common practice: a recessed housing not rated IC must keep its clearance from insulation.
       { re: rx`(?:non-?ic|recessed|can)\s+(?:(?:light|lighting|fixture)\s+)?(?:housings?|fixtures?|lights?|cans?)\s+${gap(6)}(?:${T.BE})?(?:covered|buried|packed|surrounded)\s+(?:by|in|with|under)\b` },
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${SWITCH_GAP}(?:${T.FAILED}|${T.BE}not)\s+(?:light|illuminate|come on|turn on|operate|work)\b` },
-      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}(?:has\s+)?(?:pulled|pulling|come|coming|separated|separating)\s+(?:away\s+|loose\s+)?(?:from|off)\s+(?:the\s+|its\s+)?(?:wall|siding|ceiling|box|mounting|surface)` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}(?:has\s+)?(?:pulled|pulling|come|coming|separated|separating)\s+(?:away\s+|loose\s+)?(?:from|off)\s+(?:the\s+|its\s+)?(?:wall|siding|stucco|brick|soffit|fascia|ceiling|box|mounting|surface)` },
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:${T.BE})?(?:missing|without|lacks?|has no)\s+(?:(?:its|a|the|their)\s+)?(?:glass\s+)?(?:globes?|lens(?:es)?|shades?|diffusers?|covers?)`, unless: BOX_FEEDING },
       { re: rx`(?:globes?|lens(?:es)?|shades?|diffusers?)\s+${T.BE}(?:missing|broken|cracked|absent)`, context: /light|fixture|lamp|bulb/i },
       { re: rx`(?:bare[- ]bulb|open|exposed|porcelain|keyless)\s+(?:porcelain\s+)?(?:lamp\s?holders?|sockets?)` },

@@ -472,3 +472,9 @@ describe('pool and spa sections are places outside, not skipped (NFPA 70 (NEC) 2
     expect(read('POOL / SPA\nThe receptacle at the pump is not GFCI protected.')).toEqual([['gfci-missing', 'exterior', 1]]);
   });
 });
+
+describe('outside lights pulled from the wall (common practice)', () => {
+  it('reads a light pulled away from the stucco that hangs by its wires as an outside light defect', () => {
+    expect(read('The porch-side light fixture is pulled away from the stucco and hangs by its wires.')).toEqual([['light-fixture', 'exterior', 1]]);
+  });
+});
