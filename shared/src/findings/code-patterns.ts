@@ -318,9 +318,9 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /tap|lug|terminal|screw|breaker/i,
     fixedRoom: 'panel',
     patterns: [
-      { re: rx`(?:doubled?|dbl\.?|dual|twin)[- ]?tap(?:s|ped|ping|ed)?\b` },
+      { re: rx`(?:doubled?|dubbled?|dbl\.?|dual|twin)[- ]?tap(?:s|ped|ping|ed)?\b` },
       { re: rx`double[- ]lug(?:ged|s)?\b` },
-      { re: rx`(?:two|2|multiple)\s+(?:wires|conductors|circuits|neutrals)\s+${gap(3)}(?:under|on|to|landed on|terminated on|sharing)\s+(?:a\s+|one\s+|the same\s+|single\s+|its\s+|their\s+|the\s+)+(?:terminal|lug|screw|breaker)` },
+      { re: rx`(?:two|2|multiple)\s+(?:wires?|conductors?|circuits|neutrals)\s+${gap(3)}(?:under|on|to|landed on|terminated on|sharing)\s+(?:a\s+|one\s+|1\s+|the same\s+|single\s+|its\s+|their\s+|the\s+)+(?:terminal|lug|screw|breaker)` },
     ],
   },
   {

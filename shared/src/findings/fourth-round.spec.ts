@@ -478,3 +478,10 @@ describe('outside lights pulled from the wall (common practice)', () => {
     expect(read('The porch-side light fixture is pulled away from the stucco and hangs by its wires.')).toEqual([['light-fixture', 'exterior', 1]]);
   });
 });
+
+describe('double taps in shorthand and misspelt (common practice: one conductor per terminal unless listed for two)', () => {
+  it('reads "dubble tapped" and "2 cond under 1 lug", counted in breakers', () => {
+    expect(read('One breker on the bottom left is dubble tapped.')).toEqual([['double-tap', 'panel', 1]]);
+    expect(read('Panel:\n - brkr #9 (20A): 2 cond under 1 lug, brkr not rated for 2.')).toEqual([['double-tap', 'panel', 1]]);
+  });
+});
