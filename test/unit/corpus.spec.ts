@@ -13,13 +13,13 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // or two columns) and read back through the project's PDF text extraction.
 // Scores match findings by (code, room) as a multiset.
 // A ratchet, not the goal: with the independent writers' excerpts (201-255, A+B 101-160, C 301-360,
-// then D 401-460) in the corpus, the whole corpus scores precision 0.945, recall 0.927, F1 0.936 and
-// quantity 0.959 (2026-12-03, fourth round, docs/parser.md). The goal is 0.95 on each; raise these
+// then D 401-460) in the corpus, the whole corpus scores precision 0.946, recall 0.931, F1 0.938 and
+// quantity 0.960 (2026-12-03, fourth round, docs/parser.md). The goal is 0.95 on each; raise these
 // floors as the parser gets there, never lower them.
-const MIN_PRECISION = 0.94;
-const MIN_RECALL = 0.925;
+const MIN_PRECISION = 0.945;
+const MIN_RECALL = 0.93;
 const MIN_F1 = 0.935;
-const MIN_QUANTITY = 0.955;
+const MIN_QUANTITY = 0.958;
 
 describe('report parser corpus', () => {
   let run: BatchRun;
