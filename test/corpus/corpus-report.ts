@@ -13,6 +13,7 @@ const BATCHES: ReadonlyArray<{ name: string; from: number; to: number }> = [
   { name: 'A+B 101-160', from: 101, to: 199 },
   { name: 'tuning 201-255', from: 200, to: 299 },
   { name: 'C 301-360', from: 300, to: 399 },
+  { name: 'D 401-460', from: 400, to: 499 },
 ];
 
 async function main(names: string[]): Promise<void> {

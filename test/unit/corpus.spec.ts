@@ -7,19 +7,19 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 
 // The corpus: hand-written, hand-labelled report excerpts (test/corpus/excerpts, labels in
 // test/corpus/expected.json). Excerpts 39-46 were written and labelled after the parser existed,
-// as a held-out check; 201 onwards were written and labelled by independent writers who never saw
+// as a held-out check; 101 onwards were written and labelled by independent writers who never saw
 // the parser (scored untuned on arrival, see docs/parser.md). Each excerpt is shown to the parser
 // as test/corpus/manifest.json says: as text, or laid out in a real PDF (running header and footer,
 // or two columns) and read back through the project's PDF text extraction.
 // Scores match findings by (code, room) as a multiset.
-// A ratchet, not the goal: with the independent writers' excerpts (201-255, A+B 101-160, then C
-// 301-360) in the corpus, the whole corpus scores precision 0.938, recall 0.918, F1 0.928 and
-// quantity 0.951 (2026-12-02, third round, docs/parser.md). The goal is 0.95 on each; raise these
+// A ratchet, not the goal: with the independent writers' excerpts (201-255, A+B 101-160, C 301-360,
+// then D 401-460) in the corpus, the whole corpus scores precision 0.946, recall 0.931, F1 0.938 and
+// quantity 0.960 (2026-12-03, fourth round, docs/parser.md). The goal is 0.95 on each; raise these
 // floors as the parser gets there, never lower them.
-const MIN_PRECISION = 0.93;
-const MIN_RECALL = 0.91;
-const MIN_F1 = 0.92;
-const MIN_QUANTITY = 0.95;
+const MIN_PRECISION = 0.945;
+const MIN_RECALL = 0.93;
+const MIN_F1 = 0.935;
+const MIN_QUANTITY = 0.958;
 
 describe('report parser corpus', () => {
   let run: BatchRun;

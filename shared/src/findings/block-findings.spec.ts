@@ -20,7 +20,8 @@ describe('readBlock', () => {
   });
 
   it('carries a place to a sentence that refers back to it', () => {
-    expect(findingsOf('The hall bathroom has one receptacle. It is not GFCI protected.')).toEqual([['gfci-missing', 'bathroom', null]]);
+    // "It" stands for the one receptacle: a singular device is one (docs/parser.md, the writers' quantity rule).
+    expect(findingsOf('The hall bathroom has one receptacle. It is not GFCI protected.')).toEqual([['gfci-missing', 'bathroom', 1]]);
   });
 
   it('does not carry a place to an unrelated sentence', () => {

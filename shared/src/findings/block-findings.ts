@@ -3,15 +3,15 @@ import { matchCodes, type CodeMatch } from './code-matcher';
 import { CODE_RULES, WHOLE_SYSTEM, type CodeRule } from './code-patterns';
 import { readLocation } from './location-reader';
 import type { FindingCode } from './finding-code';
-import type { MappedText } from './mapped-text';
+import { sourceRange, type MappedText } from './mapped-text';
 import { negatedSpans } from './negation-detector';
 import { deviceRating, nameplateMaximum, type CarriedRatings } from './overcurrent-check';
-import { findingQuantity } from './quantity-reader';
+import { findingQuantity, isCounted } from './quantity-reader';
 import { scanAll } from './regex-scan';
 import { findRooms, type RoomMention } from './room-lexicon';
 import type { Room } from './room';
 import { lastPlaceMention, placeMatches } from './room-resolver';
-import type { Section } from './block-splitter';
+import type { RowCount, Section } from './block-splitter';
 import { splitSentences } from './sentence-splitter';
 import { normaliseText } from './text-normaliser';
 import type { Confidence } from './finding.schema';
@@ -43,10 +43,15 @@ export interface BlockContext {
 }
 
 /** A sentence that only recommends or asks for follow-up ("This should be corrected by a licensed electrician."). */
-const FOLLOW_UP = /\b(?:recommend\w*|install (?:the|a|an|new|proper|listed)\b|suggest\w*|advise\w*|should be|should have|needs? to be|must be|have (?:it|this|these|them|the\s+\w+) (?:\w+ed|repaired|corrected|checked|evaluated)|correct(?:ion|ed)?|repair(?:ed|s)?|replace(?:d|ment)?|evaluat\w*|further (?:evaluation|review)|by a (?:licensed|qualified)|licensed electrician|qualified electrician|electrical contractor|for safety|safety (?:hazard|concern|issue)|fire (?:hazard|risk)|shock (?:hazard|risk)|hazard)/i;
+const FOLLOW_UP = /\b(?:recommend\w*|install (?:the|a|an|new|proper|listed)\b|suggest\w*|advise\w*|should be|should have|needs? to be|must be|have (?:it|this|these|them|the\s+\w+) (?:\w+ed|repaired|corrected|checked|evaluated)|correct(?:ion|ed)?|repair(?:ed|s)?|replace(?:d|ment)?|evaluat\w*|further (?:evaluation|review)|by a (?:licensed|qualified)|licensed electrician|qualified electrician|electrical contractor|requir(?:e|es|ed)\b|for safety|safety (?:hazard|concern|issue)|fire (?:hazard|risk)|shock (?:hazard|risk)|hazard)/i;
+
+/** A sentence about the device just named ("The fan ...", "It ..."). */
+const SAME_SUBJECT = /^(?:the|this|that|it)\b(?!\s+(?:other|second|third|next|remaining)\b)/i;
+/** Words that make it another device ("also", "another", "too"). */
+const ANOTHER = /\b(?:also|another|too|as well|second|other|additional|each|all|both)\b/i;
 
 /** A sentence that points back to a place named before it ("It is not GFCI protected"). */
-const REFERS_BACK = /^(?:it|they|this|these|those|each|both|one|the same|also|and)\b/i;
+const REFERS_BACK = /^(?:it|they|this|these|those|each|both|one|the same|also|and|there (?:is|are|was|were) also)\b/i;
 /** A short line naming a place with no verb ("Basement bar area", "Primary bath:"). */
 const MAX_LABEL_WORDS = 5;
 /** Counting whitespace runs gives the word count of `split(/\s+/)` without its copy of the expression. */
@@ -59,7 +64,7 @@ const VERB = /\b(?:is|are|was|were|has|have|had|be|been)\b/i;
  * finding is dropped when the block already has the same code for the same room, and a general
  * "have an electrician evaluate" finding is dropped when the block has any specific finding.
  */
-export function readBlock(text: MappedText, section: Section): BlockResult {
+export function readBlock(text: MappedText, section: Section, rowCounts: readonly RowCount[] = []): BlockResult {
   const found: BlockFinding[] = [];
   let hasNegated = false;
   // The last place named so far; its location is read only when a later sentence refers back to it.
@@ -95,12 +100,15 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
       clauses,
     );
     const inSentence: BlockFinding[] = [];
+    // A table row's quantity column gives the count of the row's findings.
+    const rowCount = rowCounts.length > 0 ? rowCountOf(written, rowCounts) : null;
     live.forEach((match, i) => {
       const isNormalised = sentence.changed.some((c) => c.start < match.end && match.start < c.end);
       for (const place of placements[i]) {
-        const counted = findingQuantity(match.rule.code, place.countText, place.articleLimit, live.length === 1 && place.laterText ? place.laterText : null);
+        const counted = findingQuantity(match.rule.code, place.countText, place.articleLimit, live.length === 1 && place.laterText ? place.laterText : null, place.subjectText ?? '');
         // A device implied by its section at one named place ("BR2: none") is one device.
-        const quantity = counted === null && match === implied && place.room !== 'whole-house' && !isPluralPlace(sentence.text, rooms.find((r) => r.room === place.room)?.text ?? '') ? 1 : counted;
+        const implied1 = counted === null && match === implied && place.room !== 'whole-house' && !isPluralPlace(sentence.text, rooms.find((r) => r.room === place.room)?.text ?? '') ? 1 : counted;
+        const quantity = rowCount !== null && isCounted(match.rule.code) ? rowCount : implied1;
         // The grounding of a service is one system: a sentence naming its parts in two places is one defect.
         const same = inSentence.find((f) => f.code === outdoorCode(match.rule.code, place.room) && (f.room === place.room || match.rule.panelIsPlace === true));
         if (same) continue;
@@ -141,7 +149,14 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
         // A defect at a fixed place (the panel, the service) named again in the block is the same defect.
         ((f.confidence === 'inferred' || ruleOf(f.code)?.fixedRoom !== undefined) && found.some((g) => g.code === f.code)),
     );
-    if (lastFound.length > 0 && onlyFollowUp && FOLLOW_UP.test(sentence.text)) {
+    // "The fan rocks noticeably at speed." after "The ceiling fan in the den is hung from a pancake
+    // box": the same device told again, with no place and nothing that makes it another one.
+    const isRepeat =
+      inSentence.length > 0 &&
+      SAME_SUBJECT.test(sentence.text) &&
+      !ANOTHER.test(sentence.text) &&
+      inSentence.every((f) => f.confidence === 'inferred' && !f.isRecommendation && f.computation === null && lastFound.some((g) => g.code === f.code && g.room === f.room));
+    if (lastFound.length > 0 && ((onlyFollowUp && FOLLOW_UP.test(sentence.text)) || isRepeat)) {
       // "This should be corrected by a licensed electrician.": part of the finding(s) before it.
       for (const f of lastFound) f.recommendations.push(written);
     } else {
@@ -154,6 +169,12 @@ export function readBlock(text: MappedText, section: Section): BlockResult {
     if (sentenceIndex === 0 && mention) opening = { room: mention.room, location: readLocation(sentence.text, mention), hadFindings: live.length > 0 };
   });
   return { findings: keepDistinct(found), hasNegated };
+}
+
+/** The quantity column's count for the table row a sentence starts in, or null. */
+function rowCountOf(sentence: MappedText, rowCounts: readonly RowCount[]): number | null {
+  const { start } = sourceRange(sentence);
+  return rowCounts.find((r) => r.start <= start && start < r.end)?.count ?? null;
 }
 
 /**

@@ -1,5 +1,5 @@
 import type { SectionKind } from './finding.schema';
-import { MappedTextBuilder, type MappedText } from './mapped-text';
+import { MappedTextBuilder, sourceRange, type MappedText } from './mapped-text';
 import type { Room } from './room';
 import { scanAll } from './regex-scan';
 import { classifyHeadingLine, inlineNonElectricalLabel, SUMMARY_HEADING } from './section-heading';
@@ -20,6 +20,30 @@ export interface Section {
 export interface Block {
   readonly section: Section;
   readonly text: MappedText;
+  /** Counts a table's quantity column gives its rows (source offsets of each row). */
+  readonly rowCounts?: readonly RowCount[];
+}
+
+/** The count a quantity column ("Qty", "Count") gives one table row, by the row's source offsets. */
+export interface RowCount {
+  readonly start: number;
+  readonly end: number;
+  readonly count: number;
+}
+
+/** A table's quantity column heading. */
+const QUANTITY_HEADING = /^(?:qty\.?|quantity|count|no\.|#|number|units?)$/i;
+
+/** The cells of a table row (pipes, tabs or fixed-width columns), or null for a line that is no row. */
+function tableCells(line: string): string[] | null {
+  const trimmed = line.trim();
+  let cells: string[];
+  if (trimmed.includes('|')) cells = trimmed.replace(/^\|/, '').replace(/\|$/, '').split('|');
+  else if (trimmed.includes('\t')) cells = trimmed.split('\t');
+  else if (/\S {3,}\S/.test(trimmed)) cells = trimmed.split(/ {3,}/);
+  else return null;
+  cells = cells.map((c) => c.trim());
+  return cells.length >= 3 ? cells : null;
 }
 
 interface Line {
@@ -28,11 +52,11 @@ interface Line {
   readonly text: string;
 }
 
-const ITEM_MARKER = /^\s*(?:\d{1,3}(?:\.\d{1,3})+\.?|\d{1,3}[.)]|[a-h][.)]|item\s+\d{1,3}\s*[:.)-]|[-•*‣▪◦●·–—>]|\[\s?[x ]?\])\s+/i;
+const ITEM_MARKER = /^\s*(?:\d{1,3}(?:\.\d{1,3})+\.?|\d{1,3}[.)]|[a-h][.)]|item\s+\d{1,3}\s*[:.)-]|\[\d{1,3}\]|[-•*‣▪◦●·–—>]|\[\s?[x ]?\])\s+/i;
 const NOISE_LINE = /^(?:[|+:=\s-]{3,}|.{0,80}\bpage\s+\d+(?:\s*(?:of|\/)\s*\d+)?|-{1,2}\s*\d+\s+of\s+\d+\s*-{1,2}|\d+\s*\/\s*\d+)\s*$/i;
 const CONNECTOR_END = /(?:[,;&/-]|\b(?:and|or|the|a|an|at|of|to|with|in|on|for|by|from|is|are|was|were|not|no))$/i;
 /** A checklist line that ends in its answer ("GFCI at exterior: No"). */
-const CHECKLIST_ANSWER = /:\s*(?:yes|no|none|n\/a|ok|missing)$/i;
+const CHECKLIST_ANSWER = /^[^.!?]{0,40}:\s*(?:yes|no|none|n\/a|ok|missing)$/i;
 const SHORT_LINE = 45;
 /** A line counts as short against the report's own measure: narrow columns make every line shorter. */
 const SHORT_SHARE = 0.75;
@@ -84,10 +108,26 @@ export function splitBlocks(joined: string): Block[] {
 
   // Numbered headings that named a room, most recent first.
   const numbered: Array<{ readonly number: string; readonly room: Room }> = [];
+  // A summary whose items stand under topic headings of their own ("REPORT SUMMARY" then
+  // "ELECTRICAL"): the summary, its topic titles so far, and whether an item of its own has come since its heading.
+  let summary: { readonly title: string; readonly topics: Set<string>; hasTopics: boolean; hasContent: boolean } | null = null;
+  // The quantity column of the table being read ("Item | Location | Qty | Condition"), and the rows' counts.
+  let quantityColumn: number | null = null;
+  const rowCounts: RowCount[] = [];
   const lines = splitLines(joined);
   const shortLine = shortLineFor(lines);
   for (const line of lines) {
     const content = line.text.trim();
+    const cells = content.length > 0 ? tableCells(line.text) : null;
+    if (cells) {
+      const heading = cells.findIndex((c) => QUANTITY_HEADING.test(c));
+      if (heading !== -1) quantityColumn = heading;
+      else if (quantityColumn !== null && /^\d{1,2}$/.test(cells[quantityColumn] ?? '') && Number(cells[quantityColumn]) > 0) {
+        rowCounts.push({ start: line.start, end: line.end, count: Number(cells[quantityColumn]) });
+      }
+    } else if (content.length > 0 && !NOISE_LINE.test(content) && !/^\s{8,}\S/.test(line.text)) {
+      quantityColumn = null;
+    }
     if (content.length === 0) {
       close();
       continue;
@@ -99,13 +139,26 @@ export function splitBlocks(joined: string): Block[] {
       if (headingLine.type === 'heading') {
         // "6.3 RECEPTACLES" under "6.0 ELECTRICAL - DETACHED GARAGE" is still in the garage.
         const number = HEADING_NUMBER.exec(content)?.[1] ?? null;
-        const heading = headingLine.heading;
+        let heading = headingLine.heading;
+        const topic = heading.title.toLowerCase();
+        if (SUMMARY_HEADING.test(heading.title)) {
+          summary = { title: heading.title, topics: new Set(), hasTopics: false, hasContent: false };
+        } else if (summary && number === null && (summary.hasTopics || !summary.hasContent) && !summary.topics.has(topic) && !BODY_WORD.test(topic)) {
+          // A topic heading right under a summary heading, and its siblings, are still the summary
+          // (a numbered heading or a topic named again starts the body).
+          summary.topics.add(topic);
+          summary.hasTopics = true;
+          heading = { ...heading, title: `${heading.title} (${summary.title})` };
+        } else {
+          summary = null;
+        }
         const parent = number !== null ? numbered.find((n) => isSubsection(number, n.number)) : undefined;
         section = heading.room === null && heading.kind !== 'non-electrical' && parent ? { ...heading, room: parent.room } : heading;
         if (number !== null && section.room !== null) numbered.unshift({ number, room: section.room });
       } else if (headingLine.startsBody && section.title !== null && SUMMARY_HEADING.test(section.title)) {
         // "COMMENTS" after the summary: the body starts, and its findings merge with the summary's.
         section = { kind: 'general', title: content.replace(/\s*:$/, ''), room: null };
+        summary = null;
       }
       continue;
     }
@@ -117,16 +170,29 @@ export function splitBlocks(joined: string): Block[] {
     }
     const marker = ITEM_MARKER.exec(line.text);
     if (marker || !builder || !prevLine) {
+      // A note about the summary itself ("This summary is not the entire report") is not one of its items.
+      if (summary && !SUMMARY_NOTE.test(content)) summary.hasContent = true;
       open(line, line.start + (marker ? marker[0].length : 0), section);
       continue;
     }
+    if (summary && !SUMMARY_NOTE.test(content) && (/[.!?]$/.test(prevLine.text.trim()) || isTableRow(line.text))) summary.hasContent = true;
     joinLine(builder, prevLine, line, shortLine);
     builder.appendSource(joined, line.start, line.end);
     prevLine = line;
   }
   close();
-  return blocks;
+  if (rowCounts.length === 0) return blocks;
+  return blocks.map((b) => {
+    const { start, end } = sourceRange(b.text);
+    const own = rowCounts.filter((r) => r.start < end && start < r.end);
+    return own.length > 0 ? { ...b, rowCounts: own } : b;
+  });
 }
+
+/** A line about the summary itself, not one of its items. */
+const SUMMARY_NOTE = /\b(?:summary|report)\b/i;
+/** A heading word that opens the report's body ("ELECTRICAL -- DETAILED OBSERVATIONS"). */
+const BODY_WORD = /\b(?:detail\w*|observations|findings|body|comments|discussion|narrative)\b/i;
 
 /** The numbering of a heading line ("6.0", "6.3", "7.2.1"). */
 const HEADING_NUMBER = /^\s*(?:section\s+)?(\d{1,2}(?:\.\d{1,2})*)\.?\s/i;
@@ -146,8 +212,16 @@ function joinLine(builder: MappedTextBuilder, prev: Line, next: Line, shortLine:
     return;
   }
   const breakAt = prev.end;
+  // A table cell wrapped onto a deeply indented line of its own ("... missing its" / "cover, splices
+  // exposed") goes on with the row.
+  // So does a pipe row that a narrow column wrapped mid-cell ("Receptacle | Den | Reversed" /
+  // "polarity | Electrician"): the next line goes on in lower case.
+  const continuesCell =
+    (isTableRow(prev.text) && /^\s{16,}\S/.test(next.text) && !isTableRow(next.text) && !/[.!?:]$/.test(before) && !prev.text.includes('|') && !next.text.includes('\t')) ||
+    (prev.text.includes('|') && /^\p{Ll}/u.test(after) && !/[.!?:|]$/.test(before));
   const isBoundary =
-    /:$/.test(before) ||
+    !continuesCell &&
+    (/:$/.test(before) ||
     CHECKLIST_ANSWER.test(before) ||
     prev.text.includes('\t') ||
     next.text.includes('\t') ||
@@ -155,7 +229,7 @@ function joinLine(builder: MappedTextBuilder, prev: Line, next: Line, shortLine:
     isTableRow(next.text) ||
     // A terse note that starts with its own place label ("Kitch: fridge recep loose") is a new sentence.
     /^[\p{Lu}][\p{L}\d./ -]{0,18}:\s/u.test(after) ||
-    (before.length < shortLine && !/[.!?]$/.test(before) && !CONNECTOR_END.test(before) && /^[\p{Lu}\d(]/u.test(after));
+    (before.length < shortLine && !/[.!?]$/.test(before) && !CONNECTOR_END.test(before) && /^[\p{Lu}\d(]/u.test(after)));
   builder.appendSeparator(isBoundary ? '\n' : ' ', breakAt);
 }
 

@@ -59,7 +59,9 @@ export interface CodeRule {
 
 const ADJ_GAP = adjGap(3);
 /** Words between a switch and what is said of it, commas allowed ("The switch for the disposal, right of the sink, is loose"). */
-const SWITCH_GAP = String.raw`(?:(?!${'(?:switch|light|fixture|receptacle|outlet|plates?\b|covers?\b)'})[\w'/#().-]+,?\s+){0,9}?`;
+const SWITCH_GAP = String.raw`(?:(?!${'(?:switch|light|fixture|receptacle|outlet|plates?\b|covers?\b)'})[\w'/#().-]+,?\s+){0,12}?`;
+/** A switch or dimmer named by the light it controls ("the dimmer for the chandelier is hot"): the switch is the subject. */
+const SWITCH_FOR_LIGHT = /\b(?:switch(?:es)?|dimmers?)\s+(?:that\s+)?(?:for|controlling|controls|serving|operating)\b/i;
 /** A flexible cord: extension, lamp or zip cord. */
 const FLEX_CORD = String.raw`(?:extension|lamp|zip|flexible|appliance)\s+cords?`;
 const RECOMMEND = String.raw`(?:recommend(?:ed|s|ing)?|suggest(?:ed)?|should (?:be|have)|install(?:ing|ed)?|upgrad(?:e|ed|ing) to|add(?:ing)?|need(?:s|ed)?|requires?|consider(?:ing)?|have the)`;
@@ -78,7 +80,7 @@ const REFERS_TO_OTHERS = /\bif\b|\bany\b|\bshould any\b|\babove\b|\bbelow\b|\bfo
 export const WHOLE_SYSTEM = /^(?![\s\S]*\b(?:alumin\w*|knob|k&t|legacy|these|those)\b)[\s\S]*?(?:\b(?:entire|whole|full|complete|comprehensive|overall)\s+(?:[\w-]+\s+){0,2}?(?:system|house|home|wiring|evaluation|review)\b|\bevaluate the (?:electrical )?system\b)/i;
 /** An evaluation that points at other items, unless it is of the whole system ("so that any hidden conditions can be priced"). */
 const REFERS_TO_OTHERS_ONLY = new RegExp(`^(?![\\s\\S]*(?:${WHOLE_SYSTEM.source}))[\\s\\S]*?(?:${REFERS_TO_OTHERS.source})`, 'i');
-const PANEL_CONTEXT = /panel|dead[- ]?front|load cent|breaker box|fuse box|enclosure/i;
+const PANEL_CONTEXT = /panel|\bpnl\b|dead[- ]?front|load cent|breaker box|fuse box|enclosure|\bko\b.{0,20}\bcan\b/i;
 /** A bare "cover" next to a junction box is the box's cover, not a device cover plate. */
 const JBOX_WORD = /junction|j-?\s?box|\bbox(?:es)?\b/i;
 /** Old wiring that is out of service (common practice: only energized knob-and-tube is reported as a condition). */
@@ -96,34 +98,47 @@ const CLEARANCE_WORDS: Readonly<Record<string, number>> = { a: 1, one: 1, two: 2
 export const SERVICE_CLEARANCE_FT: Readonly<Record<string, number>> = {
   roof: 3, deck: 10, walkway: 10, walk: 10, sidewalk: 10, grade: 10, ground: 10, yard: 10, patio: 10, pool: 10, porch: 10, balcony: 10, driveway: 12, drive: 12,
 };
+/** The same check with the surface captured before the distance ("clearance above the deck is 8 ft"). */
+function isTooLowSurfaceFirst(m: RegExpExecArray): boolean {
+  return Number(m[2]) < SERVICE_CLEARANCE_FT[m[1].toLowerCase()];
+}
 function isTooLow(m: RegExpExecArray): boolean {
   const value = CLEARANCE_WORDS[m[1].toLowerCase()] ?? Number(m[1]);
   return value < SERVICE_CLEARANCE_FT[m[2].toLowerCase()];
 }
 /** Text in one clause that does not name another device (whose cover would be a cover plate). */
-const NOT_ANOTHER_DEVICE = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|light|fixture|panel|breaker)[^.;!?]){0,60}?`;
+const NOT_ANOTHER_DEVICE = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|light|fixture|panel|breaker)[^.;!?]){0,80}?`;
+/** A box named by what it feeds ("a junction box feeding the shop lights"): the box is the subject, not the lights. */
+const BOX_FEEDING = /\b(?:junction|j-?\s?box|splice box)\b[^.;]{0,20}?\b(?:feeding|feeds|serving|serves|supplying|supplies|for)\b/i;
 /** A box left open: no cover or lid, or its splices or conductors in view. */
 const BOX_UNCOVERED = String.raw`\b(?:no|missing|without|lacks?|lacking)\s+(?:a\s+|its\s+|the\s+|any\s+)?(?:blank\s+)?(?:covers?|lids?)\b(?!\s*plates?|\s+(?:on|for|at)\s+(?:the\s+|an?\s+)?(?:[\w-]+\s+)?(?:${T.RCPT}|${T.SWITCH}|light))|\b(?:covers?|lids?)\s+(?:is\s+|are\s+)?(?:missing|absent|off|removed)\b|\b(?:splices?|wire nuts?|conductors?|connections?)\s+(?:are\s+|is\s+)?(?:visible|showing|exposed|accessible)\b`;
 /** Words between a light and its condition: no other device. */
-const LIGHT_GAP = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|fans?\b|panel|breaker|box(?:es)?\b|cords?\b|wir(?:e|es|ing)\b|cables?\b|smoke|alarms?\b)[\w'/#().@:-]+\s+){0,10}?`;
-const LIGHT_CONDITION = String.raw`(?:loose\b(?!-)|(?:has\s+)?water\s+in|rust(?:ed|ing|y)?\b|corroded|cracked|broken|damaged|scorched|melted|dangl(?:es|ing)|(?:does|did)\s*n[o']t\s+(?:light|work|come on|turn on)|${T.INOPERATIVE})`;
+const LIGHT_GAP = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|fans?\b|panel|breaker|box(?:es)?\b|cords?\b|wir(?:e|es|ing)\b|cables?\b|smoke|alarms?\b)[\w'/#().@:-]+,?\s+){0,10}?`;
+const LIGHT_CONDITION = String.raw`(?:loose\b(?!-)|dead\b|hang(?:s|ing)\s+(?:by|from)\s+(?:its|the|their)\s+wires\b|(?:has\s+)?water\s+in|rust(?:ed|ing|y)?\b|corroded|cracked|broken|damaged|scorched|melted|dangl(?:es|ing)|(?:does|did)\s*n[o']t\s+(?:light|work|come on|turn on)|${T.INOPERATIVE})`;
 /** Words between a receptacle and its condition: no other device, no clause-ending comma. */
 const RCPT_GAP = String.raw`(?:(?!${T.SWITCH}|light|fixture|panel|breaker|cords?\b|plates?\b|covers?\b|gfc?i|wir(?:e|es|ing)\b|cables?\b)[\w'/#().@:-]+\s+){0,12}?`;
 /** What goes wrong with a receptacle (common practice): heat, damage, looseness, no power. */
 const RCPT_CONDITION = String.raw`(?:(?:is|are|was|were|felt|feels?|runs?|ran|running)\s+(?:(?:noticeably|very|slightly)\s+)?(?:warm|hot)\b(?!\s+(?:and|&|\/)\s+neutral)|(?:warm|hot)\s+to\s+the\s+touch|discolou?red|scorched|burn(?:ed|t)|melted|charred|cracked|broken|damaged|loose\s+(?:in|from|at)\b|hanging\s+(?:out|loose|from)|pulled\s+(?:out|away)|(?:had\s+|has\s+)?no\s+power\b|dead\b|${T.INOPERATIVE})`;
+/** Receptacles dead because the GFCI before them failed (common practice: that is the GFCI's defect). */
+const DEAD_BEHIND_GFCI = /\bdownstream\b[^.;]{0,40}\b(?:dead|no power|without power)\b|\b(?:gfc?i|ground[- ]fault)\b[^.;]{0,30}\b(?:dead|no power)\b.{0,40}\breset\b|\b(?:gfc?i|ground[- ]fault)\b[^.;]{0,60}\b(?:will not|won't|does not|doesn't|did not|fails? to|failed to)\s+reset\b/i;
 /** Words between a cable and its condition: not another device, whose condition it would be. */
 const WIRE_GAP = String.raw`(?:(?!${T.RCPT}|${T.SWITCH}|light|fixture|box(?:es)?\b|panel|breaker|cords?\b|service|meter)[\w'/#().@-]+,?\s+){0,10}?`;
 /** A cable said to be secured, or the cable of a splice or fixture (an open splice, a hanging fixture is that defect). */
-const WIRE_SOUND_OR_OTHER = /\b(?:properly|neatly|adequately|well) (?:secured|supported|protected|stapled|strapped)\b|\bsplices?\b|\bwire nuts?\b|\b(?:chandelier|fixture|luminaire|pendant)s?\b/i;
+const WIRE_SOUND_OR_OTHER = /\b(?:properly|neatly|adequately|well) (?:secured|supported|protected|stapled|strapped)\b|\bsplices?\b|\bwire nuts?\b|\b(?:chandelier|fixture|luminaire|pendant)s?\b|\bservice[- ]entrance\b|\bse cable\b|\bservice (?:drop|conductors?|cable)\b|\b(?:junction|j-?\s?box|jbox)\w*\b[^.;]{0,50}\bwires?\s+(?:are\s+)?(?:hanging|dangling|exposed|visible|pulled)/i;
+/**
+ * Service cable (its own code), or wires hanging out of an open box (that box's defect, NFPA 70 (NEC)
+ * 2023, 314.25): "Open junction box over the bench, wires hanging".
+ */
+const SERVICE_OR_BOX_WIRES = /\bservice[- ]entrance\b|\bse cable\b|\bservice (?:drop|conductors?|cable)\b|\b(?:junction|j-?\s?box|jbox)\w*\b[^.;]{0,50}\bwires?\s+(?:are\s+)?(?:hanging|dangling|exposed|visible|pulled)/i;
 /** What goes wrong with a cable run (common practice): not secured, not protected, within reach of damage. */
 const WIRE_CONDITION = String.raw`(?:exposed to (?:physical )?damage|subject to (?:physical )?damage|unprotected|unsecured|unsupported|unstapled|(?:has\s+)?(?:come|came|coming|pulled|pulling) (?:loose|free|away)|(?:not|never) (?:clamped|secured|supported|stapled|strapped|fastened|protected)|loose\b|hang(?:s|ing)\b|dangl(?:es|ing)|draped|(?:hanging\s+)?in loops)`;
 /** A part of the grounding electrode system or of piping bonding (NFPA 70 (NEC) 2023, 250.50, 250.104). */
-const GROUND_PART = String.raw`(?:ground(?:ing)? electrode(?: conductor)?|gec\b|(?:ground(?:ing)?|electrode)\s+(?:rods?|clamps?|wires?|conductors?)\b|(?:main\s+)?(?:water|gas|csst)(?:\s+(?:pipe|piping|line|main|service))?\s+bond(?:ing)?(?:\s+(?:jumper|clamp|wire|conductor|connection))?\b|bond(?:ing)?\s+(?:jumpers?|clamps?|conductors?|wires?|connections?)\b|acorn clamp)`;
+const GROUND_PART = String.raw`(?:ground(?:ing)? electrode(?: conductor| system)?|ges\b|gec\b|(?:ground(?:ing)?|electrode)\s+(?:rods?|clamps?|wires?|conductors?)\b|(?:main\s+)?(?:water|gas|csst)(?:\s+(?:pipe|piping|line|main|service))?\s+bond(?:ing)?(?:\s+(?:jumper|clamp|wire|conductor|connection))?\b|bond(?:ing)?\s+(?:jumpers?|clamps?|conductors?|wires?|connections?)\b|acorn clamp)`;
 /** What goes wrong with a grounding or bonding part (common practice). */
 const GROUND_CONDITION = String.raw`(?:loose|corroded|(?:heavy|severe|some)?\s*corrosion|rust(?:ed|y)|disconnected|detached|cut(?: off)?|broken|damaged|missing|slipping off|pulled (?:off|loose|free)|(?:not|un)[- ]?(?:connected|attached|bonded|secured|clamped)|undersized|painted over|(?:appears? to )?(?:have|has) been removed|removed)\b`;
 const COVER_OFF_TO_INSPECT = /\bremoved\s+(?:by\s+(?:the\s+)?inspector\s+)?(?:for|to|during|so|when|while)\b|\bwith\s+(?:the\s+)?(?:dead[- ]?front|(?:panel\s+)?cover)(?:\s+cover)?\s+(?:was\s+)?(?:removed|off)\b|\b(?:was|were)\s+removed\.?$/i;
 /** A statement that the arrangement is right ("correct", "as permitted", "ok"), not negated ("not correct"). */
-const CORRECT_AT_SERVICE = /(?<!\bnot\s)\b(?:correct|permitted|proper|acceptable|allowed|ok|okay|normal|appropriate)\b/i;
+const CORRECT_AT_SERVICE = /(?<!\bnot\s)\b(?:correct(?:ly)?|permitted|proper(?:ly)?|acceptable|allowed|ok|okay|normal|appropriate|(?:like|as) (?:they|it) should be)\b|\b(?:is|serves as|being|acts as)\s+(?:the\s+)?(?:service (?:disconnect|equipment|panel)|main (?:service\s+)?(?:panel|disconnect)|first (?:means of )?disconnect)\b/i;
 const SUBPANEL_CONTEXT = /sub-?\s?panel|secondary panel|remote panel|downstream|distribution panel|feeder/i;
 
 export const CODE_RULES: readonly CodeRule[] = [
@@ -132,7 +147,9 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /gfc?i|gcfi|ground[- ]fault|protected circuit/i,
     yieldsTo: ['gfci-inoperative', 'open-ground', 'false-ground', 'knob-and-tube'],
     patterns: [
-      { re: rx`(?:${T.NO}|not|non-?|neither\s+${anyGap(8)}(?:has|have|had|is|are|was|were))\s*${PF}${T.GFCI}` },
+      { re: rx`(?:${T.NO}|not|non-?|none|(?:is|are|was|were)n[’']?t|neither\s+${anyGap(8)}(?:has|have|had|is|are|was|were))\s*${PF}${T.GFCI}` },
+      // "... they are not protected, I tested them with my GFCI tester": a pronoun for the receptacles just named.
+      { re: rx`(?:they|it)\s+(?:are|is|were|was)\s+not\s+protected\b`, context: /^(?=[\s\S]*\b(?:gfc?i|ground[- ]fault))(?=[\s\S]*\b(?:receptacles?|outlets?|rcpts?)\b)/i, unless: /afci|arc[- ]fault/i },
       { re: rx`none\s+of\s+(?:the\s+)?${gap(3)}${T.RCPT}\s+${gap(4)}(?:are|is|were|was|have|has|had)\s+${PF}${T.GFCI}` },
       // Downstream of no GFCI device, or on no protected circuit: the receptacle is unprotected.
       { re: rx`not\s+(?:connected\s+|wired\s+|located\s+)?(?:downstream|on the load side)\s+of\s+(?:an?|any)\s+${T.GFCI}` },
@@ -168,6 +185,10 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:${T.NO}|not|non-?)\s*${PF}${T.AFCI}` },
       { re: rx`${T.AFCI}(?:\s+(?:protection|protected|breakers?|${T.RCPT}))?\s+${T.BE}${T.ABSENT}` },
       { re: rx`${RECOMMEND}\s+${NOT_ABOUT_ADDING}${T.AFCI}`, isRecommendation: true },
+      // "None of the bedroom circuits have arc-fault protection" (NFPA 70 (NEC) 2023, 210.12).
+      { re: rx`none\s+of\s+(?:the\s+)?${gap(3)}(?:circuits?|${T.RCPT}|breakers?|rooms?|bedrooms?)\s+${gap(2)}(?:are|is|were|was|have|has|had)\s+${PF}${T.AFCI}` },
+      // "AFCI protection ... is recommended as a safety upgrade": the recommendation after the device.
+      { re: rx`${T.AFCI}(?:\s+protection)?\s+${anyGap(12)}(?:is|are)\s+(?:recommended|advised|suggested)\b`, isRecommendation: true },
     ],
   },
   {
@@ -218,7 +239,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?:[- ]over)?|worn|discolou?red|heat[- ]damaged|dead|${T.INOPERATIVE})\s+${ADJ_GAP}${T.RCPT}` },
       { re: rx`(?:cracked|broken|damaged) (?:face|housing|body)|loose (?:plug )?fit|plugs? (?:fits?|fit) loose(?:ly)?|(?:will not|won't|does not|doesn't) (?:hold|retain) (?:a |the )?plugs?` },
-      { re: rx`${T.RCPT}\s+${gap(8)}${T.BE}(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?: over)?|worn|discolou?red|dead|${T.INOPERATIVE}|not (?:energized|powered|secured|secure|fastened)|pulled (?:out|away)|recessed)` },
+      { re: rx`${T.RCPT}\s+${gap(8)}${T.BE}(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?: over)?|worn|discolou?red|dead|${T.INOPERATIVE}|not (?:energized|powered|secured|secure|fastened)|pulled (?:out|away)|recessed)`, unless: DEAD_BEHIND_GFCI },
       { re: rx`${T.RCPT}\s+${gap(5)}(?:(?:has|have|had)\s+no|(?:is|are)\s+without)\s+power` },
       { re: rx`${T.RCPT}\s+${gap(8)}(?:shows?|showed|has|have|had|with)\s+(?:(?:brown|black|dark|visible|some)\s+)?(?:scorch|burn|arc(?:ing)?|char|heat|melt)\w*(?:\s+marks?)?` },
       { re: rx`(?:scorch|burn|arc(?:ing)?|char)\w*\s+marks?\s+(?:on|at)\s+${gap(3)}${T.RCPT}` },
@@ -227,7 +248,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:loose|poor|weak|worn)\s+(?:blade\s+)?(?:tension|grip|contacts)` },
       // A receptacle and its condition in the same clause with a longer description between ("the
       // receptacle on the fireplace wall in the family room was warm and discolored"; common practice).
-      { re: rx`${T.RCPT}:?\s+${RCPT_GAP}(?:${T.BE})?(?:(?:noticeably|very|slightly|visibly|partly|partially)\s+)?${RCPT_CONDITION}`, unless: /\b(?:gfc?i|ground[- ]fault)\b[^.;]{0,30}\b(?:dead|no power)\b.{0,40}\breset\b/i },
+      { re: rx`${T.RCPT}:?\s+${RCPT_GAP}(?:${T.BE})?(?:(?:noticeably|very|slightly|visibly|partly|partially)\s+)?${RCPT_CONDITION}`, unless: DEAD_BEHIND_GFCI },
     ],
   },
   {
@@ -239,7 +260,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       // Common practice (NFPA 70 (NEC) 2023, 406.9(B)(1)): an outdoor receptacle in a wet location has a cover that is weatherproof with a plug in; a flat cover is not.
       { re: rx`(?:only\s+(?:a\s+)?)?flat\s+${gap(2)}(?:covers?|lids?)(?:\s+only)?`, context: /in[- ]use|bubble|weather|exterior|outdoor|patio|porch|deck|while (?:a cord is )?(?:plugged|in use)/i },
       { re: rx`(?:covers?|lids?)\s+${gap(3)}(?:${T.BE})?broken off` },
-      { re: rx`(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant)?|wp)\s+covers?\s+${anyGap(8)}${T.BE}(?:${T.ABSENT}|broken|damaged|cracked|needed|recommended|required)` },
+      { re: rx`(?<!\b(?:no|without|missing)\s)(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant)?|wp)\s+covers?\s+${anyGap(8)}${T.BE}(?:${T.ABSENT}|broken|damaged|cracked|needed|recommended|required)` },
       { re: rx`(?:exterior|outdoor|outside|patio|deck|porch)\s+${T.RCPT}\s+${gap(3)}(?:covers?|lids?|flaps?)\s+${T.BE}(?:missing|broken|damaged|absent)` },
       { re: rx`(?:not|non)[- ](?:wr|weather[- ]resistant)\b` },
       { re: rx`(?:covers?|lids?)\s+${anyGap(4)}(?:not|isn't|is not)\s+(?:an?\s+)?(?:in[- ]use|bubble|weather[- ]?proof|wp|while[- ]in[- ]use|extra[- ]duty)\b` },
@@ -249,7 +270,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'cover-plate-missing',
     trigger: /plate|cover/i,
     patterns: [
-      { re: rx`(?:${T.NO}|broken|cracked|damaged)\s+(?:(?:the|a|an|any|its|their)\s+)?(?:(?:switch|${T.RCPT}|light|blank)\s+)?${T.PLATE}`, unless: JBOX_WORD },
+      { re: rx`(?:${T.NO}|broken|cracked|damaged)\s+(?:(?:the|a|an|any|its|their)\s+)?(?:\d{1,2}\s+|two\s+|both\s+)?(?:(?:switch|${T.RCPT}|light|blank)\s+)?${T.PLATE}`, unless: JBOX_WORD },
       { re: rx`${T.PLATE}\s+${gap(8)}${T.BE}(?:${T.ABSENT}|broken|cracked|damaged)`, unless: JBOX_WORD },
       { re: rx`${T.PLATE}\s+(?:for|on|at|of)\s+(?:the\s+|a\s+)?${ADJ_GAP}(?:${T.SWITCH}|${T.RCPT})\s+${gap(5)}${T.BE}(?:broken|cracked|damaged|missing)` },
     ],
@@ -271,14 +292,16 @@ export const CODE_RULES: readonly CodeRule[] = [
       // table rows: "J-box above furnace, no cover, splices visible"; "Lid missing from junction box").
       { re: rx`${T.JBOX}${NOT_ANOTHER_DEVICE}(?:${BOX_UNCOVERED})` },
       { re: rx`(?:covers?|lids?)\s+(?:is\s+|are\s+)?(?:missing|absent|off|removed)\s+(?:from|on|at)\s+(?:the\s+|an?\s+)?${T.JBOX}` },
+      // "a junction box feeding the shop lights has no cover plate": the box is the subject (common practice).
+      { re: rx`${T.JBOX}\s+(?:that\s+)?(?:feeding|feeds|serving|serves|supplying|supplies|for)\s+${anyGap(4)}(?:has|have|is|are|with)?\s*(?:no|missing|without)\s+(?:a\s+|its\s+|the\s+|any\s+)?(?:blank\s+)?(?:covers?|lids?|cover plates?)\b` },
     ],
   },
   {
     code: 'exposed-wiring',
-    trigger: /wir|cable|conductor|\bnm\b|romex|cord/i,
+    trigger: /wir|cabl|conductor|\bnm\b|romex|cord/i,
     patterns: [
       { re: rx`(?:exposed|unprotected|unsecured|loose|dangling|hanging|unsupported|unstapled|frayed)(?:,?\s+(?:dangling|hanging|unsecured|loose|exposed))?\s+(?:(?:nm|romex|electrical|branch(?: circuit)?|sheathed|non-?metallic(?:[- ]sheathed)?)\s+)?(?:wir(?:e|es|ing)|cables?|nm(?:-b)?|romex)\b` },
-      { re: rx`${T.WIRING}\s+${gap(8)}${T.BE}(?:exposed|unprotected|unsecured|loose|not (?:secured|supported|protected|stapled|strapped)|dangling|hanging|lying|draped|subject to (?:physical )?damage|within reach)` },
+      { re: rx`${T.WIRING}\s+${gap(8)}${T.BE}(?:exposed|unprotected|unsecured|loose|not (?:secured|supported|protected|stapled|strapped)|dangling|hanging|lying|draped|subject to (?:physical )?damage|within reach)`, unless: SERVICE_OR_BOX_WIRES },
       { re: rx`${FLEX_CORD}\s+${gap(3)}(?:used|in use|serving|as|for|run|powering|supplying|providing|feeding|(?:has|have)\s+been\s+(?:run|routed|stapled|strung|nailed|tacked|fastened|used|installed))` },
       { re: rx`${FLEX_CORD}\s+${gap(2)}(?:${T.BE}|being\s+)(?:stapled|strung|nailed|tacked|fastened|routed|run|draped|tied)\s+(?:along|across|through|to|under|over|up|around|in)\b` },
       { re: rx`${FLEX_CORD}\s+${anyGap(6)}(?:in place of|instead of|as|substitut\w+ for|for)\s+(?:a\s+)?(?:permanent|fixed|premises|branch(?:[- ]circuit)?)\s+wiring` },
@@ -287,7 +310,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:permanent|fixed)\s+(?:use of\s+)?extension cords?` },
       // A cable and its condition in the same clause with other words between ("NM cable to the
       // disposal not clamped at the unit, loose under the sink"; common practice, NEC 334.15 and 334.30).
-      { re: rx`(?:nm(?:-b)?|romex|uf|surface[- ](?:run|mounted)|branch(?:[- ]circuit)?|sheathed)?\s*(?:wir(?:e|es|ing)\b(?!\s+nuts?\b)|cables?\b)\s+${WIRE_GAP}(?:${T.BE})?${WIRE_CONDITION}`, unless: WIRE_SOUND_OR_OTHER },
+      { re: rx`(?:nm(?:-b)?|romex|uf|surface[- ](?:run|mounted)|branch(?:[- ]circuit)?|sheathed)?\s*(?:wir(?:e|es|ing)\b(?!\s+nuts?\b)|cables?\b|cabling\b)\s+${WIRE_GAP}(?:${T.BE})?${WIRE_CONDITION}`, unless: WIRE_SOUND_OR_OTHER },
     ],
   },
   {
@@ -295,9 +318,9 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /tap|lug|terminal|screw|breaker/i,
     fixedRoom: 'panel',
     patterns: [
-      { re: rx`(?:doubled?|dbl\.?|dual|twin)[- ]?tap(?:s|ped|ping|ed)?\b` },
+      { re: rx`(?:doubled?|dubbled?|dbl\.?|dual|twin)[- ]?tap(?:s|ped|ping|ed)?\b` },
       { re: rx`double[- ]lug(?:ged|s)?\b` },
-      { re: rx`(?:two|2|multiple)\s+(?:wires|conductors|circuits|neutrals)\s+${gap(3)}(?:under|on|to|landed on|terminated on|sharing)\s+(?:a\s+|one\s+|the same\s+|single\s+|its\s+|their\s+|the\s+)+(?:terminal|lug|screw|breaker)` },
+      { re: rx`(?:two|2|multiple)\s+(?:wires?|conductors?|circuits|neutrals)\s+${gap(3)}(?:under|on|to|landed on|terminated on|sharing)\s+(?:a\s+|one\s+|1\s+|the same\s+|single\s+|its\s+|their\s+|the\s+)+(?:terminal|lug|screw|breaker)` },
     ],
   },
   {
@@ -348,25 +371,25 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'subpanel-bonding',
-    trigger: /neutral|ground|bond|green|egc/i,
+    trigger: /neutral|ground|bond|green|egc|\bn\s*(?:&|\/|and)\s*g\b/i,
     fixedRoom: 'panel',
     // Polarity: neutrals and grounds together at the main service are correct ("which is correct at
     // the service equipment", "as permitted at the main"; NFPA 70 (NEC) 2023, 250.24(A)).
     patterns: [
-      { re: rx`(?:neutrals?|grounds?)(?:\s+(?:conductors?|wires?))?\s+(?:and|&)\s+(?:neutrals?|grounds?|grounding|equipment grounds?)(?:\s+(?:conductors?|wires?))?\s+${gap(3)}(?:share|sharing|are on|on (?:the )?same|(?:landed |terminated )?together|combined|commingled|mixed|${T.BE}not (?:separated|isolated))`, unless: CORRECT_AT_SERVICE },
+      { re: rx`(?:neutrals?|grounds?|n)(?:\s+(?:conductors?|wires?))?\s*(?:and|&|\/)\s*(?:neutrals?|grounds?|grounding|equipment grounds?|g)(?:\s+(?:conductors?|wires?))?\s+${gap(3)}(?:share|sharing|are on|on (?:the )?same|(?:landed |terminated )?together|combined|commingled|mixed|${T.BE}not (?:separated|isolated))`, unless: CORRECT_AT_SERVICE },
       { re: rx`(?:grounds?|ground wires|egcs?|equipment grounds?)\s+${gap(3)}(?:on|landed on|connected to|terminated on|share)\s+(?:the\s+)?neutral\s+(?:bar|bus)`, context: SUBPANEL_CONTEXT },
-      { re: rx`(?:bonding|bond|green)\s+(?:screw|strap|jumper)\s+${gap(3)}${T.BE}(?:present|installed|in place|not removed)`, context: SUBPANEL_CONTEXT },
+      { re: rx`(?:bonding|bond|green)\s+(?:screw|strap|jumper)\s+${gap(3)}${T.BE}(?:present|installed|in place|not removed)`, context: SUBPANEL_CONTEXT, unless: /\b(?:not|never)\s+(?:been\s+)?(?:installed|present|in place)\b/i },
       { re: rx`neutral\s+(?:bar|bus)?\s*${gap(2)}${T.BE}bonded\s+to\s+(?:the\s+)?(?:enclosure|case|can|cabinet|panel|ground)`, context: SUBPANEL_CONTEXT },
       { re: rx`no separate ground(?:ing)? (?:bar|bus)` },
     ],
   },
   {
     code: 'grounding-electrode',
-    trigger: /ground|gec|bond|electrode|jumper|acorn/i,
+    trigger: /ground|gec|\bges\b|bond|electrode|jumper|acorn/i,
     defaultRoom: 'panel',
     panelIsPlace: true,
     patterns: [
-      { re: rx`(?:${T.NO}|loose|disconnected|damaged|broken|cut|corroded|inadequate|improper)\s+(?:(?:a|an|the)\s+)?${gap(2)}(?:ground(?:ing)? electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|water (?:pipe |line )?bond(?:ing)?(?: jumper)?|gas (?:pipe |line )?bond(?:ing)?|bonding (?:jumper|conductor|clamp|wire|connection))` },
+      { re: rx`(?:${T.NO}|loose|disconnected|damaged|broken|cut|corroded|inadequate|improper)\s+(?:(?:a|an|the)\s+)?${gap(2)}(?:ground(?:ing)? electrode(?: conductor| system)?|gec\b|ges\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|water (?:pipe |line )?bond(?:ing)?(?: jumper)?|gas (?:pipe |line )?bond(?:ing)?|bonding (?:jumper|conductor|clamp|wire|connection))` },
       { re: rx`(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|bonding (?:jumper|clamp|conductor))\s+${gap(12)}${T.BE}(?:${T.ABSENT}|loose|disconnected|damaged|cut(?: off)?|broken|corroded|not (?:connected|attached|bonded|secured)|undersized|inadequate)` },
       // A water meter or filter bridged by no jumper leaves the piping bond open (NFPA 70 (NEC) 2023, 250.53(D)(1) and 250.68(B)).
       { re: rx`${T.NO}\s+(?:bonding\s+)?jumper\s+(?:wire\s+)?(?:around|across|bridging|over|at)\s+(?:the\s+)?(?:water\s+)?(?:meter|filter|softener|water heater)` },
@@ -387,8 +410,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /smoke|alarm|detector|carbon monoxide|unit|device|\bco\b/i,
     defaultRoom: 'whole-house',
     patterns: [
-      { re: rx`(?:${T.NO}|${T.INOPERATIVE}|expired|outdated|dated|disconnected|removed|chirping)\s+${gap(2)}${T.SMOKE}` },
-      { re: rx`${T.SMOKE}\s*[:-]?\s*${gap(8)}${T.BE}(?:${T.ABSENT}|none|${T.INOPERATIVE}|expired|past (?:their|its) (?:service life|expiration)|(?:over|older than|more than) (?:10|ten) years|disconnected|removed|chirping|${T.FAILED} (?:respond|sound|activate|operate|work)|failed)` },
+      { re: rx`(?:${T.NO}|${T.INOPERATIVE}|expired|outdated|dated|disconnected|removed|chirping)\s+${gap(2)}${T.SMOKE}(?!\s+(?:issues|problems|concerns|defects|deficiencies))` },
+      { re: rx`${T.SMOKE}\s*[:-]?\s*${gap(8)}${T.BE}(?:${T.ABSENT}|none|${T.INOPERATIVE}|expired|past (?:their|its) (?:service life|expiration)|(?:over|older than|more than) (?:10|ten) years|disconnected|removed|chirping|${T.FAILED} (?:respond|sound|activate|operate|work)|failed|no\s+respon[sc]e)` },
       { re: rx`${RECOMMEND}\s+${NOT_ABOUT_ADDING}${T.SMOKE}`, isRecommendation: true, unless: /\btest/i },
       { re: rx`(?:unit|device)\s+${gap(4)}${T.FAILED}\s+(?:sound|alarm|respond|activate)`, context: /smoke|carbon monoxide|\bco\b|alarm|detector/i },
       // Common practice: smoke alarms are replaced ten years after manufacture (the date on the
@@ -408,7 +431,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|dangling|hanging|not (?:secured|secure|attached|mounted)|${T.FAILED} (?:operate|work|respond|turn on|come on)|in contact with (?:the\s+)?insulation|covered (?:by|with) insulation|not (?:rated|listed|suitable|approved) for (?:a |the )?(?:wet|damp))` },
       { re: rx`(?:${T.INOPERATIVE}|loose|dangling|damaged|broken)\s+${gap(2)}${NOT_APPLIANCE}${T.LIGHT}` },
-      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:flickers?|flickering|buzz(?:es|ing)?|(?:is|are|was)\s+(?:scorched|discolou?red|melted|cracked))\b` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:flickers?|flickering|buzz(?:es|ing)?|(?:is|are|was)\s+(?:scorched|discolou?red|melted|cracked))\b`, unless: SWITCH_FOR_LIGHT },
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:hangs?|hanging|suspended|dangles|dangling)\s+(?:from|by|on)\b` },
       { re: rx`(?:${T.NO}|broken)\s+(?:(?:the|a)\s+)?(?:globes?|lens(?:es)?|light covers?|shades?|diffusers?)` },
       { re: rx`(?:bare|open|exposed|uncovered)\s+(?:incandescent\s+)?(?:bulbs?|lamps?)\b` },
@@ -416,24 +439,28 @@ export const CODE_RULES: readonly CodeRule[] = [
       // Common practice: a recessed housing not rated IC must keep its clearance from insulation.
       { re: rx`(?:non-?ic|recessed|can)\s+(?:(?:light|lighting|fixture)\s+)?(?:housings?|fixtures?|lights?|cans?)\s+${gap(6)}(?:${T.BE})?(?:covered|buried|packed|surrounded)\s+(?:by|in|with|under)\b` },
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${SWITCH_GAP}(?:${T.FAILED}|${T.BE}not)\s+(?:light|illuminate|come on|turn on|operate|work)\b` },
-      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}(?:has\s+)?(?:pulled|pulling|come|coming|separated|separating)\s+(?:away\s+|loose\s+)?(?:from|off)\s+(?:the\s+|its\s+)?(?:wall|siding|ceiling|box|mounting|surface)` },
-      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:${T.BE})?(?:missing|without|lacks?|has no)\s+(?:(?:its|a|the|their)\s+)?(?:glass\s+)?(?:globes?|lens(?:es)?|shades?|diffusers?|covers?)` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}(?:has\s+)?(?:pulled|pulling|come|coming|separated|separating)\s+(?:away\s+|loose\s+)?(?:from|off)\s+(?:the\s+|its\s+)?(?:wall|siding|stucco|brick|soffit|fascia|ceiling|box|mounting|surface)` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:${T.BE})?(?:missing|without|lacks?|has no)\s+(?:(?:its|a|the|their)\s+)?(?:glass\s+)?(?:globes?|lens(?:es)?|shades?|diffusers?|covers?)`, unless: BOX_FEEDING },
       { re: rx`(?:globes?|lens(?:es)?|shades?|diffusers?)\s+${T.BE}(?:missing|broken|cracked|absent)`, context: /light|fixture|lamp|bulb/i },
       { re: rx`(?:bare[- ]bulb|open|exposed|porcelain|keyless)\s+(?:porcelain\s+)?(?:lamp\s?holders?|sockets?)` },
       { re: rx`(?:lamp\s?holders?|sockets?)\s+${gap(3)}${T.BE}(?:cracked|broken|damaged|loose|missing)` },
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(3)}(?:hangs?|hanging|suspended)\s+(?:from|by)\s+(?:one|a single|its)\s+(?:chain|end|wire|wires)` },
       // A light and its condition in the same clause with other words between (common practice):
       // water in the globe, rust, loose from its mounting, does not light.
-      { re: rx`${NOT_APPLIANCE}${T.LIGHT}:?\s+${LIGHT_GAP}(?:${T.BE})?${LIGHT_CONDITION}` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}[:,]?\s+${LIGHT_GAP}(?:${T.BE})?${LIGHT_CONDITION}` },
     ],
   },
   {
     code: 'fan-support',
     trigger: /fan/i,
     patterns: [
-      { re: rx`(?:ceiling\s+)?fans?\s+${gap(4)}(?:wobbl\w*|shak(?:es|ing|y)|sways?|swaying|unstable|${T.BE}(?:loose|not (?:secured|supported|properly (?:supported|secured|mounted))|improperly (?:mounted|supported|secured)))`, unless: /\b(?:without|no)\s+(?:any\s+|noticeable\s+)?(?:wobbl|shak|sway)/i },
+      { re: rx`(?<!\b(?:exhaust|vent|ventilation|bath|attic|range|inline)\s)(?:ceiling\s+)?fans?\s+${gap(4)}(?:wobbl\w*|shak(?:es|ing|y)|sways?|swaying|unstable|${T.BE}(?:loose|not (?:secured|supported|properly (?:supported|secured|mounted))|improperly (?:mounted|supported|secured)))`, unless: /\b(?:without|no)\s+(?:any\s+|noticeable\s+)?(?:wobbl|shak|sway)/i },
       { re: rx`(?:ceiling\s+)?fans?\s+${gap(2)}${T.BE}(?:mounted|installed|hung|supported)\s+(?:on|to|from|by)\s+(?:a|an|the)?\s*(?:standard|non-?fan[- ]rated|light(?:ing)?|plastic|pancake|junction|ordinary)\s+(?:fixture\s+|outlet\s+|light\s+)?box` },
       { re: rx`(?:wobbl\w*|loose|unsecured|shaky)\s+(?:ceiling\s+)?fans?\b` },
+      // A fan hung from a box made for a light, with words between (NFPA 70 (NEC) 2023, 314.27(C)):
+      // "the ceiling fan in the sunroom is hung from a shallow pancake box", "clg fan on std pancake box".
+      { re: rx`(?:ceiling\s+)?fans?\s+${anyGap(5)}(?:(?:mounted|installed|hung|supported|hanging|attached)\s+)?(?:on|to|from)\s+(?:an?\s+|the\s+|its\s+)?(?:(?:shallow|small|light[- ]duty|old|original|metal|round|existing|thin)\s+){0,2}(?:(?:standard|std\.?|non-?fan[- ]rated|light(?:ing)?|plastic|pancake|ordinary)\s+){1,2}(?:fixture\s+|outlet\s+|light\s+|ceiling\s+)?box`, unless: /\bfan[- ]rated (?:box|brace) (?:is |was )?(?:present|installed|in place)/i },
+      { re: rx`(?:ceiling\s+)?fans?\s+${gap(3)}(?:rocks|rocking|sways)\b` },
       { re: rx`(?:not|non)[- ](?:an?\s+)?fan[- ](?:rated|support(?:ing)?)\b` },
       // A fan hung from a box that cannot carry it (NFPA 70 (NEC) 2023, 314.27(C)): "not rated to carry a fan", "no fan brace".
       { re: rx`fans?\s+${anyGap(12)}box\s+${anyGap(4)}(?:${T.BE})?not\s+(?:rated|listed|approved|designed)\s+(?:to\s+(?:carry|support|hold)|for)\s+(?:a\s+|the\s+)?(?:ceiling\s+)?fan` },
@@ -442,7 +469,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'switch-issue',
-    trigger: /switch|toggle|rocker|paddle/i,
+    trigger: /switch|toggle|rocker|paddle|dimmer/i,
     patterns: [
       { re: rx`${T.SWITCH}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|(?:warm|hot) to the touch|warm|hot|sparks?|sparking|arcing|${T.FAILED} (?:operate|work|respond|control))` },
       { re: rx`${T.SWITCH}\s+${gap(7)}(?:(?:has|have|had|of|with|serves?)\s+)?(?:an?\s+)?(?:unknown|no known|undetermined|unclear) (?:function|purpose|use)` },
@@ -451,7 +478,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       // Common practice: a switch whose purpose cannot be found is reported for the seller or an electrician to identify.
       { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:(?:has|have|had|with)\s+)?(?:no|unknown|unk\.?)\s+(?:apparent\s+|known\s+|obvious\s+|determined\s+)?(?:function|purpose|use)` },
       { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:does|did|do)\s*(?:n[o']t|not)?\s*(?:appear to\s+|seem to\s+)?(?:nothing|not (?:control|operate|turn on|power) (?:anything|any\w*)|not turn (?:the\s+)?${gap(2)}(?:on|off))` },
-      { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:does|did)\s*n[o']t\s+(?:appear to\s+|seem to\s+)?(?:control|operate|turn on|power)\s+(?:anything|any\s+\w+)` },
+      { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:does|did)\s*n[o']?t\s+(?:appear to\s+|seem to\s+)?(?:control|operate|turn on|power|do)\s+(?:anything|any\s+\w+)` },
       { re: rx`${T.SWITCH}\s+${SWITCH_GAP}${T.BE}loose in (?:the|its) (?:wall|box)` },
       // "The switch controlling the desk receptacle is broken": the switch is the subject, not what it controls.
       { re: rx`${T.SWITCH}\s+(?:that\s+)?(?:controlling|controls|for|serving|serves|operating|operates)\s+(?:the\s+|a\s+)?${anyGap(3)}(?:${T.RCPT}|${T.LIGHT}|fans?\b|disposal|disposer)\s+${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked)` },
@@ -493,20 +520,22 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'service-equipment',
-    trigger: /service|weather\s?head|drip|meter|\bse\b|seu|mast|overhead|utility|clearance|drop|limb|branch|tree/i,
+    trigger: /service|weather\s?head|drip|meter|\bse\b|seu|mast|overhead|utility|clearance|drop|limb|branch|tree|pedestal/i,
     fixedRoom: 'exterior',
     patterns: [
       { re: rx`${T.SERVICE}\s+${gap(8)}${T.BE}(?:damaged|leaning|bent|loose|pulling away|detached|unsecured|not (?:secured|sealed|properly (?:secured|sealed|supported))|${T.ABSENT}|deteriorated|worn|frayed|cracked|rusted|rusting|corroded|too low|sagging|in contact with|contacting|touching|rubbing|exposed|weathered|brittle|torn|split)` },
-      { re: rx`(?:${T.NO}|damaged|deteriorated|frayed|worn|cracked|weathered|brittle|loose|leaning|bent|rusted|corroded)\s+${gap(2)}${T.SERVICE}` },
+      { re: rx`(?:${T.NO}|damaged|deteriorated|frayed|worn|cracked|weathered|brittle|loose|leaning|bent|rusted|corroded)\s+${gap(2)}${T.SERVICE}(?!\s+(?:deficiencies|defects|issues|problems|concerns)\b)` },
       { re: rx`(?:trees?|branches|limbs|vegetation|vines)\s+${gap(3)}(?:in contact with|contacting|touching|rubbing|against|interfering with)\s+(?:the\s+)?${gap(2)}${T.SERVICE}` },
       { re: rx`(?:inadequate|insufficient|improper|low)\s+(?:service\s+)?(?:drop\s+)?clearance\b`, context: /service|drop|overhead|mast|utility|roof/i, unless: PANEL_CONTEXT },
       { re: rx`${T.SERVICE}\s+${gap(8)}(?:has\s+|have\s+|is\s+|are\s+)?(?:pulled|pulling|separated|separating|come|coming|broken)\s+(?:away\s+|loose\s+)?(?:from|off)\b` },
       { re: rx`${T.SERVICE}\s+${gap(4)}(?:jacket|sheath(?:ing)?|insulation)\s+${T.BE}(?:(?:uv|sun)[- ]?)?(?:degraded|damaged|cracked|split|deteriorated|worn|brittle|torn)` },
       { re: rx`${T.SERVICE}\s+${gap(6)}(?:${T.BE})?(?:not (?:strapped|supported|fastened|clamped)|rubs?|rubbing|chafing|chafed)\b` },
       // Common practice: service drop conductors keep their clearance above decks, roofs and drives (NFPA 70 (NEC) 2023, 230.24).
-      { re: rx`${T.SERVICE}\s+${anyGap(8)}(?:cross(?:es)?|pass(?:es)?|runs?|hangs?|sags?)\s+(?:over|through|about|roughly|only|within|among|across|to)\b`, context: /\b(?:\d+|five|six|seven|eight|nine|ten)\s*(?:ft|feet|foot|')|limbs?|branch(?:es)?|\btrees?\b|within reach|clearance/i, unless: /\b(?:otherwise secure|adequate clearance|clearance (?:is )?(?:adequate|ok|good))\b/i },
+      { re: rx`${T.SERVICE}\s+${anyGap(8)}(?:cross(?:es)?|pass(?:es)?|runs?|hangs?|sags?)\s+(?:right\s+|directly\s+|straight\s+)?(?:over|through|about|roughly|only|within|among|across|to)\b`, context: /\b(?:\d+|five|six|seven|eight|nine|ten)\s*(?:ft|feet|foot|')|limbs?|branch(?:es)?|\btrees?\b|within reach|clearance/i, unless: /\b(?:otherwise secure|adequate clearance|clearance (?:is )?(?:adequate|ok|good))\b/i },
       { re: rx`(?:service\s+)?drop\s+(?:sags?|sagging|clearance\s+(?:over|above|at|to|is)|is too low|rubs?|rubbing)\b`, context: /service|overhead|utility|drop/i, unless: /\bclearance (?:is )?(?:adequate|ok|good|sufficient)\b/i },
-      { re: rx`(?:limbs?|branch(?:es)?|trees?)\s+(?:rubs?|rubbing|touch(?:es|ing)?|contacts?|contacting)\s+(?:against\s+|on\s+)?(?:them|it|the\s+(?:drop|conductors|service|lines|wires))`, context: /service|drop|overhead|conductor|utility/i },
+      { re: rx`(?:limbs?|branch(?:es)?|trees?)\s+${gap(3)}(?:rubs?|rubbing|touch(?:es|ing)?|contacts?|contacting|in contact with|rest(?:s|ing)?\s+on|lying on|lie on|grow(?:s|ing)?\s+(?:through|into|around))\s+(?:against\s+|on\s+)?(?:them|it|(?:the\s+)?(?:service\s+|drop\s+|overhead\s+)?(?:drop|conductors|service|lines|wires))`, context: /service|drop|overhead|conductor|utility/i },
+      // NFPA 70 (NEC) 2023, 230.24 (from memory): "measured clearance above the deck ... is about 8 ft".
+      { re: rx`clearance\s+(?:above|over)\s+(?:the\s+)?(?:(?:rear|back|front|side|upper|lower|flat)\s+)?(roof|deck|walkway|walk|sidewalk|driveway|drive|grade|ground|yard|patio|pool|porch|balcony)\b[^.;]{0,40}?\b(?:is|was|of)\s+(?:only\s+|about\s+|approx(?:imately|\.)?\s+|roughly\s+|~\s?)?(\d+(?:\.\d+)?)\s*(?:ft\b|feet|foot|')`, check: isTooLowSurfaceFirst },
       // A part of the service and a condition of it in the same clause, with other words between
       // ("the meter socket on the left side has heavy corrosion", "SE cable @ meter - jacket split").
       { re: rx`${T.SERVICE}\s+${anyGap(10)}(?:${T.BE})?(?:${T.SERVICE_CONDITION})`, unless: SERVICE_SOUND },
@@ -526,7 +555,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     ignoresContext: true,
     patterns: [
       { re: rx`(?:evaluat|review|inspect|assess|examin|diagnos|correct|repair)\w*\s+${anyGap(8)}(?:by|from)\s+(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)s?`, unless: REFERS_TO_OTHERS_ONLY },
-      { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check)`, unless: REFERS_TO_OTHERS_ONLY },
+      { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check|go (?:through|over)|look (?:over|through))`, unless: REFERS_TO_OTHERS_ONLY },
       { re: rx`(?:consult|contact|hire|engage|retain|call)\s+(?:with\s+)?(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)`, unless: /\bif\b|\bany\b/i },
     ],
   },

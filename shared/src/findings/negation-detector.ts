@@ -9,12 +9,12 @@ import { scanAll } from './regex-scan';
  * before it ("reversed polarity or open grounds: none found"). Cues never cross a clause, and a
  * cue inside a phrase ("no GFCI", "did not trip") is part of the defect, not a denial.
  */
-const CUE_BEFORE = /\b(?:no|not|never|none of|free of|no evidence of|no signs? of|no indication of|did not (?:observe|find|note|see|detect)|didn't (?:observe|find|note|see)|absence of|if|unless|whether|in the event (?:of|that)|should (?:any|there be)|previously|formerly|former|abandoned|once had|no longer|had been (?:replaced|removed|corrected|repaired)|has been (?:replaced|removed|corrected|repaired)|was (?:replaced|removed|corrected|repaired))\b/gi;
+const CUE_BEFORE = /\b(?:no|not|never|none of|free of|no evidence of|no signs? of|no indication of|did not (?:observe|find|note|see|detect)|didn't (?:observe|find|note|see)|absence of|if|unless|whether|in the event (?:of|that)|should (?:any|there be)|previously|formerly|former|abandoned|once had|no longer|had been (?:replaced|removed|corrected|repaired)|has been (?:replaced|removed|corrected|repaired)|was (?:replaced|removed|corrected|repaired)|(?:previous|prior|earlier|(?:19|20)\d\d) (?:home )?inspection(?: report)?|(?:previous|prior|former) owners?|replaced (?:the|all|its|their)|(?:^|[.;]\s*)(?:where|wherever|whenever|should)(?=\s))\b/gi;
 /**
  * After the phrase: not found ("not observed", "none"), positive ("as required", "tested OK") or
  * historical ("has been removed", "was replaced in 2015").
  */
-const CUE_AFTER = /(?:\b(?:was|were|is|are)\s+)?\bnot\s+(?:observed|found|noted|detected|seen|evident|identified|present)\b|\bnone\b(?!\s+of\b)(?:\s+(?:observed|found|noted|detected|seen|evident))?|\bn\/a\b|\bnot an issue\b|\b(?:was|is|were|are)\s+not\s+(?:considered|reported as|listed as|counted as)\s+(?:a\s+)?(?:defect|deficiency|concern|problem)\b|\btypical (?:for|of) (?:the|its|a home of this) (?:age|era|period|vintage)\b|\bas (?:required|expected|intended)\b|\b(?:was|were) previously (?:present|installed|used|in use)\b|\b(?:tested|test|tests) (?:ok|okay|good|correctly|properly|fine)\b|\b(?:has|have|had) (?:since )?been (?:removed|replaced|abandoned|decommissioned|disconnected and removed)\b|\b(?:was|were) (?:removed|replaced|corrected|repaired|upgraded) (?:in|during|when|before|by)\b/gi;
+const CUE_AFTER = /(?:\b(?:was|were|is|are)\s+)?\bnot\s+(?:observed|found|noted|detected|seen|evident|identified|present)\b|\bnone\b(?!\s+of\b)(?:\s+(?:observed|found|noted|detected|seen|evident))?|\bn\/a\b|\bnot an issue\b|\b(?:was|is|were|are)\s+not\s+(?:considered|reported as|listed as|counted as)\s+(?:a\s+)?(?:defect|deficiency|concern|problem)\b|\btypical (?:for|of) (?:the|its|a home of this) (?:age|era|period|vintage)\b|\bas (?:required|expected|intended)\b|\b(?:was|were) previously (?:present|installed|used|in use)\b|\b(?:tested|test|tests) (?:ok|okay|good|correctly|properly|fine)\b|\b(?:has|have|had) (?:since )?been (?:removed|replaced|abandoned|decommissioned|disconnected and removed|corrected|repaired)\b|\b(?:was|were) (?:removed|replaced|corrected|repaired|upgraded) (?:in|during|when|before|by|prior to|previously|already|earlier)\b/gi;
 /** Text between two listed phrases: commas, "and", "or", "nor", "/", "&". */
 const LIST_JOIN = /^[\s,]*(?:(?:and|or|nor|&|\/|and\/or)[\s,]*)?$/i;
 /** A participle right after "not" that the phrase does not start with: the "not" is about it. */
@@ -54,6 +54,10 @@ export function negatedSpans(text: string, spans: readonly Range[], clauses: rea
     negated[first] = true;
     for (let i = first + 1; i < spans.length && isListed(spans[i - 1], spans[i]); i++) negated[i] = true;
   }
+  // "attic: knob-and-tube?": a phrase asked about, not reported.
+  spans.forEach((s, i) => {
+    if (/^\s?\?/.test(text.slice(s.end, s.end + 2))) negated[i] = true;
+  });
   for (const cue of cuesOutside(text, CUE_AFTER, spans)) {
     let last = -1;
     spans.forEach((s, i) => {

@@ -25,7 +25,9 @@ const RATING = /(?<![\w.])(\d{2,3})\s?-?(?:a|amps?|amperes?)\b(?!\s*(?:x|\/)\s*\
 /** "12 AWG" (shorthand such as "#12", "12 ga", "12-gauge" is normalised to this before). */
 const SIZE = /(?<![\w.])(\d{1,2})[\s-]?awg\b/gi;
 const MATERIAL = /\b(?:(aluminum|aluminium)|(copper))\b/gi;
-const DEVICE = /\b(?:breakers?|fuses?|fused|ocpds?|overcurrent|double-pole|2-pole|single-pole|two-pole|circuit)\b/i;
+const DEVICE = /\b(?:breakers?|fuses?|fused|ocpds?|overcurrent|double-pole|2-pole|single-pole|two-pole|circuit|[12]-?p)\b/i;
+/** A rating said of the device put in ("Installed: 2P 35A", "existing 40 A"), after a nameplate sentence. */
+const INSTALLED = /\b(?:installed|existing|actual|in place|present)\b/i;
 /** The nameplate's limit: "nameplate max overcurrent device 30A", "MOCP 25 A", "max breaker 20A". */
 const NAMEPLATE = /\b(?:(?:nameplate|name plate|label|data plate|rating plate)\b[^.;]{0,30}?\bmax(?:imum|\.)?|max(?:imum|\.)?\s+(?:(?:overcurrent|ocpd|breaker|fuse|circuit breaker|hacr|device|protection|size|rating|or|and)\b\s*\/?\s*)+|mocp|max\.?\s+ocp)[^.;\d]{0,40}?(\d{2,3})\s?-?(?:a|amps?|amperes?)\b|\b(?:nameplate|name plate|label|data plate|rating plate|plate)\b[^.;\d]{0,30}?(\d{2,3})\s?-?(?:a|amps?|amperes?)\s+(?:max(?:imum|\.)?|at most)\b/gi;
 /** Text between a rating and a size that keeps them about the same circuit. */
@@ -39,10 +41,16 @@ function mentions(re: RegExp, text: string): Mention[] {
   return scanAll(re, text).map((m) => ({ start: m.index, end: m.index + m[0].length, value: Number(m[1] ?? m[2]) }));
 }
 
-/** The nameplate maximum a sentence states, if any: a following sentence of the block may give the device's rating. */
+/**
+ * The nameplate maximum a sentence states with no device rating beside it, if any: a following
+ * sentence of the block may give the device's rating ("The condenser is on a 25 A breaker and its
+ * nameplate lists 25 A maximum" has both, so nothing carries).
+ */
 export function nameplateMaximum(text: string): number | null {
   const found = mentions(NAMEPLATE, text);
-  return found.length > 0 ? found[found.length - 1].value : null;
+  if (found.length === 0) return null;
+  const paired = mentions(RATING, text).some((r) => !found.some((n) => r.start >= n.start && r.end <= n.end));
+  return paired ? null : found[found.length - 1].value;
 }
 
 /** The material said nearest to a conductor size (after it first: "12 AWG copper"), copper when none. */
@@ -104,11 +112,11 @@ const nameplateCheck = (rating: number, limit: number, at: Range): OvercurrentCh
 });
 
 export function checkOvercurrent(text: string, carried: CarriedRatings | null = null): OvercurrentCheck[] {
-  if (!DEVICE.test(text) && !/\bfus|\bbreak|\bnameplate|\bmax/i.test(text)) return [];
+  if (!DEVICE.test(text) && !/\bfus|\bbreak|\bnameplate|\bmax|\binstalled/i.test(text)) return [];
   const nameplates = mentions(NAMEPLATE, text);
   // "The data plate lists max breaker 30 A. The breaker at the disconnect is 45 A." (or the other
   // way round): the nameplate and the device's rating in two sentences of one block.
-  if (nameplates.length === 0 && carried?.nameplate != null && DEVICE.test(text) && !MAIN_OR_SERVICE.test(text)) {
+  if (nameplates.length === 0 && carried?.nameplate != null && (DEVICE.test(text) || INSTALLED.test(text)) && !MAIN_OR_SERVICE.test(text)) {
     const over = mentions(RATING, text).find((r) => r.value > (carried.nameplate ?? Infinity));
     if (over) return [nameplateCheck(over.value, carried.nameplate, over)];
   }

@@ -12,12 +12,16 @@ const NUMBER_WORDS: Readonly<Record<string, number>> = {
 };
 const VAGUE = new Set(['several', 'multiple', 'various', 'numerous', 'some', 'many', 'few', 'all', 'each', 'every', 'any']);
 /** Nouns a count can apply to (devices, defects and places). */
-const COUNTABLE = /^(?:rec[ei]pt?[aeiu]?c(?:le|al|el)s?|recepts?|recep|rcpts?|outlett?s?|devices?|gfc?is?|afcis?|breakers?|brkrs?|fuses?|circuits?|wires?|conductors?|cables?|cords?|lights?|fixtures?|lamps?|bulbs?|switch(?:es)?|box(?:es)?|j-?box(?:es)?|splices?|covers?|plates?|alarms?|detectors?|smokes?|fans?|knockouts?|fillers?|blanks?|openings?|slots?|screws?|taps?|grounds?|locations?|places?|spots?|areas?|rooms?|bathrooms?|baths?|bedrooms?|units?|terminals?|neutrals?)$/i;
+const COUNTABLE = /^(?:rec[ei]pt?[aeiu]?c(?:le|al|el)s?|recepts?|recep|rcpts?|outlett?s?|devices?|gfc?is?|afcis?|breakers?|brkrs?|fuses?|circuits?|wires?|conductors?|cables?|cords?|lights?|fixtures?|lamps?|bulbs?|switch(?:es)?|dimmers?|box(?:es)?|j-?box(?:es)?|splices?|covers?|plates?|alarms?|detectors?|smokes?|fans?|knockouts?|fillers?|blanks?|openings?|slots?|screws?|taps?|grounds?|locations?|places?|spots?|areas?|rooms?|bathrooms?|baths?|bedrooms?|units?|terminals?|neutrals?)$/i;
 /** Words that make the number a measure, not a count ("20 amp", "6 feet", "3-prong"). */
 const UNIT = /^(?:a|amps?|amperes?|v|volts?|awg|gauge|ga|ft|feet|foot|inch(?:es)?|in|years?|yrs?|prong|slot|wire|pole|way|mm|%|percent|degrees?|minutes?|hours?|days?)$/i;
 /** Words before a number that make it a name or an index ("bedroom 2", "slot 14", "#3"). */
 const INDEX_BEFORE = /^(?:bed\s?rooms?|bath(?:room)?s?|br|bdrms?|rooms?|circuits?|breakers?|no|nos|item|items|page|section|unit|level|floor|space|position|slot|photo|fig|figure|step|zone|#|spaces|about|approximately|approx)$/i;
 const ALLOWED_BETWEEN = 3;
+/** Places a vague word spreads a defect over ("on any level", "in every bedroom"): still no count of one. */
+const SPREAD_NOUN = /^(?:levels?|floors?|stor(?:y|ies)|rooms?|bedrooms?|areas?|locations?)$/;
+/** A plural countable noun: after an index word a number word counts it ("bedroom two receptacles"). */
+const PLURAL_COUNTABLE = /^(?:receptacles|outlets|devices|breakers|fuses|lights|fixtures|switches|boxes|covers|plates|alarms|detectors|fans|cords|splices)$/i;
 /** Vague words that quantify only a noun that follows ("all receptacles"), not a manner ("at all speeds"). */
 const VAGUE_BEFORE_NOUN_ONLY = new Set(['all', 'every']);
 /** A word, a bracketed count ("(3)", "(x2)") or a punctuation mark. */
@@ -67,7 +71,7 @@ export function readQuantity(text: string, articleLimit = Infinity): number | nu
 }
 
 /** Like readQuantity, but tells a vague count ("several", "all") apart from none given. */
-export function readCount(text: string, articleLimit = Infinity): number | 'vague' | null {
+export function readCount(text: string, articleLimit = Infinity, countable: RegExp = COUNTABLE): number | 'vague' | null {
   const tokens = tokenize(text);
   for (let i = 0; i < tokens.length; i++) {
     const { word } = tokens[i];
@@ -75,24 +79,27 @@ export function readCount(text: string, articleLimit = Infinity): number | 'vagu
     if (parenthesised) return Number(parenthesised[1]);
     const times = /^(?:(\d{1,2})x|x(\d{1,2}))$/.exec(word);
     if (times) return Number(times[1] ?? times[2]);
-    // "several receptacles" is vague; "wobbles at all speeds" says nothing about how many.
-    if (VAGUE.has(word) && !isNumberAhead(tokens, i) && (isNounAhead(tokens, i) || !VAGUE_BEFORE_NOUN_ONLY.has(word))) return 'vague';
+    // "several receptacles" is vague; "wobbles at all speeds" says nothing about how many; a vague
+    // word after the defect phrase speaks of something else ("... not GFCI protected, pushed test on every GFI").
+    if (VAGUE.has(word) && tokens[i].index >= articleLimit && !SPREAD_NOUN.test(tokens[i + 1]?.word ?? '')) continue;
+    if (VAGUE.has(word) && !isNumberAhead(tokens, i) && (isNounAhead(tokens, i, countable) || !VAGUE_BEFORE_NOUN_ONLY.has(word))) return 'vague';
     const count = countOf(word);
     if (count === null || count === 0) continue;
     if ((word === 'a' || word === 'an') && tokens[i].index >= articleLimit) continue;
-    if (i > 0 && INDEX_BEFORE.test(tokens[i - 1].word)) continue;
+    // "bedroom 2" is an index, but "bedroom two receptacles" is a count.
+    if (i > 0 && INDEX_BEFORE.test(tokens[i - 1].word) && !(/^[a-z]/.test(word) && count > 1 && PLURAL_COUNTABLE.test(tokens[i + 1]?.word ?? ''))) continue;
     const next = tokens[i + 1]?.word;
     if (next !== undefined && UNIT.test(next) && word !== 'a' && word !== 'an') continue;
     if (/^\d/.test(word) && tokens[i - 1]?.word === ':') return count;
     if (word === 'pair' && next !== 'of') continue;
     // "(4 of them)", "1 of 3 inop": the number before "of" is the count.
-    if (/^\d/.test(word) && next === 'of' && /^(?:them|\d+|the)$/.test(tokens[i + 2]?.word ?? '')) return count;
-    if (isNounAhead(tokens, i)) return count;
+    if ((/^\d/.test(word) || word === 'one') && next === 'of' && /^(?:them|\d+|the)$/.test(tokens[i + 2]?.word ?? '')) return count;
+    if (isNounAhead(tokens, i, countable)) return count;
   }
   return null;
 }
 
-function isNounAhead(tokens: Token[], i: number): boolean {
+function isNounAhead(tokens: Token[], i: number, countable: RegExp = COUNTABLE): boolean {
   for (let j = i + 1; j <= i + 1 + ALLOWED_BETWEEN && j < tokens.length; j++) {
     const word = tokens[j].word;
     const isMeasure = /^\d/.test(word) && UNIT.test(tokens[j + 1]?.word ?? '');
@@ -101,14 +108,17 @@ function isNounAhead(tokens: Token[], i: number): boolean {
       continue;
     }
     if (/^[:;.]$/.test(word) || UNIT.test(word) || countOf(word) !== null) return false;
-    if (COUNTABLE.test(word)) return true;
+    if (countable.test(word)) return true;
   }
   return false;
 }
 
-/** "all three receptacles": a vague word directly followed by a number gives way to it. */
+/** "all three receptacles", "any of the three bedrooms": a vague word followed by a number gives way to it. */
 function isNumberAhead(tokens: Token[], i: number): boolean {
-  const next = tokens[i + 1]?.word;
+  let j = i + 1;
+  if (tokens[j]?.word === 'of') j++;
+  if (j > i + 1 && /^(?:the|these|those|its|their)$/.test(tokens[j]?.word ?? '')) j++;
+  const next = tokens[j]?.word;
   return next !== undefined && countOf(next) !== null && next !== 'a' && next !== 'an';
 }
 
@@ -117,6 +127,10 @@ function isNumberAhead(tokens: Token[], i: number): boolean {
  * service, a general evaluation): they carry no count even when the text gives one.
  */
 const UNCOUNTED = new Set(['service-equipment', 'knob-and-tube', 'grounding-electrode', 'subpanel-bonding', 'afci-missing', 'aluminum-branch-wiring', 'evaluate-general']);
+/** Whether findings of the code carry a count at all. */
+export function isCounted(code: string): boolean {
+  return !UNCOUNTED.has(code);
+}
 /** Codes about one device each: with no noun in the finding's words, the report speaks of one. */
 const ONE_DEVICE = new Set(['receptacle-damaged', 'gfci-inoperative', 'fan-support', 'switch-issue', 'reversed-polarity', 'false-ground', 'light-fixture', 'double-tap', 'overcurrent-mismatch', 'weather-cover-missing', 'cover-plate-missing', 'open-junction-box']);
 /**
@@ -124,10 +138,13 @@ const ONE_DEVICE = new Set(['receptacle-damaged', 'gfci-inoperative', 'fan-suppo
  * (plural). Compounds come first so that "cover plates" is plural. Cable and wire are left out: an
  * inspector's "NM cable is exposed" speaks of wiring, not of one cable.
  */
-const DEVICE_NOUN = /\b(?:((?:cover|face|wall|switch|outlet|receptacle|filler)[- ]?plate|(?:recessed |can )?light housing|light fixture|smoke (?:alarm|detector)|co (?:alarm|detector)|carbon monoxide (?:alarm|detector)|ceiling fan|junction box|j-box|gfci (?:receptacle|outlet|breaker|device)|receptacle|outlet|device|duplex|gfci|breaker|fuse|fixture|light|luminaire|lamp|bulb|globe|fan|switch|box|splice|cover|plate|alarm|detector|cord|knockout|screw|terminal|tap|pendant|sconce|chandelier|housing)(s|es)?)\b/gi;
+const DEVICE_NOUN = /\b(?:((?:cover|face|wall|switch|outlet|receptacle|filler)[- ]?plate|(?:recessed |can )?light housing|light fixture|smoke (?:alarm|detector)|co (?:alarm|detector)|carbon monoxide (?:alarm|detector)|ceiling fan|junction box|j-box|gfci (?:receptacle|outlet|breaker|device)|rec[ei]pt?[aeiu]?c(?:le|al|el)|rcpt|outlet|device|duplex|gfci|breaker|fuse|fixture|light|luminaire|lamp|bulb|globe|fan|switch|dimmer|box|splice|cover|plate|alarm|detector|cord|knockout|screw|terminal|tap|pendant|sconce|chandelier|housing)(s|es)?)\b/gi;
 /** Nouns that name the protection itself when the defect is its absence ("no GFCI protection"). */
 const PROTECTION_NOUN = /^(?:gfci|afci)$/i;
-const CONDUCTORS_UNDER_ONE = /\b(?:two|2|three|3|both|multiple)\s+(?:\w+\s+)?(?:wires|conductors|neutrals|circuits|feeds)\b/gi;
+const DEAD_AFTER_GFCI = /\b(?:rcpts?|receptacles?|outlets?)\b[^.;]{0,40}\b(?:dead|without power|no power|not powered)\b[^.;]*/gi;
+const CONDUCTORS_UNDER_ONE = /\b(?:two|2|three|3|both|multiple)\s+(?:\w+\s+)?(?:wires?|conductors?|cond|neutrals|circuits|feeds)\b/gi;
+/** What exposed wiring is counted in: cords, cables, runs, places; not the lights a cord feeds. */
+const WIRING_COUNTABLE = /^(?:cords?|cables?|wires?|wiring|conductors?|splices?|places?|locations?|spots?|areas?|circuits?)$/i;
 /** Codes counted only when the text gives a number (a panel condition, exposed wiring). */
 const EXPLICIT_ONLY = new Set(['panel-deficiency', 'exposed-wiring']);
 
@@ -136,22 +153,53 @@ const EXPLICIT_ONLY = new Set(['panel-deficiency', 'exposed-wiring']);
  * number ("several", "the receptacles"); 1 for a singular device ("a loose receptacle", "the cover
  * plate by the back door"); null for codes that are conditions, not devices.
  */
-export function findingQuantity(code: string, countText: string, articleLimit: number, laterText: string | null): number | null {
+export function findingQuantity(code: string, countText: string, articleLimit: number, laterText: string | null, subjectText = ''): number | null {
   if (UNCOUNTED.has(code)) return null;
   // A double tap is counted in breakers (terminals), not in the conductors under one terminal.
   if (code === 'double-tap') countText = countText.replace(CONDUCTORS_UNDER_ONE, (m) => ' '.repeat(m.length));
-  const count = readCount(countText, articleLimit);
+  // A failed GFCI is counted in GFCIs, not in the receptacles left dead after it ("rcpts on that ckt dead (x3)").
+  if (code === 'gfci-inoperative') countText = countText.replace(DEAD_AFTER_GFCI, (m) => ' '.repeat(m.length));
+  const count = readCount(countText, articleLimit, code === 'exposed-wiring' ? WIRING_COUNTABLE : COUNTABLE);
   if (typeof count === 'number') return count;
   if (count === 'vague') return null;
+  // "the front and rear receptacles", "front+rear": two sides named, two devices.
+  if (SIDE_PAIR.test(countText)) return 2;
+  // "breakers at positions 4 and 9", "slots 12, 14 and 16": one device per number listed.
+  const listed = INDEX_LIST.exec(countText);
+  if (listed) return (listed[0].match(/\d{1,3}/g) ?? []).length;
   if (laterText !== null) {
     const later = readCount(laterText, 0);
     if (typeof later === 'number') return later;
   }
-  const nouns = scanAll(DEVICE_NOUN, countText).filter((m) => !(code === 'gfci-missing' && PROTECTION_NOUN.test(m[1])));
-  if (nouns.length > 0) {
-    const first = nouns[0];
-    if (first[2]) return null;
-    return EXPLICIT_ONLY.has(code) && !/^cord$/i.test(first[1]) ? null : 1;
+  // A label before the text ("Switches: the dimmer for the den light is hot") names the topic, not the device.
+  const unlabelled = countText.replace(LEADING_LABEL, '');
+  const nouns = deviceNouns(code, unlabelled).length > 0 ? deviceNouns(code, unlabelled) : deviceNouns(code, countText);
+  if (nouns.length > 0) return singularCount(code, nouns[0]);
+  // The part names no device: the clause's subject before it does ("The receptacle by the deck has
+  // no cover and is not GFCI protected"), or "it" stands for one device.
+  if (subjectText !== '' && !EXPLICIT_ONLY.has(code)) {
+    const subject = readCount(subjectText, Infinity);
+    if (typeof subject === 'number') return subject;
+    const named = subject === null ? deviceNouns(code, subjectText) : [];
+    if (named.length > 0) return singularCount(code, named[0]);
   }
+  if (/^\s*it\b/i.test(countText) && code === 'gfci-missing') return 1;
   return ONE_DEVICE.has(code) ? 1 : null;
+}
+
+const SIDE = String.raw`(?:front|rear|back|side|left|right|north|south|east|west|upper|lower)`;
+/** Two sides named together before a plural device noun. */
+const SIDE_PAIR = new RegExp(String.raw`\b${SIDE}\s*(?:and|&|\+|\/)\s*${SIDE}\b(?:\s+[\w-]+){0,2}?\s+(?:receptacles|outlets|rcpts|covers|lights|fixtures|switches|plates|boxes|alarms|fans)\b`, 'i');
+/** Numbered positions listed after an index word. */
+const INDEX_LIST = /\b(?:positions|slots|spaces|circuits|breakers)\s+#?\d{1,3}(?:\s*,\s*#?\d{1,3})*\s*,?\s*(?:and|&)\s*#?\d{1,3}\b/i;
+const LEADING_LABEL = /^\s*[A-Za-z][\w /&-]{0,30}:\s+(?=\S)/;
+
+function deviceNouns(code: string, text: string): RegExpExecArray[] {
+  return scanAll(DEVICE_NOUN, text).filter((m) => !(code === 'gfci-missing' && PROTECTION_NOUN.test(m[1])));
+}
+
+/** One for a singular device noun, null for a plural (or for wiring, which is counted only by a number). */
+function singularCount(code: string, noun: RegExpExecArray): number | null {
+  if (noun[2]) return null;
+  return EXPLICIT_ONLY.has(code) && !/^cord$/i.test(noun[1]) ? null : 1;
 }

@@ -61,7 +61,7 @@ export function parseReport(pages: readonly string[]): ParseResult {
       skip('non-electrical-section');
       continue;
     }
-    const result = readBlock(block.text, block.section);
+    const result = readBlock(block.text, block.section, block.rowCounts);
     if (result.findings.length === 0) {
       const suggestion = result.hasNegated ? null : suggestItem(block.text.text, block.section.room);
       if (suggestion) {
@@ -93,7 +93,23 @@ export function parseReport(pages: readonly string[]): ParseResult {
       });
     }
   }
-  return { findings: mergeWiringMentions(mergeSummary(findings, inSummary)), skipped };
+  return { findings: mergeWiringMentions(mergeSummary(dropTitles(findings), inSummary)), skipped };
+}
+
+/** A bare title ("8.2 Double Tap", "Open Grounds"): a few capitalised words with no verb. */
+const TITLE = /^(?:[A-Z][\w'-]*|&|\/|and|of|at|in)(?:\s+(?:[A-Z][\w'-]*|&|\/|and|of|at|in)){0,4}$/;
+const TITLE_VERB = /\b(?:is|are|was|were|has|have|had|not|no|did|does)\b/i;
+
+/**
+ * A finding read from a sub-heading that only names the defect ("8.2 Double Tap") is the heading of
+ * the finding the next paragraph gives for the same code and room: one finding per defect.
+ */
+function dropTitles(findings: Finding[]): Finding[] {
+  return findings.filter((f, i) => {
+    const next = findings[i + 1];
+    const text = f.evidence.trim();
+    return !(next && next.code === f.code && next.room === f.room && next.start > f.end && TITLE.test(text) && !TITLE_VERB.test(text));
+  });
 }
 
 /** Wiring methods: a house has its aluminum or knob-and-tube wiring once, however often it is mentioned. */

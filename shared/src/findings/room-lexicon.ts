@@ -8,20 +8,20 @@ import type { Room } from './room';
  */
 const ROOM_WORDS: ReadonlyArray<readonly [Room, string]> = [
   ['bathroom', String.raw`(?:(?:hall|guest|primary|master|main|upstairs|downstairs|half|full|kids'?|jack and jill|second|upper|lower)\s+)?bath(?:room)?s?\b|powder rooms?|en-?suites?|lavatory|restrooms?|(?:tub|shower)(?:\s+(?:area|enclosure|stall))?\b|vanity`],
-  ['kitchen', String.raw`kitchens?|kitchenette|kit\b\.?|(?:kitchen\s+)?island|breakfast (?:nook|area|bar)|peninsula|pantry|(?:kitchen\s+)?counter\s*tops?|countertops?|(?:refrigerator|fridge|dishwasher|garbage disposal|disposal|range hood|stove|cooktop|(?:electric\s+)?range(?=\s+(?:receptacle|outlet|cord|circuit|hood))|(?<=\b(?:the|behind|beside|near)\s)range\b)(?![\w\s,]{0,30}\b(?:garage|basement|laundry|bar|utility|porch|patio)\b)`],
-  ['garage', String.raw`garages?|carports?|gar\b\.?`],
-  ['exterior', String.raw`exterior(?!\s+walls?\b)|outside(?!\s+(?:walls?|corner|of|the|a|an|its|their|this|that|each|every|all|any|bedrooms?|sleeping|junction|boxes?|enclosures?|panels?)\b)|outdoors?|patio|decks?\b|porch(?:es)?|balcon(?:y|ies)|yard|pool|spa\b|hot tub|siding|eaves|soffits?|(?:service\s+|meter\s+)?pedestal(?!\s+(?:sinks?|lavatory|basins?|fans?))|courtyards?|lanais?|verandas?|terraces?|gazebos?|breezeways?|(?:front|rear|side|back) (?:wall|elevation)|ext\b\.?`],
-  ['basement', String.raw`basements?|cellar|bsmt\b\.?|bsmnt\b\.?|lower level|sump`],
+  ['kitchen', String.raw`kitchens?|kitchenette|kit\b\.?|kitch\b\.?|(?:kitchen\s+)?island|breakfast (?:nook|area|bar)|peninsula|pantry|(?:kitchen\s+)?counter\s*tops?|countertops?|(?:refrigerator|fridge|dishwasher|garbage disposal|disposal|range hood|stove|cooktop|(?:electric\s+)?range(?=\s+(?:receptacle|outlet|cord|circuit|hood))|(?<=\b(?:the|behind|beside|near)\s)range\b)(?![\w\s,]{0,30}\b(?:garage|basement|laundry|bar|utility|porch|patio)\b)`],
+  ['garage', String.raw`garages?|carports?|gar\b\.?|(?:work\s?)?shops?\b(?![- ](?:lights?|vacs?|fixtures?|lamps?))|shop (?:building|bldg)`],
+  ['exterior', String.raw`exterior(?!\s+walls?\b)|outside(?!\s+(?:walls?|corner|of|the|a|an|its|their|this|that|each|every|all|any|bedrooms?|sleeping|junction|boxes?|enclosures?|panels?)\b)|outdoors?|patio|decks?\b|porch(?:es)?|balcon(?:y|ies)|yard|pool|spa\b|hot tub|siding|stucco|eaves|soffits?|(?:service\s+|meter\s+)?pedestal(?!\s+(?:sinks?|lavatory|basins?|fans?))|courtyards?|lanais?|verandas?|terraces?|gazebos?|breezeways?|(?:pool\s+|pump\s+)?equipment pads?|(?:front|rear|side|back) (?:wall|elevation)|ext\b\.?`],
+  ['basement', String.raw`basements?|cellar|bsmt\b\.?|bsmnt\b\.?|lower level`],
   ['crawl-space', String.raw`crawl\s?spaces?|crawl\b|(?:under|beneath) the (?:home|house|floor system)|underfloor`],
   ['laundry', String.raw`laundry(?:\s+(?:room|area|closet))?|washer|dryer|utility room|mud ?room`],
   ['bedroom', String.raw`(?:(?:primary|master|guest|front|rear|back|north|south|east|west|upstairs|downstairs|kids'?|second|third|small|large)\s+)?(?:bed\s?rooms?|bedrms?\b|bdrms?\b\.?|brs?\s?\d*\b|nursery)|(?:prim|pri|mstr|mbr)\.?\s+br\b|mbr\b|primary suite|master suite|guest room`],
   ['living-area', String.raw`living(?: (?:room|area)s?)?\b|family rooms?|great rooms?|den\b|sun\s?rooms?|florida rooms?|sun porch(?:es)?|three[- ]season rooms?|rec(?:reation)? rooms?|bonus rooms?|parlou?r|library|front room|lr\b|fireplace|media room`],
   ['hallway', String.raw`hall(?:way)?s?\b|corridors?|stair(?:way|well|case)?s?\b|landing|foyer|(?<!\b(?:water|service|cable|line|pipe|meter|conduit|wire|point of)\s+)entry(?:way)?(?!\s+(?:doors?|points?))|front entry(?!\s+doors?)`],
   ['attic', String.raw`attics?\b`],
-  ['panel', String.raw`(?:main\s+|electrical\s+|service\s+|distribution\s+)?(?:sub-?\s?panel|panel\s*board|panel)s?\b|load cent(?:er|re)|breaker box|fuse box`],
+  ['panel', String.raw`(?:main\s+|electrical\s+|service\s+|distribution\s+)?(?:sub-?\s?panel|panel\s*board|panel|pnl)s?\b|load cent(?:er|re)|breaker box|fuse box`],
   ['dining', String.raw`dining(?:\s+(?:room|area))?|dinette`],
   ['office', String.raw`(?:home\s+)?office|study\b`],
-  ['whole-house', String.raw`throughout(?: the (?:home|house|dwelling|unit))?(?!\s+(?:the|this|that|each|every|all|both)\b)|anywhere in the (?:home|house|dwelling|unit)|(?:in|on) (?:each|every|all|any) (?:levels?|floors?|stor(?:y|ies))(?: of the (?:home|house|dwelling))?|whole[- ]house|entire (?:home|house|dwelling|electrical system|system)|all rooms|every room|(?<=\b(?:none|nothing|no\s+[\w/-]+(?:\s+[\w/-]+)?)\s+)in (?:the )?(?:house|home|unit|dwelling)\b`],
+  ['whole-house', String.raw`throughout(?: the (?:home|house|dwelling|unit))?(?!\s+(?:the|this|that|each|every|all|both)\b)|anywhere in the (?:home|house|dwelling|unit)|(?:in|on) (?:each|every|all|any) (?:levels?|floors?|stor(?:y|ies))(?: of the (?:home|house|dwelling))?|whole[- ]house|entire (?:home|house|dwelling|electrical system|system)|all rooms|every room|(?<=\b(?:none|nothing|no\s+[\w/-]+(?:\s+[\w/-]+)?|present|found|installed|observed|anywhere)\s+)in (?:the )?(?:house|home|unit|dwelling)\b`],
 ];
 
 /**
@@ -58,7 +58,15 @@ export interface RoomMention {
   readonly isReferencePoint: boolean;
 }
 
-const REFERENCE_BEFORE = /(?:beneath|below|under|underneath|above|over)\s+(?:the\s+)?$/i;
+/** Ceiling lights "over the kitchen", seen from the attic above, light that room (common practice). */
+const LIGHTS_IN_CEILING = /\b(?:recessed|can|pot)\s+(?:can\s+)?(?:lights?|fixtures?|housings?|cans?)\s+(?:\w+\s+)?(?:over|above)\s+(?:the\s+)?$/i;
+/** A place the inspector looked from ("From the attic we observed ...", "seen from the crawl space"). */
+const VANTAGE_BEFORE = /(?:^\s*|[.;]\s+)from\s+(?:the\s+)?$|\b(?:viewed|seen|observed|visible|looking)\s+from\s+(?:the\s+)?$/i;
+/** A verb of supply before a room: the room is served, not the place ("feeding the kitchen"). */
+const SERVED_BEFORE = /\b(?:feeding|feeds|serving|serves|supplying|supplies|powering|powers)\s+(?:the\s+)?$/i;
+/** A device noun after the room: "serving the kitchen receptacles" names the devices' place. */
+const DEVICE_AFTER = /^\s*(?:[\w-]+\s+)?(?:receptacles?|outlets?|rcpts?|lights?|fixtures?|counters?|countertops?|switch(?:es)?|fans?|gfcis?|alarms?|smoke)\b/i;
+const REFERENCE_BEFORE = /(?:beneath|below|under|underneath|above|over|outside(?:\s+of)?)\s+(?:the\s+)?$/i;
 /** "by the kitchen pass-through", "near the dining room archway": a room's opening as a landmark of another room. */
 const BESIDE_BEFORE = /(?:by|near|beside|next to|at|toward|towards)\s+(?:the\s+)?$/i;
 const OPENING_AFTER = /^\s*(?:pass[- ]?through|opening|archway)/i;
@@ -67,6 +75,7 @@ const FIXTURE_AFTER = /^\s*(?:sink|counter|cabinet|vanity|island|floor|closet|do
 /** Every place named in `text`, in reading order, without overlaps. */
 export function findRooms(text: string): RoomMention[] {
   const found: RoomMention[] = [];
+  const hasVantage = /\bfrom\s+(?:the\s+)?(?:attic|crawl)/i.test(text);
   for (const m of scanAll(ROOM_RE, text)) {
     let i = 0;
     while (m[ROOM_GROUP[i]] === undefined) i++;
@@ -75,7 +84,9 @@ export function findRooms(text: string): RoomMention[] {
     const before = text.slice(Math.max(0, start - 20), start);
     const after = text.slice(end, end + 24);
     const isReferencePoint =
-      (REFERENCE_BEFORE.test(before) && !FIXTURE_AFTER.test(after)) || (BESIDE_BEFORE.test(before) && OPENING_AFTER.test(after));
+      (REFERENCE_BEFORE.test(before) && !FIXTURE_AFTER.test(after) && !(hasVantage && LIGHTS_IN_CEILING.test(text.slice(Math.max(0, start - 50), start)))) ||
+      (BESIDE_BEFORE.test(before) && OPENING_AFTER.test(after)) ||
+      VANTAGE_BEFORE.test(text.slice(Math.max(0, start - 30), start));
     found.push({ room: ROOM_WORDS[i][0], start, end, text: m[0], isReferencePoint });
   }
   // A level or outbuilding named before a room is where that room is ("basement bedroom", "garage
@@ -83,6 +94,21 @@ export function findRooms(text: string): RoomMention[] {
   for (let i = 0; i + 1 < found.length; i++) {
     const [a, b] = [found[i], found[i + 1]];
     if (LEVEL_ROOMS.has(a.room) && HABITABLE.has(b.room) && /^[\s-]*$/.test(text.slice(a.end, b.start))) found[i] = { ...a, isReferencePoint: true };
+  }
+  // A room a cable or circuit feeds ("NM cable feeding the kitchen", "still supplies the bedroom and
+  // living room circuits") is where it goes, not where the defect is; places listed with it too.
+  for (let i = 0; i < found.length; i++) {
+    const r = found[i];
+    if (r.isReferencePoint || r.room === 'panel') continue;
+    const lead = text.slice(Math.max(0, r.start - 24), r.start);
+    if (!SERVED_BEFORE.test(lead) || DEVICE_AFTER.test(text.slice(r.end, r.end + 24))) continue;
+    found[i] = { ...r, isReferencePoint: true };
+    for (let j = i + 1; j < found.length && /^\s*(?:,|and|or|&|\/)\s*(?:the\s+)?$/i.test(text.slice(found[j - 1].end, found[j].start)); j++) found[j] = { ...found[j], isReferencePoint: true };
+  }
+  // A shop named after another place is in that place ("basement workshop", "garage shop").
+  for (let i = 1; i < found.length; i++) {
+    const [a, b] = [found[i - 1], found[i]];
+    if (/shop/i.test(b.text) && a.room !== 'panel' && /^[\s-]*$/.test(text.slice(a.end, b.start))) found[i] = { ...b, isReferencePoint: true };
   }
   // An entry named with the outside ("at the front entry, loose from the siding") is the outside entry.
   if (found.some((r) => r.room === 'exterior' && !r.isReferencePoint)) {

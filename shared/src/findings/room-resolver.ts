@@ -15,6 +15,11 @@ export interface Placement {
   readonly laterText: string;
   /** Position in countText after which "a"/"an" no longer count as one (see readQuantity). */
   readonly articleLimit: number;
+  /**
+   * The clause's text before the finding's part: its subject when the part names no device ("The
+   * receptacle at the deck has no cover and is not GFCI protected").
+   */
+  readonly subjectText?: string;
   /** Whether the room comes from context (an earlier sentence, the heading, the code's default). */
   readonly isInferred?: boolean;
 }
@@ -81,7 +86,8 @@ function listedGroup(text: string, mentions: readonly RoomMention[]): RoomMentio
     if (!LIST_BETWEEN.test(text.slice(usable[i - 1].end, usable[i].start))) break;
     group.push(usable[i]);
   }
-  return group;
+  // "In the kitchen, the two countertop receptacles": two words for one room are one place, not a list.
+  return group.filter((m, i) => group.findIndex((g) => g.room === m.room) === i);
 }
 
 function nearest(rooms: readonly RoomMention[], before: number, after: number, within: Range): RoomMention | null {
@@ -107,7 +113,8 @@ export function placeMatches(
     const laterText = text.slice(part.end);
     const firstWords = /^(?:\S+\s+){0,2}\S+/.exec(text.slice(match.start))?.[0].length ?? 0;
     const articleLimit = match.start - part.start + firstWords;
-    const own = { countText, laterText, articleLimit };
+    const clauseStart = clauses[clauseIndexAt(clauses, match.start)].start;
+    const own = { countText, laterText, articleLimit, subjectText: part.start > clauseStart ? text.slice(clauseStart, part.start) : '' };
     const fixed = match.rule.fixedRoom;
     if (fixed) return [{ room: fixed, location: fixedLocation(text, rooms, part, fixed), ...own }];
     if (match.rule.panelIsPlace) {

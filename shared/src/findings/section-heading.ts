@@ -15,7 +15,7 @@ const ELECTRICAL = new Set([
   'electrical', 'electric', 'elec', 'electricity', 'wiring', 'panel', 'panels', 'panelboard', 'subpanel',
   'sub-panel', 'subpanels', 'receptacles', 'receptacle', 'outlets', 'switches', 'lighting', 'lights',
   'gfci', 'gfcis', 'afci', 'afcis', 'grounding', 'bonding', 'smoke', 'alarms', 'alarm', 'detectors',
-  'monoxide', 'carbon', 'co', 'detector', 'circuits', 'breakers', 'distribution', 'disconnect', 'fixtures',
+  'monoxide', 'carbon', 'co', 'detector', 'circuits', 'breakers', 'distribution', 'disconnect', 'fixtures', 'fuse', 'fuses', 'meter',
 ]);
 const NON_ELECTRICAL = new Set([
   'roof', 'roofing', 'roofs', 'gutters', 'gutter', 'chimney', 'chimneys', 'flashing', 'plumbing',
@@ -25,13 +25,15 @@ const NON_ELECTRICAL = new Set([
   'grading', 'drainage', 'grounds', 'landscaping', 'driveway', 'driveways', 'walkways', 'fireplace',
   'fireplaces', 'finishes', 'walls', 'ceilings', 'floors', 'flooring', 'cabinets', 'countertops',
   'septic', 'well', 'sewer', 'irrigation', 'sprinklers', 'pest', 'radon', 'mold', 'heat', 'pump',
-  'supply', 'drains', 'waste', 'vents', 'fuel', 'gas', 'site', 'lot', 'fences', 'pool', 'spa', 'plumb',
+  'supply', 'drains', 'waste', 'vents', 'fuel', 'gas', 'site', 'lot', 'fences', 'plumb',
 ]);
 const ROOM_WORDS = new Set([
   'kitchen', 'kitchens', 'bathroom', 'bathrooms', 'bath', 'baths', 'garage', 'garages', 'carport',
   'exterior', 'basement', 'basements', 'crawl', 'crawlspace', 'laundry', 'bedroom', 'bedrooms',
   'living', 'hallway', 'hallways', 'hall', 'halls', 'attic', 'attics', 'dining', 'office', 'den',
   'family', 'powder', 'primary', 'master', 'guest', 'porch', 'deck', 'patio', 'stairs', 'entry',
+  // A pool or spa section holds its pump, light, bonding and GFCI items: it is a place outside (common practice).
+  'pool', 'spa',
 ]);
 const GENERAL = new Set(['summary', 'general', 'detailed', 'detail', 'interior', 'interiors', 'introduction', 'overview', 'body', 'discussion', 'narrative']);
 
@@ -41,7 +43,7 @@ const GENERAL = new Set(['summary', 'general', 'detailed', 'detail', 'interior',
  */
 export const SUMMARY_HEADING = /summary|overview|at a glance|\b(?:key|significant|major|priority|principal|notable)\s+(?:[\w-]+\s+){0,3}?(?:findings|items|concerns|issues|defects|deficiencies)\b|highlights|action items/i;
 /** A summary heading with words of its own after it ("SUMMARY (electrical items requiring attention)"). */
-const SUMMARY_START = /^(?:summary|overview|key|significant|major|priority)\b/i;
+const SUMMARY_START = /^(?:summary|overview|key|significant|major|priority|(?:report|inspection|deficiency|deficiencies|defect|repair|findings)\s+summary)\b/i;
 /** A label that starts the report's body after its summary ("COMMENTS", "DETAILED FINDINGS", "Observations"). */
 const BODY_PART = /^(?:(?:detailed|full|report)\s+)?(?:comments|findings|observations|details|discussion|body|narrative)$/i;
 const FILLER = new Set([
@@ -76,9 +78,17 @@ function isHeadingWord(w: string): boolean {
 
 export function classifyHeadingLine(line: string): HeadingLine | null {
   const trimmed = line.trim();
-  if (trimmed.length > 70) return null;
+  if (trimmed.length > 70) {
+    // "SUMMARY OF ELECTRICAL CONCERNS (details follow in the body of the report)": a long note in brackets.
+    const bare = trimmed.replace(/\s*\([^()]*\)\s*$/, '');
+    return bare !== trimmed && bare.length <= 70 && SUMMARY_HEADING.test(bare) ? classifyHeadingLine(bare) : null;
+  }
   const title = trimmed.replace(NUMBERING, '').replace(/\s*[:\-–—]+\s*$/, '').trim();
   if (title.length === 0) return null;
+  // "DET. GARAGE / SHOP": the full stop of a short abbreviation inside a heading is no sentence end.
+  if (/^[A-Z][A-Z]{1,4}\.\s+[A-Z]/.test(title) && !/[!?;]|\.\s*$/.test(title) && (title.match(/\./g) ?? []).length === 1) {
+    return classifyHeadingLine(title.replace(/^([A-Z]{2,5})\.\s+/, '$1 '));
+  }
   // "ELECTRICAL SUMMARY (see 7.1 - 7.6 for detail)": a summary heading with a note in brackets.
   if (/[.!?;]/.test(title)) {
     const bare = title.replace(/\s*\([^()]*\)\s*$/, '');
@@ -119,7 +129,8 @@ function roomLabel(line: string, title: string, words: readonly string[]): Headi
 }
 
 function headingKind(words: readonly string[]): Heading['kind'] | null {
-  if (words.some((w) => ELECTRICAL.has(w))) return 'electrical';
+  // "SERVICE ENTRANCE", "SERVICE EQUIPMENT": the electrical service.
+  if (words.some((w) => ELECTRICAL.has(w)) || (words.includes('service') && words.some((w) => w === 'entrance' || w === 'equipment'))) return 'electrical';
   if (words.some((w) => ROOM_WORDS.has(w))) return 'room';
   if (words.some((w) => NON_ELECTRICAL.has(w))) return 'non-electrical';
   if (words.some((w) => GENERAL.has(w))) return 'general';

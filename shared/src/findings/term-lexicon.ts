@@ -46,19 +46,19 @@ export const T = {
   JBOX: String.raw`(?:(?:junction|splice|electrical|outlet|switch|ceiling|wiring)\s+box(?:es)?\b|j-?\s?box(?:es)?\b|jbox(?:es)?\b)`,
   PLATE: String.raw`(?:(?:cover|face|wall|trim|switch|outlet|receptacle)[- ]?plates?\b|plates?\b|covers?\b)`,
   WIRING: String.raw`(?:wir(?:e|es|ing)\b(?!\s+nuts?\b)|cables?\b|conductors?\b|nm(?:-b)?\b|romex\b)`,
-  SWITCH: String.raw`(?:(?:light|wall|dimmer|3-way|three[- ]way|toggle)\s+)?switch(?:es)?\b`,
+  SWITCH: String.raw`(?:(?:(?:light|wall|dimmer|3-way|three[- ]way|toggle)\s+)?switch(?:es)?\b|dimmers?\b(?!\s+switch))`,
   LIGHT: String.raw`(?:(?:recessed|can|ceiling|closet|exterior|flood|porch|vanity|wall)\s+)?(?:light(?:ing)?(?:\s+fixtures?)?\b|lights\b|fixtures?\b|luminaires?\b|chandeliers?\b|pendants?\b|sconces?\b|can lights?\b|flood ?lights?\b)`,
-  SMOKE: String.raw`(?:(?:smoke(?:\s*(?:\/|and|&)\s*(?:co|carbon monoxide))?|co|carbon monoxide)\s*(?:alarms?|detectors?)\b|smokes\b)`,
-  SERVICE: String.raw`(?:(?:overhead\s+)?service[- ](?:mast|riser|head|drop(?: drip loop| conductors?| wires?| cable)?|entrance(?: cable| conductors?)?|conductors?|lateral|cable)\b|weather\s?head\b|drip loops?(?: conductors?)?\b|(?:electric\s+)?meter(?:\s+(?:base|socket|box|can|enclosure|pan|pole|post|ring))\b|se cable\b|seu\b|mast(?:head)?\b|overhead (?:service|conductors|wires|lines)\b|utility (?:drop|lines|wires)\b)`,
+  SMOKE: String.raw`(?:(?:smoke(?:\s*(?:\/|and|&|or)\s*(?:co|carbon monoxide))?|co|carbon monoxide)\s*(?:alarms?|detectors?)\b|smokes\b)`,
+  SERVICE: String.raw`(?:(?:overhead\s+)?service[- ](?:mast|riser|head|drop(?: drip loop| conductors?| wires?| cable)?|entrance(?: cable| conductors?)?|conductors?|lateral|cable)\b|weather\s?head\b|drip loops?(?: conductors?)?\b|(?:electric\s+)?meter(?:\s+(?:base|socket|box|can|enclosure|pan|pole|post|ring))\b|se cable\b|seu\b|mast(?:head)?\b|overhead (?:service|conductors|wires|lines)\b|utility (?:drop|lines|wires)\b|(?:(?:meter(?:\s*\/\s*disconnect)?|service|disconnect)\s+)?(?<!(?:sink|lavatory|basin|vanity)\s)pedestal\b(?!\s+(?:sinks?|lavator(?:y|ies)|basins?|fans?)))`,
   /**
    * What goes wrong with a part of the service (common practice): damage, weathering, corrosion,
    * loose or leaning support, and conductors lying on or against something.
    */
-  SERVICE_CONDITION: String.raw`(?:frayed|cracked|split|torn|brittle|abraded|chafed|(?:uv|sun)[- ]?degraded|degraded|deteriorat\w*|worn|weathered|damaged|broken|bent|leaning|loose|rock(?:s|ing)\b|corroded|(?:heavy|severe|some|visible)\s+(?:corrosion|rust)|corrosion\b|rust(?:ed|ing|y)?\b|rott(?:ed|ing)|rotten|sag(?:s|ging|ged)?\b|tangled|pull(?:ed|ing) (?:away|loose|free|tight|out)|separat(?:ed|ing) from|detached|stressed|(?:resting|rests?|lies?|lying|laying|lays?) (?:on|against|in)\b|water (?:staining|stains?|intrusion)|(?:not|un)[- ]?(?:strapped|secured|supported|sealed|clamped)|straps? (?:missing|broken|loose)|missing (?:straps?|support)|(?:too\s+)?low\s+(?:over|above|to)\b)`,
+  SERVICE_CONDITION: String.raw`(?:frayed|cracked|split|torn|brittle|abraded|chafed|(?:uv|sun)[- ]?degraded|degraded|deteriorat\w*|worn|weathered|damaged|broken|bent|bend in\b|lean(?:s|ing)\b|loose|(?:has\s+)?lost (?:\w+\s+){0,3}?(?:its\s+|the\s+)?(?:outer\s+)?(?:sheathing|jacket|insulation)|rock(?:s|ing)\b|corroded|(?:heavy|severe|some|visible)\s+(?:corrosion|rust)|corrosion\b|rust(?:ed|ing|y)?\b|rott(?:ed|ing)|rotten|sag(?:s|ging|ged)?\b|tangled|pull(?:ed|ing) (?:away|loose|free|tight|out)|separat(?:ed|ing) from|detached|stressed|(?:resting|rests?|lies?|lying|laying|lays?) (?:directly\s+)?(?:on|against|in)\b|water (?:staining|stains?|intrusion)|(?:not|un)[- ]?(?:strapped|secured|supported|sealed|clamped)|straps? (?:missing|broken|loose)|missing (?:straps?|support)|(?:too\s+)?low\s+(?:over|above|to)\b)`,
   /** Failure verbs after "did not", "would not" ... */
   FAILED: String.raw`(?:did\s?n[o']t|does\s?n[o']t|would\s?n[o']t|will not|won't|failed to|fails to|fail to|could not|couldn't|wouldn't)`,
   /** "missing", "absent", "not installed" ... after the thing that is missing. */
-  ABSENT: String.raw`(?:missing|absent|lacking|not (?:present|installed|provided|observed|found|noted|visible|evident)|none (?:present|installed|found|observed|provided))`,
+  ABSENT: String.raw`(?:missing|absent|lacking|gone\b|not (?:present|installed|provided|observed|found|noted|visible|evident)|none (?:present|installed|found|observed|provided))`,
   /** "no", "missing", "lacks" ... before the thing that is missing. */
   NO: String.raw`(?:no|missing|lacks?|lacking|lacked|without|absent|absence of)`,
   BROKEN: String.raw`(?:broken|cracked|damaged|loose|missing)`,

@@ -45,14 +45,14 @@ const SHORTHAND: Readonly<Record<string, string>> = {
   cvr: 'cover', cvrs: 'covers', cov: 'cover', plt: 'plate', plts: 'plates',
   wp: 'weatherproof', wr: 'weather-resistant',
   al: 'aluminum', alum: 'aluminum', aluminium: 'aluminum', cu: 'copper',
-  ga: 'AWG', 'ga.': 'AWG', gauge: 'AWG', gage: 'AWG', awg: 'AWG',
+  ga: 'AWG', 'ga.': 'AWG', gauge: 'AWG', gage: 'AWG', guage: 'AWG', awg: 'AWG',
   obs: 'observed', 'obs.': 'observed', unk: 'unknown', 'unk.': 'unknown', clg: 'ceiling', btn: 'button', mfr: 'manufactured',
   bsmt: 'basement', bsmnt: 'basement', bdrm: 'bedroom', bdrms: 'bedrooms', bedrm: 'bedroom', bedrms: 'bedrooms', brs: 'bedrooms', kit: 'kitchen', ktchn: 'kitchen',
   gar: 'garage', ba: 'bathroom', bth: 'bathroom', bthrm: 'bathroom', lndry: 'laundry', hwy: 'hallway', ext: 'exterior', extr: 'exterior',
 };
 
 /** Shorthand that is only expanded where the context says it is the trade word. */
-const CONTEXTUAL = new Set(['al', 'cu', 'sd', 'sds', 'sec', 'ser', 'sw', 'lt', 'lts', 'cb', 'kt', 'ba', 'gar', 'kit', 'ext', 'wp', 'wr', 'det', 'dets', 'cond', 'conds', 'ga', 'ga.', 'gauge', 'gage', 'awg']);
+const CONTEXTUAL = new Set(['al', 'cu', 'sd', 'sds', 'sec', 'ser', 'sw', 'lt', 'lts', 'cb', 'kt', 'ba', 'gar', 'kit', 'ext', 'wp', 'wr', 'det', 'dets', 'cond', 'conds', 'ga', 'ga.', 'gauge', 'gage', 'guage', 'awg']);
 
 const NUMBER_WORDS: Readonly<Record<string, number>> = {
   two: 2, three: 3, four: 4, five: 5, six: 6, seven: 7, eight: 8, nine: 9, ten: 10, eleven: 11, twelve: 12,
@@ -145,9 +145,16 @@ export function correctSpelling(word: string): string | null {
   }
   // A plural or a past form of a vocabulary word is not a misspelling of it.
   if (best !== null && (lower === `${best}s` || lower === `${best}es` || lower === `${best}ed` || lower === `${best}d` || `${lower}s` === best)) best = null;
+  // Another form of the same word ("correctly" beside "corrected") is not a misspelling of it.
+  if (best !== null && stem(lower) === stem(best)) best = null;
   if (MEMO.size > MEMO_LIMIT) MEMO.clear();
   MEMO.set(lower, best);
   return best;
+}
+
+/** A word without its common ending ("correctly", "corrected" → "correct"). */
+function stem(word: string): string {
+  return word.replace(/(?:ly|ing|ed|es|s|ions?)$/, '');
 }
 
 /** Whether `a` is `b` with two neighbouring letters swapped. */
@@ -158,10 +165,14 @@ function isTransposition(a: string, b: string): boolean {
   return i + 1 < a.length && a[i] === b[i + 1] && a[i + 1] === b[i] && a.slice(i + 2) === b.slice(i + 2);
 }
 
+/** Plural device nouns, and words that come before them, after which "too" is a misspelt "two". */
+const TOO_PLURAL = /^(?:receptacles|recepticles|outlets|plates|covers|breakers|lights|fixtures|switches|alarms|detectors|fans|boxes|cords|bulbs|screws|taps)$/;
+const TOO_MODIFIER = /^(?:cover|face|wall|switch|outlet|receptacle|light|smoke|ceiling|gfci|junction|extension|open|double)$/;
+
 /** A word, with the characters shorthand uses ("k&t", "w/o", "j-box", "ungr'd", "inop."). */
 const WORD = /#\s?\d{1,2}\b|[A-Za-z][A-Za-z'&/-]*[A-Za-z/]\.?|[A-Za-z]\.?|\d+(?:\.\d+)?/g;
 /** Words after which "Al"/"Cu" are metals, and gauge words that follow a size. */
-const WIRE_CONTEXT = /^(?:\d{1,2}|#\d{1,2}|awg|wire|wires|wiring|conductors?|branch|circuits?|cable|solid|stranded|and|or|\/)$/i;
+const WIRE_CONTEXT = /^(?:\d{1,2}|#\d{1,2}|awg|ga\.?|gauge|gage|guage|wire|wires|wiring|conductors?|branch|circuits?|cable|solid|stranded|and|or|\/)$/i;
 const SIZE = /^(?:#\s?)?(\d{1,2})$/;
 
 function capitalised(original: string, replacement: string): string {
@@ -188,9 +199,14 @@ function replacementFor(tokens: readonly Token[], i: number, source: string): st
   const glued = /^(\d{1,2})(?:ga|g|awg)$/i.exec(text);
   if (glued) return `${glued[1]} AWG`;
   const bare = lower.replace(/\.$/, '');
+  // "the north bedroom two receptacles": a number word after a room word stays a word, so the count
+  // reader can tell it from an index ("bedroom 2").
+  if (NUMBER_WORDS[bare] !== undefined && /^(?:bed\s?rooms?|bath(?:room)?s?|rooms?|halls?|hallways?|kitchen|garage|basement)$/.test(prev)) return null;
   if (NUMBER_WORDS[bare] !== undefined && (bare !== 'hundred' || /^\d/.test(prev))) {
     return bare === 'hundred' ? null : String(NUMBER_WORDS[bare]);
   }
+  // "missing too cover plates": "too" before a plural device noun is the number two.
+  if (bare === 'too' && (TOO_PLURAL.test(next.replace(/\.$/, '')) || (TOO_MODIFIER.test(next) && TOO_PLURAL.test((tokens[i + 2]?.text.toLowerCase() ?? '').replace(/\.$/, ''))))) return '2';
   // "ext cord", "ext. cords": an extension cord, not the exterior.
   if ((bare === 'ext' || bare === 'extn') && /^cords?$/.test(next)) return 'extension';
   if (Object.prototype.hasOwnProperty.call(SHORTHAND, lower) || Object.prototype.hasOwnProperty.call(SHORTHAND, bare)) {
@@ -216,6 +232,7 @@ function contextAllows(key: string, prev: string, next: string, gapBefore: strin
     case 'ga.':
     case 'gauge':
     case 'gage':
+    case 'guage':
     case 'awg':
       return SIZE.test(prev) && /^[\s-]*$/.test(gapBefore);
     case 'sd':
@@ -265,8 +282,11 @@ export function normaliseText(m: MappedText): NormalisedText {
     const replacement = replacementFor(tokens, i, source);
     if (replacement === null) continue;
     const { start, end } = tokens[i];
-    // A trailing full stop of an abbreviation ("inop.", "recep.") stays in the text as written.
-    const wordEnd = source[end - 1] === '.' && !replacement.endsWith('.') ? end - 1 : end;
+    // A trailing full stop of an abbreviation ("inop.", "recep.") stays in the text as written,
+    // unless the sentence goes on in lower case ("ext. cord", "perm. wiring"): then it is the
+    // abbreviation's own and goes with the word.
+    const keepsStop = source[end - 1] === '.' && !replacement.endsWith('.') && !/^\s+[a-z]/.test(source.slice(end, end + 2));
+    const wordEnd = keepsStop ? end - 1 : end;
     text += source.slice(copied, start);
     for (let k = copied; k < start; k++) offsets.push(m.offsets[k]);
     changed.push({ start: text.length, end: text.length + replacement.length });
