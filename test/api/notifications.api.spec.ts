@@ -122,6 +122,8 @@ describe('each step of the flow e-mails the right people, with a link to the pag
     ['visit scheduled', (id) => ({ kind: 'visit-scheduled', requestId: id, actorUserId: cast.users.contractor.id, visitNumber: 3, date: '2027-02-10', arrivalFrom: '08:00', arrivalTo: '10:00', previous: null }), ['listingAgent', 'seller'], 'visit on Wednesday, February 10, 2027', 'work'],
     ['item corrected', (id, itemId) => ({ kind: 'item-corrected', requestId: id, actorUserId: cast.users.contractor.id, itemId, correctionId: 1, outcome: 'corrected', itemLabel: 'Hall bath GFCI' }), ['buyerAgent', 'listingAgent', 'seller'], 'Hall bath GFCI — corrected', 'work'],
     ['completion letter issued', (id) => ({ kind: 'letter-issued', requestId: id, actorUserId: cast.users.contractor.id, letterNumber: 'CL-00001', revision: 1 }), ['buyerAgent', 'inspector', 'listingAgent'], 'completion letter CL-00001 issued', 'work'],
+    ['corrections accepted', (id) => ({ kind: 'proof-reviewed', requestId: id, actorUserId: null, isAccepted: true, notAcceptedCount: 0, reviewRef: '1' }), ['buyerAgent', 'colleague', 'contractor', 'listingAgent', 'seller'], 'electrical corrections accepted', 'work'],
+    ['items not accepted', (id) => ({ kind: 'proof-reviewed', requestId: id, actorUserId: null, isAccepted: false, notAcceptedCount: 2, reviewRef: '2' }), ['buyerAgent', 'colleague', 'contractor', 'listingAgent', 'seller'], '2 items not accepted', 'work'],
   ])('%s: e-mails the right people with the link to its page', async (_name, input, expected, subjectPart, page) => {
     const { requestId: id, itemIds } = await createPricedRequest(cast, t.db, { items: [{ code: 'gfci-inoperative', quantity: 1 }] });
     await worker.drain();

@@ -225,7 +225,7 @@ describe('the proof side', () => {
     expect(mail.to(emailOf('seller'))[0].text).toContain(`is now on ${dayWords(later)}, arriving between 1:00 PM and 3:00 PM. It was on ${dayWords(date)}, arriving between 8:00 AM and 10:30 AM.`);
   });
 
-  it('item outcomes go to both agents and the seller; the completion letter to the inspector and both agents', async () => {
+  it('item outcomes go to both agents and the seller; the completion letter to the inspector and both agents; the acceptance to everyone who acted', async () => {
     const { requestId, gfci, panel } = await approvedWork();
     await write(cast.s.contractor, 'post', `/api/requests/${requestId}/visits`).send(visitBody()).expect(201);
     await deliver();
@@ -246,6 +246,13 @@ describe('the proof side', () => {
     await deliver();
     const number = `CL-${String(requestId).padStart(5, '0')}`;
     expectOneMessageEach(['buyerAgent', 'inspector', 'listingAgent'], `completion letter ${number} issued for 14 Test Hollow Road`, `/requests/${requestId}/work`);
+
+    // The re-inspection is the last step: the contractor's people, the seller and both agents hear it.
+    mail.clear();
+    await write(cast.s.inspector, 'post', `/api/requests/${requestId}/proof-review`).send({ decision: 'accept', note: 'Re-inspected on site' }).expect(204);
+    await deliver();
+    expectOneMessageEach(['buyerAgent', 'colleague', 'contractor', 'listingAgent', 'seller'], 'electrical corrections accepted at 14 Test Hollow Road', `/requests/${requestId}/work`);
+    expect(mail.to(emailOf('contractor'))[0].text).toContain('The repairs on this request are done.');
   });
 });
 

@@ -1,6 +1,6 @@
 // What every move of the flow writes besides the move itself, in its transaction (hung on the flow
 // service's listener hook): a timeline entry (who, from, to, note) and the messages the move calls for.
-import { REQUEST_STATUS_LABELS, findingCodeInfo, type FindingCode } from '@cc/shared';
+import { REQUEST_STATUS_LABELS, findingCodeInfo, itemStateAfter, type FindingCode } from '@cc/shared';
 import type { ActivityRepository } from '../activity/activity.repository';
 import type { Trx } from '../db/knex';
 import type { FlowListener, ItemMoveMade, RequestMoveMade } from '../flow/flow.service';
@@ -26,6 +26,20 @@ export function createFlowListener(activity: ActivityRepository, notifications: 
         // The items being confirmed (whether the flow moves them before or after the request).
         const [{ count }] = await trx('line_items').where({ request_id: requestId }).whereIn('status', ['proposed', 'open']).count({ count: '*' });
         await notifications.notify(trx, { kind: 'ready-to-price', requestId, actorUserId: byUserId, itemCount: Number(count), at });
+      }
+      if (move.event === 'accept-proof' || move.event === 'reject-proof') {
+        // The review was written before the move (letters.service review()): its id keys the message.
+        const review: { id: number } | undefined = await trx('proof_reviews').where({ request_id: requestId }).orderBy('id', 'desc').first('id');
+        const [{ count }] = await trx('line_items').where({ request_id: requestId, status: itemStateAfter('not-accept') }).count({ count: '*' });
+        await notifications.notify(trx, {
+          kind: 'proof-reviewed',
+          requestId,
+          actorUserId: byUserId,
+          isAccepted: move.event === 'accept-proof',
+          notAcceptedCount: move.event === 'accept-proof' ? 0 : Number(count),
+          reviewRef: String(review?.id ?? from),
+          at,
+        });
       }
       if (move.event === 'send-quote') {
         const quote = await trx('quotes').where({ request_id: requestId }).orderBy('version', 'desc').first('version', 'total_cents');

@@ -157,6 +157,24 @@ export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
         ],
         action: { label: 'Read the letter', path: workPage },
       };
+    case 'proof-reviewed':
+      return input.isAccepted
+        ? {
+            subject: `${r.reference}: electrical corrections accepted at ${r.address}`,
+            paragraphs: [
+              `The re-inspection accepted the corrections recorded in the completion letter for ${r.address}. The repairs on this request are done.`,
+              'Any payment still open (for example an invoice to be paid from the proceeds at closing) is settled as agreed; the contractor records it when the funds arrive.',
+            ],
+            action: { label: 'Open the visits and proof', path: workPage },
+          }
+        : {
+            subject: `${r.reference}: ${input.notAcceptedCount} ${input.notAcceptedCount === 1 ? 'item' : 'items'} not accepted at ${r.address}`,
+            paragraphs: [
+              `The re-inspection did not accept ${input.notAcceptedCount} of the corrected ${input.notAcceptedCount === 1 ? 'item' : 'items'} at ${r.address}; the reasons are on the visits and proof page.`,
+              'The contractor takes them back in hand, books a visit and issues a revised completion letter.',
+            ],
+            action: { label: 'See what was not accepted', path: workPage },
+          };
     case 'closing-at-risk':
       return {
         subject: `${r.reference}: closing at risk`,

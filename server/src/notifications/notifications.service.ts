@@ -53,6 +53,7 @@ const ACTIVITY_OF: Record<NotificationKind, ActivityKind | null> = {
   'visit-scheduled': 'visits',
   'item-corrected': 'items',
   'letter-issued': 'letters',
+  'proof-reviewed': 'letters',
   'closing-at-risk': null,
 };
 

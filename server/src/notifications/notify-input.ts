@@ -23,6 +23,7 @@ export type NotifyInput =
   | (Base & { kind: 'visit-scheduled' } & VisitWindow & { visitNumber: number; /** The window before, when the visit was moved. */ previous: VisitWindow | null })
   | (Base & { kind: 'item-corrected'; itemId: number; correctionId: number; outcome: CorrectionOutcome; itemLabel: string })
   | (Base & { kind: 'letter-issued'; letterNumber: string; revision: number })
+  | (Base & { kind: 'proof-reviewed'; isAccepted: boolean; /** Items listed as not accepted (0 when accepted). */ notAcceptedCount: number; /** The review's timeline entry: one message per review. */ reviewRef: string })
   | (Base & { kind: 'closing-at-risk'; day: string; daysLeft: number });
 
 /** A visit's day and arrival window, in the property's local time (`YYYY-MM-DD`, `HH:MM`). */
@@ -62,6 +63,8 @@ export function occurrenceOf(input: NotifyInput): string {
       return `item-${input.itemId}-correction-${input.correctionId}`;
     case 'letter-issued':
       return `letter-${input.revision}`;
+    case 'proof-reviewed':
+      return `proof-review-${input.reviewRef}`;
     case 'closing-at-risk':
       return input.day;
   }

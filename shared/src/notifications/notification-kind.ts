@@ -16,6 +16,7 @@ export const NOTIFICATION_KINDS = [
   'visit-scheduled',
   'item-corrected',
   'letter-issued',
+  'proof-reviewed',
   'closing-at-risk',
 ] as const;
 export const NotificationKindSchema = z.enum(NOTIFICATION_KINDS);
@@ -52,6 +53,8 @@ export const NOTIFICATION_RULES: Record<NotificationKind, NotificationKindRule> 
   'visit-scheduled': { label: 'Visit scheduled', to: ['seller', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
   'item-corrected': { label: 'Item corrected', to: ['buyer-agent', 'listing-agent', 'seller'], defaultDelivery: 'immediate', isAdjustable: true },
   'letter-issued': { label: 'Completion letter issued', to: ['inspector', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
+  // The last step of the work: the contractor learns it is signed off (or what to take back), the seller's side and the agents that the repairs are done.
+  'proof-reviewed': { label: 'Corrections accepted or not accepted', to: ['contractor', 'seller', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
   'closing-at-risk': {
     label: 'Closing at risk (daily digest)',
     to: ['buyer-agent', 'listing-agent', 'contractor'],
