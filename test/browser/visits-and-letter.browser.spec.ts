@@ -66,8 +66,13 @@ describe('visits, corrections and the completion letter', () => {
     await signInAs(page, CONTRACTOR);
     await page.goto(portalUrl(`/requests/${requestId}/work`));
     await page.getByTestId('work-heading').waitFor();
+    // The visit was booked for tomorrow: starting it today says what that records.
+    expect(await page.getByTestId('visit-early').textContent()).toContain('Starting it now records the work as done today');
+    expect((await page.getByTestId('visit-start').textContent())?.trim()).toBe('Start it today anyway');
+    await expectAccessible(page);
     await page.getByTestId('visit-start').click();
     await page.getByTestId('visit-finish').waitFor();
+    expect(await page.getByTestId('visit-early').count()).toBe(0);
 
     const openGround = page.locator('mat-card').filter({ hasText: 'Three-slot receptacle with no equipment ground' });
     await openGround.getByTestId('record-outcome').click();

@@ -19,6 +19,7 @@ import {
 } from '@cc/shared';
 import { VisitPrep } from '../../economics/visit-prep/visit-prep';
 import { describeFailure } from '../../core/http/api-error-of';
+import { Clock } from '../../core/time/clock';
 import { Notice } from '../../core/http/notice';
 import { codeLabel } from '../../ui/code-label';
 import { StatusChip } from '../../ui/status-chip/status-chip';
@@ -42,6 +43,7 @@ import { WorkCaution } from '../work-caution/work-caution';
 export class WorkPage {
   private readonly api = inject(WorkApi);
   private readonly notice = inject(Notice);
+  private readonly clock = inject(Clock);
 
   /** The request id (route parameter). */
   readonly id = input.required<string>();
@@ -75,6 +77,11 @@ export class WorkPage {
 
   protected visitNumberOf(o: WorkOverview, item: WorkItem): number | null {
     return o.visits.find((v) => v.id === item.siteVisitId)?.number ?? null;
+  }
+
+  /** A booked visit whose day has not come: starting it records the work as done today. */
+  protected isEarly(visit: SiteVisit): boolean {
+    return visit.status === 'booked' && visit.date > this.clock.today();
   }
 
   protected markVisit(o: WorkOverview, visit: SiteVisit, step: 'start' | 'finish'): void {
