@@ -8,6 +8,7 @@ import {
   RequestEvent,
   RequestStatus,
   Role,
+  statesAllowing,
   PartyRole,
 } from '@cc/shared';
 
@@ -69,7 +70,11 @@ const who = (actors: readonly FlowActor[]) => or(actors.filter((a) => a !== 'adm
  */
 export function nextStepOf(status: RequestStatus, viewer: { role: Role; myParts: readonly PartyRole[] }): NextStep {
   if (isEnded(status)) {
-    return { status, isEnded: true, summary: `${REQUEST_STATUS_LABELS[status]}: nothing more happens on this request.`, moves: [] };
+    // Where the flow table still lets money be recorded (an invoice paid from the proceeds at closing), say so.
+    const summary = statesAllowing('record-funds').includes(status)
+      ? `${REQUEST_STATUS_LABELS[status]}: the work is done and nothing more happens on this request, except money still open: the contractor records funds that arrive later (an invoice paid at closing) on the approval page.`
+      : `${REQUEST_STATUS_LABELS[status]}: nothing more happens on this request.`;
+    return { status, isEnded: true, summary, moves: [] };
   }
   const actors = actorsOf({ role: viewer.role, myParts: viewer.myParts, isAssignedContractor: viewer.role === 'contractor' });
   const onward = movesOnFrom(status);
