@@ -149,6 +149,8 @@ describe('the demo data', () => {
       }
       expect(v.account.balanceCents).toBe(v.scope!.totalCents);
       expect(v.plans.map((p) => p.plan)).toEqual(expect.arrayContaining(['card-full', 'at-closing']));
+      // The seller is told it is their step, not about "the seller" in the third person.
+      expect(v.nextStep).toBe('Next: choose how to pay: by card now, a deposit now, or at closing.');
     }
   });
 

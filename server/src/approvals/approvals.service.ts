@@ -127,7 +127,7 @@ export class ApprovalsService {
       changeOrders: changeOrders.map(toChangeOrderDto),
       invoices: seesMoney ? (await this.invoices.list(requestId)).map(toInvoiceSummary) : [],
       can,
-      nextStep: nextStep(request, !!approval, account, changeOrders.some((c) => c.status === 'sent')),
+      nextStep: nextStep(request, actors, !!approval, account, changeOrders.some((c) => c.status === 'sent')),
     };
   }
 
@@ -262,10 +262,11 @@ export function signedRecord(s: {
   };
 }
 
-/** What happens next on the seller's side of the request, and who acts, in one sentence. */
-function nextStep(request: RepairRequestDetail, isSigned: boolean, account: ReturnType<typeof paymentAccount>, hasOpenChangeOrder: boolean): string {
+/** What happens next on the seller's side of the request, and who acts, in one sentence (addressed to `viewer` when it is their step). */
+function nextStep(request: RepairRequestDetail, viewer: readonly FlowActor[], isSigned: boolean, account: ReturnType<typeof paymentAccount>, hasOpenChangeOrder: boolean): string {
   const who = (actors: FlowActor[]) => actors.map((a) => FLOW_ACTOR_LABELS[a]).join(' or ') || 'nobody';
   if (!isSigned) {
+    if (request.status === 'quoted' && mayMoveRequest(viewer, 'approve', 'quoted')) return 'Next: approve or decline each item and sign (you, or the other person on the seller’s side).';
     if (request.status === 'quoted') return `Waiting for ${who(whoActsNext('quoted'))} to approve or decline each item and sign.`;
     return 'No decision is due: the quote is not with the seller.';
   }
@@ -273,7 +274,11 @@ function nextStep(request: RepairRequestDetail, isSigned: boolean, account: Retu
   if (hasOpenChangeOrder) return 'A change order waits for the seller or the listing agent to approve or decline it.';
   if (account.payableAtClosingCents > 0) return 'The balance is on an invoice payable at closing; the contractor records the funds when the escrow company pays.';
   if (account.overpaidCents > 0) return 'More was paid than the approved work costs: the contractor refunds the difference.';
-  if (account.balanceCents > 0 && account.paidCents === 0) return 'Next: the seller (or the listing agent) chooses how to pay: by card now, a deposit now, or at closing.';
+  if (account.balanceCents > 0 && account.paidCents === 0) {
+    return mayAct(viewer, 'pay', request.status)
+      ? 'Next: choose how to pay: by card now, a deposit now, or at closing.'
+      : 'Next: the seller (or the listing agent) chooses how to pay: by card now, a deposit now, or at closing.';
+  }
   if (account.balanceCents > 0) return `The balance is due on completion; the contractor books and does the work.`;
   const next = who(whoActsNext(request.status));
   return `Paid in full. ${next.charAt(0).toUpperCase()}${next.slice(1)} acts next on the work.`;
