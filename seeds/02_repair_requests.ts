@@ -19,7 +19,9 @@ function isoDateIn(days: number): string {
 /** What the server writes beside a move, for the moves that carry a note. */
 function noteFor(event: string, itemCount: number): string | null {
   if (event === 'open') return 'Request opened';
-  if (event === 'add-report') return 'Inspection report added';
+  // The demo keeps no report file: its items were typed in from the inspector's report, and the
+  // completion letter says no file was uploaded. The history says the same.
+  if (event === 'add-report') return 'Items entered from the inspection report (no file uploaded)';
   if (event === 'confirm-items') return `${itemCount} ${itemCount === 1 ? 'item' : 'items'} confirmed`;
   if (event === 'send-quote') return 'Quote version 1 sent';
   return null;
