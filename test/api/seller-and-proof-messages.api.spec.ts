@@ -157,10 +157,12 @@ describe('the seller’s side', () => {
     expect(receivers()).toEqual([]);
   });
 
-  it('funds at closing recorded by the contractor: the seller, the listing agent and the contractor’s colleague hear it', async () => {
+  it('payment at closing chosen: the contractor’s people and both agents hear the amount and the invoice; funds recorded later: the seller, the listing agent and the colleague', async () => {
     const { requestId } = await signedRequest();
     const started = (await write(cast.s.seller, 'post', `/api/requests/${requestId}/payments`).send({ plan: 'at-closing', idempotencyKey: newKey(), escrow: { company: 'Quarry Bend Title & Escrow', officer: 'R. Lindqvist', fileNumber: 'QB-2027-0114' } }).expect(201)).body as StartedPayment;
     await deliver();
+    expectOneMessageEach(['buyerAgent', 'colleague', 'contractor', 'listingAgent'], `${EXAMPLE_1_TOTAL} to be paid at closing`, `/requests/${requestId}/approval`);
+    expect(mail.to(emailOf('contractor'))[0].text).toContain(`Invoice ${started.invoiceNumber} went to the escrow company`);
     mail.clear();
     await write(cast.s.contractor, 'post', `/api/requests/${requestId}/payments/funds`).send({ paymentId: started.payment.id, amountCents: 31_434, receivedOn: '2027-01-15', reference: 'Wire 88214' }).expect(200);
     await deliver();

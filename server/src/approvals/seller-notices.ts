@@ -16,6 +16,8 @@ export interface SellerNotices {
   quoteDecided(trx: Trx, e: SellerNoticeEvent & { approvalId: number; isApproved: boolean }): Promise<void>;
   /** A card payment was credited or funds at closing recorded: the seller gets the receipt, the contractor the news. */
   paymentReceived(trx: Trx, e: SellerNoticeEvent & { paymentId: number; receiptInvoiceId: number | null }): Promise<void>;
+  /** The seller's side chose to pay from the proceeds at closing: the contractor and the agents hear how and how much. */
+  closingPaymentChosen(trx: Trx, e: SellerNoticeEvent & { paymentId: number; invoiceId: number }): Promise<void>;
   /** The contractor sent a change order: the seller's side is asked to decide. */
   changeOrderSent(trx: Trx, e: SellerNoticeEvent & { changeOrderId: number }): Promise<void>;
   /** The seller's side decided on a change order: the contractor hears it. */

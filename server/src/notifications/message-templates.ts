@@ -94,6 +94,15 @@ export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
         ],
         action: { label: input.receiptNumber ? 'See the receipt' : 'See the payment', path: approvalPage },
       };
+    case 'closing-payment-chosen':
+      return {
+        subject: `${r.reference}: ${formatCents(input.amountCents)} to be paid at closing`,
+        paragraphs: [
+          `The seller's side chose to pay ${formatCents(input.amountCents)} for the electrical repairs at ${r.address} from the proceeds at closing (closing date ${r.closingDate}).`,
+          `Invoice ${input.invoiceNumber} went to the escrow company; the contractor records the funds when they arrive. The work goes ahead as approved.`,
+        ],
+        action: { label: 'See the invoice', path: approvalPage },
+      };
     case 'change-order-sent':
       return {
         subject: `${r.reference}: change order ${input.number} to decide — ${formatCentsDelta(input.priceCents)}`,

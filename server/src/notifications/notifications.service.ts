@@ -47,6 +47,7 @@ const ACTIVITY_OF: Record<NotificationKind, ActivityKind | null> = {
   'quote-sent': 'quotes',
   'items-decided': 'approvals',
   'payment-received': 'payments',
+  'closing-payment-chosen': 'payments',
   'change-order-sent': 'approvals',
   'change-order-decided': 'approvals',
   'refund-settled': 'payments',
@@ -61,7 +62,7 @@ const ACTIVITY_OF: Record<NotificationKind, ActivityKind | null> = {
 function amountOf(input: NotifyInput): number | null {
   if (input.kind === 'quote-sent') return input.totalCents;
   if (input.kind === 'items-decided') return input.approvedCents;
-  if (input.kind === 'payment-received' || input.kind === 'refund-settled') return input.amountCents;
+  if (input.kind === 'payment-received' || input.kind === 'refund-settled' || input.kind === 'closing-payment-chosen') return input.amountCents;
   if (input.kind === 'change-order-sent' || input.kind === 'change-order-decided') return input.priceCents;
   return null;
 }

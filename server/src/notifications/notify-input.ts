@@ -17,6 +17,7 @@ export type NotifyInput =
   | (Base & { kind: 'quote-sent'; version: number; totalCents: number })
   | (Base & { kind: 'items-decided'; approvedCount: number; declinedCount: number; approvedCents: number; decisionRef: string })
   | (Base & { kind: 'payment-received'; paymentId: number; amountCents: number; /** The receipt issued for it (card payments), e.g. RCT-000012. */ receiptNumber: string | null })
+  | (Base & { kind: 'closing-payment-chosen'; paymentId: number; amountCents: number; invoiceNumber: string })
   | (Base & { kind: 'change-order-sent'; changeOrderId: number; number: number; priceCents: number; reason: string })
   | (Base & { kind: 'change-order-decided'; changeOrderId: number; number: number; priceCents: number; isApproved: boolean })
   | (Base & { kind: 'refund-settled'; refundId: number; amountCents: number })
@@ -50,6 +51,8 @@ export function occurrenceOf(input: NotifyInput): string {
       return input.decisionRef;
     case 'payment-received':
       return `payment-${input.paymentId}`;
+    case 'closing-payment-chosen':
+      return `closing-payment-${input.paymentId}`;
     case 'change-order-sent':
       return `change-order-${input.changeOrderId}`;
     case 'change-order-decided':

@@ -40,6 +40,20 @@ export function sellerNoticesByMail(notifications: NotificationsService): Seller
       });
     },
 
+    async closingPaymentChosen(trx, { requestId, by, paymentId, invoiceId, at }) {
+      const payment = await trx('payments').where({ id: paymentId }).first('amount_cents');
+      const invoice: { series: InvoiceSeries; number: number } = await trx('invoices').where({ id: invoiceId }).first('series', 'number');
+      await notifications.notify(trx, {
+        kind: 'closing-payment-chosen',
+        requestId,
+        actorUserId: by,
+        paymentId,
+        amountCents: payment.amount_cents,
+        invoiceNumber: invoiceNumber(invoice.series, invoice.number),
+        at,
+      });
+    },
+
     async changeOrderSent(trx, { requestId, by, changeOrderId }) {
       const co = await changeOrder(trx, changeOrderId);
       await notifications.notify(trx, { kind: 'change-order-sent', requestId, actorUserId: by, changeOrderId, number: co.number, priceCents: co.price_cents, reason: co.reason });

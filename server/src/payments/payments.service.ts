@@ -67,6 +67,7 @@ export class PaymentsService {
       );
       if (input.plan !== 'at-closing') return { payment, invoiceNumber: null, isNew: true };
       const invoice = await this.invoices.issueClosingInvoice(requestId, payment, input.escrow, user.id, trx);
+      await this.notices.closingPaymentChosen(trx, { requestId, by: user.id, paymentId: payment.id, invoiceId: invoice.id });
       return { payment, invoiceNumber: invoiceNumber(invoice.series, invoice.number), isNew: true };
     });
     const payment = result.payment.method === 'card' ? await this.checkoutFor(result.payment, user, portalBaseFor(this.publicUrl, origin)) : result.payment;

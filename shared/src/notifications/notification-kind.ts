@@ -10,6 +10,7 @@ export const NOTIFICATION_KINDS = [
   'quote-sent',
   'items-decided',
   'payment-received',
+  'closing-payment-chosen',
   'change-order-sent',
   'change-order-decided',
   'refund-settled',
@@ -46,6 +47,7 @@ export const NOTIFICATION_RULES: Record<NotificationKind, NotificationKindRule> 
   'quote-sent': { label: 'Quote sent', to: ['seller', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
   'items-decided': { label: 'Items approved or declined', to: ['contractor', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
   'payment-received': { label: 'Payment received', to: ['contractor', 'seller', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
+  'closing-payment-chosen': { label: 'Payment at closing chosen', to: ['contractor', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
   // Who decides a change order, who sends it, who pays and who refunds: as the flow table says.
   'change-order-sent': { label: 'Change order to decide', to: REQUEST_ACTIONS['decide-change-order'].by, defaultDelivery: 'immediate', isAdjustable: true },
   'change-order-decided': { label: 'Change order approved or declined', to: REQUEST_ACTIONS['send-change-order'].by, defaultDelivery: 'immediate', isAdjustable: true },
