@@ -195,12 +195,12 @@ describe('the seller’s side', () => {
 });
 
 describe('the proof side', () => {
-  it('visit booked: the seller and the listing agent get the day and the arrival window, linked to the visits page', async () => {
+  it('visit booked: the seller, the listing agent and the buyer’s agent get the day and the arrival window, linked to the visits page', async () => {
     const { requestId } = await approvedWork();
     const date = inDays(3);
     await write(cast.s.contractor, 'post', `/api/requests/${requestId}/visits`).send(visitBody({ date })).expect(201);
     await deliver();
-    expectOneMessageEach(['listingAgent', 'seller'], `electrician's visit on ${dayWords(date)}`, `/requests/${requestId}/work`);
+    expectOneMessageEach(['buyerAgent', 'listingAgent', 'seller'], `electrician's visit on ${dayWords(date)}`, `/requests/${requestId}/work`);
     const [m] = mail.to(emailOf('seller'));
     expect(m.text).toContain(`booked visit 1 to 14 Test Hollow Road, Marlow Springs, CO 81290 on ${dayWords(date)}, arriving between 8:00 AM and 10:30 AM.`);
     expect(m.html).toContain('arriving between 8:00 AM and 10:30 AM');
@@ -223,7 +223,7 @@ describe('the proof side', () => {
     await move();
     await move();
     await deliver();
-    expectOneMessageEach(['listingAgent', 'seller'], `electrician's visit moved to ${dayWords(later)}`, `/requests/${requestId}/work`);
+    expectOneMessageEach(['buyerAgent', 'listingAgent', 'seller'], `electrician's visit moved to ${dayWords(later)}`, `/requests/${requestId}/work`);
     expect(mail.to(emailOf('seller'))[0].text).toContain(`is now on ${dayWords(later)}, arriving between 1:00 PM and 3:00 PM. It was on ${dayWords(date)}, arriving between 8:00 AM and 10:30 AM.`);
   });
 
@@ -280,7 +280,7 @@ describe('in the transaction of the change', () => {
 
     await write(cast.s.contractor, 'post', `/api/requests/${requestId}/visits`).send(visitBody()).expect(201);
     await deliver();
-    expect(receivers()).toEqual(['listingAgent', 'seller']);
+    expect(receivers()).toEqual(['buyerAgent', 'listingAgent', 'seller']);
   });
 
   it('a refused change (the second decision on a change order) writes nothing', async () => {
@@ -319,6 +319,7 @@ describe('preferences', () => {
   it('holds a visit message for the digest of whoever chose it, sends none to whoever turned it off', async () => {
     await put(cast.s.seller, [{ kind: 'visit-scheduled', delivery: 'digest' }]).expect(200);
     await put(cast.s.listingAgent, [{ kind: 'visit-scheduled', delivery: 'off' }]).expect(200);
+    await put(cast.s.buyerAgent, [{ kind: 'visit-scheduled', delivery: 'off' }]).expect(200);
     try {
       const { requestId } = await approvedWork();
       const date = inDays(4);
@@ -340,6 +341,7 @@ describe('preferences', () => {
     } finally {
       await put(cast.s.seller, [{ kind: 'visit-scheduled', delivery: 'immediate' }]).expect(200);
       await put(cast.s.listingAgent, [{ kind: 'visit-scheduled', delivery: 'immediate' }]).expect(200);
+      await put(cast.s.buyerAgent, [{ kind: 'visit-scheduled', delivery: 'immediate' }]).expect(200);
     }
   });
 });

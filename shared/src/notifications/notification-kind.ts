@@ -52,7 +52,8 @@ export const NOTIFICATION_RULES: Record<NotificationKind, NotificationKindRule> 
   'change-order-sent': { label: 'Change order to decide', to: REQUEST_ACTIONS['decide-change-order'].by, defaultDelivery: 'immediate', isAdjustable: true },
   'change-order-decided': { label: 'Change order approved or declined', to: REQUEST_ACTIONS['send-change-order'].by, defaultDelivery: 'immediate', isAdjustable: true },
   'refund-settled': { label: 'Refund paid back', to: [...REQUEST_ACTIONS.pay.by, ...REQUEST_ACTIONS.refund.by], defaultDelivery: 'immediate', isAdjustable: true },
-  'visit-scheduled': { label: 'Visit scheduled', to: ['seller', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
+  // The buyer's agent too: the visit decides whether the repairs are done before closing.
+  'visit-scheduled': { label: 'Visit scheduled', to: ['seller', 'listing-agent', 'buyer-agent'], defaultDelivery: 'immediate', isAdjustable: true },
   'item-corrected': { label: 'Item corrected', to: ['buyer-agent', 'listing-agent', 'seller'], defaultDelivery: 'immediate', isAdjustable: true },
   'letter-issued': { label: 'Completion letter issued', to: ['inspector', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
   // The last step of the work: the contractor learns it is signed off (or what to take back), the seller's side and the agents that the repairs are done.
