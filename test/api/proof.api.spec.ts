@@ -213,6 +213,14 @@ describe('POST /api/requests/:id/items/:itemId/correction', () => {
     await recordCorrection(requestId, gfci, gfciRecord()).expect(409);
   });
 
+  it('refuses GFCI labels on an item they do not mark (a double tap at the panel), on the labels field', async () => {
+    // "No Equipment Ground" / "GFCI Protected" mark receptacles on GFCI protection (NFPA 70 (NEC) 406.4(D)(2)).
+    const res = await recordCorrection(requestId, panel, { outcome: 'corrected', workPerformed: 'Moved one conductor to its own breaker', labels: ['GFCI Protected'] });
+    expect(res.status).toBe(400);
+    expect(res.body.details).toEqual([expect.objectContaining({ path: 'labels' })]);
+    expect((await work(requestId)).items.find((i) => i.id === panel)?.status).toBe('approved');
+  });
+
   it('moves the request to corrected when the last approved item has an outcome', async () => {
     const res = await recordCorrection(requestId, panel, { outcome: 'not-corrected', reason: 'Panel is a brand with no listed tandem breaker; a replacement panel needs a permit and the seller’s approval' });
     expect(res.status).toBe(201);

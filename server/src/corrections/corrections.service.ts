@@ -1,6 +1,7 @@
 import { createHash } from 'node:crypto';
 import {
   evaluateReadings,
+  labelsApplyTo,
   mayMoveItem,
   type Correction,
   type CurrentUser,
@@ -67,6 +68,9 @@ export class CorrectionsService {
         const item = items.find((i) => i.id === itemId);
         if (!item) throw new NotFoundError('No such approved item on this request');
         if (!mayMoveItem(actors, event, item.status)) throw new ConflictError('This item has an outcome already');
+        if (input.labels.length && !labelsApplyTo(item.code)) {
+          throw new ValidationError('These labels do not apply to this item', [{ path: 'labels', message: 'Labels mark receptacles on GFCI protection (NEC 406.4(D)(2)); this item is not one' }]);
+        }
         const siteVisitId = input.siteVisitId ?? item.siteVisitId;
         if (siteVisitId !== null && !(await this.visits.find(requestId, siteVisitId, trx))) {
           throw new ValidationError('No such site visit', [{ path: 'siteVisitId', message: 'Choose one of the visits of this request' }]);

@@ -35,3 +35,11 @@ export function readingKindsFor(code: FindingCode): readonly ReadingKind[] {
 /** Labels a contractor commonly applies at a corrected device. */
 export const CORRECTION_LABELS = ['No Equipment Ground', 'GFCI Protected'] as const;
 export type CorrectionLabel = (typeof CORRECTION_LABELS)[number];
+
+/**
+ * Whether the labels apply to an item of `code`: they mark receptacles on GFCI protection (NFPA 70
+ * (NEC) 406.4(D)(2)), so only the receptacle items whose correction takes a GFCI test carry them.
+ */
+export function labelsApplyTo(code: FindingCode): boolean {
+  return readingKindsFor(code).includes('gfci');
+}

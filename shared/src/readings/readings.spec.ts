@@ -3,6 +3,7 @@ import { evaluateReadings, evaluateTripTime } from './evaluate-readings';
 import { maxGfciTripSeconds } from './gfci-trip-time';
 import { ReadingsSchema } from './readings.schema';
 import { voltageDropPercent, voltageDropVolts } from './voltage-drop';
+import { labelsApplyTo } from './reading-kinds';
 
 describe('maxGfciTripSeconds', () => {
   // UL 943: Class A GFCI maximum trip time T = (20/I)^1.43 s, I in mA, stated for 6–264 mA.
@@ -132,5 +133,13 @@ describe('ReadingsSchema', () => {
   it('bounds every number', () => {
     expect(ReadingsSchema.safeParse({ groundPath: { impedanceOhms: 1e9, conductorSize: '12', runLengthFt: 50 } }).success).toBe(false);
     expect(ReadingsSchema.safeParse({ voltageDrop: { percent: -1 } }).success).toBe(false);
+  });
+});
+
+describe('labelsApplyTo', () => {
+  // The labels mark receptacles on GFCI protection (NFPA 70 (NEC) 2023, 406.4(D)(2)(b) and (c)).
+  it('offers the GFCI labels on receptacle items that take a GFCI test, not on panels, alarms or fixtures', () => {
+    for (const code of ['open-ground', 'gfci-missing', 'gfci-inoperative'] as const) expect(labelsApplyTo(code)).toBe(true);
+    for (const code of ['double-tap', 'smoke-co-alarm', 'reversed-polarity', 'open-junction-box'] as const) expect(labelsApplyTo(code)).toBe(false);
   });
 });

@@ -26,6 +26,7 @@ import {
   RETURN_CAUSE_LABELS,
   RETURN_CAUSES,
   ReturnCause,
+  labelsApplyTo,
 } from '@cc/shared';
 import { applyIssues } from '../../core/forms/apply-issues';
 import { ErrorMessagePipe } from '../../core/forms/error-message';
@@ -83,6 +84,8 @@ export class CorrectionForm {
 
   protected readonly outcomes = CORRECTION_OUTCOMES.map((value) => ({ value, label: CORRECTION_OUTCOME_LABELS[value] }));
   protected readonly labelOptions = CORRECTION_LABELS;
+  /** The labels are offered only on the items they mark (receptacles on GFCI protection). */
+  protected readonly labelsApplyTo = labelsApplyTo;
   protected readonly sizes = CONDUCTOR_SIZES;
   protected readonly kindLabels = READING_KIND_LABELS;
   protected readonly codeLabel = codeLabel;
@@ -184,7 +187,7 @@ export class CorrectionForm {
       deviceMake: isCorrected ? raw.deviceMake : '',
       deviceModel: isCorrected ? raw.deviceModel : '',
       deviceLot: isCorrected ? raw.deviceLot : '',
-      labels: isCorrected ? this.chosenLabels() : [],
+      labels: isCorrected && labelsApplyTo(item.code) ? this.chosenLabels() : [],
       siteVisitId: raw.siteVisitId,
       finishedOnFirstVisit: isCorrected ? raw.finishedOnFirstVisit : false,
       returnCause: this.asksReturnCause() ? raw.returnCause : null,
