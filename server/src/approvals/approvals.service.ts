@@ -22,7 +22,7 @@ import {
   type ScopeItem,
   type SignApprovalParsed,
 } from '@cc/shared';
-import { lineCents, wallClock } from '@cc/shared';
+import { lineCents, todayIn } from '@cc/shared';
 import type { Db } from '../db/knex';
 import type { QuoteRepository, StoredQuote } from '../quotes/quote.repository';
 import type { ChangeOrderRepository } from '../change-orders/change-order.repository';
@@ -178,7 +178,7 @@ export class ApprovalsService {
     // Sent versions never change: the one decided on is read before the transaction.
     const stored = await this.quoteRows.find(requestId, input.quoteVersion);
     // The quote's contractor (as it was sent) decides in which time zone its last day ends.
-    const today = stored ? wallClock(await this.timeZoneOf(stored.contractor.organisationId), Date.now()).date : null;
+    const today = stored ? todayIn(await this.timeZoneOf(stored.contractor.organisationId)) : null;
     await this.db.transaction(async (trx) => {
       const status = await this.approvals.lockRequest(requestId, trx);
       if (status !== request.status || (await this.approvals.find(requestId, trx))) throw new ConflictError('The quote was decided on meanwhile. Reload to see the decision.');

@@ -5,6 +5,7 @@ import {
   effectiveTimeZone,
   driveMinutes,
   minutesOfDay,
+  todayIn,
   USUAL_MAX_DRIVE_MINUTES,
   type BookSuggestionSchema,
   type CurrentUser,
@@ -23,7 +24,7 @@ import { inTransaction } from '../db/transaction';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../errors';
 import type { RequestsService } from '../requests/requests.service';
 import type { SiteVisitRepository } from '../visits/site-visit.repository';
-import { assertBookable, todayIn, type VisitsService } from '../visits/visits.service';
+import { assertBookable, type VisitsService } from '../visits/visits.service';
 import type { ProofMessages } from '../work/proof-messages';
 import { assertMayAct, requestWithActors } from '../work/request-actors';
 import { visitsCalendar } from './calendar';

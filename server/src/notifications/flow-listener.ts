@@ -30,6 +30,7 @@ export function createFlowListener(activity: ActivityRepository, notifications: 
       if (move.event === 'accept-proof' || move.event === 'reject-proof') {
         // The review was written before the move (letters.service review()): its id keys the message.
         const review: { id: number } | undefined = await trx('proof_reviews').where({ request_id: requestId }).orderBy('id', 'desc').first('id');
+        if (!review) throw new Error('A re-inspection move was made without its review record');
         const [{ count }] = await trx('line_items').where({ request_id: requestId, status: itemStateAfter('not-accept') }).count({ count: '*' });
         await notifications.notify(trx, {
           kind: 'proof-reviewed',
@@ -37,7 +38,7 @@ export function createFlowListener(activity: ActivityRepository, notifications: 
           actorUserId: byUserId,
           isAccepted: move.event === 'accept-proof',
           notAcceptedCount: move.event === 'accept-proof' ? 0 : Number(count),
-          reviewRef: String(review?.id ?? from),
+          reviewRef: String(review.id),
           at,
         });
       }

@@ -1,4 +1,4 @@
-import { addDays, editionNote, effectiveQuantity, wallClock, itemStateAfter, lineCents, type HouseCode, type Organisation, type QuoteContractor, type QuoteVersion } from '@cc/shared';
+import { addDays, editionNote, effectiveQuantity, todayIn, itemStateAfter, lineCents, type HouseCode, type Organisation, type QuoteContractor, type QuoteVersion } from '@cc/shared';
 import type { StoredPricingItem } from '../pricing/item-pricing.repository';
 import type { NewQuote, NewQuoteLine } from './quote.repository';
 import type { LoadedRateBook } from '../rate-book/rate-book.service';
@@ -21,7 +21,7 @@ export function quoteContractorOf(org: Organisation): QuoteContractor {
  * day in the contractor's time zone (`zone`), where the quote's prices are set.
  */
 export function validUntil(sentAt: Date, days: number, zone: string): string {
-  return addDays(wallClock(zone, sentAt).date, days);
+  return addDays(todayIn(zone, sentAt.getTime()), days);
 }
 
 export interface QuoteToCompose {

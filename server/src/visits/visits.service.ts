@@ -1,4 +1,4 @@
-import { addDays, mayAct, wallClock, type CurrentUser, type Electrician, type FlowActor, type RequestStatus, type SiteVisit, BookSiteVisitSchema } from '@cc/shared';
+import { addDays, mayAct, todayIn, wallClock, type CurrentUser, type Electrician, type FlowActor, type RequestStatus, type SiteVisit, BookSiteVisitSchema } from '@cc/shared';
 import type { z } from 'zod';
 import type { Db } from '../db/knex';
 import type { FlowService } from '../flow/flow.service';
@@ -112,7 +112,6 @@ function itemsToPlan(items: readonly WorkItemRecord[], quotedVisitKey: string | 
 }
 
 /** Today's date (YYYY-MM-DD) on the wall clock of `zone`. */
-export const todayIn = (zone: string, now = Date.now()): string => wallClock(zone, now).date;
 
 /**
  * The one booking rule for a visit (booking form, day-plan suggestions, moves), in the organisation's

@@ -1,4 +1,4 @@
-import { effectiveTimeZone, instantOf, isTimeZone, STATE_TIME_ZONES, US_TIME_ZONES, wallClock } from './time-zones';
+import { effectiveTimeZone, instantOf, isTimeZone, STATE_TIME_ZONES, todayIn, US_TIME_ZONES, wallClock } from './time-zones';
 
 // Offsets and daylight-saving dates: IANA tz database (America/Denver is UTC-7 standard, UTC-6 daylight;
 // America/Phoenix keeps UTC-7 all year) and the US rule since 2007 (15 U.S.C. 260a: daylight time from
@@ -37,5 +37,14 @@ describe('time zones', () => {
     ['Pacific/Honolulu', '2026-07-01', '08:00', '2026-07-01T18:00:00.000Z'],
   ])('finds the instant of %s %s %s', (zone, date, clock, iso) => {
     expect(instantOf(zone, date, clock).toISOString()).toBe(iso);
+  });
+});
+
+describe('todayIn', () => {
+  // 2026-12-03T05:30Z is 22:30 on 2 December in Denver (UTC-7 in winter, IANA tz database).
+  it('is the date on the zone’s wall clock, not the UTC date', () => {
+    const at = Date.parse('2026-12-03T05:30:00Z');
+    expect(todayIn('America/Denver', at)).toBe('2026-12-02');
+    expect(todayIn('UTC', at)).toBe('2026-12-03');
   });
 });

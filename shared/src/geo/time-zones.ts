@@ -53,6 +53,11 @@ export function wallClock(zone: string, at: Date | number): { date: string; cloc
   return { date: `${local.getFullYear()}-${two(local.getMonth() + 1)}-${two(local.getDate())}`, clock: `${two(local.getHours())}:${two(local.getMinutes())}` };
 }
 
+/** Today's date (YYYY-MM-DD) in `zone`: where bookings, quote validity and day plans begin and end. */
+export function todayIn(zone: string, now: number = Date.now()): string {
+  return wallClock(zone, now).date;
+}
+
 /** The instant at which the wall clock of `zone` shows `date` (YYYY-MM-DD) at `clock` (HH:MM). */
 export function instantOf(zone: string, date: string, clock: string): Date {
   const [y, m, d] = date.split('-').map(Number);

@@ -16,8 +16,8 @@ describe('nextStepOf', () => {
         if (step.isEnded) {
           expect(step.summary).toContain('nothing more happens');
           // After accepted work, money may still come in (the flow table's record-funds).
-          if (status === 'accepted') expect(step.summary).toContain('the contractor records funds that arrive later');
-          else expect(step.summary).not.toContain('records funds');
+          if (status === 'accepted') expect(step.summary).toContain('the contractor records it on the approval page when it arrives');
+          else expect(step.summary).not.toContain('approval page');
           expect(step.moves).toEqual([]);
         } else {
           // Every move named comes from the shared table, with who makes it.

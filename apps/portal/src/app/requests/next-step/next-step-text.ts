@@ -72,7 +72,7 @@ export function nextStepOf(status: RequestStatus, viewer: { role: Role; myParts:
   if (isEnded(status)) {
     // Where the flow table still lets money be recorded (an invoice paid from the proceeds at closing), say so.
     const summary = statesAllowing('record-funds').includes(status)
-      ? `${REQUEST_STATUS_LABELS[status]}: the work is done and nothing more happens on this request, except money still open: the contractor records funds that arrive later (an invoice paid at closing) on the approval page.`
+      ? `${REQUEST_STATUS_LABELS[status]}: the work is done and nothing more happens on this request. If money is still open (an invoice paid at closing), the contractor records it on the approval page when it arrives.`
       : `${REQUEST_STATUS_LABELS[status]}: nothing more happens on this request.`;
     return { status, isEnded: true, summary, moves: [] };
   }
