@@ -10,11 +10,38 @@ import pg from 'pg';
  * to have one plan that suits every value. Other queries keep using Knex's pool, planned per run.
  */
 export function createReadPool(databaseUrl: string, max = 10): pg.Pool {
-  const pool = new pg.Pool({ connectionString: databaseUrl, max, options: '-c plan_cache_mode=force_generic_plan' });
+  const pool = new pg.Pool({
+    connectionString: databaseUrl,
+    max,
+    // Times in UTC, so that a timestamp's text is turned into ISO 8601 without a Date (isoTimestamp).
+    options: '-c plan_cache_mode=force_generic_plan -c TimeZone=UTC',
+    types: { getTypeParser: readTypeParser as typeof pg.types.getTypeParser },
+  });
   // An idle connection the database ends (a restart, an administrator) is dropped and replaced on
   // the next read; without a listener its error would end the process.
   pool.on('error', (err) => console.error(`A read connection to PostgreSQL ended: ${err.message}`));
   return pool;
+}
+
+/** Timestamps stay text on read connections (isoTimestamp writes them as ISO 8601); other types as usual. */
+function readTypeParser(oid: number, format?: 'text' | 'binary'): (value: string) => unknown {
+  return oid === pg.types.builtins.TIMESTAMPTZ && format !== 'binary' ? keepText : pg.types.getTypeParser(oid, format ?? 'text');
+}
+const keepText = (value: string): string => value;
+
+/** The text of a UTC timestamp as PostgreSQL writes it ("2026-12-04 05:17:37.123456+00"). */
+const UTC_TIMESTAMP = /^(\d{4}-\d{2}-\d{2}) (\d{2}:\d{2}:\d{2})(?:\.(\d{1,6}))?\+00$/;
+
+/**
+ * A timestamp as ISO 8601 with milliseconds (what Date#toISOString writes), from a Date (Knex
+ * connections) or from the text a read connection keeps (see readTypeParser): read pages turn 25
+ * timestamps a page into strings again, so they skip the Date in between.
+ */
+export function isoTimestamp(value: Date | string): string {
+  if (typeof value !== 'string') return value.toISOString();
+  const m = UTC_TIMESTAMP.exec(value);
+  if (!m) return new Date(value).toISOString();
+  return `${m[1]}T${m[2]}.${(m[3] ?? '').padEnd(3, '0').slice(0, 3)}Z`;
 }
 
 /** Statement names by SQL text: one per statement shape, so the set stays small (cleared if it ever grows). */

@@ -13,7 +13,7 @@ import {
 } from '@cc/shared';
 import type pg from 'pg';
 import type { Db, Trx } from '../db/knex';
-import { readPrepared, runStatement, StatementParams, type Statement } from '../db/read-pool';
+import { isoTimestamp, readPrepared, runStatement, StatementParams, type Statement } from '../db/read-pool';
 import type { RepairRequestRow, RequestPartyRow, RequestStatusChangeRow } from '../db/tables';
 
 /** Who is looking: decides which requests exist for them. */
@@ -103,7 +103,15 @@ const itemCountsIn = (p: StatementParams): string => itemCountsOfR(p.add(UNCOUNT
 /** The columns of repair_requests a summary shows (a list reads only these). */
 const SUMMARY_COLUMNS = ['id', 'street', 'city', 'state', 'zip', 'year_built', 'closing_date', 'nec_edition', 'status', 'created_at', 'updated_at'] as const;
 
-type SummaryRow = Pick<RepairRequestRow, (typeof SUMMARY_COLUMNS)[number]> & { contractor_name: string | null; item_count: number; open_work_count: number; total_count?: string };
+/** A summary's row; its times are text when read on a read connection (see isoTimestamp). */
+type SummaryRow = Omit<Pick<RepairRequestRow, (typeof SUMMARY_COLUMNS)[number]>, 'created_at' | 'updated_at'> & {
+  created_at: Date | string;
+  updated_at: Date | string;
+  contractor_name: string | null;
+  item_count: number;
+  open_work_count: number;
+  total_count?: string;
+};
 
 function toSummary(row: SummaryRow): RepairRequestSummary {
   return {
@@ -122,8 +130,8 @@ function toSummary(row: SummaryRow): RepairRequestSummary {
     openWorkCount: Number(row.open_work_count),
     // Decided by the service, which knows today and the setting.
     isAtRisk: false,
-    createdAt: row.created_at.toISOString(),
-    updatedAt: row.updated_at.toISOString(),
+    createdAt: isoTimestamp(row.created_at),
+    updatedAt: isoTimestamp(row.updated_at),
   };
 }
 

@@ -54,8 +54,7 @@ export class RequestsService {
   ) {}
 
   /** The summary with its at-risk flag for today. */
-  private withRisk<T extends RepairRequestSummary>(summary: T): T {
-    const today = new Date().toISOString().slice(0, 10);
+  private withRisk<T extends RepairRequestSummary>(summary: T, today = new Date().toISOString().slice(0, 10)): T {
     const { isAtRisk } = closingProgress({ closingDate: summary.closingDate, today, approvedCount: summary.openWorkCount, resolvedCount: 0, atRiskBusinessDays: this.atRiskBusinessDays });
     return { ...summary, isAtRisk };
   }
@@ -71,7 +70,8 @@ export class RequestsService {
       id: query.q ? parseRequestReference(query.q) : null,
       builtBefore: query.builtBefore ?? null,
     });
-    return { items: items.map((i) => this.withRisk(i)), total, isTotalCapped, page: query.page, pageSize: query.pageSize };
+    const today = new Date().toISOString().slice(0, 10);
+    return { items: items.map((i) => this.withRisk(i, today)), total, isTotalCapped, page: query.page, pageSize: query.pageSize };
   }
 
   /** The build year and adopted edition of a request `user` may see (for code notes); 404 otherwise. */
