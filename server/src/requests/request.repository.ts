@@ -135,6 +135,17 @@ function toSummary(row: SummaryRow): RepairRequestSummary {
   };
 }
 
+/**
+ * Which requests `viewer` is party to, as a condition on `repair_requests as r` (null: every
+ * request, for the administrator); `param` writes a value's placeholder. Lists read the same
+ * parties through request_viewers (listStatement).
+ */
+function visibleTo(viewer: Viewer, param: (value: number) => string): string | null {
+  if (viewer.role === 'admin') return null;
+  if (viewer.role === 'contractor') return `r.contractor_organisation_id = ${param(viewer.organisationId ?? -1)}`;
+  return `EXISTS (SELECT 1 FROM request_parties p WHERE p.request_id = r.id AND p.user_id = ${param(viewer.id)})`;
+}
+
 export class RequestRepository {
   constructor(
     private readonly db: Db,
@@ -146,13 +157,12 @@ export class RequestRepository {
 
   /** Narrows a query on `repair_requests as r` to the requests `viewer` is party to. */
   private scope(query: Knex.QueryBuilder, viewer: Viewer): Knex.QueryBuilder {
-    if (viewer.role === 'admin') return query;
-    if (viewer.role === 'contractor') {
-      return query.where('r.contractor_organisation_id', viewer.organisationId ?? -1);
-    }
-    return query.whereExists(
-      this.db('request_parties as p').select(this.db.raw('1')).whereRaw('p.request_id = r.id').andWhere('p.user_id', viewer.id),
-    );
+    const bindings: Knex.RawBinding[] = [];
+    const condition = visibleTo(viewer, (value) => {
+      bindings.push(value);
+      return '?';
+    });
+    return condition ? query.whereRaw(condition, bindings) : query;
   }
 
   private summaries(trx?: Trx): Knex.QueryBuilder {
@@ -237,11 +247,16 @@ export class RequestRepository {
     };
   }
 
-  /** What decides a request's code notes (build year, adopted edition) if `viewer` may see it, else null. */
+  /**
+   * What decides a request's code notes (build year, adopted edition) if `viewer` may see it, else
+   * null: the access check of every item list, so a hand-written prepared statement.
+   */
   async findVisibleHouse(viewer: Viewer, id: number): Promise<HouseCode | null> {
     type Row = Pick<RepairRequestRow, 'year_built' | 'nec_edition'>;
-    const query = this.scope(this.db('repair_requests as r'), viewer).where('r.id', id).first('r.year_built', 'r.nec_edition');
-    const [row]: (Row | undefined)[] = this.readPool ? await readPrepared<Row>(this.readPool, query) : [await query];
+    const p = new StatementParams();
+    const condition = visibleTo(viewer, (value) => p.add(value));
+    const statement = { text: `SELECT r.year_built, r.nec_edition FROM repair_requests r WHERE r.id = ${p.add(id)}${condition ? ` AND ${condition}` : ''}`, values: p.values };
+    const [row] = this.readPool ? await readPrepared<Row>(this.readPool, statement) : await runStatement<Row>(this.db, statement);
     return row ? { yearBuilt: row.year_built, necEdition: row.nec_edition as NecEdition } : null;
   }
 
