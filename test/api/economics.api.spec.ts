@@ -61,7 +61,9 @@ async function bookVisit(requestId: number, date: string, electricianId: number,
   return res.body.id;
 }
 
-const corrected = (overrides: object = {}) => ({ outcome: 'corrected', workPerformed: 'Work done as quoted', ...overrides });
+// With the tests that prove GFCI and receptacle work (its GFCI test, the plug-in tester's polarity and ground).
+const proof = { gfci: { tripsOnTest: true, resets: true, downstreamProven: 0 }, receptacle: { polarityCorrect: true, groundPresent: true } };
+const corrected = (overrides: object = {}) => ({ outcome: 'corrected', workPerformed: 'Work done as quoted', readings: proof, ...overrides });
 
 async function record(requestId: number, itemId: number, body: object): Promise<void> {
   const res = await post(cast.s.colleague, `/api/requests/${requestId}/items/${itemId}/correction`).field('record', JSON.stringify(body));

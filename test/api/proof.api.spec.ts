@@ -179,6 +179,15 @@ describe('POST /api/requests/:id/items/:itemId/correction', () => {
     await recordCorrection(requestId, gfci, { outcome: 'corrected' }).field('extra', 'x').expect(400);
   });
 
+  it('refuses "corrected" on a GFCI item without its GFCI test, on the readings field, and records nothing', async () => {
+    // A GFCI is tested once installed, as its listing's instructions say (UL 943 devices; NFPA 70 (NEC) 2023, 110.3(B)).
+    const res = await recordCorrection(requestId, gfci, gfciRecord({ readings: { receptacle: { polarityCorrect: true, groundPresent: true } } }));
+    expect(res.status).toBe(400);
+    expect(res.body.details).toEqual([{ path: 'readings', message: 'Take the “GFCI test” reading: a corrected item of this kind is proven by its test' }]);
+    expect(await t.db('item_corrections').where({ line_item_id: gfci }).count()).toEqual([{ count: '0' }]);
+    expect((await work(requestId)).items.find((i) => i.id === gfci)?.status).toBe('approved');
+  });
+
   it('responds 403 to the parties and 404 to another contractor', async () => {
     await recordCorrection(requestId, gfci, gfciRecord(), [], cast.s.listingAgent).expect(403);
     await recordCorrection(requestId, gfci, gfciRecord(), [], cast.s.otherContractor).expect(404);

@@ -3,6 +3,8 @@ import {
   evaluateReadings,
   labelsApplyTo,
   mayMoveItem,
+  missingProof,
+  missingProofMessage,
   type Correction,
   type CurrentUser,
   type FlowActor,
@@ -71,6 +73,8 @@ export class CorrectionsService {
         if (input.labels.length && !labelsApplyTo(item.code)) {
           throw new ValidationError('These labels do not apply to this item', [{ path: 'labels', message: 'Labels mark receptacles on GFCI protection (NEC 406.4(D)(2)); this item is not one' }]);
         }
+        const unproven = input.outcome === 'corrected' ? missingProof(item.code, input.readings) : [];
+        if (unproven.length) throw new ValidationError('A test reading is needed', [{ path: 'readings', message: missingProofMessage(unproven) }]);
         const siteVisitId = input.siteVisitId ?? item.siteVisitId;
         if (siteVisitId !== null && !(await this.visits.find(requestId, siteVisitId, trx))) {
           throw new ValidationError('No such site visit', [{ path: 'siteVisitId', message: 'Choose one of the visits of this request' }]);

@@ -3,7 +3,7 @@ import { evaluateReadings, evaluateTripTime } from './evaluate-readings';
 import { maxGfciTripSeconds } from './gfci-trip-time';
 import { ReadingsSchema } from './readings.schema';
 import { voltageDropPercent, voltageDropVolts } from './voltage-drop';
-import { labelsApplyTo } from './reading-kinds';
+import { labelsApplyTo, missingProof, missingProofMessage, proofReadingsFor } from './reading-kinds';
 
 describe('maxGfciTripSeconds', () => {
   // UL 943: Class A GFCI maximum trip time T = (20/I)^1.43 s, I in mA, stated for 6–264 mA.
@@ -141,5 +141,40 @@ describe('labelsApplyTo', () => {
   it('offers the GFCI labels on receptacle items that take a GFCI test, not on panels, alarms or fixtures', () => {
     for (const code of ['open-ground', 'gfci-missing', 'gfci-inoperative'] as const) expect(labelsApplyTo(code)).toBe(true);
     for (const code of ['double-tap', 'smoke-co-alarm', 'reversed-polarity', 'open-junction-box'] as const) expect(labelsApplyTo(code)).toBe(false);
+  });
+});
+
+describe('missingProof', () => {
+  const gfciTest = { tripsOnTest: true, resets: true, downstreamProven: 0, tripTimeMs: null, testCurrentMa: null };
+  const tester = { polarityCorrect: true, groundPresent: true };
+
+  it('asks for the GFCI test of an installed or replaced GFCI (its listing instructions: UL 943 devices; NFPA 70 (NEC) 2023, 110.3(B))', () => {
+    expect(missingProof('gfci-missing', {})).toEqual(['gfci']);
+    expect(missingProof('gfci-inoperative', { receptacle: tester })).toEqual(['gfci']);
+    expect(missingProof('gfci-missing', { gfci: gfciTest })).toEqual([]);
+  });
+
+  it('asks for the plug-in tester on polarity, bootleg-ground and replaced receptacles (common practice)', () => {
+    for (const code of ['reversed-polarity', 'false-ground', 'receptacle-damaged'] as const) {
+      expect(missingProof(code, { gfci: null, receptacle: null })).toEqual(['receptacle']);
+      expect(missingProof(code, { receptacle: tester })).toEqual([]);
+    }
+  });
+
+  it('takes either reading for an open ground: a restored ground, or GFCI protection in its place (NFPA 70 (NEC) 2023, 406.4(D)(2))', () => {
+    expect(missingProof('open-ground', {})).toEqual(['receptacle', 'gfci']);
+    expect(missingProof('open-ground', { gfci: gfciTest })).toEqual([]);
+    expect(missingProof('open-ground', { receptacle: tester })).toEqual([]);
+  });
+
+  it('asks nothing of items a test does not prove (a cover plate, a panel screw, an alarm)', () => {
+    for (const code of ['cover-plate-missing', 'panel-deficiency', 'smoke-co-alarm', 'double-tap'] as const) {
+      expect(proofReadingsFor(code)).toEqual([]);
+      expect(missingProof(code, {})).toEqual([]);
+    }
+  });
+
+  it('names the readings that would do in its message', () => {
+    expect(missingProofMessage(['receptacle', 'gfci'])).toBe('Take the “Polarity and ground” or the “GFCI test” reading: a corrected item of this kind is proven by its test');
   });
 });

@@ -79,4 +79,25 @@ describe('CorrectionForm', () => {
     expect(record).toMatchObject({ outcome: 'corrected', reason: 'Re-tested after tightening the terminals: 22 ms' });
     expect(record.readings.receptacle).toBeNull();
   });
+
+  it('records "corrected" on a GFCI item only with its GFCI test (its listing instructions: UL 943 devices; NFPA 70 (NEC) 2023, 110.3(B))', async () => {
+    const fixture = await render();
+    const host: HTMLElement = fixture.nativeElement;
+    expect(host.querySelector('[data-testid="proof-needed"]')?.textContent).toContain('GFCI test');
+    type(host, 'correction-work', 'Replaced the GFCI receptacle');
+    (host.querySelector('[data-testid="correction-save"]') as HTMLButtonElement).click();
+    fixture.detectChanges();
+    expect(recordCorrection).not.toHaveBeenCalled();
+    expect(host.querySelector('[data-testid="proof-error"]')?.textContent).toContain('Take the “GFCI test” reading');
+
+    (host.querySelector('[data-testid="readings-gfci"] mat-checkbox input') as HTMLInputElement).click();
+    fixture.detectChanges();
+    await fixture.whenStable();
+    expect(host.querySelector('[data-testid="proof-error"]')).toBeNull();
+    (host.querySelector('[data-testid="gfci-trips"] input') as HTMLInputElement).click();
+    (host.querySelector('[data-testid="gfci-resets"] input') as HTMLInputElement).click();
+    (host.querySelector('[data-testid="correction-save"]') as HTMLButtonElement).click();
+    expect(recordCorrection).toHaveBeenCalledTimes(1);
+    expect(recordCorrection.mock.calls[0][2].readings.gfci).toMatchObject({ tripsOnTest: true, resets: true });
+  });
 });

@@ -27,6 +27,9 @@ import {
   RETURN_CAUSES,
   ReturnCause,
   labelsApplyTo,
+  missingProof,
+  missingProofMessage,
+  proofReadingsFor,
 } from '@cc/shared';
 import { applyIssues } from '../../core/forms/apply-issues';
 import { ErrorMessagePipe } from '../../core/forms/error-message';
@@ -88,6 +91,11 @@ export class CorrectionForm {
   protected readonly labelsApplyTo = labelsApplyTo;
   protected readonly sizes = CONDUCTOR_SIZES;
   protected readonly kindLabels = READING_KIND_LABELS;
+  /** The readings of which one proves a correction of this item (shown beside the readings). */
+  protected readonly proofKinds = computed(() => {
+    const item = this.item();
+    return item ? proofReadingsFor(item.code).map((k) => READING_KIND_LABELS[k]) : [];
+  });
   protected readonly codeLabel = codeLabel;
   protected readonly maxPhotoMb = MAX_PHOTO_BYTES / 1024 / 1024;
   protected readonly photoKinds = PHOTO_KINDS;
@@ -194,8 +202,10 @@ export class CorrectionForm {
       readings: isCorrected ? readingsOf(raw.readings, item.readingKinds) : {},
     };
     const parsed = RecordCorrectionSchema.safeParse(record);
-    if (!parsed.success) {
-      const unmatched = applyIssues(this.form, issuesOf(parsed.error));
+    const unproven = parsed.success && isCorrected ? missingProof(item.code, parsed.data.readings) : [];
+    if (!parsed.success || unproven.length) {
+      const issues = parsed.success ? [{ path: 'readings', message: missingProofMessage(unproven) }] : issuesOf(parsed.error);
+      const unmatched = applyIssues(this.form, issues);
       this.formError.set(unmatched.length ? unmatched.map((i) => `${i.path}: ${i.message}`).join(' ') : 'Some fields need attention.');
       return;
     }
