@@ -203,6 +203,9 @@ describe('GET /api/requests', () => {
     expect(page0.body.items[0].closingDate >= page0.body.items[1].closingDate).toBe(true);
     const byText = await s.agent.get('/api/requests?q=birch');
     expect(byText.body.items.map((r: { city: string }) => r.city)).toEqual(['Birch Gap']);
+    // Whatever the case typed or stored (the searched text is kept in lower case).
+    const shouted = await s.agent.get('/api/requests?q=BIRCH%20gAP');
+    expect(shouted.body.items.map((r: { city: string }) => r.city)).toEqual(['Birch Gap']);
     const byReference = await s.agent.get(`/api/requests?q=${byText.body.items[0].reference}`);
     expect(byReference.body.items.map((r: { id: number }) => r.id)).toEqual([byText.body.items[0].id]);
     const drafts = await s.agent.get('/api/requests?status=draft,intake');

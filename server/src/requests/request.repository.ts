@@ -216,8 +216,10 @@ export class RequestRepository {
     if (filter.builtBefore) conditions.push(`${key}.year_built < ${p.add(filter.builtBefore)}`);
     if (filter.text) {
       const like = p.add(`%${filter.text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`);
-      const searched = isNamed ? 'v.search_text' : "(r.street || ' ' || r.city || ' ' || r.zip)";
-      conditions.push(filter.id !== null ? `(${searched} ILIKE ${like} OR ${id} = ${p.add(filter.id)})` : `${searched} ILIKE ${like}`);
+      // request_viewers keeps its searched text in lower case (migration 20261204060000): LIKE
+      // against the typed text in lower case finds what ILIKE would, without folding every row.
+      const matched = isNamed ? `v.search_text LIKE lower(${like})` : `(r.street || ' ' || r.city || ' ' || r.zip) ILIKE ${like}`;
+      conditions.push(filter.id !== null ? `(${matched} OR ${id} = ${p.add(filter.id)})` : matched);
     }
     const visible = `${isNamed ? 'request_viewers v' : 'repair_requests r'}${conditions.length ? ` WHERE ${conditions.join(' AND ')}` : ''}`;
 
