@@ -19,6 +19,8 @@ export function historyWriters(knex: Knex) {
     from: 'Closing Circuit <no-reply@closingcircuit.test>',
     // Signs the unsubscribe links of messages that are never sent (see markHistoryDelivered).
     secret: 'demo-history-is-never-sent',
+    // Demo history tells each outcome in its own (never sent) message.
+    gatherItemMessagesMs: 0,
   });
   return {
     activity,

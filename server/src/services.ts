@@ -77,6 +77,7 @@ export function createServices(db: Db, config: Config, readPool: pg.Pool | null 
     publicUrl: config.publicUrl,
     from: config.mail.from,
     secret: config.sessionSecret,
+    gatherItemMessagesMs: config.mail.gatherItemMessagesMs,
   });
   flow.listen(createFlowListener(activity, notifications));
   // The seller's side and the proof side tell people through the same notify(), in their transactions.

@@ -37,7 +37,7 @@ export default async function globalSetup(): Promise<void> {
   const baseUrl = `http://127.0.0.1:${port}`;
   const server = spawn(join(root, 'node_modules/.bin/tsx'), ['server/src/main.ts'], {
     cwd: root,
-    env: { ...process.env, PORT: String(port), PUBLIC_URL: baseUrl, NODE_ENV: 'test' },
+    env: { ...process.env, PORT: String(port), PUBLIC_URL: baseUrl, NODE_ENV: 'test', ITEM_MESSAGES_GATHER_MINUTES: '0' },
     stdio: ['ignore', 'inherit', 'inherit'],
   });
   (globalThis as { __serverProcess?: typeof server }).__serverProcess = server;

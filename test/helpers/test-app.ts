@@ -20,6 +20,8 @@ export function createTestApp(overrides: NodeJS.ProcessEnv = {}): TestApp {
     BCRYPT_ROUNDS: '4',
     PUBLIC_URL: 'http://portal.test',
     PORTAL_DIST: '/nonexistent',
+    // Each outcome's message at once; the gathering of outcomes is tested with its own setting.
+    ITEM_MESSAGES_GATHER_MINUTES: '0',
     DATABASE_URL: process.env.DATABASE_URL,
     ...overrides,
   });

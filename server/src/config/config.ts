@@ -64,6 +64,11 @@ const EnvSchema = z.object({
   OUTBOX_WORKER_NAME: z.string().min(1).max(100).optional(),
   /** How long a worker's claim on a message holds (a stopped worker's message is taken over after it). */
   OUTBOX_LEASE_MS: z.coerce.number().int().min(1_000).max(3_600_000).default(120_000),
+  /**
+   * Outcomes of items a contractor records within this many minutes of the first are told in one
+   * e-mail per person (0: one e-mail per outcome, at once).
+   */
+  ITEM_MESSAGES_GATHER_MINUTES: z.coerce.number().int().min(0).max(120).default(10),
   /** Hour of the day (UTC) after which the daily digest goes out. */
   DIGEST_HOUR_UTC: z.coerce.number().int().min(0).max(23).default(13),
   /** Card payments: a real secret key and webhook secret of the payment service. Without them the server
@@ -107,6 +112,7 @@ export interface Config {
     leaseMs: number;
     workerName: string | null;
     digestHourUtc: number;
+    gatherItemMessagesMs: number;
   };
 }
 
@@ -146,6 +152,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       leaseMs: e.OUTBOX_LEASE_MS,
       workerName: e.OUTBOX_WORKER_NAME ?? null,
       digestHourUtc: e.DIGEST_HOUR_UTC,
+      gatherItemMessagesMs: e.ITEM_MESSAGES_GATHER_MINUTES * 60_000,
     },
   };
 }

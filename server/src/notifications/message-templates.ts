@@ -1,6 +1,6 @@
 // The words of every e-mail, in one place: a subject, a few paragraphs and one link to the page in
 // the portal where the person acts. `renderMessage` lays them out as HTML and as plain text.
-import { CORRECTION_OUTCOME_LABELS, formatCents, formatCentsDelta, PARTY_ROLE_LABELS, type NotificationKind } from '@cc/shared';
+import { CORRECTION_OUTCOME_LABELS, CORRECTION_OUTCOMES, formatCents, formatCentsDelta, PARTY_ROLE_LABELS, type NotificationKind } from '@cc/shared';
 import type { NotifyInput, VisitWindow } from './notify-input';
 
 export interface RequestFacts {
@@ -26,6 +26,49 @@ const clockOf = (time: string) => {
 };
 /** `Wednesday, February 10, 2027, arriving between 8:00 AM and 10:00 AM`. */
 export const visitWindowText = (w: VisitWindow) => `${dayOf(w.date)}, arriving between ${clockOf(w.arrivalFrom)} and ${clockOf(w.arrivalTo)}`;
+
+/** An outcome as a sentence about an item or a count of items says it. */
+const OUTCOME_WORDS: Record<ItemOutcome['outcome'], string> = { corrected: 'corrected', 'not-corrected': 'could not be corrected', 'declined-on-site': 'declined on site' };
+
+/** One item's recorded outcome, as an `item-corrected` message tells it. */
+export type ItemOutcome = Pick<Extract<NotifyInput, { kind: 'item-corrected' }>, 'itemId' | 'itemLabel' | 'outcome'>;
+
+/**
+ * The words of an `item-corrected` message: one outcome, or the outcomes the contractor recorded
+ * within a few minutes of each other, gathered into one message (NotificationsService).
+ */
+export function outcomesWords(r: RequestFacts, outcomes: readonly ItemOutcome[]): MessageWords {
+  const action = { label: outcomes.length > 1 ? 'See the items' : 'See the item', path: `/requests/${r.id}/work` };
+  const next = 'The completion letter follows once every approved item has an outcome.';
+  if (outcomes.length === 1) {
+    const [one] = outcomes;
+    return {
+      subject: `${r.reference}: ${one.itemLabel} — ${CORRECTION_OUTCOME_LABELS[one.outcome].toLowerCase()}`,
+      paragraphs: [
+        {
+          corrected: `The contractor recorded “${one.itemLabel}” at ${r.address} as corrected, with photos and test readings.`,
+          'not-corrected': `The contractor could not correct “${one.itemLabel}” at ${r.address}; the reason is on the visits and proof page.`,
+          'declined-on-site': `“${one.itemLabel}” at ${r.address} was declined on site; the reason is on the visits and proof page.`,
+        }[one.outcome],
+        next,
+      ],
+      action,
+    };
+  }
+  const counts = CORRECTION_OUTCOMES.flatMap((o) => {
+    const n = outcomes.filter((i) => i.outcome === o).length;
+    return n ? [`${n} ${OUTCOME_WORDS[o]}`] : [];
+  });
+  return {
+    subject: `${r.reference}: ${outcomes.length} items recorded — ${counts.join(', ')}`,
+    paragraphs: [
+      `The contractor recorded the outcome of ${outcomes.length} items at ${r.address}; photos, test readings and any reasons are on the visits and proof page:`,
+      ...outcomes.map((i) => `• ${i.itemLabel}: ${OUTCOME_WORDS[i.outcome]}`),
+      next,
+    ],
+    action,
+  };
+}
 
 /** The words of one message about request `r`. */
 export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
@@ -142,21 +185,8 @@ export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
         ],
         action: { label: 'See the visit', path: workPage },
       };
-    case 'item-corrected': {
-      const outcome = CORRECTION_OUTCOME_LABELS[input.outcome].toLowerCase();
-      return {
-        subject: `${r.reference}: ${input.itemLabel} — ${outcome}`,
-        paragraphs: [
-          {
-            corrected: `The contractor recorded “${input.itemLabel}” at ${r.address} as corrected, with photos and test readings.`,
-            'not-corrected': `The contractor could not correct “${input.itemLabel}” at ${r.address}; the reason is on the visits and proof page.`,
-            'declined-on-site': `“${input.itemLabel}” at ${r.address} was declined on site; the reason is on the visits and proof page.`,
-          }[input.outcome],
-          'The completion letter follows once every approved item has an outcome.',
-        ],
-        action: { label: 'See the item', path: workPage },
-      };
-    }
+    case 'item-corrected':
+      return outcomesWords(r, [input]);
     case 'letter-issued':
       return {
         subject: `${r.reference}: completion letter ${input.letterNumber}${input.revision > 1 ? ` revision ${input.revision}` : ''} issued for ${r.address}`,

@@ -19,7 +19,7 @@ import {
 import type { NewActivity, ActivityRepository } from '../activity/activity.repository';
 import type { Db, Trx } from '../db/knex';
 import { NotFoundError, ValidationError } from '../errors';
-import { footerFor, layOut, wordsFor, type RequestFacts } from './message-templates';
+import { footerFor, layOut, outcomesWords, wordsFor, type MessageWords, type RequestFacts } from './message-templates';
 import { occurrenceOf, type NotifyInput } from './notify-input';
 import type { NewOutboxMessage, OutboxRepository } from './outbox.repository';
 import type { PreferencesRepository } from './preferences.repository';
@@ -31,6 +31,8 @@ export interface MailSettings {
   from: string;
   /** Signs unsubscribe links. */
   secret: string;
+  /** How long an item's outcome waits for more outcomes of the same request to share its e-mail (0: not at all). */
+  gatherItemMessagesMs: number;
 }
 
 interface Recipient {
@@ -92,19 +94,30 @@ export class NotificationsService {
     const words = wordsFor(input, facts);
     const messages: NewOutboxMessage[] = [];
     const told: string[] = [];
+    let regathered = 0;
+    let repeated = 0;
     for (const person of people) {
       const delivery = person.userId === null ? 'immediate' : deliveries.get(person.userId)!;
       if (delivery === 'off') continue;
       const key = hash(`${input.kind}|${input.requestId}|${occurrenceOf(input)}|${person.userId ?? person.email}`);
-      const message = layOut(
-        { ...words, action: { label: words.action.label, url: `${this.settings.publicUrl}${words.action.path}` } },
-        {
-          publicUrl: this.settings.publicUrl,
-          recipientName: person.name,
-          footer: footerFor(input.kind),
-          footerLink: input.kind === 'invitation' ? null : { label: 'Choose which messages you get', url: `${this.settings.publicUrl}/account` },
-        },
-      );
+      if (input.kind === 'item-corrected' && delivery === 'immediate' && person.userId !== null && this.settings.gatherItemMessagesMs > 0) {
+        // An outcome joins the message still waiting for this person's outcomes of the request, if any.
+        const waiting = await this.outbox.gathering(input.requestId, person.userId, trx);
+        if (waiting) {
+          const outcomes = waiting.gathered ?? [];
+          if (outcomes.some((o) => o.itemId === input.itemId)) {
+            repeated++;
+            continue;
+          }
+          const all = [...outcomes, { itemId: input.itemId, itemLabel: input.itemLabel, outcome: input.outcome }];
+          const message = this.render(outcomesWords(facts, all), input.kind, person);
+          await this.outbox.regather(waiting.id, { subject: message.subject, text_body: message.text, html_body: message.html, link: message.link }, all, trx);
+          regathered++;
+          told.push(person.name ?? person.email);
+          continue;
+        }
+      }
+      const message = this.render(words, input.kind, person);
       messages.push({
         dedupe_key: key,
         kind: input.kind,
@@ -117,12 +130,18 @@ export class NotificationsService {
         link: message.link,
         message_id: this.messageId(key),
         status: delivery === 'digest' ? 'held' : 'pending',
+        ...(input.kind === 'item-corrected'
+          ? {
+              gathered: JSON.stringify([{ itemId: input.itemId, itemLabel: input.itemLabel, outcome: input.outcome }]),
+              next_attempt_at: trx.raw('now() + make_interval(secs => ?::double precision / 1000)', [this.settings.gatherItemMessagesMs]),
+            }
+          : {}),
       });
       told.push(person.name ?? person.email);
     }
-    const written = await this.outbox.enqueue(messages, trx);
+    const written = (await this.outbox.enqueue(messages, trx)) + regathered;
     const group = ACTIVITY_OF[input.kind];
-    if (group && (written > 0 || messages.length === 0)) {
+    if (group && (written > 0 || (messages.length === 0 && repeated === 0))) {
       const entry: NewActivity = {
         requestId: input.requestId,
         itemId: input.kind === 'item-corrected' ? input.itemId : null,
@@ -137,6 +156,19 @@ export class NotificationsService {
       await this.activity.record(trx, entry);
     }
     return written;
+  }
+
+  /** One person's message: the words laid out as HTML and text with the greeting, footer and link. */
+  private render(words: MessageWords, kind: NotifyInput['kind'], person: Recipient) {
+    return layOut(
+      { ...words, action: { label: words.action.label, url: `${this.settings.publicUrl}${words.action.path}` } },
+      {
+        publicUrl: this.settings.publicUrl,
+        recipientName: person.name,
+        footer: footerFor(kind),
+        footerLink: kind === 'invitation' ? null : { label: 'Choose which messages you get', url: `${this.settings.publicUrl}/account` },
+      },
+    );
   }
 
   messageId(key: string): string {

@@ -1,6 +1,8 @@
 // The outbox: one row per message and person, written in the transaction of the change that causes
 // it; the worker claims rows with FOR UPDATE SKIP LOCKED, so several server processes share the work.
+import type { Knex } from 'knex';
 import type { Db, Trx } from '../db/knex';
+import type { ItemOutcome } from './message-templates';
 
 export type OutboxStatus = 'pending' | 'sending' | 'sent' | 'held' | 'digested' | 'failed' | 'skipped';
 
@@ -24,13 +26,15 @@ export interface OutboxRow {
   last_error: string | null;
   sent_at: Date | null;
   digest_id: string | null;
+  /** The outcomes an `item-corrected` message tells (several when gathered); null for other kinds. */
+  gathered: ItemOutcome[] | null;
   created_at: Date;
 }
 
 export type NewOutboxMessage = Pick<
   OutboxRow,
   'dedupe_key' | 'kind' | 'request_id' | 'recipient_user_id' | 'recipient_email' | 'subject' | 'text_body' | 'html_body' | 'link' | 'message_id'
-> & { status: 'pending' | 'held' };
+> & { status: 'pending' | 'held'; gathered?: string; next_attempt_at?: Knex.Raw };
 
 /** A claimed message: the row and the token that proves this worker holds it. */
 export interface ClaimedMessage {
@@ -47,6 +51,26 @@ export class OutboxRepository {
     if (!messages.length) return 0;
     const rows = await trx('outbox_messages').insert(messages).onConflict('dedupe_key').ignore().returning('id');
     return rows.length;
+  }
+
+  /**
+   * The `item-corrected` message to `userId` about `requestId` that still waits for more outcomes
+   * (not yet claimed by a worker), locked until the end of `trx` so that a worker cannot send it
+   * while an outcome is added; null when there is none.
+   */
+  async gathering(requestId: number, userId: number, trx: Trx): Promise<Pick<OutboxRow, 'id' | 'gathered'> | null> {
+    const row = await trx('outbox_messages')
+      .where({ kind: 'item-corrected', request_id: requestId, recipient_user_id: userId, status: 'pending', attempts: 0 })
+      .where('next_attempt_at', '>', trx.fn.now())
+      .orderBy('id', 'desc')
+      .forUpdate()
+      .first('id', 'gathered');
+    return row ?? null;
+  }
+
+  /** Writes a waiting message again with one more outcome (its words and the outcomes it tells). */
+  async regather(id: string, message: Pick<OutboxRow, 'subject' | 'text_body' | 'html_body' | 'link'>, gathered: readonly ItemOutcome[], trx: Trx): Promise<void> {
+    await trx('outbox_messages').where({ id }).update({ ...message, gathered: JSON.stringify(gathered) });
   }
 
   /**
