@@ -272,6 +272,45 @@ describe('GET /api/requests', () => {
     }
   });
 
+  it.each([
+    ['buyerAgent', 'closingDate', 'asc', ''],
+    ['buyerAgent', 'createdAt', 'desc', ''],
+    ['buyerAgent', 'street', 'desc', 'q=road'],
+    ['admin', 'status', 'asc', ''],
+    ['admin', 'street', 'asc', ''],
+    ['admin', 'closingDate', 'desc', 'status=draft,pricing'],
+  ] as const)('pages the %s’s list by key (%s %s %s): cursor by cursor, the same rows as page by page', async (who, sort, direction, filter) => {
+    const s = sessions[who];
+    const base = `/api/requests?pageSize=2&sort=${sort}&direction=${direction}${filter ? `&${filter}` : ''}`;
+    const byOffset: number[] = [];
+    for (let page = 0; ; page++) {
+      const res = await s.agent.get(`${base}&page=${page}`).expect(200);
+      byOffset.push(...res.body.items.map((r: { id: number }) => r.id));
+      if (res.body.items.length < 2) break;
+    }
+    const byKey: number[] = [];
+    let after: string | null = null;
+    for (let page = 0; page < 100; page++) {
+      const res: { body: { items: { id: number }[]; nextCursor: string | null } } = await s.agent.get(`${base}&page=${page}${after ? `&after=${after}` : ''}`).expect(200);
+      byKey.push(...res.body.items.map((r: { id: number }) => r.id));
+      after = res.body.nextCursor;
+      if (!after) break;
+    }
+    expect(byOffset.length).toBeGreaterThan(2);
+    expect(byKey).toEqual(byOffset);
+  });
+
+  it('refuses a cursor that is not one, or that belongs to another sort, with 400 on `after`', async () => {
+    const s = sessions.buyerAgent;
+    const { body } = await s.agent.get('/api/requests?pageSize=1&sort=street').expect(200);
+    expect(body.nextCursor).toEqual(expect.any(String));
+    for (const bad of [`sort=closingDate&after=${body.nextCursor}`, `sort=street&direction=desc&after=${body.nextCursor}`, 'after=bm90LWEtY3Vyc29y', 'after=%00', `sort=closingDate&after=${Buffer.from(JSON.stringify(['closingDate', 'asc', 'not a date', 1])).toString('base64url')}`]) {
+      const res = await s.agent.get(`/api/requests?pageSize=1&${bad}`);
+      expect(res.status).toBe(400);
+      expect(res.body.details[0].path).toMatch(/^(query\.)?after$/);
+    }
+  });
+
   it('tells the whole total on a page past the end', async () => {
     const s = sessions.buyerAgent;
     const first = await s.agent.get('/api/requests?pageSize=5&page=0').expect(200);
@@ -342,6 +381,24 @@ describe('GET /api/requests', () => {
     // request by status), without reading any item.
     expect(plan).toContain('repair_requests_pkey');
     expect(plan).not.toContain('line_items');
+  });
+
+  // Keyset paging (PostgreSQL documentation, "Row Constructor Comparison" and "Indexes and ORDER
+  // BY"): the page after a cursor starts in the sort's index at the cursor's row, instead of reading
+  // and skipping every row of the pages before it.
+  it.each([
+    ['buyerAgent', 'closingDate', 'asc'],
+    ['buyerAgent', 'createdAt', 'desc'],
+    ['contractor', 'street', 'asc'],
+    ['admin', 'status', 'desc'],
+  ] as const)('starts the %s’s page after a cursor (%s %s) inside the sort’s index', async (who, sort, direction) => {
+    const user = cast[who];
+    const viewer: Viewer = { id: user.id, role: user.role, organisationId: user.organisationId };
+    const after = { sortKey: sort === 'closingDate' ? '2027-01-01' : sort === 'createdAt' ? '2026-12-04 05:17:37.123456+00' : 'm', id: 5 };
+    const plan = await genericPlan(new RequestRepository(t.db).listStatement(viewer, { page: 7, pageSize: 25, sort, direction, statuses: [], text: '', id: null, after }));
+    expect(plan).toMatch(/Index (Only )?Scan (Backward )?using (request_viewers|repair_requests)_\w+/);
+    expect(plan).toMatch(/Index Cond: .*ROW\(/);
+    expect(plan).not.toMatch(/Seq Scan on (repair_requests|request_viewers)/);
   });
 
   it('reads a request’s items through the index of their request', async () => {

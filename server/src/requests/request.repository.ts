@@ -34,6 +34,17 @@ export interface RequestListFilter {
   id: number | null;
   /** Only houses built before this year (null or left out: any year). */
   builtBefore?: number | null;
+  /**
+   * Keyset paging: the page starts after this row of the same list (its sort key as the database
+   * writes it, and its id) instead of skipping `page * pageSize` rows.
+   */
+  after?: ListKey | null;
+}
+
+/** Where a list page ends: the last row's sort key (as text) and id. */
+export interface ListKey {
+  sortKey: string;
+  id: number;
 }
 
 export interface NewRepairRequest {
@@ -67,6 +78,14 @@ const SORT_COLUMNS: Record<RequestListFilter['sort'], string> = {
   createdAt: 'created_at',
   status: 'status',
   street: 'street',
+};
+
+/** Each sort column's type, for a sort key read back from a cursor. */
+const SORT_TYPES: Record<RequestListFilter['sort'], string> = {
+  closingDate: 'date',
+  createdAt: 'timestamptz',
+  status: 'text',
+  street: 'text',
 };
 
 /** Lists count their rows no further than this; beyond it they say "1,000+". */
@@ -182,14 +201,19 @@ export class RequestRepository {
    * for those rows only, and the total is counted no further than LIST_COUNT_CAP + 1 rows (then
    * `isTotalCapped`). Prepared once per connection with one plan for every viewer and page.
    */
-  async list(viewer: Viewer, filter: RequestListFilter): Promise<{ items: RepairRequestSummary[]; total: number; isTotalCapped: boolean }> {
+  async list(viewer: Viewer, filter: RequestListFilter): Promise<{ items: RepairRequestSummary[]; total: number; isTotalCapped: boolean; lastKey: ListKey | null }> {
     const statement = this.listStatement(viewer, filter);
-    type Row = SummaryRow & { n: string; ord: string | null };
+    type Row = SummaryRow & { n: string; ord: string | null; sort_key: string | null };
     const rows = this.readPool ? await readPrepared<Row>(this.readPool, statement) : await runStatement<Row>(this.db, statement);
     const counted = Number(rows[0]?.n ?? 0);
     const items: RepairRequestSummary[] = [];
-    for (const row of rows) if (row.ord !== null) items.push(toSummary(row));
-    return { items, total: Math.min(counted, this.countCap), isTotalCapped: counted > this.countCap };
+    let lastKey: ListKey | null = null;
+    for (const row of rows) {
+      if (row.ord === null) continue;
+      items.push(toSummary(row));
+      lastKey = { sortKey: row.sort_key ?? '', id: row.id };
+    }
+    return { items, total: Math.min(counted, this.countCap), isTotalCapped: counted > this.countCap, lastKey };
   }
 
   /**
@@ -228,16 +252,21 @@ export class RequestRepository {
     const isSearch = Boolean(filter.text);
     const [rows, rowId, sort] = isSearch ? ['matches m', 'm.id', `m.${sortColumn}`] : [visible, id, `${key}.${sortColumn}`];
     const order = `${sort} ${dir}, ${rowId} ${dir}`;
+    // Keyset paging: the rows after the last one of the previous page, found in the sort's index
+    // (a row comparison on the index's columns), instead of reading and skipping the earlier pages.
+    const after = filter.after ? `(${sort}, ${rowId}) ${dir === 'DESC' ? '<' : '>'} (CAST(${p.add(filter.after.sortKey)} AS ${SORT_TYPES[filter.sort]}), ${p.add(filter.after.id)})` : null;
+    const pageConditions = after ? (isSearch ? [after] : [...conditions, after]) : isSearch ? [] : conditions;
+    const pageRows = `${isSearch ? 'matches m' : isNamed ? 'request_viewers v' : 'repair_requests r'}${pageConditions.length ? ` WHERE ${pageConditions.join(' AND ')}` : ''}`;
     // The page's rows are read row by row through the primary key whatever the page size (OFFSET 0
     // keeps it a nested loop, also in a plan made once for any page), and the contractor's name by
     // its key (a join here was planned as a hash of every organisation per row).
     const matches = isSearch ? `matches AS MATERIALIZED (SELECT ${id} AS id, ${key}.${sortColumn} FROM ${visible}), ` : '';
     return {
       text: `WITH ${matches}page_ids AS (
-          SELECT ${rowId} AS id, row_number() OVER (ORDER BY ${order}) AS ord FROM ${rows}
-          ORDER BY ${order} LIMIT ${p.add(filter.pageSize)} OFFSET ${p.add(filter.page * filter.pageSize)}),
+          SELECT ${rowId} AS id, ${sort}::text AS sort_key, row_number() OVER (ORDER BY ${order}) AS ord FROM ${pageRows}
+          ORDER BY ${order} LIMIT ${p.add(filter.pageSize)} OFFSET ${p.add(after ? 0 : filter.page * filter.pageSize)}),
         counted AS (SELECT count(*) AS n FROM (SELECT 1 FROM ${rows} LIMIT ${p.add(this.countCap + 1)}) AS c)
-        SELECT counted.n, page_ids.ord, ${SUMMARY_COLUMNS.map((c) => `r.${c}`).join(', ')},
+        SELECT counted.n, page_ids.ord, page_ids.sort_key, ${SUMMARY_COLUMNS.map((c) => `r.${c}`).join(', ')},
           (SELECT o.name FROM organisations o WHERE o.id = r.contractor_organisation_id) AS contractor_name,
           ic.item_count, ic.open_work_count
         FROM counted

@@ -23,6 +23,7 @@ import {
 import type { z } from 'zod';
 import type { Db, Trx } from '../db/knex';
 import type { OrganisationRepository } from '../organisations/organisation.repository';
+import { decodeCursor, encodeCursor } from './list-cursor';
 import type { RequestRepository } from './request.repository';
 import type { UserRepository } from '../auth/user.repository';
 import { NotFoundError, ValidationError } from '../errors';
@@ -60,7 +61,7 @@ export class RequestsService {
   }
 
   async list(user: CurrentUser, query: z.output<typeof RepairRequestListQuerySchema>): Promise<Page<RepairRequestSummary>> {
-    const { items, total, isTotalCapped } = await this.requests.list(viewerOf(user), {
+    const { items, total, isTotalCapped, lastKey } = await this.requests.list(viewerOf(user), {
       page: query.page,
       pageSize: query.pageSize,
       sort: query.sort,
@@ -69,9 +70,11 @@ export class RequestsService {
       text: query.q,
       id: query.q ? parseRequestReference(query.q) : null,
       builtBefore: query.builtBefore ?? null,
+      after: query.after ? decodeCursor(query.after, query.sort, query.direction) : null,
     });
     const today = new Date().toISOString().slice(0, 10);
-    return { items: items.map((i) => this.withRisk(i, today)), total, isTotalCapped, page: query.page, pageSize: query.pageSize };
+    const nextCursor = lastKey && items.length === query.pageSize ? encodeCursor({ ...lastKey, sort: query.sort, direction: query.direction }) : null;
+    return { items: items.map((i) => this.withRisk(i, today)), total, isTotalCapped, page: query.page, pageSize: query.pageSize, nextCursor };
   }
 
   /** The build year and adopted edition of a request `user` may see (for code notes); 404 otherwise. */

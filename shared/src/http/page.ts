@@ -13,4 +13,9 @@ export interface Page<T> {
   isTotalCapped?: boolean;
   page: number;
   pageSize: number;
+  /**
+   * Lists paged by key: what to send as `after` for the page that follows this one (null when this
+   * page is not full, so nothing follows).
+   */
+  nextCursor?: string | null;
 }

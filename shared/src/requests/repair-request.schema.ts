@@ -52,6 +52,7 @@ export type CreateRepairRequest = z.input<typeof CreateRepairRequestSchema>;
 export type CreateRepairRequestParsed = z.output<typeof CreateRepairRequestSchema>;
 
 export const REQUEST_SORTS = ['closingDate', 'createdAt', 'status', 'street'] as const;
+export type RequestSort = (typeof REQUEST_SORTS)[number];
 
 export const RepairRequestListQuerySchema = PageQuerySchema.extend({
   sort: z.enum(REQUEST_SORTS).default('closingDate'),
@@ -70,6 +71,8 @@ export const RepairRequestListQuerySchema = PageQuerySchema.extend({
     .min(1700, 'Enter a year after 1700')
     .max(2100, 'Enter a year before 2100')
     .optional(),
+  /** Keyset paging: the `nextCursor` of the page before; `page` then only numbers the page. */
+  after: z.string().max(400).regex(/^[A-Za-z0-9_-]+$/, 'This page link is out of date: start again from the first page').optional(),
 });
 export type RepairRequestListQuery = z.input<typeof RepairRequestListQuerySchema>;
 

@@ -109,6 +109,37 @@ describe('RequestList', () => {
     req.flush(page([summary(21)], 45, 1));
   });
 
+  it('pages by key: the next page starts after the cursor the page before gave, and going back reuses the earlier one', async () => {
+    await render('agent');
+    expectList().flush({ ...page(Array.from({ length: 20 }, (_, i) => summary(i + 1)), 60), nextCursor: 'after-page-0' });
+    await settle();
+    const paginator = await loader.getHarness(MatPaginatorHarness);
+
+    await paginator.goToNextPage();
+    const second = expectList();
+    expect(second.request.params.get('after')).toBe('after-page-0');
+    expect(second.request.params.get('page')).toBe('1');
+    second.flush({ ...page(Array.from({ length: 20 }, (_, i) => summary(i + 21)), 60, 1), nextCursor: 'after-page-1' });
+    await settle();
+
+    await paginator.goToNextPage();
+    const third = expectList();
+    expect(third.request.params.get('after')).toBe('after-page-1');
+    third.flush({ ...page([summary(41)], 60, 2), nextCursor: null });
+    await settle();
+
+    await paginator.goToPreviousPage();
+    const back = expectList();
+    expect(back.request.params.get('after')).toBe('after-page-0');
+    back.flush({ ...page(Array.from({ length: 20 }, (_, i) => summary(i + 21)), 60, 1), nextCursor: 'after-page-1' });
+    await settle();
+
+    await paginator.goToPreviousPage();
+    const first = expectList();
+    expect(first.request.params.has('after')).toBe(false);
+    first.flush({ ...page(Array.from({ length: 20 }, (_, i) => summary(i + 1)), 60), nextCursor: 'after-page-0' });
+  });
+
   it('sorts on the server and starts again from the first page', async () => {
     await render('agent');
     expectList().flush(page(Array.from({ length: 20 }, (_, i) => summary(i + 1)), 45));

@@ -1,5 +1,5 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, effect, inject, linkedSignal, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, linkedSignal, signal, untracked } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -13,11 +13,11 @@ import { MatSortModule, Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { Router, RouterLink } from '@angular/router';
 import {
-  REQUEST_SORTS,
   REQUEST_STATUS_LABELS,
   REQUEST_STATUSES,
   RepairRequestListQuery,
   RepairRequestSummary,
+  RequestSort,
   RequestStatus,
 } from '@cc/shared';
 import { catchError, debounceTime, distinctUntilChanged, map, of, switchMap, tap } from 'rxjs';
@@ -30,7 +30,6 @@ import { StatusChip } from '../../ui/status-chip/status-chip';
 import { RequestsApi } from '../requests-api';
 import { AtRiskFlag } from '../at-risk-flag/at-risk-flag';
 
-type RequestSort = (typeof REQUEST_SORTS)[number];
 /** Build-year filters: years around which the code's protections changed (GFCI 1975 and 1987, the 2005 edition). */
 const BUILT_BEFORE_CHOICES = [1960, 1975, 1987, 2005] as const;
 const DEFAULT_SORT: Sort = { active: 'closingDate', direction: 'asc' };
@@ -96,16 +95,28 @@ export class RequestList {
   });
   protected readonly isLoading = signal(true);
 
+  /**
+   * Keyset paging: the cursor each page of the current list starts after, learnt from the page
+   * before it (`nextCursor`); a new sort, filter or page size starts the list again.
+   */
+  private readonly cursors = linkedSignal({
+    source: () => [this.sort(), this.statusFilter(), this.builtBefore(), this.search(), this.pageSize()] as const,
+    computation: () => new Map<number, string>(),
+  });
+
   protected readonly query = computed<RepairRequestListQuery>(() => {
     const sort = this.sort().direction ? this.sort() : DEFAULT_SORT;
+    const page = this.pageIndex();
     return {
-      page: this.pageIndex(),
+      page,
       pageSize: this.pageSize(),
       sort: sort.active as RequestSort,
       direction: sort.direction || 'asc',
       status: this.statusFilter().join(',') || undefined,
       q: this.search() || undefined,
       builtBefore: this.builtBefore() ?? undefined,
+      // Known once the page before was shown; otherwise the server counts `page` pages in.
+      after: page > 0 ? untracked(() => this.cursors().get(page)) : undefined,
     };
   });
 
@@ -120,7 +131,10 @@ export class RequestList {
           }),
         ),
       ),
-      tap(() => this.isLoading.set(false)),
+      tap((page) => {
+        this.isLoading.set(false);
+        if (page?.nextCursor) untracked(() => this.cursors()).set(page.page + 1, page.nextCursor);
+      }),
     ),
   );
   protected readonly rows = computed<RepairRequestSummary[]>(() => this.result()?.items ?? []);
