@@ -1,4 +1,5 @@
 import type { Browser, Page } from 'playwright-core';
+import { nextWeekday } from '../../seeds/data/next-weekday';
 import { expectAccessible, launchBrowser, openPage, portalUrl, screenshot, signInAs, tablesWiderThanViewport, watchConsole } from '../helpers/browser';
 
 jest.setTimeout(240_000);
@@ -53,7 +54,9 @@ describe('day economics', () => {
     await signInAs(page, SAM);
     await page.getByTestId('nav-economics').click();
     await page.getByTestId('economics-heading').waitFor();
-    await page.getByTestId('planned-day').filter({ hasText: 'Lee Park' }).first().click();
+    // The seeded day, not another day of Lee's another test may have booked (e.g. tomorrow, a Saturday).
+    const seededDay = new Date(`${nextWeekday()}T12:00:00Z`).toLocaleDateString('en-US', { weekday: 'short', month: 'short', day: 'numeric', timeZone: 'UTC' });
+    await page.getByTestId('planned-day').filter({ hasText: 'Lee Park' }).filter({ hasText: seededDay }).click();
     await page.getByTestId('pick-progress').waitFor();
     dayPath = new URL(page.url()).pathname + new URL(page.url()).search;
     expect(dayPath).toMatch(/^\/economics\?date=\d{4}-\d{2}-\d{2}&electricianId=\d+$/);
