@@ -84,7 +84,7 @@ const PANEL_CONTEXT = /panel|\bpnl\b|dead[- ]?front|load cent|breaker box|fuse b
 /** A bare "cover" next to a junction box is the box's cover, not a device cover plate. */
 const JBOX_WORD = /junction|j-?\s?box|\bbox(?:es)?\b/i;
 /** Old wiring that is out of service (common practice: only energized knob-and-tube is reported as a condition). */
-const WIRING_OUT_OF_USE = /\b(?:not energized|de-?energized|abandoned|tested dead|no longer (?:in use|energized|active|in service)|(?:was|were|has been|have been) (?:removed|replaced)|(?:was|were) cut)\b/i;
+const WIRING_OUT_OF_USE = /\b(?:not energized|de-?energized|abandoned|tested dead|no longer (?:in use|energized|active|in service)|(?:was|were|has been|have been) (?:removed|replaced)|(?:was|were|been) cut|cut (?:out|loose|off|back)|(?:came|taken|pulled|ripped) out|(?:nothing|not|none) (?:was |is )?(?:live|hot|energized)|(?:showed|read|detected) (?:nothing|no voltage)|(?:didn[’']?t|did not|could not|couldn[’']?t) find any|none (?:left|remaining|found in use|in use))\b/i;
 /** A smoke/CO alarm, or a "Smoke:" / "CO:" label standing for it in shorthand. */
 const SMOKE_OR_LABEL = String.raw`(?:${T.SMOKE}|(?:smoke|co)(?:\s*(?:\/|and|&)\s*co)?\s*:)`;
 /** An alarm past its service life: expired, end of life, chirping, older than ten years. */
@@ -515,7 +515,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       // Two-wire or cloth-covered cable is a wiring method of its own; at a three-slot receptacle it
       // is an open ground, so it is knob-and-tube only when the sentence says the wiring is that old
       // kind with no receptacle on it (common practice).
-      { re: rx`(?:ungrounded|two[- ]wire|2[- ]wire|cloth[- ](?:insulated|covered|sheathed)|fabric[- ](?:insulated|covered)|rubber[- ]insulated)\s+(?:legacy\s+|old(?:er)?\s+|original\s+|vintage\s+)?(?:wir(?:e|es|ing)|cables?|circuits?)\b`, unless: /\b(?:recep\w*|rcpts?|outlets?|three[- ](?:slot|prong)|3[- ](?:slot|prong)|grounded cable|patchwork|mix)\b/i },
+      { re: rx`(?:ungrounded|two[- ]wire|2[- ]wire|cloth[- ](?:insulated|covered|sheathed)|fabric[- ](?:insulated|covered)|rubber[- ]insulated)\s+(?:legacy\s+|old(?:er)?\s+|original\s+|vintage\s+)?(?:wir(?:e|es|ing)|cables?|circuits?)\b`, unless: /\b(?:recep\w*|rcpts?|outlets?|three[- ](?:slot|prong)|3[- ](?:slot|prong)|grounded cable|patchwork|mix|\d{1,2}\s*awg)\b/i },
     ],
   },
   {

@@ -93,7 +93,7 @@ export function parseReport(pages: readonly string[]): ParseResult {
       });
     }
   }
-  return { findings: mergeWiringMentions(mergeSummary(dropTitles(findings), inSummary)), skipped };
+  return { findings: mergeWiringMentions(mergeSummary(dropTitles(findings, joined), inSummary)), skipped };
 }
 
 /** A bare title ("8.2 Double Tap", "Open Grounds"): a few capitalised words with no verb. */
@@ -104,13 +104,18 @@ const TITLE_VERB = /\b(?:is|are|was|were|has|have|had|not|no|did|does)\b/i;
  * A finding read from a sub-heading that only names the defect ("8.2 Double Tap") is the heading of
  * the finding the next paragraph gives for the same code and room: one finding per defect.
  */
-function dropTitles(findings: Finding[]): Finding[] {
+function dropTitles(findings: Finding[], joined: string): Finding[] {
   return findings.filter((f, i) => {
     const next = findings[i + 1];
     const text = f.evidence.trim();
-    return !(next && next.code === f.code && next.room === f.room && next.start > f.end && TITLE.test(text) && !TITLE_VERB.test(text));
+    if (!TITLE.test(text) || TITLE_VERB.test(text)) return true;
+    // A title answered by a denial on the next line ("KNOB-AND-TUBE" / "None found in use.") reports nothing.
+    if (TITLE_DENIED.test(joined.slice(f.end, f.end + 40))) return false;
+    return !(next && next.code === f.code && next.room === f.room && next.start > f.end);
   });
 }
+/** A denial opening the text right after a title: "None found", "No", "Not present", "N/A". */
+const TITLE_DENIED = /^[\s:.-]*(?:none\b|no(?:ne)?\s+(?:found|observed|noted|seen|present)\b|not\s+(?:found|observed|present|applicable)\b|n\/a\b)/i;
 
 /** Wiring methods: a house has its aluminum or knob-and-tube wiring once, however often it is mentioned. */
 const WIRING_METHODS: ReadonlySet<string> = new Set(['knob-and-tube', 'aluminum-branch-wiring']);
@@ -123,6 +128,8 @@ const WIRING_METHODS: ReadonlySet<string> = new Set(['knob-and-tube', 'aluminum-
 function mergeWiringMentions(findings: Finding[]): Finding[] {
   return findings.filter((f, i) => {
     if (!WIRING_METHODS.has(f.code)) return true;
+    // A house-wide mention of a wiring method the report also places in a room is that same condition.
+    if (f.room === 'whole-house' && findings.some((g) => g.code === f.code && g.room !== 'whole-house' && g.room !== 'unknown')) return false;
     const earlier = findings.slice(0, i).filter((g) => g.code === f.code);
     if (earlier.length === 0) return true;
     const aboutOther = findings.some((g) => g !== f && g.start === f.start && g.code !== f.code);

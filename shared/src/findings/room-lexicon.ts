@@ -63,7 +63,7 @@ const LIGHTS_IN_CEILING = /\b(?:recessed|can|pot)\s+(?:can\s+)?(?:lights?|fixtur
 /** A place the inspector looked from ("From the attic we observed ...", "seen from the crawl space"). */
 const VANTAGE_BEFORE = /(?:^\s*|[.;]\s+)from\s+(?:the\s+)?$|\b(?:viewed|seen|observed|visible|looking)\s+from\s+(?:the\s+)?$/i;
 /** A verb of supply before a room: the room is served, not the place ("feeding the kitchen"). */
-const SERVED_BEFORE = /\b(?:feeding|feeds|serving|serves|supplying|supplies|powering|powers)\s+(?:the\s+)?$/i;
+const SERVED_BEFORE = /\b(?:feeding|feeds|serving|serves|supplying|supplies|powering|powers|(?:running|runs|routed|heading|headed|extending)\s+(?:up\s+|down\s+|over\s+)?(?:toward|towards|to|into))\s+(?:the\s+)?$/i;
 /** A device noun after the room: "serving the kitchen receptacles" names the devices' place. */
 const DEVICE_AFTER = /^\s*(?:[\w-]+\s+)?(?:receptacles?|outlets?|rcpts?|lights?|fixtures?|counters?|countertops?|switch(?:es)?|fans?|gfcis?|alarms?|smoke)\b/i;
 const REFERENCE_BEFORE = /(?:beneath|below|under|underneath|above|over|outside(?:\s+of)?)\s+(?:the\s+)?$/i;

@@ -48,7 +48,9 @@ const SEPARATOR = /,\s*|\s+(?:and|also|while|plus|as well as)\s+/gi;
 const LIST_BETWEEN = /^(?=.*(?:,|\band\b|&|\/|\bor\b))(?!.*\b(?:above|below|beneath|under|over|near|behind|beside|next|adjacent|off|of|from|inside|within|serving|serves?|feeding|feeds?|supplies|supplying|where|for|which|that)\b)(?:[\s,&/]*[\w'-]+){0,6}[\s,&/]*$/i;
 
 /** Words that limit a house-wide condition to the place named ("only in the garage", "within the addition"). */
-const LIMITED = /\b(?:only|addition|within|limited to|confined to|throughout the|circuit\s+\d+)\b/i;
+const LIMITED = /\b(?:only|addition|addn|within|limited to|confined to|throughout the(?!\s+(?:house|home|dwelling|building))|circuit\s+\d+|all other)\b|\bon\s+(?:the\s+)?(?!branch\b|all\b|most\b|\d)[\w/-]+(?:\s+[\w/-]+)?\s+circuits\b/i;
+/** "wired in knob-and-tube throughout, seen in the attic": the rooms named are where it was seen. */
+const THROUGHOUT = /\bthroughout(?:\s+the\s+(?:house|home|dwelling|building))?\s*(?:[,.;:)]|$)/i;
 
 /** Splits the sentence into one part per match: a match owns the text up to the next separator. */
 function segments(text: string, matches: readonly CodeMatch[], clauses: readonly Range[]): Range[] {
@@ -124,6 +126,7 @@ export function placeMatches(
       const first = inPart[0] ?? (rooms.some((r) => r.room === 'panel') ? rooms.find((r) => r.room === 'panel') : undefined);
       if (first?.room === 'panel') return [{ room: 'panel', location: readLocation(text, first), ...own }];
     }
+    if (match.rule.placeAnywhereInSentence && THROUGHOUT.test(text)) return [{ room: match.rule.defaultRoom ?? 'whole-house', location: '', ...own, isInferred: true }];
     if (match.rule.isHouseWide && !LIMITED.test(text)) return [{ room: match.rule.defaultRoom ?? 'whole-house', location: '', ...own, isInferred: true }];
     // A panel named beside another code's defect is a reference point ("cable run up to the panel").
     const group = listedGroup(text, mentionsIn(rooms, part).filter((m) => m.room !== 'panel'));

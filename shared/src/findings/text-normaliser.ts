@@ -209,6 +209,8 @@ function replacementFor(tokens: readonly Token[], i: number, source: string): st
   if (bare === 'too' && (TOO_PLURAL.test(next.replace(/\.$/, '')) || (TOO_MODIFIER.test(next) && TOO_PLURAL.test((tokens[i + 2]?.text.toLowerCase() ?? '').replace(/\.$/, ''))))) return '2';
   // "ext cord", "ext. cords": an extension cord, not the exterior.
   if ((bare === 'ext' || bare === 'extn') && /^cords?$/.test(next)) return 'extension';
+  // "Report #KT-24-0917", "Unit GFI-2": letters glued to a number by a hyphen, or after "#", are an identifier.
+  if (/^-\d/.test(source.slice(tokens[i].end, tokens[i].end + 2)) || /#\s?$/.test(gapBefore)) return null;
   if (Object.prototype.hasOwnProperty.call(SHORTHAND, lower) || Object.prototype.hasOwnProperty.call(SHORTHAND, bare)) {
     const key = Object.prototype.hasOwnProperty.call(SHORTHAND, lower) ? lower : bare;
     const word = SHORTHAND[key];

@@ -1,0 +1,46 @@
+import { parseText } from './report-parser';
+
+/** (code, room, quantity) of every finding. */
+function read(text: string) {
+  return parseText(text).findings.map((f) => [f.code, f.room, f.quantity]);
+}
+
+// Rules of the fifth tuning round (docs/parser.md, "Fifth round"). Each example is new text
+// written for this spec, not a sentence of the corpus.
+
+describe('wiring methods: what is in service and where (common practice: only energized knob-and-tube is reported)', () => {
+  it('reads a report number with letters glued to digits as an identifier, not shorthand', () => {
+    expect(read('Job #KT-31-2208 | 14 Mill Pond Road')).toEqual([]);
+  });
+
+  it('denies knob-and-tube that was cut out, taken out or found dead', () => {
+    expect(read('Crawl space: old porcelain knobs remain on the joists, but the runs have been cut loose and my tester showed nothing live.')).toEqual([]);
+    expect(read('The owner says the knob-and-tube came out in 1992 and I did not find any in the attic.')).toEqual([]);
+  });
+
+  it('denies a bare title answered by "None" on the next line', () => {
+    expect(read(['ELECTRICAL', 'KNOB-AND-TUBE', 'None found in use; the attic shows only modern NM cable.'].join('\n'))).toEqual([]);
+  });
+
+  it('reads "throughout" as house-wide: the rooms where it was seen are sample points', () => {
+    expect(read('The cottage is wired in knob-and-tube throughout, seen in the attic and in the cellar.')).toEqual([['knob-and-tube', 'whole-house', null]]);
+  });
+
+  it('passes over a room the wiring runs toward', () => {
+    expect(read('Live knob-and-tube runs along the basement joists, running toward the dining room.')).toEqual([['knob-and-tube', 'basement', null]]);
+  });
+
+  it('merges a house-wide mention with the same wiring method placed in a room', () => {
+    const text = ['Attic | Wiring | Energized knob-and-tube on the ceiling light runs', 'Whole house | Wiring | A mix of K&T and newer NM cable'].join('\n');
+    expect(read(text)).toEqual([['knob-and-tube', 'attic', null]]);
+  });
+
+  it('reads cloth-sheathed cable named with its size as a circuit description, not knob-and-tube', () => {
+    expect(read('Both of those circuits are run in 14 AWG cloth-sheathed cable.')).toEqual([]);
+  });
+
+  it('places aluminum wiring limited to an addition or to named circuits in that room', () => {
+    expect(read('DEN (1971 addn): solid Al branch circuits at the receptacles.')).toEqual([['aluminum-branch-wiring', 'living-area', null]]);
+    expect(read('Solid aluminum wiring is in use throughout the house.')).toEqual([['aluminum-branch-wiring', 'whole-house', null]]);
+  });
+});
