@@ -76,7 +76,8 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
 
   // A nameplate maximum stated without a rating beside it: the next sentence may give the rating.
   let ratings: CarriedRatings | null = null;
-  splitSentences(text).forEach((written, sentenceIndex) => {
+  splitSentences(text).forEach((source, sentenceIndex) => {
+    const written = rowCounts.length > 0 ? blankItemNumbers(source, rowCounts) : source;
     const sentence = normaliseText(written);
     const matches = matchCodes(sentence.text, { carried: ratings });
     ratings = matches.some((m) => m.computation !== undefined) ? null : { nameplate: nameplateMaximum(sentence.text), rating: deviceRating(sentence.text) };
@@ -172,6 +173,18 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
 }
 
 /** The quantity column's count for the table row a sentence starts in, or null. */
+/** The sentence with a table row's leading item number blanked (same length and offsets): it is no count. */
+function blankItemNumbers(sentence: MappedText, rowCounts: readonly RowCount[]): MappedText {
+  const numbered = rowCounts.filter((r) => r.itemNumberEnd !== undefined);
+  if (numbered.length === 0) return sentence;
+  let text = '';
+  for (let k = 0; k < sentence.text.length; k++) {
+    const at = sentence.offsets[k];
+    text += numbered.some((r) => r.start <= at && at < (r.itemNumberEnd ?? 0)) && /\d/.test(sentence.text[k]) ? ' ' : sentence.text[k];
+  }
+  return { text, offsets: sentence.offsets };
+}
+
 function rowCountOf(sentence: MappedText, rowCounts: readonly RowCount[]): number | null {
   const { start } = sourceRange(sentence);
   return rowCounts.find((r) => r.start <= start && start < r.end)?.count ?? null;

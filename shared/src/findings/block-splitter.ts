@@ -28,11 +28,15 @@ export interface Block {
 export interface RowCount {
   readonly start: number;
   readonly end: number;
-  readonly count: number;
+  /** null for a row that only carries an item number. */
+  readonly count: number | null;
+  /** End of the row's leading item number ("7 | Basement | ..."), which is an index, not a count. */
+  readonly itemNumberEnd?: number;
 }
 
 /** A table's quantity column heading. */
 const QUANTITY_HEADING = /^(?:qty\.?|quantity|count|no\.|#|number|units?)$/i;
+const ITEM_NUMBER_HEADING = /^(?:no\.|#|number)$/i;
 
 /** The cells of a table row (pipes, tabs or fixed-width columns), or null for a line that is no row. */
 function tableCells(line: string): string[] | null {
@@ -120,10 +124,13 @@ export function splitBlocks(joined: string): Block[] {
     const content = line.text.trim();
     const cells = content.length > 0 ? tableCells(line.text) : null;
     if (cells) {
-      const heading = cells.findIndex((c) => QUANTITY_HEADING.test(c));
+      // "No." or "#" heading the first column numbers the rows ("7 | Basement | ..."): an item number, not a count.
+      const heading = cells.findIndex((c, k) => QUANTITY_HEADING.test(c) && !(k === 0 && ITEM_NUMBER_HEADING.test(c)));
       if (heading !== -1) quantityColumn = heading;
       else if (quantityColumn !== null && /^\d{1,2}$/.test(cells[quantityColumn] ?? '') && Number(cells[quantityColumn]) > 0) {
         rowCounts.push({ start: line.start, end: line.end, count: Number(cells[quantityColumn]) });
+      } else if (quantityColumn !== 0 && /^\d{1,3}[.)]?$/.test(cells[0])) {
+        rowCounts.push({ start: line.start, end: line.end, count: null, itemNumberEnd: line.start + line.text.indexOf(cells[0]) + cells[0].length });
       }
     } else if (content.length > 0 && !NOISE_LINE.test(content) && !/^\s{8,}\S/.test(line.text)) {
       quantityColumn = null;

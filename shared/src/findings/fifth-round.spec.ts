@@ -44,3 +44,35 @@ describe('wiring methods: what is in service and where (common practice: only en
     expect(read('Solid aluminum wiring is in use throughout the house.')).toEqual([['aluminum-branch-wiring', 'whole-house', null]]);
   });
 });
+
+describe('counts (the writers\' rule: a number given, or one named device, is a count; a plural without a number is none)', () => {
+  it('reads a table\'s leading "No." or "#" column as item numbers, not counts', () => {
+    const text = ['No. | Location | Observation | Status', '9  | Garage | Junction box over the door has no cover | D', '10 | Den | Two receptacles by the sofa are loose | D'].join('\n');
+    expect(read(text)).toEqual([
+      ['open-junction-box', 'garage', 1],
+      ['receptacle-damaged', 'living-area', 2],
+    ]);
+  });
+
+  it('counts circuits or breakers listed by number ("Ckt 3 & ckt 6", "Bkr 11 & 13"); NFPA 70 (NEC) 2023, 240.4(D)', () => {
+    expect(read('Ckt 4 & ckt 7: 30A plug fuses on #14 Cu.')).toEqual([['overcurrent-mismatch', 'panel', 2]]);
+  });
+
+  it('reads "two of the breakers", "neither one" and "on all four"', () => {
+    expect(read('Two of the breakers on the left side are double tapped.')).toEqual([['double-tap', 'panel', 2]]);
+    expect(read('The deck receptacles have covers, but neither one is GFCI protected.')).toEqual([['gfci-missing', 'exterior', 2]]);
+    expect(read('In the den the tester shows an open ground on all four.')).toEqual([['open-ground', 'living-area', 4]]);
+  });
+
+  it('gives each listed place its own number ("three in the parlor and two in the bedroom")', () => {
+    expect(read('The tester showed an open ground at two receptacles in the kitchen and at three in the dining room.')).toEqual([
+      ['open-ground', 'kitchen', 2],
+      ['open-ground', 'dining', 3],
+    ]);
+  });
+
+  it('adds up a bracketed list after a plural device ("(four, plus one at the island)") or counts its places', () => {
+    expect(read('Kitchen counter receptacles (three, plus one at the peninsula) are not GFCI protected.')).toEqual([['gfci-missing', 'kitchen', 4]]);
+    expect(read('The exterior receptacles (porch and deck) have no in-use covers.')).toEqual([['weather-cover-missing', 'exterior', 2]]);
+  });
+});

@@ -72,6 +72,9 @@ export function readQuantity(text: string, articleLimit = Infinity): number | nu
 
 /** Like readQuantity, but tells a vague count ("several", "all") apart from none given. */
 export function readCount(text: string, articleLimit = Infinity, countable: RegExp = COUNTABLE): number | 'vague' | null {
+  // "an open ground on all four": a number after "all" that ends the clause counts the devices left unsaid.
+  const allOf = ALL_N.exec(text);
+  if (allOf) return NUMBER_WORDS[allOf[1].toLowerCase()] ?? Number(allOf[1]);
   const tokens = tokenize(text);
   for (let i = 0; i < tokens.length; i++) {
     const { word } = tokens[i];
@@ -93,11 +96,18 @@ export function readCount(text: string, articleLimit = Infinity, countable: RegE
     if (/^\d/.test(word) && tokens[i - 1]?.word === ':') return count;
     if (word === 'pair' && next !== 'of') continue;
     // "(4 of them)", "1 of 3 inop": the number before "of" is the count.
+    // "two of the breakers", "three of those": any number word before "of" counts ("neither of them" is two).
     if ((/^\d/.test(word) || word === 'one') && next === 'of' && /^(?:them|\d+|the)$/.test(tokens[i + 2]?.word ?? '')) return count;
+    if (word !== 'a' && word !== 'an' && word !== 'pair' && next === 'of' && (tokens[i + 2]?.word === 'them' || (/^(?:the|these|those|its|their)$/.test(tokens[i + 2]?.word ?? '') && isNounAhead(tokens, i + 2, countable)))) return count;
+    // "neither one is protected": both are meant.
+    if (word === 'neither' && next === 'one') return count;
+
     if (isNounAhead(tokens, i, countable)) return count;
   }
   return null;
 }
+
+const ALL_N = /\b(?:on|at|in|of)\s+all\s+(\d{1,2}|two|three|four|five|six|seven|eight|nine|ten|twelve)\s*(?:[.;,:)]|$)/i;
 
 function isNounAhead(tokens: Token[], i: number, countable: RegExp = COUNTABLE): boolean {
   for (let j = i + 1; j <= i + 1 + ALLOWED_BETWEEN && j < tokens.length; j++) {
@@ -159,11 +169,17 @@ export function findingQuantity(code: string, countText: string, articleLimit: n
   if (code === 'double-tap') countText = countText.replace(CONDUCTORS_UNDER_ONE, (m) => ' '.repeat(m.length));
   // A failed GFCI is counted in GFCIs, not in the receptacles left dead after it ("rcpts on that ckt dead (x3)").
   if (code === 'gfci-inoperative') countText = countText.replace(DEAD_AFTER_GFCI, (m) => ' '.repeat(m.length));
+  // A table row's leading item number ("7 | Basement | Junction box ...") is an index, not a count.
+  countText = countText.replace(ROW_NUMBER, (m) => ' '.repeat(m.length));
+  subjectText = subjectText.replace(ROW_NUMBER, (m) => ' '.repeat(m.length));
   const count = readCount(countText, articleLimit, code === 'exposed-wiring' ? WIRING_COUNTABLE : COUNTABLE);
   if (typeof count === 'number') return count;
   if (count === 'vague') return null;
   // "the front and rear receptacles", "front+rear": two sides named, two devices.
   if (SIDE_PAIR.test(countText)) return 2;
+  // "Counter receptacles (four, plus one at the island)", "the exterior receptacles (front entry and patio)".
+  const listedInBrackets = bracketedCount(countText);
+  if (listedInBrackets !== null) return listedInBrackets;
   // "breakers at positions 4 and 9", "slots 12, 14 and 16": one device per number listed.
   const listed = INDEX_LIST.exec(countText);
   if (listed) return (listed[0].match(/\d{1,3}/g) ?? []).length;
@@ -187,11 +203,29 @@ export function findingQuantity(code: string, countText: string, articleLimit: n
   return ONE_DEVICE.has(code) ? 1 : null;
 }
 
+/** A plural device noun followed by a bracketed list of its parts. */
+const BRACKETED_LIST = /\b(?:receptacles|outlets|rcpts|covers|lights|fixtures|switches|plates|boxes|alarms|detectors|fans|devices)\s*\(([^()]{3,80})\)/i;
+const LIST_NUMBER = /\b(\d{1,2}|one|two|three|four|five|six|seven|eight|nine|ten)\b(?!\s*(?:a|amps?|v|volts?|awg|ft|feet|in|inch(?:es)?|years?)\b|-)/gi;
+/** The count a bracketed list gives: its numbers added up, or one per listed place when it has none. */
+function bracketedCount(text: string): number | null {
+  const m = BRACKETED_LIST.exec(text);
+  if (!m) return null;
+  const inside = m[1];
+  if (!/,|\band\b|&|\+|\bplus\b/i.test(inside)) return null;
+  const numbers = scanAll(LIST_NUMBER, inside).map((n) => (/^\d/.test(n[1]) ? Number(n[1]) : NUMBER_WORDS[n[1].toLowerCase()]));
+  if (numbers.length > 0) return numbers.length > 1 ? numbers.reduce((a, b) => a + b, 0) : null;
+  const items = inside.split(/,|\band\b|&|\+/i).map((x) => x.trim()).filter((x) => x.length > 0);
+  return items.length >= 2 && items.length <= 6 && items.every((x) => x.split(/\s+/).length <= 4) ? items.length : null;
+}
+
 const SIDE = String.raw`(?:front|rear|back|side|left|right|north|south|east|west|upper|lower)`;
 /** Two sides named together before a plural device noun. */
 const SIDE_PAIR = new RegExp(String.raw`\b${SIDE}\s*(?:and|&|\+|\/)\s*${SIDE}\b(?:\s+[\w-]+){0,2}?\s+(?:receptacles|outlets|rcpts|covers|lights|fixtures|switches|plates|boxes|alarms|fans)\b`, 'i');
 /** Numbered positions listed after an index word. */
-const INDEX_LIST = /\b(?:positions|slots|spaces|circuits|breakers)\s+#?\d{1,3}(?:\s*,\s*#?\d{1,3})*\s*,?\s*(?:and|&)\s*#?\d{1,3}\b/i;
+const INDEX_WORD = String.raw`(?:positions?|slots?|spaces?|circuits?|breakers?|fuses?)`;
+const INDEX_LIST = new RegExp(String.raw`\b${INDEX_WORD}\s+#?\d{1,3}(?:\s*,\s*(?:${INDEX_WORD}\s+)?#?\d{1,3})*\s*,?\s*(?:and|&)\s*(?:${INDEX_WORD}\s+)?#?\d{1,3}\b(?!\s*(?:a|amps?|amperes?|v|volts?|awg|ga)\b|-)`, 'i');
+/** A table row's leading item number: "7 | ...", "12\t...". */
+const ROW_NUMBER = /(?:^|\n)\s*\d{1,3}[.)]?\s*(?=\||\t)/g;
 const LEADING_LABEL = /^\s*[A-Za-z][\w /&-]{0,30}:\s+(?=\S)/;
 
 function deviceNouns(code: string, text: string): RegExpExecArray[] {

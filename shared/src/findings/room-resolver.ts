@@ -131,10 +131,13 @@ export function placeMatches(
     // A panel named beside another code's defect is a reference point ("cable run up to the panel").
     const group = listedGroup(text, mentionsIn(rooms, part).filter((m) => m.room !== 'panel'));
     if (group.length > 1) {
+      // "three receptacles in the parlor and two in the front bedroom": each place's own number, when every place has one.
+      const counts = group.map((m, j) => placeCount(text.slice(j === 0 ? part.start : group[j - 1].end, m.start)));
+      const eachCounted = counts.every((c) => c !== null);
       return group.map((m, j) => ({
         room: m.room,
         location: readLocation(text, m),
-        countText: text.slice(j === 0 ? part.start : group[j - 1].end, m.end),
+        countText: eachCounted ? `${counts[j]} ${PLACE_COUNT_NOUN}` : text.slice(j === 0 ? part.start : group[j - 1].end, m.end),
         laterText: '',
         articleLimit: Infinity,
       }));
@@ -157,6 +160,19 @@ export function placeMatches(
     if (sectionRoom) return [{ room: sectionRoom, location: context.sectionTitle ?? '', ...own, isInferred: true }];
     return [{ room: match.rule.defaultRoom ?? 'unknown', location: '', ...own, isInferred: true }];
   });
+}
+
+const PLACE_COUNT_WORDS: Readonly<Record<string, number>> = { one: 1, two: 2, three: 3, four: 4, five: 5, six: 6, seven: 7, eight: 8, nine: 9, ten: 10 };
+/** A number just before a listed place ("two in the", "at three receptacles in the front"). */
+const PLACE_COUNT = /\b(\d{1,2}|one|two|three|four|five|six|seven|eight|nine|ten)\s+(?:[\w-]+\s+){0,2}?(?:in|at|on)\s+(?:the\s+)?(?:[\w-]+\s+){0,2}$/i;
+/** The noun a place's own number is read with (the count reader needs a device after the number). */
+const PLACE_COUNT_NOUN = 'devices';
+function placeCount(before: string): number | null {
+  const m = PLACE_COUNT.exec(before);
+  if (!m || /^(?:\d{1,2})$/.test(m[1]) === false && PLACE_COUNT_WORDS[m[1].toLowerCase()] === undefined) return null;
+  const after = before.slice(m.index + m[1].length);
+  if (/^\s*(?:a|amps?|v|volts?|awg|ft|feet|inch(?:es)?|years?)\b|^-/i.test(after)) return null;
+  return /^\d/.test(m[1]) ? Number(m[1]) : PLACE_COUNT_WORDS[m[1].toLowerCase()];
 }
 
 function fixedLocation(text: string, rooms: readonly RoomMention[], part: Range, room: Room): string {
