@@ -111,10 +111,10 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
         const implied1 = counted === null && match === implied && place.room !== 'whole-house' && !isPluralPlace(sentence.text, rooms.find((r) => r.room === place.room)?.text ?? '') ? 1 : counted;
         const quantity = rowCount !== null && isCounted(match.rule.code) ? rowCount : implied1;
         // The grounding of a service is one system: a sentence naming its parts in two places is one defect.
-        const same = inSentence.find((f) => f.code === outdoorCode(match.rule.code, place.room) && (f.room === place.room || match.rule.panelIsPlace === true));
+        const same = inSentence.find((f) => f.code === outdoorCode(match.rule.code, place.room, sentence.text) && (f.room === place.room || match.rule.panelIsPlace === true));
         if (same) continue;
         inSentence.push({
-          code: outdoorCode(match.rule.code, place.room),
+          code: outdoorCode(match.rule.code, place.room, sentence.text),
           room: place.room,
           location: place.location,
           quantity,
@@ -194,9 +194,11 @@ function rowCountOf(sentence: MappedText, rowCounts: readonly RowCount[]): numbe
  * A receptacle outdoors with no cover, or a broken one, lacks the weatherproof cover a wet location
  * needs (NFPA 70 (NEC) 2023, 406.9(B)(1)), not just a cover plate.
  */
-function outdoorCode(code: FindingCode, room: Room): FindingCode {
-  return code === 'cover-plate-missing' && room === 'exterior' ? 'weather-cover-missing' : code;
+function outdoorCode(code: FindingCode, room: Room, sentence = ''): FindingCode {
+  // A switch plate outdoors is still a cover plate: weather covers are for receptacles (NFPA 70 (NEC) 2023, 406.9).
+  return code === 'cover-plate-missing' && room === 'exterior' && !SWITCH_PLATE.test(sentence) ? 'weather-cover-missing' : code;
 }
+const SWITCH_PLATE = /\bswitch\s+(?:cover\s+)?plates?\b/i;
 
 const RULE_BY_CODE = new Map(CODE_RULES.map((r) => [r.code, r]));
 function ruleOf(code: FindingCode): CodeRule | undefined {

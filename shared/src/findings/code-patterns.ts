@@ -80,7 +80,7 @@ const REFERS_TO_OTHERS = /\bif\b|\bany\b|\bshould any\b|\babove\b|\bbelow\b|\bfo
 export const WHOLE_SYSTEM = /^(?![\s\S]*\b(?:alumin\w*|knob|k&t|legacy|these|those)\b)[\s\S]*?(?:\b(?:entire|whole|full|complete|comprehensive|overall)\s+(?:[\w-]+\s+){0,2}?(?:system|house|home|wiring|evaluation|review)\b|\bevaluate the (?:electrical )?system\b)/i;
 /** An evaluation that points at other items, unless it is of the whole system ("so that any hidden conditions can be priced"). */
 const REFERS_TO_OTHERS_ONLY = new RegExp(`^(?![\\s\\S]*(?:${WHOLE_SYSTEM.source}))[\\s\\S]*?(?:${REFERS_TO_OTHERS.source})`, 'i');
-const PANEL_CONTEXT = /panel|\bpnl\b|dead[- ]?front|load cent|breaker box|fuse box|enclosure|\bko\b.{0,20}\bcan\b/i;
+const PANEL_CONTEXT = /panel|\bpnl\b|dead[- ]?front|load cent|breaker box|fuse box|enclosure|\bcabinet\b|\bko\b.{0,20}\bcan\b/i;
 /** A bare "cover" next to a junction box is the box's cover, not a device cover plate. */
 const JBOX_WORD = /junction|j-?\s?box|\bbox(?:es)?\b/i;
 /** Old wiring that is out of service (common practice: only energized knob-and-tube is reported as a condition). */
@@ -131,7 +131,7 @@ const WIRE_SOUND_OR_OTHER = /\b(?:properly|neatly|adequately|well) (?:secured|su
  */
 const SERVICE_OR_BOX_WIRES = /\bservice[- ]entrance\b|\bse cable\b|\bservice (?:drop|conductors?|cable)\b|\b(?:junction|j-?\s?box|jbox)\w*\b[^.;]{0,50}\bwires?\s+(?:are\s+)?(?:hanging|dangling|exposed|visible|pulled)/i;
 /** What goes wrong with a cable run (common practice): not secured, not protected, within reach of damage. */
-const WIRE_CONDITION = String.raw`(?:exposed to (?:physical )?damage|subject to (?:physical )?damage|unprotected|unsecured|unsupported|unstapled|(?:has\s+)?(?:come|came|coming|pulled|pulling) (?:loose|free|away)|(?:not|never) (?:clamped|secured|supported|stapled|strapped|fastened|protected)|loose\b|hang(?:s|ing)\b|dangl(?:es|ing)|draped|(?:hanging\s+)?in loops)`;
+const WIRE_CONDITION = String.raw`(?:(?:run|runs|running|left)\s+(?:bare|exposed|unprotected)\b|exposed to (?:physical )?damage|subject to (?:physical )?damage|unprotected|unsecured|unsupported|unstapled|(?:has\s+)?(?:come|came|coming|pulled|pulling) (?:loose|free|away)|(?:not|never) (?:clamped|secured|supported|stapled|strapped|fastened|protected)|loose\b|hang(?:s|ing)\b|dangl(?:es|ing)|draped|(?:hanging\s+)?in loops)`;
 /** A part of the grounding electrode system or of piping bonding (NFPA 70 (NEC) 2023, 250.50, 250.104). */
 const GROUND_PART = String.raw`(?:ground(?:ing)? electrode(?: conductor| system)?|ges\b|gec\b|(?:ground(?:ing)?|electrode)\s+(?:rods?|clamps?|wires?|conductors?)\b|(?:main\s+)?(?:water|gas|csst)(?:\s+(?:pipe|piping|line|main|service))?\s+bond(?:ing)?(?:\s+(?:jumper|clamp|wire|conductor|connection))?\b|bond(?:ing)?\s+(?:jumpers?|clamps?|conductors?|wires?|connections?)\b|acorn clamp)`;
 /** What goes wrong with a grounding or bonding part (common practice). */
@@ -358,6 +358,9 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:shelving|storage|shelves|cabinets?|freezer|furniture)\s+${gap(3)}within\s+\d+\s*(?:inches|in\.?|")\s+of\s+(?:the\s+)?panel` },
       { re: rx`(?:directory|legend|circuit labels?|labell?ing|entries)\s+${gap(3)}${T.BE}(?:faded|unreadable|illegible|outdated|out of date|wrong|incorrect)` },
       { re: rx`(?:knockouts?|fillers?|filler plates?)\s+${T.BE}(?:missing|open|absent)` },
+      { re: rx`(?:knockouts?|fillers?|filler plates?)\s+${gap(6)}${T.BE}(?:missing|open|absent)`, context: PANEL_CONTEXT },
+      // "the neutral bar and the interior of the enclosure show heavy white corrosion".
+      { re: rx`(?:enclosure|${T.PANEL}|breakers?|bus(?: bars?)?|neutral bar|lugs?|handles)\s+${gap(2)}(?:shows?|has|have|with)\s+(?:heavy\s+|white\s+|green\s+|some\s+|visible\s+|significant\s+){0,3}(?:corrosion|rust)` },
       { re: rx`(?:${T.NO}|incomplete|illegible|inaccurate)\s+(?:panel\s+|circuit\s+)*(?:directory|legend|labels?|labell?ing|identification)` },
       { re: rx`(?:directory|legend|circuit labels?|labell?ing)\s+${gap(3)}${T.BE}(?:${T.ABSENT}|incomplete|illegible|inaccurate|blank|empty|not (?:filled|completed))` },
       { re: rx`(?:circuits?|breakers?)\s+${gap(3)}${T.BE}(?:not|un)[- ]?(?:labell?ed|identified|marked)`, context: PANEL_CONTEXT },
@@ -400,6 +403,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       // A grounding or bonding part and its condition in the same clause, with other words between
       // ("ground wire to the water line at the water heater is loose", "GEC: clamp @ rod loose").
       { re: rx`${GROUND_PART}\s*[:-]?\s+${anyGap(12)}(?:${T.BE})?${GROUND_CONDITION}` },
+      // "GEC #6 Cu to rod: lug on panel ground bar loose": a labelled part, then its condition after the colon.
+      { re: rx`${GROUND_PART}\s+${anyGap(4)}[\w'/#().@-]+:\s+${anyGap(8)}(?:${T.BE})?${GROUND_CONDITION}` },
       // A part that should be there and was looked for: "none found", "could not be located" is the defect itself.
       { re: rx`${GROUND_PART}\s*[:-]?\s+${anyGap(8)}(?:${T.BE})?(?:none (?:found|located|observed|visible)|not (?:found|located|visible|observed|present|installed)|could not be (?:found|located|confirmed|verified|seen))` },
       { re: rx`(?:could\s?n[o']t|did\s?n[o']t|was unable to|were unable to|unable to)\s+(?:locate|find|confirm|verify|see|identify)\s+(?:a|an|the|any)?\s*${GROUND_PART}` },
@@ -465,6 +470,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       // A fan hung from a box that cannot carry it (NFPA 70 (NEC) 2023, 314.27(C)): "not rated to carry a fan", "no fan brace".
       { re: rx`fans?\s+${anyGap(12)}box\s+${anyGap(4)}(?:${T.BE})?not\s+(?:rated|listed|approved|designed)\s+(?:to\s+(?:carry|support|hold)|for)\s+(?:a\s+|the\s+)?(?:ceiling\s+)?fan` },
       { re: rx`(?:no|without|lacks?|missing)\s+(?:a\s+|any\s+)?(?:ceiling\s+)?fan[- ](?:rated\s+)?(?:brace|box|support|bracket)`, context: /\bfans?\b/i },
+      // A ceiling fan and its wobble in one clause, with its mounting described between ("hung from a j-box hook only, no brace, wobbles").
+      { re: rx`ceiling\s+fans?\s+(?:(?!(?:not|without|never|none|free|satisfactory|ok|operated|operate|operates)\b)[\w'/#().@-]+,?\s+){0,14}?(?<!\b(?:no|any|little|slight)\s)(?:wobbl\w*|sways|shakes)\b` },
     ],
   },
   {

@@ -76,3 +76,48 @@ describe('counts (the writers\' rule: a number given, or one named device, is a 
     expect(read('The exterior receptacles (porch and deck) have no in-use covers.')).toEqual([['weather-cover-missing', 'exterior', 2]]);
   });
 });
+
+describe('wording: panels, grounding, fans and cables described at length', () => {
+  it('reads open knockouts in the panel "cabinet" and corrosion the enclosure "shows" (NFPA 70 (NEC) 2023, 110.12(A), 312.5(A))', () => {
+    expect(read('Panel interior: open knockout at the bottom of the cabinet.')).toEqual([['panel-deficiency', 'panel', null]]);
+    expect(read('The bus bars and the inside of the enclosure show heavy white corrosion.')).toEqual([['panel-deficiency', 'panel', null]]);
+  });
+
+  it('reads a grounding part labelled before a colon with its condition after it (NFPA 70 (NEC) 2023, 250.70)', () => {
+    expect(read('GEC #4 Cu to rod: clamp on the rod loose, turns by hand.')).toEqual([['grounding-electrode', 'panel', null]]);
+  });
+
+  it('reads a ceiling fan and its wobble with its mounting described between, not a fan said to run without wobble (NFPA 70 (NEC) 2023, 314.27(C))', () => {
+    expect(read('Den ceiling fan hung from a j-box hook only, no brace, wobbles.')).toEqual([['fan-support', 'living-area', 1]]);
+    expect(read('Den ceiling fan operated at all speeds with no wobble.')).toEqual([]);
+  });
+
+  it('reads cable "run bare" across framing as exposed (NFPA 70 (NEC) 2023, 334.15(B))', () => {
+    expect(read('Garage: NM cable run bare across the face of the studs at 4 ft.')).toEqual([['exposed-wiring', 'garage', null]]);
+  });
+});
+
+describe('places, polarity and counts in passing', () => {
+  it('reads "the bedroom end of the hall" as the hall and a room "open to" another as its own', () => {
+    expect(read('The three-way switch at the bedroom end of the hall does not control the hall light.')).toEqual([['switch-issue', 'hallway', 1]]);
+    expect(read('The dining room is open to the kitchen, and the receptacle on its east wall is loose.')).toEqual([['receptacle-damaged', 'dining', 1]]);
+  });
+
+  it('keeps a cracked switch plate outdoors a cover plate (NFPA 70 (NEC) 2023, 406.9 is about receptacles)', () => {
+    expect(read('Exterior: the switch plate by the side door is cracked.')).toEqual([['cover-plate-missing', 'exterior', 1]]);
+  });
+
+  it('denies what "was allowed when this house was built"', () => {
+    expect(read('The opener receptacle on the garage ceiling is not GFCI protected, which was allowed when this house was built.')).toEqual([]);
+  });
+
+  it('reads a fraction as a measure, and a vague word spread over rooms as no count', () => {
+    expect(read('Primary bedroom ceiling fan wobbles, hung on a 1/2" pancake box.')).toEqual([['fan-support', 'bedroom', 1]]);
+    expect(read('No smoke alarms in any of the bedrooms; one alarm is in the hallway.')).toEqual([['smoke-co-alarm', 'bedroom', null]]);
+  });
+
+  it('reads checkbox columns ("[X][ ][ ]") as the start of a checklist item', () => {
+    const text = ['[ ][X][ ]  Hall lighting', '            Hall ceiling light inoperative.', '[X][ ][ ]  Bedrooms - AFCI breakers present, tested OK.'].join('\n');
+    expect(read(text)).toEqual([['light-fixture', 'hallway', 1]]);
+  });
+});

@@ -25,7 +25,7 @@ const PLURAL_COUNTABLE = /^(?:receptacles|outlets|devices|breakers|fuses|lights|
 /** Vague words that quantify only a noun that follows ("all receptacles"), not a manner ("at all speeds"). */
 const VAGUE_BEFORE_NOUN_ONLY = new Set(['all', 'every']);
 /** A word, a bracketed count ("(3)", "(x2)") or a punctuation mark. */
-const TOKEN = /\(\s*x?\d{1,3}\s*\)|[#]?[\w'%-]+|[:;,.]/g;
+const TOKEN = /\(\s*x?\d{1,3}\s*\)|\d+\/\d+|[#]?[\w'%-]+|[:;,.]/g;
 
 interface Token {
   readonly word: string;
@@ -84,7 +84,7 @@ export function readCount(text: string, articleLimit = Infinity, countable: RegE
     if (times) return Number(times[1] ?? times[2]);
     // "several receptacles" is vague; "wobbles at all speeds" says nothing about how many; a vague
     // word after the defect phrase speaks of something else ("... not GFCI protected, pushed test on every GFI").
-    if (VAGUE.has(word) && tokens[i].index >= articleLimit && !SPREAD_NOUN.test(tokens[i + 1]?.word ?? '')) continue;
+    if (VAGUE.has(word) && tokens[i].index >= articleLimit && !SPREAD_NOUN.test(spreadWord(tokens, i))) continue;
     if (VAGUE.has(word) && !isNumberAhead(tokens, i) && (isNounAhead(tokens, i, countable) || !VAGUE_BEFORE_NOUN_ONLY.has(word))) return 'vague';
     const count = countOf(word);
     if (count === null || count === 0) continue;
@@ -108,6 +108,11 @@ export function readCount(text: string, articleLimit = Infinity, countable: RegE
 }
 
 const ALL_N = /\b(?:on|at|in|of)\s+all\s+(\d{1,2}|two|three|four|five|six|seven|eight|nine|ten|twelve)\s*(?:[.;,:)]|$)/i;
+
+/** The word a vague word spreads over: the next one, or the noun after "of the" ("any of the bedrooms"). */
+function spreadWord(tokens: Token[], i: number): string {
+  return tokens[i + 1]?.word === 'of' && tokens[i + 2]?.word === 'the' ? (tokens[i + 3]?.word ?? '') : (tokens[i + 1]?.word ?? '');
+}
 
 function isNounAhead(tokens: Token[], i: number, countable: RegExp = COUNTABLE): boolean {
   for (let j = i + 1; j <= i + 1 + ALLOWED_BETWEEN && j < tokens.length; j++) {

@@ -66,7 +66,9 @@ const VANTAGE_BEFORE = /(?:^\s*|[.;]\s+)from\s+(?:the\s+)?$|\b(?:viewed|seen|obs
 const SERVED_BEFORE = /\b(?:feeding|feeds|serving|serves|supplying|supplies|powering|powers|(?:running|runs|routed|heading|headed|extending)\s+(?:up\s+|down\s+|over\s+)?(?:toward|towards|to|into))\s+(?:the\s+)?$/i;
 /** A device noun after the room: "serving the kitchen receptacles" names the devices' place. */
 const DEVICE_AFTER = /^\s*(?:[\w-]+\s+)?(?:receptacles?|outlets?|rcpts?|lights?|fixtures?|counters?|countertops?|switch(?:es)?|fans?|gfcis?|alarms?|smoke)\b/i;
-const REFERENCE_BEFORE = /(?:beneath|below|under|underneath|above|over|outside(?:\s+of)?)\s+(?:the\s+)?$/i;
+const REFERENCE_BEFORE = /(?:beneath|below|under|underneath|above|over|outside(?:\s+of)?|open to)\s+(?:the\s+)?$/i;
+/** "at the bedroom end of the hall": the room names an end of the place that follows. */
+const END_OF_AFTER = /^\s+(?:end|side)\s+of\s+(?:the\s+)?/i;
 /** "by the kitchen pass-through", "near the dining room archway": a room's opening as a landmark of another room. */
 const BESIDE_BEFORE = /(?:by|near|beside|next to|at|toward|towards)\s+(?:the\s+)?$/i;
 const OPENING_AFTER = /^\s*(?:pass[- ]?through|opening|archway)/i;
@@ -86,7 +88,8 @@ export function findRooms(text: string): RoomMention[] {
     const isReferencePoint =
       (REFERENCE_BEFORE.test(before) && !FIXTURE_AFTER.test(after) && !(hasVantage && LIGHTS_IN_CEILING.test(text.slice(Math.max(0, start - 50), start)))) ||
       (BESIDE_BEFORE.test(before) && OPENING_AFTER.test(after)) ||
-      VANTAGE_BEFORE.test(text.slice(Math.max(0, start - 30), start));
+      VANTAGE_BEFORE.test(text.slice(Math.max(0, start - 30), start)) ||
+      END_OF_AFTER.test(after);
     found.push({ room: ROOM_WORDS[i][0], start, end, text: m[0], isReferencePoint });
   }
   // A level or outbuilding named before a room is where that room is ("basement bedroom", "garage
