@@ -156,7 +156,7 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
       inSentence.length > 0 &&
       SAME_SUBJECT.test(sentence.text) &&
       !ANOTHER.test(sentence.text) &&
-      inSentence.every((f) => f.confidence === 'inferred' && !f.isRecommendation && f.computation === null && lastFound.some((g) => g.code === f.code && g.room === f.room));
+      inSentence.every((f) => f.confidence === 'inferred' && !f.isRecommendation && f.computation === null && [...lastFound, ...found].some((g) => g.code === f.code && g.room === f.room));
     if (lastFound.length > 0 && ((onlyFollowUp && FOLLOW_UP.test(sentence.text)) || isRepeat)) {
       // "This should be corrected by a licensed electrician.": part of the finding(s) before it.
       for (const f of lastFound) f.recommendations.push(written);

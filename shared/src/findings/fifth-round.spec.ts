@@ -121,3 +121,21 @@ describe('places, polarity and counts in passing', () => {
     expect(read(text)).toEqual([['light-fixture', 'hallway', 1]]);
   });
 });
+
+describe('grouping: lettered sub-items and a defect named again (common practice: one finding per defect)', () => {
+  it('reads sub-items that only say what to do, and "This is a false ground", as part of the item above (NFPA 70 (NEC) 2023, 250.130(C), 406.4(D)(2))', () => {
+    const text = [
+      '4.2  Receptacles',
+      '     4.2.1  Den, receptacle by the window: a jumper runs from the neutral screw to the ground screw.',
+      '            There is no ground wire in the box. This is a false ("bootleg") ground.',
+      '            a) Remove the jumper.',
+      '            b) Provide a true ground or GFCI-protect and label "No Equipment Ground."',
+    ].join('\n');
+    expect(read(text)).toEqual([['false-ground', 'living-area', 1]]);
+  });
+
+  it('reads a later item that only recommends the same correction as part of the finding before it', () => {
+    const text = ['Exterior: the receptacle at the deck is not GFCI protected.', '', 'Install a GFCI receptacle or breaker.'].join('\n');
+    expect(read(text)).toEqual([['gfci-missing', 'exterior', 1]]);
+  });
+});

@@ -43,6 +43,9 @@ export function parseReport(pages: readonly string[]): ParseResult {
   const pageOf = pageLocator(joined);
   const findings: Finding[] = [];
   const inSummary: boolean[] = [];
+  // Per finding: a follow-up with no place of its own (a recommendation, or the defect named again as "This is ...").
+  const isFollowUp: boolean[] = [];
+  const sectionOf: Array<string | null> = [];
   const skipped: SkippedText[] = [];
 
   for (const block of splitBlocks(joined)) {
@@ -72,10 +75,14 @@ export function parseReport(pages: readonly string[]): ParseResult {
       }
       continue;
     }
+    const followUp = (f: (typeof result.findings)[number]) => f.confidence === 'inferred' && f.computation === null && (f.isRecommendation || FOLLOW_UP_OPENING.test(f.sentence.text));
+    const allFollowUps = result.findings.every(followUp);
     for (const f of result.findings) {
       const range = sourceRange(f.sentence);
       const info = findingCodeInfo(f.code);
       inSummary.push(block.section.title !== null && SUMMARY_HEADING.test(block.section.title));
+      isFollowUp.push(allFollowUps);
+      sectionOf.push(block.section.title);
       findings.push({
         code: f.code,
         room: f.room,
@@ -93,7 +100,32 @@ export function parseReport(pages: readonly string[]): ParseResult {
       });
     }
   }
-  return { findings: mergeWiringMentions(mergeSummary(dropTitles(findings, joined), inSummary)), skipped };
+  const kept = dropFollowUps(findings, isFollowUp, sectionOf);
+  return { findings: mergeWiringMentions(mergeSummary(dropTitles(kept.findings, joined), kept.inSummary(inSummary))), skipped };
+}
+
+/** A sentence that names the defect just described again ("This is a false ground.", "False ground.") or only says what to do. */
+const FOLLOW_UP_OPENING = /^\s*(?:[Tt]his|[Tt]hat|[Ii]t)\s+(?:is|was)\b|^\s*(?:[Pp]rovide|[Ii]nstall|[Aa]dd|[Rr]eplace|[Rr]epair|[Cc]orrect|[Rr]emove|[Rr]e-?test|[Ll]abel|[Hh]ave)\b|^\s*(?:[A-Z][\w'-]*)(?:\s+[a-z(][\w'"()-]*){0,2}\.?\s*$/;
+
+/**
+ * An item with no place of its own that only recommends ("Install a GFCI receptacle or breaker.") or
+ * names again the defect of the item before it ("This is a false ground."), in the same section, is
+ * part of that finding, not another one; so is the usual remedy of that defect (an open-ground
+ * remedy after a false ground: NFPA 70 (NEC) 2023, 250.130(C) and 406.4(D)(2)).
+ */
+function dropFollowUps(findings: Finding[], isFollowUp: readonly boolean[], sectionOf: ReadonlyArray<string | null>) {
+  let lastKept = -1;
+  const keep = findings.map((f, i) => {
+    const prev = lastKept >= 0 && sectionOf[lastKept] === sectionOf[i] ? findings[lastKept] : null;
+    const rule = CODE_RULES.find((r) => r.code === f.code);
+    const isPart = isFollowUp[i] && prev !== null && (prev.code === f.code || rule?.yieldsTo?.includes(prev.code) === true || rule?.yieldsInBlockTo?.includes(prev.code) === true);
+    if (!isPart) lastKept = i;
+    return !isPart;
+  });
+  return {
+    findings: findings.filter((_, i) => keep[i]),
+    inSummary: (flags: readonly boolean[]) => flags.filter((_, i) => keep[i]),
+  };
 }
 
 /** A bare title ("8.2 Double Tap", "Open Grounds"): a few capitalised words with no verb. */
