@@ -48,7 +48,7 @@ const FOLLOW_UP = /\b(?:recommend\w*|install (?:the|a|an|new|proper|listed)\b|su
 /** A sentence about the device just named ("The fan ...", "It ..."). */
 const SAME_SUBJECT = /^(?:the|this|that|it)\b(?!\s+(?:other|second|third|next|remaining)\b)/i;
 /** Words that make it another device ("also", "another", "too"). */
-const ANOTHER = /\b(?:also|another|too|as well|second|other|additional|each|all|both)\b/i;
+const ANOTHER = /\b(?:also|another|too|as well|second|other|additional|each|(?<!\bat\s)all|both)\b/i;
 
 /** A sentence that points back to a place named before it ("It is not GFCI protected"). */
 const REFERS_BACK = /^(?:it|they|this|these|those|each|both|one|the same|also|and|there (?:is|are|was|were) also)\b/i;

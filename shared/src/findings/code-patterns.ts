@@ -82,7 +82,7 @@ export const WHOLE_SYSTEM = /^(?![\s\S]*\b(?:alumin\w*|knob|k&t|legacy|these|tho
 const REFERS_TO_OTHERS_ONLY = new RegExp(`^(?![\\s\\S]*(?:${WHOLE_SYSTEM.source}))[\\s\\S]*?(?:${REFERS_TO_OTHERS.source})`, 'i');
 const PANEL_CONTEXT = /panel|\bpnl\b|dead[- ]?front|load cent|breaker box|fuse box|enclosure|\bcabinet\b|\bko\b.{0,20}\bcan\b/i;
 /** A bare "cover" next to a junction box is the box's cover, not a device cover plate. */
-const JBOX_WORD = /junction|j-?\s?box|\bbox(?:es)?\b/i;
+const JBOX_WORD = /junction|j-?\s?box|(?<!\b(?:switch|device|outlet|receptacle)\s)\bbox(?:es)?\b/i;
 /** Old wiring that is out of service (common practice: only energized knob-and-tube is reported as a condition). */
 const WIRING_OUT_OF_USE = /\b(?:not energized|de-?energized|abandoned|tested dead|no longer (?:in use|energized|active|in service)|(?:was|were|has been|have been) (?:removed|replaced)|(?:was|were|been) cut|cut (?:out|loose|off|back)|(?:came|taken|pulled|ripped) out|(?:nothing|not|none) (?:was |is )?(?:live|hot|energized)|(?:showed|read|detected) (?:nothing|no voltage)|(?:didn[’']?t|did not|could not|couldn[’']?t) find any|none (?:left|remaining|found in use|in use))\b/i;
 /** A smoke/CO alarm, or a "Smoke:" / "CO:" label standing for it in shorthand. */
@@ -286,7 +286,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${T.NO}\s+(?:blank\s+)?(?:covers?|lids?)\s+(?:on|for)\s+(?:the\s+|an?\s+)?${T.JBOX}` },
       { re: rx`(?:splices?|spliced (?:wires|conductors)|wire nuts?)\s+${anyGap(6)}(?:outside(?:\s+of)?|not in|not within|not enclosed|without)\s+(?:in\s+)?(?:an?\s+|the\s+|any\s+)?(?:(?:approved|junction|electrical|enclosed)\s+)?(?:box|enclosure|junction box)` },
       { re: rx`(?:open|exposed|unenclosed|loose|taped)\s+(?:wire\s+)?splices?` },
-      { re: rx`(?:spliced?|splices|connections?|connected)\b\s+${anyGap(20)}(?:with\s+no|without(?:\s+an?)?|not\s+in(?:\s+an?)?|rather than (?:being\s+)?(?:enclosed\s+)?in(?:\s+an?)?|outside(?:\s+of)?(?:\s+(?:an?|any))?)\s+(?:junction\s+|electrical\s+)?(?:box|enclosure)` },
+      { re: rx`(?:spliced?|splices|connections?|connected)\b\s+${anyGap(20)}(?:(?:with\s+|and\s+)no|without(?:\s+an?)?|not\s+in(?:\s+an?)?|rather than (?:being\s+)?(?:enclosed\s+)?in(?:\s+an?)?|outside(?:\s+of)?(?:\s+(?:an?|any))?)\s+(?:junction\s+|electrical\s+)?(?:box|enclosure)` },
       { re: rx`(?:wrapped|taped)\s+(?:only\s+)?(?:in|with)\s+(?:electrical\s+)?tape` },
       // A box and its missing cover, or its visible splices, anywhere in the clause (terse notes and
       // table rows: "J-box above furnace, no cover, splices visible"; "Lid missing from junction box").

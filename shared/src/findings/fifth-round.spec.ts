@@ -139,3 +139,38 @@ describe('grouping: lettered sub-items and a defect named again (common practice
     expect(read(text)).toEqual([['gfci-missing', 'exterior', 1]]);
   });
 });
+
+describe('summaries in more shapes (common practice: a short list first, the same items described in the body)', () => {
+  it('reads "--- QUICK LIST: ITEMS NEEDING ATTENTION ---" as a summary and merges its item with the body', () => {
+    const text = [
+      '--- QUICK LIST: ITEMS NEEDING ATTENTION ---',
+      '* Loose receptacle (den)',
+      '',
+      '--- ELECTRICAL, FULL DETAIL ---',
+      'Den: the receptacle by the bookcase is loose in its box.',
+    ].join('\n');
+    expect(read(text)).toEqual([['receptacle-damaged', 'living-area', 1]]);
+  });
+
+  it('reads a summary heading with a long note in brackets after a dash ("SUMMARY - ELECTRICAL ITEMS (details follow ...)")', () => {
+    const text = [
+      'SUMMARY - ELECTRICAL ITEMS (details follow in the body of this report)',
+      '  1. Laundry - dryer receptacle cracked.',
+      '',
+      'BODY OF REPORT',
+      'ELECTRICAL - INTERIOR',
+      '  1. Laundry',
+      '     a. The dryer receptacle face is cracked across one slot.',
+    ].join('\n');
+    expect(read(text)).toEqual([['receptacle-damaged', 'laundry', 1]]);
+  });
+
+  it('reads wire-nut splices "and no junction box" as an open splice, and a cover plate by a switch box as a cover plate (NFPA 70 (NEC) 2023, 300.15, 406.6)', () => {
+    expect(read('Garage: two cables are spliced with wire nuts and no junction box.')).toEqual([['open-junction-box', 'garage', 2]]);
+    expect(read('Kitchen: cover plates are missing at two locations, the switch box by the slider and the receptacle by the range.')).toEqual([['cover-plate-missing', 'kitchen', 2]]);
+  });
+
+  it('reads "The fan wobbles at all speeds" after the fan\'s box as the same defect', () => {
+    expect(read('Den: the ceiling fan is mounted to a standard light-fixture box. The fan wobbles at all speeds.')).toEqual([['fan-support', 'living-area', 1]]);
+  });
+});
