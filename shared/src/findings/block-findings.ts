@@ -47,6 +47,8 @@ const FOLLOW_UP = /\b(?:recommend\w*|install (?:the|a|an|new|proper|listed)\b|su
 
 /** A sentence about the device just named ("The fan ...", "It ..."). */
 const SAME_SUBJECT = /^(?:the|this|that|it)\b(?!\s+(?:other|second|third|next|remaining)\b)/i;
+/** "That breaker is oversized ...": a demonstrative points back to the device just named, even at a fixed place. */
+const POINTS_BACK = /^(?:this|that|these|those|it)\b/i;
 /** Words that make it another device ("also", "another", "too"). */
 const ANOTHER = /\b(?:also|another|too|as well|second|other|additional|each|(?<!\bat\s)all|both)\b/i;
 
@@ -156,7 +158,13 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
       inSentence.length > 0 &&
       SAME_SUBJECT.test(sentence.text) &&
       !ANOTHER.test(sentence.text) &&
-      inSentence.every((f) => f.confidence === 'inferred' && !f.isRecommendation && f.computation === null && [...lastFound, ...found].some((g) => g.code === f.code && g.room === f.room));
+      inSentence.every(
+        (f) =>
+          (f.confidence === 'inferred' || (ruleOf(f.code)?.fixedRoom !== undefined && POINTS_BACK.test(sentence.text))) &&
+          !f.isRecommendation &&
+          f.computation === null &&
+          [...lastFound, ...found].some((g) => g.code === f.code && g.room === f.room),
+      );
     if (lastFound.length > 0 && ((onlyFollowUp && FOLLOW_UP.test(sentence.text)) || isRepeat)) {
       // "This should be corrected by a licensed electrician.": part of the finding(s) before it.
       for (const f of lastFound) f.recommendations.push(written);

@@ -147,7 +147,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /gfc?i|gcfi|ground[- ]fault|protected circuit/i,
     yieldsTo: ['gfci-inoperative', 'open-ground', 'false-ground', 'knob-and-tube'],
     patterns: [
-      { re: rx`(?:${T.NO}|not|non-?|none|(?:is|are|was|were)n[’']?t|neither\s+${anyGap(8)}(?:has|have|had|is|are|was|were))\s*${PF}${T.GFCI}` },
+      // "no GFCI or breaker was tripped": a look for a tripped device, not a missing protection.
+      { re: rx`(?:${T.NO}|not|non-?|none|(?:is|are|was|were)n[’']?t|neither\s+${anyGap(8)}(?:has|have|had|is|are|was|were))\s*${PF}${T.GFCI}(?!\s+(?:or\s+(?:\w+\s+)?breaker\s+)?(?:was|were|had been|has been)\s+tripped)` },
       // "... they are not protected, I tested them with my GFCI tester": a pronoun for the receptacles just named.
       { re: rx`(?:they|it)\s+(?:are|is|were|was)\s+not\s+protected\b`, context: /^(?=[\s\S]*\b(?:gfc?i|ground[- ]fault))(?=[\s\S]*\b(?:receptacles?|outlets?|rcpts?)\b)/i, unless: /afci|arc[- ]fault/i },
       { re: rx`none\s+of\s+(?:the\s+)?${gap(3)}${T.RCPT}\s+${gap(4)}(?:are|is|were|was|have|has|had)\s+${PF}${T.GFCI}` },

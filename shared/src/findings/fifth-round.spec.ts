@@ -174,3 +174,29 @@ describe('summaries in more shapes (common practice: a short list first, the sam
     expect(read('Den: the ceiling fan is mounted to a standard light-fixture box. The fan wobbles at all speeds.')).toEqual([['fan-support', 'living-area', 1]]);
   });
 });
+
+describe('numbered and lettered place labels (common practice: a report walks room by room in numbered items)', () => {
+  it('reads a numbered item that only names a place as the heading of the lettered items under it', () => {
+    const text = ['ELECTRICAL', '3. Office (converted sun porch)', '   a. (2) recep\'s w/ no cover plates, north wall.', '4. Hall bath', '   a. Lav recep not GFCI protected.'].join('\n');
+    expect(read(text)).toEqual([
+      ['cover-plate-missing', 'office', 2],
+      ['gfci-missing', 'bathroom', 1],
+    ]);
+  });
+
+  it('reads "A. Home office" as a place heading, but not a lettered summary item that names a device', () => {
+    const text = ['4. MAIN LEVEL', '   A. Home office', '      a. Receptacle on the desk wall tests reverse polarity.', '   B. Scorched kitchen receptacle'].join('\n');
+    expect(read(text)).toEqual([
+      ['reversed-polarity', 'office', 1],
+      ['receptacle-damaged', 'kitchen', 1],
+    ]);
+  });
+
+  it('reads "That breaker is oversized" after a computed finding as the same defect (NFPA 70 (NEC) 2023, 240.4(D))', () => {
+    expect(read('a. 20A bkr for the den circuit is on 14 ga copper.  That bkr is oversized for the wire.  Elec to swap bkr.')).toEqual([['overcurrent-mismatch', 'panel', 1]]);
+  });
+
+  it('reads "no GFCI or breaker was tripped" as a look for a tripped device, not a missing GFCI', () => {
+    expect(read('Dining room: the receptacle by the hutch is dead; no GFCI or breaker was tripped.')).toEqual([['receptacle-damaged', 'dining', 1]]);
+  });
+});

@@ -70,7 +70,7 @@ export type HeadingLine =
   /** `startsBody`: the label opens the report's body ("COMMENTS"), which ends a summary. */
   | { readonly type: 'label'; readonly startsBody?: boolean };
 
-const NUMBERING = /^\s*(?:section\s+)?(?:\d{1,2}(?:\.\d{1,2})*\.?|[ivx]{1,4}\.|[a-z]\))?\s*[-–—:.]?\s*/i;
+const NUMBERING = /^\s*(?:section\s+)?(?:\d{1,2}(?:\.\d{1,2})*\.?|[ivx]{1,4}\.|[a-z]\)|[A-Z]\.(?=\s))?\s*[-–—:.]?\s*/i;
 
 function isHeadingWord(w: string): boolean {
   return ELECTRICAL.has(w) || NON_ELECTRICAL.has(w) || ROOM_WORDS.has(w) || GENERAL.has(w) || FILLER.has(w) || /^\d+$/.test(w);
@@ -126,10 +126,15 @@ function summaryHeading(title: string, words: readonly string[]): HeadingLine | 
  * colon or every word is capitalised, and it reads as a label (no verb, no defect).
  */
 const LABEL_VERB = /\b(?:is|are|was|were|has|have|had|not|no|missing|loose|damaged|broken|open|inoperative|ok|tested|needs?)\b/i;
+/** A device or defect named in a label: then it is an item, not a place heading. */
+const DEVICE_WORD = /\b(?:receptacles?|outlets?|breakers?|switch(?:es)?|lights?|fans?|covers?|plates?|wiring|gfcis?|afcis?|alarms?|smoke|panels?|box(?:es)?|cords?|cables?|scorched|cracked|double|tapped|aluminum)\b/i;
 function roomLabel(line: string, title: string, words: readonly string[]): HeadingLine | null {
   if (words.length > 5 || LABEL_VERB.test(title)) return null;
-  const isCapitalised = title.split(/\s+/).every((w) => /^[\p{Lu}\d(]/u.test(w) || w.length <= 2);
-  if (!/:\s*$/.test(line) && !isCapitalised) return null;
+  // A bracketed note ("Office (converted sun porch)") is no part of the label's capitals.
+  const isCapitalised = title.replace(/\s*\([^()]*\)/g, '').split(/\s+/).every((w) => /^[\p{Lu}\d(]/u.test(w) || w.length <= 2);
+  // A numbered item that only names a place ("3. Office", "4. Hall bath") heads the lettered items under it.
+  const isNumberedPlace = /^\s*(?:\d{1,2}|[A-Za-z])[.)]\s+\S/.test(line) && words.length <= 4 && !DEVICE_WORD.test(title);
+  if (!/:\s*$/.test(line) && !isCapitalised && !isNumberedPlace) return null;
   const room = findRooms(title).find((r) => r.room !== 'panel')?.room ?? null;
   if (room === null) return null;
   return { type: 'heading', heading: { kind: 'room', title, room } };
