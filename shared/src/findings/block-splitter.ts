@@ -225,7 +225,10 @@ function joinLine(builder: MappedTextBuilder, prev: Line, next: Line, shortLine:
   // "polarity | Electrician"): the next line goes on in lower case.
   const continuesCell =
     (isTableRow(prev.text) && /^\s{16,}\S/.test(next.text) && !isTableRow(next.text) && !/[.!?:]$/.test(before) && !prev.text.includes('|') && !next.text.includes('\t')) ||
-    (prev.text.includes('|') && /^\p{Ll}/u.test(after) && !/[.!?:|]$/.test(before));
+    (prev.text.includes('|') && /^\p{Ll}/u.test(after) && !/[.!?:|]$/.test(before)) ||
+    // A pipe row whose first cell is empty goes on with the row above ("3 | Main panel | ... 10 AWG alum." /
+    // "  |   | conductors on a 30A 2-pole breaker |").
+    (prev.text.includes('|') && (/^\s*\|/.test(prev.text) ? /^\s*\|\s*\|/ : /^\s*\|/).test(next.text));
   const isBoundary =
     !continuesCell &&
     (/:$/.test(before) ||

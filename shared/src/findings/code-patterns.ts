@@ -380,9 +380,9 @@ export const CODE_RULES: readonly CodeRule[] = [
     // Polarity: neutrals and grounds together at the main service are correct ("which is correct at
     // the service equipment", "as permitted at the main"; NFPA 70 (NEC) 2023, 250.24(A)).
     patterns: [
-      { re: rx`(?:neutrals?|grounds?|n)(?:\s+(?:conductors?|wires?))?\s*(?:and|&|\/)\s*(?:neutrals?|grounds?|grounding|equipment grounds?|g)(?:\s+(?:conductors?|wires?))?\s+${gap(3)}(?:share|sharing|are on|on (?:the )?same|(?:landed |terminated )?together|combined|commingled|mixed|${T.BE}not (?:separated|isolated))`, unless: CORRECT_AT_SERVICE },
+      { re: rx`(?:neutrals?|grounds?|n)(?:\s+(?:conductors?|wires?))?\s*(?:and|&|\/|\+)\s*(?:neutrals?|grounds?|grounding|equipment grounds?|g)(?:\s+(?:conductors?|wires?))?\s+${gap(3)}(?:share|sharing|are on|on (?:the )?same|(?:landed |terminated )?together|combined|commingled|mixed|${T.BE}not (?:separated|isolated))`, unless: CORRECT_AT_SERVICE },
       { re: rx`(?:grounds?|ground wires|egcs?|equipment grounds?)\s+${gap(3)}(?:on|landed on|connected to|terminated on|share)\s+(?:the\s+)?neutral\s+(?:bar|bus)`, context: SUBPANEL_CONTEXT },
-      { re: rx`(?:bonding|bond|green)\s+(?:screw|strap|jumper)\s+${gap(3)}${T.BE}(?:present|installed|in place|not removed)`, context: SUBPANEL_CONTEXT, unless: /\b(?:not|never)\s+(?:been\s+)?(?:installed|present|in place)\b/i },
+      { re: rx`(?:bonding|bond|green)\s+(?:screw|strap|jumper)\s+${gap(3)}(?:${T.BE}(?:present|installed|in place|not removed)|in\b(?!\s+(?:the|a|an|place)\b))`, context: SUBPANEL_CONTEXT, unless: /\b(?:not|never)\s+(?:been\s+)?(?:installed|present|in place)\b/i },
       { re: rx`neutral\s+(?:bar|bus)?\s*${gap(2)}${T.BE}bonded\s+to\s+(?:the\s+)?(?:enclosure|case|can|cabinet|panel|ground)`, context: SUBPANEL_CONTEXT },
       { re: rx`no separate ground(?:ing)? (?:bar|bus)` },
     ],

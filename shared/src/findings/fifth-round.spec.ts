@@ -200,3 +200,30 @@ describe('numbered and lettered place labels (common practice: a report walks ro
     expect(read('Dining room: the receptacle by the hutch is dead; no GFCI or breaker was tripped.')).toEqual([['receptacle-damaged', 'dining', 1]]);
   });
 });
+
+describe('tables and computed overcurrent findings (NFPA 70 (NEC) 2023, 240.4(D) and 110.3(B))', () => {
+  it('reads a pipe row whose first cells are empty as the row above wrapped', () => {
+    const text = [
+      'No. | Location   | Observation                              | St.',
+      ' 4  | Main panel | Water heater circuit: 10 AWG alum.      | D',
+      '    |            | conductors on a 30A 2-pole breaker       |',
+    ].join('\n');
+    expect(read(text)).toEqual([['overcurrent-mismatch', 'panel', 1]]);
+  });
+
+  it('reads "A/C" as air conditioning, not amperes, before a nameplate in the next sentence', () => {
+    expect(read('Breakers 20/22: A/C condenser on a 2-pole 40A breaker. Condenser data plate: "MAX FUSE/BKR 30A".')).toEqual([['overcurrent-mismatch', 'panel', 1]]);
+  });
+
+  it('reads "Bkr #6" as a breaker number, not a wire size, and "#14" after a rating as the wire', () => {
+    expect(read('Panel (sub) | Bkr #6 | 20A breaker on #14 copper - oversized for wire | Replace w/ 15A')).toEqual([['overcurrent-mismatch', 'panel', 1]]);
+  });
+
+  it('reads a panel rating of 100 A or more beside small conductors as no branch rating', () => {
+    expect(read('Main panel (100A) | Slot 7: two 12 AWG Cu conductors under one 20A breaker terminal')).toEqual([]);
+  });
+
+  it('reads "Neutrals + grounds on same bar, bond screw in" in a subpanel (NFPA 70 (NEC) 2023, 250.24(A)(5))', () => {
+    expect(read('Panel (sub) | Basement subpanel 60A | Neutrals + grounds on same bar, bond screw in | Electrician')).toEqual([['subpanel-bonding', 'panel', null]]);
+  });
+});

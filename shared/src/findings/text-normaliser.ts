@@ -195,6 +195,8 @@ function replacementFor(tokens: readonly Token[], i: number, source: string): st
   const gapBefore = i > 0 ? source.slice(tokens[i - 1].end, tokens[i].start) : ' ';
   // "#12" → "12 AWG"; "12 ga", "12-gauge", "12g" → "12 AWG".
   const hash = /^#\s?(\d{1,2})$/.exec(text);
+  // "Bkr #6", "slot #14": after an index word the number names the device, not a wire size.
+  if (hash && /^\s+$/.test(gapBefore) && /^(?:bkrs?|brkrs?|breakers?|ckts?|circuits?|slots?|positions?|spaces?|no\.?|units?|items?|photos?|fuses?|cb)$/.test(prev)) return null;
   if (hash) return `${hash[1]} AWG`;
   const glued = /^(\d{1,2})(?:ga|g|awg)$/i.exec(text);
   if (glued) return `${glued[1]} AWG`;
