@@ -443,7 +443,9 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:bare|open|exposed|uncovered)\s+(?:incandescent\s+)?(?:bulbs?|lamps?)\b` },
       { re: rx`insulation\s+${gap(3)}(?:in contact with|touching|covering|over|on top of|against)\s+(?:the\s+)?${gap(2)}(?:recessed|can)\s+(?:lights?|fixtures?|cans?|housings?)` },
       // Common practice: a recessed housing not rated IC must keep its clearance from insulation.
-      { re: rx`(?:non-?ic|recessed|can)\s+(?:(?:light|lighting|fixture)\s+)?(?:housings?|fixtures?|lights?|cans?)\s+${gap(6)}(?:${T.BE})?(?:covered|buried|packed|surrounded)\s+(?:by|in|with|under)\b` },
+      { re: rx`(?:non-?ic|recessed|can)\s+(?:(?:light|lighting|fixture)\s+)?(?:housings?|fixtures?|lights?|cans?)\s+${gap(6)}(?:${T.BE})?(?:covered|buried|packed|surrounded)\s+(?:down\s+|over\s+)?(?:by|in|with|under)\b` },
+      // "can lights ... are the old non-IC type with blown cellulose piled on top of them" (common practice; NFPA 70 (NEC) 2023, 410.116(B)).
+      { re: rx`(?:recessed|can|pot)\s+(?:lights?|fixtures?|housings?|cans?)\s+${anyGap(8)}non-?ic\b`, context: /\b(?:insulation|cellulose|fiberglass|blown|batts?)\b/i },
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${SWITCH_GAP}(?:${T.FAILED}|${T.BE}not)\s+(?:light|illuminate|come on|turn on|operate|work)\b` },
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}(?:has\s+)?(?:pulled|pulling|come|coming|separated|separating)\s+(?:away\s+|loose\s+)?(?:from|off)\s+(?:the\s+|its\s+)?(?:wall|siding|stucco|brick|soffit|fascia|ceiling|box|mounting|surface)` },
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:${T.BE})?(?:missing|without|lacks?|has no)\s+(?:(?:its|a|the|their)\s+)?(?:glass\s+)?(?:globes?|lens(?:es)?|shades?|diffusers?|covers?)`, unless: BOX_FEEDING },
@@ -460,13 +462,13 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'fan-support',
     trigger: /fan/i,
     patterns: [
-      { re: rx`(?<!\b(?:exhaust|vent|ventilation|bath|attic|range|inline)\s)(?:ceiling\s+)?fans?\s+${gap(4)}(?:wobbl\w*|shak(?:es|ing|y)|sways?|swaying|unstable|${T.BE}(?:loose|not (?:secured|supported|properly (?:supported|secured|mounted))|improperly (?:mounted|supported|secured)))`, unless: /\b(?:without|no)\s+(?:any\s+|noticeable\s+)?(?:wobbl|shak|sway)/i },
+      { re: rx`(?<!\b(?:exhaust|vent|ventilation|bath|attic|range|inline|not|non)[\s-])(?:ceiling\s+)?fans?\s+${gap(4)}(?:wobbl\w*|shak(?:es|ing|y)|sways?|swaying|unstable|${T.BE}(?:loose|not (?:secured|supported|properly (?:supported|secured|mounted))|improperly (?:mounted|supported|secured)))`, unless: /\b(?:without|no)\s+(?:any\s+|noticeable\s+)?(?:wobbl|shak|sway)/i },
       { re: rx`(?:ceiling\s+)?fans?\s+${gap(2)}${T.BE}(?:mounted|installed|hung|supported)\s+(?:on|to|from|by)\s+(?:a|an|the)?\s*(?:standard|non-?fan[- ]rated|light(?:ing)?|plastic|pancake|junction|ordinary)\s+(?:fixture\s+|outlet\s+|light\s+)?box` },
       { re: rx`(?:wobbl\w*|loose|unsecured|shaky)\s+(?:ceiling\s+)?fans?\b` },
       // A fan hung from a box made for a light, with words between (NFPA 70 (NEC) 2023, 314.27(C)):
       // "the ceiling fan in the sunroom is hung from a shallow pancake box", "clg fan on std pancake box".
       { re: rx`(?:ceiling\s+)?fans?\s+${anyGap(5)}(?:(?:mounted|installed|hung|supported|hanging|attached)\s+)?(?:on|to|from)\s+(?:an?\s+|the\s+|its\s+)?(?:(?:shallow|small|light[- ]duty|old|original|metal|round|existing|thin)\s+){0,2}(?:(?:standard|std\.?|non-?fan[- ]rated|light(?:ing)?|plastic|pancake|ordinary)\s+){1,2}(?:fixture\s+|outlet\s+|light\s+|ceiling\s+)?box`, unless: /\bfan[- ]rated (?:box|brace) (?:is |was )?(?:present|installed|in place)/i },
-      { re: rx`(?:ceiling\s+)?fans?\s+${gap(3)}(?:rocks|rocking|sways)\b` },
+      { re: rx`(?<!\b(?:not|non)[- ])(?:ceiling\s+)?fans?\s+${gap(3)}(?:rocks|rocking|sways)\b` },
       { re: rx`(?:not|non)[- ](?:an?\s+)?fan[- ](?:rated|support(?:ing)?)\b` },
       // A fan hung from a box that cannot carry it (NFPA 70 (NEC) 2023, 314.27(C)): "not rated to carry a fan", "no fan brace".
       { re: rx`fans?\s+${anyGap(12)}box\s+${anyGap(4)}(?:${T.BE})?not\s+(?:rated|listed|approved|designed)\s+(?:to\s+(?:carry|support|hold)|for)\s+(?:a\s+|the\s+)?(?:ceiling\s+)?fan` },

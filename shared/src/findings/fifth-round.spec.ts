@@ -227,3 +227,14 @@ describe('tables and computed overcurrent findings (NFPA 70 (NEC) 2023, 240.4(D)
     expect(read('Panel (sub) | Basement subpanel 60A | Neutrals + grounds on same bar, bond screw in | Electrician')).toEqual([['subpanel-bonding', 'panel', null]]);
   });
 });
+
+describe('lights and fans seen from above or described after the defect', () => {
+  it('reads recessed lights of the rooms "below", seen from the attic, and non-IC cans under insulation (NFPA 70 (NEC) 2023, 410.116(B))', () => {
+    expect(read('The attic is reached by pull-down stairs in the hall, and two recessed can lights from the bedroom ceilings below are buried down in the insulation.')).toEqual([['light-fixture', 'attic', 2]]);
+    expect(read('In the attic the den can lights below are the old non-IC type with blown cellulose piled on top of them.')).toEqual([['light-fixture', 'attic', null]]);
+  });
+
+  it('reads "not fan rated and it sways" as a fan on a box not rated for it, not a denied sway (NFPA 70 (NEC) 2023, 314.27(C))', () => {
+    expect(read('The porch ceiling fan is hung from a plain round box that is not fan rated and it sways on high.')).toEqual([['fan-support', 'exterior', 1]]);
+  });
+});

@@ -68,6 +68,8 @@ const SERVED_BEFORE = /\b(?:feeding|feeds|serving|serves|supplying|supplies|powe
 const DEVICE_AFTER = /^\s*(?:[\w-]+\s+)?(?:receptacles?|outlets?|rcpts?|lights?|fixtures?|counters?|countertops?|switch(?:es)?|fans?|gfcis?|alarms?|smoke)\b/i;
 const REFERENCE_BEFORE = /(?:beneath|below|under|underneath|above|over|outside(?:\s+of)?|open to)\s+(?:the\s+)?$/i;
 /** "at the bedroom end of the hall": the room names an end of the place that follows. */
+const ACCESS_BEFORE = /\b(?:reached|accessed|entered|access(?:ible)?)\s+(?:by|from|through|via)\s+(?:the\s+|an?\s+)?(?:[\w-]+\s+){0,4}?(?:(?:in|from|off|at)\s+(?:the\s+)?)?$/i;
+const BELOW_AFTER = /^\s+(?:ceilings?\s+|(?:recessed\s+|can\s+)?(?:can\s+)?lights?\s+)?below\b/i;
 const END_OF_AFTER = /^\s+(?:end|side)\s+of\s+(?:the\s+)?/i;
 /** "by the kitchen pass-through", "near the dining room archway": a room's opening as a landmark of another room. */
 const BESIDE_BEFORE = /(?:by|near|beside|next to|at|toward|towards)\s+(?:the\s+)?$/i;
@@ -89,7 +91,11 @@ export function findRooms(text: string): RoomMention[] {
       (REFERENCE_BEFORE.test(before) && !FIXTURE_AFTER.test(after) && !(hasVantage && LIGHTS_IN_CEILING.test(text.slice(Math.max(0, start - 50), start)))) ||
       (BESIDE_BEFORE.test(before) && OPENING_AFTER.test(after)) ||
       VANTAGE_BEFORE.test(text.slice(Math.max(0, start - 30), start)) ||
-      END_OF_AFTER.test(after);
+      END_OF_AFTER.test(after) ||
+      // "the bedroom ceilings below", "the kitchen can lights below": a room seen from above is a reference point.
+      BELOW_AFTER.test(after) ||
+      // "The attic is reached by pull-down stairs in the hallway": where a space is entered from.
+      ACCESS_BEFORE.test(text.slice(Math.max(0, start - 50), start));
     found.push({ room: ROOM_WORDS[i][0], start, end, text: m[0], isReferencePoint });
   }
   // A level or outbuilding named before a room is where that room is ("basement bedroom", "garage
