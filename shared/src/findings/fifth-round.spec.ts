@@ -238,3 +238,15 @@ describe('lights and fans seen from above or described after the defect', () => 
     expect(read('The porch ceiling fan is hung from a plain round box that is not fan rated and it sways on high.')).toEqual([['fan-support', 'exterior', 1]]);
   });
 });
+
+describe('follow-ups and terse places', () => {
+  it('reads "Add GFI." after an unprotected receptacle, and an explanation that names no place, as part of that finding', () => {
+    expect(read('EXT: recep @ shed wall - not GFI, no upstream GFI. Add GFI.')).toEqual([['gfci-missing', 'exterior', 1]]);
+    expect(read('In the den a jumper joins the neutral and ground screws at the receptacle by the door. That is often called a bootleg ground: it fools a tester.')).toEqual([['false-ground', 'living-area', 1]]);
+  });
+
+  it('reads "Bed 2" as a bedroom and "out back" as outside', () => {
+    expect(read('Bed 2 rcpt - bootleg grd.')).toEqual([['false-ground', 'bedroom', 1]]);
+    expect(read('Out back, the receptacle beside the condenser is not GFCI protected.')).toEqual([['gfci-missing', 'exterior', 1]]);
+  });
+});
