@@ -250,3 +250,14 @@ describe('follow-ups and terse places', () => {
     expect(read('Out back, the receptacle beside the condenser is not GFCI protected.')).toEqual([['gfci-missing', 'exterior', 1]]);
   });
 });
+
+describe('receptacles and weather covers in shorthand and tables (NFPA 70 (NEC) 2023, 406.4, 406.9(B)(1))', () => {
+  it('reads "no wx covers" and "none of the three has a weather cover" with their counts', () => {
+    expect(read('Ext: front + rear receps (2): no wx covers at all.')).toEqual([['weather-cover-missing', 'exterior', 2]]);
+    expect(read('All three exterior receptacles tripped, but none of the three has a weather cover.')).toEqual([['weather-cover-missing', 'exterior', 3]]);
+  });
+
+  it('reads a receptacle in one cell and its scorch marks in the next', () => {
+    expect(read('Kitchen | Recep R of range | D | Scorch marks on face, loose in box.')).toEqual([['receptacle-damaged', 'kitchen', 1]]);
+  });
+});

@@ -78,6 +78,11 @@ export function readCount(text: string, articleLimit = Infinity, countable: RegE
   const tokens = tokenize(text);
   for (let i = 0; i < tokens.length; i++) {
     const { word } = tokens[i];
+    // "none of the three has a weather cover": all three are meant.
+    if (word === 'none' && tokens[i + 1]?.word === 'of' && tokens[i + 2]?.word === 'the') {
+      const all = countOf(tokens[i + 3]?.word ?? '');
+      if (all !== null && all > 1) return all;
+    }
     const parenthesised = /^\(\s*x?(\d{1,3})\s*\)$/.exec(word);
     if (parenthesised) return Number(parenthesised[1]);
     const times = /^(?:(\d{1,2})x|x(\d{1,2}))$/.exec(word);

@@ -43,7 +43,7 @@ const SHORTHAND: Readonly<Record<string, string>> = {
   'w/o': 'without', 'w/out': 'without', 'w/': 'with',
   reqd: 'required', "req'd": 'required', rcmd: 'recommend', recomm: 'recommend', recom: 'recommend',
   cvr: 'cover', cvrs: 'covers', cov: 'cover', plt: 'plate', plts: 'plates',
-  wp: 'weatherproof', wr: 'weather-resistant',
+  wp: 'weatherproof', wr: 'weather-resistant', wx: 'weather',
   al: 'aluminum', alum: 'aluminum', aluminium: 'aluminum', cu: 'copper',
   ga: 'AWG', 'ga.': 'AWG', gauge: 'AWG', gage: 'AWG', guage: 'AWG', awg: 'AWG',
   obs: 'observed', 'obs.': 'observed', unk: 'unknown', 'unk.': 'unknown', clg: 'ceiling', btn: 'button', mfr: 'manufactured',
@@ -52,7 +52,7 @@ const SHORTHAND: Readonly<Record<string, string>> = {
 };
 
 /** Shorthand that is only expanded where the context says it is the trade word. */
-const CONTEXTUAL = new Set(['al', 'cu', 'sd', 'sds', 'sec', 'ser', 'sw', 'lt', 'lts', 'cb', 'kt', 'ba', 'gar', 'kit', 'ext', 'wp', 'wr', 'det', 'dets', 'cond', 'conds', 'ga', 'ga.', 'gauge', 'gage', 'guage', 'awg']);
+const CONTEXTUAL = new Set(['al', 'cu', 'sd', 'sds', 'sec', 'ser', 'sw', 'lt', 'lts', 'cb', 'kt', 'ba', 'gar', 'kit', 'ext', 'wp', 'wr', 'wx', 'det', 'dets', 'cond', 'conds', 'ga', 'ga.', 'gauge', 'gage', 'guage', 'awg']);
 
 const NUMBER_WORDS: Readonly<Record<string, number>> = {
   two: 2, three: 3, four: 4, five: 5, six: 6, seven: 7, eight: 8, nine: 9, ten: 10, eleven: 11, twelve: 12,
@@ -263,6 +263,8 @@ function contextAllows(key: string, prev: string, next: string, gapBefore: strin
     case 'kit':
     case 'ext':
       return original.length <= 4 && /^[A-Z]/.test(original);
+    case 'wx':
+      return /^(?:cover|covers|cvr|cvrs|lid|lids|hood|hoods)$/.test(next);
     case 'wp':
     case 'wr':
       return /^(?:cover|covers|lid|lids|rcpt|receptacle|recep|outlet|device|in-use|bubble)/.test(next) || /^(?:not|non|no)$/.test(prev);
