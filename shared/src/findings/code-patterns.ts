@@ -311,8 +311,10 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${FLEX_CORD}\s+${gap(2)}(?:${T.BE}|being\s+)(?:stapled|strung|nailed|tacked|fastened|routed|run|draped|tied)\s+(?:along|across|through|to|under|over|up|around|in)\b` },
       { re: rx`${FLEX_CORD}\s+${anyGap(6)}(?:in place of|instead of|as|substitut\w+ for|for)\s+(?:a\s+)?(?:permanent|fixed|premises|branch(?:[- ]circuit)?)\s+wiring` },
       { re: rx`(?:used|using|uses|plugged in(?:\s?to)?|powered by|connected to|on|fed by|fed from|through)\s+(?:an?\s+|the\s+)?${ADJ_GAP}extension cords?` },
-      { re: rx`(?:uf|nm|underground|feeder|branch|direct[- ]burial)?\s*${T.WIRING}\s+${gap(6)}(?:${T.BE}|(?:has|have)\s+(?:simply\s+)?been\s+)?(?:lies|lying|laid|laying|lays|rests?|resting|run|strung|draped)\s+(?:directly\s+)?(?:on|across|along)\s+(?:the\s+)?(?:surface of the\s+)?(?:ground|dirt|soil|grass|lawn|yard|floor|crawl ?space floor)\b` },
+      { re: rx`(?:uf|nm|underground|feeder|branch|direct[- ]burial)?\s*${T.WIRING}\s+${gap(6)}(?:${T.BE}|(?:has|have)\s+(?:simply\s+)?been\s+)?(?:lies|lying|laid|laying|lays|rests?|resting|run|strung|draped)\s+(?:directly\s+)?(?:on|across|along|on top of)\s+(?:the\s+)?(?:surface of the\s+)?(?:ground|dirt|soil|grass|lawn|yard|floor|crawl ?space floor)\b` },
       { re: rx`(?:permanent|fixed)\s+(?:use of\s+)?extension cords?` },
+      // Cable across the top of joists near an attic opening needs guard strips or running boards (NFPA 70 (NEC) 2023, 334.23 and 320.23(A)).
+      { re: rx`(?:nm|romex|sheathed)?\s*cables?\s+${anyGap(16)}(?:no|without)\s+(?:running boards?|guard strips?)` },
       // A cable and its condition in the same clause with other words between ("NM cable to the
       // disposal not clamped at the unit, loose under the sink"; common practice, NEC 334.15 and 334.30).
       { re: rx`(?:nm(?:-b)?|romex|uf|surface[- ](?:run|mounted)|branch(?:[- ]circuit)?|sheathed)?\s*(?:wir(?:e|es|ing)\b(?!\s+nuts?\b)|cables?\b|cabling\b)\s+${WIRE_GAP}(?:${T.BE})?${WIRE_CONDITION}`, unless: WIRE_SOUND_OR_OTHER },
@@ -325,7 +327,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`(?:doubled?|dubbled?|dbl\.?|dual|twin)[- ]?tap(?:s|ped|ping|ed)?\b` },
       { re: rx`double[- ]lug(?:ged|s)?\b` },
-      { re: rx`(?:two|2|multiple)\s+(?:wires?|conductors?|circuits|neutrals)\s+${gap(3)}(?:under|on|to|landed on|terminated on|sharing)\s+(?:a\s+|one\s+|1\s+|the same\s+|single\s+|its\s+|their\s+|the\s+)+(?:terminal|lug|screw|breaker)` },
+      { re: rx`(?:two|2|multiple)\s+(?:\d{1,2}\s+awg\s+)?(?:(?:cu|copper|al|aluminum)\s+)?(?:wires?|conductors?|circuits|neutrals)\s+${gap(3)}(?:under|on|to|landed on|terminated on|sharing)\s+(?:a\s+|one\s+|1\s+|the same\s+|single\s+|its\s+|their\s+|the\s+)+(?:terminal|lug|screw|breaker)` },
     ],
   },
   {
@@ -477,6 +479,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       // A fan hung from a box that cannot carry it (NFPA 70 (NEC) 2023, 314.27(C)): "not rated to carry a fan", "no fan brace".
       { re: rx`fans?\s+${anyGap(12)}box\s+${anyGap(4)}(?:${T.BE})?not\s+(?:rated|listed|approved|designed)\s+(?:to\s+(?:carry|support|hold)|for)\s+(?:a\s+|the\s+)?(?:ceiling\s+)?fan` },
       { re: rx`(?:no|without|lacks?|missing)\s+(?:a\s+|any\s+)?(?:ceiling\s+)?fan[- ](?:rated\s+)?(?:brace|box|support|bracket)`, context: /\bfans?\b/i },
+      { re: rx`(?:no|without)\s+fan[- ]rat(?:ing|ed)\b(?!\s+(?:is|was)\s+(?:needed|required))`, context: /\bbox\b/i },
       // A ceiling fan and its wobble in one clause, with its mounting described between ("hung from a j-box hook only, no brace, wobbles").
       { re: rx`ceiling\s+fans?\s+(?:(?!(?:not|without|never|none|free|satisfactory|ok|operated|operate|operates)\b)[\w'/#().@-]+,?\s+){0,14}?(?<!\b(?:no|any|little|slight)\s)(?:wobbl\w*|sways|shakes)\b` },
     ],

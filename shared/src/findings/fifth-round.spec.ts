@@ -261,3 +261,17 @@ describe('receptacles and weather covers in shorthand and tables (NFPA 70 (NEC) 
     expect(read('Kitchen | Recep R of range | D | Scorch marks on face, loose in box.')).toEqual([['receptacle-damaged', 'kitchen', 1]]);
   });
 });
+
+describe('terse panel, fan and attic notes', () => {
+  it('reads "2 #14 cond. under 1 screw" as one double-tapped breaker (NFPA 70 (NEC) 2023, 110.14(A), 408.41)', () => {
+    expect(read('Ckt 1: 2 #14 cond. under 1 screw.')).toEqual([['double-tap', 'panel', 1]]);
+  });
+
+  it('reads "Liv rm:" as the living room and a fan box "w/ no fan rating marked" as a fan defect (NFPA 70 (NEC) 2023, 314.27(C))', () => {
+    expect(read('Liv rm: ceiling fan mounted to a shallow pancake box w/ no fan rating marked, fan rocks on high.')).toEqual([['fan-support', 'living-area', 1]]);
+  });
+
+  it('reads cable across attic joists with no running boards or guard strips as exposed (NFPA 70 (NEC) 2023, 334.23, 320.23(A))', () => {
+    expect(read('ATTIC: NM cable runs across the top of the joists beside the hatch, no running boards or guard strips.')).toEqual([['exposed-wiring', 'attic', null]]);
+  });
+});

@@ -162,7 +162,7 @@ const DEVICE_NOUN = /\b(?:((?:cover|face|wall|switch|outlet|receptacle|filler)[-
 /** Nouns that name the protection itself when the defect is its absence ("no GFCI protection"). */
 const PROTECTION_NOUN = /^(?:gfci|afci)$/i;
 const DEAD_AFTER_GFCI = /\b(?:rcpts?|receptacles?|outlets?)\b[^.;]{0,40}\b(?:dead|without power|no power|not powered)\b[^.;]*/gi;
-const CONDUCTORS_UNDER_ONE = /\b(?:two|2|three|3|both|multiple)\s+(?:\w+\s+)?(?:wires?|conductors?|cond|neutrals|circuits|feeds)\b/gi;
+const CONDUCTORS_UNDER_ONE = /\b(?:two|2|three|3|both|multiple)\s+(?:\d{1,2}\s+awg\s+)?(?:\w+\s+)?(?:wires?|conductors?|cond|neutrals|circuits|feeds)\b/gi;
 /** What exposed wiring is counted in: cords, cables, runs, places; not the lights a cord feeds. */
 const WIRING_COUNTABLE = /^(?:cords?|cables?|wires?|wiring|conductors?|splices?|places?|locations?|spots?|areas?|circuits?)$/i;
 /** Codes counted only when the text gives a number (a panel condition, exposed wiring). */

@@ -15,7 +15,7 @@ const ROOM_WORDS: ReadonlyArray<readonly [Room, string]> = [
   ['crawl-space', String.raw`crawl\s?spaces?|crawl\b|(?:under|beneath) the (?:home|house|floor system)|underfloor`],
   ['laundry', String.raw`laundry(?:\s+(?:room|area|closet))?|washer|dryer|utility room|mud ?room`],
   ['bedroom', String.raw`(?:(?:primary|master|guest|front|rear|back|north|south|east|west|upstairs|downstairs|kids'?|second|third|small|large)\s+)?(?:bed\s?rooms?|bed\s?\d\b|bedrms?\b|bdrms?\b\.?|brs?\s?\d*\b|nursery)|(?:prim|pri|mstr|mbr)\.?\s+br\b|mbr\b|primary suite|master suite|guest room`],
-  ['living-area', String.raw`living(?: (?:room|area)s?)?\b|family rooms?|great rooms?|den\b|sun\s?rooms?|florida rooms?|sun porch(?:es)?|three[- ]season rooms?|rec(?:reation)? rooms?|bonus rooms?|parlou?r|library|front room|lr\b|fireplace|media room`],
+  ['living-area', String.raw`living(?: (?:room|area)s?)?\b|liv\.?\s?rm\b|lr\b(?=\s*:)|family rooms?|great rooms?|den\b|sun\s?rooms?|florida rooms?|sun porch(?:es)?|three[- ]season rooms?|rec(?:reation)? rooms?|bonus rooms?|parlou?r|library|front room|lr\b|fireplace|media room`],
   ['hallway', String.raw`hall(?:way)?s?\b|corridors?|stair(?:way|well|case)?s?\b|landing|foyer|(?<!\b(?:water|service|cable|line|pipe|meter|conduit|wire|point of)\s+)entry(?:way)?(?!\s+(?:doors?|points?))|front entry(?!\s+doors?)`],
   ['attic', String.raw`attics?\b`],
   ['panel', String.raw`(?:main\s+|electrical\s+|service\s+|distribution\s+)?(?:sub-?\s?panel|panel\s*board|panel|pnl)s?\b|load cent(?:er|re)|breaker box|fuse box`],
