@@ -285,7 +285,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /box|splice|wire nut/i,
     patterns: [
       { re: rx`(?:open|uncovered|unenclosed)\s+(?:${T.JBOX}|box(?:es)?\b)` },
-      { re: rx`${T.JBOX}\s+${gap(8)}(?:(?:has|have|had|with|is|are|was|were)\s+)?(?:no|missing|without|lacks?|lacking|open|uncovered|not covered)(?:\s+(?:a|its|the|blank))?(?:\s+(?:covers?|lids?|plates?))?` },
+      { re: rx`${T.JBOX}\s+${gap(8)}(?:(?:has|have|had|with|is|are|was|were)\s+)?(?:no|missing|without|lacks?|lacking|open|uncovered|not covered)\b(?:\s+(?:a|its|the|blank))?(?:\s+(?:covers?|lids?|plates?))?` },
       { re: rx`box(?:es)?\s+(?:with\s+|has\s+|have\s+)?(?:no|missing|without)\s+(?:a\s+|its\s+)?(?:covers?|lids?)`, context: /splice|wire nut|junction|conductors? (?:are |is )?(?:exposed|visible)/i },
       { re: rx`${T.JBOX}\s+(?:covers?|lids?)\s+${gap(3)}${T.BE}(?:${T.ABSENT}|off|removed)` },
       { re: rx`${T.NO}\s+(?:blank\s+)?(?:covers?|lids?)\s+(?:on|for)\s+(?:the\s+|an?\s+)?${T.JBOX}` },

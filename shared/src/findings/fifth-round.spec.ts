@@ -275,3 +275,14 @@ describe('terse panel, fan and attic notes', () => {
     expect(read('ATTIC: NM cable runs across the top of the joists beside the hatch, no running boards or guard strips.')).toEqual([['exposed-wiring', 'attic', null]]);
   });
 });
+
+describe('remedies told after the defect (NFPA 70 (NEC) 2023, 406.4(D)(2))', () => {
+  it('reads "Either restore a ground or GFCI-protect them and put on the No Equipment Ground stickers" as the remedy of the open grounds before it', () => {
+    const text = 'DEN - Two of the receptacles here are 3-prong and both test open ground. Either restore a ground or GFCI-protect them and put on the "No Equipment Ground" stickers.';
+    expect(read(text)).toEqual([['open-ground', 'living-area', 2]]);
+  });
+
+  it('reads a checklist row "j-boxes covered | Good | none" as no open box', () => {
+    expect(read('Attic | Wiring, j-boxes covered | Good | none')).toEqual([]);
+  });
+});
