@@ -186,6 +186,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:${T.NO}|not|non-?)\s*${PF}${T.AFCI}` },
       { re: rx`${T.AFCI}(?:\s+(?:protection|protected|breakers?|${T.RCPT}))?\s+${T.BE}${T.ABSENT}` },
       { re: rx`${RECOMMEND}\s+${NOT_ABOUT_ADDING}${T.AFCI}`, isRecommendation: true },
+      // A checklist or table row: the item, its place, then its absence ("AFCI | Bedrooms | NP | Not present").
+      { re: rx`^\s*${T.AFCI}(?:\s+protection)?\s+${anyGap(4)}(?:(?:np|n\/p)\s+)?(?:not present|none|np|n\/p)\b(?!\s+(?:tripped|failed))`, unless: /\btested\s+(?:ok|good|fine)|\bsatisfactory\b|(?<!\bnot\s)\bpresent\b/i },
       // "None of the bedroom circuits have arc-fault protection" (NFPA 70 (NEC) 2023, 210.12).
       { re: rx`none\s+of\s+(?:the\s+)?${gap(3)}(?:circuits?|${T.RCPT}|breakers?|rooms?|bedrooms?)\s+${gap(2)}(?:are|is|were|was|have|has|had)\s+${PF}${T.AFCI}` },
       // "AFCI protection ... is recommended as a safety upgrade": the recommendation after the device.

@@ -286,3 +286,10 @@ describe('remedies told after the defect (NFPA 70 (NEC) 2023, 406.4(D)(2))', () 
     expect(read('Attic | Wiring, j-boxes covered | Good | none')).toEqual([]);
   });
 });
+
+describe('checklist rows for AFCI (NFPA 70 (NEC) 2023, 210.12)', () => {
+  it('reads "AFCI | Bedrooms | NP | Not present" as missing, and "Present, tested OK | None" as nothing', () => {
+    expect(read('AFCI                  Bedrooms             NP    Not present (1981 constr.); upgrade recommended')).toEqual([['afci-missing', 'bedroom', null]]);
+    expect(read('AFCI\tBedrooms\tPresent, tested OK\tNone')).toEqual([]);
+  });
+});
