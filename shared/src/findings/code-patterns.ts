@@ -82,7 +82,7 @@ export const WHOLE_SYSTEM = /^(?![\s\S]*\b(?:alumin\w*|knob|k&t|legacy|these|tho
 const REFERS_TO_OTHERS_ONLY = new RegExp(`^(?![\\s\\S]*(?:${WHOLE_SYSTEM.source}))[\\s\\S]*?(?:${REFERS_TO_OTHERS.source})`, 'i');
 const PANEL_CONTEXT = /panel|\bpnl\b|dead[- ]?front|load cent|breaker box|fuse box|enclosure|\bcabinet\b|\bko\b.{0,20}\bcan\b/i;
 /** A bare "cover" next to a junction box is the box's cover, not a device cover plate. */
-const JBOX_WORD = /junction|j-?\s?box|(?<!\b(?:switch|device|outlet|receptacle)\s)\bbox(?:es)?\b/i;
+const JBOX_WORD = /junction|j-?\s?box|(?<!\b(?:switch|device|outlet|receptacle|inside the|in the|within the|into the)\s)\bbox(?:es)?\b/i;
 /** Old wiring that is out of service (common practice: only energized knob-and-tube is reported as a condition). */
 const WIRING_OUT_OF_USE = /\b(?:not energized|de-?energized|abandoned|tested dead|no longer (?:in use|energized|active|in service)|(?:was|were|has been|have been) (?:removed|replaced)|(?:was|were|been) cut|cut (?:out|loose|off|back)|(?:came|taken|pulled|ripped) out|(?:nothing|not|none) (?:was |is )?(?:live|hot|energized)|(?:showed|read|detected) (?:nothing|no voltage)|(?:didn[’']?t|did not|could not|couldn[’']?t) find any|none (?:left|remaining|found in use|in use))\b/i;
 /** A smoke/CO alarm, or a "Smoke:" / "CO:" label standing for it in shorthand. */

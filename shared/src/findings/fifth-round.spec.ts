@@ -293,3 +293,17 @@ describe('checklist rows for AFCI (NFPA 70 (NEC) 2023, 210.12)', () => {
     expect(read('AFCI\tBedrooms\tPresent, tested OK\tNone')).toEqual([]);
   });
 });
+
+describe('cover plates listed by place (NFPA 70 (NEC) 2023, 406.6)', () => {
+  it('reads "Cvr plates missing: BR2 (2), laundry (1), garage (3)" as one finding per place with its count', () => {
+    expect(read('Cvr plates missing: BR2 (2), laundry (1), garage (3)')).toEqual([
+      ['cover-plate-missing', 'bedroom', 2],
+      ['cover-plate-missing', 'laundry', 1],
+      ['cover-plate-missing', 'garage', 3],
+    ]);
+  });
+
+  it('reads a missing plate whose wires are "inside the box" as a cover plate, not a junction box cover', () => {
+    expect(read('Laundry room - cover plate missing on the receptacle behind the washer, wires are inside the box.')).toEqual([['cover-plate-missing', 'laundry', 1]]);
+  });
+});

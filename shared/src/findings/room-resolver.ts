@@ -45,7 +45,7 @@ export interface PlaceContext {
 
 const SEPARATOR = /,\s*|\s+(?:and|also|while|plus|as well as)\s+/gi;
 /** Text between two places of one list: a conjunction, few words, no spatial preposition. */
-const LIST_BETWEEN = /^(?=.*(?:,|\band\b|&|\/|\bor\b))(?!.*\b(?:above|below|beneath|under|over|near|behind|beside|next|adjacent|off|of|from|inside|within|serving|serves?|feeding|feeds?|supplies|supplying|where|for|which|that)\b)(?:[\s,&/]*[\w'-]+){0,6}[\s,&/]*$/i;
+const LIST_BETWEEN = /^(?=.*(?:,|\band\b|&|\/|\bor\b))(?!.*\b(?:above|below|beneath|under|over|near|behind|beside|next|adjacent|off|of|from|inside|within|serving|serves?|feeding|feeds?|supplies|supplying|where|for|which|that)\b)(?:[\s,&/()]*[\w'-]+){0,6}[\s,&/()]*$/i;
 
 /** Words that limit a house-wide condition to the place named ("only in the garage", "within the addition"). */
 const LIMITED = /\b(?:only|addition|addn|within|limited to|confined to|throughout the(?!\s+(?:house|home|dwelling|building))|circuit\s+\d+|all other)\b|\bon\s+(?:the\s+)?(?!branch\b|all\b|most\b|\d)[\w/-]+(?:\s+[\w/-]+)?\s+circuits\b/i;
@@ -132,7 +132,8 @@ export function placeMatches(
     const group = listedGroup(text, mentionsIn(rooms, part).filter((m) => m.room !== 'panel'));
     if (group.length > 1) {
       // "three receptacles in the parlor and two in the front bedroom": each place's own number, when every place has one.
-      const counts = group.map((m, j) => placeCount(text.slice(j === 0 ? part.start : group[j - 1].end, m.start)));
+      // "Cvr plates missing: BR2 (2), laundry (1), garage (3)": a bracketed count right after each place.
+      const counts = group.map((m, j) => bracketAfter(text.slice(m.end, m.end + 8)) ?? placeCount(text.slice(j === 0 ? part.start : group[j - 1].end, m.start)));
       const eachCounted = counts.every((c) => c !== null);
       return group.map((m, j) => ({
         room: m.room,
@@ -167,6 +168,10 @@ const PLACE_COUNT_WORDS: Readonly<Record<string, number>> = { one: 1, two: 2, th
 const PLACE_COUNT = /\b(\d{1,2}|one|two|three|four|five|six|seven|eight|nine|ten)\s+(?:[\w-]+\s+){0,2}?(?:in|at|on)\s+(?:the\s+)?(?:[\w-]+\s+){0,2}$/i;
 /** The noun a place's own number is read with (the count reader needs a device after the number). */
 const PLACE_COUNT_NOUN = 'devices';
+function bracketAfter(after: string): number | null {
+  const m = /^\s*\((\d{1,3})\)/.exec(after);
+  return m ? Number(m[1]) : null;
+}
 function placeCount(before: string): number | null {
   const m = PLACE_COUNT.exec(before);
   if (!m || /^(?:\d{1,2})$/.test(m[1]) === false && PLACE_COUNT_WORDS[m[1].toLowerCase()] === undefined) return null;
