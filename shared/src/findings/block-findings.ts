@@ -6,7 +6,7 @@ import type { FindingCode } from './finding-code';
 import { sourceRange, type MappedText } from './mapped-text';
 import { negatedSpans } from './negation-detector';
 import { deviceRating, nameplateMaximum, type CarriedRatings } from './overcurrent-check';
-import { findingQuantity, isCounted } from './quantity-reader';
+import { findingQuantity, isCounted, readCount } from './quantity-reader';
 import { scanAll } from './regex-scan';
 import { findRooms, type RoomMention } from './room-lexicon';
 import type { Room } from './room';
@@ -108,7 +108,15 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
     live.forEach((match, i) => {
       const isNormalised = sentence.changed.some((c) => c.start < match.end && match.start < c.end);
       for (const place of placements[i]) {
-        const counted = findingQuantity(match.rule.code, place.countText, place.articleLimit, live.length === 1 && place.laterText ? place.laterText : null, place.subjectText ?? '');
+        const own = findingQuantity(match.rule.code, place.countText, place.articleLimit, live.length === 1 && place.laterText ? place.laterText : null, place.subjectText ?? '');
+        // A bootleg ground is counted in receptacles: "two receptacles tested correct, but ... a jumper at each".
+        const counted =
+          match.rule.code === 'false-ground' && (own === null || own === 1)
+            ? (receptacleCount(sentence.text) ?? own)
+            : // "The three-prong outlets ... show an open ground": the article is the defect's, the receptacles are plural and uncounted.
+              match.rule.code === 'open-ground' && own === 1 && !/^\d+ devices$/.test(place.countText) && PLURAL_RCPT_ONLY.test(sentence.text) && readCount(sentence.text, 0, RECEPTACLE_NOUN) === null
+              ? null
+              : own;
         // A device implied by its section at one named place ("BR2: none") is one device.
         const implied1 = counted === null && match === implied && place.room !== 'whole-house' && !isPluralPlace(sentence.text, rooms.find((r) => r.room === place.room)?.text ?? '') ? 1 : counted;
         const quantity = rowCount !== null && isCounted(match.rule.code) ? rowCount : implied1;
@@ -182,6 +190,15 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
 }
 
 /** The quantity column's count for the table row a sentence starts in, or null. */
+/** A number of two or more receptacles the sentence gives ("Two receptacles ...", "both receptacles", "two of the receptacles"). */
+function receptacleCount(text: string): number | null {
+  const count = readCount(text, 0, RECEPTACLE_NOUN);
+  return typeof count === 'number' && count >= 2 ? count : null;
+}
+/** A sentence that names receptacles only in the plural. */
+const PLURAL_RCPT_ONLY = /^(?![\s\S]*\b(?:receptacle|outlet|rcpt|recept|device)\b)[\s\S]*\b(?:receptacles|outlets|rcpts|recepts)\b/i;
+const RECEPTACLE_NOUN = /^(?:rec[ei]pt?[aeiu]?c(?:le|al|el)s?|recepts?|rcpts?|outlets?|devices?)$/i;
+
 /** The sentence with a table row's leading item number blanked (same length and offsets): it is no count. */
 function blankItemNumbers(sentence: MappedText, rowCounts: readonly RowCount[]): MappedText {
   const numbered = rowCounts.filter((r) => r.itemNumberEnd !== undefined);

@@ -307,3 +307,13 @@ describe('cover plates listed by place (NFPA 70 (NEC) 2023, 406.6)', () => {
     expect(read('Laundry room - cover plate missing on the receptacle behind the washer, wires are inside the box.')).toEqual([['cover-plate-missing', 'laundry', 1]]);
   });
 });
+
+describe('counting bootleg and open grounds in receptacles (NFPA 70 (NEC) 2023, 250.142(B), 406.4(D)(2))', () => {
+  it('counts a false ground in the receptacles the sentence names, not in the jumper', () => {
+    expect(read('In the den, two receptacles tested correct, but with the covers off a jumper was found from neutral to ground at each one.')).toEqual([['false-ground', 'living-area', 2]]);
+  });
+
+  it('gives no count to "an open ground" at receptacles named only in the plural', () => {
+    expect(read('The three-prong receptacles in the den show an open ground.')).toEqual([['open-ground', 'living-area', null]]);
+  });
+});
