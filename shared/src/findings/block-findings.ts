@@ -113,7 +113,10 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
         const counted =
           match.rule.code === 'false-ground' && (own === null || own === 1)
             ? (receptacleCount(sentence.text) ?? own)
-            : // "The three-prong outlets ... show an open ground": the article is the defect's, the receptacles are plural and uncounted.
+            : // "No carbon monoxide alarm anywhere in the home": an alarm missing house-wide names no number to install.
+              match.rule.code === 'smoke-co-alarm' && place.room === 'whole-house' && own === 1
+              ? null
+              : // "The three-prong outlets ... show an open ground": the article is the defect's, the receptacles are plural and uncounted.
               match.rule.code === 'open-ground' && own === 1 && !/^\d+ devices$/.test(place.countText) && PLURAL_RCPT_ONLY.test(sentence.text) && readCount(sentence.text, 0, RECEPTACLE_NOUN) === null
               ? null
               : own;

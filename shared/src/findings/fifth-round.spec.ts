@@ -317,3 +317,13 @@ describe('counting bootleg and open grounds in receptacles (NFPA 70 (NEC) 2023, 
     expect(read('The three-prong receptacles in the den show an open ground.')).toEqual([['open-ground', 'living-area', null]]);
   });
 });
+
+describe('counts of one picked out, and alarms missing house-wide', () => {
+  it('reads "the left switch of the two" as one switch', () => {
+    expect(read('Bathroom: the left switch of the two at the door does not operate anything.')).toEqual([['switch-issue', 'bathroom', 1]]);
+  });
+
+  it('gives no count to an alarm missing house-wide (local code or NFPA 72 decides how many; common practice)', () => {
+    expect(read('CO alarm: none in the unit; gas furnace and attached garage - install a CO alarm.')).toEqual([['smoke-co-alarm', 'whole-house', null]]);
+  });
+});

@@ -22,6 +22,8 @@ const ALLOWED_BETWEEN = 3;
 const SPREAD_NOUN = /^(?:levels?|floors?|stor(?:y|ies)|rooms?|bedrooms?|areas?|locations?)$/;
 /** A plural countable noun: after an index word a number word counts it ("bedroom two receptacles"). */
 const PLURAL_COUNTABLE = /^(?:receptacles|outlets|devices|breakers|fuses|lights|fixtures|switches|boxes|covers|plates|alarms|detectors|fans|cords|splices)$/i;
+/** A singular device noun ("switch", "receptacle"): "the left switch of the two" is one. */
+const SINGULAR_DEVICE = /^(?:receptacle|outlet|rcpt|recept|switch|dimmer|light|fixture|fan|breaker|fuse|box|cover|plate|alarm|detector|gfci|device)$/i;
 /** Vague words that quantify only a noun that follows ("all receptacles"), not a manner ("at all speeds"). */
 const VAGUE_BEFORE_NOUN_ONLY = new Set(['all', 'every']);
 /** A word, a bracketed count ("(3)", "(x2)") or a punctuation mark. */
@@ -93,6 +95,8 @@ export function readCount(text: string, articleLimit = Infinity, countable: RegE
     if (VAGUE.has(word) && !isNumberAhead(tokens, i) && (isNounAhead(tokens, i, countable) || !VAGUE_BEFORE_NOUN_ONLY.has(word))) return 'vague';
     const count = countOf(word);
     if (count === null || count === 0) continue;
+    // "the left switch of the two at the door": one device picked out of a number of them.
+    if (count > 1 && tokens[i - 1]?.word === 'the' && tokens[i - 2]?.word === 'of' && SINGULAR_DEVICE.test(tokens[i - 3]?.word ?? '')) return 1;
     if ((word === 'a' || word === 'an') && tokens[i].index >= articleLimit) continue;
     // "bedroom 2" is an index, but "bedroom two receptacles" is a count.
     if (i > 0 && INDEX_BEFORE.test(tokens[i - 1].word) && !(/^[a-z]/.test(word) && count > 1 && PLURAL_COUNTABLE.test(tokens[i + 1]?.word ?? ''))) continue;
