@@ -211,9 +211,9 @@ function replacementFor(tokens: readonly Token[], i: number, source: string): st
   if (bare === 'too' && (TOO_PLURAL.test(next.replace(/\.$/, '')) || (TOO_MODIFIER.test(next) && TOO_PLURAL.test((tokens[i + 2]?.text.toLowerCase() ?? '').replace(/\.$/, ''))))) return '2';
   // "ext cord", "ext. cords": an extension cord, not the exterior.
   if ((bare === 'ext' || bare === 'extn') && /^cords?$/.test(next)) return 'extension';
-  // "Report #KT-24-0917", "Unit GFI-2": letters glued to a number by a hyphen, or after "#", are an identifier.
-  if (/^-\d/.test(source.slice(tokens[i].end, tokens[i].end + 2)) || /#\s?$/.test(gapBefore)) return null;
   if (Object.prototype.hasOwnProperty.call(SHORTHAND, lower) || Object.prototype.hasOwnProperty.call(SHORTHAND, bare)) {
+    // "Report #KT-24-0917", "Unit GFI-2": letters glued to a number by a hyphen, or after "#", are an identifier.
+    if (isIdentifier(source, tokens[i].end, gapBefore)) return null;
     const key = Object.prototype.hasOwnProperty.call(SHORTHAND, lower) ? lower : bare;
     const word = SHORTHAND[key];
     if (CONTEXTUAL.has(key) && !contextAllows(key, prev, next, gapBefore, text)) return null;
@@ -224,6 +224,13 @@ function replacementFor(tokens: readonly Token[], i: number, source: string): st
     return fixed === null ? null : capitalised(text, fixed);
   }
   return null;
+}
+
+function isIdentifier(source: string, end: number, gapBefore: string): boolean {
+  const next = source.charCodeAt(end + 1);
+  if (source[end] === '-' && next >= 48 && next <= 57) return true;
+  const gap = gapBefore.trimEnd();
+  return gap.length > 0 && gap[gap.length - 1] === '#';
 }
 
 function contextAllows(key: string, prev: string, next: string, gapBefore: string, original: string): boolean {
