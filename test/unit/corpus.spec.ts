@@ -13,12 +13,14 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // or two columns) and read back through the project's PDF text extraction.
 // Scores match findings by (code, room) as a multiset.
 // A ratchet, not the goal: with the independent writers' excerpts (201-255, A+B 101-160, C 301-360,
-// then D 401-460) in the corpus, the whole corpus scores precision 0.946, recall 0.931, F1 0.938 and
-// quantity 0.960 (2026-12-03, fourth round, docs/parser.md). The goal is 0.95 on each; raise these
-// floors as the parser gets there, never lower them.
+// D 401-460, then E 501-566) in the corpus, the whole corpus scores precision 0.946, recall 0.930, F1
+// 0.938 and quantity 0.955 (2026-12-04, fifth round, docs/parser.md: quantity stays below its floor of
+// 0.958 because two of batch E's three writers count a single service, grounding or bonding defect as
+// 1 where every other writer gives null). The goal is 0.95 on each; raise these floors as the parser
+// gets there, never lower them.
 const MIN_PRECISION = 0.945;
 const MIN_RECALL = 0.93;
-const MIN_F1 = 0.935;
+const MIN_F1 = 0.937;
 const MIN_QUANTITY = 0.958;
 
 describe('report parser corpus', () => {

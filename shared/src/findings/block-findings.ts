@@ -6,7 +6,7 @@ import type { FindingCode } from './finding-code';
 import { sourceRange, type MappedText } from './mapped-text';
 import { negatedSpans } from './negation-detector';
 import { deviceRating, nameplateMaximum, type CarriedRatings } from './overcurrent-check';
-import { findingQuantity, isCounted } from './quantity-reader';
+import { findingQuantity, isCounted, readCount } from './quantity-reader';
 import { scanAll } from './regex-scan';
 import { findRooms, type RoomMention } from './room-lexicon';
 import type { Room } from './room';
@@ -43,12 +43,14 @@ export interface BlockContext {
 }
 
 /** A sentence that only recommends or asks for follow-up ("This should be corrected by a licensed electrician."). */
-const FOLLOW_UP = /\b(?:recommend\w*|install (?:the|a|an|new|proper|listed)\b|suggest\w*|advise\w*|should be|should have|needs? to be|must be|have (?:it|this|these|them|the\s+\w+) (?:\w+ed|repaired|corrected|checked|evaluated)|correct(?:ion|ed)?|repair(?:ed|s)?|replace(?:d|ment)?|evaluat\w*|further (?:evaluation|review)|by a (?:licensed|qualified)|licensed electrician|qualified electrician|electrical contractor|requir(?:e|es|ed)\b|for safety|safety (?:hazard|concern|issue)|fire (?:hazard|risk)|shock (?:hazard|risk)|hazard)/i;
+const FOLLOW_UP = /\b(?:recommend\w*|install (?:the|a|an|new|proper|listed)\b|suggest\w*|advise\w*|should be|should have|needs? to be|must be|have (?:it|this|these|them|the\s+\w+) (?:\w+ed|repaired|corrected|checked|evaluated)|correct(?:ion|ed)?|repair(?:ed|s)?|replace(?:d|ment)?|evaluat\w*|further (?:evaluation|review)|by a (?:licensed|qualified)|licensed electrician|qualified electrician|electrical contractor|requir(?:e|es|ed)\b|for safety|safety (?:hazard|concern|issue)|fire (?:hazard|risk)|shock (?:hazard|risk)|hazard)|^\s*(?:add|provide|install)\b|\brestore\b|\bfix\b|no equipment ground/i;
 
 /** A sentence about the device just named ("The fan ...", "It ..."). */
 const SAME_SUBJECT = /^(?:the|this|that|it)\b(?!\s+(?:other|second|third|next|remaining)\b)/i;
+/** "That breaker is oversized ...": a demonstrative points back to the device just named, even at a fixed place. */
+const POINTS_BACK = /^(?:this|that|these|those|it)\b/i;
 /** Words that make it another device ("also", "another", "too"). */
-const ANOTHER = /\b(?:also|another|too|as well|second|other|additional|each|all|both)\b/i;
+const ANOTHER = /\b(?:also|another|too|as well|second|other|additional|each|(?<!\bat\s)all|both)\b/i;
 
 /** A sentence that points back to a place named before it ("It is not GFCI protected"). */
 const REFERS_BACK = /^(?:it|they|this|these|those|each|both|one|the same|also|and|there (?:is|are|was|were) also)\b/i;
@@ -76,7 +78,8 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
 
   // A nameplate maximum stated without a rating beside it: the next sentence may give the rating.
   let ratings: CarriedRatings | null = null;
-  splitSentences(text).forEach((written, sentenceIndex) => {
+  splitSentences(text).forEach((source, sentenceIndex) => {
+    const written = rowCounts.length > 0 ? blankItemNumbers(source, rowCounts) : source;
     const sentence = normaliseText(written);
     const matches = matchCodes(sentence.text, { carried: ratings });
     ratings = matches.some((m) => m.computation !== undefined) ? null : { nameplate: nameplateMaximum(sentence.text), rating: deviceRating(sentence.text) };
@@ -105,15 +108,26 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
     live.forEach((match, i) => {
       const isNormalised = sentence.changed.some((c) => c.start < match.end && match.start < c.end);
       for (const place of placements[i]) {
-        const counted = findingQuantity(match.rule.code, place.countText, place.articleLimit, live.length === 1 && place.laterText ? place.laterText : null, place.subjectText ?? '');
+        const own = findingQuantity(match.rule.code, place.countText, place.articleLimit, live.length === 1 && place.laterText ? place.laterText : null, place.subjectText ?? '');
+        // A bootleg ground is counted in receptacles: "two receptacles tested correct, but ... a jumper at each".
+        const counted =
+          match.rule.code === 'false-ground' && (own === null || own === 1)
+            ? (receptacleCount(sentence.text) ?? own)
+            : // "No carbon monoxide alarm anywhere in the home": an alarm missing house-wide names no number to install.
+              match.rule.code === 'smoke-co-alarm' && place.room === 'whole-house' && own === 1
+              ? null
+              : // "The three-prong outlets ... show an open ground": the article is the defect's, the receptacles are plural and uncounted.
+              match.rule.code === 'open-ground' && own === 1 && !/^\d+ devices$/.test(place.countText) && PLURAL_RCPT_ONLY.test(sentence.text) && readCount(sentence.text, 0, RECEPTACLE_NOUN) === null
+              ? null
+              : own;
         // A device implied by its section at one named place ("BR2: none") is one device.
         const implied1 = counted === null && match === implied && place.room !== 'whole-house' && !isPluralPlace(sentence.text, rooms.find((r) => r.room === place.room)?.text ?? '') ? 1 : counted;
         const quantity = rowCount !== null && isCounted(match.rule.code) ? rowCount : implied1;
         // The grounding of a service is one system: a sentence naming its parts in two places is one defect.
-        const same = inSentence.find((f) => f.code === outdoorCode(match.rule.code, place.room) && (f.room === place.room || match.rule.panelIsPlace === true));
+        const same = inSentence.find((f) => f.code === outdoorCode(match.rule.code, place.room, sentence.text) && (f.room === place.room || match.rule.panelIsPlace === true));
         if (same) continue;
         inSentence.push({
-          code: outdoorCode(match.rule.code, place.room),
+          code: outdoorCode(match.rule.code, place.room, sentence.text),
           room: place.room,
           location: place.location,
           quantity,
@@ -155,7 +169,14 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
       inSentence.length > 0 &&
       SAME_SUBJECT.test(sentence.text) &&
       !ANOTHER.test(sentence.text) &&
-      inSentence.every((f) => f.confidence === 'inferred' && !f.isRecommendation && f.computation === null && lastFound.some((g) => g.code === f.code && g.room === f.room));
+      inSentence.every(
+        (f) =>
+          (f.confidence === 'inferred' || (ruleOf(f.code)?.fixedRoom !== undefined && POINTS_BACK.test(sentence.text))) &&
+          !f.isRecommendation &&
+          f.computation === null &&
+          // A sentence that names no place at all ("That is often called a bootleg ground") is about the device before it.
+          [...lastFound, ...found].some((g) => g.code === f.code && (g.room === f.room || f.room === 'unknown')),
+      );
     if (lastFound.length > 0 && ((onlyFollowUp && FOLLOW_UP.test(sentence.text)) || isRepeat)) {
       // "This should be corrected by a licensed electrician.": part of the finding(s) before it.
       for (const f of lastFound) f.recommendations.push(written);
@@ -172,6 +193,27 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
 }
 
 /** The quantity column's count for the table row a sentence starts in, or null. */
+/** A number of two or more receptacles the sentence gives ("Two receptacles ...", "both receptacles", "two of the receptacles"). */
+function receptacleCount(text: string): number | null {
+  const count = readCount(text, 0, RECEPTACLE_NOUN);
+  return typeof count === 'number' && count >= 2 ? count : null;
+}
+/** A sentence that names receptacles only in the plural. */
+const PLURAL_RCPT_ONLY = /^(?![\s\S]*\b(?:receptacle|outlet|rcpt|recept|device)\b)[\s\S]*\b(?:receptacles|outlets|rcpts|recepts)\b/i;
+const RECEPTACLE_NOUN = /^(?:rec[ei]pt?[aeiu]?c(?:le|al|el)s?|recepts?|rcpts?|outlets?|devices?)$/i;
+
+/** The sentence with a table row's leading item number blanked (same length and offsets): it is no count. */
+function blankItemNumbers(sentence: MappedText, rowCounts: readonly RowCount[]): MappedText {
+  const numbered = rowCounts.filter((r) => r.itemNumberEnd !== undefined);
+  if (numbered.length === 0) return sentence;
+  let text = '';
+  for (let k = 0; k < sentence.text.length; k++) {
+    const at = sentence.offsets[k];
+    text += numbered.some((r) => r.start <= at && at < (r.itemNumberEnd ?? 0)) && /\d/.test(sentence.text[k]) ? ' ' : sentence.text[k];
+  }
+  return { text, offsets: sentence.offsets };
+}
+
 function rowCountOf(sentence: MappedText, rowCounts: readonly RowCount[]): number | null {
   const { start } = sourceRange(sentence);
   return rowCounts.find((r) => r.start <= start && start < r.end)?.count ?? null;
@@ -181,9 +223,11 @@ function rowCountOf(sentence: MappedText, rowCounts: readonly RowCount[]): numbe
  * A receptacle outdoors with no cover, or a broken one, lacks the weatherproof cover a wet location
  * needs (NFPA 70 (NEC) 2023, 406.9(B)(1)), not just a cover plate.
  */
-function outdoorCode(code: FindingCode, room: Room): FindingCode {
-  return code === 'cover-plate-missing' && room === 'exterior' ? 'weather-cover-missing' : code;
+function outdoorCode(code: FindingCode, room: Room, sentence = ''): FindingCode {
+  // A switch plate outdoors is still a cover plate: weather covers are for receptacles (NFPA 70 (NEC) 2023, 406.9).
+  return code === 'cover-plate-missing' && room === 'exterior' && !SWITCH_PLATE.test(sentence) ? 'weather-cover-missing' : code;
 }
+const SWITCH_PLATE = /\bswitch\s+(?:cover\s+)?plates?\b/i;
 
 const RULE_BY_CODE = new Map(CODE_RULES.map((r) => [r.code, r]));
 function ruleOf(code: FindingCode): CodeRule | undefined {

@@ -28,11 +28,15 @@ export interface Block {
 export interface RowCount {
   readonly start: number;
   readonly end: number;
-  readonly count: number;
+  /** null for a row that only carries an item number. */
+  readonly count: number | null;
+  /** End of the row's leading item number ("7 | Basement | ..."), which is an index, not a count. */
+  readonly itemNumberEnd?: number;
 }
 
 /** A table's quantity column heading. */
 const QUANTITY_HEADING = /^(?:qty\.?|quantity|count|no\.|#|number|units?)$/i;
+const ITEM_NUMBER_HEADING = /^(?:no\.|#|number)$/i;
 
 /** The cells of a table row (pipes, tabs or fixed-width columns), or null for a line that is no row. */
 function tableCells(line: string): string[] | null {
@@ -52,7 +56,7 @@ interface Line {
   readonly text: string;
 }
 
-const ITEM_MARKER = /^\s*(?:\d{1,3}(?:\.\d{1,3})+\.?|\d{1,3}[.)]|[a-h][.)]|item\s+\d{1,3}\s*[:.)-]|\[\d{1,3}\]|[-•*‣▪◦●·–—>]|\[\s?[x ]?\])\s+/i;
+const ITEM_MARKER = /^\s*(?:\d{1,3}(?:\.\d{1,3})+\.?|\d{1,3}[.)]|[a-h][.)]|item\s+\d{1,3}\s*[:.)-]|\[\d{1,3}\]|[-•*‣▪◦●·–—>]|(?:\[\s?[x ]?\]\s*){1,6})\s+/i;
 const NOISE_LINE = /^(?:[|+:=\s-]{3,}|.{0,80}\bpage\s+\d+(?:\s*(?:of|\/)\s*\d+)?|-{1,2}\s*\d+\s+of\s+\d+\s*-{1,2}|\d+\s*\/\s*\d+)\s*$/i;
 const CONNECTOR_END = /(?:[,;&/-]|\b(?:and|or|the|a|an|at|of|to|with|in|on|for|by|from|is|are|was|were|not|no))$/i;
 /** A checklist line that ends in its answer ("GFCI at exterior: No"). */
@@ -120,10 +124,13 @@ export function splitBlocks(joined: string): Block[] {
     const content = line.text.trim();
     const cells = content.length > 0 ? tableCells(line.text) : null;
     if (cells) {
-      const heading = cells.findIndex((c) => QUANTITY_HEADING.test(c));
+      // "No." or "#" heading the first column numbers the rows ("7 | Basement | ..."): an item number, not a count.
+      const heading = cells.findIndex((c, k) => QUANTITY_HEADING.test(c) && !(k === 0 && ITEM_NUMBER_HEADING.test(c)));
       if (heading !== -1) quantityColumn = heading;
       else if (quantityColumn !== null && /^\d{1,2}$/.test(cells[quantityColumn] ?? '') && Number(cells[quantityColumn]) > 0) {
         rowCounts.push({ start: line.start, end: line.end, count: Number(cells[quantityColumn]) });
+      } else if (quantityColumn !== 0 && /^\d{1,3}[.)]?$/.test(cells[0])) {
+        rowCounts.push({ start: line.start, end: line.end, count: null, itemNumberEnd: line.start + line.text.indexOf(cells[0]) + cells[0].length });
       }
     } else if (content.length > 0 && !NOISE_LINE.test(content) && !/^\s{8,}\S/.test(line.text)) {
       quantityColumn = null;
@@ -218,7 +225,10 @@ function joinLine(builder: MappedTextBuilder, prev: Line, next: Line, shortLine:
   // "polarity | Electrician"): the next line goes on in lower case.
   const continuesCell =
     (isTableRow(prev.text) && /^\s{16,}\S/.test(next.text) && !isTableRow(next.text) && !/[.!?:]$/.test(before) && !prev.text.includes('|') && !next.text.includes('\t')) ||
-    (prev.text.includes('|') && /^\p{Ll}/u.test(after) && !/[.!?:|]$/.test(before));
+    (prev.text.includes('|') && /^\p{Ll}/u.test(after) && !/[.!?:|]$/.test(before)) ||
+    // A pipe row whose first cell is empty goes on with the row above ("3 | Main panel | ... 10 AWG alum." /
+    // "  |   | conductors on a 30A 2-pole breaker |").
+    (prev.text.includes('|') && (/^\s*\|/.test(prev.text) ? /^\s*\|\s*\|/ : /^\s*\|/).test(next.text));
   const isBoundary =
     !continuesCell &&
     (/:$/.test(before) ||

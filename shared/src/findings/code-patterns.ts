@@ -80,11 +80,11 @@ const REFERS_TO_OTHERS = /\bif\b|\bany\b|\bshould any\b|\babove\b|\bbelow\b|\bfo
 export const WHOLE_SYSTEM = /^(?![\s\S]*\b(?:alumin\w*|knob|k&t|legacy|these|those)\b)[\s\S]*?(?:\b(?:entire|whole|full|complete|comprehensive|overall)\s+(?:[\w-]+\s+){0,2}?(?:system|house|home|wiring|evaluation|review)\b|\bevaluate the (?:electrical )?system\b)/i;
 /** An evaluation that points at other items, unless it is of the whole system ("so that any hidden conditions can be priced"). */
 const REFERS_TO_OTHERS_ONLY = new RegExp(`^(?![\\s\\S]*(?:${WHOLE_SYSTEM.source}))[\\s\\S]*?(?:${REFERS_TO_OTHERS.source})`, 'i');
-const PANEL_CONTEXT = /panel|\bpnl\b|dead[- ]?front|load cent|breaker box|fuse box|enclosure|\bko\b.{0,20}\bcan\b/i;
+const PANEL_CONTEXT = /panel|\bpnl\b|dead[- ]?front|load cent|breaker box|fuse box|enclosure|\bcabinet\b|\bko\b.{0,20}\bcan\b/i;
 /** A bare "cover" next to a junction box is the box's cover, not a device cover plate. */
-const JBOX_WORD = /junction|j-?\s?box|\bbox(?:es)?\b/i;
+const JBOX_WORD = /junction|j-?\s?box|(?<!\b(?:switch|device|outlet|receptacle|inside the|in the|within the|into the)\s)\bbox(?:es)?\b/i;
 /** Old wiring that is out of service (common practice: only energized knob-and-tube is reported as a condition). */
-const WIRING_OUT_OF_USE = /\b(?:not energized|de-?energized|abandoned|tested dead|no longer (?:in use|energized|active|in service)|(?:was|were|has been|have been) (?:removed|replaced)|(?:was|were) cut)\b/i;
+const WIRING_OUT_OF_USE = /\b(?:not energized|de-?energized|abandoned|tested dead|no longer (?:in use|energized|active|in service)|(?:was|were|has been|have been) (?:removed|replaced)|(?:was|were|been) cut|cut (?:out|loose|off|back)|(?:came|taken|pulled|ripped) out|(?:nothing|not|none) (?:was |is )?(?:live|hot|energized)|(?:showed|read|detected) (?:nothing|no voltage)|(?:didn[’']?t|did not|could not|couldn[’']?t) find any|none (?:left|remaining|found in use|in use))\b/i;
 /** A smoke/CO alarm, or a "Smoke:" / "CO:" label standing for it in shorthand. */
 const SMOKE_OR_LABEL = String.raw`(?:${T.SMOKE}|(?:smoke|co)(?:\s*(?:\/|and|&)\s*co)?\s*:)`;
 /** An alarm past its service life: expired, end of life, chirping, older than ten years. */
@@ -131,7 +131,7 @@ const WIRE_SOUND_OR_OTHER = /\b(?:properly|neatly|adequately|well) (?:secured|su
  */
 const SERVICE_OR_BOX_WIRES = /\bservice[- ]entrance\b|\bse cable\b|\bservice (?:drop|conductors?|cable)\b|\b(?:junction|j-?\s?box|jbox)\w*\b[^.;]{0,50}\bwires?\s+(?:are\s+)?(?:hanging|dangling|exposed|visible|pulled)/i;
 /** What goes wrong with a cable run (common practice): not secured, not protected, within reach of damage. */
-const WIRE_CONDITION = String.raw`(?:exposed to (?:physical )?damage|subject to (?:physical )?damage|unprotected|unsecured|unsupported|unstapled|(?:has\s+)?(?:come|came|coming|pulled|pulling) (?:loose|free|away)|(?:not|never) (?:clamped|secured|supported|stapled|strapped|fastened|protected)|loose\b|hang(?:s|ing)\b|dangl(?:es|ing)|draped|(?:hanging\s+)?in loops)`;
+const WIRE_CONDITION = String.raw`(?:(?:run|runs|running|left)\s+(?:bare|exposed|unprotected)\b|exposed to (?:physical )?damage|subject to (?:physical )?damage|unprotected|unsecured|unsupported|unstapled|(?:has\s+)?(?:come|came|coming|pulled|pulling) (?:loose|free|away)|(?:not|never) (?:clamped|secured|supported|stapled|strapped|fastened|protected)|loose\b|hang(?:s|ing)\b|dangl(?:es|ing)|draped|(?:hanging\s+)?in loops)`;
 /** A part of the grounding electrode system or of piping bonding (NFPA 70 (NEC) 2023, 250.50, 250.104). */
 const GROUND_PART = String.raw`(?:ground(?:ing)? electrode(?: conductor| system)?|ges\b|gec\b|(?:ground(?:ing)?|electrode)\s+(?:rods?|clamps?|wires?|conductors?)\b|(?:main\s+)?(?:water|gas|csst)(?:\s+(?:pipe|piping|line|main|service))?\s+bond(?:ing)?(?:\s+(?:jumper|clamp|wire|conductor|connection))?\b|bond(?:ing)?\s+(?:jumpers?|clamps?|conductors?|wires?|connections?)\b|acorn clamp)`;
 /** What goes wrong with a grounding or bonding part (common practice). */
@@ -147,7 +147,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /gfc?i|gcfi|ground[- ]fault|protected circuit/i,
     yieldsTo: ['gfci-inoperative', 'open-ground', 'false-ground', 'knob-and-tube'],
     patterns: [
-      { re: rx`(?:${T.NO}|not|non-?|none|(?:is|are|was|were)n[’']?t|neither\s+${anyGap(8)}(?:has|have|had|is|are|was|were))\s*${PF}${T.GFCI}` },
+      // "no GFCI or breaker was tripped": a look for a tripped device, not a missing protection.
+      { re: rx`(?:${T.NO}|not|non-?|none|(?:is|are|was|were)n[’']?t|neither\s+${anyGap(8)}(?:has|have|had|is|are|was|were))\s*${PF}${T.GFCI}(?!\s+(?:or\s+(?:\w+\s+)?breaker\s+)?(?:was|were|had been|has been)\s+tripped)` },
       // "... they are not protected, I tested them with my GFCI tester": a pronoun for the receptacles just named.
       { re: rx`(?:they|it)\s+(?:are|is|were|was)\s+not\s+protected\b`, context: /^(?=[\s\S]*\b(?:gfc?i|ground[- ]fault))(?=[\s\S]*\b(?:receptacles?|outlets?|rcpts?)\b)/i, unless: /afci|arc[- ]fault/i },
       { re: rx`none\s+of\s+(?:the\s+)?${gap(3)}${T.RCPT}\s+${gap(4)}(?:are|is|were|was|have|has|had)\s+${PF}${T.GFCI}` },
@@ -185,6 +186,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:${T.NO}|not|non-?)\s*${PF}${T.AFCI}` },
       { re: rx`${T.AFCI}(?:\s+(?:protection|protected|breakers?|${T.RCPT}))?\s+${T.BE}${T.ABSENT}` },
       { re: rx`${RECOMMEND}\s+${NOT_ABOUT_ADDING}${T.AFCI}`, isRecommendation: true },
+      // A checklist or table row: the item, its place, then its absence ("AFCI | Bedrooms | NP | Not present").
+      { re: rx`^\s*${T.AFCI}(?:\s+protection)?\s+${anyGap(4)}(?:(?:np|n\/p)\s+)?(?:not present|none|np|n\/p)\b(?!\s+(?:tripped|failed))`, unless: /\btested\s+(?:ok|good|fine)|\bsatisfactory\b|(?<!\bnot\s)\bpresent\b/i },
       // "None of the bedroom circuits have arc-fault protection" (NFPA 70 (NEC) 2023, 210.12).
       { re: rx`none\s+of\s+(?:the\s+)?${gap(3)}(?:circuits?|${T.RCPT}|breakers?|rooms?|bedrooms?)\s+${gap(2)}(?:are|is|were|was|have|has|had)\s+${PF}${T.AFCI}` },
       // "AFCI protection ... is recommended as a safety upgrade": the recommendation after the device.
@@ -241,7 +244,9 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:cracked|broken|damaged) (?:face|housing|body)|loose (?:plug )?fit|plugs? (?:fits?|fit) loose(?:ly)?|(?:will not|won't|does not|doesn't) (?:hold|retain) (?:a |the )?plugs?` },
       { re: rx`${T.RCPT}\s+${gap(8)}${T.BE}(?:loose|cracked|broken|damaged|scorched|burn(?:ed|t)|melted|charred|painted(?: over)?|worn|discolou?red|dead|${T.INOPERATIVE}|not (?:energized|powered|secured|secure|fastened)|pulled (?:out|away)|recessed)`, unless: DEAD_BEHIND_GFCI },
       { re: rx`${T.RCPT}\s+${gap(5)}(?:(?:has|have|had)\s+no|(?:is|are)\s+without)\s+power` },
-      { re: rx`${T.RCPT}\s+${gap(8)}(?:shows?|showed|has|have|had|with)\s+(?:(?:brown|black|dark|visible|some)\s+)?(?:scorch|burn|arc(?:ing)?|char|heat|melt)\w*(?:\s+marks?)?` },
+      { re: rx`${T.RCPT}\s+${gap(8)}(?:shows?|showed|has|have|had|with)\s+(?:an?\s+)?(?:(?:brown|black|dark|visible|some)\s+)?(?:scorch|burn|arc(?:ing)?|char|heat|melt|discolou?r)\w*(?:\s+marks?)?` },
+      // A table row: the receptacle in one cell, its scorch marks in the next ("Recep R of range | D | Scorch marks on face").
+      { re: rx`${T.RCPT}\s+${anyGap(6)}(?:scorch|burn|char)\w*\s+marks?\b` },
       { re: rx`(?:scorch|burn|arc(?:ing)?|char)\w*\s+marks?\s+(?:on|at)\s+${gap(3)}${T.RCPT}` },
       { re: rx`no power (?:at|to)\s+(?:the\s+)?${gap(3)}${T.RCPT}` },
       { re: rx`(?:plugs?|cords?)\s+(?:fall|falls|fell|slip|slips|pull|pulls)\s+out` },
@@ -260,6 +265,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       // Common practice (NFPA 70 (NEC) 2023, 406.9(B)(1)): an outdoor receptacle in a wet location has a cover that is weatherproof with a plug in; a flat cover is not.
       { re: rx`(?:only\s+(?:a\s+)?)?flat\s+${gap(2)}(?:covers?|lids?)(?:\s+only)?`, context: /in[- ]use|bubble|weather|exterior|outdoor|patio|porch|deck|while (?:a cord is )?(?:plugged|in use)/i },
       { re: rx`(?:covers?|lids?)\s+${gap(3)}(?:${T.BE})?broken off` },
+      // "none of the three has a weather cover": the absence at every one named (NFPA 70 (NEC) 2023, 406.9(B)(1)).
+      { re: rx`none\s+of\s+(?:the\s+|them\s+)?${gap(3)}(?:has|have|had)\s+(?:an?\s+|any\s+)?(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant)?|wp)\s+covers?` },
       { re: rx`(?<!\b(?:no|without|missing)\s)(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant)?|wp)\s+covers?\s+${anyGap(8)}${T.BE}(?:${T.ABSENT}|broken|damaged|cracked|needed|recommended|required)` },
       { re: rx`(?:exterior|outdoor|outside|patio|deck|porch)\s+${T.RCPT}\s+${gap(3)}(?:covers?|lids?|flaps?)\s+${T.BE}(?:missing|broken|damaged|absent)` },
       { re: rx`(?:not|non)[- ](?:wr|weather[- ]resistant)\b` },
@@ -280,13 +287,13 @@ export const CODE_RULES: readonly CodeRule[] = [
     trigger: /box|splice|wire nut/i,
     patterns: [
       { re: rx`(?:open|uncovered|unenclosed)\s+(?:${T.JBOX}|box(?:es)?\b)` },
-      { re: rx`${T.JBOX}\s+${gap(8)}(?:(?:has|have|had|with|is|are|was|were)\s+)?(?:no|missing|without|lacks?|lacking|open|uncovered|not covered)(?:\s+(?:a|its|the|blank))?(?:\s+(?:covers?|lids?|plates?))?` },
+      { re: rx`${T.JBOX}\s+${gap(8)}(?:(?:has|have|had|with|is|are|was|were)\s+)?(?:no|missing|without|lacks?|lacking|open|uncovered|not covered)\b(?:\s+(?:a|its|the|blank))?(?:\s+(?:covers?|lids?|plates?))?` },
       { re: rx`box(?:es)?\s+(?:with\s+|has\s+|have\s+)?(?:no|missing|without)\s+(?:a\s+|its\s+)?(?:covers?|lids?)`, context: /splice|wire nut|junction|conductors? (?:are |is )?(?:exposed|visible)/i },
       { re: rx`${T.JBOX}\s+(?:covers?|lids?)\s+${gap(3)}${T.BE}(?:${T.ABSENT}|off|removed)` },
       { re: rx`${T.NO}\s+(?:blank\s+)?(?:covers?|lids?)\s+(?:on|for)\s+(?:the\s+|an?\s+)?${T.JBOX}` },
       { re: rx`(?:splices?|spliced (?:wires|conductors)|wire nuts?)\s+${anyGap(6)}(?:outside(?:\s+of)?|not in|not within|not enclosed|without)\s+(?:in\s+)?(?:an?\s+|the\s+|any\s+)?(?:(?:approved|junction|electrical|enclosed)\s+)?(?:box|enclosure|junction box)` },
       { re: rx`(?:open|exposed|unenclosed|loose|taped)\s+(?:wire\s+)?splices?` },
-      { re: rx`(?:spliced?|splices|connections?|connected)\b\s+${anyGap(20)}(?:with\s+no|without(?:\s+an?)?|not\s+in(?:\s+an?)?|rather than (?:being\s+)?(?:enclosed\s+)?in(?:\s+an?)?|outside(?:\s+of)?(?:\s+(?:an?|any))?)\s+(?:junction\s+|electrical\s+)?(?:box|enclosure)` },
+      { re: rx`(?:spliced?|splices|connections?|connected)\b\s+${anyGap(20)}(?:(?:with\s+|and\s+)no|without(?:\s+an?)?|not\s+in(?:\s+an?)?|rather than (?:being\s+)?(?:enclosed\s+)?in(?:\s+an?)?|outside(?:\s+of)?(?:\s+(?:an?|any))?)\s+(?:junction\s+|electrical\s+)?(?:box|enclosure)` },
       { re: rx`(?:wrapped|taped)\s+(?:only\s+)?(?:in|with)\s+(?:electrical\s+)?tape` },
       // A box and its missing cover, or its visible splices, anywhere in the clause (terse notes and
       // table rows: "J-box above furnace, no cover, splices visible"; "Lid missing from junction box").
@@ -306,8 +313,10 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${FLEX_CORD}\s+${gap(2)}(?:${T.BE}|being\s+)(?:stapled|strung|nailed|tacked|fastened|routed|run|draped|tied)\s+(?:along|across|through|to|under|over|up|around|in)\b` },
       { re: rx`${FLEX_CORD}\s+${anyGap(6)}(?:in place of|instead of|as|substitut\w+ for|for)\s+(?:a\s+)?(?:permanent|fixed|premises|branch(?:[- ]circuit)?)\s+wiring` },
       { re: rx`(?:used|using|uses|plugged in(?:\s?to)?|powered by|connected to|on|fed by|fed from|through)\s+(?:an?\s+|the\s+)?${ADJ_GAP}extension cords?` },
-      { re: rx`(?:uf|nm|underground|feeder|branch|direct[- ]burial)?\s*${T.WIRING}\s+${gap(6)}(?:${T.BE}|(?:has|have)\s+(?:simply\s+)?been\s+)?(?:lies|lying|laid|laying|lays|rests?|resting|run|strung|draped)\s+(?:directly\s+)?(?:on|across|along)\s+(?:the\s+)?(?:surface of the\s+)?(?:ground|dirt|soil|grass|lawn|yard|floor|crawl ?space floor)\b` },
+      { re: rx`(?:uf|nm|underground|feeder|branch|direct[- ]burial)?\s*${T.WIRING}\s+${gap(6)}(?:${T.BE}|(?:has|have)\s+(?:simply\s+)?been\s+)?(?:lies|lying|laid|laying|lays|rests?|resting|run|strung|draped)\s+(?:directly\s+)?(?:on|across|along|on top of)\s+(?:the\s+)?(?:surface of the\s+)?(?:ground|dirt|soil|grass|lawn|yard|floor|crawl ?space floor)\b` },
       { re: rx`(?:permanent|fixed)\s+(?:use of\s+)?extension cords?` },
+      // Cable across the top of joists near an attic opening needs guard strips or running boards (NFPA 70 (NEC) 2023, 334.23 and 320.23(A)).
+      { re: rx`(?:nm|romex|sheathed)?\s*cables?\s+${anyGap(16)}(?:no|without)\s+(?:running boards?|guard strips?)` },
       // A cable and its condition in the same clause with other words between ("NM cable to the
       // disposal not clamped at the unit, loose under the sink"; common practice, NEC 334.15 and 334.30).
       { re: rx`(?:nm(?:-b)?|romex|uf|surface[- ](?:run|mounted)|branch(?:[- ]circuit)?|sheathed)?\s*(?:wir(?:e|es|ing)\b(?!\s+nuts?\b)|cables?\b|cabling\b)\s+${WIRE_GAP}(?:${T.BE})?${WIRE_CONDITION}`, unless: WIRE_SOUND_OR_OTHER },
@@ -320,7 +329,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`(?:doubled?|dubbled?|dbl\.?|dual|twin)[- ]?tap(?:s|ped|ping|ed)?\b` },
       { re: rx`double[- ]lug(?:ged|s)?\b` },
-      { re: rx`(?:two|2|multiple)\s+(?:wires?|conductors?|circuits|neutrals)\s+${gap(3)}(?:under|on|to|landed on|terminated on|sharing)\s+(?:a\s+|one\s+|1\s+|the same\s+|single\s+|its\s+|their\s+|the\s+)+(?:terminal|lug|screw|breaker)` },
+      { re: rx`(?:two|2|multiple)\s+(?:\d{1,2}\s+awg\s+)?(?:(?:cu|copper|al|aluminum)\s+)?(?:wires?|conductors?|circuits|neutrals)\s+${gap(3)}(?:under|on|to|landed on|terminated on|sharing)\s+(?:a\s+|one\s+|1\s+|the same\s+|single\s+|its\s+|their\s+|the\s+)+(?:terminal|lug|screw|breaker)` },
     ],
   },
   {
@@ -358,6 +367,9 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:shelving|storage|shelves|cabinets?|freezer|furniture)\s+${gap(3)}within\s+\d+\s*(?:inches|in\.?|")\s+of\s+(?:the\s+)?panel` },
       { re: rx`(?:directory|legend|circuit labels?|labell?ing|entries)\s+${gap(3)}${T.BE}(?:faded|unreadable|illegible|outdated|out of date|wrong|incorrect)` },
       { re: rx`(?:knockouts?|fillers?|filler plates?)\s+${T.BE}(?:missing|open|absent)` },
+      { re: rx`(?:knockouts?|fillers?|filler plates?)\s+${gap(6)}${T.BE}(?:missing|open|absent)`, context: PANEL_CONTEXT },
+      // "the neutral bar and the interior of the enclosure show heavy white corrosion".
+      { re: rx`(?:enclosure|${T.PANEL}|breakers?|bus(?: bars?)?|neutral bar|lugs?|handles)\s+${gap(2)}(?:shows?|has|have|with)\s+(?:heavy\s+|white\s+|green\s+|some\s+|visible\s+|significant\s+){0,3}(?:corrosion|rust)` },
       { re: rx`(?:${T.NO}|incomplete|illegible|inaccurate)\s+(?:panel\s+|circuit\s+)*(?:directory|legend|labels?|labell?ing|identification)` },
       { re: rx`(?:directory|legend|circuit labels?|labell?ing)\s+${gap(3)}${T.BE}(?:${T.ABSENT}|incomplete|illegible|inaccurate|blank|empty|not (?:filled|completed))` },
       { re: rx`(?:circuits?|breakers?)\s+${gap(3)}${T.BE}(?:not|un)[- ]?(?:labell?ed|identified|marked)`, context: PANEL_CONTEXT },
@@ -376,9 +388,9 @@ export const CODE_RULES: readonly CodeRule[] = [
     // Polarity: neutrals and grounds together at the main service are correct ("which is correct at
     // the service equipment", "as permitted at the main"; NFPA 70 (NEC) 2023, 250.24(A)).
     patterns: [
-      { re: rx`(?:neutrals?|grounds?|n)(?:\s+(?:conductors?|wires?))?\s*(?:and|&|\/)\s*(?:neutrals?|grounds?|grounding|equipment grounds?|g)(?:\s+(?:conductors?|wires?))?\s+${gap(3)}(?:share|sharing|are on|on (?:the )?same|(?:landed |terminated )?together|combined|commingled|mixed|${T.BE}not (?:separated|isolated))`, unless: CORRECT_AT_SERVICE },
+      { re: rx`(?:neutrals?|grounds?|n)(?:\s+(?:conductors?|wires?))?\s*(?:and|&|\/|\+)\s*(?:neutrals?|grounds?|grounding|equipment grounds?|g)(?:\s+(?:conductors?|wires?))?\s+${gap(3)}(?:share|sharing|are on|on (?:the )?same|(?:landed |terminated )?together|combined|commingled|mixed|${T.BE}not (?:separated|isolated))`, unless: CORRECT_AT_SERVICE },
       { re: rx`(?:grounds?|ground wires|egcs?|equipment grounds?)\s+${gap(3)}(?:on|landed on|connected to|terminated on|share)\s+(?:the\s+)?neutral\s+(?:bar|bus)`, context: SUBPANEL_CONTEXT },
-      { re: rx`(?:bonding|bond|green)\s+(?:screw|strap|jumper)\s+${gap(3)}${T.BE}(?:present|installed|in place|not removed)`, context: SUBPANEL_CONTEXT, unless: /\b(?:not|never)\s+(?:been\s+)?(?:installed|present|in place)\b/i },
+      { re: rx`(?:bonding|bond|green)\s+(?:screw|strap|jumper)\s+${gap(3)}(?:${T.BE}(?:present|installed|in place|not removed)|in\b(?!\s+(?:the|a|an|place)\b))`, context: SUBPANEL_CONTEXT, unless: /\b(?:not|never)\s+(?:been\s+)?(?:installed|present|in place)\b/i },
       { re: rx`neutral\s+(?:bar|bus)?\s*${gap(2)}${T.BE}bonded\s+to\s+(?:the\s+)?(?:enclosure|case|can|cabinet|panel|ground)`, context: SUBPANEL_CONTEXT },
       { re: rx`no separate ground(?:ing)? (?:bar|bus)` },
     ],
@@ -400,6 +412,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       // A grounding or bonding part and its condition in the same clause, with other words between
       // ("ground wire to the water line at the water heater is loose", "GEC: clamp @ rod loose").
       { re: rx`${GROUND_PART}\s*[:-]?\s+${anyGap(12)}(?:${T.BE})?${GROUND_CONDITION}` },
+      // "GEC #6 Cu to rod: lug on panel ground bar loose": a labelled part, then its condition after the colon.
+      { re: rx`${GROUND_PART}\s+${anyGap(4)}[\w'/#().@-]+:\s+${anyGap(8)}(?:${T.BE})?${GROUND_CONDITION}` },
       // A part that should be there and was looked for: "none found", "could not be located" is the defect itself.
       { re: rx`${GROUND_PART}\s*[:-]?\s+${anyGap(8)}(?:${T.BE})?(?:none (?:found|located|observed|visible)|not (?:found|located|visible|observed|present|installed)|could not be (?:found|located|confirmed|verified|seen))` },
       { re: rx`(?:could\s?n[o']t|did\s?n[o']t|was unable to|were unable to|unable to)\s+(?:locate|find|confirm|verify|see|identify)\s+(?:a|an|the|any)?\s*${GROUND_PART}` },
@@ -437,7 +451,9 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:bare|open|exposed|uncovered)\s+(?:incandescent\s+)?(?:bulbs?|lamps?)\b` },
       { re: rx`insulation\s+${gap(3)}(?:in contact with|touching|covering|over|on top of|against)\s+(?:the\s+)?${gap(2)}(?:recessed|can)\s+(?:lights?|fixtures?|cans?|housings?)` },
       // Common practice: a recessed housing not rated IC must keep its clearance from insulation.
-      { re: rx`(?:non-?ic|recessed|can)\s+(?:(?:light|lighting|fixture)\s+)?(?:housings?|fixtures?|lights?|cans?)\s+${gap(6)}(?:${T.BE})?(?:covered|buried|packed|surrounded)\s+(?:by|in|with|under)\b` },
+      { re: rx`(?:non-?ic|recessed|can)\s+(?:(?:light|lighting|fixture)\s+)?(?:housings?|fixtures?|lights?|cans?)\s+${gap(6)}(?:${T.BE})?(?:covered|buried|packed|surrounded)\s+(?:down\s+|over\s+)?(?:by|in|with|under)\b` },
+      // "can lights ... are the old non-IC type with blown cellulose piled on top of them" (common practice; NFPA 70 (NEC) 2023, 410.116(B)).
+      { re: rx`(?:recessed|can|pot)\s+(?:lights?|fixtures?|housings?|cans?)\s+${anyGap(8)}non-?ic\b`, context: /\b(?:insulation|cellulose|fiberglass|blown|batts?)\b/i },
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${SWITCH_GAP}(?:${T.FAILED}|${T.BE}not)\s+(?:light|illuminate|come on|turn on|operate|work)\b` },
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}(?:has\s+)?(?:pulled|pulling|come|coming|separated|separating)\s+(?:away\s+|loose\s+)?(?:from|off)\s+(?:the\s+|its\s+)?(?:wall|siding|stucco|brick|soffit|fascia|ceiling|box|mounting|surface)` },
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:${T.BE})?(?:missing|without|lacks?|has no)\s+(?:(?:its|a|the|their)\s+)?(?:glass\s+)?(?:globes?|lens(?:es)?|shades?|diffusers?|covers?)`, unless: BOX_FEEDING },
@@ -454,17 +470,20 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'fan-support',
     trigger: /fan/i,
     patterns: [
-      { re: rx`(?<!\b(?:exhaust|vent|ventilation|bath|attic|range|inline)\s)(?:ceiling\s+)?fans?\s+${gap(4)}(?:wobbl\w*|shak(?:es|ing|y)|sways?|swaying|unstable|${T.BE}(?:loose|not (?:secured|supported|properly (?:supported|secured|mounted))|improperly (?:mounted|supported|secured)))`, unless: /\b(?:without|no)\s+(?:any\s+|noticeable\s+)?(?:wobbl|shak|sway)/i },
+      { re: rx`(?<!\b(?:exhaust|vent|ventilation|bath|attic|range|inline|not|non)[\s-])(?:ceiling\s+)?fans?\s+${gap(4)}(?:wobbl\w*|shak(?:es|ing|y)|sways?|swaying|unstable|${T.BE}(?:loose|not (?:secured|supported|properly (?:supported|secured|mounted))|improperly (?:mounted|supported|secured)))`, unless: /\b(?:without|no)\s+(?:any\s+|noticeable\s+)?(?:wobbl|shak|sway)/i },
       { re: rx`(?:ceiling\s+)?fans?\s+${gap(2)}${T.BE}(?:mounted|installed|hung|supported)\s+(?:on|to|from|by)\s+(?:a|an|the)?\s*(?:standard|non-?fan[- ]rated|light(?:ing)?|plastic|pancake|junction|ordinary)\s+(?:fixture\s+|outlet\s+|light\s+)?box` },
       { re: rx`(?:wobbl\w*|loose|unsecured|shaky)\s+(?:ceiling\s+)?fans?\b` },
       // A fan hung from a box made for a light, with words between (NFPA 70 (NEC) 2023, 314.27(C)):
       // "the ceiling fan in the sunroom is hung from a shallow pancake box", "clg fan on std pancake box".
       { re: rx`(?:ceiling\s+)?fans?\s+${anyGap(5)}(?:(?:mounted|installed|hung|supported|hanging|attached)\s+)?(?:on|to|from)\s+(?:an?\s+|the\s+|its\s+)?(?:(?:shallow|small|light[- ]duty|old|original|metal|round|existing|thin)\s+){0,2}(?:(?:standard|std\.?|non-?fan[- ]rated|light(?:ing)?|plastic|pancake|ordinary)\s+){1,2}(?:fixture\s+|outlet\s+|light\s+|ceiling\s+)?box`, unless: /\bfan[- ]rated (?:box|brace) (?:is |was )?(?:present|installed|in place)/i },
-      { re: rx`(?:ceiling\s+)?fans?\s+${gap(3)}(?:rocks|rocking|sways)\b` },
+      { re: rx`(?<!\b(?:not|non)[- ])(?:ceiling\s+)?fans?\s+${gap(3)}(?:rocks|rocking|sways)\b` },
       { re: rx`(?:not|non)[- ](?:an?\s+)?fan[- ](?:rated|support(?:ing)?)\b` },
       // A fan hung from a box that cannot carry it (NFPA 70 (NEC) 2023, 314.27(C)): "not rated to carry a fan", "no fan brace".
       { re: rx`fans?\s+${anyGap(12)}box\s+${anyGap(4)}(?:${T.BE})?not\s+(?:rated|listed|approved|designed)\s+(?:to\s+(?:carry|support|hold)|for)\s+(?:a\s+|the\s+)?(?:ceiling\s+)?fan` },
       { re: rx`(?:no|without|lacks?|missing)\s+(?:a\s+|any\s+)?(?:ceiling\s+)?fan[- ](?:rated\s+)?(?:brace|box|support|bracket)`, context: /\bfans?\b/i },
+      { re: rx`(?:no|without)\s+fan[- ]rat(?:ing|ed)\b(?!\s+(?:is|was)\s+(?:needed|required))`, context: /\bbox\b/i },
+      // A ceiling fan and its wobble in one clause, with its mounting described between ("hung from a j-box hook only, no brace, wobbles").
+      { re: rx`ceiling\s+fans?\s+(?:(?!(?:not|without|never|none|free|satisfactory|ok|operated|operate|operates)\b)[\w'/#().@-]+,?\s+){0,14}?(?<!\b(?:no|any|little|slight)\s)(?:wobbl\w*|sways|shakes)\b` },
     ],
   },
   {
@@ -515,7 +534,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       // Two-wire or cloth-covered cable is a wiring method of its own; at a three-slot receptacle it
       // is an open ground, so it is knob-and-tube only when the sentence says the wiring is that old
       // kind with no receptacle on it (common practice).
-      { re: rx`(?:ungrounded|two[- ]wire|2[- ]wire|cloth[- ](?:insulated|covered|sheathed)|fabric[- ](?:insulated|covered)|rubber[- ]insulated)\s+(?:legacy\s+|old(?:er)?\s+|original\s+|vintage\s+)?(?:wir(?:e|es|ing)|cables?|circuits?)\b`, unless: /\b(?:recep\w*|rcpts?|outlets?|three[- ](?:slot|prong)|3[- ](?:slot|prong)|grounded cable|patchwork|mix)\b/i },
+      { re: rx`(?:ungrounded|two[- ]wire|2[- ]wire|cloth[- ](?:insulated|covered|sheathed)|fabric[- ](?:insulated|covered)|rubber[- ]insulated)\s+(?:legacy\s+|old(?:er)?\s+|original\s+|vintage\s+)?(?:wir(?:e|es|ing)|cables?|circuits?)\b`, unless: /\b(?:recep\w*|rcpts?|outlets?|three[- ](?:slot|prong)|3[- ](?:slot|prong)|grounded cable|patchwork|mix|\d{1,2}\s*awg)\b/i },
     ],
   },
   {

@@ -20,8 +20,8 @@ export interface OvercurrentCheck extends Range {
   readonly computation: string;
 }
 
-/** "30 A", "30A", "30-amp", "30 amps", "30 ampere" (a rating of 10 to 200 A). */
-const RATING = /(?<![\w.])(\d{2,3})\s?-?(?:a|amps?|amperes?)\b(?!\s*(?:x|\/)\s*\d)/gi;
+/** "30 A", "30A", "30-amp", "30 amps", "30 ampere" (a rating of 10 to 200 A); not "20/22 A/C" (air conditioning). */
+const RATING = /(?<![\w.])(\d{2,3})\s?-?(?:a|amps?|amperes?)\b(?!\s*(?:x|\/)\s*\d)(?!\/c\b)/gi;
 /** "12 AWG" (shorthand such as "#12", "12 ga", "12-gauge" is normalised to this before). */
 const SIZE = /(?<![\w.])(\d{1,2})[\s-]?awg\b/gi;
 const MATERIAL = /\b(?:(aluminum|aluminium)|(copper))\b/gi;
@@ -137,6 +137,9 @@ export function checkOvercurrent(text: string, carried: CarriedRatings | null = 
       continue;
     }
     if (nameplate) continue;
+    // "Main panel (100A) | ... two 12 AWG conductors": a rating of 100 A or more beside small conductors
+    // is the panel's or the service's, not the branch device's (240.4(D) stops at 30 A).
+    if (rating.value >= 100) continue;
     const size = nearestSize(sizes, rating, text);
     if (!size) continue;
     const metal = materialOf(text, size, { start: 0, end: text.length });

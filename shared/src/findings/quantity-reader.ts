@@ -16,16 +16,18 @@ const COUNTABLE = /^(?:rec[ei]pt?[aeiu]?c(?:le|al|el)s?|recepts?|recep|rcpts?|ou
 /** Words that make the number a measure, not a count ("20 amp", "6 feet", "3-prong"). */
 const UNIT = /^(?:a|amps?|amperes?|v|volts?|awg|gauge|ga|ft|feet|foot|inch(?:es)?|in|years?|yrs?|prong|slot|wire|pole|way|mm|%|percent|degrees?|minutes?|hours?|days?)$/i;
 /** Words before a number that make it a name or an index ("bedroom 2", "slot 14", "#3"). */
-const INDEX_BEFORE = /^(?:bed\s?rooms?|bath(?:room)?s?|br|bdrms?|rooms?|circuits?|breakers?|no|nos|item|items|page|section|unit|level|floor|space|position|slot|photo|fig|figure|step|zone|#|spaces|about|approximately|approx)$/i;
+const INDEX_BEFORE = /^(?:bed|bed\s?rooms?|bath(?:room)?s?|br|bdrms?|rooms?|circuits?|breakers?|no|nos|item|items|page|section|unit|level|floor|space|position|slot|photo|fig|figure|step|zone|#|spaces|about|approximately|approx)$/i;
 const ALLOWED_BETWEEN = 3;
 /** Places a vague word spreads a defect over ("on any level", "in every bedroom"): still no count of one. */
 const SPREAD_NOUN = /^(?:levels?|floors?|stor(?:y|ies)|rooms?|bedrooms?|areas?|locations?)$/;
 /** A plural countable noun: after an index word a number word counts it ("bedroom two receptacles"). */
 const PLURAL_COUNTABLE = /^(?:receptacles|outlets|devices|breakers|fuses|lights|fixtures|switches|boxes|covers|plates|alarms|detectors|fans|cords|splices)$/i;
+/** A singular device noun ("switch", "receptacle"): "the left switch of the two" is one. */
+const SINGULAR_DEVICE = /^(?:receptacle|outlet|rcpt|recept|switch|dimmer|light|fixture|fan|breaker|fuse|box|cover|plate|alarm|detector|gfci|device)$/i;
 /** Vague words that quantify only a noun that follows ("all receptacles"), not a manner ("at all speeds"). */
 const VAGUE_BEFORE_NOUN_ONLY = new Set(['all', 'every']);
 /** A word, a bracketed count ("(3)", "(x2)") or a punctuation mark. */
-const TOKEN = /\(\s*x?\d{1,3}\s*\)|[#]?[\w'%-]+|[:;,.]/g;
+const TOKEN = /\(\s*x?\d{1,3}\s*\)|\d+\/\d+|[#]?[\w'%-]+|[:;,.]/g;
 
 interface Token {
   readonly word: string;
@@ -72,19 +74,29 @@ export function readQuantity(text: string, articleLimit = Infinity): number | nu
 
 /** Like readQuantity, but tells a vague count ("several", "all") apart from none given. */
 export function readCount(text: string, articleLimit = Infinity, countable: RegExp = COUNTABLE): number | 'vague' | null {
+  // "an open ground on all four": a number after "all" that ends the clause counts the devices left unsaid.
+  const allOf = ALL_N.exec(text);
+  if (allOf) return NUMBER_WORDS[allOf[1].toLowerCase()] ?? Number(allOf[1]);
   const tokens = tokenize(text);
   for (let i = 0; i < tokens.length; i++) {
     const { word } = tokens[i];
+    // "none of the three has a weather cover": all three are meant.
+    if (word === 'none' && tokens[i + 1]?.word === 'of' && tokens[i + 2]?.word === 'the') {
+      const all = countOf(tokens[i + 3]?.word ?? '');
+      if (all !== null && all > 1) return all;
+    }
     const parenthesised = /^\(\s*x?(\d{1,3})\s*\)$/.exec(word);
     if (parenthesised) return Number(parenthesised[1]);
     const times = /^(?:(\d{1,2})x|x(\d{1,2}))$/.exec(word);
     if (times) return Number(times[1] ?? times[2]);
     // "several receptacles" is vague; "wobbles at all speeds" says nothing about how many; a vague
     // word after the defect phrase speaks of something else ("... not GFCI protected, pushed test on every GFI").
-    if (VAGUE.has(word) && tokens[i].index >= articleLimit && !SPREAD_NOUN.test(tokens[i + 1]?.word ?? '')) continue;
+    if (VAGUE.has(word) && tokens[i].index >= articleLimit && !SPREAD_NOUN.test(spreadWord(tokens, i))) continue;
     if (VAGUE.has(word) && !isNumberAhead(tokens, i) && (isNounAhead(tokens, i, countable) || !VAGUE_BEFORE_NOUN_ONLY.has(word))) return 'vague';
     const count = countOf(word);
     if (count === null || count === 0) continue;
+    // "the left switch of the two at the door": one device picked out of a number of them.
+    if (count > 1 && tokens[i - 1]?.word === 'the' && tokens[i - 2]?.word === 'of' && SINGULAR_DEVICE.test(tokens[i - 3]?.word ?? '')) return 1;
     if ((word === 'a' || word === 'an') && tokens[i].index >= articleLimit) continue;
     // "bedroom 2" is an index, but "bedroom two receptacles" is a count.
     if (i > 0 && INDEX_BEFORE.test(tokens[i - 1].word) && !(/^[a-z]/.test(word) && count > 1 && PLURAL_COUNTABLE.test(tokens[i + 1]?.word ?? ''))) continue;
@@ -93,10 +105,22 @@ export function readCount(text: string, articleLimit = Infinity, countable: RegE
     if (/^\d/.test(word) && tokens[i - 1]?.word === ':') return count;
     if (word === 'pair' && next !== 'of') continue;
     // "(4 of them)", "1 of 3 inop": the number before "of" is the count.
+    // "two of the breakers", "three of those": any number word before "of" counts ("neither of them" is two).
     if ((/^\d/.test(word) || word === 'one') && next === 'of' && /^(?:them|\d+|the)$/.test(tokens[i + 2]?.word ?? '')) return count;
+    if (word !== 'a' && word !== 'an' && word !== 'pair' && next === 'of' && (tokens[i + 2]?.word === 'them' || (/^(?:the|these|those|its|their)$/.test(tokens[i + 2]?.word ?? '') && isNounAhead(tokens, i + 2, countable)))) return count;
+    // "neither one is protected": both are meant.
+    if (word === 'neither' && next === 'one') return count;
+
     if (isNounAhead(tokens, i, countable)) return count;
   }
   return null;
+}
+
+const ALL_N = /\b(?:on|at|in|of)\s+all\s+(\d{1,2}|two|three|four|five|six|seven|eight|nine|ten|twelve)\s*(?:[.;,:)]|$)/i;
+
+/** The word a vague word spreads over: the next one, or the noun after "of the" ("any of the bedrooms"). */
+function spreadWord(tokens: Token[], i: number): string {
+  return tokens[i + 1]?.word === 'of' && tokens[i + 2]?.word === 'the' ? (tokens[i + 3]?.word ?? '') : (tokens[i + 1]?.word ?? '');
 }
 
 function isNounAhead(tokens: Token[], i: number, countable: RegExp = COUNTABLE): boolean {
@@ -142,7 +166,7 @@ const DEVICE_NOUN = /\b(?:((?:cover|face|wall|switch|outlet|receptacle|filler)[-
 /** Nouns that name the protection itself when the defect is its absence ("no GFCI protection"). */
 const PROTECTION_NOUN = /^(?:gfci|afci)$/i;
 const DEAD_AFTER_GFCI = /\b(?:rcpts?|receptacles?|outlets?)\b[^.;]{0,40}\b(?:dead|without power|no power|not powered)\b[^.;]*/gi;
-const CONDUCTORS_UNDER_ONE = /\b(?:two|2|three|3|both|multiple)\s+(?:\w+\s+)?(?:wires?|conductors?|cond|neutrals|circuits|feeds)\b/gi;
+const CONDUCTORS_UNDER_ONE = /\b(?:two|2|three|3|both|multiple)\s+(?:\d{1,2}\s+awg\s+)?(?:\w+\s+)?(?:wires?|conductors?|cond|neutrals|circuits|feeds)\b/gi;
 /** What exposed wiring is counted in: cords, cables, runs, places; not the lights a cord feeds. */
 const WIRING_COUNTABLE = /^(?:cords?|cables?|wires?|wiring|conductors?|splices?|places?|locations?|spots?|areas?|circuits?)$/i;
 /** Codes counted only when the text gives a number (a panel condition, exposed wiring). */
@@ -159,11 +183,17 @@ export function findingQuantity(code: string, countText: string, articleLimit: n
   if (code === 'double-tap') countText = countText.replace(CONDUCTORS_UNDER_ONE, (m) => ' '.repeat(m.length));
   // A failed GFCI is counted in GFCIs, not in the receptacles left dead after it ("rcpts on that ckt dead (x3)").
   if (code === 'gfci-inoperative') countText = countText.replace(DEAD_AFTER_GFCI, (m) => ' '.repeat(m.length));
+  // A table row's leading item number ("7 | Basement | Junction box ...") is an index, not a count.
+  countText = countText.replace(ROW_NUMBER, (m) => ' '.repeat(m.length));
+  subjectText = subjectText.replace(ROW_NUMBER, (m) => ' '.repeat(m.length));
   const count = readCount(countText, articleLimit, code === 'exposed-wiring' ? WIRING_COUNTABLE : COUNTABLE);
   if (typeof count === 'number') return count;
   if (count === 'vague') return null;
   // "the front and rear receptacles", "front+rear": two sides named, two devices.
   if (SIDE_PAIR.test(countText)) return 2;
+  // "Counter receptacles (four, plus one at the island)", "the exterior receptacles (front entry and patio)".
+  const listedInBrackets = bracketedCount(countText);
+  if (listedInBrackets !== null) return listedInBrackets;
   // "breakers at positions 4 and 9", "slots 12, 14 and 16": one device per number listed.
   const listed = INDEX_LIST.exec(countText);
   if (listed) return (listed[0].match(/\d{1,3}/g) ?? []).length;
@@ -187,11 +217,29 @@ export function findingQuantity(code: string, countText: string, articleLimit: n
   return ONE_DEVICE.has(code) ? 1 : null;
 }
 
+/** A plural device noun followed by a bracketed list of its parts. */
+const BRACKETED_LIST = /\b(?:receptacles|outlets|rcpts|covers|lights|fixtures|switches|plates|boxes|alarms|detectors|fans|devices)\s*\(([^()]{3,80})\)/i;
+const LIST_NUMBER = /\b(\d{1,2}|one|two|three|four|five|six|seven|eight|nine|ten)\b(?!\s*(?:a|amps?|v|volts?|awg|ft|feet|in|inch(?:es)?|years?)\b|-)/gi;
+/** The count a bracketed list gives: its numbers added up, or one per listed place when it has none. */
+function bracketedCount(text: string): number | null {
+  const m = BRACKETED_LIST.exec(text);
+  if (!m) return null;
+  const inside = m[1];
+  if (!/,|\band\b|&|\+|\bplus\b/i.test(inside)) return null;
+  const numbers = scanAll(LIST_NUMBER, inside).map((n) => (/^\d/.test(n[1]) ? Number(n[1]) : NUMBER_WORDS[n[1].toLowerCase()]));
+  if (numbers.length > 0) return numbers.length > 1 ? numbers.reduce((a, b) => a + b, 0) : null;
+  const items = inside.split(/,|\band\b|&|\+/i).map((x) => x.trim()).filter((x) => x.length > 0);
+  return items.length >= 2 && items.length <= 6 && items.every((x) => x.split(/\s+/).length <= 4) ? items.length : null;
+}
+
 const SIDE = String.raw`(?:front|rear|back|side|left|right|north|south|east|west|upper|lower)`;
 /** Two sides named together before a plural device noun. */
 const SIDE_PAIR = new RegExp(String.raw`\b${SIDE}\s*(?:and|&|\+|\/)\s*${SIDE}\b(?:\s+[\w-]+){0,2}?\s+(?:receptacles|outlets|rcpts|covers|lights|fixtures|switches|plates|boxes|alarms|fans)\b`, 'i');
 /** Numbered positions listed after an index word. */
-const INDEX_LIST = /\b(?:positions|slots|spaces|circuits|breakers)\s+#?\d{1,3}(?:\s*,\s*#?\d{1,3})*\s*,?\s*(?:and|&)\s*#?\d{1,3}\b/i;
+const INDEX_WORD = String.raw`(?:positions?|slots?|spaces?|circuits?|breakers?|fuses?)`;
+const INDEX_LIST = new RegExp(String.raw`\b${INDEX_WORD}\s+#?\d{1,3}(?:\s*,\s*(?:${INDEX_WORD}\s+)?#?\d{1,3})*\s*,?\s*(?:and|&)\s*(?:${INDEX_WORD}\s+)?#?\d{1,3}\b(?!\s*(?:a|amps?|amperes?|v|volts?|awg|ga)\b|-)`, 'i');
+/** A table row's leading item number: "7 | ...", "12\t...". */
+const ROW_NUMBER = /(?:^|\n)\s*\d{1,3}[.)]?\s*(?=\||\t)/g;
 const LEADING_LABEL = /^\s*[A-Za-z][\w /&-]{0,30}:\s+(?=\S)/;
 
 function deviceNouns(code: string, text: string): RegExpExecArray[] {

@@ -43,6 +43,9 @@ export function parseReport(pages: readonly string[]): ParseResult {
   const pageOf = pageLocator(joined);
   const findings: Finding[] = [];
   const inSummary: boolean[] = [];
+  // Per finding: a follow-up with no place of its own (a recommendation, or the defect named again as "This is ...").
+  const isFollowUp: boolean[] = [];
+  const sectionOf: Array<string | null> = [];
   const skipped: SkippedText[] = [];
 
   for (const block of splitBlocks(joined)) {
@@ -72,10 +75,14 @@ export function parseReport(pages: readonly string[]): ParseResult {
       }
       continue;
     }
+    const followUp = (f: (typeof result.findings)[number]) => f.confidence === 'inferred' && f.computation === null && (f.isRecommendation || FOLLOW_UP_OPENING.test(f.sentence.text));
+    const allFollowUps = result.findings.every(followUp);
     for (const f of result.findings) {
       const range = sourceRange(f.sentence);
       const info = findingCodeInfo(f.code);
       inSummary.push(block.section.title !== null && SUMMARY_HEADING.test(block.section.title));
+      isFollowUp.push(allFollowUps);
+      sectionOf.push(block.section.title);
       findings.push({
         code: f.code,
         room: f.room,
@@ -93,7 +100,32 @@ export function parseReport(pages: readonly string[]): ParseResult {
       });
     }
   }
-  return { findings: mergeWiringMentions(mergeSummary(dropTitles(findings), inSummary)), skipped };
+  const kept = dropFollowUps(findings, isFollowUp, sectionOf);
+  return { findings: mergeWiringMentions(mergeSummary(dropTitles(kept.findings, joined), kept.inSummary(inSummary))), skipped };
+}
+
+/** A sentence that names the defect just described again ("This is a false ground.", "False ground.") or only says what to do. */
+const FOLLOW_UP_OPENING = /^\s*(?:[Tt]his|[Tt]hat|[Ii]t)\s+(?:is|was)\b|^\s*(?:[Pp]rovide|[Ii]nstall|[Aa]dd|[Rr]eplace|[Rr]epair|[Cc]orrect|[Rr]emove|[Rr]e-?test|[Ll]abel|[Hh]ave)\b|^\s*(?:[A-Z][\w'-]*)(?:\s+[a-z(][\w'"()-]*){0,2}\.?\s*$/;
+
+/**
+ * An item with no place of its own that only recommends ("Install a GFCI receptacle or breaker.") or
+ * names again the defect of the item before it ("This is a false ground."), in the same section, is
+ * part of that finding, not another one; so is the usual remedy of that defect (an open-ground
+ * remedy after a false ground: NFPA 70 (NEC) 2023, 250.130(C) and 406.4(D)(2)).
+ */
+function dropFollowUps(findings: Finding[], isFollowUp: readonly boolean[], sectionOf: ReadonlyArray<string | null>) {
+  let lastKept = -1;
+  const keep = findings.map((f, i) => {
+    const prev = lastKept >= 0 && sectionOf[lastKept] === sectionOf[i] ? findings[lastKept] : null;
+    const rule = CODE_RULES.find((r) => r.code === f.code);
+    const isPart = isFollowUp[i] && prev !== null && (prev.code === f.code || rule?.yieldsTo?.includes(prev.code) === true || rule?.yieldsInBlockTo?.includes(prev.code) === true);
+    if (!isPart) lastKept = i;
+    return !isPart;
+  });
+  return {
+    findings: findings.filter((_, i) => keep[i]),
+    inSummary: (flags: readonly boolean[]) => flags.filter((_, i) => keep[i]),
+  };
 }
 
 /** A bare title ("8.2 Double Tap", "Open Grounds"): a few capitalised words with no verb. */
@@ -104,13 +136,18 @@ const TITLE_VERB = /\b(?:is|are|was|were|has|have|had|not|no|did|does)\b/i;
  * A finding read from a sub-heading that only names the defect ("8.2 Double Tap") is the heading of
  * the finding the next paragraph gives for the same code and room: one finding per defect.
  */
-function dropTitles(findings: Finding[]): Finding[] {
+function dropTitles(findings: Finding[], joined: string): Finding[] {
   return findings.filter((f, i) => {
     const next = findings[i + 1];
     const text = f.evidence.trim();
-    return !(next && next.code === f.code && next.room === f.room && next.start > f.end && TITLE.test(text) && !TITLE_VERB.test(text));
+    if (!TITLE.test(text) || TITLE_VERB.test(text)) return true;
+    // A title answered by a denial on the next line ("KNOB-AND-TUBE" / "None found in use.") reports nothing.
+    if (TITLE_DENIED.test(joined.slice(f.end, f.end + 40))) return false;
+    return !(next && next.code === f.code && next.room === f.room && next.start > f.end);
   });
 }
+/** A denial opening the text right after a title: "None found", "No", "Not present", "N/A". */
+const TITLE_DENIED = /^[\s:.-]*(?:none\b|no(?:ne)?\s+(?:found|observed|noted|seen|present)\b|not\s+(?:found|observed|present|applicable)\b|n\/a\b)/i;
 
 /** Wiring methods: a house has its aluminum or knob-and-tube wiring once, however often it is mentioned. */
 const WIRING_METHODS: ReadonlySet<string> = new Set(['knob-and-tube', 'aluminum-branch-wiring']);
@@ -123,6 +160,8 @@ const WIRING_METHODS: ReadonlySet<string> = new Set(['knob-and-tube', 'aluminum-
 function mergeWiringMentions(findings: Finding[]): Finding[] {
   return findings.filter((f, i) => {
     if (!WIRING_METHODS.has(f.code)) return true;
+    // A house-wide mention of a wiring method the report also places in a room is that same condition.
+    if (f.room === 'whole-house' && findings.some((g) => g.code === f.code && g.room !== 'whole-house' && g.room !== 'unknown')) return false;
     const earlier = findings.slice(0, i).filter((g) => g.code === f.code);
     if (earlier.length === 0) return true;
     const aboutOther = findings.some((g) => g !== f && g.start === f.start && g.code !== f.code);

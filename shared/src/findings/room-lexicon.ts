@@ -10,12 +10,12 @@ const ROOM_WORDS: ReadonlyArray<readonly [Room, string]> = [
   ['bathroom', String.raw`(?:(?:hall|guest|primary|master|main|upstairs|downstairs|half|full|kids'?|jack and jill|second|upper|lower)\s+)?bath(?:room)?s?\b|powder rooms?|en-?suites?|lavatory|restrooms?|(?:tub|shower)(?:\s+(?:area|enclosure|stall))?\b|vanity`],
   ['kitchen', String.raw`kitchens?|kitchenette|kit\b\.?|kitch\b\.?|(?:kitchen\s+)?island|breakfast (?:nook|area|bar)|peninsula|pantry|(?:kitchen\s+)?counter\s*tops?|countertops?|(?:refrigerator|fridge|dishwasher|garbage disposal|disposal|range hood|stove|cooktop|(?:electric\s+)?range(?=\s+(?:receptacle|outlet|cord|circuit|hood))|(?<=\b(?:the|behind|beside|near)\s)range\b)(?![\w\s,]{0,30}\b(?:garage|basement|laundry|bar|utility|porch|patio)\b)`],
   ['garage', String.raw`garages?|carports?|gar\b\.?|(?:work\s?)?shops?\b(?![- ](?:lights?|vacs?|fixtures?|lamps?))|shop (?:building|bldg)`],
-  ['exterior', String.raw`exterior(?!\s+walls?\b)|outside(?!\s+(?:walls?|corner|of|the|a|an|its|their|this|that|each|every|all|any|bedrooms?|sleeping|junction|boxes?|enclosures?|panels?)\b)|outdoors?|patio|decks?\b|porch(?:es)?|balcon(?:y|ies)|yard|pool|spa\b|hot tub|siding|stucco|eaves|soffits?|(?:service\s+|meter\s+)?pedestal(?!\s+(?:sinks?|lavatory|basins?|fans?))|courtyards?|lanais?|verandas?|terraces?|gazebos?|breezeways?|(?:pool\s+|pump\s+)?equipment pads?|(?:front|rear|side|back) (?:wall|elevation)|ext\b\.?`],
+  ['exterior', String.raw`exterior(?!\s+walls?\b)|out\s+(?:back|front)\b|outside(?!\s+(?:walls?|corner|of|the|a|an|its|their|this|that|each|every|all|any|bedrooms?|sleeping|junction|boxes?|enclosures?|panels?)\b)|outdoors?|patio|decks?\b|porch(?:es)?|balcon(?:y|ies)|yard|pool|spa\b|hot tub|siding|stucco|eaves|soffits?|(?:service\s+|meter\s+)?pedestal(?!\s+(?:sinks?|lavatory|basins?|fans?))|courtyards?|lanais?|verandas?|terraces?|gazebos?|breezeways?|(?:pool\s+|pump\s+)?equipment pads?|(?:front|rear|side|back) (?:wall|elevation)|ext\b\.?`],
   ['basement', String.raw`basements?|cellar|bsmt\b\.?|bsmnt\b\.?|lower level`],
   ['crawl-space', String.raw`crawl\s?spaces?|crawl\b|(?:under|beneath) the (?:home|house|floor system)|underfloor`],
   ['laundry', String.raw`laundry(?:\s+(?:room|area|closet))?|washer|dryer|utility room|mud ?room`],
-  ['bedroom', String.raw`(?:(?:primary|master|guest|front|rear|back|north|south|east|west|upstairs|downstairs|kids'?|second|third|small|large)\s+)?(?:bed\s?rooms?|bedrms?\b|bdrms?\b\.?|brs?\s?\d*\b|nursery)|(?:prim|pri|mstr|mbr)\.?\s+br\b|mbr\b|primary suite|master suite|guest room`],
-  ['living-area', String.raw`living(?: (?:room|area)s?)?\b|family rooms?|great rooms?|den\b|sun\s?rooms?|florida rooms?|sun porch(?:es)?|three[- ]season rooms?|rec(?:reation)? rooms?|bonus rooms?|parlou?r|library|front room|lr\b|fireplace|media room`],
+  ['bedroom', String.raw`(?:(?:primary|master|guest|front|rear|back|north|south|east|west|upstairs|downstairs|kids'?|second|third|small|large)\s+)?(?:bed\s?rooms?|bed\s?\d\b|bedrms?\b|bdrms?\b\.?|brs?\s?\d*\b|nursery)|(?:prim|pri|mstr|mbr)\.?\s+br\b|mbr\b|primary suite|master suite|guest room`],
+  ['living-area', String.raw`living(?: (?:room|area)s?)?\b|liv\.?\s?rm\b|lr\b(?=\s*:)|family rooms?|great rooms?|den\b|sun\s?rooms?|florida rooms?|sun porch(?:es)?|three[- ]season rooms?|rec(?:reation)? rooms?|bonus rooms?|parlou?r|library|front room|lr\b|fireplace|media room`],
   ['hallway', String.raw`hall(?:way)?s?\b|corridors?|stair(?:way|well|case)?s?\b|landing|foyer|(?<!\b(?:water|service|cable|line|pipe|meter|conduit|wire|point of)\s+)entry(?:way)?(?!\s+(?:doors?|points?))|front entry(?!\s+doors?)`],
   ['attic', String.raw`attics?\b`],
   ['panel', String.raw`(?:main\s+|electrical\s+|service\s+|distribution\s+)?(?:sub-?\s?panel|panel\s*board|panel|pnl)s?\b|load cent(?:er|re)|breaker box|fuse box`],
@@ -63,10 +63,14 @@ const LIGHTS_IN_CEILING = /\b(?:recessed|can|pot)\s+(?:can\s+)?(?:lights?|fixtur
 /** A place the inspector looked from ("From the attic we observed ...", "seen from the crawl space"). */
 const VANTAGE_BEFORE = /(?:^\s*|[.;]\s+)from\s+(?:the\s+)?$|\b(?:viewed|seen|observed|visible|looking)\s+from\s+(?:the\s+)?$/i;
 /** A verb of supply before a room: the room is served, not the place ("feeding the kitchen"). */
-const SERVED_BEFORE = /\b(?:feeding|feeds|serving|serves|supplying|supplies|powering|powers)\s+(?:the\s+)?$/i;
+const SERVED_BEFORE = /\b(?:feeding|feeds|serving|serves|supplying|supplies|powering|powers|(?:running|runs|routed|heading|headed|extending)\s+(?:up\s+|down\s+|over\s+)?(?:toward|towards|to|into))\s+(?:the\s+)?$/i;
 /** A device noun after the room: "serving the kitchen receptacles" names the devices' place. */
 const DEVICE_AFTER = /^\s*(?:[\w-]+\s+)?(?:receptacles?|outlets?|rcpts?|lights?|fixtures?|counters?|countertops?|switch(?:es)?|fans?|gfcis?|alarms?|smoke)\b/i;
-const REFERENCE_BEFORE = /(?:beneath|below|under|underneath|above|over|outside(?:\s+of)?)\s+(?:the\s+)?$/i;
+const REFERENCE_BEFORE = /(?:beneath|below|under|underneath|above|over|outside(?:\s+of)?|open to)\s+(?:the\s+)?$/i;
+/** "at the bedroom end of the hall": the room names an end of the place that follows. */
+const ACCESS_BEFORE = /\b(?:reached|accessed|entered|access(?:ible)?)\s+(?:by|from|through|via)\s+(?:the\s+|an?\s+)?(?:[\w-]+\s+){0,4}?(?:(?:in|from|off|at)\s+(?:the\s+)?)?$/i;
+const BELOW_AFTER = /^\s+(?:ceilings?\s+|(?:recessed\s+|can\s+)?(?:can\s+)?lights?\s+)?below\b/i;
+const END_OF_AFTER = /^\s+(?:end|side)\s+of\s+(?:the\s+)?/i;
 /** "by the kitchen pass-through", "near the dining room archway": a room's opening as a landmark of another room. */
 const BESIDE_BEFORE = /(?:by|near|beside|next to|at|toward|towards)\s+(?:the\s+)?$/i;
 const OPENING_AFTER = /^\s*(?:pass[- ]?through|opening|archway)/i;
@@ -86,7 +90,12 @@ export function findRooms(text: string): RoomMention[] {
     const isReferencePoint =
       (REFERENCE_BEFORE.test(before) && !FIXTURE_AFTER.test(after) && !(hasVantage && LIGHTS_IN_CEILING.test(text.slice(Math.max(0, start - 50), start)))) ||
       (BESIDE_BEFORE.test(before) && OPENING_AFTER.test(after)) ||
-      VANTAGE_BEFORE.test(text.slice(Math.max(0, start - 30), start));
+      VANTAGE_BEFORE.test(text.slice(Math.max(0, start - 30), start)) ||
+      END_OF_AFTER.test(after) ||
+      // "the bedroom ceilings below", "the kitchen can lights below": a room seen from above is a reference point.
+      BELOW_AFTER.test(after) ||
+      // "The attic is reached by pull-down stairs in the hallway": where a space is entered from.
+      ACCESS_BEFORE.test(text.slice(Math.max(0, start - 50), start));
     found.push({ room: ROOM_WORDS[i][0], start, end, text: m[0], isReferencePoint });
   }
   // A level or outbuilding named before a room is where that room is ("basement bedroom", "garage

@@ -45,10 +45,12 @@ export interface PlaceContext {
 
 const SEPARATOR = /,\s*|\s+(?:and|also|while|plus|as well as)\s+/gi;
 /** Text between two places of one list: a conjunction, few words, no spatial preposition. */
-const LIST_BETWEEN = /^(?=.*(?:,|\band\b|&|\/|\bor\b))(?!.*\b(?:above|below|beneath|under|over|near|behind|beside|next|adjacent|off|of|from|inside|within|serving|serves?|feeding|feeds?|supplies|supplying|where|for|which|that)\b)(?:[\s,&/]*[\w'-]+){0,6}[\s,&/]*$/i;
+const LIST_BETWEEN = /^(?=.*(?:,|\band\b|&|\/|\bor\b))(?!.*\b(?:above|below|beneath|under|over|near|behind|beside|next|adjacent|off|of|from|inside|within|serving|serves?|feeding|feeds?|supplies|supplying|where|for|which|that)\b)(?:[\s,&/()]*[\w'-]+){0,6}[\s,&/()]*$/i;
 
 /** Words that limit a house-wide condition to the place named ("only in the garage", "within the addition"). */
-const LIMITED = /\b(?:only|addition|within|limited to|confined to|throughout the|circuit\s+\d+)\b/i;
+const LIMITED = /\b(?:only|addition|addn|within|limited to|confined to|throughout the(?!\s+(?:house|home|dwelling|building))|circuit\s+\d+|all other)\b|\bon\s+(?:the\s+)?(?!branch\b|all\b|most\b|\d)[\w/-]+(?:\s+[\w/-]+)?\s+circuits\b/i;
+/** "wired in knob-and-tube throughout, seen in the attic": the rooms named are where it was seen. */
+const THROUGHOUT = /\bthroughout(?:\s+the\s+(?:house|home|dwelling|building))?\s*(?:[,.;:)]|$)/i;
 
 /** Splits the sentence into one part per match: a match owns the text up to the next separator. */
 function segments(text: string, matches: readonly CodeMatch[], clauses: readonly Range[]): Range[] {
@@ -124,14 +126,19 @@ export function placeMatches(
       const first = inPart[0] ?? (rooms.some((r) => r.room === 'panel') ? rooms.find((r) => r.room === 'panel') : undefined);
       if (first?.room === 'panel') return [{ room: 'panel', location: readLocation(text, first), ...own }];
     }
+    if (match.rule.placeAnywhereInSentence && THROUGHOUT.test(text)) return [{ room: match.rule.defaultRoom ?? 'whole-house', location: '', ...own, isInferred: true }];
     if (match.rule.isHouseWide && !LIMITED.test(text)) return [{ room: match.rule.defaultRoom ?? 'whole-house', location: '', ...own, isInferred: true }];
     // A panel named beside another code's defect is a reference point ("cable run up to the panel").
     const group = listedGroup(text, mentionsIn(rooms, part).filter((m) => m.room !== 'panel'));
     if (group.length > 1) {
+      // "three receptacles in the parlor and two in the front bedroom": each place's own number, when every place has one.
+      // "Cvr plates missing: BR2 (2), laundry (1), garage (3)": a bracketed count right after each place.
+      const counts = group.map((m, j) => bracketAfter(text.slice(m.end, m.end + 8)) ?? placeCount(text.slice(j === 0 ? part.start : group[j - 1].end, m.start)));
+      const eachCounted = counts.every((c) => c !== null);
       return group.map((m, j) => ({
         room: m.room,
         location: readLocation(text, m),
-        countText: text.slice(j === 0 ? part.start : group[j - 1].end, m.end),
+        countText: eachCounted ? `${counts[j]} ${PLACE_COUNT_NOUN}` : text.slice(j === 0 ? part.start : group[j - 1].end, m.end),
         laterText: '',
         articleLimit: Infinity,
       }));
@@ -154,6 +161,23 @@ export function placeMatches(
     if (sectionRoom) return [{ room: sectionRoom, location: context.sectionTitle ?? '', ...own, isInferred: true }];
     return [{ room: match.rule.defaultRoom ?? 'unknown', location: '', ...own, isInferred: true }];
   });
+}
+
+const PLACE_COUNT_WORDS: Readonly<Record<string, number>> = { one: 1, two: 2, three: 3, four: 4, five: 5, six: 6, seven: 7, eight: 8, nine: 9, ten: 10 };
+/** A number just before a listed place ("two in the", "at three receptacles in the front"). */
+const PLACE_COUNT = /\b(\d{1,2}|one|two|three|four|five|six|seven|eight|nine|ten)\s+(?:[\w-]+\s+){0,2}?(?:in|at|on)\s+(?:the\s+)?(?:[\w-]+\s+){0,2}$/i;
+/** The noun a place's own number is read with (the count reader needs a device after the number). */
+const PLACE_COUNT_NOUN = 'devices';
+function bracketAfter(after: string): number | null {
+  const m = /^\s*\((\d{1,3})\)/.exec(after);
+  return m ? Number(m[1]) : null;
+}
+function placeCount(before: string): number | null {
+  const m = PLACE_COUNT.exec(before);
+  if (!m || /^(?:\d{1,2})$/.test(m[1]) === false && PLACE_COUNT_WORDS[m[1].toLowerCase()] === undefined) return null;
+  const after = before.slice(m.index + m[1].length);
+  if (/^\s*(?:a|amps?|v|volts?|awg|ft|feet|inch(?:es)?|years?)\b|^-/i.test(after)) return null;
+  return /^\d/.test(m[1]) ? Number(m[1]) : PLACE_COUNT_WORDS[m[1].toLowerCase()];
 }
 
 function fixedLocation(text: string, rooms: readonly RoomMention[], part: Range, room: Room): string {

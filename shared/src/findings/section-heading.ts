@@ -41,9 +41,9 @@ const GENERAL = new Set(['summary', 'general', 'detailed', 'detail', 'interior',
  * A summary at the top of a report ("SUMMARY OF ELECTRICAL CONCERNS", "KEY ELECTRICAL ITEMS",
  * "Overview"): its items are repeated by the body, and merge with the body's findings.
  */
-export const SUMMARY_HEADING = /summary|overview|at a glance|\b(?:key|significant|major|priority|principal|notable)\s+(?:[\w-]+\s+){0,3}?(?:findings|items|concerns|issues|defects|deficiencies)\b|highlights|action items/i;
+export const SUMMARY_HEADING = /summary|overview|at a glance|quick list|\b(?:items?|things)\s+(?:needing|requiring|that need)\s+attention\b|\b(?:key|significant|major|priority|principal|notable)\s+(?:[\w-]+\s+){0,3}?(?:findings|items|concerns|issues|defects|deficiencies)\b|highlights|action items/i;
 /** A summary heading with words of its own after it ("SUMMARY (electrical items requiring attention)"). */
-const SUMMARY_START = /^(?:summary|overview|key|significant|major|priority|(?:report|inspection|deficiency|deficiencies|defect|repair|findings)\s+summary)\b/i;
+const SUMMARY_START = /^(?:summary|overview|quick list|key|significant|major|priority|(?:report|inspection|deficiency|deficiencies|defect|repair|findings)\s+summary)\b/i;
 /** A label that starts the report's body after its summary ("COMMENTS", "DETAILED FINDINGS", "Observations"). */
 const BODY_PART = /^(?:(?:detailed|full|report)\s+)?(?:comments|findings|observations|details|discussion|body|narrative)$/i;
 const FILLER = new Set([
@@ -53,7 +53,7 @@ const FILLER = new Set([
   'testing', 'test', 'tests', 'review', 'evaluation', 'inspection', 'other', 'upper', 'lower', 'level',
   'first', 'second', 'floor', 'cont', 'continued', "cont'd", 'or', 'with', 'at', 'to', 'for', 'in',
   'on', 'safety', 'major', 'minor', 'entrance', 'equipment', 'service', 'space', 'report', 'and/or',
-  'limitations', 'defects', 'repairs', 'issues', 'info', 'information', 'description', 'descriptions',
+  'limitations', 'defects', 'repairs', 'issues', 'info', 'information', 'description', 'descriptions', 'full',
 ]);
 
 export interface Heading {
@@ -70,14 +70,15 @@ export type HeadingLine =
   /** `startsBody`: the label opens the report's body ("COMMENTS"), which ends a summary. */
   | { readonly type: 'label'; readonly startsBody?: boolean };
 
-const NUMBERING = /^\s*(?:section\s+)?(?:\d{1,2}(?:\.\d{1,2})*\.?|[ivx]{1,4}\.|[a-z]\))?\s*[-–—:.]?\s*/i;
+const NUMBERING = /^\s*(?:section\s+)?(?:\d{1,2}(?:\.\d{1,2})*\.?|[ivx]{1,4}\.|[a-z]\)|[A-Z]\.(?=\s))?\s*[-–—:.]?\s*/i;
 
 function isHeadingWord(w: string): boolean {
   return ELECTRICAL.has(w) || NON_ELECTRICAL.has(w) || ROOM_WORDS.has(w) || GENERAL.has(w) || FILLER.has(w) || /^\d+$/.test(w);
 }
 
 export function classifyHeadingLine(line: string): HeadingLine | null {
-  const trimmed = line.trim();
+  // "--- QUICK LIST ---", "=== ELECTRICAL ===": rules drawn around a heading are decoration.
+  const trimmed = line.trim().replace(/^[-=*#~]{2,}\s*(?=\S)/, '').replace(/(?<=\S)\s*[-=*#~]{2,}$/, '');
   if (trimmed.length > 70) {
     // "SUMMARY OF ELECTRICAL CONCERNS (details follow in the body of the report)": a long note in brackets.
     const bare = trimmed.replace(/\s*\([^()]*\)\s*$/, '');
@@ -99,6 +100,11 @@ export function classifyHeadingLine(line: string): HeadingLine | null {
   const words = (title.toLowerCase().match(/[a-z&'/-]+|\d+/g) ?? [])
     .filter((w) => /[a-z&\d]/.test(w))
     .map((w) => (isHeadingWord(w) ? w : (correctSpelling(w)?.toLowerCase() ?? w)));
+  if (words.length > 8 && /\)\s*$/.test(title)) {
+    // "SUMMARY - ELECTRICAL ITEMS (details follow in body of report)": a summary heading and its note.
+    const bare = title.replace(/\s*\([^()]*\)\s*$/, '');
+    return bare !== title && SUMMARY_HEADING.test(bare) ? classifyHeadingLine(bare) : null;
+  }
   if (words.length === 0 || words.length > 8) return null;
   if (!words.every(isHeadingWord)) return summaryHeading(title, words) ?? roomLabel(trimmed, title, words);
   const kind = headingKind(words);
@@ -109,7 +115,8 @@ export function classifyHeadingLine(line: string): HeadingLine | null {
 
 /** A summary heading followed by words the heading lists do not know, with no verb or defect. */
 function summaryHeading(title: string, words: readonly string[]): HeadingLine | null {
-  if (!SUMMARY_START.test(title) || !SUMMARY_HEADING.test(title) || LABEL_VERB.test(title) || /:\s*\S/.test(title)) return null;
+  // A colon inside an upper-case heading joins two names of it ("QUICK LIST: ITEMS NEEDING ATTENTION").
+  if (!SUMMARY_START.test(title) || !SUMMARY_HEADING.test(title) || LABEL_VERB.test(title) || (/:\s*\S/.test(title) && /\p{Ll}/u.test(title))) return null;
   return { type: 'heading', heading: { kind: words.some((w) => ELECTRICAL.has(w)) ? 'electrical' : 'general', title, room: null } };
 }
 
@@ -119,10 +126,15 @@ function summaryHeading(title: string, words: readonly string[]): HeadingLine | 
  * colon or every word is capitalised, and it reads as a label (no verb, no defect).
  */
 const LABEL_VERB = /\b(?:is|are|was|were|has|have|had|not|no|missing|loose|damaged|broken|open|inoperative|ok|tested|needs?)\b/i;
+/** A device or defect named in a label: then it is an item, not a place heading. */
+const DEVICE_WORD = /\b(?:receptacles?|outlets?|breakers?|switch(?:es)?|lights?|fans?|covers?|plates?|wiring|gfcis?|afcis?|alarms?|smoke|panels?|box(?:es)?|cords?|cables?|scorched|cracked|double|tapped|aluminum)\b/i;
 function roomLabel(line: string, title: string, words: readonly string[]): HeadingLine | null {
   if (words.length > 5 || LABEL_VERB.test(title)) return null;
-  const isCapitalised = title.split(/\s+/).every((w) => /^[\p{Lu}\d(]/u.test(w) || w.length <= 2);
-  if (!/:\s*$/.test(line) && !isCapitalised) return null;
+  // A bracketed note ("Office (converted sun porch)") is no part of the label's capitals.
+  const isCapitalised = title.replace(/\s*\([^()]*\)/g, '').split(/\s+/).every((w) => /^[\p{Lu}\d(]/u.test(w) || w.length <= 2);
+  // A numbered item that only names a place ("3. Office", "4. Hall bath") heads the lettered items under it.
+  const isNumberedPlace = /^\s*(?:\d{1,2}|[A-Za-z])[.)]\s+\S/.test(line) && words.length <= 4 && !DEVICE_WORD.test(title);
+  if (!/:\s*$/.test(line) && !isCapitalised && !isNumberedPlace) return null;
   const room = findRooms(title).find((r) => r.room !== 'panel')?.room ?? null;
   if (room === null) return null;
   return { type: 'heading', heading: { kind: 'room', title, room } };

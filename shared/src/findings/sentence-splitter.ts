@@ -9,7 +9,7 @@ const ABBREVIATIONS = new Set([
   'recep', 'rcpt', 'rcpts', 'recept', 'approx', 'e.g', 'i.e', 'eg', 'ie', 'no', 'nos', 'rm', 'bdrm',
   'br', 'ft', 'min', 'max', 'vs', 'mr', 'mrs', 'ms', 'dr', 'st', 'ave', 'elec', 'ext', 'kit', 'bsmt',
   'sq', 'ea', 'qty', 'fig', 'misc', 'mfr', 'temp', 'incl', 'est', 'apt', 'bldg', 'det', 'dets', 'ckt', 'ckts',
-  'brkr', 'pnl', 'perm',
+  'brkr', 'pnl', 'perm', 'alum', 'cond', 'bkr',
 ]);
 
 function isAbbreviation(text: string, dot: number): boolean {

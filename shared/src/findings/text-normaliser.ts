@@ -43,7 +43,7 @@ const SHORTHAND: Readonly<Record<string, string>> = {
   'w/o': 'without', 'w/out': 'without', 'w/': 'with',
   reqd: 'required', "req'd": 'required', rcmd: 'recommend', recomm: 'recommend', recom: 'recommend',
   cvr: 'cover', cvrs: 'covers', cov: 'cover', plt: 'plate', plts: 'plates',
-  wp: 'weatherproof', wr: 'weather-resistant',
+  wp: 'weatherproof', wr: 'weather-resistant', wx: 'weather',
   al: 'aluminum', alum: 'aluminum', aluminium: 'aluminum', cu: 'copper',
   ga: 'AWG', 'ga.': 'AWG', gauge: 'AWG', gage: 'AWG', guage: 'AWG', awg: 'AWG',
   obs: 'observed', 'obs.': 'observed', unk: 'unknown', 'unk.': 'unknown', clg: 'ceiling', btn: 'button', mfr: 'manufactured',
@@ -52,7 +52,7 @@ const SHORTHAND: Readonly<Record<string, string>> = {
 };
 
 /** Shorthand that is only expanded where the context says it is the trade word. */
-const CONTEXTUAL = new Set(['al', 'cu', 'sd', 'sds', 'sec', 'ser', 'sw', 'lt', 'lts', 'cb', 'kt', 'ba', 'gar', 'kit', 'ext', 'wp', 'wr', 'det', 'dets', 'cond', 'conds', 'ga', 'ga.', 'gauge', 'gage', 'guage', 'awg']);
+const CONTEXTUAL = new Set(['al', 'cu', 'sd', 'sds', 'sec', 'ser', 'sw', 'lt', 'lts', 'cb', 'kt', 'ba', 'gar', 'kit', 'ext', 'wp', 'wr', 'wx', 'det', 'dets', 'cond', 'conds', 'ga', 'ga.', 'gauge', 'gage', 'guage', 'awg']);
 
 const NUMBER_WORDS: Readonly<Record<string, number>> = {
   two: 2, three: 3, four: 4, five: 5, six: 6, seven: 7, eight: 8, nine: 9, ten: 10, eleven: 11, twelve: 12,
@@ -195,6 +195,8 @@ function replacementFor(tokens: readonly Token[], i: number, source: string): st
   const gapBefore = i > 0 ? source.slice(tokens[i - 1].end, tokens[i].start) : ' ';
   // "#12" → "12 AWG"; "12 ga", "12-gauge", "12g" → "12 AWG".
   const hash = /^#\s?(\d{1,2})$/.exec(text);
+  // "Bkr #6", "slot #14": after an index word the number names the device, not a wire size.
+  if (hash && /^\s+$/.test(gapBefore) && /^(?:bkrs?|brkrs?|breakers?|ckts?|circuits?|slots?|positions?|spaces?|no\.?|units?|items?|photos?|fuses?|cb)$/.test(prev)) return null;
   if (hash) return `${hash[1]} AWG`;
   const glued = /^(\d{1,2})(?:ga|g|awg)$/i.exec(text);
   if (glued) return `${glued[1]} AWG`;
@@ -210,6 +212,8 @@ function replacementFor(tokens: readonly Token[], i: number, source: string): st
   // "ext cord", "ext. cords": an extension cord, not the exterior.
   if ((bare === 'ext' || bare === 'extn') && /^cords?$/.test(next)) return 'extension';
   if (Object.prototype.hasOwnProperty.call(SHORTHAND, lower) || Object.prototype.hasOwnProperty.call(SHORTHAND, bare)) {
+    // "Report #KT-24-0917", "Unit GFI-2": letters glued to a number by a hyphen, or after "#", are an identifier.
+    if (isIdentifier(source, tokens[i].end, gapBefore)) return null;
     const key = Object.prototype.hasOwnProperty.call(SHORTHAND, lower) ? lower : bare;
     const word = SHORTHAND[key];
     if (CONTEXTUAL.has(key) && !contextAllows(key, prev, next, gapBefore, text)) return null;
@@ -220,6 +224,13 @@ function replacementFor(tokens: readonly Token[], i: number, source: string): st
     return fixed === null ? null : capitalised(text, fixed);
   }
   return null;
+}
+
+function isIdentifier(source: string, end: number, gapBefore: string): boolean {
+  const next = source.charCodeAt(end + 1);
+  if (source[end] === '-' && next >= 48 && next <= 57) return true;
+  const gap = gapBefore.trimEnd();
+  return gap.length > 0 && gap[gap.length - 1] === '#';
 }
 
 function contextAllows(key: string, prev: string, next: string, gapBefore: string, original: string): boolean {
@@ -259,6 +270,8 @@ function contextAllows(key: string, prev: string, next: string, gapBefore: strin
     case 'kit':
     case 'ext':
       return original.length <= 4 && /^[A-Z]/.test(original);
+    case 'wx':
+      return /^(?:cover|covers|cvr|cvrs|lid|lids|hood|hoods)$/.test(next);
     case 'wp':
     case 'wr':
       return /^(?:cover|covers|lid|lids|rcpt|receptacle|recep|outlet|device|in-use|bubble)/.test(next) || /^(?:not|non|no)$/.test(prev);

@@ -126,7 +126,8 @@ describe('smoke and CO alarms, third round (common practice; NFPA 72)', () => {
   });
 
   it('reads "none in the house" as house-wide, with the remedy in the same sentence as its recommendation', () => {
-    expect(read('CO alarm: none in the house; gas range in the kitchen - install a CO alarm.')).toEqual([['smoke-co-alarm', 'whole-house', 1]]);
+    // Fifth round: an alarm missing house-wide gives no number to install (null, as 30 of the corpus's 32 such labels).
+    expect(read('CO alarm: none in the house; gas range in the kitchen - install a CO alarm.')).toEqual([['smoke-co-alarm', 'whole-house', null]]);
   });
 
   it('reads the alarm by its last word in an alarm row', () => {
