@@ -304,7 +304,10 @@ describe('GET /api/requests', () => {
     const s = sessions.buyerAgent;
     const { body } = await s.agent.get('/api/requests?pageSize=1&sort=street').expect(200);
     expect(body.nextCursor).toEqual(expect.any(String));
-    for (const bad of [`sort=closingDate&after=${body.nextCursor}`, `sort=street&direction=desc&after=${body.nextCursor}`, 'after=bm90LWEtY3Vyc29y', 'after=%00', `sort=closingDate&after=${Buffer.from(JSON.stringify(['closingDate', 'asc', 'not a date', 1])).toString('base64url')}`]) {
+    for (const bad of [`sort=closingDate&after=${body.nextCursor}`, `sort=street&direction=desc&after=${body.nextCursor}`, 'after=bm90LWEtY3Vyc29y', 'after=%00', `sort=closingDate&after=${Buffer.from(JSON.stringify(['closingDate', 'asc', 'not a date', 1])).toString('base64url')}`,
+      `sort=closingDate&after=${Buffer.from(JSON.stringify(['closingDate', 'asc', '2027-13-45', 1])).toString('base64url')}`,
+      `sort=createdAt&after=${Buffer.from(JSON.stringify(['createdAt', 'asc', '2026-12-04 25:61:00+00', 1])).toString('base64url')}`,
+      `sort=street&after=${Buffer.from(JSON.stringify(['street', 'asc', 'Elm', 2 ** 31])).toString('base64url')}`]) {
       const res = await s.agent.get(`/api/requests?pageSize=1&${bad}`);
       expect(res.status).toBe(400);
       expect(res.body.details[0].path).toMatch(/^(query\.)?after$/);

@@ -22,6 +22,20 @@ const KEY_SHAPES: Record<RequestSort, RegExp> = {
 
 const STALE = 'This page link is out of date: start again from the first page';
 
+/** Whether a key of the right shape also names a real day or moment ("2027-13-45" does not). */
+function isRealKey(sort: RequestSort, key: string): boolean {
+  if (sort === 'closingDate') {
+    const day = new Date(`${key}T00:00:00Z`);
+    return !Number.isNaN(day.getTime()) && day.toISOString().slice(0, 10) === key;
+  }
+  if (sort === 'createdAt') {
+    const day = key.slice(0, 10);
+    const [h, m, sec] = key.slice(11, 19).split(':').map(Number);
+    return isRealKey('closingDate', day) && h < 24 && m < 60 && sec < 60;
+  }
+  return true;
+}
+
 export function encodeCursor(cursor: Cursor): string {
   return Buffer.from(JSON.stringify([cursor.sort, cursor.direction, cursor.sortKey, cursor.id])).toString('base64url');
 }
@@ -41,6 +55,7 @@ export function decodeCursor(token: string, sort: RequestSort, direction: 'asc' 
     cursorDirection === direction &&
     typeof sortKey === 'string' &&
     KEY_SHAPES[sort].test(sortKey) &&
+    isRealKey(sort, sortKey) &&
     Number.isInteger(id) &&
     (id as number) > 0 &&
     (id as number) < 2 ** 31;
