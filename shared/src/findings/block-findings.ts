@@ -7,7 +7,6 @@ import { sourceRange, type MappedText } from './mapped-text';
 import { negatedSpans } from './negation-detector';
 import { deviceRating, nameplateMaximum, type CarriedRatings } from './overcurrent-check';
 import { findingQuantity, isCounted, readCount } from './quantity-reader';
-import { scanAll } from './regex-scan';
 import { findRooms, type RoomMention } from './room-lexicon';
 import type { Room } from './room';
 import { lastPlaceMention, placeMatches } from './room-resolver';
@@ -59,6 +58,19 @@ const MAX_LABEL_WORDS = 5;
 /** Counting whitespace runs gives the word count of `split(/\s+/)` without its copy of the expression. */
 const WHITESPACE_RUN = /\s+/g;
 const VERB = /\b(?:is|are|was|were|has|have|had|be|been)\b/i;
+
+/** Whether the text has at most `max` words (whitespace runs + 1), counting no further than needed. */
+function hasAtMostWords(text: string, max: number): boolean {
+  WHITESPACE_RUN.lastIndex = 0;
+  let runs = 0;
+  while (WHITESPACE_RUN.exec(text) !== null) {
+    if (++runs + 1 > max) {
+      WHITESPACE_RUN.lastIndex = 0;
+      return false;
+    }
+  }
+  return true; // a failed exec leaves lastIndex at 0
+}
 
 /**
  * Reads the findings of one block (item, bullet or paragraph): per sentence, the defect phrases,
@@ -185,7 +197,7 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
       if (inSentence.some((f) => !f.isRecommendation && !f.isFallbackOnly)) lastFound = inSentence;
     }
     const mention = lastPlaceMention(rooms);
-    const isLabel = matches.length === 0 && scanAll(WHITESPACE_RUN, sentence.text).length + 1 <= MAX_LABEL_WORDS && !VERB.test(sentence.text);
+    const isLabel = matches.length === 0 && hasAtMostWords(sentence.text, MAX_LABEL_WORDS) && !VERB.test(sentence.text);
     if (mention) previous = { text: sentence.text, mention, isLabel };
     if (sentenceIndex === 0 && mention) opening = { room: mention.room, location: readLocation(sentence.text, mention), hadFindings: live.length > 0 };
   });

@@ -44,7 +44,7 @@ function tableCells(line: string): string[] | null {
   let cells: string[];
   if (trimmed.includes('|')) cells = trimmed.replace(/^\|/, '').replace(/\|$/, '').split('|');
   else if (trimmed.includes('\t')) cells = trimmed.split('\t');
-  else if (/\S {3,}\S/.test(trimmed)) cells = trimmed.split(/ {3,}/);
+  else if (trimmed.includes('   ') && /\S {3,}\S/.test(trimmed)) cells = trimmed.split(/ {3,}/);
   else return null;
   cells = cells.map((c) => c.trim());
   return cells.length >= 3 ? cells : null;
@@ -123,6 +123,7 @@ export function splitBlocks(joined: string): Block[] {
   for (const line of lines) {
     const content = line.text.trim();
     const cells = content.length > 0 ? tableCells(line.text) : null;
+    const isNoise = content.length > 0 && NOISE_LINE.test(content);
     if (cells) {
       // "No." or "#" heading the first column numbers the rows ("7 | Basement | ..."): an item number, not a count.
       const heading = cells.findIndex((c, k) => QUANTITY_HEADING.test(c) && !(k === 0 && ITEM_NUMBER_HEADING.test(c)));
@@ -132,14 +133,14 @@ export function splitBlocks(joined: string): Block[] {
       } else if (quantityColumn !== 0 && /^\d{1,3}[.)]?$/.test(cells[0])) {
         rowCounts.push({ start: line.start, end: line.end, count: null, itemNumberEnd: line.start + line.text.indexOf(cells[0]) + cells[0].length });
       }
-    } else if (content.length > 0 && !NOISE_LINE.test(content) && !/^\s{8,}\S/.test(line.text)) {
+    } else if (content.length > 0 && !isNoise && !/^\s{8,}\S/.test(line.text)) {
       quantityColumn = null;
     }
     if (content.length === 0) {
       close();
       continue;
     }
-    if (NOISE_LINE.test(content)) continue;
+    if (isNoise) continue;
     const headingLine = classifyHeadingLine(content);
     if (headingLine) {
       close();
@@ -245,5 +246,6 @@ function joinLine(builder: MappedTextBuilder, prev: Line, next: Line, shortLine:
 
 /** A row of a table export: pipe-separated, or fixed-width columns (runs of 3+ spaces between words). */
 function isTableRow(line: string): boolean {
-  return /\S\s*\|\s*\S/.test(line) || /\S {3,}\S/.test(line.trim());
+  // The literal each expression needs is looked for first (a plain search is much cheaper).
+  return (line.includes('|') && /\S\s*\|\s*\S/.test(line)) || (line.includes('   ') && /\S {3,}\S/.test(line.trim()));
 }

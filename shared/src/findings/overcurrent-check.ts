@@ -1,4 +1,5 @@
 import type { Range } from './clause-splitter';
+import { requiredLiteralTest } from './phrase-literals';
 import { scanAll } from './regex-scan';
 
 /**
@@ -30,6 +31,12 @@ const DEVICE = /\b(?:breakers?|fuses?|fused|ocpds?|overcurrent|double-pole|2-pol
 const INSTALLED = /\b(?:installed|existing|actual|in place|present)\b/i;
 /** The nameplate's limit: "nameplate max overcurrent device 30A", "MOCP 25 A", "max breaker 20A". */
 const NAMEPLATE = /\b(?:(?:nameplate|name plate|label|data plate|rating plate)\b[^.;]{0,30}?\bmax(?:imum|\.)?|max(?:imum|\.)?\s+(?:(?:overcurrent|ocpd|breaker|fuse|circuit breaker|hacr|device|protection|size|rating|or|and)\b\s*\/?\s*)+|mocp|max\.?\s+ocp)[^.;\d]{0,40}?(\d{2,3})\s?-?(?:a|amps?|amperes?)\b|\b(?:nameplate|name plate|label|data plate|rating plate|plate)\b[^.;\d]{0,30}?(\d{2,3})\s?-?(?:a|amps?|amperes?)\s+(?:max(?:imum|\.)?|at most)\b/gi;
+/** False for a text that lacks the words every nameplate wording needs ("max", "mocp", "label", "plate"). */
+const mayStateNameplate = requiredLiteralTest(NAMEPLATE);
+/** The nameplate maxima a text states (the search for the words first: most sentences have none). */
+function nameplateMentions(text: string): Mention[] {
+  return mayStateNameplate(text) ? mentions(NAMEPLATE, text) : [];
+}
 /** Text between a rating and a size that keeps them about the same circuit. */
 const MAX_PAIR_GAP = 140;
 
@@ -47,7 +54,7 @@ function mentions(re: RegExp, text: string): Mention[] {
  * nameplate lists 25 A maximum" has both, so nothing carries).
  */
 export function nameplateMaximum(text: string): number | null {
-  const found = mentions(NAMEPLATE, text);
+  const found = nameplateMentions(text);
   if (found.length === 0) return null;
   const paired = mentions(RATING, text).some((r) => !found.some((n) => r.start >= n.start && r.end <= n.end));
   return paired ? null : found[found.length - 1].value;
@@ -102,7 +109,7 @@ const MAIN_OR_SERVICE = /\bmain\s+(?:breaker|disconnect|fuse|brkr)|\bservice\b|\
 
 /** A branch device's rating stated by the sentence (for the next sentence's nameplate), or null. */
 export function deviceRating(text: string): number | null {
-  if (!DEVICE.test(text) || MAIN_OR_SERVICE.test(text) || mentions(NAMEPLATE, text).length > 0) return null;
+  if (!DEVICE.test(text) || MAIN_OR_SERVICE.test(text) || nameplateMentions(text).length > 0) return null;
   return mentions(RATING, text)[0]?.value ?? null;
 }
 
@@ -113,7 +120,7 @@ const nameplateCheck = (rating: number, limit: number, at: Range): OvercurrentCh
 
 export function checkOvercurrent(text: string, carried: CarriedRatings | null = null): OvercurrentCheck[] {
   if (!DEVICE.test(text) && !/\bfus|\bbreak|\bnameplate|\bmax|\binstalled/i.test(text)) return [];
-  const nameplates = mentions(NAMEPLATE, text);
+  const nameplates = nameplateMentions(text);
   // "The data plate lists max breaker 30 A. The breaker at the disconnect is 45 A." (or the other
   // way round): the nameplate and the device's rating in two sentences of one block.
   if (nameplates.length === 0 && carried?.nameplate != null && (DEVICE.test(text) || INSTALLED.test(text)) && !MAIN_OR_SERVICE.test(text)) {

@@ -1,5 +1,5 @@
 import { CODE_RULES } from './code-patterns';
-import { requiredLiteralLists, requiredLiterals } from './phrase-literals';
+import { requiredLiteralLists, requiredLiterals, requiredLiteralTest } from './phrase-literals';
 import { gap, rx, T } from './term-lexicon';
 
 /** Whether the text contains one of the literals, in lower case (as the matcher checks it). */
@@ -97,5 +97,36 @@ describe('requiredLiterals', () => {
     const withWords = phrases.filter((p) => requiredLiterals(p.re) !== null);
     expect(withWords.length / phrases.length).toBeGreaterThan(0.95);
     expect(requiredLiterals(new RegExp(T.GFCI, 'gi'))).toEqual(expect.arrayContaining(['gfci', 'gfi', 'ground fault']));
+  });
+});
+
+describe('requiredLiteralTest', () => {
+  const nameplate = /\b(?:(?:nameplate|data plate)\b[^.;]{0,30}?\bmax(?:imum)?|mocp)[^.;\d]{0,40}?(\d{2,3})\s?a\b/gi;
+  const test = requiredLiteralTest(nameplate);
+
+  it('passes every text the expression matches, in any case', () => {
+    for (const text of ['The NAMEPLATE lists a maximum of 30 A.', 'MOCP 25 A', 'data plate: max breaker 40a']) {
+      expect(nameplate.test(text)).toBe(true);
+      nameplate.lastIndex = 0;
+      expect(test(text)).toBe(true);
+    }
+  });
+
+  it('rules out a text without the words the expression needs', () => {
+    expect(test('The breaker is rated 30 A on 10 AWG copper.')).toBe(false);
+  });
+
+  it('needs a word of every list, and passes everything when none can be derived', () => {
+    const both = requiredLiteralTest(/\bno\s+gfci\b/gi);
+    expect(both('no protection')).toBe(false);
+    expect(both('GFCI present')).toBe(false);
+    expect(both('No GFCI')).toBe(true);
+    expect(requiredLiteralTest(/\w+/g)('anything')).toBe(true);
+  });
+
+  it('searches for literals with characters special in expressions as written', () => {
+    const slash = requiredLiteralTest(/\bn\/a\b/gi);
+    expect(slash('N/A')).toBe(true);
+    expect(slash('na')).toBe(false);
   });
 });

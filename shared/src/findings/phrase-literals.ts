@@ -59,6 +59,18 @@ export function requiredLiteralLists(re: RegExp): ReadonlyArray<readonly string[
   });
 }
 
+/**
+ * A cheap test that is false only when `re` cannot match the text: the text lacks every literal
+ * of one of the lists `requiredLiteralLists` derives (one case-insensitive search per list, much
+ * cheaper than the expression on text that has none). With no list derived it is always true.
+ */
+export function requiredLiteralTest(re: RegExp): (text: string) => boolean {
+  const lists = requiredLiteralLists(re);
+  if (lists.length === 0) return () => true;
+  const searches = lists.map((list) => new RegExp(list.map((l) => l.replace(/[.*+?^${}()|[\]\\/-]/g, '\\$&')).join('|'), 'i'));
+  return (text) => searches.every((search) => search.test(text));
+}
+
 class SourceReader {
   private pos = 0;
 

@@ -1,4 +1,4 @@
-import { scanAll } from './regex-scan';
+import { startFilteredScan } from './match-starts';
 import type { Room } from './room';
 
 /**
@@ -31,6 +31,9 @@ const ROOM_WORDS: ReadonlyArray<readonly [Room, string]> = [
  * their numbers worked out here are cheaper to read than named ones.
  */
 const ROOM_RE = new RegExp(String.raw`(?<![\w-])(?:${ROOM_WORDS.map(([, src]) => `(${src})`).join('|')})`, 'gi');
+
+/** ROOM_RE's matches, tried only where two characters can begin a room word (see match-starts.ts). */
+const scanRooms = startFilteredScan(ROOM_RE);
 
 /** How many capturing groups a source has: with an empty alternative it matches '' and leaves them all unset. */
 function groupCount(src: string): number {
@@ -80,7 +83,7 @@ const FIXTURE_AFTER = /^\s*(?:sink|counter|cabinet|vanity|island|floor|closet|do
 export function findRooms(text: string): RoomMention[] {
   const found: RoomMention[] = [];
   const hasVantage = /\bfrom\s+(?:the\s+)?(?:attic|crawl)/i.test(text);
-  for (const m of scanAll(ROOM_RE, text)) {
+  for (const m of scanRooms(text)) {
     let i = 0;
     while (m[ROOM_GROUP[i]] === undefined) i++;
     const start = m.index;

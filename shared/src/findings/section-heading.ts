@@ -76,12 +76,17 @@ function isHeadingWord(w: string): boolean {
   return ELECTRICAL.has(w) || NON_ELECTRICAL.has(w) || ROOM_WORDS.has(w) || GENERAL.has(w) || FILLER.has(w) || /^\d+$/.test(w);
 }
 
+const ENDS_IN_RULE_CHAR = /[-=*#~]$/;
+
 export function classifyHeadingLine(line: string): HeadingLine | null {
   // "--- QUICK LIST ---", "=== ELECTRICAL ===": rules drawn around a heading are decoration.
-  const trimmed = line.trim().replace(/^[-=*#~]{2,}\s*(?=\S)/, '').replace(/(?<=\S)\s*[-=*#~]{2,}$/, '');
+  const opened = line.trim().replace(/^[-=*#~]{2,}\s*(?=\S)/, '');
+  // (A closing rule ends the line with one of its characters: only then is the expression tried.)
+  const trimmed = ENDS_IN_RULE_CHAR.test(opened) ? opened.replace(/(?<=\S)\s*[-=*#~]{2,}$/, '') : opened;
   if (trimmed.length > 70) {
     // "SUMMARY OF ELECTRICAL CONCERNS (details follow in the body of the report)": a long note in brackets.
-    const bare = trimmed.replace(/\s*\([^()]*\)\s*$/, '');
+    // (trimmed has no trailing space, so only a text ending in ')' can lose a bracketed note.)
+    const bare = trimmed.endsWith(')') ? trimmed.replace(/\s*\([^()]*\)\s*$/, '') : trimmed;
     return bare !== trimmed && bare.length <= 70 && SUMMARY_HEADING.test(bare) ? classifyHeadingLine(bare) : null;
   }
   const title = trimmed.replace(NUMBERING, '').replace(/\s*[:\-–—]+\s*$/, '').trim();

@@ -1,7 +1,6 @@
 import { distance } from 'fastest-levenshtein';
 import type { Range } from './clause-splitter';
 import type { MappedText } from './mapped-text';
-import { scanAll } from './regex-scan';
 
 /**
  * Normalisation before matching: inspectors' shorthand and abbreviations become the trade's full
@@ -59,6 +58,14 @@ const NUMBER_WORDS: Readonly<Record<string, number>> = {
   thirteen: 13, fourteen: 14, fifteen: 15, sixteen: 16, seventeen: 17, eighteen: 18, nineteen: 19, twenty: 20,
   thirty: 30, forty: 40, fifty: 50, sixty: 60, seventy: 70, eighty: 80, ninety: 90, hundred: 100,
 };
+
+/**
+ * Every key a word can reach in NUMBER_WORDS, its own and those it inherits from Object: a Set
+ * lookup first is much cheaper than an object lookup with an arbitrary word, and gives the same.
+ */
+const NUMBER_WORD_KEYS = new Set([...Object.keys(NUMBER_WORDS), ...Object.getOwnPropertyNames(Object.prototype)]);
+/** SHORTHAND's own keys, for the same reason. */
+const SHORTHAND_KEYS = new Set(Object.keys(SHORTHAND));
 
 /**
  * Trade words that misspellings are corrected to (inflections listed so that a correct inflected
@@ -182,44 +189,47 @@ function capitalised(original: string, replacement: string): string {
 
 interface Token {
   readonly text: string;
+  /** `text` in lower case, made once per token (its neighbours read it too). */
+  readonly lower: string;
   readonly start: number;
   readonly end: number;
 }
 
 /** The replacement for token i, or null to keep it as written. */
 function replacementFor(tokens: readonly Token[], i: number, source: string): string | null {
-  const { text } = tokens[i];
-  const lower = text.toLowerCase();
-  const prev = tokens[i - 1]?.text.toLowerCase() ?? '';
-  const next = tokens[i + 1]?.text.toLowerCase() ?? '';
+  const { text, lower } = tokens[i];
+  const prev = tokens[i - 1]?.lower ?? '';
+  const next = tokens[i + 1]?.lower ?? '';
   const gapBefore = i > 0 ? source.slice(tokens[i - 1].end, tokens[i].start) : ' ';
+  const first = text.charCodeAt(0);
   // "#12" → "12 AWG"; "12 ga", "12-gauge", "12g" → "12 AWG".
-  const hash = /^#\s?(\d{1,2})$/.exec(text);
+  const hash = first === 35 /* # */ ? /^#\s?(\d{1,2})$/.exec(text) : null;
   // "Bkr #6", "slot #14": after an index word the number names the device, not a wire size.
   if (hash && /^\s+$/.test(gapBefore) && /^(?:bkrs?|brkrs?|breakers?|ckts?|circuits?|slots?|positions?|spaces?|no\.?|units?|items?|photos?|fuses?|cb)$/.test(prev)) return null;
   if (hash) return `${hash[1]} AWG`;
-  const glued = /^(\d{1,2})(?:ga|g|awg)$/i.exec(text);
+  const glued = first >= 48 && first <= 57 ? /^(\d{1,2})(?:ga|g|awg)$/i.exec(text) : null;
   if (glued) return `${glued[1]} AWG`;
-  const bare = lower.replace(/\.$/, '');
+  const bare = lower.endsWith('.') ? lower.slice(0, -1) : lower;
+  const number = NUMBER_WORD_KEYS.has(bare) ? NUMBER_WORDS[bare] : undefined;
   // "the north bedroom two receptacles": a number word after a room word stays a word, so the count
   // reader can tell it from an index ("bedroom 2").
-  if (NUMBER_WORDS[bare] !== undefined && /^(?:bed\s?rooms?|bath(?:room)?s?|rooms?|halls?|hallways?|kitchen|garage|basement)$/.test(prev)) return null;
-  if (NUMBER_WORDS[bare] !== undefined && (bare !== 'hundred' || /^\d/.test(prev))) {
-    return bare === 'hundred' ? null : String(NUMBER_WORDS[bare]);
+  if (number !== undefined && /^(?:bed\s?rooms?|bath(?:room)?s?|rooms?|halls?|hallways?|kitchen|garage|basement)$/.test(prev)) return null;
+  if (number !== undefined && (bare !== 'hundred' || /^\d/.test(prev))) {
+    return bare === 'hundred' ? null : String(number);
   }
   // "missing too cover plates": "too" before a plural device noun is the number two.
-  if (bare === 'too' && (TOO_PLURAL.test(next.replace(/\.$/, '')) || (TOO_MODIFIER.test(next) && TOO_PLURAL.test((tokens[i + 2]?.text.toLowerCase() ?? '').replace(/\.$/, ''))))) return '2';
+  if (bare === 'too' && (TOO_PLURAL.test(next.replace(/\.$/, '')) || (TOO_MODIFIER.test(next) && TOO_PLURAL.test((tokens[i + 2]?.lower ?? '').replace(/\.$/, ''))))) return '2';
   // "ext cord", "ext. cords": an extension cord, not the exterior.
   if ((bare === 'ext' || bare === 'extn') && /^cords?$/.test(next)) return 'extension';
-  if (Object.prototype.hasOwnProperty.call(SHORTHAND, lower) || Object.prototype.hasOwnProperty.call(SHORTHAND, bare)) {
+  if (SHORTHAND_KEYS.has(lower) || SHORTHAND_KEYS.has(bare)) {
     // "Report #KT-24-0917", "Unit GFI-2": letters glued to a number by a hyphen, or after "#", are an identifier.
     if (isIdentifier(source, tokens[i].end, gapBefore)) return null;
-    const key = Object.prototype.hasOwnProperty.call(SHORTHAND, lower) ? lower : bare;
+    const key = SHORTHAND_KEYS.has(lower) ? lower : bare;
     const word = SHORTHAND[key];
     if (CONTEXTUAL.has(key) && !contextAllows(key, prev, next, gapBefore, text)) return null;
     return word.toLowerCase() === lower ? null : capitalised(text, word);
   }
-  if (/^[a-z]{5,}$/i.test(text)) {
+  if (text.length >= 5 && /^[a-z]{5,}$/i.test(text)) {
     const fixed = correctSpelling(text);
     return fixed === null ? null : capitalised(text, fixed);
   }
@@ -286,7 +296,14 @@ function contextAllows(key: string, prev: string, next: string, gapBefore: strin
 /** Normalises one sentence (or any mapped text); unchanged text comes back with `changed` empty. */
 export function normaliseText(m: MappedText): NormalisedText {
   const source = m.text;
-  const tokens: Token[] = scanAll(WORD, source).map((t) => ({ text: t[0], start: t.index, end: t.index + t[0].length }));
+  const tokens: Token[] = [];
+  // WORD never matches the empty string, so a plain exec loop reads every token.
+  WORD.lastIndex = 0;
+  for (let t = WORD.exec(source); t !== null; t = WORD.exec(source)) {
+    const text = t[0];
+    tokens.push({ text, lower: text.toLowerCase(), start: t.index, end: t.index + text.length });
+  }
+  WORD.lastIndex = 0;
   let text = '';
   const offsets: number[] = [];
   const changed: Range[] = [];
