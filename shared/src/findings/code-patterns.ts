@@ -196,12 +196,14 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'reversed-polarity',
-    trigger: /polarity|revers|swapped|transposed|\brp\b/i,
+    trigger: /polarity|revers|swapped|transposed|\brp\b|\brev\.?\s*pol\b/i,
     patterns: [
       { re: rx`rev(?:erse[ds]?|\.)?\s*[- ]?polarity` },
       { re: rx`polarity\s+${T.BE}(?:reversed|incorrect|wrong)` },
       { re: rx`(?:hot|line)\s*(?:and|\/|-|&)\s*neutral(?:\s+(?:wires|conductors))?\s+${T.BE}(?:reversed|swapped|transposed)` },
       { re: rx`\brp\b` },
+      // Inspectors' shorthand: "rev pol", "rev. pol.".
+      { re: rx`rev\.?\s*pol\b\.?` },
     ],
   },
   {
@@ -270,6 +272,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?<!\b(?:no|without|missing)\s)(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant)?|wp)\s+covers?\s+${anyGap(8)}${T.BE}(?:${T.ABSENT}|broken|damaged|cracked|needed|recommended|required)` },
       { re: rx`(?:exterior|outdoor|outside|patio|deck|porch)\s+${T.RCPT}\s+${gap(3)}(?:covers?|lids?|flaps?)\s+${T.BE}(?:missing|broken|damaged|absent)` },
       { re: rx`(?:not|non)[- ](?:wr|weather[- ]resistant)\b` },
+      // A nickname in brackets or quotes between the kind and the cover: 'no in-use ("bubble") cover'.
+      { re: rx`(?:${T.NO})\s+(?:an?\s+)?(?:in[- ]use|weather[- ]?proof|wp)\s+[("'“]+\s*[\w -]{2,20}?\s*["'”)]+\s+covers?` },
       { re: rx`(?:covers?|lids?)\s+${anyGap(4)}(?:not|isn't|is not)\s+(?:an?\s+)?(?:in[- ]use|bubble|weather[- ]?proof|wp|while[- ]in[- ]use|extra[- ]duty)\b` },
     ],
   },
@@ -330,6 +334,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:doubled?|dubbled?|dbl\.?|dual|twin)[- ]?tap(?:s|ped|ping|ed)?\b` },
       { re: rx`double[- ]lug(?:ged|s)?\b` },
       { re: rx`(?:two|2|multiple)\s+(?:\d{1,2}\s+awg\s+)?(?:(?:cu|copper|al|aluminum)\s+)?(?:wires?|conductors?|circuits|neutrals)\s+${gap(3)}(?:under|on|to|landed on|terminated on|sharing)\s+(?:a\s+|one\s+|1\s+|the same\s+|single\s+|its\s+|their\s+|the\s+)+(?:terminal|lug|screw|breaker)` },
+      // Terse notes leave out the article: "2 cond. under lug".
+      { re: rx`(?:two|2)\s+(?:\d{1,2}\s+awg\s+)?(?:(?:cu|copper|al|aluminum)\s+)?(?:wires?|conductors?|cond)\.?\s+(?:under|on)\s+(?:terminal|lug|screw)\b` },
     ],
   },
   {
@@ -426,6 +432,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`(?:${T.NO}|${T.INOPERATIVE}|expired|outdated|dated|disconnected|removed|chirping)\s+${gap(2)}${T.SMOKE}(?!\s+(?:issues|problems|concerns|defects|deficiencies))` },
       { re: rx`${T.SMOKE}\s*[:-]?\s*${gap(8)}${T.BE}(?:${T.ABSENT}|none|${T.INOPERATIVE}|expired|past (?:their|its) (?:service life|expiration)|(?:over|older than|more than) (?:10|ten) years|disconnected|removed|chirping|${T.FAILED} (?:respond|sound|activate|operate|work)|failed|no\s+respon[sc]e)` },
+      // A bare topic label answered by its absence: "CO: none found", "Hall smoke - none".
+      { re: rx`(?:smoke|co|carbon monoxide)(?:\s*(?:\/|&|and)\s*co)?\s*(?::|-)\s*(?:none|${T.ABSENT})\b` },
       { re: rx`${RECOMMEND}\s+${NOT_ABOUT_ADDING}${T.SMOKE}`, isRecommendation: true, unless: /\btest/i },
       { re: rx`(?:unit|device)\s+${gap(4)}${T.FAILED}\s+(?:sound|alarm|respond|activate)`, context: /smoke|carbon monoxide|\bco\b|alarm|detector/i },
       // Common practice: smoke alarms are replaced ten years after manufacture (the date on the
@@ -563,6 +571,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       // 10 ft above grade, decks and walks, 12 ft above a residential driveway; a measured
       // clearance below that is the defect.
       { re: rx`${T.SERVICE}[^.;]{0,100}?${CLEARANCE}`, check: isTooLow },
+      // A clearance stated in inches is below every 230.24 minimum (3 ft at the least, from memory).
+      { re: rx`${T.SERVICE}[^.;]{0,100}?\bclears?\s+(?:the\s+)?(?:[\w-]+\s+){0,2}?by\s+(?:only\s+)?(?:about\s+|approx(?:imately|\.)?\s+|roughly\s+)?(\d{1,2})\s*(?:inches|in\b|")`, check: (m) => Number(m[1]) < 36 },
     ],
   },
   {

@@ -111,8 +111,11 @@ const nameplateCheck = (rating: number, limit: number, at: Range): OvercurrentCh
   computation: `${rating} A overcurrent device; the nameplate allows at most ${limit} A (NEC 110.3(B))`,
 });
 
+/** A rating written right before a conductor size ("20A #14 Cu", "30 A on 10 AWG"): a branch device on that conductor, as a panel schedule's row gives it. */
+const RATING_ON_SIZE = /(?<![\w.])\d{2}\s?-?a(?:mps?)?\s+(?:(?:on|w\/|with)\s+)?\d{1,2}\s?awg\b/i;
+
 export function checkOvercurrent(text: string, carried: CarriedRatings | null = null): OvercurrentCheck[] {
-  if (!DEVICE.test(text) && !/\bfus|\bbreak|\bnameplate|\bmax|\binstalled/i.test(text)) return [];
+  if (!DEVICE.test(text) && !/\bfus|\bbreak|\bnameplate|\bmax|\binstalled/i.test(text) && !RATING_ON_SIZE.test(text)) return [];
   const nameplates = mentions(NAMEPLATE, text);
   // "The data plate lists max breaker 30 A. The breaker at the disconnect is 45 A." (or the other
   // way round): the nameplate and the device's rating in two sentences of one block.

@@ -103,6 +103,8 @@ export function readCount(text: string, articleLimit = Infinity, countable: RegE
     const next = tokens[i + 1]?.word;
     if (next !== undefined && UNIT.test(next) && word !== 'a' && word !== 'an') continue;
     if (/^\d/.test(word) && tokens[i - 1]?.word === ':') return count;
+    // "open grnd, N & E walls, 3 total": a number given as the total.
+    if (/^\d/.test(word) && next === 'total') return count;
     if (word === 'pair' && next !== 'of') continue;
     // "(4 of them)", "1 of 3 inop": the number before "of" is the count.
     // "two of the breakers", "three of those": any number word before "of" counts ("neither of them" is two).
@@ -172,7 +174,7 @@ const DEVICE_NOUN = /\b(?:((?:cover|face|wall|switch|outlet|receptacle|filler)[-
 /** Nouns that name the protection itself when the defect is its absence ("no GFCI protection"). */
 const PROTECTION_NOUN = /^(?:gfci|afci)$/i;
 const DEAD_AFTER_GFCI = /\b(?:rcpts?|receptacles?|outlets?)\b[^.;]{0,40}\b(?:dead|without power|no power|not powered)\b[^.;]*/gi;
-const CONDUCTORS_UNDER_ONE = /\b(?:two|2|three|3|both|multiple)\s+(?:\d{1,2}\s+awg\s+)?(?:\w+\s+)?(?:wires?|conductors?|cond|neutrals|circuits|feeds)\b/gi;
+const CONDUCTORS_UNDER_ONE = /\b(?:two|2|three|3|both|multiple)\s+(?:\d{1,2}\s+awg\s+)?(?:\w+\s+)?(?:wires?|conductors?|cond|neutrals|circuits|feeds)\b|\b[23]x\s+\d{1,2}\s+awg(?:\s+(?:copper|aluminum))?\s+(?=under\b)/gi;
 /** What exposed wiring is counted in: cords, cables, runs, places; not the lights a cord feeds. */
 const WIRING_COUNTABLE = /^(?:cords?|cables?|wires?|wiring|conductors?|splices?|places?|locations?|spots?|areas?|circuits?)$/i;
 /** Codes counted only when the text gives a number (exposed wiring). */

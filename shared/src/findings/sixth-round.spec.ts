@@ -46,3 +46,43 @@ describe('counts: a panel defect is counted in the parts it names, else it is th
     expect(read('Panel directory is incomplete, several circuits are not labeled.')).toEqual([['panel-deficiency', 'panel', 1]]);
   });
 });
+
+describe("terse field notes: inspectors' shorthand (common practice)", () => {
+  it('reads "rev pol", "wont reset" written without its apostrophe, and "JB" for a junction box', () => {
+    expect(read('Kitchen: recept left of range rev pol.')).toEqual([['reversed-polarity', 'kitchen', 1]]);
+    expect(read('Laundry: GFI by washer tripped but wont reset.')).toEqual([['gfci-inoperative', 'laundry', 1]]);
+    expect(read('GARAGE: open JB above the opener, splices showing.')).toEqual([['open-junction-box', 'garage', 1]]);
+  });
+
+  it('reads a count given as the total ("4 total")', () => {
+    expect(read('Bedroom 3: 3-prong recepts show open grnd, 4 total.')).toEqual([['open-ground', 'bedroom', 4]]);
+  });
+
+  it('reads "2 cond. under lug" with no article, and counts a double tap in breakers, not in "2x #14" conductors', () => {
+    expect(read('Pnl: ckt 9 15A, 2 cond. under lug.')).toEqual([['double-tap', 'panel', 1]]);
+    expect(read('Pnl: brkr #7 dbl tap, 2x #14 Cu under 1 lug.')).toEqual([['double-tap', 'panel', 1]]);
+  });
+
+  it('reads a bare topic label answered by its absence ("CO: none found")', () => {
+    expect(read('CO: none found; gas water heater in garage.')).toEqual([['smoke-co-alarm', 'whole-house', null]]);
+  });
+
+  it('reads a nickname in brackets between the kind of cover and "cover" (NFPA 70 (NEC) 2023, 406.9(B)(1))', () => {
+    expect(read('The deck receptacle has no weatherproof ("in-use") cover.')).toEqual([['weather-cover-missing', 'exterior', 1]]);
+  });
+
+  it('reads a subjectless follow-up ("Does not reset either.") as the same device', () => {
+    expect(read('Hall bath: GFCI by the sink will not trip.\nDoes not reset either.')).toEqual([['gfci-inoperative', 'bathroom', 1]]);
+  });
+});
+
+describe('computed: a panel schedule row and a service clearance in inches', () => {
+  it('reads a rating written right before its conductor as a breaker on that conductor (NFPA 70 (NEC) 2023, 240.4(D): 14 AWG copper 15 A, 12 AWG copper 20 A)', () => {
+    expect(read('Ckt 5   Office   20A   #14 Cu')).toEqual([['overcurrent-mismatch', 'panel', 1]]);
+    expect(read('Ckt 5   Office   20A   #12 Cu')).toEqual([]);
+  });
+
+  it('reads a drop that clears a roof by inches as too low (NFPA 70 (NEC) 2023, 230.24(A), from memory: 3 ft over a roof at the least)', () => {
+    expect(read('The service drop clears the porch roof by only 10 inches.')).toEqual([['service-equipment', 'exterior', 1]]);
+  });
+});

@@ -25,7 +25,7 @@ const SHORTHAND: Readonly<Record<string, string>> = {
   gfi: 'GFCI', gfis: 'GFCIs', gfic: 'GFCI', gcfi: 'GFCI',
   afi: 'AFCI',
   ocpd: 'breaker', ocpds: 'breakers', brkr: 'breaker', brkrs: 'breakers', bkr: 'breaker', bkrs: 'breakers', cb: 'breaker',
-  jbox: 'junction box', jboxes: 'junction boxes', 'j-box': 'junction box', 'j-boxes': 'junction boxes',
+  jbox: 'junction box', jboxes: 'junction boxes', jb: 'junction box', jbs: 'junction boxes', 'j-box': 'junction box', 'j-boxes': 'junction boxes',
   'k&t': 'knob-and-tube', kt: 'knob-and-tube', knt: 'knob-and-tube',
   seu: 'service-entrance cable', sec: 'service-entrance cable', ser: 'service-entrance cable',
   pnl: 'panel', pnls: 'panels', subpnl: 'subpanel', 'sub-pnl': 'subpanel',
@@ -52,7 +52,7 @@ const SHORTHAND: Readonly<Record<string, string>> = {
 };
 
 /** Shorthand that is only expanded where the context says it is the trade word. */
-const CONTEXTUAL = new Set(['al', 'cu', 'sd', 'sds', 'sec', 'ser', 'sw', 'lt', 'lts', 'cb', 'kt', 'ba', 'gar', 'kit', 'ext', 'wp', 'wr', 'wx', 'det', 'dets', 'cond', 'conds', 'ga', 'ga.', 'gauge', 'gage', 'guage', 'awg']);
+const CONTEXTUAL = new Set(['jb', 'jbs', 'al', 'cu', 'sd', 'sds', 'sec', 'ser', 'sw', 'lt', 'lts', 'cb', 'kt', 'ba', 'gar', 'kit', 'ext', 'wp', 'wr', 'wx', 'det', 'dets', 'cond', 'conds', 'ga', 'ga.', 'gauge', 'gage', 'guage', 'awg']);
 
 const NUMBER_WORDS: Readonly<Record<string, number>> = {
   two: 2, three: 3, four: 4, five: 5, six: 6, seven: 7, eight: 8, nine: 9, ten: 10, eleven: 11, twelve: 12,
@@ -248,6 +248,8 @@ function contextAllows(key: string, prev: string, next: string, gapBefore: strin
       return SIZE.test(prev) && /^[\s-]*$/.test(gapBefore);
     case 'sd':
     case 'sds':
+    case 'jb':
+    case 'jbs':
       return original === original.toUpperCase();
     case 'det':
     case 'dets':
