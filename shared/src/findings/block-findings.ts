@@ -10,7 +10,7 @@ import { findingQuantity, isCounted, readCount } from './quantity-reader';
 import { scanAll } from './regex-scan';
 import { findRooms, type RoomMention } from './room-lexicon';
 import type { Room } from './room';
-import { lastPlaceMention, placeMatches } from './room-resolver';
+import { lastPlaceMention, placeMatches, POINTS_TO_PLACE } from './room-resolver';
 import type { RowCount, Section } from './block-splitter';
 import { splitSentences } from './sentence-splitter';
 import { normaliseText } from './text-normaliser';
@@ -95,7 +95,7 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
     const live = matches.filter((_, i) => !negated[i]);
     hasNegated ||= live.length < matches.length;
     const carried =
-      previous && (previous.isLabel || REFERS_BACK.test(sentence.text))
+      previous && (previous.isLabel || REFERS_BACK.test(sentence.text) || POINTS_TO_PLACE.test(sentence.text))
         ? { room: previous.mention.room, location: readLocation(previous.text, previous.mention) }
         : null;
     const rooms = findRooms(sentence.text);

@@ -498,7 +498,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'switch-issue',
     trigger: /switch|toggle|rocker|paddle|dimmer/i,
     patterns: [
-      { re: rx`${T.SWITCH}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|(?:warm|hot) to the touch|warm|hot|sparks?|sparking|arcing|${T.FAILED} (?:operate|work|respond|control))` },
+      { re: rx`${T.SWITCH}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|(?:warm|hot) to the touch|warm|hot|sparks?|sparking|arcs?\b(?![- ]fault)|arcing|${T.FAILED} (?:operate|work|respond|control))` },
       { re: rx`${T.SWITCH}\s+${gap(7)}(?:(?:has|have|had|of|with|serves?)\s+)?(?:an?\s+)?(?:unknown|no known|undetermined|unclear) (?:function|purpose|use)` },
       { re: rx`(?:function|purpose) of (?:the |a |an )?${gap(2)}${T.SWITCH}\s+${gap(5)}${T.BE}(?:unknown|unclear|undetermined|not determined|could not be determined)` },
       { re: rx`(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|unknown(?:[- ]function)?)\s+${gap(2)}${T.SWITCH}(?!\s*(?:cover\s*)?plates?)` },
@@ -584,7 +584,10 @@ export const CODE_RULES: readonly CodeRule[] = [
     ignoresContext: true,
     patterns: [
       { re: rx`(?:evaluat|review|inspect|assess|examin|diagnos|correct|repair)\w*\s+${anyGap(8)}(?:by|from)\s+(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)s?`, unless: REFERS_TO_OTHERS_ONLY },
-      { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check|go (?:through|over)|look (?:over|through))`, unless: REFERS_TO_OTHERS_ONLY },
+      // "Full evaluation by licensed electrician": terse notes leave out the article.
+      { re: rx`(?:evaluation|review|assessment)\s+by\s+(?:licensed\s+|qualified\s+)?(?:electrician|electrical contractor)s?`, unless: REFERS_TO_OTHERS_ONLY },
+      // "a licensed electrician perform a complete evaluation of the system": the noun as well as the verb.
+      { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check|go (?:through|over)|look (?:over|through)|(?:perform|conduct|do|make|provide)\s+(?:an?\s+)?(?:(?:full|complete|thorough|comprehensive|further)\s+)?(?:evaluation|review|inspection|assessment))`, unless: REFERS_TO_OTHERS_ONLY },
       { re: rx`(?:consult|contact|hire|engage|retain|call)\s+(?:with\s+)?(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)`, unless: /\bif\b|\bany\b/i },
     ],
   },

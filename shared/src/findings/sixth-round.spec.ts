@@ -86,3 +86,23 @@ describe('computed: a panel schedule row and a service clearance in inches', () 
     expect(read('The service drop clears the porch roof by only 10 inches.')).toEqual([['service-equipment', 'exterior', 1]]);
   });
 });
+
+describe('evaluations and switches: more wordings (common practice)', () => {
+  it('reads a switch that arcs', () => {
+    expect(read('The hall switch arcs when it is flipped.')).toEqual([['switch-issue', 'hallway', 1]]);
+  });
+
+  it('reads an evaluation named as a noun ("perform a thorough evaluation"), or by an electrician with no article', () => {
+    expect(read('We suggest that a licensed electrician perform a thorough evaluation of the wiring.')).toEqual([['evaluate-general', 'whole-house', null]]);
+    expect(read('Whole house: full evaluation by licensed electrician.')).toEqual([['evaluate-general', 'whole-house', null]]);
+    expect(read('Have repairs made by licensed electrician.')).toEqual([]);
+  });
+
+  it('places an evaluation of "this room" at the place of the sentence before', () => {
+    expect(read('Sunroom: the addition was wired by an owner, with cords run in the walls.\nRecommend an electrician evaluate this room.')).toEqual([['evaluate-general', 'living-area', null]]);
+  });
+
+  it('keeps an evaluation of the entire system house-wide when the rooms it names are only the reasons', () => {
+    expect(read('Because of the work seen in the attic and the crawl space, we recommend a licensed electrician perform a full evaluation of the entire electrical system.')).toEqual([['evaluate-general', 'whole-house', null]]);
+  });
+});
