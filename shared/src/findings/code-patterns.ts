@@ -297,6 +297,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${T.NO}\s+(?:blank\s+)?(?:covers?|lids?)\s+(?:on|for)\s+(?:the\s+|an?\s+)?${T.JBOX}` },
       { re: rx`(?:splices?|spliced (?:wires|conductors)|wire nuts?)\s+${anyGap(6)}(?:outside(?:\s+of)?|not in|not within|not enclosed|without)\s+(?:in\s+)?(?:an?\s+|the\s+|any\s+)?(?:(?:approved|junction|electrical|enclosed)\s+)?(?:box|enclosure|junction box)` },
       { re: rx`(?:open|exposed|unenclosed|loose|taped)\s+(?:wire\s+)?splices?` },
+      // Terse notes: "tape splice on wall at workbench, no box".
+      { re: rx`splices?\b\s+${anyGap(8)}no\s+(?:junction\s+)?box\b(?!\s*(?:covers?|lids?))` },
       { re: rx`(?:spliced?|splices|connections?|connected)\b\s+${anyGap(20)}(?:(?:with\s+|and\s+)no|without(?:\s+an?)?|not\s+in(?:\s+an?)?|rather than (?:being\s+)?(?:enclosed\s+)?in(?:\s+an?)?|outside(?:\s+of)?(?:\s+(?:an?|any))?)\s+(?:junction\s+|electrical\s+)?(?:box|enclosure)` },
       { re: rx`(?:wrapped|taped)\s+(?:only\s+)?(?:in|with)\s+(?:electrical\s+)?tape` },
       // A box and its missing cover, or its visible splices, anywhere in the clause (terse notes and
@@ -432,6 +434,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`(?:${T.NO}|${T.INOPERATIVE}|expired|outdated|dated|disconnected|removed|chirping)\s+${gap(2)}${T.SMOKE}(?!\s+(?:issues|problems|concerns|defects|deficiencies))` },
       { re: rx`${T.SMOKE}\s*[:-]?\s*${gap(8)}${T.BE}(?:${T.ABSENT}|none|${T.INOPERATIVE}|expired|past (?:their|its) (?:service life|expiration)|(?:over|older than|more than) (?:10|ten) years|disconnected|removed|chirping|${T.FAILED} (?:respond|sound|activate|operate|work)|failed|no\s+respon[sc]e)` },
+      // A topic label answered by what is needed: "Smoke: need 1 in bsmt bdrm".
+      { re: rx`(?:smoke|co|carbon monoxide)(?:\s+(?:alarms?|detectors?))?\s*(?::|-)\s*(?:needs?|needed|add|install)\s+(?:\d|one|an?)\b` },
       // A bare topic label answered by its absence: "CO: none found", "Hall smoke - none".
       { re: rx`(?:smoke|co|carbon monoxide)(?:\s*(?:\/|&|and)\s*co)?\s*(?::|-)\s*(?:none|${T.ABSENT})\b` },
       { re: rx`${RECOMMEND}\s+${NOT_ABOUT_ADDING}${T.SMOKE}`, isRecommendation: true, unless: /\btest/i },

@@ -37,8 +37,15 @@ function removesProtection(text: string, cue: Range): boolean {
   return /removed/i.test(text.slice(cue.start, cue.end)) && PROTECTIVE_PART_BEFORE.test(text.slice(Math.max(0, cue.start - 60), cue.start));
 }
 
+/**
+ * A sentence that only says what a future change would need: "If the basement is finished later,
+ * the new circuits will need AFCI protection." Its condition is the whole sentence's.
+ */
+const FUTURE_CONDITION = /^\s*(?:if|when|once|should)\s[^.;]{0,120}?\b(?:in the future|later|someday|is (?:ever )?(?:finished|remodel+ed|converted|renovated)|are (?:ever )?(?:added|remodel+ed))\b[^.;]{0,40}?,\s*[^.;]*\b(?:will|would)\s+(?:need|require|have to|be required)\b/i;
+
 /** For each span (sorted by start, not overlapping), whether the sentence denies it. */
 export function negatedSpans(text: string, spans: readonly Range[], clauses: readonly Range[] = clauseRanges(text)): boolean[] {
+  if (FUTURE_CONDITION.test(text)) return spans.map(() => true);
   if (spans.length === 0) return [];
   const clauseOf = (pos: number) => clauseIndexAt(clauses, pos);
   const negated = spans.map(() => false);

@@ -106,3 +106,22 @@ describe('evaluations and switches: more wordings (common practice)', () => {
     expect(read('Because of the work seen in the attic and the crawl space, we recommend a licensed electrician perform a full evaluation of the entire electrical system.')).toEqual([['evaluate-general', 'whole-house', null]]);
   });
 });
+
+describe('casual and terse wording, and future conditions (common practice)', () => {
+  it('reads "doesnt", "didnt" and "wouldnt" written without the apostrophe', () => {
+    expect(read('The light over the laundry sink doesnt work with a new bulb.')).toEqual([['light-fixture', 'laundry', 1]]);
+  });
+
+  it('reads a splice followed by "no box" (NFPA 70 (NEC) 2023, 300.15)', () => {
+    expect(read('- Garage: taped splice on the wall by the door, no box.')).toEqual([['open-junction-box', 'garage', 1]]);
+  });
+
+  it('reads a topic label answered by what is needed ("Smoke: need 1 in the den bedroom")', () => {
+    expect(read('- Smoke: need 1 in guest bedroom, others ok.')).toEqual([['smoke-co-alarm', 'bedroom', null]]);
+  });
+
+  it('makes no finding of what a future change would need (NFPA 70 (NEC) 2023, 210.12(D) applies to extended or new circuits)', () => {
+    expect(read('If the attic is ever finished as a bedroom, the new circuits will need AFCI protection.')).toEqual([]);
+    expect(read('The garage receptacles are not GFCI protected.')).toEqual([['gfci-missing', 'garage', null]]);
+  });
+});
