@@ -376,6 +376,11 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:directory|legend|circuit labels?|labell?ing|entries)\s+${gap(3)}${T.BE}(?:faded|unreadable|illegible|outdated|out of date|wrong|incorrect)` },
       { re: rx`(?:knockouts?|fillers?|filler plates?)\s+${T.BE}(?:missing|open|absent)` },
       { re: rx`(?:knockouts?|fillers?|filler plates?)\s+${gap(6)}${T.BE}(?:missing|open|absent)`, context: PANEL_CONTEXT },
+      // The enclosure and its rust in one clause, either order ("the enclosure is rusted along the
+      // bottom", "the inside of the panel has surface rust", "rust @ bottom of can", "corrosion on the
+      // neutral bar"); a meter's can is the service's (common practice; NFPA 70 (NEC) 2023, 312.2).
+      { re: rx`(?<!meter\s)(?:enclosure|${T.PANEL}|cabinet)\s+${gap(4)}${T.BE}(?:rusted|rusting|corroded)\b`, unless: /\bmeter\b|\bsolar\b/i },
+      { re: rx`(?:rust|corrosion)\s+(?:and\s+(?:rust|corrosion|water stain(?:s|ing)?)\s+)?(?:at|on|in|inside|@)\s+(?:the\s+)?(?:bottom\s+of\s+(?:the\s+)?)?(?:enclosure|can|cabinet|neutral bars?|bus(?: ?bars?)?|breaker terminals)\b`, context: PANEL_CONTEXT, unless: /\bmeter\b/i },
       // "the neutral bar and the interior of the enclosure show heavy white corrosion".
       { re: rx`(?:enclosure|${T.PANEL}|breakers?|bus(?: bars?)?|neutral bar|lugs?|handles)\s+${gap(2)}(?:shows?|has|have|with)\s+(?:heavy\s+|white\s+|green\s+|some\s+|visible\s+|significant\s+){0,3}(?:corrosion|rust)` },
       { re: rx`(?:${T.NO}|incomplete|illegible|inaccurate)\s+(?:panel\s+|circuit\s+)*(?:directory|legend|labels?|labell?ing|identification)` },
@@ -513,6 +518,15 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${T.SWITCH}\s+${SWITCH_GAP}${T.BE}loose in (?:the|its) (?:wall|box)` },
       // "The switch controlling the desk receptacle is broken": the switch is the subject, not what it controls.
       { re: rx`${T.SWITCH}\s+(?:that\s+)?(?:controlling|controls|for|serving|serves|operating|operates)\s+(?:the\s+|a\s+)?${anyGap(3)}(?:${T.RCPT}|${T.LIGHT}|fans?\b|disposal|disposer)\s+${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked)` },
+      // A switch whose purpose could not be found, in more wordings (common practice): "could not
+      // determine what it controls", "could not be determined to operate any fixture", "dosnt seem to
+      // do anything", "do not control the chandelier reliably", "does not turn the lights on".
+      { re: rx`${T.SWITCH}\s+${anyGap(10)}(?:could\s?n[o']?t|cannot|can't|unable to)\s+(?:be\s+)?determine[ds]?\s+(?:what\s+(?:it|they)\s+(?:controls?|operates?|does)|(?:its|their)\s+(?:function|purpose)|to\s+(?:operate|control|power))` },
+      { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:dosn'?t|doesn'?t|does\s+not)\s+seem\s+to\s+do\s+anything` },
+      { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:do|does|did)\s*n[o']?t\s+(?:control|operate|turn on)\s+(?:the\s+)?(?:[\w-]+\s+)?${T.LIGHT}\s+(?:reliably|properly|correctly|consistently|at all)` },
+      { re: rx`${T.SWITCH}\s+${anyGap(6)}(?:do|does|did)\s*n[o']?t\s+turn\s+(?:the\s+)?${T.LIGHT}\s+on\b` },
+      { re: rx`${T.SWITCH}\s+(?:for|to)\s+(?:the\s+)?${anyGap(3)}(?:crackles?|crackling|buzz(?:es|ing)?)\b` },
+      { re: rx`${T.SWITCH}\s+${gap(6)}(?:crackles?|crackling|buzz(?:es|ing)?)\b` },
       // The switch's toggle, rocker or paddle broken or loose (common practice).
       { re: rx`(?:toggle|rocker|paddle)s?\s+${gap(3)}${T.BE}(?:broken|snapped(?: off)?|sloppy|loose|missing|cracked|stuck)`, context: /switch|toggle/i },
     ],

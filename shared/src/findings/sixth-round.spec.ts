@@ -125,3 +125,28 @@ describe('casual and terse wording, and future conditions (common practice)', ()
     expect(read('The garage receptacles are not GFCI protected.')).toEqual([['gfci-missing', 'garage', null]]);
   });
 });
+
+describe('panel rust and corrosion in more word orders (common practice; NFPA 70 (NEC) 2023, 312.2 damp or wet locations)', () => {
+  it('reads the enclosure before its rust, "@" for "at", and corrosion on the neutral bar', () => {
+    expect(read('The subpanel in the shop is rusted along its lower edge.')).toEqual([['panel-deficiency', 'panel', 1]]);
+    expect(read('Sub pnl: rust @ bottom of can.')).toEqual([['panel-deficiency', 'panel', 1]]);
+    expect(read('Heavy corrosion on the neutral bar inside the panel.')).toEqual([['panel-deficiency', 'panel', 1]]);
+  });
+
+  it("leaves a meter's can to the service", () => {
+    expect(read('The meter can is rusted at the bottom.')).toEqual([['service-equipment', 'exterior', 1]]);
+  });
+});
+
+describe('switches of unknown function or that fail, in more wordings (common practice)', () => {
+  it('reads "could not determine what it controls" and "doesnt seem to do anything"', () => {
+    expect(read('Study: one switch on the 2-gang plate by the closet - could not determine what it controls.')).toEqual([['switch-issue', 'office', 1]]);
+    expect(read('The switch by the back door doesnt seem to do anything.')).toEqual([['switch-issue', 'unknown', 1]]);
+  });
+
+  it('reads switches that do not control or turn on their light, and a switch that buzzes', () => {
+    expect(read('The 3-way switches at the top and bottom of the stairs do not control the hall light reliably.')).toEqual([['switch-issue', 'hallway', null]]);
+    expect(read('The dimmer for the dining chandelier does not turn the chandelier on at any setting.')).toEqual([['switch-issue', 'dining', 1]]);
+    expect(read('The bath fan switch buzzes when it is on.')).toEqual([['switch-issue', 'bathroom', 1]]);
+  });
+});
