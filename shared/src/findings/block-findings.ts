@@ -47,6 +47,14 @@ const FOLLOW_UP = /\b(?:recommend\w*|install (?:the|a|an|new|proper|listed)\b|su
 
 /** A sentence about the device just named ("The fan ...", "It ..."). */
 /**
+ * An alarm named only as the topic of a label ("Smoke alarms: missing in hallway", "Hall smoke -
+ * none", "hall: smoke missing"): like a device implied by its section, one at one named place.
+ */
+/** Places in the plural as inspectors abbreviate them ("BR's", "bdrms"). */
+const PLURAL_PLACE_WORD = /\b(?:bed ?rooms|bdrms|brs|br's|rooms|levels|floors|baths|bathrooms|halls|hallways)\b/i;
+const ALARM_TOPIC_LABEL = /^\W*(?:[\w.]+\s+){0,3}?(?:smoke|co)\b(?:\s*(?:\/|&)\s*co)?(?:\s+(?:alarms?|detectors?))?\s*(?::|\||\s-\s)|^\W*[\w ]{1,20}:\s*(?:smoke|co)\s+(?:missing|none|removed)\b/i;
+
+/**
  * A sentence about the device before it: "The/This/That/It ...", or a terse one with no subject at
  * all that starts with its verb ("Trips but wont reset.").
  */
@@ -125,7 +133,7 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
               ? null
               : own;
         // A device implied by its section at one named place ("BR2: none") is one device.
-        const implied1 = counted === null && match === implied && place.room !== 'whole-house' && !isPluralPlace(sentence.text, rooms.find((r) => r.room === place.room)?.text ?? '') ? 1 : counted;
+        const implied1 = counted === null && (match === implied || (match.rule.code === 'smoke-co-alarm' && ALARM_TOPIC_LABEL.test(sentence.text) && !PLURAL_PLACE_WORD.test(sentence.text))) && place.room !== 'whole-house' && !isPluralPlace(sentence.text, rooms.find((r) => r.room === place.room)?.text ?? '') ? 1 : counted;
         const quantity = rowCount !== null && isCounted(match.rule.code) ? rowCount : implied1;
         // The grounding of a service is one system: a sentence naming its parts in two places is one defect.
         const same = inSentence.find((f) => f.code === outdoorCode(match.rule.code, place.room, sentence.text) && (f.room === place.room || match.rule.panelIsPlace === true));

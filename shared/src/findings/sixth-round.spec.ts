@@ -116,8 +116,8 @@ describe('casual and terse wording, and future conditions (common practice)', ()
     expect(read('- Garage: taped splice on the wall by the door, no box.')).toEqual([['open-junction-box', 'garage', 1]]);
   });
 
-  it('reads a topic label answered by what is needed ("Smoke: need 1 in the den bedroom")', () => {
-    expect(read('- Smoke: need 1 in guest bedroom, others ok.')).toEqual([['smoke-co-alarm', 'bedroom', null]]);
+  it('reads a topic label answered by what is needed ("Smoke: need 1 in the guest bedroom"), one alarm', () => {
+    expect(read('- Smoke: need 1 in guest bedroom, others ok.')).toEqual([['smoke-co-alarm', 'bedroom', 1]]);
   });
 
   it('makes no finding of what a future change would need (NFPA 70 (NEC) 2023, 210.12(D) applies to extended or new circuits)', () => {
@@ -148,5 +148,16 @@ describe('switches of unknown function or that fail, in more wordings (common pr
     expect(read('The 3-way switches at the top and bottom of the stairs do not control the hall light reliably.')).toEqual([['switch-issue', 'hallway', null]]);
     expect(read('The dimmer for the dining chandelier does not turn the chandelier on at any setting.')).toEqual([['switch-issue', 'dining', 1]]);
     expect(read('The bath fan switch buzzes when it is on.')).toEqual([['switch-issue', 'bathroom', 1]]);
+  });
+});
+
+describe("counts: an alarm named only as a label's topic at one place is one (issue 10's rule; common practice)", () => {
+  it('counts "Smoke alarms: missing in the den" and "Den smoke - none" as one alarm', () => {
+    expect(read('Smoke alarms: missing in the den.')).toEqual([['smoke-co-alarm', 'living-area', 1]]);
+    expect(read('Den smoke - none, bracket only.')).toEqual([['smoke-co-alarm', 'living-area', 1]]);
+  });
+
+  it("gives no count when the places are plural, however abbreviated (\"BR's\")", () => {
+    expect(read("Smoke detectors: none in BR's.")).toEqual([['smoke-co-alarm', 'bedroom', null]]);
   });
 });
