@@ -20,8 +20,12 @@ export interface OvercurrentCheck extends Range {
   readonly computation: string;
 }
 
-/** "30 A", "30A", "30-amp", "30 amps", "30 ampere" (a rating of 10 to 200 A); not "20/22 A/C" (air conditioning). */
-const RATING = /(?<![\w.])(\d{2,3})\s?-?(?:a|amps?|amperes?)\b(?!\s*(?:x|\/)\s*\d)(?!\/c\b)/gi;
+/**
+ * "30 A", "30A", "30-amp", "30 amps", "30 ampere" (a rating of 10 to 200 A); not "20/22 A/C" (air
+ * conditioning), and not a nameplate's load current ("MCA 18A", "RLA 14 A", "FLA 22A"), which is no
+ * device's rating.
+ */
+const RATING = /(?<![\w.])(?<!\b(?:mca|rla|fla|lra)\s?:?\s?)(\d{2,3})\s?-?(?:a|amps?|amperes?)\b(?!\s*(?:x|\/)\s*\d)(?!\/c\b)/gi;
 /** "12 AWG" (shorthand such as "#12", "12 ga", "12-gauge" is normalised to this before). */
 const SIZE = /(?<![\w.])(\d{1,2})[\s-]?awg\b/gi;
 const MATERIAL = /\b(?:(aluminum|aluminium)|(copper))\b/gi;

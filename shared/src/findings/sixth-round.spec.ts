@@ -161,3 +161,19 @@ describe("counts: an alarm named only as a label's topic at one place is one (is
     expect(read("Smoke detectors: none in BR's.")).toEqual([['smoke-co-alarm', 'bedroom', null]]);
   });
 });
+
+describe('heating and cooling sections: the electrical findings inside them (NFPA 70 (NEC) 2023, 110.3(B) and 440.4(B) nameplates)', () => {
+  it('reads a nameplate maximum against its breaker under an HVAC heading, not the load current ("MCA 19A")', () => {
+    expect(read('HEATING AND COOLING\nThe heat pump nameplate lists MCA 19A, MAX BREAKER 25A. It is fed by a 40A two-pole breaker in the main panel.')).toEqual([['overcurrent-mismatch', 'panel', 1]]);
+  });
+
+  it('reads a missing CO alarm under a heating heading, and nothing else there', () => {
+    expect(read('HEATING\nThe gas furnace operated. No carbon monoxide alarm was found in the upstairs hall.')).toEqual([['smoke-co-alarm', 'hallway', 1]]);
+    expect(read('HEATING\nThe furnace filter is dirty; replace it.')).toEqual([]);
+  });
+
+  it('gives the same computation told in a summary and in the HVAC body once', () => {
+    const text = '1. Cooling: the condenser breaker is 40 amps; the condenser label lists 25 amps maximum.\n\nCOOLING\nThe condenser label lists "Max Fuse / Breaker 25 A"; the breaker for it in the main panel is 40 A.';
+    expect(read(text)).toEqual([['overcurrent-mismatch', 'panel', 1]]);
+  });
+});
