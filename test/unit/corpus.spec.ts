@@ -18,11 +18,14 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // were recorded in docs/parser.md; before F joined the floors were P 0.945, R 0.93, F1 0.937,
 // quantity 0.954). The floors were reset to those figures because the corpus changed, not the parser.
 // The goal is 0.95 on each; raise these floors as the parser gets there, never lower them for the
-// same corpus.
-const MIN_PRECISION = 0.939;
-const MIN_RECALL = 0.92;
-const MIN_F1 = 0.93;
-const MIN_QUANTITY = 0.932;
+// same corpus. Sixth round (2026-12-04): 242 older quantity labels were brought to issue 10's rule
+// (test/corpus/batches/quantity-labels-2026-12-04.md) and the parser follows it; at the round's end
+// the corpus scores precision 0.94095, recall 0.93376, F1 0.93734, quantity 0.97317 (floors below,
+// rounded down).
+const MIN_PRECISION = 0.9409;
+const MIN_RECALL = 0.9337;
+const MIN_F1 = 0.9373;
+const MIN_QUANTITY = 0.9731;
 
 describe('report parser corpus', () => {
   let run: BatchRun;
