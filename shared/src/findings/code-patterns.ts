@@ -415,11 +415,11 @@ export const CODE_RULES: readonly CodeRule[] = [
     panelIsPlace: true,
     patterns: [
       { re: rx`(?:${T.NO}|loose|disconnected|damaged|broken|cut|corroded|inadequate|improper)\s+(?:(?:a|an|the)\s+)?${gap(2)}(?:ground(?:ing)? electrode(?: conductor| system)?|gec\b|ges\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|water (?:pipe |line )?bond(?:ing)?(?: jumper)?|gas (?:pipe |line )?bond(?:ing)?|bonding (?:jumper|conductor|clamp|wire|connection))` },
-      { re: rx`(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|bonding (?:jumper|clamp|conductor))\s+${gap(12)}${T.BE}(?:${T.ABSENT}|loose|disconnected|damaged|cut(?: off)?|broken|corroded|not (?:connected|attached|bonded|secured)|undersized|inadequate)` },
+      { re: rx`(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|bonding (?:jumper|clamp|conductor))\s+${gap(12)}${T.BE}(?:${T.ABSENT}|loose|disconnected|damaged|cut(?: off)?|severed|broken|corroded|not (?:connected|attached|bonded|secured)|undersized|inadequate)` },
       // A water meter or filter bridged by no jumper leaves the piping bond open (NFPA 70 (NEC) 2023, 250.53(D)(1) and 250.68(B)).
       { re: rx`${T.NO}\s+(?:bonding\s+)?jumper\s+(?:wire\s+)?(?:around|across|bridging|over|at)\s+(?:the\s+)?(?:water\s+)?(?:meter|filter|softener|water heater)` },
       { re: rx`(?:gas|water|metal|csst)(?:\s+(?:service|supply|main))?\s+(?:pipes?|piping|lines?)\s+${gap(8)}(?:has|have|had|with)\s+no\s+bond(?:ing)?\b` },
-      { re: rx`(?:ground(?:ing)?|electrode)\s+(?:wire|conductor)\s+${gap(8)}${T.BE}(?:loose|disconnected|cut(?: off)?|broken|not (?:connected|attached))` },
+      { re: rx`(?:ground(?:ing)?|electrode)\s+(?:wire|conductor)\s+${gap(8)}${T.BE}(?:loose|disconnected|cut(?: off)?|severed|broken|not (?:connected|attached))` },
       { re: rx`(?:water|gas|metal|csst)(?:\s+(?:service|supply|main))?(?:\s+(?:pipes?|piping|lines?))?\s+${gap(2)}${T.BE}(?:not|un)[- ]?bonded` },
       { re: rx`(?:not|no)\s+bond(?:ed|ing)\s+(?:\w+\s+){0,3}?(?:water|gas|csst|metal piping)` },
       // A grounding or bonding part and its condition in the same clause, with other words between

@@ -177,3 +177,19 @@ describe('heating and cooling sections: the electrical findings inside them (NFP
     expect(read(text)).toEqual([['overcurrent-mismatch', 'panel', 1]]);
   });
 });
+
+describe('spelling at the end of a sentence, "grd", and words that are not misspellings (normalisation)', () => {
+  it('corrects a misspelt trade word right before the full stop, and reads "grd" as ground', () => {
+    expect(read('The receptacles in the den all tested as ungroundd.')).toEqual([['open-ground', 'living-area', null]]);
+    expect(read('Office: 3-prong rcpts open grd (2).')).toEqual([['open-ground', 'office', 2]]);
+  });
+
+  it('leaves ordinary words near trade words as written ("damage" is not "damaged", "connectors" not "conductors")', () => {
+    expect(read('The service conductors showed no visible damage.')).toEqual([]);
+    expect(read('Crimp connectors on the range cord are in good shape.')).toEqual([]);
+  });
+
+  it('reads a severed grounding electrode conductor (NFPA 70 (NEC) 2023, 250.64)', () => {
+    expect(read('The ground wire to the rod is severed at grade.')).toEqual([['grounding-electrode', 'panel', 1]]);
+  });
+});

@@ -33,7 +33,7 @@ const SHORTHAND: Readonly<Record<string, string>> = {
   ckt: 'circuit', ckts: 'circuits', cct: 'circuit', ccts: 'circuits',
   sw: 'switch', sws: 'switches', swtch: 'switch',
   lt: 'light', lts: 'lights', fixt: 'fixture', fixts: 'fixtures', fxtr: 'fixture', fxtrs: 'fixtures', lite: 'light', lites: 'lights',
-  gnd: 'ground', grnd: 'ground', gnds: 'grounds', grnds: 'grounds', gnded: 'grounded', grnded: 'grounded',
+  gnd: 'ground', grnd: 'ground', grd: 'ground', gnds: 'grounds', grnds: 'grounds', grds: 'grounds', gnded: 'grounded', grnded: 'grounded',
   ungnd: 'ungrounded', ungrnd: 'ungrounded', ungrnded: 'ungrounded', "ungr'd": 'ungrounded', ungrd: 'ungrounded',
   neut: 'neutral', neuts: 'neutrals', cond: 'conductor', conds: 'conductors',
   alm: 'alarm', alms: 'alarms', perm: 'permanent', 'perm.': 'permanent', mfd: 'manufactured', 'mfd.': 'manufactured',
@@ -120,6 +120,8 @@ const KEEP = new Set([
   'snitch', 'stitch', 'stitches', 'twitch', 'switchgear', 'dribble', 'dripping', 'dripped', 'drips', 'overhang',
   'overheat', 'overheated', 'overhaul', 'maximal', 'maxima', 'minimum', 'namely', 'tapped', 'taped', 'topped',
   'loosed', 'plates', 'plated', 'planes', 'places', 'platen', 'slated', 'recess', 'recesses', 'recessed',
+  'damage', 'connector', 'connectors', 'manufacturer', 'manufacturers', 'trapped', 'functioned', 'isolation',
+  'contacted', 'insertion',
 ]);
 
 const MEMO = new Map<string, string | null>();
@@ -219,8 +221,9 @@ function replacementFor(tokens: readonly Token[], i: number, source: string): st
     if (CONTEXTUAL.has(key) && !contextAllows(key, prev, next, gapBefore, text)) return null;
     return word.toLowerCase() === lower ? null : capitalised(text, word);
   }
-  if (/^[a-z]{5,}$/i.test(text)) {
-    const fixed = correctSpelling(text);
+  // A misspelt word at the end of a sentence ("tested as ungrouded.") is corrected without its stop.
+  if (/^[a-z]{5,}\.?$/i.test(text)) {
+    const fixed = correctSpelling(text.replace(/\.$/, ''));
     return fixed === null ? null : capitalised(text, fixed);
   }
   return null;
