@@ -20,11 +20,11 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // The goal is 0.95 on each; raise these floors as the parser gets there, never lower them for the
 // same corpus. Sixth round (2026-12-04): 242 older quantity labels were brought to issue 10's rule
 // (test/corpus/batches/quantity-labels-2026-12-04.md) and the parser follows it; at the round's end
-// the corpus scores precision 0.94186, recall 0.93546, F1 0.93865, quantity 0.97322 (floors below,
+// the corpus scores precision 0.94228, recall 0.93588, F1 0.93907, quantity 0.97323 (floors below,
 // rounded down).
-const MIN_PRECISION = 0.9418;
-const MIN_RECALL = 0.9354;
-const MIN_F1 = 0.9386;
+const MIN_PRECISION = 0.9422;
+const MIN_RECALL = 0.9358;
+const MIN_F1 = 0.939;
 const MIN_QUANTITY = 0.9732;
 
 describe('report parser corpus', () => {

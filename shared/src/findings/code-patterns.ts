@@ -605,7 +605,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       // "Full evaluation by licensed electrician": terse notes leave out the article.
       { re: rx`(?:evaluation|review|assessment)\s+by\s+(?:licensed\s+|qualified\s+)?(?:electrician|electrical contractor)s?`, unless: REFERS_TO_OTHERS_ONLY },
       // "a licensed electrician perform a complete evaluation of the system": the noun as well as the verb.
-      { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check|go (?:through|over)|look (?:over|through)|(?:perform|conduct|do|make|provide)\s+(?:an?\s+)?(?:(?:full|complete|thorough|comprehensive|further)\s+)?(?:evaluation|review|inspection|assessment))`, unless: REFERS_TO_OTHERS_ONLY },
+      { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check|go (?:through|over)|look (?:over|through)|walk (?:through\s+)?(?:the\s+)?(?:whole|entire|electrical)|(?:perform|conduct|do|make|provide)\s+(?:an?\s+)?(?:(?:full|complete|thorough|comprehensive|further)\s+)?(?:evaluation|review|inspection|assessment))`, unless: REFERS_TO_OTHERS_ONLY },
       { re: rx`(?:consult|contact|hire|engage|retain|call)\s+(?:with\s+)?(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)`, unless: /\bif\b|\bany\b/i },
     ],
   },

@@ -193,3 +193,17 @@ describe('spelling at the end of a sentence, "grd", and words that are not missp
     expect(read('The ground wire to the rod is severed at grade.')).toEqual([['grounding-electrode', 'panel', 1]]);
   });
 });
+
+describe('polarity: what a report lists for information only, and a walk-through by an electrician (common practice)', () => {
+  it('makes no finding of an item "noted here for information only, not as a defect"', () => {
+    expect(read('Bedrooms: receptacles tested correct; no AFCI protection, noted here for information only, not as a defect.')).toEqual([]);
+  });
+
+  it('still reports a wiring method that is only "typical of" its year of construction', () => {
+    expect(read('The wiring in this 1974 house is aluminum, typical of 1974 construction.')).toEqual([['aluminum-branch-wiring', 'whole-house', null]]);
+  });
+
+  it('reads "have an electrician walk through the entire system" as a general evaluation', () => {
+    expect(read('We would have an electrician walk through the entire system before closing.')).toEqual([['evaluate-general', 'whole-house', null]]);
+  });
+});
