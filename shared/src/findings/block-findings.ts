@@ -9,7 +9,7 @@ import { deviceRating, nameplateMaximum, type CarriedRatings } from './overcurre
 import { findingQuantity, isCounted, readCount } from './quantity-reader';
 import { findRooms, type RoomMention } from './room-lexicon';
 import type { Room } from './room';
-import { lastPlaceMention, placeMatches } from './room-resolver';
+import { lastPlaceMention, placeMatches, POINTS_TO_PLACE } from './room-resolver';
 import type { RowCount, Section } from './block-splitter';
 import { splitSentences } from './sentence-splitter';
 import { normaliseText } from './text-normaliser';
@@ -45,7 +45,19 @@ export interface BlockContext {
 const FOLLOW_UP = /\b(?:recommend\w*|install (?:the|a|an|new|proper|listed)\b|suggest\w*|advise\w*|should be|should have|needs? to be|must be|have (?:it|this|these|them|the\s+\w+) (?:\w+ed|repaired|corrected|checked|evaluated)|correct(?:ion|ed)?|repair(?:ed|s)?|replace(?:d|ment)?|evaluat\w*|further (?:evaluation|review)|by a (?:licensed|qualified)|licensed electrician|qualified electrician|electrical contractor|requir(?:e|es|ed)\b|for safety|safety (?:hazard|concern|issue)|fire (?:hazard|risk)|shock (?:hazard|risk)|hazard)|^\s*(?:add|provide|install)\b|\brestore\b|\bfix\b|no equipment ground/i;
 
 /** A sentence about the device just named ("The fan ...", "It ..."). */
-const SAME_SUBJECT = /^(?:the|this|that|it)\b(?!\s+(?:other|second|third|next|remaining)\b)/i;
+/**
+ * An alarm named only as the topic of a label ("Smoke alarms: missing in hallway", "Hall smoke -
+ * none", "hall: smoke missing"): like a device implied by its section, one at one named place.
+ */
+/** Places in the plural as inspectors abbreviate them ("BR's", "bdrms"). */
+const PLURAL_PLACE_WORD = /\b(?:bed ?rooms|bdrms|brs|br's|rooms|levels|floors|baths|bathrooms|halls|hallways)\b/i;
+const ALARM_TOPIC_LABEL = /^\W*(?:[\w.]+\s+){0,3}?(?:smoke|co)\b(?:\s*(?:\/|&)\s*co)?(?:\s+(?:alarms?|detectors?))?\s*(?::|\||\s-\s)|^\W*[\w ]{1,20}:\s*(?:smoke|co)\s+(?:missing|none|removed)\b/i;
+
+/**
+ * A sentence about the device before it: "The/This/That/It ...", or a terse one with no subject at
+ * all that starts with its verb ("Trips but wont reset.").
+ */
+const SAME_SUBJECT = /^(?:the|this|that|it)\b(?!\s+(?:other|second|third|next|remaining)\b)|^(?:trips|tripped|tests|tested|will|wont|won't|does|doesn't|did|didn't|is|was|has|had|shows|showed|moves|wobbles)\b/i;
 /** "That breaker is oversized ...": a demonstrative points back to the device just named, even at a fixed place. */
 const POINTS_BACK = /^(?:this|that|these|those|it)\b/i;
 /** Words that make it another device ("also", "another", "too"). */
@@ -103,7 +115,7 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
     const live = matches.filter((_, i) => !negated[i]);
     hasNegated ||= live.length < matches.length;
     const carried =
-      previous && (previous.isLabel || REFERS_BACK.test(sentence.text))
+      previous && (previous.isLabel || REFERS_BACK.test(sentence.text) || POINTS_TO_PLACE.test(sentence.text))
         ? { room: previous.mention.room, location: readLocation(previous.text, previous.mention) }
         : null;
     const rooms = findRooms(sentence.text);
@@ -133,7 +145,7 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
               ? null
               : own;
         // A device implied by its section at one named place ("BR2: none") is one device.
-        const implied1 = counted === null && match === implied && place.room !== 'whole-house' && !isPluralPlace(sentence.text, rooms.find((r) => r.room === place.room)?.text ?? '') ? 1 : counted;
+        const implied1 = counted === null && (match === implied || (match.rule.code === 'smoke-co-alarm' && ALARM_TOPIC_LABEL.test(sentence.text) && !PLURAL_PLACE_WORD.test(sentence.text))) && place.room !== 'whole-house' && !isPluralPlace(sentence.text, rooms.find((r) => r.room === place.room)?.text ?? '') ? 1 : counted;
         const quantity = rowCount !== null && isCounted(match.rule.code) ? rowCount : implied1;
         // The grounding of a service is one system: a sentence naming its parts in two places is one defect.
         const same = inSentence.find((f) => f.code === outdoorCode(match.rule.code, place.room, sentence.text) && (f.room === place.room || match.rule.panelIsPlace === true));

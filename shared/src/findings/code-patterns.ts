@@ -196,12 +196,14 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'reversed-polarity',
-    trigger: /polarity|revers|swapped|transposed|\brp\b/i,
+    trigger: /polarity|revers|swapped|transposed|\brp\b|\brev\.?\s*pol\b/i,
     patterns: [
       { re: rx`rev(?:erse[ds]?|\.)?\s*[- ]?polarity` },
       { re: rx`polarity\s+${T.BE}(?:reversed|incorrect|wrong)` },
       { re: rx`(?:hot|line)\s*(?:and|\/|-|&)\s*neutral(?:\s+(?:wires|conductors))?\s+${T.BE}(?:reversed|swapped|transposed)` },
       { re: rx`\brp\b` },
+      // Inspectors' shorthand: "rev pol", "rev. pol.".
+      { re: rx`rev\.?\s*pol\b\.?` },
     ],
   },
   {
@@ -270,6 +272,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?<!\b(?:no|without|missing)\s)(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant)?|wp)\s+covers?\s+${anyGap(8)}${T.BE}(?:${T.ABSENT}|broken|damaged|cracked|needed|recommended|required)` },
       { re: rx`(?:exterior|outdoor|outside|patio|deck|porch)\s+${T.RCPT}\s+${gap(3)}(?:covers?|lids?|flaps?)\s+${T.BE}(?:missing|broken|damaged|absent)` },
       { re: rx`(?:not|non)[- ](?:wr|weather[- ]resistant)\b` },
+      // A nickname in brackets or quotes between the kind and the cover: 'no in-use ("bubble") cover'.
+      { re: rx`(?:${T.NO})\s+(?:an?\s+)?(?:in[- ]use|weather[- ]?proof|wp)\s+[("'“]+\s*[\w -]{2,20}?\s*["'”)]+\s+covers?` },
       { re: rx`(?:covers?|lids?)\s+${anyGap(4)}(?:not|isn't|is not)\s+(?:an?\s+)?(?:in[- ]use|bubble|weather[- ]?proof|wp|while[- ]in[- ]use|extra[- ]duty)\b` },
     ],
   },
@@ -293,6 +297,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${T.NO}\s+(?:blank\s+)?(?:covers?|lids?)\s+(?:on|for)\s+(?:the\s+|an?\s+)?${T.JBOX}` },
       { re: rx`(?:splices?|spliced (?:wires|conductors)|wire nuts?)\s+${anyGap(6)}(?:outside(?:\s+of)?|not in|not within|not enclosed|without)\s+(?:in\s+)?(?:an?\s+|the\s+|any\s+)?(?:(?:approved|junction|electrical|enclosed)\s+)?(?:box|enclosure|junction box)` },
       { re: rx`(?:open|exposed|unenclosed|loose|taped)\s+(?:wire\s+)?splices?` },
+      // Terse notes: "tape splice on wall at workbench, no box".
+      { re: rx`splices?\b\s+${anyGap(8)}no\s+(?:junction\s+)?box\b(?!\s*(?:covers?|lids?))` },
       { re: rx`(?:spliced?|splices|connections?|connected)\b\s+${anyGap(20)}(?:(?:with\s+|and\s+)no|without(?:\s+an?)?|not\s+in(?:\s+an?)?|rather than (?:being\s+)?(?:enclosed\s+)?in(?:\s+an?)?|outside(?:\s+of)?(?:\s+(?:an?|any))?)\s+(?:junction\s+|electrical\s+)?(?:box|enclosure)` },
       { re: rx`(?:wrapped|taped)\s+(?:only\s+)?(?:in|with)\s+(?:electrical\s+)?tape` },
       // A box and its missing cover, or its visible splices, anywhere in the clause (terse notes and
@@ -330,6 +336,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:doubled?|dubbled?|dbl\.?|dual|twin)[- ]?tap(?:s|ped|ping|ed)?\b` },
       { re: rx`double[- ]lug(?:ged|s)?\b` },
       { re: rx`(?:two|2|multiple)\s+(?:\d{1,2}\s+awg\s+)?(?:(?:cu|copper|al|aluminum)\s+)?(?:wires?|conductors?|circuits|neutrals)\s+${gap(3)}(?:under|on|to|landed on|terminated on|sharing)\s+(?:a\s+|one\s+|1\s+|the same\s+|single\s+|its\s+|their\s+|the\s+)+(?:terminal|lug|screw|breaker)` },
+      // Terse notes leave out the article: "2 cond. under lug".
+      { re: rx`(?:two|2)\s+(?:\d{1,2}\s+awg\s+)?(?:(?:cu|copper|al|aluminum)\s+)?(?:wires?|conductors?|cond)\.?\s+(?:under|on)\s+(?:terminal|lug|screw)\b` },
     ],
   },
   {
@@ -368,6 +376,11 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:directory|legend|circuit labels?|labell?ing|entries)\s+${gap(3)}${T.BE}(?:faded|unreadable|illegible|outdated|out of date|wrong|incorrect)` },
       { re: rx`(?:knockouts?|fillers?|filler plates?)\s+${T.BE}(?:missing|open|absent)` },
       { re: rx`(?:knockouts?|fillers?|filler plates?)\s+${gap(6)}${T.BE}(?:missing|open|absent)`, context: PANEL_CONTEXT },
+      // The enclosure and its rust in one clause, either order ("the enclosure is rusted along the
+      // bottom", "the inside of the panel has surface rust", "rust @ bottom of can", "corrosion on the
+      // neutral bar"); a meter's can is the service's (common practice; NFPA 70 (NEC) 2023, 312.2).
+      { re: rx`(?<!meter\s)(?:enclosure|${T.PANEL}|cabinet)\s+${gap(4)}${T.BE}(?:rusted|rusting|corroded)\b`, unless: /\bmeter\b|\bsolar\b/i },
+      { re: rx`(?:rust|corrosion)\s+(?:and\s+(?:rust|corrosion|water stain(?:s|ing)?)\s+)?(?:at|on|in|inside|@)\s+(?:the\s+)?(?:bottom\s+of\s+(?:the\s+)?)?(?:enclosure|can|cabinet|neutral bars?|bus(?: ?bars?)?|breaker terminals)\b`, context: PANEL_CONTEXT, unless: /\bmeter\b/i },
       // "the neutral bar and the interior of the enclosure show heavy white corrosion".
       { re: rx`(?:enclosure|${T.PANEL}|breakers?|bus(?: bars?)?|neutral bar|lugs?|handles)\s+${gap(2)}(?:shows?|has|have|with)\s+(?:heavy\s+|white\s+|green\s+|some\s+|visible\s+|significant\s+){0,3}(?:corrosion|rust)` },
       { re: rx`(?:${T.NO}|incomplete|illegible|inaccurate)\s+(?:panel\s+|circuit\s+)*(?:directory|legend|labels?|labell?ing|identification)` },
@@ -402,11 +415,11 @@ export const CODE_RULES: readonly CodeRule[] = [
     panelIsPlace: true,
     patterns: [
       { re: rx`(?:${T.NO}|loose|disconnected|damaged|broken|cut|corroded|inadequate|improper)\s+(?:(?:a|an|the)\s+)?${gap(2)}(?:ground(?:ing)? electrode(?: conductor| system)?|gec\b|ges\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|water (?:pipe |line )?bond(?:ing)?(?: jumper)?|gas (?:pipe |line )?bond(?:ing)?|bonding (?:jumper|conductor|clamp|wire|connection))` },
-      { re: rx`(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|bonding (?:jumper|clamp|conductor))\s+${gap(12)}${T.BE}(?:${T.ABSENT}|loose|disconnected|damaged|cut(?: off)?|broken|corroded|not (?:connected|attached|bonded|secured)|undersized|inadequate)` },
+      { re: rx`(?:grounding electrode(?: conductor)?|gec\b|ground(?:ing)? rods?|ground(?:ing)? clamps?|bonding (?:jumper|clamp|conductor))\s+${gap(12)}${T.BE}(?:${T.ABSENT}|loose|disconnected|damaged|cut(?: off)?|severed|broken|corroded|not (?:connected|attached|bonded|secured)|undersized|inadequate)` },
       // A water meter or filter bridged by no jumper leaves the piping bond open (NFPA 70 (NEC) 2023, 250.53(D)(1) and 250.68(B)).
       { re: rx`${T.NO}\s+(?:bonding\s+)?jumper\s+(?:wire\s+)?(?:around|across|bridging|over|at)\s+(?:the\s+)?(?:water\s+)?(?:meter|filter|softener|water heater)` },
       { re: rx`(?:gas|water|metal|csst)(?:\s+(?:service|supply|main))?\s+(?:pipes?|piping|lines?)\s+${gap(8)}(?:has|have|had|with)\s+no\s+bond(?:ing)?\b` },
-      { re: rx`(?:ground(?:ing)?|electrode)\s+(?:wire|conductor)\s+${gap(8)}${T.BE}(?:loose|disconnected|cut(?: off)?|broken|not (?:connected|attached))` },
+      { re: rx`(?:ground(?:ing)?|electrode)\s+(?:wire|conductor)\s+${gap(8)}${T.BE}(?:loose|disconnected|cut(?: off)?|severed|broken|not (?:connected|attached))` },
       { re: rx`(?:water|gas|metal|csst)(?:\s+(?:service|supply|main))?(?:\s+(?:pipes?|piping|lines?))?\s+${gap(2)}${T.BE}(?:not|un)[- ]?bonded` },
       { re: rx`(?:not|no)\s+bond(?:ed|ing)\s+(?:\w+\s+){0,3}?(?:water|gas|csst|metal piping)` },
       // A grounding or bonding part and its condition in the same clause, with other words between
@@ -426,6 +439,10 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`(?:${T.NO}|${T.INOPERATIVE}|expired|outdated|dated|disconnected|removed|chirping)\s+${gap(2)}${T.SMOKE}(?!\s+(?:issues|problems|concerns|defects|deficiencies))` },
       { re: rx`${T.SMOKE}\s*[:-]?\s*${gap(8)}${T.BE}(?:${T.ABSENT}|none|${T.INOPERATIVE}|expired|past (?:their|its) (?:service life|expiration)|(?:over|older than|more than) (?:10|ten) years|disconnected|removed|chirping|${T.FAILED} (?:respond|sound|activate|operate|work)|failed|no\s+respon[sc]e)` },
+      // A topic label answered by what is needed: "Smoke: need 1 in bsmt bdrm".
+      { re: rx`(?:smoke|co|carbon monoxide)(?:\s+(?:alarms?|detectors?))?\s*(?::|-)\s*(?:needs?|needed|add|install)\s+(?:\d|one|an?)\b` },
+      // A bare topic label answered by its absence: "CO: none found", "Hall smoke - none".
+      { re: rx`(?:smoke|co|carbon monoxide)(?:\s*(?:\/|&|and)\s*co)?\s*(?::|-)\s*(?:none|${T.ABSENT})\b` },
       { re: rx`${RECOMMEND}\s+${NOT_ABOUT_ADDING}${T.SMOKE}`, isRecommendation: true, unless: /\btest/i },
       { re: rx`(?:unit|device)\s+${gap(4)}${T.FAILED}\s+(?:sound|alarm|respond|activate)`, context: /smoke|carbon monoxide|\bco\b|alarm|detector/i },
       // Common practice: smoke alarms are replaced ten years after manufacture (the date on the
@@ -490,7 +507,7 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'switch-issue',
     trigger: /switch|toggle|rocker|paddle|dimmer/i,
     patterns: [
-      { re: rx`${T.SWITCH}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|(?:warm|hot) to the touch|warm|hot|sparks?|sparking|arcing|${T.FAILED} (?:operate|work|respond|control))` },
+      { re: rx`${T.SWITCH}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|(?:warm|hot) to the touch|warm|hot|sparks?|sparking|arcs?\b(?![- ]fault)|arcing|${T.FAILED} (?:operate|work|respond|control))` },
       { re: rx`${T.SWITCH}\s+${gap(7)}(?:(?:has|have|had|of|with|serves?)\s+)?(?:an?\s+)?(?:unknown|no known|undetermined|unclear) (?:function|purpose|use)` },
       { re: rx`(?:function|purpose) of (?:the |a |an )?${gap(2)}${T.SWITCH}\s+${gap(5)}${T.BE}(?:unknown|unclear|undetermined|not determined|could not be determined)` },
       { re: rx`(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|unknown(?:[- ]function)?)\s+${gap(2)}${T.SWITCH}(?!\s*(?:cover\s*)?plates?)` },
@@ -501,6 +518,15 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${T.SWITCH}\s+${SWITCH_GAP}${T.BE}loose in (?:the|its) (?:wall|box)` },
       // "The switch controlling the desk receptacle is broken": the switch is the subject, not what it controls.
       { re: rx`${T.SWITCH}\s+(?:that\s+)?(?:controlling|controls|for|serving|serves|operating|operates)\s+(?:the\s+|a\s+)?${anyGap(3)}(?:${T.RCPT}|${T.LIGHT}|fans?\b|disposal|disposer)\s+${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked)` },
+      // A switch whose purpose could not be found, in more wordings (common practice): "could not
+      // determine what it controls", "could not be determined to operate any fixture", "dosnt seem to
+      // do anything", "do not control the chandelier reliably", "does not turn the lights on".
+      { re: rx`${T.SWITCH}\s+${anyGap(10)}(?:could\s?n[o']?t|cannot|can't|unable to)\s+(?:be\s+)?determine[ds]?\s+(?:what\s+(?:it|they)\s+(?:controls?|operates?|does)|(?:its|their)\s+(?:function|purpose)|to\s+(?:operate|control|power))` },
+      { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:dosn'?t|doesn'?t|does\s+not)\s+seem\s+to\s+do\s+anything` },
+      { re: rx`${T.SWITCH}\s+${SWITCH_GAP}(?:do|does|did)\s*n[o']?t\s+(?:control|operate|turn on)\s+(?:the\s+)?(?:[\w-]+\s+)?${T.LIGHT}\s+(?:reliably|properly|correctly|consistently|at all)` },
+      { re: rx`${T.SWITCH}\s+${anyGap(6)}(?:do|does|did)\s*n[o']?t\s+turn\s+(?:the\s+)?${T.LIGHT}\s+on\b` },
+      { re: rx`${T.SWITCH}\s+(?:for|to)\s+(?:the\s+)?${anyGap(3)}(?:crackles?|crackling|buzz(?:es|ing)?)\b` },
+      { re: rx`${T.SWITCH}\s+${gap(6)}(?:crackles?|crackling|buzz(?:es|ing)?)\b` },
       // The switch's toggle, rocker or paddle broken or loose (common practice).
       { re: rx`(?:toggle|rocker|paddle)s?\s+${gap(3)}${T.BE}(?:broken|snapped(?: off)?|sloppy|loose|missing|cracked|stuck)`, context: /switch|toggle/i },
     ],
@@ -563,6 +589,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       // 10 ft above grade, decks and walks, 12 ft above a residential driveway; a measured
       // clearance below that is the defect.
       { re: rx`${T.SERVICE}[^.;]{0,100}?${CLEARANCE}`, check: isTooLow },
+      // A clearance stated in inches is below every 230.24 minimum (3 ft at the least, from memory).
+      { re: rx`${T.SERVICE}[^.;]{0,100}?\bclears?\s+(?:the\s+)?(?:[\w-]+\s+){0,2}?by\s+(?:only\s+)?(?:about\s+|approx(?:imately|\.)?\s+|roughly\s+)?(\d{1,2})\s*(?:inches|in\b|")`, check: (m) => Number(m[1]) < 36 },
     ],
   },
   {
@@ -574,7 +602,10 @@ export const CODE_RULES: readonly CodeRule[] = [
     ignoresContext: true,
     patterns: [
       { re: rx`(?:evaluat|review|inspect|assess|examin|diagnos|correct|repair)\w*\s+${anyGap(8)}(?:by|from)\s+(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)s?`, unless: REFERS_TO_OTHERS_ONLY },
-      { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check|go (?:through|over)|look (?:over|through))`, unless: REFERS_TO_OTHERS_ONLY },
+      // "Full evaluation by licensed electrician": terse notes leave out the article.
+      { re: rx`(?:evaluation|review|assessment)\s+by\s+(?:licensed\s+|qualified\s+)?(?:electrician|electrical contractor)s?`, unless: REFERS_TO_OTHERS_ONLY },
+      // "a licensed electrician perform a complete evaluation of the system": the noun as well as the verb.
+      { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check|go (?:through|over)|look (?:over|through)|walk (?:through\s+)?(?:the\s+)?(?:whole|entire|electrical)|(?:perform|conduct|do|make|provide)\s+(?:an?\s+)?(?:(?:full|complete|thorough|comprehensive|further)\s+)?(?:evaluation|review|inspection|assessment))`, unless: REFERS_TO_OTHERS_ONLY },
       { re: rx`(?:consult|contact|hire|engage|retain|call)\s+(?:with\s+)?(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)`, unless: /\bif\b|\bany\b/i },
     ],
   },

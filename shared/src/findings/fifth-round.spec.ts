@@ -79,12 +79,12 @@ describe('counts (the writers\' rule: a number given, or one named device, is a 
 
 describe('wording: panels, grounding, fans and cables described at length', () => {
   it('reads open knockouts in the panel "cabinet" and corrosion the enclosure "shows" (NFPA 70 (NEC) 2023, 110.12(A), 312.5(A))', () => {
-    expect(read('Panel interior: open knockout at the bottom of the cabinet.')).toEqual([['panel-deficiency', 'panel', null]]);
-    expect(read('The bus bars and the inside of the enclosure show heavy white corrosion.')).toEqual([['panel-deficiency', 'panel', null]]);
+    expect(read('Panel interior: open knockout at the bottom of the cabinet.')).toEqual([['panel-deficiency', 'panel', 1]]);
+    expect(read('The bus bars and the inside of the enclosure show heavy white corrosion.')).toEqual([['panel-deficiency', 'panel', 1]]);
   });
 
   it('reads a grounding part labelled before a colon with its condition after it (NFPA 70 (NEC) 2023, 250.70)', () => {
-    expect(read('GEC #4 Cu to rod: clamp on the rod loose, turns by hand.')).toEqual([['grounding-electrode', 'panel', null]]);
+    expect(read('GEC #4 Cu to rod: clamp on the rod loose, turns by hand.')).toEqual([['grounding-electrode', 'panel', 1]]);
   });
 
   it('reads a ceiling fan and its wobble with its mounting described between, not a fan said to run without wobble (NFPA 70 (NEC) 2023, 314.27(C))', () => {
@@ -224,7 +224,7 @@ describe('tables and computed overcurrent findings (NFPA 70 (NEC) 2023, 240.4(D)
   });
 
   it('reads "Neutrals + grounds on same bar, bond screw in" in a subpanel (NFPA 70 (NEC) 2023, 250.24(A)(5))', () => {
-    expect(read('Panel (sub) | Basement subpanel 60A | Neutrals + grounds on same bar, bond screw in | Electrician')).toEqual([['subpanel-bonding', 'panel', null]]);
+    expect(read('Panel (sub) | Basement subpanel 60A | Neutrals + grounds on same bar, bond screw in | Electrician')).toEqual([['subpanel-bonding', 'panel', 1]]);
   });
 });
 

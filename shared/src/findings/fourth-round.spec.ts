@@ -68,7 +68,7 @@ describe('grouping: summaries in more shapes (common practice: summary list plus
       'FUSE PANEL',
       'Fuses were the correct size for the wire.',
     ].join('\n');
-    expect(read(text)).toEqual([['service-equipment', 'exterior', null]]);
+    expect(read(text)).toEqual([['service-equipment', 'exterior', 1]]);
   });
 });
 
@@ -149,24 +149,24 @@ describe('bonding at the service is correct (NFPA 70 (NEC) 2023, 250.24(A)(5) an
 
 describe('service: more conditions (NFPA 70 (NEC) 2023, 230.24 clearances, 230.50 protection; common practice)', () => {
   it('reads limbs resting on the conductors and a drop running right through a tree', () => {
-    expect(read('The service drop runs right through the crown of the maple, and the limbs are resting on the conductors.')).toEqual([['service-equipment', 'exterior', null]]);
+    expect(read('The service drop runs right through the crown of the maple, and the limbs are resting on the conductors.')).toEqual([['service-equipment', 'exterior', 1]]);
   });
 
   it('reads a mast that leans or has a bend in it', () => {
-    expect(read('The mast on the gable end has a visible bend in it and the whole mast leans toward the yard.')).toEqual([['service-equipment', 'exterior', null]]);
+    expect(read('The mast on the gable end has a visible bend in it and the whole mast leans toward the yard.')).toEqual([['service-equipment', 'exterior', 1]]);
   });
 
   it('reads service entrance cable that has lost its sheathing', () => {
-    expect(read('The service entrance cable along the porch roof edge has lost most of its outer sheathing.')).toEqual([['service-equipment', 'exterior', null]]);
+    expect(read('The service entrance cable along the porch roof edge has lost most of its outer sheathing.')).toEqual([['service-equipment', 'exterior', 1]]);
   });
 
   it('computes a measured clearance stated after the surface (230.24(B): 10 ft over a deck)', () => {
-    expect(read('The drop crosses the patio. Measured clearance above the deck at the stairs is about 7 ft.')).toEqual([['service-equipment', 'exterior', null]]);
+    expect(read('The drop crosses the patio. Measured clearance above the deck at the stairs is about 7 ft.')).toEqual([['service-equipment', 'exterior', 1]]);
     expect(read('Measured clearance above the deck at the stairs is about 12 ft.')).toEqual([]);
   });
 
   it('reads a meter pedestal that is leaning, but not a pedestal sink', () => {
-    expect(read('The meter pedestal at the lot line is leaning toward the drive.')).toEqual([['service-equipment', 'exterior', null]]);
+    expect(read('The meter pedestal at the lot line is leaning toward the drive.')).toEqual([['service-equipment', 'exterior', 1]]);
     expect(read('The pedestal sink in the powder room is leaning; the plumber should reset it.')).toEqual([]);
   });
 });
@@ -363,7 +363,7 @@ describe('served rooms, service cable, wires of an open box (common practice; NF
   });
 
   it('reads a cracked service entrance cable jacket as the service, not exposed wiring', () => {
-    expect(read('The service entrance cable below the weatherhead has a cracked jacket and is exposed for a foot.')).toEqual([['service-equipment', 'exterior', null]]);
+    expect(read('The service entrance cable below the weatherhead has a cracked jacket and is exposed for a foot.')).toEqual([['service-equipment', 'exterior', 1]]);
   });
 
   it('reads wires hanging from an open box as the box defect only', () => {
@@ -421,8 +421,8 @@ describe('terse outbuilding notes (NFPA 70 (NEC) 2023, 250.32(A) and 250.24(A)(5
   });
 
   it('reads "N & G on same bar" in a subpanel and "No GES found"', () => {
-    expect(read('Subpnl in barn:\n - N & G on same bar, bond screw installed.')).toEqual([['subpanel-bonding', 'panel', null]]);
-    expect(read('Barn: no GES found, no rod.')).toEqual([['grounding-electrode', 'panel', null]]);
+    expect(read('Subpnl in barn:\n - N & G on same bar, bond screw installed.')).toEqual([['subpanel-bonding', 'panel', 1]]);
+    expect(read('Barn: no GES found, no rod.')).toEqual([['grounding-electrode', 'panel', 1]]);
   });
 
   it('carries the place of the sentence before to "There is also ..."', () => {
@@ -458,7 +458,7 @@ describe('shorthand places and panel parts (NFPA 70 (NEC) 2023, 110.12(A) for un
   });
 
   it('reads an open KO at the side of the can as a panel defect', () => {
-    expect(read('PNL:\n  - open KO @ side of can, no plug')).toEqual([['panel-deficiency', 'panel', null]]);
+    expect(read('PNL:\n  - open KO @ side of can, no plug')).toEqual([['panel-deficiency', 'panel', 1]]);
   });
 });
 

@@ -14,7 +14,7 @@ const CUE_BEFORE = /\b(?:no|not|never|none of|free of|no evidence of|no signs? o
  * After the phrase: not found ("not observed", "none"), positive ("as required", "tested OK") or
  * historical ("has been removed", "was replaced in 2015").
  */
-const CUE_AFTER = /(?:\b(?:was|were|is|are)\s+)?\bnot\s+(?:observed|found|noted|detected|seen|evident|identified|present)\b|\bnone\b(?!\s+of\b)(?:\s+(?:observed|found|noted|detected|seen|evident))?|\bn\/a\b|\bnot an issue\b|\b(?:was|is|were|are)\s+not\s+(?:considered|reported as|listed as|counted as)\s+(?:a\s+)?(?:defect|deficiency|concern|problem)\b|\btypical (?:for|of) (?:the|its|a home of this) (?:age|era|period|vintage)\b|\bas (?:required|expected|intended)\b|\b(?:was|were) previously (?:present|installed|used|in use)\b|\b(?:tested|test|tests) (?:ok|okay|good|correctly|properly|fine)\b|\b(?:has|have|had) (?:since )?been (?:removed|replaced|abandoned|decommissioned|disconnected and removed|corrected|repaired)\b|\b(?:was|were) (?:removed|replaced|corrected|repaired|upgraded) (?:in|during|when|before|by|prior to|previously|already|earlier)\b|\b(?:which|that|as) (?:was|were|is) (?:allowed|permitted|acceptable) (?:when|at the time)\b|\bgrandfathered\b/gi;
+const CUE_AFTER = /(?:\b(?:was|were|is|are)\s+)?\bnot\s+(?:observed|found|noted|detected|seen|evident|identified|present)\b|\bnone\b(?!\s+of\b)(?:\s+(?:observed|found|noted|detected|seen|evident))?|\bn\/a\b|\bnot an issue\b|\b(?:was|is|were|are)\s+not\s+(?:considered|reported as|listed as|counted as)\s+(?:a\s+)?(?:defect|deficiency|concern|problem)\b|\btypical (?:for|of) (?:the|its|a home of this) (?:age|era|period|vintage)\b|\b(?:listed|noted|included|reported) (?:here )?for information(?:al purposes)?(?: only)?\b|\bnot as a defect\b|\bas (?:required|expected|intended)\b|\b(?:was|were) previously (?:present|installed|used|in use)\b|\b(?:tested|test|tests) (?:ok|okay|good|correctly|properly|fine)\b|\b(?:has|have|had) (?:since )?been (?:removed|replaced|abandoned|decommissioned|disconnected and removed|corrected|repaired)\b|\b(?:was|were) (?:removed|replaced|corrected|repaired|upgraded) (?:in|during|when|before|by|prior to|previously|already|earlier)\b|\b(?:which|that|as) (?:was|were|is) (?:allowed|permitted|acceptable) (?:when|at the time)\b|\bgrandfathered\b/gi;
 /** Text between two listed phrases: commas, "and", "or", "nor", "/", "&". */
 const LIST_JOIN = /^[\s,]*(?:(?:and|or|nor|&|\/|and\/or)[\s,]*)?$/i;
 /** A participle right after "not" that the phrase does not start with: the "not" is about it. */
@@ -37,8 +37,15 @@ function removesProtection(text: string, cue: Range): boolean {
   return /removed/i.test(text.slice(cue.start, cue.end)) && PROTECTIVE_PART_BEFORE.test(text.slice(Math.max(0, cue.start - 60), cue.start));
 }
 
+/**
+ * A sentence that only says what a future change would need: "If the basement is finished later,
+ * the new circuits will need AFCI protection." Its condition is the whole sentence's.
+ */
+const FUTURE_CONDITION = /^\s*(?:if|when|once|should)\s[^.;]{0,120}?\b(?:in the future|later|someday|is (?:ever )?(?:finished|remodel+ed|converted|renovated)|are (?:ever )?(?:added|remodel+ed))\b[^.;]{0,40}?,\s*[^.;]*\b(?:will|would)\s+(?:need|require|have to|be required)\b/i;
+
 /** For each span (sorted by start, not overlapping), whether the sentence denies it. */
 export function negatedSpans(text: string, spans: readonly Range[], clauses: readonly Range[] = clauseRanges(text)): boolean[] {
+  if (FUTURE_CONDITION.test(text)) return spans.map(() => true);
   if (spans.length === 0) return [];
   const clauseOf = (pos: number) => clauseIndexAt(clauses, pos);
   const negated = spans.map(() => false);

@@ -21,8 +21,12 @@ export interface OvercurrentCheck extends Range {
   readonly computation: string;
 }
 
-/** "30 A", "30A", "30-amp", "30 amps", "30 ampere" (a rating of 10 to 200 A); not "20/22 A/C" (air conditioning). */
-const RATING = /(?<![\w.])(\d{2,3})\s?-?(?:a|amps?|amperes?)\b(?!\s*(?:x|\/)\s*\d)(?!\/c\b)/gi;
+/**
+ * "30 A", "30A", "30-amp", "30 amps", "30 ampere" (a rating of 10 to 200 A); not "20/22 A/C" (air
+ * conditioning), and not a nameplate's load current ("MCA 18A", "RLA 14 A", "FLA 22A"), which is no
+ * device's rating.
+ */
+const RATING = /(?<![\w.])(?<!\b(?:mca|rla|fla|lra)\s?:?\s?)(\d{2,3})\s?-?(?:a|amps?|amperes?)\b(?!\s*(?:x|\/)\s*\d)(?!\/c\b)/gi;
 /** "12 AWG" (shorthand such as "#12", "12 ga", "12-gauge" is normalised to this before). */
 const SIZE = /(?<![\w.])(\d{1,2})[\s-]?awg\b/gi;
 const MATERIAL = /\b(?:(aluminum|aluminium)|(copper))\b/gi;
@@ -118,8 +122,11 @@ const nameplateCheck = (rating: number, limit: number, at: Range): OvercurrentCh
   computation: `${rating} A overcurrent device; the nameplate allows at most ${limit} A (NEC 110.3(B))`,
 });
 
+/** A rating written right before a conductor size ("20A #14 Cu", "30 A on 10 AWG"): a branch device on that conductor, as a panel schedule's row gives it. */
+const RATING_ON_SIZE = /(?<![\w.])\d{2}\s?-?a(?:mps?)?\s+(?:(?:on|w\/|with)\s+)?\d{1,2}\s?awg\b/i;
+
 export function checkOvercurrent(text: string, carried: CarriedRatings | null = null): OvercurrentCheck[] {
-  if (!DEVICE.test(text) && !/\bfus|\bbreak|\bnameplate|\bmax|\binstalled/i.test(text)) return [];
+  if (!DEVICE.test(text) && !/\bfus|\bbreak|\bnameplate|\bmax|\binstalled/i.test(text) && !RATING_ON_SIZE.test(text)) return [];
   const nameplates = nameplateMentions(text);
   // "The data plate lists max breaker 30 A. The breaker at the disconnect is 45 A." (or the other
   // way round): the nameplate and the device's rating in two sentences of one block.

@@ -103,6 +103,8 @@ export function readCount(text: string, articleLimit = Infinity, countable: RegE
     const next = tokens[i + 1]?.word;
     if (next !== undefined && UNIT.test(next) && word !== 'a' && word !== 'an') continue;
     if (/^\d/.test(word) && tokens[i - 1]?.word === ':') return count;
+    // "open grnd, N & E walls, 3 total": a number given as the total.
+    if (/^\d/.test(word) && next === 'total') return count;
     if (word === 'pair' && next !== 'of') continue;
     // "(4 of them)", "1 of 3 inop": the number before "of" is the count.
     // "two of the breakers", "three of those": any number word before "of" counts ("neither of them" is two).
@@ -147,10 +149,16 @@ function isNumberAhead(tokens: Token[], i: number): boolean {
 }
 
 /**
- * Codes whose defect is a condition rather than a number of devices (bonding, a wiring method, the
- * service, a general evaluation): they carry no count even when the text gives one.
+ * Codes whose defect is a house-wide condition rather than a number of devices (a wiring method, a
+ * missing protection, a general evaluation): they carry no count even when the text gives one.
  */
-const UNCOUNTED = new Set(['service-equipment', 'knob-and-tube', 'grounding-electrode', 'subpanel-bonding', 'afci-missing', 'aluminum-branch-wiring', 'evaluate-general']);
+const UNCOUNTED = new Set(['knob-and-tube', 'afci-missing', 'aluminum-branch-wiring', 'evaluate-general']);
+/**
+ * Codes about one piece of equipment of the house (its service drop, mast, meter base or entrance
+ * cable; its grounding electrode or a bond; a subpanel's neutral bar): each finding is one, as a
+ * singular device is ("the meter base has pulled away", "GEC clamp at rod loose").
+ */
+const ONE_EQUIPMENT = new Set(['service-equipment', 'grounding-electrode', 'subpanel-bonding']);
 /** Whether findings of the code carry a count at all. */
 export function isCounted(code: string): boolean {
   return !UNCOUNTED.has(code);
@@ -166,11 +174,19 @@ const DEVICE_NOUN = /\b(?:((?:cover|face|wall|switch|outlet|receptacle|filler)[-
 /** Nouns that name the protection itself when the defect is its absence ("no GFCI protection"). */
 const PROTECTION_NOUN = /^(?:gfci|afci)$/i;
 const DEAD_AFTER_GFCI = /\b(?:rcpts?|receptacles?|outlets?)\b[^.;]{0,40}\b(?:dead|without power|no power|not powered)\b[^.;]*/gi;
-const CONDUCTORS_UNDER_ONE = /\b(?:two|2|three|3|both|multiple)\s+(?:\d{1,2}\s+awg\s+)?(?:\w+\s+)?(?:wires?|conductors?|cond|neutrals|circuits|feeds)\b/gi;
+const CONDUCTORS_UNDER_ONE = /\b(?:two|2|three|3|both|multiple)\s+(?:\d{1,2}\s+awg\s+)?(?:\w+\s+)?(?:wires?|conductors?|cond|neutrals|circuits|feeds)\b|\b[23]x\s+\d{1,2}\s+awg(?:\s+(?:copper|aluminum))?\s+(?=under\b)/gi;
 /** What exposed wiring is counted in: cords, cables, runs, places; not the lights a cord feeds. */
 const WIRING_COUNTABLE = /^(?:cords?|cables?|wires?|wiring|conductors?|splices?|places?|locations?|spots?|areas?|circuits?)$/i;
-/** Codes counted only when the text gives a number (a panel condition, exposed wiring). */
-const EXPLICIT_ONLY = new Set(['panel-deficiency', 'exposed-wiring']);
+/** Codes counted only when the text gives a number (exposed wiring). */
+const EXPLICIT_ONLY = new Set(['exposed-wiring']);
+/**
+ * The small parts of a panel a defect can be counted in: its screws, knockouts, open spaces and
+ * their fillers. A panel defect that names none of them is about the panel itself (its directory,
+ * dead front, enclosure, working space) and is one; one that names them in the plural without a
+ * number ("pointed screws", "open knockouts") has no count.
+ */
+const PANEL_PART = /\b(?:screws?|knockouts?|kos|ko|fillers?|blanks?|(?:breaker |open )?(?:spaces|slots|openings|positions))\b/i;
+const PANEL_PART_COUNTABLE = /^(?:screws?|knockouts?|kos?|fillers?|blanks?|plates?|covers?|spaces?|slots?|openings?|positions?|plugs?)$/i;
 
 /**
  * The count of a finding: the number the text gives; null for a vague or plural count without a
@@ -179,6 +195,7 @@ const EXPLICIT_ONLY = new Set(['panel-deficiency', 'exposed-wiring']);
  */
 export function findingQuantity(code: string, countText: string, articleLimit: number, laterText: string | null, subjectText = ''): number | null {
   if (UNCOUNTED.has(code)) return null;
+  if (ONE_EQUIPMENT.has(code)) return 1;
   // A double tap is counted in breakers (terminals), not in the conductors under one terminal.
   if (code === 'double-tap') countText = countText.replace(CONDUCTORS_UNDER_ONE, (m) => ' '.repeat(m.length));
   // A failed GFCI is counted in GFCIs, not in the receptacles left dead after it ("rcpts on that ckt dead (x3)").
@@ -186,6 +203,7 @@ export function findingQuantity(code: string, countText: string, articleLimit: n
   // A table row's leading item number ("7 | Basement | Junction box ...") is an index, not a count.
   countText = countText.replace(ROW_NUMBER, (m) => ' '.repeat(m.length));
   subjectText = subjectText.replace(ROW_NUMBER, (m) => ' '.repeat(m.length));
+  if (code === 'panel-deficiency') return panelCount(countText, articleLimit);
   const count = readCount(countText, articleLimit, code === 'exposed-wiring' ? WIRING_COUNTABLE : COUNTABLE);
   if (typeof count === 'number') return count;
   if (count === 'vague') return null;
@@ -215,6 +233,15 @@ export function findingQuantity(code: string, countText: string, articleLimit: n
   }
   if (/^\s*it\b/i.test(countText) && code === 'gfci-missing') return 1;
   return ONE_DEVICE.has(code) ? 1 : null;
+}
+
+/** A panel defect's count: the number of parts given, none for parts in the plural, else the one panel. */
+function panelCount(text: string, articleLimit: number): number | null {
+  const count = readCount(text, articleLimit, PANEL_PART_COUNTABLE);
+  if (typeof count === 'number') return count;
+  const part = PANEL_PART.exec(text);
+  if (part === null) return 1;
+  return /(?:s|kos)$/i.test(part[0]) && !/^ko$/i.test(part[0]) ? null : 1;
 }
 
 /** A plural device noun followed by a bracketed list of its parts. */

@@ -60,7 +60,9 @@ describe('quantity', () => {
     ['Three receptacles in the garage are not GFCI protected.', 3],
     ['Several receptacles in the garage are not GFCI protected.', null],
     ['The garage receptacles are not GFCI protected.', null],
-    ['The subpanel neutral bar is bonded to the enclosure.', null],
+    // Issue 10's rule: one named piece of equipment is 1; a house-wide condition has no count.
+    ['The subpanel neutral bar is bonded to the enclosure.', 1],
+    ['Knob-and-tube wiring is still in service throughout the house.', null],
   ])('%s → %p', (sentence, quantity) => {
     expect(parseText(sentence).findings[0].quantity).toBe(quantity);
   });

@@ -38,6 +38,14 @@ function pageLocator(joined: string): (offset: number) => number {
  * written, even across a page break; `page` is the 1-based page where that sentence starts.
  * Blocks that give no finding come back in `skipped` with their section and the reason.
  */
+/** Words of the findings read even in a non-electrical section (see crossSectionOnly). */
+const CROSS_SECTION_HINT = /nameplate|data plate|max(?:imum|\.)?\s+(?:fuse|breaker|overcurrent)|mocp|carbon monoxide|\bco\s+(?:alarm|detector)/i;
+
+/** Of a block in a non-electrical section, only the computed nameplate findings and the CO/smoke alarm findings. */
+function crossSectionOnly(result: ReturnType<typeof readBlock>): ReturnType<typeof readBlock> {
+  return { ...result, findings: result.findings.filter((f) => (f.code === 'overcurrent-mismatch' && f.computation !== null) || f.code === 'smoke-co-alarm') };
+}
+
 export function parseReport(pages: readonly string[]): ParseResult {
   const joined = joinPages(pages);
   const pageOf = pageLocator(joined);
@@ -60,11 +68,14 @@ export function parseReport(pages: readonly string[]): ParseResult {
         start,
         end,
       });
-    if (block.section.kind === 'non-electrical') {
+    const outside = block.section.kind === 'non-electrical';
+    // Under a heating or cooling heading, a nameplate compared with its breaker and a missing CO
+    // alarm are still electrical findings; nothing else there is read.
+    const result = outside && CROSS_SECTION_HINT.test(block.text.text) ? crossSectionOnly(readBlock(block.text, block.section, block.rowCounts)) : outside ? null : readBlock(block.text, block.section, block.rowCounts);
+    if (result === null || (outside && result.findings.length === 0)) {
       skip('non-electrical-section');
       continue;
     }
-    const result = readBlock(block.text, block.section, block.rowCounts);
     if (result.findings.length === 0) {
       const suggestion = result.hasNegated ? null : suggestItem(block.text.text, block.section.room);
       if (suggestion) {
@@ -78,6 +89,8 @@ export function parseReport(pages: readonly string[]): ParseResult {
     const followUp = (f: (typeof result.findings)[number]) => f.confidence === 'inferred' && f.computation === null && (f.isRecommendation || FOLLOW_UP_OPENING.test(f.sentence.text));
     const allFollowUps = result.findings.every(followUp);
     for (const f of result.findings) {
+      // The same computation told twice (a summary line and the body's HVAC paragraph) is one defect.
+      if (f.computation !== null && findings.some((g) => g.code === f.code && g.computation === f.computation)) continue;
       const range = sourceRange(f.sentence);
       const info = findingCodeInfo(f.code);
       inSummary.push(block.section.title !== null && SUMMARY_HEADING.test(block.section.title));

@@ -1,11 +1,15 @@
 import { clauseIndexAt, clauseRanges, type Range } from './clause-splitter';
 import type { CodeMatch } from './code-matcher';
+import { WHOLE_SYSTEM } from './code-patterns';
 import { readLocation } from './location-reader';
 import { scanAll } from './regex-scan';
 import { findRooms, type RoomMention } from './room-lexicon';
 import type { Room } from './room';
 
 /** Where a finding is, and the stretch of text its count is read from. */
+/** A sentence that points at the place of the sentence before ("have an electrician evaluate this area"). */
+export const POINTS_TO_PLACE = /\b(?:this|that) (?:area|room|space|location|building|addition|wing)\b/i;
+
 export interface Placement {
   readonly room: Room;
   readonly location: string;
@@ -128,6 +132,8 @@ export function placeMatches(
     }
     if (match.rule.placeAnywhereInSentence && THROUGHOUT.test(text)) return [{ room: match.rule.defaultRoom ?? 'whole-house', location: '', ...own, isInferred: true }];
     if (match.rule.isHouseWide && !LIMITED.test(text)) return [{ room: match.rule.defaultRoom ?? 'whole-house', location: '', ...own, isInferred: true }];
+    // "the work seen in the attic and garage ... a full evaluation of the entire electrical system": the rooms are the reasons, the evaluation is house-wide.
+    if (match.rule.ignoresContext && WHOLE_SYSTEM.test(text)) return [{ room: match.rule.defaultRoom ?? 'whole-house', location: '', ...own, isInferred: true }];
     // A panel named beside another code's defect is a reference point ("cable run up to the panel").
     const group = listedGroup(text, mentionsIn(rooms, part).filter((m) => m.room !== 'panel'));
     if (group.length > 1) {
@@ -150,6 +156,8 @@ export function placeMatches(
       nearest(rooms, part.start, text.length, { start: 0, end: part.start }) ??
       (match.rule.placeAnywhereInSentence ? nearest(rooms, part.end, part.end, { start: part.end, end: text.length }) : null);
     if (chosen) return [{ room: chosen.room, location: readLocation(text, chosen), ...own }];
+    // A house-wide code stays house-wide unless the sentence points at the place before ("evaluate this area").
+    if (match.rule.ignoresContext && context.carried && POINTS_TO_PLACE.test(text)) return [{ ...context.carried, ...own, isInferred: true }];
     if (match.rule.ignoresContext) return [{ room: match.rule.defaultRoom ?? 'unknown', location: '', ...own, isInferred: true }];
     if (context.carried) return [{ ...context.carried, ...own, isInferred: true }];
     const opening = context.opening;

@@ -56,7 +56,7 @@ export const T = {
    */
   SERVICE_CONDITION: String.raw`(?:frayed|cracked|split|torn|brittle|abraded|chafed|(?:uv|sun)[- ]?degraded|degraded|deteriorat\w*|worn|weathered|damaged|broken|bent|bend in\b|lean(?:s|ing)\b|loose|(?:has\s+)?lost (?:\w+\s+){0,3}?(?:its\s+|the\s+)?(?:outer\s+)?(?:sheathing|jacket|insulation)|rock(?:s|ing)\b|corroded|(?:heavy|severe|some|visible)\s+(?:corrosion|rust)|corrosion\b|rust(?:ed|ing|y)?\b|rott(?:ed|ing)|rotten|sag(?:s|ging|ged)?\b|tangled|pull(?:ed|ing) (?:away|loose|free|tight|out)|separat(?:ed|ing) from|detached|stressed|(?:resting|rests?|lies?|lying|laying|lays?) (?:directly\s+)?(?:on|against|in)\b|water (?:staining|stains?|intrusion)|(?:not|un)[- ]?(?:strapped|secured|supported|sealed|clamped)|straps? (?:missing|broken|loose)|missing (?:straps?|support)|(?:too\s+)?low\s+(?:over|above|to)\b)`,
   /** Failure verbs after "did not", "would not" ... */
-  FAILED: String.raw`(?:did\s?n[o']t|does\s?n[o']t|would\s?n[o']t|will not|won't|failed to|fails to|fail to|could not|couldn't|wouldn't)`,
+  FAILED: String.raw`(?:did\s?n[o']?t|does\s?n[o']?t|would\s?n[o']?t|will not|won'?t|failed to|fails to|fail to|could not|couldn't|wouldn't)`,
   /** "missing", "absent", "not installed" ... after the thing that is missing. */
   ABSENT: String.raw`(?:missing|absent|lacking|gone\b|not (?:present|installed|provided|observed|found|noted|visible|evident)|none (?:present|installed|found|observed|provided))`,
   /** "no", "missing", "lacks" ... before the thing that is missing. */

@@ -24,7 +24,7 @@ const SHORTHAND: Readonly<Record<string, string>> = {
   gfi: 'GFCI', gfis: 'GFCIs', gfic: 'GFCI', gcfi: 'GFCI',
   afi: 'AFCI',
   ocpd: 'breaker', ocpds: 'breakers', brkr: 'breaker', brkrs: 'breakers', bkr: 'breaker', bkrs: 'breakers', cb: 'breaker',
-  jbox: 'junction box', jboxes: 'junction boxes', 'j-box': 'junction box', 'j-boxes': 'junction boxes',
+  jbox: 'junction box', jboxes: 'junction boxes', jb: 'junction box', jbs: 'junction boxes', 'j-box': 'junction box', 'j-boxes': 'junction boxes',
   'k&t': 'knob-and-tube', kt: 'knob-and-tube', knt: 'knob-and-tube',
   seu: 'service-entrance cable', sec: 'service-entrance cable', ser: 'service-entrance cable',
   pnl: 'panel', pnls: 'panels', subpnl: 'subpanel', 'sub-pnl': 'subpanel',
@@ -32,7 +32,7 @@ const SHORTHAND: Readonly<Record<string, string>> = {
   ckt: 'circuit', ckts: 'circuits', cct: 'circuit', ccts: 'circuits',
   sw: 'switch', sws: 'switches', swtch: 'switch',
   lt: 'light', lts: 'lights', fixt: 'fixture', fixts: 'fixtures', fxtr: 'fixture', fxtrs: 'fixtures', lite: 'light', lites: 'lights',
-  gnd: 'ground', grnd: 'ground', gnds: 'grounds', grnds: 'grounds', gnded: 'grounded', grnded: 'grounded',
+  gnd: 'ground', grnd: 'ground', grd: 'ground', gnds: 'grounds', grnds: 'grounds', grds: 'grounds', gnded: 'grounded', grnded: 'grounded',
   ungnd: 'ungrounded', ungrnd: 'ungrounded', ungrnded: 'ungrounded', "ungr'd": 'ungrounded', ungrd: 'ungrounded',
   neut: 'neutral', neuts: 'neutrals', cond: 'conductor', conds: 'conductors',
   alm: 'alarm', alms: 'alarms', perm: 'permanent', 'perm.': 'permanent', mfd: 'manufactured', 'mfd.': 'manufactured',
@@ -51,7 +51,7 @@ const SHORTHAND: Readonly<Record<string, string>> = {
 };
 
 /** Shorthand that is only expanded where the context says it is the trade word. */
-const CONTEXTUAL = new Set(['al', 'cu', 'sd', 'sds', 'sec', 'ser', 'sw', 'lt', 'lts', 'cb', 'kt', 'ba', 'gar', 'kit', 'ext', 'wp', 'wr', 'wx', 'det', 'dets', 'cond', 'conds', 'ga', 'ga.', 'gauge', 'gage', 'guage', 'awg']);
+const CONTEXTUAL = new Set(['jb', 'jbs', 'al', 'cu', 'sd', 'sds', 'sec', 'ser', 'sw', 'lt', 'lts', 'cb', 'kt', 'ba', 'gar', 'kit', 'ext', 'wp', 'wr', 'wx', 'det', 'dets', 'cond', 'conds', 'ga', 'ga.', 'gauge', 'gage', 'guage', 'awg']);
 
 const NUMBER_WORDS: Readonly<Record<string, number>> = {
   two: 2, three: 3, four: 4, five: 5, six: 6, seven: 7, eight: 8, nine: 9, ten: 10, eleven: 11, twelve: 12,
@@ -127,6 +127,8 @@ const KEEP = new Set([
   'snitch', 'stitch', 'stitches', 'twitch', 'switchgear', 'dribble', 'dripping', 'dripped', 'drips', 'overhang',
   'overheat', 'overheated', 'overhaul', 'maximal', 'maxima', 'minimum', 'namely', 'tapped', 'taped', 'topped',
   'loosed', 'plates', 'plated', 'planes', 'places', 'platen', 'slated', 'recess', 'recesses', 'recessed',
+  'damage', 'connector', 'connectors', 'manufacturer', 'manufacturers', 'trapped', 'functioned', 'isolation',
+  'contacted', 'insertion',
 ]);
 
 const MEMO = new Map<string, string | null>();
@@ -229,8 +231,9 @@ function replacementFor(tokens: readonly Token[], i: number, source: string): st
     if (CONTEXTUAL.has(key) && !contextAllows(key, prev, next, gapBefore, text)) return null;
     return word.toLowerCase() === lower ? null : capitalised(text, word);
   }
-  if (text.length >= 5 && /^[a-z]{5,}$/i.test(text)) {
-    const fixed = correctSpelling(text);
+  // A misspelt word at the end of a sentence ("tested as ungrouded.") is corrected without its stop.
+  if (text.length >= 5 && /^[a-z]{5,}\.?$/i.test(text)) {
+    const fixed = correctSpelling(text.replace(/\.$/, ''));
     return fixed === null ? null : capitalised(text, fixed);
   }
   return null;
@@ -258,6 +261,8 @@ function contextAllows(key: string, prev: string, next: string, gapBefore: strin
       return SIZE.test(prev) && /^[\s-]*$/.test(gapBefore);
     case 'sd':
     case 'sds':
+    case 'jb':
+    case 'jbs':
       return original === original.toUpperCase();
     case 'det':
     case 'dets':

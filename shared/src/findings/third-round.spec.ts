@@ -49,7 +49,7 @@ describe('service equipment: a part of the service and its condition (common pra
     ['The meter post at the lot line is rotted and leaning.'],
     ['Service mast straps missing; the mast is loose at the eave.'],
   ])('reads %s', (sentence) => {
-    expect(read(sentence)).toEqual([['service-equipment', 'exterior', null]]);
+    expect(read(sentence)).toEqual([['service-equipment', 'exterior', 1]]);
   });
 
   it('does not read a part said to be sound', () => {
@@ -58,17 +58,17 @@ describe('service equipment: a part of the service and its condition (common pra
   });
 
   it('reads a missing drip loop', () => {
-    expect(read('The entrance cable enters the meter with no drip loop.')).toEqual([['service-equipment', 'exterior', null]]);
+    expect(read('The entrance cable enters the meter with no drip loop.')).toEqual([['service-equipment', 'exterior', 1]]);
   });
 });
 
 describe('service clearance, computed (NFPA 70 (NEC) 2023, 230.24, from memory: 3 ft over a roof, 10 ft over decks and walks, 12 ft over a residential driveway)', () => {
   it('reads a drop 8 ft above a deck as too low (10 ft required)', () => {
-    expect(read('The service drop conductors pass about 8 ft above the rear deck.')).toEqual([['service-equipment', 'exterior', null]]);
+    expect(read('The service drop conductors pass about 8 ft above the rear deck.')).toEqual([['service-equipment', 'exterior', 1]]);
   });
 
   it('reads a drop 11 ft above a driveway as too low (12 ft required)', () => {
-    expect(read('Service drop: sags to 11 feet over the driveway.')).toEqual([['service-equipment', 'exterior', null]]);
+    expect(read('Service drop: sags to 11 feet over the driveway.')).toEqual([['service-equipment', 'exterior', 1]]);
   });
 
   it('does not read a drop 14 ft above a driveway (12 ft required)', () => {
@@ -78,16 +78,16 @@ describe('service clearance, computed (NFPA 70 (NEC) 2023, 230.24, from memory: 
 
 describe('grounding and bonding: a part and its condition (NFPA 70 (NEC) 2023, 250.50 and 250.104)', () => {
   it('reads a loose ground wire with many words between', () => {
-    expect(read('The ground wire to the cold water line beside the softener in the basement is loose.')).toEqual([['grounding-electrode', 'basement', null]]);
+    expect(read('The ground wire to the cold water line beside the softener in the basement is loose.')).toEqual([['grounding-electrode', 'basement', 1]]);
   });
 
   it('reads a part looked for and not found as missing (the "none found" is the defect, not a denial)', () => {
-    expect(read('Gas pipe bonding: none found.')).toEqual([['grounding-electrode', 'panel', null]]);
-    expect(read('I was unable to locate a grounding electrode conductor at the exterior.')).toEqual([['grounding-electrode', 'exterior', null]]);
+    expect(read('Gas pipe bonding: none found.')).toEqual([['grounding-electrode', 'panel', 1]]);
+    expect(read('I was unable to locate a grounding electrode conductor at the exterior.')).toEqual([['grounding-electrode', 'exterior', 1]]);
   });
 
   it('reads a bond that has been removed as missing (polarity: removal of a protective part is the defect)', () => {
-    expect(read('The water pipe bond in the garage has been removed.')).toEqual([['grounding-electrode', 'garage', null]]);
+    expect(read('The water pipe bond in the garage has been removed.')).toEqual([['grounding-electrode', 'garage', 1]]);
   });
 
   it('still reads removed legacy wiring as no finding (polarity: historical)', () => {
@@ -95,7 +95,7 @@ describe('grounding and bonding: a part and its condition (NFPA 70 (NEC) 2023, 2
   });
 
   it('reads a misspelt panel as the panel (normalisation)', () => {
-    expect(read('No grounding electrode conductor at the pannel.')).toEqual([['grounding-electrode', 'panel', null]]);
+    expect(read('No grounding electrode conductor at the pannel.')).toEqual([['grounding-electrode', 'panel', 1]]);
   });
 });
 
@@ -190,7 +190,7 @@ describe('panel: procedure is not a defect, and one panel defect told twice is o
   });
 
   it('still reads a dead front that is missing', () => {
-    expect(read('The garage subpanel dead front is missing.')).toEqual([['panel-deficiency', 'panel', null]]);
+    expect(read('The garage subpanel dead front is missing.')).toEqual([['panel-deficiency', 'panel', 1]]);
   });
 
   it('reads the remedy sentence of a panel defect as its recommendation', () => {
@@ -323,7 +323,7 @@ describe('neutral-ground bonding, bootleg grounds and terse labels (third round)
   });
 
   it('still reads them together in a subpanel where that is not correct (NFPA 70 (NEC) 2023, 250.142(B))', () => {
-    expect(read('In the garage subpanel, neutrals and grounds share the same bar; this is not correct downstream of the service.')).toEqual([['subpanel-bonding', 'panel', null]]);
+    expect(read('In the garage subpanel, neutrals and grounds share the same bar; this is not correct downstream of the service.')).toEqual([['subpanel-bonding', 'panel', 1]]);
   });
 
   it('reads "(bootleg)" and "jumper neutral -> gnd screw" as a false ground (NFPA 70 (NEC) 2023, 250.142(B))', () => {

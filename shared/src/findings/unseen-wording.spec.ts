@@ -66,18 +66,18 @@ describe('flexible cords and cables on the ground', () => {
 describe('grounding and bonding', () => {
   it('places a missing electrode conductor "at the panel" at the panel, once per sentence', () => {
     expect(read('No grounding electrode conductor was found at the panel, and no ground rod was found at the exterior.')).toEqual([
-      ['grounding-electrode', 'panel', null],
+      ['grounding-electrode', 'panel', 1],
     ]);
   });
 
   it('reads a water meter with no jumper around it (NFPA 70 (NEC) 2023, 250.53(D)(1))', () => {
     expect(read('The ground wire clamps to the water pipe on the house side of the meter and there is no jumper around the meter.')).toEqual([
-      ['grounding-electrode', 'panel', null],
+      ['grounding-electrode', 'panel', 1],
     ]);
   });
 
   it('reads gas piping that has no bonding (NFPA 70 (NEC) 2023, 250.104(B))', () => {
-    expect(read('The gas piping at the water heater in the garage has no bonding.')).toEqual([['grounding-electrode', 'garage', null]]);
+    expect(read('The gas piping at the water heater in the garage has no bonding.')).toEqual([['grounding-electrode', 'garage', 1]]);
   });
 });
 
@@ -150,7 +150,7 @@ describe('places', () => {
   });
 
   it('does not read a water entry or an entry door as a hallway', () => {
-    expect(read('Water pipe bond | Main water entry, basement | No bonding clamp found at water line')).toEqual([['grounding-electrode', 'basement', null]]);
+    expect(read('Water pipe bond | Main water entry, basement | No bonding clamp found at water line')).toEqual([['grounding-electrode', 'basement', 1]]);
   });
 
   it('keeps a numbered subsection under the room of its numbered parent heading', () => {
@@ -202,15 +202,15 @@ describe('polarity', () => {
 
 describe('service, panel and covers', () => {
   it('reads a service drop low over a deck (NFPA 70 (NEC) 2023, 230.24(B): clearances)', () => {
-    expect(read('The service drop crosses over the rear deck about 8 feet above the deck surface.')).toEqual([['service-equipment', 'exterior', null]]);
+    expect(read('The service drop crosses over the rear deck about 8 feet above the deck surface.')).toEqual([['service-equipment', 'exterior', 1]]);
   });
 
   it('reads a meter base pulled away from the siding (common practice)', () => {
-    expect(read('The meter base has pulled away from the siding at the bottom.')).toEqual([['service-equipment', 'exterior', null]]);
+    expect(read('The meter base has pulled away from the siding at the bottom.')).toEqual([['service-equipment', 'exterior', 1]]);
   });
 
   it('reads storage in front of a panel (NFPA 70 (NEC) 2023, 110.26(A): 30 in. wide, 36 in. deep working space)', () => {
-    expect(read('Shelving has been placed directly in front of the panel.')).toEqual([['panel-deficiency', 'panel', null]]);
+    expect(read('Shelving has been placed directly in front of the panel.')).toEqual([['panel-deficiency', 'panel', 1]]);
   });
 
   it('reads a cracked cover plate on a described receptacle as the plate, not the receptacle', () => {
