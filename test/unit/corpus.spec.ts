@@ -13,17 +13,16 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // or two columns) and read back through the project's PDF text extraction.
 // Scores match findings by (code, room) as a multiset.
 // A ratchet, not the goal: with the independent writers' excerpts (201-255, A+B 101-160, C 301-360,
-// D 401-460, then E 501-566) in the corpus, the whole corpus scores precision 0.946, recall 0.930, F1
-// 0.938 and quantity 0.955 (2026-12-04, fifth round, docs/parser.md: quantity stays below its floor of
-// 0.958 set on the corpus without E: two of batch E's three writers count a single service,
-// grounding or bonding defect as 1 where every other writer gives null, and no wording tells the two
-// apart). The quantity floor was therefore reset to 0.954 when E joined (the corpus changed, not
-// the parser: every batch's quantity rose in the same round). The goal is 0.95 on each; raise these
-// floors as the parser gets there, never lower them for the same corpus.
-const MIN_PRECISION = 0.945;
-const MIN_RECALL = 0.93;
-const MIN_F1 = 0.937;
-const MIN_QUANTITY = 0.954;
+// D 401-460, E 501-566, then G 701-766) in the corpus, the whole corpus scores precision 0.914,
+// recall 0.902, F1 0.908 and quantity 0.939 (2026-12-04, when G joined after its untuned score was
+// recorded in docs/parser.md; before G joined the floors were P 0.945, R 0.93, F1 0.937, quantity
+// 0.954). The floors were reset to those figures because the corpus changed, not the parser.
+// The goal is 0.95 on each; raise these floors as the parser gets there, never lower them for the
+// same corpus.
+const MIN_PRECISION = 0.913;
+const MIN_RECALL = 0.901;
+const MIN_F1 = 0.907;
+const MIN_QUANTITY = 0.938;
 
 describe('report parser corpus', () => {
   let run: BatchRun;
