@@ -15,6 +15,7 @@ const BATCHES: ReadonlyArray<{ name: string; from: number; to: number }> = [
   { name: 'C 301-360', from: 300, to: 399 },
   { name: 'D 401-460', from: 400, to: 499 },
   { name: 'E 501-566', from: 500, to: 599 },
+  { name: 'G 701-766', from: 700, to: 799 },
 ];
 
 async function main(names: string[]): Promise<void> {

@@ -56,7 +56,7 @@ interface Line {
   readonly text: string;
 }
 
-const ITEM_MARKER = /^\s*(?:\d{1,3}(?:\.\d{1,3})+\.?|\d{1,3}[.)]|[a-h][.)]|item\s+\d{1,3}\s*[:.)-]|\[\d{1,3}\]|[-•*‣▪◦●·–—>]|(?:\[\s?[x ]?\]\s*){1,6})\s+/i;
+const ITEM_MARKER = /^\s*(?:\d{1,3}(?:\.\d{1,3})+\.?|\d{1,3}[.)]|[a-h][.)]|item\s+\d{1,3}\s*[:.)-]|\[\d{1,3}\]|\[\s*(?:photos?|pics?|images?|img|fig\.?|figure)\s*#?\s*\d{1,3}[a-z]?\s*\]|(?:photos?|pics?|images?|img)\s*#?\s*\d{1,3}[a-z]?\s*[:.)-]|[a-z]{1,3}[-.]\d{1,3}[.):]?|#\d{1,3}(?![\d.]|\s*(?:awg|ga\b|gauge|cu\b|al\b|copper|alum|wires?\b|conductors?\b|thhn|nm\b|solid|strand))|[-•*‣▪◦●·–—>]|(?:\[\s?[x ]?\]\s*){1,6})\s+/i;
 const NOISE_LINE = /^(?:[|+:=\s-]{3,}|.{0,80}\bpage\s+\d+(?:\s*(?:of|\/)\s*\d+)?|-{1,2}\s*\d+\s+of\s+\d+\s*-{1,2}|\d+\s*\/\s*\d+)\s*$/i;
 const CONNECTOR_END = /(?:[,;&/-]|\b(?:and|or|the|a|an|at|of|to|with|in|on|for|by|from|is|are|was|were|not|no))$/i;
 /** A checklist line that ends in its answer ("GFCI at exterior: No"). */

@@ -63,6 +63,8 @@ const SWITCH_GAP = String.raw`(?:(?!${'(?:switch|light|fixture|receptacle|outlet
 /** A switch or dimmer named by the light it controls ("the dimmer for the chandelier is hot"): the switch is the subject. */
 const SWITCH_FOR_LIGHT = /\b(?:switch(?:es)?|dimmers?)\s+(?:that\s+)?(?:for|controlling|controls|serving|operating)\b/i;
 /** A flexible cord: extension, lamp or zip cord. */
+/** A cable made to run under ground or outdoors: what is wrong with it is its exposure (common practice). */
+const OUTDOOR_CABLE = String.raw`(?:(?:uf|underground|direct[- ]burial|feeder|(?:well\s+|submersible\s+)?pump|well|(?:boat\s+)?lift|dock|outdoor|exterior|yard|landscape)\s+(?:\w+\s+)?(?:cables?|wir(?:e|es|ing)|conductors?|feeders?)\b)`;
 const FLEX_CORD = String.raw`(?:extension|lamp|zip|flexible|appliance)\s+cords?`;
 const RECOMMEND = String.raw`(?:recommend(?:ed|s|ing)?|suggest(?:ed)?|should (?:be|have)|install(?:ing|ed)?|upgrad(?:e|ed|ing) to|add(?:ing)?|need(?:s|ed)?|requires?|consider(?:ing)?|have the)`;
 /** Words that turn a recommendation into one about an existing device (replace, test, reset). */
@@ -315,6 +317,10 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:used|using|uses|plugged in(?:\s?to)?|powered by|connected to|on|fed by|fed from|through)\s+(?:an?\s+|the\s+)?${ADJ_GAP}extension cords?` },
       { re: rx`(?:uf|nm|underground|feeder|branch|direct[- ]burial)?\s*${T.WIRING}\s+${gap(6)}(?:${T.BE}|(?:has|have)\s+(?:simply\s+)?been\s+)?(?:lies|lying|laid|laying|lays|rests?|resting|run|strung|draped)\s+(?:directly\s+)?(?:on|across|along|on top of)\s+(?:the\s+)?(?:surface of the\s+)?(?:ground|dirt|soil|grass|lawn|yard|floor|crawl ?space floor)\b` },
       { re: rx`(?:permanent|fixed)\s+(?:use of\s+)?extension cords?` },
+      // A cable that belongs under ground or in conduit outdoors (a feeder, UF, a pump or lift cable)
+      // lying on the surface or with no conduit (NFPA 70 (NEC) 2023, 300.5(A) burial and 300.5(D) protection; 340.10).
+      { re: rx`${OUTDOOR_CABLE}\s+${anyGap(12)}(?:lies|lying|laid|laying|runs?|running|strung|draped|rests?|resting|sits?|comes? up)\s+(?:\w+\s+){0,3}?(?:on|across|along|over|out of)\s+(?:the\s+)?(?:surface of the\s+|top of the\s+)?(?:ground|grade|rocks?|surface|walkway|dock|bank|gravel|lawn|yard|dirt)\b` },
+      { re: rx`${OUTDOOR_CABLE}\s+${anyGap(12)}(?:(?:is\s+|are\s+)?not\s+(?:in|inside|sleeved in|protected by)\s+(?:a\s+)?conduit|(?:with\s+)?no\s+(?:conduit|burial|sleeve)|(?:is\s+|are\s+)?not\s+(?:buried|sleeved)|unburied|above ground)` },
       // Cable across the top of joists near an attic opening needs guard strips or running boards (NFPA 70 (NEC) 2023, 334.23 and 320.23(A)).
       { re: rx`(?:nm|romex|sheathed)?\s*cables?\s+${anyGap(16)}(?:no|without)\s+(?:running boards?|guard strips?)` },
       // A cable and its condition in the same clause with other words between ("NM cable to the

@@ -1,0 +1,28 @@
+/**
+ * Re-inspection and punch-list notes give each item of an earlier report with its status after a
+ * leader ("Double tap, 20A brkr ...... corrected", "#4 attic J-box -- cover installed. CLOSED"). An
+ * item whose status says it was put right reports no defect any more; one that is "still open",
+ * "partial" or "not corrected" is reported as before (common practice in re-inspection reports).
+ */
+const LEADER = /\.{3,}|\s[-–—]{1,2}\s|\s[-–—]{2}/g;
+/** A status that closes the item, at the end of the part after the leader. */
+const CLOSED_END =
+  /(?:\bclosed|\b(?:was\s+|been\s+|now\s+)?(?:corrected|repaired|resolved|completed?|done|fixed|addressed|cleared)|(?<!\b(?:not|none|never|no)\s+)\b(?:installed|replaced|added)|\b(?:tests?|tested|checks?|checked|verified|operates|operating)\s+(?:ok(?:ay)?|good|fine|properly|correctly))[\s.;!)]*$/i;
+const CLOSED_WORD = /\bCLOSED\b|\bclosed\s*$/;
+/** A status that keeps the item open. */
+const STILL_OPEN = /\b(?:still\s+(?:open|present|there|not|no|loose|missing|reversed|inop\w*|dead|exposed|chirp\w*)|remains?\s+(?:open|unresolved|as\s+(?:was|before|reported))|not\s+(?:yet\s+)?(?:corrected|repaired|resolved|completed|done|fixed|addressed|replaced|installed)|partial(?:ly)?|incomplete|recommend\w*|should|needs?\b|must\b|suggest\w*|advise\w*|to be\b|have (?:it|them|this)\b|unchanged|no change|open\s*[.;]?\s*$)/i;
+
+const MAX_DASH_STATUS = 60;
+
+/** Whether an item (one block) is an earlier finding whose status says it has been put right. */
+export function isClosedItem(item: string): boolean {
+  if (item.length > 240 || STILL_OPEN.test(item)) return false;
+  LEADER.lastIndex = 0;
+  const leader = LEADER.exec(item);
+  if (leader === null) return false;
+  const status = item.slice(leader.index + leader[0].length);
+  // After a dash the status is short ("#2 hall GFCI -- replaced, tests ok"); a longer text after a
+  // dash is the item's description ("Kitchen - the receptacle ... is cracked. Counter GFCIs tested ok.").
+  if (!leader[0].includes('.') && status.length > MAX_DASH_STATUS) return CLOSED_WORD.test(status);
+  return CLOSED_WORD.test(status) || CLOSED_END.test(status);
+}
