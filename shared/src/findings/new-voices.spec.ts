@@ -98,6 +98,11 @@ describe('re-inspection notes: an item put right reports nothing (common practic
     expect(read('#4 garage switch loose -- fixed')).toEqual([]);
   });
 
+  it('drops the closed lines of a re-inspection list read as one block and keeps the open ones', () => {
+    const text = ['Items from the first report:', '  P3  Loose switch, den ........ switch replaced. CLOSED', '  P4  Attic J-box no cover ...... STILL OPEN'].join('\n');
+    expect(read(text)).toEqual([['open-junction-box', 'attic', 1]]);
+  });
+
   it('keeps an item that is still open', () => {
     expect(read('Item 8   Attic J-box no cover ........... still open')).toEqual([['open-junction-box', 'attic', 1]]);
   });
@@ -116,5 +121,23 @@ describe('outdoor cables and waterfront places', () => {
 
   it('reads a dock, a boat lift or a well head as outside (common practice)', () => {
     expect(read('The receptacle on the dock is not GFCI protected.')).toEqual([['gfci-missing', 'exterior', 1]]);
+  });
+});
+
+describe('Spanish-influenced English (common practice in bilingual reports)', () => {
+  it('reads Spanish room words ("cocina", "recamara", "pasillo", "sotano")', () => {
+    expect(read('En la cocina, the receptacle by the sink is cracked.')).toEqual([['receptacle-damaged', 'kitchen', 1]]);
+    expect(read('Pasillo: the smoke alarm is missing.')).toEqual([['smoke-co-alarm', 'hallway', 1]]);
+  });
+
+  it('reads Spanish trade words for a condition or a device ("quemado", "suelto", "tapa", "apagador")', () => {
+    expect(read('Recamara 2: the outlet by the bed is quemado.')).toEqual([['receptacle-damaged', 'bedroom', 1]]);
+    expect(read('In the garage the apagador by the door is suelto in the wall.')).toEqual([['switch-issue', 'garage', 1]]);
+  });
+});
+
+describe('shorthand', () => {
+  it('reads "JB" as a junction box', () => {
+    expect(read('Crawl space: JB with no cover, splices showing.')).toEqual([['open-junction-box', 'crawl-space', 1]]);
   });
 });

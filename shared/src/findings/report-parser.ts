@@ -2,7 +2,7 @@ import { readBlock } from './block-findings';
 import { splitBlocks } from './block-splitter';
 import { CODE_RULES } from './code-patterns';
 import { findingCodeInfo, type FindingCode } from './finding-code';
-import { isClosedItem } from './item-status';
+import { withoutClosedItems } from './item-status';
 import { findRooms } from './room-lexicon';
 import type { Room } from './room';
 import type { Finding, ParseResult, SkippedText } from './finding.schema';
@@ -66,7 +66,8 @@ export function parseReport(pages: readonly string[]): ParseResult {
       continue;
     }
     // An earlier report's item that a re-inspection marks as put right ("... corrected", "CLOSED") reports nothing.
-    const result = isClosedItem(block.text.text) ? { findings: [], hasNegated: true } : readBlock(block.text, block.section, block.rowCounts);
+    const open = withoutClosedItems(block.text);
+    const result = open === null ? { findings: [], hasNegated: true } : readBlock(open, block.section, block.rowCounts);
     if (result.findings.length === 0) {
       const suggestion = result.hasNegated ? null : suggestItem(block.text.text, block.section.room);
       if (suggestion) {
