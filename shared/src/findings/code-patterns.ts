@@ -264,6 +264,9 @@ export const CODE_RULES: readonly CodeRule[] = [
     defaultRoom: 'exterior',
     patterns: [
       { re: rx`(?:${T.NO}|${T.BROKEN})\s+(?:(?:an?|the|its|their|proper|required)\s+)?(?:(?:wr|wp|weather[- ]resistant|weather[- ]?proof)\s*\/\s*)?(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant|[- ]tight)?|wp|wr|exterior|outdoor)[- ]?(?:rated\s+)?(?:covers?|cover plates?|enclosures?|hoods?|lids?|flaps?)` },
+      // The same with a bracketed aside after it ("no in-use cover (the old flip lid is gone)"): the aside
+      // speaks of the cover that is missing, not of another cover.
+      { re: rx`(?:${T.NO})\s+(?:(?:an?|the|its|their|proper|required)\s+)?(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant|[- ]tight)?|wp|wr)[- ]?(?:rated\s+)?(?:covers?|hoods?|lids?)\s*\([^()]{1,60}\)` },
       // Common practice (NFPA 70 (NEC) 2023, 406.9(B)(1)): an outdoor receptacle in a wet location has a cover that is weatherproof with a plug in; a flat cover is not.
       { re: rx`(?:only\s+(?:a\s+)?)?flat\s+${gap(2)}(?:covers?|lids?)(?:\s+only)?`, context: /in[- ]use|bubble|weather|exterior|outdoor|patio|porch|deck|while (?:a cord is )?(?:plugged|in use)/i },
       { re: rx`(?:covers?|lids?)\s+${gap(3)}(?:${T.BE})?broken off` },
@@ -496,6 +499,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'switch-issue',
     trigger: /switch|toggle|rocker|paddle|dimmer/i,
     patterns: [
+      // A switch whose purpose the inspector could not find ("a switch by the sink that I could not find a purpose for"; common practice).
+      { re: rx`${T.SWITCH}\s+${anyGap(10)}(?:(?:could\s?n[o']t|can\s?n[o']t|cannot|unable to|did\s?n[o']t|was not able to)\s+(?:find|determine|identify|tell|work out|figure out)\s+(?:a|any|its|the|what)\s+(?:purpose|function|use)|(?:purpose|function)\s+(?:is\s+|was\s+|remains\s+)?(?:unknown|undetermined|not (?:known|determined|found)))` },
       { re: rx`${T.SWITCH}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|(?:warm|hot) to the touch|warm|hot|sparks?|sparking|arcing|${T.FAILED} (?:operate|work|respond|control))` },
       { re: rx`${T.SWITCH}\s+${gap(7)}(?:(?:has|have|had|of|with|serves?)\s+)?(?:an?\s+)?(?:unknown|no known|undetermined|unclear) (?:function|purpose|use)` },
       { re: rx`(?:function|purpose) of (?:the |a |an )?${gap(2)}${T.SWITCH}\s+${gap(5)}${T.BE}(?:unknown|unclear|undetermined|not determined|could not be determined)` },
@@ -582,6 +587,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:evaluat|review|inspect|assess|examin|diagnos|correct|repair)\w*\s+${anyGap(8)}(?:by|from)\s+(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)s?`, unless: REFERS_TO_OTHERS_ONLY },
       { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check|go (?:through|over)|look (?:over|through))`, unless: REFERS_TO_OTHERS_ONLY },
       { re: rx`(?:consult|contact|hire|engage|retain|call)\s+(?:with\s+)?(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)`, unless: /\bif\b|\bany\b/i },
+      // "recommend a licensed electrician do a full evaluation of the whole system" (common practice).
+      { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(3)}(?:do|perform|make|conduct|carry out|complete|provide)\s+(?:a|an)\s+(?:[\w-]+\s+){0,2}?(?:evaluation|review|inspection|assessment)`, unless: REFERS_TO_OTHERS_ONLY },
     ],
   },
 ];

@@ -141,3 +141,36 @@ describe('shorthand', () => {
     expect(read('Crawl space: JB with no cover, splices showing.')).toEqual([['open-junction-box', 'crawl-space', 1]]);
   });
 });
+
+describe('summaries with references to the body (common practice: "(see 5.2)", "(E.3)")', () => {
+  it('merges summary lines that point to an item with the items after them under the same heading', () => {
+    const text = [
+      'ELECTRICAL SUMMARY',
+      '  - Hall receptacle cracked (E.1)',
+      '  - Garage GFCI does not trip (E.2)',
+      '',
+      'E.1 Hall: The receptacle by the linen closet is cracked across the face.',
+      '',
+      'E.2 Garage: The GFCI receptacle by the side door does not trip with its test button.',
+    ].join('\n');
+    expect(read(text)).toEqual([
+      ['receptacle-damaged', 'hallway', 1],
+      ['gfci-inoperative', 'garage', 1],
+    ]);
+  });
+});
+
+describe('letters to the buyer: longer wordings', () => {
+  it('reads a switch whose purpose could not be found as a switch defect (common practice)', () => {
+    expect(read('Upstairs, there is a switch beside the bathroom door that we could not determine a purpose for.')).toEqual([['switch-issue', 'bathroom', 1]]);
+    expect(read('Garage switch by the attic ladder - function unknown.')).toEqual([['switch-issue', 'garage', 1]]);
+  });
+
+  it('reads a missing in-use cover with a bracketed aside as one weather-cover finding (NFPA 70 (NEC) 2023, 406.9(B)(1))', () => {
+    expect(read('The porch receptacle has no bubble cover (only the hinge is left) and faces the rain.')).toEqual([['weather-cover-missing', 'exterior', 1]]);
+  });
+
+  it('reads "have an electrician perform a complete evaluation" as a general evaluation (common practice)', () => {
+    expect(read('We suggest an electrician perform a complete evaluation of the system.')).toEqual([['evaluate-general', 'whole-house', null]]);
+  });
+});

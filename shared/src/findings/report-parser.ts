@@ -47,6 +47,8 @@ export function parseReport(pages: readonly string[]): ParseResult {
   // Per finding: a follow-up with no place of its own (a recommendation, or the defect named again as "This is ...").
   const isFollowUp: boolean[] = [];
   const sectionOf: Array<string | null> = [];
+  // Per finding: a list item that points to where the report describes it ("... (see 4.3)").
+  const crossRef: boolean[] = [];
   const skipped: SkippedText[] = [];
 
   for (const block of splitBlocks(joined)) {
@@ -84,6 +86,7 @@ export function parseReport(pages: readonly string[]): ParseResult {
       const range = sourceRange(f.sentence);
       const info = findingCodeInfo(f.code);
       inSummary.push(block.section.title !== null && SUMMARY_HEADING.test(block.section.title));
+      crossRef.push(isCrossReference(joined.slice(range.start, range.end)));
       isFollowUp.push(allFollowUps);
       sectionOf.push(block.section.title);
       findings.push({
@@ -104,7 +107,28 @@ export function parseReport(pages: readonly string[]): ParseResult {
     }
   }
   const kept = dropFollowUps(findings, isFollowUp, sectionOf);
-  return { findings: mergeWiringMentions(mergeSummary(dropTitles(kept.findings, joined), kept.inSummary(inSummary))), skipped };
+  const summaryFlags = withCrossReferences(inSummary, crossRef, sectionOf);
+  return { findings: mergeWiringMentions(mergeSummary(dropTitles(kept.findings, joined), kept.inSummary(summaryFlags))), skipped };
+}
+
+/**
+ * A list item that points to where the report describes it ("Open grounds, dining room (E.4)",
+ * "Garage GFCI does not trip (see 4.6)") is a summary line; when a report's summary items carry such
+ * references, the items after the last such one are the body the references point to, even under the
+ * summary heading (the body's items were never given a heading of their own).
+ */
+const CROSS_REFERENCE = /\((?:(?:see|ref\.?|refer to|item|section|sec\.?|§)\s*(?:[a-z]{1,3}[-.]?)?\d{1,2}(?:\.\d{1,2}){0,2}|[a-z]{1,3}[-.]\d{1,2}(?:\.\d{1,2})?|\d{1,2}\.\d{1,2}(?:\.\d{1,2})?)\)\s*[.;]?\s*$/i;
+function isCrossReference(evidence: string): boolean {
+  return evidence.length <= 160 && CROSS_REFERENCE.test(evidence);
+}
+function withCrossReferences(inSummary: readonly boolean[], crossRef: readonly boolean[], sectionOf: ReadonlyArray<string | null>): boolean[] {
+  if (crossRef.filter(Boolean).length < 2) return [...inSummary];
+  return inSummary.map((summary, i) => {
+    if (!summary) return false;
+    // Under a summary heading: the items after the last one with a reference are the body.
+    const lastRef = crossRef.reduce((last, c, j) => (c && sectionOf[j] === sectionOf[i] ? j : last), -1);
+    return crossRef[i] || lastRef < 0 || i < lastRef;
+  });
 }
 
 /** A sentence that names the defect just described again ("This is a false ground.", "False ground.") or only says what to do. */
