@@ -1,3 +1,4 @@
+import { csvCells, isNonElectricalCsvRow } from './csv-row';
 import type { SectionKind } from './finding.schema';
 import { MappedTextBuilder, sourceRange, type MappedText } from './mapped-text';
 import type { Room } from './room';
@@ -45,7 +46,7 @@ function tableCells(line: string): string[] | null {
   if (trimmed.includes('|')) cells = trimmed.replace(/^\|/, '').replace(/\|$/, '').split('|');
   else if (trimmed.includes('\t')) cells = trimmed.split('\t');
   else if (/\S {3,}\S/.test(trimmed)) cells = trimmed.split(/ {3,}/);
-  else return null;
+  else return csvCells(trimmed);
   cells = cells.map((c) => c.trim());
   return cells.length >= 3 ? cells : null;
 }
@@ -169,7 +170,8 @@ export function splitBlocks(joined: string): Block[] {
       }
       continue;
     }
-    const label = inlineNonElectricalLabel(content);
+    const csv = csvCells(content);
+    const label = csv && isNonElectricalCsvRow(csv) ? 'non-electrical row' : inlineNonElectricalLabel(content);
     if (label !== null) {
       open(line, line.start, { kind: 'non-electrical', title: label, room: null });
       close();
@@ -245,5 +247,5 @@ function joinLine(builder: MappedTextBuilder, prev: Line, next: Line, shortLine:
 
 /** A row of a table export: pipe-separated, or fixed-width columns (runs of 3+ spaces between words). */
 function isTableRow(line: string): boolean {
-  return /\S\s*\|\s*\S/.test(line) || /\S {3,}\S/.test(line.trim());
+  return /\S\s*\|\s*\S/.test(line) || /\S {3,}\S/.test(line.trim()) || csvCells(line) !== null;
 }

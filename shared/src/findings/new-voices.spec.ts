@@ -1,3 +1,4 @@
+import { csvCells } from './csv-row';
 import { parseText } from './report-parser';
 
 /** (code, room, quantity) of every finding. */
@@ -172,5 +173,33 @@ describe('letters to the buyer: longer wordings', () => {
 
   it('reads "have an electrician perform a complete evaluation" as a general evaluation (common practice)', () => {
     expect(read('We suggest an electrician perform a complete evaluation of the system.')).toEqual([['evaluate-general', 'whole-house', null]]);
+  });
+});
+
+describe('spreadsheet exports pasted as comma-separated rows (common practice)', () => {
+  const csv = [
+    'Area,System,Item,Finding,Action,Qty',
+    'Roof,Roofing,Flashing,"Loose at chimney, sealant cracked","Roofer to repair",',
+    'Garage,Electrical,Receptacles,"Not GFCI protected, tested with tester","Add GFCI protection",3',
+    'Hall bath,Electrical,Fan/light,"Light fixture inoperative, new bulb tried","Electrician to repair",1',
+  ].join('\n');
+
+  it('reads each row as a table row, its quantity column as the count', () => {
+    expect(read(csv)).toEqual([
+      ['gfci-missing', 'garage', 3],
+      ['light-fixture', 'bathroom', 1],
+    ]);
+  });
+
+  it('keeps the evidence of a row exact', () => {
+    const [f] = parseText(csv).findings;
+    expect(csv.slice(f.start, f.end)).toBe(f.evidence);
+    expect(f.evidence.startsWith('Garage,Electrical,Receptacles,')).toBe(true);
+  });
+
+  it('does not take prose with commas for a row', () => {
+    expect(csvCells('Kitchen, dining room, hall, and den receptacles are cracked.')).toBeNull();
+    expect(csvCells('Rust,corrosion,and,water were seen')).toBeNull();
+    expect(csvCells('Garage,Electrical,Receptacles,"Not GFCI protected",3')).toEqual(['Garage', 'Electrical', 'Receptacles', 'Not GFCI protected', '3']);
   });
 });
