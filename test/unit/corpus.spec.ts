@@ -17,12 +17,14 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // recall 0.902, F1 0.908 and quantity 0.939 (2026-12-04, when G joined after its untuned score was
 // recorded in docs/parser.md; before G joined the floors were P 0.945, R 0.93, F1 0.937, quantity
 // 0.954). The floors were reset to those figures because the corpus changed, not the parser.
+// The sixth round (new voices, batch G) raised them to the corpus's exact figures then, rounded down
+// (precision 0.9236, recall 0.9151, F1 0.9193, quantity 0.9407).
 // The goal is 0.95 on each; raise these floors as the parser gets there, never lower them for the
 // same corpus.
-const MIN_PRECISION = 0.913;
-const MIN_RECALL = 0.901;
-const MIN_F1 = 0.907;
-const MIN_QUANTITY = 0.938;
+const MIN_PRECISION = 0.923;
+const MIN_RECALL = 0.915;
+const MIN_F1 = 0.919;
+const MIN_QUANTITY = 0.94;
 
 describe('report parser corpus', () => {
   let run: BatchRun;

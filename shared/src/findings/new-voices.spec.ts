@@ -29,6 +29,12 @@ describe('computed overcurrent: conductor sizes written other ways (NFPA 70 (NEC
     expect(read('The well pump is on a 20 A two-pole breaker in the shop panel. The wires on that breaker are #12 aluminum.')).toEqual([['overcurrent-mismatch', 'panel', 1]]);
   });
 
+  it('checks the rows of a panel schedule whose columns are named once above', () => {
+    const schedule = ['Panel schedule:', '  Ckt   Amps   Wire     Serves', '  2     15 A   #14 Cu   Bedroom lights', '  4     30 A   #12 Cu   Shop bench circuit'].join('\n');
+    // 240.4(D)(5): 12 AWG copper, 20 A at most; the 15 A breaker on 14 AWG copper is within 240.4(D)(3).
+    expect(read(schedule)).toEqual([['overcurrent-mismatch', 'panel', 1]]);
+  });
+
   it('does not read a size without a reference back to the rated breaker', () => {
     expect(read('The well pump is on a 20 A two-pole breaker. Lighting circuits elsewhere are #14 copper.')).toEqual([]);
   });

@@ -112,7 +112,7 @@ const nameplateCheck = (rating: number, limit: number, at: Range): OvercurrentCh
 });
 
 export function checkOvercurrent(text: string, carried: CarriedRatings | null = null): OvercurrentCheck[] {
-  if (!DEVICE.test(text) && !/\bfus|\bbreak|\bnameplate|\bmax|\binstalled/i.test(text)) return [];
+  if (!DEVICE.test(text) && !/\bfus|\bbreak|\bnameplate|\bmax|\binstalled/i.test(text) && !isScheduleRow(text)) return [];
   const nameplates = mentions(NAMEPLATE, text);
   // "The data plate lists max breaker 30 A. The breaker at the disconnect is 45 A." (or the other
   // way round): the nameplate and the device's rating in two sentences of one block.
@@ -186,4 +186,15 @@ function carriedRatingCheck(text: string, rating: number): OvercurrentCheck[] {
   const limit = SMALL_CONDUCTOR_LIMITS[metal][size.value];
   if (limit === undefined || rating <= limit) return [];
   return [{ start: size.start, end: size.end, computation: `${rating} A ${/fuse/i.test(text) ? 'fuse' : 'breaker'} on ${size.value} AWG ${metal}; NEC 240.4(D) allows ${limit} A` }];
+}
+
+/**
+ * A row of a panel schedule ("7   20 A   12 AWG aluminum   Bedrooms"): a short line that gives a
+ * circuit's rating and its conductor and names no device, the columns having been named once above.
+ */
+const SCHEDULE_ROW_MAX = 90;
+function isScheduleRow(text: string): boolean {
+  if (text.length > SCHEDULE_ROW_MAX || /[.!?]\s+\S/.test(text)) return false;
+  const ratings = mentions(RATING, text);
+  return ratings.length === 1 && ratings[0].value < 100 && conductorSizes(text).length === 1;
 }
