@@ -12,20 +12,18 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // as test/corpus/manifest.json says: as text, or laid out in a real PDF (running header and footer,
 // or two columns) and read back through the project's PDF text extraction.
 // Scores match findings by (code, room) as a multiset.
-// A ratchet, not the goal: with the independent writers' excerpts (201-255, A+B 101-160, C 301-360,
-// D 401-460, E 501-566, then F 601-666) in the corpus, the whole corpus scores precision 0.9397,
-// recall 0.9206, F1 0.930 and quantity 0.932 (2026-12-04, when F joined after its two untuned scores
-// were recorded in docs/parser.md; before F joined the floors were P 0.945, R 0.93, F1 0.937,
-// quantity 0.954). The floors were reset to those figures because the corpus changed, not the parser.
-// The goal is 0.95 on each; raise these floors as the parser gets there, never lower them for the
-// same corpus. Sixth round (2026-12-04): 242 older quantity labels were brought to issue 10's rule
-// (test/corpus/batches/quantity-labels-2026-12-04.md) and the parser follows it; at the round's end
-// the corpus scores precision 0.94228, recall 0.93588, F1 0.93907, quantity 0.97323 (floors below,
-// rounded down).
-const MIN_PRECISION = 0.9422;
-const MIN_RECALL = 0.9358;
-const MIN_F1 = 0.939;
-const MIN_QUANTITY = 0.9732;
+// A ratchet, not the goal: with the independent writers' excerpts (A+B 101-160, 201-255, C 301-360,
+// D 401-460, E 501-566, F 601-666, G 701-766) in the corpus. Sixth round (2026-12-04): 242 older
+// quantity labels were brought to issue 10's rule (test/corpus/batches/quantity-labels-2026-12-04.md),
+// F and G joined the tuning set after their untuned scores were recorded in docs/parser.md, and the
+// two rounds tuned on them were merged: the whole corpus then scores precision 92.4 %, recall 92.3 %,
+// F1 92.3 %, quantity 97.1 % (floors below, rounded down; reset because the corpus changed, before
+// the merge the F round's corpus held 0.9422 / 0.9358 / 0.939 / 0.9732 without G). The goal is 0.95
+// on each; raise these floors as the parser gets there, never lower them for the same corpus.
+const MIN_PRECISION = 0.923;
+const MIN_RECALL = 0.922;
+const MIN_F1 = 0.922;
+const MIN_QUANTITY = 0.97;
 
 describe('report parser corpus', () => {
   let run: BatchRun;

@@ -12,6 +12,7 @@ import type { Room } from './room';
 import { lastPlaceMention, placeMatches, POINTS_TO_PLACE } from './room-resolver';
 import type { RowCount, Section } from './block-splitter';
 import { splitSentences } from './sentence-splitter';
+import { readSpokenPunctuation } from './spoken-punctuation';
 import { normaliseText } from './text-normaliser';
 import type { Confidence } from './finding.schema';
 
@@ -102,7 +103,7 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
 
   // A nameplate maximum stated without a rating beside it: the next sentence may give the rating.
   let ratings: CarriedRatings | null = null;
-  splitSentences(text).forEach((source, sentenceIndex) => {
+  splitSentences(readSpokenPunctuation(text)).forEach((source, sentenceIndex) => {
     const written = rowCounts.length > 0 ? blankItemNumbers(source, rowCounts) : source;
     const sentence = normaliseText(written);
     const matches = matchCodes(sentence.text, { carried: ratings });

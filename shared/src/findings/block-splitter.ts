@@ -1,3 +1,4 @@
+import { csvCells, isNonElectricalCsvRow } from './csv-row';
 import type { SectionKind } from './finding.schema';
 import { MappedTextBuilder, sourceRange, type MappedText } from './mapped-text';
 import type { Room } from './room';
@@ -45,7 +46,7 @@ function tableCells(line: string): string[] | null {
   if (trimmed.includes('|')) cells = trimmed.replace(/^\|/, '').replace(/\|$/, '').split('|');
   else if (trimmed.includes('\t')) cells = trimmed.split('\t');
   else if (trimmed.includes('   ') && /\S {3,}\S/.test(trimmed)) cells = trimmed.split(/ {3,}/);
-  else return null;
+  else return csvCells(trimmed);
   cells = cells.map((c) => c.trim());
   return cells.length >= 3 ? cells : null;
 }
@@ -56,7 +57,7 @@ interface Line {
   readonly text: string;
 }
 
-const ITEM_MARKER = /^\s*(?:\d{1,3}(?:\.\d{1,3})+\.?|\d{1,3}[.)]|[a-h][.)]|item\s+\d{1,3}\s*[:.)-]|\[\d{1,3}\]|[-•*‣▪◦●·–—>]|(?:\[\s?[x ]?\]\s*){1,6})\s+/i;
+const ITEM_MARKER = /^\s*(?:\d{1,3}(?:\.\d{1,3})+\.?|\d{1,3}[.)]|[a-h][.)]|item\s+\d{1,3}\s*[:.)-]|\[\d{1,3}\]|\[\s*(?:photos?|pics?|images?|img|fig\.?|figure)\s*#?\s*\d{1,3}[a-z]?\s*\]|(?:photos?|pics?|images?|img)\s*#?\s*\d{1,3}[a-z]?\s*[:.)-]|[a-z]{1,3}[-.]\d{1,3}[.):]?|#\d{1,3}(?![\d.]|\s*(?:awg|ga\b|gauge|cu\b|al\b|copper|alum|wires?\b|conductors?\b|thhn|nm\b|solid|strand))|[-•*‣▪◦●·–—>]|(?:\[\s?[x ]?\]\s*){1,6})\s+/i;
 const NOISE_LINE = /^(?:[|+:=\s-]{3,}|.{0,80}\bpage\s+\d+(?:\s*(?:of|\/)\s*\d+)?|-{1,2}\s*\d+\s+of\s+\d+\s*-{1,2}|\d+\s*\/\s*\d+)\s*$/i;
 const CONNECTOR_END = /(?:[,;&/-]|\b(?:and|or|the|a|an|at|of|to|with|in|on|for|by|from|is|are|was|were|not|no))$/i;
 /** A checklist line that ends in its answer ("GFCI at exterior: No"). */
@@ -170,7 +171,8 @@ export function splitBlocks(joined: string): Block[] {
       }
       continue;
     }
-    const label = inlineNonElectricalLabel(content);
+    const csv = csvCells(content);
+    const label = csv && isNonElectricalCsvRow(csv) ? 'non-electrical row' : inlineNonElectricalLabel(content);
     if (label !== null) {
       open(line, line.start, { kind: 'non-electrical', title: label, room: null });
       close();
@@ -247,5 +249,5 @@ function joinLine(builder: MappedTextBuilder, prev: Line, next: Line, shortLine:
 /** A row of a table export: pipe-separated, or fixed-width columns (runs of 3+ spaces between words). */
 function isTableRow(line: string): boolean {
   // The literal each expression needs is looked for first (a plain search is much cheaper).
-  return (line.includes('|') && /\S\s*\|\s*\S/.test(line)) || (line.includes('   ') && /\S {3,}\S/.test(line.trim()));
+  return (line.includes('|') && /\S\s*\|\s*\S/.test(line)) || (line.includes('   ') && /\S {3,}\S/.test(line.trim())) || csvCells(line) !== null;
 }

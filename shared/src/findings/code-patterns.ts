@@ -63,6 +63,8 @@ const SWITCH_GAP = String.raw`(?:(?!${'(?:switch|light|fixture|receptacle|outlet
 /** A switch or dimmer named by the light it controls ("the dimmer for the chandelier is hot"): the switch is the subject. */
 const SWITCH_FOR_LIGHT = /\b(?:switch(?:es)?|dimmers?)\s+(?:that\s+)?(?:for|controlling|controls|serving|operating)\b/i;
 /** A flexible cord: extension, lamp or zip cord. */
+/** A cable made to run under ground or outdoors: what is wrong with it is its exposure (common practice). */
+const OUTDOOR_CABLE = String.raw`(?:(?:uf|underground|direct[- ]burial|feeder|(?:well\s+|submersible\s+)?pump|well|(?:boat\s+)?lift|dock|outdoor|exterior|yard|landscape)\s+(?:\w+\s+)?(?:cables?|wir(?:e|es|ing)|conductors?|feeders?)\b)`;
 const FLEX_CORD = String.raw`(?:extension|lamp|zip|flexible|appliance)\s+cords?`;
 const RECOMMEND = String.raw`(?:recommend(?:ed|s|ing)?|suggest(?:ed)?|should (?:be|have)|install(?:ing|ed)?|upgrad(?:e|ed|ing) to|add(?:ing)?|need(?:s|ed)?|requires?|consider(?:ing)?|have the)`;
 /** Words that turn a recommendation into one about an existing device (replace, test, reset). */
@@ -264,6 +266,9 @@ export const CODE_RULES: readonly CodeRule[] = [
     defaultRoom: 'exterior',
     patterns: [
       { re: rx`(?:${T.NO}|${T.BROKEN})\s+(?:(?:an?|the|its|their|proper|required)\s+)?(?:(?:wr|wp|weather[- ]resistant|weather[- ]?proof)\s*\/\s*)?(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant|[- ]tight)?|wp|wr|exterior|outdoor)[- ]?(?:rated\s+)?(?:covers?|cover plates?|enclosures?|hoods?|lids?|flaps?)` },
+      // The same with a bracketed aside after it ("no in-use cover (the old flip lid is gone)"): the aside
+      // speaks of the cover that is missing, not of another cover.
+      { re: rx`(?:${T.NO})\s+(?:(?:an?|the|its|their|proper|required)\s+)?(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant|[- ]tight)?|wp|wr)[- ]?(?:rated\s+)?(?:covers?|hoods?|lids?)\s*\([^()]{1,60}\)` },
       // Common practice (NFPA 70 (NEC) 2023, 406.9(B)(1)): an outdoor receptacle in a wet location has a cover that is weatherproof with a plug in; a flat cover is not.
       { re: rx`(?:only\s+(?:a\s+)?)?flat\s+${gap(2)}(?:covers?|lids?)(?:\s+only)?`, context: /in[- ]use|bubble|weather|exterior|outdoor|patio|porch|deck|while (?:a cord is )?(?:plugged|in use)/i },
       { re: rx`(?:covers?|lids?)\s+${gap(3)}(?:${T.BE})?broken off` },
@@ -321,6 +326,10 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:used|using|uses|plugged in(?:\s?to)?|powered by|connected to|on|fed by|fed from|through)\s+(?:an?\s+|the\s+)?${ADJ_GAP}extension cords?` },
       { re: rx`(?:uf|nm|underground|feeder|branch|direct[- ]burial)?\s*${T.WIRING}\s+${gap(6)}(?:${T.BE}|(?:has|have)\s+(?:simply\s+)?been\s+)?(?:lies|lying|laid|laying|lays|rests?|resting|run|strung|draped)\s+(?:directly\s+)?(?:on|across|along|on top of)\s+(?:the\s+)?(?:surface of the\s+)?(?:ground|dirt|soil|grass|lawn|yard|floor|crawl ?space floor)\b` },
       { re: rx`(?:permanent|fixed)\s+(?:use of\s+)?extension cords?` },
+      // A cable that belongs under ground or in conduit outdoors (a feeder, UF, a pump or lift cable)
+      // lying on the surface or with no conduit (NFPA 70 (NEC) 2023, 300.5(A) burial and 300.5(D) protection; 340.10).
+      { re: rx`${OUTDOOR_CABLE}\s+${anyGap(12)}(?:lies|lying|laid|laying|runs?|running|strung|draped|rests?|resting|sits?|comes? up)\s+(?:\w+\s+){0,3}?(?:on|across|along|over|out of)\s+(?:the\s+)?(?:surface of the\s+|top of the\s+)?(?:ground|grade|rocks?|surface|walkway|dock|bank|gravel|lawn|yard|dirt)\b` },
+      { re: rx`${OUTDOOR_CABLE}\s+${anyGap(12)}(?:(?:is\s+|are\s+)?not\s+(?:in|inside|sleeved in|protected by)\s+(?:a\s+)?conduit|(?:with\s+)?no\s+(?:conduit|burial|sleeve)|(?:is\s+|are\s+)?not\s+(?:buried|sleeved)|unburied|above ground)` },
       // Cable across the top of joists near an attic opening needs guard strips or running boards (NFPA 70 (NEC) 2023, 334.23 and 320.23(A)).
       { re: rx`(?:nm|romex|sheathed)?\s*cables?\s+${anyGap(16)}(?:no|without)\s+(?:running boards?|guard strips?)` },
       // A cable and its condition in the same clause with other words between ("NM cable to the
@@ -507,6 +516,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     code: 'switch-issue',
     trigger: /switch|toggle|rocker|paddle|dimmer/i,
     patterns: [
+      // A switch whose purpose the inspector could not find ("a switch by the sink that I could not find a purpose for"; common practice).
+      { re: rx`${T.SWITCH}\s+${anyGap(10)}(?:(?:could\s?n[o']t|can\s?n[o']t|cannot|unable to|did\s?n[o']t|was not able to)\s+(?:find|determine|identify|tell|work out|figure out)\s+(?:a|any|its|the|what)\s+(?:purpose|function|use)|(?:purpose|function)\s+(?:is\s+|was\s+|remains\s+)?(?:unknown|undetermined|not (?:known|determined|found)))` },
       { re: rx`${T.SWITCH}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|broken|damaged|cracked|(?:warm|hot) to the touch|warm|hot|sparks?|sparking|arcs?\b(?![- ]fault)|arcing|${T.FAILED} (?:operate|work|respond|control))` },
       { re: rx`${T.SWITCH}\s+${gap(7)}(?:(?:has|have|had|of|with|serves?)\s+)?(?:an?\s+)?(?:unknown|no known|undetermined|unclear) (?:function|purpose|use)` },
       { re: rx`(?:function|purpose) of (?:the |a |an )?${gap(2)}${T.SWITCH}\s+${gap(5)}${T.BE}(?:unknown|unclear|undetermined|not determined|could not be determined)` },
@@ -607,6 +618,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       // "a licensed electrician perform a complete evaluation of the system": the noun as well as the verb.
       { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(4)}(?:evaluate|review|inspect|assess|examine|diagnose|check|go (?:through|over)|look (?:over|through)|walk (?:through\s+)?(?:the\s+)?(?:whole|entire|electrical)|(?:perform|conduct|do|make|provide)\s+(?:an?\s+)?(?:(?:full|complete|thorough|comprehensive|further)\s+)?(?:evaluation|review|inspection|assessment))`, unless: REFERS_TO_OTHERS_ONLY },
       { re: rx`(?:consult|contact|hire|engage|retain|call)\s+(?:with\s+)?(?:a|an)\s+${anyGap(3)}(?:electrician|electrical contractor)`, unless: /\bif\b|\bany\b/i },
+      // "recommend a licensed electrician do a full evaluation of the whole system" (common practice).
+      { re: rx`(?:electrician|electrical contractor)s?\s+${anyGap(3)}(?:do|perform|make|conduct|carry out|complete|provide)\s+(?:a|an)\s+(?:[\w-]+\s+){0,2}?(?:evaluation|review|inspection|assessment)`, unless: REFERS_TO_OTHERS_ONLY },
     ],
   },
 ];

@@ -126,7 +126,7 @@ const nameplateCheck = (rating: number, limit: number, at: Range): OvercurrentCh
 const RATING_ON_SIZE = /(?<![\w.])\d{2}\s?-?a(?:mps?)?\s+(?:(?:on|w\/|with)\s+)?\d{1,2}\s?awg\b/i;
 
 export function checkOvercurrent(text: string, carried: CarriedRatings | null = null): OvercurrentCheck[] {
-  if (!DEVICE.test(text) && !/\bfus|\bbreak|\bnameplate|\bmax|\binstalled/i.test(text) && !RATING_ON_SIZE.test(text)) return [];
+  if (!DEVICE.test(text) && !/\bfus|\bbreak|\bnameplate|\bmax|\binstalled/i.test(text) && !RATING_ON_SIZE.test(text) && !isScheduleRow(text)) return [];
   const nameplates = nameplateMentions(text);
   // "The data plate lists max breaker 30 A. The breaker at the disconnect is 45 A." (or the other
   // way round): the nameplate and the device's rating in two sentences of one block.
@@ -137,8 +137,8 @@ export function checkOvercurrent(text: string, carried: CarriedRatings | null = 
   const unpaired = nameplates.length > 0 && mentions(RATING, text).every((r) => nameplates.some((n) => r.start >= n.start && r.end <= n.end));
   if (unpaired && carried?.rating != null && carried.rating > nameplates[0].value) return [nameplateCheck(carried.rating, nameplates[0].value, nameplates[0])];
   const ratings = mentions(RATING, text).filter((r) => !nameplates.some((n) => r.start >= n.start && r.end <= n.end));
-  if (ratings.length === 0) return [];
-  const sizes = mentions(SIZE, text);
+  if (ratings.length === 0) return carried?.rating != null && nameplates.length === 0 ? carriedRatingCheck(text, carried.rating) : [];
+  const sizes = conductorSizes(text);
   const found: OvercurrentCheck[] = [];
   for (const rating of ratings) {
     const nameplate = nameplates.find((n) => Math.abs(n.start - rating.end) <= 120 || Math.abs(rating.start - n.end) <= 120);
@@ -166,4 +166,49 @@ export function checkOvercurrent(text: string, carried: CarriedRatings | null = 
     });
   }
   return found;
+}
+
+/**
+ * Conductor sizes said other ways than "12 AWG": a cable's size and conductor count ("10/3 UF",
+ * "12-2 NM", "14/2 w/g"; common practice: the first number is the AWG size) and a spoken or written
+ * "number 12 copper" / "No. 10 wire".
+ */
+const CABLE_SIZE = /(?<![\w./-])(14|12|10|8|6)\s?[/-]\s?[234](?![\d/.])(?:\s?(?:w\/?\s?g(?:round|rd|nd)?|with ground))?(?=\s|,|;|\)|$)(?!\s*(?:a|amps?|v|volts?|ft|feet|inch|in\.|years?|yrs?)\b)/gi;
+const NUMBER_SIZE = /\b(?:number|num\.?|no\.?)\s(14|12|10|8|6)\s(?=(?:(?:solid|stranded|thhn|thwn|aluminum|copper)\s)*(?:aluminum|copper|wires?|conductors?|cable|nm|uf)\b)/gi;
+
+function conductorSizes(text: string): Mention[] {
+  const sizes = mentions(SIZE, text);
+  for (const re of [CABLE_SIZE, NUMBER_SIZE]) {
+    for (const m of mentions(re, text)) if (!sizes.some((s) => s.start < m.end && m.start < s.end)) sizes.push(m);
+  }
+  return sizes.sort((a, b) => a.start - b.start);
+}
+
+/** A sentence that speaks of the device just named ("The conductors on that breaker are 12 AWG copper."). */
+const BACK_TO_DEVICE = /\b(?:that|this|the same|its|those|these)\s+(?:\w+\s+)?(?:breaker|fuse|circuit|conductors?|wires?|wiring|cable)\b|^\s*(?:it|they|the (?:conductors?|wires?|wiring|cable))\b/i;
+
+/**
+ * The conductors of the device the sentence before rated: "The lift motor is on a 30 A breaker.
+ * The conductors landed on that breaker are 12 AWG copper." (NEC 240.4(D) as above).
+ */
+function carriedRatingCheck(text: string, rating: number): OvercurrentCheck[] {
+  if (rating >= 100 || !BACK_TO_DEVICE.test(text)) return [];
+  const sizes = conductorSizes(text);
+  if (sizes.length !== 1) return [];
+  const [size] = sizes;
+  const metal = materialOf(text, size, { start: 0, end: text.length });
+  const limit = SMALL_CONDUCTOR_LIMITS[metal][size.value];
+  if (limit === undefined || rating <= limit) return [];
+  return [{ start: size.start, end: size.end, computation: `${rating} A ${/fuse/i.test(text) ? 'fuse' : 'breaker'} on ${size.value} AWG ${metal}; NEC 240.4(D) allows ${limit} A` }];
+}
+
+/**
+ * A row of a panel schedule ("7   20 A   12 AWG aluminum   Bedrooms"): a short line that gives a
+ * circuit's rating and its conductor and names no device, the columns having been named once above.
+ */
+const SCHEDULE_ROW_MAX = 90;
+function isScheduleRow(text: string): boolean {
+  if (text.length > SCHEDULE_ROW_MAX || /[.!?]\s+\S/.test(text)) return false;
+  const ratings = mentions(RATING, text);
+  return ratings.length === 1 && ratings[0].value < 100 && conductorSizes(text).length === 1;
 }

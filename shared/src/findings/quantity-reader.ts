@@ -18,6 +18,8 @@ const UNIT = /^(?:a|amps?|amperes?|v|volts?|awg|gauge|ga|ft|feet|foot|inch(?:es)
 /** Words before a number that make it a name or an index ("bedroom 2", "slot 14", "#3"). */
 const INDEX_BEFORE = /^(?:bed|bed\s?rooms?|bath(?:room)?s?|br|bdrms?|rooms?|circuits?|breakers?|no|nos|item|items|page|section|unit|level|floor|space|position|slot|photo|fig|figure|step|zone|#|spaces|about|approximately|approx)$/i;
 const ALLOWED_BETWEEN = 3;
+/** Service and branch voltages (NEC 220.5(A): 120, 120/240, 208Y/120, 240, 480Y/277 ...): never a count of devices. */
+const VOLTAGES: ReadonlySet<string> = new Set(['110', '115', '120', '125', '208', '220', '230', '240', '250', '277']);
 /** Places a vague word spreads a defect over ("on any level", "in every bedroom"): still no count of one. */
 const SPREAD_NOUN = /^(?:levels?|floors?|stor(?:y|ies)|rooms?|bedrooms?|areas?|locations?)$/;
 /** A plural countable noun: after an index word a number word counts it ("bedroom two receptacles"). */
@@ -100,6 +102,8 @@ export function readCount(text: string, articleLimit = Infinity, countable: RegE
     if ((word === 'a' || word === 'an') && tokens[i].index >= articleLimit) continue;
     // "bedroom 2" is an index, but "bedroom two receptacles" is a count.
     if (i > 0 && INDEX_BEFORE.test(tokens[i - 1].word) && !(/^[a-z]/.test(word) && count > 1 && PLURAL_COUNTABLE.test(tokens[i + 1]?.word ?? ''))) continue;
+    // "the 240 receptacle", "a 120 circuit": a voltage said without its unit is no count.
+    if (VOLTAGES.has(word)) continue;
     const next = tokens[i + 1]?.word;
     if (next !== undefined && UNIT.test(next) && word !== 'a' && word !== 'an') continue;
     if (/^\d/.test(word) && tokens[i - 1]?.word === ':') return count;

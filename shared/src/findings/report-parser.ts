@@ -2,6 +2,7 @@ import { readBlock } from './block-findings';
 import { splitBlocks } from './block-splitter';
 import { CODE_RULES } from './code-patterns';
 import { findingCodeInfo, type FindingCode } from './finding-code';
+import { withoutClosedItems } from './item-status';
 import { findRooms } from './room-lexicon';
 import type { Room } from './room';
 import type { Finding, ParseResult, SkippedText } from './finding.schema';
@@ -54,6 +55,8 @@ export function parseReport(pages: readonly string[]): ParseResult {
   // Per finding: a follow-up with no place of its own (a recommendation, or the defect named again as "This is ...").
   const isFollowUp: boolean[] = [];
   const sectionOf: Array<string | null> = [];
+  // Per finding: a list item that points to where the report describes it ("... (see 4.3)").
+  const crossRef: boolean[] = [];
   const skipped: SkippedText[] = [];
 
   for (const block of splitBlocks(joined)) {
@@ -71,7 +74,12 @@ export function parseReport(pages: readonly string[]): ParseResult {
     const outside = block.section.kind === 'non-electrical';
     // Under a heating or cooling heading, a nameplate compared with its breaker and a missing CO
     // alarm are still electrical findings; nothing else there is read.
-    const result = outside && CROSS_SECTION_HINT.test(block.text.text) ? crossSectionOnly(readBlock(block.text, block.section, block.rowCounts)) : outside ? null : readBlock(block.text, block.section, block.rowCounts);
+    // An earlier report's item that a re-inspection marks as put right ("... corrected", "CLOSED") reports nothing.
+    const read = (): ReturnType<typeof readBlock> => {
+      const open = withoutClosedItems(block.text);
+      return open === null ? { findings: [], hasNegated: true } : readBlock(open, block.section, block.rowCounts);
+    };
+    const result = outside && CROSS_SECTION_HINT.test(block.text.text) ? crossSectionOnly(read()) : outside ? null : read();
     if (result === null || (outside && result.findings.length === 0)) {
       skip('non-electrical-section');
       continue;
@@ -94,6 +102,7 @@ export function parseReport(pages: readonly string[]): ParseResult {
       const range = sourceRange(f.sentence);
       const info = findingCodeInfo(f.code);
       inSummary.push(block.section.title !== null && SUMMARY_HEADING.test(block.section.title));
+      crossRef.push(isCrossReference(joined.slice(range.start, range.end)));
       isFollowUp.push(allFollowUps);
       sectionOf.push(block.section.title);
       findings.push({
@@ -114,7 +123,28 @@ export function parseReport(pages: readonly string[]): ParseResult {
     }
   }
   const kept = dropFollowUps(findings, isFollowUp, sectionOf);
-  return { findings: mergeWiringMentions(mergeSummary(dropTitles(kept.findings, joined), kept.inSummary(inSummary))), skipped };
+  const summaryFlags = withCrossReferences(inSummary, crossRef, sectionOf);
+  return { findings: mergeWiringMentions(mergeSummary(dropTitles(kept.findings, joined), kept.inSummary(summaryFlags))), skipped };
+}
+
+/**
+ * A list item that points to where the report describes it ("Open grounds, dining room (E.4)",
+ * "Garage GFCI does not trip (see 4.6)") is a summary line; when a report's summary items carry such
+ * references, the items after the last such one are the body the references point to, even under the
+ * summary heading (the body's items were never given a heading of their own).
+ */
+const CROSS_REFERENCE = /\((?:(?:see|ref\.?|refer to|item|section|sec\.?|§)\s*(?:[a-z]{1,3}[-.]?)?\d{1,2}(?:\.\d{1,2}){0,2}|[a-z]{1,3}[-.]\d{1,2}(?:\.\d{1,2})?|\d{1,2}\.\d{1,2}(?:\.\d{1,2})?)\)\s*[.;]?\s*$/i;
+function isCrossReference(evidence: string): boolean {
+  return evidence.length <= 160 && CROSS_REFERENCE.test(evidence);
+}
+function withCrossReferences(inSummary: readonly boolean[], crossRef: readonly boolean[], sectionOf: ReadonlyArray<string | null>): boolean[] {
+  if (crossRef.filter(Boolean).length < 2) return [...inSummary];
+  return inSummary.map((summary, i) => {
+    if (!summary) return false;
+    // Under a summary heading: the items after the last one with a reference are the body.
+    const lastRef = crossRef.reduce((last, c, j) => (c && sectionOf[j] === sectionOf[i] ? j : last), -1);
+    return crossRef[i] || lastRef < 0 || i < lastRef;
+  });
 }
 
 /** A sentence that names the defect just described again ("This is a false ground.", "False ground.") or only says what to do. */

@@ -24,7 +24,7 @@ const SHORTHAND: Readonly<Record<string, string>> = {
   gfi: 'GFCI', gfis: 'GFCIs', gfic: 'GFCI', gcfi: 'GFCI',
   afi: 'AFCI',
   ocpd: 'breaker', ocpds: 'breakers', brkr: 'breaker', brkrs: 'breakers', bkr: 'breaker', bkrs: 'breakers', cb: 'breaker',
-  jbox: 'junction box', jboxes: 'junction boxes', jb: 'junction box', jbs: 'junction boxes', 'j-box': 'junction box', 'j-boxes': 'junction boxes',
+  jbox: 'junction box', jboxes: 'junction boxes', jb: 'junction box', jbs: 'junction boxes', 'j.b.': 'junction box', 'j-box': 'junction box', 'j-boxes': 'junction boxes',
   'k&t': 'knob-and-tube', kt: 'knob-and-tube', knt: 'knob-and-tube',
   seu: 'service-entrance cable', sec: 'service-entrance cable', ser: 'service-entrance cable',
   pnl: 'panel', pnls: 'panels', subpnl: 'subpanel', 'sub-pnl': 'subpanel',
@@ -46,6 +46,10 @@ const SHORTHAND: Readonly<Record<string, string>> = {
   al: 'aluminum', alum: 'aluminum', aluminium: 'aluminum', cu: 'copper',
   ga: 'AWG', 'ga.': 'AWG', gauge: 'AWG', gage: 'AWG', guage: 'AWG', awg: 'AWG',
   obs: 'observed', 'obs.': 'observed', unk: 'unknown', 'unk.': 'unknown', clg: 'ceiling', btn: 'button', mfr: 'manufactured',
+  // Spanish trade words in reports written in Spanish-influenced English (common practice in bilingual reports).
+  quemado: 'scorched', quemada: 'scorched', quemados: 'scorched', quemadas: 'scorched', suelto: 'loose', suelta: 'loose', sueltos: 'loose', sueltas: 'loose',
+  tapa: 'cover', tapas: 'covers', contacto: 'receptacle', contactos: 'receptacles', enchufe: 'receptacle', enchufes: 'receptacles',
+  apagador: 'switch', apagadores: 'switches', abanico: 'fan', abanicos: 'fans',
   bsmt: 'basement', bsmnt: 'basement', bdrm: 'bedroom', bdrms: 'bedrooms', bedrm: 'bedroom', bedrms: 'bedrooms', brs: 'bedrooms', kit: 'kitchen', ktchn: 'kitchen',
   gar: 'garage', ba: 'bathroom', bth: 'bathroom', bthrm: 'bathroom', lndry: 'laundry', hwy: 'hallway', ext: 'exterior', extr: 'exterior',
 };
