@@ -17,6 +17,7 @@ const BATCHES: ReadonlyArray<{ name: string; from: number; to: number }> = [
   { name: 'E 501-566', from: 500, to: 599 },
   { name: 'F 601-666', from: 600, to: 699 },
   { name: 'G 701-766', from: 700, to: 799 },
+  { name: 'H 801-866', from: 800, to: 899 },
 ];
 
 async function main(names: string[]): Promise<void> {

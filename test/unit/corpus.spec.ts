@@ -13,17 +13,18 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // or two columns) and read back through the project's PDF text extraction.
 // Scores match findings by (code, room) as a multiset.
 // A ratchet, not the goal: with the independent writers' excerpts (A+B 101-160, 201-255, C 301-360,
-// D 401-460, E 501-566, F 601-666, G 701-766) in the corpus. Sixth round (2026-12-04): 242 older
-// quantity labels were brought to issue 10's rule (test/corpus/batches/quantity-labels-2026-12-04.md),
+// D 401-460, E 501-566, F 601-666, G 701-766, H 801-866) in the corpus. Sixth round (2026-12-04): 242
+// older quantity labels were brought to issue 10's rule (test/corpus/batches/quantity-labels-2026-12-04.md),
 // F and G joined the tuning set after their untuned scores were recorded in docs/parser.md, and the
-// two rounds tuned on them were merged: the whole corpus then scores precision 92.4 %, recall 92.3 %,
-// F1 92.3 %, quantity 97.1 % (floors below, rounded down; reset because the corpus changed, before
-// the merge the F round's corpus held 0.9422 / 0.9358 / 0.939 / 0.9732 without G). The goal is 0.95
-// on each; raise these floors as the parser gets there, never lower them for the same corpus.
-const MIN_PRECISION = 0.923;
-const MIN_RECALL = 0.922;
-const MIN_F1 = 0.922;
-const MIN_QUANTITY = 0.97;
+// two rounds tuned on them were merged (corpus then P 92.4 %, R 92.3 %, F1 92.3 %, quantity 97.1 %).
+// H joined after its two untuned scores were recorded: the whole corpus scores precision 90.4 %,
+// recall 90.8 %, F1 90.6 %, quantity 96.7 % (floors below, rounded down; reset because the corpus
+// changed, not the parser). The goal is 0.95 on each; raise these floors as the parser gets there,
+// never lower them for the same corpus.
+const MIN_PRECISION = 0.903;
+const MIN_RECALL = 0.907;
+const MIN_F1 = 0.905;
+const MIN_QUANTITY = 0.966;
 
 describe('report parser corpus', () => {
   let run: BatchRun;
