@@ -70,6 +70,8 @@ const NUMBER_WORDS: Readonly<Record<string, number>> = {
 const NUMBER_WORD_KEYS = new Set([...Object.keys(NUMBER_WORDS), ...Object.getOwnPropertyNames(Object.prototype)]);
 /** SHORTHAND's own keys, for the same reason. */
 const SHORTHAND_KEYS = new Set(Object.keys(SHORTHAND));
+/** Every word (lower case) that a rule of replacementFor other than the spelling check looks for. */
+const SPECIAL_WORDS: ReadonlySet<string> = new Set([...NUMBER_WORD_KEYS, ...SHORTHAND_KEYS, 'too', 'ext', 'extn']);
 
 /**
  * Trade words that misspellings are corrected to (inflections listed so that a correct inflected
@@ -230,6 +232,8 @@ function replacementFor(tokens: readonly Token[], i: number, source: string): st
   const glued = first >= 48 && first <= 57 ? /^(\d{1,2})(?:ga|g|awg)$/i.exec(text) : null;
   if (glued) return `${glued[1]} AWG`;
   const bare = lower.endsWith('.') ? lower.slice(0, -1) : lower;
+  // Most words are none of the words the rules below look for: they go straight to the spelling check.
+  if (!SPECIAL_WORDS.has(bare) && (bare === lower || !SPECIAL_WORDS.has(lower))) return spellingFor(text, bare);
   const number = NUMBER_WORD_KEYS.has(bare) ? NUMBER_WORDS[bare] : undefined;
   // "the north bedroom two receptacles": a number word after a room word stays a word, so the count
   // reader can tell it from an index ("bedroom 2").
@@ -250,13 +254,18 @@ function replacementFor(tokens: readonly Token[], i: number, source: string): st
     if (CONTEXTUAL.has(key) && !contextAllows(key, prev, next, gap, text)) return null;
     return word.toLowerCase() === lower ? null : capitalised(text, word);
   }
-  // A misspelt word at the end of a sentence ("tested as ungrouded.") is corrected without its stop
-  // (five or more ASCII letters, then perhaps a full stop: `bare` is then the word in lower case).
-  if (bare.length >= 5 && isAsciiLetters(bare)) {
-    const fixed = correctLowerSpelling(bare);
-    return fixed === null ? null : capitalised(text, fixed);
-  }
-  return null;
+  return spellingFor(text, bare);
+}
+
+/**
+ * A misspelt word, even at the end of a sentence ("tested as ungrouded."), corrected without its
+ * stop: five or more ASCII letters, then perhaps a full stop (`bare` is then the word in lower case
+ * without it).
+ */
+function spellingFor(text: string, bare: string): string | null {
+  if (bare.length < 5 || !isAsciiLetters(bare)) return null;
+  const fixed = correctLowerSpelling(bare);
+  return fixed === null ? null : capitalised(text, fixed);
 }
 
 /** The text between token i and the one before it (' ' before the first). */
