@@ -103,23 +103,34 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
 
   // A nameplate maximum stated without a rating beside it: the next sentence may give the rating.
   let ratings: CarriedRatings | null = null;
-  splitSentences(readSpokenPunctuation(text)).forEach((source, sentenceIndex) => {
+  // First the phrases of every sentence (each depends only on the sentences before it), so that
+  // places are read only as far as a sentence with phrases can use them: the places a sentence
+  // names serve its own phrases and those of later sentences (as the place referred back to or
+  // the block's opening place), never earlier ones.
+  const sentences = splitSentences(readSpokenPunctuation(text)).map((source) => {
     const written = rowCounts.length > 0 ? blankItemNumbers(source, rowCounts) : source;
     const sentence = normaliseText(written);
     const matches = matchCodes(sentence.text, { carried: ratings });
     ratings = matches.some((m) => m.computation !== undefined) ? null : { nameplate: nameplateMaximum(sentence.text), rating: deviceRating(sentence.text) };
     const implied = matches.length === 0 ? subjectMatch(section, sentence.text) : null;
     if (implied) matches.push(implied);
+    return { written, sentence, matches, implied };
+  });
+  let lastWithPhrases = -1;
+  sentences.forEach(({ matches }, i) => {
+    if (matches.length > 0) lastWithPhrases = i;
+  });
+  sentences.forEach(({ written, sentence, matches, implied }, sentenceIndex) => {
     // Clauses are cut once per sentence with phrases, for negation and for places alike.
     const clauses = matches.length > 0 ? clauseRanges(sentence.text) : [];
-    const negated = negatedSpans(sentence.text, matches, clauses);
+    const negated = matches.length > 0 ? negatedSpans(sentence.text, matches, clauses) : [];
     const live = matches.filter((_, i) => !negated[i]);
     hasNegated ||= live.length < matches.length;
     const carried =
-      previous && (previous.isLabel || REFERS_BACK.test(sentence.text) || POINTS_TO_PLACE.test(sentence.text))
+      live.length > 0 && previous && (previous.isLabel || REFERS_BACK.test(sentence.text) || POINTS_TO_PLACE.test(sentence.text))
         ? { room: previous.mention.room, location: readLocation(previous.text, previous.mention) }
         : null;
-    const rooms = findRooms(sentence.text);
+    const rooms = sentenceIndex <= lastWithPhrases ? findRooms(sentence.text) : [];
     const placements = placeMatches(
       sentence.text,
       live,
@@ -129,7 +140,7 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
     );
     const inSentence: BlockFinding[] = [];
     // A table row's quantity column gives the count of the row's findings.
-    const rowCount = rowCounts.length > 0 ? rowCountOf(written, rowCounts) : null;
+    const rowCount = live.length > 0 && rowCounts.length > 0 ? rowCountOf(written, rowCounts) : null;
     live.forEach((match, i) => {
       const isNormalised = sentence.changed.some((c) => c.start < match.end && match.start < c.end);
       for (const place of placements[i]) {
@@ -210,8 +221,7 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
       if (inSentence.some((f) => !f.isRecommendation && !f.isFallbackOnly)) lastFound = inSentence;
     }
     const mention = lastPlaceMention(rooms);
-    const isLabel = matches.length === 0 && hasAtMostWords(sentence.text, MAX_LABEL_WORDS) && !VERB.test(sentence.text);
-    if (mention) previous = { text: sentence.text, mention, isLabel };
+    if (mention) previous = { text: sentence.text, mention, isLabel: matches.length === 0 && hasAtMostWords(sentence.text, MAX_LABEL_WORDS) && !VERB.test(sentence.text) };
     if (sentenceIndex === 0 && mention) opening = { room: mention.room, location: readLocation(sentence.text, mention), hadFindings: live.length > 0 };
   });
   return { findings: keepDistinct(found), hasNegated };

@@ -37,11 +37,17 @@ describe('requiredLiterals', () => {
     expect(requiredLiteralLists(/\d+\s+\w+/gi)).toEqual([]);
   });
 
+  it('takes a rare sign alone as a literal ("k & t", "n/g"), never a single letter', () => {
+    expect(requiredLiterals(/\bk\s?&\s?t\b|\bknt\b/gi)).toEqual(['&', 'knt']);
+    expect(requiredLiterals(/\bn\s*(?:&|\/)\s*g\b/gi)).toEqual(['&', '/']);
+    expect(requiredLiteralLists(/\bk\s?x\s?t\b|\bknt\b/gi)).toEqual([]);
+  });
+
   it('gives null where nothing can be required', () => {
     expect(requiredLiterals(/\w+\s+\d/gi)).toBeNull(); // only classes
     expect(requiredLiterals(/ground|\d+/gi)).toBeNull(); // one alternative has no word
     expect(requiredLiterals(/(?:ground)?/gi)).toBeNull(); // optional
-    expect(requiredLiterals(/k\s?&\s?t/gi)).toBeNull(); // pieces of one character are too common to check
+    expect(requiredLiterals(/k\s?x\s?t/gi)).toBeNull(); // pieces of one letter are too common to check
     expect(requiredLiterals(/ground/g)).toBeNull(); // case-sensitive: not read
     expect(requiredLiterals(/ground/giu)).toBeNull(); // unicode case folding: not read
     expect(requiredLiterals(/café/gi)).toEqual(['caf']); // a non-ASCII letter is not read, the rest is

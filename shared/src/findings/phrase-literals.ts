@@ -23,6 +23,16 @@ const MAX_EXACT = 32;
 const MAX_CLASS = 8;
 /** Literals shorter than this are too common to be worth checking. */
 const MIN_LITERAL = 2;
+/**
+ * Single signs rare enough in report text to be worth checking on their own, as if they were
+ * MIN_LITERAL long ("k & t", "n/g"): without them a phrase with such a branch gets no list at all.
+ */
+const RARE_SIGNS: ReadonlySet<string> = new Set(['&', '/']);
+
+/** A literal's length for selectivity: a rare sign counts as MIN_LITERAL. */
+function weight(literal: string): number {
+  return literal.length === 1 && RARE_SIGNS.has(literal) ? MIN_LITERAL : literal.length;
+}
 
 const EMPTY: Shape = { exact: [''], all: [] };
 const UNKNOWN: Shape = { exact: null, all: [] };
@@ -53,7 +63,7 @@ export function requiredLiteralLists(re: RegExp): ReadonlyArray<readonly string[
   const seen = new Set<string>();
   return lists.filter((list) => {
     const key = list.join('\n');
-    if (seen.has(key) || Math.min(...list.map((l) => l.length)) < MIN_LITERAL) return false;
+    if (seen.has(key) || Math.min(...list.map(weight)) < MIN_LITERAL) return false;
     seen.add(key);
     return true;
   });
@@ -223,11 +233,11 @@ function reduce(list: readonly string[]): string[] {
   return kept;
 }
 
-/** The more selective list: longer shortest literal first, then fewer literals. */
+/** The more selective list: longer shortest literal first (by weight), then fewer literals. */
 function better(a: readonly string[] | null, b: readonly string[] | null): readonly string[] | null {
   if (!a || a.length === 0) return b && b.length > 0 ? b : null;
   if (!b || b.length === 0) return a;
-  const shortest = (l: readonly string[]) => Math.min(...l.map((s) => s.length));
+  const shortest = (l: readonly string[]) => Math.min(...l.map(weight));
   const byLength = shortest(a) - shortest(b);
   if (byLength !== 0) return byLength > 0 ? a : b;
   return a.length <= b.length ? a : b;

@@ -87,9 +87,11 @@ export function readCount(text: string, articleLimit = Infinity, countable: RegE
       const all = countOf(tokens[i + 3]?.word ?? '');
       if (all !== null && all > 1) return all;
     }
-    const parenthesised = /^\(\s*x?(\d{1,3})\s*\)$/.exec(word);
+    // (The two expressions are tried only on a word that can begin their match: "(", a digit, "x".)
+    const first = word.charCodeAt(0);
+    const parenthesised = first === 40 /* ( */ ? /^\(\s*x?(\d{1,3})\s*\)$/.exec(word) : null;
     if (parenthesised) return Number(parenthesised[1]);
-    const times = /^(?:(\d{1,2})x|x(\d{1,2}))$/.exec(word);
+    const times = (first >= 48 && first <= 57) || first === 120 /* x */ ? /^(?:(\d{1,2})x|x(\d{1,2}))$/.exec(word) : null;
     if (times) return Number(times[1] ?? times[2]);
     // "several receptacles" is vague; "wobbles at all speeds" says nothing about how many; a vague
     // word after the defect phrase speaks of something else ("... not GFCI protected, pushed test on every GFI").

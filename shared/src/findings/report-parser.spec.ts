@@ -1,5 +1,5 @@
 import { FindingSchema } from './finding.schema';
-import { joinPages, parseReport, parseText } from './report-parser';
+import { joinPages, parseReport, parseText, suggestItem } from './report-parser';
 
 describe('parseReport', () => {
   const pages = [
@@ -51,5 +51,21 @@ describe('parseText', () => {
 
   it('gives nothing for an empty report', () => {
     expect(parseText('')).toEqual({ findings: [], skipped: [] });
+  });
+});
+
+describe('suggestItem', () => {
+  it('suggests the first electrical thing the passage names, whichever row of the table names it', () => {
+    expect(suggestItem('The light by the GFCI flickers.', null)?.code).toBe('light-fixture');
+    expect(suggestItem('The GFCI by the light flickers.', null)?.code).toBe('gfci-missing');
+  });
+
+  it('takes the row listed first where two begin at the same word', () => {
+    // "wire nut" is a junction-box word and "wire" a wiring word: the junction box is listed first.
+    expect(suggestItem('Wire nut loose in the attic.', null)).toEqual({ code: 'open-junction-box', room: 'attic' });
+  });
+
+  it('suggests nothing for a passage with no electrical word', () => {
+    expect(suggestItem('Shingles are worn at the ridge.', null)).toBeNull();
   });
 });

@@ -247,17 +247,42 @@ const SUGGESTIONS: ReadonlyArray<readonly [RegExp, FindingCode]> = [
   [/\b(?:electrical|electrician)\b/i, 'evaluate-general'],
 ];
 
-/** What an item made from a passage that gave no finding would most likely be, or null if it names nothing electrical. */
-export function suggestItem(text: string, sectionRoom: Room | null): { code: FindingCode; room: Room } | null {
+/**
+ * SUGGESTIONS as one expression, each in a group of its own: its match is the leftmost of all
+ * theirs and, where several begin at the same place, the first listed's, which is what trying them
+ * one by one and keeping the first leftmost gives, in one pass over the text instead of fourteen.
+ * Built only when every expression is plain (the i flag alone, no groups that capture).
+ */
+const SUGGESTION_ANY: RegExp | null = (() => {
+  const groups = (re: RegExp) => new RegExp(`${re.source}|`).exec('')!.length - 1;
+  if (SUGGESTIONS.some(([re]) => re.flags !== 'i' || groups(re) > 0)) return null;
+  return new RegExp(SUGGESTIONS.map(([re]) => `(${re.source})`).join('|'), 'i');
+})();
+
+/** The first electrical thing a passage names (see SUGGESTIONS). */
+function firstSuggestion(text: string): FindingCode | null {
+  if (SUGGESTION_ANY !== null) {
+    const m = SUGGESTION_ANY.exec(text);
+    if (m === null) return null;
+    let k = 1;
+    while (m[k] === undefined) k++;
+    return SUGGESTIONS[k - 1][1];
+  }
   let best: { code: FindingCode; index: number } | null = null;
   for (const [re, code] of SUGGESTIONS) {
     const m = re.exec(text);
     if (m && (best === null || m.index < best.index)) best = { code, index: m.index };
   }
-  if (!best) return null;
-  const info = CODE_RULES.find((r) => r.code === best.code);
+  return best?.code ?? null;
+}
+
+/** What an item made from a passage that gave no finding would most likely be, or null if it names nothing electrical. */
+export function suggestItem(text: string, sectionRoom: Room | null): { code: FindingCode; room: Room } | null {
+  const code = firstSuggestion(text);
+  if (code === null) return null;
+  const info = CODE_RULES.find((r) => r.code === code);
   const named = findRooms(text).find((r) => !r.isReferencePoint && r.room !== 'panel');
-  return { code: best.code, room: info?.fixedRoom ?? named?.room ?? sectionRoom ?? info?.defaultRoom ?? 'unknown' };
+  return { code, room: info?.fixedRoom ?? named?.room ?? sectionRoom ?? info?.defaultRoom ?? 'unknown' };
 }
 
 /** The original text of a mapped stretch, exactly as the report wrote it. */

@@ -82,7 +82,9 @@ const FIXTURE_AFTER = /^\s*(?:sink|counter|cabinet|vanity|island|floor|closet|do
 /** Every place named in `text`, in reading order, without overlaps. */
 export function findRooms(text: string): RoomMention[] {
   const found: RoomMention[] = [];
-  const hasVantage = /\bfrom\s+(?:the\s+)?(?:attic|crawl)/i.test(text);
+  // Read only when a room follows a reference word (most sentences never need it).
+  let hasVantage: boolean | undefined;
+  const seenFromAbove = () => (hasVantage ??= /\bfrom\s+(?:the\s+)?(?:attic|crawl)/i.test(text));
   for (const m of scanRooms(text)) {
     let i = 0;
     while (m[ROOM_GROUP[i]] === undefined) i++;
@@ -91,7 +93,7 @@ export function findRooms(text: string): RoomMention[] {
     const before = text.slice(Math.max(0, start - 20), start);
     const after = text.slice(end, end + 24);
     const isReferencePoint =
-      (REFERENCE_BEFORE.test(before) && !FIXTURE_AFTER.test(after) && !(hasVantage && LIGHTS_IN_CEILING.test(text.slice(Math.max(0, start - 50), start)))) ||
+      (REFERENCE_BEFORE.test(before) && !FIXTURE_AFTER.test(after) && !(seenFromAbove() && LIGHTS_IN_CEILING.test(text.slice(Math.max(0, start - 50), start)))) ||
       (BESIDE_BEFORE.test(before) && OPENING_AFTER.test(after)) ||
       VANTAGE_BEFORE.test(text.slice(Math.max(0, start - 30), start)) ||
       END_OF_AFTER.test(after) ||

@@ -102,9 +102,11 @@ export function classifyHeadingLine(line: string): HeadingLine | null {
   }
   // Separators ("SMOKE / CO", "PANEL - MAIN") are not words; a misspelt heading word is read as
   // the trade word it stands for ("SMOKE DETECTERS").
-  const words = (title.toLowerCase().match(/[a-z&'/-]+|\d+/g) ?? [])
-    .filter((w) => /[a-z&\d]/.test(w))
-    .map((w) => (isHeadingWord(w) ? w : (correctSpelling(w)?.toLowerCase() ?? w)));
+  const written = (title.toLowerCase().match(/[a-z&'/-]+|\d+/g) ?? []).filter((w) => /[a-z&\d]/.test(w));
+  // A line of more than eight words is no heading (unless it ends in a bracketed note): counted
+  // before any word is looked up for its spelling.
+  if (written.length > 8 && !/\)\s*$/.test(title)) return null;
+  const words = written.map((w) => (isHeadingWord(w) ? w : (correctSpelling(w)?.toLowerCase() ?? w)));
   if (words.length > 8 && /\)\s*$/.test(title)) {
     // "SUMMARY - ELECTRICAL ITEMS (details follow in body of report)": a summary heading and its note.
     const bare = title.replace(/\s*\([^()]*\)\s*$/, '');

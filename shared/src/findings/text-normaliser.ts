@@ -70,6 +70,8 @@ const NUMBER_WORDS: Readonly<Record<string, number>> = {
 const NUMBER_WORD_KEYS = new Set([...Object.keys(NUMBER_WORDS), ...Object.getOwnPropertyNames(Object.prototype)]);
 /** SHORTHAND's own keys, for the same reason. */
 const SHORTHAND_KEYS = new Set(Object.keys(SHORTHAND));
+/** Every word (lower case) that a rule of replacementFor other than the spelling check looks for. */
+const SPECIAL_WORDS: ReadonlySet<string> = new Set([...NUMBER_WORD_KEYS, ...SHORTHAND_KEYS, 'too', 'ext', 'extn']);
 
 /**
  * Trade words that misspellings are corrected to (inflections listed so that a correct inflected
@@ -135,13 +137,28 @@ const KEEP = new Set([
   'contacted', 'insertion',
 ]);
 
+/**
+ * Answers already known: null for every vocabulary and kept word (they are never corrected), and
+ * the answers computed so far (a pure function of the word; cleared past MEMO_LIMIT).
+ */
 const MEMO = new Map<string, string | null>();
-const MEMO_LIMIT = 20_000;
+const MEMO_LIMIT = 20_000 + VOCAB_SET.size + KEEP.size;
+function resetMemo(): void {
+  MEMO.clear();
+  for (const w of VOCAB_SET) MEMO.set(w, null);
+  for (const w of KEEP) MEMO.set(w, null);
+}
+resetMemo();
 
 /** The trade word a misspelt word stands for, or null (5+ letters; 1 edit up to 7 letters, 2 from 8). */
 export function correctSpelling(word: string): string | null {
-  const lower = word.toLowerCase();
-  if (lower.length < 5 || VOCAB_SET.has(lower) || KEEP.has(lower)) return null;
+  return correctLowerSpelling(word.toLowerCase());
+}
+
+/** correctSpelling of a word already in lower case. */
+function correctLowerSpelling(lower: string): string | null {
+  if (lower.length < 5) return null;
+  // Vocabulary and kept words answer null from the same map as the remembered answers.
   const cached = MEMO.get(lower);
   if (cached !== undefined) return cached;
   const limit = lower.length >= 8 ? 2 : 1;
@@ -160,7 +177,7 @@ export function correctSpelling(word: string): string | null {
   if (best !== null && (lower === `${best}s` || lower === `${best}es` || lower === `${best}ed` || lower === `${best}d` || `${lower}s` === best)) best = null;
   // Another form of the same word ("correctly" beside "corrected") is not a misspelling of it.
   if (best !== null && stem(lower) === stem(best)) best = null;
-  if (MEMO.size > MEMO_LIMIT) MEMO.clear();
+  if (MEMO.size > MEMO_LIMIT) resetMemo();
   MEMO.set(lower, best);
   return best;
 }
@@ -206,16 +223,17 @@ function replacementFor(tokens: readonly Token[], i: number, source: string): st
   const { text, lower } = tokens[i];
   const prev = tokens[i - 1]?.lower ?? '';
   const next = tokens[i + 1]?.lower ?? '';
-  const gapBefore = i > 0 ? source.slice(tokens[i - 1].end, tokens[i].start) : ' ';
   const first = text.charCodeAt(0);
   // "#12" → "12 AWG"; "12 ga", "12-gauge", "12g" → "12 AWG".
   const hash = first === 35 /* # */ ? /^#\s?(\d{1,2})$/.exec(text) : null;
   // "Bkr #6", "slot #14": after an index word the number names the device, not a wire size.
-  if (hash && /^\s+$/.test(gapBefore) && /^(?:bkrs?|brkrs?|breakers?|ckts?|circuits?|slots?|positions?|spaces?|no\.?|units?|items?|photos?|fuses?|cb)$/.test(prev)) return null;
+  if (hash && /^\s+$/.test(gapBefore(tokens, i, source)) && /^(?:bkrs?|brkrs?|breakers?|ckts?|circuits?|slots?|positions?|spaces?|no\.?|units?|items?|photos?|fuses?|cb)$/.test(prev)) return null;
   if (hash) return `${hash[1]} AWG`;
   const glued = first >= 48 && first <= 57 ? /^(\d{1,2})(?:ga|g|awg)$/i.exec(text) : null;
   if (glued) return `${glued[1]} AWG`;
   const bare = lower.endsWith('.') ? lower.slice(0, -1) : lower;
+  // Most words are none of the words the rules below look for: they go straight to the spelling check.
+  if (!SPECIAL_WORDS.has(bare) && (bare === lower || !SPECIAL_WORDS.has(lower))) return spellingFor(text, bare);
   const number = NUMBER_WORD_KEYS.has(bare) ? NUMBER_WORDS[bare] : undefined;
   // "the north bedroom two receptacles": a number word after a room word stays a word, so the count
   // reader can tell it from an index ("bedroom 2").
@@ -228,19 +246,40 @@ function replacementFor(tokens: readonly Token[], i: number, source: string): st
   // "ext cord", "ext. cords": an extension cord, not the exterior.
   if ((bare === 'ext' || bare === 'extn') && /^cords?$/.test(next)) return 'extension';
   if (SHORTHAND_KEYS.has(lower) || SHORTHAND_KEYS.has(bare)) {
+    const gap = gapBefore(tokens, i, source);
     // "Report #KT-24-0917", "Unit GFI-2": letters glued to a number by a hyphen, or after "#", are an identifier.
-    if (isIdentifier(source, tokens[i].end, gapBefore)) return null;
+    if (isIdentifier(source, tokens[i].end, gap)) return null;
     const key = SHORTHAND_KEYS.has(lower) ? lower : bare;
     const word = SHORTHAND[key];
-    if (CONTEXTUAL.has(key) && !contextAllows(key, prev, next, gapBefore, text)) return null;
+    if (CONTEXTUAL.has(key) && !contextAllows(key, prev, next, gap, text)) return null;
     return word.toLowerCase() === lower ? null : capitalised(text, word);
   }
-  // A misspelt word at the end of a sentence ("tested as ungrouded.") is corrected without its stop.
-  if (text.length >= 5 && /^[a-z]{5,}\.?$/i.test(text)) {
-    const fixed = correctSpelling(text.replace(/\.$/, ''));
-    return fixed === null ? null : capitalised(text, fixed);
+  return spellingFor(text, bare);
+}
+
+/**
+ * A misspelt word, even at the end of a sentence ("tested as ungrouded."), corrected without its
+ * stop: five or more ASCII letters, then perhaps a full stop (`bare` is then the word in lower case
+ * without it).
+ */
+function spellingFor(text: string, bare: string): string | null {
+  if (bare.length < 5 || !isAsciiLetters(bare)) return null;
+  const fixed = correctLowerSpelling(bare);
+  return fixed === null ? null : capitalised(text, fixed);
+}
+
+/** The text between token i and the one before it (' ' before the first). */
+function gapBefore(tokens: readonly Token[], i: number, source: string): string {
+  return i > 0 ? source.slice(tokens[i - 1].end, tokens[i].start) : ' ';
+}
+
+/** Whether a lower-case word consists of the letters a-z only. */
+function isAsciiLetters(lower: string): boolean {
+  for (let k = 0; k < lower.length; k++) {
+    const code = lower.charCodeAt(k);
+    if (code < 97 || code > 122) return false;
   }
-  return null;
+  return true;
 }
 
 function isIdentifier(source: string, end: number, gapBefore: string): boolean {
