@@ -63,5 +63,5 @@ export const T = {
   NO: String.raw`(?:no|missing|lacks?|lacking|lacked|without|absent|absence of)`,
   BROKEN: String.raw`(?:broken|cracked|damaged|loose|missing)`,
   INOPERATIVE: String.raw`(?:inoperative|inoperable|non-?functional|non-?operational|defective|faulty|not (?:working|functioning|functional|operating|operational|responding))`,
-  BE: String.raw`(?:(?:is|are|was|were|appears? to be|has been|have been)\s+)?`,
+  BE: String.raw`(?:(?:(?:is|are|was|were)\s+(?:found|observed|noted|determined|confirmed|reported|seen)\s+to\s+be|(?:appears?|appeared|seems?|seemed) to be|is|are|was|were|has been|have been)\s+)?`,
 } as const;

@@ -1,0 +1,77 @@
+import { parseText } from './report-parser';
+
+/** (code, room, quantity) of every finding. */
+function read(text: string) {
+  return parseText(text).findings.map((f) => [f.code, f.room, f.quantity]);
+}
+
+// Rules of the seventh tuning round (docs/parser.md, "Seventh round (batch H)"). Each example is new
+// text written for this spec, not a sentence of the corpus.
+
+describe('places: rooms let to lodgers are bedrooms (common practice in rooming-house and rental reports)', () => {
+  it('reads a numbered room, a rented room and a sleeping loft as a bedroom', () => {
+    expect(read('Room 7: the ceiling light does not work with a new bulb.')).toEqual([['light-fixture', 'bedroom', 1]]);
+    expect(read('rm 12 - receptacle by the desk has a cracked face')).toEqual([['receptacle-damaged', 'bedroom', 1]]);
+    expect(read('In the third rented room the switch plate is missing.')).toEqual([['cover-plate-missing', 'bedroom', 1]]);
+    expect(read('Sleeping loft: the receptacle at the knee wall shows an open ground.')).toEqual([['open-ground', 'bedroom', 1]]);
+  });
+
+  it('takes the number after "rm" as the room\'s name, not a count', () => {
+    expect(read('rm 9 recept by the closet is scorched')).toEqual([['receptacle-damaged', 'bedroom', 1]]);
+  });
+});
+
+describe('insurance checklists: a hazard answered "no" in its Y/N column is no finding (common practice in four-point and underwriting forms)', () => {
+  it('reads only the rows of a pipe table answered Y', () => {
+    const form = [
+      '| Hazard | Hazard present? (Y/N) | Notes |',
+      '| Double-tapped breakers | N | |',
+      '| Missing GFCI at kitchen counter | Y | none of the counter receptacles trip |',
+    ].join('\n');
+    expect(read(form)).toEqual([['gfci-missing', 'kitchen', null]]);
+  });
+
+  it('reads semicolon rows the same way', () => {
+    const form = ['Item;Result;Defect (Y/N);Comment', 'Open splices;none;N;', 'Dining room receptacle reversed polarity;found;Y;'].join('\n');
+    expect(read(form)).toEqual([['reversed-polarity', 'dining', 1]]);
+  });
+
+  it('reads the answer letter or mark after a leader under a "Y N" heading', () => {
+    const form = [
+      'Hazards present?                       Y   N',
+      '  Double taps at breakers ..........       N',
+      '  Exposed splices ..................   Y',
+      '  Missing smoke alarms .............       X',
+      '',
+      'Comments: an open splice hangs in the laundry, no box.',
+    ].join('\n');
+    expect(read(form)).toEqual([
+      ['open-junction-box', 'unknown', null],
+      ['open-junction-box', 'laundry', 1],
+    ]);
+  });
+});
+
+describe('passive report voice: "was found to be", "were observed to be" before the condition (common practice in formal reports)', () => {
+  it('reads the condition after a passive verb of finding', () => {
+    expect(read('The bathroom exhaust fan switch was found to be broken.')).toEqual([['switch-issue', 'bathroom', 1]]);
+    expect(read('The smoke alarm in the upstairs hallway was determined to be inoperative.')).toEqual([['smoke-co-alarm', 'hallway', 1]]);
+    expect(read('The garage wall switch was observed to be loose.')).toEqual([['switch-issue', 'garage', 1]]);
+  });
+});
+
+describe("tables: a pipe row wrapped by a narrow page keeps the table's quantity column (common practice in PDF exports)", () => {
+  it('reads the count of the row after a wrapped one', () => {
+    const table = [
+      '| # | Item | Qty | Comment |',
+      '|---|---|---|---|',
+      '| 1 | Open junction boxes | 2 | Attic over the garage: covers missing and splices',
+      'visible. |',
+      '| 2 | Cover plates missing | 3 | basement laundry wall |',
+    ].join('\n');
+    expect(read(table)).toEqual([
+      ['open-junction-box', 'attic', 2],
+      ['cover-plate-missing', 'laundry', 3],
+    ]);
+  });
+});
