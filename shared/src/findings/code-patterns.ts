@@ -467,7 +467,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'light-fixture',
-    trigger: /light|fixture|luminaire|chandelier|pendant|sconce|globe|lens|shade|diffuser|bulb|lamp|insulation|socket|housing|recessed|\bcans?\b/i,
+    trigger: /light|fixture|luminaire|chandelier|gasolier|lantern|pendant|sconce|globe|lens|shade|diffuser|bulb|lamp|insulation|socket|housing|recessed|\bcans?\b/i,
     patterns: [
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|dangling|hanging|not (?:secured|secure|attached|mounted)|${T.FAILED} (?:operate|work|respond|turn on|come on)|in contact with (?:the\s+)?insulation|covered (?:by|with) insulation|not (?:rated|listed|suitable|approved) for (?:a |the )?(?:wet|damp))` },
       { re: rx`(?:${T.INOPERATIVE}|loose|dangling|damaged|broken)\s+${gap(2)}${NOT_APPLIANCE}${T.LIGHT}` },

@@ -75,3 +75,24 @@ describe("tables: a pipe row wrapped by a narrow page keeps the table's quantity
     ]);
   });
 });
+
+describe('words: old-house and outdoor light names (common practice)', () => {
+  it('reads a lantern and a converted gas fixture (gasolier) as light fixtures', () => {
+    expect(read('The coach lantern on the front porch hangs by its wires.')).toEqual([['light-fixture', 'exterior', 1]]);
+    expect(read('The gasolier in the front parlor is loose at the ceiling.')).toEqual([['light-fixture', 'living-area', 1]]);
+  });
+});
+
+describe('polarity: what a kind of wiring is known to do in general is background, not a defect seen (common practice)', () => {
+  it('reads no finding from a general property, and keeps the defect told beside it', () => {
+    expect(read('Switches and receptacles on aluminum branch circuits are known to loosen at their terminals.')).toEqual([]);
+    expect(read('The stair switch is cracked; switches of that age are known for it.')).toEqual([['switch-issue', 'hallway', 1]]);
+  });
+});
+
+describe('places: a side wall under an indoor room heading is that room\'s wall (common practice)', () => {
+  it('keeps the heading\'s room for "the back wall", but not for a code that belongs outdoors', () => {
+    expect(read('WORKSHOP\nThe receptacle on the back wall has a cracked face.')).toEqual([['receptacle-damaged', 'garage', 1]]);
+    expect(read('BASEMENT\nThe receptacle on the rear wall has no in-use cover.')).toEqual([['weather-cover-missing', 'exterior', 1]]);
+  });
+});
