@@ -64,6 +64,8 @@ export function negatedSpans(text: string, spans: readonly Range[], clauses: rea
     // "not rated to carry a fan, and the fan shakes": a "not" that negates a verb of its own before
     // the phrase ("not rated", "not labeled") denies that verb, not the phrase.
     if (/^(?:not|never)$/i.test(text.slice(cue.start, cue.end)) && OWN_VERB.test(text.slice(cue.end, spans[first].start))) continue;
+    // "not one is labeled, no directory at all": "not one" counts none of them; it denies nothing after it.
+    if (/^not$/i.test(text.slice(cue.start, cue.end)) && /^\s+(?:one|a single)\b/i.test(text.slice(cue.end))) continue;
     negated[first] = true;
     for (let i = first + 1; i < spans.length && isListed(spans[i - 1], spans[i]); i++) negated[i] = true;
   }

@@ -96,3 +96,15 @@ describe('places: a side wall under an indoor room heading is that room\'s wall 
     expect(read('BASEMENT\nThe receptacle on the rear wall has no in-use cover.')).toEqual([['weather-cover-missing', 'exterior', 1]]);
   });
 });
+
+describe('panel wordings: "not one is labeled", a directory described before it is blank, equipment in front of "the unit panel" (NFPA 70 (NEC) 2023, 408.4(A) and 110.26(A))', () => {
+  it('reads each as a panel defect', () => {
+    expect(read('the breakers are fine but not one is labeled, no directory either')).toEqual([['panel-deficiency', 'panel', 1]]);
+    expect(read('The circuit directory on the back of the panel door is blank.')).toEqual([['panel-deficiency', 'panel', 1]]);
+    expect(read('A chest freezer is stored directly in front of the main panel.')).toEqual([['panel-deficiency', 'panel', 1]]);
+  });
+
+  it('does not take "not one" as a denial of what follows it', () => {
+    expect(read('Of the breakers, not one is labeled and there is no directory.')).toEqual([['panel-deficiency', 'panel', 1]]);
+  });
+});
