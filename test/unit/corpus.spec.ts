@@ -19,12 +19,13 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // two rounds tuned on them were merged (corpus then P 92.4 %, R 92.3 %, F1 92.3 %, quantity 97.1 %).
 // H joined after its two untuned scores were recorded: the whole corpus scores precision 90.4 %,
 // recall 90.8 %, F1 90.6 %, quantity 96.7 % (floors below, rounded down; reset because the corpus
-// changed, not the parser). The goal is 0.95 on each; raise these floors as the parser gets there,
-// never lower them for the same corpus.
-const MIN_PRECISION = 0.903;
-const MIN_RECALL = 0.907;
-const MIN_F1 = 0.905;
-const MIN_QUANTITY = 0.966;
+// changed, not the parser). Seventh round (batch H's voices): precision 91.53 %, recall 91.47 %,
+// F1 91.50 %, quantity 96.66 % (floors below, rounded down). The goal is 0.95 on each; raise these
+// floors as the parser gets there, never lower them for the same corpus.
+const MIN_PRECISION = 0.915;
+const MIN_RECALL = 0.914;
+const MIN_F1 = 0.915;
+const MIN_QUANTITY = 0.9665;
 
 describe('report parser corpus', () => {
   let run: BatchRun;

@@ -134,7 +134,8 @@ export function splitBlocks(joined: string): Block[] {
       } else if (quantityColumn !== 0 && /^\d{1,3}[.)]?$/.test(cells[0])) {
         rowCounts.push({ start: line.start, end: line.end, count: null, itemNumberEnd: line.start + line.text.indexOf(cells[0]) + cells[0].length });
       }
-    } else if (content.length > 0 && !isNoise && !/^\s{8,}\S/.test(line.text)) {
+    } else if (content.length > 0 && !isNoise && !/^\s{8,}\S/.test(line.text) && !content.includes('|')) {
+      // (A line with a column rule but too few cells is a pipe row wrapped by a narrow page: the table goes on.)
       quantityColumn = null;
     }
     if (content.length === 0) {

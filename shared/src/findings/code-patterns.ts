@@ -396,6 +396,11 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:directory|legend|circuit labels?|labell?ing)\s+${gap(3)}${T.BE}(?:${T.ABSENT}|incomplete|illegible|inaccurate|blank|empty|not (?:filled|completed))` },
       { re: rx`(?:circuits?|breakers?)\s+${gap(3)}${T.BE}(?:not|un)[- ]?(?:labell?ed|identified|marked)`, context: PANEL_CONTEXT },
       { re: rx`(?:unlabell?ed|unidentified|unmarked)\s+(?:circuits?|breakers?)` },
+      // Seventh round (common practice; NFPA 70 (NEC) 2023, 408.4(A), 110.26(A)): "not one is labeled", a
+      // directory described where it is before it is "blank", equipment set in front of "the unit panel".
+      { re: rx`(?:not (?:one|a single)(?: \w+)?|none)\s+(?:of\s+(?:them|the\s+(?:breakers?|circuits?))\s+)?(?:is|are|was|were|has been|have been)\s+(?:labell?ed|identified|marked)`, context: /breaker|circuit|panel/i },
+      { re: rx`(?:directory|legend)\s+(?:on|inside|in|at)\s+${anyGap(6)}${T.BE}(?:blank|empty|not filled(?: in| out)?)` },
+      { re: rx`(?:installed|placed|stored|located|built|stacked)\s+(?:directly\s+)?in front of\s+the\s+(?:unit|main|electrical|breaker|service)\s+panel\b` },
       { re: rx`(?:corrosion|rust|moisture|water stains?)\s+${gap(3)}(?:in|on|inside|at|within)\s+(?:the\s+)?(?:main\s+|electrical\s+|service\s+)?(?:${T.PANEL}|breakers?|bus)` },
       { re: rx`(?:${T.PANEL}|bus bars?|breakers?|lugs?)\s+${gap(3)}${T.BE}(?:corroded|rusted|rusty|shows? (?:corrosion|rust))` },
       { re: rx`(?:blocked|obstructed|inadequate|insufficient|restricted)\s+(?:working\s+)?(?:clearance|access|space)`, context: PANEL_CONTEXT },
@@ -467,7 +472,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'light-fixture',
-    trigger: /light|fixture|luminaire|chandelier|pendant|sconce|globe|lens|shade|diffuser|bulb|lamp|insulation|socket|housing|recessed|\bcans?\b/i,
+    trigger: /light|fixture|luminaire|chandelier|gasolier|lantern|pendant|sconce|globe|lens|shade|diffuser|bulb|lamp|insulation|socket|housing|recessed|\bcans?\b/i,
     patterns: [
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|loose|dangling|hanging|not (?:secured|secure|attached|mounted)|${T.FAILED} (?:operate|work|respond|turn on|come on)|in contact with (?:the\s+)?insulation|covered (?:by|with) insulation|not (?:rated|listed|suitable|approved) for (?:a |the )?(?:wet|damp))` },
       { re: rx`(?:${T.INOPERATIVE}|loose|dangling|damaged|broken)\s+${gap(2)}${NOT_APPLIANCE}${T.LIGHT}` },

@@ -43,6 +43,12 @@ function removesProtection(text: string, cue: Range): boolean {
  */
 const FUTURE_CONDITION = /^\s*(?:if|when|once|should)\s[^.;]{0,120}?\b(?:in the future|later|someday|is (?:ever )?(?:finished|remodel+ed|converted|renovated)|are (?:ever )?(?:added|remodel+ed))\b[^.;]{0,40}?,\s*[^.;]*\b(?:will|would)\s+(?:need|require|have to|be required)\b/i;
 
+/**
+ * A clause about what a kind of wiring or device does in general ("connections at aluminum-wired
+ * outlets and switches are known to loosen over time"): background for the reader, not a defect seen.
+ */
+const GENERAL_PROPERTY = /\b(?:is|are)\s+(?:(?:well|widely|commonly)\s+)?known\s+(?:to|for)\b/i;
+
 /** For each span (sorted by start, not overlapping), whether the sentence denies it. */
 export function negatedSpans(text: string, spans: readonly Range[], clauses: readonly Range[] = clauseRanges(text)): boolean[] {
   if (FUTURE_CONDITION.test(text)) return spans.map(() => true);
@@ -58,8 +64,16 @@ export function negatedSpans(text: string, spans: readonly Range[], clauses: rea
     // "not rated to carry a fan, and the fan shakes": a "not" that negates a verb of its own before
     // the phrase ("not rated", "not labeled") denies that verb, not the phrase.
     if (/^(?:not|never)$/i.test(text.slice(cue.start, cue.end)) && OWN_VERB.test(text.slice(cue.end, spans[first].start))) continue;
+    // "not one is labeled, no directory at all": "not one" counts none of them; it denies nothing after it.
+    if (/^not$/i.test(text.slice(cue.start, cue.end)) && /^\s+(?:one|a single)\b/i.test(text.slice(cue.end))) continue;
     negated[first] = true;
     for (let i = first + 1; i < spans.length && isListed(spans[i - 1], spans[i]); i++) negated[i] = true;
+  }
+  if (GENERAL_PROPERTY.test(text)) {
+    spans.forEach((s, i) => {
+      const clause = clauses[clauseOf(s.start)];
+      if (GENERAL_PROPERTY.test(text.slice(clause.start, clause.end))) negated[i] = true;
+    });
   }
   // "attic: knob-and-tube?": a phrase asked about, not reported.
   spans.forEach((s, i) => {

@@ -16,7 +16,7 @@ const COUNTABLE = /^(?:rec[ei]pt?[aeiu]?c(?:le|al|el)s?|recepts?|recep|rcpts?|ou
 /** Words that make the number a measure, not a count ("20 amp", "6 feet", "3-prong"). */
 const UNIT = /^(?:a|amps?|amperes?|v|volts?|awg|gauge|ga|ft|feet|foot|inch(?:es)?|in|years?|yrs?|prong|slot|wire|pole|way|mm|%|percent|degrees?|minutes?|hours?|days?)$/i;
 /** Words before a number that make it a name or an index ("bedroom 2", "slot 14", "#3"). */
-const INDEX_BEFORE = /^(?:bed|bed\s?rooms?|bath(?:room)?s?|br|bdrms?|rooms?|circuits?|breakers?|no|nos|item|items|page|section|unit|level|floor|space|position|slot|photo|fig|figure|step|zone|#|spaces|about|approximately|approx)$/i;
+const INDEX_BEFORE = /^(?:bed|bed\s?rooms?|bath(?:room)?s?|br|bdrms?|rooms?|rms?|circuits?|breakers?|no|nos|item|items|page|section|unit|level|floor|space|position|slot|photo|fig|figure|step|zone|#|spaces|about|approximately|approx)$/i;
 const ALLOWED_BETWEEN = 3;
 /** Service and branch voltages (NEC 220.5(A): 120, 120/240, 208Y/120, 240, 480Y/277 ...): never a count of devices. */
 const VOLTAGES: ReadonlySet<string> = new Set(['110', '115', '120', '125', '208', '220', '230', '240', '250', '277']);

@@ -2,6 +2,7 @@ import { readBlock } from './block-findings';
 import { splitBlocks } from './block-splitter';
 import { CODE_RULES } from './code-patterns';
 import { findingCodeInfo, type FindingCode } from './finding-code';
+import { answeredNoLines, withoutAnsweredNo } from './hazard-answer';
 import { withoutClosedItems } from './item-status';
 import { findRooms } from './room-lexicon';
 import type { Room } from './room';
@@ -58,6 +59,8 @@ export function parseReport(pages: readonly string[]): ParseResult {
   // Per finding: a list item that points to where the report describes it ("... (see 4.3)").
   const crossRef: boolean[] = [];
   const skipped: SkippedText[] = [];
+  // Lines of an insurance checklist that answer a hazard "no" ("Double taps ...... N").
+  const answeredNo = answeredNoLines(joined);
 
   for (const block of splitBlocks(joined)) {
     const { start, end } = sourceRange(block.text);
@@ -76,7 +79,8 @@ export function parseReport(pages: readonly string[]): ParseResult {
     // alarm are still electrical findings; nothing else there is read.
     // An earlier report's item that a re-inspection marks as put right ("... corrected", "CLOSED") reports nothing.
     const read = (): ReturnType<typeof readBlock> => {
-      const open = withoutClosedItems(block.text);
+      const closed = withoutClosedItems(block.text);
+      const open = closed === null ? null : withoutAnsweredNo(closed, answeredNo);
       return open === null ? { findings: [], hasNegated: true } : readBlock(open, block.section, block.rowCounts);
     };
     const result = outside && CROSS_SECTION_HINT.test(block.text.text) ? crossSectionOnly(read()) : outside ? null : read();

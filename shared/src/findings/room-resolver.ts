@@ -155,6 +155,10 @@ export function placeMatches(
       nearest(rooms, part.start, part.end, clause) ??
       nearest(rooms, part.start, text.length, { start: 0, end: part.start }) ??
       (match.rule.placeAnywhereInSentence ? nearest(rooms, part.end, part.end, { start: part.end, end: text.length }) : null);
+    // "the receptacle on the back wall" under a GARAGE heading is on the garage's back wall.
+    if (chosen && SIDE_WALL.test(chosen.text) && match.rule.defaultRoom !== 'exterior' && context.sectionRoom && context.sectionRoom !== 'exterior' && context.sectionRoom !== 'panel') {
+      return [{ room: context.sectionRoom, location: readLocation(text, chosen), ...own, isInferred: true }];
+    }
     if (chosen) return [{ room: chosen.room, location: readLocation(text, chosen), ...own }];
     // A house-wide code stays house-wide unless the sentence points at the place before ("evaluate this area").
     if (match.rule.ignoresContext && context.carried && POINTS_TO_PLACE.test(text)) return [{ ...context.carried, ...own, isInferred: true }];
@@ -170,6 +174,9 @@ export function placeMatches(
     return [{ room: match.rule.defaultRoom ?? 'unknown', location: '', ...own, isInferred: true }];
   });
 }
+
+/** A wall named only by its side ("the back wall"), which the room lexicon reads as the outside of the house. */
+const SIDE_WALL = /^(?:front|rear|side|back) (?:wall|elevation)$/i;
 
 const PLACE_COUNT_WORDS: Readonly<Record<string, number>> = { one: 1, two: 2, three: 3, four: 4, five: 5, six: 6, seven: 7, eight: 8, nine: 9, ten: 10 };
 /** A number just before a listed place ("two in the", "at three receptacles in the front"). */
