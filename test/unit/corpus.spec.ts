@@ -20,11 +20,13 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // H joined after its two untuned scores were recorded: the whole corpus scores precision 90.4 %,
 // recall 90.8 %, F1 90.6 %, quantity 96.7 % (floors below, rounded down; reset because the corpus
 // changed, not the parser). The goal is 0.95 on each; raise these floors as the parser gets there,
-// never lower them for the same corpus.
-const MIN_PRECISION = 0.903;
-const MIN_RECALL = 0.907;
-const MIN_F1 = 0.905;
-const MIN_QUANTITY = 0.966;
+// never lower them for the same corpus. Seventh round: 20 room labels brought to the lead's room
+// conventions (test/corpus/batches/room-labels-2026-12-04.md) and the parser made to follow them:
+// P 91.38 %, R 91.74 %, F1 91.56 %, quantity 96.67 % (floors below, rounded down).
+const MIN_PRECISION = 0.9137;
+const MIN_RECALL = 0.9174;
+const MIN_F1 = 0.9156;
+const MIN_QUANTITY = 0.9667;
 
 describe('report parser corpus', () => {
   let run: BatchRun;
