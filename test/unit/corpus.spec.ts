@@ -19,13 +19,15 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // two rounds tuned on them were merged (corpus then P 92.4 %, R 92.3 %, F1 92.3 %, quantity 97.1 %).
 // H joined after its two untuned scores were recorded: the whole corpus scores precision 90.4 %,
 // recall 90.8 %, F1 90.6 %, quantity 96.7 % (floors below, rounded down; reset because the corpus
-// changed, not the parser). Seventh round (batch H's voices): precision 91.53 %, recall 91.47 %,
-// F1 91.50 %, quantity 96.66 % (floors below, rounded down). The goal is 0.95 on each; raise these
-// floors as the parser gets there, never lower them for the same corpus.
-const MIN_PRECISION = 0.915;
-const MIN_RECALL = 0.914;
-const MIN_F1 = 0.915;
-const MIN_QUANTITY = 0.9665;
+// changed, not the parser). Seventh round, two branches merged (batch H's voices; 20 room labels
+// brought to the lead's room conventions, test/corpus/batches/room-labels-2026-12-04.md, and the
+// parser made to follow them): precision 92.5 %, recall 92.4 %, F1 92.5 %, quantity 96.6 %
+// (2661/2754) (floors below, rounded down). The goal is 0.95 on each; raise these floors as the
+// parser gets there, never lower them for the same corpus.
+const MIN_PRECISION = 0.924;
+const MIN_RECALL = 0.923;
+const MIN_F1 = 0.924;
+const MIN_QUANTITY = 0.966;
 
 describe('report parser corpus', () => {
   let run: BatchRun;

@@ -9,6 +9,7 @@ import { deviceRating, nameplateMaximum, type CarriedRatings } from './overcurre
 import { findingQuantity, isCounted, readCount } from './quantity-reader';
 import { findRooms, type RoomMention } from './room-lexicon';
 import type { Room } from './room';
+import { applyRoomConventions, houseWideAlarmCount } from './room-conventions';
 import { lastPlaceMention, placeMatches, POINTS_TO_PLACE } from './room-resolver';
 import type { RowCount, Section } from './block-splitter';
 import { splitSentences } from './sentence-splitter';
@@ -107,7 +108,8 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
   // places are read only as far as a sentence with phrases can use them: the places a sentence
   // names serve its own phrases and those of later sentences (as the place referred back to or
   // the block's opening place), never earlier ones.
-  const sentences = splitSentences(readSpokenPunctuation(text)).map((source) => {
+  const sources = splitSentences(readSpokenPunctuation(text));
+  const sentences = sources.map((source) => {
     const written = rowCounts.length > 0 ? blankItemNumbers(source, rowCounts) : source;
     const sentence = normaliseText(written);
     const matches = matchCodes(sentence.text, { carried: ratings });
@@ -131,12 +133,12 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
         ? { room: previous.mention.room, location: readLocation(previous.text, previous.mention) }
         : null;
     const rooms = sentenceIndex <= lastWithPhrases ? findRooms(sentence.text) : [];
-    const placements = placeMatches(
+    const placements = applyRoomConventions(
       sentence.text,
       live,
-      { carried, opening, sectionRoom: section.room, sectionTitle: section.title },
-      rooms,
+      placeMatches(sentence.text, live, { carried, opening, sectionRoom: section.room, sectionTitle: section.title }, rooms, clauses),
       clauses,
+      { sectionRoom: section.room, previousText: sentenceIndex > 0 ? sources[sentenceIndex - 1].text : '' },
     );
     const inSentence: BlockFinding[] = [];
     // A table row's quantity column gives the count of the row's findings.
@@ -150,8 +152,8 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
           match.rule.code === 'false-ground' && (own === null || own === 1)
             ? (receptacleCount(sentence.text) ?? own)
             : // "No carbon monoxide alarm anywhere in the home": an alarm missing house-wide names no number to install.
-              match.rule.code === 'smoke-co-alarm' && place.room === 'whole-house' && own === 1
-              ? null
+              match.rule.code === 'smoke-co-alarm' && place.room === 'whole-house' && (own === 1 || own === null)
+              ? houseWideAlarmCount(`${sentence.text.slice(match.end)} ${sources[sentenceIndex + 1]?.text ?? ''}`)
               : // "The three-prong outlets ... show an open ground": the article is the defect's, the receptacles are plural and uncounted.
               match.rule.code === 'open-ground' && own === 1 && !/^\d+ devices$/.test(place.countText) && PLURAL_RCPT_ONLY.test(sentence.text) && readCount(sentence.text, 0, RECEPTACLE_NOUN) === null
               ? null

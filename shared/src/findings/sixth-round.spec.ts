@@ -15,8 +15,8 @@ describe("counts: issue 10's rule, a singular named device or piece of equipment
   });
 
   it('counts a grounding or bonding defect as one, whether a part is loose or missing', () => {
-    // The writers place a defect at the rod at the panel (fifth round).
-    expect(read('The clamp on the ground rod beside the meter has rusted loose.')).toEqual([['grounding-electrode', 'panel', 1]]);
+    // A defect at the rod is outdoors (the lead's room convention, seventh round: room-conventions.ts).
+    expect(read('The clamp on the ground rod beside the meter has rusted loose.')).toEqual([['grounding-electrode', 'exterior', 1]]);
     expect(read('No bonding jumper was located on the gas line at the furnace in the basement.')).toEqual([['grounding-electrode', 'basement', 1]]);
   });
 
