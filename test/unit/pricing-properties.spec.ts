@@ -256,13 +256,18 @@ describe('rounding against decimal.js', () => {
       fc.property(fc.integer({ min: 0, max: 10_000_000 }), fc.array(fc.integer({ min: 0, max: 10_000 }), { minLength: 1, maxLength: 30 }), (total, weights) => {
         const sum = weights.reduce((a, b) => a + b, 0);
         fc.pre(sum > 0);
-        const exact = weights.map((w) => new Decimal(total).times(w).div(sum));
-        const floors = exact.map((e) => e.floor().toNumber());
+        // Whole shares and remainders in exact integers: total × w = floor × sum + remainder. (A
+        // remainder read off a divided decimal keeps fewer fractional digits the larger its whole
+        // part, so equal remainders of different shares compared unequal on some inputs.)
+        const products = weights.map((w) => new Decimal(total).times(w));
+        const floors = products.map((p) => p.divToInt(sum).toNumber());
         let left = total - floors.reduce((a, b) => a + b, 0);
-        const order = exact.map((e, i) => ({ i, r: e.minus(e.floor()) })).sort((a, b) => b.r.comparedTo(a.r) || a.i - b.i);
+        const order = products.map((p, i) => ({ i, r: p.mod(sum) })).sort((a, b) => b.r.comparedTo(a.r) || a.i - b.i);
         for (const { i } of order) if (left-- > 0) floors[i] += 1;
         expect(allocateByWeight(total, weights)).toEqual(floors);
       }),
+      // Three equal remainders (33236/45106) on shares of different sizes, found by a random run.
+      { examples: [[1_773_378, [2504, 2330, 1383, 5956, 8249, 9414, 5935, 7805, 1530]]] },
     );
   });
 });
