@@ -6,6 +6,7 @@ import session from 'express-session';
 import helmet from 'helmet';
 import { createPassport } from './auth/passport';
 import { createSessionStore } from './auth/session-store';
+import { SESSION_CACHE_MS, SessionCache, SessionChangeListener } from './auth/session-cache';
 import type { Config } from './config/config';
 import type { Db } from './db/knex';
 import { createReadPool } from './db/read-pool';
@@ -18,17 +19,29 @@ import { createPaymentWebhookRouter } from './payments/payment-webhook.router';
 export interface App {
   app: Express;
   services: Services;
-  /** Closes what the app opened (the read pool of sessions and lists). The caller owns `db`. */
+  /** Sessions and their users kept for a moment, and the listener that tells it of changes. */
+  sessionCache: SessionCache;
+  sessionChanges: SessionChangeListener;
+  /** Closes what the app opened (the read pool of sessions and lists, the listener). The caller owns `db`. */
   close(): Promise<void>;
 }
 
+export interface AppOptions {
+  /** How long a session is kept in the process (tests lengthen it to show that changes, not time, end it). */
+  sessionCacheMs?: number;
+}
+
 /** Builds the Express app without listening, so tests can drive it with supertest. */
-export function createApp(config: Config, db: Db): App {
+export function createApp(config: Config, db: Db, options: AppOptions = {}): App {
   // The session with its user and list pages run as prepared statements on their own connections.
   const readPool = createReadPool(config.databaseUrl);
-  const services = createServices(db, config, readPool);
+  // Sessions and their users are kept a moment, only while a connection listens for their changes.
+  const sessionCache = new SessionCache(options.sessionCacheMs ?? SESSION_CACHE_MS);
+  const sessionChanges = new SessionChangeListener(config.databaseUrl, sessionCache);
+  sessionChanges.start();
+  const services = createServices(db, config, readPool, sessionCache);
   const passport = createPassport(services.auth, services.repositories.users);
-  const store = createSessionStore(readPool, { prune: config.env !== 'test' });
+  const store = createSessionStore(readPool, sessionCache, { prune: config.env !== 'test' });
   const csrf = csrfSync({ getTokenFromRequest: (req) => req.headers['x-csrf-token'] as string | undefined });
 
   const app = express();
@@ -87,9 +100,11 @@ export function createApp(config: Config, db: Db): App {
   return {
     app,
     services,
+    sessionCache,
+    sessionChanges,
     async close() {
       store.close();
-      await Promise.all([readPool.end(), services.reportReader.close()]);
+      await Promise.all([sessionChanges.close(), readPool.end(), services.reportReader.close()]);
     },
   };
 }

@@ -10,6 +10,7 @@ import { ReportFileRepository } from './intake/report-file.repository';
 import { LIST_COUNT_CAP, RequestRepository } from './requests/request.repository';
 import { UserRepository } from './auth/user.repository';
 import { SessionRepository } from './auth/session.repository';
+import { NO_SESSION_CACHE, type SessionInvalidation } from './auth/session-cache';
 import { AdminService } from './admin/admin.service';
 import { AuthService } from './auth/auth.service';
 import { BallparkService } from './pricing/ballpark.service';
@@ -56,7 +57,7 @@ import { IntakePhotosService } from './economics/intake-photos';
 import { dayPlanDriveTime } from './economics/drive-time';
 
 /** Builds every repository and service of the app from one database handle and the config. */
-export function createServices(db: Db, config: Config, readPool: pg.Pool | null = null) {
+export function createServices(db: Db, config: Config, readPool: pg.Pool | null = null, sessions: SessionInvalidation = NO_SESSION_CACHE) {
   const users = new UserRepository(db);
   const organisations = new OrganisationRepository(db);
   const requests = new RequestRepository(db, LIST_COUNT_CAP, readPool);
@@ -107,8 +108,8 @@ export function createServices(db: Db, config: Config, readPool: pg.Pool | null 
     dashboards: new DashboardsService(new DashboardsRepository(db)),
     storage,
     reportReader,
-    auth: new AuthService(users, passwords, new SessionRepository(db)),
-    admin: new AdminService(users, organisations, passwords, db),
+    auth: new AuthService(users, passwords, new SessionRepository(db), sessions),
+    admin: new AdminService(users, organisations, passwords, db, sessions),
     requests: requestsService,
     invitations: new InvitationsService(db, requests, users, passwords),
     reportIntake: new ReportIntakeService(db, requestsService, requests, reports, items, storage, reportReader, flow, notifications),

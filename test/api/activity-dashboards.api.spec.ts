@@ -39,7 +39,7 @@ describe('GET /api/requests/:id/activity (the timeline)', () => {
   });
 
   it('records an edit of an item with the values before and after, and a removal', async () => {
-    const [first, second] = (await cast.s.buyerAgent.agent.get(`/api/requests/${requestId}/items`).expect(200)).body;
+    const [first, second] = (await cast.s.buyerAgent.agent.get(`/api/requests/${requestId}/items`).expect(200)).body.items;
     await write(cast.s.buyerAgent, 'patch', `/api/requests/${requestId}/items/${first.id}`).send({ version: first.version, quantity: 3, location: 'hall bath, both sinks' }).expect(200);
     await write(cast.s.buyerAgent, 'delete', `/api/requests/${requestId}/items/${second.id}?version=${second.version}`).expect(204);
     const items = await timeline('?kind=items');

@@ -1,3 +1,4 @@
+import { itemsWithNotes, LineItemListSchema } from '@cc/shared';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 import { createUser, resetDatabase, signIn, validRequestBody, type SignedIn } from '../helpers/fixtures';
 
@@ -31,24 +32,43 @@ async function requestWithItems(): Promise<{ id: number; items: Item[]; reportId
   const id = created.body.id;
   const up = await agent.agent.post(`/api/requests/${id}/reports/paste`).set('x-csrf-token', agent.csrfToken).send({ text: `${REPORT}\n(${id})` });
   expect(up.status).toBe(201);
-  const items = (await agent.agent.get(`/api/requests/${id}/items`)).body;
+  const items = await listed(id);
   return { id, items, reportId: up.body.report.id };
 }
 const find = (items: Item[], code: string) => items.find((i) => i.code === code)!;
+/** The request's items with their edition notes in place (the answer sends each note once, by key). */
+const listed = async (id: number) => itemsWithNotes(LineItemListSchema.parse((await agent.agent.get(`/api/requests/${id}/items`).expect(200)).body));
 
 describe('GET /api/requests/:id/items', () => {
   it('lists the proposals with labels for codes and edition notes where they apply', async () => {
     const { id, items } = await requestWithItems();
     expect(items.map((i) => i.code).sort()).toEqual(['double-tap', 'gfci-missing', 'open-ground']);
     expect(find(items, 'open-ground')).toMatchObject({ room: 'living-area', quantity: 3 });
-    const gfci = (await agent.agent.get(`/api/requests/${id}/items`)).body.find((i: Item) => i.code === 'gfci-missing');
+    const gfci = (await listed(id)).find((i) => i.code === 'gfci-missing')!;
     // NFPA 70 (NEC) 2005, 210.8(A) lists garages, so the adopted edition asks for GFCI there; the
     // first year, 1978 (from memory), is the year this house was built, so it could go either way.
     expect(gfci.editionNote).toMatchObject({ requiredByAdoptedEdition: true, firstRequired: 1978, builtUnder: 'came-in-that-year' });
-    expect(gfci.editionNote.requiredSince).toBeLessThanOrEqual(2017);
-    expect(gfci.editionNote.text).toContain('authority having jurisdiction');
+    expect(gfci.editionNote!.requiredSince).toBeLessThanOrEqual(2017);
+    expect(gfci.editionNote!.text).toContain('authority having jurisdiction');
     await seller.agent.get(`/api/requests/${id}/items`).expect(200);
     await outsider.agent.get(`/api/requests/${id}/items`).expect(404);
+  });
+
+  it('sends each edition note once, however many items share it', async () => {
+    const { id } = await requestWithItems();
+    for (const location of ['left bay', 'right bay']) {
+      await agent.agent.post(`/api/requests/${id}/items`).set('x-csrf-token', agent.csrfToken).send({ code: 'gfci-missing', room: 'garage', location, quantity: 1 }).expect(201);
+    }
+    const res = await agent.agent.get(`/api/requests/${id}/items`).expect(200);
+    const list = LineItemListSchema.parse(res.body);
+    const garage = list.items.filter((i) => i.code === 'gfci-missing' && i.room === 'garage');
+    expect(garage).toHaveLength(3);
+    expect(new Set(garage.map((i) => i.editionNoteKey))).toEqual(new Set(['gfci-missing/garage']));
+    expect(Object.keys(list.editionNotes).sort()).toEqual(['gfci-missing/garage']);
+    expect(list.items.find((i) => i.code === 'double-tap')!.editionNoteKey).toBeNull();
+    expect(res.body.items.every((i: object) => !('editionNote' in i))).toBe(true);
+    const noteText = list.editionNotes['gfci-missing/garage'].text;
+    expect(res.text.split(JSON.stringify(noteText)).length - 1).toBe(1);
   });
 });
 
@@ -68,7 +88,7 @@ describe('PATCH /api/requests/:id/items/:itemId', () => {
     const second = await agent.agent.patch(`/api/requests/${id}/items/${item.id}`).set('x-csrf-token', agent.csrfToken).send({ version: item.version, location: 'second writer' });
     expect(second.status).toBe(409);
     expect(second.body.error).toMatch(/changed by someone else/);
-    const now = (await agent.agent.get(`/api/requests/${id}/items`)).body.find((i: Item) => i.id === item.id);
+    const now = (await listed(id)).find((i) => i.id === item.id)!;
     expect(now.location).toBe('first writer');
   });
 
@@ -94,7 +114,7 @@ describe('merge, split, add, remove', () => {
     const res = await agent.agent.post(`/api/requests/${id}/items/merge`).set('x-csrf-token', agent.csrfToken).send({ items: [{ id: a.id, version: a.version }, { id: added.id, version: added.version }] });
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ id: a.id, quantity: 5 });
-    const after = (await agent.agent.get(`/api/requests/${id}/items`)).body;
+    const after = await listed(id);
     expect(after.some((i: Item) => i.id === added.id)).toBe(false);
   });
 
@@ -146,7 +166,7 @@ describe('POST /api/requests/:id/items/confirm', () => {
     const { id, items } = await requestWithItems();
     const res = await agent.agent.post(`/api/requests/${id}/items/confirm`).set('x-csrf-token', agent.csrfToken).send({ items: items.slice(1).map((i) => ({ id: i.id, version: i.version })) });
     expect(res.status).toBe(409);
-    const after = (await agent.agent.get(`/api/requests/${id}/items`)).body;
+    const after = await listed(id);
     expect(after.every((i: Item) => i.status === 'proposed')).toBe(true);
     expect((await agent.agent.get(`/api/requests/${id}`)).body.status).toBe('intake');
   });

@@ -84,7 +84,7 @@ describe('each step of the flow e-mails the right people, with a link to the pag
   });
 
   it('ready to price: the assigned contractor’s people hear when the agent confirms the items', async () => {
-    const items = (await cast.s.buyerAgent.agent.get(`/api/requests/${requestId}/items`).expect(200)).body as { id: number; version: number }[];
+    const items = (await cast.s.buyerAgent.agent.get(`/api/requests/${requestId}/items`).expect(200)).body.items as { id: number; version: number }[];
     await write(cast.s.buyerAgent, 'post', `/api/requests/${requestId}/items/confirm`)
       .send({ items: items.map((i) => ({ id: i.id, version: i.version })) })
       .expect(200);

@@ -70,14 +70,14 @@ describe('POST /api/requests/:id/reports', () => {
     expect(res.body.report.skipped.some((s: { text: string }) => /shingles/.test(s.text))).toBe(true);
 
     const items = await agent.agent.get(`/api/requests/${id}/items`).expect(200);
-    const byCode = Object.fromEntries(items.body.map((i: { code: string }) => [i.code, i]));
+    const byCode = Object.fromEntries(items.body.items.map((i: { code: string }) => [i.code, i]));
     expect(byCode['gfci-missing']).toMatchObject({ room: 'bathroom', page: 1, status: 'proposed' });
     expect(byCode['reversed-polarity']).toMatchObject({ room: 'bedroom', page: 2, status: 'proposed' });
     expect(res.body.report.pages).toBeUndefined();
     const text = await agent.agent.get(`/api/requests/${id}/reports/${res.body.report.id}/text`).expect(200);
     expect(text.body).toEqual({ id: res.body.report.id, pages: [expect.stringContaining('ROOFING'), expect.stringContaining('Reversed polarity')] });
     const joined = text.body.pages.join('\f');
-    for (const item of items.body) expect(joined.slice(item.evidenceStart, item.evidenceEnd)).toBe(item.evidence);
+    for (const item of items.body.items) expect(joined.slice(item.evidenceStart, item.evidenceEnd)).toBe(item.evidence);
     expect((await counts(id)).status).toBe('intake');
   });
 
@@ -152,7 +152,7 @@ describe('POST /api/requests/:id/reports/paste', () => {
     expect(res.status).toBe(201);
     expect(res.body.report.kind).toBe('pasted');
     const items = await agent.agent.get(`/api/requests/${id}/items`);
-    expect(items.body.map((i: { code: string }) => i.code)).toEqual(['reversed-polarity']);
+    expect(items.body.items.map((i: { code: string }) => i.code)).toEqual(['reversed-polarity']);
   });
 
   it('responds 400 on the field for empty text', async () => {
@@ -167,7 +167,7 @@ describe('POST /api/requests/:id/reports/:reportId/reparse', () => {
   it('replaces untouched proposals and keeps edited and removed ones', async () => {
     const id = await newRequest();
     const up = await agent.agent.post(`/api/requests/${id}/reports/paste`).set('x-csrf-token', agent.csrfToken).send({ text: `${PAGE_1}\n${PAGE_2}` });
-    const items = (await agent.agent.get(`/api/requests/${id}/items`)).body;
+    const items = (await agent.agent.get(`/api/requests/${id}/items`)).body.items;
     const gfci = items.find((i: { code: string }) => i.code === 'gfci-missing');
     const polarity = items.find((i: { code: string }) => i.code === 'reversed-polarity');
     await agent.agent.patch(`/api/requests/${id}/items/${gfci.id}`).set('x-csrf-token', agent.csrfToken).send({ version: gfci.version, location: 'hall bath, left of sink', quantity: 2 }).expect(200);
@@ -175,7 +175,7 @@ describe('POST /api/requests/:id/reports/:reportId/reparse', () => {
 
     const re = await agent.agent.post(`/api/requests/${id}/reports/${up.body.report.id}/reparse`).set('x-csrf-token', agent.csrfToken);
     expect(re.status).toBe(200);
-    const after = (await agent.agent.get(`/api/requests/${id}/items`)).body;
+    const after = (await agent.agent.get(`/api/requests/${id}/items`)).body.items;
     expect(after.filter((i: { code: string }) => i.code === 'gfci-missing')).toEqual([expect.objectContaining({ id: gfci.id, location: 'hall bath, left of sink', quantity: 2, isEdited: true })]);
     expect(after.some((i: { code: string }) => i.code === 'reversed-polarity')).toBe(false);
   });

@@ -1,5 +1,6 @@
 import type { Express } from 'express';
-import { createApp } from '../../server/src/app';
+import { createApp, type AppOptions } from '../../server/src/app';
+import type { SessionCache, SessionChangeListener } from '../../server/src/auth/session-cache';
 import { loadConfig, type Config } from '../../server/src/config/config';
 import { createDb, type Db } from '../../server/src/db/knex';
 import type { Services } from '../../server/src/services';
@@ -9,11 +10,13 @@ export interface TestApp {
   db: Db;
   config: Config;
   services: Services;
+  sessionCache: SessionCache;
+  sessionChanges: SessionChangeListener;
   close(): Promise<void>;
 }
 
 /** The real app on the test database (DATABASE_URL), with test settings overridable per file. */
-export function createTestApp(overrides: NodeJS.ProcessEnv = {}): TestApp {
+export function createTestApp(overrides: NodeJS.ProcessEnv = {}, options: AppOptions = {}): TestApp {
   const config = loadConfig({
     NODE_ENV: 'test',
     SESSION_SECRET: 'test-secret-that-is-only-used-by-the-test-suite',
@@ -26,10 +29,12 @@ export function createTestApp(overrides: NodeJS.ProcessEnv = {}): TestApp {
     ...overrides,
   });
   const db = createDb(config.databaseUrl, 4);
-  const { app, close, services } = createApp(config, db);
+  const { app, close, services, sessionCache, sessionChanges } = createApp(config, db, options);
   return {
     app,
     services,
+    sessionCache,
+    sessionChanges,
     db,
     config,
     async close() {

@@ -5,6 +5,7 @@ import type { OrganisationRepository } from '../organisations/organisation.repos
 import type { UserRepository } from '../auth/user.repository';
 import { ConflictError, NotFoundError, ValidationError } from '../errors';
 import type { Passwords } from '../auth/passwords';
+import type { SessionInvalidation } from '../auth/session-cache';
 
 /** Which organisation kinds each role may belong to (null: none needed). */
 const ORGANISATION_KIND_FOR_ROLE: Record<CreateUser['role'], Organisation['kind'] | null> = {
@@ -21,6 +22,8 @@ export class AdminService {
     private readonly organisations: OrganisationRepository,
     private readonly passwords: Passwords,
     private readonly db: Db,
+    /** This process's kept sessions: told of each account change here once it is written. */
+    private readonly kept: SessionInvalidation,
   ) {}
 
   listOrganisations(page: number, pageSize: number): Promise<Page<Organisation>> {
@@ -80,7 +83,11 @@ export class AdminService {
       throw new ValidationError('That e-mail is taken', [{ path: 'email', message: 'An account with this e-mail exists already' }]);
     }
     await this.checkOrganisation(user.role, input.organisationId);
-    await this.users.update(id, input);
+    try {
+      await this.users.update(id, input);
+    } finally {
+      this.kept.forgetUser(id);
+    }
     return this.account(id);
   }
 
@@ -88,10 +95,14 @@ export class AdminService {
   async setUserActive(admin: CurrentUser, id: number, isActive: boolean): Promise<User> {
     await this.account(id);
     if (admin.id === id && !isActive) throw new ConflictError('You cannot deactivate your own account');
-    await this.db.transaction(async (trx) => {
-      await this.users.setActive(id, isActive, trx);
-      if (!isActive) await this.users.endSessions(id, trx);
-    });
+    try {
+      await this.db.transaction(async (trx) => {
+        await this.users.setActive(id, isActive, trx);
+        if (!isActive) await this.users.endSessions(id, trx);
+      });
+    } finally {
+      this.kept.forgetUser(id);
+    }
     return this.account(id);
   }
 
@@ -101,10 +112,14 @@ export class AdminService {
     if (!user.isActive) throw new ConflictError('Reactivate the account before resetting its password');
     const temporaryPassword = temporaryPasswordText();
     const hash = await this.passwords.hash(temporaryPassword);
-    await this.db.transaction(async (trx) => {
-      await this.users.setPasswordHash(id, hash, trx);
-      await this.users.endSessions(id, trx);
-    });
+    try {
+      await this.db.transaction(async (trx) => {
+        await this.users.setPasswordHash(id, hash, trx);
+        await this.users.endSessions(id, trx);
+      });
+    } finally {
+      this.kept.forgetUser(id);
+    }
     return { temporaryPassword };
   }
 
@@ -115,7 +130,12 @@ export class AdminService {
     if (input.kind !== org.kind) {
       throw new ValidationError('The kind of an organisation cannot change', [{ path: 'kind', message: 'The kind stays as it was: add a new organisation for another kind' }]);
     }
-    return (await this.organisations.update(id, input))!;
+    try {
+      return (await this.organisations.update(id, input))!;
+    } finally {
+      // Its name is part of its people's signed-in user.
+      this.kept.forgetOrganisation(id);
+    }
   }
 }
 

@@ -3,6 +3,7 @@ import type { SessionRepository } from './session.repository';
 import type { UserRepository } from './user.repository';
 import { ValidationError } from '../errors';
 import type { Passwords } from './passwords';
+import type { SessionInvalidation } from './session-cache';
 
 export class AuthService {
   /** A real hash to compare against when the e-mail is unknown, so both paths take the same time. */
@@ -12,6 +13,8 @@ export class AuthService {
     private readonly users: UserRepository,
     private readonly passwords: Passwords,
     private readonly sessions: SessionRepository,
+    /** This process's kept sessions: told of each change here at once (other processes by notice). */
+    private readonly kept: SessionInvalidation,
   ) {}
 
   /**
@@ -25,7 +28,10 @@ export class AuthService {
     this.unknownUserHash ??= this.passwords.hash('no account has this password');
     const isValid = await this.passwords.verify(password, hash ?? (await this.unknownUserHash));
     if (!user || !hash || !isValid) return null;
-    if (this.passwords.needsRehash(hash)) await this.users.setPasswordHash(user.id, await this.passwords.hash(password));
+    if (this.passwords.needsRehash(hash)) {
+      await this.users.setPasswordHash(user.id, await this.passwords.hash(password));
+      this.kept.forgetUser(user.id);
+    }
     return user;
   }
 
@@ -37,7 +43,12 @@ export class AuthService {
         { path: 'currentPassword', message: 'This is not your current password' },
       ]);
     }
-    await this.users.setPasswordHash(user.id, await this.passwords.hash(input.newPassword));
-    await this.sessions.endOthers(user.id, sessionId);
+    try {
+      await this.users.setPasswordHash(user.id, await this.passwords.hash(input.newPassword));
+      await this.sessions.endOthers(user.id, sessionId);
+    } finally {
+      // After the writes, before the answer: the very next request of any other session reads again.
+      this.kept.forgetUser(user.id);
+    }
   }
 }

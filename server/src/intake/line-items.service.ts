@@ -1,5 +1,8 @@
 import {
   editionNote,
+  editionNoteKey,
+  toLineItemList,
+  type LineItemList,
   findingCodeInfo,
   itemMove,
   type RepairRequestDetail,
@@ -42,9 +45,24 @@ export class LineItemsService {
     return { ...item, editionNote: editionNote(item.code, item.room, house) };
   }
 
-  async list(user: CurrentUser, requestId: number): Promise<LineItem[]> {
+  /** The request's items as the item list sends them: each distinct edition note once (LineItemList). */
+  async list(user: CurrentUser, requestId: number): Promise<LineItemList> {
+    return toLineItemList(await this.listItems(user, requestId));
+  }
+
+  /** The request's items, each with its note; the note of one code and room is made once. */
+  private async listItems(user: CurrentUser, requestId: number): Promise<LineItem[]> {
     const house = await this.access.house(user, requestId);
-    return (await this.items.listForRequest(requestId)).map((i) => this.withNote(i, house));
+    const notes = new Map<string, LineItem['editionNote']>();
+    return (await this.items.listForRequest(requestId)).map((item) => {
+      const key = editionNoteKey(item);
+      let note = notes.get(key);
+      if (note === undefined) {
+        note = editionNote(item.code, item.room, house);
+        notes.set(key, note);
+      }
+      return { ...item, editionNote: note };
+    });
   }
 
   /** 404 unless visible, 403 unless one of its agents (or admin), 409 once intake is over. */
@@ -188,6 +206,6 @@ export class LineItemsService {
       await this.flow.moveRequest(trx, requestId, 'confirm-items', mover, `${current.length} ${current.length === 1 ? 'item' : 'items'} confirmed`, REVIEW_REFUSED);
       for (const item of current) await this.flow.moveItem(trx, item, 'confirm', mover, ITEM_REFUSED);
     });
-    return this.list(user, requestId);
+    return this.listItems(user, requestId);
   }
 }

@@ -50,6 +50,41 @@ export const LineItemSchema = z.object({
 });
 export type LineItem = z.infer<typeof LineItemSchema>;
 
+/**
+ * A request's items as `GET /api/requests/:id/items` answers them: each distinct edition note once,
+ * in `editionNotes` by key, and each item with the key of its note (null when it has none). A
+ * request's notes depend only on the item's code and room (the house is the request's), so a list
+ * of 16 items carries a handful of notes instead of 16 copies. `itemsWithNotes` gives the items back
+ * with their notes in place.
+ */
+export const LineItemListSchema = z.object({
+  items: z.array(LineItemSchema.omit({ editionNote: true }).extend({ editionNoteKey: z.string().nullable() })),
+  editionNotes: z.record(z.string(), ItemEditionNoteSchema),
+});
+export type LineItemList = z.infer<typeof LineItemListSchema>;
+
+/** The key of an item's edition note within one request: the note depends on the code and the room only. */
+export function editionNoteKey(item: Pick<LineItem, 'code' | 'room'>): string {
+  return `${item.code}/${item.room}`;
+}
+
+/** Items with their notes (each note once, under its key), as the item list is sent. */
+export function toLineItemList(items: readonly LineItem[]): LineItemList {
+  const editionNotes: LineItemList['editionNotes'] = {};
+  const listed = items.map(({ editionNote, ...item }) => {
+    if (editionNote === null) return { ...item, editionNoteKey: null };
+    const key = editionNoteKey(item);
+    editionNotes[key] ??= editionNote;
+    return { ...item, editionNoteKey: key };
+  });
+  return { items: listed, editionNotes };
+}
+
+/** The items of a list with their notes in place (items of one note share the one object). */
+export function itemsWithNotes(list: LineItemList): LineItem[] {
+  return list.items.map(({ editionNoteKey: key, ...item }) => ({ ...item, editionNote: key === null ? null : (list.editionNotes[key] ?? null) }));
+}
+
 const quantity = z.number().int().min(1, 'Use a whole number of 1 or more').max(999).nullable();
 
 export const UpdateLineItemSchema = z.object({

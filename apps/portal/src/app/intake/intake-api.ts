@@ -3,7 +3,9 @@ import { inject, Injectable } from '@angular/core';
 import {
   ConfirmItems,
   CreateLineItem,
+  itemsWithNotes,
   LineItem,
+  LineItemList,
   MergeLineItems,
   PasteReport,
   ReportFile,
@@ -12,7 +14,7 @@ import {
   UpdateLineItem,
   UploadResult,
 } from '@cc/shared';
-import { Observable } from 'rxjs';
+import { map, Observable } from 'rxjs';
 
 /** The report-intake and item-review routes of one repair request. */
 @Injectable({ providedIn: 'root' })
@@ -44,8 +46,9 @@ export class IntakeApi {
     return this.http.post<UploadResult>(`/api/requests/${requestId}/reports/${reportId}/reparse`, {});
   }
 
+  /** The request's items with their edition notes in place (the answer sends each note once). */
   items(requestId: number): Observable<LineItem[]> {
-    return this.http.get<LineItem[]>(`/api/requests/${requestId}/items`);
+    return this.http.get<LineItemList>(`/api/requests/${requestId}/items`).pipe(map(itemsWithNotes));
   }
 
   add(requestId: number, dto: CreateLineItem): Observable<LineItem> {

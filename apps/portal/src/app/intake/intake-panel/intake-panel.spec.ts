@@ -5,7 +5,7 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatExpansionPanelHarness } from '@angular/material/expansion/testing';
 import { MatTableHarness } from '@angular/material/table/testing';
-import { PartyRole, RepairRequestDetail, RequestStatus, Role } from '@cc/shared';
+import { PartyRole, RepairRequestDetail, RequestStatus, Role, toLineItemList } from '@cc/shared';
 import { Auth } from '../../core/auth/auth';
 import { proposedItems, report, reportText } from '../testing/intake-fixtures';
 import { IntakePanel } from './intake-panel';
@@ -52,7 +52,8 @@ describe('IntakePanel', () => {
     loader = TestbedHarnessEnvironment.loader(fixture);
     await fixture.whenStable();
     httpTesting.expectOne('/api/requests/12/reports').flush([report()]);
-    httpTesting.expectOne('/api/requests/12/items').flush(items);
+    // The item list as the server sends it: each edition note once, by key.
+    httpTesting.expectOne('/api/requests/12/items').flush(toLineItemList(items));
     // The review (where shown) loads the text of the report beside it.
     fixture.detectChanges();
     for (const text of httpTesting.match('/api/requests/12/reports/5/text')) text.flush(reportText());
@@ -120,6 +121,6 @@ describe('IntakePanel', () => {
     expect([reports.length, items.length]).toEqual([1, 1]);
     expect(reports[0].cancelled || items[0].cancelled).toBe(false);
     reports[0].flush([report()]);
-    items[0].flush(proposedItems());
+    items[0].flush(toLineItemList(proposedItems()));
   });
 });

@@ -70,7 +70,7 @@ describe('RequestDetail', () => {
     await fixture.whenStable();
     // The line-items area loads the request's reports and items (none yet in these cases).
     httpTesting.expectOne('/api/requests/12/reports').flush([]);
-    httpTesting.expectOne('/api/requests/12/items').flush([]);
+    httpTesting.expectOne('/api/requests/12/items').flush({ items: [], editionNotes: {} });
     // Agents of a request in draft get the contractor picker, which lists the contractors.
     httpTesting.match('/api/contractors').forEach((req) => req.flush([]));
     flushActivity();
