@@ -22,8 +22,8 @@ const TEXT_REPORT = [
   '7.1 Two receptacles in the primary bathroom are not GFCI protected.',
   '7.2 The exterior receptacle at the rear patio has no weatherproof cover.',
   '',
-  'Section 8 - Exterior',
-  'Gutters are clogged with leaves. The low-voltage landscape light cable lies across the walkway.',
+  'Section 8 - Roofing',
+  'Shingles are lifting at the ridge. The heat cable along the gutter hangs loose from its clips.',
 ].join('\n');
 
 // A report with one passage the reader names electrical things in but makes no item of.
@@ -187,8 +187,9 @@ describe('a buyer’s agent takes in an inspection report', () => {
     expect(await page.getByTestId('parse-result-proposed').textContent()).toBe('2 items proposed');
     await page.getByTestId('review-item-row').nth(1).waitFor();
 
-    // The reader skipped the landscape cable (it sits under "Exterior"); the agent adds it by hand.
-    const missed = 'low-voltage landscape light cable lies across the walkway';
+    // The reader skipped the gutter's heat cable (it sits under "Roofing", a section of another
+    // trade); the agent adds it by hand.
+    const missed = 'heat cable along the gutter hangs loose from its clips';
     await selectReportText(missed);
     expect(await page.getByTestId('review-selection-text').textContent()).toBe(missed);
     await page.getByTestId('review-add-from-selection').click();
