@@ -18,6 +18,7 @@ const BATCHES: ReadonlyArray<{ name: string; from: number; to: number }> = [
   { name: 'F 601-666', from: 600, to: 699 },
   { name: 'G 701-766', from: 700, to: 799 },
   { name: 'H 801-866', from: 800, to: 899 },
+  { name: 'I 901-966', from: 900, to: 999 },
 ];
 
 async function main(names: string[]): Promise<void> {

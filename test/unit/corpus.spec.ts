@@ -12,22 +12,15 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // as test/corpus/manifest.json says: as text, or laid out in a real PDF (running header and footer,
 // or two columns) and read back through the project's PDF text extraction.
 // Scores match findings by (code, room) as a multiset.
-// A ratchet, not the goal: with the independent writers' excerpts (A+B 101-160, 201-255, C 301-360,
-// D 401-460, E 501-566, F 601-666, G 701-766, H 801-866) in the corpus. Sixth round (2026-12-04): 242
-// older quantity labels were brought to issue 10's rule (test/corpus/batches/quantity-labels-2026-12-04.md),
-// F and G joined the tuning set after their untuned scores were recorded in docs/parser.md, and the
-// two rounds tuned on them were merged (corpus then P 92.4 %, R 92.3 %, F1 92.3 %, quantity 97.1 %).
-// H joined after its two untuned scores were recorded: the whole corpus scores precision 90.4 %,
-// recall 90.8 %, F1 90.6 %, quantity 96.7 % (floors below, rounded down; reset because the corpus
-// changed, not the parser). Seventh round, two branches merged (batch H's voices; 20 room labels
-// brought to the lead's room conventions, test/corpus/batches/room-labels-2026-12-04.md, and the
-// parser made to follow them): precision 92.5 %, recall 92.4 %, F1 92.5 %, quantity 96.6 %
-// (2661/2754) (floors below, rounded down). The goal is 0.95 on each; raise these floors as the
-// parser gets there, never lower them for the same corpus.
-const MIN_PRECISION = 0.924;
-const MIN_RECALL = 0.923;
-const MIN_F1 = 0.924;
-const MIN_QUANTITY = 0.966;
+// A ratchet, not the goal (0.95 on each). Every batch from 101 on joined the tuning set only after its
+// untuned score was recorded in docs/parser.md, which keeps the history of these floors. Last reset
+// 2026-12-04 when batch I (901-966) joined: precision 90.2 %, recall 91.0 %, F1 90.6 %, quantity
+// 96.3 % (2852/2961), rounded down; reset because the corpus changed, not the parser. Raise them as
+// the parser gets better; never lower them for the same corpus.
+const MIN_PRECISION = 0.902;
+const MIN_RECALL = 0.91;
+const MIN_F1 = 0.906;
+const MIN_QUANTITY = 0.963;
 
 describe('report parser corpus', () => {
   let run: BatchRun;
