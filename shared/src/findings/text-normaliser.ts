@@ -1,6 +1,7 @@
 import { distance } from 'fastest-levenshtein';
 import type { Range } from './clause-splitter';
 import type { MappedText } from './mapped-text';
+import { readWords, type Vocabulary, type WordTokens } from './word-tokens';
 
 /**
  * Normalisation before matching: inspectors' shorthand and abbreviations become the trade's full
@@ -199,8 +200,6 @@ function isTransposition(a: string, b: string): boolean {
 const TOO_PLURAL = /^(?:receptacles|recepticles|outlets|plates|covers|breakers|lights|fixtures|switches|alarms|detectors|fans|boxes|cords|bulbs|screws|taps)$/;
 const TOO_MODIFIER = /^(?:cover|face|wall|switch|outlet|receptacle|light|smoke|ceiling|gfci|junction|extension|open|double)$/;
 
-/** A word, with the characters shorthand uses ("k&t", "w/o", "j-box", "ungr'd", "inop."). */
-const WORD = /#\s?\d{1,2}\b|[A-Za-z][A-Za-z'&/-]*[A-Za-z/]\.?|[A-Za-z]\.?|\d+(?:\.\d+)?/g;
 /** Words after which "Al"/"Cu" are metals, and gauge words that follow a size. */
 const WIRE_CONTEXT = /^(?:\d{1,2}|#\d{1,2}|awg|ga\.?|gauge|gage|guage|wire|wires|wiring|conductors?|branch|circuits?|cable|solid|stranded|and|or|\/)$/i;
 const SIZE = /^(?:#\s?)?(\d{1,2})$/;
@@ -210,20 +209,56 @@ function capitalised(original: string, replacement: string): string {
   return original.length > 3 && /^[A-Z][a-z]/.test(original) && /^[a-z]/.test(replacement) ? replacement[0].toUpperCase() + replacement.slice(1) : replacement;
 }
 
-interface Token {
-  readonly text: string;
-  /** `text` in lower case, made once per token (its neighbours read it too). */
-  readonly lower: string;
-  readonly start: number;
-  readonly end: number;
+/** What the normaliser reads off a word once per vocabulary word (see wordTokens' `Vocabulary`). */
+interface WordInfo {
+  /** The word in lower case without a trailing full stop. */
+  readonly bare: string;
+  /** Whether a rule of replacementFor other than the spelling check looks for it. */
+  readonly special: boolean;
+  /** The spelling check's answer for `bare` (a trade word in lower case), or null. */
+  readonly spelling: string | null;
+}
+
+const WORD_INFO = Symbol('normaliser word info');
+
+/** The word-info table of the vocabulary read last (looked up once per vocabulary, not per word). */
+let infoVocabulary: Vocabulary | null = null;
+let infoTable: Array<WordInfo | undefined> = [];
+
+function wordInfo(tokens: WordTokens, id: number): WordInfo {
+  if (tokens.vocabulary !== infoVocabulary) {
+    infoVocabulary = tokens.vocabulary;
+    infoTable = infoVocabulary.table<WordInfo>(WORD_INFO);
+  }
+  const table = infoTable;
+  const known = table[id];
+  if (known !== undefined) return known;
+  const lower = tokens.vocabulary.words[id];
+  const bare = lower.endsWith('.') ? lower.slice(0, -1) : lower;
+  const info: WordInfo = {
+    bare,
+    special: SPECIAL_WORDS.has(bare) || (bare !== lower && SPECIAL_WORDS.has(lower)),
+    spelling: bare.length < 5 || !isAsciiLetters(bare) ? null : correctLowerSpelling(bare),
+  };
+  table[id] = info;
+  return info;
+}
+
+/** The lower-case form of word k, or '' past either end. */
+function lowerAt(tokens: WordTokens, k: number): string {
+  return k >= 0 && k < tokens.count ? tokens.vocabulary.words[tokens.id[k]] : '';
 }
 
 /** The replacement for token i, or null to keep it as written. */
-function replacementFor(tokens: readonly Token[], i: number, source: string): string | null {
-  const { text, lower } = tokens[i];
-  const prev = tokens[i - 1]?.lower ?? '';
-  const next = tokens[i + 1]?.lower ?? '';
-  const first = text.charCodeAt(0);
+function replacementFor(tokens: WordTokens, i: number, source: string): string | null {
+  const info = wordInfo(tokens, tokens.id[i]);
+  const first = source.charCodeAt(tokens.start[i]);
+  // Most words are none of the words the rules below look for: they go straight to the spelling check.
+  if (!info.special && first !== 35 && !(first >= 48 && first <= 57)) return info.spelling === null ? null : capitalised(source.slice(tokens.start[i], tokens.end[i]), info.spelling);
+  const text = source.slice(tokens.start[i], tokens.end[i]);
+  const lower = tokens.vocabulary.words[tokens.id[i]];
+  const prev = lowerAt(tokens, i - 1);
+  const next = lowerAt(tokens, i + 1);
   // "#12" → "12 AWG"; "12 ga", "12-gauge", "12g" → "12 AWG".
   const hash = first === 35 /* # */ ? /^#\s?(\d{1,2})$/.exec(text) : null;
   // "Bkr #6", "slot #14": after an index word the number names the device, not a wire size.
@@ -231,9 +266,8 @@ function replacementFor(tokens: readonly Token[], i: number, source: string): st
   if (hash) return `${hash[1]} AWG`;
   const glued = first >= 48 && first <= 57 ? /^(\d{1,2})(?:ga|g|awg)$/i.exec(text) : null;
   if (glued) return `${glued[1]} AWG`;
-  const bare = lower.endsWith('.') ? lower.slice(0, -1) : lower;
-  // Most words are none of the words the rules below look for: they go straight to the spelling check.
-  if (!SPECIAL_WORDS.has(bare) && (bare === lower || !SPECIAL_WORDS.has(lower))) return spellingFor(text, bare);
+  const { bare } = info;
+  if (!info.special) return info.spelling === null ? null : capitalised(text, info.spelling);
   const number = NUMBER_WORD_KEYS.has(bare) ? NUMBER_WORDS[bare] : undefined;
   // "the north bedroom two receptacles": a number word after a room word stays a word, so the count
   // reader can tell it from an index ("bedroom 2").
@@ -242,13 +276,13 @@ function replacementFor(tokens: readonly Token[], i: number, source: string): st
     return bare === 'hundred' ? null : String(number);
   }
   // "missing too cover plates": "too" before a plural device noun is the number two.
-  if (bare === 'too' && (TOO_PLURAL.test(next.replace(/\.$/, '')) || (TOO_MODIFIER.test(next) && TOO_PLURAL.test((tokens[i + 2]?.lower ?? '').replace(/\.$/, ''))))) return '2';
+  if (bare === 'too' && (TOO_PLURAL.test(next.replace(/\.$/, '')) || (TOO_MODIFIER.test(next) && TOO_PLURAL.test(lowerAt(tokens, i + 2).replace(/\.$/, ''))))) return '2';
   // "ext cord", "ext. cords": an extension cord, not the exterior.
   if ((bare === 'ext' || bare === 'extn') && /^cords?$/.test(next)) return 'extension';
   if (SHORTHAND_KEYS.has(lower) || SHORTHAND_KEYS.has(bare)) {
     const gap = gapBefore(tokens, i, source);
     // "Report #KT-24-0917", "Unit GFI-2": letters glued to a number by a hyphen, or after "#", are an identifier.
-    if (isIdentifier(source, tokens[i].end, gap)) return null;
+    if (isIdentifier(source, tokens.end[i], gap)) return null;
     const key = SHORTHAND_KEYS.has(lower) ? lower : bare;
     const word = SHORTHAND[key];
     if (CONTEXTUAL.has(key) && !contextAllows(key, prev, next, gap, text)) return null;
@@ -269,8 +303,8 @@ function spellingFor(text: string, bare: string): string | null {
 }
 
 /** The text between token i and the one before it (' ' before the first). */
-function gapBefore(tokens: readonly Token[], i: number, source: string): string {
-  return i > 0 ? source.slice(tokens[i - 1].end, tokens[i].start) : ' ';
+function gapBefore(tokens: WordTokens, i: number, source: string): string {
+  return i > 0 ? source.slice(tokens.end[i - 1], tokens.start[i]) : ' ';
 }
 
 /** Whether a lower-case word consists of the letters a-z only. */
@@ -344,22 +378,16 @@ function contextAllows(key: string, prev: string, next: string, gapBefore: strin
 /** Normalises one sentence (or any mapped text); unchanged text comes back with `changed` empty. */
 export function normaliseText(m: MappedText): NormalisedText {
   const source = m.text;
-  const tokens: Token[] = [];
-  // WORD never matches the empty string, so a plain exec loop reads every token.
-  WORD.lastIndex = 0;
-  for (let t = WORD.exec(source); t !== null; t = WORD.exec(source)) {
-    const text = t[0];
-    tokens.push({ text, lower: text.toLowerCase(), start: t.index, end: t.index + text.length });
-  }
-  WORD.lastIndex = 0;
+  const tokens = readWords(source);
   let text = '';
   const offsets: number[] = [];
   const changed: Range[] = [];
   let copied = 0;
-  for (let i = 0; i < tokens.length; i++) {
+  for (let i = 0; i < tokens.count; i++) {
     const replacement = replacementFor(tokens, i, source);
     if (replacement === null) continue;
-    const { start, end } = tokens[i];
+    const start = tokens.start[i];
+    const end = tokens.end[i];
     // A trailing full stop of an abbreviation ("inop.", "recep.") stays in the text as written,
     // unless the sentence goes on in lower case ("ext. cord", "perm. wiring"): then it is the
     // abbreviation's own and goes with the word.
