@@ -89,9 +89,9 @@ export interface WordTokens {
 }
 
 /** The arrays of the last text read, grown as needed (see readWords). */
-let scratchStart = new Int32Array(256);
-let scratchEnd = new Int32Array(256);
-let scratchId = new Int32Array(256);
+let scratchStart: Int32Array = new Int32Array(256);
+let scratchEnd: Int32Array = new Int32Array(256);
+let scratchId: Int32Array = new Int32Array(256);
 
 /**
  * Reads the words of `text` (the matches of WORD_PATTERN, in order). The arrays are shared and
