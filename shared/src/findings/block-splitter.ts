@@ -40,13 +40,13 @@ const QUANTITY_HEADING = /^(?:qty\.?|quantity|count|no\.|#|number|units?)$/i;
 const ITEM_NUMBER_HEADING = /^(?:no\.|#|number)$/i;
 
 /** The cells of a table row (pipes, tabs or fixed-width columns), or null for a line that is no row. */
-function tableCells(line: string): string[] | null {
-  const trimmed = line.trim();
+function tableCells(line: Line): string[] | null {
+  const trimmed = line.text.trim();
   let cells: string[];
   if (trimmed.includes('|')) cells = trimmed.replace(/^\|/, '').replace(/\|$/, '').split('|');
   else if (trimmed.includes('\t')) cells = trimmed.split('\t');
   else if (trimmed.includes('   ') && /\S {3,}\S/.test(trimmed)) cells = trimmed.split(/ {3,}/);
-  else return csvCells(trimmed);
+  else return csvCellsOf(line);
   cells = cells.map((c) => c.trim());
   return cells.length >= 3 ? cells : null;
 }
@@ -55,6 +55,21 @@ interface Line {
   readonly start: number;
   readonly end: number;
   readonly text: string;
+  /** csvCells of the text and isTableRow of it, each worked out once per line when first asked. */
+  csv?: string[] | null;
+  tableRow?: boolean;
+}
+
+/** csvCells of a line's text (the same for the text and its trimmed copy), read once per line. */
+function csvCellsOf(line: Line): string[] | null {
+  if (line.csv === undefined) line.csv = csvCells(line.text);
+  return line.csv;
+}
+
+/** isTableRow of a line's text, read once per line. */
+function isTableRowLine(line: Line): boolean {
+  if (line.tableRow === undefined) line.tableRow = isTableRow(line.text, line);
+  return line.tableRow;
 }
 
 const ITEM_MARKER = /^\s*(?:\d{1,3}(?:\.\d{1,3})+\.?|\d{1,3}[.)]|[a-h][.)]|item\s+\d{1,3}\s*[:.)-]|\[\d{1,3}\]|\[\s*(?:photos?|pics?|images?|img|fig\.?|figure)\s*#?\s*\d{1,3}[a-z]?\s*\]|(?:photos?|pics?|images?|img)\s*#?\s*\d{1,3}[a-z]?\s*[:.)-]|[a-z]{1,3}[-.]\d{1,3}[.):]?|#\d{1,3}(?![\d.]|\s*(?:awg|ga\b|gauge|cu\b|al\b|copper|alum|wires?\b|conductors?\b|thhn|nm\b|solid|strand))|[-•*‣▪◦●·–—>]|(?:\[\s?[x ]?\]\s*){1,6})\s+/i;
@@ -123,7 +138,7 @@ export function splitBlocks(joined: string): Block[] {
   const shortLine = shortLineFor(lines);
   for (const line of lines) {
     const content = line.text.trim();
-    const cells = content.length > 0 ? tableCells(line.text) : null;
+    const cells = content.length > 0 ? tableCells(line) : null;
     const isNoise = content.length > 0 && NOISE_LINE.test(content);
     if (cells) {
       // "No." or "#" heading the first column numbers the rows ("7 | Basement | ..."): an item number, not a count.
@@ -172,7 +187,7 @@ export function splitBlocks(joined: string): Block[] {
       }
       continue;
     }
-    const csv = csvCells(content);
+    const csv = csvCellsOf(line);
     const label = csv && isNonElectricalCsvRow(csv) ? 'non-electrical row' : inlineNonElectricalLabel(content);
     if (label !== null) {
       open(line, line.start, { kind: 'non-electrical', title: label, room: null });
@@ -186,7 +201,7 @@ export function splitBlocks(joined: string): Block[] {
       open(line, line.start + (marker ? marker[0].length : 0), section);
       continue;
     }
-    if (summary && !SUMMARY_NOTE.test(content) && (/[.!?]$/.test(prevLine.text.trim()) || isTableRow(line.text))) summary.hasContent = true;
+    if (summary && !SUMMARY_NOTE.test(content) && (/[.!?]$/.test(prevLine.text.trim()) || isTableRowLine(line))) summary.hasContent = true;
     joinLine(builder, prevLine, line, shortLine);
     builder.appendSource(joined, line.start, line.end);
     prevLine = line;
@@ -228,7 +243,7 @@ function joinLine(builder: MappedTextBuilder, prev: Line, next: Line, shortLine:
   // So does a pipe row that a narrow column wrapped mid-cell ("Receptacle | Den | Reversed" /
   // "polarity | Electrician"): the next line goes on in lower case.
   const continuesCell =
-    (isTableRow(prev.text) && /^\s{16,}\S/.test(next.text) && !isTableRow(next.text) && !/[.!?:]$/.test(before) && !prev.text.includes('|') && !next.text.includes('\t')) ||
+    (isTableRowLine(prev) && /^\s{16,}\S/.test(next.text) && !isTableRowLine(next) && !/[.!?:]$/.test(before) && !prev.text.includes('|') && !next.text.includes('\t')) ||
     (prev.text.includes('|') && /^\p{Ll}/u.test(after) && !/[.!?:|]$/.test(before)) ||
     // A pipe row whose first cell is empty goes on with the row above ("3 | Main panel | ... 10 AWG alum." /
     // "  |   | conductors on a 30A 2-pole breaker |").
@@ -239,8 +254,8 @@ function joinLine(builder: MappedTextBuilder, prev: Line, next: Line, shortLine:
     CHECKLIST_ANSWER.test(before) ||
     prev.text.includes('\t') ||
     next.text.includes('\t') ||
-    isTableRow(prev.text) ||
-    isTableRow(next.text) ||
+    isTableRowLine(prev) ||
+    isTableRowLine(next) ||
     // A terse note that starts with its own place label ("Kitch: fridge recep loose") is a new sentence.
     /^[\p{Lu}][\p{L}\d./ -]{0,18}:\s/u.test(after) ||
     (before.length < shortLine && !/[.!?]$/.test(before) && !CONNECTOR_END.test(before) && /^[\p{Lu}\d(]/u.test(after)));
@@ -248,7 +263,7 @@ function joinLine(builder: MappedTextBuilder, prev: Line, next: Line, shortLine:
 }
 
 /** A row of a table export: pipe-separated, or fixed-width columns (runs of 3+ spaces between words). */
-function isTableRow(line: string): boolean {
+function isTableRow(line: string, of?: Line): boolean {
   // The literal each expression needs is looked for first (a plain search is much cheaper).
-  return (line.includes('|') && /\S\s*\|\s*\S/.test(line)) || (line.includes('   ') && /\S {3,}\S/.test(line.trim())) || csvCells(line) !== null;
+  return (line.includes('|') && /\S\s*\|\s*\S/.test(line)) || (line.includes('   ') && /\S {3,}\S/.test(line.trim())) || (of ? csvCellsOf(of) : csvCells(line)) !== null;
 }
