@@ -1,4 +1,4 @@
-import { readQuantity } from './quantity-reader';
+import { readQuantity, tokenize, TOKEN } from './quantity-reader';
 
 describe('readQuantity', () => {
   // Quantity rules of the project's finding-code list: a whole number when the report gives one,
@@ -39,5 +39,38 @@ describe('readQuantity', () => {
     const text = 'the ceiling fan is mounted to a standard light box';
     expect(readQuantity(text, 10)).toBeNull();
     expect(readQuantity('a loose receptacle', 10)).toBe(1);
+  });
+});
+
+describe('tokenize', () => {
+  const byExpression = (text: string) => [...text.matchAll(new RegExp(TOKEN.source, 'g'))].map((m) => ({ word: m[0].toLowerCase(), index: m.index }));
+
+  it('reads bracketed counts, fractions, words and marks as TOKEN does', () => {
+    expect(tokenize('Two (x3) GFCIs, 1/2 of #12 - ( 4 ) (12345) 20% don\'t:')).toEqual([
+      { word: 'two', index: 0 },
+      { word: '(x3)', index: 4 },
+      { word: 'gfcis', index: 9 },
+      { word: ',', index: 14 },
+      { word: '1/2', index: 16 },
+      { word: 'of', index: 20 },
+      { word: '#12', index: 23 },
+      { word: '-', index: 27 },
+      { word: '( 4 )', index: 29 },
+      { word: '12345', index: 36 },
+      { word: '20%', index: 43 },
+      { word: "don't", index: 47 },
+      { word: ':', index: 52 },
+    ]);
+  });
+
+  it('gives the same tokens as TOKEN on random text of its special characters', () => {
+    let state = 11;
+    const next = () => (state = (state * 1103515245 + 12345) & 0x7fffffff);
+    const pieces = ['(', ')', 'x', 'X', ' ', '\u00a0', '1', '23', '4567', '/', '#', "'", '%', '-', '_', 'Ab', ':', ';', ',', '.', 'é', '\n'];
+    for (let k = 0; k < 3000; k++) {
+      let text = '';
+      for (let p = 1 + (next() % 24); p > 0; p--) text += pieces[next() % pieces.length];
+      expect(tokenize(text)).toEqual(byExpression(text));
+    }
   });
 });

@@ -1,4 +1,5 @@
 import { scanAll } from './regex-scan';
+import { currentVocabulary } from './word-tokens';
 
 /**
  * Reads how many items a finding covers: digits and number words before a countable noun
@@ -29,18 +30,82 @@ const SINGULAR_DEVICE = /^(?:receptacle|outlet|rcpt|recept|switch|dimmer|light|f
 /** Vague words that quantify only a noun that follows ("all receptacles"), not a manner ("at all speeds"). */
 const VAGUE_BEFORE_NOUN_ONLY = new Set(['all', 'every']);
 /** A word, a bracketed count ("(3)", "(x2)") or a punctuation mark. */
-const TOKEN = /\(\s*x?\d{1,3}\s*\)|\d+\/\d+|[#]?[\w'%-]+|[:;,.]/g;
+export const TOKEN = /\(\s*x?\d{1,3}\s*\)|\d+\/\d+|[#]?[\w'%-]+|[:;,.]/g;
 
-interface Token {
+export interface Token {
   readonly word: string;
   readonly index: number;
 }
 
-function tokenize(text: string): Token[] {
-  return scanAll(TOKEN, text).map((m) => ({
-    word: m[0].toLowerCase(),
-    index: m.index,
-  }));
+/**
+ * The matches of TOKEN in order, each word in lower case. Read character by character (as TOKEN
+ * matches, its alternatives in order) and looked up in the shared vocabulary of lower-case words,
+ * so a word seen before costs no expression call and no new string.
+ */
+export function tokenize(text: string): Token[] {
+  const vocabulary = currentVocabulary();
+  const tokens: Token[] = [];
+  let i = 0;
+  while (i < text.length) {
+    const end = tokenEndAt(text, i);
+    if (end < 0) {
+      i++;
+      continue;
+    }
+    tokens.push({ word: vocabulary.words[vocabulary.intern(text, i, end)], index: i });
+    i = end;
+  }
+  return tokens;
+}
+
+/** The end of the TOKEN match at position i, or -1 when none begins there. */
+function tokenEndAt(text: string, i: number): number {
+  const c = text.charCodeAt(i);
+  if (c === 40 /* ( */) {
+    // \(\s*x?\d{1,3}\s*\)
+    let k = i + 1;
+    while (isSpaceCode(text.charCodeAt(k))) k++;
+    if (text.charCodeAt(k) === 120 /* x */) k++;
+    const digits = k;
+    while (isDigitCode(text.charCodeAt(k))) k++;
+    if (k === digits || k - digits > 3) return -1;
+    while (isSpaceCode(text.charCodeAt(k))) k++;
+    return text.charCodeAt(k) === 41 /* ) */ ? k + 1 : -1;
+  }
+  if (isDigitCode(c)) {
+    // \d+\/\d+, else the word alternative
+    let k = i + 1;
+    while (isDigitCode(text.charCodeAt(k))) k++;
+    if (text.charCodeAt(k) === 47 /* / */ && isDigitCode(text.charCodeAt(k + 1))) {
+      k += 2;
+      while (isDigitCode(text.charCodeAt(k))) k++;
+      return k;
+    }
+  }
+  // [#]?[\w'%-]+
+  const from = c === 35 /* # */ ? i + 1 : i;
+  if (isTokenWordCode(text.charCodeAt(from))) {
+    let k = from + 1;
+    while (isTokenWordCode(text.charCodeAt(k))) k++;
+    return k;
+  }
+  // [:;,.]
+  return c === 58 || c === 59 || c === 44 || c === 46 ? i + 1 : -1;
+}
+
+function isDigitCode(c: number): boolean {
+  return c >= 48 && c <= 57;
+}
+/** [\w'%-] */
+function isTokenWordCode(c: number): boolean {
+  return (c >= 97 && c <= 122) || (c >= 65 && c <= 90) || isDigitCode(c) || c === 95 || c === 39 || c === 37 || c === 45;
+}
+/** \s as regular expressions read it. */
+function isSpaceCode(c: number): boolean {
+  return (
+    (c >= 9 && c <= 13) || c === 32 || c === 0xa0 || c === 0x1680 || (c >= 0x2000 && c <= 0x200a) ||
+    c === 0x2028 || c === 0x2029 || c === 0x202f || c === 0x205f || c === 0x3000 || c === 0xfeff
+  );
 }
 
 /**

@@ -75,6 +75,12 @@ export class Vocabulary {
 const VOCABULARY_LIMIT = 50_000;
 let vocabulary = new Vocabulary();
 
+/** The vocabulary new words go into (a fresh one once the last has grown past VOCABULARY_LIMIT). */
+export function currentVocabulary(): Vocabulary {
+  if (vocabulary.size > VOCABULARY_LIMIT) vocabulary = new Vocabulary();
+  return vocabulary;
+}
+
 /**
  * The words of one text: word k (below `count`) is text[start[k], end[k]), its lower-case form
  * `vocabulary.words[id[k]]`. The arrays may be longer than `count`.
@@ -98,8 +104,7 @@ let scratchId: Int32Array = new Int32Array(256);
  * overwritten by the next call (the parser is synchronous): read them before reading another text.
  */
 export function readWords(text: string): WordTokens {
-  if (vocabulary.size > VOCABULARY_LIMIT) vocabulary = new Vocabulary();
-  const vocab = vocabulary;
+  const vocab = currentVocabulary();
   let count = 0;
   const length = text.length;
   let i = 0;
