@@ -1,5 +1,5 @@
 import { scanAll } from './regex-scan';
-import { currentVocabulary } from './word-tokens';
+import { currentVocabulary, isDigit as isDigitCode, isSpace as isSpaceCode } from './word-tokens';
 
 /**
  * Reads how many items a finding covers: digits and number words before a countable noun
@@ -93,19 +93,9 @@ function tokenEndAt(text: string, i: number): number {
   return c === 58 || c === 59 || c === 44 || c === 46 ? i + 1 : -1;
 }
 
-function isDigitCode(c: number): boolean {
-  return c >= 48 && c <= 57;
-}
 /** [\w'%-] */
 function isTokenWordCode(c: number): boolean {
   return (c >= 97 && c <= 122) || (c >= 65 && c <= 90) || isDigitCode(c) || c === 95 || c === 39 || c === 37 || c === 45;
-}
-/** \s as regular expressions read it. */
-function isSpaceCode(c: number): boolean {
-  return (
-    (c >= 9 && c <= 13) || c === 32 || c === 0xa0 || c === 0x1680 || (c >= 0x2000 && c <= 0x200a) ||
-    c === 0x2028 || c === 0x2029 || c === 0x202f || c === 0x205f || c === 0x3000 || c === 0xfeff
-  );
 }
 
 /**

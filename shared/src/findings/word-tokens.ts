@@ -172,7 +172,7 @@ function wordEndAt(text: string, i: number): number {
   return -1;
 }
 
-function isDigit(c: number): boolean {
+export function isDigit(c: number): boolean {
   return c >= 48 && c <= 57;
 }
 function isLetter(c: number): boolean {
@@ -190,7 +190,7 @@ function isWordChar(c: number): boolean {
   return isLetter(c) || isDigit(c) || c === 95;
 }
 /** \s as regular expressions read it. */
-function isSpace(c: number): boolean {
+export function isSpace(c: number): boolean {
   return (
     (c >= 9 && c <= 13) || c === 32 || c === 0xa0 || c === 0x1680 || (c >= 0x2000 && c <= 0x200a) ||
     c === 0x2028 || c === 0x2029 || c === 0x202f || c === 0x205f || c === 0x3000 || c === 0xfeff
