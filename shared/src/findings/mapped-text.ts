@@ -1,3 +1,5 @@
+import { isSpace } from './word-tokens';
+
 /**
  * Text prepared for matching (line breaks folded, hyphenated wraps joined, whitespace collapsed)
  * that remembers, for every character, where it came from in the joined report text. Matching
@@ -9,7 +11,10 @@ export interface MappedText {
   readonly offsets: readonly number[];
 }
 
-const WHITESPACE = /\s/;
+/** Whether a one-character string (or the first character of one) is whitespace as /\s/ reads it. */
+function isWhitespace(ch: string): boolean {
+  return isSpace(ch.charCodeAt(0));
+}
 
 export class MappedTextBuilder {
   /** The text so far; source characters are appended in runs (slices), not one by one. */
@@ -28,12 +33,12 @@ export class MappedTextBuilder {
         // ("CO alarm | Hallway | None present"), so an item's condition is read with the item.
         this.text += source.slice(run, i);
         run = i + 1;
-        if (this.offsets.length === 0 || WHITESPACE.test(this.last)) continue;
+        if (this.offsets.length === 0 || isWhitespace(this.last)) continue;
         this.text += ' ';
         this.offsets.push(i);
         this.last = ' ';
         continue;
-      } else if (ch === ' ' && (this.offsets.length === 0 || WHITESPACE.test(this.last))) {
+      } else if (ch === ' ' && (this.offsets.length === 0 || isWhitespace(this.last))) {
         this.text += source.slice(run, i);
         run = i + 1;
         continue;
@@ -48,7 +53,7 @@ export class MappedTextBuilder {
   appendSeparator(ch: ' ' | '\n', sourceIndex: number): void {
     if (this.offsets.length === 0) return;
     const last = this.last;
-    if (last === '\n' || (ch === ' ' && WHITESPACE.test(last))) return;
+    if (last === '\n' || (ch === ' ' && isWhitespace(last))) return;
     if (ch === '\n' && last === ' ') {
       this.text = this.text.slice(0, -1) + '\n';
       this.last = '\n';
@@ -75,7 +80,7 @@ export class MappedTextBuilder {
   build(): MappedText {
     const { text } = this;
     let end = text.length;
-    while (end > 0 && WHITESPACE.test(text[end - 1])) end--;
+    while (end > 0 && isWhitespace(text[end - 1])) end--;
     return { text: text.slice(0, end), offsets: this.offsets.slice(0, end) };
   }
 }
@@ -84,8 +89,8 @@ export class MappedTextBuilder {
 export function sliceMapped(m: MappedText, from: number, to: number): MappedText {
   let a = from;
   let b = to;
-  while (a < b && /\s/.test(m.text[a])) a++;
-  while (b > a && /\s/.test(m.text[b - 1])) b--;
+  while (a < b && isWhitespace(m.text[a])) a++;
+  while (b > a && isWhitespace(m.text[b - 1])) b--;
   return { text: m.text.slice(a, b), offsets: m.offsets.slice(a, b) };
 }
 
