@@ -48,7 +48,7 @@ export function withoutClosedItems(block: MappedText): MappedText | null {
       offsets.push(block.offsets[from - 1]);
     }
     text += block.text.slice(from, to);
-    offsets.push(...block.offsets.slice(from, to));
+    for (let k = from; k < to; k++) offsets.push(block.offsets[k]);
   });
   return text.trim().length > 0 ? { text, offsets } : null;
 }

@@ -16,12 +16,34 @@ function isWhitespace(ch: string): boolean {
   return isSpace(ch.charCodeAt(0));
 }
 
+/**
+ * The offsets buffer a finished builder hands to the next one, so that a report's blocks are built
+ * one after another in one buffer instead of each in an array grown step by step.
+ */
+let spareOffsets: Int32Array | null = null;
+
 export class MappedTextBuilder {
   /** The text so far; source characters are appended in runs (slices), not one by one. */
   private text = '';
-  private offsets: number[] = [];
+  /** offsets[0, count) stand for the characters of `text`. */
+  private offsets: Int32Array;
+  private count = 0;
   /** The last character of `text` ('' while empty). */
   private last = '';
+
+  constructor() {
+    this.offsets = spareOffsets ?? new Int32Array(1024);
+    spareOffsets = null;
+  }
+
+  private pushOffset(sourceIndex: number): void {
+    if (this.count === this.offsets.length) {
+      const grown = new Int32Array(Math.max(1024, this.offsets.length * 2));
+      grown.set(this.offsets);
+      this.offsets = grown;
+    }
+    this.offsets[this.count++] = sourceIndex;
+  }
 
   /** Appends source[from, to) character by character, collapsing runs of spaces and tabs. */
   appendSource(source: string, from: number, to: number): void {
@@ -33,17 +55,17 @@ export class MappedTextBuilder {
         // ("CO alarm | Hallway | None present"), so an item's condition is read with the item.
         this.text += source.slice(run, i);
         run = i + 1;
-        if (this.offsets.length === 0 || isWhitespace(this.last)) continue;
+        if (this.count === 0 || isWhitespace(this.last)) continue;
         this.text += ' ';
-        this.offsets.push(i);
+        this.pushOffset(i);
         this.last = ' ';
         continue;
-      } else if (ch === ' ' && (this.offsets.length === 0 || isWhitespace(this.last))) {
+      } else if (ch === ' ' && (this.count === 0 || isWhitespace(this.last))) {
         this.text += source.slice(run, i);
         run = i + 1;
         continue;
       }
-      this.offsets.push(i);
+      this.pushOffset(i);
       this.last = ch;
     }
     this.text += source.slice(run, to);
@@ -51,7 +73,7 @@ export class MappedTextBuilder {
 
   /** Appends a separator standing for a source position (a line break becomes ' ' or '\n'). */
   appendSeparator(ch: ' ' | '\n', sourceIndex: number): void {
-    if (this.offsets.length === 0) return;
+    if (this.count === 0) return;
     const last = this.last;
     if (last === '\n' || (ch === ' ' && isWhitespace(last))) return;
     if (ch === '\n' && last === ' ') {
@@ -60,7 +82,7 @@ export class MappedTextBuilder {
       return;
     }
     this.text += ch;
-    this.offsets.push(sourceIndex);
+    this.pushOffset(sourceIndex);
     this.last = ch;
   }
 
@@ -68,7 +90,7 @@ export class MappedTextBuilder {
   dropTrailingHyphen(): void {
     if (this.last === '-') {
       this.text = this.text.slice(0, -1);
-      this.offsets.pop();
+      this.count--;
       this.last = this.text[this.text.length - 1] ?? '';
     }
   }
@@ -77,11 +99,18 @@ export class MappedTextBuilder {
     return this.last;
   }
 
+  /** The text built, without trailing whitespace. The builder is done after this (its buffer goes to the next one). */
   build(): MappedText {
     const { text } = this;
     let end = text.length;
     while (end > 0 && isWhitespace(text[end - 1])) end--;
-    return { text: text.slice(0, end), offsets: this.offsets.slice(0, end) };
+    // One array of the exact size, filled by index (Array.from would step an iterator per element).
+    const offsets = new Array<number>(end);
+    for (let k = 0; k < end; k++) offsets[k] = this.offsets[k];
+    spareOffsets = this.offsets;
+    this.offsets = new Int32Array(0);
+    this.count = 0;
+    return { text: text.slice(0, end), offsets };
   }
 }
 
