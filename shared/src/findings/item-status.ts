@@ -39,17 +39,20 @@ export function withoutClosedItems(block: MappedText): MappedText | null {
   const cuts = itemStarts(block.text);
   if (cuts.length === 0) return block;
   let text = '';
-  const offsets: number[] = [];
+  // The result is never longer than the block: one array of that size, cut to length at the end.
+  const offsets = new Array<number>(block.text.length);
+  let length = 0;
   [0, ...cuts].forEach((from, k) => {
     const to = k < cuts.length ? cuts[k] - 1 : block.text.length;
     if (isClosedItem(block.text.slice(from, to))) return;
     if (text.length > 0) {
       text += '\n';
-      offsets.push(block.offsets[from - 1]);
+      offsets[length++] = block.offsets[from - 1];
     }
     text += block.text.slice(from, to);
-    for (let k = from; k < to; k++) offsets.push(block.offsets[k]);
+    for (let k = from; k < to; k++) offsets[length++] = block.offsets[k];
   });
+  offsets.length = length;
   return text.trim().length > 0 ? { text, offsets } : null;
 }
 
