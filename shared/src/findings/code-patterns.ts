@@ -222,7 +222,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:tested|tests?|read|reads|showed?|shows|indicated?|registers?|registered)\s+(?:as\s+)?(?:ungrounded|open ground)` },
       { re: rx`(?:three|3)[- ](?:prong|slot|hole)\s+${T.RCPT}?\s*${gap(3)}(?:on|with|in|fed by)\s+(?:an?\s+)?(?:ungrounded|two[- ]wire|2[- ]wire|non-?grounded)` },
       // A feeder with no equipment ground is a subpanel defect, a plastic water line no electrode: neither is a receptacle's open ground.
-      { re: rx`(?:no|lacks?|lacking|missing|without)\s+(?:an?\s+)?(?:equipment\s+)?ground(?:ing)?(?:\s+(?:conductor|wire|path))?\b(?!\s*(?:fault|electrode|rod|clamp))`, unless: /\b(?:feeder|sub-?panel|water (?:line|pipe|service)|electrode|ground rod|knob[- ]?(?:and|&|n)[- ]?tube)\b/i },
+      { re: rx`(?:no|lacks?|lacking|missing|without)\s+(?:an?\s+)?(?:equipment\s+)?ground(?:ing)?(?:\s+(?:conductor|wire|path))?\b(?!\s*(?:fault|electrode|rod|clamp))`, unless: /\b(?:feeder|sub-?panel|water (?:line|pipe|service)|electrode|ground rod|knob[- ]?(?:and|&|n)[- ]?tube)\b|^(?![^]*\b(?:receptacles?|outlets?|recepts?|rcpts?|devices?|prong|slots?|plugs?)\b)[^]*\b(?:two|2)[- ]wire\b/i },
       { re: rx`${T.RCPT}\s+${gap(8)}${T.BE}(?:not grounded|ungrounded)` },
     ],
   },
@@ -475,6 +475,10 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${SMOKE_OR_LABEL}[^.;]{0,60}?(?:dated|date[- ]?(?:codes?|stamps?)|manufactured|manufacture dates?|made|stamped)\s+(?:in\s+|of\s+)?(?:19[5-9]\d|20[0-2]\d)\b`, context: /replac|expir|past|beyond|exceed|old|aged|life|chirp|\b(?:10|ten)[- ]years?/i },
       { re: rx`(?:19[5-9]\d|20[0-2]\d)\s+(?:date[- ]?codes?|manufactur\w+ dates?)`, context: /smoke|carbon monoxide|\bco\b|alarm|detector/i, unless: /\btested (?:ok|fine|good|properly|correctly)\b|\bsatisfactory\b/i },
       { re: rx`smoke(?:\s*(?:\/|and|&)\s*co)?\s*[:-]?\s+(?:${T.ABSENT}|none|expired|${T.INOPERATIVE})` },
+      // An alarm off its base: "hanging by its wiring harness", "not on its base", "pulled off the mounting plate" (common practice; NFPA 72 (2022), 29.8.3.4, from memory).
+      { re: rx`${T.SMOKE}\s+${gap(6)}(?:(?:hangs?|hanging|dangling|dangles|suspended)\s+(?:from|by|on)\s+(?:its\s+|the\s+)?(?:wir(?:e|es|ing)|harness|connector|pigtail)|(?:off|not on|not attached to|detached from|pulled (?:off|from)|fallen (?:off|from))\s+(?:of\s+)?(?:its\s+|the\s+)?(?:base|bracket|mounting (?:plate|base|bracket)|ceiling))` },
+      // "None of the four rented rooms has a smoke alarm": none of the places named has one.
+      { re: rx`none of (?:the\s+)?${gap(4)}(?:has|have|had|contains?)\s+(?:an?\s+|any\s+)?(?:working\s+)?${T.SMOKE}` },
     ],
   },
   {

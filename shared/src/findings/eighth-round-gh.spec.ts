@@ -114,3 +114,25 @@ describe('false grounds: the green screw is the ground terminal (NFPA 70 (NEC) 2
     expect(read('Den: someone jumpered the neutral to the green screw at the receptacle by the desk.')).toEqual([['false-ground', 'living-area', 1]]);
   });
 });
+
+describe('alarms in more words (common practice; alarm upkeep per NFPA 72 (2022), from memory)', () => {
+  it('reads an alarm hanging by its wiring or off its base as a defect', () => {
+    expect(read('Hall: the smoke detector is dangling by its wires.')).toEqual([['smoke-co-alarm', 'hallway', 1]]);
+    expect(read('Bedroom 3 - smoke alarm pulled off its mounting plate')).toEqual([['smoke-co-alarm', 'bedroom', 1]]);
+  });
+
+  it('reads "none of the N rooms has a smoke alarm" with its count', () => {
+    expect(read('None of the three bedrooms has a smoke alarm.')).toEqual([['smoke-co-alarm', 'bedroom', 3]]);
+  });
+});
+
+describe('places and wiring methods', () => {
+  it('reads "lower lvl" as the basement (common practice shorthand)', () => {
+    expect(read('lower lvl: recept by the bar has reversed polarity')).toEqual([['reversed-polarity', 'basement', 1]]);
+  });
+
+  it('reads two-wire cable without a ground conductor, with no receptacle named, as the ungrounded wiring method and not an open ground (finding-codes: knob-and-tube covers other ungrounded legacy wiring; NFPA 70 (NEC) 2023, 406.4(D)(2) is about receptacles)', () => {
+    expect(read('The original circuits are two-wire cable without an equipment grounding conductor, seen in the basement.')).toEqual([['knob-and-tube', 'basement', null]]);
+    expect(read('Bedroom: the three-prong receptacle is on two-wire cable with no ground.')).toEqual([['open-ground', 'bedroom', 1]]);
+  });
+});
