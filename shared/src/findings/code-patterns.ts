@@ -494,6 +494,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`insulation\s+${gap(3)}(?:in contact with|touching|covering|over|on top of|against)\s+(?:the\s+)?${gap(2)}(?:recessed|can)\s+(?:lights?|fixtures?|cans?|housings?)` },
       // Common practice: a recessed housing not rated IC must keep its clearance from insulation.
       { re: rx`(?:non-?ic|recessed|can)\s+(?:(?:light|lighting|fixture)\s+)?(?:housings?|fixtures?|lights?|cans?)\s+${gap(6)}(?:${T.BE})?(?:covered|buried|packed|surrounded)\s+(?:down\s+|over\s+)?(?:by|in|with|under)\b` },
+      // "one recessed can housing is an older non-IC type and blown cellulose is packed against it" (common practice; NFPA 70 (NEC) 2023, 410.116(B)).
+      { re: rx`(?:insulation|cellulose|fiberglass|batts?)\s+${gap(3)}(?:packed|piled|pushed|stuffed|blown|heaped|banked|laid)\s+(?:up\s+|tight(?:ly)?\s+)?(?:against|around|over|on top of|onto|into|up to)\s+(?:it|them|the\s+(?:housings?|cans?|fixtures?|lights?))\b`, context: /non-?ic|recessed|can light|housing/i },
       // "can lights ... are the old non-IC type with blown cellulose piled on top of them" (common practice; NFPA 70 (NEC) 2023, 410.116(B)).
       { re: rx`(?:recessed|can|pot)\s+(?:lights?|fixtures?|housings?|cans?)\s+${anyGap(8)}non-?ic\b`, context: /\b(?:insulation|cellulose|fiberglass|blown|batts?)\b/i },
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${SWITCH_GAP}(?:${T.FAILED}|${T.BE}not)\s+(?:light|illuminate|come on|turn on|operate|work)\b` },
@@ -554,6 +556,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${T.SWITCH}\s+${anyGap(6)}(?:do|does|did)\s*n[o']?t\s+turn\s+(?:the\s+)?${T.LIGHT}\s+on\b` },
       { re: rx`${T.SWITCH}\s+(?:for|to)\s+(?:the\s+)?${anyGap(3)}(?:crackles?|crackling|buzz(?:es|ing)?)\b` },
       { re: rx`${T.SWITCH}\s+${gap(6)}(?:crackles?|crackling|buzz(?:es|ing)?)\b` },
+      // A push button, toggle or switch stuck in one position (common practice): "the upper button of the push-button switch pair is stuck in".
+      { re: rx`(?:${T.SWITCH}|buttons?|toggles?|rockers?)\s+${gap(9)}${T.BE}(?:stuck|jammed|frozen)\b(?!\s+(?:open|closed)\s+(?:breaker|valve))`, context: /switch|push[- ]?button|toggle|rocker/i },
       // The switch's toggle, rocker or paddle broken or loose (common practice).
       { re: rx`(?:toggle|rocker|paddle)s?\s+${gap(3)}${T.BE}(?:broken|snapped(?: off)?|sloppy|loose|missing|cracked|stuck)`, context: /switch|toggle/i },
     ],

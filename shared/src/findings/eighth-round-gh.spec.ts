@@ -136,3 +136,13 @@ describe('places and wiring methods', () => {
     expect(read('Bedroom: the three-prong receptacle is on two-wire cable with no ground.')).toEqual([['open-ground', 'bedroom', 1]]);
   });
 });
+
+describe('lights and switches in older and attic prose', () => {
+  it('reads insulation packed against a non-IC housing (NFPA 70 (NEC) 2023, 410.116(B))', () => {
+    expect(read('Attic over the hall: the old recessed housing is a non-IC type and fiberglass batts are stuffed around it.')).toEqual([['light-fixture', 'attic', 1]]);
+  });
+
+  it('reads a switch or its push button stuck (common practice)', () => {
+    expect(read('Parlor: the lower push button of the old switch is jammed and will not move.')).toEqual([['switch-issue', 'living-area', 1]]);
+  });
+});
