@@ -16,11 +16,12 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // untuned score was recorded in docs/parser.md, which keeps the history of these floors. Last reset
 // 2026-12-04 when batch I (901-966) joined: precision 90.2 %, recall 91.0 %, F1 90.6 %, quantity
 // 96.3 % (2852/2961), rounded down; reset because the corpus changed, not the parser. Raise them as
-// the parser gets better; never lower them for the same corpus.
-const MIN_PRECISION = 0.902;
-const MIN_RECALL = 0.91;
-const MIN_F1 = 0.906;
-const MIN_QUANTITY = 0.963;
+// the parser gets better; never lower them for the same corpus. Raised by the eighth round on G and H
+// (branch parser9gh) to precision 90.94 %, recall 91.64 %, F1 91.29 %, quantity 96.37 % (2874/2982).
+const MIN_PRECISION = 0.9094;
+const MIN_RECALL = 0.9164;
+const MIN_F1 = 0.9129;
+const MIN_QUANTITY = 0.9637;
 
 describe('report parser corpus', () => {
   let run: BatchRun;

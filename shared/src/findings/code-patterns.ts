@@ -138,7 +138,7 @@ const WIRE_CONDITION = String.raw`(?:(?:run|runs|running|left)\s+(?:bare|exposed
 const GROUND_PART = String.raw`(?:ground(?:ing)? electrode(?: conductor| system)?|ges\b|gec\b|(?:ground(?:ing)?|electrode)\s+(?:rods?|clamps?|wires?|conductors?)\b|(?:main\s+)?(?:water|gas|csst)(?:\s+(?:pipe|piping|line|main|service))?\s+bond(?:ing)?(?:\s+(?:jumper|clamp|wire|conductor|connection))?\b|bond(?:ing)?\s+(?:jumpers?|clamps?|conductors?|wires?|connections?)\b|acorn clamp)`;
 /** What goes wrong with a grounding or bonding part (common practice). */
 const GROUND_CONDITION = String.raw`(?:loose|corroded|(?:heavy|severe|some)?\s*corrosion|rust(?:ed|y)|disconnected|detached|cut(?: off)?|broken|damaged|missing|slipping off|pulled (?:off|loose|free)|(?:not|un)[- ]?(?:connected|attached|bonded|secured|clamped)|undersized|painted over|(?:appears? to )?(?:have|has) been removed|removed)\b`;
-const COVER_OFF_TO_INSPECT = /\bremoved\s+(?:by\s+(?:the\s+)?inspector\s+)?(?:for|to|during|so|when|while)\b|\bwith\s+(?:the\s+)?(?:dead[- ]?front|(?:panel\s+)?cover)(?:\s+cover)?\s+(?:was\s+)?(?:removed|off)\b|\b(?:was|were)\s+removed\.?$/i;
+const COVER_OFF_TO_INSPECT = /\bremoved\s+(?:by\s+(?:the\s+)?inspector\s+)?(?:for|to|during|so|when|while)\b|\bwith\s+(?:the\s+)?(?:dead[- ]?front|(?:panel\s+)?cover)(?:\s+cover)?\s+(?:was\s+)?(?:removed|off)\b|\b(?:was|were)\s+removed\.?$|\b(?:dead[- ]?front|(?:panel\s+)?cover)\s+removed\s*(?::|\s-+\s|[.;]?\s*$)/i;
 /** A statement that the arrangement is right ("correct", "as permitted", "ok"), not negated ("not correct"). */
 const CORRECT_AT_SERVICE = /(?<!\bnot\s)\b(?:correct(?:ly)?|permitted|proper(?:ly)?|acceptable|allowed|ok|okay|normal|appropriate|(?:like|as) (?:they|it) should be)\b|\b(?:is|serves as|being|acts as)\s+(?:the\s+)?(?:service (?:disconnect|equipment|panel)|main (?:service\s+)?(?:panel|disconnect)|first (?:means of )?disconnect)\b/i;
 const SUBPANEL_CONTEXT = /sub-?\s?panel|secondary panel|remote panel|downstream|distribution panel|feeder/i;
@@ -206,6 +206,9 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`\brp\b` },
       // Inspectors' shorthand: "rev pol", "rev. pol.".
       { re: rx`rev\.?\s*pol\b\.?` },
+      // Formal prose in the code's own terms: the hot is the "ungrounded" and the neutral the "grounded"
+      // conductor ("the hot and grounded conductors were found reversed"; NFPA 70 (NEC) 2023, 200.11, Article 100).
+      { re: rx`(?:hot|ungrounded|line)\s+(?:and|&|\/)\s+(?:the\s+)?(?:neutral|grounded)\s+(?:wires?|conductors?|terminals?)\s+${gap(4)}(?:reversed|swapped|transposed)\b` },
     ],
   },
   {
@@ -219,20 +222,22 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:tested|tests?|read|reads|showed?|shows|indicated?|registers?|registered)\s+(?:as\s+)?(?:ungrounded|open ground)` },
       { re: rx`(?:three|3)[- ](?:prong|slot|hole)\s+${T.RCPT}?\s*${gap(3)}(?:on|with|in|fed by)\s+(?:an?\s+)?(?:ungrounded|two[- ]wire|2[- ]wire|non-?grounded)` },
       // A feeder with no equipment ground is a subpanel defect, a plastic water line no electrode: neither is a receptacle's open ground.
-      { re: rx`(?:no|lacks?|lacking|missing|without)\s+(?:an?\s+)?(?:equipment\s+)?ground(?:ing)?(?:\s+(?:conductor|wire|path))?\b(?!\s*(?:fault|electrode|rod|clamp))`, unless: /\b(?:feeder|sub-?panel|water (?:line|pipe|service)|electrode|ground rod|knob[- ]?(?:and|&|n)[- ]?tube)\b/i },
+      { re: rx`(?:no|lacks?|lacking|missing|without)\s+(?:an?\s+)?(?:equipment\s+)?ground(?:ing)?(?:\s+(?:conductor|wire|path))?\b(?!\s*(?:fault|electrode|rod|clamp))`, unless: /\b(?:feeder|sub-?panel|water (?:line|pipe|service)|electrode|ground rod|knob[- ]?(?:and|&|n)[- ]?tube)\b|^(?![^]*\b(?:receptacles?|outlets?|recepts?|rcpts?|devices?|prong|slots?|plugs?)\b)[^]*\b(?:two|2)[- ]wire\b/i },
       { re: rx`${T.RCPT}\s+${gap(8)}${T.BE}(?:not grounded|ungrounded)` },
     ],
   },
   {
     code: 'false-ground',
-    trigger: /ground|gnd|bootleg/i,
+    trigger: /ground|gnd|bootleg|green (?:terminal|screw)/i,
     yieldsTo: ['subpanel-bonding'],
     patterns: [
       { re: rx`(?:bootleg(?:ged)?|false|fake)\s+(?:indication of (?:a\s+)?)?ground(?:s|ed|ing)?\b` },
       // "(bootleg)" after the jumper it names, and "neutral -> ground screw" shorthand (common practice).
       { re: rx`bootleg(?:ged)?\b` },
-      { re: rx`(?:jumper|jumpered|jumped)\s+${anyGap(3)}(?:n|neutral)\s*(?:->|-->|→|to)\s*(?:the\s+)?(?:g|gnd|ground)(?:ing)?(?:\s+(?:terminal|screw))?` },
+      { re: rx`(?:jumper|jumpered|jumped)\s+${anyGap(3)}(?:n|neutral)\s*(?:->|-->|→|to)\s*(?:the\s+)?(?:g|gnd|ground)(?:ing)?\b(?:\s+(?:terminal|screw))?` },
       { re: rx`(?:jumper|jumpered|jumped|tied|bonded)\s+${anyGap(4)}(?:from\s+)?(?:the\s+)?neutral\s+${anyGap(3)}to\s+(?:the\s+)?(?:green\s+)?ground(?:ing)?(?:\s+(?:terminal|screw))?` },
+      // "jumpered the neutral to the green screw": the green screw is the receptacle's ground terminal (NFPA 70 (NEC) 2023, 406.4(D)(2), 250.142(B)).
+      { re: rx`(?:jumper|jumpered|jumped|tied)\s+${anyGap(4)}(?:from\s+)?(?:the\s+)?neutral\s+${anyGap(3)}to\s+(?:the\s+)?green\s+(?:terminal|screw)` },
       { re: rx`(?:jumper|wire)\s+${anyGap(4)}between\s+(?:the\s+)?neutral\s+${anyGap(3)}and\s+(?:the\s+)?(?:green\s+)?ground(?:ing)?(?:\s+(?:terminal|screw))?` },
       { re: rx`neutral[- ]to[- ]ground(?:ing)?\s+(?:terminal\s+|screw\s+)?jumper`, unless: PANEL_CONTEXT },
       { re: rx`neutral\s+${gap(4)}(?:jumpered|jumped|bonded|tied)\s+(?:over\s+)?to\s+(?:the\s+)?ground(?:ing)?(?:\s+(?:terminal|screw))?`, isRecommendation: true },
@@ -304,6 +309,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:open|exposed|unenclosed|loose|taped)\s+(?:wire\s+)?splices?` },
       // Terse notes: "tape splice on wall at workbench, no box".
       { re: rx`splices?\b\s+${anyGap(8)}no\s+(?:junction\s+)?box\b(?!\s*(?:covers?|lids?))` },
+      // "Two cables spliced with tape and hanging from a joist, no box" (NFPA 70 (NEC) 2023, 300.15).
+      { re: rx`(?:${T.WIRING}|wires|conductors)\s+(?:were\s+|are\s+|have been\s+)?spliced\b\s+${anyGap(8)}(?:no|without|not in)\s+(?:an?\s+|any\s+)?(?:junction\s+)?box(?:es)?\b(?!\s*(?:covers?|lids?))` },
       { re: rx`(?:spliced?|splices|connections?|connected)\b\s+${anyGap(20)}(?:(?:with\s+|and\s+)no|without(?:\s+an?)?|not\s+in(?:\s+an?)?|rather than (?:being\s+)?(?:enclosed\s+)?in(?:\s+an?)?|outside(?:\s+of)?(?:\s+(?:an?|any))?)\s+(?:junction\s+|electrical\s+)?(?:box|enclosure)` },
       { re: rx`(?:wrapped|taped)\s+(?:only\s+)?(?:in|with)\s+(?:electrical\s+)?tape` },
       // A box and its missing cover, or its visible splices, anywhere in the clause (terse notes and
@@ -468,6 +475,10 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${SMOKE_OR_LABEL}[^.;]{0,60}?(?:dated|date[- ]?(?:codes?|stamps?)|manufactured|manufacture dates?|made|stamped)\s+(?:in\s+|of\s+)?(?:19[5-9]\d|20[0-2]\d)\b`, context: /replac|expir|past|beyond|exceed|old|aged|life|chirp|\b(?:10|ten)[- ]years?/i },
       { re: rx`(?:19[5-9]\d|20[0-2]\d)\s+(?:date[- ]?codes?|manufactur\w+ dates?)`, context: /smoke|carbon monoxide|\bco\b|alarm|detector/i, unless: /\btested (?:ok|fine|good|properly|correctly)\b|\bsatisfactory\b/i },
       { re: rx`smoke(?:\s*(?:\/|and|&)\s*co)?\s*[:-]?\s+(?:${T.ABSENT}|none|expired|${T.INOPERATIVE})` },
+      // An alarm off its base: "hanging by its wiring harness", "not on its base", "pulled off the mounting plate" (common practice; NFPA 72 (2022), 29.8.3.4, from memory).
+      { re: rx`${T.SMOKE}\s+${gap(6)}(?:(?:hangs?|hanging|dangling|dangles|suspended)\s+(?:from|by|on)\s+(?:its\s+|the\s+)?(?:wir(?:e|es|ing)|harness|connector|pigtail)|(?:off|not on|not attached to|detached from|pulled (?:off|from)|fallen (?:off|from))\s+(?:of\s+)?(?:its\s+|the\s+)?(?:base|bracket|mounting (?:plate|base|bracket)|ceiling))` },
+      // "None of the four rented rooms has a smoke alarm": none of the places named has one.
+      { re: rx`none of (?:the\s+)?${gap(4)}(?:has|have|had|contains?)\s+(?:an?\s+|any\s+)?(?:working\s+)?${T.SMOKE}` },
     ],
   },
   {
@@ -483,10 +494,12 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`insulation\s+${gap(3)}(?:in contact with|touching|covering|over|on top of|against)\s+(?:the\s+)?${gap(2)}(?:recessed|can)\s+(?:lights?|fixtures?|cans?|housings?)` },
       // Common practice: a recessed housing not rated IC must keep its clearance from insulation.
       { re: rx`(?:non-?ic|recessed|can)\s+(?:(?:light|lighting|fixture)\s+)?(?:housings?|fixtures?|lights?|cans?)\s+${gap(6)}(?:${T.BE})?(?:covered|buried|packed|surrounded)\s+(?:down\s+|over\s+)?(?:by|in|with|under)\b` },
+      // "one recessed can housing is an older non-IC type and blown cellulose is packed against it" (common practice; NFPA 70 (NEC) 2023, 410.116(B)).
+      { re: rx`(?:insulation|cellulose|fiberglass|batts?)\s+${gap(3)}(?:packed|piled|pushed|stuffed|blown|heaped|banked|laid)\s+(?:up\s+|tight(?:ly)?\s+)?(?:against|around|over|on top of|onto|into|up to)\s+(?:it|them|the\s+(?:housings?|cans?|fixtures?|lights?))\b`, context: /non-?ic|recessed|can light|housing/i },
       // "can lights ... are the old non-IC type with blown cellulose piled on top of them" (common practice; NFPA 70 (NEC) 2023, 410.116(B)).
       { re: rx`(?:recessed|can|pot)\s+(?:lights?|fixtures?|housings?|cans?)\s+${anyGap(8)}non-?ic\b`, context: /\b(?:insulation|cellulose|fiberglass|blown|batts?)\b/i },
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${SWITCH_GAP}(?:${T.FAILED}|${T.BE}not)\s+(?:light|illuminate|come on|turn on|operate|work)\b` },
-      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}(?:has\s+)?(?:pulled|pulling|come|coming|separated|separating)\s+(?:away\s+|loose\s+)?(?:from|off)\s+(?:the\s+|its\s+)?(?:wall|siding|stucco|brick|soffit|fascia|ceiling|box|mounting|surface)` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}(?:has\s+)?(?:pulled|pulling|come|coming|separated|separating)\s+(?:away\s+|loose\s+)?(?:from|off)\s+(?:the\s+|its\s+)?(?:(?:log|wood|cedar|board|stone|block|masonry|exterior|porch|house|garage)\s+)?(?:wall|siding|stucco|brick|soffit|fascia|ceiling|box|mounting|surface)` },
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:${T.BE})?(?:missing|without|lacks?|has no)\s+(?:(?:its|a|the|their)\s+)?(?:glass\s+)?(?:globes?|lens(?:es)?|shades?|diffusers?|covers?)`, unless: BOX_FEEDING },
       { re: rx`(?:globes?|lens(?:es)?|shades?|diffusers?)\s+${T.BE}(?:missing|broken|cracked|absent)`, context: /light|fixture|lamp|bulb/i },
       { re: rx`(?:bare[- ]bulb|open|exposed|porcelain|keyless)\s+(?:porcelain\s+)?(?:lamp\s?holders?|sockets?)` },
@@ -543,6 +556,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${T.SWITCH}\s+${anyGap(6)}(?:do|does|did)\s*n[o']?t\s+turn\s+(?:the\s+)?${T.LIGHT}\s+on\b` },
       { re: rx`${T.SWITCH}\s+(?:for|to)\s+(?:the\s+)?${anyGap(3)}(?:crackles?|crackling|buzz(?:es|ing)?)\b` },
       { re: rx`${T.SWITCH}\s+${gap(6)}(?:crackles?|crackling|buzz(?:es|ing)?)\b` },
+      // A push button, toggle or switch stuck in one position (common practice): "the upper button of the push-button switch pair is stuck in".
+      { re: rx`(?:${T.SWITCH}|buttons?|toggles?|rockers?)\s+${gap(9)}${T.BE}(?:stuck|jammed|frozen)\b(?!\s+(?:open|closed)\s+(?:breaker|valve))`, context: /switch|push[- ]?button|toggle|rocker/i },
       // The switch's toggle, rocker or paddle broken or loose (common practice).
       { re: rx`(?:toggle|rocker|paddle)s?\s+${gap(3)}${T.BE}(?:broken|snapped(?: off)?|sloppy|loose|missing|cracked|stuck)`, context: /switch|toggle/i },
     ],
@@ -560,6 +575,11 @@ export const CODE_RULES: readonly CodeRule[] = [
       },
       {
         re: rx`(?:branch[- ]circuits?|branch wiring|wiring|circuits)\s+${gap(5)}${T.BE}(?:(?:single|solid)[- ](?:strand(?:ed)?|conductor)\s+)?(?:aluminum|aluminium)\b`,
+        unless: /\bstranded\b|service[- ]entrance|se cable|feeder/i,
+      },
+      // "the addition is wired with single-strand aluminum on its 15 and 20 amp circuits" (common practice).
+      {
+        re: rx`wired\s+(?:entirely\s+|mostly\s+|partly\s+)?(?:with|in|using)\s+(?:(?:single|solid)[- ](?:strand(?:ed)?|conductor)\s+)?(?:aluminum|aluminium)\b(?!\s+(?:feeders?|service|se\b))`,
         unless: /\bstranded\b|service[- ]entrance|se cable|feeder/i,
       },
     ],
