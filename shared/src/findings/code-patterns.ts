@@ -138,7 +138,7 @@ const WIRE_CONDITION = String.raw`(?:(?:run|runs|running|left)\s+(?:bare|exposed
 const GROUND_PART = String.raw`(?:ground(?:ing)? electrode(?: conductor| system)?|ges\b|gec\b|(?:ground(?:ing)?|electrode)\s+(?:rods?|clamps?|wires?|conductors?)\b|(?:main\s+)?(?:water|gas|csst)(?:\s+(?:pipe|piping|line|main|service))?\s+bond(?:ing)?(?:\s+(?:jumper|clamp|wire|conductor|connection))?\b|bond(?:ing)?\s+(?:jumpers?|clamps?|conductors?|wires?|connections?)\b|acorn clamp)`;
 /** What goes wrong with a grounding or bonding part (common practice). */
 const GROUND_CONDITION = String.raw`(?:loose|corroded|(?:heavy|severe|some)?\s*corrosion|rust(?:ed|y)|disconnected|detached|cut(?: off)?|broken|damaged|missing|slipping off|pulled (?:off|loose|free)|(?:not|un)[- ]?(?:connected|attached|bonded|secured|clamped)|undersized|painted over|(?:appears? to )?(?:have|has) been removed|removed)\b`;
-const COVER_OFF_TO_INSPECT = /\bremoved\s+(?:by\s+(?:the\s+)?inspector\s+)?(?:for|to|during|so|when|while)\b|\bwith\s+(?:the\s+)?(?:dead[- ]?front|(?:panel\s+)?cover)(?:\s+cover)?\s+(?:was\s+)?(?:removed|off)\b|\b(?:was|were)\s+removed\.?$/i;
+const COVER_OFF_TO_INSPECT = /\bremoved\s+(?:by\s+(?:the\s+)?inspector\s+)?(?:for|to|during|so|when|while)\b|\bwith\s+(?:the\s+)?(?:dead[- ]?front|(?:panel\s+)?cover)(?:\s+cover)?\s+(?:was\s+)?(?:removed|off)\b|\b(?:was|were)\s+removed\.?$|\bremoved\b[^.;]{0,40}\b(?:looked at|examined|inspected|checked|evaluated|viewed)\b|\bonly\b[^.;]{0,40}\b(?:is|are)\s+removed\b|\bremoved\b[^.;]{0,30}\bwhen\b[^.;]{0,20}\bsafe\b/i;
 /** A statement that the arrangement is right ("correct", "as permitted", "ok"), not negated ("not correct"). */
 const CORRECT_AT_SERVICE = /(?<!\bnot\s)\b(?:correct(?:ly)?|permitted|proper(?:ly)?|acceptable|allowed|ok|okay|normal|appropriate|(?:like|as) (?:they|it) should be)\b|\b(?:is|serves as|being|acts as)\s+(?:the\s+)?(?:service (?:disconnect|equipment|panel)|main (?:service\s+)?(?:panel|disconnect)|first (?:means of )?disconnect)\b/i;
 const SUBPANEL_CONTEXT = /sub-?\s?panel|secondary panel|remote panel|downstream|distribution panel|feeder/i;
@@ -225,7 +225,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'false-ground',
-    trigger: /ground|gnd|bootleg/i,
+    trigger: /ground|gnd|bootleg|jumper/i,
     yieldsTo: ['subpanel-bonding'],
     patterns: [
       { re: rx`(?:bootleg(?:ged)?|false|fake)\s+(?:indication of (?:a\s+)?)?ground(?:s|ed|ing)?\b` },
