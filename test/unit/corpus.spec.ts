@@ -15,11 +15,12 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // A ratchet, not the goal (0.95 on each). Every batch from 101 on joined the tuning set only after its
 // untuned score was recorded in docs/parser.md, which keeps the history of these floors. Last reset
 // 2026-12-04 when batch I (901-966) joined: precision 90.2 %, recall 91.0 %, F1 90.6 %, quantity
-// 96.3 % (2852/2961), rounded down; reset because the corpus changed, not the parser. Raise them as
-// the parser gets better; never lower them for the same corpus.
-const MIN_PRECISION = 0.902;
-const MIN_RECALL = 0.91;
-const MIN_F1 = 0.906;
+// 96.3 % (2852/2961), rounded down; reset because the corpus changed, not the parser. Raised after
+// the eighth round (batch I tuned on) to 0.9159, 0.9145, 0.9152 and 0.963 (quantity 2866/2976), the
+// exact figures rounded down. Raise them as the parser gets better; never lower them for the same corpus.
+const MIN_PRECISION = 0.9159;
+const MIN_RECALL = 0.9145;
+const MIN_F1 = 0.9152;
 const MIN_QUANTITY = 0.963;
 
 describe('report parser corpus', () => {

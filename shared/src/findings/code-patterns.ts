@@ -68,6 +68,8 @@ const OUTDOOR_CABLE = String.raw`(?:(?:uf|underground|direct[- ]burial|feeder|(?
 const FLEX_CORD = String.raw`(?:extension|lamp|zip|flexible|appliance)\s+cords?`;
 const RECOMMEND = String.raw`(?:recommend(?:ed|s|ing)?|suggest(?:ed)?|should (?:be|have)|install(?:ing|ed)?|upgrad(?:e|ed|ing) to|add(?:ing)?|need(?:s|ed)?|requires?|consider(?:ing)?|have the)`;
 /** Words that turn a recommendation into one about an existing device (replace, test, reset). */
+/** A repair asked for as a noun, the way buyers' addenda and attorneys' letters list them ("Installation of GFCI protection at ..."). */
+const REQUEST_NOUN = String.raw`(?:installation|addition|provision)\s+of`;
 const NOT_ABOUT_ADDING = String.raw`(?:(?!replac|repair|reset|test|check)[\w-]+\s+){0,4}?`;
 /** A light that is part of an appliance (range hood, oven, refrigerator, opener) is not a light fixture. */
 const NOT_APPLIANCE = String.raw`(?<!\b(?:hood|range|oven|microwave|refrigerator|fridge|freezer|opener|appliance|exhaust fan)\s)`;
@@ -162,6 +164,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${T.GFCI}(?:\s+protect(?:ion|ed))?(?:\s+(?:at|in|for)\s+${gap(3)}[\w-]+)?\s*[:=-]\s*(?:no|none|missing|absent)\b` },
       { re: rx`${T.RCPT}\s+${gap(4)}(?:are|is|were|was)\s+not\s+(?:on|protected by)\s+(?:an?\s+)?${T.GFCI}` },
       { re: rx`${RECOMMEND}\s+${NOT_ABOUT_ADDING}${T.GFCI}`, isRecommendation: true },
+      { re: rx`${REQUEST_NOUN}\s+${NOT_ABOUT_ADDING}${T.GFCI}`, isRecommendation: true },
     ],
   },
   {
@@ -188,6 +191,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:${T.NO}|not|non-?)\s*${PF}${T.AFCI}` },
       { re: rx`${T.AFCI}(?:\s+(?:protection|protected|breakers?|${T.RCPT}))?\s+${T.BE}${T.ABSENT}` },
       { re: rx`${RECOMMEND}\s+${NOT_ABOUT_ADDING}${T.AFCI}`, isRecommendation: true },
+      { re: rx`${REQUEST_NOUN}\s+${NOT_ABOUT_ADDING}${T.AFCI}`, isRecommendation: true },
       // A checklist or table row: the item, its place, then its absence ("AFCI | Bedrooms | NP | Not present").
       { re: rx`^\s*${T.AFCI}(?:\s+protection)?\s+${anyGap(4)}(?:(?:np|n\/p)\s+)?(?:not present|none|np|n\/p)\b(?!\s+(?:tripped|failed))`, unless: /\btested\s+(?:ok|good|fine)|\bsatisfactory\b|(?<!\bnot\s)\bpresent\b/i },
       // "None of the bedroom circuits have arc-fault protection" (NFPA 70 (NEC) 2023, 210.12).
@@ -271,6 +275,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:${T.NO})\s+(?:(?:an?|the|its|their|proper|required)\s+)?(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant|[- ]tight)?|wp|wr)[- ]?(?:rated\s+)?(?:covers?|hoods?|lids?)\s*\([^()]{1,60}\)` },
       // Common practice (NFPA 70 (NEC) 2023, 406.9(B)(1)): an outdoor receptacle in a wet location has a cover that is weatherproof with a plug in; a flat cover is not.
       { re: rx`(?:only\s+(?:a\s+)?)?flat\s+${gap(2)}(?:covers?|lids?)(?:\s+only)?`, context: /in[- ]use|bubble|weather|exterior|outdoor|patio|porch|deck|while (?:a cord is )?(?:plugged|in use)/i },
+      // "missing the weatherproof "bubble" covers": a nickname in quotes or brackets before the noun.
+      { re: rx`(?:${T.NO}|${T.ABSENT}|lack(?:s|ing)?)\s+(?:(?:an?|the|its|their|proper|required)\s+)?(?:weather(?:[- ]?proof|[- ]resistant)|in[- ]use|wp|wr)\s+["“'(][\w -]{1,15}["”')]\s+(?:covers?|lids?|hoods?)` },
       { re: rx`(?:covers?|lids?)\s+${gap(3)}(?:${T.BE})?broken off` },
       // "none of the three has a weather cover": the absence at every one named (NFPA 70 (NEC) 2023, 406.9(B)(1)).
       { re: rx`none\s+of\s+(?:the\s+|them\s+)?${gap(3)}(?:has|have|had)\s+(?:an?\s+|any\s+)?(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant)?|wp)\s+covers?` },
@@ -465,6 +471,9 @@ export const CODE_RULES: readonly CodeRule[] = [
       // "Smoke alarms: battery units; alarm missing from the upstairs bedroom": the device named by its last word.
       { re: rx`(?:alarms?|detectors?)\s+${gap(3)}${T.BE}(?:${T.ABSENT}|${T.INOPERATIVE}|expired)`, context: /smoke|carbon monoxide|\bco\b/i },
       { re: rx`${SMOKE_OR_LABEL}[^.;]{0,90}?${SMOKE_AGED}` },
+      // "The hallway alarm ... may be past its service life", "the alarm in the upstairs hall was chirping": an
+      // alarm named without "smoke" in a report is a smoke or CO alarm unless it is a security system's.
+      { re: rx`(?<!\b(?:security|burglar|intrusion|fire panel)\s)alarms?\s+[^.;]{0,90}?${SMOKE_AGED}`, unless: /\b(?:security|burglar|intrusion|monitor\w*|alarm (?:panel|system|company|contract))\b/i },
       { re: rx`${SMOKE_OR_LABEL}[^.;]{0,60}?(?:dated|date[- ]?(?:codes?|stamps?)|manufactured|manufacture dates?|made|stamped)\s+(?:in\s+|of\s+)?(?:19[5-9]\d|20[0-2]\d)\b`, context: /replac|expir|past|beyond|exceed|old|aged|life|chirp|\b(?:10|ten)[- ]years?/i },
       { re: rx`(?:19[5-9]\d|20[0-2]\d)\s+(?:date[- ]?codes?|manufactur\w+ dates?)`, context: /smoke|carbon monoxide|\bco\b|alarm|detector/i, unless: /\btested (?:ok|fine|good|properly|correctly)\b|\bsatisfactory\b/i },
       { re: rx`smoke(?:\s*(?:\/|and|&)\s*co)?\s*[:-]?\s+(?:${T.ABSENT}|none|expired|${T.INOPERATIVE})` },

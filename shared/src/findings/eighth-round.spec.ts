@@ -133,3 +133,35 @@ describe('false grounds: a jumper from the neutral to the green screw (NFPA 70 (
     expect(read('In the den someone jumpered the neutral to the green screw so the tester reads correct.')).toEqual([['false-ground', 'living-area', 1]]);
   });
 });
+
+describe('wordings of second-hand and cautious reports', () => {
+  it('reads an alarm named without "smoke" whose age or chirp is the defect (common practice: smoke alarms are replaced ten years after manufacture)', () => {
+    expect(read('The alarm in the guest room is dated 2008 and is past its service life.')).toEqual([['smoke-co-alarm', 'bedroom', 1]]);
+    expect(read('The hallway alarm was chirping during the whole visit.')).toEqual([['smoke-co-alarm', 'hallway', 1]]);
+  });
+
+  it('leaves a security system\'s alarm alone', () => {
+    expect(read('The security alarm panel in the hallway is past its service life.')).toEqual([]);
+  });
+
+  it('reads a weather cover named with a nickname in quotes (NFPA 70 (NEC) 2023, 406.9(B)(1))', () => {
+    expect(read('The patio receptacle is missing the in-use "bubble" cover.')).toEqual([['weather-cover-missing', 'exterior', 1]]);
+  });
+
+  it('reads a repair asked for as a noun ("Installation of GFCI protection at ...") as the missing protection (NFPA 70 (NEC) 2023, 210.8(A))', () => {
+    expect(read('Installation of GFCI protection at the three garage receptacles.')).toEqual([['gfci-missing', 'garage', 3]]);
+  });
+});
+
+describe('summaries: an "EXECUTIVE SUMMARY" heading opens a summary that the body repeats (common practice)', () => {
+  it('gives one finding for a summary line and its body paragraph', () => {
+    const report = [
+      '=== EXECUTIVE SUMMARY ===',
+      '  a) Open junction box in the attic',
+      '',
+      '=== ELECTRICAL ===',
+      'Attic: a junction box above the hall ceiling has no cover; splices are exposed.',
+    ].join('\n');
+    expect(read(report)).toEqual([['open-junction-box', 'attic', 1]]);
+  });
+});
