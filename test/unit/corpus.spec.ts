@@ -16,11 +16,11 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // untuned score was recorded in docs/parser.md, which keeps the history of these floors. Last reset
 // 2026-12-04 when batch I (901-966) joined: precision 90.2 %, recall 91.0 %, F1 90.6 %, quantity
 // 96.3 % (2852/2961), rounded down; reset because the corpus changed, not the parser. Raised after
-// the eighth round (batch I tuned on) to 0.9159, 0.9145, 0.9152 and 0.963 (quantity 2866/2976), the
+// the eighth round (batch I tuned on) to 0.9162, 0.9145, 0.9154 and 0.963 (quantity 2866/2976), the
 // exact figures rounded down. Raise them as the parser gets better; never lower them for the same corpus.
-const MIN_PRECISION = 0.9159;
+const MIN_PRECISION = 0.9162;
 const MIN_RECALL = 0.9145;
-const MIN_F1 = 0.9152;
+const MIN_F1 = 0.9154;
 const MIN_QUANTITY = 0.963;
 
 describe('report parser corpus', () => {

@@ -165,3 +165,13 @@ describe('summaries: an "EXECUTIVE SUMMARY" heading opens a summary that the bod
     expect(read(report)).toEqual([['open-junction-box', 'attic', 1]]);
   });
 });
+
+describe('polarity: old cloth-covered cable that is out of use is history, not a wiring method in service (common practice)', () => {
+  it('reads nothing from cable disconnected and abandoned', () => {
+    expect(read('The cloth-covered wiring in the attic was disconnected and abandoned during the 2015 rewire.')).toEqual([]);
+  });
+
+  it('still reads cloth-covered wiring in use', () => {
+    expect(read('Cloth-covered wiring is still in use in the attic.')).toEqual([['knob-and-tube', 'attic', null]]);
+  });
+});
