@@ -69,6 +69,12 @@ const ANOTHER = /\b(?:also|another|too|as well|second|other|additional|each|(?<!
 const REFERS_BACK = /^(?:it|they|this|these|those|each|both|one|the same|also|and|there (?:is|are|was|were) also)\b/i;
 /** A short line naming a place with no verb ("Basement bar area", "Primary bath:"). */
 const MAX_LABEL_WORDS = 5;
+/**
+ * A form's field that gives the place of the item ("Location: Hall bath, left of the sink",
+ * "Area - crawl space"): the observation under it is there, however long the field is (common
+ * practice in reports built from Location/Observation/Recommendation fields).
+ */
+const LOCATION_FIELD = /^\W*(?:location|area|room|where|place)\s*(?::|\s-\s)/i;
 /** Counting whitespace runs gives the word count of `split(/\s+/)` without its copy of the expression. */
 const WHITESPACE_RUN = /\s+/g;
 const VERB = /\b(?:is|are|was|were|has|have|had|be|been)\b/i;
@@ -222,8 +228,10 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
       found.push(...inSentence);
       if (inSentence.some((f) => !f.isRecommendation && !f.isFallbackOnly)) lastFound = inSentence;
     }
-    const mention = lastPlaceMention(rooms);
-    if (mention) previous = { text: sentence.text, mention, isLabel: matches.length === 0 && hasAtMostWords(sentence.text, MAX_LABEL_WORDS) && !VERB.test(sentence.text) };
+    // A location field names the item's place first and reference points after it ("Crawl space, below the hall").
+    const fieldPlace = matches.length === 0 && LOCATION_FIELD.test(sentence.text) ? rooms.find((r) => !r.isReferencePoint && r.room !== 'panel') : undefined;
+    const mention = fieldPlace ?? lastPlaceMention(rooms);
+    if (mention) previous = { text: sentence.text, mention, isLabel: matches.length === 0 && ((hasAtMostWords(sentence.text, MAX_LABEL_WORDS) && !VERB.test(sentence.text)) || LOCATION_FIELD.test(sentence.text)) };
     if (sentenceIndex === 0 && mention) opening = { room: mention.room, location: readLocation(sentence.text, mention), hadFindings: live.length > 0 };
   });
   return { findings: keepDistinct(found), hasNegated };

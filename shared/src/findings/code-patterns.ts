@@ -68,6 +68,8 @@ const OUTDOOR_CABLE = String.raw`(?:(?:uf|underground|direct[- ]burial|feeder|(?
 const FLEX_CORD = String.raw`(?:extension|lamp|zip|flexible|appliance)\s+cords?`;
 const RECOMMEND = String.raw`(?:recommend(?:ed|s|ing)?|suggest(?:ed)?|should (?:be|have)|install(?:ing|ed)?|upgrad(?:e|ed|ing) to|add(?:ing)?|need(?:s|ed)?|requires?|consider(?:ing)?|have the)`;
 /** Words that turn a recommendation into one about an existing device (replace, test, reset). */
+/** A repair asked for as a noun, the way buyers' addenda and attorneys' letters list them ("Installation of GFCI protection at ..."). */
+const REQUEST_NOUN = String.raw`(?:installation|addition|provision)\s+of`;
 const NOT_ABOUT_ADDING = String.raw`(?:(?!replac|repair|reset|test|check)[\w-]+\s+){0,4}?`;
 /** A light that is part of an appliance (range hood, oven, refrigerator, opener) is not a light fixture. */
 const NOT_APPLIANCE = String.raw`(?<!\b(?:hood|range|oven|microwave|refrigerator|fridge|freezer|opener|appliance|exhaust fan)\s)`;
@@ -88,6 +90,8 @@ const JBOX_WORD = /junction|j-?\s?box|(?<!\b(?:switch|device|outlet|receptacle|i
 /** Old wiring that is out of service (common practice: only energized knob-and-tube is reported as a condition). */
 const WIRING_OUT_OF_USE = /\b(?:not energized|de-?energized|abandoned|tested dead|no longer (?:in use|energized|active|in service)|(?:was|were|has been|have been) (?:removed|replaced)|(?:was|were|been) cut|cut (?:out|loose|off|back)|(?:came|taken|pulled|ripped) out|(?:nothing|not|none) (?:was |is )?(?:live|hot|energized)|(?:showed|read|detected) (?:nothing|no voltage)|(?:didn[’']?t|did not|could not|couldn[’']?t) find any|none (?:left|remaining|found in use|in use))\b/i;
 /** A smoke/CO alarm, or a "Smoke:" / "CO:" label standing for it in shorthand. */
+/** Old cable that is not knob-and-tube: at a receptacle it is an open ground; out of use it is history (WIRING_OUT_OF_USE). */
+const OLD_CABLE_NOT_KT = new RegExp(String.raw`\b(?:recep\w*|rcpts?|outlets?|three[- ](?:slot|prong)|3[- ](?:slot|prong)|grounded cable|patchwork|mix|\d{1,2}\s*awg)\b|${WIRING_OUT_OF_USE.source}`, 'i');
 const SMOKE_OR_LABEL = String.raw`(?:${T.SMOKE}|(?:smoke|co)(?:\s*(?:\/|and|&)\s*co)?\s*:)`;
 /** An alarm past its service life: expired, end of life, chirping, older than ten years. */
 const SMOKE_AGED = String.raw`(?:expired|end[- ]of[- ]life|chirp(?:s|ed|ing)?\b|(?:past|beyond|exceed(?:s|ed|ing)?|over|outlived|older than)\s+(?:(?:the|their|its|a|his|her)\s+)?(?:(?:\d+|ten)[- ]?(?:year|yr)s?\b|(?:recommended\s+|expected\s+|normal\s+)?(?:service|useful|rated)\s+life|life\s*span|expiration|replacement (?:age|date)))`;
@@ -138,7 +142,7 @@ const WIRE_CONDITION = String.raw`(?:(?:run|runs|running|left)\s+(?:bare|exposed
 const GROUND_PART = String.raw`(?:ground(?:ing)? electrode(?: conductor| system)?|ges\b|gec\b|(?:ground(?:ing)?|electrode)\s+(?:rods?|clamps?|wires?|conductors?)\b|(?:main\s+)?(?:water|gas|csst)(?:\s+(?:pipe|piping|line|main|service))?\s+bond(?:ing)?(?:\s+(?:jumper|clamp|wire|conductor|connection))?\b|bond(?:ing)?\s+(?:jumpers?|clamps?|conductors?|wires?|connections?)\b|acorn clamp)`;
 /** What goes wrong with a grounding or bonding part (common practice). */
 const GROUND_CONDITION = String.raw`(?:loose|corroded|(?:heavy|severe|some)?\s*corrosion|rust(?:ed|y)|disconnected|detached|cut(?: off)?|broken|damaged|missing|slipping off|pulled (?:off|loose|free)|(?:not|un)[- ]?(?:connected|attached|bonded|secured|clamped)|undersized|painted over|(?:appears? to )?(?:have|has) been removed|removed)\b`;
-const COVER_OFF_TO_INSPECT = /\bremoved\s+(?:by\s+(?:the\s+)?inspector\s+)?(?:for|to|during|so|when|while)\b|\bwith\s+(?:the\s+)?(?:dead[- ]?front|(?:panel\s+)?cover)(?:\s+cover)?\s+(?:was\s+)?(?:removed|off)\b|\b(?:was|were)\s+removed\.?$|\b(?:dead[- ]?front|(?:panel\s+)?cover)\s+removed\s*(?::|\s-+\s|[.;]?\s*$)/i;
+const COVER_OFF_TO_INSPECT = /\bremoved\s+(?:by\s+(?:the\s+)?inspector\s+)?(?:for|to|during|so|when|while)\b|\bwith\s+(?:the\s+)?(?:dead[- ]?front|(?:panel\s+)?cover)(?:\s+cover)?\s+(?:was\s+)?(?:removed|off)\b|\b(?:was|were)\s+removed\.?$|\b(?:dead[- ]?front|(?:panel\s+)?cover)\s+removed\s*(?::|\s-+\s|[.;]?\s*$)|\bremoved\b[^.;]{0,40}\b(?:looked at|examined|inspected|checked|evaluated|viewed)\b|\bonly\b[^.;]{0,40}\b(?:is|are)\s+removed\b|\bremoved\b[^.;]{0,30}\bwhen\b[^.;]{0,20}\bsafe\b/i;
 /** A statement that the arrangement is right ("correct", "as permitted", "ok"), not negated ("not correct"). */
 const CORRECT_AT_SERVICE = /(?<!\bnot\s)\b(?:correct(?:ly)?|permitted|proper(?:ly)?|acceptable|allowed|ok|okay|normal|appropriate|(?:like|as) (?:they|it) should be)\b|\b(?:is|serves as|being|acts as)\s+(?:the\s+)?(?:service (?:disconnect|equipment|panel)|main (?:service\s+)?(?:panel|disconnect)|first (?:means of )?disconnect)\b/i;
 const SUBPANEL_CONTEXT = /sub-?\s?panel|secondary panel|remote panel|downstream|distribution panel|feeder/i;
@@ -162,6 +166,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${T.GFCI}(?:\s+protect(?:ion|ed))?(?:\s+(?:at|in|for)\s+${gap(3)}[\w-]+)?\s*[:=-]\s*(?:no|none|missing|absent)\b` },
       { re: rx`${T.RCPT}\s+${gap(4)}(?:are|is|were|was)\s+not\s+(?:on|protected by)\s+(?:an?\s+)?${T.GFCI}` },
       { re: rx`${RECOMMEND}\s+${NOT_ABOUT_ADDING}${T.GFCI}`, isRecommendation: true },
+      { re: rx`${REQUEST_NOUN}\s+${NOT_ABOUT_ADDING}${T.GFCI}`, isRecommendation: true },
     ],
   },
   {
@@ -188,6 +193,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:${T.NO}|not|non-?)\s*${PF}${T.AFCI}` },
       { re: rx`${T.AFCI}(?:\s+(?:protection|protected|breakers?|${T.RCPT}))?\s+${T.BE}${T.ABSENT}` },
       { re: rx`${RECOMMEND}\s+${NOT_ABOUT_ADDING}${T.AFCI}`, isRecommendation: true },
+      { re: rx`${REQUEST_NOUN}\s+${NOT_ABOUT_ADDING}${T.AFCI}`, isRecommendation: true },
       // A checklist or table row: the item, its place, then its absence ("AFCI | Bedrooms | NP | Not present").
       { re: rx`^\s*${T.AFCI}(?:\s+protection)?\s+${anyGap(4)}(?:(?:np|n\/p)\s+)?(?:not present|none|np|n\/p)\b(?!\s+(?:tripped|failed))`, unless: /\btested\s+(?:ok|good|fine)|\bsatisfactory\b|(?<!\bnot\s)\bpresent\b/i },
       // "None of the bedroom circuits have arc-fault protection" (NFPA 70 (NEC) 2023, 210.12).
@@ -228,7 +234,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'false-ground',
-    trigger: /ground|gnd|bootleg|green (?:terminal|screw)/i,
+    trigger: /ground|gnd|bootleg|jumper|green (?:terminal|screw)/i,
     yieldsTo: ['subpanel-bonding'],
     patterns: [
       { re: rx`(?:bootleg(?:ged)?|false|fake)\s+(?:indication of (?:a\s+)?)?ground(?:s|ed|ing)?\b` },
@@ -276,6 +282,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:${T.NO})\s+(?:(?:an?|the|its|their|proper|required)\s+)?(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant|[- ]tight)?|wp|wr)[- ]?(?:rated\s+)?(?:covers?|hoods?|lids?)\s*\([^()]{1,60}\)` },
       // Common practice (NFPA 70 (NEC) 2023, 406.9(B)(1)): an outdoor receptacle in a wet location has a cover that is weatherproof with a plug in; a flat cover is not.
       { re: rx`(?:only\s+(?:a\s+)?)?flat\s+${gap(2)}(?:covers?|lids?)(?:\s+only)?`, context: /in[- ]use|bubble|weather|exterior|outdoor|patio|porch|deck|while (?:a cord is )?(?:plugged|in use)/i },
+      // "missing the weatherproof "bubble" covers": a nickname in quotes or brackets before the noun.
+      { re: rx`(?:${T.NO}|${T.ABSENT}|lack(?:s|ing)?)\s+(?:(?:an?|the|its|their|proper|required)\s+)?(?:weather(?:[- ]?proof|[- ]resistant)|in[- ]use|wp|wr)\s+["“'(][\w -]{1,15}["”')]\s+(?:covers?|lids?|hoods?)` },
       { re: rx`(?:covers?|lids?)\s+${gap(3)}(?:${T.BE})?broken off` },
       // "none of the three has a weather cover": the absence at every one named (NFPA 70 (NEC) 2023, 406.9(B)(1)).
       { re: rx`none\s+of\s+(?:the\s+|them\s+)?${gap(3)}(?:has|have|had)\s+(?:an?\s+|any\s+)?(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant)?|wp)\s+covers?` },
@@ -472,6 +480,9 @@ export const CODE_RULES: readonly CodeRule[] = [
       // "Smoke alarms: battery units; alarm missing from the upstairs bedroom": the device named by its last word.
       { re: rx`(?:alarms?|detectors?)\s+${gap(3)}${T.BE}(?:${T.ABSENT}|${T.INOPERATIVE}|expired)`, context: /smoke|carbon monoxide|\bco\b/i },
       { re: rx`${SMOKE_OR_LABEL}[^.;]{0,90}?${SMOKE_AGED}` },
+      // "The hallway alarm ... may be past its service life", "the alarm in the upstairs hall was chirping": an
+      // alarm named without "smoke" in a report is a smoke or CO alarm unless it is a security system's.
+      { re: rx`(?<!\b(?:security|burglar|intrusion|fire panel)\s)alarms?\s+[^.;]{0,90}?${SMOKE_AGED}`, unless: /\b(?:security|burglar|intrusion|monitor\w*|alarm (?:panel|system|company|contract))\b/i },
       { re: rx`${SMOKE_OR_LABEL}[^.;]{0,60}?(?:dated|date[- ]?(?:codes?|stamps?)|manufactured|manufacture dates?|made|stamped)\s+(?:in\s+|of\s+)?(?:19[5-9]\d|20[0-2]\d)\b`, context: /replac|expir|past|beyond|exceed|old|aged|life|chirp|\b(?:10|ten)[- ]years?/i },
       { re: rx`(?:19[5-9]\d|20[0-2]\d)\s+(?:date[- ]?codes?|manufactur\w+ dates?)`, context: /smoke|carbon monoxide|\bco\b|alarm|detector/i, unless: /\btested (?:ok|fine|good|properly|correctly)\b|\bsatisfactory\b/i },
       { re: rx`smoke(?:\s*(?:\/|and|&)\s*co)?\s*[:-]?\s+(?:${T.ABSENT}|none|expired|${T.INOPERATIVE})` },
@@ -596,7 +607,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       // Two-wire or cloth-covered cable is a wiring method of its own; at a three-slot receptacle it
       // is an open ground, so it is knob-and-tube only when the sentence says the wiring is that old
       // kind with no receptacle on it (common practice).
-      { re: rx`(?:ungrounded|two[- ]wire|2[- ]wire|cloth[- ](?:insulated|covered|sheathed)|fabric[- ](?:insulated|covered)|rubber[- ]insulated)\s+(?:legacy\s+|old(?:er)?\s+|original\s+|vintage\s+)?(?:wir(?:e|es|ing)|cables?|circuits?)\b`, unless: /\b(?:recep\w*|rcpts?|outlets?|three[- ](?:slot|prong)|3[- ](?:slot|prong)|grounded cable|patchwork|mix|\d{1,2}\s*awg)\b/i },
+      { re: rx`(?:ungrounded|two[- ]wire|2[- ]wire|cloth[- ](?:insulated|covered|sheathed)|fabric[- ](?:insulated|covered)|rubber[- ]insulated)\s+(?:legacy\s+|old(?:er)?\s+|original\s+|vintage\s+)?(?:wir(?:e|es|ing)|cables?|circuits?)\b`, unless: OLD_CABLE_NOT_KT },
     ],
   },
   {
