@@ -496,11 +496,14 @@ describe('GET /api/requests', () => {
 
     // The page of a search with more matches than the cap walks the sort's index and tests each row
     // as it passes; the plan made once for every pattern must keep that index (it cannot know how
-    // many rows a pattern matches).
+    // many rows a pattern matches). In this file's data nearly every request is the one contractor's,
+    // so for its walk the planner may take the created-at index of all requests with the contractor
+    // as a filter, or the contractor's own: both walk in the sort's order and stop after the page
+    // (which of the two it takes depends on the table's statistics at the moment).
     it.each([
       ['agent', 'closingDate', 'asc', 'request_viewers_closing_index'],
       ['agent', 'street', 'desc', 'request_viewers_street_index'],
-      ['contractor', 'createdAt', 'desc', 'repair_requests_contractor_created_index'],
+      ['contractor', 'createdAt', 'desc', 'repair_requests_(contractor_)?created_index'],
       ['admin', 'street', 'asc', 'repair_requests_street_index'],
     ] as const)('walks the %s’s search in the sort’s index (%s %s: %s)', async (who, sort, direction, index) => {
       const user = people[who].user;
