@@ -156,7 +156,10 @@ export async function run(): Promise<void> {
 
     const port = await freePort();
     const url = `http://127.0.0.1:${port}`;
-    server = spawn(join(root, 'node_modules/.bin/tsx'), ['server/src/main.ts'], {
+    // The server as `npm start` runs it: built as JavaScript, run by node.
+    const { buildServer } = (await import(join(root, 'scripts/lib/server-build.mjs'))) as { buildServer(root: string): Promise<string> };
+    const entry = await buildServer(root);
+    server = spawn(process.execPath, [entry], {
       cwd: root,
       env: { ...process.env, NODE_ENV: 'production', DATABASE_URL: databaseUrl, PORT: String(port), PUBLIC_URL: url, SESSION_SECRET: 'bench-secret-bench-secret-bench-secret', STORAGE_DIR: join(work, 'files') },
       stdio: ['ignore', 'ignore', 'inherit'],

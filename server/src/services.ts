@@ -7,7 +7,7 @@ import { OrganisationRepository } from './organisations/organisation.repository'
 import { QuoteRepository } from './quotes/quote.repository';
 import { RateBookRepository } from './rate-book/rate-book.repository';
 import { ReportFileRepository } from './intake/report-file.repository';
-import { LIST_COUNT_CAP, RequestRepository } from './requests/request.repository';
+import { LIST_COUNT_CAPS, RequestRepository } from './requests/request.repository';
 import { UserRepository } from './auth/user.repository';
 import { SessionRepository } from './auth/session.repository';
 import { NO_SESSION_CACHE, type SessionInvalidation } from './auth/session-cache';
@@ -60,7 +60,7 @@ import { dayPlanDriveTime } from './economics/drive-time';
 export function createServices(db: Db, config: Config, readPool: pg.Pool | null = null, sessions: SessionInvalidation = NO_SESSION_CACHE) {
   const users = new UserRepository(db);
   const organisations = new OrganisationRepository(db);
-  const requests = new RequestRepository(db, LIST_COUNT_CAP, readPool);
+  const requests = new RequestRepository(db, LIST_COUNT_CAPS, readPool);
   const items = new LineItemRepository(db, readPool);
   const reports = new ReportFileRepository(db);
   const passwords = new Passwords(config.bcryptRounds);

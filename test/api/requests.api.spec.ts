@@ -2,7 +2,7 @@ import request from 'supertest';
 import type { CurrentUser, RepairRequestDetail, RequestStatus } from '@cc/shared';
 import type { Statement } from '../../server/src/db/read-pool';
 import { LineItemRepository } from '../../server/src/intake/line-item.repository';
-import { RequestRepository, type RequestListFilter, type Viewer } from '../../server/src/requests/request.repository';
+import { LIST_COUNT_CAPS, RequestRepository, type RequestListFilter, type Viewer } from '../../server/src/requests/request.repository';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 import { createOrganisation, createUser, csrfTokenFor, resetDatabase, signIn, validRequestBody, type SignedIn } from '../helpers/fixtures';
 
@@ -329,7 +329,7 @@ describe('GET /api/requests', () => {
     const filter = { page: 0, pageSize: 1, sort: 'closingDate' as const, direction: 'asc' as const, statuses: [], text: '', id: null };
     const all = await new RequestRepository(t.db).list(viewer, filter);
     expect(all.total).toBeGreaterThan(2);
-    const capped = await new RequestRepository(t.db, 2).list(viewer, filter);
+    const capped = await new RequestRepository(t.db, { list: 2, search: 2 }).list(viewer, filter);
     expect(capped).toMatchObject({ total: 2, isTotalCapped: true });
     expect(capped.items).toHaveLength(1);
   });
@@ -341,7 +341,7 @@ describe('GET /api/requests', () => {
   // small test tables show the plan the planner takes at scale.
   async function genericPlan({ text: sql, values: bindings }: Statement, { sortsPricedOut = true } = {}): Promise<string> {
     const literal = (v: unknown): string =>
-      Array.isArray(v) ? `ARRAY[${v.map(literal).join(', ')}]` : typeof v === 'number' ? String(v) : `'${String(v).replace(/'/g, "''")}'`;
+      v === null ? 'NULL' : Array.isArray(v) ? `ARRAY[${v.map(literal).join(', ')}]` : typeof v === 'number' ? String(v) : `'${String(v).replace(/'/g, "''")}'`;
     return t.db.transaction(async (trx) => {
       // On a test-sized table the planner may prefer any index plus a sort; with sequential scans and
       // sorts priced out, it takes the index that gives a list's order, as it does at scale.
@@ -409,6 +409,110 @@ describe('GET /api/requests', () => {
     const plan = await genericPlan(new LineItemRepository(t.db).listStatement(ownRequest.id), { sortsPricedOut: false });
     expect(plan).toContain('line_items_request_id_status_index');
     expect(plan).not.toMatch(/Seq Scan on line_items/);
+  });
+
+  // A text search counts no further than LIST_COUNT_CAPS.search (100) and pages on past it by cursor.
+  describe('search past its count cap', () => {
+    const CAP = LIST_COUNT_CAPS.search;
+    let people: Record<'agent' | 'contractor' | 'admin', SignedIn>;
+    /** The ids of the requests whose street holds "Capped Lane" (more than the cap) and "Exact Row" (the cap exactly). */
+    let cappedIds: number[];
+
+    beforeAll(async () => {
+      // The file's contractor organisation (the contractors' list of this file names only its own two).
+      const org = contractorOrg;
+      const agent = await createUser(t.db, 'agent', await createOrganisation(t.db, 'brokerage'));
+      people = { agent: await signIn(t.app, agent), contractor: await signIn(t.app, await createUser(t.db, 'contractor', org)), admin: sessions.admin };
+      // Written in bulk (the list's tables are kept by triggers whoever writes them); closing dates
+      // repeat so that paging by key must order ties by id.
+      const insert = async (street: string, count: number): Promise<number[]> => {
+        const rows: { id: number }[] = (
+          await t.db.raw(
+            `INSERT INTO repair_requests (street, city, state, zip, year_built, closing_date, nec_edition, status, contractor_organisation_id, created_by)
+             SELECT g || ' ' || ?, 'Marlow Springs', 'CO', '81290', 1960, date '2027-03-01' + g % 9, 2020, 'draft', ?, ? FROM generate_series(1, ?) g RETURNING id`,
+            [street, org, agent.id, count],
+          )
+        ).rows;
+        await t.db('request_parties').insert(rows.map((r) => ({ request_id: r.id, role: 'buyer-agent', email: agent.email, user_id: agent.id, joined_at: new Date() })));
+        return rows.map((r) => r.id);
+      };
+      cappedIds = await insert('Capped Lane', CAP + 30);
+      addedIds = [...cappedIds, ...(await insert('Exact Row', CAP))];
+    });
+    // Other lists of this file (the contractor's, the administrator's) see none of these rows.
+    let addedIds: number[] = [];
+    afterAll(async () => {
+      await t.db('request_parties').whereIn('request_id', addedIds).delete();
+      await t.db('repair_requests').whereIn('id', addedIds).delete();
+    });
+
+    it.each(['agent', 'contractor', 'admin'] as const)('tells the %s the exact total up to the cap and "more than the cap" above it', async (who) => {
+      const s = people[who];
+      const few = await s.agent.get('/api/requests?q=7%20exact%20row&pageSize=5').expect(200);
+      // 7, 17, 27 … 97 Exact Row
+      expect(few.body).toMatchObject({ total: 10, isTotalCapped: false });
+      const exact = await s.agent.get('/api/requests?q=exact%20row&pageSize=100').expect(200);
+      expect(exact.body).toMatchObject({ total: CAP, isTotalCapped: false, nextCursor: null });
+      expect(exact.body.items).toHaveLength(CAP);
+      const capped = await s.agent.get('/api/requests?q=capped%20lane&pageSize=10').expect(200);
+      expect(capped.body).toMatchObject({ total: CAP, isTotalCapped: true, nextCursor: expect.any(String) });
+      expect(capped.body.items).toHaveLength(10);
+    });
+
+    it.each([
+      ['agent', 'closingDate', 'asc'],
+      ['contractor', 'street', 'desc'],
+      ['admin', 'createdAt', 'asc'],
+    ] as const)('pages the %s’s search past the cap by cursor (%s %s): every match once, in order, and no cursor after the last', async (who, sort, direction) => {
+      const s = people[who];
+      const seen: { id: number; street: string }[] = [];
+      let after: string | null = null;
+      let pages = 0;
+      do {
+        const res: { body: { items: { id: number; street: string }[]; total: number; isTotalCapped: boolean; nextCursor: string | null } } = await s.agent
+          .get(`/api/requests?q=capped%20lane&pageSize=25&sort=${sort}&direction=${direction}&page=${pages}${after ? `&after=${after}` : ''}`)
+          .expect(200);
+        expect(res.body).toMatchObject({ total: CAP, isTotalCapped: true });
+        seen.push(...res.body.items);
+        after = res.body.nextCursor;
+        pages++;
+      } while (after && pages < 20);
+      // 130 rows: five full pages and a sixth of five, after which no cursor is given.
+      expect(pages).toBe(6);
+      expect(seen.map((r) => r.id).sort((a, b) => a - b)).toEqual([...cappedIds].sort((a, b) => a - b));
+      const all = await s.agent.get(`/api/requests?q=capped%20lane&pageSize=100&sort=${sort}&direction=${direction}`).expect(200);
+      const next = await s.agent.get(`/api/requests?q=capped%20lane&pageSize=100&sort=${sort}&direction=${direction}&page=1&after=${all.body.nextCursor}`).expect(200);
+      expect(seen.map((r) => r.id)).toEqual([...all.body.items, ...next.body.items].map((r: { id: number }) => r.id));
+    });
+
+    it('gives no cursor after a full last page of a list', async () => {
+      const s = people.agent;
+      const last = await s.agent.get('/api/requests?q=exact%20row&pageSize=25&page=3').expect(200);
+      expect(last.body.items).toHaveLength(25);
+      expect(last.body.nextCursor).toBeNull();
+      const before = await s.agent.get('/api/requests?q=exact%20row&pageSize=25&page=2').expect(200);
+      expect(before.body.nextCursor).toEqual(expect.any(String));
+    });
+
+    // The page of a search with more matches than the cap walks the sort's index and tests each row
+    // as it passes; the plan made once for every pattern must keep that index (it cannot know how
+    // many rows a pattern matches). In this file's data nearly every request is the one contractor's,
+    // so for its walk the planner may take the created-at index of all requests with the contractor
+    // as a filter, or the contractor's own: both walk in the sort's order and stop after the page
+    // (which of the two it takes depends on the table's statistics at the moment).
+    it.each([
+      ['agent', 'closingDate', 'asc', 'request_viewers_closing_index'],
+      ['agent', 'street', 'desc', 'request_viewers_street_index'],
+      ['contractor', 'createdAt', 'desc', 'repair_requests_(contractor_)?created_index'],
+      ['admin', 'street', 'asc', 'repair_requests_street_index'],
+    ] as const)('walks the %s’s search in the sort’s index (%s %s: %s)', async (who, sort, direction, index) => {
+      const user = people[who].user;
+      const viewer: Viewer = { id: user.id, role: user.role, organisationId: user.organisationId };
+      const filter: RequestListFilter = { page: 0, pageSize: 25, sort, direction, statuses: [], text: 'lane', id: null };
+      const plan = await genericPlan(new RequestRepository(t.db).listStatement(viewer, filter));
+      expect(plan).toMatch(new RegExp(`Index Scan (Backward )?using ${index} `));
+      expect(plan).not.toMatch(/Seq Scan on (repair_requests|request_viewers)/);
+    });
   });
 
   it('responds 400 for an unknown status or sort', async () => {

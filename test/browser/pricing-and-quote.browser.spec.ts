@@ -88,6 +88,15 @@ describe('pricing a request and sending its quote', () => {
     await page.keyboard.press('Escape');
     const preview = page.getByTestId('bulk-preview-total');
     await preview.waitFor();
+    // The preview shows the total as it stands until the chosen condition reaches it; wait for the
+    // new figure (a preview that never changes times out and fails here).
+    await page.waitForFunction(
+      ([selector, before]) => {
+        const text = document.querySelector(selector)?.textContent?.trim();
+        return !!text && text !== before;
+      },
+      ['[data-testid="bulk-preview-total"]', autoTotal] as const,
+    );
     const previewTotal = ((await preview.textContent()) ?? '').trim();
     expect(previewTotal).not.toBe(autoTotal);
     await screenshot(page, 'pricing-bulk-preview');

@@ -15,12 +15,14 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // A ratchet, not the goal (0.95 on each). Every batch from 101 on joined the tuning set only after its
 // untuned score was recorded in docs/parser.md, which keeps the history of these floors. Last reset
 // 2026-12-04 when batch I (901-966) joined: precision 90.2 %, recall 91.0 %, F1 90.6 %, quantity
-// 96.3 % (2852/2961), rounded down; reset because the corpus changed, not the parser. Raise them as
-// the parser gets better; never lower them for the same corpus.
-const MIN_PRECISION = 0.902;
-const MIN_RECALL = 0.91;
-const MIN_F1 = 0.906;
-const MIN_QUANTITY = 0.963;
+// 96.3 % (2852/2961), rounded down; reset because the corpus changed, not the parser. Raised after the
+// eighth round (two branches merged: G and H's remaining misses, and batch I tuned on) to the exact
+// figures rounded down: precision 92.30 %, recall 92.07 %, F1 92.18 %, quantity 96.36 % (2887/2996).
+// Raise them as the parser gets better; never lower them for the same corpus.
+const MIN_PRECISION = 0.9229;
+const MIN_RECALL = 0.9207;
+const MIN_F1 = 0.9218;
+const MIN_QUANTITY = 0.9636;
 
 describe('report parser corpus', () => {
   let run: BatchRun;

@@ -88,8 +88,17 @@ const SORT_TYPES: Record<RequestListFilter['sort'], string> = {
   street: 'text',
 };
 
-/** Lists count their rows no further than this; beyond it they say "1,000+". */
-export const LIST_COUNT_CAP = 1000;
+/**
+ * How far lists count their rows; beyond it they say "1,000+" (or "100+"). A text search stops
+ * sooner: its rows are not in any index, so each match counted is several rows read (the bench's
+ * search matches one row in five), and 100 is the largest page a list serves (`PageQuerySchema`),
+ * so any first page still tells its exact total up to there.
+ */
+export interface ListCountCaps {
+  list: number;
+  search: number;
+}
+export const LIST_COUNT_CAPS: ListCountCaps = { list: 1000, search: 100 };
 
 /** Items a request does not count yet or any more: proposals nobody confirmed, and removed ones. */
 const UNCOUNTED_ITEM_STATES = [itemStateAfter('propose'), itemStateAfter('remove')];
@@ -168,8 +177,8 @@ function visibleTo(viewer: Viewer, param: (value: number) => string): string | n
 export class RequestRepository {
   constructor(
     private readonly db: Db,
-    /** Lists count no further than this (a smaller cap only in tests). */
-    private readonly countCap = LIST_COUNT_CAP,
+    /** Lists count no further than this (smaller caps only in tests). */
+    private readonly countCaps: ListCountCaps = LIST_COUNT_CAPS,
     /** Where list pages run as prepared statements (db/read-pool.ts); without it, through Knex. */
     private readonly readPool: pg.Pool | null = null,
   ) {}
@@ -198,22 +207,30 @@ export class RequestRepository {
    * One page of the requests `viewer` sees, in one statement: the page's ids are picked first by
    * the index of the sort within the viewer's scope (request_viewers for the people named on
    * requests, repair_requests for contractors and administrators), the summary columns are read
-   * for those rows only, and the total is counted no further than LIST_COUNT_CAP + 1 rows (then
-   * `isTotalCapped`). Prepared once per connection with one plan for every viewer and page.
+   * for those rows only, and the total is counted no further than the cap + 1 rows (then
+   * `isTotalCapped`). `hasMore`: a row follows the page. Prepared once per connection with one
+   * plan for every viewer and page.
    */
-  async list(viewer: Viewer, filter: RequestListFilter): Promise<{ items: RepairRequestSummary[]; total: number; isTotalCapped: boolean; lastKey: ListKey | null }> {
+  async list(viewer: Viewer, filter: RequestListFilter): Promise<{ items: RepairRequestSummary[]; total: number; isTotalCapped: boolean; lastKey: ListKey | null; hasMore: boolean }> {
     const statement = this.listStatement(viewer, filter);
     type Row = SummaryRow & { n: string; ord: string | null; sort_key: string | null };
     const rows = this.readPool ? await readPrepared<Row>(this.readPool, statement) : await runStatement<Row>(this.db, statement);
     const counted = Number(rows[0]?.n ?? 0);
+    const cap = filter.text ? this.countCaps.search : this.countCaps.list;
     const items: RepairRequestSummary[] = [];
     let lastKey: ListKey | null = null;
+    let hasMore = false;
     for (const row of rows) {
       if (row.ord === null) continue;
+      // The statement reads one row past the page (without its summary) to tell whether more follow.
+      if (Number(row.ord) > filter.pageSize) {
+        hasMore = true;
+        continue;
+      }
       items.push(toSummary(row));
       lastKey = { sortKey: row.sort_key ?? '', id: row.id };
     }
-    return { items, total: Math.min(counted, this.countCap), isTotalCapped: counted > this.countCap, lastKey };
+    return { items, total: Math.min(counted, cap), isTotalCapped: counted > cap, lastKey, hasMore };
   }
 
   /**
@@ -229,49 +246,78 @@ export class RequestRepository {
     const p = new StatementParams();
     const isNamed = viewer.role !== 'admin' && viewer.role !== 'contractor';
     const key = isNamed ? 'v' : 'r';
+    const table = isNamed ? 'request_viewers v' : 'repair_requests r';
     const id = isNamed ? 'v.request_id' : 'r.id';
     const sortColumn = SORT_COLUMNS[filter.sort];
     const dir = filter.direction === 'desc' ? 'DESC' : 'ASC';
+    const where = (conditions: string[]) => (conditions.length ? ` WHERE ${conditions.join(' AND ')}` : '');
 
     const conditions: string[] = [];
     if (isNamed) conditions.push(`v.user_id = ${p.add(viewer.id)}`);
     if (viewer.role === 'contractor') conditions.push(`r.contractor_organisation_id = ${p.add(viewer.organisationId ?? -1)}`);
     if (filter.statuses.length) conditions.push(`${key}.status = ANY(${p.add(filter.statuses)})`);
     if (filter.builtBefore) conditions.push(`${key}.year_built < ${p.add(filter.builtBefore)}`);
+    let matched: string | null = null;
     if (filter.text) {
       const like = p.add(`%${filter.text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`);
       // request_viewers keeps its searched text in lower case (migration 20261204060000): LIKE
       // against the typed text in lower case finds what ILIKE would, without folding every row.
-      const matched = isNamed ? `v.search_text LIKE lower(${like})` : `(r.street || ' ' || r.city || ' ' || r.zip) ILIKE ${like}`;
-      conditions.push(filter.id !== null ? `(${matched} OR ${id} = ${p.add(filter.id)})` : matched);
+      const text = isNamed ? `v.search_text LIKE lower(${like})` : `(r.street || ' ' || r.city || ' ' || r.zip) ILIKE ${like}`;
+      matched = filter.id !== null ? `(${text} OR ${id} = ${p.add(filter.id)})` : text;
     }
-    const visible = `${isNamed ? 'request_viewers v' : 'repair_requests r'}${conditions.length ? ` WHERE ${conditions.join(' AND ')}` : ''}`;
-
-    // A text search reads every visible row anyway (no index finds a substring): it matches them
-    // once ("matches"), and the page and the count read that. Other lists read the sort's index.
-    const isSearch = Boolean(filter.text);
-    const [rows, rowId, sort] = isSearch ? ['matches m', 'm.id', `m.${sortColumn}`] : [visible, id, `${key}.${sortColumn}`];
-    const order = `${sort} ${dir}, ${rowId} ${dir}`;
+    const sort = `${key}.${sortColumn}`;
+    const order = `${sort} ${dir}, ${id} ${dir}`;
     // Keyset paging: the rows after the last one of the previous page, found in the sort's index
     // (a row comparison on the index's columns), instead of reading and skipping the earlier pages.
-    const after = filter.after ? `(${sort}, ${rowId}) ${dir === 'DESC' ? '<' : '>'} (CAST(${p.add(filter.after.sortKey)} AS ${SORT_TYPES[filter.sort]}), ${p.add(filter.after.id)})` : null;
-    const pageConditions = after ? (isSearch ? [after] : [...conditions, after]) : isSearch ? [] : conditions;
-    const pageRows = `${isSearch ? 'matches m' : isNamed ? 'request_viewers v' : 'repair_requests r'}${pageConditions.length ? ` WHERE ${pageConditions.join(' AND ')}` : ''}`;
+    const after = filter.after ? `(${sort}, ${id}) ${dir === 'DESC' ? '<' : '>'} (CAST(${p.add(filter.after.sortKey)} AS ${SORT_TYPES[filter.sort]}), ${p.add(filter.after.id)})` : null;
+    const pageConditions = after ? [...conditions, after] : conditions;
+    // One row past the page tells whether another page follows (its summary is not read).
+    const offset = p.add(after ? 0 : filter.page * filter.pageSize);
+    const pageLimit = `LIMIT ${p.add(filter.pageSize + 1)} OFFSET ${offset}`;
+    const cap = matched ? this.countCaps.search : this.countCaps.list;
     // The page's rows are read row by row through the primary key whatever the page size (OFFSET 0
     // keeps it a nested loop, also in a plan made once for any page), and the contractor's name by
     // its key (a join here was planned as a hash of every organisation per row).
-    const matches = isSearch ? `matches AS MATERIALIZED (SELECT ${id} AS id, ${key}.${sortColumn} FROM ${visible}), ` : '';
-    return {
-      text: `WITH ${matches}page_ids AS (
-          SELECT ${rowId} AS id, ${sort}::text AS sort_key, row_number() OVER (ORDER BY ${order}) AS ord FROM ${pageRows}
-          ORDER BY ${order} LIMIT ${p.add(filter.pageSize)} OFFSET ${p.add(after ? 0 : filter.page * filter.pageSize)}),
-        counted AS (SELECT count(*) AS n FROM (SELECT 1 FROM ${rows} LIMIT ${p.add(this.countCap + 1)}) AS c)
-        SELECT counted.n, page_ids.ord, page_ids.sort_key, ${SUMMARY_COLUMNS.map((c) => `r.${c}`).join(', ')},
+    const summaries = `SELECT counted.n, page_ids.ord, page_ids.sort_key, ${SUMMARY_COLUMNS.map((c) => `r.${c}`).join(', ')},
           (SELECT o.name FROM organisations o WHERE o.id = r.contractor_organisation_id) AS contractor_name,
           ic.item_count, ic.open_work_count
-        FROM counted
+        FROM counted`;
+    if (!matched) {
+      return this.withSummaries(p, filter, summaries, `WITH page_ids AS (
+          SELECT ${id} AS id, ${sort}::text AS sort_key, row_number() OVER (ORDER BY ${order}) - ${offset} AS ord FROM ${table}${where(pageConditions)}
+          ORDER BY ${order} ${pageLimit}),
+        counted AS (SELECT count(*) AS n FROM (SELECT 1 FROM ${table}${where(conditions)} LIMIT ${p.add(cap + 1)}) AS c)`);
+    }
+    // A text search reads no further than it must. Its matches are collected up to the cap + 1 in
+    // any order ("matches", which reads every visible row only when there are few matches), and
+    // then the page comes from one of two places:
+    // - at most the cap matched: the matches themselves, sorted (no more than the cap of them);
+    // - more matched: a walk of the viewer's rows in the sort's index, each tested as it passes,
+    //   which stops after the page's rows. The walk's LIMIT (a parameter, sent as null: no limit)
+    //   keeps the test outside it, so the generic plan (which cannot know how many rows a pattern
+    //   matches) still takes the index that gives the order.
+    // Only one of the two runs (each is gated on the count, which PostgreSQL reads first).
+    const afterMatch = filter.after ? `(m.sort_key, m.id) ${dir === 'DESC' ? '<' : '>'} (CAST(${p.add(filter.after.sortKey)} AS ${SORT_TYPES[filter.sort]}), ${p.add(filter.after.id)})` : null;
+    const isFew = `(SELECT n FROM counted) <= ${p.add(cap)}`;
+    const orderIn = (alias: string) => `${alias}.sort_key ${dir}, ${alias}.id ${dir}`;
+    return this.withSummaries(p, filter, summaries, `WITH matches AS MATERIALIZED (
+          SELECT ${id} AS id, ${sort} AS sort_key FROM ${table}${where([...conditions, matched])} LIMIT ${p.add(cap + 1)}),
+        counted AS (SELECT count(*) AS n FROM matches),
+        found AS (
+          (SELECT m.id, m.sort_key FROM matches m WHERE ${isFew}${afterMatch ? ` AND ${afterMatch}` : ''} ORDER BY ${orderIn('m')} ${pageLimit})
+          UNION ALL
+          (SELECT w.id, w.sort_key FROM (SELECT ${id} AS id, ${sort} AS sort_key, ${matched} AS hit FROM ${table}${where(pageConditions)} ORDER BY ${order} LIMIT ${p.add(null)}) AS w
+            WHERE w.hit AND NOT ${isFew} ORDER BY ${orderIn('w')} ${pageLimit})),
+        page_ids AS (SELECT f.id, f.sort_key::text AS sort_key, row_number() OVER (ORDER BY ${orderIn('f')}) AS ord FROM found f)`);
+  }
+
+  /** The rest of `listStatement` after its CTEs: each page row's summary, read by key. */
+  private withSummaries(p: StatementParams, filter: RequestListFilter, summaries: string, ctes: string): Statement {
+    return {
+      text: `${ctes}
+        ${summaries}
         LEFT JOIN page_ids ON true
-        LEFT JOIN LATERAL (SELECT ${SUMMARY_COLUMNS.join(', ')}, contractor_organisation_id, item_status_counts FROM repair_requests WHERE id = page_ids.id OFFSET 0) AS r ON true
+        LEFT JOIN LATERAL (SELECT ${SUMMARY_COLUMNS.join(', ')}, contractor_organisation_id, item_status_counts FROM repair_requests WHERE id = page_ids.id AND page_ids.ord <= ${p.add(filter.pageSize)} OFFSET 0) AS r ON true
         LEFT JOIN LATERAL (${itemCountsIn(p)}) AS ic ON true
         ORDER BY page_ids.ord`,
       values: p.values,

@@ -61,7 +61,7 @@ export class RequestsService {
   }
 
   async list(user: CurrentUser, query: z.output<typeof RepairRequestListQuerySchema>): Promise<Page<RepairRequestSummary>> {
-    const { items, total, isTotalCapped, lastKey } = await this.requests.list(viewerOf(user), {
+    const { items, total, isTotalCapped, lastKey, hasMore } = await this.requests.list(viewerOf(user), {
       page: query.page,
       pageSize: query.pageSize,
       sort: query.sort,
@@ -73,7 +73,7 @@ export class RequestsService {
       after: query.after ? decodeCursor(query.after, query.sort, query.direction) : null,
     });
     const today = new Date().toISOString().slice(0, 10);
-    const nextCursor = lastKey && items.length === query.pageSize ? encodeCursor({ ...lastKey, sort: query.sort, direction: query.direction }) : null;
+    const nextCursor = lastKey && hasMore ? encodeCursor({ ...lastKey, sort: query.sort, direction: query.direction }) : null;
     return { items: items.map((i) => this.withRisk(i, today)), total, isTotalCapped, page: query.page, pageSize: query.pageSize, nextCursor };
   }
 

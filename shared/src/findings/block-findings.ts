@@ -44,7 +44,7 @@ export interface BlockContext {
 }
 
 /** A sentence that only recommends or asks for follow-up ("This should be corrected by a licensed electrician."). */
-const FOLLOW_UP = /\b(?:recommend\w*|install (?:the|a|an|new|proper|listed)\b|suggest\w*|advise\w*|should be|should have|needs? to be|must be|have (?:it|this|these|them|the\s+\w+) (?:\w+ed|repaired|corrected|checked|evaluated)|correct(?:ion|ed)?|repair(?:ed|s)?|replace(?:d|ment)?|evaluat\w*|further (?:evaluation|review)|by a (?:licensed|qualified)|licensed electrician|qualified electrician|electrical contractor|requir(?:e|es|ed)\b|for safety|safety (?:hazard|concern|issue)|fire (?:hazard|risk)|shock (?:hazard|risk)|hazard)|^\s*(?:add|provide|install)\b|\brestore\b|\bfix\b|no equipment ground/i;
+const FOLLOW_UP = /\b(?:recommend\w*|install (?:the|a|an|new|proper|listed)\b|suggest\w*|advise\w*|should be|should have|needs? to be|must be|have (?:it|this|these|them|the\s+\w+) (?:\w+ed|repaired|corrected|checked|evaluated)|correct(?:ion|ed)?|repair(?:ed|s)?|replace(?:d|ment)?|evaluat\w*|further (?:evaluation|review)|by a (?:licensed|qualified)|licensed electrician|qualified electrician|electrical contractor|requir(?:e|es|ed)\b|for safety|safety (?:hazard|concern|issue)|fire (?:hazard|risk)|shock (?:hazard|risk)|hazard)|^\s*(?:add|provide|install)\b|\brestore\b|\bfix\b|no equipment ground|\b(?:is|are)\s+not\s+(?:(?:permitted|allowed|approved|intended|meant)\s+(?:as|to be used as|for use as)\s+)?(?:an?\s+)?(?:substitute|replacement)s?\s+for\b/i;
 
 /** A sentence about the device just named ("The fan ...", "It ..."). */
 /**
@@ -59,7 +59,7 @@ const ALARM_TOPIC_LABEL = /^\W*(?:[\w.]+\s+){0,3}?(?:smoke|co)\b(?:\s*(?:\/|&)\s
  * A sentence about the device before it: "The/This/That/It ...", or a terse one with no subject at
  * all that starts with its verb ("Trips but wont reset.").
  */
-const SAME_SUBJECT = /^(?:the|this|that|it)\b(?!\s+(?:other|second|third|next|remaining)\b)|^(?:trips|tripped|tests|tested|will|wont|won't|does|doesn't|did|didn't|is|was|has|had|shows|showed|moves|wobbles)\b/i;
+const SAME_SUBJECT = /^(?:the|this|that|it)\b(?!\s+(?:other|second|third|next|remaining)\b)|^(?:my\s+|our\s+)?(?:plug-in\s+)?tester\s+(?:shows|showed|reads|read|indicates|indicated|says|said|registers|registered)\b|^(?:trips|tripped|tests|tested|will|wont|won't|does|doesn't|did|didn't|is|was|has|had|shows|showed|moves|wobbles)\b/i;
 /** "That breaker is oversized ...": a demonstrative points back to the device just named, even at a fixed place. */
 const POINTS_BACK = /^(?:this|that|these|those|it)\b/i;
 /** Words that make it another device ("also", "another", "too"). */
@@ -69,6 +69,12 @@ const ANOTHER = /\b(?:also|another|too|as well|second|other|additional|each|(?<!
 const REFERS_BACK = /^(?:it|they|this|these|those|each|both|one|the same|also|and|there (?:is|are|was|were) also)\b/i;
 /** A short line naming a place with no verb ("Basement bar area", "Primary bath:"). */
 const MAX_LABEL_WORDS = 5;
+/**
+ * A form's field that gives the place of the item ("Location: Hall bath, left of the sink",
+ * "Area - crawl space"): the observation under it is there, however long the field is (common
+ * practice in reports built from Location/Observation/Recommendation fields).
+ */
+const LOCATION_FIELD = /^\W*(?:location|area|room|where|place)\s*(?::|\s-\s)/i;
 /** Counting whitespace runs gives the word count of `split(/\s+/)` without its copy of the expression. */
 const WHITESPACE_RUN = /\s+/g;
 const VERB = /\b(?:is|are|was|were|has|have|had|be|been)\b/i;
@@ -222,8 +228,10 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
       found.push(...inSentence);
       if (inSentence.some((f) => !f.isRecommendation && !f.isFallbackOnly)) lastFound = inSentence;
     }
-    const mention = lastPlaceMention(rooms);
-    if (mention) previous = { text: sentence.text, mention, isLabel: matches.length === 0 && hasAtMostWords(sentence.text, MAX_LABEL_WORDS) && !VERB.test(sentence.text) };
+    // A location field names the item's place first and reference points after it ("Crawl space, below the hall").
+    const fieldPlace = matches.length === 0 && LOCATION_FIELD.test(sentence.text) ? rooms.find((r) => !r.isReferencePoint && r.room !== 'panel') : undefined;
+    const mention = fieldPlace ?? lastPlaceMention(rooms);
+    if (mention) previous = { text: sentence.text, mention, isLabel: matches.length === 0 && ((hasAtMostWords(sentence.text, MAX_LABEL_WORDS) && !VERB.test(sentence.text)) || LOCATION_FIELD.test(sentence.text)) };
     if (sentenceIndex === 0 && mention) opening = { room: mention.room, location: readLocation(sentence.text, mention), hadFindings: live.length > 0 };
   });
   return { findings: keepDistinct(found), hasNegated };

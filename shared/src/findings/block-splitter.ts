@@ -134,7 +134,7 @@ export function splitBlocks(joined: string): Block[] {
   // The quantity column of the table being read ("Item | Location | Qty | Condition"), and the rows' counts.
   let quantityColumn: number | null = null;
   const rowCounts: RowCount[] = [];
-  const lines = splitLines(joined);
+  const lines = withoutQuoteMarks(splitLines(joined));
   const shortLine = shortLineFor(lines);
   for (const line of lines) {
     const content = line.text.trim();
@@ -230,6 +230,25 @@ function isSubsection(child: string, parent: string): boolean {
 }
 
 /** Decides whether a line break inside a block is a sentence boundary, a space or a word wrap. */
+/** The quote mark an e-mail puts before each line it quotes ("> 4.3 Main Panel: ..."), with one space after it. */
+const QUOTE_MARK = /^\s*>[ \t]?/;
+
+/**
+ * A forwarded e-mail quotes the report with a ">" before every line, wrapped sentences included: the
+ * quoted lines are read as the report's own lines (headings, items and wrapped sentences), without the
+ * mark. Only where two quoted lines follow each other and the first does not end its sentence, so a
+ * ">" used as a bullet ("> Corrected. New device installed.") stays a bullet.
+ */
+function withoutQuoteMarks(lines: Line[]): Line[] {
+  const quoted = (l: Line | undefined) => l !== undefined && QUOTE_MARK.test(l.text);
+  const isQuotation = lines.some((l, i) => quoted(l) && quoted(lines[i + 1]) && !/[.!?]\s*$/.test(l.text) && /\w/.test(lines[i + 1].text));
+  if (!isQuotation) return lines;
+  return lines.map((l) => {
+    const mark = QUOTE_MARK.exec(l.text);
+    return mark === null ? l : { start: l.start + mark[0].length, end: l.end, text: l.text.slice(mark[0].length) };
+  });
+}
+
 function joinLine(builder: MappedTextBuilder, prev: Line, next: Line, shortLine: number): void {
   const before = prev.text.trim();
   const after = next.text.trim();

@@ -68,6 +68,8 @@ const OUTDOOR_CABLE = String.raw`(?:(?:uf|underground|direct[- ]burial|feeder|(?
 const FLEX_CORD = String.raw`(?:extension|lamp|zip|flexible|appliance)\s+cords?`;
 const RECOMMEND = String.raw`(?:recommend(?:ed|s|ing)?|suggest(?:ed)?|should (?:be|have)|install(?:ing|ed)?|upgrad(?:e|ed|ing) to|add(?:ing)?|need(?:s|ed)?|requires?|consider(?:ing)?|have the)`;
 /** Words that turn a recommendation into one about an existing device (replace, test, reset). */
+/** A repair asked for as a noun, the way buyers' addenda and attorneys' letters list them ("Installation of GFCI protection at ..."). */
+const REQUEST_NOUN = String.raw`(?:installation|addition|provision)\s+of`;
 const NOT_ABOUT_ADDING = String.raw`(?:(?!replac|repair|reset|test|check)[\w-]+\s+){0,4}?`;
 /** A light that is part of an appliance (range hood, oven, refrigerator, opener) is not a light fixture. */
 const NOT_APPLIANCE = String.raw`(?<!\b(?:hood|range|oven|microwave|refrigerator|fridge|freezer|opener|appliance|exhaust fan)\s)`;
@@ -88,6 +90,8 @@ const JBOX_WORD = /junction|j-?\s?box|(?<!\b(?:switch|device|outlet|receptacle|i
 /** Old wiring that is out of service (common practice: only energized knob-and-tube is reported as a condition). */
 const WIRING_OUT_OF_USE = /\b(?:not energized|de-?energized|abandoned|tested dead|no longer (?:in use|energized|active|in service)|(?:was|were|has been|have been) (?:removed|replaced)|(?:was|were|been) cut|cut (?:out|loose|off|back)|(?:came|taken|pulled|ripped) out|(?:nothing|not|none) (?:was |is )?(?:live|hot|energized)|(?:showed|read|detected) (?:nothing|no voltage)|(?:didn[’']?t|did not|could not|couldn[’']?t) find any|none (?:left|remaining|found in use|in use))\b/i;
 /** A smoke/CO alarm, or a "Smoke:" / "CO:" label standing for it in shorthand. */
+/** Old cable that is not knob-and-tube: at a receptacle it is an open ground; out of use it is history (WIRING_OUT_OF_USE). */
+const OLD_CABLE_NOT_KT = new RegExp(String.raw`\b(?:recep\w*|rcpts?|outlets?|three[- ](?:slot|prong)|3[- ](?:slot|prong)|grounded cable|patchwork|mix|\d{1,2}\s*awg)\b|${WIRING_OUT_OF_USE.source}`, 'i');
 const SMOKE_OR_LABEL = String.raw`(?:${T.SMOKE}|(?:smoke|co)(?:\s*(?:\/|and|&)\s*co)?\s*:)`;
 /** An alarm past its service life: expired, end of life, chirping, older than ten years. */
 const SMOKE_AGED = String.raw`(?:expired|end[- ]of[- ]life|chirp(?:s|ed|ing)?\b|(?:past|beyond|exceed(?:s|ed|ing)?|over|outlived|older than)\s+(?:(?:the|their|its|a|his|her)\s+)?(?:(?:\d+|ten)[- ]?(?:year|yr)s?\b|(?:recommended\s+|expected\s+|normal\s+)?(?:service|useful|rated)\s+life|life\s*span|expiration|replacement (?:age|date)))`;
@@ -138,7 +142,7 @@ const WIRE_CONDITION = String.raw`(?:(?:run|runs|running|left)\s+(?:bare|exposed
 const GROUND_PART = String.raw`(?:ground(?:ing)? electrode(?: conductor| system)?|ges\b|gec\b|(?:ground(?:ing)?|electrode)\s+(?:rods?|clamps?|wires?|conductors?)\b|(?:main\s+)?(?:water|gas|csst)(?:\s+(?:pipe|piping|line|main|service))?\s+bond(?:ing)?(?:\s+(?:jumper|clamp|wire|conductor|connection))?\b|bond(?:ing)?\s+(?:jumpers?|clamps?|conductors?|wires?|connections?)\b|acorn clamp)`;
 /** What goes wrong with a grounding or bonding part (common practice). */
 const GROUND_CONDITION = String.raw`(?:loose|corroded|(?:heavy|severe|some)?\s*corrosion|rust(?:ed|y)|disconnected|detached|cut(?: off)?|broken|damaged|missing|slipping off|pulled (?:off|loose|free)|(?:not|un)[- ]?(?:connected|attached|bonded|secured|clamped)|undersized|painted over|(?:appears? to )?(?:have|has) been removed|removed)\b`;
-const COVER_OFF_TO_INSPECT = /\bremoved\s+(?:by\s+(?:the\s+)?inspector\s+)?(?:for|to|during|so|when|while)\b|\bwith\s+(?:the\s+)?(?:dead[- ]?front|(?:panel\s+)?cover)(?:\s+cover)?\s+(?:was\s+)?(?:removed|off)\b|\b(?:was|were)\s+removed\.?$/i;
+const COVER_OFF_TO_INSPECT = /\bremoved\s+(?:by\s+(?:the\s+)?inspector\s+)?(?:for|to|during|so|when|while)\b|\bwith\s+(?:the\s+)?(?:dead[- ]?front|(?:panel\s+)?cover)(?:\s+cover)?\s+(?:was\s+)?(?:removed|off)\b|\b(?:was|were)\s+removed\.?$|\b(?:dead[- ]?front|(?:panel\s+)?cover)\s+removed\s*(?::|\s-+\s|[.;]?\s*$)|\bremoved\b[^.;]{0,40}\b(?:looked at|examined|inspected|checked|evaluated|viewed)\b|\bonly\b[^.;]{0,40}\b(?:is|are)\s+removed\b|\bremoved\b[^.;]{0,30}\bwhen\b[^.;]{0,20}\bsafe\b/i;
 /** A statement that the arrangement is right ("correct", "as permitted", "ok"), not negated ("not correct"). */
 const CORRECT_AT_SERVICE = /(?<!\bnot\s)\b(?:correct(?:ly)?|permitted|proper(?:ly)?|acceptable|allowed|ok|okay|normal|appropriate|(?:like|as) (?:they|it) should be)\b|\b(?:is|serves as|being|acts as)\s+(?:the\s+)?(?:service (?:disconnect|equipment|panel)|main (?:service\s+)?(?:panel|disconnect)|first (?:means of )?disconnect)\b/i;
 const SUBPANEL_CONTEXT = /sub-?\s?panel|secondary panel|remote panel|downstream|distribution panel|feeder/i;
@@ -162,6 +166,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${T.GFCI}(?:\s+protect(?:ion|ed))?(?:\s+(?:at|in|for)\s+${gap(3)}[\w-]+)?\s*[:=-]\s*(?:no|none|missing|absent)\b` },
       { re: rx`${T.RCPT}\s+${gap(4)}(?:are|is|were|was)\s+not\s+(?:on|protected by)\s+(?:an?\s+)?${T.GFCI}` },
       { re: rx`${RECOMMEND}\s+${NOT_ABOUT_ADDING}${T.GFCI}`, isRecommendation: true },
+      { re: rx`${REQUEST_NOUN}\s+${NOT_ABOUT_ADDING}${T.GFCI}`, isRecommendation: true },
     ],
   },
   {
@@ -188,6 +193,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:${T.NO}|not|non-?)\s*${PF}${T.AFCI}` },
       { re: rx`${T.AFCI}(?:\s+(?:protection|protected|breakers?|${T.RCPT}))?\s+${T.BE}${T.ABSENT}` },
       { re: rx`${RECOMMEND}\s+${NOT_ABOUT_ADDING}${T.AFCI}`, isRecommendation: true },
+      { re: rx`${REQUEST_NOUN}\s+${NOT_ABOUT_ADDING}${T.AFCI}`, isRecommendation: true },
       // A checklist or table row: the item, its place, then its absence ("AFCI | Bedrooms | NP | Not present").
       { re: rx`^\s*${T.AFCI}(?:\s+protection)?\s+${anyGap(4)}(?:(?:np|n\/p)\s+)?(?:not present|none|np|n\/p)\b(?!\s+(?:tripped|failed))`, unless: /\btested\s+(?:ok|good|fine)|\bsatisfactory\b|(?<!\bnot\s)\bpresent\b/i },
       // "None of the bedroom circuits have arc-fault protection" (NFPA 70 (NEC) 2023, 210.12).
@@ -206,6 +212,9 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`\brp\b` },
       // Inspectors' shorthand: "rev pol", "rev. pol.".
       { re: rx`rev\.?\s*pol\b\.?` },
+      // Formal prose in the code's own terms: the hot is the "ungrounded" and the neutral the "grounded"
+      // conductor ("the hot and grounded conductors were found reversed"; NFPA 70 (NEC) 2023, 200.11, Article 100).
+      { re: rx`(?:hot|ungrounded|line)\s+(?:and|&|\/)\s+(?:the\s+)?(?:neutral|grounded)\s+(?:wires?|conductors?|terminals?)\s+${gap(4)}(?:reversed|swapped|transposed)\b` },
     ],
   },
   {
@@ -219,20 +228,22 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:tested|tests?|read|reads|showed?|shows|indicated?|registers?|registered)\s+(?:as\s+)?(?:ungrounded|open ground)` },
       { re: rx`(?:three|3)[- ](?:prong|slot|hole)\s+${T.RCPT}?\s*${gap(3)}(?:on|with|in|fed by)\s+(?:an?\s+)?(?:ungrounded|two[- ]wire|2[- ]wire|non-?grounded)` },
       // A feeder with no equipment ground is a subpanel defect, a plastic water line no electrode: neither is a receptacle's open ground.
-      { re: rx`(?:no|lacks?|lacking|missing|without)\s+(?:an?\s+)?(?:equipment\s+)?ground(?:ing)?(?:\s+(?:conductor|wire|path))?\b(?!\s*(?:fault|electrode|rod|clamp))`, unless: /\b(?:feeder|sub-?panel|water (?:line|pipe|service)|electrode|ground rod|knob[- ]?(?:and|&|n)[- ]?tube)\b/i },
+      { re: rx`(?:no|lacks?|lacking|missing|without)\s+(?:an?\s+)?(?:equipment\s+)?ground(?:ing)?(?:\s+(?:conductor|wire|path))?\b(?!\s*(?:fault|electrode|rod|clamp))`, unless: /\b(?:feeder|sub-?panel|water (?:line|pipe|service)|electrode|ground rod|knob[- ]?(?:and|&|n)[- ]?tube)\b|^(?![^]*\b(?:receptacles?|outlets?|recepts?|rcpts?|devices?|prong|slots?|plugs?)\b)[^]*\b(?:two|2)[- ]wire\b/i },
       { re: rx`${T.RCPT}\s+${gap(8)}${T.BE}(?:not grounded|ungrounded)` },
     ],
   },
   {
     code: 'false-ground',
-    trigger: /ground|gnd|bootleg/i,
+    trigger: /ground|gnd|bootleg|jumper|green (?:terminal|screw)/i,
     yieldsTo: ['subpanel-bonding'],
     patterns: [
       { re: rx`(?:bootleg(?:ged)?|false|fake)\s+(?:indication of (?:a\s+)?)?ground(?:s|ed|ing)?\b` },
       // "(bootleg)" after the jumper it names, and "neutral -> ground screw" shorthand (common practice).
       { re: rx`bootleg(?:ged)?\b` },
-      { re: rx`(?:jumper|jumpered|jumped)\s+${anyGap(3)}(?:n|neutral)\s*(?:->|-->|→|to)\s*(?:the\s+)?(?:g|gnd|ground)(?:ing)?(?:\s+(?:terminal|screw))?` },
+      { re: rx`(?:jumper|jumpered|jumped)\s+${anyGap(3)}(?:n|neutral)\s*(?:->|-->|→|to)\s*(?:the\s+)?(?:g|gnd|ground)(?:ing)?\b(?:\s+(?:terminal|screw))?` },
       { re: rx`(?:jumper|jumpered|jumped|tied|bonded)\s+${anyGap(4)}(?:from\s+)?(?:the\s+)?neutral\s+${anyGap(3)}to\s+(?:the\s+)?(?:green\s+)?ground(?:ing)?(?:\s+(?:terminal|screw))?` },
+      // "jumpered the neutral to the green screw": the green screw is the receptacle's ground terminal (NFPA 70 (NEC) 2023, 406.4(D)(2), 250.142(B)).
+      { re: rx`(?:jumper|jumpered|jumped|tied)\s+${anyGap(4)}(?:from\s+)?(?:the\s+)?neutral\s+${anyGap(3)}to\s+(?:the\s+)?green\s+(?:terminal|screw)` },
       { re: rx`(?:jumper|wire)\s+${anyGap(4)}between\s+(?:the\s+)?neutral\s+${anyGap(3)}and\s+(?:the\s+)?(?:green\s+)?ground(?:ing)?(?:\s+(?:terminal|screw))?` },
       { re: rx`neutral[- ]to[- ]ground(?:ing)?\s+(?:terminal\s+|screw\s+)?jumper`, unless: PANEL_CONTEXT },
       { re: rx`neutral\s+${gap(4)}(?:jumpered|jumped|bonded|tied)\s+(?:over\s+)?to\s+(?:the\s+)?ground(?:ing)?(?:\s+(?:terminal|screw))?`, isRecommendation: true },
@@ -271,6 +282,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:${T.NO})\s+(?:(?:an?|the|its|their|proper|required)\s+)?(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant|[- ]tight)?|wp|wr)[- ]?(?:rated\s+)?(?:covers?|hoods?|lids?)\s*\([^()]{1,60}\)` },
       // Common practice (NFPA 70 (NEC) 2023, 406.9(B)(1)): an outdoor receptacle in a wet location has a cover that is weatherproof with a plug in; a flat cover is not.
       { re: rx`(?:only\s+(?:a\s+)?)?flat\s+${gap(2)}(?:covers?|lids?)(?:\s+only)?`, context: /in[- ]use|bubble|weather|exterior|outdoor|patio|porch|deck|while (?:a cord is )?(?:plugged|in use)/i },
+      // "missing the weatherproof "bubble" covers": a nickname in quotes or brackets before the noun.
+      { re: rx`(?:${T.NO}|${T.ABSENT}|lack(?:s|ing)?)\s+(?:(?:an?|the|its|their|proper|required)\s+)?(?:weather(?:[- ]?proof|[- ]resistant)|in[- ]use|wp|wr)\s+["“'(][\w -]{1,15}["”')]\s+(?:covers?|lids?|hoods?)` },
       { re: rx`(?:covers?|lids?)\s+${gap(3)}(?:${T.BE})?broken off` },
       // "none of the three has a weather cover": the absence at every one named (NFPA 70 (NEC) 2023, 406.9(B)(1)).
       { re: rx`none\s+of\s+(?:the\s+|them\s+)?${gap(3)}(?:has|have|had)\s+(?:an?\s+|any\s+)?(?:in[- ]use|bubble|weather(?:[- ]?proof|[- ]resistant)?|wp)\s+covers?` },
@@ -304,6 +317,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`(?:open|exposed|unenclosed|loose|taped)\s+(?:wire\s+)?splices?` },
       // Terse notes: "tape splice on wall at workbench, no box".
       { re: rx`splices?\b\s+${anyGap(8)}no\s+(?:junction\s+)?box\b(?!\s*(?:covers?|lids?))` },
+      // "Two cables spliced with tape and hanging from a joist, no box" (NFPA 70 (NEC) 2023, 300.15).
+      { re: rx`(?:${T.WIRING}|wires|conductors)\s+(?:were\s+|are\s+|have been\s+)?spliced\b\s+${anyGap(8)}(?:no|without|not in)\s+(?:an?\s+|any\s+)?(?:junction\s+)?box(?:es)?\b(?!\s*(?:covers?|lids?))` },
       { re: rx`(?:spliced?|splices|connections?|connected)\b\s+${anyGap(20)}(?:(?:with\s+|and\s+)no|without(?:\s+an?)?|not\s+in(?:\s+an?)?|rather than (?:being\s+)?(?:enclosed\s+)?in(?:\s+an?)?|outside(?:\s+of)?(?:\s+(?:an?|any))?)\s+(?:junction\s+|electrical\s+)?(?:box|enclosure)` },
       { re: rx`(?:wrapped|taped)\s+(?:only\s+)?(?:in|with)\s+(?:electrical\s+)?tape` },
       // A box and its missing cover, or its visible splices, anywhere in the clause (terse notes and
@@ -465,9 +480,16 @@ export const CODE_RULES: readonly CodeRule[] = [
       // "Smoke alarms: battery units; alarm missing from the upstairs bedroom": the device named by its last word.
       { re: rx`(?:alarms?|detectors?)\s+${gap(3)}${T.BE}(?:${T.ABSENT}|${T.INOPERATIVE}|expired)`, context: /smoke|carbon monoxide|\bco\b/i },
       { re: rx`${SMOKE_OR_LABEL}[^.;]{0,90}?${SMOKE_AGED}` },
+      // "The hallway alarm ... may be past its service life", "the alarm in the upstairs hall was chirping": an
+      // alarm named without "smoke" in a report is a smoke or CO alarm unless it is a security system's.
+      { re: rx`(?<!\b(?:security|burglar|intrusion|fire panel)\s)alarms?\s+[^.;]{0,90}?${SMOKE_AGED}`, unless: /\b(?:security|burglar|intrusion|monitor\w*|alarm (?:panel|system|company|contract))\b/i },
       { re: rx`${SMOKE_OR_LABEL}[^.;]{0,60}?(?:dated|date[- ]?(?:codes?|stamps?)|manufactured|manufacture dates?|made|stamped)\s+(?:in\s+|of\s+)?(?:19[5-9]\d|20[0-2]\d)\b`, context: /replac|expir|past|beyond|exceed|old|aged|life|chirp|\b(?:10|ten)[- ]years?/i },
       { re: rx`(?:19[5-9]\d|20[0-2]\d)\s+(?:date[- ]?codes?|manufactur\w+ dates?)`, context: /smoke|carbon monoxide|\bco\b|alarm|detector/i, unless: /\btested (?:ok|fine|good|properly|correctly)\b|\bsatisfactory\b/i },
       { re: rx`smoke(?:\s*(?:\/|and|&)\s*co)?\s*[:-]?\s+(?:${T.ABSENT}|none|expired|${T.INOPERATIVE})` },
+      // An alarm off its base: "hanging by its wiring harness", "not on its base", "pulled off the mounting plate" (common practice; NFPA 72 (2022), 29.8.3.4, from memory).
+      { re: rx`${T.SMOKE}\s+${gap(6)}(?:(?:hangs?|hanging|dangling|dangles|suspended)\s+(?:from|by|on)\s+(?:its\s+|the\s+)?(?:wir(?:e|es|ing)|harness|connector|pigtail)|(?:off|not on|not attached to|detached from|pulled (?:off|from)|fallen (?:off|from))\s+(?:of\s+)?(?:its\s+|the\s+)?(?:base|bracket|mounting (?:plate|base|bracket)|ceiling))` },
+      // "None of the four rented rooms has a smoke alarm": none of the places named has one.
+      { re: rx`none of (?:the\s+)?${gap(4)}(?:has|have|had|contains?)\s+(?:an?\s+|any\s+)?(?:working\s+)?${T.SMOKE}` },
     ],
   },
   {
@@ -483,10 +505,12 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`insulation\s+${gap(3)}(?:in contact with|touching|covering|over|on top of|against)\s+(?:the\s+)?${gap(2)}(?:recessed|can)\s+(?:lights?|fixtures?|cans?|housings?)` },
       // Common practice: a recessed housing not rated IC must keep its clearance from insulation.
       { re: rx`(?:non-?ic|recessed|can)\s+(?:(?:light|lighting|fixture)\s+)?(?:housings?|fixtures?|lights?|cans?)\s+${gap(6)}(?:${T.BE})?(?:covered|buried|packed|surrounded)\s+(?:down\s+|over\s+)?(?:by|in|with|under)\b` },
+      // "one recessed can housing is an older non-IC type and blown cellulose is packed against it" (common practice; NFPA 70 (NEC) 2023, 410.116(B)).
+      { re: rx`(?:insulation|cellulose|fiberglass|batts?)\s+${gap(3)}(?:packed|piled|pushed|stuffed|blown|heaped|banked|laid)\s+(?:up\s+|tight(?:ly)?\s+)?(?:against|around|over|on top of|onto|into|up to)\s+(?:it|them|the\s+(?:housings?|cans?|fixtures?|lights?))\b`, context: /non-?ic|recessed|can light|housing/i },
       // "can lights ... are the old non-IC type with blown cellulose piled on top of them" (common practice; NFPA 70 (NEC) 2023, 410.116(B)).
       { re: rx`(?:recessed|can|pot)\s+(?:lights?|fixtures?|housings?|cans?)\s+${anyGap(8)}non-?ic\b`, context: /\b(?:insulation|cellulose|fiberglass|blown|batts?)\b/i },
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${SWITCH_GAP}(?:${T.FAILED}|${T.BE}not)\s+(?:light|illuminate|come on|turn on|operate|work)\b` },
-      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}(?:has\s+)?(?:pulled|pulling|come|coming|separated|separating)\s+(?:away\s+|loose\s+)?(?:from|off)\s+(?:the\s+|its\s+)?(?:wall|siding|stucco|brick|soffit|fascia|ceiling|box|mounting|surface)` },
+      { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(8)}(?:has\s+)?(?:pulled|pulling|come|coming|separated|separating)\s+(?:away\s+|loose\s+)?(?:from|off)\s+(?:the\s+|its\s+)?(?:(?:log|wood|cedar|board|stone|block|masonry|exterior|porch|house|garage)\s+)?(?:wall|siding|stucco|brick|soffit|fascia|ceiling|box|mounting|surface)` },
       { re: rx`${NOT_APPLIANCE}${T.LIGHT}\s+${gap(6)}(?:${T.BE})?(?:missing|without|lacks?|has no)\s+(?:(?:its|a|the|their)\s+)?(?:glass\s+)?(?:globes?|lens(?:es)?|shades?|diffusers?|covers?)`, unless: BOX_FEEDING },
       { re: rx`(?:globes?|lens(?:es)?|shades?|diffusers?)\s+${T.BE}(?:missing|broken|cracked|absent)`, context: /light|fixture|lamp|bulb/i },
       { re: rx`(?:bare[- ]bulb|open|exposed|porcelain|keyless)\s+(?:porcelain\s+)?(?:lamp\s?holders?|sockets?)` },
@@ -543,6 +567,8 @@ export const CODE_RULES: readonly CodeRule[] = [
       { re: rx`${T.SWITCH}\s+${anyGap(6)}(?:do|does|did)\s*n[o']?t\s+turn\s+(?:the\s+)?${T.LIGHT}\s+on\b` },
       { re: rx`${T.SWITCH}\s+(?:for|to)\s+(?:the\s+)?${anyGap(3)}(?:crackles?|crackling|buzz(?:es|ing)?)\b` },
       { re: rx`${T.SWITCH}\s+${gap(6)}(?:crackles?|crackling|buzz(?:es|ing)?)\b` },
+      // A push button, toggle or switch stuck in one position (common practice): "the upper button of the push-button switch pair is stuck in".
+      { re: rx`(?:${T.SWITCH}|buttons?|toggles?|rockers?)\s+${gap(9)}${T.BE}(?:stuck|jammed|frozen)\b(?!\s+(?:open|closed)\s+(?:breaker|valve))`, context: /switch|push[- ]?button|toggle|rocker/i },
       // The switch's toggle, rocker or paddle broken or loose (common practice).
       { re: rx`(?:toggle|rocker|paddle)s?\s+${gap(3)}${T.BE}(?:broken|snapped(?: off)?|sloppy|loose|missing|cracked|stuck)`, context: /switch|toggle/i },
     ],
@@ -562,6 +588,11 @@ export const CODE_RULES: readonly CodeRule[] = [
         re: rx`(?:branch[- ]circuits?|branch wiring|wiring|circuits)\s+${gap(5)}${T.BE}(?:(?:single|solid)[- ](?:strand(?:ed)?|conductor)\s+)?(?:aluminum|aluminium)\b`,
         unless: /\bstranded\b|service[- ]entrance|se cable|feeder/i,
       },
+      // "the addition is wired with single-strand aluminum on its 15 and 20 amp circuits" (common practice).
+      {
+        re: rx`wired\s+(?:entirely\s+|mostly\s+|partly\s+)?(?:with|in|using)\s+(?:(?:single|solid)[- ](?:strand(?:ed)?|conductor)\s+)?(?:aluminum|aluminium)\b(?!\s+(?:feeders?|service|se\b))`,
+        unless: /\bstranded\b|service[- ]entrance|se cable|feeder/i,
+      },
     ],
   },
   {
@@ -576,7 +607,7 @@ export const CODE_RULES: readonly CodeRule[] = [
       // Two-wire or cloth-covered cable is a wiring method of its own; at a three-slot receptacle it
       // is an open ground, so it is knob-and-tube only when the sentence says the wiring is that old
       // kind with no receptacle on it (common practice).
-      { re: rx`(?:ungrounded|two[- ]wire|2[- ]wire|cloth[- ](?:insulated|covered|sheathed)|fabric[- ](?:insulated|covered)|rubber[- ]insulated)\s+(?:legacy\s+|old(?:er)?\s+|original\s+|vintage\s+)?(?:wir(?:e|es|ing)|cables?|circuits?)\b`, unless: /\b(?:recep\w*|rcpts?|outlets?|three[- ](?:slot|prong)|3[- ](?:slot|prong)|grounded cable|patchwork|mix|\d{1,2}\s*awg)\b/i },
+      { re: rx`(?:ungrounded|two[- ]wire|2[- ]wire|cloth[- ](?:insulated|covered|sheathed)|fabric[- ](?:insulated|covered)|rubber[- ]insulated)\s+(?:legacy\s+|old(?:er)?\s+|original\s+|vintage\s+)?(?:wir(?:e|es|ing)|cables?|circuits?)\b`, unless: OLD_CABLE_NOT_KT },
     ],
   },
   {

@@ -167,7 +167,7 @@ describe('summaries in more shapes (common practice: a short list first, the sam
   });
 
   it('reads wire-nut splices "and no junction box" as an open splice, and a cover plate by a switch box as a cover plate (NFPA 70 (NEC) 2023, 300.15, 406.6)', () => {
-    expect(read('Garage: two cables are spliced with wire nuts and no junction box.')).toEqual([['open-junction-box', 'garage', 2]]);
+    expect(read('Garage: two cables are spliced with wire nuts and no junction box.')).toEqual([['open-junction-box', 'garage', 1]]);
     expect(read('Kitchen: cover plates are missing at two locations, the switch box by the slider and the receptacle by the range.')).toEqual([['cover-plate-missing', 'kitchen', 2]]);
   });
 

@@ -13,7 +13,7 @@ const NUMBER_WORDS: Readonly<Record<string, number>> = {
 };
 const VAGUE = new Set(['several', 'multiple', 'various', 'numerous', 'some', 'many', 'few', 'all', 'each', 'every', 'any']);
 /** Nouns a count can apply to (devices, defects and places). */
-const COUNTABLE = /^(?:rec[ei]pt?[aeiu]?c(?:le|al|el)s?|recepts?|recep|rcpts?|outlett?s?|devices?|gfc?is?|afcis?|breakers?|brkrs?|fuses?|circuits?|wires?|conductors?|cables?|cords?|lights?|fixtures?|lamps?|bulbs?|switch(?:es)?|dimmers?|box(?:es)?|j-?box(?:es)?|splices?|covers?|plates?|alarms?|detectors?|smokes?|fans?|knockouts?|fillers?|blanks?|openings?|slots?|screws?|taps?|grounds?|locations?|places?|spots?|areas?|rooms?|bathrooms?|baths?|bedrooms?|units?|terminals?|neutrals?)$/i;
+const COUNTABLE = /^(?:rec[ei]pt?[aeiu]?c(?:le|al|el)s?|recepts?|recep|rcpts?|outlett?s?|devices?|duplex(?:es)?|gfc?is?|afcis?|breakers?|brkrs?|fuses?|circuits?|wires?|conductors?|cables?|cords?|lights?|fixtures?|lamps?|bulbs?|switch(?:es)?|dimmers?|box(?:es)?|j-?box(?:es)?|splices?|covers?|plates?|alarms?|detectors?|smokes?|fans?|knockouts?|fillers?|blanks?|openings?|slots?|screws?|taps?|grounds?|locations?|places?|spots?|areas?|rooms?|bathrooms?|baths?|bedrooms?|units?|terminals?|neutrals?)$/i;
 /** Words that make the number a measure, not a count ("20 amp", "6 feet", "3-prong"). */
 const UNIT = /^(?:a|amps?|amperes?|v|volts?|awg|gauge|ga|ft|feet|foot|inch(?:es)?|in|years?|yrs?|prong|slot|wire|pole|way|mm|%|percent|degrees?|minutes?|hours?|days?)$/i;
 /** Words before a number that make it a name or an index ("bedroom 2", "slot 14", "#3"). */
@@ -159,6 +159,8 @@ export function readCount(text: string, articleLimit = Infinity, countable: RegE
     if ((word === 'a' || word === 'an') && tokens[i].index >= articleLimit) continue;
     // "bedroom 2" is an index, but "bedroom two receptacles" is a count.
     if (i > 0 && INDEX_BEFORE.test(tokens[i - 1].word) && !(/^[a-z]/.test(word) && count > 1 && PLURAL_COUNTABLE.test(tokens[i + 1]?.word ?? ''))) continue;
+    // "circuits 3 and 5 have 20 amp fuses": a number listed after an index is an index too.
+    if (isListedIndex(tokens, i)) continue;
     // "the 240 receptacle", "a 120 circuit": a voltage said without its unit is no count.
     if (VOLTAGES.has(word)) continue;
     const next = tokens[i + 1]?.word;
@@ -177,6 +179,16 @@ export function readCount(text: string, articleLimit = Infinity, countable: RegE
     if (isNounAhead(tokens, i, countable)) return count;
   }
   return null;
+}
+
+/** Whether the number at `i` ends a list of numbers that follows an index word ("slots 4, 6 and 9"). */
+function isListedIndex(tokens: Token[], i: number): boolean {
+  let j = i;
+  while (j >= 2 && /^(?:and|or|&|,)$/.test(tokens[j - 1].word) && isShortNumber(tokens[j - 2].word.replace(/^#/, ''))) {
+    j -= 2;
+    if (j > 0 && INDEX_BEFORE.test(tokens[j - 1].word)) return true;
+  }
+  return false;
 }
 
 const ALL_N = /\b(?:on|at|in|of)\s+all\s+(\d{1,2}|two|three|four|five|six|seven|eight|nine|ten|twelve)\s*(?:[.;,:)]|$)/i;
@@ -236,6 +248,8 @@ const DEVICE_NOUN = /\b(?:((?:cover|face|wall|switch|outlet|receptacle|filler)[-
 const PROTECTION_NOUN = /^(?:gfci|afci)$/i;
 const DEAD_AFTER_GFCI = /\b(?:rcpts?|receptacles?|outlets?)\b[^.;]{0,40}\b(?:dead|without power|no power|not powered)\b[^.;]*/gi;
 const CONDUCTORS_UNDER_ONE = /\b(?:two|2|three|3|both|multiple)\s+(?:\d{1,2}\s+awg\s+)?(?:\w+\s+)?(?:wires?|conductors?|cond|neutrals|circuits|feeds)\b|\b[23]x\s+\d{1,2}\s+awg(?:\s+(?:copper|aluminum))?\s+(?=under\b)/gi;
+/** The cables one splice joins: "two cables spliced", "3 wires were spliced together". */
+const CABLES_SPLICED = /\b(?:two|2|three|3|four|4|both|several|multiple)\s+(?:[\w-]+\s+)?(?:cables|wires|conductors)\s+(?:were\s+|are\s+|have been\s+)?spliced\b/gi;
 /** What exposed wiring is counted in: cords, cables, runs, places; not the lights a cord feeds. */
 const WIRING_COUNTABLE = /^(?:cords?|cables?|wires?|wiring|conductors?|splices?|places?|locations?|spots?|areas?|circuits?)$/i;
 /** Codes counted only when the text gives a number (exposed wiring). */
@@ -261,6 +275,8 @@ export function findingQuantity(code: string, countText: string, articleLimit: n
   if (code === 'double-tap') countText = countText.replace(CONDUCTORS_UNDER_ONE, (m) => ' '.repeat(m.length));
   // A failed GFCI is counted in GFCIs, not in the receptacles left dead after it ("rcpts on that ckt dead (x3)").
   if (code === 'gfci-inoperative') countText = countText.replace(DEAD_AFTER_GFCI, (m) => ' '.repeat(m.length));
+  // An open splice is counted in splices, not in the cables it joins ("two cables spliced with tape").
+  if (code === 'open-junction-box') countText = countText.replace(CABLES_SPLICED, (m) => ' '.repeat(m.length));
   // A table row's leading item number ("7 | Basement | Junction box ...") is an index, not a count.
   countText = countText.replace(ROW_NUMBER, (m) => ' '.repeat(m.length));
   subjectText = subjectText.replace(ROW_NUMBER, (m) => ' '.repeat(m.length));

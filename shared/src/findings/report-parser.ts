@@ -3,6 +3,9 @@ import { splitBlocks } from './block-splitter';
 import { CODE_RULES } from './code-patterns';
 import { findingCodeInfo, type FindingCode } from './finding-code';
 import { answeredNoLines, withoutAnsweredNo } from './hazard-answer';
+import { formMarks } from './form-marks';
+import { closedItemLines } from './status-lines';
+import { dropCaptionRepeats } from './caption-repeats';
 import { withoutClosedItems } from './item-status';
 import { findRooms } from './room-lexicon';
 import type { Room } from './room';
@@ -61,6 +64,10 @@ export function parseReport(pages: readonly string[]): ParseResult {
   const skipped: SkippedText[] = [];
   // Lines of an insurance checklist that answer a hazard "no" ("Double taps ...... N").
   const answeredNo = answeredNoLines(joined);
+  // Empty check boxes and legend lines of forms report nothing; checked boxes are the form's summary.
+  const marks = formMarks(joined);
+  // Items a re-inspection marks as put right, with their status in a column or on the line below.
+  const closedLines = closedItemLines(joined);
 
   for (const block of splitBlocks(joined)) {
     const { start, end } = sourceRange(block.text);
@@ -80,7 +87,9 @@ export function parseReport(pages: readonly string[]): ParseResult {
     // An earlier report's item that a re-inspection marks as put right ("... corrected", "CLOSED") reports nothing.
     const read = (): ReturnType<typeof readBlock> => {
       const closed = withoutClosedItems(block.text);
-      const open = closed === null ? null : withoutAnsweredNo(closed, answeredNo);
+      const answered = closed === null ? null : withoutAnsweredNo(closed, answeredNo);
+      const unmarked = answered === null ? null : withoutAnsweredNo(answered, marks.denied);
+      const open = unmarked === null ? null : withoutAnsweredNo(unmarked, closedLines);
       return open === null ? { findings: [], hasNegated: true } : readBlock(open, block.section, block.rowCounts);
     };
     const result = outside && CROSS_SECTION_HINT.test(block.text.text) ? crossSectionOnly(read()) : outside ? null : read();
@@ -105,7 +114,7 @@ export function parseReport(pages: readonly string[]): ParseResult {
       if (f.computation !== null && findings.some((g) => g.code === f.code && g.computation === f.computation)) continue;
       const range = sourceRange(f.sentence);
       const info = findingCodeInfo(f.code);
-      inSummary.push(block.section.title !== null && SUMMARY_HEADING.test(block.section.title));
+      inSummary.push((block.section.title !== null && SUMMARY_HEADING.test(block.section.title)) || marks.checked.some((r) => r.start < range.end && range.start < r.end));
       crossRef.push(isCrossReference(joined.slice(range.start, range.end)));
       isFollowUp.push(allFollowUps);
       sectionOf.push(block.section.title);
@@ -128,7 +137,7 @@ export function parseReport(pages: readonly string[]): ParseResult {
   }
   const kept = dropFollowUps(findings, isFollowUp, sectionOf);
   const summaryFlags = withCrossReferences(inSummary, crossRef, sectionOf);
-  return { findings: mergeWiringMentions(mergeSummary(dropTitles(kept.findings, joined), kept.inSummary(summaryFlags))), skipped };
+  return { findings: dropCaptionRepeats(mergeWiringMentions(mergeSummary(dropTitles(kept.findings, joined), kept.inSummary(summaryFlags))), joined), skipped };
 }
 
 /**

@@ -8,10 +8,10 @@ import type { Room } from './room';
  */
 const ROOM_WORDS: ReadonlyArray<readonly [Room, string]> = [
   ['bathroom', String.raw`ba[ñn]os?\b|(?:(?:hall|guest|primary|master|main|upstairs|downstairs|half|full|kids'?|jack and jill|second|upper|lower)\s+)?bath(?:room)?s?\b|powder rooms?|en-?suites?|lavatory|restrooms?|(?:tub|shower)(?:\s+(?:area|enclosure|stall))?\b|vanity`],
-  ['kitchen', String.raw`cocinas?\b|kitchens?|kitchenette|kit\b\.?|kitch\b\.?|(?:kitchen\s+)?island|breakfast (?:nook|area|bar)|peninsula|pantry|(?:kitchen\s+)?counter\s*tops?|countertops?|(?:refrigerator|fridge|dishwasher|garbage disposal|disposal|range hood|stove|cooktop|(?:electric\s+)?range(?=\s+(?:receptacle|outlet|cord|circuit|hood))|(?<=\b(?:the|behind|beside|near)\s)range\b)(?![\w\s,]{0,30}\b(?:garage|basement|laundry|bar|utility|porch|patio)\b)`],
+  ['kitchen', String.raw`cocinas?\b|kitchens?|kitchenette|kit\b\.?|kitch\b\.?|(?:kitchen\s+)?island|breakfast (?:nook|area|bar)|peninsula|pantry|(?:kitchen\s+)?counter\s*tops?|countertops?|(?:refrigerator|fridge|dishwasher|garbage disposal|disposal|range hood|(?<!\b(?:wood|pellet|coal|wood[- ]burning|heating|parlou?r|franklin)[\s-])stove|cooktop|(?:electric\s+)?range(?=\s+(?:receptacle|outlet|cord|circuit|hood))|(?<=\b(?:the|behind|beside|near)\s)range\b)(?![\w\s,]{0,30}\b(?:garage|basement|laundry|bar|utility|porch|patio)\b)`],
   ['garage', String.raw`garaje\b|cochera\b|garages?|carports?|gar\b\.?|(?:work\s?)?shops?\b(?![- ](?:lights?|vacs?|fixtures?|lamps?))|shop (?:building|bldg)`],
   ['exterior', String.raw`exterior(?!\s+walls?\b)|out\s+(?:back|front)\b|outside(?!\s+(?:walls?|corner|of|the|a|an|its|their|this|that|each|every|all|any|bedrooms?|sleeping|junction|boxes?|enclosures?|panels?)\b)|outdoors?|patio|decks?\b|porch(?:es)?|balcon(?:y|ies)|yard|pool|spa\b|hot tub|siding|stucco|eaves|soffits?|(?:service\s+|meter\s+)?pedestal(?!\s+(?:sinks?|lavatory|basins?|fans?))|docks?\b|boat\s?(?:lifts?|houses?|slips?)\b|seawalls?\b|well\s?(?:heads?|caps?|houses?)\b|courtyards?|lanais?|verandas?|terraces?|gazebos?|breezeways?|(?:pool\s+|pump\s+)?equipment pads?|(?:front|rear|side|back) (?:wall|elevation)|ext\b\.?`],
-  ['basement', String.raw`s[oó]tanos?\b|basements?|cellar|bsmt\b\.?|bsmnt\b\.?|lower level`],
+  ['basement', String.raw`s[oó]tanos?\b|basements?|cellar|bsmt\b\.?|bsmnt\b\.?|lower (?:level|lvl\b\.?)`],
   ['crawl-space', String.raw`crawl\s?spaces?|crawl\b|(?:under|beneath) the (?:home|house|floor system)|underfloor`],
   ['laundry', String.raw`lavander[ií]a\b|laundry(?:\s+(?:room|area|closet))?|washer|dryer|utility room|mud ?room`],
   ['bedroom', String.raw`rec[aá]maras?\b|dormitorios?\b|habitaci[oó]n(?:es)?\b|(?:(?:primary|master|guest|front|rear|back|north|south|east|west|upstairs|downstairs|kids'?|second|third|small|large)\s+)?(?:bed\s?rooms?|bed\s?\d\b|bedrms?\b|bdrms?\b\.?|brs?\s?\d*\b|nursery)|(?:prim|pri|mstr|mbr)\.?\s+br\b|mbr\b|primary suite|master suite|guest room|(?:rented|rental|let|tenant'?s?|lodging|boarders?'?)\s+rooms?\b|rooms?\s+#?\d{1,2}\b(?![-\d])|rms?\.?\s*#?\d{1,2}\b(?![-\d])|sleeping\s+lofts?\b|lofts?\s*\(sleeping\)`],
@@ -69,7 +69,7 @@ const VANTAGE_BEFORE = /(?:^\s*|[.;]\s+)from\s+(?:the\s+)?$|\b(?:viewed|seen|obs
 const SERVED_BEFORE = /\b(?:feeding|feeds|serving|serves|supplying|supplies|powering|powers|(?:running|runs|routed|heading|headed|extending)\s+(?:up\s+|down\s+|over\s+)?(?:toward|towards|to|into))\s+(?:the\s+)?$/i;
 /** A device noun after the room: "serving the kitchen receptacles" names the devices' place. */
 const DEVICE_AFTER = /^\s*(?:[\w-]+\s+)?(?:receptacles?|outlets?|rcpts?|lights?|fixtures?|counters?|countertops?|switch(?:es)?|fans?|gfcis?|alarms?|smoke)\b/i;
-const REFERENCE_BEFORE = /(?:beneath|below|under|underneath|above|over|outside(?:\s+of)?|open to)\s+(?:the\s+)?$/i;
+const REFERENCE_BEFORE = /(?:beneath|below|under|underneath|above|over|outside(?:\s+of)?|open to|(?<!\b(?:turned|shut|switched|cut|is|are|was|were)\s)off(?:\s+of)?|(?:shared|common)\s+(?:with|to))\s+(?:the\s+)?$/i;
 /** "at the bedroom end of the hall": the room names an end of the place that follows. */
 const ACCESS_BEFORE = /\b(?:reached|accessed|entered|access(?:ible)?)\s+(?:by|from|through|via)\s+(?:the\s+|an?\s+)?(?:[\w-]+\s+){0,4}?(?:(?:in|from|off|at)\s+(?:the\s+)?)?$/i;
 const BELOW_AFTER = /^\s+(?:ceilings?\s+|(?:recessed\s+|can\s+)?(?:can\s+)?lights?\s+)?below\b/i;
@@ -124,6 +124,7 @@ export function findRooms(text: string): RoomMention[] {
     const [a, b] = [found[i - 1], found[i]];
     if (/shop/i.test(b.text) && a.room !== 'panel' && /^[\s-]*$/.test(text.slice(a.end, b.start))) found[i] = { ...b, isReferencePoint: true };
   }
+  markPositiveAsides(text, found);
   // An entry named with the outside ("at the front entry, loose from the siding") is the outside entry.
   if (found.some((r) => r.room === 'exterior' && !r.isReferencePoint)) {
     for (let i = 0; i < found.length; i++) if (/\bentry\b/i.test(found[i].text) && found[i].room === 'hallway') found[i] = { ...found[i], room: 'exterior' };
@@ -134,6 +135,23 @@ export function findRooms(text: string): RoomMention[] {
     return found.map((r) => (WALL_SIDE.test(r.text) ? { ...r, isReferencePoint: true } : r));
   }
   return found;
+}
+
+/** A bracketed aside that says something is fine ("(one present in the hall)", "(kitchen tested OK)"). */
+const POSITIVE_ASIDE = /\(([^()]{0,80}?\b(?:present|tested(?:\s+(?:ok|good|fine))?|ok|working|functional|operat(?:ed|es|ing)|in place)\b[^()]{0,80})\)/gi;
+
+/**
+ * Places named inside a bracketed aside that says a device there is fine are reference points:
+ * "Missing in bedrooms 2 and 3 (one present in primary bedroom and hall)" is missing in the bedrooms only
+ * (common practice: inspectors note where the device was found beside where it was not).
+ */
+function markPositiveAsides(text: string, found: RoomMention[]): void {
+  if (!text.includes('(')) return;
+  for (const m of text.matchAll(POSITIVE_ASIDE)) {
+    const [from, to] = [m.index, m.index + m[0].length];
+    if (/\b(?:no|not|missing|none|never|failed|without)\b/i.test(m[1])) continue;
+    for (let i = 0; i < found.length; i++) if (found[i].start > from && found[i].end < to) found[i] = { ...found[i], isReferencePoint: true };
+  }
 }
 
 const LEVEL_ROOMS: ReadonlySet<Room> = new Set(['basement', 'attic', 'garage', 'hallway']);

@@ -103,6 +103,25 @@ function nearest(rooms: readonly RoomMention[], before: number, after: number, w
   return inside.find((r) => r.start >= after) ?? null;
 }
 
+/** A stair named alone ("the top of the stairs", "the mid-landing"), with no room word of its own. */
+const BARE_STAIR = /^(?:(?:the\s+)?(?:mid-?|top\s+|bottom\s+|upper\s+|lower\s+)?(?:stair(?:s|way|well|case)?|landing))$/i;
+const STAIR_ROOMS: ReadonlySet<Room> = new Set(['basement', 'attic', 'bedroom', 'exterior', 'garage', 'crawl-space']);
+
+/**
+ * "The switch at the top of the loft stairs" under a loft bedroom's heading, "the stair" of an exterior
+ * stair, "by the stairs" in a basement paragraph: a stair named alone belongs to the space the block or
+ * its heading is about, when that is a level, an outbuilding, the outside or a bedroom (common
+ * practice: stairs inside such a space are part of it, not the hall).
+ */
+function roomOfStair(chosen: RoomMention, rooms: readonly RoomMention[], context: PlaceContext): Room | null {
+  if (chosen.room !== 'hallway' || !BARE_STAIR.test(chosen.text.trim())) return null;
+  // "Stair hall: the switch at the top of the stairs" names the hall itself.
+  if (rooms.some((r) => r !== chosen && r.room === 'hallway' && !r.isReferencePoint && !BARE_STAIR.test(r.text.trim()))) return null;
+  if (context.sectionRoom && STAIR_ROOMS.has(context.sectionRoom)) return context.sectionRoom;
+  const opening = context.opening?.room;
+  return opening && opening !== 'bedroom' && STAIR_ROOMS.has(opening) ? opening : null;
+}
+
 /** For each match of the sentence, one placement per place it applies to. */
 export function placeMatches(
   text: string,
@@ -159,6 +178,8 @@ export function placeMatches(
     if (chosen && SIDE_WALL.test(chosen.text) && match.rule.defaultRoom !== 'exterior' && context.sectionRoom && context.sectionRoom !== 'exterior' && context.sectionRoom !== 'panel') {
       return [{ room: context.sectionRoom, location: readLocation(text, chosen), ...own, isInferred: true }];
     }
+    const stairRoom = chosen ? roomOfStair(chosen, rooms, context) : null;
+    if (chosen && stairRoom) return [{ room: stairRoom, location: readLocation(text, chosen), ...own, isInferred: true }];
     if (chosen) return [{ room: chosen.room, location: readLocation(text, chosen), ...own }];
     // A house-wide code stays house-wide unless the sentence points at the place before ("evaluate this area").
     if (match.rule.ignoresContext && context.carried && POINTS_TO_PLACE.test(text)) return [{ ...context.carried, ...own, isInferred: true }];

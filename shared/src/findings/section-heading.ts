@@ -43,7 +43,7 @@ const GENERAL = new Set(['summary', 'general', 'detailed', 'detail', 'interior',
  */
 export const SUMMARY_HEADING = /summary|overview|at a glance|quick list|\b(?:items?|things)\s+(?:needing|requiring|that need)\s+attention\b|\b(?:key|significant|major|priority|principal|notable)\s+(?:[\w-]+\s+){0,3}?(?:findings|items|concerns|issues|defects|deficiencies)\b|highlights|action items/i;
 /** A summary heading with words of its own after it ("SUMMARY (electrical items requiring attention)"). */
-const SUMMARY_START = /^(?:summary|overview|quick list|key|significant|major|priority|(?:report|inspection|deficiency|deficiencies|defect|repair|findings)\s+summary)\b/i;
+const SUMMARY_START = /^(?:summary|overview|quick list|key|significant|major|priority|(?:report|inspection|deficiency|deficiencies|defect|repair|findings|executive)\s+summary)\b/i;
 /** A label that starts the report's body after its summary ("COMMENTS", "DETAILED FINDINGS", "Observations"). */
 const BODY_PART = /^(?:(?:detailed|full|report)\s+)?(?:comments|findings|observations|details|discussion|body|narrative)$/i;
 const FILLER = new Set([

@@ -47,7 +47,7 @@ export const T = {
   PLATE: String.raw`(?:(?:cover|face|wall|trim|switch|outlet|receptacle)[- ]?plates?\b|plates?\b|covers?\b)`,
   WIRING: String.raw`(?:wir(?:e|es|ing)\b(?!\s+nuts?\b)|cables?\b|conductors?\b|nm(?:-b)?\b|romex\b)`,
   SWITCH: String.raw`(?:(?:(?:light|wall|dimmer|3-way|three[- ]way|toggle)\s+)?switch(?:es)?\b|dimmers?\b(?!\s+switch))`,
-  LIGHT: String.raw`(?:(?:recessed|can|ceiling|closet|exterior|flood|porch|vanity|wall)\s+)?(?:light(?:ing)?(?:\s+fixtures?)?\b|lights\b|fixtures?\b|luminaires?\b|chandeliers?\b|gasoliers?\b|lanterns?\b|pendants?\b|sconces?\b|can lights?\b|flood ?lights?\b)`,
+  LIGHT: String.raw`(?:(?:recessed|can|ceiling|closet|exterior|flood|porch|vanity|wall)\s+)?(?:light(?:ing)?(?:\s+fixtures?)?\b(?![- ](?:rust|rusting|corrosion|corroded|stain(?:s|ing|ed)?|duty|weight|wear|scratch(?:es)?|surface|gr[ae]y|brown|tan)\b)|lights\b|fixtures?\b|luminaires?\b|chandeliers?\b|gasoliers?\b|lanterns?\b|pendants?\b|sconces?\b|can lights?\b|flood ?lights?\b)`,
   SMOKE: String.raw`(?:(?:smoke(?:\s*(?:\/|and|&|or)\s*(?:co|carbon monoxide))?|co|carbon monoxide)\s*(?:alarms?|detectors?)\b|smokes\b)`,
   SERVICE: String.raw`(?:(?:overhead\s+)?service[- ](?:mast|riser|head|drop(?: drip loop| conductors?| wires?| cable)?|entrance(?: cable| conductors?)?|conductors?|lateral|cable)\b|weather\s?head\b|drip loops?(?: conductors?)?\b|(?:electric\s+)?meter(?:\s+(?:base|socket|box|can|enclosure|pan|pole|post|ring))\b|se cable\b|seu\b|mast(?:head)?\b|overhead (?:service|conductors|wires|lines)\b|utility (?:drop|lines|wires)\b|(?:(?:meter(?:\s*\/\s*disconnect)?|service|disconnect)\s+)?(?<!(?:sink|lavatory|basin|vanity)\s)pedestal\b(?!\s+(?:sinks?|lavator(?:y|ies)|basins?|fans?)))`,
   /**

@@ -34,6 +34,7 @@ const SHORTHAND: Readonly<Record<string, string>> = {
   sw: 'switch', sws: 'switches', swtch: 'switch',
   lt: 'light', lts: 'lights', fixt: 'fixture', fixts: 'fixtures', fxtr: 'fixture', fxtrs: 'fixtures', lite: 'light', lites: 'lights',
   gnd: 'ground', grnd: 'ground', grd: 'ground', gnds: 'grounds', grnds: 'grounds', grds: 'grounds', gnded: 'grounded', grnded: 'grounded',
+  grounde: 'ground', groundes: 'grounds',
   ungnd: 'ungrounded', ungrnd: 'ungrounded', ungrnded: 'ungrounded', "ungr'd": 'ungrounded', ungrd: 'ungrounded',
   neut: 'neutral', neuts: 'neutrals', cond: 'conductor', conds: 'conductors',
   alm: 'alarm', alms: 'alarms', perm: 'permanent', 'perm.': 'permanent', mfd: 'manufactured', 'mfd.': 'manufactured',
@@ -340,7 +341,8 @@ function contextAllows(key: string, prev: string, next: string, gapBefore: strin
     case 'sds':
     case 'jb':
     case 'jbs':
-      return original === original.toUpperCase();
+      // "JB", "JBs", "SDs": capitals, with a lower-case plural "s" at most.
+      return original === original.toUpperCase() || /^[A-Z]+s$/.test(original);
     case 'det':
     case 'dets':
       return /^(?:smoke|co|sd)$/.test(prev);

@@ -9,13 +9,13 @@ export const PageQuerySchema = z.object({
 export interface Page<T> {
   items: T[];
   total: number;
-  /** Whether `total` stops at a cap (the list has more rows than it counted: show "1,000+"). */
+  /** Whether `total` stops at a cap (the list has more rows than it counted: show "1,000+" or "100+"). */
   isTotalCapped?: boolean;
   page: number;
   pageSize: number;
   /**
-   * Lists paged by key: what to send as `after` for the page that follows this one (null when this
-   * page is not full, so nothing follows).
+   * Lists paged by key: what to send as `after` for the page that follows this one; null when no
+   * row follows this page (so a list whose total is capped still ends where its rows end).
    */
   nextCursor?: string | null;
 }

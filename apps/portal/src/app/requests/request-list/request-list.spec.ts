@@ -140,6 +140,38 @@ describe('RequestList', () => {
     first.flush({ ...page(Array.from({ length: 20 }, (_, i) => summary(i + 1)), 60), nextCursor: 'after-page-0' });
   });
 
+  it('goes on past a capped total while the server says more pages follow, never showing an exact figure it did not count', async () => {
+    await render('agent');
+    const rows = (from: number, count = 20) => Array.from({ length: count }, (_, i) => summary(from + i));
+    // A search the server counted to its cap of 100: 127 rows in all, which the portal learns page by page.
+    expectList().flush({ ...page(rows(1), 100), isTotalCapped: true, nextCursor: 'after-0' });
+    await settle();
+    const paginator = await loader.getHarness(MatPaginatorHarness);
+    expect(await paginator.getRangeLabel()).toBe('1 – 20 of 100+');
+
+    for (let p = 1; p <= 5; p++) {
+      expect(await paginator.isNextPageDisabled()).toBe(false);
+      await paginator.goToNextPage();
+      const req = expectList();
+      expect(req.request.params.get('after')).toBe(`after-${p - 1}`);
+      req.flush({ ...page(rows(20 * p + 1), 100, p), isTotalCapped: true, nextCursor: `after-${p}` });
+      await settle();
+    }
+    // Past the cap: more rows than this page's last, since a next page follows.
+    expect(await paginator.getRangeLabel()).toBe('101 – 120 of 120+');
+    expect(await paginator.isNextPageDisabled()).toBe(false);
+
+    await paginator.goToNextPage();
+    const last = expectList();
+    expect(last.request.params.get('after')).toBe('after-5');
+    last.flush({ ...page(rows(121, 7), 100, 6), isTotalCapped: true, nextCursor: null });
+    await settle();
+    // The last page ends the list: its exact total is known now.
+    expect(await paginator.getRangeLabel()).toBe('121 – 127 of 127');
+    expect(await paginator.isNextPageDisabled()).toBe(true);
+    expect(await (await loader.getHarness(MatTableHarness)).getRows()).toHaveLength(7);
+  });
+
   it('sorts on the server and starts again from the first page', async () => {
     await render('agent');
     expectList().flush(page(Array.from({ length: 20 }, (_, i) => summary(i + 1)), 45));

@@ -24,7 +24,7 @@ import { catchError, debounceTime, distinctUntilChanged, map, of, switchMap, tap
 import { Auth } from '../../core/auth/auth';
 import { Notice } from '../../core/http/notice';
 import { requestListTitle } from '../../core/layout/nav-items';
-import { CappedPaginatorIntl } from '../../ui/capped-paginator-intl';
+import { CappedPaginatorIntl, paginatorLength, type ListCount } from '../../ui/capped-paginator-intl';
 import { DaysToClosing } from '../../ui/days-to-closing/days-to-closing';
 import { StatusChip } from '../../ui/status-chip/status-chip';
 import { RequestsApi } from '../requests-api';
@@ -138,9 +138,21 @@ export class RequestList {
     ),
   );
   protected readonly rows = computed<RepairRequestSummary[]>(() => this.result()?.items ?? []);
-  protected readonly total = computed(() => this.result()?.total ?? 0);
-  /** The server stops counting at a cap: the paginator then says "of 1,000+". */
-  private readonly showsCap = effect(() => this.paginatorIntl.setCapped(this.result()?.isTotalCapped ?? false));
+  /**
+   * The server stops counting at a cap (1,000; 100 for a search): the paginator then says "of 100+",
+   * goes on past the cap while the server gives a cursor for the next page, and tells the exact
+   * total on the last page.
+   */
+  private readonly count = computed<ListCount | null>(() => {
+    const page = this.result();
+    if (!page) return null;
+    return { total: page.total, isTotalCapped: page.isTotalCapped ?? false, hasMore: Boolean(page.nextCursor), page: page.page, pageSize: page.pageSize, rowCount: page.items.length };
+  });
+  protected readonly length = computed(() => {
+    const count = this.count();
+    return count ? paginatorLength(count) : 0;
+  });
+  private readonly showsCount = effect(() => this.paginatorIntl.setCount(this.count()));
   protected readonly isFiltered = computed(() => this.statusFilter().length > 0 || this.builtBefore() !== null || this.search() !== '');
 
   protected changeSort(sort: Sort): void {
