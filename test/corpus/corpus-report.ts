@@ -19,6 +19,7 @@ const BATCHES: ReadonlyArray<{ name: string; from: number; to: number }> = [
   { name: 'G 701-766', from: 700, to: 799 },
   { name: 'H 801-866', from: 800, to: 899 },
   { name: 'I 901-966', from: 900, to: 999 },
+  { name: 'J 1001-1066', from: 1000, to: 1099 },
 ];
 
 async function main(names: string[]): Promise<void> {

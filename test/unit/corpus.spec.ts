@@ -18,11 +18,13 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // 96.3 % (2852/2961), rounded down; reset because the corpus changed, not the parser. Raised after the
 // eighth round (two branches merged: G and H's remaining misses, and batch I tuned on) to the exact
 // figures rounded down: precision 92.30 %, recall 92.07 %, F1 92.18 %, quantity 96.36 % (2887/2996).
+// Reset when batch J (1001-1066) joined after sealed K was scored: precision 91.21 %, recall
+// 90.37 %, F1 90.79 %, quantity 95.56 % (3075/3218), rounded down; the corpus changed, not the parser.
 // Raise them as the parser gets better; never lower them for the same corpus.
-const MIN_PRECISION = 0.9229;
-const MIN_RECALL = 0.9207;
-const MIN_F1 = 0.9218;
-const MIN_QUANTITY = 0.9636;
+const MIN_PRECISION = 0.9121;
+const MIN_RECALL = 0.9036;
+const MIN_F1 = 0.9078;
+const MIN_QUANTITY = 0.9555;
 
 describe('report parser corpus', () => {
   let run: BatchRun;

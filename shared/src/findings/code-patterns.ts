@@ -219,7 +219,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'open-ground',
-    trigger: /ground|ungr/i,
+    trigger: /ground|ungr|prong|slot|hole|egc/i,
     // A receptacle with a neutral-to-ground jumper has no ground wire either: the false ground is the defect.
     yieldsInBlockTo: ['false-ground'],
     patterns: [
