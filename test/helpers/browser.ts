@@ -80,13 +80,19 @@ export async function screenshot(page: Page, name: string): Promise<string> {
   return path;
 }
 
-/** Errors the page writes to its console and requests that fail or are cancelled, to assert none. */
+/** Errors the page writes to its console and requests that fail (or writes that are cancelled), to assert none. */
 export function watchConsole(page: Page): string[] {
   const problems: string[] = [];
   page.on('console', (m) => {
     if (m.type() === 'error') problems.push(`console: ${m.text()}`);
   });
-  page.on('requestfailed', (r) => problems.push(`request failed: ${r.method()} ${r.url()} ${r.failure()?.errorText ?? ''}`));
+  // A read the page cancels itself (a newer choice replaced it, e.g. the day plan's date) ends as
+  // net::ERR_ABORTED: that is the page working, not a failure. Writes must never be cancelled.
+  page.on('requestfailed', (r) => {
+    const reason = r.failure()?.errorText ?? '';
+    if (r.method() === 'GET' && reason === 'net::ERR_ABORTED') return;
+    problems.push(`request failed: ${r.method()} ${r.url()} ${reason}`);
+  });
   return problems;
 }
 

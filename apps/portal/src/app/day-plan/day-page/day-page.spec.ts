@@ -112,4 +112,40 @@ describe('DayPage', () => {
     await fixture.whenStable();
     expect(host.querySelectorAll('[data-testid="day-plan-stops"] > li').length).toBe(3);
   });
+
+  it('keeps a date chosen before the list of electricians has arrived and opens that day', async () => {
+    TestBed.configureTestingModule({
+      providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting(), { provide: Clock, useValue: { today: () => '2026-12-07' } }, { provide: Auth, useValue: { user: signal({ id: 1 }) } }],
+    });
+    http = TestBed.inject(HttpTestingController);
+    const fixture = TestBed.createComponent(DayPage);
+    await fixture.whenStable();
+    const input = (fixture.nativeElement as HTMLElement).querySelector<HTMLInputElement>('[data-testid="day-plan-date"]')!;
+    input.value = '2026-12-09';
+    input.dispatchEvent(new Event('input'));
+    await fixture.whenStable();
+    http.expectOne('/api/day-plan/electricians').flush([{ id: 7, name: 'Lee Park' }]);
+    await fixture.whenStable();
+    http.expectOne((r) => r.url === '/api/day-plan' && r.params.get('date') === '2026-12-09' && r.params.get('electricianId') === '7').flush(plan({ date: '2026-12-09' }));
+    await fixture.whenStable();
+    expect(input.value).toBe('2026-12-09');
+  });
+
+  it('shows the latest choice only: the answer for an earlier date is cancelled, never drawn over it', async () => {
+    const { fixture, host } = await render(plan());
+    const input = host.querySelector<HTMLInputElement>('[data-testid="day-plan-date"]')!;
+    input.value = '2026-12-08';
+    input.dispatchEvent(new Event('input'));
+    await fixture.whenStable();
+    const first = http.expectOne((r) => r.url === '/api/day-plan' && r.params.get('date') === '2026-12-08');
+    input.value = '2026-12-09';
+    input.dispatchEvent(new Event('input'));
+    await fixture.whenStable();
+    const second = http.expectOne((r) => r.url === '/api/day-plan' && r.params.get('date') === '2026-12-09');
+    expect(first.cancelled).toBe(true);
+    second.flush(plan({ date: '2026-12-09', stops: [stop(4, '7 Tannery Close, Marlow Springs', '08:10', '09:00')] }));
+    await fixture.whenStable();
+    const titles = [...host.querySelectorAll('[data-testid="day-plan-stops"] mat-card-title')].map((t) => t.textContent?.trim());
+    expect(titles).toEqual(['08:10–09:00 7 Tannery Close, Marlow Springs']);
+  });
 });

@@ -8,6 +8,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { ActivatedRoute, Router, RouterLink } from '@angular/router';
+import type { Subscription } from 'rxjs';
 import { DayPlan, DayPlanStop, DayPlanSuggestion, Electrician, SITE_VISIT_STATUS_LABELS } from '@cc/shared';
 import { Auth } from '../../core/auth/auth';
 import { Notice } from '../../core/http/notice';
@@ -40,6 +41,7 @@ export class DayPage {
   protected readonly isLoading = signal(false);
   protected readonly bookingId = signal<number | null>(null);
   protected readonly feedUrl = signal<string | null>(null);
+  private loading?: Subscription;
   protected readonly statusLabels = SITE_VISIT_STATUS_LABELS;
   protected readonly electricianName = computed(() => this.electricians().find((e) => e.id === this.electricianId())?.name ?? '');
   /** Warnings other than the overflow, which has its own box. */
@@ -58,20 +60,27 @@ export class DayPage {
     });
   }
 
+  /**
+   * A date chosen before the list of electricians has arrived is kept (it was dropped, and the day
+   * then opened on today); the plan loads once both are known.
+   */
   protected choose(date: string, electricianId: number | null): void {
-    if (!/^\d{4}-\d{2}-\d{2}$/.test(date) || electricianId === null) return;
+    if (!/^\d{4}-\d{2}-\d{2}$/.test(date)) return;
     this.date.set(date);
     this.electricianId.set(electricianId);
     this.feedUrl.set(null);
+    if (electricianId === null) return;
     void this.router.navigate([], { queryParams: { date, electricianId }, replaceUrl: true });
     this.load();
   }
 
+  /** Only the latest choice's answer is shown: an earlier, slower answer is cancelled, never drawn over it. */
   protected load(): void {
     const id = this.electricianId();
     if (id === null) return;
     this.isLoading.set(true);
-    this.api.day(this.date(), id).subscribe({
+    this.loading?.unsubscribe();
+    this.loading = this.api.day(this.date(), id).subscribe({
       next: (plan) => {
         this.plan.set(plan);
         this.isLoading.set(false);
