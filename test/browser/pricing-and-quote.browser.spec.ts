@@ -39,119 +39,126 @@ async function quoteTotal(page: Page): Promise<string> {
   return ((await page.getByTestId('totals-quote-total').textContent()) ?? '').trim();
 }
 
-describe('pricing a request and sending its quote', () => {
-  let requestId = '';
+/** The contractor's part: auto-price, a bulk change, live totals, send. Returns the request and the total sent. */
+async function priceAndSend(): Promise<{ requestId: string; sentTotal: string }> {
   let sentTotal = '';
+  const page = await newPage();
+  await signInAs(page, CONTRACTOR);
+  await page.getByTestId('nav-job-queue').click();
+  await page.getByTestId('pricing-queue-heading').waitFor();
+  await page.getByTestId('pricing-queue-row').first().waitFor();
+  await expectAccessible(page);
+  const row = page.getByTestId('pricing-queue-row').filter({ hasText: STREET });
+  await row.waitFor();
+  expect(await row.getByTestId('pricing-queue-items').textContent()).toContain('4');
+  await row.getByTestId('pricing-queue-open').click();
 
-  it('lets the contractor auto-price, change a group of items at once, watch the totals and send the quote', async () => {
-    const page = await newPage();
-    await signInAs(page, CONTRACTOR);
-    await page.getByTestId('nav-job-queue').click();
-    await page.getByTestId('pricing-queue-heading').waitFor();
-    await page.getByTestId('pricing-queue-row').first().waitFor();
-    await expectAccessible(page);
-    const row = page.getByTestId('pricing-queue-row').filter({ hasText: STREET });
-    await row.waitFor();
-    expect(await row.getByTestId('pricing-queue-items').textContent()).toContain('4');
-    await row.getByTestId('pricing-queue-open').click();
+  await page.getByTestId('pricing-heading').filter({ hasText: STREET }).waitFor();
+  const requestId = /\/requests\/(\d+)\/pricing/.exec(page.url())?.[1] ?? '';
+  expect(requestId).not.toBe('');
+  await page.getByTestId('totals-empty').waitFor();
+  await page.getByTestId('ballpark-label').filter({ hasText: 'Estimate, not a quote' }).waitFor();
+  expect(await page.getByTestId('pricing-send').isDisabled()).toBe(true);
 
-    await page.getByTestId('pricing-heading').filter({ hasText: STREET }).waitFor();
-    requestId = /\/requests\/(\d+)\/pricing/.exec(page.url())?.[1] ?? '';
-    expect(requestId).not.toBe('');
-    await page.getByTestId('totals-empty').waitFor();
-    await page.getByTestId('ballpark-label').filter({ hasText: 'Estimate, not a quote' }).waitFor();
-    expect(await page.getByTestId('pricing-send').isDisabled()).toBe(true);
+  // Auto-price: every item gets the first entry of the rate book for its finding.
+  await page.getByTestId('pricing-auto-price').click();
+  await page.getByTestId('pricing-unpriced').filter({ hasText: 'Every item is priced' }).waitFor();
+  await page.getByTestId('totals-quote-total').waitFor();
+  const autoTotal = await quoteTotal(page);
+  // The portal's live total (shared engine in the browser) is the server's own figure.
+  expect(autoTotal).toBe(asDollars(await serverTotalCents(page, requestId)));
+  // The ballpark range shown to the agent holds the quote priced from the same rate book.
+  const range = (await (await page.request.get(portalUrl(`/api/requests/${requestId}/ballpark`))).json()) as { lowCents: number; highCents: number };
+  const autoCents = await serverTotalCents(page, requestId);
+  expect(range.lowCents).toBeLessThanOrEqual(autoCents);
+  expect(autoCents).toBeLessThanOrEqual(range.highCents);
+  await screenshot(page, 'pricing-auto-priced');
 
-    // Auto-price: every item gets the first entry of the rate book for its finding.
-    await page.getByTestId('pricing-auto-price').click();
-    await page.getByTestId('pricing-unpriced').filter({ hasText: 'Every item is priced' }).waitFor();
-    await page.getByTestId('totals-quote-total').waitFor();
-    const autoTotal = await quoteTotal(page);
-    // The portal's live total (shared engine in the browser) is the server's own figure.
-    expect(autoTotal).toBe(asDollars(await serverTotalCents(page, requestId)));
-    // The ballpark range shown to the agent holds the quote priced from the same rate book.
-    const range = (await (await page.request.get(portalUrl(`/api/requests/${requestId}/ballpark`))).json()) as { lowCents: number; highCents: number };
-    const autoCents = await serverTotalCents(page, requestId);
-    expect(range.lowCents).toBeLessThanOrEqual(autoCents);
-    expect(autoCents).toBeLessThanOrEqual(range.highCents);
-    await screenshot(page, 'pricing-auto-priced');
+  // Select both GFCI findings at once and give them a site condition.
+  // Plain words on every pick, never the finding code itself.
+  const picks = await page.getByTestId('pricing-pick-code').allTextContents();
+  for (const code of Object.keys(FINDING_CODE_TABLE)) expect(picks.join(' ')).not.toContain(code);
+  await page.getByTestId('pricing-pick-code').filter({ hasText: 'All 2: No ground-fault (GFCI) protection' }).click();
+  expect(await page.getByTestId('bulk-selected-count').textContent()).toContain('2 items selected');
+  await page.getByRole('checkbox', { name: 'Set site conditions' }).check();
+  await page.getByTestId('bulk-adders').click();
+  await page.locator('mat-option').filter({ hasText: 'Shallow or crowded box' }).click();
+  await page.keyboard.press('Escape');
+  const preview = page.getByTestId('bulk-preview-total');
+  await preview.waitFor();
+  // The preview shows the total as it stands until the chosen condition reaches it; wait for the
+  // new figure (a preview that never changes times out and fails here).
+  await page.waitForFunction(
+    ([selector, before]) => {
+      const text = document.querySelector(selector)?.textContent?.trim();
+      return !!text && text !== before;
+    },
+    ['[data-testid="bulk-preview-total"]', autoTotal] as const,
+  );
+  const previewTotal = ((await preview.textContent()) ?? '').trim();
+  expect(previewTotal).not.toBe(autoTotal);
+  await screenshot(page, 'pricing-bulk-preview');
 
-    // Select both GFCI findings at once and give them a site condition.
-    // Plain words on every pick, never the finding code itself.
-    const picks = await page.getByTestId('pricing-pick-code').allTextContents();
-    for (const code of Object.keys(FINDING_CODE_TABLE)) expect(picks.join(' ')).not.toContain(code);
-    await page.getByTestId('pricing-pick-code').filter({ hasText: 'All 2: No ground-fault (GFCI) protection' }).click();
-    expect(await page.getByTestId('bulk-selected-count').textContent()).toContain('2 items selected');
-    await page.getByRole('checkbox', { name: 'Set site conditions' }).check();
-    await page.getByTestId('bulk-adders').click();
-    await page.locator('mat-option').filter({ hasText: 'Shallow or crowded box' }).click();
-    await page.keyboard.press('Escape');
-    const preview = page.getByTestId('bulk-preview-total');
-    await preview.waitFor();
-    // The preview shows the total as it stands until the chosen condition reaches it; wait for the
-    // new figure (a preview that never changes times out and fails here).
-    await page.waitForFunction(
-      ([selector, before]) => {
-        const text = document.querySelector(selector)?.textContent?.trim();
-        return !!text && text !== before;
-      },
-      ['[data-testid="bulk-preview-total"]', autoTotal] as const,
-    );
-    const previewTotal = ((await preview.textContent()) ?? '').trim();
-    expect(previewTotal).not.toBe(autoTotal);
-    await screenshot(page, 'pricing-bulk-preview');
+  await page.getByTestId('bulk-apply').click();
+  await page.getByTestId('totals-quote-total').filter({ hasText: previewTotal }).waitFor();
+  const gfciRows = page.locator('[data-testid="pricing-row"][data-code="gfci-missing"]');
+  expect(await gfciRows.count()).toBe(2);
+  for (const adders of await gfciRows.getByTestId('pricing-adders').allTextContents()) expect(adders).toContain('Shallow or crowded box');
+  const otherAdders = await page.locator('[data-testid="pricing-row"]:not([data-code="gfci-missing"])').getByTestId('pricing-adders').allTextContents();
+  expect(otherAdders.every((text) => text.trim() === '—')).toBe(true);
+  sentTotal = await quoteTotal(page);
+  expect(sentTotal).toBe(asDollars(await serverTotalCents(page, requestId)));
+  await screenshot(page, 'pricing-group-changed');
 
-    await page.getByTestId('bulk-apply').click();
-    await page.getByTestId('totals-quote-total').filter({ hasText: previewTotal }).waitFor();
-    const gfciRows = page.locator('[data-testid="pricing-row"][data-code="gfci-missing"]');
-    expect(await gfciRows.count()).toBe(2);
-    for (const adders of await gfciRows.getByTestId('pricing-adders').allTextContents()) expect(adders).toContain('Shallow or crowded box');
-    const otherAdders = await page.locator('[data-testid="pricing-row"]:not([data-code="gfci-missing"])').getByTestId('pricing-adders').allTextContents();
-    expect(otherAdders.every((text) => text.trim() === '—')).toBe(true);
-    sentTotal = await quoteTotal(page);
-    expect(sentTotal).toBe(asDollars(await serverTotalCents(page, requestId)));
-    await screenshot(page, 'pricing-group-changed');
+  await page.getByTestId('pricing-note').fill('Both GFCI boxes are shallow; priced with the extra time.');
+  await page.getByTestId('pricing-send').click();
+  await page.getByTestId('quote-heading').filter({ hasText: 'version 1' }).waitFor();
+  expect(await page.getByTestId('quote-current-flag').textContent()).toContain('Current version');
+  expect(await page.getByTestId('totals-quote-total').textContent()).toContain(sentTotal);
+  await screenshot(page, 'quote-sent-contractor');
+  await page.close();
+  return { requestId, sentTotal };
+}
 
-    await page.getByTestId('pricing-note').fill('Both GFCI boxes are shallow; priced with the extra time.');
-    await page.getByTestId('pricing-send').click();
-    await page.getByTestId('quote-heading').filter({ hasText: 'version 1' }).waitFor();
-    expect(await page.getByTestId('quote-current-flag').textContent()).toContain('Current version');
-    expect(await page.getByTestId('totals-quote-total').textContent()).toContain(sentTotal);
-    await screenshot(page, 'quote-sent-contractor');
-    await page.close();
-  });
+/** The seller's part: the quote waits for them; they read it and download its PDF. */
+async function sellerReadsQuote(requestId: string, sentTotal: string): Promise<void> {
+  const page = await newPage();
+  await signInAs(page, SELLER);
+  const row = page.getByTestId('request-row').filter({ hasText: STREET });
+  await row.waitFor();
+  expect(await row.textContent()).toContain('Quote with seller');
 
-  it('shows the seller the quote and lets them download it as a PDF', async () => {
-    expect(requestId).not.toBe('');
-    const page = await newPage();
-    await signInAs(page, SELLER);
-    const row = page.getByTestId('request-row').filter({ hasText: STREET });
-    await row.waitFor();
-    expect(await row.textContent()).toContain('Quote with seller');
+  await row.click();
+  await page.getByTestId('request-detail-heading').filter({ hasText: STREET }).waitFor();
+  // The seller sees that the quote waits for them, with the way to the approval page.
+  expect(await page.getByTestId('next-step-summary').textContent()).toContain('Waits for you (the seller');
+  expect(await page.getByTestId('next-step-link').first().getAttribute('href')).toBe(`/requests/${requestId}/approval`);
+  expect(await page.getByTestId('next-step-outside').count()).toBe(0);
+  await expectAccessible(page);
+  await page.getByTestId('request-quote-link').click();
+  await page.getByTestId('quote-heading').filter({ hasText: 'version 1' }).waitFor();
+  expect(page.url()).toContain(`/requests/${requestId}/quotes`);
+  expect(await page.getByTestId('quote-current-flag').textContent()).toContain('Current version');
+  expect(await page.getByTestId('totals-quote-total').textContent()).toContain(sentTotal);
+  expect(await page.getByTestId('quote-line').count()).toBe(4);
+  expect(await page.getByTestId('quote-note').textContent()).toContain('shallow');
+  expect(await page.getByTestId('quote-safety-notice').textContent()).toMatch(/licensed/i);
+  expect(await page.getByTestId('quote-licence').textContent()).toMatch(/Licence \S+/);
+  await screenshot(page, 'quote-seller');
 
-    await row.click();
-    await page.getByTestId('request-detail-heading').filter({ hasText: STREET }).waitFor();
-    // The seller sees that the quote waits for them, with the way to the approval page.
-    expect(await page.getByTestId('next-step-summary').textContent()).toContain('Waits for you (the seller');
-    expect(await page.getByTestId('next-step-link').first().getAttribute('href')).toBe(`/requests/${requestId}/approval`);
-    expect(await page.getByTestId('next-step-outside').count()).toBe(0);
-    await expectAccessible(page);
-    await page.getByTestId('request-quote-link').click();
-    await page.getByTestId('quote-heading').filter({ hasText: 'version 1' }).waitFor();
-    expect(page.url()).toContain(`/requests/${requestId}/quotes`);
-    expect(await page.getByTestId('quote-current-flag').textContent()).toContain('Current version');
-    expect(await page.getByTestId('totals-quote-total').textContent()).toContain(sentTotal);
-    expect(await page.getByTestId('quote-line').count()).toBe(4);
-    expect(await page.getByTestId('quote-note').textContent()).toContain('shallow');
-    expect(await page.getByTestId('quote-safety-notice').textContent()).toMatch(/licensed/i);
-    expect(await page.getByTestId('quote-licence').textContent()).toMatch(/Licence \S+/);
-    await screenshot(page, 'quote-seller');
+  const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('quote-pdf').click()]);
+  expect(download.suggestedFilename()).toMatch(/quote-v1\.pdf$/);
+  const pdf = readFileSync(await download.path());
+  // A PDF file starts with the "%PDF-" header (ISO 32000-1, 7.5.2).
+  expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+  await page.close();
+}
 
-    const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('quote-pdf').click()]);
-    expect(download.suggestedFilename()).toMatch(/quote-v1\.pdf$/);
-    const pdf = readFileSync(await download.path());
-    // A PDF file starts with the "%PDF-" header (ISO 32000-1, 7.5.2).
-    expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
-    await page.close();
+describe('pricing a request and sending its quote', () => {
+  // One journey in one test (the seller's part needs the quote the contractor sends, so it is not a
+  // separate test that would rely on an earlier one's leftovers).
+  it('lets the contractor auto-price, change a group of items at once, watch the totals and send the quote; the seller then reads it and downloads the PDF', async () => {
+    const { requestId, sentTotal } = await priceAndSend();
+    await sellerReadsQuote(requestId, sentTotal);
   });
 });
