@@ -20,10 +20,12 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // figures rounded down: precision 92.30 %, recall 92.07 %, F1 92.18 %, quantity 96.36 % (2887/2996).
 // Reset when batch J (1001-1066) joined after sealed K was scored: precision 91.21 %, recall
 // 90.37 %, F1 90.79 %, quantity 95.56 % (3075/3218), rounded down; the corpus changed, not the parser.
+// Raised after device and condition composition (docs/parser.md) to the exact figures rounded down:
+// precision 91.21 %, recall 90.96 %, F1 91.09 %, quantity 95.55 % (3095/3239).
 // Raise them as the parser gets better; never lower them for the same corpus.
 const MIN_PRECISION = 0.9121;
-const MIN_RECALL = 0.9036;
-const MIN_F1 = 0.9078;
+const MIN_RECALL = 0.9095;
+const MIN_F1 = 0.9108;
 const MIN_QUANTITY = 0.9555;
 
 describe('report parser corpus', () => {

@@ -1,5 +1,6 @@
 import { clauseRanges } from './clause-splitter';
 import { matchCodes, type CodeMatch } from './code-matcher';
+import { isComposed, markComposedFinding, withComposed } from './device-condition';
 import { CODE_RULES, WHOLE_SYSTEM, type CodeRule } from './code-patterns';
 import { readLocation } from './location-reader';
 import type { FindingCode } from './finding-code';
@@ -118,7 +119,8 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
   const sentences = sources.map((source) => {
     const written = rowCounts.length > 0 ? blankItemNumbers(source, rowCounts) : source;
     const sentence = normaliseText(written);
-    const matches = matchCodes(sentence.text, { carried: ratings });
+    // Phrases first, then a device and its condition where no phrase reads them (device-condition.ts).
+    const matches = withComposed(sentence.text, matchCodes(sentence.text, { carried: ratings }));
     ratings = matches.some((m) => m.computation !== undefined) ? null : { nameplate: nameplateMaximum(sentence.text), rating: deviceRating(sentence.text) };
     const implied = matches.length === 0 ? subjectMatch(section, sentence.text) : null;
     if (implied) matches.push(implied);
@@ -178,10 +180,11 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
           sentence,
           isRecommendation: match.isRecommendation,
           isFallbackOnly: match.rule.isFallbackOnly === true,
-          confidence: match === implied || match.computation !== undefined || place.isInferred ? 'inferred' : isNormalised ? 'normalised' : 'exact',
+          confidence: match === implied || match.computation !== undefined || place.isInferred ? 'inferred' : isComposed(match) ? 'composed' : isNormalised ? 'normalised' : 'exact',
           recommendations: [],
           computation: match.computation ?? null,
         });
+        if (isComposed(match)) markComposedFinding(inSentence[inSentence.length - 1]);
       }
     });
     for (let k = inSentence.length - 1; k >= 0; k--) {

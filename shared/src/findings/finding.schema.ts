@@ -14,10 +14,11 @@ export const SeveritySchema = z.enum(SEVERITIES);
  */
 /**
  * How a finding was read: `exact` (a phrase of the table as written), `normalised` (the phrase
- * matched only after shorthand, a misspelling or a number word was normalised) or `inferred` (its
- * room or its code rests on context: a heading, an earlier sentence, a computation).
+ * matched only after shorthand, a misspelling or a number word was normalised), `composed` (no
+ * phrase: a device word and a condition word in one clause, see device-condition.ts) or `inferred`
+ * (its room or its code rests on context: a heading, an earlier sentence, a computation).
  */
-export const CONFIDENCES = ['exact', 'normalised', 'inferred'] as const;
+export const CONFIDENCES = ['exact', 'normalised', 'composed', 'inferred'] as const;
 export const ConfidenceSchema = z.enum(CONFIDENCES);
 export type Confidence = z.infer<typeof ConfidenceSchema>;
 

@@ -5,6 +5,7 @@ import { findingCodeInfo, type FindingCode } from './finding-code';
 import { answeredNoLines, withoutAnsweredNo } from './hazard-answer';
 import { formMarks } from './form-marks';
 import { closedItemLines } from './status-lines';
+import { isComposedFinding } from './device-condition';
 import { dropCaptionRepeats } from './caption-repeats';
 import { withoutClosedItems } from './item-status';
 import { findRooms } from './room-lexicon';
@@ -68,6 +69,8 @@ export function parseReport(pages: readonly string[]): ParseResult {
   const marks = formMarks(joined);
   // Items a re-inspection marks as put right, with their status in a column or on the line below.
   const closedLines = closedItemLines(joined);
+  // Findings read from a device and its condition (by index in `findings`).
+  const composedHere = new Set<number>();
 
   for (const block of splitBlocks(joined)) {
     const { start, end } = sourceRange(block.text);
@@ -112,6 +115,9 @@ export function parseReport(pages: readonly string[]): ParseResult {
     for (const f of result.findings) {
       // The same computation told twice (a summary line and the body's HVAC paragraph) is one defect.
       if (f.computation !== null && findings.some((g) => g.code === f.code && g.computation === f.computation)) continue;
+      // A defect read from a device and its condition, whose code the report has already given, is that defect told again.
+      if (isComposedFinding(f) && findings.some((g) => g.code === f.code)) continue;
+      if (isComposedFinding(f)) composedHere.add(findings.length);
       const range = sourceRange(f.sentence);
       const info = findingCodeInfo(f.code);
       inSummary.push((block.section.title !== null && SUMMARY_HEADING.test(block.section.title)) || marks.checked.some((r) => r.start < range.end && range.start < r.end));
@@ -137,7 +143,10 @@ export function parseReport(pages: readonly string[]): ParseResult {
   }
   const kept = dropFollowUps(findings, isFollowUp, sectionOf);
   const summaryFlags = withCrossReferences(inSummary, crossRef, sectionOf);
-  return { findings: dropCaptionRepeats(mergeWiringMentions(mergeSummary(dropTitles(kept.findings, joined), kept.inSummary(summaryFlags))), joined), skipped };
+  const read = dropCaptionRepeats(mergeWiringMentions(mergeSummary(dropTitles(kept.findings, joined), kept.inSummary(summaryFlags))), joined);
+  // ... or gives later for the same place (a title before its body).
+  const composed = new Set([...composedHere].map((i) => findings[i]));
+  return { findings: read.filter((f) => !(composed.has(f) && read.some((g) => !composed.has(g) && g.code === f.code && g.room === f.room))), skipped };
 }
 
 /**

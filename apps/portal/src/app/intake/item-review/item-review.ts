@@ -20,11 +20,11 @@ import { UnitemisedText } from '../unitemised-text/unitemised-text';
 
 const DIALOG_SIZE = { width: '640px', maxWidth: '95vw' };
 
-const CONFIDENCE_RANK: Record<string, number> = { inferred: 0, normalised: 1, exact: 2 };
+const CONFIDENCE_RANK: Record<string, number> = { inferred: 0, composed: 1, normalised: 2, exact: 3 };
 
-/** Stable order: inferred items first, then items read from shorthand, then the rest as listed. */
+/** Stable order: inferred items first, then items read from a device and its condition, then from shorthand, then the rest as listed. */
 export function orderByConfidence(items: readonly LineItem[]): LineItem[] {
-  const rank = (i: LineItem) => (i.confidence ? CONFIDENCE_RANK[i.confidence] : 3);
+  const rank = (i: LineItem) => (i.confidence ? CONFIDENCE_RANK[i.confidence] : 4);
   return items.map((item, index) => ({ item, index })).sort((a, b) => rank(a.item) - rank(b.item) || a.index - b.index).map((x) => x.item);
 }
 
@@ -53,9 +53,9 @@ export class ItemReview {
   readonly confirmed = output<LineItem[]>();
 
   protected readonly proposed = computed(() => this.items().filter((i) => i.status === 'proposed'));
-  /** Items the reader is less sure of come first (inferred, then read from shorthand), otherwise report order. */
+  /** Items the reader is less sure of come first (inferred, then composed, then read from shorthand), otherwise report order. */
   protected readonly ordered = computed(() => orderByConfidence(this.items()));
-  protected readonly lowConfidenceCount = computed(() => this.proposed().filter((i) => i.confidence === 'inferred').length);
+  protected readonly lowConfidenceCount = computed(() => this.proposed().filter((i) => i.confidence === 'inferred' || i.confidence === 'composed').length);
   protected readonly activeItemId = signal<number | null>(null);
   /** Ticked items (for a merge); only ids still in the list count. */
   protected readonly selectedIds = linkedSignal<LineItem[], ReadonlySet<number>>({

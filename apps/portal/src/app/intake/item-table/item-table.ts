@@ -15,6 +15,11 @@ const CONFIDENCE_MARKS: Partial<Record<Confidence, { label: string; explanation:
     explanation: 'The room or the defect was inferred from context (a heading, an earlier sentence, a computation). Check it against the report.',
     isLow: true,
   },
+  composed: {
+    label: 'Check: device and condition',
+    explanation: 'No phrase of the report names this defect: it was read from a device and a condition said of it in one clause. Check the wording.',
+    isLow: true,
+  },
   normalised: {
     label: 'Read from shorthand',
     explanation: 'Found after reading an abbreviation, a misspelling or a number word. Check the wording.',
