@@ -543,7 +543,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'switch-issue',
-    trigger: /switch|toggle|rocker|paddle|dimmer/i,
+    trigger: /switch|toggle|rocker|paddle|dimmer|\b(?:3|4|three|four)[- ]ways?\b/i,
     patterns: [
       // A switch whose purpose the inspector could not find ("a switch by the sink that I could not find a purpose for"; common practice).
       { re: rx`${T.SWITCH}\s+${anyGap(10)}(?:(?:could\s?n[o']t|can\s?n[o']t|cannot|unable to|did\s?n[o']t|was not able to)\s+(?:find|determine|identify|tell|work out|figure out)\s+(?:a|any|its|the|what)\s+(?:purpose|function|use)|(?:purpose|function)\s+(?:is\s+|was\s+|remains\s+)?(?:unknown|undetermined|not (?:known|determined|found)))` },
