@@ -117,6 +117,8 @@ export function applyRoomConventions(
     if (code === 'overcurrent-mismatch' && (inOutdoorDisconnect(text, context.previousText) || inOutdoorEquipment(text, context.previousText))) {
       return places.map((p) => (p.room === 'panel' ? { ...p, room: 'exterior' as Room } : p));
     }
+    // Every weather-cover label of the corpus (127) is outside: the cover is for a wet location (NFPA 70 (NEC) 2023, 406.9(B)).
+    if (code === 'weather-cover-missing') return places.map((p) => (p.room === 'exterior' ? p : { ...p, room: 'exterior' as Room }));
     if (code === 'evaluate-general' && evaluationTarget(text, match.start)?.isPanel === true) {
       return places.map((p) => ({ ...p, room: 'panel' as Room }));
     }
