@@ -13,6 +13,7 @@ import { join } from 'node:path';
 import autocannon from 'autocannon';
 import bcrypt from 'bcryptjs';
 import knex, { type Knex } from 'knex';
+import { ITEM_STATUSES, REQUEST_STATUSES } from '@cc/shared';
 
 const root = join(__dirname, '..');
 const REQUESTS = 10_015;
@@ -43,8 +44,10 @@ function freePort(): Promise<number> {
 /**
  * The data set: one brokerage with 50 agents, 20 contractor organisations with one user each, and
  * requests whose buyer's agent is the first agent one time in four (2,504 requests) and whose
- * contractor is the first organisation one time in three (3,339 requests). Every request has ~20
- * line items in mixed states.
+ * contractor is the first organisation one time in three (3,339 requests). The states come from the
+ * flow's own lists, mixed so that the first agent and the first contractor each have requests in every
+ * state (the contractor's "awaiting prices" page has rows to show). Every request has ~20 line items
+ * in mixed states.
  */
 export async function fill(db: Knex): Promise<void> {
   const hash = await bcrypt.hash(PASSWORD, 4);
@@ -65,24 +68,26 @@ export async function fill(db: Knex): Promise<void> {
   await db.raw(
     `WITH c AS (SELECT array_agg(id ORDER BY id) AS ids FROM organisations WHERE kind = 'contractor'),
           a AS (SELECT array_agg(id ORDER BY id) AS ids FROM users WHERE role = 'agent'),
-          s AS (SELECT ARRAY['draft','intake','pricing','quoted','approved','scheduled','in-progress','corrected','letter-issued','accepted','declined','withdrawn'] AS names)
+          s AS (SELECT ?::text[] AS names)
      INSERT INTO repair_requests (street, city, state, zip, year_built, closing_date, nec_edition, status, contractor_organisation_id, created_by, created_at)
      SELECT g || ' Bench Street', 'Marlow Springs', 'CO', lpad((80900 + g % 90)::text, 5, '0'), 1940 + g % 80,
-            date '2027-01-01' + (g * 7919) % 365, 2020, s.names[1 + g % 12],
+            date '2027-01-01' + (g * 7919) % 365, 2020, s.names[1 + (g + g / ${REQUEST_STATUSES.length}) % ${REQUEST_STATUSES.length}],
             CASE WHEN g % 3 = 0 THEN c.ids[1] ELSE c.ids[2 + g % 19] END,
             CASE WHEN g % 4 = 0 THEN a.ids[1] ELSE a.ids[2 + g % 49] END,
             now() - (g || ' minutes')::interval
      FROM generate_series(1, ${REQUESTS}) g, c, a, s`,
+    [[...REQUEST_STATUSES]],
   );
   await db.raw(
     `INSERT INTO request_parties (request_id, role, email, user_id, joined_at)
      SELECT r.id, 'buyer-agent', u.email, u.id, now() FROM repair_requests r JOIN users u ON u.id = r.created_by`,
   );
   await db.raw(
-    `WITH i AS (SELECT ARRAY['proposed','open','priced','approved','done','removed'] AS names)
+    `WITH i AS (SELECT ?::text[] AS names)
      INSERT INTO line_items (request_id, code, room, quantity, severity, status)
-     SELECT r.id, 'gfci-missing', 'kitchen', 1 + k % 3, 'safety', i.names[1 + (r.id + k) % 6]
+     SELECT r.id, 'gfci-missing', 'kitchen', 1 + k % 3, 'safety', i.names[1 + (r.id + k) % ${ITEM_STATUSES.length}]
      FROM repair_requests r, generate_series(1, 20) k, i`,
+    [[...ITEM_STATUSES]],
   );
   const extra = ITEMS - REQUESTS * 20;
   await db.raw(
@@ -181,6 +186,13 @@ export async function run(): Promise<void> {
       { name: 'agent: search "Bench Street"', path: '/api/requests?page=0&pageSize=25&q=4%20Bench', cookie: agent },
       { name: 'a request’s items', path: `/api/requests/${sampleRequest}/items`, cookie: agent },
     ];
+
+    // Each endpoint must answer with rows: a benchmark of an empty page measures nothing but the session.
+    for (const e of endpoints) {
+      const body = (await (await fetch(`${url}${e.path}`, { headers: { cookie: e.cookie } })).json()) as { items?: unknown[] } | unknown[];
+      const count = Array.isArray(body) ? body.length : (body.items?.length ?? 0);
+      if (count === 0) throw new Error(`${e.name}: the data set gives this endpoint no rows`);
+    }
 
     const load1 = () => loadavg().map((l) => l.toFixed(2)).join(' ');
     console.log(`Load average before the runs: ${load1()}`);

@@ -1,4 +1,5 @@
-import { itemsWithNotes, LineItemListSchema } from '@cc/shared';
+import { editionNote, itemsWithNotes, LineItemListSchema, toLineItemList } from '@cc/shared';
+import { LineItemRepository } from '../../server/src/intake/line-item.repository';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 import { createUser, resetDatabase, signIn, validRequestBody, type SignedIn } from '../helpers/fixtures';
 
@@ -69,6 +70,32 @@ describe('GET /api/requests/:id/items', () => {
     expect(res.body.items.every((i: object) => !('editionNote' in i))).toBe(true);
     const noteText = list.editionNotes['gfci-missing/garage'].text;
     expect(res.text.split(JSON.stringify(noteText)).length - 1).toBe(1);
+  });
+
+  // PostgreSQL writes each item's JSON (LineItemRepository.listVisibleAsJson): the answer must be
+  // exactly what the items read as rows and turned into LineItems would make, in the shared schema.
+  it('answers exactly the items the repository reads, with their notes, in the shared schema', async () => {
+    const { id, items } = await requestWithItems();
+    // Every kind of value: an added item with no report position, a location, an edited quantity.
+    await agent.agent.post(`/api/requests/${id}/items`).set('x-csrf-token', agent.csrfToken).send({ code: 'gfci-missing', room: 'kitchen', location: 'island', quantity: 2 }).expect(201);
+    const edited = find(items, 'open-ground');
+    await agent.agent.patch(`/api/requests/${id}/items/${edited.id}`).set('x-csrf-token', agent.csrfToken).send({ version: edited.version, quantity: 4, location: 'hall "west" wall' }).expect(200);
+    const res = await agent.agent.get(`/api/requests/${id}/items`).expect(200);
+    expect(res.headers['content-type']).toBe('application/json; charset=utf-8');
+    const house = await t.db('repair_requests').where({ id }).first('year_built', 'nec_edition');
+    const rows = await new LineItemRepository(t.db).listForRequest(id);
+    const expected = toLineItemList(rows.map((item) => ({ ...item, editionNote: editionNote(item.code, item.room, { yearBuilt: house.year_built, necEdition: house.nec_edition }) })));
+    expect(res.body).toEqual(expected);
+    expect(LineItemListSchema.strict().parse(res.body).items).toHaveLength(4);
+    expect(res.body.items.map((i: { location: string }) => i.location)).toContain('hall "west" wall');
+  });
+
+  it('answers an empty list for a request without items, and 404 to an outsider or for no such request', async () => {
+    const created = await agent.agent.post('/api/requests').set('x-csrf-token', agent.csrfToken).send(validRequestBody()).expect(201);
+    const res = await agent.agent.get(`/api/requests/${created.body.id}/items`).expect(200);
+    expect(res.body).toEqual({ items: [], editionNotes: {} });
+    await outsider.agent.get(`/api/requests/${created.body.id}/items`).expect(404);
+    await agent.agent.get('/api/requests/2147483000/items').expect(404);
   });
 });
 

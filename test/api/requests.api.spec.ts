@@ -1,5 +1,6 @@
 import request from 'supertest';
-import type { CurrentUser, RepairRequestDetail, RequestStatus } from '@cc/shared';
+import * as z from 'zod';
+import { RepairRequestSummarySchema, type CurrentUser, type RepairRequestDetail, type RequestStatus } from '@cc/shared';
 import type { Statement } from '../../server/src/db/read-pool';
 import { LineItemRepository } from '../../server/src/intake/line-item.repository';
 import { LIST_COUNT_CAPS, RequestRepository, type RequestListFilter, type Viewer } from '../../server/src/requests/request.repository';
@@ -314,6 +315,44 @@ describe('GET /api/requests', () => {
     }
   });
 
+  // PostgreSQL writes each page's summaries as JSON (RequestRepository.list); a request's own page
+  // writes its summary in Node (toSummary, and the at-risk rule of closingProgress). Field by field
+  // the two must agree, in the shared schema, for every scope.
+  it('answers pages in the shared schema, each summary as the request’s own page writes it (at-risk flag included)', async () => {
+    // A new agent's requests, given to the file's contractor (whose list the searches narrow to them).
+    const org = contractorOrg;
+    const agent = await signIn(t.app, await createUser(t.db, 'agent', await createOrganisation(t.db, 'brokerage')));
+    const contractor = sessions.contractor;
+    const today = new Date().toISOString().slice(0, 10);
+    const ids: number[] = [];
+    for (const street of ['1 Parity Row', '2 Parity Row', '3 Parity Row']) {
+      ids.push((await agent.agent.post('/api/requests').set('x-csrf-token', agent.csrfToken).send(validRequestBody({ street, contractorOrganisationId: org })).expect(201)).body.id);
+    }
+    // Open approved work on the first two; the first closes today (at risk), the second far off; the
+    // third closes today without open work (not at risk).
+    await t.db('line_items').insert(ids.slice(0, 2).map((request_id) => ({ request_id, code: 'gfci-missing', room: 'kitchen', quantity: 1, severity: 'safety', status: 'approved' })));
+    await t.db('repair_requests').whereIn('id', [ids[0], ids[2]]).update({ closing_date: today });
+    const PageOfSummaries = z.strictObject({
+      items: z.array(RepairRequestSummarySchema.strict()),
+      total: z.number().int(),
+      isTotalCapped: z.boolean(),
+      page: z.number().int(),
+      pageSize: z.number().int(),
+      nextCursor: z.string().nullable(),
+    });
+    for (const [s, query] of [[agent, 'sort=closingDate'], [contractor, 'q=parity%20row&sort=street&direction=desc'], [contractor, 'q=parity'], [sessions.admin, 'q=parity%20row&sort=createdAt']] as const) {
+      const res = await s.agent.get(`/api/requests?pageSize=10&${query}`).expect(200);
+      expect(res.headers['content-type']).toBe('application/json; charset=utf-8');
+      const page = PageOfSummaries.parse(res.body);
+      expect(page.items.map((r) => r.id).sort((a, b) => a - b)).toEqual(ids);
+      for (const item of page.items) {
+        const detail = (await s.agent.get(`/api/requests/${item.id}`).expect(200)).body;
+        expect(item).toEqual(Object.fromEntries(Object.keys(RepairRequestSummarySchema.shape).map((k) => [k, detail[k]])));
+      }
+      expect(page.items.map((r) => [r.id, r.openWorkCount, r.isAtRisk]).sort()).toEqual([[ids[0], 1, true], [ids[1], 1, false], [ids[2], 0, false]].sort());
+    }
+  });
+
   it('tells the whole total on a page past the end', async () => {
     const s = sessions.buyerAgent;
     const first = await s.agent.get('/api/requests?pageSize=5&page=0').expect(200);
@@ -327,11 +366,11 @@ describe('GET /api/requests', () => {
   it('stops counting at the cap and says the total is at least that', async () => {
     const viewer = { id: cast.admin.id, role: 'admin' as const, organisationId: null };
     const filter = { page: 0, pageSize: 1, sort: 'closingDate' as const, direction: 'asc' as const, statuses: [], text: '', id: null };
-    const all = await new RequestRepository(t.db).list(viewer, filter);
+    const all = await new RequestRepository(t.db).list(viewer, filter, '2000-01-01');
     expect(all.total).toBeGreaterThan(2);
-    const capped = await new RequestRepository(t.db, { list: 2, search: 2 }).list(viewer, filter);
+    const capped = await new RequestRepository(t.db, { list: 2, search: 2 }).list(viewer, filter, '2000-01-01');
     expect(capped).toMatchObject({ total: 2, isTotalCapped: true });
-    expect(capped.items).toHaveLength(1);
+    expect(JSON.parse(capped.itemsJson)).toHaveLength(1);
   });
 
   // Every list reads its page through the index of its sort within the viewer's scope, not by
@@ -373,7 +412,7 @@ describe('GET /api/requests', () => {
   it.each(SORT_INDEXES)('reads the %s’s list sorted by %s %s (statuses %j) through an index of its scope (at scale: %s)', async (who, sort, direction, statuses, index) => {
     const user = cast[who as keyof typeof cast];
     const viewer: Viewer = { id: user.id, role: user.role, organisationId: user.organisationId };
-    const plan = await genericPlan(new RequestRepository(t.db).listStatement(viewer, { page: 3, pageSize: 25, sort, direction, statuses, text: '', id: null }));
+    const plan = await genericPlan(new RequestRepository(t.db).listStatement(viewer, { page: 3, pageSize: 25, sort, direction, statuses, text: '', id: null }, '2027-01-01'));
     // Which of several fitting indexes the planner takes on a test-sized table depends on its
     // statistics (the one named is what it takes at scale: bench/api.bench.ts); at any size the
     // visible rows are found through an index of the list's table, never by a sequential scan.
@@ -398,17 +437,21 @@ describe('GET /api/requests', () => {
     const user = cast[who];
     const viewer: Viewer = { id: user.id, role: user.role, organisationId: user.organisationId };
     const after = { sortKey: sort === 'closingDate' ? '2027-01-01' : sort === 'createdAt' ? '2026-12-04 05:17:37.123456+00' : 'm', id: 5 };
-    const plan = await genericPlan(new RequestRepository(t.db).listStatement(viewer, { page: 7, pageSize: 25, sort, direction, statuses: [], text: '', id: null, after }));
+    const plan = await genericPlan(new RequestRepository(t.db).listStatement(viewer, { page: 7, pageSize: 25, sort, direction, statuses: [], text: '', id: null, after }, '2027-01-01'));
     expect(plan).toMatch(/Index (Only )?Scan (Backward )?using (request_viewers|repair_requests)_\w+/);
     expect(plan).toMatch(/Index Cond: .*ROW\(/);
     expect(plan).not.toMatch(/Seq Scan on (repair_requests|request_viewers)/);
   });
 
-  it('reads a request’s items through the index of their request', async () => {
+  it.each(['buyerAgent', 'contractor', 'admin'] as const)('reads a request’s items for the %s through the index of their request, the request by its key', async (who) => {
     // Items are few per request and sorted in memory: only the way to them is checked.
-    const plan = await genericPlan(new LineItemRepository(t.db).listStatement(ownRequest.id), { sortsPricedOut: false });
-    expect(plan).toContain('line_items_request_id_status_index');
-    expect(plan).not.toMatch(/Seq Scan on line_items/);
+    const user = cast[who];
+    const viewer: Viewer = { id: user.id, role: user.role, organisationId: user.organisationId };
+    for (const statement of [new LineItemRepository(t.db).listStatement(ownRequest.id), new LineItemRepository(t.db).listVisibleAsJsonStatement(viewer, ownRequest.id)]) {
+      const plan = await genericPlan(statement, { sortsPricedOut: false });
+      expect(plan).toContain('line_items_request_id_status_index');
+      expect(plan).not.toMatch(/Seq Scan on (line_items|repair_requests|request_parties)/);
+    }
   });
 
   // A text search counts no further than LIST_COUNT_CAPS.search (100) and pages on past it by cursor.
@@ -509,7 +552,7 @@ describe('GET /api/requests', () => {
       const user = people[who].user;
       const viewer: Viewer = { id: user.id, role: user.role, organisationId: user.organisationId };
       const filter: RequestListFilter = { page: 0, pageSize: 25, sort, direction, statuses: [], text: 'lane', id: null };
-      const plan = await genericPlan(new RequestRepository(t.db).listStatement(viewer, filter));
+      const plan = await genericPlan(new RequestRepository(t.db).listStatement(viewer, filter, '2027-01-01'));
       expect(plan).toMatch(new RegExp(`Index Scan (Backward )?using ${index} `));
       expect(plan).not.toMatch(/Seq Scan on (repair_requests|request_viewers)/);
     });

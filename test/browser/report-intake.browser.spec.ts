@@ -81,6 +81,8 @@ async function confirmAndExpectPricing(count: number): Promise<void> {
 
 /** Selects `needle` in the report text the way a mouse would, and lets the view read the selection. */
 async function selectReportText(needle: string): Promise<void> {
+  // The report text is drawn after the items; wait until it holds the passage before selecting.
+  await page.getByTestId('report-text').filter({ hasText: needle }).waitFor();
   await page.evaluate((text) => {
     const root = document.querySelector('[data-testid="report-text"]')!;
     const walker = document.createTreeWalker(root, NodeFilter.SHOW_TEXT);

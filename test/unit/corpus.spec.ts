@@ -20,13 +20,15 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // figures rounded down: precision 92.30 %, recall 92.07 %, F1 92.18 %, quantity 96.36 % (2887/2996).
 // Reset when batch J (1001-1066) joined after sealed K was scored: precision 91.21 %, recall
 // 90.37 %, F1 90.79 %, quantity 95.56 % (3075/3218), rounded down; the corpus changed, not the parser.
-// Raised after device and condition composition (docs/parser.md) to the exact figures rounded down:
-// precision 91.21 %, recall 90.96 %, F1 91.09 %, quantity 95.55 % (3095/3239).
+// Raised after the ninth round (batch J tuned on) to the exact figures rounded down: precision
+// 91.77 %, recall 91.12 %, F1 91.44 %, quantity 95.62 % (3103/3245).
+// Raised after device and condition composition joined the ninth round's parser to the exact
+// figures rounded down: precision 91.75 %, recall 91.54 %, F1 91.65 %, quantity 95.61 % (3117/3260).
 // Raise them as the parser gets better; never lower them for the same corpus.
-const MIN_PRECISION = 0.9121;
-const MIN_RECALL = 0.9095;
-const MIN_F1 = 0.9108;
-const MIN_QUANTITY = 0.9555;
+const MIN_PRECISION = 0.9175;
+const MIN_RECALL = 0.9154;
+const MIN_F1 = 0.9165;
+const MIN_QUANTITY = 0.9561;
 
 describe('report parser corpus', () => {
   let run: BatchRun;

@@ -1,8 +1,9 @@
-import { DEFAULT_VISIT_KEY, itemStateAfter, PRICING_ITEM_STATES, type Confidence, type FindingCode, type ItemStatus, type LineItem, type PricingFields, type Room, type Severity } from '@cc/shared';
+import { DEFAULT_VISIT_KEY, itemStateAfter, type HouseCode, type NecEdition, PRICING_ITEM_STATES, type Confidence, type FindingCode, type ItemStatus, type LineItem, type PricingFields, type Room, type Severity } from '@cc/shared';
 import type pg from 'pg';
 import type { Db, Trx } from '../db/knex';
-import { readPrepared, runStatement, type Statement } from '../db/read-pool';
+import { readPrepared, runStatement, StatementParams, type Statement } from '../db/read-pool';
 import type { LineItemRow } from '../db/tables';
+import { visibleTo, type Viewer } from '../requests/request.repository';
 
 const TABLE = 'line_items';
 
@@ -108,6 +109,44 @@ export class LineItemRepository {
     return {
       text: `SELECT * FROM ${TABLE} WHERE request_id = $1 AND status <> $2 ORDER BY report_file_id NULLS LAST, evidence_start NULLS LAST, id`,
       values: [requestId, REMOVED],
+    };
+  }
+
+  /**
+   * A request's items as the item list sends them, in one statement that also checks that `viewer`
+   * may see the request (null when not: the caller answers 404) and reads what its edition notes
+   * depend on (the house). Each item comes as the JSON of a LineItem without its note, written by
+   * PostgreSQL in toLineItem's shape (an API test compares the two), with its code and room beside
+   * it for the note's key.
+   */
+  async listVisibleAsJson(viewer: Viewer, requestId: number): Promise<{ house: HouseCode; items: { json: string; code: string; room: string }[] } | null> {
+    type Row = { year_built: number; nec_edition: number; json: string | null; code: string | null; room: string | null };
+    const statement = this.listVisibleAsJsonStatement(viewer, requestId);
+    const rows = this.readPool ? await readPrepared<Row>(this.readPool, statement) : await runStatement<Row>(this.db, statement);
+    if (!rows.length) return null;
+    const house: HouseCode = { yearBuilt: rows[0].year_built, necEdition: rows[0].nec_edition as NecEdition };
+    const items = rows[0].json === null ? [] : rows.map((r) => ({ json: r.json!, code: r.code!, room: r.room! }));
+    return { house, items };
+  }
+
+  /** The statement behind `listVisibleAsJson` (its plan is checked in the API tests). */
+  listVisibleAsJsonStatement(viewer: Viewer, requestId: number): Statement {
+    const p = new StatementParams();
+    const id = p.add(requestId);
+    const visible = visibleTo(viewer, (value) => p.add(value));
+    return {
+      text: `SELECT r.year_built, r.nec_edition, x.code, x.room, row_to_json(x)::text AS json
+        FROM repair_requests r
+        LEFT JOIN LATERAL (
+          SELECT i.id AS "id", i.request_id AS "requestId", i.code AS "code", i.room AS "room", coalesce(i.location, '') AS "location",
+                 i.quantity AS "quantity", i.evidence AS "evidence", i.page AS "page", i.report_file_id AS "reportFileId",
+                 i.evidence_start AS "evidenceStart", i.evidence_end AS "evidenceEnd", i.severity AS "severity", i.nec_refs AS "necRefs",
+                 i.status AS "status", i.is_edited AS "isEdited", i.version AS "version", i.confidence AS "confidence",
+                 i.recommendation AS "recommendation", i.computation AS "computation"
+          FROM ${TABLE} i WHERE i.request_id = r.id AND i.status <> ${p.add(REMOVED)}) AS x ON true
+        WHERE r.id = ${id}${visible ? ` AND ${visible}` : ''}
+        ORDER BY x."reportFileId" NULLS LAST, x."evidenceStart" NULLS LAST, x.id`,
+      values: p.values,
     };
   }
 

@@ -3,6 +3,7 @@ import { ConfirmItemsSchema, CreateLineItemSchema, MergeLineItemsSchema, SplitLi
 import type { RouterDeps } from '../http/router-deps';
 import { requireUser, userOf } from '../http/require-user';
 import { idParam } from '../http/params';
+import { sendJsonText } from '../http/json-text';
 
 
 /** Line items of one request: /api/requests/:id/items */
@@ -12,7 +13,7 @@ export function createLineItemsRouter({ services }: RouterDeps): Router {
   router.use(requireUser);
 
   router.get('/', async (req, res) => {
-    res.json(await lineItems.list(userOf(req), idParam(req)));
+    sendJsonText(res, await lineItems.list(userOf(req), idParam(req)));
   });
 
   router.post('/', async (req, res) => {

@@ -1,7 +1,6 @@
 import {
   editionNote,
   editionNoteKey,
-  toLineItemList,
   type LineItemList,
   findingCodeInfo,
   itemMove,
@@ -23,7 +22,8 @@ import { ConflictError, NotFoundError, ValidationError } from '../errors';
 import { assertMayAct, moverOn, type FlowService, type Mover } from '../flow/flow.service';
 import type { ActivityRepository } from '../activity/activity.repository';
 import { recordItemChange } from '../activity/item-activity';
-import type { RequestsService } from '../requests/requests.service';
+import { viewerOf, type RequestsService } from '../requests/requests.service';
+import { JsonText } from '../http/json-text';
 
 const STALE = 'This item was changed by someone else meanwhile. Reload to see the current version.';
 const REVIEW_REFUSED = { notYours: "Only the request's agents can do this", notNow: 'The items of this request are confirmed already' };
@@ -45,9 +45,27 @@ export class LineItemsService {
     return { ...item, editionNote: editionNote(item.code, item.room, house) };
   }
 
-  /** The request's items as the item list sends them: each distinct edition note once (LineItemList). */
-  async list(user: CurrentUser, requestId: number): Promise<LineItemList> {
-    return toLineItemList(await this.listItems(user, requestId));
+  /**
+   * The request's items as the item list sends them (LineItemList: each distinct edition note once),
+   * as JSON text: the items come written by PostgreSQL with the access check in the same statement,
+   * and each gets the key of its note (made here, once per code and room).
+   */
+  async list(user: CurrentUser, requestId: number): Promise<JsonText<LineItemList>> {
+    const found = await this.items.listVisibleAsJson(viewerOf(user), requestId);
+    if (!found) throw new NotFoundError('No such repair request');
+    const notes = new Map<string, LineItem['editionNote']>();
+    const items = found.items.map(({ json, code, room }) => {
+      const key = editionNoteKey({ code: code as LineItem['code'], room: room as LineItem['room'] });
+      let note = notes.get(key);
+      if (note === undefined) {
+        note = editionNote(code, room, found.house);
+        notes.set(key, note);
+      }
+      // The item's JSON object with one more member: the key of its note (null without one).
+      return `${json.slice(0, -1)},"editionNoteKey":${note === null ? 'null' : JSON.stringify(key)}}`;
+    });
+    const editionNotes = Object.fromEntries([...notes].filter((entry): entry is [string, NonNullable<LineItem['editionNote']>] => entry[1] !== null));
+    return new JsonText(`{"items":[${items.join(',')}],"editionNotes":${JSON.stringify(editionNotes)}}`);
   }
 
   /** The request's items, each with its note; the note of one code and room is made once. */

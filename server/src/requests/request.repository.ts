@@ -2,6 +2,8 @@ import type { Knex } from 'knex';
 import {
   itemStateAfter,
   requestReference,
+  REQUEST_REFERENCE_DIGITS,
+  REQUEST_REFERENCE_PREFIX,
   type HouseCode,
   type NecEdition,
   type PartyRole,
@@ -166,9 +168,10 @@ function toSummary(row: SummaryRow): RepairRequestSummary {
 /**
  * Which requests `viewer` is party to, as a condition on `repair_requests as r` (null: every
  * request, for the administrator); `param` writes a value's placeholder. Lists read the same
- * parties through request_viewers (listStatement).
+ * parties through request_viewers (listStatement); a request's items check it in their own
+ * statement (LineItemRepository.listVisibleAsJson).
  */
-function visibleTo(viewer: Viewer, param: (value: number) => string): string | null {
+export function visibleTo(viewer: Viewer, param: (value: number) => string): string | null {
   if (viewer.role === 'admin') return null;
   if (viewer.role === 'contractor') return `r.contractor_organisation_id = ${param(viewer.organisationId ?? -1)}`;
   return `EXISTS (SELECT 1 FROM request_parties p WHERE p.request_id = r.id AND p.user_id = ${param(viewer.id)})`;
@@ -210,27 +213,20 @@ export class RequestRepository {
    * for those rows only, and the total is counted no further than the cap + 1 rows (then
    * `isTotalCapped`). `hasMore`: a row follows the page. Prepared once per connection with one
    * plan for every viewer and page.
+   *
+   * The page's summaries come back as JSON text written by PostgreSQL (`itemsJson`, an array of
+   * RepairRequestSummary): the server sends it on as it is, instead of parsing every row and
+   * writing it as JSON again. `lastAtRisk` is the last closing date at which open work is at risk
+   * today (`lastAtRiskClosingDate`, shared), which sets each summary's `isAtRisk`.
    */
-  async list(viewer: Viewer, filter: RequestListFilter): Promise<{ items: RepairRequestSummary[]; total: number; isTotalCapped: boolean; lastKey: ListKey | null; hasMore: boolean }> {
-    const statement = this.listStatement(viewer, filter);
-    type Row = SummaryRow & { n: string; ord: string | null; sort_key: string | null };
-    const rows = this.readPool ? await readPrepared<Row>(this.readPool, statement) : await runStatement<Row>(this.db, statement);
-    const counted = Number(rows[0]?.n ?? 0);
+  async list(viewer: Viewer, filter: RequestListFilter, lastAtRisk: string): Promise<{ itemsJson: string; total: number; isTotalCapped: boolean; lastKey: ListKey | null; hasMore: boolean }> {
+    const statement = this.listStatement(viewer, filter, lastAtRisk);
+    type Row = { n: string; items: string | null; last_sort_key: string | null; last_id: number | null; has_more: boolean | null };
+    const [row] = this.readPool ? await readPrepared<Row>(this.readPool, statement) : await runStatement<Row>(this.db, statement);
+    const counted = Number(row.n);
     const cap = filter.text ? this.countCaps.search : this.countCaps.list;
-    const items: RepairRequestSummary[] = [];
-    let lastKey: ListKey | null = null;
-    let hasMore = false;
-    for (const row of rows) {
-      if (row.ord === null) continue;
-      // The statement reads one row past the page (without its summary) to tell whether more follow.
-      if (Number(row.ord) > filter.pageSize) {
-        hasMore = true;
-        continue;
-      }
-      items.push(toSummary(row));
-      lastKey = { sortKey: row.sort_key ?? '', id: row.id };
-    }
-    return { items, total: Math.min(counted, cap), isTotalCapped: counted > cap, lastKey, hasMore };
+    const lastKey = row.last_id === null ? null : { sortKey: row.last_sort_key ?? '', id: row.last_id };
+    return { itemsJson: row.items ?? '[]', total: Math.min(counted, cap), isTotalCapped: counted > cap, lastKey, hasMore: row.has_more === true };
   }
 
   /**
@@ -242,7 +238,7 @@ export class RequestRepository {
    * the request's sort and filter columns) for the people named on requests, and from
    * repair_requests (`r`) for contractors and administrators.
    */
-  listStatement(viewer: Viewer, filter: RequestListFilter): Statement {
+  listStatement(viewer: Viewer, filter: RequestListFilter, lastAtRisk: string): Statement {
     const p = new StatementParams();
     const isNamed = viewer.role !== 'admin' && viewer.role !== 'contractor';
     const key = isNamed ? 'v' : 'r';
@@ -275,15 +271,8 @@ export class RequestRepository {
     const offset = p.add(after ? 0 : filter.page * filter.pageSize);
     const pageLimit = `LIMIT ${p.add(filter.pageSize + 1)} OFFSET ${offset}`;
     const cap = matched ? this.countCaps.search : this.countCaps.list;
-    // The page's rows are read row by row through the primary key whatever the page size (OFFSET 0
-    // keeps it a nested loop, also in a plan made once for any page), and the contractor's name by
-    // its key (a join here was planned as a hash of every organisation per row).
-    const summaries = `SELECT counted.n, page_ids.ord, page_ids.sort_key, ${SUMMARY_COLUMNS.map((c) => `r.${c}`).join(', ')},
-          (SELECT o.name FROM organisations o WHERE o.id = r.contractor_organisation_id) AS contractor_name,
-          ic.item_count, ic.open_work_count
-        FROM counted`;
     if (!matched) {
-      return this.withSummaries(p, filter, summaries, `WITH page_ids AS (
+      return this.withSummaries(p, filter, lastAtRisk, `WITH page_ids AS (
           SELECT ${id} AS id, ${sort}::text AS sort_key, row_number() OVER (ORDER BY ${order}) - ${offset} AS ord FROM ${table}${where(pageConditions)}
           ORDER BY ${order} ${pageLimit}),
         counted AS (SELECT count(*) AS n FROM (SELECT 1 FROM ${table}${where(conditions)} LIMIT ${p.add(cap + 1)}) AS c)`);
@@ -300,7 +289,7 @@ export class RequestRepository {
     const afterMatch = filter.after ? `(m.sort_key, m.id) ${dir === 'DESC' ? '<' : '>'} (CAST(${p.add(filter.after.sortKey)} AS ${SORT_TYPES[filter.sort]}), ${p.add(filter.after.id)})` : null;
     const isFew = `(SELECT n FROM counted) <= ${p.add(cap)}`;
     const orderIn = (alias: string) => `${alias}.sort_key ${dir}, ${alias}.id ${dir}`;
-    return this.withSummaries(p, filter, summaries, `WITH matches AS MATERIALIZED (
+    return this.withSummaries(p, filter, lastAtRisk, `WITH matches AS MATERIALIZED (
           SELECT ${id} AS id, ${sort} AS sort_key FROM ${table}${where([...conditions, matched])} LIMIT ${p.add(cap + 1)}),
         counted AS (SELECT count(*) AS n FROM matches),
         found AS (
@@ -311,15 +300,40 @@ export class RequestRepository {
         page_ids AS (SELECT f.id, f.sort_key::text AS sort_key, row_number() OVER (ORDER BY ${orderIn('f')}) AS ord FROM found f)`);
   }
 
-  /** The rest of `listStatement` after its CTEs: each page row's summary, read by key. */
-  private withSummaries(p: StatementParams, filter: RequestListFilter, summaries: string, ctes: string): Statement {
+  /**
+   * The rest of `listStatement` after its CTEs: the page as one row. Each page row's summary is read
+   * by key (the request row by row through the primary key whatever the page size: OFFSET 0 keeps it
+   * a nested loop, also in a plan made once for any page; the contractor's name by its key, as a
+   * join here was planned as a hash of every organisation per row) and written as JSON in the
+   * shape of RepairRequestSummary, in the page's order; beside it the count, the last row's sort
+   * key and id (for the cursor) and whether a row follows the page.
+   */
+  private withSummaries(p: StatementParams, filter: RequestListFilter, lastAtRisk: string, ctes: string): Statement {
+    const pageSize = p.add(filter.pageSize);
+    const onPage = `page_ids.ord <= ${pageSize}`;
+    // As toSummary and RequestsService.withRisk write a summary (an API test compares the two).
+    const isoTime = (column: string) => `to_char(r.${column} AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`;
+    const summary = `SELECT r.id AS "id",
+          '${REQUEST_REFERENCE_PREFIX}' || lpad(r.id::text, greatest(${REQUEST_REFERENCE_DIGITS}, length(r.id::text)), '0') AS "reference",
+          r.street AS "street", r.city AS "city", r.state AS "state", r.zip AS "zip", r.year_built AS "yearBuilt",
+          r.closing_date AS "closingDate", r.nec_edition AS "necEdition", r.status AS "status",
+          (SELECT o.name FROM organisations o WHERE o.id = r.contractor_organisation_id) AS "contractorName",
+          ic.item_count AS "itemCount", ic.open_work_count AS "openWorkCount",
+          (ic.open_work_count > 0 AND r.closing_date <= CAST(${p.add(lastAtRisk)} AS date)) AS "isAtRisk",
+          ${isoTime('created_at')} AS "createdAt", ${isoTime('updated_at')} AS "updatedAt"`;
     return {
       text: `${ctes}
-        ${summaries}
+        SELECT counted.n,
+          (json_agg(s ORDER BY page_ids.ord) FILTER (WHERE ${onPage}))::text AS items,
+          (array_agg(page_ids.sort_key ORDER BY page_ids.ord DESC) FILTER (WHERE ${onPage}))[1] AS last_sort_key,
+          (array_agg(page_ids.id ORDER BY page_ids.ord DESC) FILTER (WHERE ${onPage}))[1] AS last_id,
+          bool_or(page_ids.ord > ${pageSize}) AS has_more
+        FROM counted
         LEFT JOIN page_ids ON true
-        LEFT JOIN LATERAL (SELECT ${SUMMARY_COLUMNS.join(', ')}, contractor_organisation_id, item_status_counts FROM repair_requests WHERE id = page_ids.id AND page_ids.ord <= ${p.add(filter.pageSize)} OFFSET 0) AS r ON true
+        LEFT JOIN LATERAL (SELECT ${SUMMARY_COLUMNS.join(', ')}, contractor_organisation_id, item_status_counts FROM repair_requests WHERE id = page_ids.id AND ${onPage} OFFSET 0) AS r ON true
         LEFT JOIN LATERAL (${itemCountsIn(p)}) AS ic ON true
-        ORDER BY page_ids.ord`,
+        LEFT JOIN LATERAL (${summary}) AS s ON true
+        GROUP BY counted.n`,
       values: p.values,
     };
   }

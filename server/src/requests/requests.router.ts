@@ -8,6 +8,7 @@ import {
 import type { RouterDeps } from '../http/router-deps';
 import { requireRole, requireUser, userOf } from '../http/require-user';
 import { idParam } from '../http/params';
+import { sendJsonText } from '../http/json-text';
 
 export function createRequestsRouter({ services }: RouterDeps): Router {
   const { requests } = services;
@@ -15,7 +16,7 @@ export function createRequestsRouter({ services }: RouterDeps): Router {
   router.use(requireUser);
 
   router.get('/', async (req, res) => {
-    res.json(await requests.list(userOf(req), RepairRequestListQuerySchema.parse(req.query)));
+    sendJsonText(res, await requests.list(userOf(req), RepairRequestListQuerySchema.parse(req.query)));
   });
 
   router.post('/', requireRole('agent', 'admin'), async (req, res) => {

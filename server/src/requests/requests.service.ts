@@ -2,6 +2,7 @@ import { randomBytes } from 'node:crypto';
 import {
   actorsOf,
   closingProgress,
+  lastAtRiskClosingDate,
   PARTY_ROLE_LABELS,
   defaultNecEdition,
   REQUEST_ACTIONS,
@@ -27,6 +28,7 @@ import { decodeCursor, encodeCursor } from './list-cursor';
 import type { RequestRepository } from './request.repository';
 import type { UserRepository } from '../auth/user.repository';
 import { NotFoundError, ValidationError } from '../errors';
+import { JsonText } from '../http/json-text';
 import { assertMayAct, assertMayMoveRequest, moverOn, type FlowService } from '../flow/flow.service';
 import type { ActivityRepository } from '../activity/activity.repository';
 import type { NotificationsService } from '../notifications/notifications.service';
@@ -60,21 +62,31 @@ export class RequestsService {
     return { ...summary, isAtRisk };
   }
 
-  async list(user: CurrentUser, query: z.output<typeof RepairRequestListQuerySchema>): Promise<Page<RepairRequestSummary>> {
-    const { items, total, isTotalCapped, lastKey, hasMore } = await this.requests.list(viewerOf(user), {
-      page: query.page,
-      pageSize: query.pageSize,
-      sort: query.sort,
-      direction: query.direction,
-      statuses: query.status,
-      text: query.q,
-      id: query.q ? parseRequestReference(query.q) : null,
-      builtBefore: query.builtBefore ?? null,
-      after: query.after ? decodeCursor(query.after, query.sort, query.direction) : null,
-    });
+  /**
+   * A page of the requests `user` may see, as the JSON text of a Page<RepairRequestSummary>: the
+   * summaries come written by PostgreSQL (RequestRepository.list) and are sent on as they are.
+   */
+  async list(user: CurrentUser, query: z.output<typeof RepairRequestListQuerySchema>): Promise<JsonText<Page<RepairRequestSummary>>> {
     const today = new Date().toISOString().slice(0, 10);
+    const { itemsJson, total, isTotalCapped, lastKey, hasMore } = await this.requests.list(
+      viewerOf(user),
+      {
+        page: query.page,
+        pageSize: query.pageSize,
+        sort: query.sort,
+        direction: query.direction,
+        statuses: query.status,
+        text: query.q,
+        id: query.q ? parseRequestReference(query.q) : null,
+        builtBefore: query.builtBefore ?? null,
+        after: query.after ? decodeCursor(query.after, query.sort, query.direction) : null,
+      },
+      lastAtRiskClosingDate(today, this.atRiskBusinessDays),
+    );
     const nextCursor = lastKey && hasMore ? encodeCursor({ ...lastKey, sort: query.sort, direction: query.direction }) : null;
-    return { items: items.map((i) => this.withRisk(i, today)), total, isTotalCapped, page: query.page, pageSize: query.pageSize, nextCursor };
+    return new JsonText(
+      `{"items":${itemsJson},"total":${total},"isTotalCapped":${isTotalCapped},"page":${query.page},"pageSize":${query.pageSize},"nextCursor":${JSON.stringify(nextCursor)}}`,
+    );
   }
 
   /** The build year and adopted edition of a request `user` may see (for code notes); 404 otherwise. */

@@ -7,6 +7,7 @@ import type { FindingCode } from './finding-code';
 import { sourceRange, type MappedText } from './mapped-text';
 import { negatedSpans } from './negation-detector';
 import { deviceRating, nameplateMaximum, type CarriedRatings } from './overcurrent-check';
+import { evaluationTarget } from './evaluation-target';
 import { findingQuantity, isCounted, readCount } from './quantity-reader';
 import { findRooms, type RoomMention } from './room-lexicon';
 import type { Room } from './room';
@@ -168,7 +169,8 @@ export function readBlock(text: MappedText, section: Section, rowCounts: readonl
               : own;
         // A device implied by its section at one named place ("BR2: none") is one device.
         const implied1 = counted === null && (match === implied || (match.rule.code === 'smoke-co-alarm' && ALARM_TOPIC_LABEL.test(sentence.text) && !PLURAL_PLACE_WORD.test(sentence.text))) && place.room !== 'whole-house' && !isPluralPlace(sentence.text, rooms.find((r) => r.room === place.room)?.text ?? '') ? 1 : counted;
-        const quantity = rowCount !== null && isCounted(match.rule.code) ? rowCount : implied1;
+        // The lead's decision on evaluation counts: one named device evaluated is one.
+        const quantity = match.rule.code === 'evaluate-general' ? (evaluationTarget(sentence.text, match.start)?.quantity ?? null) : rowCount !== null && isCounted(match.rule.code) ? rowCount : implied1;
         // The grounding of a service is one system: a sentence naming its parts in two places is one defect.
         const same = inSentence.find((f) => f.code === outdoorCode(match.rule.code, place.room, sentence.text) && (f.room === place.room || match.rule.panelIsPlace === true));
         if (same) continue;

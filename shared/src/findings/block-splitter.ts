@@ -4,6 +4,7 @@ import { MappedTextBuilder, sourceRange, type MappedText } from './mapped-text';
 import type { Room } from './room';
 import { scanAll } from './regex-scan';
 import { classifyHeadingLine, inlineNonElectricalLabel, SUMMARY_HEADING } from './section-heading';
+import { lineItemMarker } from './line-items';
 
 /**
  * Cuts the joined report text (pages joined with "\f") into sections and blocks. A block is one
@@ -194,7 +195,7 @@ export function splitBlocks(joined: string): Block[] {
       close();
       continue;
     }
-    const marker = ITEM_MARKER.exec(line.text);
+    const marker = ITEM_MARKER.exec(line.text) ?? lineItemMarker(line.text);
     if (marker || !builder || !prevLine) {
       // A note about the summary itself ("This summary is not the entire report") is not one of its items.
       if (summary && !SUMMARY_NOTE.test(content)) summary.hasContent = true;

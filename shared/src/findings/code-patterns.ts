@@ -293,6 +293,14 @@ export const CODE_RULES: readonly CodeRule[] = [
       // A nickname in brackets or quotes between the kind and the cover: 'no in-use ("bubble") cover'.
       { re: rx`(?:${T.NO})\s+(?:an?\s+)?(?:in[- ]use|weather[- ]?proof|wp)\s+[("'“]+\s*[\w -]{2,20}?\s*["'”)]+\s+covers?` },
       { re: rx`(?:covers?|lids?)\s+${anyGap(4)}(?:not|isn't|is not)\s+(?:an?\s+)?(?:in[- ]use|bubble|weather[- ]?proof|wp|while[- ]in[- ]use|extra[- ]duty)\b` },
+      // Ninth round (NFPA 70 (NEC) 2023, 406.9(B)(1)): the cover named by its kind with a slash or a bracketed
+      // nickname ("lack weather / in-use covers", "lacks a bubble (in-use) cover"), a lid that is gone or no
+      // longer closes, and a receptacle left open to the weather.
+      { re: rx`(?:${T.NO})\s+(?:an?\s+|the\s+)?(?:wr|wp|weather(?:[- ]?proof|[- ]resistant)?)\s*\/\s*(?:in[- ]use|bubble)\s+(?:covers?|lids?|hoods?)` },
+      { re: rx`(?:${T.NO})\s+(?:an?\s+)?(?:in[- ]use|bubble|weather[- ]?proof|wp)\s+\(\s*[\w -]{2,20}?\s*\)\s+(?:covers?|lids?|hoods?)` },
+      { re: rx`(?:(?:hinged|flip|spring(?:-loaded)?|snap)[- ]?(?:lids?|covers?)|lids?)\s+${anyGap(4)}(?:no longer|(?:does|do|will|would)\s?n[o'’]?t|won'?t|can(?:no|'|’)?t)\s+(?:close|shut|latch|stay (?:closed|shut))` },
+      { re: rx`(?:(?:hinged|flip|spring(?:-loaded)?|snap)[- ]?(?:lids?|covers?)|lids?)\s+${T.BE}(?:gone|missing|broken off|torn off)` },
+      { re: rx`${T.RCPT}\s+${anyGap(8)}(?:(?:is|are|left|sits?)\s+)?(?:open|exposed|out)\s+(?:in|to)\s+(?:the\s+)?(?:weather|rain|elements)` },
     ],
   },
   {
@@ -543,7 +551,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'switch-issue',
-    trigger: /switch|toggle|rocker|paddle|dimmer/i,
+    trigger: /switch|toggle|rocker|paddle|dimmer|\b(?:3|4|three|four)[- ]ways?\b/i,
     patterns: [
       // A switch whose purpose the inspector could not find ("a switch by the sink that I could not find a purpose for"; common practice).
       { re: rx`${T.SWITCH}\s+${anyGap(10)}(?:(?:could\s?n[o']t|can\s?n[o']t|cannot|unable to|did\s?n[o']t|was not able to)\s+(?:find|determine|identify|tell|work out|figure out)\s+(?:a|any|its|the|what)\s+(?:purpose|function|use)|(?:purpose|function)\s+(?:is\s+|was\s+|remains\s+)?(?:unknown|undetermined|not (?:known|determined|found)))` },

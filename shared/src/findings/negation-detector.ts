@@ -19,6 +19,11 @@ const CUE_AFTER = /(?:\b(?:was|were|is|are)\s+)?\bnot\s+(?:observed|found|noted|
 const LIST_JOIN = /^[\s,]*(?:(?:and|or|nor|&|\/|and\/or)[\s,]*)?$/i;
 /** A participle right after "not" that the phrase does not start with: the "not" is about it. */
 const OWN_VERB = /^\s+(?:\w+ly\s+)?(?!(?:grounded|protected|bonded|secured|supported|covered|connected|working|functioning|operating|installed|present|tripping|resetting)\b)\w+(?:ed|en)\s+\S/i;
+/**
+ * "Because we could not see inside, we recommend that an electrician evaluate the panel": a comma
+ * and a new subject between a cue and the phrase start another clause, which the cue does not reach.
+ */
+const NEW_SUBJECT_AFTER_COMMA = /,\s+(?:so\s+|and\s+|but\s+|therefore\s+)?(?:we|i|they|you|the (?:buyer|buyers|seller|sellers|inspector|client)|(?:a|an) (?:licensed |qualified )?electrician)\s+(?:would\s+|do\s+|strongly\s+)?(?:recommend|suggest|advise|ask|urge|request)\w*\b/i;
 /** Longest run of ordinary words allowed between a cue and the phrase it denies. */
 const MAX_CUE_DISTANCE = 60;
 
@@ -64,6 +69,7 @@ export function negatedSpans(text: string, spans: readonly Range[], clauses: rea
     // "not rated to carry a fan, and the fan shakes": a "not" that negates a verb of its own before
     // the phrase ("not rated", "not labeled") denies that verb, not the phrase.
     if (/^(?:not|never)$/i.test(text.slice(cue.start, cue.end)) && OWN_VERB.test(text.slice(cue.end, spans[first].start))) continue;
+    if (NEW_SUBJECT_AFTER_COMMA.test(text.slice(cue.end, spans[first].start))) continue;
     // "not one is labeled, no directory at all": "not one" counts none of them; it denies nothing after it.
     if (/^not$/i.test(text.slice(cue.start, cue.end)) && /^\s+(?:one|a single)\b/i.test(text.slice(cue.end))) continue;
     negated[first] = true;

@@ -1,5 +1,6 @@
 import { clauseIndexAt, type Range } from './clause-splitter';
 import type { CodeMatch } from './code-matcher';
+import { evaluationTarget } from './evaluation-target';
 import { findRooms } from './room-lexicon';
 import type { Room } from './room';
 import type { Placement } from './room-resolver';
@@ -38,6 +39,23 @@ const OUTDOOR_DISCONNECT =
   /\b(?:fused\s+|pull-?out\s+|non-fused\s+|(?:a\/?c|ac|condenser|heat pump|hp|pool|spa|hot tub|pump)\s+)(?:disconnect|disconect|disc\b\.?)|\b(?:disconnect|disconect)\s+(?:box\s+)?(?:beside|next to|at|by|near|on)\s+(?:the\s+)?(?:[\w-]+\s+){0,2}(?:unit|condenser|compressor|heat pump|pool|spa|hot tub|pad|patio|pump)\b/i;
 /** A disconnect that is the service's or a panel's (those devices are at the panel). */
 const PANEL_DISCONNECT = /\b(?:main|service)\s+(?:disconnect|disc\b)|\b(?:in|at)\s+(?:the\s+)?(?:main\s+|distribution\s+|electrical\s+)?(?:sub-?\s?)?pan+el\b/i;
+
+/**
+ * Ninth round: a disconnect named without saying whose ("the disconnect", "Disconnect on the wall", "DISCO")
+ * next to an appliance that stands outdoors, and a generator's own breaker (standby and portable
+ * generators stand outside; common practice).
+ */
+const BARE_DISCONNECT = /(?<!\b(?:main|service|utility)\s)\b(?:disconnect|disconect|disco)\b(?!\s+(?:switch\s+)?(?:in|at)\s+(?:the\s+)?(?:main\s+)?pan+el)/i;
+const OUTDOOR_APPLIANCE = /\b(?:hot tub|spa|pool(?: pump)?|condenser|heat pump|a\/c unit|compressor)\b/i;
+const GENERATOR_BREAKER =
+  /\bgenerator(?:'s|s)?\s+(?:own\s+)?(?:output\s+|main\s+|built-in\s+)?(?:circuit\s+)?breaker\b|\bbreaker\s+(?:on|in|at)\s+(?:the\s+)?generator\b/i;
+
+/** Whether an oversized device is in a disconnect the sentence or the one before puts beside an outdoor appliance, or is a generator's own. */
+export function inOutdoorEquipment(sentence: string, previous: string): boolean {
+  if (GENERATOR_BREAKER.test(sentence)) return true;
+  const both = `${previous}\n${sentence}`;
+  return BARE_DISCONNECT.test(both) && OUTDOOR_APPLIANCE.test(both) && !PANEL_DISCONNECT.test(sentence);
+}
 
 /** An alarm stated for the house as a whole ("no CO alarm anywhere in the house", "none in the cabin at all"). */
 const HOUSE_WIDE_ALARM =
@@ -96,8 +114,13 @@ export function applyRoomConventions(
         return room ? { ...p, room } : p;
       });
     }
-    if (code === 'overcurrent-mismatch' && inOutdoorDisconnect(text, context.previousText)) {
+    if (code === 'overcurrent-mismatch' && (inOutdoorDisconnect(text, context.previousText) || inOutdoorEquipment(text, context.previousText))) {
       return places.map((p) => (p.room === 'panel' ? { ...p, room: 'exterior' as Room } : p));
+    }
+    // Every weather-cover label of the corpus (127) is outside: the cover is for a wet location (NFPA 70 (NEC) 2023, 406.9(B)).
+    if (code === 'weather-cover-missing') return places.map((p) => (p.room === 'exterior' ? p : { ...p, room: 'exterior' as Room }));
+    if (code === 'evaluate-general' && evaluationTarget(text, match.start)?.isPanel === true) {
+      return places.map((p) => ({ ...p, room: 'panel' as Room }));
     }
     if (code === 'smoke-co-alarm' && places.length === 1 && alarmIsHouseWide(clauseOf(text, clauses, match.start), context.sectionRoom, places[0].room)) {
       return [{ ...places[0], room: 'whole-house' as Room, location: '' }];

@@ -1,4 +1,4 @@
-import { businessDaysBetween, closingProgress } from './closing-progress';
+import { businessDaysBetween, closingProgress, lastAtRiskClosingDate } from './closing-progress';
 
 describe('businessDaysBetween', () => {
   it('counts Monday to Friday only (2026-12-04 is a Friday)', () => {
@@ -41,5 +41,29 @@ describe('closingProgress', () => {
 
   it('never flags a request whose approved items all have an outcome', () => {
     expect(closingProgress({ ...base, closingDate: '2026-12-02', resolvedCount: 3 }).isAtRisk).toBe(false);
+  });
+});
+
+describe('lastAtRiskClosingDate', () => {
+  it('is the last closing date at risk (2026-12-01 is a Tuesday: three business days reach Friday, and the weekend after it)', () => {
+    expect(lastAtRiskClosingDate('2026-12-01', 3)).toBe('2026-12-06');
+    expect(lastAtRiskClosingDate('2026-12-04', 0)).toBe('2026-12-06');
+    expect(lastAtRiskClosingDate('2026-12-05', 1)).toBe('2026-12-07');
+  });
+
+  it('splits closing dates exactly as closingProgress flags open work (every weekday of two weeks, every setting 0-30, closings a year either side)', () => {
+    for (let start = 0; start < 14; start++) {
+      const today = new Date(Date.UTC(2026, 11, 1 + start)).toISOString().slice(0, 10);
+      for (let days = 0; days <= 30; days++) {
+        const last = lastAtRiskClosingDate(today, days);
+        for (let offset = -366; offset <= 366; offset++) {
+          const closingDate = new Date(Date.UTC(2026, 11, 1 + start + offset)).toISOString().slice(0, 10);
+          const { isAtRisk } = closingProgress({ closingDate, today, approvedCount: 1, resolvedCount: 0, atRiskBusinessDays: days });
+          if (isAtRisk !== closingDate <= last) throw new Error(`${today}, ${days} days, closing ${closingDate}: ${isAtRisk} but last at risk ${last}`);
+        }
+      }
+    }
+    // Monday 2026-12-14: thirty business days are six weeks, to Monday 2027-01-25.
+    expect(lastAtRiskClosingDate('2026-12-14', 30)).toBe('2027-01-25');
   });
 });

@@ -45,3 +45,20 @@ export function closingProgress(input: { closingDate: string; today: string; app
     isAtRisk: hasOpenWork && businessDaysLeft <= input.atRiskBusinessDays,
   };
 }
+
+/**
+ * The latest closing date at which open approved work is at risk today: for open work,
+ * `closingProgress(...).isAtRisk` holds exactly when the closing date is on or before this date
+ * (business days to closing never fall as the closing date moves later). Lists compare each row's
+ * closing date with it instead of counting business days per row.
+ */
+export function lastAtRiskClosingDate(today: string, atRiskBusinessDays: number): string {
+  const isAtRisk = (ms: number) => businessDaysBetween(today, new Date(ms).toISOString().slice(0, 10)) <= atRiskBusinessDays;
+  let day = Date.parse(`${today}T00:00:00Z`);
+  if (isAtRisk(day)) {
+    while (isAtRisk(day + MS_PER_DAY)) day += MS_PER_DAY;
+  } else {
+    while (!isAtRisk(day)) day -= MS_PER_DAY;
+  }
+  return new Date(day).toISOString().slice(0, 10);
+}
