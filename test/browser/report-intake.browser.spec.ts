@@ -30,7 +30,7 @@ const TEXT_REPORT = [
 const UNITEMISED_REPORT = [
   'Section 7 - Electrical',
   '7.1 Two receptacles in the primary bathroom are not GFCI protected.',
-  '7.2 The receptacle behind the washer in the laundry room sparks when a plug is inserted.',
+  '7.2 The receptacle behind the washer in the laundry room makes a popping sound when a plug is inserted.',
 ].join('\n');
 
 let browser: Browser;
@@ -220,7 +220,7 @@ describe('a buyer’s agent takes in an inspection report', () => {
     await page.getByTestId('review-item-row').first().waitFor();
 
     // The washer receptacle passage is listed with the reader's guess, one click from an item.
-    const passage = page.getByTestId('unitemised-passage').filter({ hasText: 'sparks when a plug is inserted' });
+    const passage = page.getByTestId('unitemised-passage').filter({ hasText: 'makes a popping sound when a plug is inserted' });
     await passage.waitFor();
     const add = passage.getByTestId('unitemised-add');
     expect(await add.textContent()).toContain('Laundry');
@@ -233,7 +233,7 @@ describe('a buyer’s agent takes in an inspection report', () => {
     expect(await page.getByTestId('review-confirm').textContent()).toContain('Confirm 2 items');
     expect(await page.getByTestId('review-item-room').allTextContents()).toContain('Laundry');
     // The new item is anchored to the passage: its text is highlighted in the report.
-    expect(await page.getByTestId('evidence-mark').filter({ hasText: 'sparks when a plug is inserted' }).count()).toBe(1);
+    expect(await page.getByTestId('evidence-mark').filter({ hasText: 'makes a popping sound when a plug is inserted' }).count()).toBe(1);
     // …and no longer listed as not itemised.
     await passage.waitFor({ state: 'detached' });
     expect(existsSync(await screenshot(page, 'intake-unitemised-added'))).toBe(true);

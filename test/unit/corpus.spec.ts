@@ -24,6 +24,8 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // 91.77 %, recall 91.12 %, F1 91.44 %, quantity 95.62 % (3103/3245).
 // Raised after device and condition composition joined the ninth round's parser to the exact
 // figures rounded down: precision 91.75 %, recall 91.54 %, F1 91.65 %, quantity 95.61 % (3117/3260).
+// The precision floor went 0.02 points down for recall +0.4 and F1 +0.2 on the same corpus: the lead's
+// decision (F1 is the goal; sealed K moved 74.8 -> 75.5 % with no extra finding), not a precedent.
 // Raise them as the parser gets better; never lower them for the same corpus.
 const MIN_PRECISION = 0.9175;
 const MIN_RECALL = 0.9154;
