@@ -13,7 +13,7 @@ import { EvidenceView } from '../evidence-view/evidence-view';
 import { TextSelection } from '../evidence-view/selection-offsets';
 import { IntakeApi } from '../intake-api';
 import { ItemEditData, ItemEditDialog } from '../item-edit-dialog/item-edit-dialog';
-import { ItemTable } from '../item-table/item-table';
+import { isLowConfidence, ItemTable } from '../item-table/item-table';
 import { conflictMessage, ReviewOutcome } from '../review-outcome';
 import { SplitData, SplitDialog } from '../split-dialog/split-dialog';
 import { UnitemisedText } from '../unitemised-text/unitemised-text';
@@ -55,7 +55,7 @@ export class ItemReview {
   protected readonly proposed = computed(() => this.items().filter((i) => i.status === 'proposed'));
   /** Items the reader is less sure of come first (inferred, then composed, then read from shorthand), otherwise report order. */
   protected readonly ordered = computed(() => orderByConfidence(this.items()));
-  protected readonly lowConfidenceCount = computed(() => this.proposed().filter((i) => i.confidence === 'inferred' || i.confidence === 'composed').length);
+  protected readonly lowConfidenceCount = computed(() => this.proposed().filter((i) => isLowConfidence(i.confidence)).length);
   protected readonly activeItemId = signal<number | null>(null);
   /** Ticked items (for a merge); only ids still in the list count. */
   protected readonly selectedIds = linkedSignal<LineItem[], ReadonlySet<number>>({

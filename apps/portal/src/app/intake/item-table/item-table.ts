@@ -27,6 +27,11 @@ const CONFIDENCE_MARKS: Partial<Record<Confidence, { label: string; explanation:
   },
 };
 
+/** Whether an item rests on something less than a phrase of the report (marked "Check" and listed first). */
+export function isLowConfidence(confidence: Confidence | null | undefined): boolean {
+  return confidence ? (CONFIDENCE_MARKS[confidence]?.isLow ?? false) : false;
+}
+
 /** The proposed items under review, one row each, with their actions. */
 @Component({
   selector: 'cc-item-table',
