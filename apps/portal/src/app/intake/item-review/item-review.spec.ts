@@ -239,4 +239,23 @@ describe('ItemReview', () => {
     expect(confirmed).toEqual([]);
     expect(changes).toBe(1);
   });
+  it('lists the items resting on context or on a device and its condition first, marks them "Check" and counts them', async () => {
+    const [gfci, polarity, box] = proposedItems();
+    fixture.componentRef.setInput('items', [
+      { ...gfci, confidence: 'exact' },
+      { ...polarity, confidence: 'composed' },
+      { ...box, confidence: 'inferred' },
+    ]);
+    await fixture.whenStable();
+    const table = await loader.getHarness(MatTableHarness);
+    expect((await table.getCellTextByColumnName())['room'].text).toEqual(['Garage', 'Bedroom', 'Kitchen']);
+    const labels = Array.from(host().querySelectorAll('[data-testid="review-item-confidence"]')).map((m) => m.textContent?.trim());
+    expect(labels).toEqual([expect.stringMatching(/Check: inferred$/), expect.stringMatching(/Check: device and condition$/)]);
+    expect(host().querySelector('[data-testid="review-low-confidence"]')?.textContent).toContain('2 items rest on context or on a device and its condition');
+
+    fixture.componentRef.setInput('items', [{ ...gfci, confidence: 'exact' }, { ...polarity, confidence: 'normalised' }]);
+    await fixture.whenStable();
+    expect(host().querySelector('[data-testid="review-low-confidence"]')).toBeNull();
+    expect(Array.from(host().querySelectorAll('[data-testid="review-item-confidence"]')).map((m) => m.textContent)).toEqual([expect.stringContaining('Read from shorthand')]);
+  });
 });
