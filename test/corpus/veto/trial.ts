@@ -12,10 +12,6 @@
 // --mixed: as --arrival for the held-out batch, but the veto is trained on every other batch as read by
 // the parser that batch met on arrival (what a veto shipped today could be trained on: each batch's
 // untuned errors), so the model meets a parser it was not trained on, as it would on a new batch.
-import { execFileSync } from 'node:child_process';
-import { existsSync, mkdirSync } from 'node:fs';
-import { join } from 'node:path';
-import { parseReport } from '@cc/shared';
 import { BATCHES } from '../corpus-runner';
 import {
   bestThreshold,
@@ -29,6 +25,7 @@ import {
   type Parse,
   type Tally,
 } from './veto-data';
+import { ARRIVAL_PARSER, parserAt } from './arrival-parsers';
 
 function arg(name: string): string | null {
   const i = process.argv.indexOf(name);
@@ -51,25 +48,6 @@ function auc(cands: readonly Candidate[], scores: ReadonlyMap<Candidate, number>
 
 const pct = (x: number) => (100 * x).toFixed(1);
 const row = (t: Tally) => `${pct(t.precision)} / ${pct(t.recall)} / ${pct(t.f1)} | ${pct(t.quantity)} (${t.qty}/${t.tp})`;
-
-/**
- * The parser each batch met before it joined the tuning set: the commit at which it was imported (the
- * parser of that commit had never been tuned on it; docs/parser.md, the "before" row of each round).
- * The project excerpts 01-46 were written beside the parser and have no such parser.
- */
-const ARRIVAL_PARSER: ReadonlyArray<string | null> = [null, 'f59713b', 'd15c94f', '4b0c070', '31d90c0', '1775bbe', '7b1703f', '9a7da0d', '6c977b5', '5520ef6', 'f7659ed'];
-const PARSERS_DIR = join(__dirname, '..', '..', '..', 'node_modules', '.cache', 'veto', 'parsers');
-
-async function parserAt(commit: string | null): Promise<Parse> {
-  if (commit === null) return parseReport;
-  const dir = join(PARSERS_DIR, commit);
-  if (!existsSync(join(dir, 'shared'))) {
-    mkdirSync(dir, { recursive: true });
-    const tar = execFileSync('git', ['archive', commit, 'shared/src'], { maxBuffer: 1 << 28 });
-    execFileSync('tar', ['-x', '-C', dir], { input: tar });
-  }
-  return ((await import(join(dir, 'shared', 'src', 'findings', 'report-parser.ts'))) as { parseReport: Parse }).parseReport;
-}
 
 async function main(): Promise<void> {
   const mixed = process.argv.includes('--mixed');
