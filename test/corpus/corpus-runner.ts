@@ -28,6 +28,7 @@ export const BATCHES: ReadonlyArray<{ name: string; from: number; to: number }> 
   { name: 'H 801-866', from: 800, to: 899 },
   { name: 'I 901-966', from: 900, to: 999 },
   { name: 'J 1001-1066', from: 1000, to: 1099 },
+  { name: 'K 1101-1166', from: 1100, to: 1199 },
 ];
 
 /** Parses every excerpt as its manifest says and scores it against expected.json. */

@@ -26,11 +26,13 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // figures rounded down: precision 91.75 %, recall 91.54 %, F1 91.65 %, quantity 95.61 % (3117/3260).
 // The precision floor went 0.02 points down for recall +0.4 and F1 +0.2 on the same corpus: the lead's
 // decision (F1 is the goal; sealed K moved 74.8 -> 75.5 % with no extra finding), not a precedent.
+// Reset 2026-12-05 when batch K (1101-1166) joined after sealed L was scored: precision 90.31 %,
+// recall 89.92 %, F1 90.11 %, quantity 95.36 % (3378/3542), rounded down; the corpus changed, not the parser.
 // Raise them as the parser gets better; never lower them for the same corpus.
-const MIN_PRECISION = 0.9175;
-const MIN_RECALL = 0.9154;
-const MIN_F1 = 0.9165;
-const MIN_QUANTITY = 0.9561;
+const MIN_PRECISION = 0.9031;
+const MIN_RECALL = 0.8992;
+const MIN_F1 = 0.9011;
+const MIN_QUANTITY = 0.9536;
 
 describe('report parser corpus', () => {
   let run: BatchRun;
