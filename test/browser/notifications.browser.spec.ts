@@ -31,7 +31,7 @@ describe('an invitation goes out by e-mail and is in the timeline', () => {
     await page.getByTestId('request-form-street').fill('12 Quarry Bend Court');
     await page.getByTestId('request-form-city').fill('Marlow Springs');
     await page.getByTestId('request-form-state').click();
-    await page.getByRole('option', { name: 'CO', exact: true }).click();
+    await page.getByRole('option', { name: 'Colorado (CO)', exact: true }).click();
     await page.getByTestId('request-form-zip').fill('81290');
     await page.getByTestId('request-form-year-built').fill('1971');
     await page.getByTestId('request-form-closing-date').fill('2/12/2027');

@@ -31,7 +31,7 @@ describe('a buyer’s agent opens a repair request', () => {
     await page.getByTestId('request-form-street').fill('77 Juniper Switchback');
     await page.getByTestId('request-form-city').fill('Marlow Springs');
     await page.getByTestId('request-form-state').click();
-    await page.getByRole('option', { name: 'CO', exact: true }).click();
+    await page.getByRole('option', { name: 'Colorado (CO)', exact: true }).click();
     await page.getByTestId('request-form-zip').fill('81290');
     await page.getByTestId('request-form-year-built').fill('1964');
     await page.getByTestId('request-form-closing-date').fill('1/20/2027');

@@ -56,7 +56,7 @@ describe('RequestForm', () => {
   async function fillValidRequest(): Promise<void> {
     await (await input('request-form-street')).setValue('  418 Larkspur Lane ');
     await (await input('request-form-city')).setValue('Boulder');
-    await (await select('request-form-state')).clickOptions({ text: 'CO' });
+    await (await select('request-form-state')).clickOptions({ text: 'Colorado (CO)' });
     await (await input('request-form-zip')).setValue('80302');
     await (await input('request-form-year-built')).setValue('1962');
     await (await loader.getHarness(MatDatepickerInputHarness)).setValue('6/30/2026');
@@ -90,11 +90,22 @@ describe('RequestForm', () => {
     httpTesting.expectNone('/api/requests');
   });
 
+  it('lists every state by name with its USPS code and sends the code', async () => {
+    const state = await select('request-form-state');
+    await state.open();
+    const options = await state.getOptions();
+    // 50 states and the District of Columbia (USPS state abbreviations).
+    expect(options).toHaveLength(51);
+    expect(await options[5].getText()).toBe('Colorado (CO)');
+    expect(await options[8].getText()).toBe('District of Columbia (DC)');
+    await state.close();
+  });
+
   it("fills the state's usual NEC edition when the state is chosen", async () => {
-    await (await select('request-form-state')).clickOptions({ text: 'CO' });
+    await (await select('request-form-state')).clickOptions({ text: 'Colorado (CO)' });
     // Colorado's default in shared DEFAULT_NEC_EDITION_BY_STATE is 2023 (a setting, from memory).
     expect(await (await select('request-form-nec-edition')).getValueText()).toBe('NEC 2023');
-    await (await select('request-form-state')).clickOptions({ text: 'WY' });
+    await (await select('request-form-state')).clickOptions({ text: 'Wyoming (WY)' });
     // A state without an entry falls back to FALLBACK_NEC_EDITION (2020).
     expect(await (await select('request-form-nec-edition')).getValueText()).toBe('NEC 2020');
   });

@@ -14,6 +14,7 @@ import {
   NEC_EDITIONS,
   NecEdition,
   Organisation,
+  US_STATE_NAMES,
   US_STATES,
   UsState,
 } from '@cc/shared';
@@ -57,6 +58,7 @@ export class RequestForm {
   private readonly fb = inject(FormBuilder).nonNullable;
 
   protected readonly states = US_STATES;
+  protected readonly stateNames = US_STATE_NAMES;
   protected readonly editions = NEC_EDITIONS;
   /** Whether the signed-in person names the buyer's agent (administrators do; agents are it). */
   protected readonly namesBuyerAgent = computed(() => this.auth.role() === 'admin');
