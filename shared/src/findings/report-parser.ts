@@ -7,6 +7,7 @@ import { formMarks } from './form-marks';
 import { closedItemLines } from './status-lines';
 import { isComposedFinding } from './device-condition';
 import { dropCaptionRepeats } from './caption-repeats';
+import { isListItem, mergeDocument, type FindingPlace } from './document-merge';
 import { withoutClosedItems } from './item-status';
 import { findRooms } from './room-lexicon';
 import type { Room } from './room';
@@ -71,9 +72,18 @@ export function parseReport(pages: readonly string[]): ParseResult {
   const closedLines = closedItemLines(joined);
   // Findings read from a device and its condition (by index in `findings`).
   const composedHere = new Set<number>();
+  // Per finding: its block, section and whether the block is a list item (for the document-level merge).
+  const placeOf = new Map<Finding, FindingPlace>();
+  let blockIndex = -1;
+  let sectionIndex = -1;
+  let lastSection: unknown = null;
 
   for (const block of splitBlocks(joined)) {
     const { start, end } = sourceRange(block.text);
+    blockIndex++;
+    if (block.section !== lastSection) sectionIndex++;
+    lastSection = block.section;
+    const place: FindingPlace = { block: blockIndex, section: sectionIndex, listItem: isListItem(joined.slice(Math.max(joined.lastIndexOf('\n', start - 1), joined.lastIndexOf('\f', start - 1)) + 1, end)) };
     const skip = (reason: SkippedText['reason']) =>
       skipped.push({
         section: block.section.title,
@@ -124,7 +134,7 @@ export function parseReport(pages: readonly string[]): ParseResult {
       crossRef.push(isCrossReference(joined.slice(range.start, range.end)));
       isFollowUp.push(allFollowUps);
       sectionOf.push(block.section.title);
-      findings.push({
+      const finding: Finding = {
         code: f.code,
         room: f.room,
         location: f.location,
@@ -138,7 +148,9 @@ export function parseReport(pages: readonly string[]): ParseResult {
         confidence: f.confidence,
         recommendation: f.recommendations.length > 0 ? f.recommendations.map((r) => sourceText(joined, r)).join(' ') : null,
         computation: f.computation,
-      });
+      };
+      placeOf.set(finding, place);
+      findings.push(finding);
     }
   }
   const kept = dropFollowUps(findings, isFollowUp, sectionOf);
@@ -146,7 +158,9 @@ export function parseReport(pages: readonly string[]): ParseResult {
   const read = dropCaptionRepeats(mergeWiringMentions(mergeSummary(dropTitles(kept.findings, joined), kept.inSummary(summaryFlags))), joined);
   // ... or gives later for the same place (a title before its body).
   const composed = new Set([...composedHere].map((i) => findings[i]));
-  return { findings: read.filter((f) => !(composed.has(f) && read.some((g) => !composed.has(g) && g.code === f.code && g.room === f.room))), skipped };
+  const single = read.filter((f) => !(composed.has(f) && read.some((g) => !composed.has(g) && g.code === f.code && g.room === f.room)));
+  // One finding per defect across the whole report (document-merge.ts).
+  return { findings: mergeDocument(single, (f) => placeOf.get(f)), skipped };
 }
 
 /**
