@@ -28,11 +28,13 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // decision (F1 is the goal; sealed K moved 74.8 -> 75.5 % with no extra finding), not a precedent.
 // Reset 2026-12-05 when batch K (1101-1166) joined after sealed L was scored: precision 90.31 %,
 // recall 89.92 %, F1 90.11 %, quantity 95.36 % (3378/3542), rounded down; the corpus changed, not the parser.
+// Raised after the document-level merge (document-merge.ts) to the exact figures rounded down: precision
+// 91.78 %, recall 89.92 %, F1 90.84 %, quantity 95.39 % (3379/3542); 63 extra findings removed, none correct lost.
 // Raise them as the parser gets better; never lower them for the same corpus.
-const MIN_PRECISION = 0.9031;
+const MIN_PRECISION = 0.9178;
 const MIN_RECALL = 0.8992;
-const MIN_F1 = 0.9011;
-const MIN_QUANTITY = 0.9536;
+const MIN_F1 = 0.9084;
+const MIN_QUANTITY = 0.9539;
 
 describe('report parser corpus', () => {
   let run: BatchRun;
