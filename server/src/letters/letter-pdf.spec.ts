@@ -81,6 +81,21 @@ describe('renderLetterPdf', () => {
     expect(notDone).toContain(DECLINED_BY_SELLER);
     expect(notDone).not.toContain('None: every listed item was corrected');
   });
+
+  it('names each place in words once: the room as a reader says it, never its key', async () => {
+    const text = await textOf(
+      content({
+        items: [
+          { code: 'gfci-inoperative', room: 'kitchen', location: 'kitchen counter', quantity: 1, correction: correction({}) },
+          { code: 'afci-missing', room: 'living-area', location: 'FAMILY ROOM', quantity: null, correction: correction({}) },
+        ],
+      }),
+    );
+    expect(text).toContain('Kitchen counter, quantity 1');
+    expect(text).toContain('Living area, Family room');
+    expect(text).not.toMatch(/FAMILY ROOM|room, living-area/);
+    expect(text).not.toMatch(/kitchen counter, kitchen/i);
+  });
 });
 
 describe('reportReferenceOf', () => {

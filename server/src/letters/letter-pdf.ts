@@ -1,6 +1,6 @@
 import PDFDocument from 'pdfkit';
 import QRCode from 'qrcode';
-import { CORRECTION_OUTCOME_LABELS, findingCodeInfo, WORK_SAFETY_CAUTION, type Correction, type FindingCode } from '@cc/shared';
+import { CORRECTION_OUTCOME_LABELS, findingCodeInfo, placeLabel, WORK_SAFETY_CAUTION, type Correction, type FindingCode } from '@cc/shared';
 import { PDF_FONT_REGULAR, PDF_FONT_SEMIBOLD } from '../integrations/pdf/pdf-fonts';
 
 /** Everything a completion letter says, gathered by the letters service. */
@@ -120,7 +120,7 @@ export async function renderLetterPdf(letter: LetterContent): Promise<Buffer> {
     doc.end();
 
     function where(item: LetterContent['declinedItems'][number]): string {
-      return [item.location, item.room !== 'unknown' ? item.room : null, item.quantity ? `quantity ${item.quantity}` : null].filter(Boolean).join(', ');
+      return [placeLabel(item.room, item.location), item.quantity ? `quantity ${item.quantity}` : null].filter(Boolean).join(', ');
     }
 
     function writeItem(position: number, item: LetterContent['items'][number]): void {

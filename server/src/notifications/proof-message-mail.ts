@@ -1,6 +1,6 @@
 // The proof side told by e-mail (visits, outcomes, letters): each message is written with notify()
 // in the caller's transaction, so it commits or rolls back with the change.
-import { findingCodeInfo, type FindingCode } from '@cc/shared';
+import { findingCodeInfo, placeLabel, type FindingCode } from '@cc/shared';
 import type { ProofMessages } from '../work/proof-messages';
 import type { NotificationsService } from './notifications.service';
 
@@ -11,9 +11,9 @@ export function proofMessagesByMail(notifications: NotificationsService): ProofM
     },
 
     async itemCorrected(trx, { requestId, by, itemId, correctionId, outcome }) {
-      const item: { code: string; location: string | null } = await trx('line_items').where({ id: itemId }).first('code', 'location');
+      const item: { code: string; room: string; location: string | null } = await trx('line_items').where({ id: itemId }).first('code', 'room', 'location');
       const name = findingCodeInfo(item.code as FindingCode)?.label ?? `Item #${itemId}`;
-      const itemLabel = item.location ? `${name} (${item.location})` : name;
+      const itemLabel = `${name} (${placeLabel(item.room, item.location)})`;
       await notifications.notify(trx, { kind: 'item-corrected', requestId, actorUserId: by ?? null, itemId, correctionId, outcome, itemLabel });
     },
 

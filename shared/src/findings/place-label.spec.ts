@@ -1,4 +1,4 @@
-import { placeLabel } from './room';
+import { locationText, placeLabel } from './room';
 
 describe('placeLabel', () => {
   it('names the room and the location once each', () => {
@@ -18,5 +18,31 @@ describe('placeLabel', () => {
     expect(placeLabel('garage', '  ')).toBe('Garage');
     expect(placeLabel('unknown', 'rear patio')).toBe('Rear patio');
     expect(placeLabel('unknown', null)).toBe('Not stated');
+  });
+
+  it('reads a location written in capitals, as headings are, in sentence case', () => {
+    expect(placeLabel('garage', 'GARAGE')).toBe('Garage');
+    expect(placeLabel('unknown', 'REAR PATIO')).toBe('Rear patio');
+    expect(placeLabel('kitchen', 'UNIT 2B KITCHEN')).toBe('Unit 2B kitchen');
+  });
+});
+
+describe('locationText', () => {
+  it('keeps text with lower-case letters as written', () => {
+    expect(locationText('Primary bath, GFCI by the tub')).toBe('Primary bath, GFCI by the tub');
+    expect(locationText('  left of sink ')).toBe('left of sink');
+  });
+
+  it('brings capitals to sentence case but keeps words with digits and initialisms', () => {
+    expect(locationText('BASEMENT - NE CORNER')).toBe('Basement - NE corner');
+    expect(locationText('HVAC CLOSET')).toBe('HVAC closet');
+    expect(locationText('A/C CONDENSER')).toBe('A/C condenser');
+    expect(locationText('BEDROOM 3')).toBe('Bedroom 3');
+  });
+
+  it('gives an empty text for no location', () => {
+    expect(locationText(null)).toBe('');
+    expect(locationText(undefined)).toBe('');
+    expect(locationText('B')).toBe('B');
   });
 });

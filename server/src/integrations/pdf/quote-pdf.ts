@@ -27,7 +27,7 @@ export function houseAndCodeNotes(lines: readonly QuoteVersion['lines'][number][
   const byText = new Map<string, string[]>();
   for (const line of lines) {
     if (!line.editionNote) continue;
-    const name = `${line.entry?.name ?? line.code}${line.location ? ` (${line.location})` : ''}`;
+    const name = `${line.entry?.name ?? line.code} (${placeLabel(line.room, line.location)})`;
     byText.set(line.editionNote.text, [...(byText.get(line.editionNote.text) ?? []), name]);
   }
   return [...byText].map(([text, names]) => ({ items: names.join('; '), text }));

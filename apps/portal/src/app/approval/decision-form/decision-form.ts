@@ -7,7 +7,7 @@ import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { ApprovalView, DECISION_NOTE_MAX, DecisionNoteSchema, lineAmountsOf, priceScope, SignApprovalSchema } from '@cc/shared';
+import { ApprovalView, DECISION_NOTE_MAX, DecisionNoteSchema, lineAmountsOf, placeLabel, priceScope, SignApprovalSchema } from '@cc/shared';
 import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
@@ -37,6 +37,7 @@ export class DecisionForm {
   readonly signed = output<ApprovalView>();
 
   protected readonly label = codeLabel;
+  protected readonly place = placeLabel;
   protected readonly decisions = signal<Partial<Record<number, Decision>>>({});
   protected readonly noteMax = DECISION_NOTE_MAX;
   protected readonly isSending = signal(false);

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { MatTableModule } from '@angular/material/table';
-import { FINDING_CODE_TABLE, ITEM_STATUS_LABELS, LineItem } from '@cc/shared';
+import { FINDING_CODE_TABLE, ITEM_STATUS_LABELS, LineItem, locationText } from '@cc/shared';
 import { EditionNote } from '../../ui/edition-note/edition-note';
 import { ROOM_LABELS } from '../room-labels';
 
@@ -15,6 +15,7 @@ import { ROOM_LABELS } from '../room-labels';
 export class LineItemList {
   readonly items = input.required<LineItem[]>();
 
+  protected readonly where = locationText;
   protected readonly columns = ['code', 'room', 'location', 'quantity', 'status'];
 
   protected codeLabel(item: LineItem): string {

@@ -4,7 +4,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { FINDING_CODE_TABLE, LineItem, SplitLineItemSchema } from '@cc/shared';
+import { FINDING_CODE_TABLE, LineItem, placeLabel, SplitLineItemSchema } from '@cc/shared';
 import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
@@ -37,6 +37,7 @@ export class SplitDialog {
   protected readonly data = inject<SplitData>(MAT_DIALOG_DATA);
 
   protected readonly label = FINDING_CODE_TABLE[this.data.item.code].label;
+  protected readonly place = placeLabel;
   protected readonly form = inject(FormBuilder).nonNullable.group({
     quantities: [this.suggestion(), zodValidator(SplitLineItemSchema.shape.quantities, (v) => readQuantities(String(v ?? '')))],
   });

@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
-import { QuoteChanges } from '@cc/shared';
+import { locationText, QuoteChanges } from '@cc/shared';
 import { codeLabel } from '../../ui/code-label';
 import { formatCentsDelta, MoneyPipe } from '../../ui/money/money';
 
@@ -15,6 +15,7 @@ export class VersionChanges {
   readonly changes = input.required<QuoteChanges>();
 
   protected readonly label = codeLabel;
+  protected readonly where = locationText;
   protected readonly delta = formatCentsDelta;
 
   protected isEmpty(changes: QuoteChanges): boolean {

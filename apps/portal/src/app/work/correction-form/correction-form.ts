@@ -29,6 +29,7 @@ import {
   labelsApplyTo,
   missingProof,
   missingProofMessage,
+  placeLabel,
   proofReadingsFor,
 } from '@cc/shared';
 import { applyIssues } from '../../core/forms/apply-issues';
@@ -89,6 +90,7 @@ export class CorrectionForm {
   protected readonly labelOptions = CORRECTION_LABELS;
   /** The labels are offered only on the items they mark (receptacles on GFCI protection). */
   protected readonly labelsApplyTo = labelsApplyTo;
+  protected readonly place = placeLabel;
   protected readonly sizes = CONDUCTOR_SIZES;
   protected readonly kindLabels = READING_KIND_LABELS;
   /** The readings of which one proves a correction of this item (shown beside the readings). */

@@ -8,7 +8,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
 import { RouterLink } from '@angular/router';
-import { IssueLetterSchema, ProofReviewSchema, WorkOverview } from '@cc/shared';
+import { IssueLetterSchema, placeLabel, ProofReviewSchema, WorkOverview } from '@cc/shared';
 import { applyIssues } from '../../core/forms/apply-issues';
 import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { issuesOf } from '../../core/forms/issues-of';
@@ -36,6 +36,7 @@ export class LetterPanel {
   readonly changed = output<string>();
 
   protected readonly codeLabel = codeLabel;
+  protected readonly place = placeLabel;
   protected readonly isBusy = signal(false);
   protected readonly formError = signal<string | null>(null);
 

@@ -11,6 +11,7 @@ import {
   FLOW_ACTOR_LABELS,
   ITEM_STATUS_LABELS,
   movesThatApply,
+  placeLabel,
   SITE_VISIT_STATUS_LABELS,
   SiteVisit,
   WorkItem,
@@ -53,6 +54,7 @@ export class WorkPage {
   protected readonly loadError = computed(() => (this.work.error() ? describeFailure(this.work.error()) : null));
 
   protected readonly codeLabel = codeLabel;
+  protected readonly place = placeLabel;
   protected readonly itemStatusLabels = ITEM_STATUS_LABELS;
   protected readonly outcomeLabels = CORRECTION_OUTCOME_LABELS;
   protected readonly visitStatusLabels = SITE_VISIT_STATUS_LABELS;
