@@ -313,7 +313,7 @@ describe('completion letters', () => {
       'revision 1',
       'Assigned Electric',
       findingCodeInfo('gfci-missing').label,
-      'kitchen counter right of range',
+      'Kitchen counter right of range',
       findingCodeInfo('open-ground').label,
       'living room, three-slot receptacles',
       'Replaced the worn GFCI receptacle',

@@ -235,13 +235,13 @@ describe('the proof side', () => {
 
     await recordOutcome(requestId, gfci, gfciRecord()).expect(201);
     await deliver();
-    expectOneMessageEach(['buyerAgent', 'listingAgent', 'seller'], 'GFCI does not trip, will not reset, or is worn (hall bath vanity) — corrected', `/requests/${requestId}/work`);
+    expectOneMessageEach(['buyerAgent', 'listingAgent', 'seller'], 'GFCI does not trip, will not reset, or is worn (Kitchen, hall bath vanity) — corrected', `/requests/${requestId}/work`);
     expect(mail.to(emailOf('seller'))[0].text).toContain('as corrected, with photos and test readings');
 
     mail.clear();
     await recordOutcome(requestId, panel, panelNotCorrected).expect(201);
     await deliver();
-    expectOneMessageEach(['buyerAgent', 'listingAgent', 'seller'], 'Two conductors under one breaker terminal not listed for it (main panel, breaker 14) — could not correct', `/requests/${requestId}/work`);
+    expectOneMessageEach(['buyerAgent', 'listingAgent', 'seller'], 'Two conductors under one breaker terminal not listed for it (Kitchen, main panel, breaker 14) — could not correct', `/requests/${requestId}/work`);
 
     mail.clear();
     await write(cast.s.contractor, 'post', `/api/requests/${requestId}/letters`).send({ isPermitNotRequired: true, signatureName: 'Sam Okafor' }).expect(201);

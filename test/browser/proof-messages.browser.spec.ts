@@ -57,7 +57,7 @@ describe('an item’s outcome is e-mailed to the seller with the link to the pro
     await item.first().click();
     const text = await page.getByTestId('mailbox-text').textContent();
     expect(text).toContain('Hello Ellen Brooks,');
-    expect(text).toContain(`The contractor could not correct “${ITEM} (attic above garage)” at ${STREET}`);
+    expect(text).toContain(`The contractor could not correct “${ITEM} (Attic above garage)” at ${STREET}`);
     expect(text).toContain(`See the item: ${portalUrl(workPath)}`);
     await page.getByRole('tab', { name: 'HTML' }).click();
     expect(await page.getByTestId('mailbox-html').getByRole('link', { name: 'See the item' }).getAttribute('href')).toBe(portalUrl(workPath));
