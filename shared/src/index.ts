@@ -28,6 +28,7 @@ export * from './pricing/price-quote';
 export * from './pricing/verify-totals';
 export * from './pricing/pricing-change';
 export * from './money/format-cents';
+export * from './text/list-words';
 export * from './pricing/ballpark.schema';
 export * from './pricing/ballpark';
 export * from './pricing/demo-rate-book';

@@ -86,6 +86,15 @@ describe('PATCH /api/requests/:id/pricing', () => {
     expect(nothing.body.details).toEqual([{ path: 'set', message: 'Choose something to change' }]);
   });
 
+  it('says what is wrong with a quantity in plain words, as the form shows it', async () => {
+    const item = [{ id: items.gfci, version: 1 }];
+    const huge = await write(cast.s.contractor, 'patch', `/api/requests/${requestId}/pricing`).send({ items: item, set: { quantity: 999_999_999 } });
+    expect(huge.status).toBe(400);
+    expect(huge.body.details).toEqual([{ path: 'set.quantity', message: 'Use at most 999' }]);
+    const fraction = await write(cast.s.contractor, 'patch', `/api/requests/${requestId}/pricing`).send({ items: item, set: { quantity: 1.5 } });
+    expect(fraction.body.details).toEqual([{ path: 'set.quantity', message: 'Use a whole number, without decimals' }]);
+  });
+
   it('responds 400 for an entry or site condition that is not in the rate book', async () => {
     const body = { items: [{ id: items.gfci, version: 1 }] };
     const entry = await write(cast.s.contractor, 'patch', `/api/requests/${requestId}/pricing`).send({ ...body, set: { entryId: 999_999 } });

@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { DEMO_RATE_BOOK, type QuoteVersion, type RequestPricing } from '@cc/shared';
+import { DEMO_RATE_BOOK, QUOTE_NOTE_MAX, type QuoteVersion, type RequestPricing } from '@cc/shared';
 import { extractPdfPages } from '../../server/src/integrations/pdf-text';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 import { resetDatabase, type SignedIn } from '../helpers/fixtures';
@@ -65,10 +65,10 @@ describe('POST /api/requests/:id/quotes', () => {
     await cast.s.seller.agent.get(`/api/requests/${requestId}/quotes`).expect(200).expect([]);
   });
 
-  it('responds 400 for a note that is too long', async () => {
-    const res = await send(requestId, { note: 'x'.repeat(1_001) });
+  it('responds 400 for a note that is too long, saying the limit the form counts towards', async () => {
+    const res = await send(requestId, { note: 'x'.repeat(QUOTE_NOTE_MAX + 1) });
     expect(res.status).toBe(400);
-    expect(res.body.details[0].path).toBe('note');
+    expect(res.body.details).toEqual([{ path: 'note', message: `Use at most ${QUOTE_NOTE_MAX} characters` }]);
   });
 
   it('sends version 1 priced as docs/pricing.md Example 1: one GFCI on its own visit, $314.34', async () => {

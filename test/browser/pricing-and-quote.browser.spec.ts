@@ -111,7 +111,17 @@ async function priceAndSend(): Promise<{ requestId: string; sentTotal: string }>
   await screenshot(page, 'pricing-group-changed');
 
   await page.getByTestId('pricing-note').fill('Both GFCI boxes are shallow; priced with the extra time.');
+  expect(await page.getByTestId('pricing-note-count').textContent()).toContain('56 / 1000');
+  // Sending asks first, naming who is e-mailed the quote and its total; cancelling sends nothing.
   await page.getByTestId('pricing-send').click();
+  const asked = (await page.getByTestId('confirm-message').textContent()) ?? '';
+  expect(asked).toContain('Tomás Garza (seller)');
+  expect(asked).toContain(sentTotal);
+  await page.getByTestId('confirm-cancel').click();
+  await page.getByTestId('confirm-message').waitFor({ state: 'detached' });
+  expect(page.url()).toContain('/pricing');
+  await page.getByTestId('pricing-send').click();
+  await page.getByTestId('confirm-go').click();
   await page.getByTestId('quote-heading').filter({ hasText: 'version 1' }).waitFor();
   expect(await page.getByTestId('quote-current-flag').textContent()).toContain('Current version');
   expect(await page.getByTestId('totals-quote-total').textContent()).toContain(sentTotal);

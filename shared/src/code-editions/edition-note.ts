@@ -1,3 +1,4 @@
+import { listWords } from '../text/list-words';
 import type { FindingCode } from '../findings/finding-code';
 import type { Room } from '../findings/room';
 import type { NecEdition } from '../requests/nec-edition';
@@ -135,10 +136,6 @@ function historySentence(topic: CodeTopic, r: EditionRule, status: BuiltUnder): 
 
 /** "Weather protection" → "weather protection"; an acronym ("GFCI protection") stays. */
 const lowerFirst = (s: string) => (/^[A-Z][a-z]/.test(s) ? s.charAt(0).toLowerCase() + s.slice(1) : s);
-
-function listWords(words: readonly string[]): string {
-  return words.length < 2 ? words.join('') : `${words.slice(0, -1).join(', ')} and ${words[words.length - 1]}`;
-}
 
 function todaySentence(topic: CodeTopic, rules: readonly EditionRule[], adopted: NecEdition): string {
   const inForce = rules.filter((r) => r.sinceEdition <= adopted);

@@ -1,5 +1,5 @@
 import * as z from 'zod';
-import { BoundedDateSchema, plainText, RecordIdSchema } from '../http/bounds';
+import { BoundedDateSchema, plainText, RecordIdSchema, wholeNumber } from '../http/bounds';
 
 // Day economics: the pick list for a planned day or one visit, the first-visit outcome of each
 // corrected item, and what a visit, a day, a week or a month earned.
@@ -80,7 +80,7 @@ export type TickPickLine = z.infer<typeof TickPickLineSchema>;
 
 export const SpareAllowanceSchema = z.object({
   entryKey: plainText(60).min(1),
-  spareUnits: z.number().int().min(0, 'At least 0').max(20, 'At most 20 spare units'),
+  spareUnits: wholeNumber(0, 20, 'a number of spare units'),
 });
 export const SpareSettingsSchema = z.object({ spares: z.array(SpareAllowanceSchema).max(1_000) });
 export type SpareSettings = z.infer<typeof SpareSettingsSchema>;

@@ -11,8 +11,8 @@ export const INT4_MAX = 2_147_483_647;
 export const NO_NUL_MESSAGE = 'Remove the NUL characters from this text';
 export const hasNoNul = (value: string): boolean => !value.includes('\u0000');
 
-/** A string without NUL characters, at most `max` characters long. */
-export function plainText(max: number, maxMessage?: string) {
+/** A string without NUL characters, at most `max` characters long (said in plain words when longer). */
+export function plainText(max: number, maxMessage = `Use at most ${max} characters`) {
   return z.string().max(max, maxMessage).refine(hasNoNul, { error: NO_NUL_MESSAGE });
 }
 
@@ -20,6 +20,23 @@ export function plainText(max: number, maxMessage?: string) {
 export function trimmedText(max: number, maxMessage = `Use at most ${max} characters`) {
   return z.string().trim().max(max, maxMessage).refine(hasNoNul, { error: NO_NUL_MESSAGE });
 }
+
+/**
+ * A whole number a person types (a quantity, minutes, spare units) from `min` to `max`, with every
+ * message in plain words: zod's own ("Invalid input: expected int, received number", "Too big:
+ * expected number to be <=999") are not for people. `what` names the value when it is missing.
+ */
+export function wholeNumber(min: number, max: number, what = 'a whole number') {
+  return z
+    .number({ error: `Enter ${what}` })
+    .int('Use a whole number, without decimals')
+    .min(min, `Use a whole number of ${min} or more`)
+    .max(max, `Use at most ${max}`);
+}
+
+/** How many of a thing an item is priced at: 1 to 999. */
+export const QUANTITY_MAX = 999;
+export const QuantitySchema = wholeNumber(1, QUANTITY_MAX, 'a quantity');
 
 /** The id of a stored record, as a client sends it in a body. */
 export const RecordIdSchema = z.number().int().positive().max(INT4_MAX, 'No record has this id');

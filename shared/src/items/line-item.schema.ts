@@ -1,5 +1,5 @@
 import * as z from 'zod';
-import { INT4_MAX, plainText, RecordIdSchema, VersionSchema } from '../http/bounds';
+import { INT4_MAX, plainText, QuantitySchema, RecordIdSchema, VersionSchema } from '../http/bounds';
 import { MAX_FINDINGS_PER_REPORT } from '../reports/report-file.schema';
 import { ConfidenceSchema, FindingCodeSchema, RoomSchema, SeveritySchema } from '../findings/finding.schema';
 import { BUILT_UNDER } from '../code-editions/protection-history';
@@ -85,7 +85,7 @@ export function itemsWithNotes(list: LineItemList): LineItem[] {
   return list.items.map(({ editionNoteKey: key, ...item }) => ({ ...item, editionNote: key === null ? null : (list.editionNotes[key] ?? null) }));
 }
 
-const quantity = z.number().int().min(1, 'Use a whole number of 1 or more').max(999).nullable();
+const quantity = QuantitySchema.nullable();
 
 export const UpdateLineItemSchema = z.object({
   version: VersionSchema,
@@ -131,7 +131,7 @@ export type MergeLineItems = z.infer<typeof MergeLineItemsSchema>;
 /** One item with a quantity becomes several, e.g. 3 receptacles in two rooms → [2, 1]. */
 export const SplitLineItemSchema = z.object({
   version: VersionSchema,
-  quantities: z.array(z.number().int().min(1).max(999)).min(2, 'Split into at least two parts').max(20),
+  quantities: z.array(QuantitySchema).min(2, 'Split into at least two parts').max(20),
 });
 export type SplitLineItem = z.infer<typeof SplitLineItemSchema>;
 

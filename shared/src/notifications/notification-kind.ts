@@ -67,6 +67,16 @@ export const NOTIFICATION_RULES: Record<NotificationKind, NotificationKindRule> 
   },
 };
 
+/**
+ * The parties of a request a message of `kind` goes to: those with an account in a part the rule names
+ * (as the server picks them; each may still have turned the message off). The assigned contractor's
+ * people are not parties, so they are not in it.
+ */
+export function partiesTold<P extends { role: FlowActor; userId: number | null }>(kind: NotificationKind, parties: readonly P[]): P[] {
+  const to = NOTIFICATION_RULES[kind].to;
+  return parties.filter((p) => p.userId !== null && to.includes(p.role));
+}
+
 /** The adjustable kinds an account of `role` can receive (the only ones its preferences screen lists). */
 export function kindsForRole(role: Role): NotificationKind[] {
   const parts = actorsForRole(role);

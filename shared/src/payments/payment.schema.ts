@@ -1,5 +1,5 @@
 import * as z from 'zod';
-import { BoundedDateSchema, RecordIdSchema, trimmedText } from '../http/bounds';
+import { BoundedDateSchema, QuantitySchema, RecordIdSchema, trimmedText } from '../http/bounds';
 import { FindingCodeSchema, RoomSchema } from '../findings/finding.schema';
 import { ItemStatusSchema } from '../items/item-status';
 import { QuoteSchema } from '../pricing/pricing-input.schema';
@@ -162,9 +162,9 @@ export const ChangeOrderLineInputSchema = z.discriminatedUnion('kind', [
     location: trimmedText(300).pipe(z.string().min(1, 'Say where the item is')),
     /** The rate-book entry (engine id of the quote's rate book). */
     entryId: z.string().min(1).max(60),
-    quantity: z.number().int().min(1, 'Use a whole number of 1 or more').max(999),
+    quantity: QuantitySchema,
   }),
-  z.object({ kind: z.literal('quantity'), lineItemId: RecordIdSchema, quantity: z.number().int().min(1, 'Use a whole number of 1 or more').max(999) }),
+  z.object({ kind: z.literal('quantity'), lineItemId: RecordIdSchema, quantity: QuantitySchema }),
   z.object({ kind: z.literal('remove'), lineItemId: RecordIdSchema }),
 ]);
 export type ChangeOrderLineInput = z.infer<typeof ChangeOrderLineInputSchema>;

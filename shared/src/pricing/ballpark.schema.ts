@@ -1,4 +1,5 @@
 import * as z from 'zod';
+import { QuantitySchema } from '../http/bounds';
 
 /** A ballpark asks for a range from finding codes before a contractor prices anything. */
 export const BallparkRequestSchema = z.object({
@@ -7,7 +8,7 @@ export const BallparkRequestSchema = z.object({
       z.object({
         code: z.string().min(1).max(60),
         /** Null when the report says "several" or "multiple". */
-        quantity: z.number().int().min(1).max(999).nullable(),
+        quantity: QuantitySchema.nullable(),
       }),
     )
     .min(1)

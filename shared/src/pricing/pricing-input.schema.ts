@@ -1,4 +1,5 @@
 import * as z from 'zod';
+import { QuantitySchema } from '../http/bounds';
 
 /** What the engine prices: lines that name rate-book entries, grouped into visits. */
 
@@ -9,7 +10,7 @@ export const PricingLineSchema = z.object({
   /** The caller's id for the line (a line item id), echoed in the breakdown. */
   key,
   entryId: z.string().min(1).max(60),
-  quantity: z.number().int().min(1).max(999),
+  quantity: QuantitySchema,
   /** Site conditions that apply to this line (rate-book adder ids). */
   adderIds: adderIds.default([]),
 });

@@ -1,5 +1,5 @@
 import * as z from 'zod';
-import { plainText, RecordIdSchema, VersionSchema } from '../http/bounds';
+import { plainText, QuantitySchema, RecordIdSchema, VersionSchema } from '../http/bounds';
 import { ClaimedTotalsSchema } from '../pricing/verify-totals';
 import { PricingVisitSchema, RequestPricingSchema, VisitKeySchema } from './request-pricing.schema';
 
@@ -22,7 +22,7 @@ export const BulkPriceItemsSchema = z.object({
       entryId: RecordIdSchema.nullable().optional(),
       /** Site conditions of the items (replaces theirs). */
       adderIds: z.array(RecordIdSchema).max(20).optional(),
-      quantity: z.number().int().min(1, 'Use a whole number of 1 or more').max(999).optional(),
+      quantity: QuantitySchema.optional(),
       visitKey: VisitKeySchema.optional(),
     })
     .refine((s) => s.entryId !== undefined || s.adderIds !== undefined || s.quantity !== undefined || s.visitKey !== undefined, {

@@ -1,5 +1,5 @@
 import * as z from 'zod';
-import { plainText } from '../http/bounds';
+import { trimmedText } from '../http/bounds';
 import { ItemEditionNoteSchema } from '../items/line-item.schema';
 import { QuoteBreakdownSchema } from '../pricing/pricing-breakdown.schema';
 import { ClaimedTotalsSchema } from '../pricing/verify-totals';
@@ -93,10 +93,13 @@ export const QuoteVersionSummarySchema = z.object({
 });
 export type QuoteVersionSummary = z.infer<typeof QuoteVersionSummarySchema>;
 
+/** The longest note to the seller a quote may carry (the form counts towards it). */
+export const QUOTE_NOTE_MAX = 1_000;
+
 /** Sending the quote: the server prices the request itself and refuses a claim that differs. */
 export const SendQuoteSchema = z.object({
   claimedTotals: ClaimedTotalsSchema.optional(),
   /** A note to the seller shown on the quote. */
-  note: plainText(1_000).trim().optional(),
+  note: trimmedText(QUOTE_NOTE_MAX).optional(),
 });
 export type SendQuote = z.infer<typeof SendQuoteSchema>;

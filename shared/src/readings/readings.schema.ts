@@ -1,4 +1,5 @@
 import * as z from 'zod';
+import { wholeNumber } from '../http/bounds';
 import { CONDUCTOR_SIZES, STRANDINGS } from './conductor-resistance';
 
 const bounded = (min: number, max: number, unit: string) =>
@@ -15,7 +16,7 @@ export const GfciReadingSchema = z
     /** Whether it reset and power came back everywhere. */
     resets: z.boolean(),
     /** Downstream receptacles proven to be protected. */
-    downstreamProven: z.number().int('Use a whole number').min(0, 'Use 0 or more').max(40, 'Use at most 40'),
+    downstreamProven: wholeNumber(0, 40, 'how many downstream receptacles were proven'),
     tripTimeMs: bounded(1, 10_000, 'ms').nullable().default(null),
     testCurrentMa: bounded(1, 300, 'mA').nullable().default(null),
   })

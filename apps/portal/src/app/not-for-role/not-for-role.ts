@@ -1,10 +1,8 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { Router, RouterLink } from '@angular/router';
-import { ROLE_LABELS } from '@cc/shared';
+import { listWords, ROLE_LABELS } from '@cc/shared';
 import { WrongRoleInfo } from '../core/auth/has-role-guard';
-
-const listed = (words: string[]) => (words.length > 1 ? `${words.slice(0, -1).join(', ')} and ${words.at(-1)}` : (words[0] ?? ''));
 
 /** Shown at the address of a page that belongs to other roles (e.g. the job queue to a seller). */
 @Component({
@@ -24,5 +22,5 @@ const listed = (words: string[]) => (words.length > 1 ? `${words.slice(0, -1).jo
 export class NotForRole {
   /** Read once, from the navigation that brought the person here. */
   protected readonly info: WrongRoleInfo = (inject(Router).currentNavigation()?.extras.info as WrongRoleInfo | undefined) ?? { page: 'This page', roles: [] };
-  protected readonly whom = listed(this.info.roles.map((r) => `${ROLE_LABELS[r].toLowerCase()}s`)) || 'other roles';
+  protected readonly whom = listWords(this.info.roles.map((r) => `${ROLE_LABELS[r].toLowerCase()}s`)) || 'other roles';
 }

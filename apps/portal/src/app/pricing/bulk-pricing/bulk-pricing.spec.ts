@@ -3,11 +3,14 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { HarnessLoader } from '@angular/cdk/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatDialogHarness } from '@angular/material/dialog/testing';
+import { MatInputHarness } from '@angular/material/input/testing';
 import { MatCheckboxHarness } from '@angular/material/checkbox/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { provideRouter, Router } from '@angular/router';
-import { BulkPriceItems, editionNote, priceQuote, RequestPricing, SendQuote } from '@cc/shared';
+import { BulkPriceItems, editionNote, priceQuote, QUOTE_NOTE_MAX, RepairRequestDetail, RequestPricing, SendQuote } from '@cc/shared';
 import { Clock } from '../../core/time/clock';
 import { pricingItem, requestDetail, requestPricing, SMALL_BOOK } from '../testing/pricing-fixtures';
 import { BulkPricing } from './bulk-pricing';
@@ -20,9 +23,15 @@ describe('BulkPricing', () => {
 
   const twoOpenGfcis = () => requestPricing([pricingItem(40, { version: 3 }), pricingItem(41, { version: 7, location: 'hall bath' })]);
 
-  async function render(pricing: RequestPricing): Promise<void> {
+  async function render(pricing: RequestPricing, request = requestDetail()): Promise<void> {
     TestBed.configureTestingModule({
-      providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting(), { provide: Clock, useValue: { today: () => '2026-04-20' } }],
+      providers: [
+        provideRouter([]),
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        { provide: Clock, useValue: { today: () => '2026-04-20' } },
+        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
+      ],
     });
     httpTesting = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(BulkPricing);
@@ -31,7 +40,7 @@ describe('BulkPricing', () => {
     host = fixture.nativeElement;
     await fixture.whenStable();
     httpTesting.expectOne('/api/requests/5/pricing').flush(pricing);
-    httpTesting.expectOne('/api/requests/5').flush(requestDetail());
+    httpTesting.expectOne('/api/requests/5').flush(request);
     await fixture.whenStable();
     // The ballpark card beside the items asks for its range and the conditions it may flag.
     httpTesting.match('/api/requests/5/ballpark').forEach((req) => req.flush({ error: 'Not now', details: [] }, { status: 409, statusText: 'Conflict' }));
@@ -49,6 +58,24 @@ describe('BulkPricing', () => {
   const text = (testId: string) => host.querySelector(`[data-testid="${testId}"]`)?.textContent?.trim() ?? '';
 
   afterEach(() => httpTesting.verify());
+
+  // Who is on the request: the quote goes by e-mail to the seller and the agents with an account.
+  const SELLER_SIDE: RepairRequestDetail['parties'] = [
+    { role: 'buyer-agent', email: 'maya@juniper.test', name: 'Maya Chen', userId: 2, isPending: false, inviteUrl: null },
+    { role: 'seller', email: 'tomas@mail.test', name: 'Tomás Garza', userId: 3, isPending: false, inviteUrl: null },
+    { role: 'listing-agent', email: 'rob@tallgrass.test', name: null, userId: 4, isPending: false, inviteUrl: null },
+    { role: 'inspector', email: 'nora@inspect.test', name: 'Nora Reyes', userId: 5, isPending: false, inviteUrl: null },
+    { role: 'seller', email: 'co-owner@mail.test', name: null, userId: null, isPending: true, inviteUrl: null },
+  ];
+
+  /** The confirmation before sending: answers it and returns what it said. */
+  async function confirmSending(goAhead = true): Promise<string> {
+    const dialog = await TestbedHarnessEnvironment.documentRootLoader(fixture).getHarness(MatDialogHarness);
+    const said = `${await dialog.getTitleText()} ${await dialog.getContentText()}`;
+    await (await dialog.getHarness(MatButtonHarness.with({ selector: goAhead ? '[data-testid="confirm-go"]' : '[data-testid="confirm-cancel"]' }))).click();
+    await fixture.whenStable();
+    return said;
+  }
 
   it('shows live totals from the shared engine and previews a change before it is applied', async () => {
     await render(requestPricing([pricingItem(40, { entryId: 11 }), pricingItem(41)]));
@@ -119,11 +146,12 @@ describe('BulkPricing', () => {
     expect(await (await loader.getHarness(MatButtonHarness.with({ selector: '[data-testid="pricing-send"]' }))).isDisabled()).toBe(true);
 
     TestBed.resetTestingModule();
-    await render(requestPricing([pricingItem(40, { entryId: 11 })], { unpricedItemIds: [] }));
+    await render(requestPricing([pricingItem(40, { entryId: 11 })], { unpricedItemIds: [] }), requestDetail({ parties: SELLER_SIDE }));
     const navigate = jest.spyOn(TestBed.inject(Router), 'navigate').mockResolvedValue(true);
     const send = await loader.getHarness(MatButtonHarness.with({ selector: '[data-testid="pricing-send"]' }));
     expect(await send.getText()).toContain('$314.34');
     await send.click();
+    await confirmSending();
     const req = httpTesting.expectOne({ method: 'POST', url: '/api/requests/5/quotes' });
     // docs/pricing.md, Example 1: 31,434 cents.
     expect((req.request.body as SendQuote).claimedTotals?.totalCents).toBe(31_434);
@@ -131,5 +159,34 @@ describe('BulkPricing', () => {
     await fixture.whenStable();
     expect(text('pricing-conflict')).toContain('Not priced');
     expect(navigate).not.toHaveBeenCalled();
+  });
+
+  it('asks before sending, naming who is e-mailed the quote and its total, and sends nothing when cancelled', async () => {
+    await render(requestPricing([pricingItem(40, { entryId: 11 })], { unpricedItemIds: [] }), requestDetail({ parties: SELLER_SIDE }));
+    await (await loader.getHarness(MatButtonHarness.with({ selector: '[data-testid="pricing-send"]' }))).click();
+    const said = await confirmSending(false);
+    expect(said).toContain('Send quote version 1?');
+    // The seller and both agents with an account (the listing agent by e-mail, having no name); not the
+    // inspector, nor the co-owner who has not made an account. docs/pricing.md, Example 1: $314.34.
+    expect(said).toContain("Maya Chen (buyer's agent), Tomás Garza (seller) and rob@tallgrass.test (listing agent) will be e-mailed the quote");
+    expect(said).toContain('$314.34');
+    expect(said).not.toContain('Nora');
+    httpTesting.expectNone({ method: 'POST', url: '/api/requests/5/quotes' });
+  });
+
+  it('counts the note towards its limit and sends it trimmed', async () => {
+    await render(requestPricing([pricingItem(40, { entryId: 11 })], { unpricedItemIds: [] }), requestDetail({ parties: SELLER_SIDE }));
+    jest.spyOn(TestBed.inject(Router), 'navigate').mockResolvedValue(true);
+    const note = await loader.getHarness(MatInputHarness.with({ selector: '[data-testid="pricing-note"]' }));
+    expect(text('pricing-note-count')).toBe(`0 / ${QUOTE_NOTE_MAX}`);
+    expect(host.querySelector('[data-testid="pricing-note"]')?.getAttribute('maxlength')).toBe(String(QUOTE_NOTE_MAX));
+    await note.setValue('  Both boxes are shallow.  ');
+    expect(text('pricing-note-count')).toBe(`27 / ${QUOTE_NOTE_MAX}`);
+    await (await loader.getHarness(MatButtonHarness.with({ selector: '[data-testid="pricing-send"]' }))).click();
+    await confirmSending();
+    const req = httpTesting.expectOne({ method: 'POST', url: '/api/requests/5/quotes' });
+    expect((req.request.body as SendQuote).note).toBe('Both boxes are shallow.');
+    req.flush({ error: 'Not now', details: [] }, { status: 409, statusText: 'Conflict' });
+    await fixture.whenStable();
   });
 });

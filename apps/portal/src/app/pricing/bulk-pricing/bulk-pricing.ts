@@ -10,13 +10,27 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
-import { ItemRef, PricingVisit, RepairRequestDetail, RequestPricing } from '@cc/shared';
+import {
+  formatCents,
+  ItemRef,
+  listWords,
+  PARTY_ROLE_LABELS,
+  partiesTold,
+  PricingVisit,
+  QUOTE_NOTE_MAX,
+  RepairRequestDetail,
+  RequestPricing,
+  SendQuoteSchema,
+} from '@cc/shared';
 import { catchError, map, Observable, of, switchMap } from 'rxjs';
+import { ErrorMessagePipe } from '../../core/forms/error-message';
+import { zodValidator } from '../../core/forms/zod-validator';
 import { apiErrorOf, describeFailure } from '../../core/http/api-error-of';
 import { Notice } from '../../core/http/notice';
 import { QuotesApi } from '../../quotes/quotes-api';
 import { RequestsApi } from '../../requests/requests-api';
 import { DaysToClosing } from '../../ui/days-to-closing/days-to-closing';
+import { askToConfirm } from '../../ui/confirm-dialog/confirm-dialog';
 import { SafetyNotice } from '../../ui/safety-notice/safety-notice';
 import { StatusChip } from '../../ui/status-chip/status-chip';
 import { BallparkCard } from '../ballpark-card/ballpark-card';
@@ -57,6 +71,7 @@ type Loaded = { pricing: RequestPricing; error?: undefined } | { pricing?: undef
     VisitPlanner,
     BallparkCard,
     SafetyNotice,
+    ErrorMessagePipe,
   ],
   templateUrl: './bulk-pricing.html',
   styleUrl: './bulk-pricing.scss',
@@ -105,7 +120,8 @@ export class BulkPricing {
   protected readonly conflict = signal<string | null>(null);
   /** Why the last change could not be made, when the engine refuses it before it is sent. */
   protected readonly actionError = signal<string | null>(null);
-  protected readonly noteControl = new FormControl('', { nonNullable: true });
+  protected readonly noteMax = QUOTE_NOTE_MAX;
+  protected readonly noteControl = new FormControl('', { nonNullable: true, validators: zodValidator(SendQuoteSchema.shape.note) });
 
   /** The totals of the items as they stand, from the shared engine. */
   protected readonly live = computed(() => {
@@ -196,7 +212,37 @@ export class BulkPricing {
     this.run(this.api.updateVisits(this.requestId(), visits), 'Visits saved.');
   }
 
+  /** Asks before sending: who receives the quote (as the notification rule picks them) and its total. */
   protected sendQuote(): void {
+    const pricing = this.pricing();
+    const totals = this.live().breakdown;
+    if (!pricing || !totals) return;
+    if (this.noteControl.invalid) {
+      this.noteControl.markAsTouched();
+      return;
+    }
+    const version = (pricing.currentQuoteVersion ?? 0) + 1;
+    const total = formatCents(totals.totalCents);
+    askToConfirm(this.dialog, {
+      title: `Send quote version ${version}?`,
+      message: `${this.recipientsSentence()} Version ${version} asks ${total} in all; a later change needs a new version.`,
+      confirmLabel: `Send quote of ${total}`,
+    }).subscribe((isConfirmed) => {
+      if (isConfirmed) this.send();
+    });
+  }
+
+  /** Who is told of the quote, by name and part, or that nobody with an account is there yet. */
+  private recipientsSentence(): string {
+    const request = this.request();
+    if (!request) return 'The seller and the agents on this request will be e-mailed the quote and can approve it at once.';
+    const told = partiesTold('quote-sent', request.parties);
+    if (!told.length) return 'Nobody on this request has an account yet to be e-mailed it: the quote waits on the request until they sign in.';
+    const names = told.map((p) => `${p.name ?? p.email} (${PARTY_ROLE_LABELS[p.role].toLowerCase()})`);
+    return `${listWords(names)} will be e-mailed the quote and can approve it at once.`;
+  }
+
+  private send(): void {
     const note = this.noteControl.value.trim();
     this.isBusy.set(true);
     this.quotes.send(this.requestId(), { claimedTotals: claimedTotals(this.live().breakdown), note: note || undefined }).subscribe({

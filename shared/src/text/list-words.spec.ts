@@ -1,0 +1,12 @@
+import { listWords } from './list-words';
+
+describe('listWords', () => {
+  it.each([
+    [[], ''],
+    [['the seller'], 'the seller'],
+    [['the seller', 'the listing agent'], 'the seller and the listing agent'],
+    [['a', 'b', 'c'], 'a, b and c'],
+  ])('%p → %p', (words, sentence) => {
+    expect(listWords(words)).toBe(sentence);
+  });
+});
