@@ -91,7 +91,7 @@ export async function seed(knex: Knex): Promise<void> {
     const started = await services.sellerSide.payments.start(
       seller,
       request.id,
-      StartPaymentSchema.parse({ plan: 'at-closing', idempotencyKey: `demo-closing-payment-${request.id}-0000`, escrow: { company: 'Marlow Title & Escrow', officer: 'Renata Ruiz', fileNumber: `MT-26-${1000 + request.id}` } }),
+      StartPaymentSchema.parse({ plan: 'at-closing', idempotencyKey: `demo-closing-payment-${request.id}-0000`, escrow: { company: 'Marlow Title & Escrow', officer: 'Renata Ruiz', email: 'renata.ruiz@marlow-title.test', fileNumber: `MT-26-${1000 + request.id}` } }),
     );
     await services.letters.issue(electrician, request.id, IssueLetterSchema.parse({ isPermitNotRequired: true, signatureName: electrician.name }));
     if (demo.proof !== 'accepted') continue;

@@ -4,6 +4,7 @@
 import { DEMO_RATE_BOOK, requestReference } from '@cc/shared';
 import type { NotifyInput } from '../../server/src/notifications/notify-input';
 import type { OutboxWorker } from '../../server/src/notifications/outbox-worker';
+import { proofMessagesByMail } from '../../server/src/notifications/proof-message-mail';
 import { resetDatabase } from '../helpers/fixtures';
 import { startMailCapture, testWorker, type MailCapture } from '../helpers/mail-capture';
 import { createPricedRequest, createPricingCast, storeRateBook, type CastKey, type PricingCast } from '../helpers/pricing-fixtures';
@@ -104,5 +105,20 @@ describe('outcomes recorded close together', () => {
     await notify(outcome(b.requestId, b.itemIds[0], 'Bath GFCI'));
     expect((await waiting(a.requestId)).map((r) => r.gathered.length)).toEqual([1, 1, 1]);
     expect((await waiting(b.requestId)).map((r) => r.gathered.length)).toEqual([1, 1, 1]);
+  });
+
+  it('go out at once when the completion letter is issued meanwhile, before the letter, saying it is issued', async () => {
+    const { requestId, itemIds } = await createPricedRequest(cast, t.db, { items: [{ code: 'gfci-inoperative', quantity: 1 }] });
+    await worker.drain();
+    mail.clear();
+    await notify(outcome(requestId, itemIds[0], 'Kitchen GFCI'));
+    await t.db.transaction((trx) => proofMessagesByMail(t.services.notifications).letterIssued(trx, { requestId, by: cast.users.contractor.id, letterNumber: 'CL-00077', revision: 1 }));
+    // No ten-minute wait: both go now, the outcome first.
+    await worker.drain();
+    const seller = mail.to(cast.users.seller.email);
+    expect(seller.map((m) => m.subject)).toEqual([`${requestReference(requestId)}: Kitchen GFCI — corrected`, expect.stringContaining('completion letter CL-00077 issued')]);
+    expect(seller[0].text).toContain('Completion letter CL-00077 is issued with these outcomes');
+    expect(seller[0].text).not.toContain('The completion letter follows');
+    expect(await waiting(requestId)).toEqual([]);
   });
 });

@@ -119,10 +119,10 @@ describe('each step of the flow e-mails the right people, with a link to the pag
   it.each<[string, (id: number, itemId: number) => NotifyInput, CastKey[], string, string]>([
     ['items approved or declined', (id) => ({ kind: 'items-decided', requestId: id, actorUserId: cast.users.seller.id, approvedCount: 2, declinedCount: 1, approvedCents: 48_000, decisionRef: 'approval-1' }), ['buyerAgent', 'colleague', 'contractor', 'listingAgent'], '2 approved, 1 declined', 'approval'],
     ['payment received', (id) => ({ kind: 'payment-received', requestId: id, actorUserId: null, paymentId: 7, amountCents: 12_345, receiptNumber: 'RCT-000007' }), ['colleague', 'contractor', 'listingAgent', 'seller'], 'payment of $123.45 received', 'approval'],
-    ['payment at closing chosen', (id) => ({ kind: 'closing-payment-chosen', requestId: id, actorUserId: cast.users.seller.id, paymentId: 9, amountCents: 36_321, invoiceNumber: 'INV-000009' }), ['buyerAgent', 'colleague', 'contractor', 'listingAgent'], '$363.21 to be paid at closing', 'approval'],
+    ['payment at closing chosen', (id) => ({ kind: 'closing-payment-chosen', requestId: id, actorUserId: cast.users.seller.id, paymentId: 9, amountCents: 36_321, invoiceNumber: 'INV-000009', escrow: { company: 'Quarry Bend Title & Escrow', officer: '', email: 'closings@quarrybend-title.test', fileNumber: '' } }), ['buyerAgent', 'colleague', 'contractor', 'listingAgent'], '$363.21 to be paid at closing', 'approval'],
     ['visit scheduled', (id) => ({ kind: 'visit-scheduled', requestId: id, actorUserId: cast.users.contractor.id, visitNumber: 3, date: '2027-02-10', arrivalFrom: '08:00', arrivalTo: '10:00', previous: null }), ['buyerAgent', 'listingAgent', 'seller'], 'visit on Wednesday, February 10, 2027', 'work'],
     ['item corrected', (id, itemId) => ({ kind: 'item-corrected', requestId: id, actorUserId: cast.users.contractor.id, itemId, correctionId: 1, outcome: 'corrected', itemLabel: 'Hall bath GFCI' }), ['buyerAgent', 'listingAgent', 'seller'], 'Hall bath GFCI — corrected', 'work'],
-    ['completion letter issued', (id) => ({ kind: 'letter-issued', requestId: id, actorUserId: cast.users.contractor.id, letterNumber: 'CL-00001', revision: 1 }), ['buyerAgent', 'inspector', 'listingAgent'], 'completion letter CL-00001 issued', 'work'],
+    ['completion letter issued', (id) => ({ kind: 'letter-issued', requestId: id, actorUserId: cast.users.contractor.id, letterNumber: 'CL-00001', revision: 1 }), ['buyerAgent', 'inspector', 'listingAgent', 'seller'], 'completion letter CL-00001 issued', 'work'],
     ['corrections accepted', (id) => ({ kind: 'proof-reviewed', requestId: id, actorUserId: null, isAccepted: true, notAcceptedCount: 0, reviewRef: '1' }), ['buyerAgent', 'colleague', 'contractor', 'listingAgent', 'seller'], 'electrical corrections accepted', 'work'],
     ['items not accepted', (id) => ({ kind: 'proof-reviewed', requestId: id, actorUserId: null, isAccepted: false, notAcceptedCount: 2, reviewRef: '2' }), ['buyerAgent', 'colleague', 'contractor', 'listingAgent', 'seller'], '2 items not accepted', 'work'],
   ])('%s: e-mails the right people with the link to its page', async (_name, input, expected, subjectPart, page) => {
@@ -151,7 +151,7 @@ describe('each step of the flow e-mails the right people, with a link to the pag
       }),
     ).rejects.toThrow('the change failed');
     expect(Number((await t.db('outbox_messages').count({ n: '*' }))[0].n)).toBe(before);
-    expect(await notify({ kind: 'letter-issued', requestId: id, actorUserId: null, letterNumber: 'CL-1', revision: 2 })).toBe(3);
+    expect(await notify({ kind: 'letter-issued', requestId: id, actorUserId: null, letterNumber: 'CL-1', revision: 2 })).toBe(4);
     expect(await notify({ kind: 'letter-issued', requestId: id, actorUserId: null, letterNumber: 'CL-1', revision: 2 })).toBe(0);
   });
 });
@@ -211,9 +211,8 @@ describe('preferences', () => {
 
   it('lists only the messages of the parts a role can play', async () => {
     const seller = await kindsOf(cast.s.seller);
-    expect(seller).toEqual(expect.arrayContaining(['quote-sent', 'payment-received', 'visit-scheduled', 'item-corrected']));
+    expect(seller).toEqual(expect.arrayContaining(['quote-sent', 'payment-received', 'visit-scheduled', 'item-corrected', 'letter-issued']));
     expect(seller).not.toContain('closing-at-risk');
-    expect(seller).not.toContain('letter-issued');
     expect(seller).not.toContain('ready-to-price');
     expect(await kindsOf(cast.s.inspector)).toEqual(['letter-issued']);
     const contractor = await kindsOf(cast.s.contractor);
@@ -227,7 +226,7 @@ describe('preferences', () => {
     expect(res.body.details).toEqual([{ path: 'preferences.0.delivery', message: 'This message comes only in the daily digest' }]);
     await put(cast.s.seller, [{ kind: 'invitation', delivery: 'off' }]).expect(400);
     await put(cast.s.seller, [{ kind: 'quote-sent', delivery: 'weekly' }]).expect(400);
-    const foreign = await put(cast.s.seller, [{ kind: 'quote-sent', delivery: 'off' }, { kind: 'letter-issued', delivery: 'off' }]).expect(400);
+    const foreign = await put(cast.s.seller, [{ kind: 'quote-sent', delivery: 'off' }, { kind: 'ready-to-price', delivery: 'off' }]).expect(400);
     expect(foreign.body.details).toEqual([{ path: 'preferences.1.kind', message: 'Your account never receives this message' }]);
     expect(await t.db('notification_preferences').where({ user_id: cast.users.seller.id, kind: 'quote-sent' }).first()).toBeUndefined();
   });
@@ -305,9 +304,11 @@ describe('preferences', () => {
 
 describe('GET /api/mailbox (development mailbox)', () => {
   it('lists captured messages to administrators only', async () => {
-    await t.services.mailbox!.keep({ messageId: '<m1@test>', from: 'a@closing-circuit.test', to: ['b@people.test'], subject: 'Hello', text: 'Plain words', html: '<p>Plain words</p>', raw: Buffer.from('') });
+    await t.services.mailbox!.keep({ messageId: '<m1@test>', from: 'a@closing-circuit.test', to: ['b@people.test'], subject: 'Hello', text: 'Plain words', html: '<p>Plain words</p>', attachments: [{ fileName: 'CC-00001-INV-000001.pdf', contentType: 'application/pdf', content: Buffer.from('%PDF-1.7') }], raw: Buffer.from('') });
     const res = await cast.s.admin.agent.get('/api/mailbox?to=b@people.test').expect(200);
     expect(res.body.items[0]).toMatchObject({ subject: 'Hello', to: ['b@people.test'], text: 'Plain words', html: '<p>Plain words</p>' });
+    // The files a message carried are named with their sizes; their content is not kept.
+    expect(res.body.items[0].attachments).toEqual([{ fileName: 'CC-00001-INV-000001.pdf', contentType: 'application/pdf', bytes: 8 }]);
     expect(res.body.outbox).toEqual(expect.objectContaining({ sent: expect.any(Number) }));
     const one = await cast.s.admin.agent.get(`/api/mailbox/${res.body.items[0].id}`).expect(200);
     expect(one.body.subject).toBe('Hello');

@@ -68,7 +68,7 @@ afterAll(async () => {
   await t.close();
 });
 
-/** Writes `letters` × 3 messages (one per letter to the inspector and both agents); returns their ids. */
+/** Writes `letters` × 4 messages (one per letter to the inspector, both agents and the seller); returns their ids. */
 async function queueMessages(letters: number): Promise<string[]> {
   const { requestId } = await createPricedRequest(cast, t.db, { items: [{ code: 'gfci-inoperative', quantity: 1 }] });
   await t.db('outbox_messages').where({ status: 'pending' }).update({ status: 'skipped' });
@@ -80,7 +80,7 @@ async function queueMessages(letters: number): Promise<string[]> {
 
 it('a worker killed mid-send is taken over by a restarted one, and each message is sent exactly once', async () => {
   const ids = await queueMessages(4);
-  expect(ids).toHaveLength(12);
+  expect(ids).toHaveLength(16);
   received.splice(0);
   // The fourth message the sink takes is held without a reply; the worker is killed meanwhile.
   let letGo!: () => void;
@@ -127,8 +127,8 @@ it('two workers at once share the outbox and never send a message twice', async 
     await Promise.all(workers.map(exited));
   }
   const messageIds = received.map((m) => m.messageId);
-  expect(messageIds).toHaveLength(30);
-  expect(new Set(messageIds).size).toBe(30);
+  expect(messageIds).toHaveLength(40);
+  expect(new Set(messageIds).size).toBe(40);
   const perMessage = await t.db('outbox_attempts').whereIn('message_id', ids).groupBy('message_id').select('message_id').count({ n: '*' });
   expect(perMessage.every((r) => Number(r.n) === 1)).toBe(true);
 });

@@ -354,7 +354,7 @@ describe('change orders', () => {
 describe('payment at closing', () => {
   it('issues an invoice to the escrow company payable at closing; the contractor records the funds', async () => {
     const { requestId } = await signedRequest();
-    const res = await startPayment(requestId, { plan: 'at-closing', idempotencyKey: newKey(), escrow: { company: 'Quarry Bend Title & Escrow', officer: 'R. Lindqvist', fileNumber: 'QB-2027-0113' } });
+    const res = await startPayment(requestId, { plan: 'at-closing', idempotencyKey: newKey(), escrow: { company: 'Quarry Bend Title & Escrow', officer: 'R. Lindqvist', email: 'r.lindqvist@quarrybend-title.test', fileNumber: 'QB-2027-0113' } });
     expect(res.status).toBe(201);
     expect(res.body.checkoutUrl).toBeNull();
     expect(res.body.invoiceNumber).toMatch(/^INV-\d{6}$/);
@@ -362,6 +362,7 @@ describe('payment at closing', () => {
     expect(v.account).toMatchObject({ payableAtClosingCents: EXAMPLE_1_TOTAL, paidCents: 0 });
     expect(v.plans).toEqual([]);
     const invoice = v.invoices.find((i) => i.kind === 'closing-invoice')!;
+    expect(invoice.sentTo).toBe('r.lindqvist@quarrybend-title.test');
     const pdf = await cast.s.seller.agent.get(invoice.pdfPath).buffer(true).parse((r, done) => {
       const chunks: Buffer[] = [];
       r.on('data', (c: Buffer) => chunks.push(c));
@@ -373,6 +374,10 @@ describe('payment at closing', () => {
     expect(text).toContain('Quarry Bend Title & Escrow');
     expect(text).toContain('QB-2027-0113');
     expect(text).toContain('$314.34');
+    // What an escrow officer matches the paper to the file by: issue day, seller, closing day; US "check".
+    expect(text).toMatch(/Issued [A-Z][a-z]{2} \d{1,2}, \d{4} · Seller: \S+/);
+    expect(text).toMatch(/Closing [A-Z][a-z]{2} \d{1,2}, \d{4}/);
+    expect(text).toContain('by wire or check');
     const body = { paymentId: res.body.payment.id, amountCents: EXAMPLE_1_TOTAL, receivedOn: '2027-01-15', reference: 'Wire 88213' };
     await write(cast.s.seller, 'post', `/api/requests/${requestId}/payments/funds`).send(body).expect(403);
     const wrong = await write(cast.s.contractor, 'post', `/api/requests/${requestId}/payments/funds`).send({ ...body, amountCents: 100 });
@@ -380,6 +385,44 @@ describe('payment at closing', () => {
     v = (await write(cast.s.contractor, 'post', `/api/requests/${requestId}/payments/funds`).send(body).expect(200)).body;
     expect(v.account).toMatchObject({ payableAtClosingCents: 0, paidCents: EXAMPLE_1_TOTAL, balanceCents: 0 });
     await write(cast.s.contractor, 'post', `/api/requests/${requestId}/payments/funds`).send(body).expect(409);
+  });
+});
+
+describe('payment at closing: the invoice goes to the escrow company', () => {
+  const escrow = { company: 'Quarry Bend Title & Escrow', officer: '', email: 'closings@quarrybend-title.test', fileNumber: '' };
+
+  it('refuses payment at closing without an e-mail address for the invoice, naming the field', async () => {
+    const { requestId } = await signedRequest();
+    const res = await startPayment(requestId, { plan: 'at-closing', idempotencyKey: newKey(), escrow: { ...escrow, email: '' } });
+    expect(res.status).toBe(400);
+    expect(res.body.details).toEqual([{ path: 'escrow.email', message: 'Enter the e-mail address the invoice is sent to' }]);
+    expect(await paymentRows(requestId)).toEqual([]);
+  });
+
+  it('sends the invoice again to a corrected address (seller side or contractor), refusing a bad address, other parties and after the funds are recorded', async () => {
+    const { requestId } = await signedRequest();
+    const started: StartedPayment = (await startPayment(requestId, { plan: 'at-closing', idempotencyKey: newKey(), escrow }).expect(201)).body;
+    const invoice = (await view(requestId)).invoices.find((i) => i.kind === 'closing-invoice')!;
+    const send = (who: SignedIn, email: string, id = invoice.id) => write(who, 'post', `/api/requests/${requestId}/invoices/${id}/send`).send({ email });
+    expect((await view(requestId)).can.sendClosingInvoice).toBe(true);
+    expect((await view(requestId, cast.s.contractor)).can.sendClosingInvoice).toBe(true);
+
+    const bad = await send(cast.s.seller, 'closings at quarrybend');
+    expect(bad.status).toBe(400);
+    expect(bad.body.details).toEqual([{ path: 'email', message: 'Enter an e-mail address like name@example.com' }]);
+    await send(cast.s.buyerAgent, 'x@quarrybend-title.test').expect(403);
+    await send(cast.s.otherContractor, 'x@quarrybend-title.test').expect(404);
+    // A receipt or another request's invoice is not an invoice payable at closing of this request.
+    await send(cast.s.seller, 'x@quarrybend-title.test', invoice.id + 100_000).expect(404);
+
+    const again: ApprovalView = (await send(cast.s.listingAgent, 'r.lindqvist@quarrybend-title.test').expect(200)).body;
+    expect(again.invoices.find((i) => i.id === invoice.id)!.sentTo).toBe('r.lindqvist@quarrybend-title.test');
+    const messages = await t.db('outbox_messages').where({ kind: 'closing-invoice', attachment_invoice_id: invoice.id }).orderBy('id').pluck('recipient_email');
+    expect(messages).toEqual(['closings@quarrybend-title.test', 'r.lindqvist@quarrybend-title.test']);
+
+    await write(cast.s.contractor, 'post', `/api/requests/${requestId}/payments/funds`).send({ paymentId: started.payment.id, amountCents: EXAMPLE_1_TOTAL, receivedOn: '2027-01-15', reference: 'Wire 88215' }).expect(200);
+    expect((await view(requestId)).can.sendClosingInvoice).toBe(false);
+    await send(cast.s.seller, 'r.lindqvist@quarrybend-title.test').expect(409);
   });
 });
 

@@ -1,7 +1,8 @@
 // The e-mails of the seller's side (decision, payments, change orders, refunds) and of the proof side
 // (visit, item outcome, completion letter), each made through the API as people make them, read back
 // from the product's SMTP sink with mailparser: who got it, what it says, which page it links to.
-import { DEMO_RATE_BOOK, type ApprovalView, type StartedPayment } from '@cc/shared';
+import { DEMO_RATE_BOOK, requestReference, type ApprovalView, type StartedPayment } from '@cc/shared';
+import { extractPdfPages } from '../../server/src/integrations/pdf-text';
 import { resetDatabase, type SignedIn } from '../helpers/fixtures';
 import { startMailCapture, testWorker, type MailCapture } from '../helpers/mail-capture';
 import { createPaymentsTestApp, gfciFoundOnSite, newKey, payOnFakePage, quotedRequest, sign, signBody, write, type PaymentsTestApp } from '../helpers/payment-fixtures';
@@ -157,16 +158,39 @@ describe('the seller’s side', () => {
     expect(receivers()).toEqual([]);
   });
 
-  it('payment at closing chosen: the contractor’s people and both agents hear the amount and the invoice; funds recorded later: the seller, the listing agent and the colleague', async () => {
+  it('payment at closing chosen: the escrow officer gets the invoice PDF; the contractor’s people and both agents hear the amount and where it went; funds recorded later: the seller, the listing agent and the colleague', async () => {
     const { requestId } = await signedRequest();
-    const started = (await write(cast.s.seller, 'post', `/api/requests/${requestId}/payments`).send({ plan: 'at-closing', idempotencyKey: newKey(), escrow: { company: 'Quarry Bend Title & Escrow', officer: 'R. Lindqvist', fileNumber: 'QB-2027-0114' } }).expect(201)).body as StartedPayment;
+    const officer = 'r.lindqvist@quarrybend-title.test';
+    const started = (await write(cast.s.seller, 'post', `/api/requests/${requestId}/payments`).send({ plan: 'at-closing', idempotencyKey: newKey(), escrow: { company: 'Quarry Bend Title & Escrow', officer: 'R. Lindqvist', email: officer, fileNumber: 'QB-2027-0114' } }).expect(201)).body as StartedPayment;
     await deliver();
+    // The escrow officer, who has no account: the invoice as a PDF, the amount, the file number, no portal link.
+    const [toEscrow, ...more] = mail.to(officer);
+    expect(more).toEqual([]);
+    expect(toEscrow.subject).toContain(`Invoice ${started.invoiceNumber} payable at closing`);
+    expect(toEscrow.subject).toContain('(file QB-2027-0114)');
+    expect(toEscrow.text).toContain('Hello R. Lindqvist,');
+    expect(toEscrow.text).toContain(`Please pay ${EXAMPLE_1_TOTAL} to `);
+    expect(toEscrow.text).not.toContain(PORTAL);
+    expect(toEscrow.attachments.map((a) => [a.fileName, a.contentType])).toEqual([[`${requestReference(requestId)}-${started.invoiceNumber}.pdf`, 'application/pdf']]);
+    const pdfText = (await extractPdfPages(toEscrow.attachments[0].content)).pages.join('\n').replace(/\s+/g, ' ');
+    expect(pdfText).toContain(`Invoice — payable at closing ${started.invoiceNumber}`);
+    expect(pdfText).toContain(EXAMPLE_1_TOTAL);
+    // Everyone else: who chose, how much, and where the invoice went. The seller chose it, so is not told.
     expectOneMessageEach(['buyerAgent', 'colleague', 'contractor', 'listingAgent'], `${EXAMPLE_1_TOTAL} to be paid at closing`, `/requests/${requestId}/approval`);
-    expect(mail.to(emailOf('contractor'))[0].text).toContain(`Invoice ${started.invoiceNumber} went to the escrow company`);
+    expect(mail.to(emailOf('contractor'))[0].text).toContain(`Invoice ${started.invoiceNumber} was e-mailed with its PDF to R. Lindqvist at Quarry Bend Title & Escrow (${officer})`);
     mail.clear();
     await write(cast.s.contractor, 'post', `/api/requests/${requestId}/payments/funds`).send({ paymentId: started.payment.id, amountCents: 31_434, receivedOn: '2027-01-15', reference: 'Wire 88214' }).expect(200);
     await deliver();
     expectOneMessageEach(['colleague', 'listingAgent', 'seller'], `payment of ${EXAMPLE_1_TOTAL} received`, `/requests/${requestId}/approval`);
+  });
+
+  it('payment at closing chosen by the listing agent: the seller hears it too', async () => {
+    const { requestId } = await signedRequest();
+    await write(cast.s.listingAgent, 'post', `/api/requests/${requestId}/payments`).send({ plan: 'at-closing', idempotencyKey: newKey(), escrow: { company: 'Quarry Bend Title & Escrow', email: 'closings@quarrybend-title.test' } }).expect(201);
+    await deliver();
+    expectOneMessageEach(['buyerAgent', 'colleague', 'contractor', 'seller'], `${EXAMPLE_1_TOTAL} to be paid at closing`, `/requests/${requestId}/approval`);
+    expect(mail.to(emailOf('seller'))[0].text).toContain('e-mailed with its PDF to Quarry Bend Title & Escrow (closings@quarrybend-title.test)');
+    expect(mail.to('closings@quarrybend-title.test')[0].text).toContain('Hello,');
   });
 
   it('change order sent to the seller’s side to decide; its decision to the contractor’s people', async () => {
@@ -247,7 +271,7 @@ describe('the proof side', () => {
     await write(cast.s.contractor, 'post', `/api/requests/${requestId}/letters`).send({ isPermitNotRequired: true, signatureName: 'Sam Okafor' }).expect(201);
     await deliver();
     const number = `CL-${String(requestId).padStart(5, '0')}`;
-    expectOneMessageEach(['buyerAgent', 'inspector', 'listingAgent'], `completion letter ${number} issued for 14 Test Hollow Road`, `/requests/${requestId}/work`);
+    expectOneMessageEach(['buyerAgent', 'inspector', 'listingAgent', 'seller'], `completion letter ${number} issued for 14 Test Hollow Road`, `/requests/${requestId}/work`);
 
     // The re-inspection is the last step: the contractor's people, the seller and both agents hear it.
     mail.clear();

@@ -10,6 +10,8 @@ jest.setTimeout(180_000);
 const STREET = '702 Aspen Row';
 const SELLER = 'ellen.brooks@mail.test';
 const CONTRACTOR = 'sam.okafor@brightline.test';
+const LISTING_AGENT = 'rob.hale@tallgrass.test';
+const ADMIN = 'admin@closingcircuit.test';
 // The payment service's published test card that succeeds ("Testing", docs.stripe.com/testing).
 const TEST_CARD = '4242 4242 4242 4242';
 
@@ -131,6 +133,53 @@ async function contractorSeesDecision(requestId: string, depositLabel: string): 
   await page.close();
 }
 
+/**
+ * The listing agent's part, at desktop width: the balance after the deposit from the proceeds at
+ * closing. The invoice is e-mailed to the escrow officer (a field error first, when the address is
+ * missing), then sent again to a corrected address; the administrator finds it, PDF attached, in the
+ * development mailbox.
+ */
+async function balanceInvoicedToEscrow(requestId: string): Promise<void> {
+  const page = await desktop();
+  await signInAs(page, LISTING_AGENT);
+  await page.goto(portalUrl(`/requests/${requestId}/approval`));
+  await page.getByTestId('plan-at-closing').locator('input').check();
+  await page.getByTestId('escrow-company').fill('Juniper Gate Title');
+  await page.getByTestId('pay-submit').click();
+  await page.locator('mat-error').filter({ hasText: 'Enter the e-mail address the invoice is sent to' }).waitFor();
+  await page.getByTestId('escrow-email').fill('closings@junipergate-title.test');
+  await page.getByTestId('pay-submit').click();
+  const invoice = page.getByTestId('invoice-entry').filter({ hasText: /Invoice payable at closing INV-\d{6}/ });
+  await invoice.getByTestId('invoice-sent-to').filter({ hasText: 'E-mailed to closings@junipergate-title.test' }).waitFor();
+  const number = /INV-\d{6}/.exec((await invoice.textContent()) ?? '')![0];
+
+  // Sent to the wrong desk: sent again to the officer handling the file.
+  await invoice.getByTestId('resend-open').click();
+  await invoice.getByTestId('resend-email').fill('m.oyelaran@junipergate-title.test');
+  await expectAxeClean(page);
+  await screenshot(page, 'approval-closing-invoice-resend');
+  await invoice.getByTestId('resend-submit').click();
+  await invoice.getByTestId('invoice-sent-to').filter({ hasText: 'E-mailed to m.oyelaran@junipergate-title.test' }).waitFor();
+  expect(await overflowsSideways(page)).toBe(false);
+  await page.close();
+
+  const admin = await desktop();
+  await signInAs(admin, ADMIN);
+  const item = admin.getByTestId('mailbox-item').filter({ hasText: 'm.oyelaran@junipergate-title.test' }).filter({ hasText: number });
+  // The outbox worker sends within a second or two of the change.
+  for (let tries = 0; tries < 30 && !(await item.count()); tries++) {
+    await admin.goto(portalUrl('/mailbox'));
+    await admin.getByTestId('mailbox-heading').waitFor();
+    await admin.waitForLoadState('networkidle');
+  }
+  expect(await item.count()).toBe(1);
+  await item.click();
+  expect(await admin.getByTestId('mailbox-attachments').textContent()).toContain(`-${number}.pdf`);
+  expect(await admin.getByTestId('mailbox-text').textContent()).toContain('Please pay');
+  await expectAxeClean(admin);
+  await admin.close();
+}
+
 describe('the seller approves, signs and pays the deposit on a phone; the contractor sees it', () => {
   // One journey in one test: the contractor's check needs the seller's decision and payment, so it is
   // not a separate test relying on an earlier one's leftovers.
@@ -138,5 +187,6 @@ describe('the seller approves, signs and pays the deposit on a phone; the contra
     const { requestId, depositLabel } = await sellerApprovesAndPays();
     expect(requestId).not.toBe('');
     await contractorSeesDecision(requestId, depositLabel);
+    await balanceInvoicedToEscrow(requestId);
   });
 });

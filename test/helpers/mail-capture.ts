@@ -2,6 +2,7 @@
 // back with mailparser, and an outbox worker sending to it.
 import { createSmtpTransport, type MailTransport } from '../../server/src/integrations/mail/mail-transport';
 import { startSmtpSink, type CapturedMessage, type SmtpSink } from '../../server/src/integrations/mail/smtp-sink';
+import { attachmentsFrom } from '../../server/src/notifications/mail-runtime';
 import { OutboxWorker } from '../../server/src/notifications/outbox-worker';
 import type { TestApp } from './test-app';
 
@@ -46,6 +47,7 @@ export function testWorker(t: TestApp, transport: MailTransport, overrides: Part
     maxAttempts: 3,
     backoffMs: 60_000,
     pollMs: 50,
+    attachmentsOf: attachmentsFrom(t.services),
     ...overrides,
   });
 }

@@ -91,6 +91,7 @@ export class ApprovalsService {
       sendChangeOrder: !!approval && mayAct(actors, 'send-change-order', status),
       decideChangeOrder: !!approval && mayAct(actors, 'decide-change-order', status),
       issueInvoice: !!approval && mayAct(actors, 'issue-invoice', status),
+      sendClosingInvoice: !!approval && account.payableAtClosingCents > 0 && mayAct(actors, 'send-closing-invoice', status),
     };
     const plans = can.pay ? PAYMENT_PLANS.flatMap((plan) => {
       const amountCents = amountDue(plan, account);

@@ -17,5 +17,6 @@ export function toInvoiceSummary(i: StoredInvoice): InvoiceSummary {
     totalCents: i.totalCents,
     balanceCents: i.balanceCents,
     pdfPath: `/api/requests/${i.requestId}/invoices/${i.id}.pdf`,
+    sentTo: i.sentTo,
   };
 }

@@ -16,6 +16,9 @@ export interface StoredInvoice<C = unknown> {
   content: C;
   totalCents: number;
   balanceCents: number;
+  /** An invoice payable at closing: where it was last e-mailed (null for the others). */
+  sentTo: string | null;
+  sendCount: number;
 }
 
 type Row = {
@@ -31,6 +34,8 @@ type Row = {
   content: unknown;
   total_cents: number;
   balance_cents: number;
+  sent_to: string | null;
+  send_count: number;
 };
 
 const toInvoice = (r: Row): StoredInvoice => ({
@@ -46,6 +51,8 @@ const toInvoice = (r: Row): StoredInvoice => ({
   content: r.content,
   totalCents: r.total_cents,
   balanceCents: r.balance_cents,
+  sentTo: r.sent_to,
+  sendCount: r.send_count,
 });
 
 /** Numbered invoices and receipts. Numbers come from one counter row per organisation and series. */
@@ -67,7 +74,7 @@ export class InvoiceRepository {
     return rows[0].last_number;
   }
 
-  async insert(i: Omit<StoredInvoice, 'id' | 'issuedAt'> & { issuedBy: number | null }, trx: Trx): Promise<StoredInvoice> {
+  async insert(i: Omit<StoredInvoice, 'id' | 'issuedAt' | 'sendCount'> & { issuedBy: number | null }, trx: Trx): Promise<StoredInvoice> {
     const [row] = await trx('invoices')
       .insert({
         organisation_id: i.organisationId,
@@ -81,9 +88,17 @@ export class InvoiceRepository {
         content: JSON.stringify(i.content),
         total_cents: i.totalCents,
         balance_cents: i.balanceCents,
+        sent_to: i.sentTo,
+        send_count: i.sentTo ? 1 : 0,
       })
       .returning('*');
     return toInvoice(row);
+  }
+
+  /** Records one more e-mail of the invoice to `email`; returns which send it is (2 for the first resend). */
+  async markSent(id: number, email: string, trx: Trx): Promise<number> {
+    const [row] = await trx('invoices').where({ id }).update({ sent_to: email, send_count: trx.raw('send_count + 1') }).returning('send_count');
+    return row.send_count as number;
   }
 
   async list(requestId: number): Promise<StoredInvoice[]> {
@@ -91,8 +106,11 @@ export class InvoiceRepository {
     return rows.map(toInvoice);
   }
 
-  async find(requestId: number, id: number): Promise<StoredInvoice | null> {
-    const row: Row | undefined = await this.db('invoices').where({ request_id: requestId, id }).first();
+  /** The invoice `id` of request `requestId`; any request's when `requestId` is null (the mail worker's attachments). */
+  async find(requestId: number | null, id: number, trx?: Trx): Promise<StoredInvoice | null> {
+    const row: Row | undefined = await (trx ?? this.db)('invoices')
+      .where({ id, ...(requestId === null ? {} : { request_id: requestId }) })
+      .first();
     return row ? toInvoice(row) : null;
   }
 }

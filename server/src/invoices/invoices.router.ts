@@ -1,4 +1,5 @@
 import { Router, type Request } from 'express';
+import { SendClosingInvoiceSchema } from '@cc/shared';
 import type { RouterDeps } from '../http/router-deps';
 import { requireUser, userOf } from '../http/require-user';
 import { idParam } from '../http/params';
@@ -22,6 +23,12 @@ export function createInvoicesRouter({ services }: RouterDeps): Router {
 
   router.post('/', async (req, res) => {
     res.status(201).json(await invoices.issue(userOf(req), idParam(req)));
+  });
+
+  router.post('/:invoiceId/send', async (req, res) => {
+    const user = userOf(req);
+    await services.sellerSide.payments.sendClosingInvoice(user, idParam(req), invoiceIdParam(req), SendClosingInvoiceSchema.parse(req.body ?? {}));
+    res.json(await services.sellerSide.approvals.view(user, idParam(req)));
   });
 
   router.get('/:invoiceId.pdf', async (req, res) => {

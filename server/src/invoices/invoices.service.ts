@@ -2,6 +2,7 @@ import { actorsOnRequest, ITEM_STATUS_LABELS, paymentAccount, requestReference, 
 import { billRows } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
 import { renderInvoicePdf } from '../integrations/pdf/invoice-pdf';
+import type { MailAttachment } from '../integrations/mail/mail-transport';
 import { formatCents } from '@cc/shared';
 import type { ApprovalRepository } from '../approvals/approval.repository';
 import type { ApprovedScope, ApprovedScopeReader } from '../approvals/approved-scope';
@@ -19,6 +20,12 @@ export interface InvoiceContent {
   number: string;
   requestReference: string;
   property: string;
+  /** The day it was issued, the sale's closing day and the seller, as an escrow officer matches the paper to the file (absent on papers issued before they were shown). */
+  issuedOn?: string;
+  closingDate?: string;
+  sellerName?: string | null;
+  /** An invoice payable at closing: the escrow company as the seller's side named it (for sending it again). */
+  escrow?: EscrowCompany;
   contractor: QuoteContractor;
   addressedTo: { name: string; lines: string[] };
   lines: { description: string; quantity: number | null; state: string; amountCents: number }[];
@@ -40,6 +47,9 @@ export interface InvoiceContent {
 
 const PURPOSE_LABELS: Record<StoredPayment['purpose'], string> = { deposit: 'Card payment (deposit)', full: 'Card payment (in full)', balance: 'Card payment (balance)', closing: 'Funds received at closing' };
 const dateOf = (d: Date | null) => (d ?? new Date()).toISOString().slice(0, 10);
+
+/** How many times one invoice payable at closing may be e-mailed (each send can go to a new address). */
+export const MAX_CLOSING_INVOICE_SENDS = 10;
 
 /** Numbered invoices and receipts of a request, and their PDFs. */
 export class InvoicesService {
@@ -67,7 +77,22 @@ export class InvoicesService {
   /** The invoice addressed to the escrow or title company for a payment at closing (in the caller's transaction). */
   async issueClosingInvoice(requestId: number, payment: StoredPayment, escrow: EscrowCompany, issuedBy: number, trx: Trx): Promise<StoredInvoice> {
     const lines = [escrow.officer && `Attention: ${escrow.officer}`, escrow.fileNumber && `Escrow / file number: ${escrow.fileNumber}`, escrow.email].filter(Boolean) as string[];
-    return this.write(requestId, { kind: 'closing-invoice', series: 'invoice', addressedTo: { name: escrow.company, lines }, issuedBy, payment }, trx);
+    return this.write(requestId, { kind: 'closing-invoice', series: 'invoice', addressedTo: { name: escrow.company, lines }, issuedBy, payment, sentTo: escrow.email, escrow }, trx);
+  }
+
+  /**
+   * Invoice `id` payable at closing, to be e-mailed again to `email` (in the caller's transaction):
+   * the escrow company as named, with the address, and which send this is. Refused once its funds are recorded.
+   */
+  async sendAgain(requestId: number, id: number, email: string, trx: Trx): Promise<{ escrow: EscrowCompany; sendNumber: number }> {
+    const invoice = await this.invoices.find(requestId, id, trx);
+    if (!invoice || invoice.kind !== 'closing-invoice') throw new NotFoundError('No such invoice payable at closing on this request');
+    const payment = invoice.paymentId === null ? null : await this.payments.lock(invoice.paymentId, trx);
+    if (payment?.status !== 'pending') throw new ConflictError('The funds for this invoice are recorded: there is nothing left to ask the escrow company for');
+    if (invoice.sendCount >= MAX_CLOSING_INVOICE_SENDS) throw new ConflictError(`This invoice was e-mailed ${MAX_CLOSING_INVOICE_SENDS} times already; download the PDF and send it yourself`);
+    const content = invoice.content as InvoiceContent;
+    const escrow: EscrowCompany = { company: content.escrow?.company ?? content.addressedTo.name, officer: content.escrow?.officer ?? '', fileNumber: content.escrow?.fileNumber ?? '', email };
+    return { escrow, sendNumber: await this.invoices.markSent(id, email, trx) };
   }
 
   /** A receipt after a card payment was credited (in the caller's transaction). */
@@ -89,6 +114,14 @@ export class InvoicesService {
     return { fileName: `${content.requestReference}-${content.number}.pdf`, pdf: await renderInvoicePdf(content) };
   }
 
+  /** The PDF of invoice `id` as the mail worker attaches it (no person asks: the outbox row named it). */
+  async attachment(id: number): Promise<MailAttachment> {
+    const invoice = await this.invoices.find(null, id);
+    if (!invoice) throw new NotFoundError('No such invoice');
+    const content = invoice.content as InvoiceContent;
+    return { fileName: `${content.requestReference}-${content.number}.pdf`, contentType: 'application/pdf', content: await renderInvoicePdf(content) };
+  }
+
   /** Money papers are for the seller's side, the contractor and administrators. */
   private async readable(user: CurrentUser, requestId: number): Promise<void> {
     const request = await this.access.get(user, requestId);
@@ -98,7 +131,7 @@ export class InvoicesService {
 
   private async write(
     requestId: number,
-    w: { kind: InvoiceKind; series: InvoiceSeries; addressedTo: InvoiceContent['addressedTo']; issuedBy: number | null; payment?: StoredPayment },
+    w: { kind: InvoiceKind; series: InvoiceSeries; addressedTo: InvoiceContent['addressedTo']; issuedBy: number | null; payment?: StoredPayment; sentTo?: string; escrow?: EscrowCompany },
     trx: Trx,
   ): Promise<StoredInvoice> {
     const scope = await this.scopes.load(requestId, trx);
@@ -108,7 +141,7 @@ export class InvoicesService {
     const payments = await this.payments.list(requestId, trx);
     const content = await this.compose(requestId, scope, scope.contractor, payments, w, invoiceNumber(w.series, number), trx);
     return this.invoices.insert(
-      { organisationId, series: w.series, number, requestId, kind: w.kind, paymentId: w.payment?.id ?? null, addressedTo: w.addressedTo, content, totalCents: w.kind === 'receipt' ? content.receiptFor!.amountCents : content.totalCents, balanceCents: content.balanceCents, issuedBy: w.issuedBy },
+      { organisationId, series: w.series, number, requestId, kind: w.kind, paymentId: w.payment?.id ?? null, addressedTo: w.addressedTo, content, sentTo: w.sentTo ?? null, totalCents: w.kind === 'receipt' ? content.receiptFor!.amountCents : content.totalCents, balanceCents: content.balanceCents, issuedBy: w.issuedBy },
       trx,
     );
   }
@@ -118,12 +151,13 @@ export class InvoicesService {
     scope: ApprovedScope,
     contractor: QuoteContractor,
     payments: readonly StoredPayment[],
-    w: { kind: InvoiceKind; addressedTo: InvoiceContent['addressedTo']; payment?: StoredPayment },
+    w: { kind: InvoiceKind; addressedTo: InvoiceContent['addressedTo']; payment?: StoredPayment; escrow?: EscrowCompany },
     number: string,
     trx: Trx,
   ): Promise<InvoiceContent> {
     const items = new Map((await this.approvals.lineItems(requestId, trx)).map((i) => [i.id, i]));
-    const request = await trx('repair_requests').where({ id: requestId }).first('street', 'city', 'state', 'zip');
+    const request = await trx('repair_requests').where({ id: requestId }).first('street', 'city', 'state', 'zip', 'closing_date');
+    const seller: { name: string | null } | undefined = await trx('request_parties as p').leftJoin('users as u', 'u.id', 'p.user_id').where({ 'p.request_id': requestId, 'p.role': 'seller' }).orderBy('p.id').first(trx.raw('coalesce(u.name, p.email) AS name'));
     const entries = new Map(scope.book.entries.map((e) => [e.id, e]));
     // The rows come from the shared engine and add up to the subtotal (the first-hour minimum is in the lines).
     const bill = billRows(scope.breakdown);
@@ -141,6 +175,10 @@ export class InvoicesService {
       number,
       requestReference: reference,
       property: `${request.street}, ${request.city}, ${request.state} ${request.zip}`,
+      issuedOn: dateOf(null),
+      closingDate: String(request.closing_date).slice(0, 10),
+      sellerName: seller?.name ?? null,
+      ...(w.escrow ? { escrow: w.escrow } : {}),
       contractor,
       addressedTo: w.addressedTo,
       lines,
@@ -156,7 +194,7 @@ export class InvoicesService {
       receiptFor: w.kind === 'receipt' && w.payment ? { date: dateOf(w.payment.paidAt), description: PURPOSE_LABELS[w.payment.purpose], amountCents: w.payment.amountCents } : null,
       instructions:
         w.kind === 'closing-invoice'
-          ? `Payable at closing from the seller's proceeds: ${formatCents(w.payment?.amountCents ?? account.balanceCents)} to ${contractor.name}${contractor.address ? `, ${contractor.address}` : ''}, by wire or cheque, quoting ${number} and request ${reference}. The contractor records the funds when received.`
+          ? `Payable at closing from the seller's proceeds: ${formatCents(w.payment?.amountCents ?? account.balanceCents)} to ${contractor.name}${contractor.address ? `, ${contractor.address}` : ''}, by wire or check, quoting ${number} and request ${reference}. The contractor records the funds when received.`
           : null,
     };
   }

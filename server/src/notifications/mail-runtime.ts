@@ -2,17 +2,22 @@
 // on loopback, whose messages fill the development mailbox), and the outbox worker with the daily
 // digest hung on its idle moments.
 import type { Config } from '../config/config';
-import { createSmtpTransport, type SmtpSettings } from '../integrations/mail/mail-transport';
+import { createSmtpTransport, type MailAttachment, type SmtpSettings } from '../integrations/mail/mail-transport';
+import type { OutboxRow } from './outbox.repository';
 import { startSmtpSink, type SmtpSink } from '../integrations/mail/smtp-sink';
 import type { Services } from '../services';
 import { digestDayDue } from './daily-digest';
 import { OutboxWorker } from './outbox-worker';
 
-
 export interface MailRuntime {
   sink: SmtpSink | null;
   worker: OutboxWorker | null;
   stop(): Promise<void>;
+}
+
+/** The files an outbox row carries: the PDF of the invoice it names, rendered when the worker sends it. */
+export function attachmentsFrom(services: Pick<Services, 'sellerSide'>): (row: OutboxRow) => Promise<MailAttachment[]> {
+  return async (row) => (row.attachment_invoice_id === null ? [] : [await services.sellerSide.invoices.attachment(row.attachment_invoice_id)]);
 }
 
 export async function startMail(config: Config, services: Services): Promise<MailRuntime> {
@@ -38,6 +43,7 @@ export async function startMail(config: Config, services: Services): Promise<Mai
         maxAttempts: 8,
         backoffMs: 30_000,
         pollMs: 1_000,
+        attachmentsOf: attachmentsFrom(services),
         onIdle: async () => {
           if (Date.now() - lastDigestCheck < 60_000) return;
           lastDigestCheck = Date.now();

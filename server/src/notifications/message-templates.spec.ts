@@ -20,7 +20,7 @@ describe('wordsFor a visit', () => {
     const words = wordsFor({ ...base, previous: null }, request);
     expect(words.subject).toBe("CC-00008: electrician's visit on Wednesday, February 10, 2027");
     expect(words.paragraphs[0]).toBe('The contractor booked visit 2 to 87 Tinsmith Way, Marlow Springs, CO 81290 on Wednesday, February 10, 2027, arriving between 1:00 PM and 3:30 PM.');
-    expect(words.action.path).toBe('/requests/8/work');
+    expect(words.action?.path).toBe('/requests/8/work');
   });
 
   it('says that a moved visit moved, and from when', () => {

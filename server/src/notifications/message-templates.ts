@@ -1,7 +1,7 @@
 // The words of every e-mail, in one place: a subject, a few paragraphs and one link to the page in
 // the portal where the person acts. `renderMessage` lays them out as HTML and as plain text.
 import { CORRECTION_OUTCOME_LABELS, CORRECTION_OUTCOMES, formatCents, formatCentsDelta, PARTY_ROLE_LABELS, type NotificationKind } from '@cc/shared';
-import type { NotifyInput, VisitWindow } from './notify-input';
+import type { EscrowRecipient, NotifyInput, VisitWindow } from './notify-input';
 
 export interface RequestFacts {
   id: number;
@@ -13,8 +13,8 @@ export interface RequestFacts {
 export interface MessageWords {
   subject: string;
   paragraphs: string[];
-  /** The button's words and the portal path it opens. */
-  action: { label: string; path: string };
+  /** The button's words and the portal path it opens; null for someone with no account (the escrow officer). */
+  action: { label: string; path: string } | null;
 }
 
 /** `2027-02-10` → `Wednesday, February 10, 2027` (the day as written, whatever the server's zone). */
@@ -27,6 +27,9 @@ const clockOf = (time: string) => {
 /** `Wednesday, February 10, 2027, arriving between 8:00 AM and 10:00 AM`. */
 export const visitWindowText = (w: VisitWindow) => `${dayOf(w.date)}, arriving between ${clockOf(w.arrivalFrom)} and ${clockOf(w.arrivalTo)}`;
 
+/** `Carla Ruiz at Pine Point Title (carla.ruiz@example.com)`. */
+const escrowContact = (e: EscrowRecipient) => `${e.officer ? `${e.officer} at ` : ''}${e.company} (${e.email})`;
+
 /** An outcome as a sentence about an item or a count of items says it. */
 const OUTCOME_WORDS: Record<ItemOutcome['outcome'], string> = { corrected: 'corrected', 'not-corrected': 'could not be corrected', 'declined-on-site': 'declined on site' };
 
@@ -35,11 +38,12 @@ export type ItemOutcome = Pick<Extract<NotifyInput, { kind: 'item-corrected' }>,
 
 /**
  * The words of an `item-corrected` message: one outcome, or the outcomes the contractor recorded
- * within a few minutes of each other, gathered into one message (NotificationsService).
+ * within a few minutes of each other, gathered into one message (NotificationsService). `letter`: the
+ * completion letter issued while the message was still gathering.
  */
-export function outcomesWords(r: RequestFacts, outcomes: readonly ItemOutcome[]): MessageWords {
+export function outcomesWords(r: RequestFacts, outcomes: readonly ItemOutcome[], letter: string | null = null): MessageWords {
   const action = { label: outcomes.length > 1 ? 'See the items' : 'See the item', path: `/requests/${r.id}/work` };
-  const next = 'The completion letter follows once every approved item has an outcome.';
+  const next = letter ? `Completion letter ${letter} is issued with these outcomes; it comes in its own message.` : 'The completion letter follows once every approved item has an outcome.';
   if (outcomes.length === 1) {
     const [one] = outcomes;
     return {
@@ -81,7 +85,7 @@ export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
       return {
         subject: `You are invited to the electrical repairs for ${r.address}`,
         paragraphs: [
-          `You have been named ${PARTY_ROLE_LABELS[input.role].toLowerCase()} on repair request ${r.reference} for ${r.address}, closing on ${r.closingDate}.`,
+          `You have been named ${PARTY_ROLE_LABELS[input.role].toLowerCase()} on repair request ${r.reference} for ${r.address}, closing on ${dayOf(r.closingDate)}.`,
           'Open the link to make your account (or sign in) and follow the repairs. The link works for 14 days.',
         ],
         action: { label: 'Open the invitation', path: `/invite/${input.inviteToken}` },
@@ -99,7 +103,7 @@ export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
       return {
         subject: `${r.reference}: ready to price — ${input.itemCount} items at ${r.address}`,
         paragraphs: [
-          `The agent confirmed ${input.itemCount} electrical ${input.itemCount === 1 ? 'item' : 'items'} for ${r.address}. Closing is on ${r.closingDate}.`,
+          `The agent confirmed ${input.itemCount} electrical ${input.itemCount === 1 ? 'item' : 'items'} for ${r.address}. Closing is on ${dayOf(r.closingDate)}.`,
           'Price them against your rate book and send the quote to the seller.',
         ],
         action: { label: 'Price the request', path: `${page}/pricing` },
@@ -109,7 +113,7 @@ export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
         subject: `${r.reference}: quote${input.version > 1 ? ` version ${input.version}` : ''} for ${r.address} — ${formatCents(input.totalCents)}`,
         paragraphs: [
           `The contractor sent ${input.version > 1 ? `version ${input.version} of ` : ''}the quote for the electrical repairs at ${r.address}: ${formatCents(input.totalCents)} in total.`,
-          'The seller reads it, approves the items to be done and signs. Closing is on ' + `${r.closingDate}.`,
+          'The seller reads it, approves the items to be done and signs. Closing is on ' + `${dayOf(r.closingDate)}.`,
         ],
         action: { label: 'Read the quote', path: `${page}/quotes/${input.version}` },
       };
@@ -123,7 +127,7 @@ export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
           ? [`The seller declined every item of the quote for ${r.address}. No work is booked on this request.`]
           : [
               `The seller approved and signed ${input.approvedCount} ${input.approvedCount === 1 ? 'item' : 'items'} for ${r.address}, ${formatCents(input.approvedCents)} in total${input.declinedCount ? `, and declined ${input.declinedCount}` : ''}.`,
-              `Next the seller chooses how to pay, and the contractor books the visit. Closing is on ${r.closingDate}.`,
+              `Next the seller chooses how to pay, and the contractor books the visit. Closing is on ${dayOf(r.closingDate)}.`,
             ],
         action: { label: 'See the decision', path: approvalPage },
       };
@@ -141,11 +145,23 @@ export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
       return {
         subject: `${r.reference}: ${formatCents(input.amountCents)} to be paid at closing`,
         paragraphs: [
-          `The seller's side chose to pay ${formatCents(input.amountCents)} for the electrical repairs at ${r.address} from the proceeds at closing (closing date ${r.closingDate}).`,
-          `Invoice ${input.invoiceNumber} went to the escrow company; the contractor records the funds when they arrive. The work goes ahead as approved.`,
+          `The seller's side chose to pay ${formatCents(input.amountCents)} for the electrical repairs at ${r.address} from the proceeds at closing (closing date ${dayOf(r.closingDate)}).`,
+          `Invoice ${input.invoiceNumber} was e-mailed with its PDF to ${escrowContact(input.escrow)}; the contractor records the funds when they arrive. The work goes ahead as approved.`,
         ],
         action: { label: 'See the invoice', path: approvalPage },
       };
+    case 'closing-invoice': {
+      const file = input.escrow.fileNumber ? ` and your file number ${input.escrow.fileNumber}` : '';
+      return {
+        subject: `Invoice ${input.invoiceNumber} payable at closing — ${r.address}${input.escrow.fileNumber ? ` (file ${input.escrow.fileNumber})` : ''}`,
+        paragraphs: [
+          `The seller's side of the sale of ${r.address}, closing on ${dayOf(r.closingDate)}, chose to pay for the electrical repairs from the proceeds at closing.`,
+          `Please pay ${formatCents(input.amountCents)} to ${input.payee} at closing. Invoice ${input.invoiceNumber} is attached as a PDF with the payment instructions; please quote it${file} with the payment.`,
+          `Questions about the work or the invoice go to ${input.payee}, who records the funds when they arrive.`,
+        ],
+        action: null,
+      };
+    }
     case 'change-order-sent':
       return {
         subject: `${r.reference}: change order ${input.number} to decide — ${formatCentsDelta(input.priceCents)}`,
@@ -219,8 +235,8 @@ export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
         subject: `${r.reference}: closing at risk`,
         paragraphs: [
           input.daysLeft < 0
-            ? `The closing date of ${r.address} (${r.closingDate}) has passed and the repairs are not finished.`
-            : `${r.address} closes in ${input.daysLeft} ${input.daysLeft === 1 ? 'day' : 'days'} (${r.closingDate}) and the repairs are not finished.`,
+            ? `The closing date of ${r.address} (${dayOf(r.closingDate)}) has passed and the repairs are not finished.`
+            : `${r.address} closes in ${input.daysLeft} ${input.daysLeft === 1 ? 'day' : 'days'} (${dayOf(r.closingDate)}) and the repairs are not finished.`,
         ],
         action: { label: 'Open the request', path: page },
       };
@@ -245,15 +261,14 @@ export interface Layout {
 }
 
 /** One message as plain text and HTML, with the same words and link in both. */
-export function layOut(words: Pick<MessageWords, 'subject' | 'paragraphs'> & { action: { label: string; url: string } }, layout: Layout, extraHtml = '', extraText = ''): RenderedMessage {
+export function layOut(words: Pick<MessageWords, 'subject' | 'paragraphs'> & { action: { label: string; url: string } | null }, layout: Layout, extraHtml = '', extraText = ''): RenderedMessage {
   const greeting = layout.recipientName ? `Hello ${layout.recipientName},` : 'Hello,';
   const text = [
     greeting,
     '',
     ...words.paragraphs.flatMap((p) => [p, '']),
     ...(extraText ? [extraText, ''] : []),
-    `${words.action.label}: ${words.action.url}`,
-    '',
+    ...(words.action ? [`${words.action.label}: ${words.action.url}`, ''] : []),
     '— Closing Circuit',
     ...(layout.footer ? ['', layout.footer] : []),
     ...(layout.footerLink ? [`${layout.footerLink.label}: ${layout.footerLink.url}`] : []),
@@ -264,16 +279,18 @@ export function layOut(words: Pick<MessageWords, 'subject' | 'paragraphs'> & { a
 <p>${escapeHtml(greeting)}</p>
 ${words.paragraphs.map((p) => `<p>${escapeHtml(p)}</p>`).join('\n')}
 ${extraHtml}
-<p><a href="${escapeHtml(words.action.url)}" style="display: inline-block; background: #1d4f91; color: #ffffff; padding: 0.6rem 1rem; border-radius: 4px; text-decoration: none;">${escapeHtml(words.action.label)}</a></p>
+${words.action ? `<p><a href="${escapeHtml(words.action.url)}" style="display: inline-block; background: #1d4f91; color: #ffffff; padding: 0.6rem 1rem; border-radius: 4px; text-decoration: none;">${escapeHtml(words.action.label)}</a></p>` : ''}
 <p style="color: #49454f;">— Closing Circuit</p>
 ${layout.footer ? `<p style="color: #49454f; font-size: 0.875rem;">${escapeHtml(layout.footer)}${layout.footerLink ? ` <a href="${escapeHtml(layout.footerLink.url)}">${escapeHtml(layout.footerLink.label)}</a>` : ''}</p>` : ''}
 </body></html>`;
-  return { subject: words.subject, text, html, link: words.action.url };
+  return { subject: words.subject, text, html, link: words.action?.url ?? '' };
 }
 
 export { escapeHtml };
 
 /** Footer words: why the person gets a message of this kind. */
 export function footerFor(kind: NotificationKind): string | null {
-  return kind === 'invitation' ? null : 'You get this message because you take part in this repair request.';
+  if (kind === 'invitation') return null;
+  if (kind === 'closing-invoice') return 'You get this message because the seller’s side named you as the escrow or title contact for this sale. No account is needed.';
+  return 'You get this message because you take part in this repair request.';
 }

@@ -50,6 +50,7 @@ const ACTIVITY_OF: Record<NotificationKind, ActivityKind | null> = {
   'items-decided': 'approvals',
   'payment-received': 'payments',
   'closing-payment-chosen': 'payments',
+  'closing-invoice': 'payments',
   'change-order-sent': 'approvals',
   'change-order-decided': 'approvals',
   'refund-settled': 'payments',
@@ -65,7 +66,15 @@ function amountOf(input: NotifyInput): number | null {
   if (input.kind === 'quote-sent') return input.totalCents;
   if (input.kind === 'items-decided') return input.approvedCents;
   if (input.kind === 'payment-received' || input.kind === 'refund-settled' || input.kind === 'closing-payment-chosen') return input.amountCents;
+  // The invoice's money is already on the entry of the choice; a send of it moves none.
   if (input.kind === 'change-order-sent' || input.kind === 'change-order-decided') return input.priceCents;
+  return null;
+}
+
+/** The one person outside the request's accounts a message is for (an invitee, the escrow officer), if any. */
+function outsider(input: NotifyInput): Recipient[] | null {
+  if (input.kind === 'invitation') return [{ userId: null, email: input.email, name: null }];
+  if (input.kind === 'closing-invoice') return [{ userId: null, email: input.escrow.email, name: input.escrow.officer || null }];
   return null;
 }
 
@@ -85,7 +94,7 @@ export class NotificationsService {
   async notify(trx: Trx, input: NotifyInput): Promise<number> {
     const facts = await this.requestFacts(input.requestId, trx);
     const rule = NOTIFICATION_RULES[input.kind];
-    const people = input.kind === 'invitation' ? [{ userId: null, email: input.email, name: null }] : await this.recipients(input.requestId, rule.to, input.actorUserId, trx);
+    const people = outsider(input) ?? (await this.recipients(input.requestId, rule.to, input.actorUserId, trx));
     const deliveries = await this.preferences.deliveries(
       people.flatMap((p) => (p.userId === null ? [] : [p.userId])),
       input.kind,
@@ -129,6 +138,7 @@ export class NotificationsService {
         html_body: message.html,
         link: message.link,
         message_id: this.messageId(key),
+        attachment_invoice_id: input.kind === 'closing-invoice' ? input.invoiceId : null,
         status: delivery === 'digest' ? 'held' : 'pending',
         ...(input.kind === 'item-corrected'
           ? {
@@ -158,15 +168,29 @@ export class NotificationsService {
     return written;
   }
 
+  /**
+   * The outcome messages of `requestId` still gathering go out now, saying that completion letter
+   * `letter` is issued, so that nobody reads "the letter follows" after the letter (in the caller's transaction).
+   */
+  async releaseGathered(requestId: number, letter: string, trx: Trx): Promise<void> {
+    const waiting = await this.outbox.allGathering(requestId, trx);
+    if (!waiting.length) return;
+    const facts = await this.requestFacts(requestId, trx);
+    for (const row of waiting) {
+      const message = this.render(outcomesWords(facts, row.gathered ?? [], letter), 'item-corrected', { userId: row.recipient_user_id, email: row.recipient_email, name: row.name });
+      await this.outbox.release(row.id, { subject: message.subject, text_body: message.text, html_body: message.html, link: message.link }, trx);
+    }
+  }
+
   /** One person's message: the words laid out as HTML and text with the greeting, footer and link. */
   private render(words: MessageWords, kind: NotifyInput['kind'], person: Recipient) {
     return layOut(
-      { ...words, action: { label: words.action.label, url: `${this.settings.publicUrl}${words.action.path}` } },
+      { ...words, action: words.action && { label: words.action.label, url: `${this.settings.publicUrl}${words.action.path}` } },
       {
         publicUrl: this.settings.publicUrl,
         recipientName: person.name,
         footer: footerFor(kind),
-        footerLink: kind === 'invitation' ? null : { label: 'Choose which messages you get', url: `${this.settings.publicUrl}/account` },
+        footerLink: NOTIFICATION_RULES[kind].isAdjustable ? { label: 'Choose which messages you get', url: `${this.settings.publicUrl}/account` } : null,
       },
     );
   }

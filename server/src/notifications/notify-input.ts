@@ -17,7 +17,8 @@ export type NotifyInput =
   | (Base & { kind: 'quote-sent'; version: number; totalCents: number })
   | (Base & { kind: 'items-decided'; approvedCount: number; declinedCount: number; approvedCents: number; decisionRef: string })
   | (Base & { kind: 'payment-received'; paymentId: number; amountCents: number; /** The receipt issued for it (card payments), e.g. RCT-000012. */ receiptNumber: string | null })
-  | (Base & { kind: 'closing-payment-chosen'; paymentId: number; amountCents: number; invoiceNumber: string })
+  | (Base & { kind: 'closing-payment-chosen'; paymentId: number; amountCents: number; invoiceNumber: string; /** Where the invoice was e-mailed. */ escrow: EscrowRecipient })
+  | (Base & { kind: 'closing-invoice'; invoiceId: number; invoiceNumber: string; amountCents: number; /** The contractor the funds are paid to. */ payee: string; escrow: EscrowRecipient; /** Counts the sends of one invoice (a second send to a corrected address is a new message). */ sendNumber: number })
   | (Base & { kind: 'change-order-sent'; changeOrderId: number; number: number; priceCents: number; reason: string })
   | (Base & { kind: 'change-order-decided'; changeOrderId: number; number: number; priceCents: number; isApproved: boolean })
   | (Base & { kind: 'refund-settled'; refundId: number; amountCents: number })
@@ -26,6 +27,14 @@ export type NotifyInput =
   | (Base & { kind: 'letter-issued'; letterNumber: string; revision: number })
   | (Base & { kind: 'proof-reviewed'; isAccepted: boolean; /** Items listed as not accepted (0 when accepted). */ notAcceptedCount: number; /** The review's timeline entry: one message per review. */ reviewRef: string })
   | (Base & { kind: 'closing-at-risk'; day: string; daysLeft: number });
+
+/** The escrow or title company an invoice payable at closing is e-mailed to. */
+export interface EscrowRecipient {
+  company: string;
+  officer: string;
+  email: string;
+  fileNumber: string;
+}
 
 /** A visit's day and arrival window, in the property's local time (`YYYY-MM-DD`, `HH:MM`). */
 export interface VisitWindow {
@@ -53,6 +62,8 @@ export function occurrenceOf(input: NotifyInput): string {
       return `payment-${input.paymentId}`;
     case 'closing-payment-chosen':
       return `closing-payment-${input.paymentId}`;
+    case 'closing-invoice':
+      return `invoice-${input.invoiceId}-send-${input.sendNumber}`;
     case 'change-order-sent':
       return `change-order-${input.changeOrderId}`;
     case 'change-order-decided':

@@ -5,7 +5,7 @@
 // one recorded as sent is never sent again. Failures are retried with exponential backoff and every
 // attempt is recorded in outbox_attempts.
 import { hostname } from 'node:os';
-import { isPermanentSmtpError, type MailTransport } from '../integrations/mail/mail-transport';
+import { isPermanentSmtpError, type MailAttachment, type MailTransport } from '../integrations/mail/mail-transport';
 import type { ClaimedMessage, OutboxRepository } from './outbox.repository';
 
 export interface OutboxWorkerOptions {
@@ -19,6 +19,8 @@ export interface OutboxWorkerOptions {
   backoffMs: number;
   /** Pause between looks at an empty outbox. */
   pollMs: number;
+  /** The files a message carries, made when it is sent (the invoice PDF named by the row). */
+  attachmentsOf?: (row: ClaimedMessage['row']) => Promise<MailAttachment[]>;
   /** Called between sends (the daily digest hangs here). */
   onIdle?: () => Promise<void>;
 }
@@ -58,6 +60,7 @@ export class OutboxWorker {
       this.outbox.renewLease(claim, this.options.leaseMs).catch((err: Error) => console.error('Outbox worker: could not renew a claim:', err.message));
     }, Math.max(100, Math.floor(this.options.leaseMs / 3)));
     try {
+      const attachments = (await this.options.attachmentsOf?.(row)) ?? [];
       await this.transport.send({
         from: this.options.from,
         to: row.recipient_email,
@@ -66,6 +69,7 @@ export class OutboxWorker {
         html: row.html_body,
         messageId: row.message_id,
         headers: { 'X-Closing-Circuit-Kind': row.kind },
+        ...(attachments.length ? { attachments } : {}),
       });
     } catch (err) {
       const message = (err as Error).message.slice(0, 1000);

@@ -28,12 +28,14 @@ export interface OutboxRow {
   digest_id: string | null;
   /** The outcomes an `item-corrected` message tells (several when gathered); null for other kinds. */
   gathered: ItemOutcome[] | null;
+  /** The invoice whose PDF the worker attaches when it sends the message (the escrow company's). */
+  attachment_invoice_id: number | null;
   created_at: Date;
 }
 
 export type NewOutboxMessage = Pick<
   OutboxRow,
-  'dedupe_key' | 'kind' | 'request_id' | 'recipient_user_id' | 'recipient_email' | 'subject' | 'text_body' | 'html_body' | 'link' | 'message_id'
+  'dedupe_key' | 'kind' | 'request_id' | 'recipient_user_id' | 'recipient_email' | 'subject' | 'text_body' | 'html_body' | 'link' | 'message_id' | 'attachment_invoice_id'
 > & { status: 'pending' | 'held'; gathered?: string; next_attempt_at?: Knex.Raw };
 
 /** A claimed message: the row and the token that proves this worker holds it. */
@@ -66,6 +68,21 @@ export class OutboxRepository {
       .forUpdate()
       .first('id', 'gathered');
     return row ?? null;
+  }
+
+  /** The `item-corrected` messages about `requestId` still waiting for more outcomes, locked until the end of `trx`. */
+  async allGathering(requestId: number, trx: Trx): Promise<(Pick<OutboxRow, 'id' | 'gathered' | 'recipient_user_id' | 'recipient_email'> & { name: string | null })[]> {
+    return trx('outbox_messages as o')
+      .leftJoin('users as u', 'u.id', 'o.recipient_user_id')
+      .where({ 'o.kind': 'item-corrected', 'o.request_id': requestId, 'o.status': 'pending', 'o.attempts': 0 })
+      .where('o.next_attempt_at', '>', trx.fn.now())
+      .forUpdate('o')
+      .select('o.id', 'o.gathered', 'o.recipient_user_id', 'o.recipient_email', 'u.name');
+  }
+
+  /** A gathering message written again and due at once, ahead of messages written after it in the same transaction. */
+  async release(id: string, message: Pick<OutboxRow, 'subject' | 'text_body' | 'html_body' | 'link'>, trx: Trx): Promise<void> {
+    await trx('outbox_messages').where({ id }).update({ ...message, next_attempt_at: trx.raw("now() - interval '1 second'") });
   }
 
   /** Writes a waiting message again with one more outcome (its words and the outcomes it tells). */

@@ -18,6 +18,8 @@ export function proofMessagesByMail(notifications: NotificationsService): ProofM
     },
 
     async letterIssued(trx, { requestId, by, letterNumber, revision }) {
+      // Outcomes still gathering go first, and say the letter is issued rather than to come.
+      await notifications.releaseGathered(requestId, letterNumber, trx);
       await notifications.notify(trx, { kind: 'letter-issued', requestId, actorUserId: by ?? null, letterNumber, revision });
     },
   };

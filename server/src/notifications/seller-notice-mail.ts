@@ -9,6 +9,14 @@ import type { NotificationsService } from './notifications.service';
 export function sellerNoticesByMail(notifications: NotificationsService): SellerNotices {
   const changeOrder = async (trx: Trx, id: number) =>
     (await trx('change_orders').where({ id }).first('number', 'price_cents', 'reason')) as { number: number; price_cents: number; reason: string };
+  /** An invoice payable at closing: its number, the amount it asks for and who is paid. */
+  const closingInvoice = async (trx: Trx, id: number) => {
+    const row: { series: InvoiceSeries; number: number; total_cents: number; balance_cents: number; content: { contractor: { name: string } }; payment_id: number | null } = await trx('invoices')
+      .where({ id })
+      .first('series', 'number', 'total_cents', 'balance_cents', 'content', 'payment_id');
+    const payment = row.payment_id === null ? undefined : await trx('payments').where({ id: row.payment_id }).first('amount_cents');
+    return { number: invoiceNumber(row.series, row.number), amountCents: (payment?.amount_cents as number | undefined) ?? row.balance_cents, payee: row.content.contractor.name };
+  };
   return {
     async quoteDecided(trx, { requestId, by, approvalId, at }) {
       const approval = await trx('quote_approvals').where({ id: approvalId }).first('approved_total_cents');
@@ -40,18 +48,15 @@ export function sellerNoticesByMail(notifications: NotificationsService): Seller
       });
     },
 
-    async closingPaymentChosen(trx, { requestId, by, paymentId, invoiceId, at }) {
-      const payment = await trx('payments').where({ id: paymentId }).first('amount_cents');
-      const invoice: { series: InvoiceSeries; number: number } = await trx('invoices').where({ id: invoiceId }).first('series', 'number');
-      await notifications.notify(trx, {
-        kind: 'closing-payment-chosen',
-        requestId,
-        actorUserId: by,
-        paymentId,
-        amountCents: payment.amount_cents,
-        invoiceNumber: invoiceNumber(invoice.series, invoice.number),
-        at,
-      });
+    async closingPaymentChosen(trx, { requestId, by, paymentId, invoiceId, escrow, at }) {
+      const invoice = await closingInvoice(trx, invoiceId);
+      await notifications.notify(trx, { kind: 'closing-invoice', requestId, actorUserId: by, invoiceId, invoiceNumber: invoice.number, amountCents: invoice.amountCents, payee: invoice.payee, escrow, sendNumber: 1, at });
+      await notifications.notify(trx, { kind: 'closing-payment-chosen', requestId, actorUserId: by, paymentId, amountCents: invoice.amountCents, invoiceNumber: invoice.number, escrow, at });
+    },
+
+    async closingInvoiceSent(trx, { requestId, by, invoiceId, escrow, sendNumber, at }) {
+      const invoice = await closingInvoice(trx, invoiceId);
+      await notifications.notify(trx, { kind: 'closing-invoice', requestId, actorUserId: by, invoiceId, invoiceNumber: invoice.number, amountCents: invoice.amountCents, payee: invoice.payee, escrow, sendNumber, at });
     },
 
     async changeOrderSent(trx, { requestId, by, changeOrderId }) {

@@ -1,5 +1,5 @@
 import { portalBaseFor } from '../http/portal-origin';
-import { actorsOnRequest, amountDue, paymentAccount, requestReference, type CreateRefund, type CurrentUser, type RecordFunds, type StartedPayment, type StartPaymentParsed } from '@cc/shared';
+import { actorsOnRequest, amountDue, paymentAccount, requestReference, type CreateRefund, type CurrentUser, type RecordFunds, type SendClosingInvoice, type StartedPayment, type StartPaymentParsed } from '@cc/shared';
 import type Stripe from 'stripe';
 import type { Db, Trx } from '../db/knex';
 import type { ApprovalRepository } from '../approvals/approval.repository';
@@ -67,7 +67,7 @@ export class PaymentsService {
       );
       if (input.plan !== 'at-closing') return { payment, invoiceNumber: null, isNew: true };
       const invoice = await this.invoices.issueClosingInvoice(requestId, payment, input.escrow, user.id, trx);
-      await this.notices.closingPaymentChosen(trx, { requestId, by: user.id, paymentId: payment.id, invoiceId: invoice.id });
+      await this.notices.closingPaymentChosen(trx, { requestId, by: user.id, paymentId: payment.id, invoiceId: invoice.id, escrow: input.escrow });
       return { payment, invoiceNumber: invoiceNumber(invoice.series, invoice.number), isNew: true };
     });
     const payment = result.payment.method === 'card' ? await this.checkoutFor(result.payment, user, portalBaseFor(this.publicUrl, origin)) : result.payment;
@@ -102,6 +102,17 @@ export class PaymentsService {
     const row = await trx('repair_requests').where({ id: requestId }).first('contractor_organisation_id');
     if (!row?.contractor_organisation_id) throw new ConflictError('The request has no contractor');
     return row.contractor_organisation_id;
+  }
+
+  /** The seller's side or the contractor e-mails the invoice payable at closing again, to the same or a corrected address. */
+  async sendClosingInvoice(user: CurrentUser, requestId: number, invoiceId: number, input: SendClosingInvoice): Promise<void> {
+    const request = await this.access.get(user, requestId);
+    assertMayAct(actorsOnRequest(user, request), 'send-closing-invoice', request.status, refusalMessages('send the invoice', request.status));
+    await this.db.transaction(async (trx) => {
+      await this.approvals.lockRequest(requestId, trx);
+      const { escrow, sendNumber } = await this.invoices.sendAgain(requestId, invoiceId, input.email, trx);
+      await this.notices.closingInvoiceSent(trx, { requestId, by: user.id, invoiceId, escrow, sendNumber });
+    });
   }
 
   /** The contractor records funds paid by the escrow company against an invoice payable at closing. */

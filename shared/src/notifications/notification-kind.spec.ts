@@ -29,7 +29,7 @@ describe('partiesTold', () => {
 
   it('names the parties with an account whose part the rule sends the message to', () => {
     expect(partiesTold('quote-sent', parties).map((p) => p.name)).toEqual(['Tomás Garza', 'Robert Hale', 'Maya Chen']);
-    expect(partiesTold('letter-issued', parties).map((p) => p.role)).toEqual(['listing-agent', 'buyer-agent', 'inspector']);
+    expect(partiesTold('letter-issued', parties).map((p) => p.role)).toEqual(['seller', 'listing-agent', 'buyer-agent', 'inspector']);
     expect(partiesTold('ready-to-price', parties)).toEqual([]);
   });
 });

@@ -11,6 +11,7 @@ export const NOTIFICATION_KINDS = [
   'items-decided',
   'payment-received',
   'closing-payment-chosen',
+  'closing-invoice',
   'change-order-sent',
   'change-order-decided',
   'refund-settled',
@@ -47,7 +48,10 @@ export const NOTIFICATION_RULES: Record<NotificationKind, NotificationKindRule> 
   'quote-sent': { label: 'Quote sent', to: ['seller', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
   'items-decided': { label: 'Items approved or declined', to: ['contractor', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
   'payment-received': { label: 'Payment received', to: ['contractor', 'seller', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
-  'closing-payment-chosen': { label: 'Payment at closing chosen', to: ['contractor', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
+  // The seller too: the listing agent may choose it for them.
+  'closing-payment-chosen': { label: 'Payment at closing chosen', to: ['contractor', 'seller', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
+  // To the escrow officer named when payment at closing was chosen (not a party: no account, no preferences).
+  'closing-invoice': { label: 'Invoice to the escrow company', to: [], defaultDelivery: 'immediate', isAdjustable: false },
   // Who decides a change order, who sends it, who pays and who refunds: as the flow table says.
   'change-order-sent': { label: 'Change order to decide', to: REQUEST_ACTIONS['decide-change-order'].by, defaultDelivery: 'immediate', isAdjustable: true },
   'change-order-decided': { label: 'Change order approved or declined', to: REQUEST_ACTIONS['send-change-order'].by, defaultDelivery: 'immediate', isAdjustable: true },
@@ -55,7 +59,8 @@ export const NOTIFICATION_RULES: Record<NotificationKind, NotificationKindRule> 
   // The buyer's agent too: the visit decides whether the repairs are done before closing.
   'visit-scheduled': { label: 'Visit scheduled', to: ['seller', 'listing-agent', 'buyer-agent'], defaultDelivery: 'immediate', isAdjustable: true },
   'item-corrected': { label: 'Item corrected', to: ['buyer-agent', 'listing-agent', 'seller'], defaultDelivery: 'immediate', isAdjustable: true },
-  'letter-issued': { label: 'Completion letter issued', to: ['inspector', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
+  // The seller too: the letter is the proof of the repairs they paid for.
+  'letter-issued': { label: 'Completion letter issued', to: ['inspector', 'buyer-agent', 'listing-agent', 'seller'], defaultDelivery: 'immediate', isAdjustable: true },
   // The last step of the work: the contractor learns it is signed off (or what to take back), the seller's side and the agents that the repairs are done.
   'proof-reviewed': { label: 'Corrections accepted or not accepted', to: ['contractor', 'seller', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
   'closing-at-risk': {
@@ -119,6 +124,8 @@ export const CapturedMailSchema = z.object({
   subject: z.string(),
   text: z.string(),
   html: z.string(),
+  /** What the message carried as files (names and sizes; the mailbox keeps no file content). */
+  attachments: z.array(z.object({ fileName: z.string(), contentType: z.string(), bytes: z.number().int() })),
   receivedAt: z.string(),
 });
 export type CapturedMail = z.infer<typeof CapturedMailSchema>;

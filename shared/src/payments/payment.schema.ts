@@ -91,10 +91,15 @@ export const PaymentPlanSchema = z.enum(PAYMENT_PLANS);
 export const EscrowCompanySchema = z.object({
   company: trimmedText(200).pipe(z.string().min(2, 'Name the escrow or title company')),
   officer: trimmedText(200).default(''),
-  email: z.union([z.literal(''), z.email('Enter an e-mail address like name@example.com')]).default(''),
+  /** Where the invoice is e-mailed: an invoice nobody sends is missed at closing. */
+  email: z.string().trim().min(1, 'Enter the e-mail address the invoice is sent to').max(254, 'Use at most 254 characters').pipe(z.email('Enter an e-mail address like name@example.com')),
   fileNumber: trimmedText(80).default(''),
 });
 export type EscrowCompany = z.infer<typeof EscrowCompanySchema>;
+
+/** E-mail an invoice payable at closing again, to the same or a corrected address. */
+export const SendClosingInvoiceSchema = z.object({ email: EscrowCompanySchema.shape.email });
+export type SendClosingInvoice = z.infer<typeof SendClosingInvoiceSchema>;
 
 export const StartPaymentSchema = z.discriminatedUnion('plan', [
   z.object({ plan: z.literal('card-deposit'), idempotencyKey: IdempotencyKeySchema }),
@@ -224,6 +229,8 @@ export const InvoiceSummarySchema = z.object({
   totalCents: z.number().int(),
   balanceCents: z.number().int(),
   pdfPath: z.string(),
+  /** An invoice payable at closing: the address it was last e-mailed to (null for the others). */
+  sentTo: z.string().nullable(),
 });
 export type InvoiceSummary = z.infer<typeof InvoiceSummarySchema>;
 
@@ -270,6 +277,7 @@ export const ApprovalViewSchema = z.object({
     sendChangeOrder: z.boolean(),
     decideChangeOrder: z.boolean(),
     issueInvoice: z.boolean(),
+    sendClosingInvoice: z.boolean(),
   }),
   /** What happens next and who acts, in a sentence. */
   nextStep: z.string(),

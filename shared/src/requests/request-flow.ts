@@ -120,6 +120,8 @@ export const REQUEST_ACTIONS = {
   // Money goes back (an approved item taken out by a change order, an overpayment) and invoices are issued by the contractor.
   refund: { in: AFTER_APPROVAL, by: ['contractor'] },
   'issue-invoice': { in: AFTER_APPROVAL, by: ['contractor'] },
+  // The invoice payable at closing went to a wrong or old address: whoever chose it, or the contractor, sends it again.
+  'send-closing-invoice': { in: AFTER_APPROVAL, by: [...SELLER_SIDE, 'contractor'] },
   'book-visit': { in: ['approved', 'scheduled', 'in-progress', 'reopened'], by: ['contractor'] },
   'record-correction': { in: ['scheduled', 'in-progress', 'reopened'], by: ['contractor'] },
   // A started visit is finished when the electrician leaves, also after its last item's outcome moved the request on.

@@ -12,6 +12,7 @@ interface CapturedRow {
   subject: string;
   text_body: string;
   html_body: string;
+  attachments: CapturedMail['attachments'];
   received_at: Date;
 }
 
@@ -23,6 +24,7 @@ const toMail = (r: CapturedRow): CapturedMail => ({
   subject: r.subject,
   text: r.text_body,
   html: r.html_body,
+  attachments: r.attachments,
   receivedAt: r.received_at.toISOString(),
 });
 
@@ -37,6 +39,7 @@ export class CapturedMailRepository {
       subject: message.subject.slice(0, 500),
       text_body: message.text,
       html_body: message.html,
+      attachments: JSON.stringify(message.attachments.map((a) => ({ fileName: a.fileName.slice(0, 200), contentType: a.contentType.slice(0, 100), bytes: a.content.length }))),
     });
   }
 

@@ -10,6 +10,14 @@ export interface OutgoingMail {
   /** Fixed per outbox row, so a receiving system can tell a message it already has. */
   messageId: string;
   headers?: Record<string, string>;
+  attachments?: MailAttachment[];
+}
+
+/** A file sent with a message (the invoice PDF to the escrow company). */
+export interface MailAttachment {
+  fileName: string;
+  contentType: string;
+  content: Buffer;
 }
 
 export interface MailTransport {
@@ -57,6 +65,7 @@ export function createSmtpTransport(settings: SmtpSettings): MailTransport {
         html: mail.html,
         messageId: mail.messageId,
         headers: mail.headers,
+        attachments: mail.attachments?.map((a) => ({ filename: a.fileName, contentType: a.contentType, content: a.content })),
       });
     },
     close: () => transporter.close(),

@@ -12,6 +12,8 @@ export interface CapturedMessage {
   subject: string;
   text: string;
   html: string;
+  /** The files it carried. */
+  attachments: { fileName: string; contentType: string; content: Buffer }[];
   /** The raw message as received. */
   raw: Buffer;
 }
@@ -44,6 +46,7 @@ export async function parseMessage(raw: Buffer): Promise<CapturedMessage> {
     subject: parsed.subject ?? '',
     text: parsed.text ?? '',
     html: typeof parsed.html === 'string' ? parsed.html : '',
+    attachments: parsed.attachments.map((a) => ({ fileName: a.filename ?? 'attachment', contentType: a.contentType, content: a.content })),
     raw,
   };
 }

@@ -1,6 +1,7 @@
 import type { InvoiceContent } from '../../invoices/invoices.service';
 import { createPdfLayout, MARGIN, MUTED } from './pdf-layout';
 import { formatCents } from '@cc/shared';
+import { formatDay } from './quote-pdf';
 
 /** An invoice, an invoice payable at closing, or a receipt, as a PDF to download. */
 export function renderInvoicePdf(c: InvoiceContent): Promise<Buffer> {
@@ -11,6 +12,8 @@ export function renderInvoicePdf(c: InvoiceContent): Promise<Buffer> {
   doc.moveDown(1);
   doc.font('strong').fontSize(14).fillColor('black').text(`${c.title} ${c.number}`);
   paragraph(`Request ${c.requestReference} · ${c.property}`);
+  const facts = [c.issuedOn && `Issued ${formatDay(c.issuedOn)}`, c.sellerName && `Seller: ${c.sellerName}`, c.closingDate && `Closing ${formatDay(c.closingDate)}`].filter(Boolean);
+  if (facts.length) paragraph(facts.join(' · '), 10, MUTED);
   heading('To');
   paragraph(c.addressedTo.name);
   for (const line of c.addressedTo.lines) paragraph(line, 10, MUTED);

@@ -1,18 +1,6 @@
 import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
-import {
-  ApprovalView,
-  ApprovalViewSchema,
-  CreateChangeOrder,
-  CreateRefund,
-  DecideChangeOrder,
-  InvoiceSummary,
-  RecordFunds,
-  SignApproval,
-  StartedPayment,
-  StartedPaymentSchema,
-  StartPayment,
-} from '@cc/shared';
+import { ApprovalView, ApprovalViewSchema, CreateChangeOrder, CreateRefund, DecideChangeOrder, InvoiceSummary, RecordFunds, SendClosingInvoice, SignApproval, StartedPayment, StartedPaymentSchema, StartPayment } from '@cc/shared';
 import { map, Observable } from 'rxjs';
 
 /** The seller's side of one request: the decision page, signing, paying, change orders and invoices. */
@@ -47,6 +35,11 @@ export class ApprovalApi {
 
   decideChangeOrder(requestId: number, changeOrderId: number, body: DecideChangeOrder): Observable<ApprovalView> {
     return this.http.post<unknown>(this.path(requestId, `change-orders/${changeOrderId}/decision`), body).pipe(map((b) => ApprovalViewSchema.parse(b)));
+  }
+
+  /** E-mails the invoice payable at closing again (to the same or a corrected address); the page as it now stands. */
+  sendClosingInvoice(requestId: number, invoiceId: number, body: SendClosingInvoice): Observable<ApprovalView> {
+    return this.http.post<unknown>(this.path(requestId, `invoices/${invoiceId}/send`), body).pipe(map((b) => ApprovalViewSchema.parse(b)));
   }
 
   issueInvoice(requestId: number): Observable<InvoiceSummary> {

@@ -7,7 +7,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
-import { ApprovalView, EscrowCompanySchema, Payment, PaymentPlan } from '@cc/shared';
+import { ApprovalView, EscrowCompanySchema, InvoiceSummary, Payment, PaymentPlan, SendClosingInvoiceSchema } from '@cc/shared';
 import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
@@ -53,6 +53,10 @@ export class MoneyPanel {
     fileNumber: new FormControl('', { nonNullable: true }),
   });
 
+  /** The invoice payable at closing being e-mailed again, and the address it goes to. */
+  protected readonly resending = signal<number | null>(null);
+  protected readonly resendForm = new FormGroup({ email: new FormControl('', { nonNullable: true, validators: zodValidator(SendClosingInvoiceSchema.shape.email) }) });
+
   protected readonly account = computed(() => this.view().account);
   protected readonly chosen = computed(() => this.view().plans.find((p) => p.plan === this.plan()) ?? null);
 
@@ -88,7 +92,7 @@ export class MoneyPanel {
           return;
         }
         this.isBusy.set(false);
-        this.notice.success(`Invoice ${started.invoiceNumber} is ready for the escrow company.`);
+        this.notice.success(`Invoice ${started.invoiceNumber} is on its way by e-mail to ${this.escrow.getRawValue().email.trim()}.`);
         this.reload();
       },
       error: (err: unknown) => {
@@ -101,6 +105,31 @@ export class MoneyPanel {
   /** Back to a payment page that is still open (the payer left it before paying). */
   protected resume(payment: Payment): void {
     if (payment.checkoutUrl) this.leave.emit(payment.checkoutUrl);
+  }
+
+  protected startResend(invoice: InvoiceSummary): void {
+    this.resendForm.reset({ email: invoice.sentTo ?? '' });
+    this.resending.set(invoice.id);
+  }
+
+  protected resend(invoice: InvoiceSummary): void {
+    this.resendForm.markAllAsTouched();
+    if (this.resendForm.invalid || this.isBusy()) return;
+    this.isBusy.set(true);
+    const email = this.resendForm.getRawValue().email.trim();
+    this.api.sendClosingInvoice(this.view().requestId, invoice.id, { email }).subscribe({
+      next: (view) => {
+        this.isBusy.set(false);
+        this.resending.set(null);
+        this.notice.success(`Invoice ${invoice.number} is on its way by e-mail to ${email}.`);
+        this.changed.emit(view);
+      },
+      error: (err: unknown) => {
+        this.isBusy.set(false);
+        // A refused address shows under the field; anything else (funds recorded meanwhile) as a notice.
+        if (applyServerErrors(this.resendForm, err)) this.notice.failure(err);
+      },
+    });
   }
 
   protected issueInvoice(): void {

@@ -1,7 +1,8 @@
-import { DatePipe } from '@angular/common';
+import { DatePipe, DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
+import { MatIconModule } from '@angular/material/icon';
 import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTabsModule } from '@angular/material/tabs';
@@ -22,7 +23,7 @@ const OUTBOX_LABELS: Record<string, string> = {
 /** Administrators' view of the e-mail the local sink caught instead of delivering (development only). */
 @Component({
   selector: 'cc-mailbox',
-  imports: [DatePipe, MatButtonModule, MatCardModule, MatPaginatorModule, MatProgressBarModule, MatTabsModule],
+  imports: [DatePipe, DecimalPipe, MatButtonModule, MatCardModule, MatIconModule, MatPaginatorModule, MatProgressBarModule, MatTabsModule],
   templateUrl: './mailbox.html',
   styleUrl: './mailbox.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
