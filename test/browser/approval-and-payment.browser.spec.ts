@@ -1,6 +1,6 @@
 import type { Browser, Page } from 'playwright-core';
 import { seriousViolations } from '../helpers/axe';
-import { openPage, launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
+import { clippedIcons, openPage, launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
 
 jest.setTimeout(180_000);
 
@@ -45,6 +45,8 @@ async function sellerApprovesAndPays(): Promise<{ requestId: string; depositLabe
   expect(await items.count()).toBe(3);
   await expectAxeClean(page);
   expect(await overflowsSideways(page)).toBe(false);
+  // The "Next" banner's icon and every other icon show whole at 390 px.
+  expect(await clippedIcons(page)).toEqual([]);
   await screenshot(page, 'approval-phone-undecided');
 
   // Signing before deciding every item says what is missing.
@@ -56,6 +58,15 @@ async function sellerApprovesAndPays(): Promise<{ requestId: string; depositLabe
   await items.nth(0).getByTestId('decision-approve').locator('button').click();
   await items.nth(1).getByTestId('decision-approve').locator('button').click();
   await items.nth(2).getByTestId('decision-decline').locator('button').click();
+  // The chosen button shows its own icon only (✓ Approve, ✕ Decline), not Material's tick as well.
+  expect(await page.locator('[data-testid="decision-item"] .mat-button-toggle-checked .mat-pseudo-checkbox').count()).toBe(0);
+  expect(await page.locator('[data-testid="decision-item"] .mat-button-toggle-checked mat-icon').count()).toBe(3);
+  // Declining a safety item (here the smoke alarm, a GFCI or reversed polarity; all "safety" in the
+  // finding-code table) shows one caution line beside the decision, and still lets it stand.
+  expect(await items.nth(2).getByTestId('decision-caution').count()).toBe(1);
+  expect(await items.nth(0).getByTestId('decision-caution').count()).toBe(0);
+  const declinedWhat = (await items.nth(2).getByTestId('decision-where').textContent()) ?? '';
+  expect(await items.nth(2).getByTestId('decision-caution').textContent()).toMatch(/smoke/i.test(declinedWhat) ? /smoke and CO alarms protect lives/i : /safety hazard/);
   await items.nth(2).getByTestId('decision-note').fill('We will offer the buyer a credit for this one');
   await page.getByTestId('decision-totals').waitFor();
   // The amounts shown beside the approved items are the prices signed: the same after signing.

@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
 import { FINDING_CODE_TABLE } from '@cc/shared';
-import { expectAccessible, launchBrowser, openPage, portalUrl, screenshot, signInAs } from '../helpers/browser';
+import { clippedIcons, expectAccessible, fitsSideways, launchBrowser, openPage, portalUrl, screenshot, signInAs } from '../helpers/browser';
 
 jest.setTimeout(180_000);
 
@@ -74,12 +74,31 @@ async function priceAndSend(): Promise<{ requestId: string; sentTotal: string }>
   expect(autoCents).toBeLessThanOrEqual(range.highCents);
   await screenshot(page, 'pricing-auto-priced');
 
+  // On a 1280 px laptop every column of the table shows beside the totals, the amount included,
+  // without scrolling the table sideways; no icon is cut (the caution box's among them).
+  await page.setViewportSize({ width: 1280, height: 1000 });
+  expect(await fitsSideways(page, 'pricing-table-frame')).toBe(true);
+  const frameBox = (await page.getByTestId('pricing-table-frame').boundingBox())!;
+  const amountBox = (await page.getByRole('columnheader', { name: 'Amount' }).boundingBox())!;
+  expect(amountBox.x + amountBox.width).toBeLessThanOrEqual(frameBox.x + frameBox.width);
+  expect((await page.getByRole('columnheader', { name: 'Status' }).textContent())?.trim()).toBe('Status');
+  expect(await clippedIcons(page)).toEqual([]);
+  await screenshot(page, 'pricing-auto-priced-1280');
+  await page.setViewportSize({ width: 1440, height: 1000 });
+
   // Select both GFCI findings at once and give them a site condition.
   // Plain words on every pick, never the finding code itself.
   const picks = await page.getByTestId('pricing-pick-code').allTextContents();
   for (const code of Object.keys(FINDING_CODE_TABLE)) expect(picks.join(' ')).not.toContain(code);
   await page.getByTestId('pricing-pick-code').filter({ hasText: 'All 2: No ground-fault (GFCI) protection' }).click();
   expect(await page.getByTestId('bulk-selected-count').textContent()).toContain('2 items selected');
+  // A quantity that is not a whole number is refused in plain words, shown whole under the field.
+  await page.getByTestId('bulk-quantity').fill('1.5');
+  await page.getByTestId('bulk-quantity').blur();
+  const quantityError = page.getByTestId('bulk-quantity-error');
+  await quantityError.filter({ hasText: 'Use a whole number, without decimals' }).waitFor();
+  expect(await fitsSideways(page, 'bulk-quantity-error')).toBe(true);
+  await page.getByTestId('bulk-quantity').fill('');
   await page.getByRole('checkbox', { name: 'Set site conditions' }).check();
   await page.getByTestId('bulk-adders').click();
   await page.locator('mat-option').filter({ hasText: 'Shallow or crowded box' }).click();
@@ -153,6 +172,8 @@ async function sellerReadsQuote(requestId: string, sentTotal: string): Promise<v
   expect(await page.getByTestId('quote-line').count()).toBe(4);
   expect(await page.getByTestId('quote-note').textContent()).toContain('shallow');
   expect(await page.getByTestId('quote-safety-notice').textContent()).toMatch(/licensed/i);
+  // The caution box's icon shows whole beside its long text.
+  expect(await clippedIcons(page)).toEqual([]);
   expect(await page.getByTestId('quote-licence').textContent()).toMatch(/Licence \S+/);
   await screenshot(page, 'quote-seller');
 
@@ -161,6 +182,13 @@ async function sellerReadsQuote(requestId: string, sentTotal: string): Promise<v
   const pdf = readFileSync(await download.path());
   // A PDF file starts with the "%PDF-" header (ISO 32000-1, 7.5.2).
   expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+
+  // On the approval page a quantity reads with its unit as on the quote ("2 devices", not "2 device").
+  await page.goto(portalUrl(`/requests/${requestId}/approval`));
+  await page.getByTestId('decision-item').first().waitFor();
+  const where = await page.getByTestId('decision-where').allTextContents();
+  expect(where.some((text) => /· 2 devices$/.test(text.trim()))).toBe(true);
+  expect(where.some((text) => /· [2-9]\d* device$/.test(text.trim()))).toBe(false);
   await page.close();
 }
 

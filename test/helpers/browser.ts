@@ -71,6 +71,28 @@ export async function signInAs(page: Page, email: string, password = DEMO_PASSWO
   await expectAccessible(page);
 }
 
+/**
+ * The visible Material icons narrower or lower than their glyph: mat-icon hides what overflows its box,
+ * so such an icon shows as a sliver (a caution icon squeezed by the long line of text beside it).
+ */
+export function clippedIcons(page: Page): Promise<string[]> {
+  return page.evaluate(() =>
+    Array.from(document.querySelectorAll<HTMLElement>('mat-icon'))
+      .filter((icon) => icon.offsetParent !== null)
+      .filter((icon) => {
+        const box = icon.getBoundingClientRect();
+        const size = parseFloat(getComputedStyle(icon).fontSize);
+        return box.width + 0.5 < size || box.height + 0.5 < size;
+      })
+      .map((icon) => `${icon.textContent?.trim()} (${Math.round(icon.getBoundingClientRect().width)} px)`),
+  );
+}
+
+/** Whether `testId`'s element shows all of its content without scrolling sideways. */
+export function fitsSideways(page: Page, testId: string): Promise<boolean> {
+  return page.getByTestId(testId).first().evaluate((el) => el.scrollWidth <= el.clientWidth + 1);
+}
+
 /** Saves a full-page screenshot after checking the page with axe (a screenshot marks a page the test visits). */
 export async function screenshot(page: Page, name: string): Promise<string> {
   await expectAccessible(page);

@@ -5,7 +5,7 @@ import { MatCardModule } from '@angular/material/card';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
-import { ApprovalView, ITEM_STATUS_LABELS, placeLabel } from '@cc/shared';
+import { ApprovalView, ITEM_STATUS_LABELS, placeLabel, quantityLabel } from '@cc/shared';
 import { catchError, map, of, switchMap } from 'rxjs';
 import { describeFailure } from '../../core/http/api-error-of';
 import { Notice } from '../../core/http/notice';
@@ -57,6 +57,7 @@ export class ApprovalPage {
   protected readonly loadError = computed(() => this.loaded()?.error ?? null);
   protected readonly label = codeLabel;
   protected readonly place = placeLabel;
+  protected readonly quantity = quantityLabel;
   protected readonly itemStatusLabel = ITEM_STATUS_LABELS;
 
   /** The payment the payer came back from, as the server now knows it. */

@@ -7,7 +7,17 @@ import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { ApprovalView, DECISION_NOTE_MAX, DecisionNoteSchema, lineAmountsOf, placeLabel, priceScope, SignApprovalSchema } from '@cc/shared';
+import {
+  ApprovalView,
+  DECISION_NOTE_MAX,
+  declineCaution,
+  DecisionNoteSchema,
+  lineAmountsOf,
+  placeLabel,
+  priceScope,
+  quantityLabel,
+  SignApprovalSchema,
+} from '@cc/shared';
 import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
@@ -38,6 +48,9 @@ export class DecisionForm {
 
   protected readonly label = codeLabel;
   protected readonly place = placeLabel;
+  protected readonly quantity = quantityLabel;
+  /** The caution beside a declined item whose finding is a safety hazard (it never blocks the decline). */
+  protected readonly caution = declineCaution;
   protected readonly decisions = signal<Partial<Record<number, Decision>>>({});
   protected readonly noteMax = DECISION_NOTE_MAX;
   protected readonly isSending = signal(false);
