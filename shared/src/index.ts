@@ -83,3 +83,4 @@ export * from './day-plan/window-order';
 export * from './economics/economics.schema';
 export * from './economics/pick-list';
 export * from './economics/day-economics';
+export * from './readings/readings-to-judge';

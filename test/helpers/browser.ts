@@ -3,6 +3,7 @@ import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import AxeBuilder from '@axe-core/playwright';
 import { chromium, type Browser, type BrowserContextOptions, type Page } from 'playwright-core';
+import { settled } from './axe';
 
 export const SCREENSHOTS = join(__dirname, '..', '..', 'test-results', 'screenshots');
 
@@ -40,19 +41,7 @@ export async function openPage(browser: Browser, options: BrowserContextOptions 
  * violation. Every browser test calls it on every page it visits.
  */
 export async function expectAccessible(page: Page): Promise<void> {
-  // The page as it settles: a hint or error fading in is measured at its final colour, not mid-way
-  // (finite animations only, at most 2 s; a spinner's endless one is left running).
-  // A snack bar coming or going is waited for too (its classes mark the animation before it runs).
-  await page.evaluate(async () => {
-    const until = Date.now() + 2000;
-    while (document.querySelector('.mat-snack-bar-container-enter, .mat-snack-bar-container-exit') && Date.now() < until) {
-      await new Promise((resolve) => setTimeout(resolve, 50));
-    }
-    await Promise.race([
-      Promise.all(document.getAnimations().filter((a) => a.effect?.getComputedTiming().endTime !== Infinity).map((a) => a.finished.catch(() => undefined))),
-      new Promise((resolve) => setTimeout(resolve, Math.max(0, until - Date.now()))),
-    ]);
-  });
+  await settled(page);
   const results = await new AxeBuilder({ page }).analyze();
   const blocking = results.violations
     .filter((v) => v.impact === 'serious' || v.impact === 'critical')

@@ -10,6 +10,9 @@ export function errorMessage(errors: ValidationErrors | null): string {
   if (typeof errors[ZOD_ERROR] === 'string') return errors[ZOD_ERROR];
   if (errors['matDatepickerParse']) return 'Enter a date such as 6/30/2026';
   if (errors['required']) return 'This field is needed';
+  // The min and max attributes of a number field (e.g. 0 to 40 receptacles).
+  if (errors['max']) return `Use at most ${(errors['max'] as { max: number }).max}`;
+  if (errors['min']) return `Use at least ${(errors['min'] as { min: number }).min}`;
   return 'Check this field';
 }
 

@@ -21,7 +21,7 @@ import {
   PHOTO_KINDS,
   PhotoKind,
   READING_KIND_LABELS,
-  ReadingsSchema,
+  readingsToJudge,
   RecordCorrectionSchema,
   RETURN_CAUSE_LABELS,
   RETURN_CAUSES,
@@ -131,8 +131,9 @@ export class CorrectionForm {
     this.value();
     const item = this.item();
     if (!item) return [];
-    const parsed = ReadingsSchema.safeParse(readingsOf(this.form.controls.readings.getRawValue(), item.readingKinds));
-    return parsed.success ? evaluateReadings(parsed.data, { labels: this.chosenLabels() }) : [];
+    // Each reading is judged as soon as it is complete, even while another is out of range.
+    const { readings, unjudged } = readingsToJudge(readingsOf(this.form.controls.readings.getRawValue(), item.readingKinds));
+    return evaluateReadings(readings, { labels: this.chosenLabels() }).filter((e) => !unjudged.includes(e.key));
   });
   /**
    * Readings outside their expected range while the outcome is "Corrected": the item is then recorded

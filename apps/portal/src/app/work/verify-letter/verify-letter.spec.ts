@@ -1,6 +1,6 @@
 import { HttpErrorResponse } from '@angular/common/http';
 import { TestBed } from '@angular/core/testing';
-import { provideRouter } from '@angular/router';
+import { provideRouter, Router } from '@angular/router';
 import { of, throwError } from 'rxjs';
 import { WorkApi } from '../work-api';
 import { VerifyLetter } from './verify-letter';
@@ -18,6 +18,18 @@ describe('VerifyLetter', () => {
     expect(message?.textContent).toContain('No letter has this code');
     expect(message?.textContent).toContain('Check the code printed beside the QR code');
     expect(host.querySelector('[data-testid="verify-code"]')).not.toBeNull();
+  });
+
+  it('asks for the code when "Look up" is pressed with none typed, and goes nowhere', async () => {
+    TestBed.configureTestingModule({ providers: [provideRouter([]), { provide: WorkApi, useValue: { verify: jest.fn() } }] });
+    const fixture = TestBed.createComponent(VerifyLetter);
+    fixture.detectChanges();
+    const host: HTMLElement = fixture.nativeElement;
+    const navigate = jest.spyOn(TestBed.inject(Router), 'navigate');
+    host.querySelector<HTMLButtonElement>('form.lookup button[type="submit"]')!.click();
+    fixture.detectChanges();
+    expect(host.querySelector('[data-testid="verify-code-error"]')?.textContent).toContain('Enter the verification code printed on the letter');
+    expect(navigate).not.toHaveBeenCalled();
   });
 });
 

@@ -58,9 +58,16 @@ export class VerifyLetter {
   protected readonly fileError = signal<string | null>(null);
   protected readonly isChecking = signal(false);
 
+  /** Said when "Look up" is pressed with no code typed. */
+  protected readonly codeError = signal<string | null>(null);
+
   protected lookUp(): void {
     const code = this.typedCode.trim().toUpperCase();
-    if (code) void this.router.navigate(['/verify', code]);
+    if (!code) {
+      this.codeError.set('Enter the verification code printed on the letter.');
+      return;
+    }
+    void this.router.navigate(['/verify', code]);
   }
 
   protected checkFile(picker: HTMLInputElement): void {
