@@ -29,6 +29,7 @@ export const BATCHES: ReadonlyArray<{ name: string; from: number; to: number }> 
   { name: 'I 901-966', from: 900, to: 999 },
   { name: 'J 1001-1066', from: 1000, to: 1099 },
   { name: 'K 1101-1166', from: 1100, to: 1199 },
+  { name: 'L 1201-1288', from: 1200, to: 1299 },
 ];
 
 /** Parses every excerpt as its manifest says and scores it against expected.json. */

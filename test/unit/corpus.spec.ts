@@ -30,11 +30,13 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // recall 89.92 %, F1 90.11 %, quantity 95.36 % (3378/3542), rounded down; the corpus changed, not the parser.
 // Raised after the document-level merge (document-merge.ts) to the exact figures rounded down: precision
 // 91.78 %, recall 89.92 %, F1 90.84 %, quantity 95.39 % (3379/3542); 63 extra findings removed, none correct lost.
+// Reset 2026-12-05 when batch L (1201-1288) joined after sealed M was scored: precision 90.76 %,
+// recall 89.51 %, F1 90.13 %, quantity 95.16 % (3601/3784), rounded down; the corpus changed, not the parser.
 // Raise them as the parser gets better; never lower them for the same corpus.
-const MIN_PRECISION = 0.9178;
-const MIN_RECALL = 0.8992;
-const MIN_F1 = 0.9084;
-const MIN_QUANTITY = 0.9539;
+const MIN_PRECISION = 0.9076;
+const MIN_RECALL = 0.8951;
+const MIN_F1 = 0.9013;
+const MIN_QUANTITY = 0.9516;
 
 describe('report parser corpus', () => {
   let run: BatchRun;
