@@ -32,10 +32,13 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // 91.78 %, recall 89.92 %, F1 90.84 %, quantity 95.39 % (3379/3542); 63 extra findings removed, none correct lost.
 // Reset 2026-12-05 when batch L (1201-1288) joined after sealed M was scored: precision 90.76 %,
 // recall 89.51 %, F1 90.13 %, quantity 95.16 % (3601/3784), rounded down; the corpus changed, not the parser.
+// Raised after the tenth round (teaching sentences, and a summary table with the numbered items after it
+// read as two lists) to the exact figures rounded down: precision 91.04 %, recall 89.51 %, F1 90.27 %,
+// quantity 95.16 % (3601/3784); 13 extra findings removed, none correct lost.
 // Raise them as the parser gets better; never lower them for the same corpus.
-const MIN_PRECISION = 0.9076;
+const MIN_PRECISION = 0.9104;
 const MIN_RECALL = 0.8951;
-const MIN_F1 = 0.9013;
+const MIN_F1 = 0.9027;
 const MIN_QUANTITY = 0.9516;
 
 describe('report parser corpus', () => {

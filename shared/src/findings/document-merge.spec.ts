@@ -1,4 +1,4 @@
-import { isListItem, mergeDocument, separates, type FindingPlace } from './document-merge';
+import { isListItem, listKindOf, mergeDocument, separates, type FindingPlace } from './document-merge';
 import type { Finding } from './finding.schema';
 import { parseText } from './report-parser';
 
@@ -150,5 +150,27 @@ describe('parseReport merges across the whole report', () => {
     expect(findings.map((f) => [f.code, f.room])).toEqual([['gfci-missing', 'laundry']]);
     expect(text.slice(findings[0].start, findings[0].end)).toBe(findings[0].evidence);
     expect(findings[0].evidence).toMatch(/^The laundry receptacle/);
+  });
+
+  it('reads a summary table row and the numbered item that describes it after it as one defect (two lists, not two items of one)', () => {
+    const text = [
+      'ELECTRICAL SUMMARY',
+      ' #  | LOCATION   | ITEM                                 | QTY',
+      ' 1  | Bedroom 2  | Cover plates missing on receptacles  |  3',
+      '',
+      '1. Bedroom 2. Three receptacles with no plates, two on the closet wall and one by the window.',
+    ].join('\n');
+    const { findings } = parseText(text);
+    expect(findings.map((f) => [f.code, f.room, f.quantity])).toEqual([['cover-plate-missing', 'bedroom', 3]]);
+  });
+});
+
+describe('listKindOf', () => {
+  it('tells a table row, a numbered item, a lettered item and a bullet apart', () => {
+    expect(listKindOf(' 1  | Bedroom 2  | Cover plates missing | 3')).toBe('table');
+    expect(listKindOf('1. Bedroom 2. Three receptacles with no plates.')).toBe('numbered');
+    expect(listKindOf('b) Garage receptacle is not GFCI.')).toBe('lettered');
+    expect(listKindOf('- Garage receptacle is not GFCI.')).toBe('bullet');
+    expect(listKindOf('The garage receptacle is not GFCI.')).toBeNull();
   });
 });

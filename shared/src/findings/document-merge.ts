@@ -27,6 +27,24 @@ export interface FindingPlace {
   readonly block: number;
   readonly section: number;
   readonly listItem: boolean;
+  /** The kind of list the item belongs to: a summary table's rows and the numbered items after it are two lists. */
+  readonly listKind?: ListKind | null;
+}
+
+export type ListKind = 'table' | 'numbered' | 'lettered' | 'bullet' | 'line';
+
+const TABLE_ROW = /^\s*\||\S\s*\|\s*\S|[^\n]\t|\S {3,}\S/;
+const NUMBERED = /^\s*\(?\d{1,3}(?:\.\d{1,3}){0,3}[.):]\s/;
+const LETTERED = /^\s*(?:\(?[a-zA-Z][.)]\s|\([ivx]{1,4}\)\s|[A-Z]{1,2}-?\d{1,3}[.:)]?\s)/;
+
+/** The kind of list a block's first line starts an item of, or null when it starts none. */
+export function listKindOf(blockText: string): ListKind | null {
+  if (!isListItem(blockText)) return null;
+  const firstLine = blockText.split('\n', 1)[0];
+  if (NUMBERED.test(firstLine)) return 'numbered';
+  if (LETTERED.test(firstLine)) return 'lettered';
+  if (TABLE_ROW.test(firstLine)) return 'table';
+  return /^\s*[-•*▪►▲△●○◦·■□✓✔>]\s/.test(firstLine) ? 'bullet' : 'line';
 }
 
 /**
@@ -177,7 +195,7 @@ export function separates(a: Finding, b: Finding, ra: Reading = read(a), rb: Rea
   if (disjoint(ra.parts, rb.parts)) return 'part';
   if (disjoint(ra.ratings, rb.ratings)) return 'part';
   if (a.computation !== null && b.computation !== null && a.computation !== b.computation) return 'part';
-  if (pa && pb && pa.listItem && pb.listItem && pa.section === pb.section && pa.block !== pb.block) return 'list';
+  if (pa && pb && pa.listItem && pb.listItem && pa.section === pb.section && pa.block !== pb.block && (pa.listKind ?? null) === (pb.listKind ?? null)) return 'list';
   return null;
 }
 

@@ -1,4 +1,4 @@
-import { negatedSpans } from './negation-detector';
+import { negatedSpans, teachesOnly } from './negation-detector';
 
 /** Spans of the given phrases in `text`, in order. */
 function spansOf(text: string, phrases: string[]) {
@@ -44,3 +44,28 @@ describe('negatedSpans', () => {
     expect(negatedSpans(text, spansOf(text, ['reversed polarity']))).toEqual([true]);
   });
 });
+
+describe('teachesOnly: sentences that teach rather than report', () => {
+  it('reads glossary entries, "also called", questions, device definitions and era habits as teaching', () => {
+    expect(teachesOnly('Double tap - Two conductors under one terminal designed for one.')).toBe(true);
+    expect(teachesOnly('Open ground - A three-slot receptacle with no ground connection.')).toBe(true);
+    expect(teachesOnly('Also called a false ground.')).toBe(true);
+    expect(teachesOnly('Q: I heard old houses have knob-and-tube.')).toBe(true);
+    expect(teachesOnly('A breaker or receptacle that detects arcing and opens the circuit.')).toBe(true);
+    expect(teachesOnly('Houses of this era were commonly built with knob-and-tube or cloth-jacketed cable.')).toBe(true);
+  });
+
+  it('keeps what reports this house: a place, a count, an observation, a priority word before the dash', () => {
+    expect(teachesOnly('Kitchen - A receptacle by the sink is not GFCI protected.')).toBe(false);
+    expect(teachesOnly('SAFETY - The service pole leans toward the driveway.')).toBe(false);
+    expect(teachesOnly('Safety - The service pole leans toward the driveway.')).toBe(false);
+    expect(teachesOnly('Houses of this era commonly have knob-and-tube, and active knob-and-tube was observed in the attic.')).toBe(false);
+    expect(teachesOnly('The receptacle that feeds the dishwasher is scorched.')).toBe(false);
+  });
+
+  it('denies every phrase of a teaching sentence', () => {
+    const text = 'Double tap - Two conductors under one terminal designed for one.';
+    expect(negatedSpans(text, [{ start: 0, end: 10 }])).toEqual([true]);
+  });
+});
+

@@ -1,5 +1,6 @@
 import { clauseIndexAt, clauseRanges, type Range } from './clause-splitter';
 import { scanAll } from './regex-scan';
+import { findRooms } from './room-lexicon';
 
 /**
  * Decides which defect phrases in a sentence are denied rather than reported: "no reversed
@@ -14,7 +15,7 @@ const CUE_BEFORE = /\b(?:no|not|never|none of|free of|no evidence of|no signs? o
  * After the phrase: not found ("not observed", "none"), positive ("as required", "tested OK") or
  * historical ("has been removed", "was replaced in 2015").
  */
-const CUE_AFTER = /(?:\b(?:was|were|is|are)\s+)?\bnot\s+(?:observed|found|noted|detected|seen|evident|identified|present)\b|\bnone\b(?!\s+of\b)(?:\s+(?:observed|found|noted|detected|seen|evident))?|\bn\/a\b|\bnot an issue\b|\b(?:was|is|were|are)\s+not\s+(?:considered|reported as|listed as|counted as)\s+(?:a\s+)?(?:defect|deficiency|concern|problem)\b|\btypical (?:for|of) (?:the|its|a home of this) (?:age|era|period|vintage)\b|\b(?:listed|noted|included|reported) (?:here )?for information(?:al purposes)?(?: only)?\b|\bnot as a defect\b|\bas (?:required|expected|intended)\b|\b(?:was|were) previously (?:present|installed|used|in use)\b|\b(?:tested|test|tests) (?:ok|okay|good|correctly|properly|fine)\b|\b(?:has|have|had) (?:since )?been (?:removed|replaced|abandoned|decommissioned|disconnected and removed|corrected|repaired)\b|\b(?:was|were) (?:removed|replaced|corrected|repaired|upgraded) (?:in|during|when|before|by|prior to|previously|already|earlier)\b|\b(?:which|that|as) (?:was|were|is) (?:allowed|permitted|acceptable) (?:when|at the time)\b|\bgrandfathered\b/gi;
+const CUE_AFTER = /(?:\b(?:was|were|is|are)\s+)?\bnot\s+(?:observed|found|noted|detected|seen|evident|identified|present)\b|\bnone\b(?!\s+of\b)(?:\s+(?:observed|found|noted|detected|seen|evident))?|\bn\/a\b|\bnot an issue\b|\b(?:was|is|were|are)\s+not\s+(?:considered|reported as|listed as|counted as)\s+(?:a\s+)?(?:defect|deficiency|concern|problem)\b|\btypical (?:for|of) (?:the|its|a home of this) (?:age|era|period|vintage)\b|\b(?:listed|noted|included|reported) (?:here )?for information(?:al purposes)?(?: only)?\b|\bnot as a defect\b|\bas (?:required|expected|intended)\b|\b(?:was|were) previously (?:present|installed|used|in use)\b|\b(?:tested|test|tests) (?:ok|okay|good|correctly|properly|fine)\b|\b(?:has|have|had) (?:since )?been (?:removed|replaced|abandoned|decommissioned|disconnected and removed|corrected|repaired)\b|\b(?:was|were) (?:removed|replaced|corrected|repaired|upgraded) (?:in|during|when|before|by|prior to|previously|already|earlier)\b|\b(?:which|that|as) (?:was|were|is) (?:allowed|permitted|acceptable) (?:when|at the time)\b|\bgrandfathered\b|\b(?:did|do|does)\s+not\s+(?:find|see|observe|note|detect)\s+(?:any|them|these|those|either|it)\b|\bnone of (?:these|them|which|those) (?:was|were|is|are) (?:found|observed|present|noted)\b/gi;
 /** Text between two listed phrases: commas, "and", "or", "nor", "/", "&". */
 const LIST_JOIN = /^[\s,]*(?:(?:and|or|nor|&|\/|and\/or)[\s,]*)?$/i;
 /** A participle right after "not" that the phrase does not start with: the "not" is about it. */
@@ -46,7 +47,38 @@ function removesProtection(text: string, cue: Range): boolean {
  * A sentence that only says what a future change would need: "If the basement is finished later,
  * the new circuits will need AFCI protection." Its condition is the whole sentence's.
  */
-const FUTURE_CONDITION = /^\s*(?:if|when|once|should)\s[^.;]{0,120}?\b(?:in the future|later|someday|is (?:ever )?(?:finished|remodel+ed|converted|renovated)|are (?:ever )?(?:added|remodel+ed))\b[^.;]{0,40}?,\s*[^.;]*\b(?:will|would)\s+(?:need|require|have to|be required)\b/i;
+const FUTURE_CONDITION = /^\s*(?:if|when|once|should)\s[^.;]{0,120}?\b(?:in the future|later|someday|ever (?:remodel|renovate|finish|add|convert)\w*|is (?:ever )?(?:finished|remodel+ed|converted|renovated)|are (?:ever )?(?:added|remodel+ed))\b[^.;]{0,60}?,\s*[^.;]*\b(?:will|would)\s+(?:(?:likely|probably|usually|typically)\s+)?(?:need|require|have to|be required|install|add|put in)\b/i;
+
+/**
+ * Sentences that teach rather than report, read as a whole (common practice of inspection reports:
+ * glossaries, question-and-answer pages and background paragraphs beside the findings):
+ * - a glossary entry, a term then a dash and its definition ("Double tap - Two conductors under a
+ *   terminal designed for one."), or "Also called a false ground.";
+ * - a question ("Q: I heard old houses have knob-and-tube."), which asks rather than reports;
+ * - a definition by what a kind of device does ("A breaker or receptacle that detects arcing and
+ *   opens the circuit.");
+ * - what houses of an era or of a kind usually have ("Houses of this era were commonly built with
+ *   knob-and-tube.").
+ */
+/** "word" as a pattern that takes it capitalised or not ("[Ss]afety"). */
+const eitherCase = (words: readonly string[]) => words.map((w) => `[${w[0].toUpperCase()}${w[0]}]${w.slice(1)}`).join('|');
+const NOT_A_TERM = eitherCase(['safety', 'repair', 'maintenance', 'monitor', 'minor', 'major', 'urgent', 'defect', 'deficiency', 'note', 'fyi', 'priority', 'high', 'medium', 'low', 'recommend\\w*', 'observ\\w*', 'correct\\w*', 'open', 'closed', 'item', 'comment', 'location', 'condition', 'status']);
+const DEFINITION_START = eitherCase(['an?', 'the', 'two', 'three', 'hot', 'wires?', 'any', 'when', 'where', 'conductors?', 'older', 'also']);
+const GLOSSARY_ENTRY = new RegExp(`^\\s*(?:[-*•·]\\s*)?["“]?(?=[^-–—\\n]*[a-z])(?!(?:${NOT_A_TERM})["”]?\\s+[-–—])[A-Z][\\w'/-]*(?:[ -][\\w'/()-]+){0,4}["”]?\\s+[-–—]\\s+(?:${DEFINITION_START})\\b`);
+const ALSO_CALLED = /^\s*(?:also|sometimes|often)\s+(?:called|known as|referred to as)\b/i;
+const QUESTION_LINE = /^\s*(?:Q\s*\d*\s*[:.)]|Question\s*\d*\s*:)/;
+const DEVICE_DEFINITION = /^\s*(?:an?|the)\s+(?:[\w-]+\s+){0,3}?(?:breaker|receptacle|outlet|device|gfci|afci|conductor|wire|clamp|jumper)s?(?:\s+or\s+(?:[\w-]+\s+){0,2}?(?:breaker|receptacle|outlet|device)s?)?\s+(?:that|which)\s+(?:detects?|de-?energi[sz]es?|opens?|trips?|protects?|listens?|monitors?|senses?|shuts?|cuts?|connects?|joins?|bonds?)\b/i;
+const ERA_HABIT = /\b(?:houses|homes)\s+(?:of|from|built (?:in|before|during|around))\s+(?:this|that|the)\s+(?:era|age|period|vintage|time)\b[^.]*\b(?:commonly|typically|usually|often|generally|were built|had)\b|\b(?:many|most|some|older)\s+(?:houses|homes)\s+(?:of|from|built|in|have|had|were|still)\b/i;
+/** Words of an observation of this house, which keep a teaching-shaped sentence a finding. */
+const OBSERVED_HERE = /\b(?:this (?:house|home|property|unit|one)|observed|noted|found|we found|i found|tested|at the|in the (?:attic|basement|garage|kitchen|bath\w*|bedroom|hall\w*|panel|crawl)|here)\b/i;
+
+/** Whether the sentence teaches rather than reports (see GLOSSARY_ENTRY and the others above). */
+export function teachesOnly(text: string): boolean {
+  if (ALSO_CALLED.test(text) || QUESTION_LINE.test(text)) return true;
+  // A glossary entry names no place of this house: "Kitchen - A receptacle by the sink..." is a finding.
+  if (GLOSSARY_ENTRY.test(text) && !OBSERVED_HERE.test(text) && findRooms(text).length === 0 && !/\b\d+\b/.test(text)) return true;
+  return (DEVICE_DEFINITION.test(text) || ERA_HABIT.test(text)) && !OBSERVED_HERE.test(text);
+}
 
 /**
  * A clause about what a kind of wiring or device does in general ("connections at aluminum-wired
@@ -56,7 +88,7 @@ const GENERAL_PROPERTY = /\b(?:is|are)\s+(?:(?:well|widely|commonly)\s+)?known\s
 
 /** For each span (sorted by start, not overlapping), whether the sentence denies it. */
 export function negatedSpans(text: string, spans: readonly Range[], clauses: readonly Range[] = clauseRanges(text)): boolean[] {
-  if (FUTURE_CONDITION.test(text)) return spans.map(() => true);
+  if (FUTURE_CONDITION.test(text) || teachesOnly(text)) return spans.map(() => true);
   if (spans.length === 0) return [];
   const clauseOf = (pos: number) => clauseIndexAt(clauses, pos);
   const negated = spans.map(() => false);

@@ -7,7 +7,7 @@ import { formMarks } from './form-marks';
 import { closedItemLines } from './status-lines';
 import { isComposedFinding } from './device-condition';
 import { dropCaptionRepeats } from './caption-repeats';
-import { isListItem, mergeDocument, type FindingPlace } from './document-merge';
+import { isListItem, listKindOf, mergeDocument, type FindingPlace } from './document-merge';
 import { withoutClosedItems } from './item-status';
 import { findRooms } from './room-lexicon';
 import type { Room } from './room';
@@ -83,7 +83,8 @@ export function parseReport(pages: readonly string[]): ParseResult {
     blockIndex++;
     if (block.section !== lastSection) sectionIndex++;
     lastSection = block.section;
-    const place: FindingPlace = { block: blockIndex, section: sectionIndex, listItem: isListItem(joined.slice(Math.max(joined.lastIndexOf('\n', start - 1), joined.lastIndexOf('\f', start - 1)) + 1, end)) };
+    const fromLineStart = joined.slice(Math.max(joined.lastIndexOf('\n', start - 1), joined.lastIndexOf('\f', start - 1)) + 1, end);
+    const place: FindingPlace = { block: blockIndex, section: sectionIndex, listItem: isListItem(fromLineStart), listKind: listKindOf(fromLineStart) };
     const skip = (reason: SkippedText['reason']) =>
       skipped.push({
         section: block.section.title,
