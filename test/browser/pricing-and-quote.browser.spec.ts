@@ -170,6 +170,12 @@ async function sellerReadsQuote(requestId: string, sentTotal: string): Promise<v
   expect(await page.getByTestId('quote-current-flag').textContent()).toContain('Current version');
   expect(await page.getByTestId('totals-quote-total').textContent()).toContain(sentTotal);
   expect(await page.getByTestId('quote-line').count()).toBe(4);
+  // What the reader adds up under the lines is the subtotal: the item amounts, then what a visit costs once.
+  const cents = (text: string | null) => Math.round(Number((text ?? '').replace(/[^\d.]/g, '')) * 100);
+  const lineCents = (await page.getByTestId('quote-line').locator('td').filter({ hasText: '$' }).allTextContents()).map(cents);
+  expect(cents(await page.getByTestId('bill-sum-items').textContent())).toBe(lineCents.reduce((a, b) => a + b, 0));
+  const sumRows = (await page.getByTestId('bill-sum').locator('dd').allTextContents()).map(cents);
+  expect(sumRows.slice(0, -1).reduce((a, b) => a + b, 0)).toBe(sumRows[sumRows.length - 1]);
   expect(await page.getByTestId('quote-note').textContent()).toContain('shallow');
   expect(await page.getByTestId('quote-safety-notice').textContent()).toMatch(/licensed/i);
   // The caution box's icon shows whole beside its long text.

@@ -22,6 +22,14 @@ const ROWS: TotalsRow[] = [
 ];
 const ALWAYS: (keyof MoneyTotals)[] = ['subtotalCents', 'materialsTaxCents'];
 
+/** A row's words; labour after the first hour says its minutes and, when they were rounded up, the minutes billed. */
+function labelOf(row: TotalsRow, visit: QuoteBreakdown['visits'][number]): string {
+  if (row.field !== 'extraLabourCents') return row.label;
+  return visit.billedExtraMinutes === visit.extraMinutes
+    ? `${row.label} (${visit.extraMinutes} min)`
+    : `${row.label} (${visit.extraMinutes} min, billed as ${visit.billedExtraMinutes})`;
+}
+
 /** The money of a priced request or quote: each visit and the whole, as the shared engine computed it. */
 @Component({
   selector: 'cc-pricing-totals',
@@ -41,7 +49,7 @@ export class PricingTotals {
     (this.breakdown()?.visits ?? []).map((visit) => ({
       key: visit.key,
       minutes: visit.pooledMinutes,
-      rows: ROWS.filter((row) => ALWAYS.includes(row.field) || visit[row.field] > 0).map((row) => ({ ...row, cents: visit[row.field] })),
+      rows: ROWS.filter((row) => ALWAYS.includes(row.field) || visit[row.field] > 0).map((row) => ({ ...row, label: labelOf(row, visit), cents: visit[row.field] })),
       totalCents: visit.totalCents,
     })),
   );

@@ -15,6 +15,7 @@ import { Auth } from '../../core/auth/auth';
 import { describeFailure } from '../../core/http/api-error-of';
 import { codeLabel } from '../../ui/code-label';
 import { formatCents, formatCentsDelta, MoneyPipe } from '../../ui/money/money';
+import { BillSum } from '../../pricing/bill-sum/bill-sum';
 import { PricingTotals } from '../../pricing/pricing-totals/pricing-totals';
 import { QuotesApi } from '../quotes-api';
 import { VersionChanges } from '../version-changes/version-changes';
@@ -40,6 +41,7 @@ type Loaded = { quote: QuoteVersion; error?: undefined } | { quote?: undefined; 
     MatTableModule,
     MoneyPipe,
     PricingTotals,
+    BillSum,
     VersionChanges,
   ],
   templateUrl: './quote-view.html',
