@@ -9,8 +9,7 @@ import {
   paymentAccount,
   priceScope,
   requestReference,
-  whoActsNext,
-  FLOW_ACTOR_LABELS,
+  whoActsNextWords,
   type ApprovalView,
   type CurrentUser,
   type FindingCode,
@@ -264,10 +263,9 @@ export function signedRecord(s: {
 
 /** What happens next on the seller's side of the request, and who acts, in one sentence (addressed to `viewer` when it is their step). */
 function nextStep(request: RepairRequestDetail, viewer: readonly FlowActor[], isSigned: boolean, account: ReturnType<typeof paymentAccount>, hasOpenChangeOrder: boolean): string {
-  const who = (actors: FlowActor[]) => actors.map((a) => FLOW_ACTOR_LABELS[a]).join(' or ') || 'nobody';
   if (!isSigned) {
     if (request.status === 'quoted' && mayMoveRequest(viewer, 'approve', 'quoted')) return 'Next: approve or decline each item and sign (you, or the other person on the seller’s side).';
-    if (request.status === 'quoted') return `Waiting for ${who(whoActsNext('quoted'))} to approve or decline each item and sign.`;
+    if (request.status === 'quoted') return `Waiting for ${whoActsNextWords('quoted')} to approve or decline each item and sign.`;
     return 'No decision is due: the quote is not with the seller.';
   }
   if (request.status === 'declined') return 'The seller declined every item. Nothing more happens on this quote.';
@@ -277,9 +275,11 @@ function nextStep(request: RepairRequestDetail, viewer: readonly FlowActor[], is
   if (account.balanceCents > 0 && account.paidCents === 0) {
     return mayAct(viewer, 'pay', request.status)
       ? 'Next: choose how to pay: by card now, a deposit now, or at closing.'
-      : 'Next: the seller (or the listing agent) chooses how to pay: by card now, a deposit now, or at closing.';
+      : // Payment is the seller side's matter, beside the work: who the request waits for is the shared
+        // next-step rule's answer, as on the request page and the dashboard.
+        `To pay: the seller or the listing agent chooses how (by card now, a deposit now, or at closing). The work waits for ${whoActsNextWords(request.status) || 'nobody'}.`;
   }
   if (account.balanceCents > 0) return `The balance is due on completion; the contractor books and does the work.`;
-  const next = who(whoActsNext(request.status));
+  const next = whoActsNextWords(request.status) || 'nobody';
   return `Paid in full. ${next.charAt(0).toUpperCase()}${next.slice(1)} acts next on the work.`;
 }

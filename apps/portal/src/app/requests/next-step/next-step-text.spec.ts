@@ -1,4 +1,4 @@
-import { REQUEST_FLOW, REQUEST_STATUSES, Role, PartyRole } from '@cc/shared';
+import { isEnded, REQUEST_FLOW, REQUEST_STATUSES, Role, PartyRole, whoActsNextWords } from '@cc/shared';
 import { nextStepOf } from './next-step-text';
 
 const SELLER = { role: 'seller' as Role, myParts: ['seller'] as PartyRole[] };
@@ -72,5 +72,15 @@ describe('nextStepOf', () => {
     ]);
     expect(nextStepOf('letter-issued', INSPECTOR).summary).toBe('Waits for you (the inspector or the buyer’s agent).');
     expect(nextStepOf('withdrawn', SELLER).isEnded).toBe(true);
+  });
+
+  // Review 7, P4-1: the agent's dashboard ("Next: …", from the server) and this panel named different
+  // people; both now say the shared rule's words.
+  it('names the same people as the dashboard’s "Next:" in every state', () => {
+    for (const status of REQUEST_STATUSES) {
+      if (isEnded(status)) continue;
+      // Someone who plays no part on it, so that the panel speaks of the others in the third person.
+      expect(nextStepOf(status, { role: 'admin', myParts: [] }).summary).toBe(`Waits for ${whoActsNextWords(status)}.`);
+    }
   });
 });
