@@ -1,5 +1,5 @@
 import request from 'supertest';
-import type { ActivityEntry, ContractorDashboard } from '@cc/shared';
+import { FINAL_STATUSES, type ActivityEntry, type ContractorDashboard } from '@cc/shared';
 import type { Db } from '../../server/src/db/knex';
 import { createOrganisation, createUser, resetDatabase, signIn, validRequestBody, type SignedIn } from '../helpers/fixtures';
 import { createPricingCast, type PricingCast } from '../helpers/pricing-fixtures';
@@ -184,6 +184,11 @@ describe('dashboards: figures of a seeded scenario, computed by hand', () => {
       [ids.r4, 'high', 'the contractor'],
       [ids.r5, 'low', 'the contractor'],
     ]);
+    // …and stays findable (review 7, P4-2): the dashboard's "Finished" section pages the request list
+    // by the flow's final states, latest closing first (the plan is checked in requests.api.spec.ts).
+    const finished = (await blake.agent.get(`/api/requests?status=${FINAL_STATUSES.join(',')}&sort=closingDate&direction=desc&pageSize=6`).expect(200)).body;
+    expect(finished.items.map((r: { id: number; status: string }) => [r.id, r.status])).toEqual([[ids.r6, 'declined']]);
+    expect(finished.total).toBe(1);
   });
 
   it('each dashboard answers its own role only, and bounds its query', async () => {
