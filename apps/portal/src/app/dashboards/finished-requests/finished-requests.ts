@@ -9,7 +9,7 @@ import { CLOSING_RISK_LABELS, FINAL_STATUSES, RepairRequestListQuery } from '@cc
 import { catchError, of, switchMap } from 'rxjs';
 import { Notice } from '../../core/http/notice';
 import { RequestsApi } from '../../requests/requests-api';
-import { CappedPaginatorIntl, paginatorLength, type ListCount } from '../../ui/capped-paginator-intl';
+import { CappedPaginatorIntl, listCountOf, paginatorLength } from '../../ui/capped-paginator-intl';
 import { DaysToClosing } from '../../ui/days-to-closing/days-to-closing';
 import { StatusChip } from '../../ui/status-chip/status-chip';
 
@@ -67,11 +67,7 @@ export class FinishedRequests {
   );
   protected readonly isLoading = computed(() => this.result() === undefined);
   protected readonly rows = computed(() => this.result()?.items ?? []);
-  private readonly count = computed<ListCount | null>(() => {
-    const page = this.result();
-    if (!page) return null;
-    return { total: page.total, isTotalCapped: page.isTotalCapped ?? false, hasMore: Boolean(page.nextCursor), page: page.page, pageSize: page.pageSize, rowCount: page.items.length };
-  });
+  private readonly count = computed(() => listCountOf(this.result()));
   protected readonly length = computed(() => {
     const count = this.count();
     return count ? paginatorLength(count) : 0;
