@@ -9,6 +9,8 @@ import {
   paymentAccount,
   priceScope,
   requestReference,
+  signedInCapacity,
+  signerCapacityOf,
   whoActsNextWords,
   type ApprovalView,
   type CurrentUser,
@@ -19,6 +21,7 @@ import {
   type RepairRequestDetail,
   type Room,
   type ScopeItem,
+  type SignerCapacity,
   type SignApprovalParsed,
 } from '@cc/shared';
 import { lineCents, todayIn } from '@cc/shared';
@@ -110,6 +113,7 @@ export class ApprovalsService {
       signature: approval && {
         signerName: approval.signerName,
         signedByName: approval.signedByName,
+        signerCapacity: approval.signerCapacity,
         signedAt: approval.signedAt.toISOString(),
         quoteVersion: approval.quoteVersion,
         quoteHash: approval.quoteHash,
@@ -173,6 +177,7 @@ export class ApprovalsService {
     const actors = actorsOnRequest(user, request);
     assertMayMoveRequest(actors, 'approve', request.status, refusalMessages('approve or decline the quote', request.status));
     const isApproved = input.decisions.some((d) => d.decision === 'approved');
+    const capacity = signerCapacityOf(actors);
 
     // Sent versions never change: the one decided on is read before the transaction.
     const stored = await this.quoteRows.find(requestId, input.quoteVersion);
@@ -210,14 +215,16 @@ export class ApprovalsService {
 
       const approvedKeys = [...decided.values()].filter((d) => d.decision === 'approved').map((d) => String(d.lineItemId));
       const id = await this.approvals.insert(
-        signedRecord({ requestId, request, stored, pricing, approvedKeys, signedBy: user.id, signerName: input.signerName, ipAddress: context.ipAddress, userAgent: context.userAgent }),
+        signedRecord({ requestId, request, stored, pricing, approvedKeys, signedBy: user.id, signerName: input.signerName, signerCapacity: capacity, ipAddress: context.ipAddress, userAgent: context.userAgent }),
         trx,
       );
       await this.approvals.insertDecisions(
         [...decided.values()].map((d) => ({ requestId, lineItemId: d.lineItemId, approvalId: id, changeOrderId: null, decision: d.decision, note: d.note || null, decidedBy: user.id })),
         trx,
       );
-      const note = isApproved ? `Quote version ${latest} approved and signed by ${input.signerName}` : `Every item of quote version ${latest} declined by ${input.signerName}`;
+      // The history (every party's Activity) says who signed and in what capacity.
+      const signer = signedInCapacity(input.signerName, capacity);
+      const note = isApproved ? `Quote version ${latest} approved and signed by ${signer}` : `Every item of quote version ${latest} declined by ${signer}`;
       await this.flow.moveRequest(trx, requestId, isApproved ? 'approve' : 'decline', mover, note, refusalMessages('approve or decline the quote', request.status));
       await this.notices.quoteDecided(trx, { requestId, by: user.id, approvalId: id, isApproved });
       return id;
@@ -239,6 +246,7 @@ export function signedRecord(s: {
   approvedKeys: string[];
   signedBy: number;
   signerName: string;
+  signerCapacity: SignerCapacity;
   ipAddress: string;
   userAgent: string;
 }): Omit<StoredApproval, 'id' | 'signedAt' | 'signedByName'> {
@@ -251,6 +259,7 @@ export function signedRecord(s: {
     quoteVersion: s.stored.version,
     signedBy: s.signedBy,
     signerName: s.signerName,
+    signerCapacity: s.signerCapacity,
     consentText: approvalConsentText({ contractorName: s.stored.contractor.name, requestReference: requestReference(s.requestId), quoteVersion: s.stored.version, property }),
     ipAddress: s.ipAddress.slice(0, 64),
     userAgent: s.userAgent.slice(0, 500),
