@@ -62,17 +62,21 @@ export interface NextStep {
 }
 
 /**
+ * What is left of an ended request, in one sentence (the request page and the work page say it):
+ * where the flow table still lets money be recorded (an invoice paid at closing), that it may be open.
+ */
+export function endedSummary(status: RequestStatus): string {
+  return statesAllowing('record-funds').includes(status)
+    ? `${REQUEST_STATUS_LABELS[status]}: the work is done. If money is still open (an invoice paid at closing), the contractor records it on the approval page when it arrives.`
+    : `${REQUEST_STATUS_LABELS[status]}: nothing more happens on this request.`;
+}
+
+/**
  * What a request in `status` waits for and who acts next, for one viewer: computed from the shared
  * flow table (its moves out of the state and who may make them), never from a list of our own.
  */
 export function nextStepOf(status: RequestStatus, viewer: { role: Role; myParts: readonly PartyRole[] }): NextStep {
-  if (isEnded(status)) {
-    // Where the flow table still lets money be recorded (an invoice paid from the proceeds at closing), say so.
-    const summary = statesAllowing('record-funds').includes(status)
-      ? `${REQUEST_STATUS_LABELS[status]}: the work is done and nothing more happens on this request. If money is still open (an invoice paid at closing), the contractor records it on the approval page when it arrives.`
-      : `${REQUEST_STATUS_LABELS[status]}: nothing more happens on this request.`;
-    return { status, isEnded: true, summary, moves: [] };
-  }
+  if (isEnded(status)) return { status, isEnded: true, summary: endedSummary(status), moves: [] };
   const actors = actorsOf({ role: viewer.role, myParts: viewer.myParts, isAssignedContractor: viewer.role === 'contractor' });
   const onward = movesOnFrom(status);
   const moves = onward
