@@ -125,6 +125,18 @@ describe('POST /api/requests/:id/approval', () => {
       const entries: ActivityEntry[] = (await who.agent.get(`/api/requests/${requestId}/activity?kind=status`).expect(200)).body.items;
       expect(entries.find((e) => e.action === 'approve')?.summary).toContain('approved and signed by Robert Hale, listing agent, for the seller');
     }
+    // The deposit's receipt is the seller's, and says who signed for them.
+    const started: StartedPayment = (await startPayment(requestId, { plan: 'card-deposit', idempotencyKey: newKey() }, cast.s.listingAgent).expect(201)).body;
+    expect((await payOnFakePage(started.checkoutUrl!, PAID_CARD)).status).toBe(303);
+    const receipt = (await view(requestId)).invoices.find((i) => i.kind === 'receipt')!;
+    const pdf = await cast.s.seller.agent.get(receipt.pdfPath).buffer(true).parse((r, done) => {
+      const chunks: Buffer[] = [];
+      r.on('data', (c: Buffer) => chunks.push(c));
+      r.on('end', () => done(null, Buffer.concat(chunks)));
+    });
+    const text = (await extractPdfPages(pdf.body as Buffer)).pages.join('\n').replace(/\s+/g, ' ');
+    expect(text).toContain(`To ${cast.users.seller.name}`);
+    expect(text).toContain('Approval signed by Robert Hale, listing agent, for the seller');
   });
 
   it('records the seller’s own signature as the seller’s', async () => {
