@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { itemStateAfter, REQUEST_FLOW } from '@cc/shared';
+import { itemStateAfter, REQUEST_FLOW, signerCapacityOf, type FlowActor } from '@cc/shared';
 import { LineItemRepository } from '../server/src/intake/line-item.repository';
 import type { StoredPricingItem } from '../server/src/pricing/item-pricing.repository';
 import { OrganisationRepository } from '../server/src/organisations/organisation.repository';
@@ -98,7 +98,7 @@ export async function seed(knex: Knex): Promise<void> {
     });
     // The signature, once the quote version is stored (it is read back as the page reads it).
     await knex.transaction(async (trx) => {
-      const signed = await trx('request_status_changes').where({ request_id: request.id }).whereIn('to_status', SIGNED).first('created_at', 'changed_by');
+      const signed = await trx('request_status_changes').where({ request_id: request.id }).whereIn('to_status', SIGNED).first('created_at', 'changed_by', 'actor');
       if (!signed) return;
       const stored = await quotes.find(request.id, 1);
       const pricing = await approvals.quotePricing(request.id, 1, trx);
@@ -116,6 +116,8 @@ export async function seed(knex: Knex): Promise<void> {
           approvedKeys: decisions.filter((d) => d.decision === 'approved').map((d) => String(d.id)),
           signedBy: signer.id,
           signerName: signer.name ?? signer.email,
+          // The part the history credits the move to (the seller, or the listing agent for them).
+          signerCapacity: signerCapacityOf([signed.actor as FlowActor]),
           ipAddress: '127.0.0.1',
           userAgent: 'Demo data (seeded)',
         }),

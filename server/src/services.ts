@@ -95,7 +95,7 @@ export function createServices(db: Db, config: Config, readPool: pg.Pool | null 
   const corrections = new CorrectionRepository(db);
   const letterRecords = new LetterRepository(db);
   const visits = new VisitsService(db, requestsService, flow, siteVisits, workItems, proofMessages, timeZoneOf);
-  const letters = new LettersService(db, requestsService, flow, organisations, workItems, corrections, letterRecords, storage, proofMessages, config.publicUrl);
+  const letters = new LettersService(db, requestsService, flow, organisations, workItems, corrections, letterRecords, storage, proofMessages, config.publicUrl, siteVisits);
   return {
     repositories: { users, organisations, requests, items, reports, activity },
     flow,

@@ -58,6 +58,7 @@ export * from './payments/scope-pricing';
 export * from './payments/payment-account';
 export * from './payments/consent-text';
 export * from './payments/payment.schema';
+export * from './payments/signer-capacity';
 export * from './requests/closing-progress';
 export * from './readings/gfci-trip-time';
 export * from './readings/conductor-resistance';

@@ -1,5 +1,5 @@
 import request from 'supertest';
-import type { ActivityEntry, ContractorDashboard } from '@cc/shared';
+import { FINAL_STATUSES, type ActivityEntry, type ContractorDashboard } from '@cc/shared';
 import type { Db } from '../../server/src/db/knex';
 import { createOrganisation, createUser, resetDatabase, signIn, validRequestBody, type SignedIn } from '../helpers/fixtures';
 import { createPricingCast, type PricingCast } from '../helpers/pricing-fixtures';
@@ -171,17 +171,24 @@ describe('dashboards: figures of a seeded scenario, computed by hand', () => {
     expect(res.body.requests.map((r: { id: number; daysLeft: number; risk: string; nextActor: string }) => [r.id, r.daysLeft, r.risk, r.nextActor])).toEqual([
       [ids.r1, 5, 'high', 'the contractor'],
       [ids.other, 9, 'medium', 'the contractor'],
-      [ids.r2, 15, 'medium', 'the seller'],
+      [ids.r2, 15, 'medium', 'the seller or the listing agent'],
       [ids.r3, 40, 'low', 'the contractor'],
     ]);
     const counts = Object.fromEntries(res.body.itemsByStatus.map((i: { status: string; count: number }) => [i.status, i.count]));
     expect(counts).toEqual({ open: 2, priced: 1, 'out-of-scope': 1, approved: 1 });
     // Blake's declined request is ended and left out; r4 (3 days, work under way) is at risk.
     const blakes = (await blake.agent.get('/api/dashboards/agent').expect(200)).body.requests;
-    expect(blakes.map((r: { id: number; risk: string }) => [r.id, r.risk])).toEqual([
-      [ids.r4, 'high'],
-      [ids.r5, 'low'],
+    // Who acts next is the request page's "Waits for …" (the shared next-step rule): r5's work is
+    // finished, so the contractor issues the letter; a change order (a detour) does not name the seller.
+    expect(blakes.map((r: { id: number; risk: string; nextActor: string }) => [r.id, r.risk, r.nextActor])).toEqual([
+      [ids.r4, 'high', 'the contractor'],
+      [ids.r5, 'low', 'the contractor'],
     ]);
+    // …and stays findable (review 7, P4-2): the dashboard's "Finished" section pages the request list
+    // by the flow's final states, latest closing first (the plan is checked in requests.api.spec.ts).
+    const finished = (await blake.agent.get(`/api/requests?status=${FINAL_STATUSES.join(',')}&sort=closingDate&direction=desc&pageSize=6`).expect(200)).body;
+    expect(finished.items.map((r: { id: number; status: string }) => [r.id, r.status])).toEqual([[ids.r6, 'declined']]);
+    expect(finished.total).toBe(1);
   });
 
   it('each dashboard answers its own role only, and bounds its query', async () => {

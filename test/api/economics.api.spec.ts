@@ -70,13 +70,17 @@ async function record(requestId: number, itemId: number, body: object): Promise<
   expect(res.status).toBe(201);
 }
 
-/** Starts and finishes the visit, then sets its times: `minutes` on site from 09:00 UTC of its date. */
+/**
+ * Starts and finishes the visit, then sets its day and times: `minutes` on site from 09:00 UTC of
+ * `date`. (Started before its day, a visit moves to today; the week is worked ahead of time here, so
+ * the day it was booked for is put back, as if it had been worked then.)
+ */
 async function workVisit(requestId: number, visitId: number, date: string, minutes: number, records: [number, object][]): Promise<void> {
   await post(cast.s.colleague, `/api/requests/${requestId}/visits/${visitId}/start`).expect(200);
   for (const [itemId, body] of records) await record(requestId, itemId, body);
   await post(cast.s.colleague, `/api/requests/${requestId}/visits/${visitId}/finish`).expect(200);
   const start = new Date(`${date}T09:00:00Z`);
-  await t.db('site_visits').where({ id: visitId }).update({ started_at: start, finished_at: new Date(start.getTime() + minutes * 60_000) });
+  await t.db('site_visits').where({ id: visitId }).update({ visit_date: date, started_at: start, finished_at: new Date(start.getTime() + minutes * 60_000) });
 }
 
 // The seeded week (ids filled in beforeAll).

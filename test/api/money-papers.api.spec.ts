@@ -3,7 +3,7 @@
 // of the demo data shows how it gets paid. Figures come from the shared engine (docs/pricing.md,
 // "The model": one service call and one first-hour minimum per visit, the minimum shared by the
 // visit's items by minutes); the checks are that nothing is billed twice and nothing moves.
-import { DEMO_RATE_BOOK, lineAmountsOf, mayAct, priceScope, type ApprovalView, type StartedPayment } from '@cc/shared';
+import { DEMO_RATE_BOOK, lineAmountsOf, mayAct, priceScope, whoActsNextWords, type ApprovalView, type StartedPayment } from '@cc/shared';
 import { extractPdfPages } from '../../server/src/integrations/pdf-text';
 import { DEMO_PASSWORD } from '../../seeds/data/demo-scenario';
 import { seed as seedPeople } from '../../seeds/01_organisations_and_people';
@@ -151,6 +151,13 @@ describe('the demo data', () => {
       expect(v.plans.map((p) => p.plan)).toEqual(expect.arrayContaining(['card-full', 'at-closing']));
       // The seller is told it is their step, not about "the seller" in the third person.
       expect(v.nextStep).toBe('Next: choose how to pay: by card now, a deposit now, or at closing.');
+      // The buyer's agent reads the same page: the payment is the seller side's, and the work waits for
+      // the people the request page and the dashboard name (review 7, P4-1).
+      const agent = await t.db('request_parties as p').join('users as u', 'u.id', 'p.user_id').where({ 'p.request_id': r.id, 'p.role': 'buyer-agent' }).first('u.*');
+      if (!sellers.has(agent.id)) sellers.set(agent.id, await signIn(t.app, { id: agent.id, email: agent.email, name: agent.name, role: agent.role, organisationId: null, organisationName: null }, DEMO_PASSWORD));
+      expect((await view(r.id, sellers.get(agent.id)!)).nextStep).toBe(
+        `To pay: the seller or the listing agent chooses how (by card now, a deposit now, or at closing). The work waits for ${whoActsNextWords(r.status as never)}.`,
+      );
     }
   });
 

@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { ApprovalViewSchema, DEMO_RATE_BOOK, type ApprovalView, type StartedPayment } from '@cc/shared';
+import { ApprovalViewSchema, DEMO_RATE_BOOK, type ActivityEntry, type ApprovalView, type StartedPayment } from '@cc/shared';
 import { extractPdfPages } from '../../server/src/integrations/pdf-text';
 import { TEST_CARDS } from '../../server/src/integrations/payments/fake-payment-service';
 import { InvoiceRepository } from '../../server/src/invoices/invoice.repository';
@@ -113,9 +113,35 @@ describe('POST /api/requests/:id/approval', () => {
     expect((await view(requestId, cast.s.buyerAgent)).payments).toEqual([]);
   });
 
-  it('lets the listing agent sign for the seller', async () => {
+  // Review 7, P2-1: the record must say who signed and in what capacity, for every party to read.
+  it('lets the listing agent sign for the seller, and records and shows that capacity to every party', async () => {
     const { requestId, itemIds } = await quotedRequest(cast, t, book, [GFCI]);
-    expect((await sign(cast.s.listingAgent, requestId, signBody(itemIds, ['approved']))).requestStatus).toBe('approved');
+    const signed = await sign(cast.s.listingAgent, requestId, signBody(itemIds, ['approved'], { signerName: 'Robert Hale' }));
+    expect(signed.requestStatus).toBe('approved');
+    expect(await t.db('quote_approvals').where({ request_id: requestId }).first('signer_capacity')).toEqual({ signer_capacity: 'listing-agent' });
+    for (const who of [cast.s.seller, cast.s.listingAgent, cast.s.buyerAgent, cast.s.inspector, cast.s.contractor]) {
+      expect((await view(requestId, who)).signature).toMatchObject({ signerName: 'Robert Hale', signerCapacity: 'listing-agent' });
+      // The history every party reads names the signer with the capacity.
+      const entries: ActivityEntry[] = (await who.agent.get(`/api/requests/${requestId}/activity?kind=status`).expect(200)).body.items;
+      expect(entries.find((e) => e.action === 'approve')?.summary).toContain('approved and signed by Robert Hale, listing agent, for the seller');
+    }
+    // The deposit's receipt is the seller's, and says who signed for them.
+    const started: StartedPayment = (await startPayment(requestId, { plan: 'card-deposit', idempotencyKey: newKey() }, cast.s.listingAgent).expect(201)).body;
+    expect((await payOnFakePage(started.checkoutUrl!, PAID_CARD)).status).toBe(303);
+    const receipt = (await view(requestId)).invoices.find((i) => i.kind === 'receipt')!;
+    const pdf = await cast.s.seller.agent.get(receipt.pdfPath).buffer(true).parse((r, done) => {
+      const chunks: Buffer[] = [];
+      r.on('data', (c: Buffer) => chunks.push(c));
+      r.on('end', () => done(null, Buffer.concat(chunks)));
+    });
+    const text = (await extractPdfPages(pdf.body as Buffer)).pages.join('\n').replace(/\s+/g, ' ');
+    expect(text).toContain(`To ${cast.users.seller.name}`);
+    expect(text).toContain('Approval signed by Robert Hale, listing agent, for the seller');
+  });
+
+  it('records the seller’s own signature as the seller’s', async () => {
+    const { requestId, itemIds } = await quotedRequest(cast, t, book, [GFCI]);
+    expect((await sign(cast.s.seller, requestId, signBody(itemIds, ['approved']))).signature?.signerCapacity).toBe('seller');
   });
 
   it('declines the request when every item is declined', async () => {

@@ -123,8 +123,14 @@ describe('POST /api/requests/:id/visits', () => {
     const visitId = (await work(requestId)).visits[0].id;
     await post(cast.s.seller, `/api/requests/${requestId}/visits/${visitId}/start`).expect(403);
     await post(cast.s.contractor, `/api/requests/${requestId}/visits/${visitId}/finish`).expect(409);
+    const told = await t.db('outbox_messages').where({ request_id: requestId, kind: 'visit-scheduled' }).count({ n: '*' }).first();
     const started = await post(cast.s.colleague, `/api/requests/${requestId}/visits/${visitId}/start`).expect(200);
     expect(started.body.status).toBe('started');
+    // Booked for two days ahead and started now ("Start it today anyway", review 7, P3-2): the visit
+    // takes place today (the contractor's today, within a day of UTC's), and the seller's side hears the new day.
+    expect(started.body.date < inDays(2) && started.body.date >= inDays(-1)).toBe(true);
+    const toldAfter = await t.db('outbox_messages').where({ request_id: requestId, kind: 'visit-scheduled' }).count({ n: '*' }).first();
+    expect(Number(toldAfter?.n)).toBeGreaterThan(Number(told?.n));
     expect((await work(requestId)).status).toBe('in-progress');
     await post(cast.s.contractor, `/api/requests/${requestId}/visits/${visitId}/start`).expect(409);
     expect((await post(cast.s.contractor, `/api/requests/${requestId}/visits/${visitId}/finish`).expect(200)).body.status).toBe('finished');
@@ -269,7 +275,9 @@ describe('completion letters', () => {
         { code: 'open-ground', quantity: 3, location: 'living room, three-slot receptacles', status: 'approved' },
       ],
     }));
-    await post(cast.s.contractor, `/api/requests/${requestId}/visits`).send(visitBody()).expect(201);
+    const visit = await post(cast.s.contractor, `/api/requests/${requestId}/visits`).send(visitBody()).expect(201);
+    // The electrician arrives and is still marked on site when the letter is issued.
+    await post(cast.s.contractor, `/api/requests/${requestId}/visits/${visit.body.id}/start`).expect(200);
     await recordCorrection(requestId, gfci, gfciRecord(), [{ kind: 'after', data: await phonePhoto() }]).expect(201);
   });
 
@@ -293,8 +301,11 @@ describe('completion letters', () => {
   });
 
   it('issues revision 1 whose PDF text holds every item, reading and evaluation, and whose hash is its bytes’', async () => {
+    // The visit started in beforeAll was never finished: the letter ends it (review 7, P3-2).
+    expect((await work(requestId)).visits.map((v) => v.status)).toEqual(['started']);
     const res = await post(cast.s.contractor, `/api/requests/${requestId}/letters`).send({ isPermitNotRequired: true, signatureName: 'Sam Okafor' });
     expect(res.status).toBe(201);
+    expect((await work(requestId)).visits.map((v) => v.status)).toEqual(['finished']);
     letter = res.body;
     expect(letter).toMatchObject({ revision: 1, itemCount: 2, isCurrent: true });
     expect(letter.verificationUrl).toBe(`http://portal.test/verify/${letter.verificationCode}`);

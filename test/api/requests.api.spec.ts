@@ -1,6 +1,6 @@
 import request from 'supertest';
 import * as z from 'zod';
-import { RepairRequestSummarySchema, type CurrentUser, type RepairRequestDetail, type RequestStatus } from '@cc/shared';
+import { FINAL_STATUSES, RepairRequestSummarySchema, type CurrentUser, type RepairRequestDetail, type RequestStatus } from '@cc/shared';
 import type { Statement } from '../../server/src/db/read-pool';
 import { LineItemRepository } from '../../server/src/intake/line-item.repository';
 import { LIST_COUNT_CAPS, RequestRepository, type RequestListFilter, type Viewer } from '../../server/src/requests/request.repository';
@@ -400,6 +400,9 @@ describe('GET /api/requests', () => {
     ['buyerAgent', 'street', 'asc', [], 'request_viewers_street_index'],
     ['buyerAgent', 'status', 'asc', [], 'request_viewers_status_index'],
     ['seller', 'closingDate', 'desc', ['draft'], 'request_viewers_status_index'],
+    // The agent's dashboard lists the finished requests (the final states), latest closing first.
+    ['buyerAgent', 'closingDate', 'desc', [...FINAL_STATUSES], 'request_viewers_status_index'],
+    ['admin', 'closingDate', 'desc', [...FINAL_STATUSES], 'repair_requests_status_id_index'],
     ['contractor', 'closingDate', 'asc', [], 'repair_requests_contractor_closing_index'],
     ['contractor', 'createdAt', 'desc', [], 'repair_requests_contractor_created_index'],
     ['contractor', 'street', 'asc', [], 'repair_requests_contractor_street_index'],

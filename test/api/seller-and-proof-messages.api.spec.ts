@@ -120,19 +120,21 @@ describe('the seller’s side', () => {
     mail.clear();
     await sign(cast.s.seller, requestId, signBody(itemIds, ['approved', 'declined']));
     await deliver();
-    expectOneMessageEach(['buyerAgent', 'colleague', 'contractor', 'listingAgent'], 'the seller approved the quote — 1 approved, 1 declined', `/requests/${requestId}/approval`);
-    expect(mail.to(emailOf('contractor'))[0].text).toContain(`1 item for 14 Test Hollow Road, Marlow Springs, CO 81290, ${EXAMPLE_1_TOTAL} in total, and declined 1.`);
+    expectOneMessageEach(['buyerAgent', 'colleague', 'contractor', 'listingAgent'], 'the quote was approved — 1 approved, 1 declined', `/requests/${requestId}/approval`);
+    expect(mail.to(emailOf('contractor'))[0].text).toContain(`The seller approved and signed 1 item for 14 Test Hollow Road, Marlow Springs, CO 81290, ${EXAMPLE_1_TOTAL} in total, and declined 1.`);
   });
 
   it('quote declined: the same people hear that nothing is booked', async () => {
     const { requestId, itemIds } = await quotedRequest(cast, t, book, [GFCI, PLATE]);
     await deliver();
     mail.clear();
-    // The listing agent signs for the seller and, having made the change, is not e-mailed about it.
+    // The listing agent signs for the seller and, having made the change, is not e-mailed about it; the
+    // seller is, and every message names who signed and in what capacity.
     await sign(cast.s.listingAgent, requestId, signBody(itemIds, ['declined', 'declined']));
     await deliver();
-    expectOneMessageEach(['buyerAgent', 'colleague', 'contractor'], 'the seller declined the quote — 2 items declined', `/requests/${requestId}/approval`);
+    expectOneMessageEach(['buyerAgent', 'colleague', 'contractor', 'seller'], 'the quote was declined — 2 items declined', `/requests/${requestId}/approval`);
     expect(mail.to(emailOf('buyerAgent'))[0].text).toContain('No work is booked on this request.');
+    expect(mail.to(emailOf('seller'))[0].text).toMatch(/, listing agent, for the seller, declined every item of the quote/);
   });
 
   it('card payment credited: the seller gets receipt RCT-…, the contractor’s people and the listing agent the news', async () => {

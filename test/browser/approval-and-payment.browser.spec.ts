@@ -93,7 +93,7 @@ async function sellerApprovesAndPays(): Promise<{ requestId: string; depositLabe
     expect(await amountOf(after, 'approval-item-amount')).toBe(signedAmounts[i]);
   }
   expect(await page.getByTestId('approval-item-repriced').count()).toBe(repriced);
-  await page.getByTestId('approval-signature').filter({ hasText: 'Signed by Ellen Brooks' }).waitFor();
+  await page.getByTestId('approval-signature').filter({ hasText: 'Signed by Ellen Brooks, the seller' }).waitFor();
   await expectAxeClean(page);
 
   const deposit = page.getByTestId('plan-card-deposit');

@@ -16,6 +16,8 @@ const PHONE = { viewport: { width: 390, height: 844 }, isMobile: true, hasTouch:
 
 let browser: Browser;
 let dayPath = '';
+/** The day the visit was worked (today: started early, it moved to the day it started). */
+let workedPath = '';
 
 beforeAll(async () => {
   browser = await launchBrowser();
@@ -103,6 +105,10 @@ describe('day economics', () => {
     await page.getByTestId('visit-prep').waitFor();
     await page.getByTestId('visit-start').click();
     await page.getByTestId('visit-finish').waitFor();
+    // Started before its day, the visit took place today (review 7, P3-2): its day's earnings are today's.
+    const pickList = new URL(portalUrl((await page.getByTestId('visit-pick-list').getAttribute('href'))!));
+    workedPath = `/economics?date=${pickList.searchParams.get('date')}&electricianId=${pickList.searchParams.get('electricianId')}`;
+    expect(pickList.searchParams.get('date')! <= new URLSearchParams(dayPath.split('?')[1]).get('date')!).toBe(true);
     await recordFinished(page, 'kitchen counter right of range', 'GFCI receptacles installed at the first device of the counter run; downstream protected');
     await recordFinished(page, 'rear patio', 'Extra-duty in-use cover and WR GFCI receptacle installed');
     await page.getByTestId('visit-finish').click();
@@ -110,7 +116,7 @@ describe('day economics', () => {
     await page.getByTestId('visit-prep').scrollIntoViewIfNeeded();
     await screenshot(page, 'economics-work-page-phone');
 
-    await page.goto(portalUrl(dayPath));
+    await page.goto(portalUrl(workedPath));
     const day = page.getByTestId('day-totals');
     await day.waitFor();
     const earnedCard = page.locator('mat-card').filter({ hasText: STREET });
@@ -131,7 +137,7 @@ describe('day economics', () => {
     await page.goto(portalUrl('/economics/period'));
     await page.getByTestId('period-heading').waitFor();
     await page.getByTestId('span-month').click();
-    await page.getByTestId('period-anchor').fill(new URLSearchParams(dayPath.split('?')[1]).get('date')!);
+    await page.getByTestId('period-anchor').fill(new URLSearchParams(workedPath.split('?')[1]).get('date')!);
     await page.getByTestId('period-anchor').dispatchEvent('change');
     await page.getByTestId('single-visit-rate').waitFor();
     expect(await page.getByTestId('single-visit-rate').textContent()).toMatch(/\d+(\.\d)? %/);

@@ -2,9 +2,9 @@
 // asked for the protection, and filters the request list by build year. The test opens its own
 // 1978 request (through the API, with the signed-in page's cookies) so it owns its data.
 import { existsSync } from 'node:fs';
-import AxeBuilder from '@axe-core/playwright';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { launchBrowser, portalUrl, screenshot, signInAs } from '../helpers/browser';
+import { axeOf } from '../helpers/axe';
 
 jest.setTimeout(180_000);
 
@@ -33,7 +33,7 @@ afterEach(() => context?.close());
 
 /** Serious and critical accessibility problems axe finds on the page as it is now. */
 async function seriousViolations(): Promise<string[]> {
-  const { violations } = await new AxeBuilder({ page }).analyze();
+  const { violations } = await axeOf(page).analyze();
   return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
 }
 

@@ -76,7 +76,7 @@ describe('an invitation goes out by e-mail and is in the timeline', () => {
 });
 
 describe('dashboards', () => {
-  it('the agent sees the open requests by closing date with risk and the items by status', async () => {
+  it('the agent sees the open requests by closing date with risk, the finished ones, and the items by status', async () => {
     await open();
     await signInAs(page, 'maya.chen@juniperkey.test');
     await page.getByTestId('nav-dashboard').click();
@@ -84,9 +84,17 @@ describe('dashboards', () => {
     await page.getByTestId('dashboard-request').first().waitFor();
     expect(await page.getByTestId('dashboard-request').count()).toBeGreaterThan(0);
     expect(await page.getByTestId('dashboard-request').first().textContent()).toMatch(/Closing .* (left|ago)/);
+    // Finished requests stay on the dashboard in their own section (review 7, P4-2): the demo's
+    // accepted 640 Bellweather Road (closing today) and withdrawn 301 Kestrel Point are Maya's.
+    await page.getByTestId('finished-request').first().waitFor();
+    const finished = await page.getByTestId('finished-request').allTextContents();
+    expect(finished.some((text) => text.includes('640 Bellweather Road') && text.includes('closing today'))).toBe(true);
+    expect(finished.some((text) => text.includes('301 Kestrel Point') && text.includes('Withdrawn'))).toBe(true);
+    expect((await page.getByTestId('dashboard-request').allTextContents()).some((text) => text.includes('640 Bellweather Road'))).toBe(false);
     expect(await seriousViolations(page)).toEqual([]);
     await screenshot(page, 'agent-dashboard-desktop');
     await page.setViewportSize(PHONE);
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
     await screenshot(page, 'agent-dashboard-phone');
   });
 

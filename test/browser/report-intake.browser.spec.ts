@@ -1,11 +1,11 @@
 // Upload → parse → review → confirm in the portal, for a PDF, a text file and pasted text. Each test
 // opens its own repair request (through the API, with the signed-in page's cookies) so it owns its data.
 import { existsSync } from 'node:fs';
-import AxeBuilder from '@axe-core/playwright';
 import type { Browser, Page } from 'playwright-core';
 import { REQUEST_STATUS_LABELS } from '@cc/shared';
 import { expectAccessible, launchBrowser, openPage, portalUrl, screenshot, signInAs, watchConsole } from '../helpers/browser';
 import { textPdf } from '../helpers/pdf-fixtures';
+import { axeOf } from '../helpers/axe';
 
 jest.setTimeout(180_000);
 
@@ -225,7 +225,7 @@ describe('a buyer’s agent takes in an inspection report', () => {
     const add = passage.getByTestId('unitemised-add');
     expect(await add.textContent()).toContain('Laundry');
     expect(existsSync(await screenshot(page, 'intake-unitemised-before'))).toBe(true);
-    const serious = (await new AxeBuilder({ page }).analyze()).violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
+    const serious = (await axeOf(page).analyze()).violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
     expect(serious.map((v) => v.id)).toEqual([]);
 
     await add.click();

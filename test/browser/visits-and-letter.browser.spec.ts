@@ -67,13 +67,15 @@ describe('visits, corrections and the completion letter', () => {
     await signInAs(page, CONTRACTOR);
     await page.goto(portalUrl(`/requests/${requestId}/work`));
     await page.getByTestId('work-heading').waitFor();
-    // The visit was booked for tomorrow: starting it today says what that records.
-    expect(await page.getByTestId('visit-early').textContent()).toContain('Starting it now records the work as done today');
+    // The visit was booked for tomorrow: starting it today moves it to today (review 7, P3-2).
+    expect(await page.getByTestId('visit-early').textContent()).toContain('Starting it now moves the visit to today');
+    const bookedTitle = (await page.getByTestId('visit-1').locator('mat-card-title').textContent())?.trim();
     expect((await page.getByTestId('visit-start').textContent())?.trim()).toBe('Start it today anyway');
     await expectAccessible(page);
     await page.getByTestId('visit-start').click();
     await page.getByTestId('visit-finish').waitFor();
     expect(await page.getByTestId('visit-early').count()).toBe(0);
+    await page.getByTestId('visit-1').locator('mat-card-title').filter({ hasNotText: bookedTitle ?? '' }).waitFor();
 
     const openGround = page.locator('mat-card').filter({ hasText: 'Three-slot receptacle with no equipment ground' });
     await openGround.getByTestId('record-outcome').click();
@@ -124,6 +126,8 @@ describe('visits, corrections and the completion letter', () => {
     await page.getByTestId('correction-save').click();
     await page.getByTestId('work-heading').waitFor();
     await page.getByTestId('work-status').filter({ hasText: 'Work finished' }).waitFor();
+    // The visit is still marked on site: the next steps say so before the letter.
+    expect(await page.getByTestId('work-next').textContent()).toContain('Finish visit 1 (on site): the contractor');
     await screenshot(page, 'work-page-phone');
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
     await page.context().close();
@@ -138,6 +142,9 @@ describe('visits, corrections and the completion letter', () => {
     await page.getByTestId('letter-issue').click();
     await page.getByTestId('letter-1').waitFor();
     await page.getByTestId('work-status').filter({ hasText: 'Letter issued' }).waitFor();
+    // The letter ended the visit left on site: nobody is shown on site after it.
+    expect(await page.getByTestId('visit-1').locator('mat-card-subtitle').textContent()).not.toContain('On site');
+    expect(await page.getByTestId('visit-finish').count()).toBe(0);
     verifyPath = (await page.getByTestId('letter-verify-link').getAttribute('href')) ?? '';
     pdfPath = (await page.getByTestId('letter-download').getAttribute('href')) ?? '';
     expect(verifyPath).toMatch(/^\/verify\/[A-Z2-9]{10}$/);

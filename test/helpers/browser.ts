@@ -1,9 +1,8 @@
 // playwright-core driving Debian's chromium (never a downloaded browser), for the browser tests.
 import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
-import AxeBuilder from '@axe-core/playwright';
 import { chromium, type Browser, type BrowserContextOptions, type Page } from 'playwright-core';
-import { settled } from './axe';
+import { axeOf, settled } from './axe';
 
 export const SCREENSHOTS = join(__dirname, '..', '..', 'test-results', 'screenshots');
 
@@ -42,7 +41,7 @@ export async function openPage(browser: Browser, options: BrowserContextOptions 
  */
 export async function expectAccessible(page: Page): Promise<void> {
   await settled(page);
-  const results = await new AxeBuilder({ page }).analyze();
+  const results = await axeOf(page).analyze();
   const blocking = results.violations
     .filter((v) => v.impact === 'serious' || v.impact === 'critical')
     .map((v) => `${v.id} (${v.impact}) on ${page.url()}: ${v.help}: ${v.nodes.slice(0, 3).map((n) => n.target.join(' ')).join('; ')}`);

@@ -1,4 +1,4 @@
-import type { ItemStatus, Quote, QuoteContractor, RateBook } from '@cc/shared';
+import type { ItemStatus, Quote, QuoteContractor, RateBook, SignerCapacity } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
 
 export interface StoredApproval {
@@ -9,6 +9,8 @@ export interface StoredApproval {
   signedBy: number;
   signedByName: string;
   signerName: string;
+  /** Signed by the seller, or for the seller by the listing agent (or an administrator). */
+  signerCapacity: SignerCapacity;
   consentText: string;
   signedAt: Date;
   ipAddress: string;
@@ -46,6 +48,7 @@ type ApprovalRow = {
   signed_by: number;
   by_name: string;
   signer_name: string;
+  signer_capacity: SignerCapacity;
   consent_text: string;
   signed_at: Date;
   ip_address: string;
@@ -65,6 +68,7 @@ function toApproval(r: ApprovalRow): StoredApproval {
     signedBy: r.signed_by,
     signedByName: r.by_name,
     signerName: r.signer_name,
+    signerCapacity: r.signer_capacity,
     consentText: r.consent_text,
     signedAt: r.signed_at,
     ipAddress: r.ip_address,
@@ -96,6 +100,7 @@ export class ApprovalRepository {
         quote_version: a.quoteVersion,
         signed_by: a.signedBy,
         signer_name: a.signerName,
+        signer_capacity: a.signerCapacity,
         consent_text: a.consentText,
         ip_address: a.ipAddress,
         user_agent: a.userAgent,

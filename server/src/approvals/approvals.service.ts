@@ -9,8 +9,9 @@ import {
   paymentAccount,
   priceScope,
   requestReference,
-  whoActsNext,
-  FLOW_ACTOR_LABELS,
+  signedInCapacity,
+  signerCapacityOf,
+  whoActsNextWords,
   type ApprovalView,
   type CurrentUser,
   type FindingCode,
@@ -20,6 +21,7 @@ import {
   type RepairRequestDetail,
   type Room,
   type ScopeItem,
+  type SignerCapacity,
   type SignApprovalParsed,
 } from '@cc/shared';
 import { lineCents, todayIn } from '@cc/shared';
@@ -112,6 +114,7 @@ export class ApprovalsService {
       signature: approval && {
         signerName: approval.signerName,
         signedByName: approval.signedByName,
+        signerCapacity: approval.signerCapacity,
         signedAt: approval.signedAt.toISOString(),
         quoteVersion: approval.quoteVersion,
         quoteHash: approval.quoteHash,
@@ -175,6 +178,7 @@ export class ApprovalsService {
     const actors = actorsOnRequest(user, request);
     assertMayMoveRequest(actors, 'approve', request.status, refusalMessages('approve or decline the quote', request.status));
     const isApproved = input.decisions.some((d) => d.decision === 'approved');
+    const capacity = signerCapacityOf(actors);
 
     // Sent versions never change: the one decided on is read before the transaction.
     const stored = await this.quoteRows.find(requestId, input.quoteVersion);
@@ -212,14 +216,16 @@ export class ApprovalsService {
 
       const approvedKeys = [...decided.values()].filter((d) => d.decision === 'approved').map((d) => String(d.lineItemId));
       const id = await this.approvals.insert(
-        signedRecord({ requestId, request, stored, pricing, approvedKeys, signedBy: user.id, signerName: input.signerName, ipAddress: context.ipAddress, userAgent: context.userAgent }),
+        signedRecord({ requestId, request, stored, pricing, approvedKeys, signedBy: user.id, signerName: input.signerName, signerCapacity: capacity, ipAddress: context.ipAddress, userAgent: context.userAgent }),
         trx,
       );
       await this.approvals.insertDecisions(
         [...decided.values()].map((d) => ({ requestId, lineItemId: d.lineItemId, approvalId: id, changeOrderId: null, decision: d.decision, note: d.note || null, decidedBy: user.id })),
         trx,
       );
-      const note = isApproved ? `Quote version ${latest} approved and signed by ${input.signerName}` : `Every item of quote version ${latest} declined by ${input.signerName}`;
+      // The history (every party's Activity) says who signed and in what capacity.
+      const signer = signedInCapacity(input.signerName, capacity);
+      const note = isApproved ? `Quote version ${latest} approved and signed by ${signer}` : `Every item of quote version ${latest} declined by ${signer}`;
       await this.flow.moveRequest(trx, requestId, isApproved ? 'approve' : 'decline', mover, note, refusalMessages('approve or decline the quote', request.status));
       await this.notices.quoteDecided(trx, { requestId, by: user.id, approvalId: id, isApproved });
       return id;
@@ -241,6 +247,7 @@ export function signedRecord(s: {
   approvedKeys: string[];
   signedBy: number;
   signerName: string;
+  signerCapacity: SignerCapacity;
   ipAddress: string;
   userAgent: string;
 }): Omit<StoredApproval, 'id' | 'signedAt' | 'signedByName'> {
@@ -253,6 +260,7 @@ export function signedRecord(s: {
     quoteVersion: s.stored.version,
     signedBy: s.signedBy,
     signerName: s.signerName,
+    signerCapacity: s.signerCapacity,
     consentText: approvalConsentText({ contractorName: s.stored.contractor.name, requestReference: requestReference(s.requestId), quoteVersion: s.stored.version, property }),
     ipAddress: s.ipAddress.slice(0, 64),
     userAgent: s.userAgent.slice(0, 500),
@@ -265,10 +273,9 @@ export function signedRecord(s: {
 
 /** What happens next on the seller's side of the request, and who acts, in one sentence (addressed to `viewer` when it is their step). */
 function nextStep(request: RepairRequestDetail, viewer: readonly FlowActor[], isSigned: boolean, account: ReturnType<typeof paymentAccount>, hasOpenChangeOrder: boolean): string {
-  const who = (actors: FlowActor[]) => actors.map((a) => FLOW_ACTOR_LABELS[a]).join(' or ') || 'nobody';
   if (!isSigned) {
     if (request.status === 'quoted' && mayMoveRequest(viewer, 'approve', 'quoted')) return 'Next: approve or decline each item and sign (you, or the other person on the seller’s side).';
-    if (request.status === 'quoted') return `Waiting for ${who(whoActsNext('quoted'))} to approve or decline each item and sign.`;
+    if (request.status === 'quoted') return `Waiting for ${whoActsNextWords('quoted')} to approve or decline each item and sign.`;
     return 'No decision is due: the quote is not with the seller.';
   }
   if (request.status === 'declined') return 'The seller declined every item. Nothing more happens on this quote.';
@@ -278,9 +285,11 @@ function nextStep(request: RepairRequestDetail, viewer: readonly FlowActor[], is
   if (account.balanceCents > 0 && account.paidCents === 0) {
     return mayAct(viewer, 'pay', request.status)
       ? 'Next: choose how to pay: by card now, a deposit now, or at closing.'
-      : 'Next: the seller (or the listing agent) chooses how to pay: by card now, a deposit now, or at closing.';
+      : // Payment is the seller side's matter, beside the work: who the request waits for is the shared
+        // next-step rule's answer, as on the request page and the dashboard.
+        `To pay: the seller or the listing agent chooses how (by card now, a deposit now, or at closing). The work waits for ${whoActsNextWords(request.status) || 'nobody'}.`;
   }
   if (account.balanceCents > 0) return `The balance is due on completion; the contractor books and does the work.`;
-  const next = who(whoActsNext(request.status));
+  const next = whoActsNextWords(request.status) || 'nobody';
   return `Paid in full. ${next.charAt(0).toUpperCase()}${next.slice(1)} acts next on the work.`;
 }

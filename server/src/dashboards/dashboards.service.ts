@@ -1,7 +1,6 @@
 import {
   closingRisk,
   daysToClosing,
-  FLOW_ACTOR_LABELS,
   isEnded,
   monthsEndingAt,
   PIPELINE_STAGES,
@@ -9,7 +8,7 @@ import {
   REQUEST_STATUSES,
   requestMove,
   requestReference,
-  whoActsNext,
+  whoActsNextWords,
   wholePercent,
   type AgentDashboard,
   type ContractorDashboard,
@@ -38,7 +37,6 @@ export class DashboardsService {
     const rows = await this.figures.agentRequests(user.role === 'admin' ? null : user.id, OPEN_STATUSES);
     const requests = rows.map((r) => {
       const daysLeft = daysToClosing(r.closing_date, today);
-      const next = whoActsNext(r.status)[0];
       return {
         id: r.id,
         reference: requestReference(r.id),
@@ -47,7 +45,8 @@ export class DashboardsService {
         closingDate: r.closing_date,
         daysLeft,
         risk: closingRisk(r.status, daysLeft),
-        nextActor: next ? FLOW_ACTOR_LABELS[next] : null,
+        // The shared next-step rule, as the request page says it ("Waits for the contractor").
+        nextActor: whoActsNextWords(r.status) || null,
       };
     });
     return { today, requests, itemsByStatus: await this.figures.itemsByStatus(rows.map((r) => r.id)) };

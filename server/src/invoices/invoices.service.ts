@@ -1,4 +1,4 @@
-import { actorsOnRequest, ITEM_STATUS_LABELS, paymentAccount, requestReference, type CurrentUser, type EscrowCompany, type InvoiceSummary, type QuoteContractor } from '@cc/shared';
+import { actorsOnRequest, ITEM_STATUS_LABELS, paymentAccount, requestReference, signedInCapacity, type CurrentUser, type EscrowCompany, type InvoiceSummary, type QuoteContractor } from '@cc/shared';
 import { billRows } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
 import { renderInvoicePdf } from '../integrations/pdf/invoice-pdf';
@@ -97,8 +97,11 @@ export class InvoicesService {
 
   /** A receipt after a card payment was credited (in the caller's transaction). */
   async issueReceipt(requestId: number, payment: StoredPayment, trx: Trx): Promise<StoredInvoice> {
+    // To the seller, whoever signed: a listing agent who signed for them is named with that capacity.
     const approval = await this.approvals.find(requestId, trx);
-    return this.write(requestId, { kind: 'receipt', series: 'receipt', addressedTo: { name: approval?.signerName ?? 'The seller', lines: [] }, issuedBy: null, payment }, trx);
+    const signedFor = approval && approval.signerCapacity !== 'seller' ? [`Approval signed by ${signedInCapacity(approval.signerName, approval.signerCapacity)}`] : [];
+    const seller = (await this.sellerName(requestId, trx)) ?? approval?.signerName ?? 'The seller';
+    return this.write(requestId, { kind: 'receipt', series: 'receipt', addressedTo: { name: seller, lines: signedFor }, issuedBy: null, payment }, trx);
   }
 
   async list(user: CurrentUser, requestId: number): Promise<InvoiceSummary[]> {
@@ -120,6 +123,16 @@ export class InvoicesService {
     if (!invoice) throw new NotFoundError('No such invoice');
     const content = invoice.content as InvoiceContent;
     return { fileName: `${content.requestReference}-${content.number}.pdf`, contentType: 'application/pdf', content: await renderInvoicePdf(content) };
+  }
+
+  /** The seller named on the request (their account's name, or the address they were invited at), if any. */
+  private async sellerName(requestId: number, trx: Trx): Promise<string | null> {
+    const row: { name: string } | undefined = await trx('request_parties as p')
+      .leftJoin('users as u', 'u.id', 'p.user_id')
+      .where({ 'p.request_id': requestId, 'p.role': 'seller' })
+      .orderBy('p.id')
+      .first(trx.raw('coalesce(u.name, p.email) AS name'));
+    return row?.name ?? null;
   }
 
   /** Money papers are for the seller's side, the contractor and administrators. */
@@ -157,7 +170,7 @@ export class InvoicesService {
   ): Promise<InvoiceContent> {
     const items = new Map((await this.approvals.lineItems(requestId, trx)).map((i) => [i.id, i]));
     const request = await trx('repair_requests').where({ id: requestId }).first('street', 'city', 'state', 'zip', 'closing_date');
-    const seller: { name: string | null } | undefined = await trx('request_parties as p').leftJoin('users as u', 'u.id', 'p.user_id').where({ 'p.request_id': requestId, 'p.role': 'seller' }).orderBy('p.id').first(trx.raw('coalesce(u.name, p.email) AS name'));
+    const sellerName = await this.sellerName(requestId, trx);
     const entries = new Map(scope.book.entries.map((e) => [e.id, e]));
     // The rows come from the shared engine and add up to the subtotal (the first-hour minimum is in the lines).
     const bill = billRows(scope.breakdown);
@@ -177,7 +190,7 @@ export class InvoicesService {
       property: `${request.street}, ${request.city}, ${request.state} ${request.zip}`,
       issuedOn: dateOf(null),
       closingDate: String(request.closing_date).slice(0, 10),
-      sellerName: seller?.name ?? null,
+      sellerName,
       ...(w.escrow ? { escrow: w.escrow } : {}),
       contractor,
       addressedTo: w.addressedTo,

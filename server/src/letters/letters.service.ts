@@ -29,6 +29,7 @@ import { moveItem, moveRequest } from '../work/request-moves';
 import type { WorkItemRepository } from '../work/work-item.repository';
 import { renderLetterPdf, type LetterContent } from './letter-pdf';
 import type { LetterRecord, LetterRepository } from './letter.repository';
+import type { SiteVisitRepository } from '../visits/site-visit.repository';
 
 const CODE_ALPHABET = 'ABCDEFGHJKMNPQRSTUVWXYZ23456789';
 const CODE_LENGTH = 10;
@@ -68,6 +69,7 @@ export class LettersService {
     private readonly storage: FileStorage,
     private readonly messages: ProofMessages,
     private readonly publicUrl: string,
+    private readonly siteVisits: SiteVisitRepository,
   ) {}
 
   verificationUrl(code: string): string {
@@ -130,7 +132,10 @@ export class LettersService {
           { requestId, number, revision, verificationCode: code, sha256, storageKey, itemCount: items.length, permitNumber: input.permitNumber || null, issuedBy: user.id, issuedAt },
           trx,
         );
-        await moveRequest(this.flow, { requestId, event: 'issue-letter', actors, by: user.id, note: `Completion letter ${number} revision ${revision} issued` }, trx);
+        // The letter says the work is done: a visit still on site ends with it (nobody is left working).
+        const finished = await this.siteVisits.finishStarted(requestId, issuedAt, trx);
+        const visitsNote = finished.length ? `; visit ${finished.join(', ')} finished with it` : '';
+        await moveRequest(this.flow, { requestId, event: 'issue-letter', actors, by: user.id, note: `Completion letter ${number} revision ${revision} issued${visitsNote}` }, trx);
         await this.messages.letterIssued(trx, { requestId, letterNumber: number, revision, by: user.id });
         return revision;
       }),

@@ -119,15 +119,17 @@ export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
       };
     case 'items-decided': {
       const declinedAll = input.approvedCount === 0;
+      // Who decided: the seller, or whoever signed for them, named with their capacity.
+      const who = input.signedBy ? `${input.signedBy},` : 'The seller';
       return {
         subject: declinedAll
-          ? `${r.reference}: the seller declined the quote — ${input.declinedCount} ${input.declinedCount === 1 ? 'item' : 'items'} declined`
-          : `${r.reference}: the seller approved the quote — ${input.approvedCount} approved, ${input.declinedCount} declined`,
+          ? `${r.reference}: the quote was declined — ${input.declinedCount} ${input.declinedCount === 1 ? 'item' : 'items'} declined`
+          : `${r.reference}: the quote was approved — ${input.approvedCount} approved, ${input.declinedCount} declined`,
         paragraphs: declinedAll
-          ? [`The seller declined every item of the quote for ${r.address}. No work is booked on this request.`]
+          ? [`${who} declined every item of the quote for ${r.address}. No work is booked on this request.`]
           : [
-              `The seller approved and signed ${input.approvedCount} ${input.approvedCount === 1 ? 'item' : 'items'} for ${r.address}, ${formatCents(input.approvedCents)} in total${input.declinedCount ? `, and declined ${input.declinedCount}` : ''}.`,
-              `Next the seller chooses how to pay, and the contractor books the visit. Closing is on ${dayOf(r.closingDate)}.`,
+              `${who} approved and signed ${input.approvedCount} ${input.approvedCount === 1 ? 'item' : 'items'} for ${r.address}, ${formatCents(input.approvedCents)} in total${input.declinedCount ? `, and declined ${input.declinedCount}` : ''}.`,
+              `Next the seller's side chooses how to pay, and the contractor books the visit. Closing is on ${dayOf(r.closingDate)}.`,
             ],
         action: { label: 'See the decision', path: approvalPage },
       };

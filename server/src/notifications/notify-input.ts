@@ -15,7 +15,7 @@ export type NotifyInput =
   | (Base & { kind: 'report-parsed'; reportFileId: number; itemCount: number })
   | (Base & { kind: 'ready-to-price'; itemCount: number })
   | (Base & { kind: 'quote-sent'; version: number; totalCents: number })
-  | (Base & { kind: 'items-decided'; approvedCount: number; declinedCount: number; approvedCents: number; decisionRef: string })
+  | (Base & { kind: 'items-decided'; approvedCount: number; declinedCount: number; approvedCents: number; decisionRef: string; /** Who signed for the seller ("Robert Hale, listing agent, for the seller"); null when the seller signed. */ signedBy: string | null })
   | (Base & { kind: 'payment-received'; paymentId: number; amountCents: number; /** The receipt issued for it (card payments), e.g. RCT-000012. */ receiptNumber: string | null })
   | (Base & { kind: 'closing-payment-chosen'; paymentId: number; amountCents: number; invoiceNumber: string; /** Where the invoice was e-mailed. */ escrow: EscrowRecipient })
   | (Base & { kind: 'closing-invoice'; invoiceId: number; invoiceNumber: string; amountCents: number; /** The contractor the funds are paid to. */ payee: string; escrow: EscrowRecipient; /** Counts the sends of one invoice (a second send to a corrected address is a new message). */ sendNumber: number })

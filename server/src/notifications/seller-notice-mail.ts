@@ -1,5 +1,6 @@
 // The seller's side told by e-mail: each notice reads the facts of what happened in the caller's
 // transaction and writes its messages with notify(), so they commit or roll back with the change.
+import { signedInCapacity, type SignerCapacity } from '@cc/shared';
 import type { SellerNotices } from '../approvals/seller-notices';
 import type { Trx } from '../db/knex';
 import { invoiceNumber } from '../invoices/invoice-dto';
@@ -19,7 +20,9 @@ export function sellerNoticesByMail(notifications: NotificationsService): Seller
   };
   return {
     async quoteDecided(trx, { requestId, by, approvalId, at }) {
-      const approval = await trx('quote_approvals').where({ id: approvalId }).first('approved_total_cents');
+      const approval: { approved_total_cents: number; signer_name: string; signer_capacity: SignerCapacity } = await trx('quote_approvals')
+        .where({ id: approvalId })
+        .first('approved_total_cents', 'signer_name', 'signer_capacity');
       const counts: { decision: string; n: string }[] = await trx('item_decisions').where({ approval_id: approvalId }).groupBy('decision').select('decision', trx.raw('count(*) AS n'));
       const count = (decision: string) => Number(counts.find((c) => c.decision === decision)?.n ?? 0);
       await notifications.notify(trx, {
@@ -30,6 +33,7 @@ export function sellerNoticesByMail(notifications: NotificationsService): Seller
         declinedCount: count('declined'),
         approvedCents: approval.approved_total_cents,
         decisionRef: `approval-${approvalId}`,
+        signedBy: approval.signer_capacity === 'seller' ? null : signedInCapacity(approval.signer_name, approval.signer_capacity),
         at,
       });
     },

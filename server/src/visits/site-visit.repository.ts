@@ -108,6 +108,15 @@ export class SiteVisitRepository {
     await trx('site_visits').where({ id }).update({ visit_date: to.date, electrician_id: to.electricianId, arrival_from: to.arrivalFrom, arrival_to: to.arrivalTo, updated_at: new Date() });
   }
 
+  /** Finishes at `at` every visit of the request still on site (the letter ends the work); their numbers. */
+  async finishStarted(requestId: number, at: Date, trx: Trx): Promise<number[]> {
+    const rows: { number: number }[] = await trx('site_visits')
+      .where({ request_id: requestId, status: 'started' })
+      .update({ status: 'finished', finished_at: at, updated_at: at })
+      .returning('number');
+    return rows.map((r) => r.number).sort((a, b) => a - b);
+  }
+
   /** Moves a visit from one of `from` to `to`; false when it was not in one of those states. */
   async setStatus(id: number, from: readonly SiteVisitStatus[], to: SiteVisitStatus, trx: Trx): Promise<boolean> {
     const now = new Date();

@@ -77,13 +77,22 @@ export class VisitsService {
   private async mark(user: CurrentUser, requestId: number, visitId: number, onlyFrom: 'booked' | 'started', to: 'started' | 'finished'): Promise<SiteVisit> {
     const { request, actors } = await requestWithActors(this.access, user, requestId);
     const from: ('booked' | 'started')[] = to === 'finished' && !mayAct(actors, 'record-correction', request.status) ? ['booked', 'started'] : [onlyFrom];
-    if (!(await this.visits.find(requestId, visitId))) throw new NotFoundError('No such site visit');
+    const visit = await this.visits.find(requestId, visitId);
+    if (!visit) throw new NotFoundError('No such site visit');
     assertMayAct(actors, to === 'started' ? 'record-correction' : 'finish-visit', request.status, to === 'started' ? 'Starting a visit' : 'Finishing a visit');
+    // A visit started before its day ("Start it today anyway") takes place today: it moves to today,
+    // and the seller's side hears the new day as when a visit is moved on the day plan.
+    const today = to === 'started' ? todayIn(await this.timeZoneOf(request.contractor!.id)) : null;
     await this.db.transaction(async (trx) => {
       const locked = await this.items.lockRequest(requestId, trx);
       if (!locked || locked.status !== request.status) throw new ConflictError('The request changed meanwhile. Reload and try again.');
       if (!(await this.visits.setStatus(visitId, from, to, trx))) {
         throw new ConflictError(to === 'started' ? 'This visit was started already' : 'Only a visit that was started can be finished');
+      }
+      if (today !== null && visit.date > today) {
+        const window = { arrivalFrom: visit.arrivalFrom, arrivalTo: visit.arrivalTo };
+        await this.visits.reschedule(visitId, { date: today, electricianId: visit.electricianId, ...window }, trx);
+        await this.messages.visitScheduled(trx, { requestId, visitNumber: visit.number, date: today, ...window, by: user.id, previous: { date: visit.date, ...window } });
       }
       if (to === 'started' && request.status === 'scheduled') {
         await moveRequest(this.flow, { requestId, event: 'start-work', actors, by: user.id }, trx);

@@ -21,8 +21,10 @@ export const ITEM_STATUS_LABELS: Record<ItemStatus, string> = {
   proposed: 'Proposed by the reader',
   open: 'Confirmed',
   priced: 'Priced',
-  approved: 'Approved by seller',
-  declined: 'Declined by seller',
+  // Decided on the seller's side: by the seller, or for them by the listing agent (the signature
+  // says who, in what capacity), so the state itself names nobody.
+  approved: 'Approved',
+  declined: 'Declined',
   'out-of-scope': 'Not in contractor’s scope',
   done: 'Corrected',
   'not-done': 'Not corrected',

@@ -46,7 +46,8 @@ export const NOTIFICATION_RULES: Record<NotificationKind, NotificationKindRule> 
   'report-parsed': { label: 'Inspection report read', to: ['buyer-agent'], defaultDelivery: 'immediate', isAdjustable: true },
   'ready-to-price': { label: 'Request ready to price', to: ['contractor'], defaultDelivery: 'immediate', isAdjustable: true },
   'quote-sent': { label: 'Quote sent', to: ['seller', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
-  'items-decided': { label: 'Items approved or declined', to: ['contractor', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
+  // The seller too: the listing agent may sign for them.
+  'items-decided': { label: 'Items approved or declined', to: ['contractor', 'seller', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
   'payment-received': { label: 'Payment received', to: ['contractor', 'seller', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },
   // The seller too: the listing agent may choose it for them.
   'closing-payment-chosen': { label: 'Payment at closing chosen', to: ['contractor', 'seller', 'buyer-agent', 'listing-agent'], defaultDelivery: 'immediate', isAdjustable: true },

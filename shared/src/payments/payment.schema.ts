@@ -8,6 +8,7 @@ import { RateBookSchema } from '../pricing/rate-book.schema';
 import { RequestStatusSchema } from '../requests/request-status.schema';
 import { QuoteVersionSchema } from '../quotes/quote-version.schema';
 import { PAYMENT_PLANS } from './payment-account';
+import { SignerCapacitySchema } from './signer-capacity';
 
 
 const cents = z.number().int().min(1, 'Enter an amount of at least 1 cent').max(100_000_000, 'That amount is too large');
@@ -45,6 +46,8 @@ export type SignApprovalParsed = z.output<typeof SignApprovalSchema>;
 export const SignatureSchema = z.object({
   signerName: z.string(),
   signedByName: z.string(),
+  /** In what capacity it was signed: by the seller, or for the seller by the listing agent (or an administrator). */
+  signerCapacity: SignerCapacitySchema,
   signedAt: z.string(),
   quoteVersion: z.number().int(),
   /** SHA-256 of the quote version as signed. */

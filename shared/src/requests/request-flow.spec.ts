@@ -14,6 +14,8 @@ import {
   requestMove,
   requestPathTo,
   whoActsNext,
+  whoActsNextWords,
+  actorWords,
   type FlowActor,
 } from './request-flow';
 import { FINAL_STATUSES, REQUEST_STATUSES } from './request-status';
@@ -71,6 +73,27 @@ describe('request flow', () => {
     expect(whoActsNext('quoted')).toEqual(['seller', 'listing-agent']);
     expect(whoActsNext('letter-issued')).toEqual(['inspector', 'buyer-agent']);
     expect(whoActsNext('accepted')).toEqual([]);
+  });
+
+  // Review 7, P4-1: the dashboard said "Next: the seller" for a request whose work was finished, the
+  // request page "Waits for the contractor": a detour (a change order) does not make the request wait.
+  it('leaves detours out of who acts next unless they apply', () => {
+    expect(whoActsNext('corrected')).toEqual(['contractor']);
+    expect(whoActsNext('corrected', ['approve-change-order'])).toEqual(['seller', 'listing-agent', 'contractor']);
+    expect(whoActsNextWords('corrected')).toBe('the contractor');
+    expect(whoActsNextWords('quoted')).toBe('the seller or the listing agent');
+    expect(whoActsNextWords('letter-issued')).toBe('the inspector or the buyer’s agent');
+    expect(whoActsNextWords('accepted')).toBe('');
+    expect(actorWords(['buyer-agent', 'listing-agent', 'admin'])).toBe('the buyer’s agent or the listing agent');
+  });
+
+  it('names someone next in every state that is not final, and the same people as a usual move out of it', () => {
+    for (const status of REQUEST_STATUSES) {
+      if (FINAL_STATUSES.includes(status)) continue;
+      const next = whoActsNext(status);
+      expect(next.length).toBeGreaterThan(0);
+      for (const actor of next) expect(movesThatApply(status).some((m) => m.by.includes(actor))).toBe(true);
+    }
   });
 
   it('answers the actions that do not move the request', () => {

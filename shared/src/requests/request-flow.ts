@@ -6,6 +6,7 @@ import type { Role } from '../auth/role';
 import type { PartyRole } from './repair-request.schema';
 import type { ItemStatus } from '../items/item-status';
 import { FINAL_STATUSES, REQUEST_STATUSES, type RequestStatus } from './request-status';
+import { eitherWords } from '../text/list-words';
 
 /**
  * Who acts on a request: the parts a person plays on it (named parties), the assigned contractor's
@@ -267,11 +268,29 @@ export function movesThatApply(status: RequestStatus, detoursThatApply: readonly
   return movesOnFrom(status).filter((m) => !m.isDetour || detoursThatApply.includes(m.event));
 }
 
-/** Who acts next on a request in `status`, in the order the table names them (empty when final). */
-export function whoActsNext(status: RequestStatus): FlowActor[] {
+/**
+ * Who a request in `status` waits for, in the order the table names them (empty when final): the
+ * parties of its usual moves on. A detour (approving a change order) makes it wait only when the
+ * caller knows it applies (a change order is with the seller), or when the state has no usual move.
+ * This is the one next-step rule: the request page, the work page, the dashboards and the approval
+ * page all name these people, never a list or an order of their own.
+ */
+export function whoActsNext(status: RequestStatus, detoursThatApply: readonly RequestEvent[] = []): FlowActor[] {
+  const onward = movesOnFrom(status);
+  const usual = onward.some((m) => !m.isDetour) ? movesThatApply(status, detoursThatApply) : onward;
   const actors: FlowActor[] = [];
-  for (const move of movesOnFrom(status)) for (const a of move.by) if (a !== 'admin' && !actors.includes(a)) actors.push(a);
+  for (const move of usual) for (const a of move.by) if (a !== 'admin' && !actors.includes(a)) actors.push(a);
   return actors;
+}
+
+/** Actors in words, as a choice: "the seller or the listing agent" (administrators left out). */
+export function actorWords(actors: readonly FlowActor[]): string {
+  return eitherWords(actors.filter((a) => a !== 'admin').map((a) => FLOW_ACTOR_LABELS[a]));
+}
+
+/** Who a request in `status` waits for, in words ("the seller or the listing agent"; '' when final). */
+export function whoActsNextWords(status: RequestStatus, detoursThatApply: readonly RequestEvent[] = []): string {
+  return actorWords(whoActsNext(status, detoursThatApply));
 }
 
 /** The moves `actors` may make on a request in `status` right now. */

@@ -31,7 +31,7 @@ export const REQUEST_STATUS_LABELS: Record<RequestStatus, string> = {
   'letter-issued': 'Letter issued',
   accepted: 'Proof accepted',
   reopened: 'Reopened',
-  declined: 'Declined by seller',
+  declined: 'Quote declined',
   withdrawn: 'Withdrawn',
 };
 

@@ -1,4 +1,4 @@
-import { listWords } from './list-words';
+import { eitherWords, listWords } from './list-words';
 
 describe('listWords', () => {
   it.each([
@@ -8,5 +8,16 @@ describe('listWords', () => {
     [['a', 'b', 'c'], 'a, b and c'],
   ])('%p → %p', (words, sentence) => {
     expect(listWords(words)).toBe(sentence);
+  });
+});
+
+describe('eitherWords', () => {
+  it.each([
+    [[], ''],
+    [['the contractor'], 'the contractor'],
+    [['the seller', 'the listing agent'], 'the seller or the listing agent'],
+    [['a', 'b', 'c'], 'a, b or c'],
+  ])('%p → %p', (words, sentence) => {
+    expect(eitherWords(words)).toBe(sentence);
   });
 });

@@ -1,5 +1,6 @@
 import { Injectable } from '@angular/core';
 import { MatPaginatorIntl } from '@angular/material/paginator';
+import type { Page } from '@cc/shared';
 
 const count = new Intl.NumberFormat('en-US');
 
@@ -14,6 +15,12 @@ export interface ListCount {
   page: number;
   pageSize: number;
   rowCount: number;
+}
+
+/** How many rows the list of `page` has, as the page tells it (null before the first page came). */
+export function listCountOf(page: Page<unknown> | null | undefined): ListCount | null {
+  if (!page) return null;
+  return { total: page.total, isTotalCapped: page.isTotalCapped ?? false, hasMore: Boolean(page.nextCursor), page: page.page, pageSize: page.pageSize, rowCount: page.items.length };
 }
 
 /**

@@ -2,14 +2,19 @@ import { signedByText } from './signed-by';
 
 describe('signedByText', () => {
   it('names the signer once when the typed name is the account name', () => {
-    expect(signedByText('Ellen Brooks', 'Ellen Brooks')).toBe('Ellen Brooks');
+    expect(signedByText('Ellen Brooks', 'Ellen Brooks', 'seller')).toBe('Ellen Brooks, the seller');
   });
 
   it('ignores case and extra spaces when comparing', () => {
-    expect(signedByText(' ellen  brooks', 'Ellen Brooks')).toBe(' ellen  brooks');
+    expect(signedByText(' ellen  brooks', 'Ellen Brooks', 'seller')).toBe(' ellen  brooks, the seller');
   });
 
   it('adds the account name in brackets when it differs', () => {
-    expect(signedByText('E. Brooks', 'Ellen Brooks')).toBe('E. Brooks (Ellen Brooks)');
+    expect(signedByText('E. Brooks', 'Ellen Brooks', 'seller')).toBe('E. Brooks (Ellen Brooks), the seller');
+  });
+
+  // Review 7, P2-1: the listing agent's signature read as if the seller had signed.
+  it('says the listing agent signed for the seller', () => {
+    expect(signedByText('Robert Hale', 'Robert Hale', 'listing-agent')).toBe('Robert Hale, listing agent, for the seller');
   });
 });

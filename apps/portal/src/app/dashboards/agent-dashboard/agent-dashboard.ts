@@ -9,11 +9,12 @@ import { BaseChartDirective } from 'ng2-charts';
 import { Notice } from '../../core/http/notice';
 import { StatusChip } from '../../ui/status-chip/status-chip';
 import { DashboardsApi } from '../dashboards-api';
+import { FinishedRequests } from '../finished-requests/finished-requests';
 
-/** An agent's open requests by closing date (days left, risk, who acts next) and their items by status. */
+/** An agent's open requests by closing date (days left, risk, who acts next), the finished ones page by page, and the open ones' items by status. */
 @Component({
   selector: 'cc-agent-dashboard',
-  imports: [DatePipe, RouterLink, MatCardModule, MatProgressBarModule, StatusChip, BaseChartDirective],
+  imports: [DatePipe, RouterLink, MatCardModule, MatProgressBarModule, StatusChip, BaseChartDirective, FinishedRequests],
   templateUrl: './agent-dashboard.html',
   styleUrl: '../dashboard.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,4 +1,4 @@
-import { REQUEST_FLOW, REQUEST_STATUSES, Role, PartyRole } from '@cc/shared';
+import { isEnded, REQUEST_FLOW, REQUEST_STATUSES, Role, PartyRole, whoActsNextWords } from '@cc/shared';
 import { nextStepOf } from './next-step-text';
 
 const SELLER = { role: 'seller' as Role, myParts: ['seller'] as PartyRole[] };
@@ -14,10 +14,15 @@ describe('nextStepOf', () => {
         const step = nextStepOf(status, viewer);
         expect(step.summary.length).toBeGreaterThan(10);
         if (step.isEnded) {
-          expect(step.summary).toContain('nothing more happens');
-          // After accepted work, money may still come in (the flow table's record-funds).
-          if (status === 'accepted') expect(step.summary).toContain('the contractor records it on the approval page when it arrives');
-          else expect(step.summary).not.toContain('approval page');
+          // After accepted work, money may still come in (the flow table's record-funds): the page does
+          // not say that nothing more happens while the seller may still owe (review 7, P3-2).
+          if (status === 'accepted') {
+            expect(step.summary).toContain('the contractor records it on the approval page when it arrives');
+            expect(step.summary).not.toContain('nothing more happens');
+          } else {
+            expect(step.summary).toContain('nothing more happens');
+            expect(step.summary).not.toContain('approval page');
+          }
           expect(step.moves).toEqual([]);
         } else {
           // Every move named comes from the shared table, with who makes it.
@@ -72,5 +77,15 @@ describe('nextStepOf', () => {
     ]);
     expect(nextStepOf('letter-issued', INSPECTOR).summary).toBe('Waits for you (the inspector or the buyer’s agent).');
     expect(nextStepOf('withdrawn', SELLER).isEnded).toBe(true);
+  });
+
+  // Review 7, P4-1: the agent's dashboard ("Next: …", from the server) and this panel named different
+  // people; both now say the shared rule's words.
+  it('names the same people as the dashboard’s "Next:" in every state', () => {
+    for (const status of REQUEST_STATUSES) {
+      if (isEnded(status)) continue;
+      // Someone who plays no part on it, so that the panel speaks of the others in the third person.
+      expect(nextStepOf(status, { role: 'admin', myParts: [] }).summary).toBe(`Waits for ${whoActsNextWords(status)}.`);
+    }
   });
 });

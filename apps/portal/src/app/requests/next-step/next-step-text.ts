@@ -1,7 +1,7 @@
 import {
   actorsOf,
+  actorWords,
   FLOW_ACTOR_LABELS,
-  FlowActor,
   isEnded,
   movesOnFrom,
   REQUEST_STATUS_LABELS,
@@ -10,6 +10,7 @@ import {
   Role,
   statesAllowing,
   PartyRole,
+  whoActsNext,
 } from '@cc/shared';
 
 /** Where in the portal a move is made today. Moves not listed here are not in the portal yet. */
@@ -60,36 +61,35 @@ export interface NextStep {
   moves: NextMove[];
 }
 
-const or = (words: string[]) => (words.length > 1 ? `${words.slice(0, -1).join(', ')} or ${words.at(-1)}` : (words[0] ?? ''));
-
-const who = (actors: readonly FlowActor[]) => or(actors.filter((a) => a !== 'admin').map((a) => FLOW_ACTOR_LABELS[a]));
+/**
+ * What is left of an ended request, in one sentence (the request page and the work page say it):
+ * where the flow table still lets money be recorded (an invoice paid at closing), that it may be open.
+ */
+export function endedSummary(status: RequestStatus): string {
+  return statesAllowing('record-funds').includes(status)
+    ? `${REQUEST_STATUS_LABELS[status]}: the work is done. If money is still open (an invoice paid at closing), the contractor records it on the approval page when it arrives.`
+    : `${REQUEST_STATUS_LABELS[status]}: nothing more happens on this request.`;
+}
 
 /**
  * What a request in `status` waits for and who acts next, for one viewer: computed from the shared
  * flow table (its moves out of the state and who may make them), never from a list of our own.
  */
 export function nextStepOf(status: RequestStatus, viewer: { role: Role; myParts: readonly PartyRole[] }): NextStep {
-  if (isEnded(status)) {
-    // Where the flow table still lets money be recorded (an invoice paid from the proceeds at closing), say so.
-    const summary = statesAllowing('record-funds').includes(status)
-      ? `${REQUEST_STATUS_LABELS[status]}: the work is done and nothing more happens on this request. If money is still open (an invoice paid at closing), the contractor records it on the approval page when it arrives.`
-      : `${REQUEST_STATUS_LABELS[status]}: nothing more happens on this request.`;
-    return { status, isEnded: true, summary, moves: [] };
-  }
+  if (isEnded(status)) return { status, isEnded: true, summary: endedSummary(status), moves: [] };
   const actors = actorsOf({ role: viewer.role, myParts: viewer.myParts, isAssignedContractor: viewer.role === 'contractor' });
   const onward = movesOnFrom(status);
   const moves = onward
     .map((move): NextMove => {
       const isYours = move.by.some((a) => actors.includes(a));
       const place = PORTAL_PLACES[move.event] ?? null;
-      return { label: move.label, by: who(move.by) || FLOW_ACTOR_LABELS.admin, isYours, place: isYours ? place : null, isOutsidePortal: place === null, isDetour: !!move.isDetour };
+      return { label: move.label, by: actorWords(move.by) || FLOW_ACTOR_LABELS.admin, isYours, place: isYours ? place : null, isOutsidePortal: place === null, isDetour: !!move.isDetour };
     })
     .sort((a, b) => Number(a.isDetour) - Number(b.isDetour));
-  // The request waits for whoever makes the usual move; detours (a change order) do not make it wait.
-  const usual = onward.some((m) => !m.isDetour) ? onward.filter((m) => !m.isDetour) : onward;
-  const waitsFor: FlowActor[] = [];
-  for (const move of usual) for (const a of move.by) if (a !== 'admin' && !waitsFor.includes(a)) waitsFor.push(a);
+  // The request waits for whoever makes the usual move (the shared next-step rule, which the dashboards
+  // also name); detours (a change order) do not make it wait.
+  const waitsFor = whoActsNext(status);
   const isYourTurn = waitsFor.some((a) => actors.includes(a));
-  const summary = isYourTurn ? `Waits for you (${who(waitsFor)}).` : `Waits for ${who(waitsFor)}.`;
+  const summary = isYourTurn ? `Waits for you (${actorWords(waitsFor)}).` : `Waits for ${actorWords(waitsFor)}.`;
   return { status, isEnded: false, summary, moves };
 }

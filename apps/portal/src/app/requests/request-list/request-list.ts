@@ -24,7 +24,7 @@ import { catchError, debounceTime, distinctUntilChanged, map, of, switchMap, tap
 import { Auth } from '../../core/auth/auth';
 import { Notice } from '../../core/http/notice';
 import { requestListTitle } from '../../core/layout/nav-items';
-import { CappedPaginatorIntl, paginatorLength, type ListCount } from '../../ui/capped-paginator-intl';
+import { CappedPaginatorIntl, listCountOf, paginatorLength } from '../../ui/capped-paginator-intl';
 import { DaysToClosing } from '../../ui/days-to-closing/days-to-closing';
 import { StatusChip } from '../../ui/status-chip/status-chip';
 import { RequestsApi } from '../requests-api';
@@ -143,11 +143,7 @@ export class RequestList {
    * goes on past the cap while the server gives a cursor for the next page, and tells the exact
    * total on the last page.
    */
-  private readonly count = computed<ListCount | null>(() => {
-    const page = this.result();
-    if (!page) return null;
-    return { total: page.total, isTotalCapped: page.isTotalCapped ?? false, hasMore: Boolean(page.nextCursor), page: page.page, pageSize: page.pageSize, rowCount: page.items.length };
-  });
+  private readonly count = computed(() => listCountOf(this.result()));
   protected readonly length = computed(() => {
     const count = this.count();
     return count ? paginatorLength(count) : 0;

@@ -7,6 +7,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import {
+  actorWords,
   CORRECTION_OUTCOME_LABELS,
   FLOW_ACTOR_LABELS,
   ITEM_STATUS_LABELS,
@@ -25,6 +26,7 @@ import { Notice } from '../../core/http/notice';
 import { codeLabel } from '../../ui/code-label';
 import { StatusChip } from '../../ui/status-chip/status-chip';
 import { LetterPanel } from '../letter-panel/letter-panel';
+import { endedSummary } from '../../requests/next-step/next-step-text';
 import { ReadingList } from '../reading-list/reading-list';
 import { VisitBooking } from '../visit-booking/visit-booking';
 import { WorkApi } from '../work-api';
@@ -62,11 +64,20 @@ export class WorkPage {
   /** The items as the visit preparation names them. */
   protected readonly prepItems = computed(() => (this.overview()?.items ?? []).map((i) => ({ id: i.id, label: `${codeLabel(i.code)} — ${i.location}` })));
 
-  /** What happens next and who acts, from the flow table (detours such as a change order only where one applies). */
+  /**
+   * What happens next and who acts, from the flow table (detours such as a change order only where one
+   * applies); first, a visit still marked on site, which the contractor finishes when the electrician left.
+   */
   protected readonly nextSteps = computed(() => {
     const o = this.overview();
     if (!o) return [];
-    return movesThatApply(o.status).map((m) => `${m.label}: ${m.by.filter((a) => a !== 'admin').map((a) => FLOW_ACTOR_LABELS[a]).join(' or ')}`);
+    const onSite = o.visits.filter((v) => v.status === 'started').map((v) => `Finish visit ${v.number} (on site): ${FLOW_ACTOR_LABELS.contractor}`);
+    return [...onSite, ...movesThatApply(o.status).map((m) => `${m.label}: ${actorWords(m.by)}`)];
+  });
+  /** An ended request: what is left of it (money may still come in at closing), as the request page says. */
+  protected readonly ended = computed(() => {
+    const o = this.overview();
+    return o ? endedSummary(o.status) : '';
   });
   protected readonly progressPercent = computed(() => {
     const c = this.overview()?.closing;
@@ -81,7 +92,7 @@ export class WorkPage {
     return o.visits.find((v) => v.id === item.siteVisitId)?.number ?? null;
   }
 
-  /** A booked visit whose day has not come: starting it records the work as done today. */
+  /** A booked visit whose day has not come: starting it moves it to today (the server tells the seller's side). */
   protected isEarly(visit: SiteVisit): boolean {
     return visit.status === 'booked' && visit.date > this.clock.today();
   }
