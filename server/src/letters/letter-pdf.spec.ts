@@ -1,4 +1,5 @@
 import { evaluateReadings, ReadingsSchema, type Correction } from '@cc/shared';
+import sharp from 'sharp';
 import { extractPdfPages } from '../integrations/pdf-text';
 import { DECLINED_BY_SELLER, renderLetterPdf, type LetterContent } from './letter-pdf';
 import { reportReferenceOf } from './letters.service';
@@ -105,4 +106,41 @@ describe('reportReferenceOf', () => {
     );
     expect(reportReferenceOf([], null)).toBe('No report file was uploaded to Closing Circuit; the items are those listed below.');
   });
+
+  it('puts the letter number, the page and the verification code at the foot of every page, and never leaves the signature alone', async () => {
+    const photo = await sharp({ create: { width: 800, height: 450, channels: 3, background: '#2e6b3f' } }).jpeg().toBuffer();
+    const photos = new Map<number, Buffer>();
+    const items = Array.from({ length: 9 }, (_, i) => {
+      photos.set(i + 1, photo);
+      photos.set(i + 101, photo);
+      return {
+        code: 'gfci-inoperative' as const,
+        room: 'kitchen',
+        location: `counter receptacle ${i + 1}`,
+        quantity: 1,
+        correction: correction({
+          itemId: i + 1,
+          materials: 'GFCI receptacle, 20 A, tamper-resistant, weather-resistant where outdoors',
+          photos: [
+            { id: i + 1, kind: 'before', width: 800, height: 450, url: `/api/photos/${i + 1}` },
+            { id: i + 101, kind: 'after', width: 800, height: 450, url: `/api/photos/${i + 101}` },
+          ],
+        }),
+      };
+    });
+    const pages = (await extractPdfPages(await renderLetterPdf(content({ items, photos })))).pages.map((p) => p.replace(/\s+/g, ' '));
+    expect(pages.length).toBeGreaterThan(1);
+    pages.forEach((page, i) => expect(page).toContain(`CL-00005, revision 1 · page ${i + 1} of ${pages.length} · verify with code ABCDEFGHJK at http://portal.test/verify`));
+    // The signature shares its page with the safety notice before it.
+    const last = pages[pages.length - 1];
+    expect(last).toContain('/s/ Sam Okafor');
+    expect(last).toContain('Safety and code notice');
+    // Each item starts and ends on one page: its title, its test results and its photos' captions together.
+    for (const page of pages) {
+      const titles = (page.match(/\d\. GFCI/g) ?? []).length;
+      const captions = (page.match(/Before After/g) ?? []).length;
+      expect(captions).toBe(titles);
+    }
+  });
 });
+
