@@ -35,7 +35,8 @@ export interface PdfLayout {
 
 export function createPdfLayout({ info, footerHeight = 0 }: PdfLayoutOptions): PdfLayout {
   // Pages stay in memory so that page numbers can be written once the last page exists.
-  const doc = new PDFDocument({ size: 'LETTER', margin: MARGIN, info, bufferPages: footerHeight > 0 });
+  // The bottom margin holds the footer: text flowing onto a new page stops above it, never over it.
+  const doc = new PDFDocument({ size: 'LETTER', margins: { top: MARGIN, left: MARGIN, right: MARGIN, bottom: MARGIN + footerHeight }, info, bufferPages: footerHeight > 0 });
   const chunks: Buffer[] = [];
   const done = new Promise<Buffer>((resolve, reject) => {
     doc.on('data', (c: Buffer) => chunks.push(c));

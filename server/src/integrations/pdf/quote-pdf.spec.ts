@@ -1,7 +1,9 @@
 // The quote PDF read back with pdf-parse (through extractPdfPages): the dates as the portal writes
 // them, "Page n of N" on every page, an acceptance block, no page left nearly empty, plain words.
 import { DEMO_RATE_BOOK, FINDING_CODE_TABLE, priceQuote, type QuoteVersion, type QuoteVersionLine } from '@cc/shared';
+import PDFDocument from 'pdfkit';
 import { extractPdfPages } from '../pdf-text';
+import { MARGIN } from './pdf-layout';
 import { formatDay, renderQuotePdf } from './quote-pdf';
 
 const entry = (id: string) => {
@@ -104,4 +106,26 @@ describe('renderQuotePdf', () => {
     expect(text).not.toContain('service-equipment');
     expect(text).not.toContain('NaN');
   });
+
+  it.each(Array.from({ length: 31 }, (_, i) => i + 10))('keeps the body above the footer on every page (%d lines)', async (lineCount) => {
+    // Each line pdfkit writes (its internal _fragment), with where it ends: the body must stop above
+    // the 24-point footer band, also when a long paragraph flows on by itself.
+    type Fragmenting = { _fragment(text: string, x: number, y: number, options: object): unknown };
+    const proto = PDFDocument.prototype as unknown as Fragmenting;
+    const original = proto._fragment;
+    const lines: Array<{ text: string; bottom: number; limit: number }> = [];
+    proto._fragment = function (this: PDFKit.PDFDocument & Fragmenting, text, x, y, options) {
+      lines.push({ text, bottom: y + this.currentLineHeight(false), limit: this.page.height - MARGIN - 24 });
+      return original.call(this, text, x, y, options);
+    };
+    try {
+      await renderQuotePdf(quoteWith(lineCount));
+    } finally {
+      proto._fragment = original;
+    }
+    const body = lines.filter((l) => !/^Page \d+ of \d+$|quote version/.test(l.text));
+    expect(body.length).toBeGreaterThan(50);
+    expect(body.filter((l) => l.bottom > l.limit + 0.5).map((l) => l.text)).toEqual([]);
+  });
 });
+

@@ -64,7 +64,11 @@ export function renderQuotePdf(quote: QuoteVersion): Promise<Buffer> {
     const extras = [line.adders.length ? `site: ${line.adders.map((a) => a.name).join(', ')}` : null, line.isQuantityAssumed ? 'quantity assumed, to be confirmed on site' : null].filter(Boolean).join('; ');
     const description = `${line.entry?.name ?? findingLabel(line.code)} — ${where}${extras ? ` (${extras})` : ''}`;
     row(description, quantityLabel(line.quantity, line.entry?.unit), formatCents(line.lineCents));
-    if (line.editionNote) paragraph(`Code when built: ${line.editionNote.summary}`, 8.5, MUTED);
+    if (line.editionNote) {
+      // The note belongs to the row above it: a gap before the next row keeps it from reading as that row's.
+      paragraph(`Code when built: ${line.editionNote.summary}`, 8.5, MUTED);
+      doc.moveDown(0.4);
+    }
   }
   doc.font('body').fontSize(9).fillColor(MUTED).text('Line amounts hold the labour share, materials with markup and flat-rate prices; the charges of each visit follow.', MARGIN, doc.y, { width: CONTENT_WIDTH });
 
