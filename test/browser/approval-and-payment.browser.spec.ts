@@ -73,6 +73,11 @@ async function sellerApprovesAndPays(): Promise<{ requestId: string; depositLabe
   const amountOf = (item: ReturnType<Page['getByTestId']>, id: string) => item.getByTestId(id).textContent().then((t) => t?.trim());
   const approvedWork = [await items.nth(0).locator('.work').textContent(), await items.nth(1).locator('.work').textContent()];
   const signedAmounts = [await amountOf(items.nth(0), 'decision-amount'), await amountOf(items.nth(1), 'decision-amount')];
+  // The approved items' amounts, then what a visit costs once, add up to the subtotal shown.
+  const cents = (text: string | null | undefined) => Math.round(Number((text ?? '').replace(/[^\d.]/g, '')) * 100);
+  expect(cents(await page.getByTestId('bill-sum-items').textContent())).toBe(cents(signedAmounts[0]) + cents(signedAmounts[1]));
+  const sumRows = (await page.getByTestId('bill-sum').locator('dd').allTextContents()).map(cents);
+  expect(sumRows.slice(0, -1).reduce((a, b) => a + b, 0)).toBe(sumRows[sumRows.length - 1]);
   // An approved item whose amount moved with the decline says why, beside its quoted amount.
   const repriced = signedAmounts.filter((a, i) => a !== quotedAmounts[i]).length;
   for (const i of [0, 1]) {

@@ -23,6 +23,7 @@ import { zodValidator } from '../../core/forms/zod-validator';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
 import { codeLabel } from '../../ui/code-label';
 import { MoneyPipe } from '../../ui/money/money';
+import { BillSum } from '../../pricing/bill-sum/bill-sum';
 import { PricingTotals } from '../../pricing/pricing-totals/pricing-totals';
 import { ApprovalApi } from '../approval-api';
 
@@ -35,7 +36,7 @@ type Decision = 'approved' | 'declined';
  */
 @Component({
   selector: 'cc-decision-form',
-  imports: [ReactiveFormsModule, MatButtonModule, MatButtonToggleModule, MatCardModule, MatCheckboxModule, MatFormFieldModule, MatIconModule, MatInputModule, MoneyPipe, PricingTotals, ErrorMessagePipe],
+  imports: [ReactiveFormsModule, MatButtonModule, MatButtonToggleModule, MatCardModule, MatCheckboxModule, MatFormFieldModule, MatIconModule, MatInputModule, MoneyPipe, PricingTotals, BillSum, ErrorMessagePipe],
   templateUrl: './decision-form.html',
   styleUrl: './decision-form.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
