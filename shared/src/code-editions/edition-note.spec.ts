@@ -99,6 +99,13 @@ describe('editionNote', () => {
       expect(note?.text).toContain('is not recorded here');
       expect(note?.builtUnder).toBe('not-recorded');
     });
+
+    it('says in its short line what the long text says: one part not asked for, the other not recorded (2004 house)', () => {
+      const note = editionNote('weather-cover-missing', 'exterior', house(2004, 2023));
+      expect(note?.text).toContain('is not recorded here');
+      expect(note?.summary).toContain('partly not asked for when this 2004 house was built, the rest not recorded');
+      expect(note?.summary).not.toMatch(/: not asked for when/);
+    });
   });
 
   describe('for a receptacle to replace', () => {

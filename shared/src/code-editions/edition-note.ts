@@ -164,7 +164,11 @@ function summaryLine(topic: CodeTopic, statuses: readonly BuiltUnder[], main: Ed
   else if (statuses.every((s) => s === 'added-later')) built = `came in ${first} (after this ${y} house was built): a recommended upgrade`;
   else if (statuses.includes('required-when-built')) built = `partly required when this ${y} house was built`;
   else if (statuses.includes('came-in-that-year')) built = `came in ${first}, the year this house was built`;
-  else if (statuses.some((s) => s === 'added-later' || s === 'not-in-local-edition')) built = `not asked for when this ${y} house was built: a recommended upgrade`;
+  // The short line claims no more than the long text: where one part's first edition is not recorded, it says so.
+  else if (statuses.some((s) => s === 'added-later' || s === 'not-in-local-edition'))
+    built = statuses.includes('not-recorded')
+      ? `partly not asked for when this ${y} house was built, the rest not recorded: a recommended upgrade`
+      : `not asked for when this ${y} house was built: a recommended upgrade`;
   else built = `not recorded for a house built in ${y}`;
   const today = main.sinceEdition <= house.necEdition ? 'required for any replacement today' : `not in the adopted ${house.necEdition} edition`;
   return `${topic.short}: ${built}; ${today}`;
