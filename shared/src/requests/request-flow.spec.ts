@@ -1,5 +1,6 @@
 import { ITEM_STATUSES } from '../items/item-status';
 import {
+  nextStepLines,
   actorsForRole,
   actorsOf,
   movesThatApply,
@@ -164,3 +165,17 @@ describe('movesThatApply', () => {
     expect(movesThatApply('corrected', ['approve-change-order']).map((m) => m.event).sort()).toEqual(['approve-change-order', 'issue-letter']);
   });
 });
+
+describe('nextStepLines', () => {
+  it('calls the last outcome so only when one item is left, and counts the items done before', () => {
+    expect(nextStepLines('in-progress', { resolved: 0, approved: 3 })).toEqual(['Record the outcome of each item left (0 of 3 done): the contractor']);
+    expect(nextStepLines('in-progress', { resolved: 2, approved: 3 })).toEqual(['Record the last outcome: the contractor']);
+  });
+
+  it('joins the choices open to the same people into one step', () => {
+    const [line, ...rest] = nextStepLines('letter-issued');
+    expect(line).toMatch(/^Accept the corrections or list items not accepted: /);
+    expect(rest.every((l) => !l.startsWith('List items not accepted'))).toBe(true);
+  });
+});
+

@@ -288,6 +288,24 @@ export function actorWords(actors: readonly FlowActor[]): string {
   return eitherWords(actors.filter((a) => a !== 'admin').map((a) => FLOW_ACTOR_LABELS[a]));
 }
 
+/**
+ * The next steps of a request in `status` as lines of "what: who": moves open to the same people are
+ * one choice ("Accept the corrections or list items not accepted: the inspector or the buyer's agent"),
+ * and the last outcome is called so only when one item is left (`progress`: items with an outcome of
+ * the approved ones).
+ */
+export function nextStepLines(status: RequestStatus, progress?: { resolved: number; approved: number }): string[] {
+  const groups: { by: readonly FlowActor[]; labels: string[] }[] = [];
+  for (const move of movesThatApply(status)) {
+    const left = progress ? progress.approved - progress.resolved : 1;
+    const label = move.event === 'finish-work' && progress && left > 1 ? `Record the outcome of each item left (${progress.resolved} of ${progress.approved} done)` : move.label;
+    const same = groups.find((g) => g.by.length === move.by.length && g.by.every((a) => move.by.includes(a)));
+    if (same) same.labels.push(label.charAt(0).toLowerCase() + label.slice(1));
+    else groups.push({ by: move.by, labels: [label] });
+  }
+  return groups.map((g) => `${g.labels.join(' or ')}: ${actorWords(g.by)}`);
+}
+
 /** Who a request in `status` waits for, in words ("the seller or the listing agent"; '' when final). */
 export function whoActsNextWords(status: RequestStatus, detoursThatApply: readonly RequestEvent[] = []): string {
   return actorWords(whoActsNext(status, detoursThatApply));

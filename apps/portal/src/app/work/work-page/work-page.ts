@@ -7,11 +7,10 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import {
-  actorWords,
   CORRECTION_OUTCOME_LABELS,
   FLOW_ACTOR_LABELS,
   ITEM_STATUS_LABELS,
-  movesThatApply,
+  nextStepLines,
   placeLabel,
   SITE_VISIT_STATUS_LABELS,
   SiteVisit,
@@ -72,7 +71,7 @@ export class WorkPage {
     const o = this.overview();
     if (!o) return [];
     const onSite = o.visits.filter((v) => v.status === 'started').map((v) => `Finish visit ${v.number} (on site): ${FLOW_ACTOR_LABELS.contractor}`);
-    return [...onSite, ...movesThatApply(o.status).map((m) => `${m.label}: ${actorWords(m.by)}`)];
+    return [...onSite, ...nextStepLines(o.status, { resolved: o.closing.resolvedCount, approved: o.closing.approvedCount })];
   });
   /** An ended request: what is left of it (money may still come in at closing), as the request page says. */
   protected readonly ended = computed(() => {
