@@ -433,6 +433,13 @@ describe('payment at closing: the invoice goes to the escrow company', () => {
     expect((await view(requestId)).can.sendClosingInvoice).toBe(true);
     expect((await view(requestId, cast.s.contractor)).can.sendClosingInvoice).toBe(true);
 
+    // An empty body, a NUL byte, a number too large for an id and a non-number: field errors or 404, never a 500.
+    const empty = await write(cast.s.seller, 'post', `/api/requests/${requestId}/invoices/${invoice.id}/send`).send({});
+    expect(empty.status).toBe(400);
+    expect(empty.body.details).toEqual([expect.objectContaining({ path: 'email' })]);
+    expect((await send(cast.s.seller, 'closings\u0000@quarrybend-title.test')).status).toBe(400);
+    await write(cast.s.seller, 'post', `/api/requests/${requestId}/invoices/2147483648/send`).send({ email: 'x@quarrybend-title.test' }).expect(404);
+    await write(cast.s.seller, 'post', `/api/requests/${requestId}/invoices/abc/send`).send({ email: 'x@quarrybend-title.test' }).expect(404);
     const bad = await send(cast.s.seller, 'closings at quarrybend');
     expect(bad.status).toBe(400);
     expect(bad.body.details).toEqual([{ path: 'email', message: 'Enter an e-mail address like name@example.com' }]);

@@ -1,4 +1,4 @@
-import { visitWindowText, wordsFor } from './message-templates';
+import { layOut, MAX_SUBJECT, visitWindowText, wordsFor } from './message-templates';
 
 const request = { id: 8, reference: 'CC-00008', address: '87 Tinsmith Way, Marlow Springs, CO 81290', closingDate: '2027-02-20' };
 
@@ -29,3 +29,15 @@ describe('wordsFor a visit', () => {
     expect(words.paragraphs[0]).toContain('It was on Tuesday, February 9, 2027, arriving between 8:00 AM and 10:00 AM.');
   });
 });
+
+describe('layOut', () => {
+  it('cuts a subject longer than the outbox keeps (a 200-character street and an escrow file number) instead of failing the change', () => {
+    const long = `Invoice INV-000003 payable at closing — ${'Long Street '.repeat(20)}, Marlow Springs, CO 81290 (file ${'F'.repeat(80)})`;
+    const message = layOut({ subject: long, paragraphs: ['Hello'], action: null }, { publicUrl: 'http://portal.test', recipientName: null, footer: null, footerLink: null });
+    expect(long.length).toBeGreaterThan(MAX_SUBJECT);
+    expect(message.subject).toHaveLength(MAX_SUBJECT);
+    expect(message.subject.endsWith('…')).toBe(true);
+    expect(message.text).not.toContain('http://portal.test/');
+  });
+});
+

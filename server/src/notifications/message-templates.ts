@@ -285,10 +285,18 @@ ${words.action ? `<p><a href="${escapeHtml(words.action.url)}" style="display: i
 <p style="color: #49454f;">— Closing Circuit</p>
 ${layout.footer ? `<p style="color: #49454f; font-size: 0.875rem;">${escapeHtml(layout.footer)}${layout.footerLink ? ` <a href="${escapeHtml(layout.footerLink.url)}">${escapeHtml(layout.footerLink.label)}</a>` : ''}</p>` : ''}
 </body></html>`;
-  return { subject: words.subject, text, html, link: words.action?.url ?? '' };
+  return { subject: subjectLine(words.subject), text, html, link: words.action?.url ?? '' };
 }
 
 export { escapeHtml };
+
+/** The outbox keeps subjects of at most 300 characters (a long street and city with a file number can pass it). */
+export const MAX_SUBJECT = 300;
+
+/** A subject as sent: cut to MAX_SUBJECT with an ellipsis, never refused by the outbox. */
+export function subjectLine(subject: string): string {
+  return subject.length <= MAX_SUBJECT ? subject : `${subject.slice(0, MAX_SUBJECT - 1)}…`;
+}
 
 /** Footer words: why the person gets a message of this kind. */
 export function footerFor(kind: NotificationKind): string | null {
