@@ -35,11 +35,14 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // Raised after the tenth round (teaching sentences, and a summary table with the numbered items after it
 // read as two lists) to the exact figures rounded down: precision 91.04 %, recall 89.51 %, F1 90.27 %,
 // quantity 95.16 % (3601/3784); 13 extra findings removed, none correct lost.
+// Reset 2026-12-05 when batch M (1301-1377) joined after its untuned score was recorded and sealed N
+// took its place: precision 89.10 %, recall 86.38 %, F1 87.72 %, quantity 93.83 % (3869/4123),
+// rounded down; the corpus changed, not the parser.
 // Raise them as the parser gets better; never lower them for the same corpus.
-const MIN_PRECISION = 0.9104;
-const MIN_RECALL = 0.8951;
-const MIN_F1 = 0.9027;
-const MIN_QUANTITY = 0.9516;
+const MIN_PRECISION = 0.891;
+const MIN_RECALL = 0.8638;
+const MIN_F1 = 0.8772;
+const MIN_QUANTITY = 0.9383;
 
 describe('report parser corpus', () => {
   let run: BatchRun;

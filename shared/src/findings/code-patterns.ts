@@ -251,7 +251,7 @@ export const CODE_RULES: readonly CodeRule[] = [
   },
   {
     code: 'receptacle-damaged',
-    trigger: /rec[ei]p|rcp|outlet|duplex|device|plug|cord|tension|grip|contacts/i,
+    trigger: /rec[ei]p|rcp|outlet|duplex|device|plug|cord|tension|grip|contacts|face|housing|body|fit|hold|retain/i,
     // A GFCI that will not reset leaves the receptacles after it dead: that is the GFCI's defect, not theirs (common practice).
     yieldsInSentenceTo: ['gfci-inoperative'],
     patterns: [
