@@ -318,7 +318,8 @@ export const CODE_RULES: readonly CodeRule[] = [
     patterns: [
       { re: rx`(?:open|uncovered|unenclosed)\s+(?:${T.JBOX}|box(?:es)?\b)` },
       { re: rx`${T.JBOX}\s+${gap(8)}(?:(?:has|have|had|with|is|are|was|were)\s+)?(?:no|missing|without|lacks?|lacking|open|uncovered|not covered)\b(?:\s+(?:a|its|the|blank))?(?:\s+(?:covers?|lids?|plates?))?` },
-      { re: rx`box(?:es)?\s+(?:with\s+|has\s+|have\s+)?(?:no|missing|without)\s+(?:a\s+|its\s+)?(?:covers?|lids?)`, context: /splice|wire nut|junction|conductors? (?:are |is )?(?:exposed|visible)/i },
+      // "Grey metal electric box on the floor joist ... has no lid on it, wire nuts showing".
+      { re: rx`box(?:es)?\s+(?:${anyGap(10)}(?:with|has|have|had)\s+)?(?:no|missing|without)\s+(?:a\s+|its\s+)?(?:covers?|lids?)`, context: /splice|wires? nuts?|junction|conductors? (?:are |is )?(?:exposed|visible)|wires? (?:are |is )?(?:exposed|visible|showing|hanging)/i },
       { re: rx`${T.JBOX}\s+(?:covers?|lids?)\s+${gap(3)}${T.BE}(?:${T.ABSENT}|off|removed)` },
       { re: rx`${T.NO}\s+(?:blank\s+)?(?:covers?|lids?)\s+(?:on|for)\s+(?:the\s+|an?\s+)?${T.JBOX}` },
       { re: rx`(?:splices?|spliced (?:wires|conductors)|wire nuts?)\s+${anyGap(6)}(?:outside(?:\s+of)?|not in|not within|not enclosed|without)\s+(?:in\s+)?(?:an?\s+|the\s+|any\s+)?(?:(?:approved|junction|electrical|enclosed)\s+)?(?:box|enclosure|junction box)` },

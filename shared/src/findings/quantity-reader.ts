@@ -165,6 +165,8 @@ export function readCount(text: string, articleLimit = Infinity, countable: RegE
     if (VOLTAGES.has(word)) continue;
     const next = tokens[i + 1]?.word;
     if (next !== undefined && UNIT.test(next) && word !== 'a' && word !== 'an') continue;
+    // 'a 4" square box', "a 6' cord": inch and foot marks make a measure.
+    if (first >= 48 && first <= 57 && /^["'″′]/.test(text.slice(tokens[i].index + word.length))) continue;
     if (/^\d/.test(word) && tokens[i - 1]?.word === ':') return count;
     // "open grnd, N & E walls, 3 total": a number given as the total.
     if (/^\d/.test(word) && next === 'total') return count;

@@ -77,6 +77,7 @@ const END_OF_AFTER = /^\s+(?:end|side)\s+of\s+(?:the\s+)?/i;
 /** "by the kitchen pass-through", "near the dining room archway": a room's opening as a landmark of another room. */
 const BESIDE_BEFORE = /(?:by|near|beside|next to|at|toward|towards)\s+(?:the\s+)?$/i;
 const OPENING_AFTER = /^\s*(?:pass[- ]?through|opening|archway)/i;
+const LANDMARK_DEVICE_AFTER = /^\s*(?:exhaust\s+)?(?:fan|vent)s?\b/i;
 const FIXTURE_AFTER = /^\s*(?:sink|counter|cabinet|vanity|island|floor|closet|door|window|opener)/i;
 
 /** Every place named in `text`, in reading order, without overlaps. */
@@ -95,6 +96,8 @@ export function findRooms(text: string): RoomMention[] {
     const isReferencePoint =
       (REFERENCE_BEFORE.test(before) && !FIXTURE_AFTER.test(after) && !(seenFromAbove() && LIGHTS_IN_CEILING.test(text.slice(Math.max(0, start - 50), start)))) ||
       (BESIDE_BEFORE.test(before) && OPENING_AFTER.test(after)) ||
+      // "(2) jct boxes w/ no covers by the bath fan" in an attic: the fan is a landmark there.
+      (BESIDE_BEFORE.test(before) && LANDMARK_DEVICE_AFTER.test(after)) ||
       VANTAGE_BEFORE.test(text.slice(Math.max(0, start - 30), start)) ||
       END_OF_AFTER.test(after) ||
       // "the bedroom ceilings below", "the kitchen can lights below": a room seen from above is a reference point.
@@ -118,6 +121,12 @@ export function findRooms(text: string): RoomMention[] {
     if (!SERVED_BEFORE.test(lead) || DEVICE_AFTER.test(text.slice(r.end, r.end + 24))) continue;
     found[i] = { ...r, isReferencePoint: true };
     for (let j = i + 1; j < found.length && /^\s*(?:,|and|or|&|\/)\s*(?:the\s+)?$/i.test(text.slice(found[j - 1].end, found[j].start)); j++) found[j] = { ...found[j], isReferencePoint: true };
+  }
+  // "Bath 1 (hall)", "Bedroom 3 (front)": a place in brackets right after another place says which
+  // one it is; the place before the brackets is where the defect is.
+  for (let i = 1; i < found.length; i++) {
+    const [a, b] = [found[i - 1], found[i]];
+    if (a.room !== 'panel' && !a.isReferencePoint && /^\s*(?:#?\d{1,2}\s*)?\(\s*$/.test(text.slice(a.end, b.start)) && /^\s*\)/.test(text.slice(b.end, b.end + 3))) found[i] = { ...b, isReferencePoint: true };
   }
   // A shop named after another place is in that place ("basement workshop", "garage shop").
   for (let i = 1; i < found.length; i++) {

@@ -169,6 +169,12 @@ export function placeMatches(
       }));
     }
     const clause = clauses[clauseIndexAt(clauses, match.start)];
+    // "Knob-and-tube is still in service up here -- ... runs feeding the front bedroom fixture" under
+    // an attic heading: "here" is the section's place, said before any other place.
+    const here = HERE.exec(text.slice(clause.start, group[0]?.start ?? text.length));
+    if (here && context.sectionRoom && context.sectionRoom !== 'panel') {
+      return [{ room: context.sectionRoom, location: context.sectionTitle ?? '', ...own, isInferred: true }];
+    }
     const chosen =
       group[0] ??
       nearest(rooms, part.start, part.end, clause) ??
@@ -195,6 +201,8 @@ export function placeMatches(
     return [{ room: match.rule.defaultRoom ?? 'unknown', location: '', ...own, isInferred: true }];
   });
 }
+
+const HERE = /\b(?:up|down|in|out|over)\s+here\b/i;
 
 /** A wall named only by its side ("the back wall"), which the room lexicon reads as the outside of the house. */
 const SIDE_WALL = /^(?:front|rear|side|back) (?:wall|elevation)$/i;

@@ -113,9 +113,24 @@ export function classifyHeadingLine(line: string): HeadingLine | null {
     return bare !== title && SUMMARY_HEADING.test(bare) ? classifyHeadingLine(bare) : null;
   }
   if (words.length === 0 || words.length > 8) return null;
-  if (!words.every(isHeadingWord)) return summaryHeading(title, words) ?? roomLabel(trimmed, title, words);
+  if (!words.every(isHeadingWord)) {
+    return summaryHeading(title, words) ?? roomLabel(trimmed, title, words) ?? ruledHeading(line, opened, trimmed, title, words);
+  }
   const kind = headingKind(words);
   if (kind === null) return BODY_PART.test(title) ? { type: 'label', startsBody: true } : { type: 'label' };
+  const room = kind === 'non-electrical' || kind === 'general' ? null : (findRooms(title)[0]?.room ?? null);
+  return { type: 'heading', heading: { kind, title, room } };
+}
+
+/**
+ * A line with rules drawn on both sides ("-- ELECTRICAL: SERVICE / FEEDER ------") is a heading
+ * whatever its other words: form and checklist exports set every section off that way. It takes the
+ * kind of the heading words it has (electrical first); with none it is a label.
+ */
+function ruledHeading(line: string, opened: string, trimmed: string, title: string, words: readonly string[]): HeadingLine | null {
+  if (opened === line.trim() || trimmed === opened) return null;
+  const kind = headingKind(words.filter(isHeadingWord));
+  if (kind === null) return { type: 'label' };
   const room = kind === 'non-electrical' || kind === 'general' ? null : (findRooms(title)[0]?.room ?? null);
   return { type: 'heading', heading: { kind, title, room } };
 }
@@ -136,7 +151,10 @@ const LABEL_VERB = /\b(?:is|are|was|were|has|have|had|not|no|missing|loose|damag
 /** A device or defect named in a label: then it is an item, not a place heading. */
 const DEVICE_WORD = /\b(?:receptacles?|outlets?|breakers?|switch(?:es)?|lights?|fans?|covers?|plates?|wiring|gfcis?|afcis?|alarms?|smoke|panels?|box(?:es)?|cords?|cables?|scorched|cracked|double|tapped|aluminum)\b/i;
 function roomLabel(line: string, title: string, words: readonly string[]): HeadingLine | null {
-  if (words.length > 5 || LABEL_VERB.test(title)) return null;
+  // A bracketed note ("In attic (looked from hatch + walked planks):") is no part of the label.
+  const bare = title.replace(/\s*\([^()]*\)$/, '');
+  const labelWords = bare === title ? words.length : (bare.match(/[A-Za-z&'/-]+|\d+/g) ?? []).length;
+  if (labelWords === 0 || labelWords > 5 || LABEL_VERB.test(bare) || (bare !== title && (labelWords > 3 || DEVICE_WORD.test(bare)))) return null;
   // A bracketed note ("Office (converted sun porch)") is no part of the label's capitals.
   const isCapitalised = title.replace(/\s*\([^()]*\)/g, '').split(/\s+/).every((w) => /^[\p{Lu}\d(]/u.test(w) || w.length <= 2);
   // A numbered item that only names a place ("3. Office", "4. Hall bath") heads the lettered items under it.

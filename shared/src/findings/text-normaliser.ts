@@ -25,7 +25,7 @@ const SHORTHAND: Readonly<Record<string, string>> = {
   gfi: 'GFCI', gfis: 'GFCIs', gfic: 'GFCI', gcfi: 'GFCI',
   afi: 'AFCI',
   ocpd: 'breaker', ocpds: 'breakers', brkr: 'breaker', brkrs: 'breakers', bkr: 'breaker', bkrs: 'breakers', cb: 'breaker',
-  jbox: 'junction box', jboxes: 'junction boxes', jb: 'junction box', jbs: 'junction boxes', 'j.b.': 'junction box', 'j-box': 'junction box', 'j-boxes': 'junction boxes',
+  jct: 'junction', jcts: 'junctions', junc: 'junction', jbox: 'junction box', jboxes: 'junction boxes', jb: 'junction box', jbs: 'junction boxes', 'j.b.': 'junction box', 'j-box': 'junction box', 'j-boxes': 'junction boxes',
   'k&t': 'knob-and-tube', kt: 'knob-and-tube', knt: 'knob-and-tube',
   seu: 'service-entrance cable', sec: 'service-entrance cable', ser: 'service-entrance cable',
   pnl: 'panel', pnls: 'panels', subpnl: 'subpanel', 'sub-pnl': 'subpanel',
@@ -57,7 +57,7 @@ const SHORTHAND: Readonly<Record<string, string>> = {
 };
 
 /** Shorthand that is only expanded where the context says it is the trade word. */
-const CONTEXTUAL = new Set(['jb', 'jbs', 'al', 'cu', 'sd', 'sds', 'sec', 'ser', 'sw', 'lt', 'lts', 'cb', 'kt', 'ba', 'gar', 'kit', 'ext', 'wp', 'wr', 'wx', 'det', 'dets', 'cond', 'conds', 'ga', 'ga.', 'gauge', 'gage', 'guage', 'awg']);
+const CONTEXTUAL = new Set(['nw', 'jb', 'jbs', 'al', 'cu', 'sd', 'sds', 'sec', 'ser', 'sw', 'lt', 'lts', 'cb', 'kt', 'ba', 'gar', 'kit', 'ext', 'wp', 'wr', 'wx', 'det', 'dets', 'cond', 'conds', 'ga', 'ga.', 'gauge', 'gage', 'guage', 'awg']);
 
 const NUMBER_WORDS: Readonly<Record<string, number>> = {
   two: 2, three: 3, four: 4, five: 5, six: 6, seven: 7, eight: 8, nine: 9, ten: 10, eleven: 11, twelve: 12,
@@ -349,12 +349,15 @@ function contextAllows(key: string, prev: string, next: string, gapBefore: strin
     case 'sec':
     case 'ser':
       return original === original.toUpperCase() && original.length === 3;
+    case 'nw':
+      // "rcpt nw", "GFCI NW" — not "Bedroom (NW)" or "NW corner" (north-west).
+      return original !== 'NW' || (/^(?:rcpt|rcpts|recpt|recep|receptacle|receptacles|outlet|outlets|gfci|gfi|afci|light|lights|lt|lts|fixture|fixt|sw|switch|fan|fans|alarm|smoke|sd|det|detector|bell|doorbell|device)$/.test(prev) && !/^\s*\(/.test(gapBefore));
     case 'sw':
       // "sw by slider", "lt sw inop" — not "SW" (south-west).
       return original !== 'SW' || /^(?:lt|light|wall|3-way|dimmer)$/.test(prev);
     case 'lt':
     case 'lts':
-      return /^(?:sw|fixt|fixture|inop|out|loose|missing|cover)/.test(next) || /^(?:closet|porch|ceiling|exterior|ext|can|vanity)$/.test(prev);
+      return /^(?:sw|fixt|fixture|inop|nw|out|loose|missing|cover)/.test(next) || /^(?:closet|porch|ceiling|exterior|ext|can|vanity)$/.test(prev);
     case 'cb':
       return original === 'CB' || original === 'cb';
     case 'kt':

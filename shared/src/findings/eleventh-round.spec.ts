@@ -1,0 +1,68 @@
+import { parseText } from './report-parser';
+import { classifyHeadingLine } from './section-heading';
+
+/** (code, room, quantity) of every finding. */
+function read(text: string) {
+  return parseText(text).findings.map((f) => [f.code, f.room, f.quantity]);
+}
+
+// Rules of the eleventh tuning round (docs/parser.md, "Eleventh round"), read off batch M's kinds of
+// documents (forms, other trades' notes). Each example is new text written for this spec, not a
+// sentence of the corpus.
+
+describe('a line with rules drawn on both sides is a heading whatever its other words', () => {
+  it('reads "-- ELECTRICAL: SERVICE / FEEDER ----" as an electrical heading', () => {
+    const line = classifyHeadingLine('-- ELECTRICAL: SERVICE / FEEDER ---------------');
+    expect(line).toEqual({ type: 'heading', heading: { kind: 'electrical', title: 'ELECTRICAL: SERVICE / FEEDER', room: null } });
+  });
+
+  it('ends a roofing section, so the electrical items after it are read', () => {
+    const text = ['-- ROOF ----------', '[X] Valley flashing ..... lifted at the porch roof', '-- ELECTRICAL: BRANCH / DEVICES --------', '[X] Kitchen ........ counter outlet left of range has no GFCI'].join('\n');
+    expect(read(text)).toEqual([['gfci-missing', 'kitchen', 1]]);
+  });
+
+  it('leaves a ruled line without heading words a label', () => {
+    expect(classifyHeadingLine('== PAGE BREAK MARKER ===')).toEqual({ type: 'label' });
+  });
+});
+
+describe('places', () => {
+  it('a place in brackets after another says which one: "Bath 1 (hall)" is a bathroom', () => {
+    expect(read('ELECTRICAL\n[X] Bath 1 (hall) ......... GFCI will not reset')).toEqual([['gfci-inoperative', 'bathroom', 1]]);
+  });
+
+  it('a bath fan named as a landmark in the attic leaves the attic the place', () => {
+    expect(read('ATTIC\nTwo junction boxes without covers next to the bath fan.')).toEqual([['open-junction-box', 'attic', 2]]);
+  });
+
+  it('a place label with a bracketed note heads the lines under it', () => {
+    const text = ['In crawlspace (entered at the north vent):', ' - splices taped together on a joist, no box'].join('\n');
+    expect(read(text)).toEqual([['open-junction-box', 'crawl-space', null]]);
+  });
+
+  it('"up here" under a heading is the heading\'s place, though a room the wires feed is named after it', () => {
+    const text = ['Attic (through the hall closet)', 'Knob-and-tube is still live up here, on the runs feeding the rear bedroom ceiling light.'].join('\n');
+    expect(read(text)).toEqual([['knob-and-tube', 'attic', null]]);
+  });
+});
+
+describe('shorthand', () => {
+  it('reads "NW" as a direction beside a place, and as "not working" after a device word', () => {
+    expect(read('ELECTRICAL\nBedroom (NW): cover plate missing at the desk outlet.')).toEqual([['cover-plate-missing', 'bedroom', 1]]);
+    expect(read('ELECTRICAL\nDining rm - ceiling lt NW.')).toEqual([['light-fixture', 'dining', 1]]);
+  });
+
+  it('reads "jct" as junction', () => {
+    expect(read('ATTIC\n(3) jct boxes open, no lids')).toEqual([['open-junction-box', 'attic', 3]]);
+  });
+});
+
+describe('boxes and counts', () => {
+  it('reads a box with no lid when the sentence shows its splices or wire nuts, words between', () => {
+    expect(read('BASEMENT\nThe metal box nailed to the joist over the freezer has no lid, wire nuts showing.')).toEqual([['open-junction-box', 'basement', 1]]);
+  });
+
+  it('reads a number with an inch or foot mark as a measure, not a count', () => {
+    expect(read('GARAGE\nA 4" square box above the opener has no cover; splices visible.')).toEqual([['open-junction-box', 'garage', 1]]);
+  });
+});
