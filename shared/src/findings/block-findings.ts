@@ -55,7 +55,7 @@ const FOLLOW_UP = /\b(?:recommend\w*|install (?:the|a|an|new|proper|listed)\b|su
  */
 /** Places in the plural as inspectors abbreviate them ("BR's", "bdrms"). */
 const PLURAL_PLACE_WORD = /\b(?:bed ?rooms|bdrms|brs|br's|rooms|levels|floors|baths|bathrooms|halls|hallways)\b/i;
-const ALARM_TOPIC_LABEL = /^\W*(?:[\w.]+\s+){0,3}?(?:smoke|co)\b(?:\s*(?:\/|&)\s*co)?(?:\s+(?:alarms?|detectors?))?\s*(?::|\||\s-\s)|^\W*[\w ]{1,20}:\s*(?:smoke|co)\s+(?:missing|none|removed)\b/i;
+const ALARM_TOPIC_LABEL = /^\W*(?:[\w.]+\s+){0,3}?(?:smoke|co)\b(?:\s*(?:\/|&)\s*co)?(?:\s+(?:alarms?|detectors?))?\s*(?::|\||\s-\s|\s\.{3,})|^\W*[\w ]{1,20}:\s*(?:smoke|co)\s+(?:missing|none|removed)\b/i;
 
 /**
  * A sentence about the device before it: "The/This/That/It ...", or a terse one with no subject at

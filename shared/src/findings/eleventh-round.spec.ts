@@ -66,3 +66,17 @@ describe('boxes and counts', () => {
     expect(read('GARAGE\nA 4" square box above the opener has no cover; splices visible.')).toEqual([['open-junction-box', 'garage', 1]]);
   });
 });
+
+describe('smoke alarms on forms and by their age', () => {
+  it('reads a leader of dots up to an answer that states the defect as one sentence', () => {
+    expect(read('ELECTRICAL\nSmoke alarms ............ NONE in the den')).toEqual([['smoke-co-alarm', 'living-area', 1]]);
+  });
+
+  it('still ends a row at a leader before a rating', () => {
+    expect(read('ELECTRICAL\nDryer 30A 2P - #10 Cu ........ OK      Range 50A 2P - #6 Cu ........ OK')).toEqual([]);
+  });
+
+  it('keeps "manufacture date" as written, so an old alarm is read (common practice: smoke alarms are replaced ten years after manufacture, NFPA 72 (2022) 14.4.7.1, from memory)', () => {
+    expect(read('ELECTRICAL\nSmoke alarm in the hallway, manufacture date 2008, should be replaced.')).toEqual([['smoke-co-alarm', 'hallway', 1]]);
+  });
+});

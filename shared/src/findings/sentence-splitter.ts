@@ -17,6 +17,15 @@ function isAbbreviation(text: string, dot: number): boolean {
   return ABBREVIATIONS.has(word) || /^[a-z]$/i.test(word);
 }
 
+const DEFECT_ANSWER = /^\s+(?:none|missing|no|not|inop\w*|damaged|loose|broken|open|absent|dead)\b/i;
+
+/** The dot ends a run of three or more dots that starts after a space: a form's leader, not an ellipsis. */
+function isLeader(text: string, dot: number): boolean {
+  let first = dot;
+  while (first > 0 && text[first - 1] === '.') first--;
+  return dot - first >= 2 && (first === 0 || /\s/.test(text[first - 1]));
+}
+
 export function splitSentences(block: MappedText): MappedText[] {
   const { text } = block;
   const sentences: MappedText[] = [];
@@ -32,6 +41,9 @@ export function splitSentences(block: MappedText): MappedText[] {
       cut(i, i + 1);
     } else if ((ch === '.' || ch === '!' || ch === '?') && /^\s+["'(\p{Lu}\p{N}•\-]/u.test(text.slice(i + 1, i + 3))) {
       if (ch === '.' && isAbbreviation(text, i)) continue;
+      // A leader of dots after a space leads to an answer that states the defect ("Smoke alarms
+      // ......... NONE in BR2"); before a rating ("... OK", "... C") it still ends the row's sentence.
+      if (ch === '.' && isLeader(text, i) && DEFECT_ANSWER.test(text.slice(i + 1, i + 24))) continue;
       cut(i + 1, i + 1);
     }
   }

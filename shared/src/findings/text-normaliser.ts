@@ -136,7 +136,7 @@ const KEEP = new Set([
   'overheat', 'overheated', 'overhaul', 'maximal', 'maxima', 'minimum', 'namely', 'tapped', 'taped', 'topped',
   'loosed', 'plates', 'plated', 'planes', 'places', 'platen', 'slated', 'recess', 'recesses', 'recessed',
   'damage', 'connector', 'connectors', 'manufacturer', 'manufacturers', 'trapped', 'functioned', 'isolation',
-  'contacted', 'insertion',
+  'contacted', 'insertion', 'manufacture', 'manufacturing',
 ]);
 
 /**
