@@ -80,3 +80,19 @@ describe('smoke alarms on forms and by their age', () => {
     expect(read('ELECTRICAL\nSmoke alarm in the hallway, manufacture date 2008, should be replaced.')).toEqual([['smoke-co-alarm', 'hallway', 1]]);
   });
 });
+
+describe('item numbers are no counts', () => {
+  it('reads a number that opens a row before a capitalised label as the row number', () => {
+    expect(read('ELECTRICAL\n100 KITCHEN - NO GFCI AT COUNTER')).toEqual([['gfci-missing', 'kitchen', null]]);
+    expect(read('ELECTRICAL\n7 Unit B sunroom - ceiling fan wobbles on high')).toEqual([['fan-support', 'living-area', 1]]);
+  });
+
+  it('reads the digits after a dot as part of a section number', () => {
+    expect(read('ELECTRICAL\n3 ELEC 4.5 - Hall bath GFCI would not trip with its test button')).toEqual([['gfci-inoperative', 'bathroom', 1]]);
+  });
+
+  it('still reads a count that opens a row before the counted thing', () => {
+    expect(read('KITCHEN\n2 GFCI receptacles will not reset')).toEqual([['gfci-inoperative', 'kitchen', 2]]);
+    expect(read('KITCHEN\nTwo of the counter receptacles have no GFCI protection.')).toEqual([['gfci-missing', 'kitchen', 2]]);
+  });
+});

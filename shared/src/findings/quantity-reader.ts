@@ -165,6 +165,12 @@ export function readCount(text: string, articleLimit = Infinity, countable: RegE
     if (VOLTAGES.has(word)) continue;
     const next = tokens[i + 1]?.word;
     if (next !== undefined && UNIT.test(next) && word !== 'a' && word !== 'an') continue;
+    // "ELEC 4.5 - Master bath", "item 7.6": the digits after a dot are part of a section number.
+    if (first >= 48 && first <= 57 && /\d\.$/.test(text.slice(Math.max(0, tokens[i].index - 2), tokens[i].index))) continue;
+    // "100 ELEC KITCHEN NO GFCI", "7 Unit A sunroom - ceiling fan": a number that opens a row before a
+    // capitalised label is the row's item number unless the counted thing follows it at once
+    // ("2 GFCI receptacles", "3 open grounds", "Two of the receptacles" are counts).
+    if (first >= 48 && first <= 57 && opensRow(text, tokens[i].index) && /^\p{Lu}/u.test(text.charAt(tokens[i + 1]?.index ?? -1)) && !isNounAhead(tokens, i, countable, 1)) continue;
     // 'a 4" square box', "a 6' cord": inch and foot marks make a measure.
     if (first >= 48 && first <= 57 && /^["'″′]/.test(text.slice(tokens[i].index + word.length))) continue;
     if (/^\d/.test(word) && tokens[i - 1]?.word === ':') return count;
@@ -200,8 +206,14 @@ function spreadWord(tokens: Token[], i: number): string {
   return tokens[i + 1]?.word === 'of' && tokens[i + 2]?.word === 'the' ? (tokens[i + 3]?.word ?? '') : (tokens[i + 1]?.word ?? '');
 }
 
-function isNounAhead(tokens: Token[], i: number, countable: RegExp = COUNTABLE): boolean {
-  for (let j = i + 1; j <= i + 1 + ALLOWED_BETWEEN && j < tokens.length; j++) {
+/** Whether only spaces or a list mark stand between the line's start and `index`. */
+function opensRow(text: string, index: number): boolean {
+  const lineStart = text.lastIndexOf('\n', index - 1) + 1;
+  return /^[\s>*\u2022-]*$/.test(text.slice(lineStart, index));
+}
+
+function isNounAhead(tokens: Token[], i: number, countable: RegExp = COUNTABLE, between: number = ALLOWED_BETWEEN): boolean {
+  for (let j = i + 1; j <= i + 1 + between && j < tokens.length; j++) {
     const word = tokens[j].word;
     const isMeasure = /^\d/.test(word) && UNIT.test(tokens[j + 1]?.word ?? '');
     if (isMeasure) {
@@ -209,6 +221,8 @@ function isNounAhead(tokens: Token[], i: number, countable: RegExp = COUNTABLE):
       continue;
     }
     if (/^[:;.]$/.test(word) || UNIT.test(word) || countOf(word) !== null) return false;
+    // "7 Unit A sunroom": a unit named by a letter or number is a name, not the thing counted.
+    if (word === 'unit' && /^(?:[a-z]|\d{1,3})$/i.test(tokens[j + 1]?.word ?? '')) return false;
     if (countable.test(word)) return true;
   }
   return false;
