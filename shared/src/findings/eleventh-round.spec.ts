@@ -96,3 +96,20 @@ describe('item numbers are no counts', () => {
     expect(read('KITCHEN\nTwo of the counter receptacles have no GFCI protection.')).toEqual([['gfci-missing', 'kitchen', 2]]);
   });
 });
+
+describe('outbuildings and crawl spaces named as the trades name them (the lead room convention: barns and sheds are exterior)', () => {
+  it('reads a barn, and a level of a barn, as outside', () => {
+    expect(read('ELECTRICAL\nBank barn - lower level: outlets by the water trough are not GFCI protected.')).toEqual([['gfci-missing', 'exterior', null]]);
+  });
+
+  it('reads a machine shed as outside, and "they shed heat" as no place', () => {
+    // A receptacle's missing cover outside is its weather cover (NFPA 70 (NEC) 2023, 406.9(B)(1)).
+    expect(read('ELECTRICAL\nMachine shed: the weld outlet has no cover plate.')).toEqual([['weather-cover-missing', 'exterior', 1]]);
+    expect(read('ELECTRICAL\nA dimmer that is hot to the touch in the den; they shed heat, but this one is too hot.')[0]?.[1]).toBe('living-area');
+  });
+
+  it('reads "subarea" and "on the dirt" as the crawl space', () => {
+    expect(read('Subarea access light does not come on.')).toEqual([['light-fixture', 'crawl-space', 1]]);
+    expect(read('A grey cable is laying loose on the dirt under the kitchen, not stapled up.')).toEqual([['exposed-wiring', 'crawl-space', 1]]);
+  });
+});

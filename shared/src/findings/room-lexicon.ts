@@ -10,9 +10,9 @@ const ROOM_WORDS: ReadonlyArray<readonly [Room, string]> = [
   ['bathroom', String.raw`ba[ñn]os?\b|(?:(?:hall|guest|primary|master|main|upstairs|downstairs|half|full|kids'?|jack and jill|second|upper|lower)\s+)?bath(?:room)?s?\b|powder rooms?|en-?suites?|lavatory|restrooms?|(?:tub|shower)(?:\s+(?:area|enclosure|stall))?\b|vanity`],
   ['kitchen', String.raw`cocinas?\b|kitchens?|kitchenette|kit\b\.?|kitch\b\.?|(?:kitchen\s+)?island|breakfast (?:nook|area|bar)|peninsula|pantry|(?:kitchen\s+)?counter\s*tops?|countertops?|(?:refrigerator|fridge|dishwasher|garbage disposal|disposal|range hood|(?<!\b(?:wood|pellet|coal|wood[- ]burning|heating|parlou?r|franklin)[\s-])stove|cooktop|(?:electric\s+)?range(?=\s+(?:receptacle|outlet|cord|circuit|hood))|(?<=\b(?:the|behind|beside|near)\s)range\b)(?![\w\s,]{0,30}\b(?:garage|basement|laundry|bar|utility|porch|patio)\b)`],
   ['garage', String.raw`garaje\b|cochera\b|garages?|carports?|gar\b\.?|(?:work\s?)?shops?\b(?![- ](?:lights?|vacs?|fixtures?|lamps?))|shop (?:building|bldg)`],
-  ['exterior', String.raw`exterior(?!\s+walls?\b)|out\s+(?:back|front)\b|outside(?!\s+(?:walls?|corner|of|the|a|an|its|their|this|that|each|every|all|any|bedrooms?|sleeping|junction|boxes?|enclosures?|panels?)\b)|outdoors?|patio|decks?\b|porch(?:es)?|balcon(?:y|ies)|yard|pool|spa\b|hot tub|siding|stucco|eaves|soffits?|(?:service\s+|meter\s+)?pedestal(?!\s+(?:sinks?|lavatory|basins?|fans?))|docks?\b|boat\s?(?:lifts?|houses?|slips?)\b|seawalls?\b|well\s?(?:heads?|caps?|houses?)\b|courtyards?|lanais?|verandas?|terraces?|gazebos?|breezeways?|(?:pool\s+|pump\s+)?equipment pads?|(?:front|rear|side|back) (?:wall|elevation)|ext\b\.?`],
+  ['exterior', String.raw`(?:bank\s+|pole\s+|horse\s+|hay\s+|dairy\s+)?barns?\b|(?:machine|storage|garden|tool|equipment|pump|wood|potting)\s+sheds?\b|(?<!\b(?:to|they|it|that|which|will|can|actually)\s)sheds?\b(?!\s+(?:water|light|heat|rain|snow))|outbuildings?\b|pole buildings?\b|stables?\b|chicken coops?\b|exterior(?!\s+walls?\b)|out\s+(?:back|front)\b|outside(?!\s+(?:walls?|corner|of|the|a|an|its|their|this|that|each|every|all|any|bedrooms?|sleeping|junction|boxes?|enclosures?|panels?)\b)|outdoors?|patio|decks?\b|porch(?:es)?|balcon(?:y|ies)|yard|pool|spa\b|hot tub|siding|stucco|eaves|soffits?|(?:service\s+|meter\s+)?pedestal(?!\s+(?:sinks?|lavatory|basins?|fans?))|docks?\b|boat\s?(?:lifts?|houses?|slips?)\b|seawalls?\b|well\s?(?:heads?|caps?|houses?)\b|courtyards?|lanais?|verandas?|terraces?|gazebos?|breezeways?|(?:pool\s+|pump\s+)?equipment pads?|(?:front|rear|side|back) (?:wall|elevation)|ext\b\.?`],
   ['basement', String.raw`s[oó]tanos?\b|basements?|cellar|bsmt\b\.?|bsmnt\b\.?|lower (?:level|lvl\b\.?)`],
-  ['crawl-space', String.raw`crawl\s?spaces?|crawl\b|(?:under|beneath) the (?:home|house|floor system)|underfloor`],
+  ['crawl-space', String.raw`crawl\s?spaces?|crawl\s?ways?\b|crawl\b|(?:under|beneath) the (?:home|house|floor system|mobile home|manufactured home)|underfloor|under-floor|sub-?areas?\b|on the dirt\b`],
   ['laundry', String.raw`lavander[ií]a\b|laundry(?:\s+(?:room|area|closet))?|washer|dryer|utility room|mud ?room`],
   ['bedroom', String.raw`rec[aá]maras?\b|dormitorios?\b|habitaci[oó]n(?:es)?\b|(?:(?:primary|master|guest|front|rear|back|north|south|east|west|upstairs|downstairs|kids'?|second|third|small|large)\s+)?(?:bed\s?rooms?|bed\s?\d\b|bedrms?\b|bdrms?\b\.?|brs?\s?\d*\b|nursery)|(?:prim|pri|mstr|mbr)\.?\s+br\b|mbr\b|primary suite|master suite|guest room|(?:rented|rental|let|tenant'?s?|lodging|boarders?'?)\s+rooms?\b|rooms?\s+#?\d{1,2}\b(?![-\d])|rms?\.?\s*#?\d{1,2}\b(?![-\d])|sleeping\s+lofts?\b|lofts?\s*\(sleeping\)`],
   ['living-area', String.raw`sala\b|living(?: (?:room|area)s?)?\b|liv\.?\s?rm\b|lr\b(?=\s*:)|family rooms?|great rooms?|den\b|sun\s?rooms?|florida rooms?|sun porch(?:es)?|three[- ]season rooms?|rec(?:reation)? rooms?|bonus rooms?|parlou?r|library|front room|lr\b|fireplace|media room`],
@@ -128,6 +128,11 @@ export function findRooms(text: string): RoomMention[] {
     const [a, b] = [found[i - 1], found[i]];
     if (a.room !== 'panel' && !a.isReferencePoint && /^\s*(?:#?\d{1,2}\s*)?\(\s*$/.test(text.slice(a.end, b.start)) && /^\s*\)/.test(text.slice(b.end, b.end + 3))) found[i] = { ...b, isReferencePoint: true };
   }
+  // "Bank barn - lower level", "machine shed loft": a level of an outbuilding is in the outbuilding.
+  for (let i = 1; i < found.length; i++) {
+    const [a, b] = [found[i - 1], found[i]];
+    if (a.room === 'exterior' && OUTBUILDING.test(a.text) && (LEVEL_ROOMS.has(b.room) || b.room === 'attic') && /^[\s,:(–—-]*$/.test(text.slice(a.end, b.start))) found[i] = { ...b, isReferencePoint: true };
+  }
   // A shop named after another place is in that place ("basement workshop", "garage shop").
   for (let i = 1; i < found.length; i++) {
     const [a, b] = [found[i - 1], found[i]];
@@ -163,6 +168,7 @@ function markPositiveAsides(text: string, found: RoomMention[]): void {
   }
 }
 
+const OUTBUILDING = /barn|shed|outbuilding|pole building|stable|coop/i;
 const LEVEL_ROOMS: ReadonlySet<Room> = new Set(['basement', 'attic', 'garage', 'hallway']);
 const HABITABLE: ReadonlySet<Room> = new Set(['bedroom', 'bathroom', 'kitchen', 'laundry', 'office', 'living-area', 'dining']);
 const WALL_SIDE = /^(?:front|rear|side|back) (?:wall|elevation)$/i;
