@@ -31,6 +31,7 @@ export const BATCHES: ReadonlyArray<{ name: string; from: number; to: number }> 
   { name: 'K 1101-1166', from: 1100, to: 1199 },
   { name: 'L 1201-1288', from: 1200, to: 1299 },
   { name: 'M 1301-1377', from: 1300, to: 1399 },
+  { name: 'N 1401-1466', from: 1400, to: 1499 },
 ];
 
 /** Parses every excerpt as its manifest says and scores it against expected.json. */
