@@ -16,6 +16,7 @@ export const NOTIFICATION_KINDS = [
   'change-order-decided',
   'refund-settled',
   'visit-scheduled',
+  'electrician-visit',
   'item-corrected',
   'letter-issued',
   'proof-reviewed',
@@ -59,6 +60,9 @@ export const NOTIFICATION_RULES: Record<NotificationKind, NotificationKindRule> 
   'refund-settled': { label: 'Refund paid back', to: [...REQUEST_ACTIONS.pay.by, ...REQUEST_ACTIONS.refund.by], defaultDelivery: 'immediate', isAdjustable: true },
   // The buyer's agent too: the visit decides whether the repairs are done before closing.
   'visit-scheduled': { label: 'Visit scheduled', to: ['seller', 'listing-agent', 'buyer-agent'], defaultDelivery: 'immediate', isAdjustable: true },
+  // Only the electrician the visit is booked for, moved for or taken from (one of the contractor's people;
+  // notify() narrows `to` to that one person), never the person who made the change.
+  'electrician-visit': { label: 'Your visits booked, moved or taken off your day', to: ['contractor'], defaultDelivery: 'immediate', isAdjustable: true },
   'item-corrected': { label: 'Item corrected', to: ['buyer-agent', 'listing-agent', 'seller'], defaultDelivery: 'immediate', isAdjustable: true },
   // The seller too: the letter is the proof of the repairs they paid for.
   'letter-issued': { label: 'Completion letter issued', to: ['inspector', 'buyer-agent', 'listing-agent', 'seller'], defaultDelivery: 'immediate', isAdjustable: true },
