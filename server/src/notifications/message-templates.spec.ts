@@ -66,6 +66,14 @@ describe('the electrician’s own visit messages', () => {
   });
 });
 
+describe('wordsFor a change order decided', () => {
+  it('names who decided, in what capacity, in the subject (the history’s words) and the message', () => {
+    const words = wordsFor({ kind: 'change-order-decided', requestId: 8, actorUserId: 4, changeOrderId: 3, number: 1, priceCents: 3_435, isApproved: true, signedBy: 'Robert Hale, listing agent, for the seller' }, request);
+    expect(words.subject).toBe('CC-00008: change order 1 approved by Robert Hale, listing agent, for the seller');
+    expect(words.paragraphs[0]).toBe('Robert Hale, listing agent, for the seller, approved and signed change order 1 for 87 Tinsmith Way, Marlow Springs, CO 81290 (+$34.35). It is part of the approved work now.');
+  });
+});
+
 describe('layOut', () => {
   it('cuts a subject longer than the outbox keeps (a 200-character street and an escrow file number) instead of failing the change', () => {
     const long = `Invoice INV-000003 payable at closing — ${'Long Street '.repeat(20)}, Marlow Springs, CO 81290 (file ${'F'.repeat(80)})`;

@@ -175,11 +175,12 @@ export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
       };
     case 'change-order-decided':
       return {
-        subject: `${r.reference}: change order ${input.number} ${input.isApproved ? 'approved' : 'declined'}`,
+        // Who decided, in what capacity: the history (the message's timeline entry) says it too.
+        subject: `${r.reference}: change order ${input.number} ${input.isApproved ? 'approved' : 'declined'} by ${input.signedBy}`,
         paragraphs: [
           input.isApproved
-            ? `The seller's side approved and signed change order ${input.number} for ${r.address} (${formatCentsDelta(input.priceCents)}). It is part of the approved work now.`
-            : `The seller's side declined change order ${input.number} for ${r.address}. The approved work stays as it was.`,
+            ? `${input.signedBy}, approved and signed change order ${input.number} for ${r.address} (${formatCentsDelta(input.priceCents)}). It is part of the approved work now.`
+            : `${input.signedBy}, declined change order ${input.number} for ${r.address}. The approved work stays as it was.`,
         ],
         action: { label: 'See the change order', path: approvalPage },
       };

@@ -20,7 +20,7 @@ export type NotifyInput =
   | (Base & { kind: 'closing-payment-chosen'; paymentId: number; amountCents: number; invoiceNumber: string; /** Where the invoice was e-mailed. */ escrow: EscrowRecipient })
   | (Base & { kind: 'closing-invoice'; invoiceId: number; invoiceNumber: string; amountCents: number; /** The contractor the funds are paid to. */ payee: string; escrow: EscrowRecipient; /** Counts the sends of one invoice (a second send to a corrected address is a new message). */ sendNumber: number })
   | (Base & { kind: 'change-order-sent'; changeOrderId: number; number: number; priceCents: number; reason: string })
-  | (Base & { kind: 'change-order-decided'; changeOrderId: number; number: number; priceCents: number; isApproved: boolean })
+  | (Base & { kind: 'change-order-decided'; changeOrderId: number; number: number; priceCents: number; isApproved: boolean; /** Who decided, with the capacity ("Robert Hale, listing agent, for the seller"). */ signedBy: string })
   | (Base & { kind: 'refund-settled'; refundId: number; amountCents: number })
   | (Base & { kind: 'visit-scheduled' } & VisitWindow & { visitNumber: number; /** The window before, when the visit was moved. */ previous: VisitWindow | null })
   | (Base & { kind: 'electrician-visit' } & VisitWindow & ElectricianVisitChange)
