@@ -1,5 +1,7 @@
 import * as z from 'zod';
 import type { Role } from '../auth/role';
+import { RecordIdSchema } from '../http/bounds';
+import { PageQuerySchema } from '../http/page';
 import { actorsForRole, REQUEST_ACTIONS, type FlowActor } from '../requests/request-flow';
 
 /** Every message the product sends by e-mail. */
@@ -134,6 +136,16 @@ export const CapturedMailSchema = z.object({
   receivedAt: z.string(),
 });
 export type CapturedMail = z.infer<typeof CapturedMailSchema>;
+
+/**
+ * A page of the development mailbox, newest first: every message, or those of one request (`requestId`)
+ * or to one address (`to`, any case), or both.
+ */
+export const MailboxQuerySchema = PageQuerySchema.extend({
+  to: z.email('Type a whole e-mail address, such as name@example.com').max(254).optional(),
+  requestId: z.coerce.number().pipe(RecordIdSchema).optional(),
+});
+export type MailboxQuery = z.input<typeof MailboxQuerySchema>;
 
 /** How the outbox stands, for the development mailbox page. */
 export const OutboxCountsSchema = z.record(z.string(), z.number().int());
