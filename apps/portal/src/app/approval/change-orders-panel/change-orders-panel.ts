@@ -8,7 +8,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { ApprovalView, ChangeOrder, changeOrderConsentText, CreateChangeOrderSchema, DecideChangeOrderSchema, FINDING_CODES, ROOMS, signedInCapacity, type ChangeOrderLineInput } from '@cc/shared';
+import { ApprovalView, ChangeOrder, changeOrderConsentText, CreateChangeOrderSchema, DecideChangeOrderSchema, FINDING_CODES, ROOMS, type ChangeOrderLineInput } from '@cc/shared';
 import { ErrorMessagePipe } from '../../core/forms/error-message';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { applyServerErrors } from '../../core/http/apply-server-errors';
@@ -17,6 +17,7 @@ import { ROOM_LABELS } from '../../intake/room-labels';
 import { codeLabel } from '../../ui/code-label';
 import { formatCentsDelta, MoneyPipe } from '../../ui/money/money';
 import { ApprovalApi } from '../approval-api';
+import { changeOrderDecidedBy } from '../signed-by/signed-by';
 
 type LineKind = ChangeOrderLineInput['kind'];
 
@@ -64,10 +65,7 @@ export class ChangeOrdersPanel {
     hasConsented: new FormControl(false, { nonNullable: true, validators: zodValidator(DecideChangeOrderSchema.shape.hasConsented) }),
   });
 
-  /** Who decided and in what capacity, as the quote's signature says it ("Robert Hale, listing agent, for the seller"). */
-  protected decidedBy(order: ChangeOrder): string {
-    return order.signerCapacity ? signedInCapacity(order.signerName ?? '', order.signerCapacity) : (order.signerName ?? '');
-  }
+  protected readonly decidedBy = changeOrderDecidedBy;
 
   protected consentFor(order: ChangeOrder): string {
     return changeOrderConsentText({ contractorName: this.view().quote.contractor.name, number: order.number, decision: 'approve' });
