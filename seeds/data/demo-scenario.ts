@@ -78,7 +78,7 @@ const polarity: DemoItem = { code: 'reversed-polarity', room: 'bedroom', locatio
 const openGround: DemoItem = { code: 'open-ground', room: 'living-area', location: 'living room, three-slot receptacles', quantity: 3, severity: 'safety', necRefs: ['406.4(D)(2)', '250.146'] };
 const doubleTap: DemoItem = { code: 'double-tap', room: 'panel', location: 'main panel, breaker 14', quantity: 1, severity: 'repair', necRefs: ['110.14', '408.41'] };
 const weatherCover: DemoItem = { code: 'weather-cover-missing', room: 'exterior', location: 'rear patio', quantity: 1, severity: 'repair', necRefs: ['406.9'] };
-const smoke: DemoItem = { code: 'smoke-co-alarm', room: 'hallway', location: 'upstairs hallway', quantity: 1, severity: 'safety', necRefs: ['local code', 'NFPA 72'] };
+const smoke: DemoItem = { code: 'smoke-co-alarm', room: 'hallway', location: 'upstairs hallway', quantity: 1, severity: 'safety', necRefs: ['NFPA 72', 'local code'] };
 const junction: DemoItem = { code: 'open-junction-box', room: 'attic', location: 'attic above garage', quantity: 2, severity: 'safety', necRefs: ['314.28(C)', '300.15'] };
 
 /** The usual course of moves that brings a request to `status` (the flow table's path). */

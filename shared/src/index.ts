@@ -36,6 +36,7 @@ export * from './items/item-status';
 export * from './items/line-item.schema';
 export * from './reports/report-file.schema';
 export * from './findings/finding-code';
+export * from './findings/code-reference';
 export * from './findings/decline-caution';
 export * from './findings/room';
 export * from './findings/finding.schema';

@@ -318,6 +318,49 @@ describe('GET /api/mailbox (development mailbox)', () => {
     await cast.s.admin.agent.get('/api/mailbox?pageSize=1000').expect(400);
   });
 
+  // Review 7, P5-5: one request's messages, or one person's, found by an index, a page at a time.
+  it('filters by request and by recipient (any case), both at once, a page at a time; refuses a bad filter with the field', async () => {
+    const keep = (messageId: string, to: string, subject: string) =>
+      t.services.mailbox!.keep({ messageId, from: 'a@closing-circuit.test', to: [to], subject, text: subject, html: `<p>${subject}</p>`, attachments: [], raw: Buffer.from('') });
+    const { requestId: first } = await createPricedRequest(cast, t.db, { items: [{ code: 'gfci-inoperative', quantity: 1 }] });
+    const { requestId: second } = await createPricedRequest(cast, t.db, { items: [{ code: 'gfci-inoperative', quantity: 1 }] });
+    // Two messages of the first request (as the outbox wrote them) and one of the second; their Message-IDs name the request.
+    await notify({ kind: 'letter-issued', requestId: first, actorUserId: null, letterNumber: 'CL-7', revision: 1 });
+    await notify({ kind: 'letter-issued', requestId: second, actorUserId: null, letterNumber: 'CL-8', revision: 1 });
+    const idOf = async (requestId: number, email: string) => (await t.db('outbox_messages').where({ request_id: requestId, recipient_email: email, kind: 'letter-issued' }).first('message_id')).message_id as string;
+    await keep(await idOf(first, emailOf('seller')), emailOf('seller').toUpperCase(), 'First, to the seller');
+    await keep(await idOf(first, emailOf('inspector')), emailOf('inspector'), 'First, to the inspector');
+    await keep(await idOf(second, emailOf('seller')), emailOf('seller'), 'Second, to the seller');
+    await keep('<digest@test>', emailOf('seller'), 'A digest of no one request');
+    const subjects = async (query: string) => ((await cast.s.admin.agent.get(`/api/mailbox?${query}`).expect(200)).body as { items: { subject: string }[]; total: number });
+
+    const byRequest = await subjects(`requestId=${first}`);
+    expect(byRequest.items.map((m) => m.subject)).toEqual(['First, to the inspector', 'First, to the seller']);
+    expect(byRequest.total).toBe(2);
+    expect((await subjects(`to=${encodeURIComponent(emailOf('seller').toUpperCase())}`)).items.map((m) => m.subject)).toEqual(['A digest of no one request', 'Second, to the seller', 'First, to the seller']);
+    expect((await subjects(`requestId=${first}&to=${encodeURIComponent(emailOf('seller'))}`)).items.map((m) => m.subject)).toEqual(['First, to the seller']);
+    const secondPage = await subjects(`requestId=${first}&page=1&pageSize=1`);
+    expect(secondPage).toMatchObject({ total: 2, items: [{ subject: 'First, to the seller' }] });
+    expect((await subjects(`requestId=${second + 1000}`)).items).toEqual([]);
+
+    const bad = await cast.s.admin.agent.get('/api/mailbox?to=not-an-address').expect(400);
+    expect(bad.body.details).toEqual([{ path: 'to', message: 'Type a whole e-mail address, such as name@example.com' }]);
+    expect((await cast.s.admin.agent.get('/api/mailbox?requestId=0').expect(400)).body.details[0].path).toBe('requestId');
+    await cast.s.admin.agent.get('/api/mailbox?requestId=abc').expect(400);
+    await cast.s.buyerAgent.agent.get(`/api/mailbox?requestId=${first}`).expect(403);
+
+    // Each filter is answered by its index, not by reading every message.
+    const planOf = (filters: { to: string | null; requestId: number | null }) =>
+      t.db.transaction(async (trx) => {
+        await trx.raw('SET LOCAL enable_seqscan = off');
+        const query = t.services.mailbox!.listQuery(0, 20, filters).toSQL().toNative();
+        const rows: { 'QUERY PLAN': string }[] = (await trx.raw(`EXPLAIN ${query.sql.replace(/\$(\d+)/g, '?')}`, query.bindings as never[])).rows;
+        return rows.map((r) => r['QUERY PLAN']).join('\n');
+      });
+    expect(await planOf({ to: null, requestId: first })).toContain('captured_mail_request_id_id_index');
+    expect(await planOf({ to: emailOf('seller'), requestId: null })).toContain('captured_mail_to_addresses_index');
+  });
+
   it('is not there when real SMTP is configured', async () => {
     const withSmtp = createTestApp({ SMTP_HOST: 'smtp.example.test' });
     try {

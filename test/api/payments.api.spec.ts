@@ -344,9 +344,27 @@ describe('change orders', () => {
     const decided = await write(cast.s.seller, 'post', `/api/requests/${requestId}/change-orders/${co.id}/decision`).send({ decision: 'approve', signerName: 'Pat Seller', hasConsented: true });
     expect(decided.status).toBe(200);
     const v: ApprovalView = decided.body;
-    expect(v.changeOrders[0].status).toBe('approved');
+    expect(v.changeOrders[0]).toMatchObject({ status: 'approved', signerName: 'Pat Seller', signerCapacity: 'seller' });
     expect(v.account.scopeTotalCents).toBe(34_869);
     expect(v.items.find((i) => i.lineItemId === co.lines[0].lineItemId)).toMatchObject({ status: 'approved', changeOrderNumber: 1 });
+  });
+
+  // As for the quote's approval (review 7, P2-1): the listing agent decides for the seller, and every
+  // record of the decision says so.
+  it('records the capacity of whoever decides a change order, and shows it on the page, in the history and in the e-mail', async () => {
+    const { requestId } = await signedRequest();
+    const co = ((await write(cast.s.contractor, 'post', `/api/requests/${requestId}/change-orders`).send(gfciFoundOnSite(book)).expect(201)).body as ApprovalView).changeOrders[0];
+    expect(co).toMatchObject({ signerName: null, signerCapacity: null });
+    await write(cast.s.listingAgent, 'post', `/api/requests/${requestId}/change-orders/${co.id}/decision`).send({ decision: 'approve', signerName: 'Robert Hale', hasConsented: true }).expect(200);
+    expect(await t.db('change_orders').where({ id: co.id }).first('signer_capacity')).toEqual({ signer_capacity: 'listing-agent' });
+    for (const who of [cast.s.seller, cast.s.listingAgent, cast.s.buyerAgent, cast.s.contractor]) {
+      expect((await view(requestId, who)).changeOrders[0]).toMatchObject({ signerName: 'Robert Hale', signerCapacity: 'listing-agent' });
+      const entries: ActivityEntry[] = (await who.agent.get(`/api/requests/${requestId}/activity?kind=approvals`).expect(200)).body.items;
+      expect(entries.find((e) => e.action === 'change-order-decided')?.summary).toContain('change order 1 approved by Robert Hale, listing agent, for the seller');
+    }
+    const mail = await t.db('outbox_messages').where({ request_id: requestId, kind: 'change-order-decided', recipient_user_id: cast.users.contractor.id }).first('subject', 'text_body');
+    expect(mail.subject).toContain('change order 1 approved by Robert Hale, listing agent, for the seller');
+    expect(mail.text_body).toContain('Robert Hale, listing agent, for the seller, approved and signed change order 1');
   });
 
   it('takes an approved item out (it cannot be done): the payment above the scope is to be refunded', async () => {

@@ -76,7 +76,9 @@ async function paidDeposit(): Promise<{ requestId: number; paymentId: number }> 
   return { requestId, paymentId: started.payment.id };
 }
 
-const visitBody = (overrides: object = {}) => ({ date: inDays(3), arrivalFrom: '08:00', arrivalTo: '10:30', electricianId: cast.users.colleague.id, accessNotes: 'Key in the lockbox by the side gate', ...overrides });
+// Booked by the contractor for themself, so only the seller's side is e-mailed here (an electrician's own
+// messages about visits booked for them: electrician-visit-mail.api.spec.ts).
+const visitBody = (overrides: object = {}) => ({ date: inDays(3), arrivalFrom: '08:00', arrivalTo: '10:30', electricianId: cast.users.contractor.id, accessNotes: 'Key in the lockbox by the side gate', ...overrides });
 
 /** An approved request with a GFCI and a double tap to correct, mail cleared. */
 async function approvedWork(): Promise<{ requestId: number; gfci: number; panel: number }> {

@@ -70,8 +70,48 @@ describe('an invitation goes out by e-mail and is in the timeline', () => {
     expect(await page.getByTestId('mailbox-html').getByRole('link', { name: 'Open the invitation' }).getAttribute('href')).toContain('/invite/');
     expect(await seriousViolations(page)).toEqual([]);
     await screenshot(page, 'mailbox-desktop');
+
+    // Phone (review 7, P5-5): a tapped message takes the list's place at once, with a way back, and the
+    // list is filtered by request and recipient on the server.
     await page.setViewportSize(PHONE);
+    await page.goto(portalUrl('/mailbox'));
+    await page.getByTestId('mailbox-item').first().waitFor();
     await screenshot(page, 'mailbox-phone');
+    const items = page.getByTestId('mailbox-item');
+    const tapped = items.nth(Math.min((await items.count()) - 1, 9));
+    const tappedSubject = (await tapped.locator('.subject').textContent())!.trim();
+    await tapped.click();
+    const reader = page.getByTestId('mailbox-message');
+    await page.getByTestId('mailbox-back').waitFor();
+    const box = (await reader.boundingBox())!;
+    expect(box.y).toBeGreaterThanOrEqual(0);
+    expect(box.y).toBeLessThan(PHONE.height / 3);
+    expect(await reader.getByRole('heading').or(reader.locator('mat-card-title')).first().textContent()).toContain(tappedSubject);
+    expect(await items.first().isVisible()).toBe(false);
+    expect(await seriousViolations(page)).toEqual([]);
+    await screenshot(page, 'mailbox-phone-reading');
+    await page.getByTestId('mailbox-back').click();
+    await items.first().waitFor();
+    expect(await reader.isVisible()).toBe(false);
+
+    const reference = `CC-${requestPath.split('/').pop()!.padStart(5, '0')}`;
+    await page.getByTestId('mailbox-filter-request').fill('house 12');
+    await page.getByTestId('mailbox-filter-apply').click();
+    await page.getByText('Type a request reference, such as CC-00008').waitFor();
+    await page.getByTestId('mailbox-filter-request').fill(reference);
+    await page.getByTestId('mailbox-filter-to').fill(SELLER.toUpperCase());
+    await page.getByTestId('mailbox-filter-apply').click();
+    // The filtered page replaces the whole list: only the invitation's messages to the new seller.
+    await page.waitForFunction((seller) => {
+      const shown = [...document.querySelectorAll('[data-testid="mailbox-item"]')];
+      return shown.length > 0 && shown.every((e) => e.textContent?.includes(seller));
+    }, SELLER);
+    const found = await items.allTextContents();
+    expect(found.length).toBeGreaterThan(0);
+    for (const text of found) expect(text).toContain(SELLER);
+    expect(await seriousViolations(page)).toEqual([]);
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
+    await screenshot(page, 'mailbox-phone-filtered');
   });
 });
 

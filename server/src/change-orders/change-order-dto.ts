@@ -15,6 +15,7 @@ export function toChangeOrderDto(c: StoredChangeOrder): ChangeOrder {
     scopeAfterCents: c.scopeAfterCents,
     decidedAt: c.decidedAt?.toISOString() ?? null,
     signerName: c.signerName,
+    signerCapacity: c.signerCapacity,
     decisionNote: c.decisionNote,
   };
 }

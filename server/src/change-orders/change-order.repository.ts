@@ -1,4 +1,4 @@
-import type { ChangeOrder } from '@cc/shared';
+import type { ChangeOrder, SignerCapacity } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
 
 /** A change order line as stored: what changes, on which item, with the work's name for showing. */
@@ -35,6 +35,7 @@ type Row = {
   scope_after_cents: number;
   decided_at: Date | null;
   signer_name: string | null;
+  signer_capacity: SignerCapacity | null;
   decision_note: string | null;
 };
 
@@ -52,6 +53,7 @@ const toChangeOrder = (r: Row): StoredChangeOrder => ({
   scopeAfterCents: r.scope_after_cents,
   decidedAt: r.decided_at,
   signerName: r.signer_name,
+  signerCapacity: r.signer_capacity,
   decisionNote: r.decision_note,
 });
 
@@ -77,10 +79,10 @@ export class ChangeOrderRepository {
   }
 
   /** Records the decision if the change order is still waiting; false when it was decided meanwhile. */
-  async decide(id: number, d: { status: 'approved' | 'declined'; decidedBy: number; signerName: string; ipAddress: string; userAgent: string; note: string | null }, trx: Trx): Promise<boolean> {
+  async decide(id: number, d: { status: 'approved' | 'declined'; decidedBy: number; signerName: string; signerCapacity: SignerCapacity; ipAddress: string; userAgent: string; note: string | null }, trx: Trx): Promise<boolean> {
     const updated = await trx('change_orders')
       .where({ id, status: 'sent' })
-      .update({ status: d.status, decided_by: d.decidedBy, decided_at: new Date(), signer_name: d.signerName, ip_address: d.ipAddress, user_agent: d.userAgent, decision_note: d.note });
+      .update({ status: d.status, decided_by: d.decidedBy, decided_at: new Date(), signer_name: d.signerName, signer_capacity: d.signerCapacity, ip_address: d.ipAddress, user_agent: d.userAgent, decision_note: d.note });
     return updated === 1;
   }
 }

@@ -5,6 +5,8 @@ import {
   mayMoveItem,
   mayMoveRequest,
   priceScope,
+  signedInCapacity,
+  signerCapacityOf,
   type ApiErrorDetail,
   type CreateChangeOrderParsed,
   type CurrentUser,
@@ -121,14 +123,16 @@ export class ChangeOrdersService {
         decisions.push({ lineItemId: item.id, decision: event === 'approve' ? 'approved' : 'declined' });
       }
       const signerName = input.signerName;
-      if (!(await this.changeOrders.decide(co.id, { status: isApproved ? 'approved' : 'declined', decidedBy: user.id, signerName, ipAddress: context.ipAddress.slice(0, 64), userAgent: context.userAgent.slice(0, 500), note: input.note || null }, trx))) {
+      // Kept with the decision and said wherever it is shown, as for the quote's approval.
+      const signerCapacity = signerCapacityOf(actors);
+      if (!(await this.changeOrders.decide(co.id, { status: isApproved ? 'approved' : 'declined', decidedBy: user.id, signerName, signerCapacity, ipAddress: context.ipAddress.slice(0, 64), userAgent: context.userAgent.slice(0, 500), note: input.note || null }, trx))) {
         throw new ConflictError('The change order was decided meanwhile');
       }
       await this.approvals.insertDecisions(decisions.map((d) => ({ ...d, requestId, approvalId: null, changeOrderId: co.id, note: input.note || null, decidedBy: user.id })), trx);
       const consent = changeOrderConsentText({ contractorName: request.contractor?.name ?? 'the contractor', number: co.number, decision: input.decision });
       // Approved new work on a request whose work was finished puts it back under way (the flow's move).
       if (isApproved && status === request.status && mayMoveRequest(actors, 'approve-change-order', request.status)) {
-        await this.flow.moveRequest(trx, requestId, 'approve-change-order', { userId: user.id, actors }, `Change order ${co.number} approved by ${signerName}. ${consent}`, refusalMessages('approve change orders', request.status));
+        await this.flow.moveRequest(trx, requestId, 'approve-change-order', { userId: user.id, actors }, `Change order ${co.number} approved by ${signedInCapacity(signerName, signerCapacity)}. ${consent}`, refusalMessages('approve change orders', request.status));
       }
       await this.notices.changeOrderDecided(trx, { requestId, by: user.id, changeOrderId, isApproved });
     });

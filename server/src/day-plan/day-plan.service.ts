@@ -195,6 +195,15 @@ export class DayPlanService {
         const previous = { date: visit.date, arrivalFrom: visit.arrivalFrom, arrivalTo: visit.arrivalTo };
         await this.messages.visitScheduled(trx, { requestId: visit.requestId, visitNumber: visit.number, date: input.date, ...window, by: user.id, previous });
       }
+      // The electricians hear of it too: the one it was booked for and, when it changes hands, the one who takes it.
+      await this.messages.visitAssigned(trx, {
+        requestId: visit.requestId,
+        visitId,
+        visitNumber: visit.number,
+        before: { electricianId: locked.electricianId, date: locked.date, arrivalFrom: locked.arrivalFrom, arrivalTo: locked.arrivalTo },
+        after: { electricianId: input.electricianId, date: input.date, ...window },
+        by: user.id,
+      });
     });
     return {
       from: await this.day(user, visit.date, visit.electricianId),

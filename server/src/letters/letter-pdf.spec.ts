@@ -1,4 +1,4 @@
-import { evaluateReadings, ReadingsSchema, type Correction } from '@cc/shared';
+import { evaluateReadings, findingCodeInfo, ReadingsSchema, type Correction } from '@cc/shared';
 import sharp from 'sharp';
 import { extractPdfPages } from '../integrations/pdf-text';
 import { DECLINED_BY_SELLER, renderLetterPdf, type LetterContent } from './letter-pdf';
@@ -43,7 +43,7 @@ function content(overrides: Partial<LetterContent>): LetterContent {
     declinedItems: [],
     permit: 'No permit was required.',
     warranty: 'One year.',
-    paymentStatus: 'Paid in full: $300.00 of $300.00.',
+    paymentStatus: 'The work in this letter is paid in full.',
     signatureName: 'Sam Okafor',
     verificationUrl: 'http://portal.test/verify/ABCDEFGHJK',
     verificationCode: 'ABCDEFGHJK',
@@ -58,7 +58,7 @@ describe('renderLetterPdf', () => {
   it('says so when an item listed as corrected has a reading outside its range (UL 943: at most 100 ms at 100 mA)', async () => {
     const readings = ReadingsSchema.parse({ gfci: { tripsOnTest: true, resets: true, downstreamProven: 1, tripTimeMs: 300, testCurrentMa: 100 } });
     const slow = correction({ readings, evaluations: evaluateReadings(readings), reason: 'Re-tested after tightening the line terminals: 22 ms' });
-    const text = await textOf(content({ items: [{ code: 'gfci-inoperative', room: 'kitchen', location: 'kitchen counter', quantity: 1, correction: slow }] }));
+    const text = await textOf(content({ items: [{ code: 'gfci-inoperative', room: 'kitchen', location: 'kitchen counter', quantity: 1, necRefs: [], correction: slow }] }));
     expect(text).toContain('Recorded as corrected with a reading OUTSIDE the expected range (Trip time at 100 mA).');
     expect(text).toContain("Contractor's note: Re-tested after tightening the line terminals: 22 ms");
     expect(text).toContain('Trip time at 100 mA: 300 ms — OUTSIDE the expected range');
@@ -66,14 +66,14 @@ describe('renderLetterPdf', () => {
 
   it('says that no note was given for an older record without one', async () => {
     const readings = ReadingsSchema.parse({ receptacle: { polarityCorrect: false, groundPresent: true } });
-    const text = await textOf(content({ items: [{ code: 'reversed-polarity', room: 'kitchen', location: 'hall', quantity: null, correction: correction({ readings, evaluations: evaluateReadings(readings) }) }] }));
+    const text = await textOf(content({ items: [{ code: 'reversed-polarity', room: 'kitchen', location: 'hall', quantity: null, necRefs: [], correction: correction({ readings, evaluations: evaluateReadings(readings) }) }] }));
     expect(text).toContain('OUTSIDE the expected range (Polarity correct). No note was given.');
   });
 
   it('lists an item the seller declined under "Items not done", with the reason', async () => {
     const text = await textOf(
       content({
-        items: [{ code: 'gfci-inoperative', room: 'kitchen', location: 'kitchen counter', quantity: 1, correction: correction({}) }],
+        items: [{ code: 'gfci-inoperative', room: 'kitchen', location: 'kitchen counter', quantity: 1, necRefs: [], correction: correction({}) }],
         declinedItems: [{ code: 'weather-cover-missing', room: 'exterior', location: 'back patio receptacle', quantity: null }],
       }),
     );
@@ -87,8 +87,8 @@ describe('renderLetterPdf', () => {
     const text = await textOf(
       content({
         items: [
-          { code: 'gfci-inoperative', room: 'kitchen', location: 'kitchen counter', quantity: 1, correction: correction({}) },
-          { code: 'afci-missing', room: 'living-area', location: 'FAMILY ROOM', quantity: null, correction: correction({}) },
+          { code: 'gfci-inoperative', room: 'kitchen', location: 'kitchen counter', quantity: 1, necRefs: [], correction: correction({}) },
+          { code: 'afci-missing', room: 'living-area', location: 'FAMILY ROOM', quantity: null, necRefs: [], correction: correction({}) },
         ],
       }),
     );
@@ -96,6 +96,26 @@ describe('renderLetterPdf', () => {
     expect(text).toContain('Living area, Family room');
     expect(text).not.toMatch(/FAMILY ROOM|room, living-area/);
     expect(text).not.toMatch(/kitchen counter, kitchen/i);
+  });
+});
+
+describe('the letter’s code references and payment (review 7, P3-5)', () => {
+  it('writes the smoke-alarm item’s reference cleanly, as the finding-code table keeps it and as older items kept it', async () => {
+    for (const necRefs of [findingCodeInfo('smoke-co-alarm').necRefs, ['local code', 'NFPA 72']]) {
+      const text = await textOf(content({ items: [{ code: 'smoke-co-alarm', room: 'hallway', location: 'upstairs hallway', quantity: 1, necRefs, correction: correction({}) }] }));
+      expect(text).toContain('Code reference: NFPA 72 and local code');
+      expect(text).not.toContain('NEC local code');
+    }
+    const gfci = await textOf(content({ items: [{ code: 'gfci-inoperative', room: 'kitchen', location: 'kitchen counter', quantity: 1, necRefs: ['406.4(D)(3)', '110.3(B)'], correction: correction({}) }] }));
+    expect(gfci).toContain('Code reference: NEC 406.4(D)(3), 110.3(B)');
+  });
+
+  it('says only that the work is paid in full or paid at closing, and leaves the section out otherwise; never an amount', async () => {
+    const paid = await textOf(content({ paymentStatus: 'The work in this letter is paid in full.' }));
+    expect(paid).toContain('Payment The work in this letter is paid in full.');
+    const none = await textOf(content({ paymentStatus: null }));
+    expect(none).not.toContain('Payment');
+    expect(none).not.toMatch(/\$\d/);
   });
 });
 
@@ -118,6 +138,7 @@ describe('reportReferenceOf', () => {
         room: 'kitchen',
         location: `counter receptacle ${i + 1}`,
         quantity: 1,
+        necRefs: ['406.4(D)(3)', '110.3(B)'],
         correction: correction({
           itemId: i + 1,
           materials: 'GFCI receptacle, 20 A, tamper-resistant, weather-resistant where outdoors',

@@ -1,6 +1,6 @@
 import PDFDocument from 'pdfkit';
 import QRCode from 'qrcode';
-import { CORRECTION_OUTCOME_LABELS, findingCodeInfo, placeLabel, WORK_SAFETY_CAUTION, type Correction, type FindingCode } from '@cc/shared';
+import { codeReferenceText, CORRECTION_OUTCOME_LABELS, findingCodeInfo, placeLabel, WORK_SAFETY_CAUTION, type Correction, type FindingCode } from '@cc/shared';
 import { PDF_FONT_REGULAR, PDF_FONT_SEMIBOLD } from '../integrations/pdf/pdf-fonts';
 
 /** Everything a completion letter says, gathered by the letters service. */
@@ -13,12 +13,13 @@ export interface LetterContent {
   property: string;
   parties: { role: string; name: string }[];
   reportReference: string;
-  items: { code: FindingCode; room: string; location: string; quantity: number | null; correction: Correction | null }[];
+  items: { code: FindingCode; room: string; location: string; quantity: number | null; necRefs: readonly string[]; correction: Correction | null }[];
   /** Items the seller declined: not done, for that reason. */
   declinedItems: { code: FindingCode; room: string; location: string; quantity: number | null }[];
   permit: string;
   warranty: string;
-  paymentStatus: string;
+  /** Paid in full or to be paid at closing, in neutral words; null leaves the section out (no amounts: `letterPaymentText`). */
+  paymentStatus: string | null;
   signatureName: string;
   verificationUrl: string;
   verificationCode: string;
@@ -115,8 +116,10 @@ export async function renderLetterPdf(letter: LetterContent): Promise<Buffer> {
     paragraph(SCOPE_STATEMENT);
     heading('Warranty');
     paragraph(letter.warranty);
-    heading('Payment');
-    paragraph(letter.paymentStatus);
+    if (letter.paymentStatus) {
+      heading('Payment');
+      paragraph(letter.paymentStatus);
+    }
     // The last notice and the signature stay together: a signature is never alone on a page.
     const codeNote = 'Code references are for information; the edition adopted locally and the authority having jurisdiction decide.';
     keepTogether(48 + heightOf(WORK_SAFETY_CAUTION, 10) + heightOf(codeNote, 10) + 80);
@@ -162,6 +165,7 @@ export async function renderLetterPdf(letter: LetterContent): Promise<Buffer> {
       const device = [c.deviceMake, c.deviceModel, c.deviceLot && `lot/date code ${c.deviceLot}`].filter(Boolean).join(' ');
       if (device) lines.push([`Device installed: ${device}`, 10, 'black', 12]);
       if (c.labels.length) lines.push([`Labels applied: ${c.labels.map((l) => `"${l}"`).join(', ')}`, 10, 'black', 12]);
+      if (item.necRefs.length) lines.push([`Code reference: ${codeReferenceText(item.necRefs)}`, 9, MUTED, 12]);
       if (c.siteVisitNumber) lines.push([`Done on site visit ${c.siteVisitNumber}`, 9, MUTED, 12]);
       if (c.evaluations.length) {
         lines.push(['Test results:', 10, 'black', 12]);

@@ -113,7 +113,7 @@ export class LettersService {
           reportReference: reportReferenceOf(await this.letters.reportFiles(requestId, trx), request.parties.find((p) => p.role === 'inspector')?.name ?? null),
           items: items.map((i) => {
             const c = corrections.find((x) => x.itemId === i.id);
-            return { code: i.code, room: i.room, location: i.location, quantity: i.quantity, correction: c ? toCorrectionDto(requestId, c) : null };
+            return { code: i.code, room: i.room, location: i.location, quantity: i.quantity, necRefs: i.necRefs, correction: c ? toCorrectionDto(requestId, c) : null };
           }),
           declinedItems: (await this.items.listDeclined(requestId, trx)).map((i) => ({ code: i.code, room: i.room, location: i.location, quantity: i.quantity })),
           permit: input.permitNumber ? `Permit number ${input.permitNumber}.` : 'No permit was required for this work under the local rules where the property is.',

@@ -175,11 +175,12 @@ export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
       };
     case 'change-order-decided':
       return {
-        subject: `${r.reference}: change order ${input.number} ${input.isApproved ? 'approved' : 'declined'}`,
+        // Who decided, in what capacity: the history (the message's timeline entry) says it too.
+        subject: `${r.reference}: change order ${input.number} ${input.isApproved ? 'approved' : 'declined'} by ${input.signedBy}`,
         paragraphs: [
           input.isApproved
-            ? `The seller's side approved and signed change order ${input.number} for ${r.address} (${formatCentsDelta(input.priceCents)}). It is part of the approved work now.`
-            : `The seller's side declined change order ${input.number} for ${r.address}. The approved work stays as it was.`,
+            ? `${input.signedBy}, approved and signed change order ${input.number} for ${r.address} (${formatCentsDelta(input.priceCents)}). It is part of the approved work now.`
+            : `${input.signedBy}, declined change order ${input.number} for ${r.address}. The approved work stays as it was.`,
         ],
         action: { label: 'See the change order', path: approvalPage },
       };
@@ -203,6 +204,31 @@ export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
         ],
         action: { label: 'See the visit', path: workPage },
       };
+    case 'electrician-visit': {
+      // The electrician's own day: the day plan opens on the visit's day with their stops and route.
+      const action = { label: 'Open your day plan', path: `/day-plan?date=${input.date}&electricianId=${input.electricianUserId}` };
+      const details = 'The items, the access notes and the route of the day are on your day plan; your calendar feed shows the change too.';
+      if (input.change === 'removed') {
+        return {
+          subject: `${r.reference}: visit ${input.visitNumber} on ${dayOf(input.date)} taken off your day`,
+          paragraphs: [
+            `Visit ${input.visitNumber} to ${r.address} on ${visitWindowText(input)}, is no longer booked for you${input.handedTo ? `: it went to ${input.handedTo}` : ''}.`,
+            'Nothing more is needed from you for this visit.',
+          ],
+          action,
+        };
+      }
+      return {
+        subject: `${r.reference}: your visit ${input.visitNumber} ${input.change === 'moved' ? 'moved to' : 'on'} ${dayOf(input.date)}`,
+        paragraphs: [
+          input.change === 'moved' && input.previous
+            ? `Your visit ${input.visitNumber} to ${r.address} is now on ${visitWindowText(input)}. It was on ${visitWindowText(input.previous)}.`
+            : `Visit ${input.visitNumber} to ${r.address} is booked for you on ${visitWindowText(input)}.`,
+          details,
+        ],
+        action,
+      };
+    }
     case 'item-corrected':
       return outcomesWords(r, [input]);
     case 'letter-issued':
@@ -302,5 +328,6 @@ export function subjectLine(subject: string): string {
 export function footerFor(kind: NotificationKind): string | null {
   if (kind === 'invitation') return null;
   if (kind === 'closing-invoice') return 'You get this message because the seller’s side named you as the escrow or title contact for this sale. No account is needed.';
+  if (kind === 'electrician-visit') return 'You get this message because the visit is (or was) booked for you.';
   return 'You get this message because you take part in this repair request.';
 }

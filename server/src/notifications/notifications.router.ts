@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { PageQuerySchema, UpdatePreferencesSchema } from '@cc/shared';
+import { MailboxQuerySchema, UpdatePreferencesSchema } from '@cc/shared';
 import * as z from 'zod';
 import type { RouterDeps } from '../http/router-deps';
 import { requireRole, requireUser, userOf } from '../http/require-user';
@@ -7,7 +7,6 @@ import { NotFoundError } from '../errors';
 import { idParam } from '../http/params';
 
 const TokenSchema = z.string().min(1).max(100);
-const MailboxQuerySchema = PageQuerySchema.extend({ to: z.email().max(254).optional() });
 
 /** /api/notifications: a person's message preferences, and the digest's unsubscribe link (no sign-in). */
 export function createNotificationsRouter({ services }: RouterDeps): Router {
@@ -43,8 +42,8 @@ export function createMailboxRouter({ services }: RouterDeps): Router {
   });
 
   router.get('/', async (req, res) => {
-    const { page, pageSize, to } = MailboxQuerySchema.parse(req.query);
-    const [messages, outbox] = await Promise.all([services.mailbox!.list(page, pageSize, to ?? null), services.outbox.counts()]);
+    const { page, pageSize, to, requestId } = MailboxQuerySchema.parse(req.query);
+    const [messages, outbox] = await Promise.all([services.mailbox!.list(page, pageSize, { to: to ?? null, requestId: requestId ?? null }), services.outbox.counts()]);
     res.json({ ...messages, outbox });
   });
 

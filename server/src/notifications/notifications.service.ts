@@ -55,6 +55,8 @@ const ACTIVITY_OF: Record<NotificationKind, ActivityKind | null> = {
   'change-order-decided': 'approvals',
   'refund-settled': 'payments',
   'visit-scheduled': 'visits',
+  // The seller side's visit entry already tells the booking or the move; the electrician's own message adds none.
+  'electrician-visit': null,
   'item-corrected': 'items',
   'letter-issued': 'letters',
   'proof-reviewed': 'letters',
@@ -78,6 +80,11 @@ function outsider(input: NotifyInput): Recipient[] | null {
   return null;
 }
 
+/** The one person of the request's people a message is for (the electrician of a visit), if it names one. */
+function onlyFor(input: NotifyInput): number | null {
+  return input.kind === 'electrician-visit' ? input.electricianUserId : null;
+}
+
 export class NotificationsService {
   constructor(
     private readonly db: Db,
@@ -94,7 +101,7 @@ export class NotificationsService {
   async notify(trx: Trx, input: NotifyInput): Promise<number> {
     const facts = await this.requestFacts(input.requestId, trx);
     const rule = NOTIFICATION_RULES[input.kind];
-    const people = outsider(input) ?? (await this.recipients(input.requestId, rule.to, input.actorUserId, trx));
+    const people = outsider(input) ?? (await this.recipients(input.requestId, rule.to, input.actorUserId, trx)).filter((p) => onlyFor(input) === null || p.userId === onlyFor(input));
     const deliveries = await this.preferences.deliveries(
       people.flatMap((p) => (p.userId === null ? [] : [p.userId])),
       input.kind,

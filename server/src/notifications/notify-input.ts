@@ -20,13 +20,30 @@ export type NotifyInput =
   | (Base & { kind: 'closing-payment-chosen'; paymentId: number; amountCents: number; invoiceNumber: string; /** Where the invoice was e-mailed. */ escrow: EscrowRecipient })
   | (Base & { kind: 'closing-invoice'; invoiceId: number; invoiceNumber: string; amountCents: number; /** The contractor the funds are paid to. */ payee: string; escrow: EscrowRecipient; /** Counts the sends of one invoice (a second send to a corrected address is a new message). */ sendNumber: number })
   | (Base & { kind: 'change-order-sent'; changeOrderId: number; number: number; priceCents: number; reason: string })
-  | (Base & { kind: 'change-order-decided'; changeOrderId: number; number: number; priceCents: number; isApproved: boolean })
+  | (Base & { kind: 'change-order-decided'; changeOrderId: number; number: number; priceCents: number; isApproved: boolean; /** Who decided, with the capacity ("Robert Hale, listing agent, for the seller"). */ signedBy: string })
   | (Base & { kind: 'refund-settled'; refundId: number; amountCents: number })
   | (Base & { kind: 'visit-scheduled' } & VisitWindow & { visitNumber: number; /** The window before, when the visit was moved. */ previous: VisitWindow | null })
+  | (Base & { kind: 'electrician-visit' } & VisitWindow & ElectricianVisitChange)
   | (Base & { kind: 'item-corrected'; itemId: number; correctionId: number; outcome: CorrectionOutcome; itemLabel: string })
   | (Base & { kind: 'letter-issued'; letterNumber: string; revision: number })
   | (Base & { kind: 'proof-reviewed'; isAccepted: boolean; /** Items listed as not accepted (0 when accepted). */ notAcceptedCount: number; /** The review's timeline entry: one message per review. */ reviewRef: string })
   | (Base & { kind: 'closing-at-risk'; day: string; daysLeft: number });
+
+/** What changed for one electrician about one visit (`electrician-visit`: e-mailed to that electrician only). */
+export interface ElectricianVisitChange {
+  /** The electrician told (a user of the request's contractor organisation). */
+  electricianUserId: number;
+  visitId: number;
+  visitNumber: number;
+  /** booked for them (new, or handed over from a colleague), moved (their visit, another day or window), removed (handed to a colleague). */
+  change: 'booked' | 'moved' | 'removed';
+  /** The window before, when their visit was moved. */
+  previous: VisitWindow | null;
+  /** The colleague a removed visit went to. */
+  handedTo: string | null;
+  /** The change's transaction: each change is one message, even when a visit comes back to the same day. */
+  changeRef: string;
+}
 
 /** The escrow or title company an invoice payable at closing is e-mailed to. */
 export interface EscrowRecipient {
@@ -73,6 +90,8 @@ export function occurrenceOf(input: NotifyInput): string {
     case 'visit-scheduled':
       // A visit moved to another day or window is a new message.
       return `visit-${input.visitNumber}-${input.date}-${input.arrivalFrom}-${input.arrivalTo}`;
+    case 'electrician-visit':
+      return `electrician-visit-${input.visitId}-${input.change}-${input.electricianUserId}-${input.changeRef}`;
     case 'item-corrected':
       return `item-${input.itemId}-correction-${input.correctionId}`;
     case 'letter-issued':

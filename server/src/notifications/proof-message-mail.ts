@@ -1,13 +1,40 @@
 // The proof side told by e-mail (visits, outcomes, letters): each message is written with notify()
 // in the caller's transaction, so it commits or rolls back with the change.
 import { findingCodeInfo, placeLabel, type FindingCode } from '@cc/shared';
-import type { ProofMessages } from '../work/proof-messages';
+import { electricianVisitChanges, type ProofMessages } from '../work/proof-messages';
 import type { NotificationsService } from './notifications.service';
 
 export function proofMessagesByMail(notifications: NotificationsService): ProofMessages {
   return {
     async visitScheduled(trx, { requestId, by, visitNumber, date, arrivalFrom, arrivalTo, previous }) {
       await notifications.notify(trx, { kind: 'visit-scheduled', requestId, actorUserId: by ?? null, visitNumber, date, arrivalFrom, arrivalTo, previous: previous ?? null });
+    },
+
+    async visitAssigned(trx, { requestId, by, visitId, visitNumber, before, after }) {
+      const changes = electricianVisitChanges(before, after);
+      if (!changes.length) return;
+      // One message per change, even if the visit later comes back to the same person, day and window.
+      const { rows } = await trx.raw<{ rows: { txid: string }[] }>('SELECT txid_current()::text AS txid');
+      const names = new Map<number, string>(
+        (await trx('users').whereIn('id', [...new Set(changes.map((c) => c.electricianId))]).select('id', 'name')).map((u: { id: number; name: string }) => [u.id, u.name]),
+      );
+      for (const { electricianId, change, slot } of changes) {
+        await notifications.notify(trx, {
+          kind: 'electrician-visit',
+          requestId,
+          actorUserId: by ?? null,
+          electricianUserId: electricianId,
+          visitId,
+          visitNumber,
+          change,
+          date: slot.date,
+          arrivalFrom: slot.arrivalFrom,
+          arrivalTo: slot.arrivalTo,
+          previous: change === 'moved' && before ? { date: before.date, arrivalFrom: before.arrivalFrom, arrivalTo: before.arrivalTo } : null,
+          handedTo: change === 'removed' ? (names.get(after.electricianId) ?? null) : null,
+          changeRef: rows[0].txid,
+        });
+      }
     },
 
     async itemCorrected(trx, { requestId, by, itemId, correctionId, outcome }) {

@@ -70,7 +70,9 @@ export function sellerNoticesByMail(notifications: NotificationsService): Seller
 
     async changeOrderDecided(trx, { requestId, by, changeOrderId, isApproved }) {
       const co = await changeOrder(trx, changeOrderId);
-      await notifications.notify(trx, { kind: 'change-order-decided', requestId, actorUserId: by, changeOrderId, number: co.number, priceCents: co.price_cents, isApproved });
+      const decided: { signer_name: string; signer_capacity: SignerCapacity } = await trx('change_orders').where({ id: changeOrderId }).first('signer_name', 'signer_capacity');
+      const signedBy = signedInCapacity(decided.signer_name, decided.signer_capacity);
+      await notifications.notify(trx, { kind: 'change-order-decided', requestId, actorUserId: by, changeOrderId, number: co.number, priceCents: co.price_cents, isApproved, signedBy });
     },
 
     async refundSettled(trx, { requestId, by, refundId }) {

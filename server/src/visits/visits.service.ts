@@ -56,6 +56,7 @@ export class VisitsService {
         await moveRequest(this.flow, { requestId, event: 'schedule', actors, by: user.id, note: `Site visit ${visit!.number} booked for ${input.date}` }, trx);
       }
       await this.messages.visitScheduled(trx, { requestId, visitNumber: visit!.number, date: input.date, arrivalFrom: input.arrivalFrom, arrivalTo: input.arrivalTo, by: user.id });
+      await this.messages.visitAssigned(trx, { requestId, visitId, visitNumber: visit!.number, before: null, after: { electricianId: input.electricianId, date: input.date, arrivalFrom: input.arrivalFrom, arrivalTo: input.arrivalTo }, by: user.id });
       return visitId;
     });
     return this.get(user, requestId, visitId);
@@ -93,6 +94,8 @@ export class VisitsService {
         const window = { arrivalFrom: visit.arrivalFrom, arrivalTo: visit.arrivalTo };
         await this.visits.reschedule(visitId, { date: today, electricianId: visit.electricianId, ...window }, trx);
         await this.messages.visitScheduled(trx, { requestId, visitNumber: visit.number, date: today, ...window, by: user.id, previous: { date: visit.date, ...window } });
+        const slot = { electricianId: visit.electricianId, ...window };
+        await this.messages.visitAssigned(trx, { requestId, visitId, visitNumber: visit.number, before: { ...slot, date: visit.date }, after: { ...slot, date: today }, by: user.id });
       }
       if (to === 'started' && request.status === 'scheduled') {
         await moveRequest(this.flow, { requestId, event: 'start-work', actors, by: user.id }, trx);

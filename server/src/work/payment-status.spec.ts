@@ -1,31 +1,34 @@
-import { describePayments, type LetterPayment } from './payment-status';
+import type { AccountPayment } from '@cc/shared';
+import { LETTER_PAYMENT_WORDS, letterPaymentText } from './payment-status';
 
-const card = (overrides: Partial<LetterPayment> = {}): LetterPayment => ({ id: 1, method: 'card', status: 'succeeded', amountCents: 30_000, refundedCents: 0, paidOn: '2026-11-28', ...overrides });
+const card = (overrides: Partial<AccountPayment> = {}): AccountPayment => ({ method: 'card', status: 'succeeded', amountCents: 30_000, refundedCents: 0, ...overrides });
+const closing = (status: AccountPayment['status'], amountCents = 40_000): AccountPayment => ({ method: 'closing', status, amountCents, refundedCents: 0 });
 
-describe('describePayments', () => {
-  it('states a card payment in full with its receipt', () => {
-    expect(describePayments(30_000, 2500, [card()], [{ paymentId: 1, number: 'R-000004' }])).toBe(
-      'Paid in full: $300.00 of $300.00. $300.00 received by card on 2026-11-28 (receipt R-000004).',
-    );
+// The letter goes to the inspector and the buyer's agent: it says paid in full, to be paid at closing,
+// or nothing, and never an amount (review 7, P3-5).
+describe('letterPaymentText', () => {
+  it('says the work is paid in full, without amounts or receipt numbers', () => {
+    expect(letterPaymentText(30_000, [card()])).toBe('The work in this letter is paid in full.');
+    // Funds from escrow recorded after closing: paid in full too.
+    expect(letterPaymentText(40_000, [closing('succeeded')])).toBe(LETTER_PAYMENT_WORDS['paid-in-full']);
+    // More received than the total (a refund to come) is still paid in full for the buyer's side.
+    expect(letterPaymentText(20_000, [card()])).toBe(LETTER_PAYMENT_WORDS['paid-in-full']);
   });
 
-  it('states a deposit and the balance still owed', () => {
-    expect(describePayments(40_000, 2500, [card({ amountCents: 10_000 })], [])).toBe('$100.00 of $400.00 received; balance $300.00. $100.00 received by card on 2026-11-28.');
+  it('says the work is to be paid at closing when the escrow invoice covers what is left', () => {
+    expect(letterPaymentText(40_000, [card({ status: 'failed' }), closing('pending')])).toBe('The work in this letter is to be paid at closing, through the escrow or title company.');
+    expect(letterPaymentText(40_000, [card({ amountCents: 10_000 }), closing('pending', 30_000)])).toBe(LETTER_PAYMENT_WORDS['at-closing']);
   });
 
-  it('counts only succeeded payments, and names what is payable at closing', () => {
-    const text = describePayments(40_000, 2500, [card({ status: 'failed' }), { id: 2, method: 'closing', status: 'pending', amountCents: 40_000, refundedCents: 0, paidOn: null }], []);
-    expect(text).toBe('No payment received through Closing Circuit yet; the approved work totals $400.00. $400.00 is payable at closing on the escrow invoice.');
+  it('leaves money out otherwise: nothing paid, a deposit and a balance, refunds, no approved scope', () => {
+    expect(letterPaymentText(40_000, [])).toBeNull();
+    expect(letterPaymentText(40_000, [card({ amountCents: 10_000 })])).toBeNull();
+    expect(letterPaymentText(30_000, [card({ refundedCents: 5_000 })])).toBeNull();
+    expect(letterPaymentText(null, [card()])).toBeNull();
+    expect(letterPaymentText(0, [])).toBeNull();
   });
 
-  it('takes refunds off what was received', () => {
-    expect(describePayments(30_000, 0, [card({ refundedCents: 5_000 })], [])).toContain('$250.00 of $300.00 received; balance $50.00. $300.00 received by card on 2026-11-28, $50.00 refunded.');
-  });
-});
-
-describe('describePayments without an approved scope on file', () => {
-  it('still lists what was received', () => {
-    expect(describePayments(null, 0, [card()], [{ paymentId: 1, number: 'R-000001' }])).toBe('Payments recorded in Closing Circuit: $300.00 received by card on 2026-11-28 (receipt R-000001).');
-    expect(describePayments(null, 0, [], [])).toBe('No payment is recorded in Closing Circuit for this request.');
+  it('never states an amount', () => {
+    for (const text of Object.values(LETTER_PAYMENT_WORDS)) expect(text).not.toMatch(/\$|\d/);
   });
 });

@@ -16,6 +16,25 @@ export interface VisitScheduledMessage {
   previous?: { date: string; arrivalFrom: string; arrivalTo: string } | null;
 }
 
+/** Who a visit is booked for and when, before or after a change. */
+export interface VisitSlot {
+  electricianId: number;
+  date: string;
+  arrivalFrom: string;
+  arrivalTo: string;
+}
+
+/** A visit booked, moved or handed to another electrician: the electricians concerned are told (not the one who did it). */
+export interface VisitAssignedMessage {
+  requestId: number;
+  visitId: number;
+  visitNumber: number;
+  /** Null when the visit is new. */
+  before: VisitSlot | null;
+  after: VisitSlot;
+  by?: number | null;
+}
+
 export interface ItemCorrectedMessage {
   requestId: number;
   itemId: number;
@@ -34,6 +53,24 @@ export interface LetterIssuedMessage {
 
 export interface ProofMessages {
   visitScheduled(trx: Trx, message: VisitScheduledMessage): Promise<void>;
+  visitAssigned(trx: Trx, message: VisitAssignedMessage): Promise<void>;
   itemCorrected(trx: Trx, message: ItemCorrectedMessage): Promise<void>;
   letterIssued(trx: Trx, message: LetterIssuedMessage): Promise<void>;
+}
+
+/**
+ * What each electrician hears of a visit's change: a new visit is booked for its electrician; a visit
+ * handed to another electrician is removed from the first and booked for the second; the same
+ * electrician's visit on another day or window is moved. Nothing when nothing they see changed.
+ */
+export function electricianVisitChanges(before: VisitSlot | null, after: VisitSlot): { electricianId: number; change: 'booked' | 'moved' | 'removed'; slot: VisitSlot }[] {
+  if (!before) return [{ electricianId: after.electricianId, change: 'booked', slot: after }];
+  if (before.electricianId !== after.electricianId) {
+    return [
+      { electricianId: before.electricianId, change: 'removed', slot: before },
+      { electricianId: after.electricianId, change: 'booked', slot: after },
+    ];
+  }
+  const same = before.date === after.date && before.arrivalFrom === after.arrivalFrom && before.arrivalTo === after.arrivalTo;
+  return same ? [] : [{ electricianId: after.electricianId, change: 'moved', slot: after }];
 }

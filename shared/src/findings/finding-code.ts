@@ -13,6 +13,11 @@ export interface FindingCodeInfo {
   /** The correction a contractor usually prices. */
   readonly correction: string;
   readonly severity: Severity;
+  /**
+   * The published rules that govern the correction: NFPA 70 (NEC) sections by number ("210.8(A)"), or
+   * another document by its name ("NFPA 72") and "local code" where the local rules decide. Written
+   * for reading by `codeReferenceText` ("NEC 210.8(A), 406.4(D)(3)", "NFPA 72 and local code").
+   */
   readonly necRefs: readonly string[];
 }
 
@@ -117,7 +122,9 @@ export const FINDING_CODE_TABLE = {
     label: 'Smoke or carbon-monoxide alarms missing, expired or inoperative',
     correction: 'Install or replace alarms (often a local fire-code or transfer requirement)',
     severity: 'safety',
-    necRefs: ['local code', 'NFPA 72'],
+    // Not an NEC rule: NFPA 72 (National Fire Alarm and Signaling Code, chapter 29 for dwelling alarms)
+    // and the locally adopted residential or fire code (IRC R314 and R315 where adopted; from memory).
+    necRefs: ['NFPA 72', 'local code'],
   },
   'light-fixture': {
     label: 'Inoperative or unsecured light, missing closet globe, or recessed light against insulation',

@@ -1,5 +1,7 @@
 import * as z from 'zod';
 import type { Role } from '../auth/role';
+import { RecordIdSchema } from '../http/bounds';
+import { PageQuerySchema } from '../http/page';
 import { actorsForRole, REQUEST_ACTIONS, type FlowActor } from '../requests/request-flow';
 
 /** Every message the product sends by e-mail. */
@@ -16,6 +18,7 @@ export const NOTIFICATION_KINDS = [
   'change-order-decided',
   'refund-settled',
   'visit-scheduled',
+  'electrician-visit',
   'item-corrected',
   'letter-issued',
   'proof-reviewed',
@@ -59,6 +62,9 @@ export const NOTIFICATION_RULES: Record<NotificationKind, NotificationKindRule> 
   'refund-settled': { label: 'Refund paid back', to: [...REQUEST_ACTIONS.pay.by, ...REQUEST_ACTIONS.refund.by], defaultDelivery: 'immediate', isAdjustable: true },
   // The buyer's agent too: the visit decides whether the repairs are done before closing.
   'visit-scheduled': { label: 'Visit scheduled', to: ['seller', 'listing-agent', 'buyer-agent'], defaultDelivery: 'immediate', isAdjustable: true },
+  // Only the electrician the visit is booked for, moved for or taken from (one of the contractor's people;
+  // notify() narrows `to` to that one person), never the person who made the change.
+  'electrician-visit': { label: 'Your visits booked, moved or taken off your day', to: ['contractor'], defaultDelivery: 'immediate', isAdjustable: true },
   'item-corrected': { label: 'Item corrected', to: ['buyer-agent', 'listing-agent', 'seller'], defaultDelivery: 'immediate', isAdjustable: true },
   // The seller too: the letter is the proof of the repairs they paid for.
   'letter-issued': { label: 'Completion letter issued', to: ['inspector', 'buyer-agent', 'listing-agent', 'seller'], defaultDelivery: 'immediate', isAdjustable: true },
@@ -130,6 +136,16 @@ export const CapturedMailSchema = z.object({
   receivedAt: z.string(),
 });
 export type CapturedMail = z.infer<typeof CapturedMailSchema>;
+
+/**
+ * A page of the development mailbox, newest first: every message, or those of one request (`requestId`)
+ * or to one address (`to`, any case), or both.
+ */
+export const MailboxQuerySchema = PageQuerySchema.extend({
+  to: z.email('Type a whole e-mail address, such as name@example.com').max(254).optional(),
+  requestId: z.coerce.number().pipe(RecordIdSchema).optional(),
+});
+export type MailboxQuery = z.input<typeof MailboxQuerySchema>;
 
 /** How the outbox stands, for the development mailbox page. */
 export const OutboxCountsSchema = z.record(z.string(), z.number().int());

@@ -216,6 +216,8 @@ export const ChangeOrderSchema = z.object({
   scopeAfterCents: z.number().int(),
   decidedAt: z.string().nullable(),
   signerName: z.string().nullable(),
+  /** In what capacity it was decided, as for the quote's approval (null while it waits). */
+  signerCapacity: SignerCapacitySchema.nullable(),
   decisionNote: z.string().nullable(),
 });
 export type ChangeOrder = z.infer<typeof ChangeOrderSchema>;

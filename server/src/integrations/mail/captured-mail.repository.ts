@@ -28,14 +28,23 @@ const toMail = (r: CapturedRow): CapturedMail => ({
   receivedAt: r.received_at.toISOString(),
 });
 
+export interface MailboxFilters {
+  to: string | null;
+  requestId: number | null;
+}
+const NO_FILTERS: MailboxFilters = { to: null, requestId: null };
+
 export class CapturedMailRepository {
   constructor(private readonly db: Db) {}
 
   async keep(message: CapturedMessage): Promise<void> {
+    const messageId = message.messageId?.slice(0, 300) ?? null;
     await this.db('captured_mail').insert({
-      message_id: message.messageId?.slice(0, 300) ?? null,
+      message_id: messageId,
+      // The request of the outbox row it was sent from (index on outbox_messages.message_id); null for a digest.
+      request_id: messageId === null ? null : this.db('outbox_messages').where({ message_id: messageId }).whereNotNull('request_id').first('request_id'),
       from_address: message.from.slice(0, 300),
-      to_addresses: message.to,
+      to_addresses: message.to.map((a) => a.toLowerCase()),
       subject: message.subject.slice(0, 500),
       text_body: message.text,
       html_body: message.html,
@@ -43,12 +52,18 @@ export class CapturedMailRepository {
     });
   }
 
-  /** Newest first; `to` narrows to messages sent to that address. */
-  async list(page: number, pageSize: number, to: string | null): Promise<Page<CapturedMail>> {
-    const query = this.db<CapturedRow>('captured_mail').select('*', this.db.raw('count(*) over() AS total_count'));
-    if (to) query.whereRaw('? = ANY(to_addresses)', [to]);
-    const rows = (await query.orderBy('id', 'desc').limit(pageSize).offset(page * pageSize)) as (CapturedRow & { total_count: string })[];
+  /** Newest first; `to` narrows to messages sent to that address (any case), `requestId` to one request's. */
+  async list(page: number, pageSize: number, filters: MailboxFilters = NO_FILTERS): Promise<Page<CapturedMail>> {
+    const rows = (await this.listQuery(page, pageSize, filters)) as (CapturedRow & { total_count: string })[];
     return { items: rows.map(toMail), total: rows.length ? Number(rows[0].total_count) : 0, page, pageSize };
+  }
+
+  /** The page's statement: each filter is answered by an index (`(request_id, id)`, the GIN index of `to_addresses`). */
+  listQuery(page: number, pageSize: number, { to, requestId }: MailboxFilters) {
+    const query = this.db<CapturedRow>('captured_mail').select('*', this.db.raw('count(*) over() AS total_count'));
+    if (to) query.whereRaw('to_addresses @> ARRAY[?]::text[]', [to.toLowerCase()]);
+    if (requestId !== null) query.where('request_id', requestId);
+    return query.orderBy('id', 'desc').limit(pageSize).offset(page * pageSize);
   }
 
   async find(id: number): Promise<CapturedMail | null> {

@@ -1,12 +1,15 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
-import { CapturedMail, NotificationKind, NotificationPreference, Page, Delivery } from '@cc/shared';
+import { CapturedMail, MailboxQuery, NotificationKind, NotificationPreference, Page, Delivery } from '@cc/shared';
 import { Observable } from 'rxjs';
 
 export interface MailboxPage extends Page<CapturedMail> {
   /** Outbox messages by status (pending, sent, held ...). */
   outbox: Record<string, number>;
 }
+
+/** The development mailbox's filters (shared `MailboxQuerySchema`). */
+export type MailboxFilters = Pick<MailboxQuery, 'requestId' | 'to'> & { requestId?: number };
 
 /** Message preferences, the digest's unsubscribe link, and the development mailbox. */
 @Injectable({ providedIn: 'root' })
@@ -29,7 +32,11 @@ export class NotificationsApi {
     return this.http.post<{ email: string; turnedOff: NotificationKind[] }>(`/api/notifications/unsubscribe/${encodeURIComponent(token)}`, {});
   }
 
-  mailbox(page: number, pageSize: number): Observable<MailboxPage> {
-    return this.http.get<MailboxPage>('/api/mailbox', { params: new HttpParams().set('page', page).set('pageSize', pageSize) });
+  /** A page of captured messages, newest first, of one request and/or to one address when given. */
+  mailbox(page: number, pageSize: number, filters: MailboxFilters = {}): Observable<MailboxPage> {
+    let params = new HttpParams().set('page', page).set('pageSize', pageSize);
+    if (filters.requestId !== undefined) params = params.set('requestId', filters.requestId);
+    if (filters.to) params = params.set('to', filters.to);
+    return this.http.get<MailboxPage>('/api/mailbox', { params });
   }
 }

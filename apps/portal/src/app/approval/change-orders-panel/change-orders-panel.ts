@@ -17,6 +17,7 @@ import { ROOM_LABELS } from '../../intake/room-labels';
 import { codeLabel } from '../../ui/code-label';
 import { formatCentsDelta, MoneyPipe } from '../../ui/money/money';
 import { ApprovalApi } from '../approval-api';
+import { changeOrderDecidedBy } from '../signed-by/signed-by';
 
 type LineKind = ChangeOrderLineInput['kind'];
 
@@ -63,6 +64,8 @@ export class ChangeOrdersPanel {
     signerName: new FormControl('', { nonNullable: true, validators: zodValidator(DecideChangeOrderSchema.shape.signerName) }),
     hasConsented: new FormControl(false, { nonNullable: true, validators: zodValidator(DecideChangeOrderSchema.shape.hasConsented) }),
   });
+
+  protected readonly decidedBy = changeOrderDecidedBy;
 
   protected consentFor(order: ChangeOrder): string {
     return changeOrderConsentText({ contractorName: this.view().quote.contractor.name, number: order.number, decision: 'approve' });

@@ -1,4 +1,4 @@
-import { signedByText } from './signed-by';
+import { changeOrderDecidedBy, signedByText } from './signed-by';
 
 describe('signedByText', () => {
   it('names the signer once when the typed name is the account name', () => {
@@ -16,5 +16,17 @@ describe('signedByText', () => {
   // Review 7, P2-1: the listing agent's signature read as if the seller had signed.
   it('says the listing agent signed for the seller', () => {
     expect(signedByText('Robert Hale', 'Robert Hale', 'listing-agent')).toBe('Robert Hale, listing agent, for the seller');
+  });
+});
+
+describe('changeOrderDecidedBy', () => {
+  // A change order's decision says its signer's capacity as the quote's approval does.
+  it('names who decided with the capacity kept with the decision', () => {
+    expect(changeOrderDecidedBy({ signerName: 'Robert Hale', signerCapacity: 'listing-agent' })).toBe('Robert Hale, listing agent, for the seller');
+    expect(changeOrderDecidedBy({ signerName: 'Ellen Brooks', signerCapacity: 'seller' })).toBe('Ellen Brooks, the seller');
+  });
+
+  it('says nothing while the change order waits', () => {
+    expect(changeOrderDecidedBy({ signerName: null, signerCapacity: null })).toBe('');
   });
 });

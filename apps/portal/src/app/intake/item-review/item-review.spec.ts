@@ -70,7 +70,7 @@ describe('ItemReview', () => {
     expect(rows['code'].text[0]).toContain('No ground-fault (GFCI) protection where it is expected');
     expect(rows['room'].text).toEqual(['Kitchen', 'Bedroom', 'Garage']);
     expect(rows['quantity'].text).toEqual(['2', '—', '—']);
-    expect(rows['severity'].text[0]).toBe('Safety 210.8(A), 406.4(D)(3)');
+    expect(rows['severity'].text[0]).toBe('Safety NEC 210.8(A), 406.4(D)(3)');
     // The GFCI item carries its note on the code in force when the house was built, worded as information.
     expect(host().querySelector('[data-testid="edition-note"]')?.textContent).toContain('information');
     expect(host().querySelector('[data-testid="edition-note-summary"]')?.textContent).toContain('GFCI: came in 1987 (after this 1978 house was built)');

@@ -4,7 +4,7 @@ import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatIconModule } from '@angular/material/icon';
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import { Confidence, FINDING_CODE_TABLE, LineItem, locationText } from '@cc/shared';
+import { codeReferenceText, Confidence, FINDING_CODE_TABLE, LineItem, locationText } from '@cc/shared';
 import { EditionNote } from '../../ui/edition-note/edition-note';
 import { ROOM_LABELS } from '../room-labels';
 import { SEVERITY_LABELS } from '../severity-labels';
@@ -54,6 +54,7 @@ export class ItemTable {
   readonly remove = output<LineItem>();
 
   protected readonly where = locationText;
+  protected readonly codeRefs = codeReferenceText;
   protected readonly columns = ['select', 'code', 'room', 'location', 'quantity', 'severity', 'evidence', 'actions'];
 
   protected codeLabel(item: LineItem): string {

@@ -31,6 +31,7 @@ import {
   missingProofMessage,
   placeLabel,
   proofReadingsFor,
+  codeReferenceText,
 } from '@cc/shared';
 import { applyIssues } from '../../core/forms/apply-issues';
 import { ErrorMessagePipe } from '../../core/forms/error-message';
@@ -91,6 +92,7 @@ export class CorrectionForm {
   /** The labels are offered only on the items they mark (receptacles on GFCI protection). */
   protected readonly labelsApplyTo = labelsApplyTo;
   protected readonly place = placeLabel;
+  protected readonly codeRefs = codeReferenceText;
   protected readonly sizes = CONDUCTOR_SIZES;
   protected readonly kindLabels = READING_KIND_LABELS;
   /** The readings of which one proves a correction of this item (shown beside the readings). */
