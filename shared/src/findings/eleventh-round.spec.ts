@@ -113,3 +113,19 @@ describe('outbuildings and crawl spaces named as the trades name them (the lead 
     expect(read('A grey cable is laying loose on the dirt under the kitchen, not stapled up.')).toEqual([['exposed-wiring', 'crawl-space', 1]]);
   });
 });
+
+describe('a repair told as done names a defect that is gone (completion letters, re-inspections)', () => {
+  it('reads nothing from a row whose work column opens with a past-tense repair verb', () => {
+    expect(read('Main panel, cellar            Removed double tap at the 20A breaker, added a pigtail.')).toEqual([]);
+    expect(read('Hall bath (upper)              Replaced GFCI that would not reset.')).toEqual([]);
+  });
+
+  it('reads nothing from "... corrected at 2 receptacles"', () => {
+    expect(read('Guest room: reversed polarity corrected at 2 receptacles.')).toEqual([]);
+  });
+
+  it('still reads a defect that should be corrected, or a replaced device that is loose', () => {
+    expect(read('Reversed polarity at the den receptacle should be corrected by an electrician.')).toEqual([['reversed-polarity', 'living-area', 1]]);
+    expect(read('KITCHEN\nThe receptacle was replaced but it is loose.')).toEqual([['receptacle-damaged', 'kitchen', 1]]);
+  });
+});

@@ -87,6 +87,15 @@ export function teachesOnly(text: string): boolean {
 const GENERAL_PROPERTY = /\b(?:is|are)\s+(?:(?:well|widely|commonly)\s+)?known\s+(?:to|for)\b/i;
 
 /** For each span (sorted by start, not overlapping), whether the sentence denies it. */
+/**
+ * A past-tense repair verb that opens the sentence or a cell of a table row (capitalised after
+ * other words: "Main panel, utility rm Removed double tap ..."). Case matters: "removed" inside a
+ * sentence ("the cover was removed for inspection") is no report of a repair.
+ */
+const REPAIR_DONE_BEFORE = /(?:(?:^\s*|[.;:|]\s*)(?:[Rr]emoved|[Rr]eplaced|[Rr]epaired|[Cc]orrected|[Ff]ixed|[Ff]illed|[Rr]e-?hung|[Rr]e-?wired|[Ss]ecured|[Tt]ightened|[Pp]igtailed|[Ss]wapped)|(?<=[a-z0-9)]\s+)(?:Removed|Replaced|Repaired|Corrected|Fixed|Filled|Re-?hung|Re-?wired|Rewired|Secured|Tightened|Pigtailed|Swapped))\s+(?:(?:the|a|an|all|both|\d+)\s+)?$/;
+/** "... corrected at 2 receps", "... repaired." — but not "should be corrected by", "needs to be repaired". */
+const REPAIR_DONE_AFTER = /^\s+(?<!\b(?:be|been|get|got)\s)(?:corrected|repaired|fixed)\b(?:\s+(?:at|on|in|per|with|and tested|and verified)\b|\s*(?:[.;,]|$))/i;
+
 export function negatedSpans(text: string, spans: readonly Range[], clauses: readonly Range[] = clauseRanges(text)): boolean[] {
   if (FUTURE_CONDITION.test(text) || teachesOnly(text)) return spans.map(() => true);
   if (spans.length === 0) return [];
@@ -113,6 +122,16 @@ export function negatedSpans(text: string, spans: readonly Range[], clauses: rea
       if (GENERAL_PROPERTY.test(text.slice(clause.start, clause.end))) negated[i] = true;
     });
   }
+  // A repair told as done: "Removed double tap at bkr #11", "... rm   Replaced GFCI that would not reset",
+  // "Reversed polarity corrected at 2 receps". The defect named is history (a completion letter, a
+  // re-inspection), not a defect of the house now.
+  spans.forEach((s, i) => {
+    const clause = clauses[clauseOf(s.start)];
+    const before = text.slice(clause.start, s.start);
+    const done = REPAIR_DONE_BEFORE.exec(before);
+    if (done && s.start - (clause.start + done.index + done[0].length) <= MAX_CUE_DISTANCE) negated[i] = true;
+    else if (REPAIR_DONE_AFTER.test(text.slice(s.end, Math.min(clause.end, s.end + 24)))) negated[i] = true;
+  });
   // "attic: knob-and-tube?": a phrase asked about, not reported.
   spans.forEach((s, i) => {
     if (/^\s?\?/.test(text.slice(s.end, s.end + 2))) negated[i] = true;
