@@ -75,6 +75,8 @@ const NOT_JUNCTION_BOX = ['fan-rated', 'breaker', 'fuse', 'meter', 'mail', 'wind
 const PANELS = [
   'panel', 'panels', 'panelboard', 'electrical panel', 'main panel', 'service panel', 'breaker panel', 'sub panel', 'subpanel', 'sub-panel', 'distribution panel',
   'load center', 'breaker box', 'fuse box', 'fuse panel', 'dead front', 'deadfront', 'dead-front', 'panel cover', 'inner cover', 'panel enclosure',
+  // Parts inside the panel whose rust or water damage is the panel's defect (common practice).
+  'neutral bar', 'neutral bars', 'ground bar', 'ground bars', 'bus bar', 'bus bars', 'busbar', 'bus',
 ];
 const NOT_ELECTRICAL_PANEL = ['solar', 'access', 'door', 'control', 'wood', 'wall', 'alarm', 'security', 'fire', 'siding', 'fence', 'ceiling', 'radiant', 'glass', 'side', 'roof', 'hvac', 'furnace', 'thermostat', 'spa', 'pool', 'generator', 'sliding', 'raised', 'insulated', 'fiberglass', 'vinyl', 'metal', 'acoustic', 'mirror', 'window'];
 const ALARMS = [
@@ -200,6 +202,7 @@ const VOCABULARY: readonly CodeVocabulary[] = [
       'open slot', 'open slots', 'open space', 'open spaces', 'missing filler', 'missing fillers', 'missing blank', 'missing blanks', 'no filler', 'no fillers', 'no blanks', 'missing twistouts', 'missing twist-outs',
       'unlabeled', 'unlabelled', 'not labeled', 'not labelled', 'no directory', 'directory missing', 'no labels', 'labels missing', 'no legend', 'incomplete directory', 'directory incomplete', 'blank directory', 'directory blank',
       'blocked', 'obstructed', 'no clearance', 'inadequate clearance', 'insufficient clearance', 'insufficient working space', 'dented', 'damaged', 'missing cover', 'no cover', 'cover missing', 'missing dead front', 'no dead front',
+      'under water', 'underwater', 'submerged', 'flooded', 'silt', 'water entry', 'water intrusion',
     ],
   },
   {

@@ -129,3 +129,10 @@ describe('a repair told as done names a defect that is gone (completion letters,
     expect(read('KITCHEN\nThe receptacle was replaced but it is loose.')).toEqual([['receptacle-damaged', 'kitchen', 1]]);
   });
 });
+
+describe('the panel', () => {
+  it('reads rust or flood damage on the breakers and bars inside the panel as the panel\'s defect', () => {
+    expect(read('MAIN PANEL\nRust and corrosion on the lower breakers and the neutral bar, water entry from above.')).toEqual([['panel-deficiency', 'panel', 1]]);
+  });
+
+});

@@ -165,6 +165,8 @@ export function readCount(text: string, articleLimit = Infinity, countable: RegE
     if (VOLTAGES.has(word)) continue;
     const next = tokens[i + 1]?.word;
     if (next !== undefined && UNIT.test(next) && word !== 'a' && word !== 'an') continue;
+    // "throughout both units", "across all three floors": the places a defect spreads over, not a count.
+    if (i > 0 && /^(?:throughout|across)$/.test(tokens[i - 1].word)) continue;
     // "ELEC 4.5 - Master bath", "item 7.6": the digits after a dot are part of a section number.
     if (first >= 48 && first <= 57 && /\d\.$/.test(text.slice(Math.max(0, tokens[i].index - 2), tokens[i].index))) continue;
     // "100 ELEC KITCHEN NO GFCI", "7 Unit A sunroom - ceiling fan": a number that opens a row before a
