@@ -41,10 +41,12 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // Reset 2026-12-05 when batch N (1401-1466) joined after its untuned score was recorded and sealed O
 // took its place: precision 88.31 %, recall 85.49 %, F1 86.88 %, quantity 93.39 % (4184/4480), rounded
 // down; the corpus changed, not the parser (which had moved the corpus with M from 87.72 to 88.3 % F1).
+// Raised after the eleventh round's rules for N to the exact figures rounded down: precision 88.38 %,
+// recall 85.51 %, F1 86.92 %, quantity 93.39 % (4185/4481).
 // Raise them as the parser gets better; never lower them for the same corpus.
-const MIN_PRECISION = 0.8831;
-const MIN_RECALL = 0.8549;
-const MIN_F1 = 0.8688;
+const MIN_PRECISION = 0.8838;
+const MIN_RECALL = 0.8551;
+const MIN_F1 = 0.8692;
 const MIN_QUANTITY = 0.9339;
 
 describe('report parser corpus', () => {
