@@ -43,17 +43,20 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // down; the corpus changed, not the parser (which had moved the corpus with M from 87.72 to 88.3 % F1).
 // Raised after the eleventh round's rules for N to the exact figures rounded down: precision 88.38 %,
 // recall 85.51 %, F1 86.92 %, quantity 93.39 % (4185/4481).
+// Reset 2026-12-05 when batch O (1501-1566) joined after its untuned score was recorded and sealed P
+// took its place: precision 86.96 %, recall 84.38 %, F1 85.65 %, quantity 92.46 % (4428/4789), rounded
+// down; the corpus changed, not the parser.
 // Raise them as the parser gets better; never lower them for the same corpus.
-const MIN_PRECISION = 0.8838;
-const MIN_RECALL = 0.8551;
-const MIN_F1 = 0.8692;
-const MIN_QUANTITY = 0.9339;
+const MIN_PRECISION = 0.8696;
+const MIN_RECALL = 0.8438;
+const MIN_F1 = 0.8565;
+const MIN_QUANTITY = 0.9246;
 
 describe('report parser corpus', () => {
   let run: BatchRun;
   beforeAll(async () => {
     run = await runCorpus();
-  }, 120_000);
+  }, 240_000);
 
   it('has a label entry for every excerpt and an excerpt for every label', () => {
     expect(run.results.length).toBeGreaterThanOrEqual(32);
