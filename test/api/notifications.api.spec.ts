@@ -347,6 +347,10 @@ describe('GET /api/mailbox (development mailbox)', () => {
     expect(bad.body.details).toEqual([{ path: 'to', message: 'Type a whole e-mail address, such as name@example.com' }]);
     expect((await cast.s.admin.agent.get('/api/mailbox?requestId=0').expect(400)).body.details[0].path).toBe('requestId');
     await cast.s.admin.agent.get('/api/mailbox?requestId=abc').expect(400);
+    // Bounds: an id past PostgreSQL's integer, a NUL byte, an address longer than any mailbox (never a 500).
+    expect((await cast.s.admin.agent.get('/api/mailbox?requestId=2147483648').expect(400)).body.details[0].path).toBe('requestId');
+    expect((await cast.s.admin.agent.get('/api/mailbox?to=a%00b@people.test').expect(400)).body.error).toEqual(expect.any(String));
+    expect((await cast.s.admin.agent.get(`/api/mailbox?to=${'a'.repeat(250)}@people.test`).expect(400)).body.details[0].path).toBe('to');
     await cast.s.buyerAgent.agent.get(`/api/mailbox?requestId=${first}`).expect(403);
 
     // Each filter is answered by its index, not by reading every message.
