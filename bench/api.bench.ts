@@ -5,6 +5,9 @@
 // endpoint's figures measured around it. Target: every list >= 50 % of health's throughput and
 // p99 <= 2x health's p99. Ratios, not absolute figures, because the machine is shared.
 //   npx tsx bench/run.ts api            (BENCH_SECONDS=5 by default per run)
+// BENCH_DATABASE_URL=postgres://... uses that database instead of a throwaway cluster and keeps it:
+// filled on the first run (when it has no requests), then read as it is, so that two builds of the
+// server can be measured in turn on the same data (each run of the bench from its own tree).
 import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdtempSync, rmSync, chmodSync } from 'node:fs';
 import { createServer } from 'node:net';
@@ -139,25 +142,31 @@ async function load(url: string, cookie: string | null): Promise<Figures> {
 export async function run(): Promise<void> {
   const work = mkdtempSync(join(tmpdir(), 'cc-bench-api-'));
   chmodSync(work, 0o755);
-  const pgPort = await freePort();
-  const { startCluster } = (await import(join(root, 'scripts/lib/postgres.mjs'))) as {
-    startCluster(o: { dataDir: string; port: number; throwaway: boolean }): Cluster;
-  };
-  const cluster = startCluster({ dataDir: join(work, 'pg'), port: pgPort, throwaway: true });
+  const kept = process.env.BENCH_DATABASE_URL;
+  let cluster: Cluster | null = null;
+  if (!kept) {
+    const pgPort = await freePort();
+    const { startCluster } = (await import(join(root, 'scripts/lib/postgres.mjs'))) as {
+      startCluster(o: { dataDir: string; port: number; throwaway: boolean }): Cluster;
+    };
+    cluster = startCluster({ dataDir: join(work, 'pg'), port: pgPort, throwaway: true });
+  }
   let server: ChildProcess | null = null;
   try {
-    cluster.createDatabase('cc_bench');
-    const databaseUrl = cluster.url('cc_bench');
+    if (cluster) cluster.createDatabase('cc_bench');
+    const databaseUrl = kept ?? cluster!.url('cc_bench');
     const db = knex({ client: 'pg', connection: databaseUrl, pool: { min: 0, max: 2 } });
     const started = Date.now();
     const { default: config } = await import('../server/src/db/knexfile');
     const migrator = knex({ ...config, connection: databaseUrl });
     await migrator.migrate.latest();
     await migrator.destroy();
-    await fill(db);
+    const [{ n }] = (await db.raw('SELECT count(*)::int AS n FROM repair_requests')).rows as { n: number }[];
+    if (n === 0) await fill(db);
+    else if (n !== REQUESTS) throw new Error(`BENCH_DATABASE_URL holds ${n} requests, not the bench's ${REQUESTS}: give it an empty database`);
     const [{ id: sampleRequest }] = await db('request_parties as p').join('users as u', 'u.id', 'p.user_id').where('u.email', 'agent1@bench.test').orderBy('p.request_id').limit(1).select('p.request_id as id');
     await db.destroy();
-    console.log(`Data: ${REQUESTS} requests, ${ITEMS} line items, built in ${((Date.now() - started) / 1000).toFixed(1)} s`);
+    console.log(`Data: ${REQUESTS} requests, ${ITEMS} line items, ${kept ? 'kept in BENCH_DATABASE_URL, ready' : 'built'} in ${((Date.now() - started) / 1000).toFixed(1)} s`);
 
     const port = await freePort();
     const url = `http://127.0.0.1:${port}`;
@@ -224,7 +233,7 @@ export async function run(): Promise<void> {
       server.kill('SIGTERM');
       await Promise.race([exited, new Promise((resolve) => setTimeout(resolve, 10_000))]);
     }
-    cluster.stop();
+    cluster?.stop();
     rmSync(work, { recursive: true, force: true });
   }
 }

@@ -428,6 +428,20 @@ describe('GET /api/requests', () => {
     expect(plan).not.toContain('line_items');
   });
 
+  // A first page of a contractor's or the administrator's list skips no row, so its rows come with
+  // the walk of the sort's index (an index scan that reads each row it passes, not the primary key).
+  it.each([
+    ['contractor', 'createdAt', 'desc'],
+    ['admin', 'street', 'asc'],
+  ] as const)('reads the %s’s first page (%s %s) with its index walk, not row by row by key', async (who, sort, direction) => {
+    const user = cast[who];
+    const viewer: Viewer = { id: user.id, role: user.role, organisationId: user.organisationId };
+    const plan = await genericPlan(new RequestRepository(t.db).listStatement(viewer, { page: 0, pageSize: 25, sort, direction, statuses: [], text: '', id: null }, '2027-01-01'));
+    expect(plan).toMatch(/Index Scan (Backward )?using repair_requests_\w+/);
+    expect(plan).not.toContain('repair_requests_pkey');
+    expect(plan).not.toMatch(/Seq Scan on (repair_requests|request_viewers|line_items)/);
+  });
+
   // Keyset paging (PostgreSQL documentation, "Row Constructor Comparison" and "Indexes and ORDER
   // BY"): the page after a cursor starts in the sort's index at the cursor's row, instead of reading
   // and skipping every row of the pages before it.

@@ -133,6 +133,9 @@ const itemCountsIn = (p: StatementParams): string => itemCountsOfR(p.add(UNCOUNT
 /** The columns of repair_requests a summary shows (a list reads only these). */
 const SUMMARY_COLUMNS = ['id', 'street', 'city', 'state', 'zip', 'year_built', 'closing_date', 'nec_edition', 'status', 'created_at', 'updated_at'] as const;
 
+/** What a list page reads of each of its requests: the summary's columns and what its contractor's name and item counts come from. */
+const PAGE_ROW_COLUMNS = [...SUMMARY_COLUMNS, 'contractor_organisation_id', 'item_status_counts'] as const;
+
 /** A summary's row; its times are text when read on a read connection (see isoTimestamp). */
 type SummaryRow = Omit<Pick<RepairRequestRow, (typeof SUMMARY_COLUMNS)[number]>, 'created_at' | 'updated_at'> & {
   created_at: Date | string;
@@ -268,14 +271,20 @@ export class RequestRepository {
     const after = filter.after ? `(${sort}, ${id}) ${dir === 'DESC' ? '<' : '>'} (CAST(${p.add(filter.after.sortKey)} AS ${SORT_TYPES[filter.sort]}), ${p.add(filter.after.id)})` : null;
     const pageConditions = after ? [...conditions, after] : conditions;
     // One row past the page tells whether another page follows (its summary is not read).
-    const offset = p.add(after ? 0 : filter.page * filter.pageSize);
+    const skipped = after ? 0 : filter.page * filter.pageSize;
+    const offset = p.add(skipped);
     const pageLimit = `LIMIT ${p.add(filter.pageSize + 1)} OFFSET ${offset}`;
     const cap = matched ? this.countCaps.search : this.countCaps.list;
     if (!matched) {
+      // A contractor's or the administrator's page that skips no row takes its summary columns
+      // straight from the rows its index walk reaches; a page after skipped rows (OFFSET) reads
+      // only the index for those and its own rows by key (withSummaries).
+      const withRows = !isNamed && skipped === 0;
+      const rowColumns = withRows ? `, ${PAGE_ROW_COLUMNS.filter((column) => column !== 'id').map((column) => `r.${column}`).join(', ')}` : '';
       return this.withSummaries(p, filter, lastAtRisk, `WITH page_ids AS (
-          SELECT ${id} AS id, ${sort}::text AS sort_key, row_number() OVER (ORDER BY ${order}) - ${offset} AS ord FROM ${table}${where(pageConditions)}
+          SELECT ${id} AS id, ${sort}::text AS sort_key, row_number() OVER (ORDER BY ${order}) - ${offset} AS ord${rowColumns} FROM ${table}${where(pageConditions)}
           ORDER BY ${order} ${pageLimit}),
-        counted AS (SELECT count(*) AS n FROM (SELECT 1 FROM ${table}${where(conditions)} LIMIT ${p.add(cap + 1)}) AS c)`);
+        counted AS (SELECT count(*) AS n FROM (SELECT 1 FROM ${table}${where(conditions)} LIMIT ${p.add(cap + 1)}) AS c)`, withRows);
     }
     // A text search reads no further than it must. Its matches are collected up to the cap + 1 in
     // any order ("matches", which reads every visible row only when there are few matches), and
@@ -302,13 +311,14 @@ export class RequestRepository {
 
   /**
    * The rest of `listStatement` after its CTEs: the page as one row. Each page row's summary is read
-   * by key (the request row by row through the primary key whatever the page size: OFFSET 0 keeps it
-   * a nested loop, also in a plan made once for any page; the contractor's name by its key, as a
-   * join here was planned as a hash of every organisation per row) and written as JSON in the
+   * from `page_ids` when it carries the row's columns (`pageHasRows`), else by key (the request row
+   * by row through the primary key whatever the page size: OFFSET 0 keeps it a nested loop, also in
+   * a plan made once for any page); the contractor's name by its key likewise (a join here was
+   * planned as a hash of every organisation per row, a subquery as a scan of them); written as JSON in the
    * shape of RepairRequestSummary, in the page's order; beside it the count, the last row's sort
    * key and id (for the cursor) and whether a row follows the page.
    */
-  private withSummaries(p: StatementParams, filter: RequestListFilter, lastAtRisk: string, ctes: string): Statement {
+  private withSummaries(p: StatementParams, filter: RequestListFilter, lastAtRisk: string, ctes: string, pageHasRows = false): Statement {
     const pageSize = p.add(filter.pageSize);
     const onPage = `page_ids.ord <= ${pageSize}`;
     // As toSummary and RequestsService.withRisk write a summary (an API test compares the two).
@@ -317,10 +327,13 @@ export class RequestRepository {
           '${REQUEST_REFERENCE_PREFIX}' || lpad(r.id::text, greatest(${REQUEST_REFERENCE_DIGITS}, length(r.id::text)), '0') AS "reference",
           r.street AS "street", r.city AS "city", r.state AS "state", r.zip AS "zip", r.year_built AS "yearBuilt",
           r.closing_date AS "closingDate", r.nec_edition AS "necEdition", r.status AS "status",
-          (SELECT o.name FROM organisations o WHERE o.id = r.contractor_organisation_id) AS "contractorName",
+          org.name AS "contractorName",
           ic.item_count AS "itemCount", ic.open_work_count AS "openWorkCount",
           (ic.open_work_count > 0 AND r.closing_date <= CAST(${p.add(lastAtRisk)} AS date)) AS "isAtRisk",
           ${isoTime('created_at')} AS "createdAt", ${isoTime('updated_at')} AS "updatedAt"`;
+    const pageRows = pageHasRows
+      ? `SELECT ${PAGE_ROW_COLUMNS.map((column) => `page_ids.${column}`).join(', ')} WHERE ${onPage}`
+      : `SELECT ${PAGE_ROW_COLUMNS.join(', ')} FROM repair_requests WHERE id = page_ids.id AND ${onPage} OFFSET 0`;
     return {
       text: `${ctes}
         SELECT counted.n,
@@ -330,7 +343,8 @@ export class RequestRepository {
           bool_or(page_ids.ord > ${pageSize}) AS has_more
         FROM counted
         LEFT JOIN page_ids ON true
-        LEFT JOIN LATERAL (SELECT ${SUMMARY_COLUMNS.join(', ')}, contractor_organisation_id, item_status_counts FROM repair_requests WHERE id = page_ids.id AND ${onPage} OFFSET 0) AS r ON true
+        LEFT JOIN LATERAL (${pageRows}) AS r ON true
+        LEFT JOIN LATERAL (SELECT o.name FROM organisations o WHERE o.id = r.contractor_organisation_id OFFSET 0) AS org ON true
         LEFT JOIN LATERAL (${itemCountsIn(p)}) AS ic ON true
         LEFT JOIN LATERAL (${summary}) AS s ON true
         GROUP BY counted.n`,
