@@ -363,14 +363,62 @@ describe('GET /api/requests', () => {
     expect(first.body.isTotalCapped).toBe(false);
   });
 
-  it('stops counting at the cap and says the total is at least that', async () => {
+  it('stops counting a list filtered by build year at the cap and says the total is at least that', async () => {
     const viewer = { id: cast.admin.id, role: 'admin' as const, organisationId: null };
-    const filter = { page: 0, pageSize: 1, sort: 'closingDate' as const, direction: 'asc' as const, statuses: [], text: '', id: null };
+    const filter = { page: 0, pageSize: 1, sort: 'closingDate' as const, direction: 'asc' as const, statuses: [], text: '', id: null, builtBefore: 2100 };
     const all = await new RequestRepository(t.db).list(viewer, filter, '2000-01-01');
     expect(all.total).toBeGreaterThan(2);
     const capped = await new RequestRepository(t.db, { list: 2, search: 2 }).list(viewer, filter, '2000-01-01');
     expect(capped).toMatchObject({ total: 2, isTotalCapped: true });
     expect(JSON.parse(capped.itemsJson)).toHaveLength(1);
+  });
+
+  // Lists filtered only by status read their total from request_list_counts (kept by triggers,
+  // migration 20261205130000), so it is exact past any cap and follows every kind of change.
+  describe('kept totals', () => {
+    /** Rows of request_list_counts that differ from a count made now from the tables themselves. */
+    async function keptTotalsOff(): Promise<unknown[]> {
+      const { rows } = await t.db.raw(`
+        WITH kept AS (SELECT scope, scope_id, status, n FROM request_list_counts WHERE n <> 0),
+        fresh AS (SELECT 'viewer' AS scope, user_id AS scope_id, status, count(*)::int AS n FROM request_viewers GROUP BY user_id, status
+          UNION ALL SELECT 'contractor', contractor_organisation_id, status, count(*)::int FROM repair_requests WHERE contractor_organisation_id IS NOT NULL GROUP BY contractor_organisation_id, status
+          UNION ALL SELECT 'all', 0, status, count(*)::int FROM repair_requests GROUP BY status)
+        SELECT scope, scope_id, status, kept.n AS kept, fresh.n AS fresh FROM kept FULL JOIN fresh USING (scope, scope_id, status)
+        WHERE kept.n IS DISTINCT FROM fresh.n`);
+      return rows;
+    }
+    const filter = (statuses: RequestStatus[] = []): RequestListFilter => ({ page: 0, pageSize: 1, sort: 'closingDate', direction: 'asc', statuses, text: '', id: null });
+    const viewerOf = (user: CurrentUser): Viewer => ({ id: user.id, role: user.role, organisationId: user.organisationId });
+
+    it('tells the exact total past the cap for the administrator, a contractor and a person named on requests', async () => {
+      const capped = new RequestRepository(t.db, { list: 1, search: 1 });
+      for (const who of ['admin', 'contractor', 'buyerAgent'] as const) {
+        const page = await capped.list(viewerOf(cast[who]), filter(), '2000-01-01');
+        const fresh = await new RequestRepository(t.db).list(viewerOf(cast[who]), { ...filter(), builtBefore: 3000 }, '2000-01-01');
+        expect(page).toMatchObject({ total: fresh.total, isTotalCapped: false });
+        expect(page.total).toBeGreaterThan(1);
+      }
+    });
+
+    it('follows new requests, moves, a change of contractor, a party leaving and a request deleted', async () => {
+      const created = await sessions.buyerAgent.agent.post('/api/requests').set('x-csrf-token', sessions.buyerAgent.csrfToken).send(validRequestBody()).expect(201);
+      const id: number = created.body.id;
+      expect(await keptTotalsOff()).toEqual([]);
+      const before = await new RequestRepository(t.db).list(viewerOf(cast.buyerAgent), filter(['intake']), '2000-01-01');
+      await t.db('repair_requests').where({ id }).update({ status: 'intake' });
+      expect(await keptTotalsOff()).toEqual([]);
+      const after = await new RequestRepository(t.db).list(viewerOf(cast.buyerAgent), filter(['intake']), '2000-01-01');
+      expect(after.total).toBe(before.total + 1);
+      await t.db.transaction(async (trx) => {
+        await trx('repair_requests').where({ id }).update({ contractor_organisation_id: otherContractorOrg });
+        await trx('request_parties').where({ request_id: id, user_id: cast.buyerAgent.id }).update({ user_id: null });
+      });
+      expect(await keptTotalsOff()).toEqual([]);
+      await t.db('request_parties').where({ request_id: id }).delete();
+      await t.db('request_status_changes').where({ request_id: id }).delete();
+      await t.db('repair_requests').where({ id }).delete();
+      expect(await keptTotalsOff()).toEqual([]);
+    });
   });
 
   // Every list reads its page through the index of its sort within the viewer's scope, not by
@@ -423,8 +471,9 @@ describe('GET /api/requests', () => {
     expect(plan).toMatch(new RegExp(`Index (Only )?Scan (Backward )?using ${table}_\\w+`));
     expect(plan).not.toMatch(/Seq Scan on (repair_requests|request_viewers|request_parties|line_items)/);
     // The page's rows are read by key, row by row, and their item counts with them (kept on the
-    // request by status), without reading any item.
+    // request by status), without reading any item; the total by key from the kept totals.
     expect(plan).toContain('repair_requests_pkey');
+    expect(plan).toContain('request_list_counts_pkey');
     expect(plan).not.toContain('line_items');
   });
 

@@ -180,6 +180,22 @@ export function visibleTo(viewer: Viewer, param: (value: number) => string): str
   return `EXISTS (SELECT 1 FROM request_parties p WHERE p.request_id = r.id AND p.user_id = ${param(viewer.id)})`;
 }
 
+/**
+ * Whether a list's exact total is kept (request_list_counts, by scope and status: migration
+ * 20261205130000): lists filtered only by status. A search or a build-year filter counts its rows,
+ * no further than its cap.
+ */
+function hasKeptTotal(filter: Pick<RequestListFilter, 'text' | 'builtBefore'>): boolean {
+  return !filter.text && !filter.builtBefore;
+}
+
+/** The kept total of `viewer`'s list with `statuses` (none: every status), as the `n` of one row. */
+function keptTotal(p: StatementParams, viewer: Viewer, statuses: readonly RequestStatus[]): string {
+  const [scope, scopeId] = viewer.role === 'admin' ? ['all', 0] : viewer.role === 'contractor' ? ['contractor', viewer.organisationId ?? -1] : ['viewer', viewer.id];
+  const byStatus = statuses.length ? ` AND status = ANY(${p.add(statuses)})` : '';
+  return `SELECT coalesce(sum(n), 0) AS n FROM request_list_counts WHERE scope = ${p.add(scope)} AND scope_id = ${p.add(scopeId)}${byStatus}`;
+}
+
 export class RequestRepository {
   constructor(
     private readonly db: Db,
@@ -227,7 +243,7 @@ export class RequestRepository {
     type Row = { n: string; items: string | null; last_sort_key: string | null; last_id: number | null; has_more: boolean | null };
     const [row] = this.readPool ? await readPrepared<Row>(this.readPool, statement) : await runStatement<Row>(this.db, statement);
     const counted = Number(row.n);
-    const cap = filter.text ? this.countCaps.search : this.countCaps.list;
+    const cap = hasKeptTotal(filter) ? Infinity : filter.text ? this.countCaps.search : this.countCaps.list;
     const lastKey = row.last_id === null ? null : { sortKey: row.last_sort_key ?? '', id: row.last_id };
     return { itemsJson: row.items ?? '[]', total: Math.min(counted, cap), isTotalCapped: counted > cap, lastKey, hasMore: row.has_more === true };
   }
@@ -284,7 +300,7 @@ export class RequestRepository {
       return this.withSummaries(p, filter, lastAtRisk, `WITH page_ids AS (
           SELECT ${id} AS id, ${sort}::text AS sort_key, row_number() OVER (ORDER BY ${order}) - ${offset} AS ord${rowColumns} FROM ${table}${where(pageConditions)}
           ORDER BY ${order} ${pageLimit}),
-        counted AS (SELECT count(*) AS n FROM (SELECT 1 FROM ${table}${where(conditions)} LIMIT ${p.add(cap + 1)}) AS c)`, withRows);
+        counted AS (${hasKeptTotal(filter) ? keptTotal(p, viewer, filter.statuses) : `SELECT count(*) AS n FROM (SELECT 1 FROM ${table}${where(conditions)} LIMIT ${p.add(cap + 1)}) AS c`})`, withRows);
     }
     // A text search reads no further than it must. Its matches are collected up to the cap + 1 in
     // any order ("matches", which reads every visible row only when there are few matches), and
