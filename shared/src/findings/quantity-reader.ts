@@ -27,6 +27,8 @@ const SPREAD_NOUN = /^(?:levels?|floors?|stor(?:y|ies)|rooms?|bedrooms?|areas?|l
 const PLURAL_COUNTABLE = /^(?:receptacles|outlets|devices|breakers|fuses|lights|fixtures|switches|boxes|covers|plates|alarms|detectors|fans|cords|splices)$/i;
 /** A singular device noun ("switch", "receptacle"): "the left switch of the two" is one. */
 const SINGULAR_DEVICE = /^(?:receptacle|outlet|rcpt|recept|switch|dimmer|light|fixture|fan|breaker|fuse|box|cover|plate|alarm|detector|gfci|device)$/i;
+/** What makes the digits after it a page, a price or the minutes of a time (see readCount). */
+const NOT_A_COUNT_BEFORE = /(?:(?<![\w.])(?:p|pg|pp)\.\s?|\$\s?|\d:)$/i;
 /** Vague words that quantify only a noun that follows ("all receptacles"), not a manner ("at all speeds"). */
 const VAGUE_BEFORE_NOUN_ONLY = new Set(['all', 'every']);
 /** A word, a bracketed count ("(3)", "(x2)") or a punctuation mark. */
@@ -169,6 +171,10 @@ export function readCount(text: string, articleLimit = Infinity, countable: RegE
     if (i > 0 && /^(?:throughout|across)$/.test(tokens[i - 1].word)) continue;
     // "ELEC 4.5 - Master bath", "item 7.6": the digits after a dot are part of a section number.
     if (first >= 48 && first <= 57 && /\d\.$/.test(text.slice(Math.max(0, tokens[i].index - 2), tokens[i].index))) continue;
+    // Twelfth round: a page ("p.32", "pg. 14"), a price ("$135.00", "$ 85") and a time of day
+    // ("9:21 AM") are no counts.
+    if (first >= 48 && first <= 57 && NOT_A_COUNT_BEFORE.test(text.slice(Math.max(0, tokens[i].index - 5), tokens[i].index))) continue;
+    if (first >= 48 && first <= 57 && /^:\d\d\b/.test(text.slice(tokens[i].index + word.length, tokens[i].index + word.length + 4))) continue;
     // "100 ELEC KITCHEN NO GFCI", "7 Unit A sunroom - ceiling fan": a number that opens a row before a
     // capitalised label is the row's item number unless the counted thing follows it at once
     // ("2 GFCI receptacles", "3 open grounds", "Two of the receptacles" are counts).
