@@ -27,6 +27,8 @@ const SPREAD_NOUN = /^(?:levels?|floors?|stor(?:y|ies)|rooms?|bedrooms?|areas?|l
 const PLURAL_COUNTABLE = /^(?:receptacles|outlets|devices|breakers|fuses|lights|fixtures|switches|boxes|covers|plates|alarms|detectors|fans|cords|splices)$/i;
 /** A singular device noun ("switch", "receptacle"): "the left switch of the two" is one. */
 const SINGULAR_DEVICE = /^(?:receptacle|outlet|rcpt|recept|switch|dimmer|light|fixture|fan|breaker|fuse|box|cover|plate|alarm|detector|gfci|device)$/i;
+/** "Of the five receptacles, three are ...": the whole first, then the part the defect is in. */
+const PART_OF_WHOLE = /^\s*of\s+(?:the|these|those|its|their)\s+(\w+)\s+(?:[\w-]+\s+){0,3}?[\w-]+,\s*(\w+)\s+(?:are|were|have|had|show|showed|read|tested)\b/i;
 /** What makes the digits after it a page, a price or the minutes of a time (see readCount). */
 const NOT_A_COUNT_BEFORE = /(?:(?<![\w.])(?:p|pg|pp)\.\s?|\$\s?|\d:)$/i;
 /** Vague words that quantify only a noun that follows ("all receptacles"), not a manner ("at all speeds"). */
@@ -136,6 +138,12 @@ export function readCount(text: string, articleLimit = Infinity, countable: RegE
   // "an open ground on all four": a number after "all" that ends the clause counts the devices left unsaid.
   const allOf = ALL_N.exec(text);
   if (allOf) return NUMBER_WORDS[allOf[1].toLowerCase()] ?? Number(allOf[1]);
+  // Twelfth round: "Of the five countertop receptacles, three are loose": the part, not the whole.
+  const part = PART_OF_WHOLE.exec(text);
+  if (part) {
+    const [whole, some] = [countOf(part[1].toLowerCase()), countOf(part[2].toLowerCase())];
+    if (whole !== null && some !== null && some > 0 && some < whole) return some;
+  }
   const tokens = tokenize(text);
   for (let i = 0; i < tokens.length; i++) {
     const { word } = tokens[i];

@@ -58,12 +58,36 @@ describe('places', () => {
     expect(places('splices beneath the kitchen and dining room')).toEqual([]);
   });
 
+  it('an item line naming only a place and its priority heads the lettered items under it', () => {
+    const text = ['R-3  Lower level (playroom) - SAFETY', '  a) Receptacle beside the bar sink is not GFCI protected.', '  b) Two junction boxes above the drop ceiling have no covers.'].join('\n');
+    expect(read(text)).toEqual([
+      ['gfci-missing', 'basement', 1],
+      ['open-junction-box', 'basement', 2],
+    ]);
+  });
+
   it('a panel named as where the inspector was going leaves a loose rod clamp outdoors (lead convention: the rod is exterior)', () => {
     expect(read('On my way to the panel I saw the ground rod clamp is loose on the rod.')).toEqual([['grounding-electrode', 'exterior', 1]]);
   });
 });
 
+describe('recall', () => {
+  it('a GFCI that will not stay reset is inoperative (common practice: a worn GFCI trips again at once)', () => {
+    expect(read('Garage GFCI trips at the button but will not stay reset.')).toEqual([['gfci-inoperative', 'garage', 1]]);
+  });
+
+  it('a capital NO in a table column does not deny a cell that states the lack itself', () => {
+    expect(read('Rec room bar     NO     no GFCI protection within 4 ft of sink')).toEqual([['gfci-missing', 'living-area', null]]);
+    expect(read('No GFCI protection missing; all tested.')).toEqual([]);
+  });
+});
+
 describe('counts', () => {
+  it('"of the five receptacles, three are loose" counts the part', () => {
+    expect(readQuantity('Of the six bedroom receptacles, two are loose in the wall.')).toBe(2);
+  });
+
+
   it('a page, a price and a time of day count nothing', () => {
     expect(readQuantity('p.12 bath receptacle has no GFCI')).toBeNull();
     expect(readQuantity('replace receptacle ..... $145')).toBeNull();
