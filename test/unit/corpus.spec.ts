@@ -46,11 +46,13 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // Reset 2026-12-05 when batch O (1501-1566) joined after its untuned score was recorded and sealed P
 // took its place: precision 86.96 %, recall 84.38 %, F1 85.65 %, quantity 92.46 % (4428/4789), rounded
 // down; the corpus changed, not the parser.
+// Raised after the twelfth round's rules for O to the exact figures rounded down: precision 87.23 %,
+// recall 84.68 %, F1 85.94 %, quantity 92.61 % (4451/4806).
 // Raise them as the parser gets better; never lower them for the same corpus.
-const MIN_PRECISION = 0.8696;
-const MIN_RECALL = 0.8438;
-const MIN_F1 = 0.8565;
-const MIN_QUANTITY = 0.9246;
+const MIN_PRECISION = 0.8723;
+const MIN_RECALL = 0.8468;
+const MIN_F1 = 0.8594;
+const MIN_QUANTITY = 0.9261;
 
 describe('report parser corpus', () => {
   let run: BatchRun;

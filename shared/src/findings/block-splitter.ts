@@ -137,7 +137,7 @@ export function splitBlocks(joined: string): Block[] {
   const rowCounts: RowCount[] = [];
   const lines = withoutQuoteMarks(splitLines(joined));
   const shortLine = shortLineFor(lines);
-  for (const line of lines) {
+  for (const [index, line] of lines.entries()) {
     const content = line.text.trim();
     const cells = content.length > 0 ? tableCells(line) : null;
     const isNoise = content.length > 0 && NOISE_LINE.test(content);
@@ -159,7 +159,7 @@ export function splitBlocks(joined: string): Block[] {
       continue;
     }
     if (isNoise) continue;
-    const headingLine = classifyHeadingLine(content);
+    const headingLine = wrapsIntoNextLine(content, lines[index + 1]) ? null : classifyHeadingLine(content);
     if (headingLine) {
       close();
       if (headingLine.type === 'heading') {
@@ -248,6 +248,16 @@ function withoutQuoteMarks(lines: Line[]): Line[] {
     const mark = QUOTE_MARK.exec(l.text);
     return mark === null ? l : { start: l.start + mark[0].length, end: l.end, text: l.text.slice(mark[0].length) };
   });
+}
+
+/**
+ * Twelfth round: "- The receptacle on the equipment" / "pad post is not GFCI protected": a line that
+ * opens like a sentence (an article or a count, then a lower-case word) and goes on in lower case on
+ * the next line is wrapped prose, not a heading, even when every word of it is a heading word.
+ */
+const SENTENCE_OPENING = /^(?:[-•*]\s+)?(?:The|A|An|This|That|One|Two|Three|Some|All|Both)\s+\p{Ll}/u;
+function wrapsIntoNextLine(content: string, next: Line | undefined): boolean {
+  return next !== undefined && SENTENCE_OPENING.test(content) && /^\p{Ll}/u.test(next.text.trim());
 }
 
 function joinLine(builder: MappedTextBuilder, prev: Line, next: Line, shortLine: number): void {

@@ -175,10 +175,11 @@ export const CODE_RULES: readonly CodeRule[] = [
     // A receptacle that does not trip because no GFCI protects it is unprotected, not a failed GFCI.
     yieldsInSentenceTo: ['gfci-missing'],
     patterns: [
-      { re: rx`${T.GFCI}\s+${anyGap(7)}${T.FAILED}\s+(?:properly\s+)?(?:trip|reset|respond|function|operate|work)` },
+      { re: rx`${T.GFCI}\s+${anyGap(7)}${T.FAILED}\s+(?:properly\s+|(?:stay|remain|hold)\s+(?=reset))?(?:trip|reset|respond|function|operate|work)` },
       { re: rx`${T.GFCI}(?:\s+${T.RCPT})?\s+${gap(8)}${T.BE}(?:${T.INOPERATIVE}|worn(?: out)?|at end of life|end[- ]of[- ]life|not (?:tripping|resetting))` },
       { re: rx`(?:${T.INOPERATIVE}|failed|worn|damaged)\s+${T.GFCI}(?:\s+${T.RCPT})?` },
-      { re: rx`${T.FAILED}\s+(?:trip|reset)\b(?!\s+(?:the|a)?\s*breaker)` },
+      // Twelfth round: "will not stay reset", "won't hold reset": it trips again at once (common practice: a worn GFCI).
+      { re: rx`${T.FAILED}\s+(?:(?:stay|remain|hold)\s+(?=reset))?(?:trip|reset)\b(?!\s+(?:the|a)?\s*breaker)` },
       { re: rx`${T.GFCI}(?:\s+${T.RCPT})?\s+${anyGap(6)}(?:-\s*)?(?:no|not|never)\s+(?:trip(?:ping|ped)?|reset(?:ting)?)\b` },
       { re: rx`(?:no|not|never)\s+(?:trip(?:ping|ped)?|reset(?:ting)?)\s+(?:with|when|on|using|at)\s+(?:the\s+)?(?:test(?:er)?|button|btn)` },
     ],

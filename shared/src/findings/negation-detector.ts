@@ -111,6 +111,9 @@ export function negatedSpans(text: string, spans: readonly Range[], clauses: rea
     // the phrase ("not rated", "not labeled") denies that verb, not the phrase.
     if (/^(?:not|never)$/i.test(text.slice(cue.start, cue.end)) && OWN_VERB.test(text.slice(cue.end, spans[first].start))) continue;
     if (NEW_SUBJECT_AFTER_COMMA.test(text.slice(cue.end, spans[first].start))) continue;
+    // Twelfth round: "Kitchen island   NO   2 receptacles, no GFCI protection": a capital "NO" in a
+    // sentence in lower case is a column's answer, and says nothing of a phrase that states the lack itself.
+    if (text.slice(cue.start, cue.end) === 'NO' && /^(?:no|not|without|missing)\b/i.test(text.slice(spans[first].start)) && /\p{Ll}/u.test(text)) continue;
     // "not one is labeled, no directory at all": "not one" counts none of them; it denies nothing after it.
     if (/^not$/i.test(text.slice(cue.start, cue.end)) && /^\s+(?:one|a single)\b/i.test(text.slice(cue.end))) continue;
     negated[first] = true;

@@ -27,6 +27,10 @@ const SPREAD_NOUN = /^(?:levels?|floors?|stor(?:y|ies)|rooms?|bedrooms?|areas?|l
 const PLURAL_COUNTABLE = /^(?:receptacles|outlets|devices|breakers|fuses|lights|fixtures|switches|boxes|covers|plates|alarms|detectors|fans|cords|splices)$/i;
 /** A singular device noun ("switch", "receptacle"): "the left switch of the two" is one. */
 const SINGULAR_DEVICE = /^(?:receptacle|outlet|rcpt|recept|switch|dimmer|light|fixture|fan|breaker|fuse|box|cover|plate|alarm|detector|gfci|device)$/i;
+/** "Of the five receptacles, three are ...": the whole first, then the part the defect is in. */
+const PART_OF_WHOLE = /^\s*of\s+(?:the|these|those|its|their)\s+(\w+)\s+(?:[\w-]+\s+){0,3}?[\w-]+,\s*(\w+)\s+(?:are|were|have|had|show|showed|read|tested)\b/i;
+/** What makes the digits after it a page, a price or the minutes of a time (see readCount). */
+const NOT_A_COUNT_BEFORE = /(?:(?<![\w.])(?:p|pg|pp)\.\s?|\$\s?|\d:)$/i;
 /** Vague words that quantify only a noun that follows ("all receptacles"), not a manner ("at all speeds"). */
 const VAGUE_BEFORE_NOUN_ONLY = new Set(['all', 'every']);
 /** A word, a bracketed count ("(3)", "(x2)") or a punctuation mark. */
@@ -134,6 +138,12 @@ export function readCount(text: string, articleLimit = Infinity, countable: RegE
   // "an open ground on all four": a number after "all" that ends the clause counts the devices left unsaid.
   const allOf = ALL_N.exec(text);
   if (allOf) return NUMBER_WORDS[allOf[1].toLowerCase()] ?? Number(allOf[1]);
+  // Twelfth round: "Of the five countertop receptacles, three are loose": the part, not the whole.
+  const part = PART_OF_WHOLE.exec(text);
+  if (part) {
+    const [whole, some] = [countOf(part[1].toLowerCase()), countOf(part[2].toLowerCase())];
+    if (whole !== null && some !== null && some > 0 && some < whole) return some;
+  }
   const tokens = tokenize(text);
   for (let i = 0; i < tokens.length; i++) {
     const { word } = tokens[i];
@@ -169,6 +179,10 @@ export function readCount(text: string, articleLimit = Infinity, countable: RegE
     if (i > 0 && /^(?:throughout|across)$/.test(tokens[i - 1].word)) continue;
     // "ELEC 4.5 - Master bath", "item 7.6": the digits after a dot are part of a section number.
     if (first >= 48 && first <= 57 && /\d\.$/.test(text.slice(Math.max(0, tokens[i].index - 2), tokens[i].index))) continue;
+    // Twelfth round: a page ("p.32", "pg. 14"), a price ("$135.00", "$ 85") and a time of day
+    // ("9:21 AM") are no counts.
+    if (first >= 48 && first <= 57 && NOT_A_COUNT_BEFORE.test(text.slice(Math.max(0, tokens[i].index - 5), tokens[i].index))) continue;
+    if (first >= 48 && first <= 57 && /^:\d\d\b/.test(text.slice(tokens[i].index + word.length, tokens[i].index + word.length + 4))) continue;
     // "100 ELEC KITCHEN NO GFCI", "7 Unit A sunroom - ceiling fan": a number that opens a row before a
     // capitalised label is the row's item number unless the counted thing follows it at once
     // ("2 GFCI receptacles", "3 open grounds", "Two of the receptacles" are counts).

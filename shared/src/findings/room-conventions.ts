@@ -71,10 +71,16 @@ function clauseOf(text: string, clauses: readonly Range[], at: number): string {
   return text.slice(c.start, c.end);
 }
 
+/**
+ * Twelfth round: a panel named only as where the inspector was going ("While walking to the panel I
+ * found the grounding electrode conductor loose next to the rod") is no place of the defect.
+ */
+const ON_THE_WAY_TO = /\b(?:walking|walked|heading|headed|going|went|on (?:my|our|the) way)\s+(?:back\s+)?(?:to|toward|towards)\s+(?:the\s+)?(?:main\s+)?(?:sub-?\s?)?pan+el\b/gi;
+
 /** The room a grounding or bonding defect goes to under the conventions, or null to keep the placement's. */
 export function groundingRoom(sentence: string, clause: string, room: Room): Room | null {
   if (room === 'exterior') return null;
-  if (AT_ROD.test(clause) && !ROD_MISSING.test(clause) && !AT_PANEL.test(sentence)) return 'exterior';
+  if (AT_ROD.test(clause) && !ROD_MISSING.test(clause) && !AT_PANEL.test(sentence.replace(ON_THE_WAY_TO, ''))) return 'exterior';
   if (room !== 'panel' && SEPARATE_BUILDING.test(sentence)) return 'panel';
   return null;
 }

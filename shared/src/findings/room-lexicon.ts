@@ -8,18 +8,18 @@ import type { Room } from './room';
  */
 const ROOM_WORDS: ReadonlyArray<readonly [Room, string]> = [
   ['bathroom', String.raw`ba[ñn]os?\b|(?:(?:hall|guest|primary|master|main|upstairs|downstairs|half|full|kids'?|jack and jill|second|upper|lower)\s+)?bath(?:room)?s?\b|powder rooms?|en-?suites?|lavatory|restrooms?|(?:tub|shower)(?:\s+(?:area|enclosure|stall))?\b|vanity`],
-  ['kitchen', String.raw`cocinas?\b|kitchens?|kitchenette|kit\b\.?|kitch\b\.?|(?:kitchen\s+)?island|breakfast (?:nook|area|bar)|peninsula|pantry|(?:kitchen\s+)?counter\s*tops?|countertops?|(?:refrigerator|fridge|dishwasher|garbage disposal|disposal|range hood|(?<!\b(?:wood|pellet|coal|wood[- ]burning|heating|parlou?r|franklin)[\s-])stove|cooktop|(?:electric\s+)?range(?=\s+(?:receptacle|outlet|cord|circuit|hood))|(?<=\b(?:the|behind|beside|near)\s)range\b)(?![\w\s,]{0,30}\b(?:garage|basement|laundry|bar|utility|porch|patio)\b)`],
+  ['kitchen', String.raw`cocinas?\b|kitchens?|kitchenette|kit\b\.?|kitch\b\.?|(?:kitchen\s+)?island|breakfast (?:nook|area|bar)|peninsula|pantry|(?:kitchen\s+)?counter\s*tops?|countertops?|(?:(?<!\b(?:garage|basement|bar|laundry|utility|porch|patio|outdoor|outside|shop|workshop|deck)\s)(?:refrigerator|fridge)|dishwasher|garbage disposal|disposal|range hood|(?<!\b(?:wood|pellet|coal|wood[- ]burning|heating|parlou?r|franklin)[\s-])stove|cooktop|(?:electric\s+)?range(?=\s+(?:receptacle|outlet|cord|circuit|hood))|(?<=\b(?:the|behind|beside|near)\s)range\b)(?![\w\s,]{0,30}\b(?:garage|basement|laundry|bar|utility|porch|patio)\b)`],
   ['garage', String.raw`garaje\b|cochera\b|garages?|carports?|gar\b\.?|(?:work\s?)?shops?\b(?![- ](?:lights?|vacs?|fixtures?|lamps?))|shop (?:building|bldg)`],
-  ['exterior', String.raw`(?:bank\s+|pole\s+|horse\s+|hay\s+|dairy\s+)?barns?\b|(?:machine|storage|garden|tool|equipment|pump|wood|potting)\s+sheds?\b|(?<!\b(?:to|they|it|that|which|will|can|actually)\s)sheds?\b(?!\s+(?:water|light|heat|rain|snow))|outbuildings?\b|pole buildings?\b|stables?\b|chicken coops?\b|exterior(?!\s+walls?\b)|out\s+(?:back|front)\b|outside(?!\s+(?:walls?|corner|of|the|a|an|its|their|this|that|each|every|all|any|bedrooms?|sleeping|junction|boxes?|enclosures?|panels?)\b)|outdoors?|patio|decks?\b|porch(?:es)?|balcon(?:y|ies)|yard|pool|spa\b|hot tub|siding|stucco|eaves|soffits?|(?:service\s+|meter\s+)?pedestal(?!\s+(?:sinks?|lavatory|basins?|fans?))|docks?\b|boat\s?(?:lifts?|houses?|slips?)\b|seawalls?\b|well\s?(?:heads?|caps?|houses?)\b|courtyards?|lanais?|verandas?|terraces?|gazebos?|breezeways?|(?:pool\s+|pump\s+)?equipment pads?|(?:front|rear|side|back) (?:wall|elevation)|ext\b\.?`],
+  ['exterior', String.raw`(?:bank\s+|pole\s+|horse\s+|hay\s+|dairy\s+)?barns?\b|(?:machine|storage|garden|tool|equipment|pump|wood|potting)\s+sheds?\b|(?<!\b(?:to|they|it|that|which|will|can|actually)\s)sheds?\b(?!\s+(?:water|light|heat|rain|snow))|outbuildings?\b|pole buildings?\b|stables?\b|chicken coops?\b|exterior(?!\s+walls?\b)|out\s+(?:back|front)\b|outside(?!\s+(?:walls?|corner|of|the|a|an|its|their|this|that|each|every|all|any|bedrooms?|sleeping|junction|boxes?|enclosures?|panels?)\b)|outdoors?|patio|decks?\b|porch(?:es)?|balcon(?:y|ies)|yard|pool|spa\b|hot tub|siding|stucco|eaves|soffits?|(?:service\s+|meter\s+)?pedestal(?!\s+(?:sinks?|lavatory|basins?|fans?))|docks?\b|boat\s?(?:lifts?|houses?|slips?)\b|seawalls?\b|well\s?(?:heads?|caps?|houses?)\b|courtyards?|lanais?|verandas?|terraces?|gazebos?|breezeways?|(?:pool\s+|pump\s+)?equipment pads?|(?:front|rear|side|back) (?:wall|elevation)|ext\b\.?|(?:coach|carriage)\s+(?:lights?|lamps?|lanterns?)`],
   ['basement', String.raw`s[oó]tanos?\b|basements?|cellar|bsmt\b\.?|bsmnt\b\.?|lower (?:level|lvl\b\.?)`],
   ['crawl-space', String.raw`crawl\s?spaces?|crawl\s?ways?\b|crawl\b|(?:under|beneath) the (?:home|house|floor system|mobile home|manufactured home)|underfloor|under-floor|sub-?areas?\b|on the dirt\b`],
   ['laundry', String.raw`lavander[ií]a\b|laundry(?:\s+(?:room|area|closet))?|washer|dryer|utility room|mud ?room`],
-  ['bedroom', String.raw`rec[aá]maras?\b|dormitorios?\b|habitaci[oó]n(?:es)?\b|(?:(?:primary|master|guest|front|rear|back|north|south|east|west|upstairs|downstairs|kids'?|second|third|small|large)\s+)?(?:bed\s?rooms?|bed\s?\d\b|bedrms?\b|bdrms?\b\.?|brs?\s?\d*\b|nursery)|(?:prim|pri|mstr|mbr)\.?\s+br\b|mbr\b|primary suite|master suite|guest room|(?:rented|rental|let|tenant'?s?|lodging|boarders?'?)\s+rooms?\b|rooms?\s+#?\d{1,2}\b(?![-\d])|rms?\.?\s*#?\d{1,2}\b(?![-\d])|sleeping\s+lofts?\b|lofts?\s*\(sleeping\)`],
+  ['bedroom', String.raw`rec[aá]maras?\b|dormitorios?\b|habitaci[oó]n(?:es)?\b|(?:(?:primary|master|guest|front|rear|back|north|south|east|west|upstairs|downstairs|kids'?|second|third|small|large)\s+)?(?:bed\s?rooms?|bed\s?\d\b|bedrms?\b|bdrms?\b\.?|brs?\s?\d*\b|nursery)|(?:prim|pri|mstr|mbr)\.?\s+br\b|mbr\b|primary suite|master suite|(?:primary|master|mbr)\s+(?:walk-?in\s+)?closets?|walk-?in\s+closets?|guest room|(?:rented|rental|let|tenant'?s?|lodging|boarders?'?)\s+rooms?\b|rooms?\s+#?\d{1,2}\b(?![-\d])|rms?\.?\s*#?\d{1,2}\b(?![-\d])|sleeping\s+lofts?\b|lofts?\s*\(sleeping\)`],
   ['living-area', String.raw`sala\b|living(?: (?:room|area)s?)?\b|liv\.?\s?rm\b|lr\b(?=\s*:)|family rooms?|great rooms?|den\b|sun\s?rooms?|florida rooms?|sun porch(?:es)?|three[- ]season rooms?|rec(?:reation)? rooms?|bonus rooms?|parlou?r|library|front room|lr\b|fireplace|media room`],
   ['hallway', String.raw`pasillos?\b|hall(?:way)?s?\b|corridors?|stair(?:way|well|case)?s?\b|landing|foyer|(?<!\b(?:water|service|cable|line|pipe|meter|conduit|wire|point of)\s+)entry(?:way)?(?!\s+(?:doors?|points?))|front entry(?!\s+doors?)`],
   ['attic', String.raw`[aá]ticos?\b|attics?\b`],
   ['panel', String.raw`(?:main\s+|electrical\s+|service\s+|distribution\s+)?(?:sub-?\s?panel|panel\s*board|panel|pnl)s?\b|load cent(?:er|re)|breaker box|fuse box`],
-  ['dining', String.raw`comedor\b|dining(?:\s+(?:room|area))?|dinette`],
+  ['dining', String.raw`comedor\b|dining(?:\s+(?:room|area))?|dinette|dr\b(?![.'’])`],
   ['office', String.raw`(?:home\s+)?office|study\b`],
   ['whole-house', String.raw`throughout(?: the (?:home|house|dwelling|unit))?(?!\s+(?:the|this|that|each|every|all|both)\b)|anywhere in the (?:home|house|dwelling|unit)|(?:in|on) (?:each|every|all|any) (?:levels?|floors?|stor(?:y|ies))(?: of the (?:home|house|dwelling))?|whole[- ]house|entire (?:home|house|dwelling|electrical system|system)|all rooms|every room|(?<=\b(?:none|nothing|no\s+[\w/-]+(?:\s+[\w/-]+)?|present|found|installed|observed|anywhere)\s+)in (?:the )?(?:house|home|unit|dwelling)\b`],
 ];
@@ -69,9 +69,9 @@ const VANTAGE_BEFORE = /(?:^\s*|[.;]\s+)from\s+(?:the\s+)?$|\b(?:viewed|seen|obs
 const SERVED_BEFORE = /\b(?:feeding|feeds|serving|serves|supplying|supplies|powering|powers|(?:running|runs|routed|heading|headed|extending)\s+(?:up\s+|down\s+|over\s+)?(?:toward|towards|to|into))\s+(?:the\s+)?$/i;
 /** A device noun after the room: "serving the kitchen receptacles" names the devices' place. */
 const DEVICE_AFTER = /^\s*(?:[\w-]+\s+)?(?:receptacles?|outlets?|rcpts?|lights?|fixtures?|counters?|countertops?|switch(?:es)?|fans?|gfcis?|alarms?|smoke)\b/i;
-const REFERENCE_BEFORE = /(?:beneath|below|under|underneath|above|over|outside(?:\s+of)?|open to|(?<!\b(?:turned|shut|switched|cut|is|are|was|were)\s)off(?:\s+of)?|(?:shared|common)\s+(?:with|to))\s+(?:the\s+)?$/i;
+const REFERENCE_BEFORE = /(?:facing|beneath|below|under|underneath|above|over|outside(?:\s+of)?|open to|(?<!\b(?:turned|shut|switched|cut|is|are|was|were)\s)off(?:\s+of)?|(?:shared|common)\s+(?:with|to))\s+(?:the\s+)?$/i;
 /** "at the bedroom end of the hall": the room names an end of the place that follows. */
-const ACCESS_BEFORE = /\b(?:reached|accessed|entered|access(?:ible)?)\s+(?:by|from|through|via)\s+(?:the\s+|an?\s+)?(?:[\w-]+\s+){0,4}?(?:(?:in|from|off|at)\s+(?:the\s+)?)?$/i;
+const ACCESS_BEFORE = /\b(?:reached|accessed|entered|access(?:ible)?)\s+(?:by|from|through|via)\s+(?:the\s+|an?\s+)?(?:[\w-]+\s+){0,4}?(?:(?:in|from|off|at)\s+(?:the\s+)?)?$|\b(?:access|hatch|scuttle|pull-?down(?:\s+stairs?)?)\s+(?:(?:is|was|located)\s+)?(?:in|inside)\s+(?:the\s+)?$/i;
 const BELOW_AFTER = /^\s+(?:ceilings?\s+|(?:recessed\s+|can\s+)?(?:can\s+)?lights?\s+)?below\b/i;
 const END_OF_AFTER = /^\s+(?:end|side)\s+of\s+(?:the\s+)?/i;
 /** "by the kitchen pass-through", "near the dining room archway": a room's opening as a landmark of another room. */
@@ -104,7 +104,15 @@ export function findRooms(text: string): RoomMention[] {
       BELOW_AFTER.test(after) ||
       // "The attic is reached by pull-down stairs in the hallway": where a space is entered from.
       ACCESS_BEFORE.test(text.slice(Math.max(0, start - 50), start));
+    // "DR chandelier dead": the dining room's abbreviation only in capitals ("Dr." and "Oak Dr" are no room).
+    if (m[0].length === 2 && m[0] !== 'DR' && /^dr$/i.test(m[0])) continue;
     found.push({ room: ROOM_WORDS[i][0], start, end, text: m[0], isReferencePoint });
+  }
+  // Twelfth round: "joist bays under LR + DR", "beneath the kitchen and dining room": places listed
+  // right after a reference point are reference points too.
+  for (let i = 1; i < found.length; i++) {
+    const [a, b] = [found[i - 1], found[i]];
+    if (a.isReferencePoint && a.room !== 'panel' && b.room !== 'panel' && /^\s*(?:,|and|&|\+|\/)\s*(?:the\s+)?$/i.test(text.slice(a.end, b.start))) found[i] = { ...b, isReferencePoint: true };
   }
   // A level or outbuilding named before a room is where that room is ("basement bedroom", "garage
   // apartment kitchen"): the room itself is the place.
@@ -139,6 +147,11 @@ export function findRooms(text: string): RoomMention[] {
     if (/shop/i.test(b.text) && a.room !== 'panel' && /^[\s-]*$/.test(text.slice(a.end, b.start))) found[i] = { ...b, isReferencePoint: true };
   }
   markPositiveAsides(text, found);
+  // Twelfth round: "Foyer: the left coach light is out": a coach or carriage light hangs outside the
+  // door of the entry or hall named with it (common practice), so that room is only a landmark.
+  if (found.some((r) => COACH_LIGHT.test(r.text))) {
+    for (let i = 0; i < found.length; i++) if (found[i].room === 'hallway') found[i] = { ...found[i], isReferencePoint: true };
+  }
   // An entry named with the outside ("at the front entry, loose from the siding") is the outside entry.
   if (found.some((r) => r.room === 'exterior' && !r.isReferencePoint)) {
     for (let i = 0; i < found.length; i++) if (/\bentry\b/i.test(found[i].text) && found[i].room === 'hallway') found[i] = { ...found[i], room: 'exterior' };
@@ -168,6 +181,7 @@ function markPositiveAsides(text: string, found: RoomMention[]): void {
   }
 }
 
+const COACH_LIGHT = /^(?:coach|carriage)\s/i;
 const OUTBUILDING = /barn|shed|outbuilding|pole building|stable|coop/i;
 const LEVEL_ROOMS: ReadonlySet<Room> = new Set(['basement', 'attic', 'garage', 'hallway']);
 const HABITABLE: ReadonlySet<Room> = new Set(['bedroom', 'bathroom', 'kitchen', 'laundry', 'office', 'living-area', 'dining']);

@@ -150,7 +150,27 @@ function summaryHeading(title: string, words: readonly string[]): HeadingLine | 
 const LABEL_VERB = /\b(?:is|are|was|were|has|have|had|not|no|missing|loose|damaged|broken|open|inoperative|ok|tested|needs?)\b/i;
 /** A device or defect named in a label: then it is an item, not a place heading. */
 const DEVICE_WORD = /\b(?:receptacles?|outlets?|breakers?|switch(?:es)?|lights?|fans?|covers?|plates?|wiring|gfcis?|afcis?|alarms?|smoke|panels?|box(?:es)?|cords?|cables?|scorched|cracked|double|tapped|aluminum)\b/i;
+/**
+ * Twelfth round: an item line that names only a place and its priority ("E-6  Finished basement (rec
+ * room) - SAFETY", "4. Laundry - REPAIR") heads the lettered items under it, capitals or not.
+ */
+const ITEM_CODE = /^\s*(?:[A-Z]{1,3}-?\d{1,3}|\d{1,2}(?:\.\d{1,2})*)[.):]?\s+/;
+const PRIORITY_TAIL = /\s+[-–—]\s+(?:safety|repair|maintenance|monitor|defect|deficien\w*|recommend(?:ed)?(?:\s+evaluation)?|evaluate|upgrade|information|info|minor|major|urgent)(?:\s*\([^()]*\))?\s*$/i;
+function placeItemLabel(line: string): HeadingLine | null {
+  const code = ITEM_CODE.exec(line);
+  const tail = code ? PRIORITY_TAIL.exec(line) : null;
+  if (!code || !tail) return null;
+  const core = line.slice(code[0].length, tail.index).trim();
+  const bare = core.replace(/\s*\([^()]*\)$/, '');
+  const wordCount = (bare.match(/[A-Za-z&'/-]+/g) ?? []).length;
+  if (wordCount === 0 || wordCount > 3 || LABEL_VERB.test(bare) || DEVICE_WORD.test(bare)) return null;
+  const room = findRooms(bare).find((r) => r.room !== 'panel')?.room ?? null;
+  return room === null ? null : { type: 'heading', heading: { kind: 'room', title: core, room } };
+}
+
 function roomLabel(line: string, title: string, words: readonly string[]): HeadingLine | null {
+  const item = placeItemLabel(line);
+  if (item) return item;
   // A bracketed note ("In attic (looked from hatch + walked planks):") is no part of the label.
   const bare = title.replace(/\s*\([^()]*\)$/, '');
   const labelWords = bare === title ? words.length : (bare.match(/[A-Za-z&'/-]+|\d+/g) ?? []).length;
