@@ -33,6 +33,7 @@ export const BATCHES: ReadonlyArray<{ name: string; from: number; to: number }> 
   { name: 'M 1301-1377', from: 1300, to: 1399 },
   { name: 'N 1401-1466', from: 1400, to: 1499 },
   { name: 'O 1501-1566', from: 1500, to: 1599 },
+  { name: 'P 1601-1666', from: 1600, to: 1699 },
 ];
 
 /** Parses every excerpt as its manifest says and scores it against expected.json. */

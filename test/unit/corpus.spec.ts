@@ -48,11 +48,14 @@ import { formatScoreTable, runCorpus } from '../corpus/corpus-runner';
 // down; the corpus changed, not the parser.
 // Raised after the twelfth round's rules for O to the exact figures rounded down: precision 87.23 %,
 // recall 84.68 %, F1 85.94 %, quantity 92.61 % (4451/4806).
+// Reset 2026-12-05 when batch P (1601-1666) joined after its untuned score was recorded and sealed Q
+// took its place: precision 85.92 %, recall 82.77 %, F1 84.31 %, quantity 91.89 % (4739/5157), rounded
+// down; the corpus changed, not the parser.
 // Raise them as the parser gets better; never lower them for the same corpus.
-const MIN_PRECISION = 0.8723;
-const MIN_RECALL = 0.8468;
-const MIN_F1 = 0.8594;
-const MIN_QUANTITY = 0.9261;
+const MIN_PRECISION = 0.8592;
+const MIN_RECALL = 0.8277;
+const MIN_F1 = 0.8431;
+const MIN_QUANTITY = 0.9189;
 
 describe('report parser corpus', () => {
   let run: BatchRun;
