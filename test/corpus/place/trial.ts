@@ -17,6 +17,8 @@
 //              when the best candidate's score beats the parser's room by more than a margin chosen on
 //              the training batches (out-of-fold scores of an inner leave-one-batch-out);
 //   pair-np    the same with the pairwise model;
+//   pair-m     pair (the parser's choice kept as a feature) with the margin of the -np variants (not run
+//              unless named: it was tried after the others);
 // and each of them with `+more`: the candidates of `findingPlaces(..., { more: true })` (the previous
 // block's last place, a table row's cells and column header, a photo caption's place).
 import { readFileSync } from 'node:fs';
@@ -111,11 +113,19 @@ interface Variant {
   readonly pairwise: boolean;
   /** Without the parser's choice as a feature; then a margin over the parser's room decides. */
   readonly noParser: boolean;
+  /** Overrides the parser's room only past a margin chosen on the training batches (always with noParser). */
+  readonly margin: boolean;
   readonly more: boolean;
 }
 
-const VARIANTS: readonly Variant[] = (['point', 'pair', 'point-np', 'pair-np'] as const).flatMap((base) =>
-  [false, true].map((more) => ({ name: `${base}${more ? '+more' : ''}`, pairwise: base.startsWith('pair'), noParser: base.endsWith('-np'), more })),
+const VARIANTS: readonly Variant[] = (['point', 'pair', 'point-np', 'pair-np', 'pair-m'] as const).flatMap((base) =>
+  [false, true].map((more) => ({
+    name: `${base}${more ? '+more' : ''}`,
+    pairwise: base.startsWith('pair'),
+    noParser: base.endsWith('-np'),
+    margin: base.endsWith('-np') || base.endsWith('-m'),
+    more,
+  })),
 );
 
 const isParserFeature = (k: string) => k === 'parser' || k === 'parserLocation' || k.startsWith('parser:');
@@ -278,6 +288,21 @@ function tally(runs: readonly Run[], roomOf: ((e: Example) => string) | null) {
   return scoreCorpus(files);
 }
 
+const MORE_SOURCES = ['prevBlockLast', 'rowCell', 'columnHeader', 'caption'] as const;
+
+/** Which extra sources brought a wrong room's labelled room into reach (counted per source into `into`). */
+function countNewReach(examples: readonly Example[], into: Map<string, number>): void {
+  for (const e of examples) {
+    if (e.target === null || e.places.isListed || e.places.finding.room === e.target) continue;
+    if (e.places.candidates.some((c) => c.room === e.target)) continue;
+    const t = e.more.candidates.find((c) => c.room === e.target);
+    if (!t) continue;
+    for (const s of MORE_SOURCES) if (t.features[s]) into.set(s, (into.get(s) ?? 0) + 1);
+  }
+}
+
+const sourcesText = (m: ReadonlyMap<string, number>) => MORE_SOURCES.map((s) => `${s} ${m.get(s) ?? 0}`).join(', ');
+
 const pct = (x: number) => (100 * x).toFixed(1);
 const signed = (x: number, d = 1) => `${x >= 0 ? '+' : ''}${x.toFixed(d)}`;
 
@@ -289,7 +314,7 @@ function arg(name: string): string | null {
 async function main(): Promise<void> {
   const t0 = Date.now();
   const arrival = process.argv.includes('--arrival');
-  const wanted = arg('--variants')?.split(',') ?? VARIANTS.map((v) => v.name);
+  const wanted = arg('--variants')?.split(',') ?? VARIANTS.filter((v) => !v.name.startsWith('pair-m')).map((v) => v.name);
   const variants = wanted.map((n) => {
     const v = VARIANTS.find((x) => x.name === n);
     if (!v) throw new Error(`unknown variant ${n} (${VARIANTS.map((x) => x.name).join(', ')})`);
@@ -311,7 +336,9 @@ async function main(): Promise<void> {
   console.log(
     `parser's room right: ${parserRight.length} (${pct(parserRight.length / labelled.length)} %); labelled room among the candidates: ${labelled.filter((e) => reach(e, false)).length}, with more candidates ${labelled.filter((e) => reach(e, true)).length}; mean candidates ${(labelled.reduce((a, e) => a + e.places.candidates.length, 0) / labelled.length).toFixed(1)} / ${(labelled.reduce((a, e) => a + e.more.candidates.length, 0) / labelled.length).toFixed(1)}`,
   );
-  console.log(`of the ${wrong.length} wrong rooms, the labelled room is a candidate for ${wrong.filter((e) => reach(e, false)).length}, with more candidates ${wrong.filter((e) => reach(e, true)).length}`);
+  const newReach = new Map<string, number>();
+  countNewReach(labelled, newReach);
+  console.log(`of the ${wrong.length} wrong rooms, the labelled room is a candidate for ${wrong.filter((e) => reach(e, false)).length}, with more candidates ${wrong.filter((e) => reach(e, true)).length} (brought in by ${sourcesText(newReach)})`);
 
   const summary = new Map<string, number[]>();
   for (const v of variants) {
@@ -320,13 +347,14 @@ async function main(): Promise<void> {
     console.log('|---|---|---|---|---|---|---|---|---|---|');
     const deltas: number[] = [];
     const totals = { rw: 0, wr: 0, ww: 0, wrong: 0, reach: 0 };
+    const heldNewReach = new Map<string, number>();
     for (let b = 0; b < BATCHES.length; b++) {
       const foldRuns = arrival ? await runsAt(ARRIVAL_PARSER[b] ?? null) : runs;
       const held = foldRuns.filter((r) => r.batch === b);
       if (held.length === 0) continue;
       const trainRuns = foldRuns.filter((r) => r.batch !== b);
       const { model, prior } = trainModel(v, trainRuns.flatMap((r) => r.examples));
-      const margin = v.noParser ? chooseMargin(v, trainRuns) : 0;
+      const margin = v.margin ? chooseMargin(v, trainRuns) : 0;
       const choose = chooser(v, model, prior);
       const pick = (e: Example) => {
         const c = choose(e);
@@ -336,6 +364,7 @@ async function main(): Promise<void> {
       const after = tally(held, pick);
       const oracle = tally(held, (e) => (hasTarget(e, v) ? e.target! : e.places.finding.room));
       const ex = held.flatMap((r) => r.examples).filter((e) => e.target !== null && !e.places.isListed);
+      if (v.more) countNewReach(ex, heldNewReach);
       const moves = { rw: 0, wr: 0, ww: 0 };
       for (const e of ex) {
         const p = pick(e);
@@ -354,14 +383,14 @@ async function main(): Promise<void> {
       const d = 100 * (after.f1 - before.f1);
       deltas.push(d);
       console.log(
-        `| ${BATCHES[b].name}${arrival ? ` (${ARRIVAL_PARSER[b] ?? "today's"})` : ''} | ${ex.length} (${wrongHere.length} / ${reachHere}) | ${v.noParser ? margin.toFixed(2) : '-'} | ${pct(before.precision)} / ${pct(before.recall)} / ${pct(before.f1)} | ${pct(before.quantityAccuracy)} | ${pct(after.precision)} / ${pct(after.recall)} / ${pct(after.f1)} | ${pct(after.quantityAccuracy)} | ${moves.rw} / ${moves.wr} / ${moves.ww} | ${signed(d)} | ${signed(100 * (oracle.f1 - before.f1))} |`,
+        `| ${BATCHES[b].name}${arrival ? ` (${ARRIVAL_PARSER[b] ?? "today's"})` : ''} | ${ex.length} (${wrongHere.length} / ${reachHere}) | ${v.margin ? margin.toFixed(2) : '-'} | ${pct(before.precision)} / ${pct(before.recall)} / ${pct(before.f1)} | ${pct(before.quantityAccuracy)} | ${pct(after.precision)} / ${pct(after.recall)} / ${pct(after.f1)} | ${pct(after.quantityAccuracy)} | ${moves.rw} / ${moves.wr} / ${moves.ww} | ${signed(d)} | ${signed(100 * (oracle.f1 - before.f1))} |`,
       );
     }
     const mean = deltas.reduce((a, b) => a + b, 0) / deltas.length;
     const sd = Math.sqrt(deltas.reduce((a, b) => a + (b - mean) ** 2, 0) / (deltas.length - 1));
     summary.set(v.name, deltas);
     console.log(
-      `${v.name}: ΔF1 mean ${signed(mean, 2)}, sd ${sd.toFixed(2)}, min ${signed(Math.min(...deltas))}, max ${signed(Math.max(...deltas))}; rooms changed right→wrong ${totals.rw}, wrong→right ${totals.wr}, wrong→wrong ${totals.ww}; wrong rooms ${totals.wrong}, labelled room a candidate ${totals.reach}`,
+      `${v.name}: ΔF1 mean ${signed(mean, 2)}, sd ${sd.toFixed(2)}, min ${signed(Math.min(...deltas))}, max ${signed(Math.max(...deltas))}; rooms changed right→wrong ${totals.rw}, wrong→right ${totals.wr}, wrong→wrong ${totals.ww}; wrong rooms ${totals.wrong}, labelled room a candidate ${totals.reach}${v.more ? ` (brought in by the extra sources: ${sourcesText(heldNewReach)})` : ''}`,
     );
     if (process.argv.includes('--weights')) {
       const { model } = trainModel(v, all);
