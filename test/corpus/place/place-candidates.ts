@@ -5,6 +5,7 @@
 // it, whether it is a reference point or in a remedy sentence, how often the code is in that room).
 import type { Finding } from '@cc/shared';
 import { splitBlocks } from '../../../shared/src/findings/block-splitter';
+import { isCaption } from '../../../shared/src/findings/caption-repeats';
 import { sourceRange } from '../../../shared/src/findings/mapped-text';
 import { CODE_RULES } from '../../../shared/src/findings/code-patterns';
 import { findRooms } from '../../../shared/src/findings/room-lexicon';
@@ -56,13 +57,98 @@ function add(into: Map<Room, Features>, room: Room, features: Features): void {
   into.set(room, f);
 }
 
+/** A table row's cells by source offsets (pipes, tabs or runs of 3+ spaces; at least 3 cells), or null. */
+function rowCells(joined: string, line: { start: number; end: number }): Array<{ start: number; end: number }> | null {
+  const text = joined.slice(line.start, line.end);
+  const sep = text.includes('|') ? /\|/g : text.includes('\t') ? /\t/g : /\S {3,}\S/.test(text) ? / {3,}/g : null;
+  if (!sep) return null;
+  const cells: Array<{ start: number; end: number }> = [];
+  let from = 0;
+  for (const m of text.matchAll(sep)) {
+    cells.push({ start: line.start + from, end: line.start + m.index! });
+    from = m.index! + m[0].length;
+  }
+  cells.push({ start: line.start + from, end: line.end });
+  const filled = cells.filter((c) => joined.slice(c.start, c.end).trim() !== '').length;
+  return cells.length >= 3 && filled >= 2 ? cells : null;
+}
+
+const RULE_LINE = /^[\s|+:=-]*$/;
+const LOCATION_HEADING = /\b(?:location|room|area|where|place)\b/i;
+
+/** The more candidate sources of the second trial: the previous block's last place, a table row's cells and its column header, a photo caption's place. */
+function moreCandidates(
+  joined: string,
+  finding: Finding,
+  blocks: ReadonlyArray<{ start: number; end: number; section: { title: string | null } }>,
+  blockIndex: number,
+  line: { start: number; end: number },
+  places: Map<Room, Features>,
+): void {
+  // The previous block's last place (not a reference point).
+  const prev = blockIndex > 0 ? blocks[blockIndex - 1] : null;
+  if (prev) {
+    const live = findRooms(joined.slice(prev.start, prev.end)).filter((m) => !m.isReferencePoint);
+    const last = live[live.length - 1];
+    if (last) add(places, last.room, { prevBlockLast: 1, prevBlockSameSection: prev.section.title === blocks[blockIndex].section.title ? 1 : 0 });
+  }
+  // A table row: the other cells, with their column's header when the header names a location, and the
+  // header over the finding's own cell.
+  const cells = rowCells(joined, line);
+  if (cells) {
+    const own = cells.findIndex((c) => c.start <= finding.start && finding.start <= c.end);
+    // The header: the first table row of the run of rows (and rule lines) the finding's row is in.
+    let header: Array<{ start: number; end: number }> | null = null;
+    let at = line.start;
+    for (let k = 0; k < 60 && at > 0; k++) {
+      const above = lineAround(joined, at - 1);
+      const text = joined.slice(above.start, above.end);
+      if (RULE_LINE.test(text)) {
+        if (text.trim() === '') break;
+      } else {
+        const c = rowCells(joined, above);
+        if (!c || c.length !== cells.length) break;
+        header = c;
+      }
+      at = above.start;
+    }
+    cells.forEach((c, k) => {
+      if (k === own) return;
+      const headText = header ? joined.slice(header[k].start, header[k].end) : '';
+      for (const m of findRooms(joined.slice(c.start, c.end))) {
+        if (m.isReferencePoint) continue;
+        add(places, m.room, { rowCell: 1, rowLocationCell: LOCATION_HEADING.test(headText) ? 1 : 0 });
+      }
+    });
+    if (header && own !== -1) {
+      for (const m of findRooms(joined.slice(header[own].start, header[own].end))) if (!m.isReferencePoint) add(places, m.room, { columnHeader: 1 });
+    }
+  }
+  // A photo caption within three lines after the finding's line (or the line itself when it is one).
+  let at = line.start;
+  for (let k = 0; k < 4 && at < joined.length; k++) {
+    const l = lineAround(joined, at);
+    if (isCaption(joined, { start: l.start, end: l.end })) {
+      for (const m of findRooms(joined.slice(l.start, l.end))) if (!m.isReferencePoint) add(places, m.room, { caption: 1, captionNear: 1 / (1 + k) });
+    }
+    at = l.end + 1;
+  }
+}
+
+export interface PlaceOptions {
+  /** The second trial's extra candidate sources (`moreCandidates`). */
+  readonly more?: boolean;
+}
+
 /** Every finding of one report with its candidate places. */
-export function findingPlaces(joined: string, findings: readonly Finding[]): FindingPlaces[] {
+export function findingPlaces(joined: string, findings: readonly Finding[], options: PlaceOptions = {}): FindingPlaces[] {
   const blocks = splitBlocks(joined).map((b) => ({ ...sourceRange(b.text), section: b.section }));
   const sameSentence = new Map<string, number>();
   for (const f of findings) sameSentence.set(`${f.start}:${f.code}`, (sameSentence.get(`${f.start}:${f.code}`) ?? 0) + 1);
   return findings.map((finding) => {
-    const block = blocks.find((b) => b.start <= finding.start && finding.start < b.end) ?? [...blocks].reverse().find((b) => b.start <= finding.start) ?? null;
+    let blockIndex = blocks.findIndex((b) => b.start <= finding.start && finding.start < b.end);
+    if (blockIndex === -1) blockIndex = blocks.map((b) => b.start <= finding.start).lastIndexOf(true);
+    const block = blockIndex === -1 ? null : blocks[blockIndex];
     const places = new Map<Room, Features>();
     const line = lineAround(joined, finding.start);
     const sentenceHasRemedy = REMEDY.test(finding.evidence);
@@ -117,6 +203,7 @@ export function findingPlaces(joined: string, findings: readonly Finding[]): Fin
         for (const m of fromTitle) add(places, m.room, { heading: 1, headingOnly: fromTitle.length === 1 ? 1 : 0 });
       }
       if (block.section.room) add(places, block.section.room, { sectionRoom: 1, [`sectionKind:${block.section.kind}`]: 1 });
+      if (options.more) moreCandidates(joined, finding, blocks, blockIndex, line, places);
     }
     const code = finding.code as string;
     const usual = CODE_DEFAULT.get(code);
