@@ -58,13 +58,13 @@ async function stopIndex(page: Page, street: string): Promise<number> {
 }
 
 /** Fills the cancel dialog: first without a reason (the field says what is missing), then with one. */
-async function cancelInDialog(page: Page, reason: string): Promise<void> {
+async function cancelInDialog(page: Page, reason: string, shot: string): Promise<void> {
   await page.getByTestId('cancel-visit-reason').waitFor();
   await page.getByTestId('cancel-visit-go').click();
   const fieldError = page.getByTestId('cancel-visit-reason-error');
   await fieldError.waitFor();
   expect((await fieldError.textContent())?.trim()).toBe('Say why the visit is cancelled');
-  await expectAccessible(page);
+  await screenshot(page, shot);
   await page.getByTestId('cancel-visit-reason').fill(reason);
   await page.getByTestId('cancel-visit-go').click();
   await page.getByTestId('cancel-visit-reason').waitFor({ state: 'detached' });
@@ -89,7 +89,7 @@ describe('cancelling a booked visit', () => {
     await expectAccessible(page);
     await card.getByTestId('visit-cancel').click();
     const reason = 'The seller cancelled the showing day; booking again next week';
-    await cancelInDialog(page, reason);
+    await cancelInDialog(page, reason, 'cancel-visit-dialog-desktop');
 
     await card.getByTestId('visit-cancellation').waitFor();
     expect(await card.getByTestId('visit-status').textContent()).toBe('Cancelled');
@@ -120,7 +120,7 @@ describe('cancelling a booked visit', () => {
     const index = await stopIndex(page, booked.street);
     expect(index).toBeGreaterThanOrEqual(0);
     await page.getByTestId(`day-plan-cancel-${index}`).click();
-    await cancelInDialog(page, 'Occupant ill');
+    await cancelInDialog(page, 'Occupant ill', 'cancel-visit-dialog-phone');
     await screenshot(page, 'visit-cancelled-day-plan-phone');
     await page.waitForFunction((street) => !Array.from(document.querySelectorAll('[data-testid^="day-plan-stop-"] mat-card-title')).some((t) => t.textContent?.includes(street)), booked.street);
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
