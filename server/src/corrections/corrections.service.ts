@@ -76,8 +76,12 @@ export class CorrectionsService {
         const unproven = input.outcome === 'corrected' ? missingProof(item.code, input.readings) : [];
         if (unproven.length) throw new ValidationError('A test reading is needed', [{ path: 'readings', message: missingProofMessage(unproven) }]);
         const siteVisitId = input.siteVisitId ?? item.siteVisitId;
-        if (siteVisitId !== null && !(await this.visits.find(requestId, siteVisitId, trx))) {
+        const onVisit = siteVisitId === null ? null : await this.visits.find(requestId, siteVisitId, trx);
+        if (siteVisitId !== null && !onVisit) {
           throw new ValidationError('No such site visit', [{ path: 'siteVisitId', message: 'Choose one of the visits of this request' }]);
+        }
+        if (onVisit?.status === 'cancelled') {
+          throw new ValidationError('This visit was cancelled', [{ path: 'siteVisitId', message: 'Choose a visit that took place' }]);
         }
         status = await this.bringUnderWay(requestId, status, actors, user.id, trx);
         const correctionId = await this.corrections.save(requestId, itemId, { ...input, siteVisitId }, user.id, trx);

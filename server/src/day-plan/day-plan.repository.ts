@@ -1,4 +1,4 @@
-import { DEFAULT_DAY_PLAN_SETTINGS, effectiveTimeZone, type SiteVisitStatus, type UsState } from '@cc/shared';
+import { DEFAULT_DAY_PLAN_SETTINGS, effectiveTimeZone, PLANNED_VISIT_STATUSES, type PlannedVisitStatus, type SiteVisitStatus, type UsState } from '@cc/shared';
 import type { Db, Trx } from '../db/knex';
 
 /** The organisation's planning settings as stored (defaults filled in until saved). */
@@ -37,12 +37,17 @@ export interface PlannedVisitRecord extends PropertyRecord {
   electricianId: number;
   arrivalFrom: string;
   arrivalTo: string;
-  status: SiteVisitStatus;
+  status: PlannedVisitStatus;
+  /** Counts the visit's changes (a calendar's SEQUENCE; sent back to cancel it). */
+  version: number;
   itemCount: number;
   /** Labour minutes of its items in the current quote; items without labour (flat rate) counted apart. */
   labourMinutes: number;
   flatItemCount: number;
 }
+
+/** A visit as a calendar shows it: cancelled ones too, marked so (RFC 5545 STATUS:CANCELLED). */
+export type CalendarVisitRecord = Omit<PlannedVisitRecord, 'status'> & { status: SiteVisitStatus };
 
 /** An approved request of the organisation with items that wait for a visit. */
 export interface UnscheduledJobRecord extends PropertyRecord {
@@ -167,8 +172,20 @@ export class DayPlanRepository {
     return this.db('users').where({ organisation_id: organisationId, role: 'contractor' }).orderBy('name').select('id', 'name');
   }
 
-  /** Site visits of the organisation's electricians from `from` to `to` (inclusive), with `electricianId` when given. */
+  /**
+   * Site visits of the organisation's electricians from `from` to `to` (inclusive), with `electricianId`
+   * when given: the planned ones (booked, on site, finished); cancelled ones only for a calendar.
+   */
   async visits(organisationId: number, from: string, to: string, electricianId?: number, trx?: Trx): Promise<PlannedVisitRecord[]> {
+    return (await this.visitRows(organisationId, from, to, electricianId, false, trx)) as PlannedVisitRecord[];
+  }
+
+  /** The same with the cancelled visits, which a calendar keeps as cancelled events so that subscribed calendars drop them. */
+  async calendarVisits(organisationId: number, from: string, to: string, electricianId?: number): Promise<CalendarVisitRecord[]> {
+    return this.visitRows(organisationId, from, to, electricianId, true);
+  }
+
+  private async visitRows(organisationId: number, from: string, to: string, electricianId: number | undefined, withCancelled: boolean, trx?: Trx): Promise<CalendarVisitRecord[]> {
     const rows = await (trx ?? this.db)
       .select(
         'v.id AS visit_id',
@@ -178,6 +195,7 @@ export class DayPlanRepository {
         'v.arrival_from',
         'v.arrival_to',
         'v.status',
+        'v.version',
         'r.id AS request_id',
         'r.street',
         'r.city',
@@ -196,6 +214,7 @@ export class DayPlanRepository {
       .whereBetween('v.visit_date', [from, to])
       .modify((q) => {
         if (electricianId !== undefined) q.where('v.electrician_id', electricianId);
+        if (!withCancelled) q.whereIn('v.status', PLANNED_VISIT_STATUSES);
       })
       .groupBy('v.id', 'r.id')
       .orderBy([{ column: 'v.visit_date' }, { column: 'v.arrival_from' }, { column: 'v.id' }]);
@@ -208,6 +227,7 @@ export class DayPlanRepository {
       arrivalFrom: row.arrival_from as string,
       arrivalTo: row.arrival_to as string,
       status: row.status as SiteVisitStatus,
+      version: row.version as number,
       itemCount: row.item_count as number,
       labourMinutes: row.labour_minutes as number,
       flatItemCount: row.flat_item_count as number,

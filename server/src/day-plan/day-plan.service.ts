@@ -131,6 +131,7 @@ export class DayPlanService {
       arrivalFrom: settings.dayStart,
       arrivalTo: settings.dayEnd,
       status: 'booked',
+      version: 0,
     };
     return buildDayPlan(settings, plan.electrician, plan.date, [...visits, trialVisit]);
   }
@@ -225,7 +226,7 @@ export class DayPlanService {
     const visit = await this.plans.findVisit(organisationId, visitId);
     if (!visit) throw new NotFoundError('No such site visit');
     const electrician = await this.electricianOf(organisationId, visit.electricianId);
-    const record = (await this.plans.visits(organisationId, visit.date, visit.date, visit.electricianId)).find((v) => v.visitId === visitId);
+    const record = (await this.plans.calendarVisits(organisationId, visit.date, visit.date, visit.electricianId)).find((v) => v.visitId === visitId);
     if (!record) throw new NotFoundError('No such site visit');
     return visitsCalendar([record], () => electrician.name, await this.plans.timeZone(organisationId));
   }
@@ -246,7 +247,8 @@ export class DayPlanService {
     if (!owner) throw new NotFoundError('No such calendar');
     const zone = await this.plans.timeZone(owner.organisationId);
     const today = todayIn(zone);
-    const visits = await this.plans.visits(owner.organisationId, addDays(today, -FEED_DAYS_BACK), addDays(today, FEED_DAYS_AHEAD), owner.id);
+    // Cancelled visits stay in the feed as cancelled events: a calendar that had the visit drops it.
+    const visits = await this.plans.calendarVisits(owner.organisationId, addDays(today, -FEED_DAYS_BACK), addDays(today, FEED_DAYS_AHEAD), owner.id);
     return visitsCalendar(visits, () => owner.name, zone, `Site visits · ${owner.name}`);
   }
 }

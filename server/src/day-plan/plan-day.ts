@@ -80,6 +80,7 @@ export function buildDayPlan(settings: StoredDayPlanSettings, electrician: { id:
     visitNumber: visit.visitNumber,
     address: addressOf(visit),
     status: visit.status,
+    visitVersion: visit.version,
     arrivalFrom: visit.arrivalFrom,
     arrivalTo: visit.arrivalTo,
     place,

@@ -57,6 +57,8 @@ export class EconomicsRepository {
       .join('users as u', 'u.id', 'v.electrician_id')
       .where('r.contractor_organisation_id', organisationId)
       .whereBetween('v.visit_date', [from, to])
+      // A cancelled visit neither needs parts nor earns: it is left out of the day's economics.
+      .whereNot('v.status', 'cancelled')
       .select('v.id', 'v.request_id', 'v.number', 'v.status', 'v.started_at', 'v.finished_at', 'v.electrician_id', 'u.name as electrician_name', 'r.street', this.db.raw("to_char(v.visit_date, 'YYYY-MM-DD') as visit_date"))
       .orderBy([{ column: 'v.visit_date' }, { column: 'v.arrival_from' }, { column: 'v.id' }]);
     if (electricianId !== undefined) query.where('v.electrician_id', electricianId);

@@ -66,6 +66,26 @@ describe('the electrician’s own visit messages', () => {
   });
 });
 
+describe('wordsFor a cancelled visit', () => {
+  const window = { requestId: 8, actorUserId: 3, visitNumber: 2, date: '2027-02-10', arrivalFrom: '13:00', arrivalTo: '15:30' } as const;
+
+  it('tells the seller’s side which visit is off, when it was, and why, and links to the visits page', () => {
+    const words = wordsFor({ kind: 'visit-cancelled', ...window, reason: 'The occupant is ill' }, request);
+    expect(words.subject).toBe("CC-00008: electrician's visit on Wednesday, February 10, 2027 cancelled");
+    expect(words.paragraphs[0]).toBe(
+      'The contractor cancelled visit 2 to 87 Tinsmith Way, Marlow Springs, CO 81290, which was booked for Wednesday, February 10, 2027, arriving between 1:00 PM and 3:30 PM, with this reason: “The occupant is ill”',
+    );
+    expect(words.action?.path).toBe('/requests/8/work');
+  });
+
+  it('tells the electrician it is off their day, with the reason, and opens that day', () => {
+    const words = wordsFor({ kind: 'electrician-visit', ...window, electricianUserId: 5, visitId: 40, change: 'cancelled', previous: null, handedTo: null, reason: 'Part back-ordered', changeRef: '1' }, request);
+    expect(words.subject).toBe('CC-00008: visit 2 on Wednesday, February 10, 2027 cancelled');
+    expect(words.paragraphs[0]).toBe('Visit 2 to 87 Tinsmith Way, Marlow Springs, CO 81290 on Wednesday, February 10, 2027, arriving between 1:00 PM and 3:30 PM, is cancelled: “Part back-ordered”.');
+    expect(words.action).toEqual({ label: 'Open your day plan', path: '/day-plan?date=2027-02-10&electricianId=5' });
+  });
+});
+
 describe('wordsFor a change order decided', () => {
   it('names who decided, in what capacity, in the subject (the history’s words) and the message', () => {
     const words = wordsFor({ kind: 'change-order-decided', requestId: 8, actorUserId: 4, changeOrderId: 3, number: 1, priceCents: 3_435, isApproved: true, signedBy: 'Robert Hale, listing agent, for the seller' }, request);

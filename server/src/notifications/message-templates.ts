@@ -204,10 +204,29 @@ export function wordsFor(input: NotifyInput, r: RequestFacts): MessageWords {
         ],
         action: { label: 'See the visit', path: workPage },
       };
+    case 'visit-cancelled':
+      return {
+        subject: `${r.reference}: electrician's visit on ${dayOf(input.date)} cancelled`,
+        paragraphs: [
+          `The contractor cancelled visit ${input.visitNumber} to ${r.address}, which was booked for ${visitWindowText(input)}, with this reason: “${input.reason}”`,
+          'Nobody will come on that day. The contractor books another visit for the items that are still to be done, and you are told its day.',
+        ],
+        action: { label: 'See the visits', path: workPage },
+      };
     case 'electrician-visit': {
       // The electrician's own day: the day plan opens on the visit's day with their stops and route.
       const action = { label: 'Open your day plan', path: `/day-plan?date=${input.date}&electricianId=${input.electricianUserId}` };
       const details = 'The items, the access notes and the route of the day are on your day plan; your calendar feed shows the change too.';
+      if (input.change === 'cancelled') {
+        return {
+          subject: `${r.reference}: visit ${input.visitNumber} on ${dayOf(input.date)} cancelled`,
+          paragraphs: [
+            `Visit ${input.visitNumber} to ${r.address} on ${visitWindowText(input)}, is cancelled${input.reason ? `: “${input.reason}”` : ''}.`,
+            'It is off your day plan, and your calendar feed marks it cancelled. Nothing more is needed from you for this visit.',
+          ],
+          action,
+        };
+      }
       if (input.change === 'removed') {
         return {
           subject: `${r.reference}: visit ${input.visitNumber} on ${dayOf(input.date)} taken off your day`,

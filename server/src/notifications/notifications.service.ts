@@ -55,6 +55,7 @@ const ACTIVITY_OF: Record<NotificationKind, ActivityKind | null> = {
   'change-order-decided': 'approvals',
   'refund-settled': 'payments',
   'visit-scheduled': 'visits',
+  'visit-cancelled': 'visits',
   // The seller side's visit entry already tells the booking or the move; the electrician's own message adds none.
   'electrician-visit': null,
   'item-corrected': 'items',

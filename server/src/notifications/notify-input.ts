@@ -23,6 +23,7 @@ export type NotifyInput =
   | (Base & { kind: 'change-order-decided'; changeOrderId: number; number: number; priceCents: number; isApproved: boolean; /** Who decided, with the capacity ("Robert Hale, listing agent, for the seller"). */ signedBy: string })
   | (Base & { kind: 'refund-settled'; refundId: number; amountCents: number })
   | (Base & { kind: 'visit-scheduled' } & VisitWindow & { visitNumber: number; /** The window before, when the visit was moved. */ previous: VisitWindow | null })
+  | (Base & { kind: 'visit-cancelled' } & VisitWindow & { visitNumber: number; /** Why it was called off, as the contractor wrote it. */ reason: string })
   | (Base & { kind: 'electrician-visit' } & VisitWindow & ElectricianVisitChange)
   | (Base & { kind: 'item-corrected'; itemId: number; correctionId: number; outcome: CorrectionOutcome; itemLabel: string })
   | (Base & { kind: 'letter-issued'; letterNumber: string; revision: number })
@@ -35,12 +36,14 @@ export interface ElectricianVisitChange {
   electricianUserId: number;
   visitId: number;
   visitNumber: number;
-  /** booked for them (new, or handed over from a colleague), moved (their visit, another day or window), removed (handed to a colleague). */
-  change: 'booked' | 'moved' | 'removed';
+  /** booked for them (new, or handed over from a colleague), moved (their visit, another day or window), removed (handed to a colleague), cancelled (called off). */
+  change: 'booked' | 'moved' | 'removed' | 'cancelled';
   /** The window before, when their visit was moved. */
   previous: VisitWindow | null;
   /** The colleague a removed visit went to. */
   handedTo: string | null;
+  /** Why a cancelled visit was called off. */
+  reason?: string | null;
   /** The change's transaction: each change is one message, even when a visit comes back to the same day. */
   changeRef: string;
 }
@@ -90,6 +93,9 @@ export function occurrenceOf(input: NotifyInput): string {
     case 'visit-scheduled':
       // A visit moved to another day or window is a new message.
       return `visit-${input.visitNumber}-${input.date}-${input.arrivalFrom}-${input.arrivalTo}`;
+    case 'visit-cancelled':
+      // A visit is cancelled once.
+      return `visit-${input.visitNumber}-cancelled`;
     case 'electrician-visit':
       return `electrician-visit-${input.visitId}-${input.change}-${input.electricianUserId}-${input.changeRef}`;
     case 'item-corrected':

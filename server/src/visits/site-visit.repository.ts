@@ -16,6 +16,10 @@ export interface SiteVisitRecord {
   status: SiteVisitStatus;
   startedAt: Date | null;
   finishedAt: Date | null;
+  /** Counts the visit's changes (moved, started, finished, cancelled). */
+  version: number;
+  /** Set on a cancelled visit only. */
+  cancellation: { at: Date; byName: string | null; reason: string } | null;
 }
 
 interface Row {
@@ -32,6 +36,10 @@ interface Row {
   status: SiteVisitStatus;
   started_at: Date | null;
   finished_at: Date | null;
+  version: number;
+  cancelled_at: Date | null;
+  cancelled_by_name: string | null;
+  cancel_reason: string | null;
 }
 
 function toSiteVisit(row: Row): SiteVisitRecord {
@@ -49,6 +57,8 @@ function toSiteVisit(row: Row): SiteVisitRecord {
     status: row.status,
     startedAt: row.started_at,
     finishedAt: row.finished_at,
+    version: row.version,
+    cancellation: row.cancelled_at ? { at: row.cancelled_at, byName: row.cancelled_by_name, reason: row.cancel_reason ?? '' } : null,
   };
 }
 
@@ -67,7 +77,10 @@ export class SiteVisitRepository {
   constructor(private readonly db: Db) {}
 
   private select(trx?: Trx) {
-    return (trx ?? this.db)('site_visits as v').join('users as u', 'u.id', 'v.electrician_id').select('v.*', 'u.name as electrician_name');
+    return (trx ?? this.db)('site_visits as v')
+      .join('users as u', 'u.id', 'v.electrician_id')
+      .leftJoin('users as c', 'c.id', 'v.cancelled_by')
+      .select('v.*', 'u.name as electrician_name', 'c.name as cancelled_by_name');
   }
 
   /** The people of a contractor organisation who can be sent on a visit. */
@@ -105,14 +118,14 @@ export class SiteVisitRepository {
 
   /** Gives a visit another date, electrician and arrival window (the day plan moves booked visits). */
   async reschedule(id: number, to: { date: string; electricianId: number; arrivalFrom: string; arrivalTo: string }, trx: Trx): Promise<void> {
-    await trx('site_visits').where({ id }).update({ visit_date: to.date, electrician_id: to.electricianId, arrival_from: to.arrivalFrom, arrival_to: to.arrivalTo, updated_at: new Date() });
+    await trx('site_visits').where({ id }).update({ visit_date: to.date, electrician_id: to.electricianId, arrival_from: to.arrivalFrom, arrival_to: to.arrivalTo, version: trx.raw('version + 1'), updated_at: new Date() });
   }
 
   /** Finishes at `at` every visit of the request still on site (the letter ends the work); their numbers. */
   async finishStarted(requestId: number, at: Date, trx: Trx): Promise<number[]> {
     const rows: { number: number }[] = await trx('site_visits')
       .where({ request_id: requestId, status: 'started' })
-      .update({ status: 'finished', finished_at: at, updated_at: at })
+      .update({ status: 'finished', finished_at: at, version: trx.raw('version + 1'), updated_at: at })
       .returning('number');
     return rows.map((r) => r.number).sort((a, b) => a - b);
   }
@@ -123,7 +136,29 @@ export class SiteVisitRepository {
     const updated = await trx('site_visits')
       .where({ id })
       .whereIn('status', from)
-      .update({ status: to, updated_at: now, ...(to === 'started' ? { started_at: now } : {}), ...(to === 'finished' ? { finished_at: now } : {}) });
+      .update({ status: to, version: trx.raw('version + 1'), updated_at: now, ...(to === 'started' ? { started_at: now } : {}), ...(to === 'finished' ? { finished_at: now } : {}) });
     return updated === 1;
+  }
+
+  /**
+   * Calls off a booked visit at `version` (kept, with who, when and why); false when it was started,
+   * finished, cancelled or changed meanwhile.
+   */
+  async cancel(id: number, version: number, cancellation: { by: number; reason: string; at: Date }, trx: Trx): Promise<boolean> {
+    const updated = await trx('site_visits')
+      .where({ id, version, status: 'booked' })
+      .update({ status: 'cancelled', cancelled_at: cancellation.at, cancelled_by: cancellation.by, cancel_reason: cancellation.reason, version: trx.raw('version + 1'), updated_at: cancellation.at });
+    return updated === 1;
+  }
+
+  /** How many visits of the request are still booked or on site. */
+  async countOpen(requestId: number, trx: Trx): Promise<number> {
+    const row = await trx('site_visits').where({ request_id: requestId }).whereIn('status', ['booked', 'started']).count<{ n: string }[]>({ n: '*' }).first();
+    return Number(row?.n ?? 0);
+  }
+
+  /** Whether an outcome was recorded on the visit (work was done on it: it is finished, not cancelled). */
+  async hasOutcomes(id: number, trx: Trx): Promise<boolean> {
+    return Boolean(await trx('item_corrections').where({ site_visit_id: id }).first('id'));
   }
 }

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { BookSiteVisitSchema } from '@cc/shared';
+import { BookSiteVisitSchema, CancelSiteVisitSchema } from '@cc/shared';
 import type { RouterDeps } from '../http/router-deps';
 import { requireUser, userOf } from '../http/require-user';
 import { idParam } from '../http/params';
@@ -24,6 +24,10 @@ export function createVisitsRouter({ services }: RouterDeps): Router {
 
   router.post('/:visitId/finish', async (req, res) => {
     res.json(await visits.finish(userOf(req), idParam(req), idParam(req, 'visitId')));
+  });
+
+  router.post('/:visitId/cancel', async (req, res) => {
+    res.json(await visits.cancel(userOf(req), idParam(req), idParam(req, 'visitId'), CancelSiteVisitSchema.parse(req.body ?? {})));
   });
 
   return router;

@@ -1,6 +1,7 @@
-import { addDays, mayAct, todayIn, wallClock, type CurrentUser, type Electrician, type FlowActor, type RequestStatus, type SiteVisit, BookSiteVisitSchema } from '@cc/shared';
+import { addDays, mayAct, todayIn, wallClock, type CurrentUser, type Electrician, type FlowActor, type RequestStatus, type SiteVisit, BookSiteVisitSchema, CancelSiteVisitSchema } from '@cc/shared';
 import type { z } from 'zod';
 import type { Db } from '../db/knex';
+import { inTransaction } from '../db/transaction';
 import type { FlowService } from '../flow/flow.service';
 import { ConflictError, NotFoundError, ValidationError } from '../errors';
 import type { RequestsService } from '../requests/requests.service';
@@ -12,7 +13,7 @@ import type { SiteVisitRecord, SiteVisitRepository } from './site-visit.reposito
 
 const MAX_DAYS_AHEAD = 366;
 
-/** Booking site visits for approved items, and marking them started and finished. */
+/** Booking site visits for approved items, marking them started and finished, and calling them off. */
 export class VisitsService {
   constructor(
     private readonly db: Db,
@@ -104,6 +105,39 @@ export class VisitsService {
     return this.get(user, requestId, visitId);
   }
 
+  /**
+   * Calls off a booked visit (the flow table's `cancel-visit` right, the booking right): it is kept as
+   * cancelled with who, when and why, its items wait for another visit, and the request goes back from
+   * scheduled to approved when it was the last visit booked (no work started). The seller's side and
+   * the electrician are told in the same transaction. A visit started, moved or cancelled since the
+   * version the person saw answers 409.
+   */
+  async cancel(user: CurrentUser, requestId: number, visitId: number, input: z.output<typeof CancelSiteVisitSchema>): Promise<SiteVisit> {
+    const { request, actors } = await requestWithActors(this.access, user, requestId);
+    const visit = await this.visits.find(requestId, visitId);
+    if (!visit) throw new NotFoundError('No such site visit');
+    assertMayAct(actors, 'cancel-visit', request.status, 'Cancelling a visit');
+    await inTransaction(this.db, async (trx) => {
+      const locked = await this.items.lockRequest(requestId, trx);
+      const status = locked?.status as RequestStatus;
+      if (!locked || status !== request.status) throw new ConflictError('The request changed meanwhile. Reload and try again.');
+      const now = await this.visits.find(requestId, visitId, trx);
+      if (!now || now.status !== 'booked') throw new ConflictError(now?.status === 'cancelled' ? 'This visit was cancelled already' : 'Only a visit not yet started can be cancelled: this one was started meanwhile');
+      if (await this.visits.hasOutcomes(visitId, trx)) throw new ConflictError('Outcomes were recorded on this visit: finish it instead of cancelling it');
+      if (!(await this.visits.cancel(visitId, input.version, { by: user.id, reason: input.reason, at: new Date() }, trx))) {
+        throw new ConflictError('The visit was changed meanwhile (moved or started). Reload and try again.');
+      }
+      const items = await this.items.listForRequest(requestId, trx, true);
+      await this.items.planOnVisit(items.filter((i) => i.siteVisitId === visitId && i.status === 'approved').map((i) => i.id), null, trx);
+      if (status === 'scheduled' && (await this.visits.countOpen(requestId, trx)) === 0) {
+        await moveRequest(this.flow, { requestId, event: 'unschedule', actors, by: user.id, note: `Site visit ${now.number} on ${now.date} cancelled: ${input.reason}` }, trx);
+      }
+      const slot = { electricianId: now.electricianId, date: now.date, arrivalFrom: now.arrivalFrom, arrivalTo: now.arrivalTo };
+      await this.messages.visitCancelled(trx, { requestId, visitId, visitNumber: now.number, slot, reason: input.reason, by: user.id });
+    });
+    return this.get(user, requestId, visitId);
+  }
+
   async get(user: CurrentUser, requestId: number, visitId: number): Promise<SiteVisit> {
     const { request, actors } = await requestWithActors(this.access, user, requestId);
     const visit = await this.visits.find(requestId, visitId);
@@ -150,6 +184,8 @@ export function toSiteVisitDto(visit: SiteVisitRecord, items: readonly WorkItemR
     status: visit.status,
     startedAt: visit.startedAt?.toISOString() ?? null,
     finishedAt: visit.finishedAt?.toISOString() ?? null,
+    version: visit.version,
+    cancellation: visit.cancellation ? { at: visit.cancellation.at.toISOString(), byName: visit.cancellation.byName, reason: visit.cancellation.reason } : null,
     quotedVisitKey: visit.quotedVisitKey,
     itemIds: items.filter((i) => i.siteVisitId === visit.id).map((i) => i.id),
     accessNotes: mayAct(actors, 'see-access-notes', status) ? visit.accessNotes : null,

@@ -35,6 +35,17 @@ export interface VisitAssignedMessage {
   by?: number | null;
 }
 
+/** A booked visit called off: the seller's side and its electrician are told (not the one who cancelled it). */
+export interface VisitCancelledMessage {
+  requestId: number;
+  visitId: number;
+  visitNumber: number;
+  /** Who the visit was booked for and when. */
+  slot: VisitSlot;
+  reason: string;
+  by?: number | null;
+}
+
 export interface ItemCorrectedMessage {
   requestId: number;
   itemId: number;
@@ -54,6 +65,7 @@ export interface LetterIssuedMessage {
 export interface ProofMessages {
   visitScheduled(trx: Trx, message: VisitScheduledMessage): Promise<void>;
   visitAssigned(trx: Trx, message: VisitAssignedMessage): Promise<void>;
+  visitCancelled(trx: Trx, message: VisitCancelledMessage): Promise<void>;
   itemCorrected(trx: Trx, message: ItemCorrectedMessage): Promise<void>;
   letterIssued(trx: Trx, message: LetterIssuedMessage): Promise<void>;
 }

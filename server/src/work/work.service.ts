@@ -56,6 +56,7 @@ export class WorkService {
         bookVisit: canBook,
         recordCorrections: mayAct(actors, 'record-correction', status),
         finishVisit: mayAct(actors, 'finish-visit', status),
+        cancelVisit: mayAct(actors, 'cancel-visit', status),
         issueLetter: mayMoveRequest(actors, 'issue-letter', status),
         review: mayMoveRequest(actors, 'accept-proof', status),
         resume: mayMoveRequest(actors, 'resume-work', status),

@@ -93,7 +93,10 @@ export const DayPlanStopSchema = z.object({
   requestId: z.number().int(),
   visitNumber: z.number().int(),
   address: z.string(),
+  /** Cancelled visits are not planned: the day and the week leave them out. */
   status: z.enum(['booked', 'started', 'finished']),
+  /** The visit's version, sent back when it is cancelled from the day plan. */
+  visitVersion: z.number().int(),
   arrivalFrom: z.string(),
   arrivalTo: z.string(),
   place: PlaceSchema.nullable(),

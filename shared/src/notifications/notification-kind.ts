@@ -18,6 +18,7 @@ export const NOTIFICATION_KINDS = [
   'change-order-decided',
   'refund-settled',
   'visit-scheduled',
+  'visit-cancelled',
   'electrician-visit',
   'item-corrected',
   'letter-issued',
@@ -44,6 +45,9 @@ export interface NotificationKindRule {
   readonly isDigestOnly?: boolean;
 }
 
+/** Who hears of a visit's day: the buyer's agent too, as the visit decides whether the repairs are done before closing. */
+const TOLD_OF_VISITS: readonly FlowActor[] = ['seller', 'listing-agent', 'buyer-agent'];
+
 export const NOTIFICATION_RULES: Record<NotificationKind, NotificationKindRule> = {
   invitation: { label: 'Invitation to a request', to: [], defaultDelivery: 'immediate', isAdjustable: false },
   'report-parsed': { label: 'Inspection report read', to: ['buyer-agent'], defaultDelivery: 'immediate', isAdjustable: true },
@@ -60,11 +64,12 @@ export const NOTIFICATION_RULES: Record<NotificationKind, NotificationKindRule> 
   'change-order-sent': { label: 'Change order to decide', to: REQUEST_ACTIONS['decide-change-order'].by, defaultDelivery: 'immediate', isAdjustable: true },
   'change-order-decided': { label: 'Change order approved or declined', to: REQUEST_ACTIONS['send-change-order'].by, defaultDelivery: 'immediate', isAdjustable: true },
   'refund-settled': { label: 'Refund paid back', to: [...REQUEST_ACTIONS.pay.by, ...REQUEST_ACTIONS.refund.by], defaultDelivery: 'immediate', isAdjustable: true },
-  // The buyer's agent too: the visit decides whether the repairs are done before closing.
-  'visit-scheduled': { label: 'Visit scheduled', to: ['seller', 'listing-agent', 'buyer-agent'], defaultDelivery: 'immediate', isAdjustable: true },
+  'visit-scheduled': { label: 'Visit scheduled', to: TOLD_OF_VISITS, defaultDelivery: 'immediate', isAdjustable: true },
+  // Whoever was told of the booking hears that it is called off.
+  'visit-cancelled': { label: 'Visit cancelled', to: TOLD_OF_VISITS, defaultDelivery: 'immediate', isAdjustable: true },
   // Only the electrician the visit is booked for, moved for or taken from (one of the contractor's people;
   // notify() narrows `to` to that one person), never the person who made the change.
-  'electrician-visit': { label: 'Your visits booked, moved or taken off your day', to: ['contractor'], defaultDelivery: 'immediate', isAdjustable: true },
+  'electrician-visit': { label: 'Your visits booked, moved, cancelled or taken off your day', to: ['contractor'], defaultDelivery: 'immediate', isAdjustable: true },
   'item-corrected': { label: 'Item corrected', to: ['buyer-agent', 'listing-agent', 'seller'], defaultDelivery: 'immediate', isAdjustable: true },
   // The seller too: the letter is the proof of the repairs they paid for.
   'letter-issued': { label: 'Completion letter issued', to: ['inspector', 'buyer-agent', 'listing-agent', 'seller'], defaultDelivery: 'immediate', isAdjustable: true },

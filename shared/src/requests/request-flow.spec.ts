@@ -179,3 +179,26 @@ describe('nextStepLines', () => {
   });
 });
 
+
+describe('calling off a booked visit', () => {
+  it('is the booking right: the assigned contractor, in the states a visit may be booked', () => {
+    expect(REQUEST_ACTIONS['cancel-visit']).toBe(REQUEST_ACTIONS['book-visit']);
+    for (const status of REQUEST_STATUSES) {
+      for (const actor of ACTORS) expect(mayAct([actor], 'cancel-visit', status)).toBe(mayAct([actor], 'book-visit', status));
+    }
+  });
+
+  it('takes a scheduled request back to approved, by the contractor only', () => {
+    expect(requestMove('unschedule', 'scheduled')).toMatchObject({ to: 'approved', by: ['contractor'], isDetour: true });
+    expect(requestMove('unschedule', 'in-progress')).toBeUndefined();
+    for (const actor of ACTORS) expect(mayMoveRequest([actor], 'unschedule', 'scheduled')).toBe(actor === 'contractor');
+  });
+
+  it('changes neither who acts next nor the next step of a scheduled request (it is a detour), nor the usual path', () => {
+    expect(whoActsNext('scheduled')).toEqual(['contractor']);
+    expect(nextStepLines('scheduled')).toEqual(['Start the visit: the contractor']);
+    expect(nextStepLines('approved')).toEqual(['Book a visit: the contractor']);
+    expect(requestPathTo('scheduled').map((m) => m.event)).not.toContain('unschedule');
+    expect(requestPathTo('approved').map((m) => m.event)).not.toContain('unschedule');
+  });
+});

@@ -67,6 +67,7 @@ export const REQUEST_EVENTS = [
   'decline',
   'schedule',
   'start-work',
+  'unschedule',
   'approve-change-order',
   'finish-work',
   'issue-letter',
@@ -81,6 +82,9 @@ export type RequestMove = FlowMove<RequestStatus, RequestEvent> & {
   readonly itemEvent?: ItemEvent;
 };
 
+/** Who books site visits and when; a booked visit is cancelled by the same people in the same states. */
+const VISIT_BOOKING = { in: ['approved', 'scheduled', 'in-progress', 'reopened'], by: ['contractor'] } as const satisfies { in: readonly RequestStatus[]; by: readonly FlowActor[] };
+
 const BEFORE_LETTER: readonly RequestStatus[] = ['draft', 'intake', 'pricing', 'quoted', 'approved', 'scheduled', 'in-progress', 'corrected', 'reopened'];
 /** States in which the seller's scope is signed and money may move. */
 const AFTER_APPROVAL: readonly RequestStatus[] = ['approved', 'scheduled', 'in-progress', 'corrected', 'letter-issued', 'accepted', 'reopened'];
@@ -94,6 +98,8 @@ export const REQUEST_FLOW: readonly RequestMove[] = [
   { event: 'decline', from: ['quoted'], to: 'declined', by: SELLER_SIDE, label: 'Decline every item', itemEvent: 'decline' },
   { event: 'schedule', from: ['approved'], to: 'scheduled', by: ['contractor'], label: 'Book a visit' },
   { event: 'start-work', from: ['scheduled'], to: 'in-progress', by: ['contractor'], label: 'Start the visit' },
+  // The request's last booked visit is cancelled before any work started: its items wait for a visit again.
+  { event: 'unschedule', from: ['scheduled'], to: 'approved', by: ['contractor'], label: 'Cancel the last booked visit', isDetour: true },
   // An approved change order brings new work: a request whose work was finished is under way again.
   { event: 'approve-change-order', from: ['corrected'], to: 'in-progress', by: SELLER_SIDE, label: 'Approve the change order', isDetour: true },
   { event: 'finish-work', from: ['in-progress'], to: 'corrected', by: ['contractor'], label: 'Record the last outcome', itemEvent: 'correct' },
@@ -123,7 +129,9 @@ export const REQUEST_ACTIONS = {
   'issue-invoice': { in: AFTER_APPROVAL, by: ['contractor'] },
   // The invoice payable at closing went to a wrong or old address: whoever chose it, or the contractor, sends it again.
   'send-closing-invoice': { in: AFTER_APPROVAL, by: [...SELLER_SIDE, 'contractor'] },
-  'book-visit': { in: ['approved', 'scheduled', 'in-progress', 'reopened'], by: ['contractor'] },
+  'book-visit': VISIT_BOOKING,
+  // Calling off a booked visit (the seller cancelled a showing, the occupant is ill, a part is late) is the booking right.
+  'cancel-visit': VISIT_BOOKING,
   'record-correction': { in: ['scheduled', 'in-progress', 'reopened'], by: ['contractor'] },
   // A started visit is finished when the electrician leaves, also after its last item's outcome moved the request on.
   'finish-visit': { in: ['scheduled', 'in-progress', 'corrected', 'letter-issued', 'accepted', 'reopened'], by: ['contractor'] },

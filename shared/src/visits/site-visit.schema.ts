@@ -1,11 +1,11 @@
 import * as z from 'zod';
-import { trimmedText } from '../http/bounds';
+import { trimmedText, VersionSchema } from '../http/bounds';
 
 // Site visits: the real appointments at the property. Not the same thing as the quote's visits
 // (groups of priced items that share a service call, `visitKey` in pricing): a booked site visit
 // takes the items of one quoted visit, or every approved item not yet booked.
 
-export const SITE_VISIT_STATUSES = ['booked', 'started', 'finished'] as const;
+export const SITE_VISIT_STATUSES = ['booked', 'started', 'finished', 'cancelled'] as const;
 export const SiteVisitStatusSchema = z.enum(SITE_VISIT_STATUSES);
 export type SiteVisitStatus = z.infer<typeof SiteVisitStatusSchema>;
 
@@ -13,7 +13,22 @@ export const SITE_VISIT_STATUS_LABELS: Record<SiteVisitStatus, string> = {
   booked: 'Booked',
   started: 'On site',
   finished: 'Finished',
+  cancelled: 'Cancelled',
 };
+
+/** The states of a visit that still happens or happened (a cancelled visit is kept only as history). */
+export const PLANNED_VISIT_STATUSES = ['booked', 'started', 'finished'] as const satisfies readonly SiteVisitStatus[];
+export type PlannedVisitStatus = (typeof PLANNED_VISIT_STATUSES)[number];
+
+export const CANCEL_REASON_MAX = 500;
+
+/** Calling off a booked visit: why (told to the seller's side and the electrician), and the version the person saw. */
+export const CancelSiteVisitSchema = z.object({
+  reason: trimmedText(CANCEL_REASON_MAX).pipe(z.string().min(3, 'Say why the visit is cancelled')),
+  /** The visit's version as shown: a visit started or moved meanwhile answers 409. */
+  version: VersionSchema,
+});
+export type CancelSiteVisit = z.input<typeof CancelSiteVisitSchema>;
 
 const time = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'Enter a time as HH:MM');
 
@@ -42,6 +57,10 @@ export const SiteVisitSchema = z.object({
   status: SiteVisitStatusSchema,
   startedAt: z.string().nullable(),
   finishedAt: z.string().nullable(),
+  /** Counts the visit's changes (moved, started, finished, cancelled): send it back with a cancellation. */
+  version: z.number().int(),
+  /** When a cancelled visit was called off, by whom and why (null otherwise). */
+  cancellation: z.object({ at: z.string(), byName: z.string().nullable(), reason: z.string() }).nullable(),
   quotedVisitKey: z.string().nullable(),
   /** Items planned for this visit. */
   itemIds: z.array(z.number().int()),

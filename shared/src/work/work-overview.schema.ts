@@ -53,6 +53,8 @@ export const WorkOverviewSchema = z.object({
     recordCorrections: z.boolean(),
     /** Marking a started visit finished (also once the request moved on to corrected). */
     finishVisit: z.boolean(),
+    /** Call off a booked visit (the flow table's `cancel-visit`). */
+    cancelVisit: z.boolean(),
     issueLetter: z.boolean(),
     review: z.boolean(),
     resume: z.boolean(),

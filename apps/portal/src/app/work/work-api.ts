@@ -2,6 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import {
   BookSiteVisit,
+  CancelSiteVisit,
   CompletionLetter,
   Correction,
   IssueLetter,
@@ -39,6 +40,11 @@ export class WorkApi {
 
   markVisit(requestId: number, visitId: number, step: 'start' | 'finish'): Observable<SiteVisit> {
     return this.http.post<SiteVisit>(`/api/requests/${requestId}/visits/${visitId}/${step}`, {});
+  }
+
+  /** Calls off a booked visit with the reason and the version shown (409 when it was started or moved meanwhile). */
+  cancelVisit(requestId: number, visitId: number, body: CancelSiteVisit): Observable<SiteVisit> {
+    return this.http.post<SiteVisit>(`/api/requests/${requestId}/visits/${visitId}/cancel`, body);
   }
 
   /** The record goes as JSON in a multipart form beside the photos. */

@@ -16,6 +16,7 @@ const stop = (visitId: number, address: string, start: string, finish: string, o
   visitNumber: 1,
   address,
   status: 'booked',
+  visitVersion: 1,
   arrivalFrom: '08:00',
   arrivalTo: '10:00',
   place: { latitude: 38.83, longitude: -104.81, source: 'zip' },

@@ -17,6 +17,7 @@ import { SafetyNotice } from '../../ui/safety-notice/safety-notice';
 import { DayPlanApi } from '../day-plan-api';
 import { openLocation } from '../location-dialog/location-dialog';
 import { openMoveVisit } from '../move-visit-dialog/move-visit-dialog';
+import { openCancelVisit } from '../../work/cancel-visit-dialog/cancel-visit-dialog';
 
 /** One electrician's day: the visits in driving order with times, warnings, nearby jobs that fit, calendars. */
 @Component({
@@ -117,6 +118,18 @@ export class DayPage {
       if (!result) return;
       this.plan.set(result.from);
       this.notice.success(`Moved to ${result.to.electrician.name} on ${result.to.date}.`);
+    });
+  }
+
+  /** Calls off a booked visit (the seller's side and the electrician are told); the day is planned again without it. */
+  protected cancelVisit(stop: DayPlanStop): void {
+    const plan = this.plan();
+    if (!plan) return;
+    const what = `${plan.date}, ${stop.arrivalFrom}–${stop.arrivalTo} · ${plan.electrician.name} · ${stop.address}`;
+    openCancelVisit(this.dialog, { requestId: stop.requestId, visitId: stop.visitId, visitNumber: stop.visitNumber, version: stop.visitVersion, what }).subscribe((cancelled) => {
+      if (!cancelled) return;
+      this.notice.success(`Visit ${stop.visitNumber} to ${stop.address} cancelled. Its items wait for another visit.`);
+      this.load();
     });
   }
 

@@ -12,7 +12,7 @@ const overview = {
   status: 'in-progress',
   closingDate: '2026-12-10',
   closing: { businessDaysLeft: 5, approvedCount: 1, resolvedCount: 0, isAtRisk: false, atRiskBusinessDays: 3 },
-  can: { bookVisit: true, recordCorrections: true, finishVisit: true, issueLetter: false, review: false, resume: false, seeAccessNotes: true },
+  can: { bookVisit: true, recordCorrections: true, finishVisit: true, cancelVisit: true, issueLetter: false, review: false, resume: false, seeAccessNotes: true },
   quotedVisitKeys: ['v1'],
   electricians: [],
   visits: [],

@@ -1,10 +1,11 @@
-import { DatePipe } from '@angular/common';
+import { DatePipe, formatDate } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatDialog } from '@angular/material/dialog';
 import { RouterLink } from '@angular/router';
 import {
   CORRECTION_OUTCOME_LABELS,
@@ -28,6 +29,7 @@ import { LetterPanel } from '../letter-panel/letter-panel';
 import { endedSummary } from '../../requests/next-step/next-step-text';
 import { ReadingList } from '../reading-list/reading-list';
 import { VisitBooking } from '../visit-booking/visit-booking';
+import { openCancelVisit } from '../cancel-visit-dialog/cancel-visit-dialog';
 import { WorkApi } from '../work-api';
 import { WorkCaution } from '../work-caution/work-caution';
 
@@ -46,6 +48,7 @@ export class WorkPage {
   private readonly api = inject(WorkApi);
   private readonly notice = inject(Notice);
   private readonly clock = inject(Clock);
+  private readonly dialog = inject(MatDialog);
 
   /** The request id (route parameter). */
   readonly id = input.required<string>();
@@ -94,6 +97,23 @@ export class WorkPage {
   /** A booked visit whose day has not come: starting it moves it to today (the server tells the seller's side). */
   protected isEarly(visit: SiteVisit): boolean {
     return visit.status === 'booked' && visit.date > this.clock.today();
+  }
+
+  /** What the person may do on one visit now: start or finish it (as before), or call off a booked one. */
+  protected visitActions(o: WorkOverview, visit: SiteVisit): { start: boolean; finish: boolean; cancel: boolean } {
+    const isOpen = visit.status === 'booked' || visit.status === 'started';
+    return {
+      start: visit.status === 'booked' && o.can.recordCorrections,
+      finish: o.can.finishVisit && isOpen,
+      cancel: visit.status === 'booked' && o.can.cancelVisit,
+    };
+  }
+
+  protected cancelVisit(o: WorkOverview, visit: SiteVisit): void {
+    const what = `${formatDate(visit.date, 'EEE, MMM d', 'en-US')}, ${visit.arrivalFrom}–${visit.arrivalTo} · ${visit.electrician.name} · ${o.street}`;
+    openCancelVisit(this.dialog, { requestId: o.requestId, visitId: visit.id, visitNumber: visit.number, version: visit.version, what }).subscribe((cancelled) => {
+      if (cancelled) this.reload(`Visit ${visit.number} cancelled. Its items wait for another visit.`);
+    });
   }
 
   protected markVisit(o: WorkOverview, visit: SiteVisit, step: 'start' | 'finish'): void {
