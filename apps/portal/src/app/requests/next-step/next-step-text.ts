@@ -31,6 +31,8 @@ export const PORTAL_PLACES: Partial<Record<RequestEvent, PortalPlace>> = {
   decline: { link: (id) => ['/requests', id, 'approval'], text: 'Approve or decline the items', isOnRequestPage: false },
   'approve-change-order': { link: (id) => ['/requests', id, 'approval'], text: 'Decide on the change order', isOnRequestPage: false },
   schedule: { link: (id) => ['/requests', id, 'work'], text: 'Book the visit', isOnRequestPage: false },
+  // Calling off the last booked visit, on the visit's card.
+  unschedule: { link: (id) => ['/requests', id, 'work'], text: 'Open visits and proof', isOnRequestPage: false },
   'start-work': { link: (id) => ['/requests', id, 'work'], text: 'Open visits and proof', isOnRequestPage: false },
   'finish-work': { link: (id) => ['/requests', id, 'work'], text: 'Record the outcomes', isOnRequestPage: false },
   'issue-letter': { link: (id) => ['/requests', id, 'work'], text: 'Issue the completion letter', isOnRequestPage: false },
