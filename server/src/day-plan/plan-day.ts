@@ -96,6 +96,7 @@ export function buildDayPlan(settings: StoredDayPlanSettings, electrician: { id:
     electrician,
     dayStart: settings.dayStart,
     dayEnd: settings.dayEnd,
+    leaveAt: schedule.leaveAt,
     stops,
     returnDriveMiles: back?.miles ?? null,
     returnDriveMinutes: back?.minutes ?? null,

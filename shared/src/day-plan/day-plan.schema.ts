@@ -137,6 +137,8 @@ export const DayPlanSchema = z.object({
   electrician: z.object({ id: z.number().int(), name: z.string() }),
   dayStart: z.string(),
   dayEnd: z.string(),
+  /** Leaving the shop, HH:MM: in time for the first stop's window, never before the day starts. */
+  leaveAt: z.string(),
   stops: z.array(DayPlanStopSchema),
   returnDriveMiles: z.number().nullable(),
   returnDriveMinutes: z.number().int().nullable(),

@@ -23,10 +23,18 @@ describe('scheduleDay', () => {
     expect(plan.overflowMinutes).toBe(0);
   });
 
-  it('waits for a booked window to open and flags an arrival after it closed', () => {
+  it('leaves the shop in time for the first window instead of waiting at the door', () => {
     const plan = scheduleDay(day, [stop(10, 60, '09:00', '11:00'), stop(10, 240, '08:00', '10:00'), stop(10, 30, '08:00', '10:00')], 10);
-    expect(plan.stops[0]).toMatchObject({ arrival: '07:40', waitMinutes: 80, start: '09:00', finish: '10:00', isLate: false });
+    expect(plan.leaveAt).toBe('08:50');
+    expect(plan.stops[0]).toMatchObject({ arrival: '09:00', waitMinutes: 0, start: '09:00', finish: '10:00', isLate: false });
     expect(plan.stops[1]).toMatchObject({ arrival: '10:10', isLate: true });
+  });
+
+  it('never leaves before the start of the day, and waits at a later stop whose window opens after the arrival', () => {
+    const plan = scheduleDay(day, [stop(30, 30, '07:30', '09:30'), stop(10, 30, '10:00', '12:00')], 10);
+    expect(plan.leaveAt).toBe('07:30');
+    expect(plan.stops[0]).toMatchObject({ arrival: '08:00', waitMinutes: 0 });
+    expect(plan.stops[1]).toMatchObject({ arrival: '08:40', waitMinutes: 80, start: '10:00' });
   });
 
   it('takes lunch at the first departure at or after lunch time', () => {
@@ -45,7 +53,7 @@ describe('scheduleDay', () => {
   });
 
   it('plans an empty day as no work and no lunch', () => {
-    expect(scheduleDay(day, [], 25)).toEqual({ stops: [], lunch: null, finish: '07:30', overflowMinutes: 0 });
+    expect(scheduleDay(day, [], 25)).toEqual({ leaveAt: '07:30', stops: [], lunch: null, finish: '07:30', overflowMinutes: 0 });
   });
 });
 

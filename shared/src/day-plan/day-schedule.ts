@@ -35,6 +35,8 @@ export interface ScheduledStop {
 }
 
 export interface DaySchedule {
+  /** Leaving the shop. */
+  leaveAt: string;
   stops: ScheduledStop[];
   lunch: { from: string; to: string } | null;
   /** Back at the shop. */
@@ -43,13 +45,16 @@ export interface DaySchedule {
 }
 
 /**
- * Leaves the shop at the start of the day and takes the stops in order. At a stop reached before its
- * window opens the electrician waits; one reached after it closes is late. Lunch is taken at the first
- * departure at or after lunch time (before driving on); a day whose work ends before lunch time has none.
+ * Leaves the shop in time to reach the first stop as its window opens, never before the start of the
+ * day, and takes the stops in order. At a later stop reached before its window opens the electrician
+ * waits; one reached after it closes is late. Lunch is taken at the first departure at or after lunch
+ * time (before driving on); a day whose work ends before lunch time has none.
  */
 export function scheduleDay(day: WorkingDay, stops: readonly StopToSchedule[], returnDriveMinutes: number): DaySchedule {
   const lunchAt = minutesOfDay(day.lunchStart);
-  let clock = minutesOfDay(day.dayStart);
+  const first = stops[0];
+  let clock = Math.max(minutesOfDay(day.dayStart), first ? minutesOfDay(first.arrivalFrom) - first.driveMinutes : 0);
+  const leaveAt = clockOf(clock);
   let lunch: DaySchedule['lunch'] = null;
   const takeLunchIfDue = (): boolean => {
     if (lunch || day.lunchMinutes === 0 || clock < lunchAt) return false;
@@ -68,7 +73,7 @@ export function scheduleDay(day: WorkingDay, stops: readonly StopToSchedule[], r
   });
   if (stops.length) takeLunchIfDue();
   const back = clock + (stops.length ? returnDriveMinutes : 0);
-  return { stops: scheduled, lunch, finish: clockOf(back), overflowMinutes: Math.max(0, back - minutesOfDay(day.dayEnd)) };
+  return { leaveAt, stops: scheduled, lunch, finish: clockOf(back), overflowMinutes: Math.max(0, back - minutesOfDay(day.dayEnd)) };
 }
 
 /** Common practice for short pre-closing visits: 3–5 a day per electrician, each within about 20–30 minutes' drive. */

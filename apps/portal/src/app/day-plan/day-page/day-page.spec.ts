@@ -38,6 +38,7 @@ function plan(overrides: Partial<DayPlan> = {}): DayPlan {
     date: '2026-12-07',
     electrician: { id: 7, name: 'Lee Park' },
     dayStart: '07:30',
+    leaveAt: '07:30',
     dayEnd: '16:30',
     stops: [stop(1, '16 Chapel Row, Marlow Springs', '07:39', '08:54'), stop(2, '92 Millrace Court, Marlow Springs', '09:03', '10:18', { isLate: true, arrival: '10:12' })],
     returnDriveMiles: 3.1,
