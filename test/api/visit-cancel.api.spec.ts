@@ -169,6 +169,7 @@ describe('bad input answers 400 with the field named', () => {
   });
 
   it.each<[string, object, string]>([
+    ['an empty body', {}, 'reason'],
     ['no reason', { version: 1 }, 'reason'],
     ['an empty reason', { reason: '', version: 1 }, 'reason'],
     ['a reason of spaces only', { reason: '     ', version: 1 }, 'reason'],
@@ -181,23 +182,27 @@ describe('bad input answers 400 with the field named', () => {
     expect(res.status).toBe(400);
     expect(res.body.error).toEqual(expect.any(String));
     expect(res.body.details).toEqual(expect.arrayContaining([expect.objectContaining({ path })]));
+    await expectStillBooked();
   });
 
   it('a NUL byte in the reason', async () => {
     const res = await cancel(cast.s.contractor, requestId, visit.id, { reason: 'Occupant\u0000ill', version: visit.version });
     expect(res.status).toBe(400);
     expect(res.body.details).toEqual([expect.objectContaining({ path: 'reason', message: NO_NUL_MESSAGE })]);
+    await expectStillBooked();
   });
 
   it('a visit id past 2^31-1 in the path', async () => {
     const res = await cancel(cast.s.contractor, requestId, 2 ** 31, { reason: REASON, version: 1 });
     expect([400, 404]).toContain(res.status);
     expect(res.body).toEqual({ error: expect.any(String), details: expect.any(Array) });
+    await expectStillBooked();
   });
 
-  it('leaves the visit booked after every refusal', async () => {
-    expect((await t.db('site_visits').where({ id: visit.id }).first('status', 'version'))).toEqual({ status: 'booked', version: visit.version });
-  });
+  /** Each refusal leaves the visit as it was: booked, at the same version. */
+  async function expectStillBooked(): Promise<void> {
+    expect(await t.db('site_visits').where({ id: visit.id }).first('status', 'version')).toEqual({ status: 'booked', version: visit.version });
+  }
 });
 
 describe('a stale version answers 409', () => {
